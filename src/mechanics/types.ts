@@ -1,0 +1,171 @@
+/**
+ * Result records of the mechanics kernels. This file is the contract between the kernels, the
+ * worker, the CLI and the app: fields may be added, never renamed or removed without updating
+ * every user. All values are in model units (length L, stress S, force S·L², moment S·L³).
+ */
+import type { Vec3 } from '../model/model.ts'
+
+/** Slots per boundary face in per-face-node arrays; unused slots of smaller faces hold -1 / NaN. */
+export const FACE_SLOTS = 8
+
+/**
+ * Boundary faces: faces used by exactly one element, oriented outward.
+ * - `elem`: global element index; `localFace`: face number in the element's topology.
+ * - `kind`: FACE_KIND_CODE of the face; `nodes`: Int32Array(8·F), the face's node indices,
+ *   corners first then mid-edge nodes, counter-clockwise seen from outside, padded with -1.
+ * - `area`: face area (quadrature over the curved face for quadratic faces).
+ * - `normal`: Float64Array(3·F), unit area-weighted mean outward normal.
+ * - `centroid`: Float64Array(3·F), area centroid.
+ */
+export interface BoundaryFaces {
+  readonly count: number
+  readonly elem: Int32Array
+  readonly localFace: Uint8Array
+  readonly kind: Uint8Array
+  readonly nodes: Int32Array
+  readonly area: Float64Array
+  readonly normal: Float64Array
+  readonly centroid: Float64Array
+}
+
+/**
+ * Tractions on the boundary faces, t = σn (n outward unit normal), tension positive.
+ * Per face node slot (8 per face, NaN in unused slots):
+ * - `nodeNormal` (3·8·F): unit outward normal at that node of the face (curved faces differ per node);
+ * - `nodeTraction` (3·8·F): t at that node; `nodeNormalTraction` (8·F): t_n = n·t;
+ *   `nodeShear` (8·F): |t - t_n n|; `nodeMagnitude` (8·F): |t|.
+ * Per face, integrated with the face's quadrature rule:
+ * - `force` (3·F): ∫ t dA; `moment` (3·F): ∫ x × t dA about the origin;
+ * - `meanNormal` (F): ∫ t_n dA / A; `meanShear` (F): ∫ |τ| dA / A; `meanMagnitude` (F): ∫ |t| dA / A.
+ */
+export interface SurfaceTractions {
+  readonly nodeNormal: Float64Array
+  readonly nodeTraction: Float64Array
+  readonly nodeNormalTraction: Float64Array
+  readonly nodeShear: Float64Array
+  readonly nodeMagnitude: Float64Array
+  readonly force: Float64Array
+  readonly moment: Float64Array
+  readonly meanNormal: Float64Array
+  readonly meanShear: Float64Array
+  readonly meanMagnitude: Float64Array
+}
+
+/**
+ * Stress invariants at nodes (N nodes):
+ * - `principal` (3·N): σ1 ≥ σ2 ≥ σ3; `directions` (9·N): unit eigenvectors, row i for σi;
+ * - `vonMises`, `tresca` (= σ1 - σ3), `mean` (= (σxx+σyy+σzz)/3), each Float64Array(N).
+ */
+export interface NodalInvariants {
+  readonly principal: Float64Array
+  readonly directions: Float64Array
+  readonly vonMises: Float64Array
+  readonly tresca: Float64Array
+  readonly mean: Float64Array
+}
+
+/** Resultant force and moment with the residual relative to a gross load (dimensionless). */
+export interface BalanceFigure {
+  readonly force: Vec3
+  readonly moment: Vec3
+  /** |force| / gross, where gross is half the sum of |face force| plus |∫ρb dV| as documented. */
+  readonly relative: number
+  readonly gross: number
+}
+
+/**
+ * Element balance audit (E elements): `residual` (3·E) = ∮ σn dA + ∫ ρb dV over each element,
+ * `gross` (E) = half the sum of |∫ σn dA| over the element's faces (plus |∫ρb dV| / 2),
+ * `indicator` (E) = |residual| / gross (0 where gross is 0).
+ */
+export interface ElementBalance {
+  readonly residual: Float64Array
+  readonly gross: Float64Array
+  readonly indicator: Float64Array
+}
+
+/** Whole-body balance: surface integral of t plus body force, moment about `about` (the volume centroid). */
+export interface BodyBalance extends BalanceFigure {
+  readonly about: Vec3
+  readonly volume: number
+  readonly centroid: Vec3
+  readonly surfaceForce: Vec3
+  readonly bodyForceTotal: Vec3
+}
+
+/** A load-entry patch: edge-connected boundary faces that carry load. */
+export interface LoadPatch {
+  readonly id: number
+  readonly faceCount: number
+  readonly area: number
+  readonly centroid: Vec3
+  /** ∫ t dA over the patch. */
+  readonly force: Vec3
+  /** ∫ (x - centroid) × t dA over the patch. */
+  readonly moment: Vec3
+  /** Largest |t| at a face node of the patch. */
+  readonly peak: number
+  /** ∫ |t| dA / area. */
+  readonly mean: number
+}
+
+export interface LoadPatches {
+  readonly patches: readonly LoadPatch[]
+  /** Int32Array(F): patch id per boundary face, -1 for the nominally free surface. */
+  readonly faceLabel: Int32Array
+  /** The threshold used, in stress units, and the reference stress it was derived from. */
+  readonly threshold: number
+  readonly referenceStress: number
+  /**
+   * Traction left on the nominally free surface: area, ∫|t| dA / area (mean), its ratio to the
+   * reference stress (`relative`), and the largest |t| at a free face node (`peak`).
+   */
+  readonly freeSurface: { readonly area: number; readonly mean: number; readonly relative: number; readonly peak: number }
+}
+
+/** A section plane through `point` with unit `normal` m. */
+export interface SectionPlane {
+  readonly point: Vec3
+  readonly normal: Vec3
+}
+
+/**
+ * Section result by the DESIGN.md convention: force and moment the material on the +m side
+ * exerts on the material on the -m side: F = ∫ σm dA, M = ∫ (x - about) × σm dA.
+ * Section axes: e3 = m, e1/e2 principal axes of the section area (I1 ≥ I2).
+ * `axial` = F·e3, `shear` = [F·e1, F·e2], `torque` = M·e3, `bending` = [M·e1, M·e2].
+ * `freeBody`: residual of the cut-off piece on the -m side (boundary tractions clipped by the plane
+ * + body force on the clipped volume + section resultant), relative to that piece's gross load.
+ * `empty` is true when the plane misses the body (all figures zero then).
+ */
+export interface SectionResult {
+  readonly empty: boolean
+  readonly plane: SectionPlane
+  readonly area: number
+  readonly centroid: Vec3
+  readonly about: Vec3
+  readonly force: Vec3
+  readonly moment: Vec3
+  readonly axes: { readonly e1: Vec3; readonly e2: Vec3; readonly e3: Vec3 }
+  /** Principal second moments of area about the centroid, I1 ≥ I2, and the polar moment J = I1 + I2. */
+  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly J: number }
+  readonly axial: number
+  readonly shear: [number, number]
+  readonly torque: number
+  readonly bending: [number, number]
+  readonly freeBody: BalanceFigure
+  readonly cutElements: number
+}
+
+/**
+ * The section polygons for drawing: polygon p has vertices `start[p]..start[p+1]-1` in
+ * `positions` (3 per vertex), with the traction σm at each vertex in `traction` (3 per vertex),
+ * and `elem[p]` the global element index it cuts.
+ */
+export interface SectionPolygons {
+  readonly count: number
+  readonly start: Int32Array
+  readonly positions: Float64Array
+  readonly traction: Float64Array
+  readonly elem: Int32Array
+}
