@@ -24,7 +24,11 @@ export const QUANTITY_NAMES: readonly QuantityName[] = [
   'normalTraction', 'shearTraction', 'tractionMagnitude', 'vonMises', 'principal1', 'principal3', 'balanceIndicator',
 ]
 
-/** Published colour map names (viridis/cividis sequential, ColorBrewer RdBu/PuOr diverging). */
+/**
+ * Published colour map names (viridis/cividis sequential, ColorBrewer RdBu/PuOr diverging).
+ * Tables: src/app/colourMaps.ts `colourMapTable(name, 256)` (RGBA8, low end first), shared by the
+ * shader and the colour bar. Map t = (value - range[0]) / (range[1] - range[0]) clamped to [0, 1].
+ */
 export type ColourMapName = 'viridis' | 'cividis' | 'RdBu' | 'PuOr'
 
 /** Summary of the loaded model (no O(elements) data). */
