@@ -8,6 +8,7 @@ export type InputErrorKind =
   | 'bad-id' | 'duplicate-id' | 'missing-node' | 'unknown-type' | 'node-count' | 'missing-stress'
   | 'zero-volume' | 'bad-json' | 'bad-unit' | 'container' | 'version' | 'too-large' | 'no-elements'
   | 'bad-argument'
+  | 'shared-face'
 
 export interface InputErrorWhere {
   readonly file?: string

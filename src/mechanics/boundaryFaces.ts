@@ -1,0 +1,247 @@
+/**
+ * Boundary faces of a mesh: faces used by exactly one element, oriented outward.
+ *
+ * Matching without strings or per-face maps, so that 10^6 elements take a fraction of a second:
+ * every element face is bucketed by its smallest corner node (counting sort into CSR arrays),
+ * with its remaining corners sorted beside it; inside a bucket (a few dozen faces at most for
+ * sane meshes) faces are ordered by that tuple and equal runs are found in one scan. A run of one
+ * is a boundary face, a run of two an interior face, a run of three or more is a mesh error.
+ *
+ * Output faces are ordered by global element index, then local face number, so the result does
+ * not depend on node numbering. Faces keep the element's local face node order, which is outward
+ * for positively oriented elements (the readers reorient inverted ones).
+ */
+import { ELEMENT_TYPES, FACE_CORNER_COUNT, FACE_KIND_CODE, FACE_NODE_COUNT } from '../model/elementTypes.ts'
+import type { FaceKind } from '../model/elementTypes.ts'
+import { InputError } from '../model/errors.ts'
+import type { Mesh } from '../model/model.ts'
+import { faceRule } from './quadrature.ts'
+import { tabulateFace } from './shapeFunctions.ts'
+import type { FaceTable } from './shapeFunctions.ts'
+import { FACE_SLOTS } from './types.ts'
+import type { BoundaryFaces } from './types.ts'
+
+/** Faces per element are at most 6; a face reference is globalElement·8 + localFace. */
+const REF_STRIDE = 8
+
+/** Local corner lists of every face of a type, 4 per face (-1 for the 4th corner of triangles). */
+function faceCornerTable(faces: readonly (readonly number[])[], kinds: readonly FaceKind[]): Int32Array {
+  const t = new Int32Array(4 * faces.length).fill(-1)
+  faces.forEach((f, i) => { for (let c = 0; c < FACE_CORNER_COUNT[kinds[i]]; c++) t[4 * i + c] = f[c] })
+  return t
+}
+
+export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
+  const N = mesh.nodeCount, E = mesh.elementCount
+  const blocks = mesh.blocks
+
+  // Pass 1: count faces per smallest corner node.
+  const bucketStart = new Int32Array(N + 1)
+  let total = 0
+  for (const b of blocks) {
+    const topo = ELEMENT_TYPES[b.type]
+    const nn = topo.nodeCount, nf = topo.faces.length
+    const fc = faceCornerTable(topo.faces, topo.faceKinds)
+    const conn = b.conn
+    const count = conn.length / nn
+    total += count * nf
+    for (let e = 0; e < count; e++) {
+      const base = e * nn
+      for (let f = 0; f < nf; f++) {
+        let m = conn[base + fc[4 * f]]
+        const c1 = conn[base + fc[4 * f + 1]], c2 = conn[base + fc[4 * f + 2]]
+        if (c1 < m) m = c1
+        if (c2 < m) m = c2
+        const l3 = fc[4 * f + 3]
+        if (l3 >= 0) { const c3 = conn[base + l3]; if (c3 < m) m = c3 }
+        bucketStart[m + 1]++
+      }
+    }
+  }
+  for (let i = 0; i < N; i++) bucketStart[i + 1] += bucketStart[i]
+
+  // Pass 2: place each face in its bucket with its other corners sorted ascending (k3 = -1 for
+  // triangles, so a triangle never matches a quadrilateral).
+  const ref = new Int32Array(total), k1 = new Int32Array(total), k2 = new Int32Array(total), k3 = new Int32Array(total)
+  const cursor = bucketStart.slice(0, N)
+  for (const b of blocks) {
+    const topo = ELEMENT_TYPES[b.type]
+    const nn = topo.nodeCount, nf = topo.faces.length
+    const fc = faceCornerTable(topo.faces, topo.faceKinds)
+    const conn = b.conn, off = b.offset
+    const count = conn.length / nn
+    for (let e = 0; e < count; e++) {
+      const base = e * nn
+      for (let f = 0; f < nf; f++) {
+        let a = conn[base + fc[4 * f]], bb = conn[base + fc[4 * f + 1]], c = conn[base + fc[4 * f + 2]]
+        const l3 = fc[4 * f + 3]
+        let d = l3 >= 0 ? conn[base + l3] : 0x7fffffff
+        // Sorting network for four values (d = +∞ for triangles stays last).
+        let t: number
+        if (a > bb) { t = a; a = bb; bb = t }
+        if (c > d) { t = c; c = d; d = t }
+        if (a > c) { t = a; a = c; c = t }
+        if (bb > d) { t = bb; bb = d; d = t }
+        if (bb > c) { t = bb; bb = c; c = t }
+        const p = cursor[a]++
+        ref[p] = (off + e) * REF_STRIDE + f
+        k1[p] = bb; k2[p] = c; k3[p] = d === 0x7fffffff ? -1 : d
+      }
+    }
+  }
+
+  // Pass 3: order each bucket by (k1, k2, k3) (insertion sort: buckets are small) and flag runs of one.
+  const isBoundary = new Uint8Array(E * REF_STRIDE)
+  let boundaryCount = 0
+  for (let n = 0; n < N; n++) {
+    const s = bucketStart[n], t = bucketStart[n + 1]
+    if (t - s > 64) sortLargeBucket(ref, k1, k2, k3, s, t)
+    else for (let i = s + 1; i < t; i++) {
+      const r = ref[i], a = k1[i], b = k2[i], c = k3[i]
+      let j = i - 1
+      while (j >= s && (k1[j] > a || (k1[j] === a && (k2[j] > b || (k2[j] === b && k3[j] > c))))) {
+        ref[j + 1] = ref[j]; k1[j + 1] = k1[j]; k2[j + 1] = k2[j]; k3[j + 1] = k3[j]
+        j--
+      }
+      ref[j + 1] = r; k1[j + 1] = a; k2[j + 1] = b; k3[j + 1] = c
+    }
+    let i = s
+    while (i < t) {
+      let j = i + 1
+      while (j < t && k1[j] === k1[i] && k2[j] === k2[i] && k3[j] === k3[i]) j++
+      const run = j - i
+      if (run === 1) { isBoundary[ref[i]] = 1; boundaryCount++ }
+      else if (run > 2) throw sharedFaceError(mesh, ref, i, j, n, k1[i], k2[i], k3[i])
+      i = j
+    }
+  }
+
+  // Pass 4: emit boundary faces in element order.
+  const F = boundaryCount
+  const elem = new Int32Array(F), localFace = new Uint8Array(F), kind = new Uint8Array(F)
+  const nodes = new Int32Array(FACE_SLOTS * F).fill(-1)
+  let k = 0
+  for (const b of blocks) {
+    const topo = ELEMENT_TYPES[b.type]
+    const nn = topo.nodeCount, nf = topo.faces.length
+    const conn = b.conn, off = b.offset
+    const count = conn.length / nn
+    for (let e = 0; e < count; e++) {
+      const g = off + e
+      for (let f = 0; f < nf; f++) {
+        if (!isBoundary[g * REF_STRIDE + f]) continue
+        const face = topo.faces[f]
+        elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
+        for (let a = 0; a < face.length; a++) nodes[FACE_SLOTS * k + a] = conn[e * nn + face[a]]
+        k++
+      }
+    }
+  }
+
+  const area = new Float64Array(F), normal = new Float64Array(3 * F), centroid = new Float64Array(3 * F)
+  computeFaceGeometry(mesh.coords, kind, nodes, area, normal, centroid)
+  return { count: F, elem, localFace, kind, nodes, area, normal, centroid }
+}
+
+/** Orders a big bucket (a node shared by very many elements) without the quadratic insertion sort. */
+function sortLargeBucket(ref: Int32Array, k1: Int32Array, k2: Int32Array, k3: Int32Array, s: number, t: number): void {
+  const idx = Array.from({ length: t - s }, (_, i) => s + i)
+  idx.sort((x, y) => k1[x] - k1[y] || k2[x] - k2[y] || k3[x] - k3[y])
+  const r = idx.map((i) => ref[i]), a = idx.map((i) => k1[i]), b = idx.map((i) => k2[i]), c = idx.map((i) => k3[i])
+  for (let i = 0; i < idx.length; i++) { ref[s + i] = r[i]; k1[s + i] = a[i]; k2[s + i] = b[i]; k3[s + i] = c[i] }
+}
+
+let faceTables: FaceTable[] | null = null
+/** Face tables at the face quadrature points, indexed by FACE_KIND_CODE; built once. */
+export function faceQuadratureTables(): FaceTable[] {
+  if (!faceTables) faceTables = (['tri3', 'tri6', 'quad4', 'quad8'] as const).map((kd) => tabulateFace(kd, faceRule(kd)))
+  return faceTables
+}
+
+/**
+ * Area, unit mean outward normal and area centroid of faces given by kind code and node slots,
+ * with the face quadrature (curved quadratic faces included; flat triangles in closed form).
+ * A zero-area face gets a zero normal and its corner mean as centroid.
+ */
+export function computeFaceGeometry(coords: Float64Array, kind: Uint8Array, nodes: Int32Array, outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array): void {
+  const tables = faceQuadratureTables()
+  const F = kind.length
+  const xs = new Float64Array(3 * FACE_SLOTS)
+  for (let f = 0; f < F; f++) {
+    const kc = kind[f]
+    const o = FACE_SLOTS * f
+    if (kc === 0) {
+      // Flat triangle: exact in closed form.
+      const a = 3 * nodes[o], b = 3 * nodes[o + 1], c = 3 * nodes[o + 2]
+      const ax = coords[a], ay = coords[a + 1], az = coords[a + 2]
+      const ux = coords[b] - ax, uy = coords[b + 1] - ay, uz = coords[b + 2] - az
+      const vx = coords[c] - ax, vy = coords[c + 1] - ay, vz = coords[c + 2] - az
+      const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx
+      const len = Math.sqrt(nx * nx + ny * ny + nz * nz)
+      outArea[f] = 0.5 * len
+      const inv = len > 0 ? 1 / len : 0
+      outNormal[3 * f] = nx * inv; outNormal[3 * f + 1] = ny * inv; outNormal[3 * f + 2] = nz * inv
+      outCentroid[3 * f] = (coords[a] + coords[b] + coords[c]) / 3
+      outCentroid[3 * f + 1] = (coords[a + 1] + coords[b + 1] + coords[c + 1]) / 3
+      outCentroid[3 * f + 2] = (coords[a + 2] + coords[b + 2] + coords[c + 2]) / 3
+      continue
+    }
+    const t = tables[kc]
+    const nn = t.nodeCount, nq = t.pointCount, V = t.values, D = t.derivs, W = t.weights
+    for (let a = 0; a < nn; a++) {
+      const p = 3 * nodes[o + a]
+      xs[3 * a] = coords[p]; xs[3 * a + 1] = coords[p + 1]; xs[3 * a + 2] = coords[p + 2]
+    }
+    let A = 0, sx = 0, sy = 0, sz = 0, cx = 0, cy = 0, cz = 0
+    for (let q = 0; q < nq; q++) {
+      let px = 0, py = 0, pz = 0, ux = 0, uy = 0, uz = 0, vx = 0, vy = 0, vz = 0
+      const vo = q * nn, dof = 2 * q * nn
+      for (let a = 0; a < nn; a++) {
+        const Na = V[vo + a], du = D[dof + 2 * a], dv = D[dof + 2 * a + 1]
+        const x = xs[3 * a], y = xs[3 * a + 1], z = xs[3 * a + 2]
+        px += Na * x; py += Na * y; pz += Na * z
+        ux += du * x; uy += du * y; uz += du * z
+        vx += dv * x; vy += dv * y; vz += dv * z
+      }
+      const w = W[q]
+      const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx
+      const dA = Math.sqrt(nx * nx + ny * ny + nz * nz) * w
+      A += dA; sx += nx * w; sy += ny * w; sz += nz * w
+      cx += px * dA; cy += py * dA; cz += pz * dA
+    }
+    outArea[f] = A
+    const len = Math.sqrt(sx * sx + sy * sy + sz * sz)
+    const inv = len > 0 ? 1 / len : 0
+    outNormal[3 * f] = sx * inv; outNormal[3 * f + 1] = sy * inv; outNormal[3 * f + 2] = sz * inv
+    if (A > 0) {
+      outCentroid[3 * f] = cx / A; outCentroid[3 * f + 1] = cy / A; outCentroid[3 * f + 2] = cz / A
+    } else {
+      // Degenerate face: fall back to the node mean so the centroid is still finite.
+      let mx = 0, my = 0, mz = 0
+      for (let a = 0; a < nn; a++) { mx += xs[3 * a]; my += xs[3 * a + 1]; mz += xs[3 * a + 2] }
+      outCentroid[3 * f] = mx / nn; outCentroid[3 * f + 1] = my / nn; outCentroid[3 * f + 2] = mz / nn
+    }
+  }
+}
+
+/** Global element index → user element id. */
+export function elementIdOf(mesh: Mesh, g: number): number {
+  for (const b of mesh.blocks) {
+    const count = b.ids.length
+    if (g >= b.offset && g < b.offset + count) return b.ids[g - b.offset]
+  }
+  return g + 1
+}
+
+function sharedFaceError(mesh: Mesh, ref: Int32Array, i: number, j: number, n0: number, a: number, b: number, c: number): InputError {
+  const ids: number[] = []
+  for (let p = i; p < j; p++) ids.push(elementIdOf(mesh, Math.floor(ref[p] / REF_STRIDE)))
+  const corners = [n0, a, b, c].filter((x) => x >= 0).map((x) => mesh.nodeIds[x])
+  return new InputError('shared-face',
+    `the face with corner nodes ${corners.join(', ')} is shared by ${j - i} elements (${ids.join(', ')}); ` +
+    'a face may belong to at most two elements, so the mesh overlaps itself or has duplicate elements there',
+    { elementId: ids[0] })
+}
+
+/** Node count of each face kind code, for loops over `BoundaryFaces.kind`. */
+export const FACE_NODE_COUNT_BY_CODE: readonly number[] = [FACE_NODE_COUNT.tri3, FACE_NODE_COUNT.tri6, FACE_NODE_COUNT.quad4, FACE_NODE_COUNT.quad8]

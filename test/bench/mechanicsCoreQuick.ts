@@ -1,0 +1,21 @@
+// Quick timing of the mechanics core on a 10^6-element tet4 box (seeded, checks outside the timed
+// part). Run: npx tsx test/bench/mechanicsCoreQuick.ts [cellsPerSide]
+import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
+import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+
+const n = Number(process.argv[2] ?? 55) // 6·55³ ≈ 1.0·10^6 tetrahedra
+const mesh = boxMesh({ nx: n, ny: n, nz: n, lx: 1, ly: 1, lz: 1 }, 'tet4')
+const stress = new Float64Array(6 * mesh.nodeCount)
+for (let i = 0; i < mesh.nodeCount; i++) { stress[6 * i] = 1; stress[6 * i + 3] = 0.5 }
+const time = (label: string, fn: () => unknown, reps = 5): unknown => {
+  let best = Infinity, out: unknown
+  for (let r = 0; r < reps; r++) { const t0 = performance.now(); out = fn(); best = Math.min(best, performance.now() - t0) }
+  console.log(`${label}: best of ${reps} ${best.toFixed(1)} ms`)
+  return out
+}
+console.log(`elements ${mesh.elementCount}, nodes ${mesh.nodeCount}`)
+const faces = time('extractBoundaryFaces', () => extractBoundaryFaces(mesh)) as ReturnType<typeof extractBoundaryFaces>
+time('computeSurfaceTractions', () => computeSurfaceTractions(mesh, stress, faces))
+time('faces + tractions', () => computeSurfaceTractions(mesh, stress, extractBoundaryFaces(mesh)))
+console.log(`boundary faces ${faces.count} (expected ${12 * n * n})`)

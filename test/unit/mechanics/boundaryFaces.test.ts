@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest'
+import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { createMesh } from '../../../src/model/createMesh.ts'
+import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
+import { isInputError } from '../../../src/model/errors.ts'
+import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
+
+// Geometry of a box (elementary): surface area 2(ab + bc + ca); the closed-surface identity
+// ∮ n dA = 0 (divergence theorem, any vector-calculus text); surface centroid of a box = its centre.
+describe('extractBoundaryFaces', () => {
+  const spec = { nx: 3, ny: 2, nz: 4, lx: 1.5, ly: 0.8, lz: 2, x0: -0.2, y0: 0.1, z0: 1 }
+  const area = 2 * (1.5 * 0.8 + 0.8 * 2 + 2 * 1.5)
+  const quadFaces = 2 * (3 * 2 + 2 * 4 + 3 * 4)
+  const expectedCount: Record<string, number> = {
+    hex8: quadFaces, hex20: quadFaces, tet4: 2 * quadFaces, tet10: 2 * quadFaces,
+    wedge6: 2 * (3 * 2) * 2 + 2 * (2 * 4 + 3 * 4), // top and bottom split in two triangles
+  }
+  for (const type of ELEMENT_TYPE_NAMES) {
+    it(`${type} box: face count, total area, closed surface, outward normals, centroid`, () => {
+      const mesh = boxMesh(spec, type)
+      const f = extractBoundaryFaces(mesh)
+      expect(f.count).toBe(expectedCount[type])
+      let A = 0
+      const s = [0, 0, 0], c = [0, 0, 0]
+      for (let i = 0; i < f.count; i++) {
+        A += f.area[i]
+        for (let k = 0; k < 3; k++) { s[k] += f.area[i] * f.normal[3 * i + k]; c[k] += f.area[i] * f.centroid[3 * i + k] }
+        // Outward: the normal points away from the box centre.
+        const d = [0, 1, 2].map((k) => f.centroid[3 * i + k] - [0.55, 0.5, 2][k])
+        expect(d[0] * f.normal[3 * i] + d[1] * f.normal[3 * i + 1] + d[2] * f.normal[3 * i + 2]).toBeGreaterThan(0)
+        // Unit normal along an axis for a box.
+        expect(Math.hypot(f.normal[3 * i], f.normal[3 * i + 1], f.normal[3 * i + 2])).toBeCloseTo(1, 14)
+      }
+      expect(A).toBeCloseTo(area, 12)
+      for (let k = 0; k < 3; k++) expect(Math.abs(s[k])).toBeLessThan(1e-12)
+      expect(c[0] / A).toBeCloseTo(0.55, 12)
+      expect(c[1] / A).toBeCloseTo(0.5, 12)
+      expect(c[2] / A).toBeCloseTo(2, 12)
+      // Slots beyond the face's node count are padded with -1.
+      for (let i = 0; i < f.count; i++) {
+        const used = [3, 6, 4, 8][f.kind[i]]
+        for (let a = used; a < 8; a++) expect(f.nodes[8 * i + a]).toBe(-1)
+      }
+    })
+  }
+
+  it('a conforming mixed mesh (two wedge6 beside a hex8) matches the shared quadrilateral', () => {
+    const hex = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }, 'hex8')
+    const conn = hex.blocks[0].conn
+    // Split the first cell into two wedges on its bottom diagonal 0-2 (as boxMesh does); the
+    // wedge side 1-2-6-5 is the quadrilateral x = 1 shared with the hex.
+    const c = Array.from(conn.subarray(0, 8))
+    const wedges = Int32Array.from([c[0], c[1], c[2], c[4], c[5], c[6], c[0], c[2], c[3], c[4], c[6], c[7]])
+    const mesh = createMesh(hex.coords, [{ type: 'wedge6', conn: wedges }, { type: 'hex8', conn: conn.slice(8) }])
+    const f = extractBoundaryFaces(mesh)
+    // Wedges: 2 bottom + 2 top triangles + 3 outer quads; hex: 5 outer quads.
+    expect(f.count).toBe(12)
+    let A = 0
+    for (let i = 0; i < f.count; i++) A += f.area[i]
+    expect(A).toBeCloseTo(2 * (2 + 1 + 2), 13)
+    expect(Array.from(f.elem).filter((e) => e === 2).length).toBe(5)
+  })
+
+  it('reports a face shared by three elements with the element ids', () => {
+    const box = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }, 'hex8')
+    const conn = box.blocks[0].conn
+    const dup = new Int32Array(24)
+    dup.set(conn); dup.set(conn.subarray(0, 8), 16)
+    const mesh = createMesh(box.coords, [{ type: 'hex8', conn: dup, ids: Int32Array.from([10, 20, 30]) }])
+    let err: unknown
+    try { extractBoundaryFaces(mesh) } catch (e) { err = e }
+    expect(isInputError(err)).toBe(true)
+    const msg = (err as Error).message
+    expect(msg).toContain('10, 20, 30')
+    expect(msg).toContain('shared by 3 elements')
+  })
+})
