@@ -1,0 +1,182 @@
+/**
+ * Render buffers of the boundary surface, built in the worker and moved to the scene by transfer.
+ *
+ * Record (V vertices, T triangles, F boundary faces):
+ * - vertices are per face node and never shared between faces: the traction t = σn depends on
+ *   the face normal, so it jumps across the edges between faces; a face with k nodes owns k
+ *   consecutive vertices starting at `faceVertexStart[f]` (tri3 3, tri6 6, quad4 4, quad8 8);
+ * - `positions`: Float32Array(3·V), model length units;
+ * - `normals`: Float32Array(3·V), unit outward normal of the face at that node (curved faces differ
+ *   per node);
+ * - `index`: Uint32Array(3·T), counter-clockwise seen from outside. tri3 → 1 triangle, quad4 → 2
+ *   (split on the 0–2 diagonal), tri6 → 4 (three corner triangles and the mid-node triangle),
+ *   quad8 → 6 (four corner triangles and the mid-node quad as two);
+ * - `triangleFace`: Uint32Array(T), boundary-face index of each triangle;
+ * - `faceVertexStart`: Int32Array(F + 1), first vertex of each face (and V at the end);
+ * - `scalars[q]`: Float32Array(V) for each SurfaceQuantity, model stress units, except
+ *   `balanceIndicator` (dimensionless, the element's |residual| / gross on all its face vertices,
+ *   0 when no balance was given). NaN stays NaN (the shader paints it neutral);
+ * - `ranges[q]`: [min, max] over the finite values of `scalars[q]` ([0, 0] when none);
+ * - `patch`: Float32Array(V), load-patch id of the vertex's face, -1 on the nominally free surface
+ *   (or everywhere when no labels were given); a float because it is a vertex attribute;
+ * - `bounds`: axis-aligned box of the vertices, model length units.
+ *
+ * Linear in the number of faces; the only allocations are the output arrays.
+ */
+import type { Vec3 } from '../model/model.ts'
+import { FACE_SLOTS, type BoundaryFaces, type NodalInvariants, type SurfaceTractions } from './types.ts'
+
+/** Scalars the surface can be coloured by (names shared with the app store's QuantityName). */
+export type SurfaceQuantity =
+  | 'normalTraction' | 'shearTraction' | 'tractionMagnitude'
+  | 'vonMises' | 'principal1' | 'principal3' | 'balanceIndicator'
+
+export const SURFACE_QUANTITIES: readonly SurfaceQuantity[] = [
+  'normalTraction', 'shearTraction', 'tractionMagnitude', 'vonMises', 'principal1', 'principal3', 'balanceIndicator',
+]
+
+export interface SurfaceTriangles {
+  readonly positions: Float32Array
+  readonly normals: Float32Array
+  readonly index: Uint32Array
+  readonly triangleFace: Uint32Array
+  readonly faceVertexStart: Int32Array
+  readonly scalars: Readonly<Record<SurfaceQuantity, Float32Array>>
+  readonly ranges: Readonly<Record<SurfaceQuantity, readonly [number, number]>>
+  readonly patch: Float32Array
+  readonly bounds: { readonly min: Vec3; readonly max: Vec3 }
+}
+
+/** Vertices per face kind code (FACE_KIND_CODE order tri3, tri6, quad4, quad8). */
+const NODES_OF_KIND = [3, 6, 4, 8]
+/** Sub-triangles per face kind code. */
+const TRIS_OF_KIND = [1, 4, 2, 6]
+/** Local sub-triangles per face kind code, as face-local vertex numbers. */
+const LOCAL_TRIS: readonly (readonly number[])[] = [
+  [0, 1, 2],
+  // tri6: mid nodes 3 (0-1), 4 (1-2), 5 (2-0)
+  [0, 3, 5, 3, 1, 4, 5, 4, 2, 3, 4, 5],
+  [0, 1, 2, 0, 2, 3],
+  // quad8: mid nodes 4 (0-1), 5 (1-2), 6 (2-3), 7 (3-0)
+  [0, 4, 7, 1, 5, 4, 2, 6, 5, 3, 7, 6, 4, 5, 6, 4, 6, 7],
+]
+
+/**
+ * Builds the surface render buffers. `indicator` is the ElementBalance indicator per element
+ * (dimensionless) or null; `faceLabel` the LoadPatches label per boundary face or null.
+ */
+export function buildSurfaceTriangles(
+  coords: Float64Array,
+  faces: BoundaryFaces,
+  tractions: SurfaceTractions,
+  invariants: NodalInvariants,
+  indicator: Float64Array | null = null,
+  faceLabel: Int32Array | null = null,
+): SurfaceTriangles {
+  const F = faces.count
+  const kind = faces.kind
+  const faceVertexStart = new Int32Array(F + 1)
+  let V = 0, T = 0
+  for (let f = 0; f < F; f++) {
+    faceVertexStart[f] = V
+    V += NODES_OF_KIND[kind[f]]
+    T += TRIS_OF_KIND[kind[f]]
+  }
+  faceVertexStart[F] = V
+
+  const positions = new Float32Array(3 * V)
+  const normals = new Float32Array(3 * V)
+  const index = new Uint32Array(3 * T)
+  const triangleFace = new Uint32Array(T)
+  const normalTraction = new Float32Array(V)
+  const shearTraction = new Float32Array(V)
+  const tractionMagnitude = new Float32Array(V)
+  const vonMises = new Float32Array(V)
+  const principal1 = new Float32Array(V)
+  const principal3 = new Float32Array(V)
+  const balanceIndicator = new Float32Array(V)
+  const patch = new Float32Array(V)
+
+  const nodes = faces.nodes, elem = faces.elem
+  const nodeNormal = tractions.nodeNormal, nn = tractions.nodeNormalTraction
+  const ns = tractions.nodeShear, nm = tractions.nodeMagnitude
+  const vm = invariants.vonMises, pr = invariants.principal
+  let minX = Infinity, minY = Infinity, minZ = Infinity, maxX = -Infinity, maxY = -Infinity, maxZ = -Infinity
+
+  let t = 0
+  for (let f = 0; f < F; f++) {
+    const k = kind[f]
+    const nv = NODES_OF_KIND[k]
+    const v0 = faceVertexStart[f]
+    const ind = indicator ? indicator[elem[f]] : 0
+    const label = faceLabel ? faceLabel[f] : -1
+    for (let a = 0; a < nv; a++) {
+      const slot = f * FACE_SLOTS + a
+      const node = nodes[slot]
+      const v = v0 + a
+      const x = coords[3 * node], y = coords[3 * node + 1], z = coords[3 * node + 2]
+      positions[3 * v] = x; positions[3 * v + 1] = y; positions[3 * v + 2] = z
+      if (x < minX) minX = x
+      if (x > maxX) maxX = x
+      if (y < minY) minY = y
+      if (y > maxY) maxY = y
+      if (z < minZ) minZ = z
+      if (z > maxZ) maxZ = z
+      normals[3 * v] = nodeNormal[3 * slot]
+      normals[3 * v + 1] = nodeNormal[3 * slot + 1]
+      normals[3 * v + 2] = nodeNormal[3 * slot + 2]
+      normalTraction[v] = nn[slot]
+      shearTraction[v] = ns[slot]
+      tractionMagnitude[v] = nm[slot]
+      vonMises[v] = vm[node]
+      principal1[v] = pr[3 * node]
+      principal3[v] = pr[3 * node + 2]
+      balanceIndicator[v] = ind
+      patch[v] = label
+    }
+    const local = LOCAL_TRIS[k]
+    for (let i = 0; i < local.length; i += 3) {
+      index[3 * t] = v0 + local[i]
+      index[3 * t + 1] = v0 + local[i + 1]
+      index[3 * t + 2] = v0 + local[i + 2]
+      triangleFace[t] = f
+      t++
+    }
+  }
+
+  const scalars: Record<SurfaceQuantity, Float32Array> = {
+    normalTraction, shearTraction, tractionMagnitude, vonMises, principal1, principal3, balanceIndicator,
+  }
+  const ranges = {} as Record<SurfaceQuantity, readonly [number, number]>
+  for (const q of SURFACE_QUANTITIES) ranges[q] = finiteRange(scalars[q])
+  // An empty surface gets a unit box at the origin so camera fitting stays finite.
+  const bounds = V > 0
+    ? { min: [minX, minY, minZ] as Vec3, max: [maxX, maxY, maxZ] as Vec3 }
+    : { min: [0, 0, 0] as Vec3, max: [1, 1, 1] as Vec3 }
+  return { positions, normals, index, triangleFace, faceVertexStart, scalars, ranges, patch, bounds }
+}
+
+/**
+ * Writes the load-patch label of each vertex's face into `out` (Float32Array(V)), for when the
+ * patches are found again with another threshold and only the labels change.
+ */
+export function fillVertexPatch(out: Float32Array, faceVertexStart: Int32Array, faceLabel: Int32Array | null): Float32Array {
+  const F = faceVertexStart.length - 1
+  for (let f = 0; f < F; f++) {
+    const label = faceLabel ? faceLabel[f] : -1
+    for (let v = faceVertexStart[f], end = faceVertexStart[f + 1]; v < end; v++) out[v] = label
+  }
+  return out
+}
+
+/** [min, max] over the finite entries; [0, 0] when there are none. */
+export function finiteRange(values: ArrayLike<number>): [number, number] {
+  let lo = Infinity, hi = -Infinity
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]
+    // NaN fails both comparisons, so it never widens the range; ±Infinity is skipped explicitly.
+    if (v < lo && v !== -Infinity) lo = v
+    if (v > hi && v !== Infinity) hi = v
+  }
+  return lo <= hi ? [lo, hi] : [0, 0]
+}
