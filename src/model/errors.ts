@@ -7,7 +7,7 @@ export type InputErrorKind =
   | 'empty-file' | 'missing-file' | 'header' | 'column-count' | 'not-a-number' | 'not-finite'
   | 'bad-id' | 'duplicate-id' | 'missing-node' | 'unknown-type' | 'node-count' | 'missing-stress'
   | 'zero-volume' | 'bad-json' | 'bad-unit' | 'container' | 'version' | 'too-large' | 'no-elements'
-  | 'bad-argument'
+  | 'bad-argument' | 'missing-displacement' | 'encoding'
   | 'shared-face'
 
 export interface InputErrorWhere {

@@ -1,0 +1,83 @@
+/**
+ * One entry point for whatever the user handed over: a CSV bundle (several files) or a single
+ * native container. The container is recognised by its magic bytes, whatever its name; a file
+ * named *.tractus without them is an error rather than being read as text.
+ */
+import { InputError } from '../model/errors.ts'
+import type { Model } from '../model/model.ts'
+import { NATIVE_EXTENSION, isNativeContainer, readNative } from './nativeContainer.ts'
+import { baseName, readCsvBundle } from './readCsvBundle.ts'
+import type { CsvFile } from './readCsvBundle.ts'
+import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
+
+export interface InputFile {
+  readonly name: string
+  readonly data: ArrayBuffer | Uint8Array | string
+}
+
+export interface ReadModelOptions {
+  /** Largest accepted file in bytes (default MAX_MODEL_BYTES). */
+  readonly maxBytes?: number
+  /** Model name when the files give none. */
+  readonly name?: string
+}
+
+function bytesOf(d: ArrayBuffer | Uint8Array): Uint8Array {
+  return d instanceof Uint8Array ? d : new Uint8Array(d)
+}
+
+function sizeOf(d: ArrayBuffer | Uint8Array | string): number {
+  return typeof d === 'string' ? d.length : d.byteLength
+}
+
+const MAGIC_TEXT = 'TRACTUS\0'
+
+export function readModelFiles(files: readonly InputFile[], options: ReadModelOptions = {}): Model {
+  if (files.length === 0) throw new InputError('missing-file', 'no files given: choose nodes.csv, elements.csv and stress.csv together, or one .tractus file')
+  const limit = options.maxBytes ?? MAX_MODEL_BYTES
+  for (const f of files) assertWithinLimit(f.name, sizeOf(f.data), limit)
+  const native = files.filter((f) => (typeof f.data === 'string' ? f.data.startsWith(MAGIC_TEXT) : isNativeContainer(bytesOf(f.data))))
+  if (native.length > 0) {
+    if (files.length > 1) {
+      throw new InputError('bad-argument', `give either one ${NATIVE_EXTENSION} container or a CSV bundle, not both; got: ${files.map((f) => f.name).join(', ')}`, { file: native[0].name })
+    }
+    const f = native[0]
+    if (typeof f.data === 'string') throw new InputError('encoding', `a ${NATIVE_EXTENSION} container must be read as bytes, not as text`, { file: f.name })
+    return readNative(f.data, f.name)
+  }
+  const named = files.find((f) => baseName(f.name).toLowerCase().endsWith(NATIVE_EXTENSION))
+  if (named) {
+    // Named like a container but without its magic: let the container reader say what is wrong.
+    if (files.length === 1 && typeof named.data !== 'string') return readNative(named.data, named.name)
+    throw new InputError('container', `does not start with the ${NATIVE_EXTENSION} magic bytes "TRACTUS\\0"`, { file: named.name, field: 'magic' })
+  }
+  const texts: CsvFile[] = files.map((f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : decodeUtf8(f.name, bytesOf(f.data)) }))
+  return readCsvBundle(texts, { maxBytes: limit, name: options.name })
+}
+
+function decodeUtf8(file: string, bytes: Uint8Array): string {
+  try {
+    // fatal: a file in another encoding is reported, not silently mangled. The BOM is dropped.
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes)
+  } catch {
+    const at = firstBadUtf8Byte(bytes)
+    let line = 1
+    for (let i = 0; i < at; i++) if (bytes[i] === 10) line++
+    const where = at >= 0 ? ` (first bad byte at offset ${at})` : ''
+    throw new InputError('encoding', `the file is not UTF-8 text${where}; save it as UTF-8`, at >= 0 ? { file, line } : { file })
+  }
+}
+
+/** Offset of the first byte that starts no well-formed UTF-8 sequence (lead and continuation bytes only), or -1. */
+function firstBadUtf8Byte(b: Uint8Array): number {
+  const n = b.length
+  for (let i = 0; i < n;) {
+    const c = b[i]
+    if (c < 0x80) { i++; continue }
+    const need = c >= 0xc2 && c <= 0xdf ? 1 : c >= 0xe0 && c <= 0xef ? 2 : c >= 0xf0 && c <= 0xf4 ? 3 : 0
+    if (need === 0 || i + need > n - 1) return i
+    for (let k = 1; k <= need; k++) if ((b[i + k] & 0xc0) !== 0x80) return i
+    i += need + 1
+  }
+  return -1
+}

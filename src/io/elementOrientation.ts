@@ -1,0 +1,170 @@
+/**
+ * Orientation of elements from their corner geometry: the signed volume decides whether an
+ * element is inverted (negative) or degenerate (|V| ≤ 1e-12 · d³, d = diagonal of the corners'
+ * bounding box). Inverted elements are mirrored by a fixed permutation of their local nodes.
+ *
+ * Signed volume: tetrahedra use the triple product (x2-x1)×(x3-x1)·(x4-x1)/6. Hexahedra and wedges
+ * use the divergence theorem on the corner faces: each face, split into triangles about its
+ * centre (quads) and oriented outward by the topology table, forms a cone with the corner centroid;
+ * the cone volumes add up to the volume of the polyhedron (common practice; exact for planar
+ * faces, a consistent symmetric split for warped ones), and to minus it when the element is
+ * inside out.
+ */
+import { ELEMENT_TYPES, FACE_CORNER_COUNT } from '../model/elementTypes.ts'
+import type { ElementTypeName } from '../model/elementTypes.ts'
+
+/** Relative volume below which an element counts as degenerate. */
+export const DEGENERATE_RELATIVE_VOLUME = 1e-12
+
+/**
+ * Local node permutation that mirrors an element (new local i = old local PERM[i]):
+ * tet: swap corners 2 and 3 (1-based) with their mid-edge nodes; hex: swap bottom and top faces;
+ * wedge: swap the two triangles.
+ */
+export const MIRROR_PERMUTATION: Readonly<Record<ElementTypeName, readonly number[]>> = {
+  tet4: [0, 2, 1, 3],
+  tet10: [0, 2, 1, 3, 6, 5, 4, 7, 9, 8],
+  hex8: [4, 5, 6, 7, 0, 1, 2, 3],
+  hex20: [4, 5, 6, 7, 0, 1, 2, 3, 12, 13, 14, 15, 8, 9, 10, 11, 16, 17, 18, 19],
+  wedge6: [3, 4, 5, 0, 1, 2],
+}
+
+interface FaceTable {
+  /** Corner faces flattened: 4 entries per face, -1 in the fourth for triangles. */
+  readonly faces: Int32Array
+  readonly faceCount: number
+}
+
+const FACE_TABLES: Record<ElementTypeName, FaceTable> = (() => {
+  const out = {} as Record<ElementTypeName, FaceTable>
+  for (const name of Object.keys(ELEMENT_TYPES) as ElementTypeName[]) {
+    const t = ELEMENT_TYPES[name]
+    const faces = new Int32Array(4 * t.faces.length).fill(-1)
+    t.faces.forEach((f, i) => {
+      const nc = FACE_CORNER_COUNT[t.faceKinds[i]]
+      for (let k = 0; k < nc; k++) faces[4 * i + k] = f[k]
+    })
+    out[name] = { faces, faceCount: t.faces.length }
+  }
+  return out
+})()
+
+/**
+ * Writes the signed corner volume to out[0] and the corner bounding-box diagonal to out[1] for the
+ * element whose nodes start at conn[base]. `scratch` holds at least 24 numbers.
+ */
+export function measureElement(out: Float64Array, scratch: Float64Array, coords: Float64Array, conn: Int32Array, base: number, type: ElementTypeName): Float64Array {
+  const nc = ELEMENT_TYPES[type].cornerCount
+  // Corners relative to their centroid: smaller numbers, less cancellation.
+  let cx = 0, cy = 0, cz = 0
+  let minX = Infinity, minY = Infinity, minZ = Infinity, maxX = -Infinity, maxY = -Infinity, maxZ = -Infinity
+  for (let a = 0; a < nc; a++) {
+    const p = 3 * conn[base + a]
+    const x = coords[p], y = coords[p + 1], z = coords[p + 2]
+    scratch[3 * a] = x; scratch[3 * a + 1] = y; scratch[3 * a + 2] = z
+    cx += x; cy += y; cz += z
+    if (x < minX) minX = x; if (x > maxX) maxX = x
+    if (y < minY) minY = y; if (y > maxY) maxY = y
+    if (z < minZ) minZ = z; if (z > maxZ) maxZ = z
+  }
+  cx /= nc; cy /= nc; cz /= nc
+  for (let a = 0; a < nc; a++) { scratch[3 * a] -= cx; scratch[3 * a + 1] -= cy; scratch[3 * a + 2] -= cz }
+  const dx = maxX - minX, dy = maxY - minY, dz = maxZ - minZ
+  out[1] = Math.sqrt(dx * dx + dy * dy + dz * dz)
+  if (nc === 4) {
+    out[0] = triple(scratch, 0, 3, 6, 9) / 6
+    return out
+  }
+  const { faces, faceCount } = FACE_TABLES[type]
+  let v6 = 0
+  for (let f = 0; f < faceCount; f++) {
+    const a = 3 * faces[4 * f], b = 3 * faces[4 * f + 1], c = 3 * faces[4 * f + 2], d4 = faces[4 * f + 3]
+    if (d4 < 0) {
+      // Triangle face: one cone with apex at the centroid (the origin here).
+      v6 += triple(scratch, a, b, c, -1)
+      continue
+    }
+    const d = 3 * d4
+    // Quad face: four triangles about the face centre.
+    const fx = (scratch[a] + scratch[b] + scratch[c] + scratch[d]) / 4
+    const fy = (scratch[a + 1] + scratch[b + 1] + scratch[c + 1] + scratch[d + 1]) / 4
+    const fz = (scratch[a + 2] + scratch[b + 2] + scratch[c + 2] + scratch[d + 2]) / 4
+    v6 += coneWithCentre(scratch, a, b, fx, fy, fz) + coneWithCentre(scratch, b, c, fx, fy, fz)
+      + coneWithCentre(scratch, c, d, fx, fy, fz) + coneWithCentre(scratch, d, a, fx, fy, fz)
+  }
+  out[0] = v6 / 6
+  return out
+}
+
+/**
+ * Six times the signed volume of the tetrahedron (p, q, r, s) from scratch offsets; s < 0 means
+ * the origin, giving p·(q×r).
+ */
+function triple(x: Float64Array, p: number, q: number, r: number, s: number): number {
+  if (s < 0) {
+    return x[p] * (x[q + 1] * x[r + 2] - x[q + 2] * x[r + 1])
+      + x[p + 1] * (x[q + 2] * x[r] - x[q] * x[r + 2])
+      + x[p + 2] * (x[q] * x[r + 1] - x[q + 1] * x[r])
+  }
+  const ux = x[q] - x[p], uy = x[q + 1] - x[p + 1], uz = x[q + 2] - x[p + 2]
+  const vx = x[r] - x[p], vy = x[r + 1] - x[p + 1], vz = x[r + 2] - x[p + 2]
+  const wx = x[s] - x[p], wy = x[s + 1] - x[p + 1], wz = x[s + 2] - x[p + 2]
+  return (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
+}
+
+/** Six times the volume of the cone (origin, a, b, f): a·(b×f). */
+function coneWithCentre(x: Float64Array, a: number, b: number, fx: number, fy: number, fz: number): number {
+  const ax = x[a], ay = x[a + 1], az = x[a + 2], bx = x[b], by = x[b + 1], bz = x[b + 2]
+  return ax * (by * fz - bz * fy) + ay * (bz * fx - bx * fz) + az * (bx * fy - by * fx)
+}
+
+/** Result of checking one block: local indices of inverted elements, first degenerate one or -1. */
+export interface BlockOrientation {
+  readonly inverted: Int32Array
+  readonly degenerate: number
+  /** Signed volume and bounding diagonal of the degenerate element, for the message. */
+  readonly degenerateVolume: number
+  readonly degenerateSize: number
+}
+
+/** Checks every element of a block; stops at the first degenerate one. Does not change `conn`. */
+export function checkBlockOrientation(coords: Float64Array, type: ElementTypeName, conn: Int32Array): BlockOrientation {
+  const nn = ELEMENT_TYPES[type].nodeCount
+  const count = (conn.length / nn) | 0
+  const out = new Float64Array(2)
+  const scratch = new Float64Array(24)
+  let inv = new Int32Array(16)
+  let ni = 0
+  for (let e = 0; e < count; e++) {
+    measureElement(out, scratch, coords, conn, e * nn, type)
+    const v = out[0], d = out[1]
+    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
+    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
+      return { inverted: inv.slice(0, ni), degenerate: e, degenerateVolume: v, degenerateSize: d }
+    }
+    if (v < 0) {
+      if (ni === inv.length) { const g = new Int32Array(2 * ni); g.set(inv); inv = g }
+      inv[ni++] = e
+    }
+  }
+  return { inverted: inv.slice(0, ni), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
+}
+
+/** Mirrors the listed elements of a block in place (see MIRROR_PERMUTATION). */
+export function reorientElements(conn: Int32Array, type: ElementTypeName, elements: Int32Array): void {
+  const perm = MIRROR_PERMUTATION[type]
+  const nn = perm.length
+  const tmp = new Int32Array(nn)
+  for (let i = 0; i < elements.length; i++) {
+    const base = elements[i] * nn
+    for (let a = 0; a < nn; a++) tmp[a] = conn[base + perm[a]]
+    conn.set(tmp, base)
+  }
+}
+
+/** The warning for reoriented elements: the first 10 ids and a count of the rest. */
+export function reorientedWarning(ids: readonly number[], total: number): string {
+  const shown = ids.slice(0, 10).join(', ')
+  const rest = total > 10 ? ` and ${total - 10} more` : ''
+  return `reoriented ${total} inverted element${total === 1 ? '' : 's'} (negative volume, local nodes mirrored): ${shown}${rest}`
+}

@@ -1,0 +1,89 @@
+/**
+ * The optional model.json of a CSV bundle:
+ * `{"name": string, "description": string, "units": {"length": LengthUnit, "stress": StressUnit},
+ *   "bodyForce": [bx, by, bz]}`, every key optional. Units only label the numbers; nothing is
+ * converted. bodyForce is ρ·b in model units (stress / length).
+ */
+import { InputError } from '../model/errors.ts'
+import type { Vec3 } from '../model/model.ts'
+import { DEFAULT_UNITS, LENGTH_TO_M, STRESS_TO_PA, isLengthUnit, isStressUnit } from '../model/units.ts'
+import type { ModelUnits } from '../model/units.ts'
+
+export interface ModelMeta {
+  readonly name: string | null
+  readonly description: string
+  readonly units: ModelUnits
+  readonly bodyForce: Vec3
+  readonly warnings: readonly string[]
+}
+
+const KNOWN_KEYS = ['name', 'description', 'units', 'bodyForce']
+
+/** Parses JSON text; a syntax error names the line and column when the platform reports a position. */
+export function parseJsonText(file: string, text: string): unknown {
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text
+  if (body.trim() === '') throw new InputError('empty-file', 'the file is empty', { file })
+  try {
+    return JSON.parse(body)
+  } catch (e) {
+    const msg = e instanceof Error ? e.message : String(e)
+    const m = /position (\d+)/.exec(msg)
+    if (m) {
+      const pos = Number(m[1])
+      const before = body.slice(0, pos)
+      const line = before.split('\n').length
+      const col = pos - before.lastIndexOf('\n')
+      throw new InputError('bad-json', `not valid JSON at column ${col} (${msg})`, { file, line })
+    }
+    throw new InputError('bad-json', `not valid JSON (${msg})`, { file })
+  }
+}
+
+/** Reads the validated metadata of a model from a parsed JSON value. `file` names the source in messages. */
+export function readModelMeta(file: string, value: unknown, fieldPrefix = ''): ModelMeta {
+  const f = (k: string) => fieldPrefix + k
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new InputError('bad-json', 'expected a JSON object like {"name": "...", "units": {"length": "m", "stress": "Pa"}}', { file })
+  }
+  const o = value as Record<string, unknown>
+  const warnings: string[] = []
+  let name: string | null = null
+  if (o.name !== undefined) {
+    if (typeof o.name !== 'string') throw new InputError('bad-json', 'name must be a string', { file, field: f('name') })
+    name = o.name
+  }
+  let description = ''
+  if (o.description !== undefined) {
+    if (typeof o.description !== 'string') throw new InputError('bad-json', 'description must be a string', { file, field: f('description') })
+    description = o.description
+  }
+  let units: ModelUnits = DEFAULT_UNITS
+  if (o.units !== undefined) {
+    const u = o.units
+    if (typeof u !== 'object' || u === null || Array.isArray(u)) {
+      throw new InputError('bad-json', 'units must be an object like {"length": "mm", "stress": "MPa"}', { file, field: f('units') })
+    }
+    const ur = u as Record<string, unknown>
+    const length = ur.length ?? DEFAULT_UNITS.length
+    const stress = ur.stress ?? DEFAULT_UNITS.stress
+    if (typeof length !== 'string' || !isLengthUnit(length)) {
+      throw new InputError('bad-unit', `unknown length unit ${JSON.stringify(length)}; use one of ${Object.keys(LENGTH_TO_M).join(', ')}`, { file, field: f('units.length') })
+    }
+    if (typeof stress !== 'string' || !isStressUnit(stress)) {
+      throw new InputError('bad-unit', `unknown stress unit ${JSON.stringify(stress)}; use one of ${Object.keys(STRESS_TO_PA).join(', ')}`, { file, field: f('units.stress') })
+    }
+    units = { length, stress }
+  }
+  let bodyForce: Vec3 = [0, 0, 0]
+  if (o.bodyForce !== undefined) {
+    const b = o.bodyForce
+    if (!Array.isArray(b) || b.length !== 3 || !b.every((x) => typeof x === 'number' && Number.isFinite(x))) {
+      throw new InputError('bad-json', 'bodyForce must be three finite numbers [bx, by, bz] (force per volume, model units)', { file, field: f('bodyForce') })
+    }
+    bodyForce = [b[0], b[1], b[2]]
+  }
+  if (fieldPrefix === '') {
+    for (const k of Object.keys(o)) if (!KNOWN_KEYS.includes(k)) warnings.push(`${file}: unknown key "${k}" ignored`)
+  }
+  return { name, description, units, bodyForce, warnings }
+}

@@ -1,0 +1,265 @@
+/**
+ * The native binary container (file extension `.tractus`), our own layout:
+ *
+ *   bytes 0..7    magic "TRACTUS\0"
+ *   bytes 8..11   uint32 LE format version (1)
+ *   bytes 12..15  uint32 LE byte length H of the header
+ *   bytes 16..    H bytes of UTF-8 JSON header
+ *   zero padding to a multiple of 8, then the arrays, each starting at a multiple of 8 bytes
+ *   (offsets are absolute from the start of the file), little-endian.
+ *
+ * Header: {format, name, description, units, bodyForce, warnings, nodeCount, elementCount,
+ * blocks: [{type, count}], arrays: [{name, dtype, offset, length}]} with `length` in elements.
+ * Arrays: coords (f64, 3N), nodeIds (i32, N), stress (f64, 6N), displacement (f64, 3N, optional),
+ * and per block k: blockK.conn (i32, count·nodes), blockK.ids (i32, count), blockK.part (i32,
+ * count, optional). See docs/FORMATS.md.
+ *
+ * The reader trusts nothing in the header: every field, range, alignment, count and value is
+ * checked, and problems are InputErrors naming the header field. Arrays are zero-copy views on the
+ * given buffer where possible (little-endian platform, aligned buffer), so the Model shares memory
+ * with it; the reader never writes into the buffer (a block with inverted elements is copied first).
+ */
+import { createMesh } from '../model/createMesh.ts'
+import type { BlockInput } from '../model/createMesh.ts'
+import { ELEMENT_TYPES, isElementTypeName } from '../model/elementTypes.ts'
+import type { ElementTypeName } from '../model/elementTypes.ts'
+import { InputError } from '../model/errors.ts'
+import type { InputErrorKind } from '../model/errors.ts'
+import type { Model } from '../model/model.ts'
+import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
+import { buildIdIndex, isDuplicate } from './idIndex.ts'
+import { DTYPE_SIZE, isDtype, readLittleEndian, writeLittleEndian } from './littleEndianArrays.ts'
+import type { Dtype } from './littleEndianArrays.ts'
+import { readModelMeta } from './modelJson.ts'
+
+/** "TRACTUS" and a zero byte. */
+export const NATIVE_MAGIC = new Uint8Array([0x54, 0x52, 0x41, 0x43, 0x54, 0x55, 0x53, 0x00])
+export const NATIVE_VERSION = 1
+export const NATIVE_EXTENSION = '.tractus'
+/** Bytes before the header: magic, version, header length. */
+export const NATIVE_PREAMBLE_BYTES = 16
+const FORMAT_TAG = 'tractus-model'
+
+interface ArrayEntry {
+  name: string
+  dtype: Dtype
+  offset: number
+  length: number
+}
+
+/** True when the bytes start with the container's magic. */
+export function isNativeContainer(bytes: Uint8Array): boolean {
+  if (bytes.length < NATIVE_MAGIC.length) return false
+  for (let i = 0; i < NATIVE_MAGIC.length; i++) if (bytes[i] !== NATIVE_MAGIC[i]) return false
+  return true
+}
+
+const align8 = (n: number): number => Math.ceil(n / 8) * 8
+
+export function writeNative(model: Model): Uint8Array {
+  const { mesh } = model
+  const arrays: { name: string; data: Float64Array | Int32Array }[] = [
+    { name: 'coords', data: mesh.coords },
+    { name: 'nodeIds', data: mesh.nodeIds },
+    { name: 'stress', data: model.stress },
+  ]
+  if (model.displacement) arrays.push({ name: 'displacement', data: model.displacement })
+  mesh.blocks.forEach((b, k) => {
+    arrays.push({ name: `block${k}.conn`, data: b.conn }, { name: `block${k}.ids`, data: b.ids })
+    if (b.part) arrays.push({ name: `block${k}.part`, data: b.part })
+  })
+  const headerBase = {
+    format: FORMAT_TAG,
+    name: model.name,
+    description: model.description,
+    units: model.units,
+    bodyForce: model.bodyForce,
+    warnings: model.warnings,
+    nodeCount: mesh.nodeCount,
+    elementCount: mesh.elementCount,
+    blocks: mesh.blocks.map((b) => ({ type: b.type, count: b.ids.length })),
+  }
+  const enc = new TextEncoder()
+  // Offsets depend on the header's length, which depends on the offsets' digits: iterate until
+  // the layout is stable (two or three rounds).
+  let entries: ArrayEntry[] = arrays.map((a) => ({ name: a.name, dtype: a.data instanceof Float64Array ? 'f64' : 'i32', offset: 0, length: a.data.length }))
+  let headerBytes = enc.encode(JSON.stringify({ ...headerBase, arrays: entries }))
+  for (let round = 0; round < 8; round++) {
+    let at = align8(NATIVE_PREAMBLE_BYTES + headerBytes.length)
+    const next = entries.map((e) => {
+      const o = at
+      at = align8(at + e.length * DTYPE_SIZE[e.dtype])
+      return { ...e, offset: o }
+    })
+    const nextBytes = enc.encode(JSON.stringify({ ...headerBase, arrays: next }))
+    const stable = nextBytes.length === headerBytes.length && next.every((e, i) => e.offset === entries[i].offset)
+    entries = next
+    headerBytes = nextBytes
+    if (stable) break
+  }
+  const last = entries[entries.length - 1]
+  const total = align8(last.offset + last.length * DTYPE_SIZE[last.dtype])
+  const out = new Uint8Array(total)
+  out.set(NATIVE_MAGIC, 0)
+  const dv = new DataView(out.buffer)
+  dv.setUint32(8, NATIVE_VERSION, true)
+  dv.setUint32(12, headerBytes.length, true)
+  out.set(headerBytes, NATIVE_PREAMBLE_BYTES)
+  arrays.forEach((a, i) => writeLittleEndian(out, entries[i].offset, a.data))
+  return out
+}
+
+export interface ReadNativeOptions {
+  /** Copy arrays out of the buffer instead of viewing it (default false: zero-copy). */
+  readonly copy?: boolean
+}
+
+export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.tractus', options: ReadNativeOptions = {}): Model {
+  const bytes = buf instanceof Uint8Array ? buf : new Uint8Array(buf)
+  const fail = (kind: InputErrorKind, field: string, message: string, elementId?: number): never => {
+    throw new InputError(kind, message, { file: fileName, field, elementId })
+  }
+  const size = bytes.length
+  if (size === 0) throw new InputError('empty-file', 'the file is empty', { file: fileName })
+  if (size < NATIVE_PREAMBLE_BYTES) fail('container', 'magic', `only ${size} bytes: too short for a Tractus container (${NATIVE_EXTENSION})`)
+  if (!isNativeContainer(bytes)) fail('container', 'magic', `does not start with the Tractus container magic "TRACTUS\\0"; is it a ${NATIVE_EXTENSION} file?`)
+  const dv = new DataView(bytes.buffer, bytes.byteOffset, size)
+  const version = dv.getUint32(8, true)
+  if (version !== NATIVE_VERSION) fail('version', 'version', `format version ${version} is not supported; this reader reads version ${NATIVE_VERSION}`)
+  const headerLength = dv.getUint32(12, true)
+  if (headerLength === 0 || NATIVE_PREAMBLE_BYTES + headerLength > size) fail('container', 'headerLength', `header length ${headerLength} does not fit in the file of ${size} bytes`)
+  let text = ''
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes.subarray(NATIVE_PREAMBLE_BYTES, NATIVE_PREAMBLE_BYTES + headerLength))
+  } catch {
+    fail('container', 'header', 'the header is not valid UTF-8 text')
+  }
+  let header: unknown
+  try {
+    header = JSON.parse(text)
+  } catch (e) {
+    fail('bad-json', 'header', `the header is not valid JSON (${e instanceof Error ? e.message : String(e)})`)
+  }
+  if (typeof header !== 'object' || header === null || Array.isArray(header)) fail('container', 'header', 'the header is not a JSON object')
+  const h = header as Record<string, unknown>
+  if (h.format !== FORMAT_TAG) fail('container', 'format', `format is ${JSON.stringify(h.format)}, expected "${FORMAT_TAG}"`)
+  const meta = readModelMeta(fileName, { name: h.name, description: h.description, units: h.units, bodyForce: h.bodyForce }, '')
+  if (typeof h.name !== 'string') fail('container', 'name', 'name must be a string')
+  let warnings: string[] = []
+  if (h.warnings !== undefined) {
+    if (!Array.isArray(h.warnings) || !h.warnings.every((w) => typeof w === 'string')) fail('container', 'warnings', 'warnings must be a list of strings')
+    warnings = [...(h.warnings as string[])]
+  }
+  const count = (field: string, v: unknown, min: number): number => {
+    if (typeof v !== 'number' || !Number.isSafeInteger(v) || v < min) fail('container', field, `${field} must be an integer ≥ ${min}, got ${JSON.stringify(v)}`)
+    return v as number
+  }
+  const N = count('nodeCount', h.nodeCount, 1)
+  const E = count('elementCount', h.elementCount, 1)
+  if (!Array.isArray(h.blocks) || h.blocks.length === 0) fail('container', 'blocks', 'blocks must be a non-empty list of {type, count}')
+  const blocks = (h.blocks as unknown[]).map((b, k) => {
+    if (typeof b !== 'object' || b === null) fail('container', `blocks[${k}]`, 'each block must be an object {type, count}')
+    const r = b as Record<string, unknown>
+    if (typeof r.type !== 'string' || !isElementTypeName(r.type)) fail('unknown-type', `blocks[${k}].type`, `unknown element type ${JSON.stringify(r.type)}`)
+    return { type: r.type as ElementTypeName, count: count(`blocks[${k}].count`, r.count, 1) }
+  })
+  const sum = blocks.reduce((s, b) => s + b.count, 0)
+  if (sum !== E) fail('container', 'elementCount', `elementCount is ${E}, the blocks hold ${sum}`)
+
+  // The array table: every entry in range, aligned, not overlapping, known dtype.
+  if (!Array.isArray(h.arrays)) fail('container', 'arrays', 'arrays must be a list of {name, dtype, offset, length}')
+  const dataStart = NATIVE_PREAMBLE_BYTES + headerLength
+  const table = new Map<string, ArrayEntry>()
+  ;(h.arrays as unknown[]).forEach((a, i) => {
+    const f = `arrays[${i}]`
+    if (typeof a !== 'object' || a === null) fail('container', f, 'each array entry must be an object {name, dtype, offset, length}')
+    const r = a as Record<string, unknown>
+    if (typeof r.name !== 'string') fail('container', `${f}.name`, 'name must be a string')
+    const name = r.name as string
+    if (table.has(name)) fail('container', `${f}.name`, `array "${name}" is listed twice`)
+    if (!isDtype(r.dtype)) fail('container', `${f}.dtype`, `unknown dtype ${JSON.stringify(r.dtype)} for array "${name}"; known: f64, i32`)
+    const dtype = r.dtype as Dtype
+    const offset = count(`${f}.offset`, r.offset, 0)
+    const length = count(`${f}.length`, r.length, 0)
+    if (offset % 8 !== 0) fail('container', `${f}.offset`, `array "${name}" starts at byte ${offset}, not a multiple of 8`)
+    if (offset < dataStart) fail('container', `${f}.offset`, `array "${name}" starts at byte ${offset}, inside the header (data starts at ${dataStart})`)
+    if (offset + length * DTYPE_SIZE[dtype] > size) fail('container', `${f}.length`, `array "${name}" (${length} × ${dtype} from byte ${offset}) runs past the end of the file (${size} bytes)`)
+    table.set(name, { name, dtype, offset, length })
+  })
+  const sorted = [...table.values()].sort((a, b) => a.offset - b.offset)
+  for (let i = 1; i < sorted.length; i++) {
+    const p = sorted[i - 1]
+    if (p.offset + p.length * DTYPE_SIZE[p.dtype] > sorted[i].offset) fail('container', 'arrays', `arrays "${p.name}" and "${sorted[i].name}" overlap`)
+  }
+  const take = <T extends Float64Array | Int32Array>(name: string, dtype: Dtype, length: number, optional = false): T | null => {
+    const e = table.get(name)
+    if (!e) {
+      if (optional) return null
+      fail('container', 'arrays', `array "${name}" is missing`)
+    }
+    const en = e as ArrayEntry
+    if (en.dtype !== dtype) fail('container', name, `array "${name}" has dtype ${en.dtype}, expected ${dtype}`)
+    if (en.length !== length) fail('container', name, `array "${name}" has ${en.length} elements, expected ${length} for the counts in the header`)
+    return readLittleEndian(bytes, en.offset, en.length, dtype, !options.copy) as T
+  }
+  const coords = take<Float64Array>('coords', 'f64', 3 * N)!
+  const nodeIds = take<Int32Array>('nodeIds', 'i32', N)!
+  const stress = take<Float64Array>('stress', 'f64', 6 * N)!
+  const displacement = take<Float64Array>('displacement', 'f64', 3 * N, true)
+  const finite = (a: Float64Array, field: string, width: number) => {
+    for (let i = 0; i < a.length; i++) {
+      if (!Number.isFinite(a[i])) fail('not-finite', field, `node ${nodeIds[(i / width) | 0]} has a non-finite value (${a[i]}) at index ${i}`)
+    }
+  }
+  checkIds(nodeIds, 'nodeIds', 'node', fail)
+  finite(coords, 'coords', 3)
+  finite(stress, 'stress', 6)
+  if (displacement) finite(displacement, 'displacement', 3)
+
+  const blockInputs: BlockInput[] = []
+  const allIds = new Int32Array(E)
+  const invertedIds: number[] = []
+  let invertedTotal = 0
+  let at = 0
+  blocks.forEach((b, k) => {
+    const nn = ELEMENT_TYPES[b.type].nodeCount
+    let conn = take<Int32Array>(`block${k}.conn`, 'i32', b.count * nn)!
+    const ids = take<Int32Array>(`block${k}.ids`, 'i32', b.count)!
+    const part = take<Int32Array>(`block${k}.part`, 'i32', b.count, true)
+    for (let i = 0; i < conn.length; i++) {
+      const n = conn[i]
+      if (n < 0 || n >= N) fail('missing-node', `block${k}.conn`, `node index ${n} is outside 0..${N - 1}`, ids[(i / nn) | 0])
+    }
+    if (part) for (let i = 0; i < part.length; i++) if (part[i] < 0) fail('bad-id', `block${k}.part`, `part ${part[i]} is negative`, ids[i])
+    allIds.set(ids, at)
+    at += b.count
+    const o = checkBlockOrientation(coords, b.type, conn)
+    if (o.degenerate >= 0) fail('zero-volume', `block${k}.conn`, `degenerate ${b.type} element: volume ${o.degenerateVolume.toPrecision(3)} is about zero for its size ${o.degenerateSize.toPrecision(3)}`, ids[o.degenerate])
+    if (o.inverted.length) {
+      // Never write into the caller's buffer: fix a private copy.
+      conn = conn.slice()
+      reorientElements(conn, b.type, o.inverted)
+      for (let i = 0; i < o.inverted.length && invertedIds.length < 10; i++) invertedIds.push(ids[o.inverted[i]])
+      invertedTotal += o.inverted.length
+    }
+    blockInputs.push({ type: b.type, conn, ids, part })
+  })
+  checkIds(allIds, 'blocks ids', 'element', fail)
+  if (invertedTotal) warnings.push(`${fileName}: ${reorientedWarning(invertedIds, invertedTotal)}`)
+  return {
+    name: meta.name ?? '',
+    description: meta.description,
+    units: meta.units,
+    mesh: createMesh(coords, blockInputs, nodeIds),
+    stress,
+    displacement,
+    bodyForce: meta.bodyForce,
+    warnings,
+  }
+}
+
+function checkIds(ids: Int32Array, field: string, what: string, fail: (kind: InputErrorKind, field: string, message: string, elementId?: number) => never): void {
+  for (let i = 0; i < ids.length; i++) if (ids[i] < 1) fail('bad-id', field, `${what} id ${ids[i]} at index ${i} is not positive`)
+  const ix = buildIdIndex(ids)
+  if (isDuplicate(ix)) fail('duplicate-id', field, `${what} id ${ix.id} appears twice (indices ${ix.firstRow} and ${ix.secondRow})`)
+}

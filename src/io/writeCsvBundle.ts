@@ -1,0 +1,50 @@
+/**
+ * Writes a Model as a CSV bundle that readCsvBundle reads back to the same numbers: numbers are
+ * written in the shortest form that round-trips (ECMAScript Number::toString), -0 as "-0".
+ */
+import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import type { Model } from '../model/model.ts'
+import type { CsvFile } from './readCsvBundle.ts'
+
+function num(v: number): string {
+  return v === 0 && 1 / v < 0 ? '-0' : String(v)
+}
+
+function table(header: string, rows: number, width: number, ids: Int32Array, values: Float64Array): string {
+  const out: string[] = [header]
+  for (let r = 0; r < rows; r++) {
+    let line = String(ids[r])
+    for (let k = 0; k < width; k++) line += ',' + num(values[r * width + k])
+    out.push(line)
+  }
+  return out.join('\n') + '\n'
+}
+
+export function writeCsvBundle(model: Model): CsvFile[] {
+  const { mesh } = model
+  const N = mesh.nodeCount
+  const files: CsvFile[] = []
+  files.push({ name: 'nodes.csv', text: table('id,x,y,z', N, 3, mesh.nodeIds, mesh.coords) })
+  const hasPart = mesh.blocks.some((b) => b.part !== null)
+  let maxNodes = 1
+  for (const b of mesh.blocks) maxNodes = Math.max(maxNodes, ELEMENT_TYPES[b.type].nodeCount)
+  const head = ['id', 'type', ...(hasPart ? ['part'] : [])]
+  for (let k = 1; k <= maxNodes; k++) head.push(`n${k}`)
+  const el: string[] = [head.join(',')]
+  for (const b of mesh.blocks) {
+    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const count = b.ids.length
+    for (let e = 0; e < count; e++) {
+      let line = `${b.ids[e]},${b.type}`
+      if (hasPart) line += ',' + (b.part ? b.part[e] : 0)
+      for (let a = 0; a < nn; a++) line += ',' + mesh.nodeIds[b.conn[e * nn + a]]
+      el.push(line)
+    }
+  }
+  files.push({ name: 'elements.csv', text: el.join('\n') + '\n' })
+  files.push({ name: 'stress.csv', text: table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
+  if (model.displacement) files.push({ name: 'displacement.csv', text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, model.displacement) })
+  const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce }
+  files.push({ name: 'model.json', text: JSON.stringify(meta, null, 2) + '\n' })
+  return files
+}
