@@ -1,0 +1,175 @@
+/**
+ * One section cut: the resultant force and moment that the material on the +m side of a plane
+ * exerts on the material on the -m side (DESIGN.md), the section's area properties, and the
+ * free-body check of the - piece.
+ *
+ * One pass over the nodes computes d = (x - p)·m; one pass over the elements rejects those whose
+ * corners all lie on one side (d == 0 is the + side, see sectionPolygon.ts) and integrates the
+ * polygon of each cut element. Boundary faces and their tractions are needed only for the
+ * free body; pass them in `options` when cutting repeatedly (dragging the plane), else they are
+ * computed here each call.
+ */
+import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { InputError } from '../model/errors.ts'
+import type { Mesh, Vec3 } from '../model/model.ts'
+import { extractBoundaryFaces } from './boundaryFaces.ts'
+import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
+import {
+  ACC_AREA, ACC_FORCE, ACC_MOMENT, ACC_ORIGIN, ACC_SIZE, createPolygonScratch, edgeTable, elementPolygon,
+  integratePolygon, sectionFrame,
+} from './sectionPolygon.ts'
+import type { PolygonScratch } from './sectionPolygon.ts'
+import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
+import { computeSurfaceTractions } from './tractions.ts'
+import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
+import { FACE_SLOTS } from './types.ts'
+
+export interface CutSectionOptions {
+  /** Point the moment is taken about (model length); default the section centroid. */
+  readonly about?: Vec3
+  /** Precomputed boundary faces of `mesh` (extractBoundaryFaces), reused across cuts. */
+  readonly faces?: BoundaryFaces
+  /** Precomputed tractions on `faces` (computeSurfaceTractions), reused across cuts. */
+  readonly tractions?: SurfaceTractions
+  /** Also return the section polygons for drawing (off by default: it allocates). */
+  readonly polygons?: boolean
+}
+
+/**
+ * Unit normal of a section plane; a zero or non-finite normal is an InputError the caller can
+ * show as is.
+ */
+export function unitNormal(n: readonly number[], what = 'section normal'): Vec3 {
+  const l = Math.hypot(n[0], n[1], n[2])
+  if (!(l > 0) || !Number.isFinite(l)) {
+    throw new InputError('bad-argument', `the ${what} (${n[0]}, ${n[1]}, ${n[2]}) has no direction; give a non-zero vector`, { field: 'normal' })
+  }
+  return [n[0] / l, n[1] / l, n[2] / l]
+}
+
+function checkPoint(p: readonly number[], field: string): void {
+  if (!Number.isFinite(p[0]) || !Number.isFinite(p[1]) || !Number.isFinite(p[2])) {
+    throw new InputError('bad-argument', `the ${field} (${p[0]}, ${p[1]}, ${p[2]}) must be three finite numbers`, { field })
+  }
+}
+
+/** Grows-only scratch for node distances: dragging the plane re-cuts the same mesh many times. */
+let distScratch = new Float64Array(0)
+
+export function cutSection(
+  mesh: Mesh, stress: Float64Array, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
+): { result: SectionResult; polygons: SectionPolygons | null } {
+  const m = unitNormal(plane.normal)
+  checkPoint(plane.point, 'section point')
+  if (options.about) checkPoint(options.about, 'moment point')
+  const point: Vec3 = [plane.point[0], plane.point[1], plane.point[2]]
+  const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
+  const coords = mesh.coords, N = mesh.nodeCount
+  if (distScratch.length < N) distScratch = new Float64Array(N)
+  const d = distScratch
+  const px = point[0], py = point[1], pz = point[2], mx = m[0], my = m[1], mz = m[2]
+  for (let i = 0; i < N; i++) {
+    d[i] = (coords[3 * i] - px) * mx + (coords[3 * i + 1] - py) * my + (coords[3 * i + 2] - pz) * mz
+  }
+
+  const acc = new Float64Array(ACC_SIZE)
+  const sc = createPolygonScratch()
+  const dist = sc.dist
+  const collect = options.polygons ? createPolygonCollector() : null
+  for (const block of mesh.blocks) {
+    const topo = ELEMENT_TYPES[block.type]
+    const nn = topo.nodeCount, cc = topo.cornerCount, quadratic = topo.quadratic
+    const edges = edgeTable(block.type)
+    const conn = block.conn
+    const count = conn.length / nn
+    for (let e = 0, base = 0; e < count; e++, base += nn) {
+      let neg = 0
+      for (let c = 0; c < cc; c++) {
+        const dc = d[conn[base + c]]
+        dist[c] = dc
+        if (dc < 0) neg++
+      }
+      if (neg === 0 || neg === cc) continue // all corners on one side
+      if (elementPolygon(sc, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
+      integratePolygon(acc, 0, sc, frame)
+      if (collect) collect.add(sc, m, block.offset + e)
+    }
+  }
+  const polygons = collect ? collect.finish() : null
+  const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
+  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about), polygons }
+
+  const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
+  const faces = options.faces ?? extractBoundaryFaces(mesh)
+  const tractions = options.tractions ?? computeSurfaceTractions(mesh, stress, faces)
+  const fb = new Float64Array(FB_SIZE)
+  // volume terms about the section centroid: the section itself then adds no volume term
+  freeBodyFaces(fb, 0, coords, stress, faces, tractions, d, 0, sc, c, c)
+  const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
+  const Ms = momentAboutCentroid(acc, 0, c)
+  const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce)
+  return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody), polygons }
+}
+
+/** Section moment about its centroid c from the accumulator's moment about its local origin. */
+export function momentAboutCentroid(acc: Float64Array, off: number, c: ArrayLike<number>): Vec3 {
+  const F0 = acc[off + ACC_FORCE], F1 = acc[off + ACC_FORCE + 1], F2 = acc[off + ACC_FORCE + 2]
+  const dx = acc[off + ACC_ORIGIN] - c[0], dy = acc[off + ACC_ORIGIN + 1] - c[1], dz = acc[off + ACC_ORIGIN + 2] - c[2]
+  return [
+    acc[off + ACC_MOMENT] + dy * F2 - dz * F1,
+    acc[off + ACC_MOMENT + 1] + dz * F0 - dx * F2,
+    acc[off + ACC_MOMENT + 2] + dx * F1 - dy * F0,
+  ]
+}
+
+/**
+ * Boundary faces of the - piece for one plane: whole faces (all corners d < 0) and clipped faces.
+ * `D` holds per-node distances, the plane at `shift` (d = D - shift). c: section centroid,
+ * g: volume origin.
+ */
+function freeBodyFaces(
+  fb: Float64Array, off: number, coords: Float64Array, stress: Float64Array, faces: BoundaryFaces,
+  tractions: SurfaceTractions, D: Float64Array, shift: number, sc: PolygonScratch, c: ArrayLike<number>, g: ArrayLike<number>,
+): void {
+  const nodes = faces.nodes, kind = faces.kind, dist = sc.dist
+  const cx = c[0], cy = c[1], cz = c[2], gx = g[0], gy = g[1], gz = g[2]
+  for (let f = 0; f < faces.count; f++) {
+    const nc = faceCornerCount(kind[f])
+    let neg = 0
+    for (let k = 0; k < nc; k++) {
+      const dk = D[nodes[FACE_SLOTS * f + k]] - shift
+      dist[k] = dk
+      if (dk < 0) neg++
+    }
+    if (neg === 0) continue // wholly on the + side (or lying in the plane)
+    if (neg === nc) addWholeFace(fb, off, faces, tractions, f, gx, gy, gz)
+    else addClippedFace(fb, off, coords, stress, faces, f, sc, cx, cy, cz, gx, gy, gz)
+  }
+}
+
+/** Collects drawn polygons; allocation is fine here, drawing is not the hot path. */
+function createPolygonCollector() {
+  const start: number[] = [0], positions: number[] = [], traction: number[] = [], elem: number[] = []
+  return {
+    add(sc: PolygonScratch, m: Vec3, e: number): void {
+      for (let i = 0; i < sc.count; i++) {
+        const k = sc.order[i]
+        positions.push(sc.pos[3 * k], sc.pos[3 * k + 1], sc.pos[3 * k + 2])
+        const s = 6 * k, sig = sc.sig
+        traction.push(
+          sig[s] * m[0] + sig[s + 3] * m[1] + sig[s + 5] * m[2],
+          sig[s + 3] * m[0] + sig[s + 1] * m[1] + sig[s + 4] * m[2],
+          sig[s + 5] * m[0] + sig[s + 4] * m[1] + sig[s + 2] * m[2],
+        )
+      }
+      start.push(positions.length / 3)
+      elem.push(e)
+    },
+    finish(): SectionPolygons {
+      return {
+        count: elem.length, start: Int32Array.from(start), positions: Float64Array.from(positions),
+        traction: Float64Array.from(traction), elem: Int32Array.from(elem),
+      }
+    },
+  }
+}

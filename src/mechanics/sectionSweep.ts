@@ -1,0 +1,166 @@
+/**
+ * A sweep of N parallel sections: planes with unit normal m at offsets from..to along m
+ * (plane k passes through offsets[k]·m; `to` < `from` sweeps backwards), all resultants in one pass over the elements.
+ *
+ * Each node gets D = x·m once. Each element's corners span [Dmin, Dmax] along m; plane k cuts it
+ * exactly when Dmin < o_k ≤ Dmax (d = D - o_k, d == 0 on the + side as in single cuts), a run of
+ * consecutive k found from the uniform spacing and then confirmed with that exact test. The
+ * element's polygon for each such k goes into section k's accumulator with the same kernels
+ * as `cutSection`, visiting elements in the same order, so a sweep equals single cuts at the same
+ * offsets up to the rounding of d.
+ *
+ * Free bodies: a boundary face lies wholly on the - side of plane k when o_k > its corners' Dmax,
+ * which is true for a run of k at one end. Its whole-face figures are dropped into the bucket
+ * where that run starts and summed cumulatively over k; only the faces a plane crosses are
+ * clipped per plane.
+ */
+import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { InputError } from '../model/errors.ts'
+import type { Mesh, Vec3 } from '../model/model.ts'
+import { extractBoundaryFaces } from './boundaryFaces.ts'
+import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
+import { momentAboutCentroid, unitNormal } from './sectionCut.ts'
+import {
+  ACC_AREA, ACC_FORCE, ACC_SIZE, createPolygonScratch, edgeTable, elementPolygon, integratePolygon, sectionFrame,
+} from './sectionPolygon.ts'
+import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
+import { computeSurfaceTractions } from './tractions.ts'
+import type { BoundaryFaces, SectionResult, SurfaceTractions } from './types.ts'
+import { FACE_SLOTS } from './types.ts'
+
+export interface SweepOptions {
+  /** Precomputed boundary faces of `mesh`, reused across calls. */
+  readonly faces?: BoundaryFaces
+  /** Precomputed tractions on `faces`, reused across calls. */
+  readonly tractions?: SurfaceTractions
+}
+
+/** Largest number of sections one sweep computes (accumulators are N × 28 doubles). */
+export const MAX_SWEEP_SECTIONS = 100_000
+
+export function sweepSections(
+  mesh: Mesh, stress: Float64Array, bodyForce: Vec3, normal: Vec3, from: number, to: number, count: number,
+  options: SweepOptions = {},
+): { offsets: Float64Array; results: SectionResult[] } {
+  const m = unitNormal(normal, 'sweep direction')
+  if (!Number.isFinite(from) || !Number.isFinite(to)) {
+    throw new InputError('bad-argument', `the sweep range ${from} .. ${to} must be two finite numbers`, { field: 'range' })
+  }
+  if (!Number.isInteger(count) || count < 1 || count > MAX_SWEEP_SECTIONS) {
+    throw new InputError('bad-argument', `the section count ${count} must be a whole number from 1 to ${MAX_SWEEP_SECTIONS}`, { field: 'count' })
+  }
+  const offsets = new Float64Array(count)
+  const h = count > 1 ? (to - from) / (count - 1) : 0
+  for (let k = 0; k < count; k++) offsets[k] = k === count - 1 && count > 1 ? to : from + k * h
+  // work on ascending offsets os (index j); a descending sweep maps back with k = count-1-j
+  const descending = h < 0
+  const os = descending ? offsets.slice().reverse() : offsets
+  const hs = Math.abs(h)
+  const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
+  const coords = mesh.coords, N = mesh.nodeCount
+  const D = new Float64Array(N)
+  for (let i = 0; i < N; i++) D[i] = coords[3 * i] * m[0] + coords[3 * i + 1] * m[1] + coords[3 * i + 2] * m[2]
+
+  const acc = new Float64Array(count * ACC_SIZE)
+  const sc = createPolygonScratch()
+  const dist = sc.dist
+  for (const block of mesh.blocks) {
+    const topo = ELEMENT_TYPES[block.type]
+    const nn = topo.nodeCount, cc = topo.cornerCount, quadratic = topo.quadratic
+    const edges = edgeTable(block.type)
+    const conn = block.conn
+    const n = conn.length / nn
+    for (let e = 0, base = 0; e < n; e++, base += nn) {
+      let lo = Infinity, hi = -Infinity
+      for (let c = 0; c < cc; c++) {
+        const v = D[conn[base + c]]
+        if (v < lo) lo = v
+        if (v > hi) hi = v
+      }
+      // planes with lo < o <= hi cut the element
+      const ja = firstAbove(os, hs, lo), jb = lastAtOrBelow(os, hs, hi)
+      for (let k = ja; k <= jb; k++) {
+        const o = os[k]
+        if (!(lo - o < 0 && hi - o >= 0)) continue
+        for (let c = 0; c < cc; c++) dist[c] = D[conn[base + c]] - o
+        if (elementPolygon(sc, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
+        integratePolygon(acc, k * ACC_SIZE, sc, frame)
+      }
+    }
+  }
+
+  // centroids of the non-empty sections; the free body needs them before the face pass
+  const cen = new Float64Array(3 * count)
+  const c3 = new Float64Array(3)
+  for (let k = 0; k < count; k++) {
+    if (!(acc[k * ACC_SIZE + ACC_AREA] > 0)) continue
+    sectionCentroid(c3, acc, k * ACC_SIZE, frame)
+    cen[3 * k] = c3[0]; cen[3 * k + 1] = c3[1]; cen[3 * k + 2] = c3[2]
+  }
+  const faces = options.faces ?? extractBoundaryFaces(mesh)
+  const tractions = options.tractions ?? computeSurfaceTractions(mesh, stress, faces)
+  // volume origin g: one mesh node, so volume sums stay relative to the body's own size
+  const g = N > 0 ? [coords[0], coords[1], coords[2]] : [0, 0, 0]
+  const whole = new Float64Array((count + 1) * FB_SIZE) // bucketed whole-face figures
+  const fb = new Float64Array(count * FB_SIZE) // clipped-face figures per section
+  const nodes = faces.nodes, kind = faces.kind
+  for (let f = 0; f < faces.count; f++) {
+    const nc = faceCornerCount(kind[f])
+    let lo = Infinity, hi = -Infinity
+    for (let c = 0; c < nc; c++) {
+      const v = D[nodes[FACE_SLOTS * f + c]]
+      if (v < lo) lo = v
+      if (v > hi) hi = v
+    }
+    // wholly on the - side of plane j when hi < o_j: every j from jw on
+    const jw = firstAbove(os, hs, hi)
+    if (jw < count) addWholeFace(whole, jw * FB_SIZE, faces, tractions, f, g[0], g[1], g[2])
+    // crossed by plane j: lo < o_j <= hi
+    const ja = firstAbove(os, hs, lo), jb = lastAtOrBelow(os, hs, hi)
+    for (let k = ja; k <= jb; k++) {
+      const o = os[k]
+      if (!(lo - o < 0 && hi - o >= 0) || !(acc[k * ACC_SIZE + ACC_AREA] > 0)) continue
+      for (let c = 0; c < nc; c++) dist[c] = D[nodes[FACE_SLOTS * f + c]] - o
+      addClippedFace(fb, k * FB_SIZE, coords, stress, faces, f, sc, cen[3 * k], cen[3 * k + 1], cen[3 * k + 2], g[0], g[1], g[2])
+    }
+  }
+  // cumulative whole-face sums: the - side grows with the offset
+  for (let k = 1; k < count; k++) for (let s = 0; s < FB_SIZE; s++) whole[k * FB_SIZE + s] += whole[(k - 1) * FB_SIZE + s]
+  for (let i = 0; i < count * FB_SIZE; i++) fb[i] += whole[i]
+
+  const results: SectionResult[] = []
+  for (let k = 0; k < count; k++) {
+    const j = descending ? count - 1 - k : k
+    const off = j * ACC_SIZE
+    const point: Vec3 = [offsets[k] * m[0], offsets[k] * m[1], offsets[k] * m[2]]
+    if (!(acc[off + ACC_AREA] > 0)) { results.push(emptySection(point, m, frame, null)); continue }
+    const c = cen.subarray(3 * j, 3 * j + 3)
+    const Fs: Vec3 = [acc[off + ACC_FORCE], acc[off + ACC_FORCE + 1], acc[off + ACC_FORCE + 2]]
+    const freeBody = closeFreeBody(fb, j * FB_SIZE, c, g, acc[off + ACC_AREA], m, Fs, momentAboutCentroid(acc, off, c), bodyForce)
+    results.push(sectionRecord(acc, off, point, m, frame, null, freeBody))
+  }
+  return { offsets, results }
+}
+
+// Index searches on the ascending, uniform internal offsets: a guess from the spacing, then exact
+// comparisons with the stored offsets (the guess may be off by one from rounding).
+
+/** First j with o_j > x (o.length when none). */
+function firstAbove(o: Float64Array, h: number, x: number): number {
+  const n = o.length
+  let k = h > 0 ? Math.floor((x - o[0]) / h) : 0
+  k = k > 0 ? (k > n ? n : k) : 0 // also catches NaN
+  while (k > 0 && o[k - 1] > x) k--
+  while (k < n && !(o[k] > x)) k++
+  return k
+}
+
+/** Last j with o_j <= x (-1 when none). */
+function lastAtOrBelow(o: Float64Array, h: number, x: number): number {
+  const n = o.length
+  let k = h > 0 ? Math.floor((x - o[0]) / h) : n - 1
+  k = k > -1 ? (k > n - 1 ? n - 1 : k) : -1
+  while (k < n - 1 && o[k + 1] <= x) k++
+  while (k >= 0 && !(o[k] <= x)) k--
+  return k
+}
