@@ -19,3 +19,11 @@ const faces = time('extractBoundaryFaces', () => extractBoundaryFaces(mesh)) as 
 time('computeSurfaceTractions', () => computeSurfaceTractions(mesh, stress, faces))
 time('faces + tractions', () => computeSurfaceTractions(mesh, stress, extractBoundaryFaces(mesh)))
 console.log(`boundary faces ${faces.count} (expected ${12 * n * n})`)
+
+const { computeElementBalance, computeBodyBalance, percentiles } = await import('../../src/mechanics/balanceAudit.ts')
+const { computeNodalInvariants } = await import('../../src/mechanics/invariants.ts')
+const tr = computeSurfaceTractions(mesh, stress, faces)
+const eb = time('computeElementBalance', () => computeElementBalance(mesh, stress, [0, 0, -1])) as ReturnType<typeof computeElementBalance>
+time('computeBodyBalance', () => computeBodyBalance(mesh, faces, tr, [0, 0, -1]))
+time('percentiles of the indicator', () => percentiles(eb.indicator, [50, 95, 100]))
+time('computeNodalInvariants', () => computeNodalInvariants(stress), 3)
