@@ -79,13 +79,16 @@ export interface SurfaceBuffers {
  * - `origins`: Float32Array(3·A), length units, the arrow's tail;
  * - `vectors`: Float32Array(3·A), stress units (traction, its normal part or its shear part
  *   according to `mode`);
+ * - `normals`: Float32Array(3·A), unit outward face normal (or section normal m) at each arrow;
  * - `magnitudes`: Float32Array(A) = |vectors|, stress units; `maxMagnitude` their maximum.
+ * (This is the ArrowSamples record of src/mechanics/arrowSampling.ts, passed through.)
  * Drawn length = scale · |v| / maxMagnitude · 0.08 · (diagonal of the model bounds).
  */
 export interface ArrowBuffers {
   readonly mode: ArrowMode
   readonly origins: Float32Array
   readonly vectors: Float32Array
+  readonly normals: Float32Array
   readonly magnitudes: Float32Array
   readonly maxMagnitude: number
 }

@@ -1,0 +1,4 @@
+/** The 3D view area; the scene components (src/scene) draw into it. */
+export function SceneView() {
+  return <div className="scene" data-testid="scene" />
+}

@@ -1,0 +1,170 @@
+/**
+ * What buttons, shortcuts, drops and links do. Thin: each action sets store fields or calls the
+ * worker client; nothing O(elements) happens here.
+ */
+import { download, fileStem } from './exports.ts'
+import { loadSource, onModelLoaded } from './engine.ts'
+import type { AppSource } from './engine.ts'
+import { composeSnapshot } from './snapshot.ts'
+import { useStore } from './store.ts'
+import { buildViewLink, parseViewLink } from './urlHash.ts'
+import type { ViewLink } from './urlHash.ts'
+
+/** An entry of public/demo/index.json. */
+export interface DemoEntry {
+  readonly id: string
+  readonly name: string
+  readonly description: string
+  readonly file: string
+  readonly units?: unknown
+  readonly elements?: number
+}
+
+/** The generated model used when no demo list is shipped (or it cannot be read). */
+export const FALLBACK_SOURCE: AppSource = { kind: 'synthetic', spec: { kind: 'block', elements: 12000 } }
+
+let demoList: Promise<DemoEntry[]> | null = null
+
+/** Reads public/demo/index.json once; an unreadable list is an empty list. */
+export function demos(): Promise<DemoEntry[]> {
+  if (!demoList) {
+    demoList = fetch(new URL('demo/index.json', document.baseURI).href)
+      .then((r) => (r.ok ? r.json() : []))
+      .then((list: unknown) => (Array.isArray(list) ? list.filter(isDemoEntry) : []))
+      .catch(() => [])
+  }
+  return demoList
+}
+
+function isDemoEntry(x: unknown): x is DemoEntry {
+  const e = x as DemoEntry
+  return !!e && typeof e.id === 'string' && /^[A-Za-z0-9_-]{1,64}$/.test(e.id) && typeof e.file === 'string' &&
+    /^[A-Za-z0-9_.-]{1,128}$/.test(e.file) && typeof e.name === 'string'
+}
+
+export function demoSource(d: DemoEntry): AppSource {
+  return { kind: 'demo', id: d.id, file: d.file, url: new URL('demo/' + d.file, document.baseURI).href }
+}
+
+export async function openFiles(files: readonly File[]): Promise<void> {
+  if (files.length === 0) return
+  await loadSource({ kind: 'files', files: [...files] })
+}
+
+export async function takeSnapshot(scale: number): Promise<void> {
+  const st = useStore.getState()
+  const canvas = document.querySelector<HTMLCanvasElement>('[data-testid="scene"] canvas')
+  const w = canvas?.clientWidth || window.innerWidth, h = canvas?.clientHeight || window.innerHeight
+  try {
+    const blob = await composeSnapshot(st, w, h, scale, canvas)
+    const stamp = new Date().toISOString().slice(0, 16).replace(/[:T]/g, '-')
+    download(`${fileStem(st.model?.name ?? 'tractus')}-${stamp}-${scale}x.png`, blob)
+  } catch (e) {
+    st.set({ error: { message: `The snapshot could not be made: ${e instanceof Error ? e.message : String(e)}` } })
+  }
+}
+
+/** The link of the current view (model when it can be reloaded from a link). */
+export function currentViewLink(): ViewLink {
+  const st = useStore.getState()
+  const src = st.model?.source ?? ''
+  let model: ViewLink['model']
+  if (src.startsWith('demo:')) model = { kind: 'demo', id: src.slice(5) }
+  else if (src.startsWith('synthetic:block:')) model = { kind: 'block', elements: Number(src.slice(16)) }
+  return {
+    model, quantity: st.quantity, range: st.range, colourMap: st.colourMap, units: st.units,
+    section: st.section.enabled ? { ...st.section } : undefined,
+    camera: st.camera ?? undefined,
+  }
+}
+
+let pendingView: ViewLink | null = null
+
+/** Applies the parts of a link that do not need a model, and keeps the rest for after the load. */
+function applyImmediate(v: ViewLink): void {
+  const st = useStore.getState()
+  st.set({
+    ...(v.quantity ? { quantity: v.quantity } : {}),
+    ...(v.colourMap ? { colourMap: v.colourMap } : {}),
+    ...(v.units ? { units: v.units } : {}),
+    ...(v.range ? { range: v.range } : {}),
+  })
+}
+
+function applyAfterLoad(): void {
+  const v = pendingView
+  pendingView = null
+  if (!v) return
+  const st = useStore.getState()
+  if (v.range) st.set({ range: v.range })
+  if (v.section) st.setSection({ ...v.section, dragging: false })
+  if (v.camera) st.requestView({ camera: v.camera })
+}
+
+async function sourceForLink(v: ViewLink): Promise<AppSource> {
+  if (v.model?.kind === 'block') return { kind: 'synthetic', spec: { kind: 'block', elements: v.model.elements } }
+  const list = await demos()
+  const m = v.model
+  const wanted = m?.kind === 'demo' ? list.find((d) => d.id === m.id) : undefined
+  const first = wanted ?? list[0]
+  return first ? demoSource(first) : FALLBACK_SOURCE
+}
+
+/** Start-up: the model and view named by the URL hash, else the first demo, else a generated one. */
+let started = false
+
+export async function startFromHash(): Promise<void> {
+  // React's development double-run of effects must not load twice.
+  if (started) return
+  started = true
+  const v = parseViewLink(window.location.hash)
+  applyImmediate(v)
+  pendingView = v
+  onModelLoaded(() => applyAfterLoad())
+  const ok = await loadSource(await sourceForLink(v))
+  if (!ok && !useStore.getState().model) await loadSource(FALLBACK_SOURCE)
+}
+
+/** A link pasted into this tab: load its model if it names another one, then apply the view. */
+export async function followHash(): Promise<void> {
+  const v = parseViewLink(window.location.hash)
+  const cur = useStore.getState().model?.source ?? ''
+  applyImmediate(v)
+  const wantKey = v.model?.kind === 'demo' ? `demo:${v.model.id}` : v.model?.kind === 'block' ? `synthetic:block:${v.model.elements}` : null
+  if (wantKey && wantKey !== cur) {
+    pendingView = v
+    await loadSource(await sourceForLink(v))
+  } else {
+    pendingView = v
+    applyAfterLoad()
+  }
+}
+
+let lastWritten = ''
+let timer: ReturnType<typeof setTimeout> | null = null
+
+/** Keeps the URL hash in step with the view (debounced, replaceState so history stays clean). */
+export function startHashSync(): () => void {
+  const write = (): void => {
+    timer = null
+    const st = useStore.getState()
+    if (!st.model || st.section.dragging) return
+    const h = buildViewLink(currentViewLink())
+    if (h !== lastWritten && h !== window.location.hash) {
+      lastWritten = h
+      history.replaceState(null, '', h)
+    }
+  }
+  const unsub = useStore.subscribe((s, p) => {
+    if (s.quantity !== p.quantity || s.range !== p.range || s.colourMap !== p.colourMap || s.units !== p.units ||
+        s.section !== p.section || s.camera !== p.camera || s.model !== p.model) {
+      if (timer) clearTimeout(timer)
+      timer = setTimeout(write, 250)
+    }
+  })
+  const onHash = (): void => {
+    if (window.location.hash !== lastWritten) void followHash()
+  }
+  window.addEventListener('hashchange', onHash)
+  return () => { unsub(); window.removeEventListener('hashchange', onHash) }
+}

@@ -1,0 +1,44 @@
+import { Card } from '../ui/Card.tsx'
+import { Num, Vec } from '../ui/Num.tsx'
+import { useStore } from '../store.ts'
+
+/** Whole-body balance, the spread of the element indicator and the traction left on free surface. */
+export function EquilibriumCard() {
+  const audit = useStore((s) => s.audit)
+  const model = useStore((s) => s.model)
+  if (!audit || !model) return null
+  const b = audit.body
+  const verdict = b.relative < 1e-3 ? 'balanced' : b.relative < 1e-2 ? 'small residual' : 'check the model'
+  return (
+    <Card id="equilibrium" title="Equilibrium">
+      <table className="figures" data-testid="body-balance">
+        <caption>Whole body: ∮ t dA + ∫ ρb dV</caption>
+        <tbody>
+          <tr><th>Residual force</th><td><Vec v={b.force} q="force" /></td></tr>
+          <tr><th>Residual moment</th><td><Vec v={b.moment} q="moment" /></td></tr>
+          <tr><th>Residual / gross load</th><td><Num v={b.relative} q={null} /> <span className={'tag ' + verdict.replace(/ /g, '-')}>{verdict}</span></td></tr>
+          <tr><th>Gross load</th><td><Num v={b.gross} q="force" /></td></tr>
+          <tr><th>Body force total</th><td><Vec v={b.bodyForceTotal} q="force" /></td></tr>
+          <tr><th>Volume</th><td><Num v={b.volume} q="volume" /></td></tr>
+        </tbody>
+      </table>
+      <table className="figures" data-testid="element-balance">
+        <caption>Element indicator |residual| / gross</caption>
+        <tbody>
+          <tr><th>Median</th><td><Num v={audit.indicator.p50} q={null} /></td></tr>
+          <tr><th>95th percentile</th><td><Num v={audit.indicator.p95} q={null} /></td></tr>
+          <tr><th>Largest</th><td><Num v={audit.indicator.max} q={null} /></td></tr>
+        </tbody>
+      </table>
+      <table className="figures" data-testid="free-surface">
+        <caption>Nominally free surface</caption>
+        <tbody>
+          <tr><th>Area</th><td><Num v={audit.freeSurface.area} q="area" /></td></tr>
+          <tr><th>Mean |t|</th><td><Num v={audit.freeSurface.mean} q="stress" /></td></tr>
+          <tr><th>Peak |t|</th><td><Num v={audit.freeSurface.peak} q="stress" /></td></tr>
+          <tr><th>Mean / reference stress</th><td><Num v={audit.freeSurface.relative} q={null} /></td></tr>
+        </tbody>
+      </table>
+    </Card>
+  )
+}

@@ -1,0 +1,237 @@
+/**
+ * The worker client: spawns the engine worker, runs one job at a time, coalesces section cuts
+ * (only the latest plane is computed), and on cancel or crash terminates and respawns the worker,
+ * then reloads the last good model so the user keeps what they had.
+ */
+import * as Comlink from 'comlink'
+import { checkModelSize } from '../io/sizeGuard.ts'
+import { isInputError } from '../model/errors.ts'
+import type { CutReply, EngineApi, EngineFile, LoadedModel, ModelSource, Outcome, SyntheticSpec } from '../../workers/engineTypes.ts'
+import { DEFAULT_SECTION, sectionPlaneOf, useStore } from './store.ts'
+import type { AppError } from './store.ts'
+
+/** Where a model comes from, in a form that can be loaded again after a respawn. */
+export type AppSource =
+  | { readonly kind: 'demo'; readonly id: string; readonly url: string; readonly file: string }
+  | { readonly kind: 'files'; readonly files: readonly File[] }
+  | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
+
+interface Handle { worker: Worker; api: Comlink.Remote<EngineApi> }
+
+let handle: Handle | null = null
+let queue: Promise<unknown> = Promise.resolve()
+let generation = 0
+let lastGood: AppSource | null = null
+let cutInFlight = false
+let cutPending = false
+let probeInFlight = false
+/** Called after each successful load (the app applies a pending URL view then). */
+let afterLoad: ((source: AppSource) => void) | null = null
+
+export function onModelLoaded(cb: ((source: AppSource) => void) | null): void { afterLoad = cb }
+
+function spawn(): Handle {
+  const worker = new Worker(new URL('../../workers/engine.worker.ts', import.meta.url), { type: 'module', name: 'tractus-engine' })
+  const h: Handle = { worker, api: Comlink.wrap<EngineApi>(worker) }
+  worker.addEventListener('error', (ev) => {
+    ev.preventDefault()
+    if (handle === h) void recover({ message: `The engine stopped: ${ev.message || 'an unexpected error'}. The previous model is being reloaded.` })
+  })
+  return h
+}
+
+function engine(): Handle {
+  if (!handle) handle = spawn()
+  return handle
+}
+
+/** Runs jobs one after another; a job started before a respawn is dropped by its generation. */
+function enqueue<T>(job: (api: Comlink.Remote<EngineApi>, gen: number) => Promise<T>): Promise<T> {
+  const gen = generation
+  const run = queue.then(() => (gen === generation ? job(engine().api, gen) : Promise.reject(new Error('cancelled'))))
+  queue = run.catch(() => undefined)
+  return run
+}
+
+function respawn(): void {
+  generation++
+  if (handle) {
+    handle.api[Comlink.releaseProxy]()
+    handle.worker.terminate()
+  }
+  handle = null
+  queue = Promise.resolve()
+  cutInFlight = false
+  cutPending = false
+  probeInFlight = false
+}
+
+async function recover(error: AppError): Promise<void> {
+  respawn()
+  useStore.getState().set({ error, busy: false, progress: null })
+  if (lastGood) await loadSource(lastGood, { quiet: true })
+}
+
+/** CSV and JSON travel as text; anything else (the binary container) as bytes. */
+async function readFile(f: File): Promise<EngineFile> {
+  const lower = f.name.toLowerCase()
+  if (lower.endsWith('.csv') || lower.endsWith('.json') || lower.endsWith('.txt')) return { name: f.name, data: await f.text() }
+  return { name: f.name, data: await f.arrayBuffer() }
+}
+
+async function toModelSource(s: AppSource): Promise<ModelSource> {
+  if (s.kind === 'synthetic') return { kind: 'synthetic', spec: s.spec }
+  if (s.kind === 'files') {
+    checkModelSize(s.files.map((f) => ({ name: f.name, size: f.size })))
+    return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(',') }
+  }
+  const res = await fetch(s.url)
+  if (!res.ok) throw new Error(`Could not read the demo model ${s.file} (HTTP ${res.status}).`)
+  const data = s.file.toLowerCase().endsWith('.json') ? await res.text() : await res.arrayBuffer()
+  return { kind: 'files', files: [{ name: s.file, data }], label: `demo:${s.id}` }
+}
+
+function transferList(src: ModelSource): Transferable[] {
+  if (src.kind !== 'files') return []
+  return src.files.flatMap((f) => (typeof f.data === 'string' ? [] : [f.data]))
+}
+
+export function sourceKey(s: AppSource): string {
+  if (s.kind === 'demo') return `demo:${s.id}`
+  if (s.kind === 'synthetic') return `block:${s.spec.elements}`
+  return 'files'
+}
+
+/**
+ * Loads a model. On an input error the error card shows and the previous model stays. `quiet`
+ * (used after a respawn) keeps the current error card.
+ */
+export async function loadSource(source: AppSource, opts: { quiet?: boolean } = {}): Promise<boolean> {
+  const st = useStore.getState()
+  st.set({ busy: true, progress: { stage: 'Preparing', fraction: 0 }, ...(opts.quiet ? {} : { error: null }) })
+  let src: ModelSource
+  try {
+    src = await toModelSource(source)
+  } catch (e) {
+    const err = isInputError(e) ? { message: e.message, file: e.where.file, hint: 'Choose a smaller model.' } : { message: e instanceof Error ? e.message : String(e) }
+    useStore.getState().set({ busy: false, progress: null, error: err })
+    return false
+  }
+  const gen = generation
+  try {
+    const onProgress = Comlink.proxy((p: { stage: string; fraction: number }) => {
+      if (gen === generation) useStore.getState().set({ progress: p })
+    })
+    const out = await enqueue<Outcome<LoadedModel>>((api) => api.load(Comlink.transfer(src, transferList(src)), onProgress))
+    if (gen !== generation) return false
+    if (!out.ok) {
+      useStore.getState().set({ busy: false, progress: null, error: out.error })
+      return false
+    }
+    lastGood = source
+    const { summary, surface, audit } = out.value
+    const c = summary.bounds
+    const centre: [number, number, number] = [(c.min[0] + c.max[0]) / 2, (c.min[1] + c.max[1]) / 2, (c.min[2] + c.max[2]) / 2]
+    const prev = useStore.getState()
+    useStore.getState().set({
+      model: summary, surface, audit, arrows: null, sectionBuffers: null, sectionResult: null, probe: null, probeRay: null,
+      highlightedPatch: -1, busy: false, progress: null,
+      section: { ...DEFAULT_SECTION, enabled: prev.section.enabled, normal: prev.section.normal, hide: prev.section.hide, traction: prev.section.traction, point: centre },
+    })
+    // Frame the model first; a link applied by afterLoad may then ask for its own camera.
+    useStore.getState().requestView({ frame: { center: centre, radius: Math.max(1e-9, Math.hypot(c.max[0] - c.min[0], c.max[1] - c.min[1], c.max[2] - c.min[2]) / 2) } })
+    afterLoad?.(source)
+    void refreshSurfaceArrows()
+    requestCut()
+    return true
+  } catch (e) {
+    if (gen !== generation) return false
+    // A real failure inside the worker: show it, start a fresh worker with the last good model.
+    const message = e instanceof Error ? e.message : String(e)
+    await recover({ message: `The engine failed while loading: ${message}. The previous model is kept.` })
+    return false
+  }
+}
+
+/** Stops a running load: the worker is terminated and respawned, the last good model reloaded. */
+export async function cancelLoad(): Promise<void> {
+  respawn()
+  useStore.getState().set({ busy: false, progress: null })
+  if (lastGood) await loadSource(lastGood, { quiet: true })
+}
+
+export async function refreshSurfaceArrows(): Promise<void> {
+  const st = useStore.getState()
+  if (!st.model || !st.arrowSettings.surface) { if (st.arrows) st.set({ arrows: null }); return }
+  const gen = generation
+  const { mode, budget } = st.arrowSettings
+  try {
+    const a = await enqueue((api) => api.surfaceArrows({ mode, budget }))
+    if (gen === generation) useStore.getState().set({ arrows: a })
+  } catch { /* dropped by a respawn */ }
+}
+
+/**
+ * Asks for a cut of the current plane. While one is computing, further requests only mark the
+ * plane dirty; when the running cut returns, the latest plane is cut once. So a drag never queues
+ * more than one job behind the one in flight.
+ */
+export function requestCut(): void {
+  const st = useStore.getState()
+  if (!st.model) return
+  if (!st.section.enabled) {
+    if (st.sectionResult || st.sectionBuffers) st.set({ sectionResult: null, sectionBuffers: null })
+    return
+  }
+  if (cutInFlight) { cutPending = true; return }
+  cutInFlight = true
+  cutPending = false
+  const gen = generation
+  const plane = sectionPlaneOf(st.section)
+  const { mode, budget } = st.arrowSettings
+  enqueue<Outcome<CutReply>>((api) => api.cut(plane, { mode, budget }))
+    .then((out) => {
+      if (gen !== generation) return
+      if (out.ok) useStore.getState().set({ sectionResult: out.value.result, sectionBuffers: out.value.buffers })
+      else useStore.getState().set({ error: out.error })
+    })
+    .catch((e) => {
+      if (gen === generation) useStore.getState().set({ error: { message: `The section could not be computed: ${e instanceof Error ? e.message : String(e)}` } })
+    })
+    .finally(() => {
+      if (gen !== generation) return
+      cutInFlight = false
+      if (cutPending) requestCut()
+    })
+}
+
+/** Intersects the stored probe ray in the worker (latest ray wins). */
+export function runProbe(): void {
+  const st = useStore.getState()
+  const ray = st.probeRay
+  if (!ray || !st.model || probeInFlight) return
+  probeInFlight = true
+  const gen = generation
+  const section = st.section.enabled ? { plane: sectionPlaneOf(st.section), hide: st.section.hide } : null
+  enqueue((api) => api.probe({ ray, section }))
+    .then((r) => {
+      if (gen !== generation) return
+      useStore.getState().set({ probe: r })
+    })
+    .catch(() => undefined)
+    .finally(() => {
+      if (gen !== generation) return
+      probeInFlight = false
+      if (useStore.getState().probeRay !== ray) runProbe()
+    })
+}
+
+/** Test hook: make the worker throw an unexpected error; the app must recover. */
+export async function crashEngine(): Promise<void> {
+  const gen = generation
+  try {
+    await enqueue((api) => api.crash())
+  } catch (e) {
+    if (gen === generation) await recover({ message: `The engine failed: ${e instanceof Error ? e.message : String(e)}. The previous model is kept.` })
+  }
+}

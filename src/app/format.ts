@@ -1,0 +1,54 @@
+/**
+ * Number formatting for display: model units → the chosen unit system, four significant figures,
+ * a real minus sign, and the unit on every value. The raw model-unit value stays available to
+ * tests and exports through `data-model` attributes (see Value in cards/Value.tsx).
+ */
+import { displayFactor, displayUnitLabel } from '../model/units.ts'
+import type { ModelUnits, Quantity, UnitSystem } from '../model/units.ts'
+import type { QuantityName } from './store.ts'
+
+export function formatNumber(v: number, digits = 4): string {
+  if (!Number.isFinite(v)) return Number.isNaN(v) ? '—' : v > 0 ? '∞' : '−∞'
+  if (v === 0) return '0'
+  const a = Math.abs(v)
+  let s: string
+  if (a >= 1e6 || a < 1e-3) s = v.toExponential(digits - 1).replace('e+', 'e')
+  else s = v.toPrecision(digits)
+  if (!s.includes('e') && s.includes('.')) s = s.replace(/\.?0+$/, '')
+  return s.replace('-', '−')
+}
+
+/** Converts a model-unit value of `q` to the display system. */
+export function convert(v: number, units: ModelUnits, q: Quantity, system: UnitSystem): number {
+  return v * displayFactor(units, q, system)
+}
+
+export function unitLabel(q: Quantity, system: UnitSystem): string {
+  return displayUnitLabel(q, system)
+}
+
+export function formatQuantity(v: number, units: ModelUnits, q: Quantity, system: UnitSystem): string {
+  return `${formatNumber(convert(v, units, q, system))} ${unitLabel(q, system)}`
+}
+
+export const QUANTITY_LABEL: Readonly<Record<QuantityName, string>> = {
+  normalTraction: 'Normal traction tₙ',
+  shearTraction: 'Shear traction |τ|',
+  tractionMagnitude: 'Traction |t|',
+  vonMises: 'von Mises stress',
+  principal1: 'Principal stress σ₁',
+  principal3: 'Principal stress σ₃',
+  balanceIndicator: 'Element balance indicator',
+}
+
+/** Physical kind of a colour quantity: a stress, or dimensionless. */
+export function quantityKind(q: QuantityName): Quantity | null {
+  return q === 'balanceIndicator' ? null : 'stress'
+}
+
+/** Display factor and label for a colour quantity. */
+export function quantityDisplay(q: QuantityName, units: ModelUnits | undefined, system: UnitSystem): { factor: number; unit: string } {
+  const kind = quantityKind(q)
+  if (!kind || !units) return { factor: 1, unit: kind ? unitLabel(kind, system) : '–' }
+  return { factor: displayFactor(units, kind, system), unit: unitLabel(kind, system) }
+}

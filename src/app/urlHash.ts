@@ -1,0 +1,96 @@
+/**
+ * The view link: a URL hash that restores model (demo or generated), camera, quantity, colour
+ * range, colour map, units and section. Parsing never throws and never trusts the text: unknown
+ * keys are ignored, every number must be finite and within ±1e15, every name from a fixed list.
+ *
+ * Keys: model=demo:<id> | block, elements=<count>, q=<quantity>, r=auto|<min>,<max> (model units),
+ * map=<colour map>, u=SI|US, cut=px,py,pz,nx,ny,nz,offset (model length units; present = on),
+ * hide=positive|negative|none, cam=px,py,pz,tx,ty,tz,ux,uy,uz,fov.
+ */
+import type { Vec3 } from '../model/model.ts'
+import { QUANTITY_NAMES } from './store.ts'
+import type { CameraState, ColourMapName, ColourRange, QuantityName, SectionState } from './store.ts'
+import type { UnitSystem } from '../model/units.ts'
+import { COLOUR_MAP_NAMES } from './colourMaps.ts'
+
+export interface ViewLink {
+  model?: { kind: 'demo'; id: string } | { kind: 'block'; elements: number }
+  quantity?: QuantityName
+  range?: ColourRange
+  colourMap?: ColourMapName
+  units?: UnitSystem
+  section?: Pick<SectionState, 'point' | 'normal' | 'offset' | 'hide'> & { enabled: boolean }
+  camera?: CameraState
+}
+
+const LIMIT = 1e15
+
+function numbers(s: string | null, n: number): number[] | null {
+  if (!s || s.length > 400) return null
+  const parts = s.split(',')
+  if (parts.length !== n) return null
+  const out = parts.map((p) => Number(p))
+  return out.every((v) => Number.isFinite(v) && Math.abs(v) <= LIMIT) ? out : null
+}
+
+export function parseViewLink(hash: string): ViewLink {
+  const out: ViewLink = {}
+  let params: URLSearchParams
+  try {
+    params = new URLSearchParams(hash.replace(/^#/, '').slice(0, 4000))
+  } catch {
+    return out
+  }
+  const model = params.get('model')
+  if (model && /^demo:[A-Za-z0-9_-]{1,64}$/.test(model)) out.model = { kind: 'demo', id: model.slice(5) }
+  else if (model === 'block') {
+    const e = Number(params.get('elements') ?? '20000')
+    out.model = { kind: 'block', elements: Number.isInteger(e) && e >= 6 && e <= 2_000_000 ? e : 20000 }
+  }
+  const q = params.get('q')
+  if (q && (QUANTITY_NAMES as readonly string[]).includes(q)) out.quantity = q as QuantityName
+  const r = params.get('r')
+  if (r === 'auto') out.range = 'auto'
+  else {
+    const v = numbers(r, 2)
+    if (v && v[0] < v[1]) out.range = [v[0], v[1]]
+  }
+  const map = params.get('map')
+  if (map && (COLOUR_MAP_NAMES as readonly string[]).includes(map)) out.colourMap = map as ColourMapName
+  const u = params.get('u')
+  if (u === 'SI' || u === 'US') out.units = u
+  const cut = numbers(params.get('cut'), 7)
+  if (cut && Math.hypot(cut[3], cut[4], cut[5]) > 0) {
+    const hide = params.get('hide')
+    out.section = {
+      enabled: true, point: [cut[0], cut[1], cut[2]], normal: [cut[3], cut[4], cut[5]], offset: cut[6],
+      hide: hide === 'negative' || hide === 'none' ? hide : 'positive',
+    }
+  }
+  const cam = numbers(params.get('cam'), 10)
+  if (cam && cam[9] > 1 && cam[9] < 170 && Math.hypot(cam[6], cam[7], cam[8]) > 0 &&
+      Math.hypot(cam[0] - cam[3], cam[1] - cam[4], cam[2] - cam[5]) > 0) {
+    out.camera = { position: [cam[0], cam[1], cam[2]], target: [cam[3], cam[4], cam[5]], up: [cam[6], cam[7], cam[8]], fov: cam[9] }
+  }
+  return out
+}
+
+/** Shortest round-trip text of a number (so a restored view matches to the last digit). */
+const num = (v: number): string => (Object.is(v, -0) ? '0' : String(v))
+const vec = (v: Vec3): string => v.map(num).join(',')
+
+export function buildViewLink(v: ViewLink): string {
+  const p = new URLSearchParams()
+  if (v.model?.kind === 'demo') p.set('model', `demo:${v.model.id}`)
+  else if (v.model?.kind === 'block') { p.set('model', 'block'); p.set('elements', String(v.model.elements)) }
+  if (v.quantity) p.set('q', v.quantity)
+  if (v.range) p.set('r', v.range === 'auto' ? 'auto' : `${num(v.range[0])},${num(v.range[1])}`)
+  if (v.colourMap) p.set('map', v.colourMap)
+  if (v.units) p.set('u', v.units)
+  if (v.section?.enabled) {
+    p.set('cut', `${vec(v.section.point)},${vec(v.section.normal)},${num(v.section.offset)}`)
+    p.set('hide', v.section.hide)
+  }
+  if (v.camera) p.set('cam', `${vec(v.camera.position)},${vec(v.camera.target)},${vec(v.camera.up)},${num(v.camera.fov)}`)
+  return '#' + p.toString().replace(/%2C/g, ',').replace(/%3A/g, ':')
+}

@@ -1,0 +1,196 @@
+/**
+ * The engine worker: keeps the loaded model and does every O(elements) job for the app, one job at
+ * a time (the client queues them). Replies move their typed arrays by transfer. Input problems come
+ * back as values ({ok: false, error}) with the file and line; anything else is a real bug and
+ * rejects, and the client shows it and respawns the worker.
+ */
+import * as Comlink from 'comlink'
+import { readModelFiles } from '../src/io/index.ts'
+import { isInputError } from '../src/model/errors.ts'
+import type { Mesh, Model } from '../src/model/model.ts'
+import { extractBoundaryFaces } from '../src/mechanics/boundaryFaces.ts'
+import { computeSurfaceTractions } from '../src/mechanics/tractions.ts'
+import { computeNodalInvariants } from '../src/mechanics/invariants.ts'
+import { computeBodyBalance, computeElementBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
+import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
+import { cutSection } from '../src/mechanics/sectionCut.ts'
+import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
+import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
+import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrowSampling.ts'
+import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
+import type { BoundaryFaces, SectionPlane, SectionPolygons, SurfaceTractions } from '../src/mechanics/types.ts'
+import type { AppError, ArrowBuffers, ModelSummary, SectionBuffers, SurfaceBuffers } from '../src/app/store.ts'
+import type { ArrowRequest, CutReply, EngineApi, LoadedModel, ModelSource, Outcome, ProbeRequest, ProgressCallback } from './engineTypes.ts'
+import { syntheticModel } from './syntheticModel.ts'
+import { probeModel } from './probe.ts'
+
+interface Loaded {
+  model: Model
+  faces: BoundaryFaces
+  tractions: SurfaceTractions
+  polygons: SectionPolygons | null
+}
+
+let current: Loaded | null = null
+
+/** Progress at most every ~10 ms, so a fast job does not flood the main thread with messages. */
+function throttle(cb: ProgressCallback | undefined): (stage: string, fraction: number) => void {
+  let last = -Infinity
+  return (stage, fraction) => {
+    const now = performance.now()
+    if (!cb || (now - last < 10 && fraction < 1)) return
+    last = now
+    void Promise.resolve(cb({ stage, fraction })).catch(() => undefined)
+  }
+}
+
+/** The event loop gets a turn between stages, so progress messages leave while we compute. */
+const yieldTurn = (): Promise<void> => new Promise((r) => setTimeout(r, 0))
+
+function toAppError(e: unknown): AppError | null {
+  if (!isInputError(e)) return null
+  const w = e.where
+  return { message: e.message, file: w.file, line: w.line, hint: hintFor(e.kind) }
+}
+
+function hintFor(kind: string): string | undefined {
+  switch (kind) {
+    case 'missing-file': return 'Choose nodes.csv, elements.csv and stress.csv together (model.json and displacement.csv are optional), or one .tractus file.'
+    case 'too-large': return 'Split the model or coarsen the mesh; the limit protects the browser from running out of memory.'
+    case 'header': case 'column-count': return 'Check the header row and the number of values on that line.'
+    case 'not-a-number': case 'not-finite': return 'Each value must be a finite decimal number.'
+    case 'missing-node': case 'missing-stress': return 'Every element node needs a row in nodes.csv and in stress.csv.'
+    default: return undefined
+  }
+}
+
+function boundsOf(x: Float64Array): { min: [number, number, number]; max: [number, number, number] } {
+  const min: [number, number, number] = [Infinity, Infinity, Infinity]
+  const max: [number, number, number] = [-Infinity, -Infinity, -Infinity]
+  for (let i = 0; i < x.length; i += 3) {
+    for (let k = 0; k < 3; k++) {
+      const v = x[i + k]
+      if (v < min[k]) min[k] = v
+      if (v > max[k]) max[k] = v
+    }
+  }
+  if (!(min[0] <= max[0])) return { min: [0, 0, 0], max: [1, 1, 1] } // no nodes: a unit box keeps the camera finite
+  return { min, max }
+}
+
+function typeCounts(mesh: Mesh): Record<string, number> {
+  const out: Record<string, number> = {}
+  for (const b of mesh.blocks) out[b.type] = (out[b.type] ?? 0) + b.ids.length
+  return out
+}
+
+function arrowTransfer(a: ArrowSamples): ArrayBuffer[] {
+  return [a.origins.buffer, a.vectors.buffer, a.normals.buffer, a.magnitudes.buffer, a.weights.buffer, a.item.buffer] as ArrayBuffer[]
+}
+
+function sourceLabel(source: ModelSource): string {
+  if (source.kind === 'synthetic') return `synthetic:block:${source.spec.elements}`
+  return source.label ?? 'files:' + source.files.map((f) => f.name).join(',')
+}
+
+const api: EngineApi = {
+  async load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>> {
+    const report = throttle(onProgress)
+    try {
+      report(source.kind === 'files' ? 'Reading files' : 'Generating model', 0)
+      await yieldTurn()
+      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data }))) : syntheticModel(source.spec)
+      const mesh = model.mesh
+      report('Boundary faces', 0.3); await yieldTurn()
+      const faces = extractBoundaryFaces(mesh)
+      report('Surface tractions', 0.45); await yieldTurn()
+      const tractions = computeSurfaceTractions(mesh, model.stress, faces)
+      report('Principal stresses', 0.55); await yieldTurn()
+      const invariants = computeNodalInvariants(model.stress)
+      report('Element balance', 0.65); await yieldTurn()
+      const balance = computeElementBalance(mesh, model.stress, model.bodyForce)
+      report('Body balance', 0.8); await yieldTurn()
+      const body = computeBodyBalance(mesh, faces, tractions, model.bodyForce)
+      report('Load patches', 0.85); await yieldTurn()
+      const patches = findLoadPatches(mesh, model.stress, faces, tractions)
+      const pct = percentiles(balance.indicator, [50, 95, 100])
+      report('Surface buffers', 0.95); await yieldTurn()
+      const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
+      const surface: SurfaceBuffers = {
+        positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
+        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace,
+      }
+      const summary: ModelSummary = {
+        name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
+        nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
+        elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
+        warnings: [...model.warnings], source: sourceLabel(source),
+      }
+      // Only now, with everything computed, does the new model replace the old one.
+      current = { model, faces, tractions, polygons: null }
+      report('Done', 1)
+      const value: LoadedModel = {
+        summary,
+        surface,
+        audit: {
+          body,
+          indicator: { p50: pct[0], p95: pct[1], max: pct[2] },
+          patches: patches.patches,
+          threshold: patches.threshold,
+          referenceStress: patches.referenceStress,
+          freeSurface: patches.freeSurface,
+        },
+      }
+      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, ...Object.values(tri.scalars)].map((a) => a.buffer as ArrayBuffer)
+      return Comlink.transfer({ ok: true, value }, buffers)
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
+  },
+
+  async surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null> {
+    if (!current) return null
+    const a = sampleSurfaceArrows(current.faces, current.tractions, { mode: req.mode, budget: req.budget })
+    return Comlink.transfer(a, arrowTransfer(a))
+  },
+
+  async cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>> {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    const { model, faces, tractions } = current
+    try {
+      const { result, polygons } = cutSection(model.mesh, model.stress, model.bodyForce, plane, { faces, tractions, polygons: true })
+      current.polygons = polygons
+      if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null } }
+      const tri = buildSectionTriangles(polygons, result.plane.normal)
+      const a = sampleSectionArrows(polygons, result.plane.normal, { mode: arrows.mode, budget: arrows.budget })
+      const buffers: SectionBuffers = {
+        positions: tri.positions, index: tri.index, normalTraction: tri.normalTraction,
+        shearTraction: tri.shearTraction, ranges: tri.ranges, arrows: a,
+      }
+      const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction].map((x) => x.buffer as ArrayBuffer)
+      return Comlink.transfer({ ok: true, value: { result, buffers } }, [...list, ...arrowTransfer(a)])
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
+  },
+
+  async probe(req: ProbeRequest) {
+    if (!current) return null
+    return probeModel(current.model.mesh, current.model.stress, current.faces, req.section ? current.polygons : null, req)
+  },
+
+  async crash(): Promise<void> {
+    throw new Error('deliberate failure inside the engine (test hook)')
+  },
+
+  dispose() {
+    current = null
+    self.close()
+  },
+}
+
+Comlink.expose(api)

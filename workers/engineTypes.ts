@@ -1,0 +1,70 @@
+/**
+ * Messages between the app and the engine worker. Everything here crosses the worker boundary by
+ * structured clone; typed arrays inside replies are moved with transfer (never copied as JSON).
+ * Units: model units throughout (see src/app/store.ts).
+ */
+import type { Vec3 } from '../src/model/model.ts'
+import type { SectionPlane, SectionResult } from '../src/mechanics/types.ts'
+import type {
+  AppError, ArrowBuffers, ArrowMode, AuditSummary, ModelSummary, ProbeRay, ProbeResult, Progress,
+  SectionBuffers, SurfaceBuffers,
+} from '../src/app/store.ts'
+
+/** One file of a model: name plus bytes (binary container) or text (CSV, JSON). */
+export interface EngineFile {
+  readonly name: string
+  readonly data: ArrayBuffer | string
+}
+
+/**
+ * A generated model: `block` is a tet4 box carrying the end-loaded cantilever stress field of
+ * Timoshenko & Goodier §21 (smooth, in equilibrium), with at least `elements` elements.
+ */
+export interface SyntheticSpec {
+  readonly kind: 'block'
+  readonly elements: number
+}
+
+export type ModelSource =
+  | { readonly kind: 'files'; readonly files: readonly EngineFile[]; readonly label?: string }
+  | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
+
+export interface LoadedModel {
+  readonly summary: ModelSummary
+  readonly surface: SurfaceBuffers
+  readonly audit: AuditSummary
+}
+
+/** Either a value or a user-facing error; input problems come back as values, not exceptions. */
+export type Outcome<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: AppError }
+
+export interface ArrowRequest {
+  readonly mode: ArrowMode
+  /** Largest arrow count (count). */
+  readonly budget: number
+}
+
+export interface CutReply {
+  readonly result: SectionResult
+  readonly buffers: SectionBuffers | null
+}
+
+export interface ProbeRequest {
+  readonly ray: ProbeRay
+  /** The section in use (or null); the hidden side cannot be picked. */
+  readonly section: { readonly plane: SectionPlane; readonly hide: 'positive' | 'negative' | 'none' } | null
+}
+
+export type ProgressCallback = (p: Progress) => void
+
+export interface EngineApi {
+  load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>>
+  surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
+  cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>>
+  probe(req: ProbeRequest): Promise<ProbeResult | null>
+  /** Test hook: throws an unexpected (non-input) error inside the worker. */
+  crash(): Promise<void>
+  dispose(): void
+}
+
+export type { Vec3 }

@@ -1,0 +1,201 @@
+/**
+ * The probe: a pick ray from the scene is intersected here, in the worker, with the boundary faces
+ * (flat triangles through the face corners, which is close enough to choose the face) and with the
+ * section polygons; the stress at the hit is interpolated with the element's own shape functions
+ * after inverting the isoparametric map by Newton's method.
+ */
+import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
+import type { ElementTypeName } from '../src/model/elementTypes.ts'
+import type { Mesh, Vec3 } from '../src/model/model.ts'
+import { shapeDerivatives, shapeValues } from '../src/mechanics/shapeFunctions.ts'
+import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
+import { elementIdOf } from '../src/mechanics/boundaryFaces.ts'
+import { FACE_SLOTS } from '../src/mechanics/types.ts'
+import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
+import type { ProbeResult } from '../src/app/store.ts'
+import type { ProbeRequest } from './engineTypes.ts'
+
+const CORNERS_OF_KIND = [3, 3, 4, 4]
+
+interface Hit { t: number; elem: number; normal: Vec3; where: 'surface' | 'section' }
+
+/** Ray–triangle (Möller–Trumbore), returns t or Infinity; both sides count. */
+function rayTriangle(o: Vec3, d: Vec3, x: Float64Array, a: number, b: number, c: number): number {
+  const ax = x[3 * a], ay = x[3 * a + 1], az = x[3 * a + 2]
+  const e1x = x[3 * b] - ax, e1y = x[3 * b + 1] - ay, e1z = x[3 * b + 2] - az
+  const e2x = x[3 * c] - ax, e2y = x[3 * c + 1] - ay, e2z = x[3 * c + 2] - az
+  const px = d[1] * e2z - d[2] * e2y, py = d[2] * e2x - d[0] * e2z, pz = d[0] * e2y - d[1] * e2x
+  const det = e1x * px + e1y * py + e1z * pz
+  if (Math.abs(det) < 1e-300) return Infinity // ray parallel to the triangle
+  const inv = 1 / det
+  const sx = o[0] - ax, sy = o[1] - ay, sz = o[2] - az
+  const u = (sx * px + sy * py + sz * pz) * inv
+  if (u < 0 || u > 1) return Infinity
+  const qx = sy * e1z - sz * e1y, qy = sz * e1x - sx * e1z, qz = sx * e1y - sy * e1x
+  const v = (d[0] * qx + d[1] * qy + d[2] * qz) * inv
+  if (v < 0 || u + v > 1) return Infinity
+  const t = (e2x * qx + e2y * qy + e2z * qz) * inv
+  return t > 0 ? t : Infinity
+}
+
+function signedSide(p: Vec3, plane: SectionPlane): number {
+  const m = plane.normal, q = plane.point
+  return (p[0] - q[0]) * m[0] + (p[1] - q[1]) * m[1] + (p[2] - q[2]) * m[2]
+}
+
+function hidden(p: Vec3, req: ProbeRequest): boolean {
+  const s = req.section
+  if (!s || s.hide === 'none') return false
+  const side = signedSide(p, s.plane)
+  return s.hide === 'positive' ? side > 0 : side < 0
+}
+
+/** Point-in-polygon for a planar polygon, by projecting onto the plane's dominant axes. */
+function insidePolygon(p: Vec3, pos: Float64Array, from: number, to: number, m: Vec3): boolean {
+  const ax = Math.abs(m[0]), ay = Math.abs(m[1]), az = Math.abs(m[2])
+  const i = ax >= ay && ax >= az ? 1 : 0
+  const j = ax >= ay && ax >= az ? 2 : ay >= az ? 2 : 1
+  let inside = false
+  for (let a = from, b = to - 1; a < to; b = a++) {
+    const ya = pos[3 * a + j], yb = pos[3 * b + j]
+    if ((ya > p[j]) !== (yb > p[j])) {
+      const xc = pos[3 * a + i] + ((p[j] - ya) / (yb - ya)) * (pos[3 * b + i] - pos[3 * a + i])
+      if (p[i] < xc) inside = !inside
+    }
+  }
+  return inside
+}
+
+function blockOf(mesh: Mesh, g: number): { type: ElementTypeName; conn: Int32Array; local: number } | null {
+  for (const b of mesh.blocks) {
+    const count = b.ids.length
+    if (g >= b.offset && g < b.offset + count) return { type: b.type, conn: b.conn, local: g - b.offset }
+  }
+  return null
+}
+
+const N = new Float64Array(20), dN = new Float64Array(60)
+
+/**
+ * Stress (6) at point p inside element g: Newton on x(ξ) = Σ Nₐ(ξ) xₐ from the element centre,
+ * then Σ Nₐ σₐ. If Newton does not settle (badly shaped element, point just outside), the last
+ * iterate is clamped into the reference domain, which still gives a value from that element.
+ */
+export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: Vec3, out: Float64Array): void {
+  const blk = blockOf(mesh, g)
+  out.fill(0)
+  if (!blk) return
+  const topo = ELEMENT_TYPES[blk.type]
+  const nn = topo.nodeCount
+  const base = blk.local * nn
+  const x = mesh.coords, conn = blk.conn
+  const tetLike = blk.type === 'tet4' || blk.type === 'tet10'
+  const wedge = blk.type === 'wedge6'
+  let xi = tetLike ? 0.25 : wedge ? 1 / 3 : 0, eta = xi, zeta = tetLike ? 0.25 : 0
+  for (let it = 0; it < 20; it++) {
+    shapeValues(blk.type, xi, eta, zeta, N)
+    shapeDerivatives(blk.type, xi, eta, zeta, dN)
+    let rx = -p[0], ry = -p[1], rz = -p[2]
+    let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
+    for (let a = 0; a < nn; a++) {
+      const n = conn[base + a]
+      const X = x[3 * n], Y = x[3 * n + 1], Z = x[3 * n + 2]
+      rx += N[a] * X; ry += N[a] * Y; rz += N[a] * Z
+      const d0 = dN[3 * a], d1 = dN[3 * a + 1], d2 = dN[3 * a + 2]
+      j00 += X * d0; j01 += X * d1; j02 += X * d2
+      j10 += Y * d0; j11 += Y * d1; j12 += Y * d2
+      j20 += Z * d0; j21 += Z * d1; j22 += Z * d2
+    }
+    const c00 = j11 * j22 - j12 * j21, c01 = j02 * j21 - j01 * j22, c02 = j01 * j12 - j02 * j11
+    const det = j00 * c00 + j10 * c01 + j20 * c02
+    if (!(Math.abs(det) > 0)) break // singular map: keep the current iterate
+    const c10 = j12 * j20 - j10 * j22, c11 = j00 * j22 - j02 * j20, c12 = j02 * j10 - j00 * j12
+    const c20 = j10 * j21 - j11 * j20, c21 = j01 * j20 - j00 * j21, c22 = j00 * j11 - j01 * j10
+    const dx = (c00 * rx + c01 * ry + c02 * rz) / det
+    const dy = (c10 * rx + c11 * ry + c12 * rz) / det
+    const dz = (c20 * rx + c21 * ry + c22 * rz) / det
+    xi -= dx; eta -= dy; zeta -= dz
+    if (Math.abs(dx) + Math.abs(dy) + Math.abs(dz) < 1e-12) break
+  }
+  // Keep the point in the reference domain (picking lands on the surface, round-off may leave it).
+  if (tetLike) {
+    xi = Math.max(0, xi); eta = Math.max(0, eta); zeta = Math.max(0, zeta)
+    const s = xi + eta + zeta
+    if (s > 1) { xi /= s; eta /= s; zeta /= s }
+  } else if (wedge) {
+    xi = Math.max(0, xi); eta = Math.max(0, eta)
+    const s = xi + eta
+    if (s > 1) { xi /= s; eta /= s }
+    zeta = Math.min(1, Math.max(-1, zeta))
+  } else {
+    xi = Math.min(1, Math.max(-1, xi)); eta = Math.min(1, Math.max(-1, eta)); zeta = Math.min(1, Math.max(-1, zeta))
+  }
+  shapeValues(blk.type, xi, eta, zeta, N)
+  for (let a = 0; a < nn; a++) {
+    const n = conn[base + a]
+    for (let k = 0; k < 6; k++) out[k] += N[a] * stress[6 * n + k]
+  }
+}
+
+/** Finds what the ray hits first (visible surface or section face) and reads the stress there. */
+export function probeModel(
+  mesh: Mesh, stress: Float64Array, faces: BoundaryFaces,
+  polygons: SectionPolygons | null, req: ProbeRequest,
+): ProbeResult | null {
+  const o = req.ray.origin
+  const dl = Math.hypot(...req.ray.direction)
+  if (!(dl > 0) || !o.every(Number.isFinite)) return null
+  const d: Vec3 = [req.ray.direction[0] / dl, req.ray.direction[1] / dl, req.ray.direction[2] / dl]
+  const x = mesh.coords
+  let best: Hit | null = null
+  const at = (t: number): Vec3 => [o[0] + t * d[0], o[1] + t * d[1], o[2] + t * d[2]]
+  for (let f = 0; f < faces.count; f++) {
+    const s = f * FACE_SLOTS, nodes = faces.nodes
+    const nc = CORNERS_OF_KIND[faces.kind[f]]
+    let t = rayTriangle(o, d, x, nodes[s], nodes[s + 1], nodes[s + 2])
+    if (nc === 4) t = Math.min(t, rayTriangle(o, d, x, nodes[s], nodes[s + 2], nodes[s + 3]))
+    if (t < (best?.t ?? Infinity) && !hidden(at(t), req)) {
+      best = { t, elem: faces.elem[f], normal: [faces.normal[3 * f], faces.normal[3 * f + 1], faces.normal[3 * f + 2]], where: 'surface' }
+    }
+  }
+  if (req.section && polygons && polygons.count > 0) {
+    const m = req.section.plane.normal
+    const denom = d[0] * m[0] + d[1] * m[1] + d[2] * m[2]
+    if (Math.abs(denom) > 1e-12) {
+      const t = -signedSide(o, req.section.plane) / denom
+      if (t > 0 && t < (best?.t ?? Infinity)) {
+        const p = at(t)
+        for (let q = 0; q < polygons.count; q++) {
+          if (insidePolygon(p, polygons.positions, polygons.start[q], polygons.start[q + 1], m)) {
+            best = { t, elem: polygons.elem[q], normal: [m[0], m[1], m[2]], where: 'section' }
+            break
+          }
+        }
+      }
+    }
+  }
+  if (!best) return null
+  const p = at(best.t)
+  const s = new Float64Array(6)
+  stressInElement(mesh, stress, best.elem, p, s)
+  const pr = new Float64Array(3)
+  principalStresses(s, pr)
+  const n = best.normal
+  const tx = s[0] * n[0] + s[3] * n[1] + s[5] * n[2]
+  const ty = s[3] * n[0] + s[1] * n[1] + s[4] * n[2]
+  const tz = s[5] * n[0] + s[4] * n[1] + s[2] * n[2]
+  const tn = tx * n[0] + ty * n[1] + tz * n[2]
+  const shear = Math.hypot(tx - tn * n[0], ty - tn * n[1], tz - tn * n[2])
+  return {
+    where: best.where,
+    position: p,
+    elementId: elementIdOf(mesh, best.elem),
+    stress: [s[0], s[1], s[2], s[3], s[4], s[5]],
+    principal: [pr[0], pr[1], pr[2]],
+    vonMises: vonMises(s),
+    normal: n,
+    traction: [tx, ty, tz],
+    normalTraction: tn,
+    shearTraction: shear,
+  }
+}
