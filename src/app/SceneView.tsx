@@ -1,4 +1,0 @@
-/** The 3D view area; the scene components (src/scene) draw into it. */
-export function SceneView() {
-  return <div className="scene" data-testid="scene" />
-}

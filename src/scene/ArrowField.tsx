@@ -1,0 +1,51 @@
+import { useEffect, useMemo } from 'react'
+import { InstancedBufferAttribute, InstancedMesh } from 'three'
+import type { Plane } from 'three'
+import { useThree } from '@react-three/fiber'
+import type { ArrowBuffers, ColourMapName } from '../app/store.ts'
+import { unitArrowGeometry } from './arrowGeometry.ts'
+import { createArrowMaterial } from './arrowMaterial.ts'
+import { writeArrowInstances } from './arrowInstances.ts'
+import { ARROW_LENGTH_FRACTION } from './sceneLook.ts'
+
+export interface ArrowFieldProps {
+  readonly arrows: ArrowBuffers
+  /** Dimensionless length factor from the user. */
+  readonly scale: number
+  /** Model bounding-box diagonal, length units. */
+  readonly diagonal: number
+  readonly colourMap: ColourMapName
+  readonly colour: 'magnitude' | 'single'
+  readonly clippingPlanes: Plane[]
+}
+
+const noRaycast = (): void => {}
+
+/** Traction arrows as one instanced mesh: one draw call whatever the count. */
+export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippingPlanes }: ArrowFieldProps) {
+  const invalidate = useThree((s) => s.invalidate)
+  const count = arrows.magnitudes.length
+  const material = useMemo(() => createArrowMaterial(clippingPlanes), [clippingPlanes])
+  useEffect(() => () => material.dispose(), [material])
+
+  const mesh = useMemo(() => {
+    const m = new InstancedMesh(unitArrowGeometry(), material, Math.max(1, count))
+    m.count = count
+    m.instanceColor = new InstancedBufferAttribute(new Float32Array(3 * Math.max(1, count)), 3)
+    m.frustumCulled = false
+    m.raycast = noRaycast
+    return m
+  }, [material, count])
+  // The geometry is shared; only the instance buffers belong to this mesh.
+  useEffect(() => () => { mesh.dispose() }, [mesh])
+
+  useEffect(() => {
+    const unit = ARROW_LENGTH_FRACTION * scale * diagonal
+    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, colour === 'magnitude')
+    material.uniforms.useSingle.value = colour === 'single' ? 1 : 0
+    invalidate()
+  }, [mesh, material, arrows, scale, diagonal, colourMap, colour, invalidate])
+
+  if (count === 0) return null
+  return <primitive object={mesh} />
+}

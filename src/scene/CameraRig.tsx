@@ -1,0 +1,85 @@
+import { useCallback, useEffect, useRef } from 'react'
+import { Vector3 } from 'three'
+import type { PerspectiveCamera } from 'three'
+import { useThree } from '@react-three/fiber'
+import { OrbitControls } from '@react-three/drei'
+import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib'
+import { useStore } from '../app/store.ts'
+import type { ModelSummary, ViewRequest } from '../app/store.ts'
+import { frameSphere, setClipPlanes } from './frameSphere.ts'
+
+function modelSphere(m: ModelSummary): { center: Vector3; radius: number } {
+  const { min, max } = m.bounds
+  return {
+    center: new Vector3((min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2),
+    radius: 0.5 * Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]),
+  }
+}
+
+/**
+ * Orbit controls plus the camera's answers to the store: fit the model when one loads, apply a
+ * view request (an exact camera, or a sphere to frame such as a load patch), and report the
+ * camera when a move ends. A camera request that arrives before its model is kept until the
+ * model is there, so a restored view is not replaced by the automatic fit.
+ */
+export function CameraRig() {
+  const camera = useThree((s) => s.camera) as PerspectiveCamera
+  const controls = useThree((s) => s.controls) as unknown as OrbitControlsImpl | null
+  const invalidate = useThree((s) => s.invalidate)
+  const model = useStore((s) => s.model)
+  const viewRequest = useStore((s) => s.viewRequest)
+  const lastSeq = useRef(-1)
+  const pending = useRef<ViewRequest | null>(null)
+
+  const report = useCallback(() => {
+    if (!controls) return
+    const p = camera.position, t = controls.target, u = camera.up
+    useStore.getState().set({ camera: { position: [p.x, p.y, p.z], target: [t.x, t.y, t.z], up: [u.x, u.y, u.z], fov: camera.fov } })
+  }, [camera, controls])
+
+  const apply = useCallback((req: ViewRequest, m: ModelSummary | null) => {
+    if (!controls) return
+    const radius = m ? modelSphere(m).radius : 1
+    if (req.camera) {
+      const c = req.camera
+      camera.up.set(c.up[0], c.up[1], c.up[2])
+      camera.position.set(c.position[0], c.position[1], c.position[2])
+      if (c.fov > 0 && c.fov < 180) camera.fov = c.fov
+      controls.target.set(c.target[0], c.target[1], c.target[2])
+      setClipPlanes(camera, radius)
+    } else if (req.frame) {
+      const center = new Vector3(req.frame.center[0], req.frame.center[1], req.frame.center[2])
+      frameSphere(camera, controls.target, center, req.frame.radius)
+      controls.target.copy(center)
+      // Keep the far plane set for the whole model, so framing a small patch does not cut it off.
+      setClipPlanes(camera, Math.max(radius, req.frame.radius))
+    }
+    controls.update()
+    invalidate()
+    report()
+  }, [camera, controls, invalidate, report])
+
+  useEffect(() => {
+    if (!viewRequest || !controls || viewRequest.seq === lastSeq.current) return
+    lastSeq.current = viewRequest.seq
+    if (!model && viewRequest.camera) { pending.current = viewRequest; return }
+    apply(viewRequest, model)
+  }, [viewRequest, controls, model, apply])
+
+  useEffect(() => {
+    if (!model || !controls) return
+    if (pending.current) {
+      apply(pending.current, model)
+      pending.current = null
+      return
+    }
+    const { center, radius } = modelSphere(model)
+    frameSphere(camera, controls.target, center, radius, false)
+    controls.target.copy(center)
+    controls.update()
+    invalidate()
+    report()
+  }, [model, controls, camera, apply, invalidate, report])
+
+  return <OrbitControls makeDefault enableDamping={false} onEnd={report} />
+}

@@ -1,0 +1,88 @@
+import { useMemo } from 'react'
+import { activeRange, sectionPlaneOf, useStore } from '../app/store.ts'
+import { ArrowField } from './ArrowField.tsx'
+import { CameraRig } from './CameraRig.tsx'
+import { ProbePicker } from './ProbePicker.tsx'
+import { SceneCanvas } from './SceneCanvas.tsx'
+import { SectionFill } from './SectionFill.tsx'
+import { SectionHandle } from './SectionHandle.tsx'
+import { SnapshotRegistrar } from './SnapshotRegistrar.tsx'
+import { SurfaceMesh } from './SurfaceMesh.tsx'
+import { sectionColouring } from './sectionColouring.ts'
+import { useClippingPlanes } from './useClippingPlanes.ts'
+
+/** Model sphere from the summary bounds: centre and radius, length units. */
+function useModelSphere(): { center: [number, number, number]; radius: number; diagonal: number } | null {
+  const model = useStore((s) => s.model)
+  return useMemo(() => {
+    if (!model) return null
+    const { min, max } = model.bounds
+    const diagonal = Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) || 1
+    return { center: [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2], radius: diagonal / 2, diagonal }
+  }, [model])
+}
+
+/** Everything inside the canvas; reads the store, holds no state of its own. */
+function SceneContents() {
+  const model = useStore((s) => s.model)
+  const surface = useStore((s) => s.surface)
+  const quantity = useStore((s) => s.quantity)
+  // Select numbers, not fresh arrays: a selector returning a new array each call never settles.
+  const rangeLo = useStore((s) => activeRange(s)[0])
+  const rangeHi = useStore((s) => activeRange(s)[1])
+  const range = useMemo(() => [rangeLo, rangeHi] as const, [rangeLo, rangeHi])
+  const colourMap = useStore((s) => s.colourMap)
+  const highlightedPatch = useStore((s) => s.highlightedPatch)
+  const arrows = useStore((s) => s.arrows)
+  const arrowSettings = useStore((s) => s.arrowSettings)
+  const section = useStore((s) => s.section)
+  const sectionBuffers = useStore((s) => s.sectionBuffers)
+  const sectionMap = useStore((s) => sectionColouring(s).map)
+  const sectionLo = useStore((s) => sectionColouring(s).range[0])
+  const sectionHi = useStore((s) => sectionColouring(s).range[1])
+  const sectionRange = useMemo(() => [sectionLo, sectionHi] as const, [sectionLo, sectionHi])
+  const sphere = useModelSphere()
+  const clippingPlanes = useClippingPlanes()
+  const normal = useMemo(() => sectionPlaneOf(section).normal, [section])
+
+  return (
+    <>
+      <CameraRig />
+      <ProbePicker />
+      <SnapshotRegistrar />
+      {surface && model && (
+        <SurfaceMesh
+          surface={surface} quantity={quantity} range={range} colourMap={colourMap}
+          highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds}
+        />
+      )}
+      {arrows && sphere && arrowSettings.surface && (
+        <ArrowField
+          arrows={arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
+          colourMap={colourMap} colour={arrowSettings.colour} clippingPlanes={clippingPlanes}
+        />
+      )}
+      {section.enabled && sectionBuffers && (
+        <SectionFill buffers={sectionBuffers} traction={section.traction} range={sectionRange} colourMap={sectionMap} normal={normal} />
+      )}
+      {section.enabled && sectionBuffers && sphere && arrowSettings.section && (
+        <ArrowField
+          arrows={sectionBuffers.arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
+          colourMap={sectionMap} colour={arrowSettings.colour} clippingPlanes={NO_PLANES}
+        />
+      )}
+      {section.enabled && sphere && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} />}
+    </>
+  )
+}
+
+const NO_PLANES: never[] = []
+
+/** The 3D view of Tractus: fills its positioned parent. */
+export function SceneView() {
+  return (
+    <SceneCanvas>
+      <SceneContents />
+    </SceneCanvas>
+  )
+}

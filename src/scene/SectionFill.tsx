@@ -1,0 +1,54 @@
+import { useEffect, useMemo } from 'react'
+import { BufferAttribute, BufferGeometry } from 'three'
+import { useThree } from '@react-three/fiber'
+import type { ColourMapName, SectionBuffers } from '../app/store.ts'
+import { colourMapTexture } from './colourMapTexture.ts'
+import { createScalarMaterial } from './scalarMaterial.ts'
+
+export interface SectionFillProps {
+  readonly buffers: SectionBuffers
+  readonly traction: 'normalTraction' | 'shearTraction'
+  readonly range: readonly [number, number]
+  readonly colourMap: ColourMapName
+  /** Unit section normal m (world = model coordinates). */
+  readonly normal: readonly [number, number, number]
+}
+
+const noRaycast = (): void => {}
+
+/** The cut face, colour-mapped by the section's normal traction m·σm or shear magnitude. */
+export function SectionFill({ buffers, traction, range, colourMap, normal }: SectionFillProps) {
+  const invalidate = useThree((s) => s.invalidate)
+  const geometry = useMemo(() => {
+    const g = new BufferGeometry()
+    g.setAttribute('position', new BufferAttribute(buffers.positions, 3))
+    g.setIndex(new BufferAttribute(buffers.index, 1))
+    return g
+  }, [buffers])
+  useEffect(() => () => geometry.dispose(), [geometry])
+
+  // The section face is never clipped: it is what the cut shows.
+  const material = useMemo(() => {
+    const m = createScalarMaterial(colourMapTexture('viridis'), [])
+    m.uniforms.useLabel.value = 0
+    m.uniforms.backNeutral.value = 0
+    m.polygonOffset = false
+    return m
+  }, [])
+  useEffect(() => () => material.dispose(), [material])
+
+  useEffect(() => {
+    geometry.setAttribute('scalar', new BufferAttribute(traction === 'shearTraction' ? buffers.shearTraction : buffers.normalTraction, 1))
+    invalidate()
+  }, [geometry, buffers, traction, invalidate])
+
+  useEffect(() => {
+    const u = material.uniforms
+    u.map.value = colourMapTexture(colourMap)
+    u.range.value.set(range[0], range[1])
+    u.flatNormal.value.set(normal[0], normal[1], normal[2], 1)
+    invalidate()
+  }, [material, colourMap, range, normal, invalidate])
+
+  return <mesh geometry={geometry} material={material} raycast={noRaycast} frustumCulled={false} />
+}

@@ -1,0 +1,59 @@
+import { Matrix4, Quaternion, Vector3 } from 'three'
+import type { InstancedMesh } from 'three'
+import { colourMapTable } from '../app/colourMaps.ts'
+import type { ArrowBuffers, ColourMapName } from '../app/store.ts'
+
+const DIVERGING: ReadonlySet<ColourMapName> = new Set(['RdBu', 'PuOr'])
+
+const _m = new Matrix4()
+const _q = new Quaternion()
+const _p = new Vector3()
+const _s = new Vector3()
+const _d = new Vector3()
+const Y = new Vector3(0, 1, 0)
+
+/**
+ * Writes instance matrices (and colours) of `mesh` from the arrow buffers. `unitLength` is the
+ * drawn length of the largest arrow (model length units). An arrow pushing on the surface
+ * (v·n < 0, n the outward normal when the buffers carry `normals`) is drawn ending at its point,
+ * so it stays outside the body; a pulling one starts there. Bounded by the arrow budget, so
+ * running this on the main thread is fine.
+ */
+export function writeArrowInstances(
+  mesh: InstancedMesh, arrows: ArrowBuffers, unitLength: number, radius: number,
+  colourMap: ColourMapName, colourByMagnitude: boolean,
+): void {
+  const n = Math.min(mesh.count, arrows.magnitudes.length)
+  const { origins, vectors, magnitudes } = arrows
+  const normals = (arrows as { normals?: Float32Array }).normals
+  const max = arrows.maxMagnitude > 0 ? arrows.maxMagnitude : 1
+  const table = colourMapTable(colourMap, 256)
+  const diverging = DIVERGING.has(colourMap)
+  const colours = mesh.instanceColor ? mesh.instanceColor.array as Float32Array : null
+  for (let i = 0; i < n; i++) {
+    const m = magnitudes[i]
+    const L = m > 0 ? (unitLength * m) / max : 0
+    _d.set(vectors[3 * i], vectors[3 * i + 1], vectors[3 * i + 2])
+    if (m > 0) _d.multiplyScalar(1 / m)
+    else _d.set(0, 1, 0) // zero arrow: any direction, drawn with zero length
+    _q.setFromUnitVectors(Y, _d)
+    _p.set(origins[3 * i], origins[3 * i + 1], origins[3 * i + 2])
+    if (normals && _d.x * normals[3 * i] + _d.y * normals[3 * i + 1] + _d.z * normals[3 * i + 2] < 0) {
+      _p.addScaledVector(_d, -L)
+    }
+    const r = Math.min(radius, 0.1 * L)
+    _s.set(r, L, r)
+    mesh.setMatrixAt(i, _m.compose(_p, _q, _s))
+    if (colours) {
+      // Magnitudes run over the upper half of a diverging map (white at zero), over all of a
+      // sequential one.
+      let t = m / max
+      if (diverging) t = 0.5 + 0.5 * t
+      const k = 4 * Math.max(0, Math.min(255, Math.round(t * 255)))
+      const c = colourByMagnitude ? 1 / 255 : 0
+      colours[3 * i] = table[k] * c; colours[3 * i + 1] = table[k + 1] * c; colours[3 * i + 2] = table[k + 2] * c
+    }
+  }
+  mesh.instanceMatrix.needsUpdate = true
+  if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true
+}

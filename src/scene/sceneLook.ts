@@ -1,0 +1,20 @@
+/**
+ * The scene's few colours and proportions in one place, so the canvas, the snapshot and the
+ * handle agree. Colours are sRGB hex; every scene material writes them to the screen unchanged
+ * (the renderer does no colour-space conversion, see SceneCanvas), so what is written here is
+ * what is seen and what a snapshot reads back.
+ */
+export const BACKGROUND = '#e6e6e3'
+/** Surface where a value is missing (NaN), and the back of the surface seen through a cut. */
+export const NEUTRAL_SURFACE = '#b9b9b4'
+/** Tint of a highlighted load patch, mixed into the colour-mapped surface. */
+export const HIGHLIGHT = '#ff8c1a'
+/** Section handle: plane outline and drag arrow. */
+export const HANDLE = '#2f4f6f'
+export const HANDLE_ACTIVE = '#d06a12'
+/** Arrows when coloured with one colour. */
+export const ARROW_SINGLE = '#26282b'
+/** Thin feature edges. */
+export const EDGE = '#3d3f42'
+/** Drawn arrow length at scale 1 for the largest magnitude, as a fraction of the model diagonal. */
+export const ARROW_LENGTH_FRACTION = 0.08
