@@ -83,14 +83,22 @@ export function cutSection(
     const conn = block.conn
     const count = conn.length / nn
     for (let e = 0, base = 0; e < count; e++, base += nn) {
-      let neg = 0
-      for (let c = 0; c < cc; c++) {
-        const dc = d[conn[base + c]]
-        dist[c] = dc
-        if (dc < 0) neg++
+      if (cc === 4) {
+        // tetrahedra, the bulk of large models: reject before touching the scratch
+        const d0 = d[conn[base]], d1 = d[conn[base + 1]], d2 = d[conn[base + 2]], d3 = d[conn[base + 3]]
+        const neg = (d0 < 0 ? 1 : 0) + (d1 < 0 ? 1 : 0) + (d2 < 0 ? 1 : 0) + (d3 < 0 ? 1 : 0)
+        if (neg === 0 || neg === 4) continue // all corners on one side
+        dist[0] = d0; dist[1] = d1; dist[2] = d2; dist[3] = d3
+      } else {
+        let neg = 0
+        for (let c = 0; c < cc; c++) {
+          const dc = d[conn[base + c]]
+          dist[c] = dc
+          if (dc < 0) neg++
+        }
+        if (neg === 0 || neg === cc) continue // all corners on one side
       }
-      if (neg === 0 || neg === cc) continue // all corners on one side
-      if (elementPolygon(sc, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
+      if (elementPolygon(sc, acc, 0, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
       integratePolygon(acc, 0, sc, frame)
       if (collect) collect.add(sc, m, block.offset + e)
     }
@@ -147,28 +155,38 @@ function freeBodyFaces(
   }
 }
 
-/** Collects drawn polygons; allocation is fine here, drawing is not the hot path. */
+/** Collects drawn polygons into typed arrays that double when full (drawing is not the hot path). */
 function createPolygonCollector() {
-  const start: number[] = [0], positions: number[] = [], traction: number[] = [], elem: number[] = []
+  let start = new Int32Array(1024), elem = new Int32Array(1024)
+  let positions = new Float64Array(4096), traction = new Float64Array(4096)
+  let count = 0, verts = 0
+  const grow = <T extends Int32Array | Float64Array>(a: T, need: number): T => {
+    if (need <= a.length) return a
+    const b = new (a.constructor as new (n: number) => T)(Math.max(need, 2 * a.length))
+    b.set(a)
+    return b
+  }
   return {
     add(sc: PolygonScratch, m: Vec3, e: number): void {
-      for (let i = 0; i < sc.count; i++) {
-        const k = sc.order[i]
-        positions.push(sc.pos[3 * k], sc.pos[3 * k + 1], sc.pos[3 * k + 2])
-        const s = 6 * k, sig = sc.sig
-        traction.push(
-          sig[s] * m[0] + sig[s + 3] * m[1] + sig[s + 5] * m[2],
-          sig[s + 3] * m[0] + sig[s + 1] * m[1] + sig[s + 4] * m[2],
-          sig[s + 5] * m[0] + sig[s + 4] * m[1] + sig[s + 2] * m[2],
-        )
+      const n = sc.count
+      start = grow(start, count + 2); elem = grow(elem, count + 1)
+      positions = grow(positions, 3 * (verts + n)); traction = grow(traction, 3 * (verts + n))
+      const sig = sc.sig, pos = sc.pos
+      for (let i = 0; i < n; i++) {
+        const k = sc.order[i], s = 6 * k, o = 3 * (verts + i)
+        positions[o] = pos[3 * k]; positions[o + 1] = pos[3 * k + 1]; positions[o + 2] = pos[3 * k + 2]
+        traction[o] = sig[s] * m[0] + sig[s + 3] * m[1] + sig[s + 5] * m[2]
+        traction[o + 1] = sig[s + 3] * m[0] + sig[s + 1] * m[1] + sig[s + 4] * m[2]
+        traction[o + 2] = sig[s + 5] * m[0] + sig[s + 4] * m[1] + sig[s + 2] * m[2]
       }
-      start.push(positions.length / 3)
-      elem.push(e)
+      verts += n
+      elem[count++] = e
+      start[count] = verts
     },
     finish(): SectionPolygons {
       return {
-        count: elem.length, start: Int32Array.from(start), positions: Float64Array.from(positions),
-        traction: Float64Array.from(traction), elem: Int32Array.from(elem),
+        count, start: start.slice(0, count + 1), positions: positions.slice(0, 3 * verts),
+        traction: traction.slice(0, 3 * verts), elem: elem.slice(0, count),
       }
     },
   }

@@ -57,9 +57,12 @@ export interface PolygonScratch {
   readonly angle: Float64Array
   /** Vertex order counter-clockwise about +m. */
   readonly order: Int32Array
-  // per ordered vertex: plane coordinates, position relative to o, traction σm, r × t
+  /** Plane coordinates about the section origin o, per vertex as found. */
   readonly a: Float64Array
   readonly b: Float64Array
+  // per ordered vertex: plane coordinates, position relative to o, traction σm, r × t
+  readonly oa: Float64Array
+  readonly ob: Float64Array
   readonly r: Float64Array
   readonly t: Float64Array
   readonly rt: Float64Array
@@ -72,7 +75,7 @@ export function createPolygonScratch(): PolygonScratch {
     dist: new Float64Array(8),
     pos: new Float64Array(3 * n), sig: new Float64Array(6 * n), key: new Int32Array(n),
     angle: new Float64Array(n), order: new Int32Array(n),
-    a: new Float64Array(n), b: new Float64Array(n), r: new Float64Array(3 * n),
+    a: new Float64Array(n), b: new Float64Array(n), oa: new Float64Array(n), ob: new Float64Array(n), r: new Float64Array(3 * n),
     t: new Float64Array(3 * n), rt: new Float64Array(3 * n),
   }
 }
@@ -121,10 +124,13 @@ function pseudoAngle(dx: number, dy: number): number {
  * Builds the polygon where the plane cuts one element. `sc.dist` must hold the element's corner
  * distances. `conn`/`base`: the element's nodes are conn[base .. base+nodeCount). Returns the
  * vertex count (< 3 means no area: the plane only touches a node or an edge) and leaves the
- * vertices in `sc`, ordered counter-clockwise about m in `sc.order`.
+ * vertices in `sc`, ordered counter-clockwise about m in `sc.order`, with their plane
+ * coordinates about the local origin o of the section accumulated in acc[off ..]; the first
+ * polygon of a section fixes o (a point on the section, so the integrals keep their relative
+ * accuracy far from the coordinate origin).
  */
 export function elementPolygon(
-  sc: PolygonScratch, coords: Float64Array, stress: Float64Array, conn: Int32Array, base: number,
+  sc: PolygonScratch, acc: Float64Array, off: number, coords: Float64Array, stress: Float64Array, conn: Int32Array, base: number,
   edges: Int32Array, quadratic: boolean, frame: Float64Array,
 ): number {
   const dist = sc.dist, pos = sc.pos, sig = sc.sig, key = sc.key
@@ -168,18 +174,30 @@ export function elementPolygon(
   }
   sc.count = n
   if (n < 3) return n
-  // order by angle in the plane about the vertices' mean, counter-clockwise seen from +m
-  const ux = frame[0], uy = frame[1], uz = frame[2], vx = frame[3], vy = frame[4], vz = frame[5]
-  let ma = 0, mb = 0
-  const a = sc.a, b = sc.b
-  for (let k = 0; k < n; k++) {
-    const rx = pos[3 * k] - pos[0], ry = pos[3 * k + 1] - pos[1], rz = pos[3 * k + 2] - pos[2]
-    a[k] = rx * ux + ry * uy + rz * uz
-    b[k] = rx * vx + ry * vy + rz * vz
-    ma += a[k]; mb += b[k]
+  // plane coordinates relative to the section's local origin o (fixed by its first polygon)
+  if (acc[off + ACC_ORIGIN_SET] === 0) {
+    acc[off + ACC_ORIGIN] = pos[0]; acc[off + ACC_ORIGIN + 1] = pos[1]; acc[off + ACC_ORIGIN + 2] = pos[2]
+    acc[off + ACC_ORIGIN_SET] = 1
   }
+  const ox = acc[off + ACC_ORIGIN], oy = acc[off + ACC_ORIGIN + 1], oz = acc[off + ACC_ORIGIN + 2]
+  const ux = frame[0], uy = frame[1], uz = frame[2], vx = frame[3], vy = frame[4], vz = frame[5]
+  const a = sc.a, b = sc.b, order = sc.order
+  let ma = 0, mb = 0
+  for (let k = 0; k < n; k++) {
+    const rx = pos[3 * k] - ox, ry = pos[3 * k + 1] - oy, rz = pos[3 * k + 2] - oz
+    const ak = rx * ux + ry * uy + rz * uz, bk = rx * vx + ry * vy + rz * vz
+    a[k] = ak; b[k] = bk
+    ma += ak; mb += bk
+  }
+  if (n === 3) {
+    // a triangle needs no sorting, only the turn that makes its normal +m
+    const turn = (a[1] - a[0]) * (b[2] - b[0]) - (a[2] - a[0]) * (b[1] - b[0])
+    order[0] = 0; order[1] = turn >= 0 ? 1 : 2; order[2] = turn >= 0 ? 2 : 1
+    return n
+  }
+  // order by angle in the plane about the vertices' mean, counter-clockwise seen from +m
   ma /= n; mb /= n
-  const ang = sc.angle, order = sc.order
+  const ang = sc.angle
   for (let k = 0; k < n; k++) {
     const ak = pseudoAngle(a[k] - ma, b[k] - mb)
     // insertion sort: at most 12 vertices
@@ -190,29 +208,18 @@ export function elementPolygon(
   return n
 }
 
-/**
- * Adds the polygon left in `sc` by `elementPolygon` to the section accumulator acc[off ..].
- * The first polygon of a section fixes the local origin o (a point on the section, so the
- * integrals keep their relative accuracy far from the coordinate origin).
- */
+/** Adds the polygon left in `sc` by `elementPolygon` to the section accumulator acc[off ..]. */
 export function integratePolygon(acc: Float64Array, off: number, sc: PolygonScratch, frame: Float64Array): void {
   const n = sc.count
   if (n < 3) return
   const pos = sc.pos, sig = sc.sig, order = sc.order
-  if (acc[off + ACC_ORIGIN_SET] === 0) {
-    const k0 = 3 * order[0]
-    acc[off + ACC_ORIGIN] = pos[k0]; acc[off + ACC_ORIGIN + 1] = pos[k0 + 1]; acc[off + ACC_ORIGIN + 2] = pos[k0 + 2]
-    acc[off + ACC_ORIGIN_SET] = 1
-  }
   const ox = acc[off + ACC_ORIGIN], oy = acc[off + ACC_ORIGIN + 1], oz = acc[off + ACC_ORIGIN + 2]
-  const ux = frame[0], uy = frame[1], uz = frame[2], vx = frame[3], vy = frame[4], vz = frame[5]
   const mx = frame[6], my = frame[7], mz = frame[8]
-  const a = sc.a, b = sc.b, r = sc.r, t = sc.t, rt = sc.rt
+  const a = sc.a, b = sc.b, oa = sc.oa, ob = sc.ob, r = sc.r, t = sc.t, rt = sc.rt
   for (let i = 0; i < n; i++) {
     const k = order[i]
+    oa[i] = a[k]; ob[i] = b[k]
     const rx = pos[3 * k] - ox, ry = pos[3 * k + 1] - oy, rz = pos[3 * k + 2] - oz
-    a[i] = rx * ux + ry * uy + rz * uz
-    b[i] = rx * vx + ry * vy + rz * vz
     r[3 * i] = rx; r[3 * i + 1] = ry; r[3 * i + 2] = rz
     const s = 6 * k
     const sxx = sig[s], syy = sig[s + 1], szz = sig[s + 2], sxy = sig[s + 3], syz = sig[s + 4], sxz = sig[s + 5]
@@ -223,18 +230,19 @@ export function integratePolygon(acc: Float64Array, off: number, sc: PolygonScra
     rt[3 * i] = ry * tz - rz * ty; rt[3 * i + 1] = rz * tx - rx * tz; rt[3 * i + 2] = rx * ty - ry * tx
   }
   let A = 0, Sa = 0, Sb = 0, Saa = 0, Sbb = 0, Sab = 0, Fx = 0, Fy = 0, Fz = 0, Mx = 0, My = 0, Mz = 0
-  const a0 = a[0], b0 = b[0]
+  const a0 = oa[0], b0 = ob[0]
   for (let i = 1; i < n - 1; i++) {
     const j = i + 1
-    const At = 0.5 * ((a[i] - a0) * (b[j] - b0) - (a[j] - a0) * (b[i] - b0))
+    const ai = oa[i], bi = ob[i], aj = oa[j], bj = ob[j]
+    const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
     // degree-2 rule for products of linear functions on a triangle:
     // ∫ f g dA = A/12 (Σf Σg + Σ f_i g_i), ∫ f dA = A/3 Σf
-    const sa = a0 + a[i] + a[j], sb = b0 + b[i] + b[j]
+    const sa = a0 + ai + aj, sb = b0 + bi + bj
     A += At
     Sa += At * sa; Sb += At * sb
-    Saa += At * (sa * sa + a0 * a0 + a[i] * a[i] + a[j] * a[j])
-    Sbb += At * (sb * sb + b0 * b0 + b[i] * b[i] + b[j] * b[j])
-    Sab += At * (sa * sb + a0 * b0 + a[i] * b[i] + a[j] * b[j])
+    Saa += At * (sa * sa + a0 * a0 + ai * ai + aj * aj)
+    Sbb += At * (sb * sb + b0 * b0 + bi * bi + bj * bj)
+    Sab += At * (sa * sb + a0 * b0 + ai * bi + aj * bj)
     const stx = t[0] + t[3 * i] + t[3 * j], sty = t[1] + t[3 * i + 1] + t[3 * j + 1], stz = t[2] + t[3 * i + 2] + t[3 * j + 2]
     const srx = r[0] + r[3 * i] + r[3 * j], sry = r[1] + r[3 * i + 1] + r[3 * j + 1], srz = r[2] + r[3 * i + 2] + r[3 * j + 2]
     Fx += At * stx; Fy += At * sty; Fz += At * stz

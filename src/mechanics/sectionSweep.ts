@@ -83,7 +83,7 @@ export function sweepSections(
         const o = os[k]
         if (!(lo - o < 0 && hi - o >= 0)) continue
         for (let c = 0; c < cc; c++) dist[c] = D[conn[base + c]] - o
-        if (elementPolygon(sc, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
+        if (elementPolygon(sc, acc, k * ACC_SIZE, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
         integratePolygon(acc, k * ACC_SIZE, sc, frame)
       }
     }
