@@ -5,6 +5,7 @@
  * converted. bodyForce is ρ·b in model units (stress / length).
  */
 import { InputError } from '../model/errors.ts'
+import { jsonErrorOffset } from './jsonErrorPosition.ts'
 import type { Vec3 } from '../model/model.ts'
 import { DEFAULT_UNITS, LENGTH_TO_M, STRESS_TO_PA, isLengthUnit, isStressUnit } from '../model/units.ts'
 import type { ModelUnits } from '../model/units.ts'
@@ -27,9 +28,8 @@ export function parseJsonText(file: string, text: string): unknown {
     return JSON.parse(body)
   } catch (e) {
     const msg = e instanceof Error ? e.message : String(e)
-    const m = /position (\d+)/.exec(msg)
-    if (m) {
-      const pos = Number(m[1])
+    const pos = jsonErrorOffset(body)
+    if (pos >= 0) {
       const before = body.slice(0, pos)
       const line = before.split('\n').length
       const col = pos - before.lastIndexOf('\n')

@@ -9,15 +9,15 @@ import { InputError } from '../model/errors.ts'
 export const MAX_MODEL_BYTES = 512 * 1024 * 1024
 
 function formatBytes(n: number): string {
-  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(1)} MiB`
-  if (n >= 1024) return `${(n / 1024).toFixed(1)} KiB`
+  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(1)} MiB (${n} bytes)`
+  if (n >= 1024) return `${(n / 1024).toFixed(1)} KiB (${n} bytes)`
   return `${n} bytes`
 }
 
 /** Throws 'too-large' when `size` (bytes, or characters for text) exceeds `limit`. */
 export function assertWithinLimit(file: string, size: number, limit: number = MAX_MODEL_BYTES): void {
   if (size > limit) {
-    throw new InputError('too-large', `the file is ${formatBytes(size)} (${size} bytes), more than the limit of ${formatBytes(limit)} (${limit} bytes)`, { file })
+    throw new InputError('too-large', `the file is ${formatBytes(size)}, more than the limit of ${formatBytes(limit)}`, { file })
   }
 }
 
