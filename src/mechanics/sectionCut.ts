@@ -3,7 +3,7 @@
  * exerts on the material on the -m side (DESIGN.md), the section's area properties, and the
  * free-body check of the - piece.
  *
- * One pass over the nodes computes d = (x - p)·m; one pass over the elements rejects those whose
+ * One pass over the nodes computes d = (x - p)·m (snapped to 0 within round-off, SNAP_EPS); one pass over the elements rejects those whose
  * corners all lie on one side (d == 0 is the + side, see sectionPolygon.ts) and integrates the
  * polygon of each cut element. Boundary faces and their tractions are needed only for the
  * free body; pass them in `options` when cutting repeatedly (dragging the plane), else they are
@@ -53,6 +53,15 @@ function checkPoint(p: readonly number[], field: string): void {
   }
 }
 
+/**
+ * Snap band, relative to the size of the numbers that make d: nodes within
+ * SNAP_EPS · Σ (|x_i| + |p_i|)|m_i| of the plane count as lying on it (d = 0). Without it, a node
+ * layer that lies in the plane only up to round-off (a rotated or scaled mesh) gets random signs,
+ * and a hexahedron face with alternating corner signs would give overlapping polygons on both
+ * sides. 64 ε (≈ 1.4e-14) is far above round-off and far below any real geometry.
+ */
+export const SNAP_EPS = 64 * Number.EPSILON
+
 /** Grows-only scratch for node distances: dragging the plane re-cuts the same mesh many times. */
 let distScratch = new Float64Array(0)
 
@@ -68,8 +77,13 @@ export function cutSection(
   if (distScratch.length < N) distScratch = new Float64Array(N)
   const d = distScratch
   const px = point[0], py = point[1], pz = point[2], mx = m[0], my = m[1], mz = m[2]
+  const amx = Math.abs(mx), amy = Math.abs(my), amz = Math.abs(mz)
+  const pAbs = Math.abs(px) * amx + Math.abs(py) * amy + Math.abs(pz) * amz
   for (let i = 0; i < N; i++) {
-    d[i] = (coords[3 * i] - px) * mx + (coords[3 * i + 1] - py) * my + (coords[3 * i + 2] - pz) * mz
+    const x = coords[3 * i], y = coords[3 * i + 1], z = coords[3 * i + 2]
+    const r = (x - px) * mx + (y - py) * my + (z - pz) * mz
+    const band = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz + pAbs)
+    d[i] = r < -band || r > band ? r : 0
   }
 
   const acc = new Float64Array(ACC_SIZE)

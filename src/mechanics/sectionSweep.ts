@@ -19,7 +19,7 @@ import { InputError } from '../model/errors.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
-import { momentAboutCentroid, unitNormal } from './sectionCut.ts'
+import { momentAboutCentroid, SNAP_EPS, unitNormal } from './sectionCut.ts'
 import {
   ACC_AREA, ACC_FORCE, ACC_SIZE, createPolygonScratch, edgeTable, elementPolygon, integratePolygon, sectionFrame,
 } from './sectionPolygon.ts'
@@ -58,8 +58,16 @@ export function sweepSections(
   const hs = Math.abs(h)
   const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
   const coords = mesh.coords, N = mesh.nodeCount
-  const D = new Float64Array(N)
-  for (let i = 0; i < N; i++) D[i] = coords[3 * i] * m[0] + coords[3 * i + 1] * m[1] + coords[3 * i + 2] * m[2]
+  // D = x·m and the snap band T of each node (see SNAP_EPS in sectionCut.ts): d = D - o is taken
+  // as 0 when |d| ≤ T, so nodes that lie on a plane up to round-off all count as lying on it
+  const D = new Float64Array(N), T = new Float64Array(N)
+  const omax = Math.max(Math.abs(from), Math.abs(to))
+  const amx = Math.abs(m[0]), amy = Math.abs(m[1]), amz = Math.abs(m[2])
+  for (let i = 0; i < N; i++) {
+    const x = coords[3 * i], y = coords[3 * i + 1], z = coords[3 * i + 2]
+    D[i] = x * m[0] + y * m[1] + z * m[2]
+    T[i] = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz + omax)
+  }
 
   const acc = new Float64Array(count * ACC_SIZE)
   const sc = createPolygonScratch()
@@ -73,16 +81,15 @@ export function sweepSections(
     for (let e = 0, base = 0; e < n; e++, base += nn) {
       let lo = Infinity, hi = -Infinity
       for (let c = 0; c < cc; c++) {
-        const v = D[conn[base + c]]
-        if (v < lo) lo = v
-        if (v > hi) hi = v
+        const i = conn[base + c], v = D[i], t = 2 * T[i]
+        if (v - t < lo) lo = v - t
+        if (v + t > hi) hi = v + t
       }
-      // planes with lo < o <= hi cut the element
+      // candidates: planes with lo < o <= hi (widened by the snap band); the corner signs decide
       const ja = firstAbove(os, hs, lo), jb = lastAtOrBelow(os, hs, hi)
       for (let k = ja; k <= jb; k++) {
         const o = os[k]
-        if (!(lo - o < 0 && hi - o >= 0)) continue
-        for (let c = 0; c < cc; c++) dist[c] = D[conn[base + c]] - o
+        if (!snappedDistances(dist, D, T, conn, base, cc, o)) continue
         if (elementPolygon(sc, acc, k * ACC_SIZE, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
         integratePolygon(acc, k * ACC_SIZE, sc, frame)
       }
@@ -105,22 +112,24 @@ export function sweepSections(
   const fb = new Float64Array(count * FB_SIZE) // clipped-face figures per section
   const nodes = faces.nodes, kind = faces.kind
   for (let f = 0; f < faces.count; f++) {
-    const nc = faceCornerCount(kind[f])
+    const nc = faceCornerCount(kind[f]), fbase = FACE_SLOTS * f
     let lo = Infinity, hi = -Infinity
     for (let c = 0; c < nc; c++) {
-      const v = D[nodes[FACE_SLOTS * f + c]]
-      if (v < lo) lo = v
-      if (v > hi) hi = v
+      const i = nodes[fbase + c], v = D[i], t = 2 * T[i]
+      if (v - t < lo) lo = v - t
+      if (v + t > hi) hi = v + t
     }
-    // wholly on the - side of plane j when hi < o_j: every j from jw on
-    const jw = firstAbove(os, hs, hi)
+    // wholly on the - side from the first plane jw where all corners are -, on to the last
+    // (the corner test is monotone in o); guess from hi, settle with the exact test
+    let jw = firstAbove(os, hs, hi)
+    while (jw > 0 && allNegative(D, T, nodes, fbase, nc, os[jw - 1])) jw--
+    while (jw < count && !allNegative(D, T, nodes, fbase, nc, os[jw])) jw++
     if (jw < count) addWholeFace(whole, jw * FB_SIZE, faces, tractions, f, g[0], g[1], g[2])
-    // crossed by plane j: lo < o_j <= hi
-    const ja = firstAbove(os, hs, lo), jb = lastAtOrBelow(os, hs, hi)
+    // crossed: candidates as for elements, the corner signs decide
+    const ja = firstAbove(os, hs, lo), jb = Math.min(lastAtOrBelow(os, hs, hi), jw - 1)
     for (let k = ja; k <= jb; k++) {
-      const o = os[k]
-      if (!(lo - o < 0 && hi - o >= 0) || !(acc[k * ACC_SIZE + ACC_AREA] > 0)) continue
-      for (let c = 0; c < nc; c++) dist[c] = D[nodes[FACE_SLOTS * f + c]] - o
+      if (!(acc[k * ACC_SIZE + ACC_AREA] > 0)) continue
+      if (!snappedDistances(dist, D, T, nodes, fbase, nc, os[k])) continue
       addClippedFace(fb, k * FB_SIZE, coords, stress, faces, f, sc, cen[3 * k], cen[3 * k + 1], cen[3 * k + 2], g[0], g[1], g[2])
     }
   }
@@ -140,6 +149,30 @@ export function sweepSections(
     results.push(sectionRecord(acc, off, point, m, frame, null, freeBody))
   }
   return { offsets, results }
+}
+
+/**
+ * Corner distances d = D - o of an element or face into `dist`, snapped to 0 inside the band T;
+ * true when the corners lie on both sides (some d < 0, some d ≥ 0).
+ */
+function snappedDistances(dist: Float64Array, D: Float64Array, T: Float64Array, nodes: Int32Array, base: number, nc: number, o: number): boolean {
+  let neg = 0
+  for (let c = 0; c < nc; c++) {
+    const i = nodes[base + c], r = D[i] - o, t = T[i]
+    const d = r < -t || r > t ? r : 0
+    dist[c] = d
+    if (d < 0) neg++
+  }
+  return neg > 0 && neg < nc
+}
+
+/** All corners of a face strictly on the - side of the plane at o (same snap as above). */
+function allNegative(D: Float64Array, T: Float64Array, nodes: Int32Array, base: number, nc: number, o: number): boolean {
+  for (let c = 0; c < nc; c++) {
+    const i = nodes[base + c]
+    if (!(D[i] - o < -T[i])) return false
+  }
+  return true
 }
 
 // Index searches on the ascending, uniform internal offsets: a guess from the spacing, then exact
