@@ -1,0 +1,105 @@
+/**
+ * Signed corner volumes and the mirroring of inverted elements.
+ * References: volumes of a cube, a right triangular prism (base area × height) and a tetrahedron
+ * (|triple product| / 6) are elementary geometry; the node order conventions are those of
+ * src/model/elementTypes.ts. Each case is also run rotated, as the volume must not depend on it.
+ */
+import { describe, expect, it } from 'vitest'
+import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { ELEMENT_TYPES } from '../../src/model/elementTypes.ts'
+import type { ElementTypeName } from '../../src/model/elementTypes.ts'
+import { MIRROR_PERMUTATION, checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
+
+const TYPES: ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6']
+
+function rotate(coords: Float64Array, angle: number): Float64Array {
+  // Rotation about the unit axis k = (1, 1, 1)/√3 by `angle`, Rodrigues' formula:
+  // v' = v cos θ + (k × v) sin θ + k (k·v)(1 - cos θ).
+  const k = 1 / Math.sqrt(3), c = Math.cos(angle), s = Math.sin(angle)
+  const out = new Float64Array(coords.length)
+  for (let i = 0; i < coords.length; i += 3) {
+    const x = coords[i], y = coords[i + 1], z = coords[i + 2]
+    const kv = k * (x + y + z) * k * (1 - c)
+    out[i] = x * c + k * (z - y) * s + kv
+    out[i + 1] = y * c + k * (x - z) * s + kv
+    out[i + 2] = z * c + k * (y - x) * s + kv
+  }
+  return out
+}
+
+describe('measureElement', () => {
+  const out = new Float64Array(2), scratch = new Float64Array(24)
+  it.each([0, 0.7, 2.1])('volumes of a 2 × 1 × 0.5 box sum to 1 for every type (rotation %s rad)', (angle) => {
+    for (const t of TYPES) {
+      const m = boxMesh({ nx: 2, ny: 2, nz: 1, lx: 2, ly: 1, lz: 0.5 }, t)
+      const coords = rotate(m.coords, angle)
+      const b = m.blocks[0]
+      const nn = ELEMENT_TYPES[t].nodeCount
+      let sum = 0
+      for (let e = 0; e < b.ids.length; e++) {
+        measureElement(out, scratch, coords, b.conn, e * nn, t)
+        expect(out[0], `${t} element ${e}`).toBeGreaterThan(0)
+        sum += out[0]
+      }
+      expect(sum).toBeCloseTo(1, 12)
+    }
+  })
+  it('the corner bounding-box diagonal', () => {
+    const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 3, ly: 4, lz: 12 }, 'hex8')
+    measureElement(out, scratch, m.coords, m.blocks[0].conn, 0, 'hex8')
+    expect(out[0]).toBeCloseTo(144, 10)
+    expect(out[1]).toBeCloseTo(13, 12) // √(9 + 16 + 144)
+  })
+  it('a warped hex (one top corner lifted) is measured by the symmetric face split', () => {
+    const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, 'hex8')
+    const c = m.coords.slice()
+    c[3 * 6 + 2] = 2 // node 7 (index 6) lifted from z = 1 to 2
+    measureElement(out, scratch, c, m.blocks[0].conn, 0, 'hex8')
+    // Derivation: the top face becomes the bilinear surface z = 1 + h·x·y over the unit square,
+    // so the volume is 1 + h/4 = 1.25 for h = 1. The split about face centres gives it exactly here.
+    expect(out[0]).toBeCloseTo(1.25, 12)
+  })
+})
+
+describe('mirroring', () => {
+  it.each(TYPES)('%s: mirroring flips the volume sign and keeps mid-edge nodes on their edges', (t) => {
+    const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 1, ly: 2, lz: 3 }, t)
+    const b = m.blocks[0]
+    const nn = ELEMENT_TYPES[t].nodeCount
+    const conn = b.conn.slice()
+    const count = conn.length / nn
+    const all = Int32Array.from({ length: count }, (_, i) => i)
+    reorientElements(conn, t, all)
+    const o = checkBlockOrientation(m.coords, t, conn)
+    expect(o.inverted.length).toBe(count)
+    const topo = ELEMENT_TYPES[t]
+    for (let e = 0; e < count; e++) {
+      for (const [a, bb, mid] of topo.edges) {
+        if (mid < 0) continue
+        for (let d = 0; d < 3; d++) {
+          const pa = m.coords[3 * conn[e * nn + a] + d], pb = m.coords[3 * conn[e * nn + bb] + d], pm = m.coords[3 * conn[e * nn + mid] + d]
+          expect(pm).toBeCloseTo((pa + pb) / 2, 12)
+        }
+      }
+    }
+    reorientElements(conn, t, o.inverted)
+    expect(Array.from(conn)).toEqual(Array.from(b.conn))
+    expect(MIRROR_PERMUTATION[t].length).toBe(nn)
+  })
+  it('degenerate: flat and collapsed elements are found, the threshold is relative to size', () => {
+    const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, 'hex8')
+    const flat = m.coords.slice()
+    for (let i = 4; i < 8; i++) flat[3 * i + 2] = 0
+    expect(checkBlockOrientation(flat, 'hex8', m.blocks[0].conn).degenerate).toBe(0)
+    // A tiny but well-shaped element is not degenerate: 1e-6 m cube, volume 1e-18 = d³/5.2.
+    const tiny = m.coords.map((x) => x * 1e-6)
+    expect(checkBlockOrientation(tiny, 'hex8', m.blocks[0].conn).degenerate).toBe(-1)
+    // A sliver far below 1e-12 of its size is.
+    const sliver = m.coords.slice()
+    for (let i = 4; i < 8; i++) sliver[3 * i + 2] = 1e-13
+    expect(checkBlockOrientation(sliver, 'hex8', m.blocks[0].conn).degenerate).toBe(0)
+  })
+  it('the warning lists at most 10 ids and counts the rest', () => {
+    expect(reorientedWarning([1, 2, 3, 4, 5, 6, 7, 8, 9, 10], 25)).toBe('reoriented 25 inverted elements (negative volume, local nodes mirrored): 1, 2, 3, 4, 5, 6, 7, 8, 9, 10 and 15 more')
+  })
+})
