@@ -1,0 +1,103 @@
+import { describe, expect, it } from 'vitest'
+import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
+import type { Vec3 } from '../../src/model/model.ts'
+import { nodalStress } from '../helpers/sectionMeshes.ts'
+
+// Cantilever with an end load, Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), §21:
+// beam along x from the loaded end x = 0, depth 2c (y from -c to c), thickness b (z from 0 to b),
+// I = b(2c)³/12; σx = -Pxy/I, τxy = -(P/2I)(c² - y²), σy = 0 (the other components 0).
+// The section at x with normal +x: the + side (toward the support) acts on the end piece with
+// F = ∫ σ e_x dA = (0, -P, 0) and, about the centroid, M = (0, 0, P·x) (statics of the end piece:
+// the end face carries +P in y at arm x).
+const Lb = 10, c = 1, b = 0.5, P = 1000
+const I = (b * (2 * c) ** 3) / 12
+const field = (x: number, y: number) => [(-P * x * y) / I, 0, 0, (-P / (2 * I)) * (c * c - y * y), 0, 0]
+const ZERO: Vec3 = [0, 0, 0]
+
+function beam(type: 'hex8' | 'tet4' | 'hex20', ny: number) {
+  const mesh = boxMesh({ nx: 5 * ny, ny, nz: 1, lx: Lb, ly: 2 * c, lz: b, y0: -c }, type)
+  return { mesh, stress: nodalStress(mesh, (x, y) => field(x, y)) }
+}
+
+describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
+  const x0 = 3.7 // between node layers of every level, so stress is interpolated along x-edges too
+
+  // The parabolic shear is linear between vertices on the section, i.e. the trapezoid rule in y:
+  // its error is (2c) h²/12 · τ'' · b with τ'' = P/I, h = 2c/ny, which is P/ny² (too small in
+  // magnitude). σx is linear in y and x, so axial and bending are exact for hex8.
+  it('hex8: shear → P with the trapezoid error P/ny², moment P·x exact, axial 0', () => {
+    const errors: number[] = []
+    for (const ny of [2, 4, 8]) {
+      const { mesh, stress } = beam('hex8', ny)
+      const { result: r } = cutSection(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
+      const err = Math.abs(r.force[1] + P) / P
+      expect(Math.abs(err - 1 / ny ** 2)).toBeLessThan(1e-9)
+      expect(Math.abs(r.axial)).toBeLessThan(1e-9 * P)
+      expect(Math.abs(r.moment[2] - P * x0)).toBeLessThan(1e-9 * P * x0)
+      expect(Math.abs(r.moment[0]) + Math.abs(r.moment[1])).toBeLessThan(1e-9 * P * x0)
+      // section axes: depth 2c = 2 > b = 0.5, so e1 (stiff axis) is z; bending M1 = ±P·x
+      expect(Math.abs(Math.abs(r.bending[0]) - P * x0)).toBeLessThan(1e-9 * P * x0)
+      expect(Math.abs(Math.abs(r.shear[1]) - P)).toBeLessThan(err * P + 1e-9 * P)
+      // free body of the end piece: the end face is integrated with the same trapezoid in y,
+      // so forces balance to round-off; the moment residual is that shear error times x
+      expect(r.freeBody.relative).toBeLessThan(1e-10)
+      expect(Math.abs(r.freeBody.moment[2])).toBeLessThan(1.01 * P * x0 / ny ** 2)
+      errors.push(err)
+    }
+    expect(errors[1]).toBeLessThan(errors[0] / 3.9)
+    expect(errors[2]).toBeLessThan(errors[1] / 3.9)
+  })
+
+  // tet4: σx = -Pxy/I is bilinear, so interpolation along oblique edges is not exact either; the
+  // error still falls like h² (approximation documented in sectionPolygon.ts).
+  it('tet4: shear, moment and the free body converge under refinement', () => {
+    const fErr: number[] = [], mErr: number[] = [], fb: number[] = [], aErr: number[] = []
+    for (const ny of [2, 4, 8]) {
+      const { mesh, stress } = beam('tet4', ny)
+      const { result: r } = cutSection(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
+      fErr.push(Math.abs(r.force[1] + P) / P)
+      mErr.push(Math.abs(r.moment[2] - P * x0) / (P * x0))
+      fb.push(r.freeBody.relative)
+      // axial against the tension half of the section, ∫ σx dA over y > 0 = P x b c²/(2I)
+      aErr.push(Math.abs(r.axial) / ((P * x0 * b * c * c) / (2 * I)))
+    }
+    for (let i = 1; i < 3; i++) {
+      expect(fErr[i]).toBeLessThan(fErr[i - 1] / 3)
+      expect(mErr[i]).toBeLessThanOrEqual(mErr[i - 1] / 3 + 1e-12)
+      expect(fb[i]).toBeLessThanOrEqual(fb[i - 1] / 3 + 1e-12)
+      expect(aErr[i]).toBeLessThanOrEqual(aErr[i - 1] / 3 + 1e-12)
+    }
+    expect(aErr[2]).toBeLessThan(0.02)
+    expect(fErr[2]).toBeLessThan(0.02)
+    expect(mErr[2]).toBeLessThan(0.02)
+    expect(fb[2]).toBeLessThan(0.02)
+  })
+
+  // hex20 with the parabola at its mid-edge nodes: vertices on x-edges take the quadratic edge
+  // interpolation (exact here, τ does not depend on x), the section polygons are still linear
+  // pieces between corner-edge vertices, so the result matches hex8 of the same corner grid.
+  it('hex20: same convergence as the corner grid', () => {
+    for (const ny of [2, 4]) {
+      const { mesh, stress } = beam('hex20', ny)
+      const { result: r } = cutSection(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
+      expect(Math.abs(Math.abs(r.force[1] + P) / P - 1 / ny ** 2)).toBeLessThan(1e-9)
+      expect(Math.abs(r.moment[2] - P * x0)).toBeLessThan(1e-9 * P * x0)
+    }
+  })
+
+  // Statics of the end piece (T&G §21): shear constant = P, bending moment linear = P·x.
+  it('sweep along the beam: shear P and moment P·x within 1% (hex8, 12 elements deep)', () => {
+    const { mesh, stress } = beam('hex8', 12)
+    const { offsets, results } = sweepSections(mesh, stress, ZERO, [1, 0, 0], 0.25, 9.75, 39)
+    results.forEach((r, k) => {
+      const x = offsets[k]
+      expect(r.empty).toBe(false)
+      expect(Math.abs(-r.force[1] - P)).toBeLessThan(0.01 * P)
+      expect(Math.abs(r.moment[2] - P * x)).toBeLessThan(0.01 * P * x)
+      expect(Math.abs(r.axial)).toBeLessThan(1e-9 * P)
+      expect(r.freeBody.relative).toBeLessThan(1e-9)
+    })
+  })
+})
