@@ -1,0 +1,144 @@
+/**
+ * `tractus audit <model>`: is the result in equilibrium, and where does the load enter?
+ * Whole-body balance, percentiles of the element balance indicator (with the worst elements by
+ * id), load-entry patches and what is left on the nominally free surface.
+ */
+import type { Command } from './command.ts'
+import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
+import { UsageError } from './args.ts'
+import { loadModel } from './loadModel.ts'
+import { createUnitView, unitLabels } from './unitView.ts'
+import { block, num, qty, table, vecJson, vecQty } from './format.ts'
+import type { Mesh } from '../model/model.ts'
+import { extractBoundaryFaces } from '../mechanics/boundaryFaces.ts'
+import { computeSurfaceTractions } from '../mechanics/tractions.ts'
+import { computeBodyBalance, computeElementBalance, percentiles } from '../mechanics/balanceAudit.ts'
+import { findLoadPatches } from '../mechanics/loadPatches.ts'
+
+/** The user's element id of global element index `g`. */
+export function elementId(mesh: Mesh, g: number): number {
+  for (const b of mesh.blocks) {
+    if (g >= b.offset && g < b.offset + b.ids.length) return b.ids[g - b.offset]
+  }
+  return -1
+}
+
+/** Indices of the `k` largest values, largest first (one pass, k small). */
+export function topIndices(values: Float64Array, k: number): number[] {
+  const best: number[] = []
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]
+    if (!(v > 0)) continue
+    if (best.length === k && v <= values[best[k - 1]]) continue
+    let j = best.length < k ? best.length : k - 1
+    while (j > 0 && values[best[j - 1]] < v) { best[j] = best[j - 1]; j-- }
+    best[j] = i
+  }
+  return best
+}
+
+export const auditCommand: Command = {
+  name: 'audit',
+  summary: 'whole-body and element balance, load-entry patches and the free-surface residue',
+  usage: 'tractus audit <model> [--json] [--units si|us] [--body-force bx,by,bz] [--threshold f] [--worst n]',
+  positionals: ['<model>'],
+  options: [
+    JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION,
+    { name: 'threshold', kind: 'number', value: 'f', help: 'a boundary face carries load when its mean |t| exceeds f times the reference stress (the 95th percentile of nodal von Mises stress); default 0.05' },
+    { name: 'worst', kind: 'integer', value: 'n', help: 'how many of the least balanced elements to list (default 5)' },
+    HELP_OPTION,
+  ],
+  details: [
+    'Balance: the surface integral of t = σn plus ∫ρb dV over the whole body; "relative" divides the residual force by the gross load (half the sum of |face force|).',
+    'Element indicator: |∮σn dA + ∫ρb dV| of each element over its gross face load; p50, p95 and max over all elements.',
+    'Patches: edge-connected boundary faces whose mean traction magnitude exceeds the threshold; the rest is the nominally free surface, whose mean traction should be small next to the reference stress.',
+  ].join('\n'),
+  run(args, io) {
+    const loaded = loadModel(args.positionals[0])
+    const { model } = loaded
+    const { mesh, stress } = model
+    const u = createUnitView(model.units, unitChoice(args))
+    const bodyForce = bodyForceOf(args, model)
+    const worstCount = args.options.worst === undefined ? 5 : Math.max(0, args.options.worst as number)
+    const threshold = args.options.threshold as number | undefined
+    if (threshold !== undefined && !(threshold >= 0)) throw new UsageError('--threshold must be a fraction ≥ 0, like 0.05')
+
+    const faces = extractBoundaryFaces(mesh)
+    const tractions = computeSurfaceTractions(mesh, stress, faces)
+    const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
+    const elements = computeElementBalance(mesh, stress, bodyForce)
+    const [p50, p95, pmax] = Array.from(percentiles(elements.indicator, [50, 95, 100]))
+    const worst = topIndices(elements.indicator, worstCount).map((g) => ({ id: elementId(mesh, g), indicator: elements.indicator[g] }))
+    const lp = findLoadPatches(mesh, stress, faces, tractions, threshold === undefined ? undefined : { threshold })
+
+    const fs = u.factor('stress')
+    const fa = u.factor('area')
+    const patches = lp.patches.map((p) => ({
+      id: p.id,
+      faces: p.faceCount,
+      area: p.area * fa,
+      centroid: vecJson(p.centroid, 'length', u),
+      force: vecJson(p.force, 'force', u),
+      moment: vecJson(p.moment, 'moment', u),
+      peak: p.peak * fs,
+      mean: p.mean * fs,
+    }))
+    if (args.options.json) {
+      printJson(io, {
+        file: loaded.path,
+        name: model.name,
+        units: unitLabels(u),
+        bodyForce: vecJson(bodyForce, 'forcePerVolume', u),
+        boundaryFaces: faces.count,
+        balance: {
+          force: vecJson(body.force, 'force', u),
+          moment: vecJson(body.moment, 'moment', u),
+          relative: body.relative,
+          gross: body.gross * u.factor('force'),
+          about: vecJson(body.about, 'length', u),
+          surfaceForce: vecJson(body.surfaceForce, 'force', u),
+          bodyForceTotal: vecJson(body.bodyForceTotal, 'force', u),
+          volume: body.volume * u.factor('volume'),
+        },
+        elements: { count: mesh.elementCount, p50, p95, max: pmax, worst },
+        threshold: lp.threshold * fs,
+        thresholdFraction: threshold ?? 0.05,
+        referenceStress: lp.referenceStress * fs,
+        patches,
+        freeSurface: {
+          area: lp.freeSurface.area * fa,
+          mean: lp.freeSurface.mean * fs,
+          relative: lp.freeSurface.relative,
+          peak: lp.freeSurface.peak * fs,
+        },
+      })
+      return 0
+    }
+    let out = block(`Balance of "${model.name}" (${mesh.elementCount} elements, ${faces.count} boundary faces)`, [
+      ['residual force', vecQty(body.force, 'force', u)],
+      ['residual moment', `${vecQty(body.moment, 'moment', u)} about ${vecQty(body.about, 'length', u)}`],
+      ['relative', `${num(body.relative)} of the gross load ${qty(body.gross, 'force', u)}`],
+      ['surface force', vecQty(body.surfaceForce, 'force', u)],
+      ['body force ∫ρb dV', `${vecQty(body.bodyForceTotal, 'force', u)} over ${qty(body.volume, 'volume', u)}`],
+    ])
+    out += '\n' + block('Element balance indicator |residual| / gross (dimensionless)', [
+      ['p50', num(p50)], ['p95', num(p95)], ['max', num(pmax)],
+      ...worst.map((w, i): [string, string] => [i === 0 ? 'least balanced' : '', `element ${w.id}: ${num(w.indicator)}`]),
+    ])
+    out += `\nLoad-entry patches (mean |t| above ${qty(lp.threshold, 'stress', u)} = ${num(threshold ?? 0.05)} × reference stress ${qty(lp.referenceStress, 'stress', u)})\n`
+    if (lp.patches.length === 0) out += '  none\n'
+    else {
+      out += table([
+        ['  patch', 'faces', 'area', 'centroid', 'force', 'moment about centroid', 'peak |t|'],
+        ...lp.patches.map((p) => [`  ${p.id}`, String(p.faceCount), qty(p.area, 'area', u), vecQty(p.centroid, 'length', u), vecQty(p.force, 'force', u), vecQty(p.moment, 'moment', u), qty(p.peak, 'stress', u)]),
+      ], [false, true, true, false, false, false, true])
+    }
+    out += '\n' + block('Nominally free surface', [
+      ['area', qty(lp.freeSurface.area, 'area', u)],
+      ['mean |t|', `${qty(lp.freeSurface.mean, 'stress', u)} (${num(lp.freeSurface.relative)} of the reference stress)`],
+      ['peak |t|', qty(lp.freeSurface.peak, 'stress', u)],
+    ])
+    io.stdout(out)
+    return 0
+  },
+}

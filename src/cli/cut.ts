@@ -1,0 +1,97 @@
+/**
+ * `tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z]`: the force and moment
+ * the material on the +normal side exerts across a plane, in global and section axes, with the
+ * free-body check of the piece on the -normal side.
+ */
+import type { Command } from './command.ts'
+import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, unitVector, vecOption } from './command.ts'
+import { loadModel } from './loadModel.ts'
+import type { UnitView } from './unitView.ts'
+import { createUnitView, unitLabels } from './unitView.ts'
+import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
+import type { SectionResult } from '../mechanics/types.ts'
+import { cutSection } from '../mechanics/sectionCut.ts'
+
+/** The documented JSON fields of one section (shared with `sweep`), in the view's units. */
+export function sectionJson(r: SectionResult, u: UnitView): Record<string, unknown> {
+  const ff = u.factor('force'), fm = u.factor('moment'), fi = u.factor('secondMoment')
+  return {
+    empty: r.empty,
+    plane: { point: vecJson(r.plane.point, 'length', u), normal: vecJson(r.plane.normal, null, u) },
+    area: r.area * u.factor('area'),
+    centroid: vecJson(r.centroid, 'length', u),
+    about: vecJson(r.about, 'length', u),
+    force: vecJson(r.force, 'force', u),
+    moment: vecJson(r.moment, 'moment', u),
+    axes: { e1: vecJson(r.axes.e1, null, u), e2: vecJson(r.axes.e2, null, u), e3: vecJson(r.axes.e3, null, u) },
+    secondMoments: { I1: r.secondMoments.I1 * fi, I2: r.secondMoments.I2 * fi, J: r.secondMoments.J * fi },
+    axial: r.axial * ff,
+    shear: [r.shear[0] * ff, r.shear[1] * ff],
+    torque: r.torque * fm,
+    bending: [r.bending[0] * fm, r.bending[1] * fm],
+    freeBody: {
+      force: vecJson(r.freeBody.force, 'force', u),
+      moment: vecJson(r.freeBody.moment, 'moment', u),
+      relative: r.freeBody.relative,
+      gross: r.freeBody.gross * ff,
+    },
+    cutElements: r.cutElements,
+  }
+}
+
+export const cutCommand: Command = {
+  name: 'cut',
+  summary: 'force and moment across a section plane, in global and section axes',
+  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--json] [--units si|us] [--body-force bx,by,bz]',
+  positionals: ['<model>'],
+  options: [
+    { name: 'point', kind: 'vec3', value: 'x,y,z', required: true, help: 'a point on the plane (model length units)' },
+    { name: 'normal', kind: 'vec3', value: 'nx,ny,nz', required: true, help: 'plane normal m (any length, not zero)' },
+    { name: 'about', kind: 'vec3', value: 'x,y,z', help: 'moment reference point (model length units); the section centroid by default' },
+    JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION,
+  ],
+  details: [
+    'The resultant is what the material on the +m side exerts on the material on the -m side: F = ∫σm dA, M = ∫(x - about) × σm dA.',
+    'Section axes: e3 = m, e1 and e2 the principal axes of the section area (I1 ≥ I2). axial = F·e3, shear = [F·e1, F·e2], torque = M·e3, bending = [M·e1, M·e2].',
+    'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is over that piece\'s gross load.',
+  ].join('\n'),
+  run(args, io) {
+    const point = vecOption(args, 'point')!
+    const normal = unitVector(vecOption(args, 'normal')!, 'normal')
+    const about = vecOption(args, 'about')
+    const loaded = loadModel(args.positionals[0])
+    const { model } = loaded
+    const u = createUnitView(model.units, unitChoice(args))
+    const bodyForce = bodyForceOf(args, model)
+    const { result: r } = cutSection(model.mesh, model.stress, bodyForce, { point, normal }, { about, polygons: false })
+    if (args.options.json) {
+      printJson(io, { file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u) })
+      return 0
+    }
+    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(point, 'length', u)}, normal ${vecPlain(normal)}`))
+    return 0
+  },
+}
+
+export function sectionText(r: SectionResult, u: UnitView, heading: string): string {
+  if (r.empty) return `${heading}\n  the plane does not cut the body\n`
+  return block(heading, [
+    ['area', qty(r.area, 'area', u)],
+    ['centroid', vecQty(r.centroid, 'length', u)],
+    ['moments about', vecQty(r.about, 'length', u)],
+    ['cut elements', String(r.cutElements)],
+    ['force F', vecQty(r.force, 'force', u)],
+    ['moment M', vecQty(r.moment, 'moment', u)],
+    ['axis e1', vecPlain(r.axes.e1)],
+    ['axis e2', vecPlain(r.axes.e2)],
+    ['axis e3 = m', vecPlain(r.axes.e3)],
+    ['I1, I2, J', `${num(r.secondMoments.I1 * u.factor('secondMoment'))}, ${num(r.secondMoments.I2 * u.factor('secondMoment'))}, ${num(r.secondMoments.J * u.factor('secondMoment'))} ${u.label('secondMoment')}`],
+    ['axial N', qty(r.axial, 'force', u)],
+    ['shear V1, V2', `${num(r.shear[0] * u.factor('force'))}, ${num(r.shear[1] * u.factor('force'))} ${u.label('force')}`],
+    ['torque T', qty(r.torque, 'moment', u)],
+    ['bending M1, M2', `${num(r.bending[0] * u.factor('moment'))}, ${num(r.bending[1] * u.factor('moment'))} ${u.label('moment')}`],
+    ['free body force', vecQty(r.freeBody.force, 'force', u)],
+    ['free body moment', vecQty(r.freeBody.moment, 'moment', u)],
+    ['free body relative', `${num(r.freeBody.relative)} of the gross load ${qty(r.freeBody.gross, 'force', u)}`],
+  ])
+}

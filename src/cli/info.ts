@@ -1,0 +1,113 @@
+/**
+ * `tractus info <model>`: what is in a model (counts, element types, bounds, units, stress range,
+ * body force, reader warnings), without any mechanics.
+ */
+import type { Command } from './command.ts'
+import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
+import { loadModel } from './loadModel.ts'
+import { createUnitView, unitLabels } from './unitView.ts'
+import { block, qty, table, vecJson, vecQty } from './format.ts'
+import { STRESS_COMPONENTS } from '../model/model.ts'
+import type { Model } from '../model/model.ts'
+
+export interface ModelSummary {
+  readonly types: Record<string, number>
+  readonly parts: number[]
+  readonly min: [number, number, number]
+  readonly max: [number, number, number]
+  /** Per stress component (xx, yy, zz, xy, yz, xz): smallest and largest nodal value. */
+  readonly stressMin: number[]
+  readonly stressMax: number[]
+}
+
+export function summarize(model: Model): ModelSummary {
+  const { mesh, stress } = model
+  const types: Record<string, number> = {}
+  const parts = new Set<number>()
+  for (const b of mesh.blocks) {
+    types[b.type] = (types[b.type] ?? 0) + b.ids.length
+    if (b.part) for (let i = 0; i < b.part.length; i++) parts.add(b.part[i])
+  }
+  const x = mesh.coords
+  const min: [number, number, number] = [Infinity, Infinity, Infinity]
+  const max: [number, number, number] = [-Infinity, -Infinity, -Infinity]
+  for (let i = 0; i < mesh.nodeCount; i++) {
+    for (let k = 0; k < 3; k++) {
+      const v = x[3 * i + k]
+      if (v < min[k]) min[k] = v
+      if (v > max[k]) max[k] = v
+    }
+  }
+  const stressMin = [Infinity, Infinity, Infinity, Infinity, Infinity, Infinity]
+  const stressMax = [-Infinity, -Infinity, -Infinity, -Infinity, -Infinity, -Infinity]
+  for (let i = 0; i < mesh.nodeCount; i++) {
+    for (let k = 0; k < 6; k++) {
+      const v = stress[6 * i + k]
+      if (v < stressMin[k]) stressMin[k] = v
+      if (v > stressMax[k]) stressMax[k] = v
+    }
+  }
+  return { types, parts: [...parts].sort((a, b) => a - b), min, max, stressMin, stressMax }
+}
+
+export const infoCommand: Command = {
+  name: 'info',
+  summary: 'counts, element types, bounds, units and warnings of a model',
+  usage: 'tractus info <model> [--json] [--units si|us] [--body-force bx,by,bz]',
+  positionals: ['<model>'],
+  options: [JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION],
+  details: '<model> is a bundle folder (nodes.csv, elements.csv, stress.csv, optional displacement.csv and model.json) or a native .tractus file.',
+  run(args, io) {
+    const loaded = loadModel(args.positionals[0])
+    const { model } = loaded
+    const u = createUnitView(model.units, unitChoice(args))
+    const s = summarize(model)
+    const bodyForce = bodyForceOf(args, model)
+    const size: [number, number, number] = [s.max[0] - s.min[0], s.max[1] - s.min[1], s.max[2] - s.min[2]]
+    if (args.options.json) {
+      const fs = u.factor('stress')
+      printJson(io, {
+        file: loaded.path,
+        format: loaded.format,
+        bytes: loaded.bytes,
+        name: model.name,
+        description: model.description,
+        modelUnits: { length: model.units.length, stress: model.units.stress },
+        units: unitLabels(u),
+        nodes: model.mesh.nodeCount,
+        elements: model.mesh.elementCount,
+        types: s.types,
+        parts: s.parts,
+        bounds: { min: vecJson(s.min, 'length', u), max: vecJson(s.max, 'length', u), size: vecJson(size, 'length', u) },
+        stress: Object.fromEntries(STRESS_COMPONENTS.map((c, k) => [c, [s.stressMin[k] * fs, s.stressMax[k] * fs]])),
+        displacement: model.displacement !== null,
+        bodyForce: vecJson(bodyForce, 'forcePerVolume', u),
+        warnings: [...model.warnings],
+      })
+      return 0
+    }
+    const typeText = Object.entries(s.types).map(([t, n]) => `${n} ${t}`).join(', ')
+    let out = block(`Model "${model.name}" (${loaded.format === 'native' ? 'native file' : 'CSV bundle'} ${loaded.path})`, [
+      ['model units', `length ${model.units.length}, stress ${model.units.stress}`],
+      ['nodes', String(model.mesh.nodeCount)],
+      ['elements', `${model.mesh.elementCount} (${typeText || 'none'})`],
+      ['parts', s.parts.length ? s.parts.join(', ') : 'none'],
+      ['bounds min', vecQty(s.min, 'length', u)],
+      ['bounds max', vecQty(s.max, 'length', u)],
+      ['size', vecQty(size, 'length', u)],
+      ['body force ρb', vecQty(bodyForce, 'forcePerVolume', u)],
+      ['displacement', model.displacement ? 'present' : 'none'],
+    ])
+    if (model.description) out += `  ${model.description}\n`
+    out += '\nNodal stress range\n'
+    out += table([
+      ['  component', 'min', 'max'],
+      ...STRESS_COMPONENTS.map((c, k) => [`  σ${c}`, qty(s.stressMin[k], 'stress', u), qty(s.stressMax[k], 'stress', u)]),
+    ], [false, true, true])
+    out += `\nWarnings: ${model.warnings.length ? '' : 'none'}\n`
+    for (const w of model.warnings) out += `  - ${w}\n`
+    io.stdout(out)
+    return 0
+  },
+}
+

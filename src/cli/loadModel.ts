@@ -1,0 +1,83 @@
+/**
+ * Reads a model from disk for the command line: a bundle folder (CSV files and an optional
+ * model.json) or a native `.tractus` file. Reader errors name the file by its path on disk.
+ */
+import { readdirSync, readFileSync, statSync } from 'node:fs'
+import { basename, extname, join } from 'node:path'
+import { InputError, isInputError } from '../model/errors.ts'
+import type { Model } from '../model/model.ts'
+import { readModelFiles, readNative } from '../io/index.ts'
+
+export const NATIVE_EXTENSION = '.tractus'
+
+export interface LoadedModel {
+  readonly model: Model
+  /** The path as given. */
+  readonly path: string
+  /** 'bundle' for a CSV folder, 'native' for a .tractus file. */
+  readonly format: 'bundle' | 'native'
+  /** Bytes read from disk. */
+  readonly bytes: number
+}
+
+export function loadModel(path: string): LoadedModel {
+  const st = statOrThrow(path)
+  if (st.isDirectory()) return loadBundle(path)
+  const ext = extname(path).toLowerCase()
+  if (ext === NATIVE_EXTENSION) {
+    const buf = readFileSync(path)
+    // A view on the file's bytes, so the reader can keep zero-copy views into it.
+    const bytes = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength)
+    const model = withPath(() => readNative(bytes, basename(path)), path, basename(path))
+    return { model, path, format: 'native', bytes: buf.byteLength }
+  }
+  if (ext === '.csv' || ext === '.json') {
+    throw new InputError('bad-argument', `a model is a bundle folder or a ${NATIVE_EXTENSION} file: give the folder that holds this file`, { file: path })
+  }
+  throw new InputError('bad-argument', `not a model: expected a bundle folder or a ${NATIVE_EXTENSION} file`, { file: path })
+}
+
+function loadBundle(dir: string): LoadedModel {
+  const names = readdirSync(dir).filter((n) => {
+    const e = extname(n).toLowerCase()
+    return (e === '.csv' || e === '.json') && statSync(join(dir, n)).isFile()
+  }).sort()
+  if (names.length === 0) {
+    throw new InputError('missing-file', 'no CSV files in this folder (expected nodes.csv, elements.csv, stress.csv and optionally model.json)', { file: dir })
+  }
+  let bytes = 0
+  const files = names.map((name) => {
+    const text = readFileSync(join(dir, name), 'utf8')
+    bytes += text.length
+    return { name, data: text }
+  })
+  const model = withPath(() => readModelFiles(files), dir, null)
+  return { model, path: dir, format: 'bundle', bytes }
+}
+
+/** Runs a reader and rewrites the file name in its error into the path on disk. */
+function withPath<T>(read: () => T, base: string, single: string | null): T {
+  try {
+    return read()
+  } catch (e) {
+    if (!isInputError(e)) throw e
+    const file = e.where.file
+    if (file === undefined) throw new InputError(e.kind, e.message, { file: base })
+    const full = single !== null ? base : join(base, file)
+    const rest = e.message.startsWith(file) ? e.message.slice(file.length) : ': ' + e.message
+    const err = new InputError(e.kind, '', { ...e.where, file: full })
+    err.message = full + rest
+    throw err
+  }
+}
+
+function statOrThrow(path: string) {
+  try {
+    return statSync(path)
+  } catch (e) {
+    const code = (e as { code?: string }).code
+    if (code === 'ENOENT') throw new InputError('missing-file', 'no such file or folder', { file: path })
+    if (code === 'EACCES') throw new InputError('missing-file', 'permission denied', { file: path })
+    throw new InputError('missing-file', (e as Error).message, { file: path })
+  }
+}

@@ -1,0 +1,289 @@
+/**
+ * `npm run bench [-- --json] [-- --elements N] [-- --seed S]`
+ *
+ * Seeded synthetic blocks (hex8, and the same block split into tet4) with about N elements
+ * (default 10^6) and a smooth analytic stress field. For each kernel: the median of several runs,
+ * its multiple of the streaming limit (a pass that only reads what the kernel must read) and its
+ * speed-up over a plain baseline (string-keyed Map boundary; per-element objects section cut).
+ * Then the cost growth over three sizes and the peak memory of a separate process. Checks of the
+ * results run outside the timed loops. Prints a table then the JSON; with --json only the JSON
+ * (progress goes to stderr).
+ */
+import { spawnSync } from 'node:child_process'
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
+import os from 'node:os'
+import { join } from 'node:path'
+import { fileURLToPath } from 'node:url'
+import type { Model } from '../../src/model/model.ts'
+import { readCsvBundle, readNative, writeCsvBundle, writeNative } from '../../src/io/index.ts'
+import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
+import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
+import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { syntheticModel, cellsPerSide } from './syntheticModel.ts'
+import { BENCH_PLANE } from './benchPlane.ts'
+import { streamBytes, streamConnCoords, streamConnCoordsStress, streamText } from './streamingLimit.ts'
+import { baselineBoundary } from './baseline/boundaryBaseline.ts'
+import { baselineCut } from './baseline/cutBaseline.ts'
+import { growthExponent, measure } from './timing.ts'
+
+// ---------------------------------------------------------------- options
+const argv = process.argv.slice(2)
+const jsonOnly = argv.includes('--json')
+const opt = (name: string, dflt: number): number => {
+  const i = argv.indexOf(name)
+  if (i < 0) return dflt
+  const v = Number(argv[i + 1])
+  if (!Number.isFinite(v) || v <= 0) { process.stderr.write(`bench: ${name} needs a positive number\n`); process.exit(1) }
+  return v
+}
+const ELEMENTS = Math.round(opt('--elements', 1e6))
+const SEED = Math.round(opt('--seed', 20261201))
+const t0All = performance.now()
+const log = (s: string) => process.stderr.write(s + '\n')
+
+type KernelName = 'boundary' | 'audit' | 'cut' | 'readCsv' | 'readNative'
+const KERNELS: readonly KernelName[] = ['boundary', 'audit', 'cut', 'readCsv', 'readNative']
+
+interface KernelFigure {
+  medianMs: number
+  /** Median CPU time of the same runs (see timing.ts: on a shared machine the fairer figure). */
+  cpuMs: number
+  /** Kernel time over the streaming-limit time (1 = as fast as reading the data). */
+  vsStreaming: number
+  /** Baseline time over kernel time (our speed-up), null where there is no baseline. */
+  vsBaseline: number | null
+  streamingMs: number
+  baselineMs: number | null
+  runs: number
+  mbPerS?: number
+}
+
+interface ModelFigures {
+  type: 'hex8' | 'tet4'
+  cellsPerSide: number
+  elements: number
+  nodes: number
+  modelBytes: number
+  csvBytes: number
+  kernels: Record<KernelName, KernelFigure>
+  checks: Record<string, number | boolean>
+}
+
+/** Runs per size: more for small models so medians stay steady. */
+function runsFor(elements: number, large: number): number {
+  return elements >= 5e5 ? large : elements >= 5e4 ? large * 2 : large * 4
+}
+
+function relDiff(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  let num = 0, den = 0
+  for (let k = 0; k < a.length; k++) { num = Math.max(num, Math.abs(a[k] - b[k])); den = Math.max(den, Math.abs(a[k]), Math.abs(b[k])) }
+  return den > 0 ? num / den : num
+}
+
+function sameArray(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
+  if (a.length !== b.length) return false
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i] && !(Number.isNaN(a[i]) && Number.isNaN(b[i]))) return false
+  return true
+}
+
+// ---------------------------------------------------------------- one model
+function benchModel(model: Model, withBaselines: boolean, label: string): ModelFigures {
+  const { mesh, stress, bodyForce } = model
+  const E = mesh.elementCount
+  const type = mesh.blocks[0].type as 'hex8' | 'tet4'
+  const n = cellsPerSide(type, E)
+  const R = runsFor(E, 5)
+  const checks: Record<string, number | boolean> = {}
+  const figure = (t: { medianMs: number; cpuMs: number }, streamingMs: number, baselineMs: number | null, runs: number): KernelFigure => ({
+    medianMs: t.medianMs, cpuMs: t.cpuMs, vsStreaming: t.medianMs / streamingMs, vsBaseline: baselineMs === null ? null : baselineMs / t.medianMs, streamingMs, baselineMs, runs,
+  })
+
+  log(`${label}: boundary faces with tractions`)
+  const boundary = measure(() => { const f = extractBoundaryFaces(mesh); return { faces: f, tractions: computeSurfaceTractions(mesh, stress, f) } }, R)
+  const { faces, tractions } = boundary.value
+  const streamCC = measure(() => streamConnCoords(mesh), runsFor(E, 7))
+  checks.boundaryFaces = faces.count
+  checks.boundaryFacesExpected = type === 'hex8' ? 6 * n * n : 12 * n * n
+  let boundaryBaselineMs: number | null = null
+  if (withBaselines) {
+    log(`${label}: plain boundary baseline`)
+    const base = measure(() => baselineBoundary(mesh, stress), E >= 5e5 ? 2 : 3, 0)
+    boundaryBaselineMs = base.medianMs
+    const sum = [0, 0, 0], sumBase = [0, 0, 0]
+    for (let f = 0; f < faces.count; f++) for (let k = 0; k < 3; k++) sum[k] += Math.abs(tractions.force[3 * f + k])
+    for (const f of base.value) for (let k = 0; k < 3; k++) sumBase[k] += Math.abs(f.force[k])
+    checks.boundaryEqualsBaselineCount = base.value.length === faces.count
+    checks.boundaryForceVsBaseline = relDiff(sum, sumBase)
+  }
+
+  log(`${label}: balance audit`)
+  const audit = measure(() => ({ elements: computeElementBalance(mesh, stress, bodyForce), body: computeBodyBalance(mesh, faces, tractions, bodyForce) }), R)
+  const streamCCS = measure(() => streamConnCoordsStress(mesh, stress), runsFor(E, 7))
+  checks.bodyBalanceRelative = audit.value.body.relative
+  let maxIndicator = 0
+  for (let i = 0; i < E; i++) if (audit.value.elements.indicator[i] > maxIndicator) maxIndicator = audit.value.elements.indicator[i]
+  checks.elementIndicatorMax = maxIndicator
+
+  log(`${label}: section cut`)
+  const cut = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false }), runsFor(E, 11), 2)
+  const r = cut.value.result
+  checks.cutElements = r.cutElements
+  checks.cutFreeBodyRelative = r.freeBody.relative
+  let cutBaselineMs: number | null = null
+  if (withBaselines) {
+    log(`${label}: plain cut baseline`)
+    const base = measure(() => baselineCut(mesh, stress, BENCH_PLANE.point, BENCH_PLANE.normal), E >= 5e5 ? 3 : 5, 1)
+    cutBaselineMs = base.medianMs
+    checks.cutForceVsBaseline = relDiff(r.force, base.value.force)
+    checks.cutAreaVsBaseline = relDiff([r.area], [base.value.area])
+  }
+
+  log(`${label}: CSV read`)
+  const files = writeCsvBundle(model)
+  const csvBytes = files.reduce((s, f) => s + f.text.length, 0)
+  const csv = measure(() => readCsvBundle(files), runsFor(E, 3))
+  const streamCsv = measure(() => streamText(files.map((f) => f.text)), runsFor(E, 3))
+  checks.csvRoundTripCoords = sameArray(csv.value.mesh.coords, mesh.coords)
+  checks.csvRoundTripStress = sameArray(csv.value.stress, stress)
+  checks.csvRoundTripConn = sameArray(csv.value.mesh.blocks[0].conn, mesh.blocks[0].conn)
+
+  log(`${label}: native read`)
+  const bytes = writeNative(model)
+  const native = measure(() => readNative(bytes, 'bench.tractus'), runsFor(E, 11), 2)
+  const streamNative = measure(() => streamBytes(bytes), runsFor(E, 11))
+  checks.nativeRoundTrip = sameArray(native.value.mesh.coords, mesh.coords) && sameArray(native.value.stress, stress) && sameArray(native.value.mesh.blocks[0].conn, mesh.blocks[0].conn)
+
+  const kernels: Record<KernelName, KernelFigure> = {
+    boundary: figure(boundary, streamCC.medianMs, boundaryBaselineMs, R),
+    audit: figure(audit, streamCCS.medianMs, null, R),
+    cut: figure(cut, streamCC.medianMs, cutBaselineMs, runsFor(E, 11)),
+    readCsv: { ...figure(csv, streamCsv.medianMs, null, runsFor(E, 3)), mbPerS: csvBytes / 1e6 / (csv.medianMs / 1000) },
+    readNative: { ...figure(native, streamNative.medianMs, null, runsFor(E, 11)), mbPerS: bytes.byteLength / 1e6 / (native.medianMs / 1000) },
+  }
+  return { type, cellsPerSide: n, elements: E, nodes: mesh.nodeCount, modelBytes: bytes.byteLength, csvBytes, kernels, checks }
+}
+
+// ---------------------------------------------------------------- memory in a fresh process
+function memoryProbe(model: Model): { peakRssBytes: number; idleRssBytes: number } {
+  const dir = mkdtempSync(join(os.tmpdir(), 'tractus-bench-'))
+  try {
+    const file = join(dir, 'bench.tractus')
+    writeFileSync(file, writeNative(model))
+    const probe = fileURLToPath(new URL('./memoryProbe.ts', import.meta.url))
+    const tsx = import.meta.resolve('tsx')
+    const once = (arg: string): number => {
+      const res = spawnSync(process.execPath, ['--import', tsx, probe, arg], { encoding: 'utf8' })
+      if (res.status !== 0) throw new Error(`memory probe failed: ${res.stderr}`)
+      return JSON.parse(res.stdout.trim().split('\n').pop()!).maxRssBytes as number
+    }
+    return { idleRssBytes: once('--empty'), peakRssBytes: once(file) }
+  } finally {
+    rmSync(dir, { recursive: true, force: true })
+  }
+}
+
+// ---------------------------------------------------------------- main
+log(`bench: seed ${SEED}, about ${ELEMENTS} elements, ${os.cpus().length} cpus, Node ${process.version}, load average ${os.loadavg()[0].toFixed(2)}`)
+const loadBefore = os.loadavg()[0]
+const models: Record<string, ModelFigures> = {}
+let tetModel: Model | null = null
+for (const type of ['tet4', 'hex8'] as const) {
+  const model = syntheticModel(type, ELEMENTS, SEED)
+  models[type] = benchModel(model, true, `${type} ${model.mesh.elementCount}`)
+  if (type === 'tet4') tetModel = model
+}
+
+// Cost growth on tet4 over three sizes a decade apart, the largest being the main run.
+const sizes = [Math.round(ELEMENTS / 100), Math.round(ELEMENTS / 10)]
+const growthRuns: ModelFigures[] = []
+for (const size of sizes) {
+  const m = syntheticModel('tet4', size, SEED)
+  growthRuns.push(benchModel(m, false, `growth tet4 ${m.mesh.elementCount}`))
+}
+growthRuns.push(models.tet4)
+const growth: Record<string, { exponent: number; timesMs: number[] }> = {}
+const growthSizes = growthRuns.map((g) => g.elements)
+for (const k of KERNELS) {
+  const times = growthRuns.map((g) => g.kernels[k].medianMs)
+  growth[k] = { exponent: growthExponent(growthSizes, times), timesMs: times }
+}
+
+log('memory: separate processes')
+const memory = memoryProbe(tetModel!)
+tetModel = null
+
+const tet = models.tet4
+const k = tet.kernels
+const memLimit = memory.idleRssBytes + 3 * tet.modelBytes
+// `cpu`: the same figure from CPU time, shown beside the wall-clock one on a shared machine.
+const targets = [
+  { name: 'boundary faces with tractions ≤ 500 ms', value: k.boundary.medianMs, cpu: k.boundary.cpuMs, pass: k.boundary.medianMs <= 500, cpuPass: k.boundary.cpuMs <= 500 },
+  { name: 'boundary ≥ 5x the plain baseline', value: k.boundary.vsBaseline, cpu: null, pass: (k.boundary.vsBaseline ?? 0) >= 5, cpuPass: null },
+  { name: 'element balance audit ≤ 400 ms', value: k.audit.medianMs, cpu: k.audit.cpuMs, pass: k.audit.medianMs <= 400, cpuPass: k.audit.cpuMs <= 400 },
+  { name: 'section cut with free body ≤ 20 ms', value: k.cut.medianMs, cpu: k.cut.cpuMs, pass: k.cut.medianMs <= 20, cpuPass: k.cut.cpuMs <= 20 },
+  { name: 'section cut within 4x the streaming limit', value: k.cut.vsStreaming, cpu: null, pass: k.cut.vsStreaming <= 4, cpuPass: null },
+  { name: 'CSV read ≥ 100 MB/s', value: k.readCsv.mbPerS!, cpu: tet.csvBytes / 1e3 / k.readCsv.cpuMs, pass: k.readCsv.mbPerS! >= 100, cpuPass: tet.csvBytes / 1e3 / k.readCsv.cpuMs >= 100 },
+  { name: 'native read ≥ 1000 MB/s', value: k.readNative.mbPerS!, cpu: tet.modelBytes / 1e3 / k.readNative.cpuMs, pass: k.readNative.mbPerS! >= 1000, cpuPass: tet.modelBytes / 1e3 / k.readNative.cpuMs >= 1000 },
+  { name: 'peak RSS ≤ idle + 3 × model bytes (MB)', value: memory.peakRssBytes / 1e6, cpu: null, pass: memory.peakRssBytes <= memLimit, cpuPass: null },
+]
+const totalSeconds = (performance.now() - t0All) / 1000
+
+const result = {
+  kernels: tet.kernels,
+  elements: tet.elements,
+  modelBytes: tet.modelBytes,
+  peakRssBytes: memory.peakRssBytes,
+  idleRssBytes: memory.idleRssBytes,
+  seed: SEED,
+  machine: { loadAverage: [loadBefore, os.loadavg()[0]], cpus: os.cpus().length, cpuModel: os.cpus()[0]?.model ?? 'unknown', node: process.version, platform: `${os.platform()} ${os.arch()}`, totalMemBytes: os.totalmem() },
+  models,
+  growth: { elements: growthSizes, kernels: growth },
+  targets: targets.map((t) => ({ ...t, appliesAt: 'tet4, 10^6 elements' })),
+  totalSeconds,
+}
+
+if (!jsonOnly) process.stdout.write(renderTables() + '\n')
+process.stdout.write(JSON.stringify(result, null, 2) + '\n')
+
+// ---------------------------------------------------------------- text tables
+function f(v: number | null | undefined, digits = 3): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '-'
+  const a = Math.abs(v)
+  if (a !== 0 && (a >= 1e6 || a < 1e-3)) return v.toExponential(2)
+  return a >= 100 ? v.toFixed(0) : v.toPrecision(digits)
+}
+function pad(rows: string[][]): string {
+  const w: number[] = []
+  for (const r of rows) r.forEach((c, i) => { w[i] = Math.max(w[i] ?? 0, c.length) })
+  return rows.map((r) => r.map((c, i) => (i === 0 ? c.padEnd(w[i]) : c.padStart(w[i]))).join('  ')).join('\n')
+}
+function renderTables(): string {
+  const out: string[] = []
+  out.push(`Tractus benchmarks: seed ${SEED}, ${result.machine.cpus} × ${result.machine.cpuModel}, Node ${process.version}, ${result.machine.platform}`)
+  out.push(`Load average at start ${f(loadBefore)}, at end ${f(os.loadavg()[0])} (above ${result.machine.cpus}, other processes share the cores and wall-clock times grow; cpu ms counts this process only)`)
+  for (const m of Object.values(models)) {
+    out.push('')
+    out.push(`${m.type} block, ${m.cellsPerSide}³ cells: ${m.elements} elements, ${m.nodes} nodes, native ${f(m.modelBytes / 1e6)} MB, CSV ${f(m.csvBytes / 1e6)} MB`)
+    const rows = [['kernel', 'median ms', 'cpu ms', 'streaming ms', '× streaming', 'baseline ms', 'speed-up ×', 'MB/s', 'runs']]
+    for (const name of KERNELS) {
+      const x = m.kernels[name]
+      rows.push([name, f(x.medianMs), f(x.cpuMs), f(x.streamingMs), f(x.vsStreaming), f(x.baselineMs), f(x.vsBaseline), f(x.mbPerS), String(x.runs)])
+    }
+    out.push(pad(rows))
+    out.push('checks: ' + Object.entries(m.checks).map(([a, b]) => `${a} ${typeof b === 'number' ? f(b) : b}`).join(', '))
+  }
+  out.push('')
+  out.push(`Cost growth (tet4), time ∝ elements^exponent over ${growthSizes.join(', ')} elements`)
+  const g = [['kernel', ...growthSizes.map((s) => `${s} ms`), 'exponent']]
+  for (const name of KERNELS) g.push([name, ...growth[name].timesMs.map((t) => f(t)), f(growth[name].exponent)])
+  out.push(pad(g))
+  out.push('')
+  out.push(`Memory (separate process: native read, boundary, audit, one cut): peak ${f(memory.peakRssBytes / 1e6)} MB, idle ${f(memory.idleRssBytes / 1e6)} MB, limit idle + 3 × ${f(tet.modelBytes / 1e6)} MB = ${f(memLimit / 1e6)} MB`)
+  out.push('')
+  out.push('Targets (tet4 block; they are stated for 10^6 elements)')
+  out.push(pad([['target', 'measured', 'result', 'from cpu time', 'result'], ...targets.map((t) => [t.name, f(t.value), t.pass ? 'met' : 'MISSED', f(t.cpu), t.cpuPass === null ? '' : t.cpuPass ? 'met' : 'MISSED'])]))
+  out.push('')
+  out.push(`Total ${f(totalSeconds)} s`)
+  return out.join('\n')
+}
