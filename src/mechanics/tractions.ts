@@ -87,7 +87,9 @@ export function computeSurfaceTractions(mesh: Mesh, stress: Float64Array, faces:
       nodeNormal[3 * slot] = nx; nodeNormal[3 * slot + 1] = ny; nodeNormal[3 * slot + 2] = nz
       nodeTraction[3 * slot] = tx; nodeTraction[3 * slot + 1] = ty; nodeTraction[3 * slot + 2] = tz
       nodeNormalTraction[slot] = tn
-      nodeShear[slot] = Math.sqrt(Math.max(0, t2 - tn * tn))
+      // |t - t_n n| directly: √(|t|² - t_n²) loses half the digits when the shear is small.
+      const qx = tx - tn * nx, qy = ty - tn * ny, qz = tz - tn * nz
+      nodeShear[slot] = Math.sqrt(qx * qx + qy * qy + qz * qz)
       nodeMagnitude[slot] = Math.sqrt(t2)
     }
 
@@ -124,7 +126,8 @@ export function computeSurfaceTractions(mesh: Mesh, stress: Float64Array, faces:
       mx += (py * tz - pz * ty) * dA; my += (pz * tx - px * tz) * dA; mz += (px * ty - py * tx) * dA
       A += dA
       In += tn * dA
-      Is += Math.sqrt(Math.max(0, t2 - tn * tn)) * dA
+      const qx = tx - tn * nx, qy = ty - tn * ny, qz = tz - tn * nz
+      Is += Math.sqrt(qx * qx + qy * qy + qz * qz) * dA
       Im += Math.sqrt(t2) * dA
     }
     force[3 * f] = fx; force[3 * f + 1] = fy; force[3 * f + 2] = fz
