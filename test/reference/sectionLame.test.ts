@@ -1,0 +1,54 @@
+import { describe, expect, it } from 'vitest'
+import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import type { Vec3 } from '../../src/model/model.ts'
+import { cylinderMesh, nodalStress } from '../helpers/sectionMeshes.ts'
+
+// Thick-walled cylinder, Lamé solution (Timoshenko & Goodier §28): inner radius a with pressure
+// p_i, outer radius b with p_o, open ends (σzz = 0):
+//   σr = A - B/r², σθ = A + B/r², A = (p_i a² - p_o b²)/(b² - a²), B = (p_i - p_o) a² b²/(b² - a²).
+// Statics of a half cylinder: a diametral section carries 2(p_i a - p_o b) per unit length.
+const a = 0.5, b = 1.0, pi = 10e6, po = 2e6, lz = 0.2
+const Ac = (pi * a * a - po * b * b) / (b * b - a * a)
+const Bc = ((pi - po) * a * a * b * b) / (b * b - a * a)
+const lame = (x: number, y: number): number[] => {
+  const r2 = x * x + y * y, c = x / Math.sqrt(r2), s = y / Math.sqrt(r2)
+  const sr = Ac - Bc / r2, st = Ac + Bc / r2
+  return [sr * c * c + st * s * s, sr * s * s + st * c * c, 0, (sr - st) * c * s, 0, 0]
+}
+const ZERO: Vec3 = [0, 0, 0]
+const expected = 2 * (pi * a - po * b) * lz
+
+describe('Lamé thick cylinder (Timoshenko & Goodier §28)', () => {
+  it.each(['hex8', 'tet4'] as const)('%s: a diametral section carries 2(p_i a - p_o b) per unit length', (type) => {
+    const errors: number[] = []
+    for (const nr of [4, 8, 16]) {
+      const mesh = cylinderMesh(a, b, lz, nr, 64, 1, type)
+      const stress = nodalStress(mesh, (x, y) => lame(x, y))
+      // plane y = 0 with normal +y: the + half (y > 0) pulls on the - half across two strips
+      const { result: r } = cutSection(mesh, stress, ZERO, { point: [0, 0, lz / 2], normal: [0, 1, 0] })
+      expect(r.area).toBeCloseTo(2 * (b - a) * lz, 12)
+      errors.push(Math.abs(r.force[1] - expected) / expected)
+      expect(Math.abs(r.force[0]) + Math.abs(r.force[2])).toBeLessThan(1e-9 * expected)
+    }
+    // σθ is linear between nodes along the section (trapezoid in r): error falls as h²
+    expect(errors[1]).toBeLessThan(errors[0] / 3.5)
+    expect(errors[2]).toBeLessThan(errors[1] / 3.5)
+    expect(errors[2]).toBeLessThan(1.5e-3)
+  })
+
+  // Free body of the lower half: the pressures on its faceted inner and outer faces against the
+  // section. The mesh's chords are not the circles the nodal stresses belong to, so the residual
+  // is a geometry error that falls like (2π/n)² with the number of facets n (32 elements through
+  // the wall keep the section's own radial error, ~2.5e-4, below it).
+  it.each(['hex8', 'tet4'] as const)('%s: the half cylinder balances as the facets refine', (type) => {
+    const rel: number[] = []
+    for (const nt of [32, 64, 128]) {
+      const mesh = cylinderMesh(a, b, lz, 32, nt, 1, type)
+      const { result: r } = cutSection(mesh, nodalStress(mesh, (x, y) => lame(x, y)), ZERO, { point: [0, 0, lz / 2], normal: [0, 1, 0] })
+      rel.push(r.freeBody.relative)
+    }
+    expect(rel[1]).toBeLessThan(rel[0] / 3)
+    expect(rel[2]).toBeLessThan(rel[1] / 3)
+    expect(rel[2]).toBeLessThan(1e-3)
+  })
+})
