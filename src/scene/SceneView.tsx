@@ -41,6 +41,13 @@ function SceneContents() {
   const sectionLo = useStore((s) => sectionColouring(s).range[0])
   const sectionHi = useStore((s) => sectionColouring(s).range[1])
   const sectionRange = useMemo(() => [sectionLo, sectionHi] as const, [sectionLo, sectionHi])
+  const sectionResult = useStore((s) => s.sectionResult)
+  const cut = useMemo(() => {
+    if (!sectionResult || sectionResult.empty || !(sectionResult.area > 0)) return null
+    // Twice the polar radius of gyration √(J/A) covers a compact section with a margin
+    // (a rectangle's half-diagonal is √3 times it).
+    return { centroid: sectionResult.centroid, halfSize: 2 * Math.sqrt(sectionResult.secondMoments.J / sectionResult.area) }
+  }, [sectionResult])
   const sphere = useModelSphere()
   const clippingPlanes = useClippingPlanes()
   const normal = useMemo(() => sectionPlaneOf(section).normal, [section])
@@ -54,6 +61,7 @@ function SceneContents() {
         <SurfaceMesh
           surface={surface} quantity={quantity} range={range} colourMap={colourMap}
           highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds}
+          clipped={section.enabled && section.hide !== 'none'}
         />
       )}
       {arrows && sphere && arrowSettings.surface && (
@@ -71,7 +79,7 @@ function SceneContents() {
           colourMap={sectionMap} colour={arrowSettings.colour} clippingPlanes={NO_PLANES}
         />
       )}
-      {section.enabled && sphere && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} />}
+      {section.enabled && sphere && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} cut={cut} />}
     </>
   )
 }

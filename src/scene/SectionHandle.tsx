@@ -16,6 +16,11 @@ export interface SectionHandleProps {
   /** Model sphere: centre and radius, length units. */
   readonly center: readonly [number, number, number]
   readonly radius: number
+  /**
+   * The cut's own centre and half-size (length units) when known, so the outline hugs the
+   * section instead of the whole model.
+   */
+  readonly cut?: { readonly centroid: readonly [number, number, number]; readonly halfSize: number } | null
 }
 
 /** Perpendicular unit vectors (e1, e2) to the unit n, e1 × e2 = n. */
@@ -32,7 +37,7 @@ function basis(n: Vector3): [Vector3, Vector3] {
  * offset, written to the store at most once per animation frame; orbiting is off while dragging.
  * Kept out of snapshots (userData.noSnapshot).
  */
-export function SectionHandle({ section, center, radius }: SectionHandleProps) {
+export function SectionHandle({ section, center, radius, cut }: SectionHandleProps) {
   const camera = useThree((s) => s.camera) as PerspectiveCamera
   const gl = useThree((s) => s.gl)
   const controls = useThree((s) => s.controls) as unknown as { enabled: boolean } | null
@@ -43,15 +48,18 @@ export function SectionHandle({ section, center, radius }: SectionHandleProps) {
 
   const { point, normal } = sectionPlaneOf(section)
   const n = useMemo(() => new Vector3(normal[0], normal[1], normal[2]), [normal[0], normal[1], normal[2]])
-  // Handle centre: the model centre projected on the plane, so the handle stays over the part.
+  // Handle centre: the cut's centroid, else the model centre, projected on the plane so the
+  // handle stays over the part while the cut catches up with a drag.
   const c = new Vector3(center[0], center[1], center[2])
-  const dist = (c.x - point[0]) * n.x + (c.y - point[1]) * n.y + (c.z - point[2]) * n.z
-  const hc = c.clone().addScaledVector(n, -dist)
+  const anchor = cut ? new Vector3(cut.centroid[0], cut.centroid[1], cut.centroid[2]) : c
+  const dist = (anchor.x - point[0]) * n.x + (anchor.y - point[1]) * n.y + (anchor.z - point[2]) * n.z
+  const hc = anchor.clone().addScaledVector(n, -dist)
   const r = radius > 0 ? radius : 1
+  const half = cut && cut.halfSize > 0 ? Math.min(1.05 * r, Math.max(0.15 * r, cut.halfSize)) : 0.7 * r
 
   const outline = useMemo(() => {
     const [e1, e2] = basis(n)
-    const s = 1.05 * r
+    const s = half
     const pts = new Float32Array(12)
     const corners = [[-1, -1], [1, -1], [1, 1], [-1, 1]]
     corners.forEach(([a, b], i) => {
@@ -64,7 +72,7 @@ export function SectionHandle({ section, center, radius }: SectionHandleProps) {
     line.raycast = () => {}
     line.userData.noSnapshot = true
     return line
-  }, [n, r])
+  }, [n, half])
   useEffect(() => () => { outline.geometry.dispose(); (outline.material as LineBasicMaterial).dispose() }, [outline])
 
   const arrowMaterial = useMemo(() => new MeshBasicMaterial({ color: rawColour(HANDLE), depthTest: false, toneMapped: false }), [])
@@ -75,7 +83,7 @@ export function SectionHandle({ section, center, radius }: SectionHandleProps) {
   }, [arrowMaterial, hover, dragging, invalidate])
 
   const quaternion = useMemo(() => new Quaternion().setFromUnitVectors(new Vector3(0, 1, 0), n), [n])
-  const length = 0.32 * r
+  const length = Math.max(0.22 * r, 0.9 * half)
 
   const onPointerDown = (e: ThreeEvent<PointerEvent>) => {
     if (e.button !== 0) return
@@ -127,14 +135,14 @@ export function SectionHandle({ section, center, radius }: SectionHandleProps) {
         geometry={unitArrowGeometry()}
         material={arrowMaterial}
         quaternion={quaternion}
-        scale={[0.018 * r, length, 0.018 * r]}
+        scale={[0.014 * r, length, 0.014 * r]}
         renderOrder={11}
         onPointerDown={onPointerDown}
         onPointerOver={() => { setHover(true); gl.domElement.style.cursor = 'grab' }}
         onPointerOut={() => { setHover(false); gl.domElement.style.cursor = '' }}
       />
       <mesh renderOrder={11} material={arrowMaterial} onPointerDown={onPointerDown}>
-        <sphereGeometry args={[0.04 * r, 12, 8]} />
+        <sphereGeometry args={[0.03 * r, 12, 8]} />
       </mesh>
     </group>
   )

@@ -1,5 +1,5 @@
 import { useEffect, useMemo } from 'react'
-import { BufferAttribute, BufferGeometry, Sphere, Vector3 } from 'three'
+import { BackSide, BufferAttribute, BufferGeometry, FrontSide, Sphere, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { QuantityName, SurfaceBuffers } from '../app/store.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
@@ -16,6 +16,11 @@ export interface SurfaceMeshProps {
   /** Load-patch id to tint, -1 for none. */
   readonly highlightedPatch: number
   readonly clippingPlanes: Plane[]
+  /**
+   * True while a side of the body is clipped away: the inside then shows through the cut, so
+   * back faces are drawn too; otherwise they are culled.
+   */
+  readonly clipped: boolean
   /** Model bounds, so three.js never loops over the vertices to find them. */
   readonly bounds: { readonly min: readonly number[]; readonly max: readonly number[] }
 }
@@ -27,7 +32,7 @@ const noRaycast = (): void => {}
  * The boundary surface, colour-mapped by one scalar per vertex. The geometry is built once per
  * buffer set; quantity, range, map and highlight only swap an attribute or set a uniform.
  */
-export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPatch, clippingPlanes, bounds }: SurfaceMeshProps) {
+export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPatch, clippingPlanes, clipped, bounds }: SurfaceMeshProps) {
   const invalidate = useThree((s) => s.invalidate)
 
   const { geometry, scalarAttributes } = useMemo(() => {
@@ -46,7 +51,11 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
 
   useEffect(() => () => geometry.dispose(), [geometry])
 
-  const material = useMemo(() => createScalarMaterial(colourMapTexture('viridis'), clippingPlanes), [clippingPlanes])
+  const material = useMemo(() => {
+    const m = createScalarMaterial(colourMapTexture('viridis'), clippingPlanes)
+    m.side = FrontSide
+    return m
+  }, [clippingPlanes])
   useEffect(() => () => material.dispose(), [material])
 
   useEffect(() => {
@@ -59,6 +68,17 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
     invalidate()
   }, [geometry, scalarAttributes, surface, quantity, invalidate])
 
+  // The inside seen through the cut: a second pass over the same geometry, back faces only,
+  // pushed further back in depth so front faces always win along silhouette edges.
+  const backMaterial = useMemo(() => {
+    const m = createScalarMaterial(colourMapTexture('viridis'), clippingPlanes)
+    m.side = BackSide
+    m.polygonOffsetFactor = 4
+    m.polygonOffsetUnits = 8
+    return m
+  }, [clippingPlanes])
+  useEffect(() => () => backMaterial.dispose(), [backMaterial])
+
   useEffect(() => {
     const u = material.uniforms
     u.map.value = colourMapTexture(colourMap)
@@ -67,5 +87,10 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
     invalidate()
   }, [material, colourMap, range, highlightedPatch, invalidate])
 
-  return <mesh geometry={geometry} material={material} raycast={noRaycast} frustumCulled={false} />
+  return (
+    <>
+      <mesh geometry={geometry} material={material} raycast={noRaycast} frustumCulled={false} />
+      {clipped && <mesh geometry={geometry} material={backMaterial} raycast={noRaycast} frustumCulled={false} />}
+    </>
+  )
 }
