@@ -61,7 +61,7 @@ export function sortBundleFiles<T extends { readonly name: string }>(files: read
   const missing = REQUIRED_BUNDLE_FILES.filter((r) => !byRole.has(r))
   if (missing.length) {
     const got = files.length ? files.map((f) => f.name).join(', ') : 'no files'
-    throw new InputError('missing-file', `missing ${missing.join(', ')}; got: ${got}. A CSV bundle needs nodes.csv, elements.csv and stress.csv (displacement.csv and model.json are optional)`, { file: missing[0] })
+    throw new InputError('missing-file', `missing ${missing.join(', ')}; got: ${got}. A CSV bundle needs nodes.csv, elements.csv and stress.csv (displacement.csv and model.json are optional)`)
   }
   return { byRole, ignored }
 }
