@@ -22,7 +22,9 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
   const E = mesh.elementCount
   const residual = new Float64Array(3 * E), gross = new Float64Array(E), indicator = new Float64Array(E)
   const volume = new Float64Array(E)
-  elementVolumesAndCentroids(mesh, volume, null)
+  // tet4 blocks compute their volume inline; the others use the volume quadrature.
+  const hasOther = mesh.blocks.some((b) => b.type !== 'tet4')
+  if (hasOther) elementVolumesAndCentroids(mesh, volume, null)
   const bx = bodyForce[0], by = bodyForce[1], bz = bodyForce[2]
   const bMag = Math.sqrt(bx * bx + by * by + bz * bz)
   const x = mesh.coords
@@ -34,28 +36,44 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
     const conn = b.conn, off = b.offset, nn = topo.nodeCount
     const count = conn.length / nn
     if (b.type === 'tet4') {
-      // Flat faces and linear σ: ∫ σn dA = σ̄ · (A n) exactly, with σ̄ the corner mean.
-      const faces = topo.faces
+      // Flat faces and linear σ: ∫ σn dA = σ̄ · (A n) exactly, σ̄ the mean of the face's three
+      // corners. The face opposite corner k has corner sum Σσ - σ_k; its area vector a_k is
+      // ½ of a cross product; Σ a_k = 0 saves one. Volume V = (x1-x0)·((x2-x0)×(x3-x0))/6.
       for (let e = 0; e < count; e++) {
+        const n0 = conn[4 * e], n1 = conn[4 * e + 1], n2 = conn[4 * e + 2], n3 = conn[4 * e + 3]
+        const x0 = x[3 * n0], y0 = x[3 * n0 + 1], z0 = x[3 * n0 + 2]
+        const ux = x[3 * n1] - x0, uy = x[3 * n1 + 1] - y0, uz = x[3 * n1 + 2] - z0
+        const vx = x[3 * n2] - x0, vy = x[3 * n2 + 1] - y0, vz = x[3 * n2 + 2] - z0
+        const wx = x[3 * n3] - x0, wy = x[3 * n3 + 1] - y0, wz = x[3 * n3 + 2] - z0
+        // Outward doubled area vectors: opposite 3 = v × u, opposite 2 = u × w, opposite 1 = w × v.
+        const a3x = vy * uz - vz * uy, a3y = vz * ux - vx * uz, a3z = vx * uy - vy * ux
+        const a2x = uy * wz - uz * wy, a2y = uz * wx - ux * wz, a2z = ux * wy - uy * wx
+        const a1x = wy * vz - wz * vy, a1y = wz * vx - wx * vz, a1z = wx * vy - wy * vx
+        const a0x = -(a1x + a2x + a3x), a0y = -(a1y + a2y + a3y), a0z = -(a1z + a2z + a3z)
+        const vol = -(ux * a1x + uy * a1y + uz * a1z) / 6
+        const s0 = 6 * n0, s1 = 6 * n1, s2 = 6 * n2, s3 = 6 * n3
+        const txx = stress[s0] + stress[s1] + stress[s2] + stress[s3]
+        const tyy = stress[s0 + 1] + stress[s1 + 1] + stress[s2 + 1] + stress[s3 + 1]
+        const tzz = stress[s0 + 2] + stress[s1 + 2] + stress[s2 + 2] + stress[s3 + 2]
+        const txy = stress[s0 + 3] + stress[s1 + 3] + stress[s2 + 3] + stress[s3 + 3]
+        const tyz = stress[s0 + 4] + stress[s1 + 4] + stress[s2 + 4] + stress[s3 + 4]
+        const txz = stress[s0 + 5] + stress[s1 + 5] + stress[s2 + 5] + stress[s3 + 5]
         let rx = 0, ry = 0, rz = 0, g = 0
-        for (let f = 0; f < 4; f++) {
-          const fa = faces[f]
-          const i0 = conn[4 * e + fa[0]], i1 = conn[4 * e + fa[1]], i2 = conn[4 * e + fa[2]]
-          const a = 3 * i0, c1 = 3 * i1, c2 = 3 * i2
-          const ux = x[c1] - x[a], uy = x[c1 + 1] - x[a + 1], uz = x[c1 + 2] - x[a + 2]
-          const vx = x[c2] - x[a], vy = x[c2 + 1] - x[a + 1], vz = x[c2 + 2] - x[a + 2]
-          // Area vector A n = ½ u × v; the 1/3 of the corner mean is folded in below.
-          const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx
-          const s0 = 6 * i0, s1 = 6 * i1, s2 = 6 * i2
-          const sxx = stress[s0] + stress[s1] + stress[s2], syy = stress[s0 + 1] + stress[s1 + 1] + stress[s2 + 1]
-          const szz = stress[s0 + 2] + stress[s1 + 2] + stress[s2 + 2], sxy = stress[s0 + 3] + stress[s1 + 3] + stress[s2 + 3]
-          const syz = stress[s0 + 4] + stress[s1 + 4] + stress[s2 + 4], sxz = stress[s0 + 5] + stress[s1 + 5] + stress[s2 + 5]
-          const fx = (sxx * nx + sxy * ny + sxz * nz) / 6
-          const fy = (sxy * nx + syy * ny + syz * nz) / 6
-          const fz = (sxz * nx + syz * ny + szz * nz) / 6
+        for (let k = 0; k < 4; k++) {
+          const sk = k === 0 ? s0 : k === 1 ? s1 : k === 2 ? s2 : s3
+          const ax = k === 0 ? a0x : k === 1 ? a1x : k === 2 ? a2x : a3x
+          const ay = k === 0 ? a0y : k === 1 ? a1y : k === 2 ? a2y : a3y
+          const az = k === 0 ? a0z : k === 1 ? a1z : k === 2 ? a2z : a3z
+          const sxx = txx - stress[sk], syy = tyy - stress[sk + 1], szz = tzz - stress[sk + 2]
+          const sxy = txy - stress[sk + 3], syz = tyz - stress[sk + 4], sxz = txz - stress[sk + 5]
+          // (corner sum / 3) · (½ doubled area vector) = corner sum · a / 6.
+          const fx = (sxx * ax + sxy * ay + sxz * az) / 6
+          const fy = (sxy * ax + syy * ay + syz * az) / 6
+          const fz = (sxz * ax + syz * ay + szz * az) / 6
           rx += fx; ry += fy; rz += fz
           g += Math.sqrt(fx * fx + fy * fy + fz * fz)
         }
+        volume[off + e] = vol
         store(off + e, rx, ry, rz, g)
       }
       continue
