@@ -55,5 +55,7 @@ export function unitVector(v: Vec3, name: string): Vec3 {
 
 /** JSON with a trailing newline; non-finite numbers become null so the output always parses. */
 export function printJson(io: CliIO, value: unknown): void {
-  io.stdout(JSON.stringify(value, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n')
+  const text = JSON.stringify(value, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2)
+  // Short arrays of numbers (vectors, percentiles) on one line, so the output reads like the table.
+  io.stdout(text.replace(/\[\s+(-?[\d.eE+-]+|null)((?:,\s+(?:-?[\d.eE+-]+|null)){0,5})\s+\]/g, (_m, a: string, rest: string) => `[${a}${rest.replace(/,\s+/g, ', ')}]`) + '\n')
 }
