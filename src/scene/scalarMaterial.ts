@@ -1,13 +1,14 @@
 import { DoubleSide, ShaderMaterial, Vector2, Vector4 } from 'three'
 import type { Color, Plane, Texture } from 'three'
-import { HIGHLIGHT, NEUTRAL_SURFACE } from './sceneLook.ts'
+import { NEUTRAL_SURFACE } from './sceneLook.ts'
 import { rawColour } from './rawColour.ts'
 
 /**
  * Colour-mapped surface material. A float vertex attribute `scalar` goes through a 256×1 colour
  * map texture between the uniforms `range` = (min, max); switching quantity swaps an attribute
  * and switching range or map changes a uniform, so neither costs a loop on the main thread.
- * Optional float attribute `label` (load-patch id) is tinted where it equals `highlight`.
+ * Optional float attribute `label` (load-patch id): while `highlight` ≥ 0, faces of other patches
+ * fade towards neutral, so the highlighted patch keeps its data colours and stands out.
  *
  * Light: a head light from the viewer, slightly from above, plus ambient, so the shape reads
  * without a lighting setup to tune. Back faces (seen through a section cut) are drawn neutral
@@ -18,7 +19,6 @@ export interface ScalarMaterialUniforms {
   map: { value: Texture }
   range: { value: Vector2 }
   highlight: { value: number }
-  highlightColour: { value: Color }
   neutral: { value: Color }
   useLabel: { value: number }
   /** 1 when the surface has scalars, 0 to paint it neutral (no quantity yet). */
@@ -53,7 +53,6 @@ const fragmentShader = /* glsl */ `
 uniform sampler2D map;
 uniform vec2 range;
 uniform float highlight;
-uniform vec3 highlightColour;
 uniform vec3 neutral;
 uniform float useLabel;
 uniform float useScalar;
@@ -81,8 +80,9 @@ void main() {
     // Sample the centres of the first and last texels at t = 0 and 1.
     base = texture2D(map, vec2((t * 255.0 + 0.5) / 256.0, 0.5)).rgb;
   }
-  if (useLabel > 0.5 && highlight >= 0.0 && abs(vLabel - highlight) < 0.5) {
-    base = mix(base, highlightColour, 0.55);
+  if (useLabel > 0.5 && highlight >= 0.0) {
+    // Keep the patch's own colours readable and fade the rest towards neutral grey.
+    if (abs(vLabel - highlight) >= 0.5) base = mix(base, neutral, 0.7);
   }
   vec3 l = normalize(vec3(0.25, 0.45, 1.0));
   float shade = 0.62 + 0.38 * max(dot(n, l), 0.0);
@@ -95,7 +95,6 @@ export function createScalarMaterial(map: Texture, clippingPlanes: Plane[]): Sha
     map: { value: map },
     range: { value: new Vector2(0, 1) },
     highlight: { value: -1 },
-    highlightColour: { value: rawColour(HIGHLIGHT) },
     neutral: { value: rawColour(NEUTRAL_SURFACE) },
     useLabel: { value: 1 },
     useScalar: { value: 1 },

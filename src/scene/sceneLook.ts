@@ -7,8 +7,6 @@
 export const BACKGROUND = '#e6e6e3'
 /** Surface where a value is missing (NaN), and the back of the surface seen through a cut. */
 export const NEUTRAL_SURFACE = '#b9b9b4'
-/** Tint of a highlighted load patch, mixed into the colour-mapped surface. */
-export const HIGHLIGHT = '#ff8c1a'
 /** Section handle: plane outline and drag arrow. */
 export const HANDLE = '#2f4f6f'
 export const HANDLE_ACTIVE = '#d06a12'

@@ -1,29 +1,12 @@
 import { useEffect, useMemo } from 'react'
 import { Plane, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
-import { sectionPlaneOf, useStore } from '../app/store.ts'
-import type { SectionState } from '../app/store.ts'
-
-/** Offset that puts the plane beyond any model: nothing is clipped, yet the shader keeps its plane. */
-const NOWHERE = 1e30
+import { useStore } from '../app/store.ts'
+import { NOWHERE, sectionClipPlane } from './sectionClipPlane.ts'
 
 /**
- * Writes the clipping plane that hides one side of the section into `out` (three.js clips where
- * n·x + c < 0). With no section or `hide: 'none'` the plane moves out of reach instead of being
- * removed, so the shader programs keep their clipping variant and never recompile.
- */
-export function sectionClipPlane(out: Plane, s: SectionState): Plane {
-  if (!s.enabled || s.hide === 'none') return out.set(new Vector3(0, 0, 1), NOWHERE)
-  const { point, normal } = sectionPlaneOf(s)
-  const d = normal[0] * point[0] + normal[1] * point[1] + normal[2] * point[2]
-  // Hide +m: keep m·x - d ≤ 0, i.e. clip where -(m·x) + d < 0.
-  if (s.hide === 'positive') return out.set(new Vector3(-normal[0], -normal[1], -normal[2]), d)
-  return out.set(new Vector3(normal[0], normal[1], normal[2]), -d)
-}
-
-/**
- * The one clipping-plane array shared by the materials that hide a side of the section (the
- * surface, its edges and its arrows; never the section face). The plane is updated in place.
+ * A clipping-plane array for the materials that hide a side of the section (the surface and its
+ * arrows; never the section face). The plane is updated in place, never replaced.
  */
 export function useClippingPlanes(): Plane[] {
   const planes = useMemo(() => [new Plane(new Vector3(0, 0, 1), NOWHERE)], [])
