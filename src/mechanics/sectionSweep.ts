@@ -58,16 +58,18 @@ export function sweepSections(
   const hs = Math.abs(h)
   const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
   const coords = mesh.coords, N = mesh.nodeCount
-  // D = x·m and the snap band T of each node (see SNAP_EPS in sectionCut.ts): d = D - o is taken
-  // as 0 when |d| ≤ T, so nodes that lie on a plane up to round-off all count as lying on it
+  // D = x·m and the node's part of the snap band (see SNAP_EPS in sectionCut.ts): for the plane
+  // at o, d = D - o is taken as 0 when |d| ≤ T + SNAP_EPS·|o|, the band a single cut uses, so
+  // nodes lying on a plane up to round-off all count as lying on it
   const D = new Float64Array(N), T = new Float64Array(N)
-  const omax = Math.max(Math.abs(from), Math.abs(to))
   const amx = Math.abs(m[0]), amy = Math.abs(m[1]), amz = Math.abs(m[2])
   for (let i = 0; i < N; i++) {
     const x = coords[3 * i], y = coords[3 * i + 1], z = coords[3 * i + 2]
     D[i] = x * m[0] + y * m[1] + z * m[2]
-    T[i] = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz + omax)
+    T[i] = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz)
   }
+  // candidate planes are found with the band at its widest, then every plane uses its own
+  const wide = 2 * SNAP_EPS * Math.max(Math.abs(from), Math.abs(to))
 
   const acc = new Float64Array(count * ACC_SIZE)
   const sc = createPolygonScratch()
@@ -81,7 +83,7 @@ export function sweepSections(
     for (let e = 0, base = 0; e < n; e++, base += nn) {
       let lo = Infinity, hi = -Infinity
       for (let c = 0; c < cc; c++) {
-        const i = conn[base + c], v = D[i], t = 2 * T[i]
+        const i = conn[base + c], v = D[i], t = 2 * T[i] + wide
         if (v - t < lo) lo = v - t
         if (v + t > hi) hi = v + t
       }
@@ -115,7 +117,7 @@ export function sweepSections(
     const nc = faceCornerCount(kind[f]), fbase = FACE_SLOTS * f
     let lo = Infinity, hi = -Infinity
     for (let c = 0; c < nc; c++) {
-      const i = nodes[fbase + c], v = D[i], t = 2 * T[i]
+      const i = nodes[fbase + c], v = D[i], t = 2 * T[i] + wide
       if (v - t < lo) lo = v - t
       if (v + t > hi) hi = v + t
     }
@@ -157,8 +159,9 @@ export function sweepSections(
  */
 function snappedDistances(dist: Float64Array, D: Float64Array, T: Float64Array, nodes: Int32Array, base: number, nc: number, o: number): boolean {
   let neg = 0
+  const to = SNAP_EPS * Math.abs(o)
   for (let c = 0; c < nc; c++) {
-    const i = nodes[base + c], r = D[i] - o, t = T[i]
+    const i = nodes[base + c], r = D[i] - o, t = T[i] + to
     const d = r < -t || r > t ? r : 0
     dist[c] = d
     if (d < 0) neg++
@@ -166,11 +169,16 @@ function snappedDistances(dist: Float64Array, D: Float64Array, T: Float64Array, 
   return neg > 0 && neg < nc
 }
 
-/** All corners of a face strictly on the - side of the plane at o (same snap as above). */
+/**
+ * All corners of a face strictly on the - side of the plane at o (same snap as above). Monotone in
+ * o up to rounding; the caller clips a face per plane only before the run where this holds, so a
+ * face is never counted both whole and clipped.
+ */
 function allNegative(D: Float64Array, T: Float64Array, nodes: Int32Array, base: number, nc: number, o: number): boolean {
+  const to = SNAP_EPS * Math.abs(o)
   for (let c = 0; c < nc; c++) {
     const i = nodes[base + c]
-    if (!(D[i] - o < -T[i])) return false
+    if (!(D[i] - o < -(T[i] + to))) return false
   }
   return true
 }
