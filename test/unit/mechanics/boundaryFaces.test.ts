@@ -61,6 +61,26 @@ describe('extractBoundaryFaces', () => {
     expect(Array.from(f.elem).filter((e) => e === 2).length).toBe(5)
   })
 
+  it('a node shared by very many faces (a fan of 80 tetrahedra around one axis) still matches', () => {
+    // Nodes 0 and 1 on the axis, a ring of K nodes around it: tet (0, 1, r_i, r_i+1). Every face
+    // bucketed on node 0 lands in one bucket of 3K faces (the large-bucket path).
+    const K = 80
+    const coords = new Float64Array(3 * (K + 2))
+    coords.set([0, 0, 0, 0, 0, 1])
+    for (let i = 0; i < K; i++) coords.set([Math.cos((2 * Math.PI * i) / K), Math.sin((2 * Math.PI * i) / K), 0.5], 3 * (i + 2))
+    const conn = new Int32Array(4 * K)
+    for (let i = 0; i < K; i++) {
+      const a = 2 + i, b = 2 + ((i + 1) % K)
+      // (x1-x0)×(x2-x0)·(x3-x0) > 0 for (0, a, b, 1) with the ring counter-clockwise seen from +z.
+      conn.set([0, a, b, 1], 4 * i)
+    }
+    const f = extractBoundaryFaces(createMesh(coords, [{ type: 'tet4', conn }]))
+    expect(f.count).toBe(2 * K)
+    let sz = 0
+    for (let i = 0; i < f.count; i++) sz += f.area[i] * f.normal[3 * i + 2]
+    expect(Math.abs(sz)).toBeLessThan(1e-12)
+  })
+
   it('reports a face shared by three elements with the element ids', () => {
     const box = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }, 'hex8')
     const conn = box.blocks[0].conn
