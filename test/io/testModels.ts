@@ -58,13 +58,13 @@ export function boxModel(type: ElementTypeName, spec: BoxSpec = SMALL_BOX, withD
  * the I/O layer does not care). Node ids start at 1 and element ids at 1 in each box, shifted by
  * `idGap` per box so ids stay unique and non-contiguous; parts number the boxes from 1.
  */
-export function mixedModel(types: readonly ElementTypeName[], idGap = 1000, withDisplacement = true): Model {
+export function mixedModel(types: readonly ElementTypeName[], idGap = 1000, withDisplacement = true, spec: BoxSpec = SMALL_BOX): Model {
   const coords: number[] = []
   const nodeIds: number[] = []
   const blocks: BlockInput[] = []
   let nodeBase = 0
   types.forEach((t, k) => {
-    const m = boxMesh({ ...SMALL_BOX, x0: 3 * k }, t)
+    const m = boxMesh({ ...spec, x0: 3 * k }, t)
     for (let i = 0; i < m.nodeCount; i++) {
       coords.push(m.coords[3 * i], m.coords[3 * i + 1], m.coords[3 * i + 2])
       nodeIds.push(k * idGap * 10 + i + 1)
