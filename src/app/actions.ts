@@ -6,7 +6,7 @@ import { download, fileStem } from './exports.ts'
 import { loadSource, onModelLoaded } from './engine.ts'
 import type { AppSource } from './engine.ts'
 import { composeSnapshot } from './snapshot.ts'
-import { useStore } from './store.ts'
+import { defaultMapFor, useStore } from './store.ts'
 import { buildViewLink, parseViewLink } from './urlHash.ts'
 import type { ViewLink } from './urlHash.ts'
 
@@ -85,7 +85,7 @@ function applyImmediate(v: ViewLink): void {
   const st = useStore.getState()
   st.set({
     ...(v.quantity ? { quantity: v.quantity } : {}),
-    ...(v.colourMap ? { colourMap: v.colourMap } : {}),
+    ...(v.colourMap ? { colourMap: v.colourMap } : v.quantity ? { colourMap: defaultMapFor(v.quantity) } : {}),
     ...(v.units ? { units: v.units } : {}),
     ...(v.range ? { range: v.range } : {}),
   })
@@ -98,7 +98,10 @@ function applyAfterLoad(): void {
   const st = useStore.getState()
   if (v.range) st.set({ range: v.range })
   if (v.section) st.setSection({ ...v.section, dragging: false })
-  if (v.camera) st.requestView({ camera: v.camera })
+  // The scene fits every new model in the render that shows it; asking for the linked camera a
+  // moment later lands after that fit instead of being replaced by it.
+  const cam = v.camera
+  if (cam) setTimeout(() => useStore.getState().requestView({ camera: cam }), 50)
 }
 
 async function sourceForLink(v: ViewLink): Promise<AppSource> {

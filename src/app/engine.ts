@@ -235,3 +235,11 @@ export async function crashEngine(): Promise<void> {
     if (gen === generation) await recover({ message: `The engine failed: ${e instanceof Error ? e.message : String(e)}. The previous model is kept.` })
   }
 }
+
+declare global {
+  interface Window {
+    /** Hooks for the end-to-end tests only; nothing in the app calls them. */
+    __tractusTest?: { crashEngine: () => Promise<void> }
+  }
+}
+if (typeof window !== 'undefined') window.__tractusTest = { crashEngine }

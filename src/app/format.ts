@@ -14,8 +14,9 @@ export function formatNumber(v: number, digits = 4): string {
   let s: string
   if (a >= 1e6 || a < 1e-3) s = v.toExponential(digits - 1).replace('e+', 'e')
   else s = v.toPrecision(digits)
-  if (!s.includes('e') && s.includes('.')) s = s.replace(/\.?0+$/, '')
-  return s.replace('-', '−')
+  if (s.includes('e')) s = s.replace(/\.?0+e/, 'e')
+  else if (s.includes('.')) s = s.replace(/\.?0+$/, '')
+  return s.replace(/-/g, '−')
 }
 
 /** Converts a model-unit value of `q` to the display system. */
