@@ -74,14 +74,46 @@ export const HEX8_EXTRAPOLATION = (() => {
 })()
 
 /**
+ * Extrapolation in ξ and η only, with the mean over the two ζ layers of Gauss points: for slabs
+ * extruded along ζ. The trilinear element cannot bend its ζ-lines into the parabola that a plate
+ * in in-plane bending takes through its thickness, so its transverse shear has an error that is
+ * odd in ζ within each element; full extrapolation carries that error, amplified √3 times, onto
+ * the slab's free faces, while the ζ-mean drops it.
+ */
+export const HEX8_EXTRAPOLATION_PLANAR = (() => {
+  const out = new Float64Array(64)
+  const r = Math.sqrt(3)
+  for (let a = 0; a < 8; a++) for (let g = 0; g < 8; g++) {
+    let v = 0.125
+    for (let k = 0; k < 2; k++) v *= 1 + HEX8_CORNER[3 * g + k] * HEX8_CORNER[3 * a + k] * r
+    out[8 * a + g] = v
+  }
+  return out
+})()
+
+/** Centroid value for every corner (the mean of the 8 Gauss points). */
+export const HEX8_CENTROID_SPREAD = new Float64Array(64).fill(0.125)
+
+/**
  * Physical gradients dN_a/dx_k at Gauss point g of the element with corner coordinates `xyz`
  * (24 numbers): out[3a + k]. Returns det J (the volume scale), negative for an inverted element.
  */
 export function hex8GradientsAtGauss(out: Float64Array, xyz: Float64Array, g: number): number {
-  const o = 24 * g
+  return physicalGradients(out, xyz, DN_GAUSS, 24 * g)
+}
+
+/** Reference derivatives at the centroid (ξ = η = ζ = 0). */
+const DN_CENTRE = hex8ShapeDerivatives(new Float64Array(24), 0, 0, 0)
+
+/** Physical gradients at the element centroid, as hex8GradientsAtGauss; returns det J there. */
+export function hex8GradientsAtCentre(out: Float64Array, xyz: Float64Array): number {
+  return physicalGradients(out, xyz, DN_CENTRE, 0)
+}
+
+function physicalGradients(out: Float64Array, xyz: Float64Array, dn: Float64Array, o: number): number {
   let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
   for (let a = 0; a < 8; a++) {
-    const d0 = DN_GAUSS[o + 3 * a], d1 = DN_GAUSS[o + 3 * a + 1], d2 = DN_GAUSS[o + 3 * a + 2]
+    const d0 = dn[o + 3 * a], d1 = dn[o + 3 * a + 1], d2 = dn[o + 3 * a + 2]
     const x = xyz[3 * a], y = xyz[3 * a + 1], z = xyz[3 * a + 2]
     // J[k][i] = dx_i/dξ_k
     j00 += d0 * x; j01 += d0 * y; j02 += d0 * z
@@ -94,7 +126,7 @@ export function hex8GradientsAtGauss(out: Float64Array, xyz: Float64Array, g: nu
   const det = j00 * c00 + j01 * c10 + j02 * c20
   const inv = 1 / det
   for (let a = 0; a < 8; a++) {
-    const d0 = DN_GAUSS[o + 3 * a], d1 = DN_GAUSS[o + 3 * a + 1], d2 = DN_GAUSS[o + 3 * a + 2]
+    const d0 = dn[o + 3 * a], d1 = dn[o + 3 * a + 1], d2 = dn[o + 3 * a + 2]
     // dN/dx_i = Σ_k (J⁻¹)[i][k] dN/dξ_k
     out[3 * a] = (c00 * d0 + c01 * d1 + c02 * d2) * inv
     out[3 * a + 1] = (c10 * d0 + c11 * d1 + c12 * d2) * inv
@@ -148,22 +180,31 @@ export function hex8Stiffness(out: Float64Array, xyz: Float64Array, lambda: numb
 export function hex8GaussStress(out: Float64Array, xyz: Float64Array, u: Float64Array, lambda: number, mu: number, grad: Float64Array): void {
   for (let g = 0; g < 8; g++) {
     hex8GradientsAtGauss(grad, xyz, g)
-    let exx = 0, eyy = 0, ezz = 0, gxy = 0, gyz = 0, gxz = 0
-    for (let a = 0; a < 8; a++) {
-      const dx = grad[3 * a], dy = grad[3 * a + 1], dz = grad[3 * a + 2]
-      const ux = u[3 * a], uy = u[3 * a + 1], uz = u[3 * a + 2]
-      exx += dx * ux; eyy += dy * uy; ezz += dz * uz
-      gxy += dy * ux + dx * uy; gyz += dz * uy + dy * uz; gxz += dz * ux + dx * uz
-    }
-    const tr = lambda * (exx + eyy + ezz)
-    const o = 6 * g
-    out[o] = tr + 2 * mu * exx
-    out[o + 1] = tr + 2 * mu * eyy
-    out[o + 2] = tr + 2 * mu * ezz
-    out[o + 3] = mu * gxy
-    out[o + 4] = mu * gyz
-    out[o + 5] = mu * gxz
+    stressFromGradients(out, 6 * g, grad, u, lambda, mu)
   }
+}
+
+/** Stress at the element centroid (the 1-point value), out[0..5]. */
+export function hex8CentroidStress(out: Float64Array, xyz: Float64Array, u: Float64Array, lambda: number, mu: number, grad: Float64Array): void {
+  hex8GradientsAtCentre(grad, xyz)
+  stressFromGradients(out, 0, grad, u, lambda, mu)
+}
+
+function stressFromGradients(out: Float64Array, o: number, grad: Float64Array, u: Float64Array, lambda: number, mu: number): void {
+  let exx = 0, eyy = 0, ezz = 0, gxy = 0, gyz = 0, gxz = 0
+  for (let a = 0; a < 8; a++) {
+    const dx = grad[3 * a], dy = grad[3 * a + 1], dz = grad[3 * a + 2]
+    const ux = u[3 * a], uy = u[3 * a + 1], uz = u[3 * a + 2]
+    exx += dx * ux; eyy += dy * uy; ezz += dz * uz
+    gxy += dy * ux + dx * uy; gyz += dz * uy + dy * uz; gxz += dz * ux + dx * uz
+  }
+  const tr = lambda * (exx + eyy + ezz)
+  out[o] = tr + 2 * mu * exx
+  out[o + 1] = tr + 2 * mu * eyy
+  out[o + 2] = tr + 2 * mu * ezz
+  out[o + 3] = mu * gxy
+  out[o + 4] = mu * gyz
+  out[o + 5] = mu * gxz
 }
 
 /** Lamé constants from Young's modulus E and Poisson's ratio ν (any consistent stress unit). */

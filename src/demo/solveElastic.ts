@@ -1,7 +1,9 @@
 import { addElementMatrix, createBlockCsr } from './blockCsr.ts'
 import { hex8Stiffness, lameConstants } from './hex8.ts'
 import { solvePcg } from './pcg.ts'
+import { recoverPatchStress } from './patchRecovery.ts'
 import { recoverNodalStress } from './stressRecovery.ts'
+import type { RecoveryMode } from './stressRecovery.ts'
 
 /**
  * A small linear-elastic problem on a hex8 mesh, in any consistent units (length L, stress S,
@@ -21,6 +23,12 @@ export interface ElasticProblem {
   /** Relative residual ‖f - Au‖/‖f‖ to stop at; 1e-8 by default. */
   readonly tolerance?: number
   readonly maxIterations?: number
+  /**
+   * Nodal stress recovery: 'patch' (default) superconvergent patch recovery (patchRecovery.ts),
+   * or element values spread to the corners and averaged at nodes: 'extrapolate' (Gauss points
+   * extrapolated), 'centroid' (centroid values).
+   */
+  readonly recovery?: 'patch' | RecoveryMode
 }
 
 /** Figures of one solve, for the generator's printout and the report. */
@@ -39,7 +47,7 @@ export interface SolveStats {
 }
 
 /**
- * The solution: displacement (3N, L), nodal-averaged stress (6N, S, order xx yy zz xy yz xz),
+ * The solution: displacement (3N, L), recovered nodal stress (6N, S, order xx yy zz xy yz xz),
  * reaction (3N, force: A u - f at fixed components, zero elsewhere) and solve figures.
  */
 export interface ElasticSolution {
@@ -51,7 +59,7 @@ export interface ElasticSolution {
 
 /**
  * Assembles the stiffness in block CSR, solves by block-Jacobi preconditioned conjugate gradients
- * and recovers nodal stress. Throws RangeError for an inverted element (the demo meshers build
+ * and recovers nodal stress (patch recovery by default). Throws RangeError for an inverted element (the demo meshers build
  * positive ones, so this is a programming error, not user input).
  */
 export function solveElastic(problem: ElasticProblem): ElasticSolution {
@@ -76,7 +84,9 @@ export function solveElastic(problem: ElasticProblem): ElasticSolution {
   const u = new Float64Array(3 * nodes)
   const res = solvePcg(u, k, load, fixed, problem.tolerance ?? 1e-8, problem.maxIterations ?? 20000)
   const t2 = performance.now()
-  const stress = recoverNodalStress(new Float64Array(6 * nodes), coords, conn, u, lambda, mu)
+  const mode = problem.recovery ?? 'patch'
+  const averaged = recoverNodalStress(new Float64Array(6 * nodes), coords, conn, u, lambda, mu, mode === 'patch' ? 'extrapolate' : mode)
+  const stress = mode === 'patch' ? recoverPatchStress(new Float64Array(6 * nodes), coords, conn, u, lambda, mu, averaged) : averaged
   const reaction = new Float64Array(3 * nodes)
   // A u at the fixed components: blockCsrMultiply would do all rows; only the fixed ones are needed.
   const rs = k.rowStart, col = k.col, v = k.values

@@ -1,4 +1,7 @@
-import { HEX8_EXTRAPOLATION, hex8GaussStress } from './hex8.ts'
+import { HEX8_CENTROID_SPREAD, HEX8_EXTRAPOLATION, HEX8_EXTRAPOLATION_PLANAR, hex8GaussStress } from './hex8.ts'
+
+/** How element values reach the corners before nodal averaging (see hex8.ts). */
+export type RecoveryMode = 'extrapolate' | 'planar' | 'centroid'
 
 /**
  * Nodal stress (xx, yy, zz, xy, yz, xz per node) from a hex8 displacement field: each element's
@@ -6,7 +9,8 @@ import { HEX8_EXTRAPOLATION, hex8GaussStress } from './hex8.ts'
  * the plain mean over the elements that hold it (nodal averaging, common practice). Writes
  * `out` (6·N) and returns it.
  */
-export function recoverNodalStress(out: Float64Array, coords: Float64Array, conn: Int32Array, u: Float64Array, lambda: number, mu: number): Float64Array {
+export function recoverNodalStress(out: Float64Array, coords: Float64Array, conn: Int32Array, u: Float64Array, lambda: number, mu: number, mode: RecoveryMode = 'extrapolate'): Float64Array {
+  const X = mode === 'planar' ? HEX8_EXTRAPOLATION_PLANAR : mode === 'centroid' ? HEX8_CENTROID_SPREAD : HEX8_EXTRAPOLATION
   const nodeCount = coords.length / 3
   const count = new Float64Array(nodeCount)
   const xyz = new Float64Array(24), ue = new Float64Array(24), grad = new Float64Array(24), sg = new Float64Array(48)
@@ -21,7 +25,7 @@ export function recoverNodalStress(out: Float64Array, coords: Float64Array, conn
     for (let a = 0; a < 8; a++) {
       const n = conn[8 * e + a], o = 6 * n
       for (let g = 0; g < 8; g++) {
-        const w = HEX8_EXTRAPOLATION[8 * a + g]
+        const w = X[8 * a + g]
         for (let c = 0; c < 6; c++) out[o + c] += w * sg[6 * g + c]
       }
       count[n]++

@@ -1,0 +1,112 @@
+/**
+ * Generator of the bundled demo models (a Node script: `npm run demo`, `npm run demo -- --large`).
+ * Meshes our own two invented scenarios, solves them with the demo's linear-elastic solver, checks
+ * their statics, and writes each as a native container and a CSV bundle under public/demo/<id>/,
+ * plus public/demo/index.json listing them. `--large` also writes a finer tunnel block (several
+ * hundred thousand elements, native container only) to public/demo/tunnel-block-large/, which is
+ * not committed (public/demo/.gitignore). `--out <dir>` writes elsewhere.
+ */
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs'
+import { join, relative } from 'node:path'
+import { writeCsvBundle } from '../io/writeCsvBundle.ts'
+import { writeNative } from '../io/nativeContainer.ts'
+import type { Model } from '../model/model.ts'
+import { demoModel, roundSignificant } from './demoModel.ts'
+import { buildLiftingLug, LUG_DEFAULTS, LUG_DESCRIPTION, lugMeshLevel } from './liftingLug.ts'
+import { lugStatics } from './lugStatics.ts'
+import type { ElasticSolution } from './solveElastic.ts'
+import { solveElastic } from './solveElastic.ts'
+import { buildTunnelBlock, TUNNEL_DEFAULTS, TUNNEL_DESCRIPTION, tunnelMeshLevel } from './tunnelBlock.ts'
+import { tunnelStatics } from './tunnelStatics.ts'
+
+interface IndexEntry {
+  id: string
+  name: string
+  description: string
+  units: { length: string; stress: string }
+  elements: number
+  nodes: number
+  file: string
+  files: { native: string; csv: string[] | null }
+  bytes: number
+  onDemand?: boolean
+}
+
+const args = process.argv.slice(2)
+const large = args.includes('--large')
+const outAt = args.indexOf('--out')
+const outDir = outAt >= 0 ? args[outAt + 1] : join('public', 'demo')
+
+const pct = (v: number) => `${(100 * v).toFixed(3)} %`
+const fmt = (v: number, d = 1) => v.toFixed(d)
+
+function printStats(id: string, sol: ElasticSolution): void {
+  const s = sol.stats
+  console.log(`${id}: ${s.elements} hex8 elements, ${s.nodes} nodes, ${s.freeDofs} free dofs, ${s.matrixBlocks} 3×3 blocks`)
+  console.log(`  assembly ${fmt(s.assemblySeconds, 2)} s, block-Jacobi PCG ${fmt(s.solveSeconds, 2)} s (${s.iterations} iterations, relative residual ${s.relativeResidual.toExponential(2)}), stress recovery ${fmt(s.recoverySeconds, 2)} s`)
+}
+
+function writeModel(id: string, model: Model, csv: boolean): { native: string; csv: string[] | null; bytes: number } {
+  const dir = join(outDir, id)
+  if (existsSync(dir)) rmSync(dir, { recursive: true })
+  mkdirSync(dir, { recursive: true })
+  const nativeName = `${id}.tractus`
+  const bytes = writeNative(model)
+  writeFileSync(join(dir, nativeName), bytes)
+  let total = bytes.length
+  const names: string[] = []
+  for (const f of writeCsvBundle(model)) {
+    // model.json goes with every scenario (it says what the data is); the tables only when asked.
+    if (!csv && f.name !== 'model.json') continue
+    writeFileSync(join(dir, f.name), f.text)
+    total += Buffer.byteLength(f.text)
+    if (f.name !== 'model.json') names.push(`${id}/${f.name}`)
+  }
+  console.log(`  wrote ${relative('.', dir)}: ${(total / 1e6).toFixed(2)} MB (native ${(bytes.length / 1e6).toFixed(2)} MB)`)
+  return { native: `${id}/${nativeName}`, csv: csv ? [...names, `${id}/model.json`] : null, bytes: total }
+}
+
+function lug(): IndexEntry {
+  const id = 'lifting-lug'
+  const sc = buildLiftingLug({ ...LUG_DEFAULTS, ...lugMeshLevel(2) })
+  const sol = solveElastic(sc.problem)
+  printStats(id, sol)
+  const coords = roundSignificant(sc.problem.coords.slice(), 9)
+  const stress = roundSignificant(sol.stress, 6)
+  const disp = roundSignificant(sol.displacement, 6)
+  const st = lugStatics(sc, stress, sol.reaction)
+  console.log(`  pin load ${fmt(Math.hypot(...st.pinForce) / 1000, 3)} kN; section y = ${fmt(st.sectionY, 2)} mm: force error ${pct(st.sectionForceError)}, moment error ${pct(st.sectionMomentError)}`)
+  console.log(`  body balance residual ${pct(st.balance.relative)} of gross ${fmt(st.balance.gross / 1000, 2)} kN; hole-wall peak hoop stress ${fmt(st.peakHoopStress)} MPa at ${fmt(st.peakHoopAngleDeg)}° = ${fmt(st.peakHoopStress / st.nominalStress, 2)} × nominal ${fmt(st.nominalStress, 2)} MPa`)
+  const model = demoModel('Steel lifting lug (invented demo)', LUG_DESCRIPTION, sc.units, sc.bodyForce, coords, sc.problem.conn, stress, disp)
+  const files = writeModel(id, model, true)
+  return { id, name: model.name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files, bytes: files.bytes }
+}
+
+function tunnel(level: number, id: string, csv: boolean): IndexEntry {
+  const sc = buildTunnelBlock({ ...TUNNEL_DEFAULTS, ...tunnelMeshLevel(level) })
+  const sol = solveElastic({ ...sc.problem, maxIterations: 50000 })
+  printStats(id, sol)
+  const coords = roundSignificant(sc.problem.coords.slice(), 9)
+  const stress = roundSignificant(sol.stress, 6)
+  const disp = roundSignificant(sol.displacement, 6)
+  const st = tunnelStatics(sc, stress)
+  console.log(`  base carries ${fmt(st.baseForce[1], 0)} kN vs weight + overburden ${fmt(st.expectedBase, 0)} kN: error ${pct(st.baseError)}; body balance residual ${pct(st.balance.relative)}`)
+  console.log(`  wall hoop stress (compression +): springline ${fmt(st.springline, 0)} kPa vs Kirsch ${fmt(st.springlineKirsch, 0)}; crown ${fmt(st.crown, 0)} / invert ${fmt(st.invert, 0)} vs ${fmt(st.crownKirsch, 0)}; RMS deviation ${pct(st.wallRmsDeviation)} of p = ${fmt(st.p, 0)} kPa`)
+  const name = level >= 3 ? 'Rock mass round a tunnel, fine mesh (invented demo)' : 'Rock mass round a tunnel (invented demo)'
+  const model = demoModel(name, TUNNEL_DESCRIPTION, sc.units, sc.bodyForce, coords, sc.problem.conn, stress, disp)
+  const files = writeModel(id, model, csv)
+  return { id, name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files, bytes: files.bytes, ...(level >= 3 ? { onDemand: true } : {}) }
+}
+
+const t0 = performance.now()
+mkdirSync(outDir, { recursive: true })
+const entries: IndexEntry[] = [lug(), tunnel(2, 'tunnel-block', true)]
+const largeId = 'tunnel-block-large'
+if (large) entries.push(tunnel(3, largeId, false))
+else if (existsSync(join(outDir, largeId, `${largeId}.tractus`))) console.log(`  (keeping the earlier ${largeId}; not listed: run with --large to list it again)`)
+writeFileSync(join(outDir, 'index.json'), JSON.stringify({ scenarios: entries }, null, 2) + '\n')
+let committed = 0
+for (const e of entries) if (!e.onDemand) committed += e.bytes
+console.log(`demo models written to ${outDir} in ${fmt((performance.now() - t0) / 1000)} s; committed scenarios total ${(committed / 1e6).toFixed(2)} MB`)
+void readdirSync
+void statSync

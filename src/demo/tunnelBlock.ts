@@ -1,0 +1,113 @@
+import type { ModelUnits } from '../model/units.ts'
+import type { Vec3 } from '../model/model.ts'
+import { addBodyLoads, addFaceLoads } from './consistentLoads.ts'
+import { hexBoundaryFaces, selectFaces } from './hexFaces.ts'
+import { extrudeQuads, holeRing, minQuadArea, squareOutline } from './quadMesh.ts'
+import type { ElasticProblem } from './solveElastic.ts'
+
+/**
+ * Demo scenario: a slice of rock mass round a circular tunnel at depth (invented for the demo).
+ * x horizontal, y up, z along the tunnel axis; the block spans x ∈ [-w/2, w/2], y ∈ [0, h],
+ * z ∈ [0, slice], tunnel centre at (0, h/2). Loads: own weight (ρg downward), overburden pressure
+ * on the top face (ρg times the depth of the top), horizontal confining pressure K0 times the local
+ * vertical stress on both sides. Supports: base held vertically, the two slice faces held along z
+ * (plane strain, the rock continues along the tunnel), one line of base nodes at x = 0 held along x
+ * (only to remove the sideways rigid motion: the side pressures balance). Tunnel wall free.
+ * Units: m, kPa, kN.
+ */
+export interface TunnelSpec {
+  readonly width: number
+  readonly height: number
+  readonly slice: number
+  readonly radius: number
+  /** Depth of the block's top face below the ground surface (m). */
+  readonly topDepth: number
+  /** Density (kg/m³) and gravity (m/s²). */
+  readonly density: number
+  readonly gravity: number
+  /** Ratio of horizontal to vertical confining stress on the sides. */
+  readonly k0: number
+  /** Young's modulus (kPa) and Poisson's ratio. */
+  readonly E: number
+  readonly nu: number
+  readonly perSector: number
+  readonly ringDivisions: number
+  readonly layers: number
+}
+
+export const TUNNEL_DEFAULTS: TunnelSpec = {
+  width: 60, height: 60, slice: 3, radius: 4, topDepth: 300, density: 2600, gravity: 9.81, k0: 0.5,
+  E: 20e6, nu: 0.25, perSector: 24, ringDivisions: 48, layers: 3,
+}
+
+/** Mesh sizes by refinement level: 0 coarse (tests), 1 medium, 2 the committed demo, 3 the large variant. */
+export function tunnelMeshLevel(level: number): Pick<TunnelSpec, 'perSector' | 'ringDivisions' | 'layers'> {
+  switch (level) {
+    case 0: return { perSector: 6, ringDivisions: 12, layers: 1 }
+    case 1: return { perSector: 12, ringDivisions: 24, layers: 2 }
+    case 2: return { perSector: 24, ringDivisions: 48, layers: 3 }
+    default: return { perSector: 64, ringDivisions: 128, layers: 6 }
+  }
+}
+
+export interface TunnelScenario {
+  readonly spec: TunnelSpec
+  readonly units: ModelUnits
+  /** ρ·g downward in kPa/m (= kN/m³). */
+  readonly bodyForce: Vec3
+  readonly problem: ElasticProblem
+  /** Unit weight ρg (kN/m³), overburden pressure on the top (kPa), vertical stress at the tunnel centre's depth (kPa). */
+  readonly unitWeight: number
+  readonly topPressure: number
+  readonly verticalAtAxis: number
+  readonly tunnelCentre: Vec3
+  /** Weight of the block (kN) and overburden force on its top (kN). */
+  readonly weight: number
+  readonly overburdenForce: number
+}
+
+export function buildTunnelBlock(spec: TunnelSpec = TUNNEL_DEFAULTS): TunnelScenario {
+  const { width: w, height: h, slice, radius: a, perSector: m } = spec
+  const yc = h / 2, half = w / 2
+  if (Math.abs(w - h) > 1e-12) throw new RangeError('the tunnel block mesher needs a square block')
+  const hCirc = (2 * Math.PI * a) / (8 * m)
+  const plane = holeRing(0, yc, a, m, spec.ringDivisions, (k) => squareOutline(0, yc, half, m, k), hCirc / (half - a))
+  if (!(minQuadArea(plane) > 0)) throw new RangeError('tunnel mesh has an inverted quad')
+  const { coords, conn } = extrudeQuads(plane, slice, spec.layers)
+  const N = coords.length / 3
+  const gamma = (spec.density * spec.gravity) / 1000 // kN/m³ = kPa/m
+  const pTop = gamma * spec.topDepth
+  const tol = 1e-9 * w
+  const fixed = new Uint8Array(3 * N)
+  for (let n = 0; n < N; n++) {
+    const x = coords[3 * n], y = coords[3 * n + 1], z = coords[3 * n + 2]
+    if (Math.abs(y) < tol) { fixed[3 * n + 1] = 1; if (Math.abs(x) < tol) fixed[3 * n] = 1 }
+    if (Math.abs(z) < tol || Math.abs(z - slice) < tol) fixed[3 * n + 2] = 1
+  }
+  const load = new Float64Array(3 * N)
+  const faces = hexBoundaryFaces(conn, N)
+  const top = selectFaces(faces, coords, (_x, y) => Math.abs(y - h) < tol)
+  const sides = selectFaces(faces, coords, (x) => Math.abs(Math.abs(x) - half) < tol)
+  addFaceLoads(load, coords, top, (t, _x, _y, _z, nx, ny, nz) => { t[0] = -pTop * nx; t[1] = -pTop * ny; t[2] = -pTop * nz })
+  addFaceLoads(load, coords, sides, (t, _x, y, _z, nx, ny, nz) => {
+    const p = spec.k0 * (pTop + gamma * (h - y))
+    t[0] = -p * nx; t[1] = -p * ny; t[2] = -p * nz
+  })
+  const bodyForce: Vec3 = [0, -gamma, 0]
+  const body = addBodyLoads(load, coords, conn, bodyForce)
+  return {
+    spec, units: { length: 'm', stress: 'kPa' }, bodyForce,
+    problem: { coords, conn, E: spec.E, nu: spec.nu, fixed, load },
+    unitWeight: gamma, topPressure: pTop, verticalAtAxis: pTop + gamma * (h - yc),
+    tunnelCentre: [0, yc, slice / 2], weight: -body[1], overburdenForce: pTop * w * slice,
+  }
+}
+
+export const TUNNEL_DESCRIPTION =
+  'Invented demo data: a 3 m slice of rock mass, 60 m wide and 60 m high, round a circular tunnel of ' +
+  '4 m radius at mid-height; the top of the block lies 300 m below the ground. Loads: own weight ' +
+  '(ρ = 2600 kg/m³, g = 9.81 m/s², body force 25.5 kN/m³ downward), the overburden pressure on the top ' +
+  '(7.65 MPa), and a horizontal confining pressure of half the local vertical stress (K0 = 0.5) on both ' +
+  'sides. Base held vertically, slice faces held along the tunnel axis (plane strain), tunnel wall ' +
+  'free. Linear elastic rock (E = 20 GPa, ν = 0.25). Stresses solved by the Tractus demo generator ' +
+  '(hex8 elements, nodal-averaged stress). Units: m, kPa, kN.'
