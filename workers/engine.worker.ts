@@ -15,6 +15,7 @@ import { computeBodyBalance, computeElementBalance, percentiles } from '../src/m
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
+import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrowSampling.ts'
 import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
@@ -116,9 +117,10 @@ const api: EngineApi = {
       const pct = percentiles(balance.indicator, [50, 95, 100])
       report('Surface buffers', 0.95); await yieldTurn()
       const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
+      const edges = buildFeatureEdges(mesh.coords, faces).segments
       const surface: SurfaceBuffers = {
         positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
-        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace,
+        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges,
       }
       const summary: ModelSummary = {
         name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
@@ -141,7 +143,7 @@ const api: EngineApi = {
           freeSurface: patches.freeSurface,
         },
       }
-      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, ...Object.values(tri.scalars)].map((a) => a.buffer as ArrayBuffer)
+      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges, ...Object.values(tri.scalars)].map((a) => a.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value }, buffers)
     } catch (e) {
       const error = toAppError(e)

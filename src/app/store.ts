@@ -72,6 +72,8 @@ export interface SurfaceBuffers {
   readonly ranges: Readonly<Record<QuantityName, readonly [number, number]>>
   readonly patch: Float32Array
   readonly triangleFace: Uint32Array
+  /** Optional feature-edge segments, Float32Array(6·S), length units (src/mechanics/featureEdges.ts). */
+  readonly edges?: Float32Array
 }
 
 /**

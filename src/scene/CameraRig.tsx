@@ -49,6 +49,17 @@ export function CameraRig() {
       setClipPlanes(camera, radius)
     } else if (req.frame) {
       const center = new Vector3(req.frame.center[0], req.frame.center[1], req.frame.center[2])
+      if (m) {
+        // Look at a patch from outside the part: lean the view towards the direction from the
+        // model centre to the patch, so a patch on the far side is not framed from behind.
+        const outward = center.clone().sub(modelSphere(m).center)
+        if (outward.lengthSq() > 1e-12 * radius * radius) {
+          const current = camera.position.clone().sub(controls.target).normalize()
+          const dir = outward.normalize().multiplyScalar(2).add(current).normalize()
+          controls.target.copy(center)
+          camera.position.copy(center).add(dir)
+        }
+      }
       frameSphere(camera, controls.target, center, req.frame.radius)
       controls.target.copy(center)
       // Keep the far plane set for the whole model, so framing a small patch does not cut it off.

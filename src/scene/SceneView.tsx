@@ -2,6 +2,7 @@ import { useMemo } from 'react'
 import { activeRange, sectionPlaneOf, useStore } from '../app/store.ts'
 import { ArrowField } from './ArrowField.tsx'
 import { CameraRig } from './CameraRig.tsx'
+import { FeatureEdges } from './FeatureEdges.tsx'
 import { ProbePicker } from './ProbePicker.tsx'
 import { SceneCanvas } from './SceneCanvas.tsx'
 import { SectionFill } from './SectionFill.tsx'
@@ -49,6 +50,8 @@ function SceneContents() {
     return { centroid: sectionResult.centroid, halfSize: 2 * Math.sqrt(sectionResult.secondMoments.J / sectionResult.area) }
   }, [sectionResult])
   const sphere = useModelSphere()
+  // Optional: present when the worker sends feature edges with the surface.
+  const edges = surface?.edges ?? null
   const clippingPlanes = useClippingPlanes()
   const normal = useMemo(() => sectionPlaneOf(section).normal, [section])
 
@@ -64,6 +67,7 @@ function SceneContents() {
           clipped={section.enabled && section.hide !== 'none'}
         />
       )}
+      {edges && model && <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} />}
       {arrows && sphere && arrowSettings.surface && (
         <ArrowField
           arrows={arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
