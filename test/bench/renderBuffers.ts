@@ -1,0 +1,51 @@
+/**
+ * Render-buffer builders on a seeded synthetic block (see syntheticModel.ts): surface triangles,
+ * feature edges, surface arrows at the default budget, section fan and section arrows, each the
+ * median of several runs; checks run outside the timed part. Prints a table, then JSON.
+ * Run: npx tsx test/bench/renderBuffers.ts [elements] [seed]
+ */
+import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
+import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { computeNodalInvariants } from '../../src/mechanics/invariants.ts'
+import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { buildSurfaceTriangles } from '../../src/mechanics/surfaceTriangles.ts'
+import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
+import { buildSectionTriangles } from '../../src/mechanics/sectionTriangles.ts'
+import { sampleSectionArrows, sampleSurfaceArrows } from '../../src/mechanics/arrowSampling.ts'
+import { syntheticModel } from './syntheticModel.ts'
+import { measure } from './timing.ts'
+import { BENCH_PLANE } from './benchPlane.ts'
+
+const elements = Number(process.argv[2] ?? 200_000)
+const seed = Number(process.argv[3] ?? 1)
+const model = syntheticModel('tet4', elements, seed)
+const mesh = model.mesh
+const faces = extractBoundaryFaces(mesh)
+const tractions = computeSurfaceTractions(mesh, model.stress, faces)
+const invariants = computeNodalInvariants(model.stress)
+const { polygons } = cutSection(mesh, model.stress, model.bodyForce, BENCH_PLANE, { faces, tractions, polygons: true })
+if (!polygons) throw new Error('the bench plane misses the block')
+
+const runs = 5
+const rows = [
+  ['surfaceTriangles', measure(() => buildSurfaceTriangles(mesh.coords, faces, tractions, invariants), runs)],
+  ['featureEdges', measure(() => buildFeatureEdges(mesh.coords, faces), runs)],
+  ['surfaceArrows(2000)', measure(() => sampleSurfaceArrows(faces, tractions, { budget: 2000 }), runs)],
+  ['sectionTriangles', measure(() => buildSectionTriangles(polygons, BENCH_PLANE.normal), runs)],
+  ['sectionArrows(2000)', measure(() => sampleSectionArrows(polygons, BENCH_PLANE.normal, { budget: 2000 }), runs)],
+] as const
+
+// Checks, outside the timed loops.
+const s = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants)
+if (s.index.length !== 3 * faces.count) throw new Error('tet4 faces must give one triangle each')
+if (sampleSurfaceArrows(faces, tractions, { budget: 2000 }).count > 2000) throw new Error('arrow budget exceeded')
+
+const result = {
+  seed, elements: mesh.elementCount, boundaryFaces: faces.count, sectionPolygons: polygons.count,
+  ms: Object.fromEntries(rows.map(([name, t]) => [name, Number(t.medianMs.toFixed(2))])),
+  cpuMs: Object.fromEntries(rows.map(([name, t]) => [name, Number(t.cpuMs.toFixed(2))])),
+}
+console.log(`elements ${result.elements}, boundary faces ${result.boundaryFaces}, section polygons ${result.sectionPolygons}, seed ${seed}`)
+// On a shared machine the CPU time is the steadier figure.
+for (const [name, t] of rows) console.log(`${name.padEnd(22)} wall ${t.medianMs.toFixed(2).padStart(9)} ms, cpu ${t.cpuMs.toFixed(2).padStart(9)} ms (medians of ${runs})`)
+console.log(JSON.stringify(result))
