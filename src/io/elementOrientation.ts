@@ -80,42 +80,32 @@ export function measureElement(out: Float64Array, scratch: Float64Array, coords:
   for (let f = 0; f < faceCount; f++) {
     const a = 3 * faces[4 * f], b = 3 * faces[4 * f + 1], c = 3 * faces[4 * f + 2], d4 = faces[4 * f + 3]
     if (d4 < 0) {
-      // Triangle face: one cone with apex at the centroid (the origin here).
-      v6 += triple(scratch, a, b, c, -1)
+      // Triangle face: one cone with apex at the centroid (the origin here): a·(b×c).
+      v6 += scratch[a] * (scratch[b + 1] * scratch[c + 2] - scratch[b + 2] * scratch[c + 1])
+        + scratch[a + 1] * (scratch[b + 2] * scratch[c] - scratch[b] * scratch[c + 2])
+        + scratch[a + 2] * (scratch[b] * scratch[c + 1] - scratch[b + 1] * scratch[c])
       continue
     }
     const d = 3 * d4
-    // Quad face: four triangles about the face centre.
-    const fx = (scratch[a] + scratch[b] + scratch[c] + scratch[d]) / 4
-    const fy = (scratch[a + 1] + scratch[b + 1] + scratch[c + 1] + scratch[d + 1]) / 4
-    const fz = (scratch[a + 2] + scratch[b + 2] + scratch[c + 2] + scratch[d + 2]) / 4
-    v6 += coneWithCentre(scratch, a, b, fx, fy, fz) + coneWithCentre(scratch, b, c, fx, fy, fz)
-      + coneWithCentre(scratch, c, d, fx, fy, fz) + coneWithCentre(scratch, d, a, fx, fy, fz)
+    // Quad face split into four triangles about its centre m = (a+b+c+d)/4: the four cones sum to
+    // m·(a×b + b×c + c×d + d×a) = m·((c-a)×(d-b)), one cross product per face.
+    const ux = scratch[c] - scratch[a], uy = scratch[c + 1] - scratch[a + 1], uz = scratch[c + 2] - scratch[a + 2]
+    const wx = scratch[d] - scratch[b], wy = scratch[d + 1] - scratch[b + 1], wz = scratch[d + 2] - scratch[b + 2]
+    const mx = scratch[a] + scratch[b] + scratch[c] + scratch[d]
+    const my = scratch[a + 1] + scratch[b + 1] + scratch[c + 1] + scratch[d + 1]
+    const mz = scratch[a + 2] + scratch[b + 2] + scratch[c + 2] + scratch[d + 2]
+    v6 += (mx * (uy * wz - uz * wy) + my * (uz * wx - ux * wz) + mz * (ux * wy - uy * wx)) / 4
   }
   out[0] = v6 / 6
   return out
 }
 
-/**
- * Six times the signed volume of the tetrahedron (p, q, r, s) from scratch offsets; s < 0 means
- * the origin, giving p·(q×r).
- */
+/** Six times the signed volume of the tetrahedron with corners at scratch offsets p, q, r, s. */
 function triple(x: Float64Array, p: number, q: number, r: number, s: number): number {
-  if (s < 0) {
-    return x[p] * (x[q + 1] * x[r + 2] - x[q + 2] * x[r + 1])
-      + x[p + 1] * (x[q + 2] * x[r] - x[q] * x[r + 2])
-      + x[p + 2] * (x[q] * x[r + 1] - x[q + 1] * x[r])
-  }
   const ux = x[q] - x[p], uy = x[q + 1] - x[p + 1], uz = x[q + 2] - x[p + 2]
   const vx = x[r] - x[p], vy = x[r + 1] - x[p + 1], vz = x[r + 2] - x[p + 2]
   const wx = x[s] - x[p], wy = x[s + 1] - x[p + 1], wz = x[s + 2] - x[p + 2]
   return (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
-}
-
-/** Six times the volume of the cone (origin, a, b, f): a·(b×f). */
-function coneWithCentre(x: Float64Array, a: number, b: number, fx: number, fy: number, fz: number): number {
-  const ax = x[a], ay = x[a + 1], az = x[a + 2], bx = x[b], by = x[b + 1], bz = x[b + 2]
-  return ax * (by * fz - bz * fy) + ay * (bz * fx - bx * fz) + az * (bx * fy - by * fx)
 }
 
 /** Result of checking one block: local indices of inverted elements, first degenerate one or -1. */

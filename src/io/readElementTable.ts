@@ -9,7 +9,7 @@
 import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
-import { PARSE_OK, atLineEnd, createCursor, finishLine, nextRecord, readCount, readId, skipField, takeComma, tokenText } from './csvCursor.ts'
+import { PARSE_OK, atLineEnd, createCursor, estimateRecordCount, finishLine, nextRecord, readCount, readId, skipField, takeComma, tokenText } from './csvCursor.ts'
 import { countFieldsOfLine, fail, failField, growInt, readHeader } from './csvTable.ts'
 
 export interface RawElementBlock {
@@ -52,7 +52,8 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
   }
   const byType: (Growing | undefined)[] = []
   const order: number[] = []
-  const estimate = Math.max(16, (text.length / 40) | 0)
+  // The first type seen gets room for every line; others start small and double as needed.
+  let estimate = Math.max(16, estimateRecordCount(text))
   while (nextRecord(cur)) {
     const id = readId(cur)
     if (cur.status !== PARSE_OK) failField(cur, 'id', 'id')
@@ -76,6 +77,7 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
       g = { nodeIds: new Int32Array(estimate * nn0), ids: new Int32Array(estimate), part: new Int32Array(hasPart ? estimate : 0), lines: new Int32Array(estimate), count: 0 }
       byType[t] = g
       order.push(t)
+      estimate = 1024
     }
     const nn = ELEMENT_TYPES[type].nodeCount
     if (g.count === g.ids.length) {

@@ -53,7 +53,7 @@ export function validateModel(model: Model, source = 'model'): void {
     if (b.part) for (let j = 0; j < count; j++) if (b.part[j] < 0) bad(`${f}.part`, `part ${b.part[j]} is negative`, 'bad-id', b.ids[j])
     const o = checkBlockOrientation(mesh.coords, b.type, b.conn)
     if (o.degenerate >= 0) bad(`${f}.conn`, 'degenerate element (about zero volume)', 'zero-volume', b.ids[o.degenerate])
-    if (o.inverted.length) bad(`${f}.conn`, 'inverted element (negative volume)', 'zero-volume', b.ids[o.inverted[0]])
+    if (o.inverted.length) bad(`${f}.conn`, 'inverted element (negative volume)', 'container', b.ids[o.inverted[0]])
     offset += count
     allIds.push(b.ids)
   })
