@@ -8,7 +8,7 @@ import type { ElasticProblem } from './solveElastic.ts'
 
 /**
  * Demo scenario: a steel lifting lug (invented for the demo). Plate in the x-y plane, thickness
- * along z, base on y = 0 welded to a stiff deck (all base nodes held), symmetric about x = 0.
+ * along z, base on y = 0 welded to a stiff deck (base nodes held, see `baseHold`), symmetric about x = 0.
  * Outline: a shank tapering from the base width to twice the head radius, a straight stretch up
  * to the hole centre, a semicircular head round the pin hole. The pin pulls at `angleDeg` from
  * the plate's axis of symmetry (+y), in the plate's plane; its load reaches the hole as a
@@ -153,10 +153,11 @@ export function buildLiftingLug(spec: LugSpec = LUG_DEFAULTS): LugScenario {
 export const LUG_DESCRIPTION =
   'Invented demo data, not a real product: a steel lifting lug, 20 mm plate, 200 mm wide at the base, ' +
   'with a 45 mm pin hole whose centre is 200 mm above the base and a rounded head of 80 mm radius. ' +
-  'The base is welded to a stiff deck (every base node held). A pin pulls with 50 kN at 30° from the ' +
+  "The base is welded to a stiff deck: every base node is held in the plate's plane, and the base's " +
+  'mid-thickness line also through the thickness. A pin pulls with 50 kN at 30° from the ' +
   "lug's axis of symmetry, in the plate's plane; its load reaches the hole as a cosine contact " +
   'pressure over ±60° around the pull direction. Linear elastic steel (E = 210 GPa, ν = 0.3), ' +
   'self-weight (about 60 N) left out. Stresses solved by the Tractus demo generator ' +
-  '(hex8 elements, nodal-averaged stress). Units: mm, MPa, N. ' +
+  '(hex8 elements, nodal stress by superconvergent patch recovery). Units: mm, MPa, N. ' +
   'Caution: lifting devices are governed by codes and standards and must be designed and checked ' +
   'by a qualified engineer; this model is an illustration, not a design check.'

@@ -110,4 +110,4 @@ export const TUNNEL_DESCRIPTION =
   '(7.65 MPa), and a horizontal confining pressure of half the local vertical stress (K0 = 0.5) on both ' +
   'sides. Base held vertically, slice faces held along the tunnel axis (plane strain), tunnel wall ' +
   'free. Linear elastic rock (E = 20 GPa, ν = 0.25). Stresses solved by the Tractus demo generator ' +
-  '(hex8 elements, nodal-averaged stress). Units: m, kPa, kN.'
+  '(hex8 elements, nodal stress by superconvergent patch recovery). Units: m, kPa, kN.'

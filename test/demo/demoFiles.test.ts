@@ -1,0 +1,55 @@
+import { existsSync, readFileSync, statSync } from 'node:fs'
+import { join } from 'node:path'
+import { describe, expect, it } from 'vitest'
+import { readNative } from '../../src/io/nativeContainer.ts'
+import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
+
+// The committed demo files (written by `npm run demo`): listed, loadable, labelled as invented,
+// and small enough to ship.
+const root = join('public', 'demo')
+interface Entry { id: string; description: string; elements: number; nodes: number; file: string; files: { native: string; csv: string[] | null }; onDemand?: boolean }
+
+describe('bundled demo files', () => {
+  const index = JSON.parse(readFileSync(join(root, 'index.json'), 'utf8')) as { scenarios: Entry[] }
+  const committed = index.scenarios.filter((e) => !e.onDemand)
+
+  it('lists both scenarios, each saying it is invented', () => {
+    expect(committed.map((e) => e.id).sort()).toEqual(['lifting-lug', 'tunnel-block'])
+    for (const e of committed) {
+      expect(e.description).toMatch(/invented/i)
+      const meta = JSON.parse(readFileSync(join(root, e.id, 'model.json'), 'utf8')) as { description: string }
+      expect(meta.description).toBe(e.description)
+    }
+  })
+
+  it('the lug carries the caution about lifting devices', () => {
+    const lug = committed.find((e) => e.id === 'lifting-lug')!
+    expect(lug.description).toMatch(/qualified engineer/)
+    expect(lug.description).toMatch(/codes/)
+  })
+
+  it('native containers load and match the index; committed files stay under 15 MB', () => {
+    let bytes = 0
+    for (const e of committed) {
+      const files = [e.files.native, ...(e.files.csv ?? []), `${e.id}/model.json`]
+      for (const f of new Set(files)) { expect(existsSync(join(root, f)), f).toBe(true); bytes += statSync(join(root, f)).size }
+      const model = readNative(readFileSync(join(root, e.files.native)), e.files.native)
+      expect(model.mesh.elementCount).toBe(e.elements)
+      expect(model.mesh.nodeCount).toBe(e.nodes)
+      expect(model.mesh.blocks[0].type).toBe('hex8')
+      expect(model.warnings).toEqual([])
+    }
+    expect(bytes).toBeLessThan(15e6)
+  })
+
+  it('the lug CSV bundle reads back to the same model as its native container', () => {
+    const lug = committed.find((e) => e.id === 'lifting-lug')!
+    const csv = readCsvBundle(lug.files.csv!.map((f) => ({ name: f.split('/').pop()!, text: readFileSync(join(root, f), 'utf8') })))
+    const native = readNative(readFileSync(join(root, lug.files.native)), lug.files.native)
+    expect(csv.mesh.nodeCount).toBe(native.mesh.nodeCount)
+    expect(csv.units).toEqual(native.units)
+    let worst = 0
+    for (let i = 0; i < native.stress.length; i++) worst = Math.max(worst, Math.abs(csv.stress[i] - native.stress[i]))
+    expect(worst).toBe(0)
+  })
+})
