@@ -216,6 +216,12 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   finite(stress, 'stress', 6)
   if (displacement) finite(displacement, 'displacement', 3)
 
+  // All block arrays are checked against the file before anything is allocated from the counts.
+  const blockArrays = blocks.map((b, k) => ({
+    conn: take<Int32Array>(`block${k}.conn`, 'i32', b.count * ELEMENT_TYPES[b.type].nodeCount)!,
+    ids: take<Int32Array>(`block${k}.ids`, 'i32', b.count)!,
+    part: take<Int32Array>(`block${k}.part`, 'i32', b.count, true),
+  }))
   const blockInputs: BlockInput[] = []
   const allIds = new Int32Array(E)
   const invertedIds: number[] = []
@@ -223,9 +229,8 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   let at = 0
   blocks.forEach((b, k) => {
     const nn = ELEMENT_TYPES[b.type].nodeCount
-    let conn = take<Int32Array>(`block${k}.conn`, 'i32', b.count * nn)!
-    const ids = take<Int32Array>(`block${k}.ids`, 'i32', b.count)!
-    const part = take<Int32Array>(`block${k}.part`, 'i32', b.count, true)
+    const { ids, part } = blockArrays[k]
+    let conn = blockArrays[k].conn
     for (let i = 0; i < conn.length; i++) {
       const n = conn[i]
       if (n < 0 || n >= N) fail('missing-node', `block${k}.conn`, `node index ${n} is outside 0..${N - 1}`, ids[(i / nn) | 0])
@@ -244,7 +249,7 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     }
     blockInputs.push({ type: b.type, conn, ids, part })
   })
-  checkIds(allIds, 'blocks ids', 'element', fail)
+  checkIds(allIds, 'block ids', 'element', fail)
   if (invertedTotal) warnings.push(`${fileName}: ${reorientedWarning(invertedIds, invertedTotal)}`)
   return {
     name: meta.name ?? '',

@@ -68,7 +68,7 @@ const nativeMutation: fc.Arbitrary<Mutation> = fc.oneof(
   fc.record({ op: fc.constant('flipByte' as const), at: unit, xor: fc.integer({ min: 1, max: 255 }) }),
   fc.record({ op: fc.constant('setU32' as const), at: unit, value: fc.oneof(fc.constantFrom(...SPECIAL_U32), fc.nat()) }),
   fc.record({ op: fc.constant('cutBytes' as const), at: unit }),
-  fc.record({ op: fc.constant('header' as const), field: fc.nat({ max: 40 }), value: fc.oneof(fc.constant(null), fc.integer({ min: -10, max: 1000 }), fc.constantFrom('f64', 'i32', 'f32', 'tet4', 'x', '')) }),
+  fc.record({ op: fc.constant('header' as const), field: fc.nat({ max: 40 }), value: fc.oneof(fc.constant(null), fc.integer({ min: -10, max: 1000 }), fc.constantFrom(2 ** 31, 2 ** 40, 2 ** 53, 1e300, 0.5, -0), fc.constantFrom('f64', 'i32', 'f32', 'tet4', 'x', '')) }),
 )
 
 export const fuzzCase: fc.Arbitrary<FuzzCase> = fc.nat({ max: BASES.length - 1 }).chain((base) =>

@@ -123,3 +123,11 @@ describe('broken containers', () => {
     validateModel(m)
   })
 })
+
+describe('counts far beyond the file', () => {
+  it('huge counts are refused before anything is allocated from them', () => {
+    const big = 2 ** 40
+    expectError(patchNative(good, (h) => { h.elementCount = big; (h.blocks as { count: number }[])[0].count = big - 1 }), 'container', ['field "block0.conn"'])
+    expectError(patchNative(good, (h) => { h.nodeCount = 2 ** 52 }), 'container', ['field "coords"'])
+  })
+})
