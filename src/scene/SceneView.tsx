@@ -3,6 +3,7 @@ import { activeRange, sectionPlaneOf, useStore } from '../app/store.ts'
 import { ArrowField } from './ArrowField.tsx'
 import { CameraRig } from './CameraRig.tsx'
 import { FeatureEdges } from './FeatureEdges.tsx'
+import { ProbeMarker } from './ProbeMarker.tsx'
 import { ProbePicker } from './ProbePicker.tsx'
 import { SceneCanvas } from './SceneCanvas.tsx'
 import { SectionFill } from './SectionFill.tsx'
@@ -42,6 +43,7 @@ function SceneContents() {
   const sectionLo = useStore((s) => sectionColouring(s).range[0])
   const sectionHi = useStore((s) => sectionColouring(s).range[1])
   const sectionRange = useMemo(() => [sectionLo, sectionHi] as const, [sectionLo, sectionHi])
+  const probe = useStore((s) => s.probe)
   const sectionResult = useStore((s) => s.sectionResult)
   const cut = useMemo(() => {
     if (!sectionResult || sectionResult.empty || !(sectionResult.area > 0)) return null
@@ -83,6 +85,7 @@ function SceneContents() {
           colourMap={sectionMap} colour={arrowSettings.colour} clippingPlanes={NO_PLANES}
         />
       )}
+      {probe && sphere && <ProbeMarker position={probe.position} radius={0.006 * sphere.diagonal} />}
       {section.enabled && sphere && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} cut={cut} />}
     </>
   )

@@ -19,13 +19,18 @@ const noRaycast = (): void => {}
 /** The cut face, colour-mapped by the section's normal traction m·σm or shear magnitude. */
 export function SectionFill({ buffers, traction, range, colourMap, normal }: SectionFillProps) {
   const invalidate = useThree((s) => s.invalidate)
-  const geometry = useMemo(() => {
+  const { geometry, normalAttr, shearAttr } = useMemo(() => {
     const g = new BufferGeometry()
     g.setAttribute('position', new BufferAttribute(buffers.positions, 3))
     g.setIndex(new BufferAttribute(buffers.index, 1))
-    return g
+    return { geometry: g, normalAttr: new BufferAttribute(buffers.normalTraction, 1), shearAttr: new BufferAttribute(buffers.shearTraction, 1) }
   }, [buffers])
-  useEffect(() => () => geometry.dispose(), [geometry])
+  useEffect(() => () => {
+    // Attach both scalar buffers so dispose frees whichever was uploaded.
+    geometry.setAttribute('scalarNormal', normalAttr)
+    geometry.setAttribute('scalarShear', shearAttr)
+    geometry.dispose()
+  }, [geometry, normalAttr, shearAttr])
 
   // The section face is never clipped: it is what the cut shows.
   const material = useMemo(() => {
@@ -38,9 +43,9 @@ export function SectionFill({ buffers, traction, range, colourMap, normal }: Sec
   useEffect(() => () => material.dispose(), [material])
 
   useEffect(() => {
-    geometry.setAttribute('scalar', new BufferAttribute(traction === 'shearTraction' ? buffers.shearTraction : buffers.normalTraction, 1))
+    geometry.setAttribute('scalar', traction === 'shearTraction' ? shearAttr : normalAttr)
     invalidate()
-  }, [geometry, buffers, traction, invalidate])
+  }, [geometry, normalAttr, shearAttr, traction, invalidate])
 
   useEffect(() => {
     const u = material.uniforms

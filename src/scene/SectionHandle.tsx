@@ -57,6 +57,10 @@ export function SectionHandle({ section, center, radius, cut }: SectionHandlePro
   const r = radius > 0 ? radius : 1
   const half = cut && cut.halfSize > 0 ? Math.min(1.05 * r, Math.max(0.15 * r, cut.halfSize)) : 0.7 * r
 
+  // One material for every outline: disposing a material per cut would release its shader
+  // program and force a synchronous recompile on each drag step.
+  const lineMaterial = useMemo(() => new LineBasicMaterial({ color: rawColour(HANDLE), transparent: true, opacity: 0.7, depthTest: false, toneMapped: false }), [])
+  useEffect(() => () => lineMaterial.dispose(), [lineMaterial])
   const outline = useMemo(() => {
     const [e1, e2] = basis(n)
     const s = half
@@ -67,13 +71,13 @@ export function SectionHandle({ section, center, radius, cut }: SectionHandlePro
     })
     const g = new BufferGeometry()
     g.setAttribute('position', new BufferAttribute(pts, 3))
-    const line = new LineLoop(g, new LineBasicMaterial({ color: rawColour(HANDLE), transparent: true, opacity: 0.7, depthTest: false, toneMapped: false }))
+    const line = new LineLoop(g, lineMaterial)
     line.renderOrder = 10
     line.raycast = () => {}
     line.userData.noSnapshot = true
     return line
-  }, [n, half])
-  useEffect(() => () => { outline.geometry.dispose(); (outline.material as LineBasicMaterial).dispose() }, [outline])
+  }, [n, half, lineMaterial])
+  useEffect(() => () => { outline.geometry.dispose() }, [outline])
 
   const arrowMaterial = useMemo(() => new MeshBasicMaterial({ color: rawColour(HANDLE), depthTest: false, toneMapped: false }), [])
   useEffect(() => () => arrowMaterial.dispose(), [arrowMaterial])

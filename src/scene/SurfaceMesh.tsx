@@ -49,7 +49,12 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
     return { geometry: g, scalarAttributes: new Map<QuantityName, BufferAttribute>() }
   }, [surface, bounds])
 
-  useEffect(() => () => geometry.dispose(), [geometry])
+  useEffect(() => () => {
+    // three frees only the attributes attached at dispose time; attach every scalar buffer
+    // uploaded for this geometry so none stays behind on the GPU.
+    for (const [q, attr] of scalarAttributes) geometry.setAttribute('scalar_' + q, attr)
+    geometry.dispose()
+  }, [geometry, scalarAttributes])
 
   const material = useMemo(() => {
     const m = createScalarMaterial(colourMapTexture('viridis'), clippingPlanes)

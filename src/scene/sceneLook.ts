@@ -10,6 +10,8 @@ export const NEUTRAL_SURFACE = '#b9b9b4'
 /** Section handle: plane outline and drag arrow. */
 export const HANDLE = '#2f4f6f'
 export const HANDLE_ACTIVE = '#d06a12'
+/** The probe's dot. */
+export const PROBE = '#d06a12'
 /** Arrows when coloured with one colour. */
 export const ARROW_SINGLE = '#26282b'
 /** Thin feature edges. */
