@@ -2,10 +2,18 @@
  * Peak memory of the command-line path, measured in a fresh process:
  *   node --import tsx test/bench/memoryProbe.ts <file.tractus>   the real model
  *   node --import tsx test/bench/memoryProbe.ts --empty          a one-cell model, same code path
- * reads the native container (zero-copy), runs boundary faces with tractions, the element and
- * body balance audit and one section cut, then prints {"maxRssBytes", "elements"} as JSON.
+ *   node --import tsx test/bench/memoryProbe.ts --write <file.tractus> <elements> <seed>
+ *                                                               writes the tet4 bench model
+ * A probe reads the native container (zero-copy), runs boundary faces with tractions, the
+ * element and body balance audit and one section cut, then prints
+ * {"peakRssBytes", "maxRssBytes", "elements"} as JSON.
+ *
+ * Peak RSS is the kernel's high-water mark of this process's own memory (VmHWM in
+ * /proc/self/status), which starts afresh at exec. process.resourceUsage().maxRSS is reported
+ * beside it but on Linux it also keeps the parent's resident size at fork, so a probe started
+ * from a large benchmark process would report the parent's size.
  */
-import { readFileSync } from 'node:fs'
+import { readFileSync, writeFileSync } from 'node:fs'
 import { readNative, writeNative } from '../../src/io/index.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
@@ -14,21 +22,37 @@ import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 
-const arg = process.argv[2]
-let bytes: Uint8Array
-if (arg === '--empty' || arg === undefined) {
-  bytes = writeNative(syntheticModel('tet4', 6, 1))
-} else {
-  const buf = readFileSync(arg)
-  bytes = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength)
+/** VmHWM of this process in bytes, or null where /proc is not available. */
+export function highWaterRss(): number | null {
+  try {
+    const m = /VmHWM:\s*(\d+)\s*kB/.exec(readFileSync('/proc/self/status', 'utf8'))
+    return m ? Number(m[1]) * 1024 : null
+  } catch {
+    return null
+  }
 }
-const model = readNative(bytes, 'probe.tractus')
-const { mesh, stress, bodyForce } = model
-const faces = extractBoundaryFaces(mesh)
-const tractions = computeSurfaceTractions(mesh, stress, faces)
-const elements = computeElementBalance(mesh, stress, bodyForce)
-const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-const cut = cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions })
-// Keep every result reachable until the measurement, as a user session would.
-const keep = [faces.count, tractions.force.length, elements.indicator.length, body.relative, cut.result.area]
-process.stdout.write(JSON.stringify({ maxRssBytes: process.resourceUsage().maxRSS * 1024, elements: mesh.elementCount, keep: keep.length }) + '\n')
+
+const arg = process.argv[2]
+if (arg === '--write') {
+  const [file, elements, seed] = process.argv.slice(3)
+  writeFileSync(file, writeNative(syntheticModel('tet4', Number(elements), Number(seed))))
+} else {
+  let bytes: Uint8Array
+  if (arg === '--empty' || arg === undefined) {
+    bytes = writeNative(syntheticModel('tet4', 6, 1))
+  } else {
+    const buf = readFileSync(arg)
+    bytes = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength)
+  }
+  const model = readNative(bytes, 'probe.tractus')
+  const { mesh, stress, bodyForce } = model
+  const faces = extractBoundaryFaces(mesh)
+  const tractions = computeSurfaceTractions(mesh, stress, faces)
+  const elements = computeElementBalance(mesh, stress, bodyForce)
+  const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
+  const cut = cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions })
+  // Keep every result reachable until the measurement, as a user session would.
+  const keep = [faces.count, tractions.force.length, elements.indicator.length, body.relative, cut.result.area]
+  const maxRssBytes = process.resourceUsage().maxRSS * 1024
+  process.stdout.write(JSON.stringify({ peakRssBytes: highWaterRss() ?? maxRssBytes, maxRssBytes, elements: mesh.elementCount, keep: keep.length }) + '\n')
+}

@@ -23,19 +23,44 @@ export interface Timing<T> {
 v8.setFlagsFromString('--expose-gc')
 const gc = vm.runInNewContext('gc') as () => void
 
-export function measure<T>(fn: () => T, runs: number, warmup = 1): Timing<T> {
+export interface MeasureOptions {
+  /** At most this many timed runs (default 7). */
+  readonly runs?: number
+  /** At least this many timed runs when the time budget is short (default 3). */
+  readonly minRuns?: number
+  /** At least this many untimed warm-up runs (default 1); more are made until `warmupMs` is spent. */
+  readonly warmup?: number
+  /** Warm-up continues until this much time was spent, so the optimising compiler has run (default 300 ms, at most 10 runs). */
+  readonly warmupMs?: number
+  /** Timed runs stop early once this much time was spent, after `minRuns` (default 4000 ms). */
+  readonly budgetMs?: number
+}
+
+/**
+ * `measure(fn, options)`, or the older `measure(fn, runs, warmup)`: exactly `runs` timed runs
+ * after `warmup` untimed ones (other benchmarks call it that way).
+ */
+export function measure<T>(fn: () => T, options: MeasureOptions | number = {}, legacyWarmup = 1): Timing<T> {
+  const o: MeasureOptions = typeof options === 'number'
+    ? { runs: options, minRuns: options, warmup: legacyWarmup, warmupMs: 0, budgetMs: Infinity }
+    : options
+  const { runs = 7, minRuns = 3, warmup = 1, warmupMs = 300, budgetMs = 4000 } = o
   let value: T = undefined as T
-  for (let i = 0; i < warmup; i++) value = fn()
+  const w0 = performance.now()
+  for (let i = 0; i < 10 && (i < warmup || performance.now() - w0 < warmupMs); i++) value = fn()
   const samplesMs: number[] = []
   const cpu: number[] = []
-  for (let i = 0; i < runs; i++) {
+  let spent = 0
+  for (let i = 0; i < runs && (i < minRuns || spent < budgetMs); i++) {
     gc()
     const c0 = process.cpuUsage()
     const t0 = performance.now()
     value = fn()
-    samplesMs.push(performance.now() - t0)
+    const ms = performance.now() - t0
     const c = process.cpuUsage(c0)
+    samplesMs.push(ms)
     cpu.push((c.user + c.system) / 1000)
+    spent += ms
   }
   return { medianMs: median(samplesMs), cpuMs: median(cpu), samplesMs, value }
 }
