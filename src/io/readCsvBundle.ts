@@ -10,6 +10,7 @@ import type { BlockInput } from '../model/createMesh.ts'
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { Model } from '../model/model.ts'
+import { DEFAULT_UNITS } from '../model/units.ts'
 import { readNumericTable } from './csvTable.ts'
 import type { NumericTable } from './csvTable.ts'
 import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
@@ -138,7 +139,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   return {
     name: meta?.name ?? options.name ?? 'model',
     description: meta?.description ?? '',
-    units: meta?.units ?? { length: 'm', stress: 'Pa' },
+    units: meta?.units ?? DEFAULT_UNITS,
     mesh,
     stress,
     displacement,
