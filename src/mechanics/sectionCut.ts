@@ -15,8 +15,8 @@ import type { Mesh, Vec3 } from '../model/model.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
 import {
-  ACC_AREA, ACC_FORCE, ACC_MOMENT, ACC_ORIGIN, ACC_SIZE, createPolygonScratch, edgeTable, elementPolygon,
-  integratePolygon, sectionFrame,
+  ACC_AREA, ACC_FORCE, ACC_ORIGIN, ACC_SIZE, createPolygonScratch, crossingCases, elementPolygon,
+  integratePolygon, sectionFrame, sectionMomentAtOrigin,
 } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
@@ -92,8 +92,8 @@ export function cutSection(
   const collect = options.polygons ? createPolygonCollector() : null
   for (const block of mesh.blocks) {
     const topo = ELEMENT_TYPES[block.type]
-    const nn = topo.nodeCount, cc = topo.cornerCount, quadratic = topo.quadratic
-    const edges = edgeTable(block.type)
+    const nn = topo.nodeCount, cc = topo.cornerCount
+    const cases = crossingCases(block.type)
     const conn = block.conn
     const count = conn.length / nn
     for (let e = 0, base = 0; e < count; e++, base += nn) {
@@ -112,8 +112,8 @@ export function cutSection(
         }
         if (neg === 0 || neg === cc) continue // all corners on one side
       }
-      if (elementPolygon(sc, acc, 0, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
-      integratePolygon(acc, 0, sc, frame)
+      if (elementPolygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
+      integratePolygon(acc, 0, sc, frame, 6)
       if (collect) collect.add(sc, m, block.offset + e)
     }
   }
@@ -128,19 +128,20 @@ export function cutSection(
   // volume terms about the section centroid: the section itself then adds no volume term
   freeBodyFaces(fb, 0, coords, stress, faces, tractions, d, 0, sc, c, c)
   const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
-  const Ms = momentAboutCentroid(acc, 0, c)
+  const Ms = momentAboutCentroid(acc, 0, c, frame)
   const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce)
   return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody), polygons }
 }
 
 /** Section moment about its centroid c from the accumulator's moment about its local origin. */
-export function momentAboutCentroid(acc: Float64Array, off: number, c: ArrayLike<number>): Vec3 {
+export function momentAboutCentroid(acc: Float64Array, off: number, c: ArrayLike<number>, frame: Float64Array): Vec3 {
+  const Mo = sectionMomentAtOrigin(new Float64Array(3), acc, off, frame)
   const F0 = acc[off + ACC_FORCE], F1 = acc[off + ACC_FORCE + 1], F2 = acc[off + ACC_FORCE + 2]
   const dx = acc[off + ACC_ORIGIN] - c[0], dy = acc[off + ACC_ORIGIN + 1] - c[1], dz = acc[off + ACC_ORIGIN + 2] - c[2]
   return [
-    acc[off + ACC_MOMENT] + dy * F2 - dz * F1,
-    acc[off + ACC_MOMENT + 1] + dz * F0 - dx * F2,
-    acc[off + ACC_MOMENT + 2] + dx * F1 - dy * F0,
+    Mo[0] + dy * F2 - dz * F1,
+    Mo[1] + dz * F0 - dx * F2,
+    Mo[2] + dx * F1 - dy * F0,
   ]
 }
 
@@ -172,26 +173,21 @@ function freeBodyFaces(
 /** Collects drawn polygons into typed arrays that double when full (drawing is not the hot path). */
 function createPolygonCollector() {
   let start = new Int32Array(1024), elem = new Int32Array(1024)
-  let positions = new Float64Array(4096), traction = new Float64Array(4096)
+  let positions = new Float64Array(8192), traction = new Float64Array(8192)
   let count = 0, verts = 0
-  const grow = <T extends Int32Array | Float64Array>(a: T, need: number): T => {
-    if (need <= a.length) return a
-    const b = new (a.constructor as new (n: number) => T)(Math.max(need, 2 * a.length))
-    b.set(a)
-    return b
-  }
   return {
     add(sc: PolygonScratch, m: Vec3, e: number): void {
       const n = sc.count
-      start = grow(start, count + 2); elem = grow(elem, count + 1)
-      positions = grow(positions, 3 * (verts + n)); traction = grow(traction, 3 * (verts + n))
-      const sig = sc.sig, pos = sc.pos
+      if (count + 2 > start.length) { start = growInt(start); elem = growInt(elem) }
+      if (3 * (verts + n) > positions.length) { positions = growFloat(positions); traction = growFloat(traction) }
+      const sig = sc.sig, pos = sc.pos, order = sc.order
+      const mx = m[0], my = m[1], mz = m[2]
       for (let i = 0; i < n; i++) {
-        const k = sc.order[i], s = 6 * k, o = 3 * (verts + i)
+        const k = order[i], s = 6 * k, o = 3 * (verts + i)
         positions[o] = pos[3 * k]; positions[o + 1] = pos[3 * k + 1]; positions[o + 2] = pos[3 * k + 2]
-        traction[o] = sig[s] * m[0] + sig[s + 3] * m[1] + sig[s + 5] * m[2]
-        traction[o + 1] = sig[s + 3] * m[0] + sig[s + 1] * m[1] + sig[s + 4] * m[2]
-        traction[o + 2] = sig[s + 5] * m[0] + sig[s + 4] * m[1] + sig[s + 2] * m[2]
+        traction[o] = sig[s] * mx + sig[s + 3] * my + sig[s + 5] * mz
+        traction[o + 1] = sig[s + 3] * mx + sig[s + 1] * my + sig[s + 4] * mz
+        traction[o + 2] = sig[s + 5] * mx + sig[s + 4] * my + sig[s + 2] * mz
       }
       verts += n
       elem[count++] = e
@@ -204,4 +200,16 @@ function createPolygonCollector() {
       }
     },
   }
+}
+
+function growInt(a: Int32Array<ArrayBuffer>): Int32Array<ArrayBuffer> {
+  const b = new Int32Array(2 * a.length)
+  b.set(a)
+  return b
+}
+
+function growFloat(a: Float64Array<ArrayBuffer>): Float64Array<ArrayBuffer> {
+  const b = new Float64Array(2 * a.length)
+  b.set(a)
+  return b
 }

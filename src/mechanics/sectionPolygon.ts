@@ -29,7 +29,8 @@ export const MAX_POLYGON_POINTS = 12
  * Section accumulator slots (one Float64Array block of ACC_SIZE per section). Integrals are
  * taken relative to a local origin o on the section (the first vertex met), in the in-plane
  * basis (u, v): a = (x - o)·u, b = (x - o)·v. Units: area L², first moments L³, second L⁴,
- * force S·L², moment S·L³ (about o).
+ * force S·L², first moments of traction S·L³. Since o lies on the plane, x - o = a u + b v and the
+ * moment about o needs only ∫ a t dA and ∫ b t dA.
  */
 export const ACC_AREA = 0
 export const ACC_SA = 1
@@ -38,11 +39,13 @@ export const ACC_SAA = 3
 export const ACC_SBB = 4
 export const ACC_SAB = 5
 export const ACC_FORCE = 6
-export const ACC_MOMENT = 9
-export const ACC_ORIGIN = 12
-export const ACC_ORIGIN_SET = 15
-export const ACC_CUT = 16
-export const ACC_SIZE = 17
+/** ∫ a t dA and ∫ b t dA (t = σm); the moment about o is u × ∫ a t + v × ∫ b t (sectionMomentAtOrigin). */
+export const ACC_AT = 9
+export const ACC_BT = 12
+export const ACC_ORIGIN = 15
+export const ACC_ORIGIN_SET = 18
+export const ACC_CUT = 19
+export const ACC_SIZE = 20
 
 /** Reusable scratch for one polygon; create once per cut, never inside the element loop. */
 export interface PolygonScratch {
@@ -60,12 +63,8 @@ export interface PolygonScratch {
   /** Plane coordinates about the section origin o, per vertex as found. */
   readonly a: Float64Array
   readonly b: Float64Array
-  // per ordered vertex: plane coordinates, position relative to o, traction σm, r × t
-  readonly oa: Float64Array
-  readonly ob: Float64Array
-  readonly r: Float64Array
+  /** Traction σm per vertex in polygon order. */
   readonly t: Float64Array
-  readonly rt: Float64Array
 }
 
 export function createPolygonScratch(): PolygonScratch {
@@ -75,21 +74,75 @@ export function createPolygonScratch(): PolygonScratch {
     dist: new Float64Array(8),
     pos: new Float64Array(3 * n), sig: new Float64Array(6 * n), key: new Int32Array(n),
     angle: new Float64Array(n), order: new Int32Array(n),
-    a: new Float64Array(n), b: new Float64Array(n), oa: new Float64Array(n), ob: new Float64Array(n), r: new Float64Array(3 * n),
-    t: new Float64Array(3 * n), rt: new Float64Array(3 * n),
+    a: new Float64Array(n), b: new Float64Array(n), t: new Float64Array(3 * n),
   }
 }
 
-/** Corner-edge table of a type as Int32Array [a, b, mid] per edge (mid = -1 for linear types). */
-const EDGE_TABLES = new Map<ElementTypeName, Int32Array>()
-export function edgeTable(type: ElementTypeName): Int32Array {
-  let t = EDGE_TABLES.get(type)
-  if (!t) {
-    const edges = ELEMENT_TYPES[type].edges
-    t = new Int32Array(3 * edges.length)
-    edges.forEach((e, i) => { t![3 * i] = e[0]; t![3 * i + 1] = e[1]; t![3 * i + 2] = e[2] })
-    EDGE_TABLES.set(type, t)
+/**
+ * Crossing cases of a type, indexed by the sign mask of its corners (bit c set when corner c is
+ * on the - side): which corner edges the plane crosses, each oriented from its - corner q to its
+ * + corner r, listed in the cyclic order of the polygon (two crossed edges are neighbours on the
+ * polygon when they share a face). A table lookup instead of one unpredictable branch per edge.
+ * Cases where some face has four crossed edges (only possible on a warped quadrilateral face)
+ * have no unique cycle and are ordered by angle instead (`sorted` = 0).
+ */
+export interface CrossingCases {
+  readonly cornerCount: number
+  readonly quadratic: boolean
+  /** Crossed edges per mask. */
+  readonly count: Uint8Array
+  /** Per mask, up to 12 crossed edges as [q, r, mid] local node numbers (mid -1 if linear). */
+  readonly edges: Int8Array
+  /** 1 when `edges` is in cyclic order, 0 when the polygon must be ordered by angle. */
+  readonly sorted: Uint8Array
+}
+
+const CASES = new Map<ElementTypeName, CrossingCases>()
+
+export function crossingCases(type: ElementTypeName): CrossingCases {
+  const known = CASES.get(type)
+  if (known) return known
+  const topo = ELEMENT_TYPES[type]
+  const cc = topo.cornerCount, E = topo.edges.length, masks = 1 << cc
+  const count = new Uint8Array(masks), edges = new Int8Array(masks * 36).fill(-1), sorted = new Uint8Array(masks)
+  // corner edges of every face, as edge numbers
+  const edgeOf = (a: number, b: number) => topo.edges.findIndex(([x, y]) => (x === a && y === b) || (x === b && y === a))
+  const faceEdges = topo.faces.map((f, i) => {
+    const n = topo.faceKinds[i].startsWith('tri') ? 3 : 4
+    return Array.from({ length: n }, (_, k) => edgeOf(f[k], f[(k + 1) % n]))
+  })
+  for (let mask = 1; mask < masks - 1; mask++) {
+    const neg = (c: number) => ((mask >> c) & 1) === 1
+    const crossed: number[] = []
+    for (let e = 0; e < E; e++) if (neg(topo.edges[e][0]) !== neg(topo.edges[e][1])) crossed.push(e)
+    // neighbours on the polygon: the other crossed edge of each face
+    const nb = new Map<number, number[]>(crossed.map((e) => [e, []]))
+    let ok = true
+    for (const fe of faceEdges) {
+      const hit = fe.filter((e) => nb.has(e))
+      if (hit.length === 2) { nb.get(hit[0])!.push(hit[1]); nb.get(hit[1])!.push(hit[0]) } else if (hit.length !== 0) ok = false
+    }
+    let cycle = crossed
+    if (ok) {
+      cycle = [crossed[0]]
+      let prev = -1, cur = crossed[0]
+      for (;;) {
+        const next = nb.get(cur)!.find((e) => e !== prev)
+        if (next === undefined || next === crossed[0]) break
+        cycle.push(next); prev = cur; cur = next
+      }
+      if (cycle.length !== crossed.length) { ok = false; cycle = crossed }
+    }
+    count[mask] = cycle.length
+    sorted[mask] = ok ? 1 : 0
+    cycle.forEach((e, k) => {
+      const [a, b, m] = topo.edges[e]
+      const q = neg(a) ? a : b, r = neg(a) ? b : a
+      edges.set([q, r, m], mask * 36 + 3 * k)
+    })
   }
+  const t: CrossingCases = { cornerCount: cc, quadratic: topo.quadratic, count, edges, sorted }
+  CASES.set(type, t)
   return t
 }
 
@@ -122,7 +175,9 @@ function pseudoAngle(dx: number, dy: number): number {
 
 /**
  * Builds the polygon where the plane cuts one element. `sc.dist` must hold the element's corner
- * distances. `conn`/`base`: the element's nodes are conn[base .. base+nodeCount). Returns the
+ * distances. `field` holds per node either the stress (stride 6) or the traction σm (stride 3,
+ * when m is fixed for many planes, as in a sweep); vertices get it interpolated into `sc.sig`.
+ * `conn`/`base`: the element's nodes are conn[base .. base+nodeCount). Returns the
  * vertex count (< 3 means no area: the plane only touches a node or an edge) and leaves the
  * vertices in `sc`, ordered counter-clockwise about m in `sc.order`, with their plane
  * coordinates about the local origin o of the section accumulated in acc[off ..]; the first
@@ -130,28 +185,28 @@ function pseudoAngle(dx: number, dy: number): number {
  * accuracy far from the coordinate origin).
  */
 export function elementPolygon(
-  sc: PolygonScratch, acc: Float64Array, off: number, coords: Float64Array, stress: Float64Array, conn: Int32Array, base: number,
-  edges: Int32Array, quadratic: boolean, frame: Float64Array,
+  sc: PolygonScratch, acc: Float64Array, off: number, coords: Float64Array, field: Float64Array, stride: number,
+  conn: Int32Array, base: number, cases: CrossingCases, frame: Float64Array,
 ): number {
   const dist = sc.dist, pos = sc.pos, sig = sc.sig, key = sc.key
-  const edgeCount = edges.length / 3
+  const cc = cases.cornerCount, quadratic = cases.quadratic
+  let mask = 0
+  for (let c = 0; c < cc; c++) mask |= (dist[c] < 0 ? 1 : 0) << c
+  const ne = cases.count[mask], ce = cases.edges, e0 = mask * 36
   let n = 0
-  for (let e = 0; e < edgeCount; e++) {
-    const ia = edges[3 * e], ib = edges[3 * e + 1]
-    const da = dist[ia], db = dist[ib]
-    if ((da < 0) === (db < 0)) continue // both on one side (d == 0 is the + side)
-    // walk the edge from its - corner q to its + corner r so neighbours agree bit for bit
-    const lq = da < 0 ? ia : ib, lr = da < 0 ? ib : ia
-    const dq = da < 0 ? da : db, dr = da < 0 ? db : da
+  for (let k = 0; k < ne; k++) {
+    // crossed edge from its - corner q to its + corner r: neighbours agree bit for bit
+    const lq = ce[e0 + 3 * k], lr = ce[e0 + 3 * k + 1]
+    const dq = dist[lq], dr = dist[lr]
     const nq = conn[base + lq], nr = conn[base + lr]
     if (dr === 0) {
       // the plane passes through node nr: several edges meet there, keep the point once
       let seen = false
-      for (let k = 0; k < n; k++) if (key[k] === nr) { seen = true; break }
+      for (let j = 0; j < n; j++) if (key[j] === nr) { seen = true; break }
       if (seen) continue
       key[n] = nr
       pos[3 * n] = coords[3 * nr]; pos[3 * n + 1] = coords[3 * nr + 1]; pos[3 * n + 2] = coords[3 * nr + 2]
-      for (let c = 0; c < 6; c++) sig[6 * n + c] = stress[6 * nr + c]
+      for (let c = 0; c < stride; c++) sig[6 * n + c] = field[stride * nr + c]
       n++
       continue
     }
@@ -161,14 +216,17 @@ export function elementPolygon(
     pos[3 * n] = coords[xq] + t * (coords[xr] - coords[xq])
     pos[3 * n + 1] = coords[xq + 1] + t * (coords[xr + 1] - coords[xq + 1])
     pos[3 * n + 2] = coords[xq + 2] + t * (coords[xr + 2] - coords[xq + 2])
-    const sq = 6 * nq, sr = 6 * nr
+    const sq = stride * nq, sr = stride * nr, o = 6 * n
     if (quadratic) {
       // 1D quadratic through q (t=0), the mid-edge node (t=1/2) and r (t=1)
-      const sm = 6 * conn[base + edges[3 * e + 2]]
+      const sm = stride * conn[base + ce[e0 + 3 * k + 2]]
       const wq = (1 - t) * (1 - 2 * t), wm = 4 * t * (1 - t), wr = t * (2 * t - 1)
-      for (let c = 0; c < 6; c++) sig[6 * n + c] = wq * stress[sq + c] + wm * stress[sm + c] + wr * stress[sr + c]
+      for (let c = 0; c < stride; c++) sig[o + c] = wq * field[sq + c] + wm * field[sm + c] + wr * field[sr + c]
+    } else if (stride === 3) {
+      const f0 = field[sq], f1 = field[sq + 1], f2 = field[sq + 2]
+      sig[o] = f0 + t * (field[sr] - f0); sig[o + 1] = f1 + t * (field[sr + 1] - f1); sig[o + 2] = f2 + t * (field[sr + 2] - f2)
     } else {
-      for (let c = 0; c < 6; c++) sig[6 * n + c] = stress[sq + c] + t * (stress[sr + c] - stress[sq + c])
+      for (let c = 0; c < 6; c++) sig[o + c] = field[sq + c] + t * (field[sr + c] - field[sq + c])
     }
     n++
   }
@@ -189,13 +247,14 @@ export function elementPolygon(
     a[k] = ak; b[k] = bk
     ma += ak; mb += bk
   }
-  if (n === 3) {
-    // a triangle needs no sorting, only the turn that makes its normal +m
-    const turn = (a[1] - a[0]) * (b[2] - b[0]) - (a[2] - a[0]) * (b[1] - b[0])
-    order[0] = 0; order[1] = turn >= 0 ? 1 : 2; order[2] = turn >= 0 ? 2 : 1
+  if (cases.sorted[mask] === 1) {
+    // cyclic already (dropping repeated on-plane nodes keeps it cyclic); turn it to face +m
+    let twice = 0
+    for (let k = 0, j = n - 1; k < n; j = k++) twice += a[j] * b[k] - a[k] * b[j]
+    if (twice >= 0) { for (let k = 0; k < n; k++) order[k] = k } else { for (let k = 0; k < n; k++) order[k] = n - 1 - k }
     return n
   }
-  // order by angle in the plane about the vertices' mean, counter-clockwise seen from +m
+  // no unique cycle (a warped face crossed four times): order by angle about the mean
   ma /= n; mb /= n
   const ang = sc.angle
   for (let k = 0; k < n; k++) {
@@ -208,52 +267,72 @@ export function elementPolygon(
   return n
 }
 
-/** Adds the polygon left in `sc` by `elementPolygon` to the section accumulator acc[off ..]. */
-export function integratePolygon(acc: Float64Array, off: number, sc: PolygonScratch, frame: Float64Array): void {
+/**
+ * Adds the polygon left in `sc` by `elementPolygon` to the section accumulator acc[off ..];
+ * `stride` as given to elementPolygon (6: vertices carry stress, 3: they carry σm already).
+ * Fan of triangles from the first vertex; on each, the degree-2 rule for products of linear
+ * functions, ∫ f g dA = A/12 (Σf Σg + Σ f_i g_i) and ∫ f dA = A/3 Σf.
+ */
+export function integratePolygon(acc: Float64Array, off: number, sc: PolygonScratch, frame: Float64Array, stride: number): void {
   const n = sc.count
   if (n < 3) return
-  const pos = sc.pos, sig = sc.sig, order = sc.order
-  const ox = acc[off + ACC_ORIGIN], oy = acc[off + ACC_ORIGIN + 1], oz = acc[off + ACC_ORIGIN + 2]
+  const sig = sc.sig, order = sc.order, a = sc.a, b = sc.b, t = sc.t
   const mx = frame[6], my = frame[7], mz = frame[8]
-  const a = sc.a, b = sc.b, oa = sc.oa, ob = sc.ob, r = sc.r, t = sc.t, rt = sc.rt
+  // traction at each vertex, in polygon order
   for (let i = 0; i < n; i++) {
-    const k = order[i]
-    oa[i] = a[k]; ob[i] = b[k]
-    const rx = pos[3 * k] - ox, ry = pos[3 * k + 1] - oy, rz = pos[3 * k + 2] - oz
-    r[3 * i] = rx; r[3 * i + 1] = ry; r[3 * i + 2] = rz
-    const s = 6 * k
-    const sxx = sig[s], syy = sig[s + 1], szz = sig[s + 2], sxy = sig[s + 3], syz = sig[s + 4], sxz = sig[s + 5]
-    const tx = sxx * mx + sxy * my + sxz * mz
-    const ty = sxy * mx + syy * my + syz * mz
-    const tz = sxz * mx + syz * my + szz * mz
-    t[3 * i] = tx; t[3 * i + 1] = ty; t[3 * i + 2] = tz
-    rt[3 * i] = ry * tz - rz * ty; rt[3 * i + 1] = rz * tx - rx * tz; rt[3 * i + 2] = rx * ty - ry * tx
+    const s = 6 * order[i]
+    if (stride === 3) { t[3 * i] = sig[s]; t[3 * i + 1] = sig[s + 1]; t[3 * i + 2] = sig[s + 2] } else {
+      const sxx = sig[s], syy = sig[s + 1], szz = sig[s + 2], sxy = sig[s + 3], syz = sig[s + 4], sxz = sig[s + 5]
+      t[3 * i] = sxx * mx + sxy * my + sxz * mz
+      t[3 * i + 1] = sxy * mx + syy * my + syz * mz
+      t[3 * i + 2] = sxz * mx + syz * my + szz * mz
+    }
   }
-  let A = 0, Sa = 0, Sb = 0, Saa = 0, Sbb = 0, Sab = 0, Fx = 0, Fy = 0, Fz = 0, Mx = 0, My = 0, Mz = 0
-  const a0 = oa[0], b0 = ob[0]
+  let A = 0, Sa = 0, Sb = 0, Saa = 0, Sbb = 0, Sab = 0, Fx = 0, Fy = 0, Fz = 0
+  let Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
+  const k0 = order[0]
+  const a0 = a[k0], b0 = b[k0], t0x = t[0], t0y = t[1], t0z = t[2]
+  const k1 = order[1]
+  let ai = a[k1], bi = b[k1], tix = t[3], tiy = t[4], tiz = t[5]
   for (let i = 1; i < n - 1; i++) {
-    const j = i + 1
-    const ai = oa[i], bi = ob[i], aj = oa[j], bj = ob[j]
+    const kj = order[i + 1]
+    const aj = a[kj], bj = b[kj], tjx = t[3 * i + 3], tjy = t[3 * i + 4], tjz = t[3 * i + 5]
     const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
-    // degree-2 rule for products of linear functions on a triangle:
-    // ∫ f g dA = A/12 (Σf Σg + Σ f_i g_i), ∫ f dA = A/3 Σf
     const sa = a0 + ai + aj, sb = b0 + bi + bj
+    const stx = t0x + tix + tjx, sty = t0y + tiy + tjy, stz = t0z + tiz + tjz
     A += At
     Sa += At * sa; Sb += At * sb
     Saa += At * (sa * sa + a0 * a0 + ai * ai + aj * aj)
     Sbb += At * (sb * sb + b0 * b0 + bi * bi + bj * bj)
     Sab += At * (sa * sb + a0 * b0 + ai * bi + aj * bj)
-    const stx = t[0] + t[3 * i] + t[3 * j], sty = t[1] + t[3 * i + 1] + t[3 * j + 1], stz = t[2] + t[3 * i + 2] + t[3 * j + 2]
-    const srx = r[0] + r[3 * i] + r[3 * j], sry = r[1] + r[3 * i + 1] + r[3 * j + 1], srz = r[2] + r[3 * i + 2] + r[3 * j + 2]
     Fx += At * stx; Fy += At * sty; Fz += At * stz
-    Mx += At * (sry * stz - srz * sty + rt[0] + rt[3 * i] + rt[3 * j])
-    My += At * (srz * stx - srx * stz + rt[1] + rt[3 * i + 1] + rt[3 * j + 1])
-    Mz += At * (srx * sty - sry * stx + rt[2] + rt[3 * i + 2] + rt[3 * j + 2])
+    Ax += At * (sa * stx + a0 * t0x + ai * tix + aj * tjx)
+    Ay += At * (sa * sty + a0 * t0y + ai * tiy + aj * tjy)
+    Az += At * (sa * stz + a0 * t0z + ai * tiz + aj * tjz)
+    Bx += At * (sb * stx + b0 * t0x + bi * tix + bj * tjx)
+    By += At * (sb * sty + b0 * t0y + bi * tiy + bj * tjy)
+    Bz += At * (sb * stz + b0 * t0z + bi * tiz + bj * tjz)
+    ai = aj; bi = bj; tix = tjx; tiy = tjy; tiz = tjz
   }
   acc[off + ACC_AREA] += A
   acc[off + ACC_SA] += Sa / 3; acc[off + ACC_SB] += Sb / 3
   acc[off + ACC_SAA] += Saa / 12; acc[off + ACC_SBB] += Sbb / 12; acc[off + ACC_SAB] += Sab / 12
   acc[off + ACC_FORCE] += Fx / 3; acc[off + ACC_FORCE + 1] += Fy / 3; acc[off + ACC_FORCE + 2] += Fz / 3
-  acc[off + ACC_MOMENT] += Mx / 12; acc[off + ACC_MOMENT + 1] += My / 12; acc[off + ACC_MOMENT + 2] += Mz / 12
+  acc[off + ACC_AT] += Ax / 12; acc[off + ACC_AT + 1] += Ay / 12; acc[off + ACC_AT + 2] += Az / 12
+  acc[off + ACC_BT] += Bx / 12; acc[off + ACC_BT + 1] += By / 12; acc[off + ACC_BT + 2] += Bz / 12
   acc[off + ACC_CUT] += 1
+}
+
+/**
+ * Moment of the section traction about its local origin o, M_o = ∫ (a u + b v) × t dA
+ * = u × ∫ a t dA + v × ∫ b t dA, into out (S·L³).
+ */
+export function sectionMomentAtOrigin(out: Float64Array, acc: Float64Array, off: number, frame: Float64Array): Float64Array {
+  const ux = frame[0], uy = frame[1], uz = frame[2], vx = frame[3], vy = frame[4], vz = frame[5]
+  const ax = acc[off + ACC_AT], ay = acc[off + ACC_AT + 1], az = acc[off + ACC_AT + 2]
+  const bx = acc[off + ACC_BT], by = acc[off + ACC_BT + 1], bz = acc[off + ACC_BT + 2]
+  out[0] = uy * az - uz * ay + vy * bz - vz * by
+  out[1] = uz * ax - ux * az + vz * bx - vx * bz
+  out[2] = ux * ay - uy * ax + vx * by - vy * bx
+  return out
 }

@@ -5,7 +5,7 @@
 import type { Vec3 } from '../model/model.ts'
 import type { BalanceFigure, SectionResult } from './types.ts'
 import {
-  ACC_AREA, ACC_CUT, ACC_FORCE, ACC_MOMENT, ACC_ORIGIN, ACC_SA, ACC_SAA, ACC_SAB, ACC_SB, ACC_SBB,
+  ACC_AREA, ACC_CUT, ACC_FORCE, ACC_ORIGIN, ACC_SA, ACC_SAA, ACC_SAB, ACC_SB, ACC_SBB, sectionMomentAtOrigin,
 } from './sectionPolygon.ts'
 
 /** Area centroid of an accumulated section, written to out (model length). Area must be > 0. */
@@ -68,10 +68,11 @@ export function sectionRecord(
   const p: Vec3 = about ?? centroid
   const F: Vec3 = [acc[off + ACC_FORCE], acc[off + ACC_FORCE + 1], acc[off + ACC_FORCE + 2]]
   const dx = acc[off + ACC_ORIGIN] - p[0], dy = acc[off + ACC_ORIGIN + 1] - p[1], dz = acc[off + ACC_ORIGIN + 2] - p[2]
+  const Mo = sectionMomentAtOrigin(new Float64Array(3), acc, off, frame)
   const M: Vec3 = [
-    acc[off + ACC_MOMENT] + dy * F[2] - dz * F[1],
-    acc[off + ACC_MOMENT + 1] + dz * F[0] - dx * F[2],
-    acc[off + ACC_MOMENT + 2] + dx * F[1] - dy * F[0],
+    Mo[0] + dy * F[2] - dz * F[1],
+    Mo[1] + dz * F[0] - dx * F[2],
+    Mo[2] + dx * F[1] - dy * F[0],
   ]
   const { I1, I2, e1, e2 } = principalAxes(acc, off, frame)
   const dot = (x: Vec3, y: Vec3) => x[0] * y[0] + x[1] * y[1] + x[2] * y[2]

@@ -21,7 +21,7 @@ import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
 import { momentAboutCentroid, SNAP_EPS, unitNormal } from './sectionCut.ts'
 import {
-  ACC_AREA, ACC_FORCE, ACC_SIZE, createPolygonScratch, edgeTable, elementPolygon, integratePolygon, sectionFrame,
+  ACC_AREA, ACC_FORCE, ACC_SIZE, createPolygonScratch, crossingCases, elementPolygon, integratePolygon, sectionFrame,
 } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { computeSurfaceTractions } from './tractions.ts'
@@ -68,6 +68,14 @@ export function sweepSections(
     D[i] = x * m[0] + y * m[1] + z * m[2]
     T[i] = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz)
   }
+  // m is the same for every plane: interpolate the nodal traction σm (3 numbers, not 6)
+  const tN = new Float64Array(3 * N)
+  for (let i = 0; i < N; i++) {
+    const s = 6 * i
+    tN[3 * i] = stress[s] * m[0] + stress[s + 3] * m[1] + stress[s + 5] * m[2]
+    tN[3 * i + 1] = stress[s + 3] * m[0] + stress[s + 1] * m[1] + stress[s + 4] * m[2]
+    tN[3 * i + 2] = stress[s + 5] * m[0] + stress[s + 4] * m[1] + stress[s + 2] * m[2]
+  }
   // candidate planes are found with the band at its widest, then every plane uses its own
   const wide = 2 * SNAP_EPS * Math.max(Math.abs(from), Math.abs(to))
 
@@ -76,8 +84,8 @@ export function sweepSections(
   const dist = sc.dist
   for (const block of mesh.blocks) {
     const topo = ELEMENT_TYPES[block.type]
-    const nn = topo.nodeCount, cc = topo.cornerCount, quadratic = topo.quadratic
-    const edges = edgeTable(block.type)
+    const nn = topo.nodeCount, cc = topo.cornerCount
+    const cases = crossingCases(block.type)
     const conn = block.conn
     const n = conn.length / nn
     for (let e = 0, base = 0; e < n; e++, base += nn) {
@@ -92,8 +100,8 @@ export function sweepSections(
       for (let k = ja; k <= jb; k++) {
         const o = os[k]
         if (!snappedDistances(dist, D, T, conn, base, cc, o)) continue
-        if (elementPolygon(sc, acc, k * ACC_SIZE, coords, stress, conn, base, edges, quadratic, frame) < 3) continue
-        integratePolygon(acc, k * ACC_SIZE, sc, frame)
+        if (elementPolygon(sc, acc, k * ACC_SIZE, coords, tN, 3, conn, base, cases, frame) < 3) continue
+        integratePolygon(acc, k * ACC_SIZE, sc, frame, 3)
       }
     }
   }
@@ -147,7 +155,7 @@ export function sweepSections(
     if (!(acc[off + ACC_AREA] > 0)) { results.push(emptySection(point, m, frame, null)); continue }
     const c = cen.subarray(3 * j, 3 * j + 3)
     const Fs: Vec3 = [acc[off + ACC_FORCE], acc[off + ACC_FORCE + 1], acc[off + ACC_FORCE + 2]]
-    const freeBody = closeFreeBody(fb, j * FB_SIZE, c, g, acc[off + ACC_AREA], m, Fs, momentAboutCentroid(acc, off, c), bodyForce)
+    const freeBody = closeFreeBody(fb, j * FB_SIZE, c, g, acc[off + ACC_AREA], m, Fs, momentAboutCentroid(acc, off, c, frame), bodyForce)
     results.push(sectionRecord(acc, off, point, m, frame, null, freeBody))
   }
   return { offsets, results }
