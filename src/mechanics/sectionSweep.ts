@@ -1,18 +1,18 @@
 /**
  * A sweep of N parallel sections: planes with unit normal m at offsets from..to along m
- * (plane k passes through offsets[k]·m; `to` < `from` sweeps backwards), all resultants in one pass over the elements.
+ * (plane k passes through offsets[k]·m; `to` < `from` sweeps backwards), all resultants in one
+ * pass over the elements, not N cuts.
  *
- * Each node gets D = x·m once. Each element's corners span [Dmin, Dmax] along m; plane k cuts it
- * exactly when Dmin < o_k ≤ Dmax (d = D - o_k, d == 0 on the + side as in single cuts), a run of
- * consecutive k found from the uniform spacing and then confirmed with that exact test. The
- * element's polygon for each such k goes into section k's accumulator with the same kernels
- * as `cutSection`, visiting elements in the same order, so a sweep equals single cuts at the same
- * offsets up to the rounding of d.
+ * Each node gets D = x·m once (and the traction σm, the same for every plane). Each element's
+ * corners span [Dmin, Dmax] along m; only the planes inside that span (widened by the snap band)
+ * can cut it, a run of consecutive k found from the uniform spacing. For each, the corner
+ * distances d = D - o_k, snapped like a single cut's (SNAP_EPS), decide; the element's polygon
+ * goes into section k's accumulator with the same kernels as `cutSection`, visiting elements in
+ * the same order, so a sweep equals single cuts at the same offsets up to the rounding of d.
  *
- * Free bodies: a boundary face lies wholly on the - side of plane k when o_k > its corners' Dmax,
- * which is true for a run of k at one end. Its whole-face figures are dropped into the bucket
- * where that run starts and summed cumulatively over k; only the faces a plane crosses are
- * clipped per plane.
+ * Free bodies: a boundary face lies wholly on the - side of plane k from some k on (the offsets
+ * ascend). Its whole-face figures are dropped into the bucket where that run starts and summed
+ * cumulatively over k; only the faces a plane crosses are clipped per plane.
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
@@ -35,7 +35,7 @@ export interface SweepOptions {
   readonly tractions?: SurfaceTractions
 }
 
-/** Largest number of sections one sweep computes (accumulators are N × 28 doubles). */
+/** Largest number of sections one sweep computes (about 45 doubles of accumulators each). */
 export const MAX_SWEEP_SECTIONS = 100_000
 
 export function sweepSections(
