@@ -3,6 +3,7 @@ import { startFromHash, startHashSync } from './actions.ts'
 import { requestCut, runProbe } from './engine.ts'
 import { handleKey, watchArrowSettings } from './keyboard.ts'
 import { useStore } from './store.ts'
+import type { ArrowBuffers } from './store.ts'
 import { CAUTION } from './caution.ts'
 import { TopBar } from './ui/TopBar.tsx'
 import { ColourBar } from './ui/ColourBar.tsx'
@@ -18,6 +19,14 @@ import { ColourCard } from './cards/ColourCard.tsx'
 import { SnapshotCard } from './cards/SnapshotCard.tsx'
 import { SceneView } from './SceneView.tsx'
 
+/** Arrow count (count) used when WebGL reports a software renderer. */
+const SOFTWARE_ARROW_BUDGET = 300
+
+const NO_ARROWS: ArrowBuffers = {
+  mode: 'full', origins: new Float32Array(0), vectors: new Float32Array(0), normals: new Float32Array(0),
+  magnitudes: new Float32Array(0), maxMagnitude: 0,
+}
+
 /** Wires store changes to the worker client: section → cut, probe ray → probe. */
 function useEngineWiring(): void {
   useEffect(() => {
@@ -25,13 +34,25 @@ function useEngineWiring(): void {
       if (s.section !== p.section) {
         const a = s.section, b = p.section
         // Only the plane and the switch change the cut; hide/fill/dragging are drawing matters.
-        if (a.enabled !== b.enabled || a.point !== b.point || a.normal !== b.normal || a.offset !== b.offset) requestCut()
+        // At the start of a drag on software WebGL, drop the section arrows at once (see requestCut).
+        if (a.dragging && !b.dragging && s.renderer === 'software' && s.sectionBuffers && s.sectionBuffers.arrows.magnitudes.length > 0) {
+          useStore.getState().set({ sectionBuffers: { ...s.sectionBuffers, arrows: NO_ARROWS } })
+        }
+        // The end of a drag cuts once more, with the arrows the drag left out.
+        if (a.enabled !== b.enabled || a.point !== b.point || a.normal !== b.normal || a.offset !== b.offset ||
+            (b.dragging && !a.dragging)) requestCut()
       }
       if (s.arrowSettings !== p.arrowSettings && (s.arrowSettings.mode !== p.arrowSettings.mode || s.arrowSettings.budget !== p.arrowSettings.budget)) requestCut()
       if (s.probeRay !== p.probeRay && s.probeRay) runProbe()
     })
     const unsubArrows = watchArrowSettings()
-    return () => { unsub(); unsubArrows() }
+    // Software WebGL (no GPU) draws instanced arrows slowly: keep the default count small there.
+    const unsubRenderer = useStore.subscribe((st, prev) => {
+      if (st.renderer === 'software' && prev.renderer !== 'software' && st.arrowSettings.budget > SOFTWARE_ARROW_BUDGET) {
+        st.setArrowSettings({ budget: SOFTWARE_ARROW_BUDGET })
+      }
+    })
+    return () => { unsub(); unsubArrows(); unsubRenderer() }
   }, [])
 }
 

@@ -188,7 +188,10 @@ export function requestCut(): void {
   cutPending = false
   const gen = generation
   const plane = sectionPlaneOf(st.section)
-  const { mode, budget } = st.arrowSettings
+  const { mode } = st.arrowSettings
+  // Software WebGL pays for every arrow on every frame (the compositor waits for the picture):
+  // while the plane is being dragged there, the section arrows are left out; they return on release.
+  const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
   enqueue<Outcome<CutReply>>((api) => api.cut(plane, { mode, budget }))
     .then((out) => {
       if (gen !== generation) return

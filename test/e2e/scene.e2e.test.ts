@@ -1,0 +1,105 @@
+/**
+ * The 3D scene in Debian's Chromium with software WebGL: the section handle drags the plane
+ * along its normal without turning the camera, and a 4× snapshot comes back at four times the
+ * view's size (rendered in tiles) with the model in it.
+ */
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { readFileSync } from 'node:fs'
+import { newPage, openBrowser, OUT_DIR, pixelStats, waitForCut, waitForModel } from './browser.ts'
+import type { Session } from './browser.ts'
+import type { Page } from 'playwright-core'
+import { HANDLE } from '../../src/scene/sceneLook.ts'
+
+let s: Session
+
+beforeAll(async () => { s = await openBrowser() })
+afterAll(async () => { await s?.close() })
+afterEach(() => {
+  expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
+  expect(s.pageErrors, 'uncaught page errors').toEqual([])
+})
+
+/** A screenshot pixel (CSS px) within `tol` of an sRGB hex colour, near the middle of all such pixels, and their count. */
+async function findColour(page: Page, png: Buffer, hex: string, tol: number): Promise<{ x: number; y: number; n: number }> {
+  return page.evaluate(async ({ b64, hex, tol }) => {
+    const bytes = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))
+    const bmp = await createImageBitmap(new Blob([bytes], { type: 'image/png' }))
+    const c = new OffscreenCanvas(bmp.width, bmp.height)
+    const g = c.getContext('2d')!
+    g.drawImage(bmp, 0, 0)
+    const d = g.getImageData(0, 0, bmp.width, bmp.height).data
+    const want = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16))
+    let sx = 0, sy = 0, n = 0
+    for (let y = 0; y < bmp.height; y++) for (let x = 0; x < bmp.width; x++) {
+      const o = 4 * (y * bmp.width + x)
+      if (Math.abs(d[o] - want[0]) <= tol && Math.abs(d[o + 1] - want[1]) <= tol && Math.abs(d[o + 2] - want[2]) <= tol) { sx += x; sy += y; n++ }
+    }
+    // The matching pixel nearest the centroid: the centroid of a thin shape may miss it.
+    const cx = sx / n, cy = sy / n
+    let best = Infinity, bx = NaN, by = NaN
+    for (let y = 0; y < bmp.height; y++) for (let x = 0; x < bmp.width; x++) {
+      const o = 4 * (y * bmp.width + x)
+      if (Math.abs(d[o] - want[0]) <= tol && Math.abs(d[o + 1] - want[1]) <= tol && Math.abs(d[o + 2] - want[2]) <= tol) {
+        const q = (x - cx) ** 2 + (y - cy) ** 2
+        if (q < best) { best = q; bx = x; by = y }
+      }
+    }
+    return { x: bx, y: by, n }
+  }, { b64: png.toString('base64'), hex, tol })
+}
+
+const planeText = (page: Page) => page.textContent('[data-testid="cut-plane"]')
+const hashParam = (page: Page, key: string) => page.evaluate((k) => new URLSearchParams(location.hash.slice(1)).get(k), key)
+
+describe('scene', () => {
+  it('dragging the section handle moves the plane along its normal and leaves the camera alone', async () => {
+    const page = await newPage(s, '#cut=2,0,0.25,1,0,0,0')
+    await waitForModel(page)
+    await waitForCut(page)
+    await page.waitForTimeout(2000)
+    const before = await planeText(page)
+    const camBefore = await hashParam(page, 'cam')
+    // The handle is drawn unlit in one colour, so its pixels find it on screen.
+    const shot = await page.screenshot({ path: `${OUT_DIR}/scene-handle-before.png` })
+    const handle = await findColour(page, shot, HANDLE, 3)
+    expect(handle.n, 'handle pixels on screen').toBeGreaterThan(30)
+    await page.mouse.move(handle.x, handle.y)
+    await page.waitForTimeout(300)
+    await page.mouse.down()
+    for (let i = 1; i <= 12; i++) { await page.mouse.move(handle.x - 10 * i, handle.y + 3 * i); await page.waitForTimeout(50) }
+    await page.mouse.up()
+    await page.waitForTimeout(2500)
+    const after = await planeText(page)
+    expect(after).not.toBe(before)
+    const x = Number(/\(([-\d.e]+),/.exec(after ?? '')?.[1])
+    expect(Number.isFinite(x)).toBe(true)
+    expect(x).not.toBeCloseTo(2, 3)
+    expect(await hashParam(page, 'cam')).toBe(camBefore)
+    await page.screenshot({ path: `${OUT_DIR}/scene-handle-after.png` })
+    await page.close()
+  })
+
+  it('a 4× snapshot is four times the view, rendered in tiles, with the model across a tile edge', async () => {
+    const page = await newPage(s)
+    await waitForModel(page)
+    await page.waitForTimeout(1500)
+    const box = (await page.locator('[data-testid="scene"] canvas').boundingBox())!
+    await page.click('[data-testid="snap-4x"]')
+    const [dl] = await Promise.all([page.waitForEvent('download', { timeout: 120_000 }), page.click('[data-testid="snapshot"]')])
+    const path = `${OUT_DIR}/scene-snapshot-4x.png`
+    await dl.saveAs(path)
+    const png = readFileSync(path)
+    // PNG header: width and height, big-endian, at bytes 16 and 20 (PNG specification, IHDR).
+    const w = png.readUInt32BE(16), h = png.readUInt32BE(20)
+    expect(w).toBe(Math.round(box.width) * 4)
+    expect(h).toBeGreaterThanOrEqual(Math.round(box.height) * 4)
+    // Tiles are at most 2048 px: the model, framed in the middle, shows on both sides of the
+    // first tile edge (x = 2048), near the picture's vertical middle.
+    const y = Math.round(box.height * 2) - 150
+    const left = await pixelStats(page, png, { x: 1700, y, w: 340, h: 300 })
+    const right = await pixelStats(page, png, { x: 2056, y, w: 340, h: 300 })
+    expect(left.distinct + right.distinct).toBeGreaterThan(40)
+    expect(Math.min(left.distinct, right.distinct)).toBeGreaterThan(5)
+    await page.close()
+  })
+})
