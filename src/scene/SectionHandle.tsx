@@ -86,6 +86,10 @@ export function SectionHandle({ section, center, radius, cut }: SectionHandlePro
     invalidate()
   }, [arrowMaterial, hover, dragging, invalidate])
 
+  // Not drawn (visible: false on the material), yet still hit by the pointer ray.
+  const gripMaterial = useMemo(() => new MeshBasicMaterial({ visible: false }), [])
+  useEffect(() => () => gripMaterial.dispose(), [gripMaterial])
+
   const quaternion = useMemo(() => new Quaternion().setFromUnitVectors(new Vector3(0, 1, 0), n), [n])
   const length = Math.max(0.22 * r, 0.9 * half)
 
@@ -147,6 +151,17 @@ export function SectionHandle({ section, center, radius, cut }: SectionHandlePro
       />
       <mesh renderOrder={11} material={arrowMaterial} onPointerDown={onPointerDown}>
         <sphereGeometry args={[0.03 * r, 12, 8]} />
+      </mesh>
+      {/* A fatter, invisible grip along the arrow: a thin shaft is hard to hit with a pointer. */}
+      <mesh
+        material={gripMaterial}
+        quaternion={quaternion}
+        position={n.clone().multiplyScalar(length / 2)}
+        onPointerDown={onPointerDown}
+        onPointerOver={() => { setHover(true); gl.domElement.style.cursor = 'grab' }}
+        onPointerOut={() => { setHover(false); gl.domElement.style.cursor = '' }}
+      >
+        <cylinderGeometry args={[0.06 * r, 0.06 * r, length, 8, 1]} />
       </mesh>
     </group>
   )
