@@ -126,7 +126,7 @@ export function cutSection(
   const tractions = options.tractions ?? computeSurfaceTractions(mesh, stress, faces)
   const fb = new Float64Array(FB_SIZE)
   // volume terms about the section centroid: the section itself then adds no volume term
-  freeBodyFaces(fb, 0, coords, stress, faces, tractions, d, 0, sc, c, c)
+  freeBodyFaces(fb, 0, coords, stress, faces, tractions, d, sc, c, c)
   const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
   const Ms = momentAboutCentroid(acc, 0, c, frame)
   const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce)
@@ -147,12 +147,11 @@ export function momentAboutCentroid(acc: Float64Array, off: number, c: ArrayLike
 
 /**
  * Boundary faces of the - piece for one plane: whole faces (all corners d < 0) and clipped faces.
- * `D` holds per-node distances, the plane at `shift` (d = D - shift). c: section centroid,
- * g: volume origin.
+ * `d` holds the snapped per-node distances. c: section centroid, g: volume origin.
  */
 function freeBodyFaces(
   fb: Float64Array, off: number, coords: Float64Array, stress: Float64Array, faces: BoundaryFaces,
-  tractions: SurfaceTractions, D: Float64Array, shift: number, sc: PolygonScratch, c: ArrayLike<number>, g: ArrayLike<number>,
+  tractions: SurfaceTractions, d: Float64Array, sc: PolygonScratch, c: ArrayLike<number>, g: ArrayLike<number>,
 ): void {
   const nodes = faces.nodes, kind = faces.kind, dist = sc.dist
   const cx = c[0], cy = c[1], cz = c[2], gx = g[0], gy = g[1], gz = g[2]
@@ -160,7 +159,7 @@ function freeBodyFaces(
     const nc = faceCornerCount(kind[f])
     let neg = 0
     for (let k = 0; k < nc; k++) {
-      const dk = D[nodes[FACE_SLOTS * f + k]] - shift
+      const dk = d[nodes[FACE_SLOTS * f + k]]
       dist[k] = dk
       if (dk < 0) neg++
     }
