@@ -15,6 +15,8 @@ export interface Timing<T> {
    */
   readonly cpuMs: number
   readonly samplesMs: number[]
+  /** Wall time of the very first call (cold: before the optimising compiler has run). */
+  readonly firstMs: number
   readonly value: T
 }
 
@@ -28,9 +30,9 @@ export interface MeasureOptions {
   readonly runs?: number
   /** At least this many timed runs when the time budget is short (default 3). */
   readonly minRuns?: number
-  /** At least this many untimed warm-up runs (default 1); more are made until `warmupMs` is spent. */
+  /** At least this many untimed warm-up runs (default 1); more (up to 10) until `warmupMs` is spent. */
   readonly warmup?: number
-  /** Warm-up continues until this much time was spent, so the optimising compiler has run (default 300 ms, at most 10 runs). */
+  /** Warm-up continues until this much time was spent, so the optimising compiler has run (default 1000 ms, at most 10 runs). */
   readonly warmupMs?: number
   /** Timed runs stop early once this much time was spent, after `minRuns` (default 4000 ms). */
   readonly budgetMs?: number
@@ -44,10 +46,14 @@ export function measure<T>(fn: () => T, options: MeasureOptions | number = {}, l
   const o: MeasureOptions = typeof options === 'number'
     ? { runs: options, minRuns: options, warmup: legacyWarmup, warmupMs: 0, budgetMs: Infinity }
     : options
-  const { runs = 7, minRuns = 3, warmup = 1, warmupMs = 300, budgetMs = 4000 } = o
+  const { runs = 7, minRuns = 3, warmup = 1, warmupMs = 1000, budgetMs = 4000 } = o
   let value: T = undefined as T
   const w0 = performance.now()
-  for (let i = 0; i < 10 && (i < warmup || performance.now() - w0 < warmupMs); i++) value = fn()
+  let firstMs = -1
+  for (let i = 0; i < Math.max(10, warmup) && (i < warmup || performance.now() - w0 < warmupMs); i++) {
+    value = fn()
+    if (i === 0) firstMs = performance.now() - w0
+  }
   const samplesMs: number[] = []
   const cpu: number[] = []
   let spent = 0
@@ -61,8 +67,9 @@ export function measure<T>(fn: () => T, options: MeasureOptions | number = {}, l
     samplesMs.push(ms)
     cpu.push((c.user + c.system) / 1000)
     spent += ms
+    if (firstMs < 0) firstMs = ms
   }
-  return { medianMs: median(samplesMs), cpuMs: median(cpu), samplesMs, value }
+  return { medianMs: median(samplesMs), cpuMs: median(cpu), samplesMs, firstMs, value }
 }
 
 export function median(values: readonly number[]): number {
