@@ -13,7 +13,9 @@ export interface PcgResult {
  * Solves A u = f for the free degrees of freedom by the conjugate gradient method preconditioned
  * with the inverse of each node's 3×3 diagonal block (block Jacobi). `fixed[d] = 1` holds dof d at
  * zero: the solve works on P A P with P the projection onto the free dofs, so the matrix stays
- * untouched and the reactions can be read afterwards as A u - f. Writes u (fixed entries 0).
+ * untouched and the reactions can be read afterwards as A u - f. Starts from the u given (an
+ * initial guess, for example a coarser mesh's solution; fixed entries are zeroed) and writes the
+ * solution into it.
  * Hestenes & Stiefel (1952) for the method; block Jacobi is common practice.
  */
 export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: Uint8Array, tolerance: number, maxIterations: number): PcgResult {
@@ -31,11 +33,18 @@ export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: U
     invert3(inv, 9 * i, blk)
   }
   const r = new Float64Array(n), z = new Float64Array(n), p = new Float64Array(n), q = new Float64Array(n)
-  u.fill(0)
   let fnorm = 0
-  for (let d = 0; d < n; d++) { r[d] = fixed[d] ? 0 : f[d]; fnorm += r[d] * r[d] }
+  for (let d = 0; d < n; d++) {
+    if (fixed[d]) u[d] = 0
+    else fnorm += f[d] * f[d]
+  }
   fnorm = Math.sqrt(fnorm)
-  if (fnorm === 0) return { iterations: 0, relativeResidual: 0, converged: true }
+  if (fnorm === 0) { u.fill(0); return { iterations: 0, relativeResidual: 0, converged: true } }
+  blockCsrMultiply(q, a, u)
+  let r0 = 0
+  for (let d = 0; d < n; d++) { r[d] = fixed[d] ? 0 : f[d] - q[d]; r0 += r[d] * r[d] }
+  // An initial guess that already solves the system needs no step (and would divide 0 by 0).
+  if (Math.sqrt(r0) / fnorm < tolerance) return { iterations: 0, relativeResidual: Math.sqrt(r0) / fnorm, converged: true }
   applyBlockDiagonal(z, inv, r)
   p.set(z)
   let rz = dot(r, z)

@@ -23,6 +23,8 @@ export interface ElasticProblem {
   /** Relative residual ‖f - Au‖/‖f‖ to stop at; 1e-8 by default. */
   readonly tolerance?: number
   readonly maxIterations?: number
+  /** Initial guess of the displacement (3N), e.g. a coarser mesh's solution interpolated; zero by default. */
+  readonly initialGuess?: Float64Array
   /**
    * Nodal stress recovery: 'patch' (default) superconvergent patch recovery (patchRecovery.ts),
    * or element values spread to the corners and averaged at nodes: 'extrapolate' (Gauss points
@@ -81,7 +83,7 @@ export function solveElastic(problem: ElasticProblem): ElasticSolution {
     addElementMatrix(k, en, ke)
   }
   const t1 = performance.now()
-  const u = new Float64Array(3 * nodes)
+  const u = problem.initialGuess ? Float64Array.from(problem.initialGuess) : new Float64Array(3 * nodes)
   const res = solvePcg(u, k, load, fixed, problem.tolerance ?? 1e-8, problem.maxIterations ?? 20000)
   const t2 = performance.now()
   const mode = problem.recovery ?? 'patch'

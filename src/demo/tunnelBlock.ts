@@ -2,7 +2,7 @@ import type { ModelUnits } from '../model/units.ts'
 import type { Vec3 } from '../model/model.ts'
 import { addBodyLoads, addFaceLoads } from './consistentLoads.ts'
 import { hexBoundaryFaces, selectFaces } from './hexFaces.ts'
-import { extrudeQuads, holeRing, minQuadArea, squareOutline } from './quadMesh.ts'
+import { extrudeQuads, gradedSteps, holeRing, minQuadArea, squareOutline } from './quadMesh.ts'
 import type { ElasticProblem } from './solveElastic.ts'
 
 /**
@@ -46,8 +46,53 @@ export function tunnelMeshLevel(level: number): Pick<TunnelSpec, 'perSector' | '
     case 0: return { perSector: 6, ringDivisions: 12, layers: 1 }
     case 1: return { perSector: 12, ringDivisions: 24, layers: 2 }
     case 2: return { perSector: 24, ringDivisions: 48, layers: 3 }
-    default: return { perSector: 64, ringDivisions: 128, layers: 6 }
+    default: return { perSector: 64, ringDivisions: 128, layers: 4 }
   }
+}
+
+/** First radial step of the ring, as a fraction of the shortest ray: the step round the tunnel wall. */
+function firstRingStep(spec: TunnelSpec): number {
+  return (2 * Math.PI * spec.radius) / (8 * spec.perSector) / (spec.width / 2 - spec.radius)
+}
+
+/**
+ * Interpolates a displacement field of one tunnel mesh onto another of the same block (for
+ * example a coarser level's solution as the conjugate-gradient start of a finer one, which saves
+ * the iterations that would spread the load across the block). Both meshes are ring meshes with
+ * nodes k + 8m·j + planeNodes·layer; the field is interpolated linearly in the ring's own
+ * parameters (angle index, graded radial parameter, layer height), so no point search is needed.
+ */
+export function interpolateTunnelField(from: TunnelSpec, u: Float64Array, to: TunnelSpec): Float64Array {
+  const ncA = 8 * from.perSector, nrA = from.ringDivisions, nA = ncA * (nrA + 1)
+  const ncB = 8 * to.perSector, nrB = to.ringDivisions, nB = ncB * (nrB + 1)
+  const sA = gradedSteps(nrA, firstRingStep(from)), sB = gradedSteps(nrB, firstRingStep(to))
+  const out = new Float64Array(3 * nB * (to.layers + 1))
+  for (let l = 0; l <= to.layers; l++) {
+    const zt = (l / to.layers) * from.layers
+    const l0 = Math.min(from.layers - 1, Math.floor(zt)), wz = zt - l0
+    for (let j = 0; j <= nrB; j++) {
+      // Radial parameter: find the coarse interval holding sB[j].
+      let j0 = 0
+      while (j0 < nrA - 1 && sA[j0 + 1] < sB[j]) j0++
+      const ws = Math.min(1, Math.max(0, (sB[j] - sA[j0]) / (sA[j0 + 1] - sA[j0])))
+      for (let k = 0; k < ncB; k++) {
+        const kt = (k / ncB) * ncA
+        const k0 = Math.floor(kt) % ncA, k1 = (k0 + 1) % ncA, wk = kt - Math.floor(kt)
+        const o = 3 * (k + ncB * j + nB * l)
+        for (let c = 0; c < 3; c++) {
+          let v = 0
+          for (let dl = 0; dl < 2; dl++) for (let dj = 0; dj < 2; dj++) for (let dk = 0; dk < 2; dk++) {
+            const w = (dl ? wz : 1 - wz) * (dj ? ws : 1 - ws) * (dk ? wk : 1 - wk)
+            if (w === 0) continue
+            const node = (dk ? k1 : k0) + ncA * (j0 + dj) + nA * (l0 + dl)
+            v += w * u[3 * node + c]
+          }
+          out[o + c] = v
+        }
+      }
+    }
+  }
+  return out
 }
 
 export interface TunnelScenario {
@@ -70,8 +115,7 @@ export function buildTunnelBlock(spec: TunnelSpec = TUNNEL_DEFAULTS): TunnelScen
   const { width: w, height: h, slice, radius: a, perSector: m } = spec
   const yc = h / 2, half = w / 2
   if (Math.abs(w - h) > 1e-12) throw new RangeError('the tunnel block mesher needs a square block')
-  const hCirc = (2 * Math.PI * a) / (8 * m)
-  const plane = holeRing(0, yc, a, m, spec.ringDivisions, (k) => squareOutline(0, yc, half, m, k), hCirc / (half - a))
+  const plane = holeRing(0, yc, a, m, spec.ringDivisions, (k) => squareOutline(0, yc, half, m, k), firstRingStep(spec))
   if (!(minQuadArea(plane) > 0)) throw new RangeError('tunnel mesh has an inverted quad')
   const { coords, conn } = extrudeQuads(plane, slice, spec.layers)
   const N = coords.length / 3
