@@ -30,7 +30,11 @@ export function demos(): Promise<DemoEntry[]> {
   if (!demoList) {
     demoList = fetch(new URL('demo/index.json', document.baseURI).href)
       .then((r) => (r.ok ? r.json() : []))
-      .then((list: unknown) => (Array.isArray(list) ? list.filter(isDemoEntry) : []))
+      .then((doc: unknown) => {
+        // Either a bare list or {scenarios: [...]}.
+        const list = Array.isArray(doc) ? doc : Array.isArray((doc as { scenarios?: unknown })?.scenarios) ? (doc as { scenarios: unknown[] }).scenarios : []
+        return list.filter(isDemoEntry)
+      })
       .catch(() => [])
   }
   return demoList
@@ -38,8 +42,10 @@ export function demos(): Promise<DemoEntry[]> {
 
 function isDemoEntry(x: unknown): x is DemoEntry {
   const e = x as DemoEntry
+  // The file is a path under demo/: plain segments only, so the list cannot point elsewhere.
   return !!e && typeof e.id === 'string' && /^[A-Za-z0-9_-]{1,64}$/.test(e.id) && typeof e.file === 'string' &&
-    /^[A-Za-z0-9_.-]{1,128}$/.test(e.file) && typeof e.name === 'string'
+    /^[A-Za-z0-9_-][A-Za-z0-9_.-]*(\/[A-Za-z0-9_-][A-Za-z0-9_.-]*)*$/.test(e.file) && e.file.length <= 200 &&
+    !e.file.split('/').includes('..') && typeof e.name === 'string'
 }
 
 export function demoSource(d: DemoEntry): AppSource {

@@ -88,7 +88,8 @@ async function toModelSource(s: AppSource): Promise<ModelSource> {
   const res = await fetch(s.url)
   if (!res.ok) throw new Error(`Could not read the demo model ${s.file} (HTTP ${res.status}).`)
   const data = s.file.toLowerCase().endsWith('.json') ? await res.text() : await res.arrayBuffer()
-  return { kind: 'files', files: [{ name: s.file, data }], label: `demo:${s.id}` }
+  const name = s.file.split('/').pop() ?? s.file
+  return { kind: 'files', files: [{ name, data }], label: `demo:${s.id}` }
 }
 
 function transferList(src: ModelSource): Transferable[] {

@@ -10,7 +10,8 @@ import { sectionRows } from './exports.ts'
 import { formatNumber, QUANTITY_LABEL, quantityDisplay } from './format.ts'
 import { snapshotLayout } from './snapshotLayout.ts'
 import { activeRange, sectionPlaneOf } from './store.ts'
-import type { TractusState } from './store.ts'
+import type { ColourMapName, TractusState } from './store.ts'
+import { sectionColouring } from '../scene/index.ts'
 
 type Picture = HTMLCanvasElement | OffscreenCanvas
 
@@ -69,7 +70,10 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
     const colW = Math.round(250 * s)
     const x0 = w - colW - L.margin, y0 = L.margin
     const plane = sectionPlaneOf(st.section)
-    panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), colW + Math.round(16 * s), rowH * (rows.length + 2) + Math.round(12 * s))
+    const sec = st.sectionBuffers ? sectionColouring(st) : null
+    const ownBar = !!sec && !sec.sharedWithSurface
+    const barBlock = ownBar ? Math.round(52 * s) : 0
+    panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), colW + Math.round(16 * s), rowH * (rows.length + 2) + Math.round(12 * s) + barBlock)
     g.fillStyle = '#1d2329'
     g.font = `600 ${px(12)}`
     g.fillText('Section resultant', x0, y0)
@@ -86,6 +90,20 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
       g.fillText(`${formatNumber(r.value)} ${r.unit === '–' ? '' : r.unit}`, x0 + colW, y)
     })
     g.textAlign = 'left'
+    if (ownBar && sec) {
+      // The section face has its own map or range: its bar goes under the table.
+      const d = quantityDisplay(st.section.traction, m.units, st.units)
+      const by = y0 + rowH * (rows.length + 2) + Math.round(4 * s)
+      g.font = px(11)
+      g.fillStyle = '#1d2329'
+      g.fillText(`Section fill: ${QUANTITY_LABEL[st.section.traction]} [${d.unit}]`, x0, by)
+      drawGradient(g, sec.map, x0, by + Math.round(16 * s), colW, Math.round(10 * s), s)
+      g.font = px(10)
+      g.fillText(formatNumber(sec.range[0] * d.factor), x0, by + Math.round(29 * s))
+      g.textAlign = 'right'
+      g.fillText(formatNumber(sec.range[1] * d.factor), x0 + colW, by + Math.round(29 * s))
+      g.textAlign = 'left'
+    }
   }
 
   // Footer: quantity title, colour bar, labels, caution.
@@ -94,16 +112,7 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   g.font = px(12)
   g.textAlign = 'center'
   g.fillText(`${QUANTITY_LABEL[st.quantity]} [${unit}]`, w / 2, L.footer.y + Math.round(3 * s))
-  const table = colourMapTable(st.colourMap, 256)
-  const img = g.createImageData(L.bar.w, 1)
-  for (let i = 0; i < L.bar.w; i++) {
-    const k = Math.min(255, Math.floor((i / Math.max(1, L.bar.w - 1)) * 255 + 0.5))
-    img.data.set(table.subarray(4 * k, 4 * k + 4), 4 * i)
-  }
-  for (let y = 0; y < L.bar.h; y++) g.putImageData(img, L.bar.x, L.bar.y + y)
-  g.strokeStyle = '#1d2329'
-  g.lineWidth = Math.max(1, s)
-  g.strokeRect(L.bar.x, L.bar.y, L.bar.w, L.bar.h)
+  drawGradient(g, st.colourMap, L.bar.x, L.bar.y, L.bar.w, L.bar.h, s)
   g.font = px(11)
   const ticks = 5
   for (let i = 0; i < ticks; i++) {
@@ -121,4 +130,18 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   g.font = px(11)
   g.fillText(CAUTION, w / 2, L.caution.y + Math.round(5 * s), w - 2 * L.margin)
   g.textAlign = 'left'
+}
+
+/** A horizontal colour-map gradient with a thin frame, low end on the left. */
+function drawGradient(g: CanvasRenderingContext2D, map: ColourMapName, x: number, y: number, w: number, h: number, s: number): void {
+  const table = colourMapTable(map, 256)
+  const img = g.createImageData(w, 1)
+  for (let i = 0; i < w; i++) {
+    const k = Math.min(255, Math.floor((i / Math.max(1, w - 1)) * 255 + 0.5))
+    img.data.set(table.subarray(4 * k, 4 * k + 4), 4 * i)
+  }
+  for (let r = 0; r < h; r++) g.putImageData(img, x, y + r)
+  g.strokeStyle = '#1d2329'
+  g.lineWidth = Math.max(1, s)
+  g.strokeRect(x, y, w, h)
 }

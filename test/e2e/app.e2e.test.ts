@@ -47,8 +47,9 @@ describe('Tractus in Chromium', () => {
   })
 
   it('downloads a snapshot PNG at 1x and 2x with the colour bar in it', async () => {
-    const page = await newPage(s, '#q=vonMises&cut=1.5,0,0.25,1,0,0,0')
+    const page = await newPage(s, '#q=vonMises')
     await waitForModel(page)
+    await page.keyboard.press('x')
     await waitForCut(page)
     await settle(page)
     const canvas = await page.locator('[data-testid="scene"] canvas').boundingBox()
@@ -94,11 +95,11 @@ describe('Tractus in Chromium', () => {
     await page.press('[data-testid="range-max"]', 'Enter')
     await page.check('[data-testid="cut-enabled"]')
     await page.click('[data-testid="cut-snap-y"]')
-    await page.fill('[data-testid="cut-px"]', '0.7')
-    await page.press('[data-testid="cut-px"]', 'Enter')
-    await page.fill('[data-testid="cut-ny"]', '1')
+    // Tilt the normal and move the plane off the centre (keys: the offset steps by 1/50 of the size).
     await page.fill('[data-testid="cut-nx"]', '0.4')
     await page.press('[data-testid="cut-nx"]', 'Enter')
+    await page.keyboard.press(']')
+    await page.keyboard.press(']')
     await waitForCut(page)
     // Turn the view: drag on an empty part of the canvas.
     await page.mouse.move(200, 500)
