@@ -156,7 +156,7 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   log(`${label}: CSV read`)
   const files = writeCsvBundle(model)
   const csvBytes = files.reduce((s, f) => s + f.text.length, 0)
-  const csv = measure(() => readCsvBundle(files), { runs: runsFor(E, 3), minRuns, warmup: type === 'tet4' ? 1 : 0, warmupMs: 0 })
+  const csv = measure(() => readCsvBundle(files), { runs: runsFor(E, 3), minRuns, warmup: type === 'tet4' ? 2 : 0, warmupMs: 0 })
   const streamCsv = measure(() => streamText(files.map((f) => f.text)), { runs: runsFor(E, 3) })
   checks.csvRoundTripCoords = sameArray(csv.value.mesh.coords, mesh.coords)
   checks.csvRoundTripStress = sameArray(csv.value.stress, stress)
