@@ -8,7 +8,7 @@ import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { CutReply, EngineApi, EngineFile, LoadedModel, ModelSource, Outcome, SyntheticSpec } from '../../workers/engineTypes.ts'
 import { DEFAULT_SECTION, sectionPlaneOf, useStore } from './store.ts'
-import type { AppError } from './store.ts'
+import type { AppError, SectionState } from './store.ts'
 
 /** Where a model comes from, in a form that can be loaded again after a respawn. */
 export type AppSource =
@@ -64,6 +64,7 @@ function respawn(): void {
   cutInFlight = false
   cutPending = false
   probeInFlight = false
+  pacedPatch = null
 }
 
 async function recover(error: AppError): Promise<void> {
@@ -204,9 +205,45 @@ export function requestCut(): void {
     })
     .finally(() => {
       if (gen !== generation) return
-      cutInFlight = false
-      if (cutPending) requestCut()
+      // The next cut starts once the frame showing this one is out: on two cores the worker's
+      // cut and the software rasteriser would otherwise fight for the same CPU and both slow down.
+      afterNextFrame(() => {
+        if (gen !== generation) return
+        cutInFlight = false
+        if (pacedPatch) {
+          const patch = pacedPatch
+          pacedPatch = null
+          useStore.getState().setSection(patch)
+        }
+        if (cutPending) requestCut()
+      })
     })
+}
+
+let pacedPatch: Partial<SectionState> | null = null
+
+/**
+ * Moves the section at the pace of the cuts: while a cut is computing, the newest move is held
+ * and applied when that cut is on screen. The clipped surface and the section face then always
+ * move together, and a fast drag never asks for frames the cut cannot keep up with.
+ */
+export function setSectionPaced(patch: Partial<SectionState>): void {
+  if (cutInFlight) { pacedPatch = { ...pacedPatch, ...patch }; return }
+  pacedPatch = null
+  useStore.getState().setSection(patch)
+}
+
+/** Applies a held move at once (end of a drag). */
+export function flushPacedSection(extra: Partial<SectionState> = {}): void {
+  const patch = { ...pacedPatch, ...extra }
+  pacedPatch = null
+  useStore.getState().setSection(patch)
+}
+
+/** Runs `cb` after the next animation frame has been produced (rAF, then a task after it). */
+function afterNextFrame(cb: () => void): void {
+  if (typeof requestAnimationFrame !== 'function' || document.hidden) { setTimeout(cb, 0); return }
+  requestAnimationFrame(() => setTimeout(cb, 0))
 }
 
 /** Intersects the stored probe ray in the worker (latest ray wins). */

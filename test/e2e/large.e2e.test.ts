@@ -1,7 +1,8 @@
 /**
  * A large generated model (at least 200 000 tet4 elements) stays responsive: the main thread's
  * long tasks (PerformanceObserver 'longtask') are recorded while the model loads and while the
- * section is dragged; any task over 200 ms during the drag fails the test. The figures are
+ * section is dragged (pointer down to pointer up); any task over 200 ms during the drag fails the
+ * test. Tasks after the release (the final cut with its arrows) are reported, not asserted. The figures are
  * printed and written to test-output/e2e/large-model.json.
  */
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
@@ -90,7 +91,9 @@ describe('large model', () => {
     const tasks = await page.evaluate(() => window.__longTasks ?? [])
     const cutChanges = await page.evaluate(() => window.__cutChanges ?? [])
     const during = (a: number, b: number): Task[] => tasks.filter((t) => t.start + t.duration >= a && t.start <= b)
-    const dragTasks = during(dragStart, settledEnd)
+    // The drag is pointer down to pointer up; what follows (the last cut, arrows back) is reported apart.
+    const dragTasks = during(dragStart, dragEnd)
+    const afterTasks = tasks.filter((t) => t.start > dragEnd && t.start <= settledEnd)
     const figures = {
       elements,
       load: { wallMs: loadWallMs, inPageMs: Math.round(loadEnd - loadStart), longTasks: summary(during(loadStart, loadEnd)) },
@@ -100,7 +103,9 @@ describe('large model', () => {
         cutResultsShownDuringDrag: cutChanges.filter((t) => t <= dragEnd).length,
         cutResultsShownInAll: cutChanges.length,
         longTasks: summary(dragTasks),
+        longTaskDurationsMs: dragTasks.map((t) => Math.round(t.duration)),
       },
+      afterRelease: { windowMs: Math.round(settledEnd - dragEnd), longTasks: summary(afterTasks) },
       limitMs: LIMIT_MS,
     }
     console.log('large-model figures ' + JSON.stringify(figures))

@@ -1,4 +1,6 @@
+import { useState } from 'react'
 import type { Vec3 } from '../../model/model.ts'
+import { flushPacedSection, setSectionPaced } from '../engine.ts'
 import { displayFactor } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
 import { Num, Vec } from '../ui/Num.tsx'
@@ -6,6 +8,36 @@ import { NumberField } from '../ui/NumberField.tsx'
 import { download, fileStem, sectionCsv, sectionJson, sectionRows } from '../exports.ts'
 import { unitLabel } from '../format.ts'
 import { sectionPlaneOf, useStore } from '../store.ts'
+
+/**
+ * The offset slider. While the pointer holds it, moves go through setSectionPaced (one cut at a
+ * time, the newest move wins) and the thumb follows the pointer from local state.
+ */
+function OffsetSlider({ half }: { half: number }) {
+  const offset = useStore((s) => s.section.offset)
+  const dragging = useStore((s) => s.section.dragging)
+  const setSection = useStore((s) => s.setSection)
+  const [local, setLocal] = useState(offset)
+  const shown = dragging ? local : offset
+  return (
+    <label className="slider">
+      <span className="lbl">Offset</span>
+      <input
+        type="range" data-testid="cut-offset" min={-half} max={half} step={half / 500} value={shown}
+        onChange={(e) => {
+          const v = Number(e.target.value)
+          setLocal(v)
+          if (useStore.getState().section.dragging) setSectionPaced({ offset: v })
+          else setSection({ offset: v })
+        }}
+        onPointerDown={() => { setLocal(offset); setSection({ dragging: true }) }}
+        onPointerUp={() => flushPacedSection({ dragging: false })}
+        onPointerCancel={() => flushPacedSection({ dragging: false })}
+      />
+      <Num v={shown} q="length" />
+    </label>
+  )
+}
 
 const AXES: [string, Vec3][] = [['x', [1, 0, 0]], ['y', [0, 1, 0]], ['z', [0, 0, 1]]]
 
@@ -65,15 +97,7 @@ export function CutCard() {
             ))}
             <button type="button" data-testid="cut-flip" onClick={() => setSection({ normal: [-section.normal[0], -section.normal[1], -section.normal[2]], offset: -section.offset })}>Flip</button>
           </div>
-          <label className="slider">
-            <span className="lbl">Offset</span>
-            <input
-              type="range" data-testid="cut-offset" min={-half} max={half} step={half / 500} value={section.offset}
-              onChange={(e) => setSection({ offset: Number(e.target.value) })}
-              onPointerDown={() => setSection({ dragging: true })} onPointerUp={() => setSection({ dragging: false })}
-            />
-            <Num v={section.offset} q="length" />
-          </label>
+          <OffsetSlider half={half} />
           <div className="row">
             <span className="lbl">Hide</span>
             <select value={section.hide} data-testid="cut-hide" onChange={(e) => setSection({ hide: e.target.value as typeof section.hide })}>

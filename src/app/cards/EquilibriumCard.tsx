@@ -14,11 +14,11 @@ export function EquilibriumCard() {
       <table className="figures" data-testid="body-balance">
         <caption>Whole body: ∮ t dA + ∫ ρb dV</caption>
         <tbody>
-          <tr><th>Residual force</th><td><Vec v={b.force} q="force" /></td></tr>
-          <tr><th>Residual moment</th><td><Vec v={b.moment} q="moment" /></td></tr>
+          <tr className="vrow"><th>Residual force</th><td><Vec v={b.force} q="force" /></td></tr>
+          <tr className="vrow"><th>Residual moment</th><td><Vec v={b.moment} q="moment" /></td></tr>
           <tr><th>Residual / gross load</th><td><Num v={b.relative} q={null} /> <span className={'tag ' + verdict.replace(/ /g, '-')}>{verdict}</span></td></tr>
           <tr><th>Gross load</th><td><Num v={b.gross} q="force" /></td></tr>
-          <tr><th>Body force total</th><td><Vec v={b.bodyForceTotal} q="force" /></td></tr>
+          <tr className="vrow"><th>Body force total</th><td><Vec v={b.bodyForceTotal} q="force" /></td></tr>
           <tr><th>Volume</th><td><Num v={b.volume} q="volume" /></td></tr>
         </tbody>
       </table>
