@@ -1,5 +1,6 @@
 /**
- * `npm run bench [-- --json] [-- --elements N] [-- --seed S]`
+ * `npm run bench [-- --json] [-- --elements N] [-- --seed S]` (`npm run -s bench -- --json` for
+ * JSON alone on stdout: npm's own banner goes to stdout too). Development runs: --elements 100000.
  *
  * Seeded synthetic blocks (hex8, and the same block split into tet4) with about N elements
  * (default 10^6) and a smooth analytic stress field. For each kernel: the median of several runs,
