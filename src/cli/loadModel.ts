@@ -47,9 +47,9 @@ function loadBundle(dir: string): LoadedModel {
   }
   let bytes = 0
   const files = names.map((name) => {
-    const text = readFileSync(join(dir, name), 'utf8')
-    bytes += text.length
-    return { name, data: text }
+    const raw = readFileSync(join(dir, name))
+    bytes += raw.byteLength
+    return { name, data: raw.toString('utf8') }
   })
   const model = withPath(() => readModelFiles(files), dir, null)
   return { model, path: dir, format: 'bundle', bytes }
