@@ -44,6 +44,17 @@ describe('Tractus in Chromium', () => {
     expect(await bar.textContent()).toMatch(/MPa|ksi|–/)
     expect(await page.textContent('[data-testid="caution"]')).toContain('does not certify a design')
     await page.close()
+
+    // A view for the README: the lug demo (when shipped) cut through its neck, von Mises on the
+    // surface, the section face coloured by its normal traction.
+    const lug = await newPage(s, '#model=demo:lifting-lug&q=vonMises&cut=0,140,10,0,1,0,0&hide=negative')
+    await waitForModel(lug)
+    if ((await lug.textContent('[data-testid="model-name"]'))?.includes('lug')) {
+      await waitForCut(lug)
+      await settle(lug)
+      await lug.screenshot({ path: `${OUT_DIR}/readme-section.png` })
+    }
+    await lug.close()
   })
 
   it('downloads a snapshot PNG at 1x and 2x with the colour bar in it', async () => {
@@ -168,7 +179,7 @@ describe('Tractus in Chromium', () => {
   it('switches units everywhere at once and lists the shortcuts in the help overlay', async () => {
     const page = await newPage(s)
     await waitForModel(page)
-    const gross = '[data-testid="body-balance"] tr:nth-child(4) .num'
+    const gross = '[data-testid="body-balance"] tr[data-row="gross"] .num'
     const si = await page.textContent(gross)
     const model = Number(await page.getAttribute(gross, 'data-model'))
     expect(si).toContain('kN')

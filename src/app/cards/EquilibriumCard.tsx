@@ -1,5 +1,5 @@
 import { Card } from '../ui/Card.tsx'
-import { Num, Vec } from '../ui/Num.tsx'
+import { Num, VecRow } from '../ui/Num.tsx'
 import { useStore } from '../store.ts'
 
 /** Whole-body balance, the spread of the element indicator and the traction left on free surface. */
@@ -14,11 +14,11 @@ export function EquilibriumCard() {
       <table className="figures" data-testid="body-balance">
         <caption>Whole body: ∮ t dA + ∫ ρb dV</caption>
         <tbody>
-          <tr className="vrow"><th>Residual force</th><td><Vec v={b.force} q="force" /></td></tr>
-          <tr className="vrow"><th>Residual moment</th><td><Vec v={b.moment} q="moment" /></td></tr>
+          <VecRow label="Residual force" v={b.force} q="force" />
+          <VecRow label="Residual moment" v={b.moment} q="moment" />
           <tr><th>Residual / gross load</th><td><Num v={b.relative} q={null} /> <span className={'tag ' + verdict.replace(/ /g, '-')}>{verdict}</span></td></tr>
-          <tr><th>Gross load</th><td><Num v={b.gross} q="force" /></td></tr>
-          <tr className="vrow"><th>Body force total</th><td><Vec v={b.bodyForceTotal} q="force" /></td></tr>
+          <tr data-row="gross"><th>Gross load</th><td><Num v={b.gross} q="force" /></td></tr>
+          <VecRow label="Body force total" v={b.bodyForceTotal} q="force" />
           <tr><th>Volume</th><td><Num v={b.volume} q="volume" /></td></tr>
         </tbody>
       </table>

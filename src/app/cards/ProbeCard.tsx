@@ -1,5 +1,5 @@
 import { Card } from '../ui/Card.tsx'
-import { Num, Vec } from '../ui/Num.tsx'
+import { Num, VecRow } from '../ui/Num.tsx'
 import { useStore } from '../store.ts'
 
 const COMPONENTS = ['σxx', 'σyy', 'σzz', 'σxy', 'σyz', 'σxz']
@@ -15,12 +15,12 @@ export function ProbeCard() {
         <table className="figures" data-testid="probe-result">
           <caption>{probe.where === 'section' ? 'On the section' : 'On the surface'}, element {probe.elementId}</caption>
           <tbody>
-            <tr className="vrow"><th>Position</th><td><Vec v={probe.position} q="length" /></td></tr>
+            <VecRow label="Position" v={probe.position} q="length" />
             {probe.stress.map((v, i) => <tr key={i}><th>{COMPONENTS[i]}</th><td><Num v={v} q="stress" /></td></tr>)}
-            <tr className="vrow"><th>σ₁, σ₂, σ₃</th><td><Vec v={probe.principal} q="stress" /></td></tr>
+            <VecRow label="σ₁, σ₂, σ₃" v={probe.principal} q="stress" />
             <tr><th>von Mises</th><td><Num v={probe.vonMises} q="stress" /></td></tr>
-            <tr className="vrow"><th>Normal n</th><td><span className="vec">(<Num v={probe.normal[0]} q={null} />, <Num v={probe.normal[1]} q={null} />, <Num v={probe.normal[2]} q={null} />)</span></td></tr>
-            <tr className="vrow"><th>Traction t = σn</th><td><Vec v={probe.traction} q="stress" /></td></tr>
+            <VecRow label="Normal n" v={probe.normal} q={null} />
+            <VecRow label="Traction t = σn" v={probe.traction} q="stress" />
             <tr><th>Normal tₙ</th><td><Num v={probe.normalTraction} q="stress" /></td></tr>
             <tr><th>Shear |τ|</th><td><Num v={probe.shearTraction} q="stress" /></td></tr>
           </tbody>

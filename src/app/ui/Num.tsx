@@ -29,3 +29,17 @@ export function Vec({ v, q }: { v: readonly number[]; q: Quantity }) {
     </span>
   )
 }
+
+/** A table row pair for a vector: the label on one line, the value right-aligned under it. */
+export function VecRow({ label, v, q }: { label: string; v: readonly number[]; q: Quantity | null }) {
+  return (
+    <>
+      <tr className="vlabel"><th colSpan={2}>{label}</th></tr>
+      <tr className="vvalue">
+        <td colSpan={2}>
+          {q ? <Vec v={v} q={q} /> : <span className="vec">(<Num v={v[0]} q={null} />, <Num v={v[1]} q={null} />, <Num v={v[2]} q={null} />)</span>}
+        </td>
+      </tr>
+    </>
+  )
+}
