@@ -7,13 +7,14 @@
 import * as Comlink from 'comlink'
 import { readModelFiles } from '../src/io/index.ts'
 import { isInputError } from '../src/model/errors.ts'
-import type { Mesh, Model } from '../src/model/model.ts'
+import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { extractBoundaryFaces } from '../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../src/mechanics/tractions.ts'
 import { computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import { computeBodyBalance, computeElementBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
+import { sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
@@ -173,6 +174,19 @@ const api: EngineApi = {
       }
       const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction].map((x) => x.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value: { result, buffers } }, [...list, ...arrowTransfer(a)])
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
+  },
+
+  async sweep(normal: Vec3, count: number, from?: number, to?: number) {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    const { model, faces, tractions } = current
+    try {
+      const value = sweepAlong(model, faces, tractions, normal, count, from, to)
+      return Comlink.transfer({ ok: true as const, value }, sweepTransfer(value))
     } catch (e) {
       const error = toAppError(e)
       if (error) return { ok: false, error }

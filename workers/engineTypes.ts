@@ -57,11 +57,34 @@ export interface ProbeRequest {
 
 export type ProgressCallback = (p: Progress) => void
 
+/**
+ * A row of parallel sections along unit normal `normal` (see src/mechanics/sectionSweep.ts):
+ * section k lies on the plane x·m = offsets[k]. `offsets` length units; axial, shear1, shear2
+ * force units (S·L²); torque, bending1, bending2 moment units (S·L³), section axes per section,
+ * moments about each section's centroid; `freeBodyRelative` dimensionless; `empty[k]` = 1 where
+ * plane k misses the body (its figures are 0). `extent`: [min, max] of x·m over the nodes (L).
+ */
+export interface SweepReply {
+  readonly normal: Vec3
+  readonly extent: readonly [number, number]
+  readonly offsets: Float64Array
+  readonly axial: Float64Array
+  readonly shear1: Float64Array
+  readonly shear2: Float64Array
+  readonly torque: Float64Array
+  readonly bending1: Float64Array
+  readonly bending2: Float64Array
+  readonly freeBodyRelative: Float64Array
+  readonly empty: Uint8Array
+}
+
 export interface EngineApi {
   load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>>
   surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
   cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>>
   probe(req: ProbeRequest): Promise<ProbeResult | null>
+  /** Sections along `normal`; `from`/`to` default to the model's extent along it (length units). */
+  sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply>>
   /** Test hook: throws an unexpected (non-input) error inside the worker. */
   crash(): Promise<void>
   dispose(): void

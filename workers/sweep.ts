@@ -1,0 +1,57 @@
+/**
+ * The worker's side of a section sweep: runs the sweep kernel on the loaded model with its cached
+ * boundary faces and tractions, and packs the six section quantities into typed arrays, so the
+ * app thread never loops over elements or section records.
+ */
+import type { Model, Vec3 } from '../src/model/model.ts'
+import { InputError } from '../src/model/errors.ts'
+import { sweepSections } from '../src/mechanics/sectionSweep.ts'
+import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
+import type { SweepReply } from './engineTypes.ts'
+
+/** [min, max] of x·m over the nodes (length units); m need not be unit (it is normalised). */
+export function extentAlong(coords: Float64Array, normal: Vec3): [number, number] {
+  const len = Math.hypot(normal[0], normal[1], normal[2])
+  if (!(len > 0) || !Number.isFinite(len)) throw new InputError('bad-argument', 'the sweep direction must be a non-zero vector', { field: 'normal' })
+  const mx = normal[0] / len, my = normal[1] / len, mz = normal[2] / len
+  let lo = Infinity, hi = -Infinity
+  for (let i = 0; i < coords.length; i += 3) {
+    const d = coords[i] * mx + coords[i + 1] * my + coords[i + 2] * mz
+    if (d < lo) lo = d
+    if (d > hi) hi = d
+  }
+  return lo <= hi ? [lo, hi] : [0, 0]
+}
+
+export function sweepAlong(
+  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, normal: Vec3, count: number, from?: number, to?: number,
+): SweepReply {
+  const extent = extentAlong(model.mesh.coords, normal)
+  // The end planes sit a hair inside the body: a plane through the very end face cuts nothing.
+  const inset = (extent[1] - extent[0]) * 1e-6
+  const a = from ?? extent[0] + inset
+  const b = to ?? extent[1] - inset
+  const { offsets, results } = sweepSections(model.mesh, model.stress, model.bodyForce, normal, a, b, count, { faces, tractions })
+  const n = results.length
+  const out = {
+    axial: new Float64Array(n), shear1: new Float64Array(n), shear2: new Float64Array(n), torque: new Float64Array(n),
+    bending1: new Float64Array(n), bending2: new Float64Array(n), freeBodyRelative: new Float64Array(n), empty: new Uint8Array(n),
+  }
+  for (let k = 0; k < n; k++) {
+    const r = results[k]
+    out.axial[k] = r.axial
+    out.shear1[k] = r.shear[0]
+    out.shear2[k] = r.shear[1]
+    out.torque[k] = r.torque
+    out.bending1[k] = r.bending[0]
+    out.bending2[k] = r.bending[1]
+    out.freeBodyRelative[k] = r.freeBody.relative
+    out.empty[k] = r.empty ? 1 : 0
+  }
+  const len = Math.hypot(normal[0], normal[1], normal[2])
+  return { normal: [normal[0] / len, normal[1] / len, normal[2] / len], extent, offsets, ...out }
+}
+
+export function sweepTransfer(r: SweepReply): ArrayBuffer[] {
+  return [r.offsets, r.axial, r.shear1, r.shear2, r.torque, r.bending1, r.bending2, r.freeBodyRelative, r.empty].map((a) => a.buffer as ArrayBuffer)
+}
