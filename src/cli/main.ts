@@ -1,5 +1,5 @@
 /**
- * Process entry of the `tractus` command line (bin/tractus.mjs starts it through tsx).
+ * Process entry of the `tractus` command line (src/cli/tractus.mjs starts it through tsx).
  */
 import { run } from './run.ts'
 

@@ -5,7 +5,7 @@
 import { spawn } from 'node:child_process'
 import { fileURLToPath } from 'node:url'
 
-const main = fileURLToPath(new URL('../src/cli/main.ts', import.meta.url))
+const main = fileURLToPath(new URL('./main.ts', import.meta.url))
 // tsx is resolved from this package, so the loader is found whatever the working directory.
 const tsx = import.meta.resolve('tsx')
 

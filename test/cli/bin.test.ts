@@ -1,5 +1,5 @@
 /**
- * The real launcher: bin/tractus.mjs starts the TypeScript CLI through tsx from any working
+ * The real launcher: src/cli/tractus.mjs starts the TypeScript CLI through tsx from any working
  * directory and forwards output and exit codes.
  */
 import { spawnSync } from 'node:child_process'
@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { tempDir, writeBundle } from './cliHarness.ts'
 import { syntheticModel } from '../bench/syntheticModel.ts'
 
-const BIN = fileURLToPath(new URL('../../bin/tractus.mjs', import.meta.url))
+const BIN = fileURLToPath(new URL('../../src/cli/tractus.mjs', import.meta.url))
 let root = ''
 let bundle = ''
 
@@ -23,7 +23,7 @@ afterAll(() => { rmSync(root, { recursive: true, force: true }) })
 
 const spawnBin = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: os.tmpdir(), encoding: 'utf8', timeout: 50_000 })
 
-describe('bin/tractus.mjs', () => {
+describe('src/cli/tractus.mjs', () => {
   it('runs a command from another working directory and prints JSON', () => {
     const r = spawnBin('info', bundle, '--json')
     expect(r.stderr).toBe('')
