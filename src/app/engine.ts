@@ -6,7 +6,7 @@
 import * as Comlink from 'comlink'
 import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
-import type { CutReply, EngineApi, EngineFile, LoadedModel, ModelSource, Outcome, SyntheticSpec } from '../../workers/engineTypes.ts'
+import type { CutReply, EngineApi, EngineFile, LoadedModel, ModelSource, Outcome, SweepReply, SyntheticSpec, Vec3 } from '../../workers/engineTypes.ts'
 import { DEFAULT_SECTION, sectionPlaneOf, useStore } from './store.ts'
 import type { AppError, SectionState } from './store.ts'
 
@@ -265,6 +265,21 @@ export function runProbe(): void {
       probeInFlight = false
       if (useStore.getState().probeRay !== ray) runProbe()
     })
+}
+
+/**
+ * Sections along `normal` (model extent when from/to are left out). Resolves to null when a
+ * respawn dropped the job; input problems come back as {ok: false}.
+ */
+export async function requestSweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply> | null> {
+  const gen = generation
+  try {
+    const out = await enqueue((api) => api.sweep(normal, count, from, to))
+    return gen === generation ? out : null
+  } catch (e) {
+    if (gen !== generation) return null
+    return { ok: false, error: { message: `The sweep could not be computed: ${e instanceof Error ? e.message : String(e)}` } }
+  }
 }
 
 /** Test hook: make the worker throw an unexpected error; the app must recover. */
