@@ -274,7 +274,7 @@ export function runProbe(): void {
 export async function requestSweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply> | null> {
   const gen = generation
   try {
-    const out = await enqueue((api) => api.sweep(normal, count, from, to))
+    const out = await enqueue<Outcome<SweepReply>>((api) => api.sweep(normal, count, from, to))
     return gen === generation ? out : null
   } catch (e) {
     if (gen !== generation) return null
