@@ -1,0 +1,185 @@
+/**
+ * What the review report says, as plain records: the heading facts, the tables as strings and
+ * the diagrams as geometry. Pure (no DOM), so it is unit-tested; src/app/reportDocument.ts turns
+ * it into one self-contained HTML file with DOM calls only (every string becomes a text node).
+ */
+import type { SectionResult } from '../mechanics/types.ts'
+import type { UnitSystem } from '../model/units.ts'
+import { displayUnitLabel } from '../model/units.ts'
+import type { SweepReply } from '../../workers/engineTypes.ts'
+import { diagramGeometry } from './diagramGeometry.ts'
+import type { DiagramGeometry } from './diagramGeometry.ts'
+import { patchRow, sectionRows } from './exports.ts'
+import { convert, formatNumber } from './format.ts'
+import type { AuditSummary, ModelSummary } from './store.ts'
+import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
+import type { SeriesKey } from './sweepSeries.ts'
+
+export interface ReportTable {
+  readonly kind: 'table'
+  readonly id: string
+  readonly heading: string
+  readonly note?: string
+  readonly head: readonly string[]
+  readonly rows: readonly (readonly string[])[]
+}
+
+export interface ReportImage {
+  readonly kind: 'image'
+  readonly id: string
+  readonly heading: string
+  /** A data:image/png;base64 URL (nothing else is accepted). */
+  readonly src: string
+  readonly alt: string
+}
+
+export interface ReportDiagram {
+  readonly kind: 'diagram'
+  readonly id: string
+  readonly heading: string
+  readonly xLabel: string
+  readonly yLabel: string
+  readonly geometry: DiagramGeometry
+}
+
+export type ReportBlock = ReportTable | ReportImage | ReportDiagram
+
+export interface ReportContent {
+  readonly title: string
+  /** Label/value pairs under the title: model, source, units, date... */
+  readonly facts: readonly (readonly [string, string])[]
+  readonly caution: string
+  readonly blocks: readonly ReportBlock[]
+}
+
+export interface ReportInput {
+  readonly model: ModelSummary
+  readonly system: UnitSystem
+  /** When the report was made (shown as ISO 8601, UTC). */
+  readonly date: Date
+  readonly caution: string
+  readonly audit: AuditSummary | null
+  readonly section: SectionResult | null
+  readonly sweep: SweepReply | null
+  readonly shown: Readonly<Record<SeriesKey, boolean>>
+  /** PNG snapshot of the view as a data URL, or null. */
+  readonly snapshot: string | null
+}
+
+const PNG_DATA_URL = /^data:image\/png;base64,[A-Za-z0-9+/]+=*$/
+
+const fmt = (v: number): string => formatNumber(v)
+const vec = (v: readonly number[]): string => `(${v.map(fmt).join(', ')})`
+
+function equilibriumTable(a: AuditSummary, input: ReportInput): ReportTable {
+  const { units } = input.model, sys = input.system
+  const F = displayUnitLabel('force', sys), M = displayUnitLabel('moment', sys), S = displayUnitLabel('stress', sys)
+  const f = (v: number): number => convert(v, units, 'force', sys)
+  const m = (v: number): number => convert(v, units, 'moment', sys)
+  const b = a.body
+  const verdict = b.relative < 1e-3 ? 'balanced' : b.relative < 1e-2 ? 'small residual' : 'check the model'
+  return {
+    kind: 'table', id: 'equilibrium', heading: 'Equilibrium of the whole body',
+    note: 'Residual = surface integral of the traction plus the body force integral; element indicator = |element residual| / gross load.',
+    head: ['Figure', 'Value', 'Unit'],
+    rows: [
+      ['Residual force', vec(b.force.map(f)), F],
+      ['Residual moment', vec(b.moment.map(m)), M],
+      ['Residual / gross load', `${fmt(b.relative)} (${verdict})`, '–'],
+      ['Gross load', fmt(f(b.gross)), F],
+      ['Body force total', vec(b.bodyForceTotal.map(f)), F],
+      ['Volume', fmt(convert(b.volume, units, 'volume', sys)), displayUnitLabel('volume', sys)],
+      ['Element indicator, median', fmt(a.indicator.p50), '–'],
+      ['Element indicator, 95th percentile', fmt(a.indicator.p95), '–'],
+      ['Element indicator, largest', fmt(a.indicator.max), '–'],
+      ['Free surface area', fmt(convert(a.freeSurface.area, units, 'area', sys)), displayUnitLabel('area', sys)],
+      ['Free surface mean |t|', fmt(convert(a.freeSurface.mean, units, 'stress', sys)), S],
+      ['Free surface peak |t|', fmt(convert(a.freeSurface.peak, units, 'stress', sys)), S],
+    ],
+  }
+}
+
+function patchTable(a: AuditSummary, input: ReportInput): ReportTable {
+  const sys = input.system
+  const L = displayUnitLabel('length', sys), A = displayUnitLabel('area', sys), F = displayUnitLabel('force', sys), S = displayUnitLabel('stress', sys)
+  return {
+    kind: 'table', id: 'patches', heading: 'Load-entry patches',
+    note: `Surface areas whose traction exceeds ${fmt(convert(a.threshold, input.model.units, 'stress', sys))} ${S}.` + (a.patches.length ? '' : ' None were found.'),
+    head: ['#', 'Faces', `Area [${A}]`, `Centroid [${L}]`, `Force [${F}]`, `|F| [${F}]`, `Peak |t| [${S}]`, `Mean |t| [${S}]`],
+    rows: a.patches.map((p) => {
+      const r = patchRow(p, input.model.units, sys)
+      return [String(r.id), String(r.faces), fmt(r.area), vec(r.centroid), vec(r.force), fmt(r.forceMagnitude), fmt(r.peak), fmt(r.mean)]
+    }),
+  }
+}
+
+function sectionTable(r: SectionResult, input: ReportInput): ReportTable {
+  const L = displayUnitLabel('length', input.system)
+  const f = (v: number): number => convert(v, input.model.units, 'length', input.system)
+  return {
+    kind: 'table', id: 'section', heading: 'Current section',
+    note: r.empty ? 'The plane misses the body.'
+      : `Plane through ${vec(r.plane.point.map(f))} ${L}, unit normal ${vec(r.plane.normal)}. What the +n side exerts on the −n side; moments about the section centroid; ${r.cutElements} elements cut.`,
+    head: ['Figure', 'Value', 'Unit'],
+    rows: r.empty ? [] : sectionRows(r, input.model.units, input.system).map((x) => [x.label, fmt(x.value), x.unit]),
+  }
+}
+
+function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
+  const { units } = input.model, sys = input.system
+  const x = offsetsInDisplay(s, units, sys)
+  const L = displayUnitLabel('length', sys)
+  const blocks: ReportBlock[] = []
+  const xLabel = `Position x·m along m = ${vec(s.normal)} [${L}]`
+  for (const q of ['force', 'moment'] as const) {
+    const lines = SERIES.filter((d) => d.quantity === q && input.shown[d.key]).map((d) => {
+      const v = seriesInDisplay(s, d.key, units, sys)
+      for (let k = 0; k < v.length; k++) if (s.empty[k]) v[k] = NaN
+      return { label: `${d.symbol} ${d.label}`, colour: d.colour, values: v }
+    })
+    if (!lines.length) continue
+    blocks.push({
+      kind: 'diagram', id: `diagram-${q}`, heading: q === 'force' ? 'Forces along the part' : 'Moments along the part',
+      xLabel, yLabel: `${q === 'force' ? 'Force' : 'Moment'} [${displayUnitLabel(q, sys)}]`,
+      geometry: diagramGeometry(x, lines, 720, 260),
+    })
+  }
+  const res = Float64Array.from(s.freeBodyRelative, (v, k) => (s.empty[k] ? NaN : v))
+  blocks.push({
+    kind: 'diagram', id: 'diagram-residual', heading: 'Free-body residual along the part',
+    xLabel, yLabel: 'Residual / gross load', geometry: diagramGeometry(x, [{ label: 'Free-body residual / gross', colour: '#4a545e', values: res }], 720, 160),
+  })
+  const t = sweepTable(s, units, sys)
+  blocks.push({
+    kind: 'table', id: 'sweep', heading: 'Sections along the part',
+    note: `${s.offsets.length} parallel sections; section axes per section (e₃ = m), moments about each section's centroid. Largest free-body residual / gross: ${formatNumber(worstResidual(s), 2)}.`,
+    head: t.head, rows: t.rows,
+  })
+  return blocks
+}
+
+export function buildReportContent(input: ReportInput): ReportContent {
+  const m = input.model
+  const sys = input.system
+  const facts: [string, string][] = [
+    ['Model', m.name || 'Unnamed model'],
+    ...(m.description ? [['Description', m.description] as [string, string]] : []),
+    ['Source', m.source],
+    ['Mesh', `${m.elementCount} elements (${Object.entries(m.elementTypes).map(([k, v]) => `${k} ${v}`).join(', ')}), ${m.nodeCount} nodes`],
+    ['Model units', `length ${m.units.length}, stress ${m.units.stress}`],
+    ['Shown in', `${sys === 'SI' ? 'SI' : 'US customary'}: ${(['length', 'force', 'moment', 'stress'] as const).map((q) => displayUnitLabel(q, sys)).join(', ')}`],
+    ['Made', input.date.toISOString().replace(/\.\d+Z$/, 'Z')],
+  ]
+  for (const w of m.warnings) facts.push(['Reader note', w])
+  const blocks: ReportBlock[] = []
+  if (input.snapshot && PNG_DATA_URL.test(input.snapshot)) {
+    blocks.push({ kind: 'image', id: 'snapshot', heading: 'View', src: input.snapshot, alt: 'Snapshot of the model view' })
+  }
+  if (input.audit) {
+    blocks.push(equilibriumTable(input.audit, input))
+    blocks.push(patchTable(input.audit, input))
+  }
+  if (input.section) blocks.push(sectionTable(input.section, input))
+  if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))
+  return { title: `Review report: ${m.name || 'Unnamed model'}`, facts, caution: input.caution, blocks }
+}
