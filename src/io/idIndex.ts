@@ -77,3 +77,15 @@ function lowerBound(a: Int32Array, x: number): number {
   }
   return lo
 }
+
+/**
+ * True when ids[i-1] < ids[i] throughout: the ids are then unique without an index (the usual
+ * 1..n numbering), which spares a reader the table of the largest id (fresh memory costs page
+ * faults that dominate a check of a million ids).
+ */
+export function isStrictlyAscending(ids: Int32Array): boolean {
+  const n = ids.length
+  for (let i = 1; i < n; i++) if (ids[i] <= ids[i - 1]) return false
+  return true
+}
+

@@ -27,7 +27,8 @@ import { InputError } from '../model/errors.ts'
 import type { InputErrorKind } from '../model/errors.ts'
 import type { Model } from '../model/model.ts'
 import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
-import { buildIdIndex, isDuplicate } from './idIndex.ts'
+import { firstIndexOutside } from './indexRange.ts'
+import { buildIdIndex, isDuplicate, isStrictlyAscending } from './idIndex.ts'
 import { DTYPE_SIZE, isDtype, readLittleEndian, writeLittleEndian } from './littleEndianArrays.ts'
 import type { Dtype } from './littleEndianArrays.ts'
 import { readModelMeta } from './modelJson.ts'
@@ -223,7 +224,15 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     part: take<Int32Array>(`block${k}.part`, 'i32', b.count, true),
   }))
   const blockInputs: BlockInput[] = []
-  const allIds = new Int32Array(E)
+  // Element ids ascending within and across blocks are unique; only otherwise are they gathered
+  // into one array and indexed.
+  let idsAscending = true
+  let lastId = 0
+  for (const { ids } of blockArrays) {
+    if (ids.length && (ids[0] <= lastId || !isStrictlyAscending(ids))) { idsAscending = false; break }
+    if (ids.length) lastId = ids[ids.length - 1]
+  }
+  const allIds = idsAscending ? null : new Int32Array(E)
   const invertedIds: number[] = []
   let invertedTotal = 0
   let at = 0
@@ -231,12 +240,10 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     const nn = ELEMENT_TYPES[b.type].nodeCount
     const { ids, part } = blockArrays[k]
     let conn = blockArrays[k].conn
-    for (let i = 0; i < conn.length; i++) {
-      const n = conn[i]
-      if (n < 0 || n >= N) fail('missing-node', `block${k}.conn`, `node index ${n} is outside 0..${N - 1}`, ids[(i / nn) | 0])
-    }
+    const bad = firstIndexOutside(conn, N)
+    if (bad >= 0) fail('missing-node', `block${k}.conn`, `node index ${conn[bad]} is outside 0..${N - 1}`, ids[(bad / nn) | 0])
     if (part) for (let i = 0; i < part.length; i++) if (part[i] < 0) fail('bad-id', `block${k}.part`, `part ${part[i]} is negative`, ids[i])
-    allIds.set(ids, at)
+    if (allIds) allIds.set(ids, at)
     at += b.count
     const o = checkBlockOrientation(coords, b.type, conn)
     if (o.degenerate >= 0) fail('zero-volume', `block${k}.conn`, `degenerate ${b.type} element: volume ${o.degenerateVolume.toPrecision(3)} is about zero for its size ${o.degenerateSize.toPrecision(3)}`, ids[o.degenerate])
@@ -249,7 +256,8 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     }
     blockInputs.push({ type: b.type, conn, ids, part })
   })
-  checkIds(allIds, 'block ids', 'element', fail)
+  if (allIds) checkIds(allIds, 'block ids', 'element', fail)
+  else if (blockArrays[0].ids[0] < 1) fail('bad-id', 'block ids', `element id ${blockArrays[0].ids[0]} at index 0 is not positive`)
   if (invertedTotal) warnings.push(`${fileName}: ${reorientedWarning(invertedIds, invertedTotal)}`)
   return {
     name: meta.name ?? '',
@@ -265,6 +273,7 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
 
 function checkIds(ids: Int32Array, field: string, what: string, fail: (kind: InputErrorKind, field: string, message: string, elementId?: number) => never): void {
   for (let i = 0; i < ids.length; i++) if (ids[i] < 1) fail('bad-id', field, `${what} id ${ids[i]} at index ${i} is not positive`)
+  if (isStrictlyAscending(ids)) return
   const ix = buildIdIndex(ids)
   if (isDuplicate(ix)) fail('duplicate-id', field, `${what} id ${ix.id} appears twice (indices ${ix.firstRow} and ${ix.secondRow})`)
 }

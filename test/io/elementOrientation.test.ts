@@ -99,6 +99,40 @@ describe('mirroring', () => {
     for (let i = 4; i < 8; i++) sliver[3 * i + 2] = 1e-13
     expect(checkBlockOrientation(sliver, 'hex8', m.blocks[0].conn).degenerate).toBe(0)
   })
+  it('tet4: the fast loop decides like measureElement, also near the degeneracy threshold', () => {
+    // Random tetrahedra, some squashed towards a plane by factors around the 1e-12 threshold, some
+    // mirrored, at several scales (including ones whose V² underflows or overflows).
+    let seed = 7
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32)
+    const seen = { degenerate: 0, inverted: 0, positive: 0 }
+    for (const scale of [1, 1e-6, 1e-110, 1e60, 1e100]) {
+      const count = 400
+      const coords = new Float64Array(12 * count)
+      const conn = new Int32Array(4 * count)
+      for (let e = 0; e < count; e++) {
+        const squash = e % 4 === 3 ? 10 ** (-6 - 4 * rnd()) : 1
+        for (let a = 0; a < 4; a++) {
+          const p = 3 * (4 * e + a)
+          coords[p] = (rnd() - 0.5) * scale; coords[p + 1] = (rnd() - 0.5) * scale
+          coords[p + 2] = (a === 3 ? (rnd() - 0.5) * squash : (rnd() - 0.5) * 1e-3 * squash) * scale
+          conn[4 * e + a] = 4 * e + a
+        }
+      }
+      // Reference: measureElement with the documented threshold, element by element.
+      const out = new Float64Array(2), scratch = new Float64Array(24)
+      for (let e = 0; e < count; e++) {
+        measureElement(out, scratch, coords, conn, 4 * e, 'tet4')
+        const degenerate = !(Math.abs(out[0]) > 1e-12 * out[1] ** 3)
+        const o = checkBlockOrientation(coords, 'tet4', conn.subarray(4 * e, 4 * e + 4))
+        expect(o.degenerate).toBe(degenerate ? 0 : -1)
+        expect(o.inverted.length).toBe(!degenerate && out[0] < 0 ? 1 : 0)
+        if (degenerate) seen.degenerate++
+        else if (out[0] < 0) seen.inverted++
+        else seen.positive++
+      }
+    }
+    expect(Math.min(seen.degenerate, seen.inverted, seen.positive)).toBeGreaterThan(50)
+  })
   it('the warning lists at most 10 ids and counts the rest', () => {
     expect(reorientedWarning([1, 2, 3, 4, 5, 6, 7, 8, 9, 10], 25)).toBe('reoriented 25 inverted elements (negative volume, local nodes mirrored): 1, 2, 3, 4, 5, 6, 7, 8, 9, 10 and 15 more')
   })
