@@ -17,10 +17,11 @@ import { LoadEntryCard } from './cards/LoadEntryCard.tsx'
 import { ProbeCard } from './cards/ProbeCard.tsx'
 import { ColourCard } from './cards/ColourCard.tsx'
 import { SnapshotCard } from './cards/SnapshotCard.tsx'
+import { SweepCard } from './cards/SweepCard.tsx'
 import { SceneView } from './SceneView.tsx'
 
 /** Arrow count (count) used when WebGL reports a software renderer. */
-const SOFTWARE_ARROW_BUDGET = 300
+const SOFTWARE_ARROW_BUDGET = 150
 
 const NO_ARROWS: ArrowBuffers = {
   mode: 'full', origins: new Float32Array(0), vectors: new Float32Array(0), normals: new Float32Array(0),
@@ -77,6 +78,7 @@ export function App() {
       <aside className="cards" aria-label="Cards">
         <ErrorCard />
         <CutCard />
+        <SweepCard />
         <EquilibriumCard />
         <LoadEntryCard />
         <ProbeCard />

@@ -1,0 +1,149 @@
+/**
+ * Line chart of a sweep (uPlot: canvas drawing, no inline script, styles set through the CSSOM).
+ * Forces on the left axis, moments on the right; a thin second plot under it shows the free-body
+ * residual / gross on a log axis, its cursor tied to the first. A vertical line marks the live
+ * section; a click reports the position under the pointer (model length units).
+ */
+import { useEffect, useRef, useState } from 'react'
+import uPlot from 'uplot'
+import 'uplot/dist/uPlot.min.css'
+import type { ModelUnits, UnitSystem } from '../../model/units.ts'
+import { displayFactor, displayUnitLabel } from '../../model/units.ts'
+import type { SweepReply } from '../../../workers/engineTypes.ts'
+import { formatNumber } from '../format.ts'
+import { offsetsInDisplay, SERIES, seriesInDisplay } from '../sweepSeries.ts'
+import type { SeriesKey } from '../sweepSeries.ts'
+
+export interface SweepChartProps {
+  readonly sweep: SweepReply
+  readonly units: ModelUnits
+  readonly system: UnitSystem
+  readonly shown: Readonly<Record<SeriesKey, boolean>>
+  /** Live section position along the sweep direction (model length units), or null. */
+  readonly marker: number | null
+  readonly onPick: (position: number) => void
+}
+
+const MARKER = '#1d2329'
+const AXIS = { stroke: '#4a545e', grid: { stroke: '#e3e5e1', width: 1 }, ticks: { stroke: '#c9ccc8', width: 1 }, font: '11px system-ui, sans-serif' }
+
+/** Draws the section marker as a dashed vertical line inside the plot area. */
+function markerPlugin(get: () => number | null): uPlot.Plugin {
+  return {
+    hooks: {
+      draw: (u) => {
+        const x = get()
+        if (x === null) return
+        const px = u.valToPos(x, 'x', true)
+        const { left, top, width, height } = u.bbox
+        if (!(px >= left - 0.5 && px <= left + width + 0.5)) return
+        const g = u.ctx
+        g.save()
+        g.strokeStyle = MARKER
+        g.lineWidth = Math.max(1, devicePixelRatio)
+        g.setLineDash([4 * devicePixelRatio, 3 * devicePixelRatio])
+        g.beginPath()
+        g.moveTo(px, top)
+        g.lineTo(px, top + height)
+        g.stroke()
+        g.restore()
+      },
+    },
+  }
+}
+
+export function SweepChart({ sweep, units, system, shown, marker, onPick }: SweepChartProps) {
+  const box = useRef<HTMLDivElement>(null)
+  const resBox = useRef<HTMLDivElement>(null)
+  const plots = useRef<uPlot[]>([])
+  const markerRef = useRef<number | null>(null)
+  const pickRef = useRef(onPick)
+  const [idx, setIdx] = useState<number | null>(null)
+  const [width, setWidth] = useState(320)
+  pickRef.current = onPick
+  const Lf = displayFactor(units, 'length', system)
+  markerRef.current = marker === null ? null : marker * Lf
+
+  useEffect(() => {
+    const el = box.current
+    if (!el) return
+    const ro = new ResizeObserver(() => setWidth(Math.max(200, Math.floor(el.clientWidth))))
+    ro.observe(el)
+    return () => ro.disconnect()
+  }, [])
+
+  const keys = SERIES.filter((s) => shown[s.key])
+  const shownKey = keys.map((s) => s.key).join(',')
+
+  useEffect(() => {
+    if (!box.current || !resBox.current) return
+    const x = Array.from(offsetsInDisplay(sweep, units, system))
+    const empty = sweep.empty
+    const ys = keys.map((s) => Array.from(seriesInDisplay(sweep, s.key, units, system), (v, k) => (empty[k] ? null : v)))
+    const hasF = keys.some((s) => s.quantity === 'force'), hasM = keys.some((s) => s.quantity === 'moment')
+    const Fu = displayUnitLabel('force', system), Mu = displayUnitLabel('moment', system), Lu = displayUnitLabel('length', system)
+    const fmtTick = (_u: uPlot, vals: number[]): string[] => vals.map((v) => formatNumber(v, 3))
+    const sync = uPlot.sync('tractus-sweep')
+    const cursor: uPlot.Cursor = { drag: { x: false, y: false, setScale: false }, sync: { key: sync.key }, points: { size: 6 } }
+    const axes: uPlot.Axis[] = [{ ...AXIS, values: fmtTick, size: 34 }]
+    if (hasF || !hasM) axes.push({ ...AXIS, scale: 'F', label: `Force [${Fu}]`, labelSize: 16, size: 46, values: fmtTick, labelFont: AXIS.font })
+    if (hasM) axes.push({ ...AXIS, scale: 'M', side: hasF ? 1 : 3, label: `Moment [${Mu}]`, labelSize: 16, size: 46, values: fmtTick, labelFont: AXIS.font, grid: { show: !hasF } })
+    const main = new uPlot({
+      width, height: 190, legend: { show: false }, cursor,
+      scales: { x: { time: false }, F: { auto: true }, M: { auto: true } },
+      axes,
+      series: [{ label: `Position [${Lu}]` }, ...keys.map((s) => ({ label: s.symbol, scale: s.quantity === 'force' ? 'F' : 'M', stroke: s.colour, width: 1.6, points: { show: false } }))],
+      plugins: [markerPlugin(() => markerRef.current)],
+      hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
+    }, [x, ...ys] as uPlot.AlignedData, box.current)
+    const res = Array.from(sweep.freeBodyRelative, (v, k) => (empty[k] ? null : Math.max(v, 1e-16)))
+    const resid = new uPlot({
+      width, height: 86, legend: { show: false }, cursor,
+      scales: { x: { time: false }, r: { distr: 3 } },
+      axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', label: 'Residual / gross', labelSize: 16, size: 46, labelFont: AXIS.font, values: (_u, vals) => vals.map((v) => formatNumber(v, 1)) }],
+      series: [{}, { label: 'residual', scale: 'r', stroke: '#4a545e', width: 1.2, points: { show: false } }],
+      plugins: [markerPlugin(() => markerRef.current)],
+      hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
+    }, [x, res] as uPlot.AlignedData, resBox.current)
+    plots.current = [main, resid]
+    const onClick = (u: uPlot) => (e: MouseEvent): void => {
+      const v = u.posToVal(e.offsetX, 'x')
+      if (Number.isFinite(v)) pickRef.current(v / Lf)
+    }
+    const clickMain = onClick(main), clickRes = onClick(resid)
+    main.over.addEventListener('click', clickMain)
+    resid.over.addEventListener('click', clickRes)
+    return () => {
+      main.over.removeEventListener('click', clickMain)
+      resid.over.removeEventListener('click', clickRes)
+      main.destroy()
+      resid.destroy()
+      plots.current = []
+    }
+    // `keys` follows from shownKey, so it is not a dependency of its own
+  }, [sweep, units, system, shownKey, width, Lf])
+
+  // The marker moves without rebuilding the plots.
+  useEffect(() => { for (const p of plots.current) p.redraw(false) }, [marker, Lf])
+
+  const k = idx !== null && idx >= 0 && idx < sweep.offsets.length ? idx : null
+  return (
+    <div className="sweep-chart">
+      <div ref={box} data-testid="sweep-chart" />
+      <div ref={resBox} data-testid="sweep-residual" />
+      <div className="sweep-readout" data-testid="sweep-readout" aria-live="polite">
+        {k === null ? <span className="note">Hover to read values; click to move the section there.</span> : (
+          <>
+            <span data-readout="position">x·m = {formatNumber(sweep.offsets[k] * Lf)} <span className="unit">{displayUnitLabel('length', system)}</span></span>
+            {sweep.empty[k] ? <span className="note">misses the body</span> : keys.map((s) => (
+              <span key={s.key} data-readout={s.key} style={{ color: s.colour }}>
+                {s.symbol} = {formatNumber(sweep[s.key][k] * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
+              </span>
+            ))}
+            {sweep.empty[k] ? null : <span data-readout="residual">residual {formatNumber(sweep.freeBodyRelative[k], 2)}</span>}
+          </>
+        )}
+      </div>
+    </div>
+  )
+}
