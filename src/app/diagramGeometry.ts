@@ -31,7 +31,9 @@ export function niceTicks(lo: number, hi: number, target = 5): number[] {
   if (hi === lo) return [lo]
   const raw = (hi - lo) / target
   const mag = 10 ** Math.floor(Math.log10(raw))
-  const step = [1, 2, 5, 10].map((f) => f * mag).find((s) => s >= raw) ?? 10 * mag
+  // the 1-2-5 step whose count comes closest to the target
+  let step = mag
+  for (const f of [1, 2, 5, 10]) if (Math.abs((hi - lo) / (f * mag) - target) < Math.abs((hi - lo) / step - target)) step = f * mag
   const out: number[] = []
   for (let v = Math.ceil(lo / step - 1e-9) * step; v <= hi + step * 1e-9; v += step) out.push(Math.abs(v) < step * 1e-9 ? 0 : v)
   return out

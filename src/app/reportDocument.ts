@@ -22,14 +22,13 @@ table { border-collapse: collapse; font-variant-numeric: tabular-nums; font-size
 th, td { border: 1px solid #dcdedb; padding: 2px 6px; text-align: right; white-space: nowrap; }
 th { background: #f1f2ef; font-weight: 600; }
 td:first-child, th:first-child { text-align: left; }
-.scroll { max-height: 420px; overflow: auto; }
 img.view { max-width: 100%; border: 1px solid #c9ccc8; }
 svg { display: block; max-width: 100%; height: auto; }
 svg text { font: 11px system-ui, sans-serif; fill: #4a545e; }
 .legend { display: flex; gap: 14px; flex-wrap: wrap; font-size: 12px; }
 .legend span::before { content: ""; display: inline-block; width: 18px; height: 3px; margin-right: 5px; vertical-align: middle; background: var(--c); }
 footer { margin-top: 28px; color: #4a545e; font-size: 12px; }
-@media print { .scroll { max-height: none; overflow: visible; } }
+@media print { figure, img.view { break-inside: avoid; } }
 `
 
 const SVG_NS = 'http://www.w3.org/2000/svg'
@@ -49,7 +48,7 @@ function svgEl(doc: Document, tag: string, attrs: Record<string, string | number
 }
 
 function tableOf(doc: Document, t: ReportTable): HTMLElement {
-  const wrap = el(doc, 'div', undefined, t.rows.length > 20 ? 'scroll' : undefined)
+  const wrap = el(doc, 'div')
   const table = el(doc, 'table')
   table.dataset.table = t.id
   const thead = el(doc, 'thead'), hr = el(doc, 'tr')

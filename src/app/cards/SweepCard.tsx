@@ -89,7 +89,7 @@ export function SweepCard() {
         {sweep ? (
           <>
             <p className="note">
-              {sweep.offsets.length} sections along m = ({sweep.normal.map((v) => formatNumber(v, 3)).join(', ')}), x·m from {formatNumber(sweep.offsets[0] * Lf)} to {formatNumber(sweep.offsets[sweep.offsets.length - 1] * Lf)} {Lu}. Section axes per section, moments about each centroid.
+              {sweep.offsets.length} sections along m = ({sweep.normal.map((v) => formatNumber(v, 3)).join(', ')}), end to end over x·m = {formatNumber(sweep.extent[0] * Lf)} … {formatNumber(sweep.extent[1] * Lf)} {Lu}. Section axes per section, moments about each centroid.
             </p>
             <SweepChart sweep={sweep} units={model.units} system={system} shown={shown} marker={marker} onPick={pick} />
             <p className="note" data-testid="sweep-trust">

@@ -52,6 +52,15 @@ function markerPlugin(get: () => number | null): uPlot.Plugin {
   }
 }
 
+/** Whole decades inside [min, max] for a log axis, at most four of them (every other, then every third). */
+function decades(_u: uPlot, _axis: number, min: number, max: number): number[] {
+  if (!(min > 0 && max > min)) return [min, max].filter((v) => v > 0)
+  const out: number[] = []
+  for (let e = Math.ceil(Math.log10(min) - 1e-9); e <= Math.floor(Math.log10(max) + 1e-9); e++) out.push(10 ** e)
+  const step = Math.ceil(out.length / 4)
+  return out.filter((_, i) => (out.length - 1 - i) % step === 0)
+}
+
 export function SweepChart({ sweep, units, system, shown, marker, onPick }: SweepChartProps) {
   const box = useRef<HTMLDivElement>(null)
   const resBox = useRef<HTMLDivElement>(null)
@@ -84,7 +93,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
     const Fu = displayUnitLabel('force', system), Mu = displayUnitLabel('moment', system), Lu = displayUnitLabel('length', system)
     const fmtTick = (_u: uPlot, vals: number[]): string[] => vals.map((v) => formatNumber(v, 3))
     const sync = uPlot.sync('tractus-sweep')
-    const cursor: uPlot.Cursor = { drag: { x: false, y: false, setScale: false }, sync: { key: sync.key }, points: { size: 6 } }
+    const cursor: uPlot.Cursor = { y: false, drag: { x: false, y: false, setScale: false }, sync: { key: sync.key }, points: { size: 6 } }
     const axes: uPlot.Axis[] = [{ ...AXIS, values: fmtTick, size: 34 }]
     if (hasF || !hasM) axes.push({ ...AXIS, scale: 'F', label: `Force [${Fu}]`, labelSize: 16, size: 46, values: fmtTick, labelFont: AXIS.font })
     if (hasM) axes.push({ ...AXIS, scale: 'M', side: hasF ? 1 : 3, label: `Moment [${Mu}]`, labelSize: 16, size: 46, values: fmtTick, labelFont: AXIS.font, grid: { show: !hasF } })
@@ -98,9 +107,9 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
     }, [x, ...ys] as uPlot.AlignedData, box.current)
     const res = Array.from(sweep.freeBodyRelative, (v, k) => (empty[k] ? null : Math.max(v, 1e-16)))
     const resid = new uPlot({
-      width, height: 86, legend: { show: false }, cursor,
+      width, height: 80, legend: { show: false }, cursor,
       scales: { x: { time: false }, r: { distr: 3 } },
-      axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', label: 'Residual / gross', labelSize: 16, size: 46, labelFont: AXIS.font, values: (_u, vals) => vals.map((v) => formatNumber(v, 1)) }],
+      axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', size: 62, splits: decades, values: (_u, vals) => vals.map((v) => formatNumber(v, 1)) }],
       series: [{}, { label: 'residual', scale: 'r', stroke: '#4a545e', width: 1.2, points: { show: false } }],
       plugins: [markerPlugin(() => markerRef.current)],
       hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
@@ -130,6 +139,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
   return (
     <div className="sweep-chart">
       <div ref={box} data-testid="sweep-chart" />
+      <div className="sweep-res-title">Free-body residual / gross load (log scale)</div>
       <div ref={resBox} data-testid="sweep-residual" />
       <div className="sweep-readout" data-testid="sweep-readout" aria-live="polite">
         {k === null ? <span className="note">Hover to read values; click to move the section there.</span> : (
