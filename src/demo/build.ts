@@ -1,8 +1,9 @@
 /**
  * Generator of the bundled demo models (a Node script: `npm run demo`, `npm run demo -- --large`).
  * Meshes our own two invented scenarios, solves them with the demo's linear-elastic solver, checks
- * their statics, and writes each as a native container with its model.json under public/demo/<id>/
- * (the lug also as a CSV bundle; the tunnel's would push the committed files past about 15 MB),
+ * their statics, and writes each as a native container, model.json and a CSV bundle under
+ * public/demo/<id>/ (the tunnel's CSV files are not committed: they would push the committed files
+ * past about 15 MB; public/demo/.gitignore),
  * plus public/demo/index.json listing them. `--large` also writes a finer tunnel block (several
  * hundred thousand elements, native container only) to public/demo/tunnel-block-large/, which is
  * not committed (public/demo/.gitignore). `--out <dir>` writes elsewhere.
@@ -17,7 +18,7 @@ import { buildLiftingLug, LUG_DEFAULTS, LUG_DESCRIPTION, lugMeshLevel } from './
 import { lugStatics } from './lugStatics.ts'
 import type { ElasticProblem, ElasticSolution } from './solveElastic.ts'
 import { solveElastic } from './solveElastic.ts'
-import { buildTunnelBlock, interpolateTunnelField, TUNNEL_DEFAULTS, TUNNEL_DESCRIPTION, tunnelMeshLevel } from './tunnelBlock.ts'
+import { buildTunnelBlock, interpolateTunnelField, TUNNEL_DEFAULTS, TUNNEL_DESCRIPTION, tunnelHierarchy, tunnelMeshLevel } from './tunnelBlock.ts'
 import type { TunnelSpec } from './tunnelBlock.ts'
 import { tunnelStatics } from './tunnelStatics.ts'
 
@@ -50,13 +51,18 @@ function solveTimed(problem: ElasticProblem): { sol: ElasticSolution; cpu: numbe
   return { sol, cpu: (c.user + c.system) / 1e6 }
 }
 
-function printStats(id: string, sol: ElasticSolution, cpu: number): void {
+function printStats(id: string, sol: ElasticSolution, cpu: number, multigrid = false): void {
   const s = sol.stats
   console.log(`${id}: ${s.elements} hex8 elements, ${s.nodes} nodes, ${s.freeDofs} free dofs, ${s.matrixBlocks} 3×3 blocks; solve ${fmt(s.assemblySeconds + s.solveSeconds + s.recoverySeconds, 2)} s wall, ${fmt(cpu, 2)} s CPU`)
-  console.log(`  assembly ${fmt(s.assemblySeconds, 2)} s, block-Jacobi PCG ${fmt(s.solveSeconds, 2)} s (${s.iterations} iterations, relative residual ${s.relativeResidual.toExponential(2)}), stress recovery ${fmt(s.recoverySeconds, 2)} s`)
+  console.log(`  assembly ${fmt(s.assemblySeconds, 2)} s, ${multigrid ? 'multigrid' : 'block-Jacobi'} PCG ${fmt(s.solveSeconds, 2)} s (${s.iterations} iterations, relative residual ${s.relativeResidual.toExponential(2)}), stress recovery ${fmt(s.recoverySeconds, 2)} s`)
 }
 
-function writeModel(id: string, model: Model, csv: boolean): { native: string; csv: string[] | null; bytes: number } {
+/**
+ * Writes the native container, model.json and the CSV bundle. `commitCsv` false: the CSV files are
+ * still written (every scenario exists in both forms) but not listed, and public/demo/.gitignore
+ * keeps them out of the repository.
+ */
+function writeModel(id: string, model: Model, commitCsv: boolean, writeCsv = true): { native: string; csv: string[] | null; bytes: number } {
   const dir = join(outDir, id)
   if (existsSync(dir)) rmSync(dir, { recursive: true })
   mkdirSync(dir, { recursive: true })
@@ -67,13 +73,15 @@ function writeModel(id: string, model: Model, csv: boolean): { native: string; c
   const names: string[] = []
   for (const f of writeCsvBundle(model)) {
     // model.json goes with every scenario (it says what the data is); the tables only when asked.
-    if (!csv && f.name !== 'model.json') continue
+    if (!writeCsv && f.name !== 'model.json') continue
     writeFileSync(join(dir, f.name), f.text)
-    total += Buffer.byteLength(f.text)
+    const size = Buffer.byteLength(f.text)
+    if (commitCsv || f.name === 'model.json') total += size
+    else console.log(`  wrote ${relative('.', join(dir, f.name))} (${(size / 1e6).toFixed(2)} MB, not committed)`)
     if (f.name !== 'model.json') names.push(`${id}/${f.name}`)
   }
-  console.log(`  wrote ${relative('.', dir)}: ${(total / 1e6).toFixed(2)} MB (native ${(bytes.length / 1e6).toFixed(2)} MB)`)
-  return { native: `${id}/${nativeName}`, csv: csv ? [...names, `${id}/model.json`] : null, bytes: total }
+  console.log(`  wrote ${relative('.', dir)}: ${(total / 1e6).toFixed(2)} MB committed (native ${(bytes.length / 1e6).toFixed(2)} MB)`)
+  return { native: `${id}/${nativeName}`, csv: commitCsv ? [...names, `${id}/model.json`] : null, bytes: total }
 }
 
 function lug(): IndexEntry {
@@ -95,13 +103,15 @@ function lug(): IndexEntry {
 /** The last tunnel solved, whose displacement starts the next finer one's iterations. */
 let previousTunnel: { spec: TunnelSpec; u: Float64Array } | null = null
 
-function tunnel(level: number, id: string, csv: boolean): IndexEntry {
+function tunnel(level: number, id: string, commitCsv: boolean): IndexEntry {
   const spec = { ...TUNNEL_DEFAULTS, ...tunnelMeshLevel(level) }
   const sc = buildTunnelBlock(spec)
   const initialGuess = previousTunnel ? interpolateTunnelField(previousTunnel.spec, previousTunnel.u, spec) : undefined
-  const { sol, cpu } = solveTimed({ ...sc.problem, maxIterations: 50000, initialGuess })
+  // The large variant takes a multigrid cycle over the coarser levels as its preconditioner.
+  const multigrid = level >= 3 ? tunnelHierarchy(TUNNEL_DEFAULTS, level) : undefined
+  const { sol, cpu } = solveTimed({ ...sc.problem, maxIterations: 50000, initialGuess, multigrid })
   previousTunnel = { spec, u: sol.displacement }
-  printStats(id, sol, cpu)
+  printStats(id, sol, cpu, multigrid !== undefined)
   const coords = roundSignificant(sc.problem.coords.slice(), 9)
   const stress = roundSignificant(sol.stress, 6)
   const disp = roundSignificant(sol.displacement, 6)
@@ -110,7 +120,8 @@ function tunnel(level: number, id: string, csv: boolean): IndexEntry {
   console.log(`  wall hoop stress (compression +): springline ${fmt(st.springline, 0)} kPa vs Kirsch ${fmt(st.springlineKirsch, 0)}; crown ${fmt(st.crown, 0)} / invert ${fmt(st.invert, 0)} vs ${fmt(st.crownKirsch, 0)}; RMS deviation ${pct(st.wallRmsDeviation)} of p = ${fmt(st.p, 0)} kPa`)
   const name = level >= 3 ? 'Rock mass round a tunnel, fine mesh (invented demo)' : 'Rock mass round a tunnel (invented demo)'
   const model = demoModel(name, TUNNEL_DESCRIPTION, sc.units, sc.bodyForce, coords, sc.problem.conn, stress, disp)
-  const files = writeModel(id, model, csv)
+  // The large variant's CSV bundle would run to hundreds of MB: native container only.
+  const files = writeModel(id, model, commitCsv, level < 3)
   return { id, name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files: { native: files.native, csv: files.csv }, bytes: files.bytes, ...(level >= 3 ? { onDemand: true } : {}) }
 }
 

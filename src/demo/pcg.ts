@@ -16,22 +16,13 @@ export interface PcgResult {
  * untouched and the reactions can be read afterwards as A u - f. Starts from the u given (an
  * initial guess, for example a coarser mesh's solution; fixed entries are zeroed) and writes the
  * solution into it.
- * Hestenes & Stiefel (1952) for the method; block Jacobi is common practice.
+ * Hestenes & Stiefel (1952) for the method; block Jacobi is common practice. `precondition`
+ * replaces block Jacobi (for example by a multigrid cycle, multigrid.ts).
  */
-export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: Uint8Array, tolerance: number, maxIterations: number): PcgResult {
-  const n = f.length, nodes = a.nodeCount
-  const inv = new Float64Array(9 * nodes)
-  const blk = new Float64Array(9)
-  for (let i = 0; i < nodes; i++) {
-    const p = 9 * blockIndex(a, i, i)
-    for (let k = 0; k < 9; k++) blk[k] = a.values[p + k]
-    // A fixed component decouples: its row and column become the identity's.
-    for (let r = 0; r < 3; r++) if (fixed[3 * i + r]) {
-      for (let c = 0; c < 3; c++) { blk[3 * r + c] = 0; blk[3 * c + r] = 0 }
-      blk[4 * r] = 1
-    }
-    invert3(inv, 9 * i, blk)
-  }
+export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: Uint8Array, tolerance: number, maxIterations: number, precondition?: Preconditioner): PcgResult {
+  const n = f.length
+  const inv = precondition ? null : blockJacobiInverse(a, fixed)
+  const apply: Preconditioner = precondition ?? ((z, r) => applyBlockDiagonal(z, inv!, r))
   const r = new Float64Array(n), z = new Float64Array(n), p = new Float64Array(n), q = new Float64Array(n)
   let fnorm = 0
   for (let d = 0; d < n; d++) {
@@ -45,7 +36,7 @@ export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: U
   for (let d = 0; d < n; d++) { r[d] = fixed[d] ? 0 : f[d] - q[d]; r0 += r[d] * r[d] }
   // An initial guess that already solves the system needs no step (and would divide 0 by 0).
   if (Math.sqrt(r0) / fnorm < tolerance) return { iterations: 0, relativeResidual: Math.sqrt(r0) / fnorm, converged: true }
-  applyBlockDiagonal(z, inv, r)
+  apply(z, r)
   p.set(z)
   let rz = dot(r, z)
   let it = 0, rel = 1
@@ -63,7 +54,7 @@ export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: U
     it++
     rel = Math.sqrt(rr) / fnorm
     if (rel < tolerance) break
-    applyBlockDiagonal(z, inv, r)
+    apply(z, r)
     const rzNew = dot(r, z)
     const beta = rzNew / rz
     rz = rzNew
@@ -77,13 +68,37 @@ export function solvePcg(u: Float64Array, a: BlockCsr, f: Float64Array, fixed: U
   return { iterations: it, relativeResidual: rel, converged: rel < tolerance * 10 }
 }
 
+/** z = M⁻¹ r for a symmetric positive definite M; r is zero at fixed dofs and z must be too. */
+export type Preconditioner = (z: Float64Array, r: Float64Array) => void
+
+/**
+ * Inverses of the nodes' 3×3 diagonal blocks (9 per node), with each fixed component's row and
+ * column replaced by the identity's so fixed dofs stay decoupled.
+ */
+export function blockJacobiInverse(a: BlockCsr, fixed: Uint8Array): Float64Array {
+  const nodes = a.nodeCount
+  const inv = new Float64Array(9 * nodes)
+  const blk = new Float64Array(9)
+  for (let i = 0; i < nodes; i++) {
+    const p = 9 * blockIndex(a, i, i)
+    for (let k = 0; k < 9; k++) blk[k] = a.values[p + k]
+    for (let r = 0; r < 3; r++) if (fixed[3 * i + r]) {
+      for (let c = 0; c < 3; c++) { blk[3 * r + c] = 0; blk[3 * c + r] = 0 }
+      blk[4 * r] = 1
+    }
+    invert3(inv, 9 * i, blk)
+  }
+  return inv
+}
+
 function dot(x: Float64Array, y: Float64Array): number {
   let s = 0
   for (let i = 0; i < x.length; i++) s += x[i] * y[i]
   return s
 }
 
-function applyBlockDiagonal(z: Float64Array, inv: Float64Array, r: Float64Array): void {
+/** z = D⁻¹ r with D⁻¹ from blockJacobiInverse. */
+export function applyBlockDiagonal(z: Float64Array, inv: Float64Array, r: Float64Array): void {
   for (let i = 0, o = 0; i < r.length; i += 3, o += 9) {
     const r0 = r[i], r1 = r[i + 1], r2 = r[i + 2]
     z[i] = inv[o] * r0 + inv[o + 1] * r1 + inv[o + 2] * r2

@@ -1,5 +1,7 @@
-import { addElementMatrix, createBlockCsr } from './blockCsr.ts'
-import { hex8Stiffness, lameConstants } from './hex8.ts'
+import { assembleStiffness } from './assembleStiffness.ts'
+import { lameConstants } from './hex8.ts'
+import { createMultigrid } from './multigrid.ts'
+import type { MultigridHierarchy } from './multigrid.ts'
 import { solvePcg } from './pcg.ts'
 import { recoverPatchStress } from './patchRecovery.ts'
 import { recoverNodalStress } from './stressRecovery.ts'
@@ -25,6 +27,8 @@ export interface ElasticProblem {
   readonly maxIterations?: number
   /** Initial guess of the displacement (3N), e.g. a coarser mesh's solution interpolated; zero by default. */
   readonly initialGuess?: Float64Array
+  /** Coarser meshes of the same body for a multigrid preconditioner (multigrid.ts); block Jacobi when absent. */
+  readonly multigrid?: MultigridHierarchy
   /**
    * Nodal stress recovery: 'patch' (default) superconvergent patch recovery (patchRecovery.ts),
    * or element values spread to the corners and averaged at nodes: 'extrapolate' (Gauss points
@@ -69,22 +73,11 @@ export function solveElastic(problem: ElasticProblem): ElasticSolution {
   const nodes = coords.length / 3, elements = conn.length / 8
   const { lambda, mu } = lameConstants(E, nu)
   const t0 = performance.now()
-  const k = createBlockCsr(conn, 8, nodes)
-  const ke = new Float64Array(576), xyz = new Float64Array(24), grad = new Float64Array(24)
-  const en = new Int32Array(8)
-  for (let e = 0; e < elements; e++) {
-    for (let a = 0; a < 8; a++) {
-      const n = conn[8 * e + a]
-      en[a] = n
-      xyz[3 * a] = coords[3 * n]; xyz[3 * a + 1] = coords[3 * n + 1]; xyz[3 * a + 2] = coords[3 * n + 2]
-    }
-    const vol = hex8Stiffness(ke, xyz, lambda, mu, grad)
-    if (!(vol > 0)) throw new RangeError(`demo mesh element ${e + 1} is inverted or flat (volume ${vol})`)
-    addElementMatrix(k, en, ke)
-  }
+  const k = assembleStiffness(coords, conn, lambda, mu)
   const t1 = performance.now()
   const u = problem.initialGuess ? Float64Array.from(problem.initialGuess) : new Float64Array(3 * nodes)
-  const res = solvePcg(u, k, load, fixed, problem.tolerance ?? 1e-8, problem.maxIterations ?? 20000)
+  const pre = problem.multigrid ? createMultigrid(k, fixed, problem.multigrid, lambda, mu) : undefined
+  const res = solvePcg(u, k, load, fixed, problem.tolerance ?? 1e-8, problem.maxIterations ?? 20000, pre)
   const t2 = performance.now()
   const mode = problem.recovery ?? 'patch'
   const averaged = recoverNodalStress(new Float64Array(6 * nodes), coords, conn, u, lambda, mu, mode === 'patch' ? 'extrapolate' : mode)
@@ -116,3 +109,4 @@ export function solveElastic(problem: ElasticProblem): ElasticSolution {
     },
   }
 }
+

@@ -4,6 +4,8 @@ import { addBodyLoads, addFaceLoads } from './consistentLoads.ts'
 import { hexBoundaryFaces, selectFaces } from './hexFaces.ts'
 import { extrudeQuads, gradedSteps, holeRing, minQuadArea, squareOutline } from './quadMesh.ts'
 import type { ElasticProblem } from './solveElastic.ts'
+import { interpolateNodes } from './multigrid.ts'
+import type { MultigridHierarchy, NodeInterpolation } from './multigrid.ts'
 
 /**
  * Demo scenario: a slice of rock mass round a circular tunnel at depth (invented for the demo).
@@ -56,43 +58,61 @@ function firstRingStep(spec: TunnelSpec): number {
 }
 
 /**
- * Interpolates a displacement field of one tunnel mesh onto another of the same block (for
- * example a coarser level's solution as the conjugate-gradient start of a finer one, which saves
- * the iterations that would spread the load across the block). Both meshes are ring meshes with
- * nodes k + 8m·j + planeNodes·layer; the field is interpolated linearly in the ring's own
- * parameters (angle index, graded radial parameter, layer height), so no point search is needed.
+ * Interpolation between two tunnel meshes of the same block (for a coarser level's solution as the
+ * conjugate-gradient start of a finer one, and for multigrid). Both are ring meshes with nodes
+ * k + 8m·j + planeNodes·layer; fields are interpolated linearly in the ring's own parameters
+ * (angle index, graded radial parameter, layer height), so no point search is needed.
  */
-export function interpolateTunnelField(from: TunnelSpec, u: Float64Array, to: TunnelSpec): Float64Array {
+export function tunnelInterpolation(from: TunnelSpec, to: TunnelSpec): NodeInterpolation {
   const ncA = 8 * from.perSector, nrA = from.ringDivisions, nA = ncA * (nrA + 1)
   const ncB = 8 * to.perSector, nrB = to.ringDivisions, nB = ncB * (nrB + 1)
   const sA = gradedSteps(nrA, firstRingStep(from)), sB = gradedSteps(nrB, firstRingStep(to))
-  const out = new Float64Array(3 * nB * (to.layers + 1))
+  const count = nB * (to.layers + 1)
+  const rowStart = new Int32Array(count + 1), col = new Int32Array(8 * count), weight = new Float64Array(8 * count)
+  let q = 0
   for (let l = 0; l <= to.layers; l++) {
     const zt = (l / to.layers) * from.layers
     const l0 = Math.min(from.layers - 1, Math.floor(zt)), wz = zt - l0
     for (let j = 0; j <= nrB; j++) {
-      // Radial parameter: find the coarse interval holding sB[j].
+      // Radial parameter: the coarse interval holding sB[j].
       let j0 = 0
       while (j0 < nrA - 1 && sA[j0 + 1] < sB[j]) j0++
       const ws = Math.min(1, Math.max(0, (sB[j] - sA[j0]) / (sA[j0 + 1] - sA[j0])))
       for (let k = 0; k < ncB; k++) {
         const kt = (k / ncB) * ncA
         const k0 = Math.floor(kt) % ncA, k1 = (k0 + 1) % ncA, wk = kt - Math.floor(kt)
-        const o = 3 * (k + ncB * j + nB * l)
-        for (let c = 0; c < 3; c++) {
-          let v = 0
-          for (let dl = 0; dl < 2; dl++) for (let dj = 0; dj < 2; dj++) for (let dk = 0; dk < 2; dk++) {
-            const w = (dl ? wz : 1 - wz) * (dj ? ws : 1 - ws) * (dk ? wk : 1 - wk)
-            if (w === 0) continue
-            const node = (dk ? k1 : k0) + ncA * (j0 + dj) + nA * (l0 + dl)
-            v += w * u[3 * node + c]
-          }
-          out[o + c] = v
+        const i = k + ncB * j + nB * l
+        for (let dl = 0; dl < 2; dl++) for (let dj = 0; dj < 2; dj++) for (let dk = 0; dk < 2; dk++) {
+          const w = (dl ? wz : 1 - wz) * (dj ? ws : 1 - ws) * (dk ? wk : 1 - wk)
+          // Nodes that coincide in a parameter get weight 0 on the other side: skip them.
+          if (w === 0) continue
+          col[q] = (dk ? k1 : k0) + ncA * (j0 + dj) + nA * (l0 + dl)
+          weight[q++] = w
         }
+        rowStart[i + 1] = q
       }
     }
   }
-  return out
+  return { rowStart, col: col.slice(0, q), weight: weight.slice(0, q) }
+}
+
+/** A displacement field of one tunnel mesh interpolated onto another (see tunnelInterpolation). */
+export function interpolateTunnelField(from: TunnelSpec, u: Float64Array, to: TunnelSpec): Float64Array {
+  const P = tunnelInterpolation(from, to)
+  return interpolateNodes(new Float64Array(3 * (P.rowStart.length - 1)), P, u)
+}
+
+/**
+ * The multigrid hierarchy of a tunnel mesh: the coarser refinement levels below `level`'s
+ * (tunnelMeshLevel), with their supports, and the interpolations between them.
+ */
+export function tunnelHierarchy(base: TunnelSpec, level: number): MultigridHierarchy {
+  const specs: TunnelSpec[] = []
+  for (let l = 0; l < level; l++) specs.push({ ...base, ...tunnelMeshLevel(l) })
+  const levels = specs.map((s) => { const p = buildTunnelBlock(s).problem; return { coords: p.coords, conn: p.conn, fixed: p.fixed } })
+  const fine = { ...base, ...tunnelMeshLevel(level) }
+  const transfers = specs.map((s, i) => tunnelInterpolation(s, i + 1 < specs.length ? specs[i + 1] : fine))
+  return { levels, transfers }
 }
 
 export interface TunnelScenario {
