@@ -1,0 +1,64 @@
+import { describe, expect, it } from 'vitest'
+import { buildReportContent } from '../../../src/app/reportContent.ts'
+import type { ReportInput, ReportTable } from '../../../src/app/reportContent.ts'
+import { CAUTION } from '../../../src/app/caution.ts'
+import type { SweepReply } from '../../../workers/engineTypes.ts'
+
+const f = (...v: number[]): Float64Array => Float64Array.from(v)
+const sweep: SweepReply = {
+  normal: [1, 0, 0], extent: [0, 4], offsets: f(0.5, 2, 3.5), axial: f(5, 5, 5), shear1: f(0, 0, 0), shear2: f(1, 1, 1),
+  torque: f(0, 0, 0), bending1: f(3, 2, 1), bending2: f(0, 0, 0), freeBodyRelative: f(1e-12, 2e-12, 3e-12), empty: new Uint8Array(3),
+}
+
+function input(over: Partial<ReportInput> = {}): ReportInput {
+  return {
+    model: {
+      name: '<img src=x onerror=alert(1)> bar', description: 'a test bar', units: { length: 'm', stress: 'Pa' },
+      nodeCount: 10, elementCount: 4, boundaryFaceCount: 12, elementTypes: { hex8: 4 }, bounds: { min: [0, 0, 0], max: [4, 1, 1] },
+      bodyForce: [0, 0, 0], warnings: ['node 7 repeated'], source: 'files:a.csv',
+    },
+    system: 'SI', date: new Date('2026-12-01T19:00:00.000Z'), caution: CAUTION,
+    audit: {
+      body: { force: [1, 0, 0], moment: [0, 0, 0], gross: 2000, relative: 5e-4, bodyForceTotal: [0, 0, 0], volume: 4 } as never,
+      indicator: { p50: 1e-6, p95: 1e-5, max: 1e-4 },
+      patches: [{ id: 0, faceCount: 3, area: 1, centroid: [0, 0.5, 0.5], force: [-5000, 0, 0], peak: 5000, mean: 5000 } as never],
+      threshold: 50, referenceStress: 5000, freeSurface: { area: 14, mean: 0, relative: 0, peak: 0 },
+    },
+    section: null, sweep, shown: { axial: true, shear1: false, shear2: true, torque: false, bending1: true, bending2: false },
+    snapshot: 'data:image/png;base64,iVBORw0KGgo=',
+    ...over,
+  }
+}
+
+const table = (c: ReturnType<typeof buildReportContent>, id: string): ReportTable => c.blocks.find((b) => b.id === id) as ReportTable
+
+describe('review report content', () => {
+  it('carries the facts, the caution, the tables and the diagrams', () => {
+    const c = buildReportContent(input())
+    // The name is passed through as text; the HTML writer puts it in a text node (never markup).
+    expect(c.title).toBe('Review report: <img src=x onerror=alert(1)> bar')
+    expect(c.caution).toBe(CAUTION)
+    expect(c.facts).toContainEqual(['Made', '2026-12-01T19:00:00Z'])
+    expect(c.facts).toContainEqual(['Model units', 'length m, stress Pa'])
+    expect(c.facts).toContainEqual(['Reader note', 'node 7 repeated'])
+    expect(c.blocks.map((b) => b.id)).toEqual(['snapshot', 'equilibrium', 'patches', 'diagram-force', 'diagram-moment', 'diagram-residual', 'sweep'])
+    // 1 N residual of 2000 N gross; N in kN (SI display, common practice)
+    expect(table(c, 'equilibrium').rows[0]).toEqual(['Residual force', '(0.001, 0, 0)', 'kN'])
+    expect(table(c, 'patches').rows[0]).toEqual(['0', '3', '1', '(0, 0.5, 0.5)', '(−5, 0, 0)', '5', '0.005', '0.005'])
+    expect(table(c, 'sweep').rows).toHaveLength(3)
+    const force = c.blocks.find((b) => b.id === 'diagram-force')!
+    expect(force.kind === 'diagram' && force.geometry.lines.map((l) => l.label)).toEqual(['N Axial force', 'V₂ Shear force 2'])
+  })
+
+  it('takes only PNG data URLs as the snapshot', () => {
+    for (const bad of ['javascript:alert(1)', 'data:text/html;base64,PHA+', 'http://example.org/x.png', 'data:image/png;base64,"><x']) {
+      expect(buildReportContent(input({ snapshot: bad })).blocks.some((b) => b.kind === 'image')).toBe(false)
+    }
+  })
+
+  it('leaves out what is not there and says so for an empty section', () => {
+    const c = buildReportContent(input({ audit: null, sweep: null, snapshot: null, section: { empty: true } as never }))
+    expect(c.blocks.map((b) => b.id)).toEqual(['section'])
+    expect((c.blocks[0] as ReportTable).note).toBe('The plane misses the body.')
+  })
+})
