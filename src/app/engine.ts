@@ -8,7 +8,7 @@ import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { CutReply, EngineApi, EngineFile, LoadedModel, ModelSource, Outcome, SweepReply, SyntheticSpec, Vec3 } from '../../workers/engineTypes.ts'
 import { DEFAULT_SECTION, sectionPlaneOf, useStore } from './store.ts'
-import type { AppError, SectionState } from './store.ts'
+import type { AppError } from './store.ts'
 
 /** Where a model comes from, in a form that can be loaded again after a respawn. */
 export type AppSource =
@@ -64,7 +64,8 @@ function respawn(): void {
   cutInFlight = false
   cutPending = false
   probeInFlight = false
-  pacedPatch = null
+  pacedOffset = null
+  shownKey = ''
 }
 
 async function recover(error: AppError): Promise<void> {
@@ -131,6 +132,7 @@ export async function loadSource(source: AppSource, opts: { quiet?: boolean } = 
       return false
     }
     lastGood = source
+    shownKey = ''
     const { summary, surface, audit } = out.value
     const c = summary.bounds
     const centre: [number, number, number] = [(c.min[0] + c.max[0]) / 2, (c.min[1] + c.max[1]) / 2, (c.min[2] + c.max[2]) / 2]
@@ -173,6 +175,15 @@ export async function refreshSurfaceArrows(): Promise<void> {
   } catch { /* dropped by a respawn */ }
 }
 
+/** Plane, arrow mode and budget of the cut on screen, so an unchanged request does nothing. */
+let shownKey = ''
+/** An offset held during a paced drag while a cut computes (model length units). */
+let pacedOffset: number | null = null
+
+function cutKey(plane: { point: number[]; normal: number[] }, mode: string, budget: number): string {
+  return `${plane.point.join(',')}|${plane.normal.join(',')}|${mode}|${budget}`
+}
+
 /**
  * Asks for a cut of the current plane. While one is computing, further requests only mark the
  * plane dirty; when the running cut returns, the latest plane is cut once. So a drag never queues
@@ -182,23 +193,43 @@ export function requestCut(): void {
   const st = useStore.getState()
   if (!st.model) return
   if (!st.section.enabled) {
+    shownKey = ''
     if (st.sectionResult || st.sectionBuffers) st.set({ sectionResult: null, sectionBuffers: null })
     return
   }
   if (cutInFlight) { cutPending = true; return }
-  cutInFlight = true
-  cutPending = false
-  const gen = generation
-  const plane = sectionPlaneOf(st.section)
+  startCut(st.section.offset, false)
+}
+
+/**
+ * Cuts the current section moved to `offset`. `paced`: a drag step whose plane is shown only with
+ * its result (the store's offset changes together with the section face, in one update).
+ */
+function startCut(offset: number, paced: boolean): void {
+  const st = useStore.getState()
+  const section = { ...st.section, offset }
+  const plane = sectionPlaneOf(section)
   const { mode } = st.arrowSettings
   // Software WebGL pays for every arrow on every frame (the compositor waits for the picture):
   // while the plane is being dragged there, the section arrows are left out; they return on release.
-  const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
+  const budget = section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
+  const key = cutKey(plane, mode, budget)
+  if (!paced && key === shownKey && st.sectionResult) return
+  cutInFlight = true
+  cutPending = false
+  const gen = generation
   enqueue<Outcome<CutReply>>((api) => api.cut(plane, { mode, budget }))
     .then((out) => {
       if (gen !== generation) return
-      if (out.ok) useStore.getState().set({ sectionResult: out.value.result, sectionBuffers: out.value.buffers })
-      else useStore.getState().set({ error: out.error })
+      const now = useStore.getState()
+      // A paced result that arrives after the drag ended is stale: the release asked for a newer cut.
+      if (paced && !now.section.dragging) return
+      if (!out.ok) { now.set({ error: out.error }); return }
+      shownKey = key
+      now.set({
+        sectionResult: out.value.result, sectionBuffers: out.value.buffers,
+        ...(paced ? { section: { ...now.section, offset } } : {}),
+      })
     })
     .catch((e) => {
       if (gen === generation) useStore.getState().set({ error: { message: `The section could not be computed: ${e instanceof Error ? e.message : String(e)}` } })
@@ -210,34 +241,32 @@ export function requestCut(): void {
       afterNextFrame(() => {
         if (gen !== generation) return
         cutInFlight = false
-        if (pacedPatch) {
-          const patch = pacedPatch
-          pacedPatch = null
-          useStore.getState().setSection(patch)
-        }
-        if (cutPending) requestCut()
+        if (pacedOffset !== null && useStore.getState().section.dragging) {
+          const o = pacedOffset
+          pacedOffset = null
+          startCut(o, true)
+        } else if (cutPending) requestCut()
       })
     })
 }
 
-let pacedPatch: Partial<SectionState> | null = null
-
 /**
- * Moves the section at the pace of the cuts: while a cut is computing, the newest move is held
- * and applied when that cut is on screen. The clipped surface and the section face then always
- * move together, and a fast drag never asks for frames the cut cannot keep up with.
+ * A drag step of the offset (model length units). The plane in the store, and so the clipped
+ * surface, moves only when its cut is ready, together with the section face: the picture stays
+ * consistent, one frame per step, and the worker never computes while that frame is drawn.
+ * While a cut computes, only the newest step is kept.
  */
-export function setSectionPaced(patch: Partial<SectionState>): void {
-  if (cutInFlight) { pacedPatch = { ...pacedPatch, ...patch }; return }
-  pacedPatch = null
-  useStore.getState().setSection(patch)
+export function setSectionPaced(offset: number): void {
+  const st = useStore.getState()
+  if (!st.model || !st.section.enabled) { st.setSection({ offset }); return }
+  if (cutInFlight) { pacedOffset = offset; return }
+  startCut(offset, true)
 }
 
-/** Applies a held move at once (end of a drag). */
-export function flushPacedSection(extra: Partial<SectionState> = {}): void {
-  const patch = { ...pacedPatch, ...extra }
-  pacedPatch = null
-  useStore.getState().setSection(patch)
+/** Ends a paced drag at `offset`: the store takes the final plane and the cut with its arrows follows. */
+export function endPacedDrag(offset: number): void {
+  pacedOffset = null
+  useStore.getState().setSection({ offset, dragging: false })
 }
 
 /** Runs `cb` after the next animation frame has been produced (rAF, then a task after it). */

@@ -1,6 +1,6 @@
 import { useState } from 'react'
 import type { Vec3 } from '../../model/model.ts'
-import { flushPacedSection, setSectionPaced } from '../engine.ts'
+import { endPacedDrag, setSectionPaced } from '../engine.ts'
 import { displayFactor } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
 import { Num, Vec } from '../ui/Num.tsx'
@@ -11,7 +11,8 @@ import { sectionPlaneOf, useStore } from '../store.ts'
 
 /**
  * The offset slider. While the pointer holds it, moves go through setSectionPaced (one cut at a
- * time, the newest move wins) and the thumb follows the pointer from local state.
+ * time, the newest move wins, the plane shown with its cut) and the thumb follows the pointer
+ * from local state.
  */
 function OffsetSlider({ half }: { half: number }) {
   const offset = useStore((s) => s.section.offset)
@@ -27,12 +28,12 @@ function OffsetSlider({ half }: { half: number }) {
         onChange={(e) => {
           const v = Number(e.target.value)
           setLocal(v)
-          if (useStore.getState().section.dragging) setSectionPaced({ offset: v })
+          if (useStore.getState().section.dragging) setSectionPaced(v)
           else setSection({ offset: v })
         }}
         onPointerDown={() => { setLocal(offset); setSection({ dragging: true }) }}
-        onPointerUp={() => flushPacedSection({ dragging: false })}
-        onPointerCancel={() => flushPacedSection({ dragging: false })}
+        onPointerUp={() => endPacedDrag(local)}
+        onPointerCancel={() => endPacedDrag(local)}
       />
       <Num v={shown} q="length" />
     </label>
