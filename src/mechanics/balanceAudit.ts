@@ -21,9 +21,10 @@ import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } fro
 export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): ElementBalance {
   const E = mesh.elementCount
   const residual = new Float64Array(3 * E), gross = new Float64Array(E), indicator = new Float64Array(E)
-  const volume = new Float64Array(E)
-  // tet4 blocks compute their volume inline; the others use the volume quadrature.
+  // tet4 blocks compute their volume inline; the others use the volume quadrature (an array only
+  // when there are such blocks).
   const hasOther = mesh.blocks.some((b) => b.type !== 'tet4')
+  const volume = new Float64Array(hasOther ? E : 0)
   if (hasOther) elementVolumesAndCentroids(mesh, volume, null)
   const bx = bodyForce[0], by = bodyForce[1], bz = bodyForce[2]
   const bMag = Math.sqrt(bx * bx + by * by + bz * bz)
@@ -73,8 +74,7 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
           rx += fx; ry += fy; rz += fz
           g += Math.sqrt(fx * fx + fy * fy + fz * fz)
         }
-        volume[off + e] = vol
-        store(off + e, rx, ry, rz, g)
+        store(off + e, vol, rx, ry, rz, g)
       }
       continue
     }
@@ -116,13 +116,12 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
         rx += fx; ry += fy; rz += fz
         g += Math.sqrt(fx * fx + fy * fy + fz * fz)
       }
-      store(off + e, rx, ry, rz, g)
+      store(off + e, volume[off + e], rx, ry, rz, g)
     }
   }
   return { residual, gross, indicator }
 
-  function store(ge: number, rx: number, ry: number, rz: number, faceSum: number): void {
-    const v = volume[ge]
+  function store(ge: number, v: number, rx: number, ry: number, rz: number, faceSum: number): void {
     rx += bx * v; ry += by * v; rz += bz * v
     residual[3 * ge] = rx; residual[3 * ge + 1] = ry; residual[3 * ge + 2] = rz
     const gr = 0.5 * (faceSum + bMag * Math.abs(v))
@@ -132,14 +131,28 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
   }
 }
 
+/** Elements per chunk of the body volume sums (2 MB of temporaries). */
+const BODY_CHUNK = 1 << 16
+
 export function computeBodyBalance(mesh: Mesh, faces: BoundaryFaces, tractions: SurfaceTractions, bodyForce: Vec3): BodyBalance {
-  const E = mesh.elementCount
-  const vol = new Float64Array(E), cen = new Float64Array(3 * E)
-  elementVolumesAndCentroids(mesh, vol, cen)
+  // Volumes and centroids a chunk of elements at a time, summed in element order: the same sums
+  // as over whole-mesh arrays, without 32 bytes per element of temporaries.
+  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
+  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
   let V = 0, cx = 0, cy = 0, cz = 0
-  for (let e = 0; e < E; e++) {
-    const v = vol[e]
-    V += v; cx += v * cen[3 * e]; cy += v * cen[3 * e + 1]; cz += v * cen[3 * e + 2]
+  for (const b of mesh.blocks) {
+    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const count = b.conn.length / nn
+    for (let s = 0; s < count; s += chunk) {
+      const n = Math.min(chunk, count - s)
+      const part: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
+        blocks: [{ type: b.type, conn: b.conn.subarray(s * nn, (s + n) * nn), ids: b.ids.subarray(s, s + n), part: null, offset: 0 }] }
+      elementVolumesAndCentroids(part, vol, cen)
+      for (let e = 0; e < n; e++) {
+        const v = vol[e]
+        V += v; cx += v * cen[3 * e]; cy += v * cen[3 * e + 1]; cz += v * cen[3 * e + 2]
+      }
+    }
   }
   // An empty or zero-volume body has no centroid: use the origin.
   const c: Vec3 = V !== 0 ? [cx / V, cy / V, cz / V] : [0, 0, 0]

@@ -24,6 +24,9 @@ import type { BoundaryFaces } from './types.ts'
 /** Faces per element are at most 6; a face reference is globalElement·8 + localFace. */
 const REF_STRIDE = 8
 
+/** Faces matched per part of the node range (16 bytes of temporaries each). */
+const PART_FACES = 1 << 20
+
 /** Local corner lists of every face of a type, 4 per face (-1 for the 4th corner of triangles). */
 function faceCornerTable(faces: readonly (readonly number[])[], kinds: readonly FaceKind[]): Int32Array {
   const t = new Int32Array(4 * faces.length).fill(-1)
@@ -32,6 +35,11 @@ function faceCornerTable(faces: readonly (readonly number[])[], kinds: readonly 
 }
 
 export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
+  return extractBoundaryFacesInParts(mesh, PART_FACES)
+}
+
+/** extractBoundaryFaces with a chosen part size (faces matched per pass); the result does not depend on it. */
+export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): BoundaryFaces {
   const N = mesh.nodeCount, E = mesh.elementCount
   const blocks = mesh.blocks
 
@@ -60,60 +68,77 @@ export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
   }
   for (let i = 0; i < N; i++) bucketStart[i + 1] += bucketStart[i]
 
-  // Pass 2: place each face in its bucket with its other corners sorted ascending (k3 = -1 for
-  // triangles, so a triangle never matches a quadrilateral).
-  const ref = new Int32Array(total), k1 = new Int32Array(total), k2 = new Int32Array(total), k3 = new Int32Array(total)
+  // Passes 2 and 3 run over parts of the node range, each holding at most PART_FACES faces (or one
+  // bucket), so the temporaries stay at 16 bytes × PART_FACES however large the mesh: a face
+  // belongs to the part of its smallest corner, and the buckets of a part are consecutive.
+  let maxBucket = 0
+  for (let n = 0; n < N; n++) { const c = bucketStart[n + 1] - bucketStart[n]; if (c > maxBucket) maxBucket = c }
+  const cap = Math.min(total, Math.max(partFaces, maxBucket))
+  const ref = new Int32Array(cap), k1 = new Int32Array(cap), k2 = new Int32Array(cap), k3 = new Int32Array(cap)
   const cursor = bucketStart.slice(0, N)
-  for (const b of blocks) {
-    const topo = ELEMENT_TYPES[b.type]
-    const nn = topo.nodeCount, nf = topo.faces.length
-    const fc = faceCornerTable(topo.faces, topo.faceKinds)
-    const conn = b.conn, off = b.offset
-    const count = conn.length / nn
-    for (let e = 0; e < count; e++) {
-      const base = e * nn
-      for (let f = 0; f < nf; f++) {
-        let a = conn[base + fc[4 * f]], bb = conn[base + fc[4 * f + 1]], c = conn[base + fc[4 * f + 2]]
-        const l3 = fc[4 * f + 3]
-        let d = l3 >= 0 ? conn[base + l3] : 0x7fffffff
-        // Sorting network for four values (d = +∞ for triangles stays last).
-        let t: number
-        if (a > bb) { t = a; a = bb; bb = t }
-        if (c > d) { t = c; c = d; d = t }
-        if (a > c) { t = a; a = c; c = t }
-        if (bb > d) { t = bb; bb = d; d = t }
-        if (bb > c) { t = bb; bb = c; c = t }
-        const p = cursor[a]++
-        ref[p] = (off + e) * REF_STRIDE + f
-        k1[p] = bb; k2[p] = c; k3[p] = d === 0x7fffffff ? -1 : d
-      }
-    }
-  }
-
-  // Pass 3: order each bucket by (k1, k2, k3) (insertion sort: buckets are small) and flag runs of one.
-  const isBoundary = new Uint8Array(E * REF_STRIDE)
+  // Boundary flags, one bit per local face of each element.
+  const isBoundary = new Uint8Array(E)
   let boundaryCount = 0
-  for (let n = 0; n < N; n++) {
-    const s = bucketStart[n], t = bucketStart[n + 1]
-    if (t - s > 64) sortLargeBucket(ref, k1, k2, k3, s, t)
-    else for (let i = s + 1; i < t; i++) {
-      const r = ref[i], a = k1[i], b = k2[i], c = k3[i]
-      let j = i - 1
-      while (j >= s && (k1[j] > a || (k1[j] === a && (k2[j] > b || (k2[j] === b && k3[j] > c))))) {
-        ref[j + 1] = ref[j]; k1[j + 1] = k1[j]; k2[j + 1] = k2[j]; k3[j + 1] = k3[j]
-        j--
+  for (let lo = 0; lo < N;) {
+    const base = bucketStart[lo]
+    let hi = lo + 1
+    while (hi < N && bucketStart[hi + 1] - base <= cap) hi++
+    const span = hi - lo
+
+    // Pass 2: place each face of this part in its bucket with its other corners sorted ascending
+    // (k3 = -1 for triangles, so a triangle never matches a quadrilateral).
+    for (const b of blocks) {
+      const topo = ELEMENT_TYPES[b.type]
+      const nn = topo.nodeCount, nf = topo.faces.length
+      const fc = faceCornerTable(topo.faces, topo.faceKinds)
+      const conn = b.conn, off = b.offset
+      const count = conn.length / nn
+      for (let e = 0; e < count; e++) {
+        const eb = e * nn
+        for (let f = 0; f < nf; f++) {
+          let a = conn[eb + fc[4 * f]], bb = conn[eb + fc[4 * f + 1]], c = conn[eb + fc[4 * f + 2]]
+          const l3 = fc[4 * f + 3]
+          let d = l3 >= 0 ? conn[eb + l3] : 0x7fffffff
+          // Faces of other parts are skipped before sorting (unsigned compare: one test for both ends).
+          if (((Math.min(Math.min(a, bb), Math.min(c, d)) - lo) >>> 0) >= span) continue
+          // Sorting network for four values (d = +∞ for triangles stays last).
+          let t: number
+          if (a > bb) { t = a; a = bb; bb = t }
+          if (c > d) { t = c; c = d; d = t }
+          if (a > c) { t = a; a = c; c = t }
+          if (bb > d) { t = bb; bb = d; d = t }
+          if (bb > c) { t = bb; bb = c; c = t }
+          const p = cursor[a]++ - base
+          ref[p] = (off + e) * REF_STRIDE + f
+          k1[p] = bb; k2[p] = c; k3[p] = d === 0x7fffffff ? -1 : d
+        }
       }
-      ref[j + 1] = r; k1[j + 1] = a; k2[j + 1] = b; k3[j + 1] = c
     }
-    let i = s
-    while (i < t) {
-      let j = i + 1
-      while (j < t && k1[j] === k1[i] && k2[j] === k2[i] && k3[j] === k3[i]) j++
-      const run = j - i
-      if (run === 1) { isBoundary[ref[i]] = 1; boundaryCount++ }
-      else if (run > 2) throw sharedFaceError(mesh, ref, i, j, n, k1[i], k2[i], k3[i])
-      i = j
+
+    // Pass 3: order each bucket by (k1, k2, k3) (insertion sort: buckets are small) and flag runs of one.
+    for (let n = lo; n < hi; n++) {
+      const s = bucketStart[n] - base, t = bucketStart[n + 1] - base
+      if (t - s > 64) sortLargeBucket(ref, k1, k2, k3, s, t)
+      else for (let i = s + 1; i < t; i++) {
+        const r = ref[i], a = k1[i], b = k2[i], c = k3[i]
+        let j = i - 1
+        while (j >= s && (k1[j] > a || (k1[j] === a && (k2[j] > b || (k2[j] === b && k3[j] > c))))) {
+          ref[j + 1] = ref[j]; k1[j + 1] = k1[j]; k2[j + 1] = k2[j]; k3[j + 1] = k3[j]
+          j--
+        }
+        ref[j + 1] = r; k1[j + 1] = a; k2[j + 1] = b; k3[j + 1] = c
+      }
+      let i = s
+      while (i < t) {
+        let j = i + 1
+        while (j < t && k1[j] === k1[i] && k2[j] === k2[i] && k3[j] === k3[i]) j++
+        const run = j - i
+        if (run === 1) { const r = ref[i]; isBoundary[r >> 3] |= 1 << (r & 7); boundaryCount++ }
+        else if (run > 2) throw sharedFaceError(mesh, ref, i, j, n, k1[i], k2[i], k3[i])
+        i = j
+      }
     }
+    lo = hi
   }
 
   // Pass 4: emit boundary faces in element order.
@@ -129,7 +154,7 @@ export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
     for (let e = 0; e < count; e++) {
       const g = off + e
       for (let f = 0; f < nf; f++) {
-        if (!isBoundary[g * REF_STRIDE + f]) continue
+        if (!(isBoundary[g] & (1 << f))) continue
         const face = topo.faces[f]
         elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
         for (let a = 0; a < face.length; a++) nodes[FACE_SLOTS * k + a] = conn[e * nn + face[a]]

@@ -3,7 +3,7 @@ import { boxMesh } from '../../../src/demo/boxMesh.ts'
 import { createMesh } from '../../../src/model/createMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 import { isInputError } from '../../../src/model/errors.ts'
-import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
+import { extractBoundaryFaces, extractBoundaryFacesInParts } from '../../../src/mechanics/boundaryFaces.ts'
 
 // Geometry of a box (elementary): surface area 2(ab + bc + ca); the closed-surface identity
 // ∮ n dA = 0 (divergence theorem, any vector-calculus text); surface centroid of a box = its centre.
@@ -93,5 +93,26 @@ describe('extractBoundaryFaces', () => {
     const msg = (err as Error).message
     expect(msg).toContain('10, 20, 30')
     expect(msg).toContain('shared by 3 elements')
+  })
+
+  it('matching in parts of the node range gives the same faces as one pass', () => {
+    // Mixed blocks, and parts smaller than a bucket (a part then holds one bucket).
+    const hex = boxMesh({ nx: 3, ny: 3, nz: 2, lx: 1, ly: 1, lz: 1 }, 'hex8')
+    const tet = boxMesh({ nx: 3, ny: 3, nz: 2, lx: 1, ly: 1, lz: 1, z0: 1 }, 'tet4')
+    const N = hex.nodeCount
+    // Two boxes with their own nodes (the tet block's indices follow the hex block's).
+    const coords = new Float64Array(3 * (N + tet.nodeCount))
+    coords.set(hex.coords); coords.set(tet.coords, 3 * N)
+    const tconn = tet.blocks[0].conn.map((n) => n + N)
+    const mesh = createMesh(coords, [{ type: 'hex8', conn: hex.blocks[0].conn }, { type: 'tet4', conn: tconn }])
+    const one = extractBoundaryFaces(mesh)
+    for (const part of [1, 5, 17, 64]) {
+      const f = extractBoundaryFacesInParts(mesh, part)
+      expect(f.count).toBe(one.count)
+      expect(Array.from(f.elem)).toEqual(Array.from(one.elem))
+      expect(Array.from(f.localFace)).toEqual(Array.from(one.localFace))
+      expect(Array.from(f.nodes)).toEqual(Array.from(one.nodes))
+    }
+    expect(() => extractBoundaryFacesInParts(createMesh(hex.coords, [{ type: 'hex8', conn: new Int32Array([...hex.blocks[0].conn.subarray(0, 8), ...hex.blocks[0].conn.subarray(0, 16)]) }]), 3)).toThrow(/shared by 3 elements/)
   })
 })
