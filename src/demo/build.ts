@@ -80,7 +80,7 @@ function writeModel(id: string, model: Model, commitCsv: boolean, writeCsv = tru
     else console.log(`  wrote ${relative('.', join(dir, f.name))} (${(size / 1e6).toFixed(2)} MB, not committed)`)
     if (f.name !== 'model.json') names.push(`${id}/${f.name}`)
   }
-  console.log(`  wrote ${relative('.', dir)}: ${(total / 1e6).toFixed(2)} MB committed (native ${(bytes.length / 1e6).toFixed(2)} MB)`)
+  console.log(`  wrote ${relative('.', dir)}: native ${(bytes.length / 1e6).toFixed(2)} MB; ${(total / 1e6).toFixed(2)} MB listed in index.json`)
   return { native: `${id}/${nativeName}`, csv: commitCsv ? [...names, `${id}/model.json`] : null, bytes: total }
 }
 
