@@ -6,7 +6,7 @@
 import { buildLiftingLug, LUG_DEFAULTS, lugMeshLevel } from './liftingLug.ts'
 import { lugStatics } from './lugStatics.ts'
 import { solveElastic } from './solveElastic.ts'
-import { buildTunnelBlock, TUNNEL_DEFAULTS, tunnelMeshLevel } from './tunnelBlock.ts'
+import { buildTunnelBlock, TUNNEL_DEFAULTS, tunnelHierarchy, tunnelMeshLevel } from './tunnelBlock.ts'
 import { tunnelStatics } from './tunnelStatics.ts'
 
 const which = process.argv[2] ?? 'lug'
@@ -28,7 +28,8 @@ for (let level = 0; level <= maxLevel; level++) {
     }
   } else {
     const sc = buildTunnelBlock({ ...TUNNEL_DEFAULTS, ...tunnelMeshLevel(level) })
-    const sol = solveElastic({ ...sc.problem, maxIterations: 50000 })
+    // The finest level takes the multigrid preconditioner, as `npm run demo -- --large` does.
+    const sol = solveElastic({ ...sc.problem, maxIterations: 50000, multigrid: level >= 3 ? tunnelHierarchy(TUNNEL_DEFAULTS, level) : undefined })
     const st = tunnelStatics(sc, sol.stress)
     rows.push({
       level, elements: sol.stats.elements, iterations: sol.stats.iterations, solveSeconds: +sol.stats.solveSeconds.toFixed(2),
