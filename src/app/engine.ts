@@ -259,8 +259,28 @@ function startCut(offset: number, paced: boolean): void {
 export function setSectionPaced(offset: number): void {
   const st = useStore.getState()
   if (!st.model || !st.section.enabled) { st.setSection({ offset }); return }
-  if (cutInFlight) { pacedOffset = offset; return }
+  if (cutInFlight || dragStartGate) { pacedOffset = offset; return }
   startCut(offset, true)
+}
+
+/** True from the start of a drag until its first frame is out (that frame must not share the CPU). */
+let dragStartGate = false
+
+/** Starts a paced drag: the first cut waits for the frame that the drag's start itself causes. */
+export function beginPacedDrag(): void {
+  dragStartGate = true
+  pacedOffset = null
+  useStore.getState().setSection({ dragging: true })
+  const gen = generation
+  afterNextFrame(() => {
+    dragStartGate = false
+    if (gen !== generation || cutInFlight) return
+    if (pacedOffset !== null && useStore.getState().section.dragging) {
+      const o = pacedOffset
+      pacedOffset = null
+      startCut(o, true)
+    }
+  })
 }
 
 /** Ends a paced drag at `offset`: the store takes the final plane and the cut with its arrows follows. */

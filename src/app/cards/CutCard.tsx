@@ -1,6 +1,6 @@
 import { useState } from 'react'
 import type { Vec3 } from '../../model/model.ts'
-import { endPacedDrag, setSectionPaced } from '../engine.ts'
+import { beginPacedDrag, endPacedDrag, setSectionPaced } from '../engine.ts'
 import { displayFactor } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
 import { Num, Vec } from '../ui/Num.tsx'
@@ -31,7 +31,7 @@ function OffsetSlider({ half }: { half: number }) {
           if (useStore.getState().section.dragging) setSectionPaced(v)
           else setSection({ offset: v })
         }}
-        onPointerDown={() => { setLocal(offset); setSection({ dragging: true }) }}
+        onPointerDown={() => { setLocal(offset); beginPacedDrag() }}
         onPointerUp={() => endPacedDrag(local)}
         onPointerCancel={() => endPacedDrag(local)}
       />
