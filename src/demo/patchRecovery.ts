@@ -40,7 +40,7 @@ export function recoverPatchStress(out: Float64Array, coords: Float64Array, conn
 
   const acc = new Float64Array(6 * N), cnt = new Float64Array(N)
   const stamp = new Int32Array(N).fill(-1)
-  const A = new Float64Array(16), B = new Float64Array(24)
+  const A = new Float64Array(16), B = new Float64Array(24), pv = new Float64Array(4)
   out.fill(0)
   for (let i = 0; i < N; i++) {
     if (boundary[i]) continue
@@ -54,9 +54,7 @@ export function recoverPatchStress(out: Float64Array, coords: Float64Array, conn
     for (let q = start[i]; q < start[i + 1]; q++) {
       const e = inc[q]
       // Scaled local coordinates keep the normal equations well conditioned.
-      const p1 = (cx[3 * e] - xi) / h, p2 = (cx[3 * e + 1] - yi) / h, p3 = (cx[3 * e + 2] - zi) / h
-      const p0 = 1
-      const pv = [p0, p1, p2, p3]
+      pv[0] = 1; pv[1] = (cx[3 * e] - xi) / h; pv[2] = (cx[3 * e + 1] - yi) / h; pv[3] = (cx[3 * e + 2] - zi) / h
       for (let r = 0; r < 4; r++) {
         for (let c = 0; c < 4; c++) A[4 * r + c] += pv[r] * pv[c]
         for (let k = 0; k < 6; k++) B[6 * r + k] += pv[r] * cs[6 * e + k]
