@@ -4,7 +4,7 @@
  * app, help and units work, and no request leaves 127.0.0.1.
  */
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
-import { readFileSync } from 'node:fs'
+import { readFileSync, writeFileSync } from 'node:fs'
 import { colourMapTable } from '../../src/app/colourMaps.ts'
 import { snapshotLayout } from '../../src/app/snapshotLayout.ts'
 import { newPage, openBrowser, OUT_DIR, pixelsAt, pixelStats, waitForCut, waitForModel } from './browser.ts'
@@ -87,10 +87,7 @@ describe('Tractus in Chromium', () => {
       })
       const stats = await pixelStats(page, png, { x: 0, y: Math.round(80 * scale), w: Math.round(w * 0.6), h: Math.round(h * 0.5) })
       expect(stats.nonBackground).toBeGreaterThan(0.03)
-      if (scale === 2) {
-        const { writeFileSync } = await import('node:fs')
-        writeFileSync(`${OUT_DIR}/snapshot-2x.png`, png)
-      }
+      writeFileSync(`${OUT_DIR}/snapshot-${scale}x.png`, png)
     }
     await page.close()
   })
