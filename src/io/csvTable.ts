@@ -118,6 +118,10 @@ export function readNumericTable(file: string, text: string, required: readonly 
   const cur = createCursor(file, text)
   const header = readHeader(cur)
   const slotOf = mapColumns(cur, header, required)
+  // The field readers once into locals: under a CommonJS transform (tsx) every use of an imported
+  // name is a getter call that the optimiser does not inline, once per field otherwise.
+  const next = nextRecord, comma = takeComma, num = readNumber, id = readId, lineEnd = atLineEnd, finish = finishLine
+  const OK = PARSE_OK
   const nf = slotOf.length
   const nv = required.length - 1
   let cap = Math.max(16, estimateRecordCount(text))
@@ -125,7 +129,7 @@ export function readNumericTable(file: string, text: string, required: readonly 
   let values: Float64Array = new Float64Array(cap * nv)
   let lines: Int32Array = new Int32Array(cap)
   let rows = 0
-  while (nextRecord(cur)) {
+  while (next(cur)) {
     if (rows === cap) {
       // Only when line ends are unusual (lone CRs mixed with LFs): grow by doubling.
       cap *= 2
@@ -134,30 +138,38 @@ export function readNumericTable(file: string, text: string, required: readonly 
     }
     const base = rows * nv
     for (let j = 0; j < nf; j++) {
-      if (j > 0 && !takeComma(cur)) failColumnCount(cur, nf, header.names)
+      if (j > 0 && !comma(cur)) failColumnCount(cur, nf, header.names)
       const s = slotOf[j]
       if (s === 0) {
-        const id = readId(cur)
-        if (cur.status !== PARSE_OK) failField(cur, header.names[j], 'id')
-        ids[rows] = id
+        const v = id(cur)
+        if (cur.status !== OK) failField(cur, header.names[j], 'id')
+        ids[rows] = v
       } else {
-        const v = readNumber(cur)
-        if (cur.status !== PARSE_OK) failField(cur, header.names[j], 'number')
+        const v = num(cur)
+        if (cur.status !== OK) failField(cur, header.names[j], 'number')
         values[base + s - 1] = v
       }
     }
-    if (!atLineEnd(cur)) failColumnCount(cur, nf, header.names)
+    if (!lineEnd(cur)) failColumnCount(cur, nf, header.names)
     lines[rows] = cur.line
     rows++
-    finishLine(cur)
+    finish(cur)
   }
   if (rows === 0) throw new InputError('empty-file', 'the file has a header but no rows', { file, line: header.line })
-  return {
-    rows,
-    ids: rows === cap ? ids : ids.slice(0, rows),
-    values: rows === cap ? values : values.slice(0, rows * nv),
-    lines: rows === cap ? lines : lines.slice(0, rows),
-  }
+  return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows) }
+}
+
+/**
+ * The first `n` entries of a buffer sized from an estimate: a view when the estimate was close
+ * (the usual case: it counts the header and the final line end), a copy when it was far over.
+ * A copy of fresh memory costs more than the few unused entries of a view.
+ */
+export function fitInt(a: Int32Array, n: number): Int32Array {
+  return n === a.length ? a : n >= a.length - (a.length >> 3) ? a.subarray(0, n) : a.slice(0, n)
+}
+
+export function fitFloat(a: Float64Array, n: number): Float64Array {
+  return n === a.length ? a : n >= a.length - (a.length >> 3) ? a.subarray(0, n) : a.slice(0, n)
 }
 
 export function growInt(a: Int32Array, cap: number): Int32Array {

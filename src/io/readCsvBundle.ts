@@ -14,7 +14,7 @@ import { DEFAULT_UNITS } from '../model/units.ts'
 import { readNumericTable } from './csvTable.ts'
 import type { NumericTable } from './csvTable.ts'
 import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
-import { buildIdIndex, isDuplicate, rowOfId } from './idIndex.ts'
+import { buildIdIndex, isDuplicate, isStrictlyAscending, rowOfId } from './idIndex.ts'
 import type { IdIndex } from './idIndex.ts'
 import { parseJsonText, readModelMeta } from './modelJson.ts'
 import { readElementTable } from './readElementTable.ts'
@@ -113,22 +113,26 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
 
   // Stress: one row per node used by an element.
   const stressTable = readNumericTable(stressFile.name, stressFile.text, STRESS_COLUMNS)
-  const stress = new Float64Array(6 * N)
-  const hasStress = scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
-  const noStress = firstUsedWithout(used, hasStress)
+  // Rows in the order of nodes.csv (the usual layout) are the stress array as read; otherwise
+  // each row goes to its node's slot.
+  const inNodeOrder = sameIds(stressTable.ids, nodeIds)
+  const stress = inNodeOrder ? stressTable.values : new Float64Array(6 * N)
+  const hasStress = inNodeOrder ? null : scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
+  const noStress = hasStress ? firstUsedWithout(used, hasStress) : -1
   if (noStress >= 0) {
     const el = findElementUsing(raw, blocks, noStress)
     throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses`, { file: stressFile.name, elementId: el.id })
   }
-  const unusedWithout = countUnusedWithout(used, hasStress)
+  const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
   if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
 
   let displacement: Float64Array | null = null
   if (dispFile) {
     const dt = readNumericTable(dispFile.name, dispFile.text, DISPLACEMENT_COLUMNS)
-    displacement = new Float64Array(3 * N)
-    const hasDisp = scatterRows(dt, 3, displacement, nodeIndex, nodesFile.name, dispFile.name)
-    const noDisp = firstUsedWithout(used, hasDisp)
+    const dispInOrder = sameIds(dt.ids, nodeIds)
+    displacement = dispInOrder ? dt.values : new Float64Array(3 * N)
+    const hasDisp = dispInOrder ? null : scatterRows(dt, 3, displacement, nodeIndex, nodesFile.name, dispFile.name)
+    const noDisp = hasDisp ? firstUsedWithout(used, hasDisp) : -1
     if (noDisp >= 0) {
       const el = findElementUsing(raw, blocks, noDisp)
       throw new InputError('missing-displacement', `no displacement row for node ${nodeIds[noDisp]}, which element ${el.id} uses`, { file: dispFile.name, elementId: el.id })
@@ -157,6 +161,13 @@ function indexOrFail(t: NumericTable, file: string, what: string): IdIndex {
 }
 
 function checkElementIdsUnique(raw: readonly RawElementBlock[], file: string): void {
+  // Ids ascending within and across blocks (the usual numbering) are unique: no index needed.
+  let ascending = true, last = 0
+  for (const b of raw) {
+    if (b.ids.length && (b.ids[0] <= last || !isStrictlyAscending(b.ids))) { ascending = false; break }
+    if (b.ids.length) last = b.ids[b.ids.length - 1]
+  }
+  if (ascending) return
   let total = 0
   for (const b of raw) total += b.ids.length
   const ids = new Int32Array(total)
@@ -174,8 +185,12 @@ function checkElementIdsUnique(raw: readonly RawElementBlock[], file: string): v
 function resolveNodes(rb: RawElementBlock, nodeIndex: IdIndex, nodesName: string, file: string, used: Uint8Array): Int32Array {
   const conn = rb.nodeIds
   const nn = ELEMENT_TYPES[rb.type].nodeCount
+  // The dense table looked up here directly (a call per entry otherwise); same result as rowOfId.
+  const dense = nodeIndex.dense, rowOf = rowOfId
+  const dn = dense ? dense.length : 0
   for (let i = 0; i < conn.length; i++) {
-    const r = rowOfId(nodeIndex, conn[i])
+    const id = conn[i]
+    const r = dense ? (id >= 0 && id < dn ? dense[id] : -1) : rowOf(nodeIndex, id)
     if (r < 0) {
       const e = (i / nn) | 0
       throw new InputError('missing-node', `node ${conn[i]} is not in ${nodesName}`, { file, line: rb.lines[e], column: `n${(i % nn) + 1}`, elementId: rb.ids[e] })
@@ -202,6 +217,13 @@ function scatterRows(t: NumericTable, width: number, out: Float64Array, nodeInde
     for (let k = 0; k < width; k++) out[n * width + k] = v[r * width + k]
   }
   return has
+}
+
+/** True when the two id lists are equal entry by entry. */
+function sameIds(a: Int32Array, b: Int32Array): boolean {
+  if (a.length !== b.length) return false
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false
+  return true
 }
 
 function firstUsedWithout(used: Uint8Array, has: Uint8Array): number {

@@ -10,7 +10,7 @@ import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import { PARSE_OK, atLineEnd, createCursor, estimateRecordCount, finishLine, nextRecord, readCount, readId, skipField, takeComma, tokenText } from './csvCursor.ts'
-import { countFieldsOfLine, fail, failField, growInt, readHeader } from './csvTable.ts'
+import { countFieldsOfLine, fail, failField, fitInt, growInt, readHeader } from './csvTable.ts'
 
 export interface RawElementBlock {
   readonly type: ElementTypeName
@@ -50,26 +50,29 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
       throw new InputError('header', `column ${i + 1} is "${names[i]}": ${hint}; ${usage}`, { ...where, column: names[i] })
     }
   }
+  // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
+  const next = nextRecord, comma = takeComma, id_ = readId, count_ = readCount, skip = skipField, lineEnd = atLineEnd, finish = finishLine
+  const OK = PARSE_OK
   const byType: (Growing | undefined)[] = []
   const order: number[] = []
   // The first type seen gets room for every line; others start small and double as needed.
   let estimate = Math.max(16, estimateRecordCount(text))
-  while (nextRecord(cur)) {
-    const id = readId(cur)
-    if (cur.status !== PARSE_OK) failField(cur, 'id', 'id')
-    if (!takeComma(cur)) fail(cur, 'column-count', `expected at least id,type and the nodes, found ${countFieldsOfLine(cur)} field`, undefined, id)
-    skipField(cur)
+  while (next(cur)) {
+    const id = id_(cur)
+    if (cur.status !== OK) failField(cur, 'id', 'id')
+    if (!comma(cur)) fail(cur, 'column-count', `expected at least id,type and the nodes, found ${countFieldsOfLine(cur)} field`, undefined, id)
+    skip(cur)
     const t = matchType(cur.text, cur.tokStart, cur.tokEnd)
     if (t < 0) {
       const tok = tokenText(cur)
       fail(cur, 'unknown-type', `${tok === '' ? 'empty element type' : `unknown element type "${tok}"`}; known types: ${ELEMENT_TYPE_NAMES.join(', ')}`, 'type', id)
     }
-    const type = ELEMENT_TYPE_NAMES[t]
+    const type = TYPE_NAMES[t]
     let part = 0
     if (hasPart) {
-      if (!takeComma(cur)) fail(cur, 'column-count', 'the row ends before the part column', 'part', id)
-      part = readCount(cur)
-      if (cur.status !== PARSE_OK) failField(cur, 'part', 'part', id)
+      if (!comma(cur)) fail(cur, 'column-count', 'the row ends before the part column', 'part', id)
+      part = count_(cur)
+      if (cur.status !== OK) failField(cur, 'part', 'part', id)
     }
     let g = byType[t]
     if (!g) {
@@ -79,7 +82,7 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
       order.push(t)
       estimate = 1024
     }
-    const nn = ELEMENT_TYPES[type].nodeCount
+    const nn = NODE_COUNTS[t]
     if (g.count === g.ids.length) {
       const cap = 2 * g.count
       g.ids = growInt(g.ids, cap); g.lines = growInt(g.lines, cap); g.nodeIds = growInt(g.nodeIds, cap * nn)
@@ -87,23 +90,23 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
     }
     const base = g.count * nn
     let k = 0
-    while (takeComma(cur)) {
+    while (comma(cur)) {
       if (k === nn) {
         const found = countFieldsOfLine(cur) - firstNode
         fail(cur, 'node-count', `${type} has ${nn} nodes, the row lists ${found}`, undefined, id)
       }
-      const nid = readId(cur)
-      if (cur.status !== PARSE_OK) failField(cur, `n${k + 1}`, 'id', id)
+      const nid = id_(cur)
+      if (cur.status !== OK) failField(cur, `n${k + 1}`, 'id', id)
       g.nodeIds[base + k] = nid
       k++
     }
-    if (!atLineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"`, undefined, id)
+    if (!lineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"`, undefined, id)
     if (k !== nn) fail(cur, 'node-count', `${type} has ${nn} nodes, the row lists ${k}`, undefined, id)
     g.ids[g.count] = id
     if (hasPart) g.part[g.count] = part
     g.lines[g.count] = cur.line
     g.count++
-    finishLine(cur)
+    finish(cur)
   }
   if (order.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', where)
   return order.map((t) => {
@@ -112,20 +115,24 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
     const nn = ELEMENT_TYPES[type].nodeCount
     return {
       type,
-      nodeIds: g.nodeIds.slice(0, g.count * nn),
-      ids: g.ids.slice(0, g.count),
-      part: hasPart ? g.part.slice(0, g.count) : null,
-      lines: g.lines.slice(0, g.count),
+      nodeIds: fitInt(g.nodeIds, g.count * nn),
+      ids: fitInt(g.ids, g.count),
+      part: hasPart ? fitInt(g.part, g.count) : null,
+      lines: fitInt(g.lines, g.count),
     }
   })
 }
+
+/** Type names and node counts by index, module constants (no getter per row, see readNumericTable). */
+const TYPE_NAMES: readonly ElementTypeName[] = [...ELEMENT_TYPE_NAMES]
+const NODE_COUNTS: readonly number[] = TYPE_NAMES.map((t) => ELEMENT_TYPES[t].nodeCount)
 
 /** Index into ELEMENT_TYPE_NAMES of the type token text[s, e) (case-insensitive, optional quotes), or -1. */
 function matchType(text: string, s: number, e: number): number {
   if (e - s >= 2 && text.charCodeAt(s) === 34 && text.charCodeAt(e - 1) === 34) { s++; e-- }
   const n = e - s
-  outer: for (let t = 0; t < ELEMENT_TYPE_NAMES.length; t++) {
-    const name = ELEMENT_TYPE_NAMES[t]
+  outer: for (let t = 0; t < TYPE_NAMES.length; t++) {
+    const name = TYPE_NAMES[t]
     if (name.length !== n) continue
     for (let i = 0; i < n; i++) {
       let c = text.charCodeAt(s + i)
