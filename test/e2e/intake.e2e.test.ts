@@ -54,6 +54,22 @@ describe('opening models', () => {
     await page.close()
   })
 
+  it('loads a CSV bundle dropped on the window (several files at once)', async () => {
+    const page = await newPage(s)
+    await waitForModel(page)
+    const texts = bundleTexts(cantileverModel('dropped bundle'))
+    await page.evaluate((files) => {
+      const dt = new DataTransfer()
+      for (const f of files) dt.items.add(new File([f.text], f.name, { type: 'text/plain' }))
+      window.dispatchEvent(new DragEvent('dragenter', { dataTransfer: dt, bubbles: true, cancelable: true }))
+      window.dispatchEvent(new DragEvent('dragover', { dataTransfer: dt, bubbles: true, cancelable: true }))
+      window.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }))
+    }, texts)
+    await page.waitForFunction(() => document.querySelector('[data-testid="model-name"]')?.textContent === 'dropped bundle')
+    expect(await page.locator('[data-testid="drop-zone"]').count()).toBe(0)
+    await page.close()
+  })
+
   it('shows the error card for a bad bundle and keeps the previous model', async () => {
     const page = await newPage(s)
     await waitForModel(page)
@@ -169,6 +185,16 @@ describe('section card against cutSection in Node', () => {
       }
     }
     expect(results[1].axial).not.toBe(results[0].axial)
+    // The CSV export carries the same figure (display units: SI shows kN; the model is in N).
+    const [dl] = await Promise.all([page.waitForEvent('download'), page.click('[data-testid="export-section-csv"]')])
+    const csv = (await import('node:fs')).readFileSync((await dl.path())!, 'utf8')
+    const axialLine = csv.split('\n').find((l) => l.startsWith('Axial force N,'))!
+    const [, value, unit] = axialLine.split(',')
+    expect(unit).toBe('kN')
+    expect(Math.abs(Number(value) * 1e3 - results[1].axial)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(results[1].axial)))
+    const [dlp] = await Promise.all([page.waitForEvent('download'), page.click('[data-testid="export-patches-json"]')])
+    const patches = JSON.parse((await import('node:fs')).readFileSync((await dlp.path())!, 'utf8')) as { patches: unknown[] }
+    expect(patches.patches.length).toBeGreaterThan(0)
     expect(Math.abs(results[1].Mz - results[0].Mz)).toBeGreaterThan(0)
     await page.waitForTimeout(800)
     await page.screenshot({ path: `${OUT_DIR}/section.png` })
