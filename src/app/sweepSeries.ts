@@ -97,3 +97,21 @@ export function worstResidual(r: SweepReply): number {
   for (let k = 0; k < r.freeBodyRelative.length; k++) if (!r.empty[k] && r.freeBodyRelative[k] > w) w = r.freeBodyRelative[k]
   return w
 }
+
+/**
+ * Ranges for two or more y axes drawn over one plot, widened so that zero sits at the same
+ * height on each (a force axis and a moment axis then share their zero line), with 5 % room.
+ * Each input is the [min, max] of that axis's data; the output always contains zero.
+ */
+export function zeroAlignedRanges(ranges: readonly (readonly [number, number])[]): [number, number][] {
+  const parts = ranges.map(([lo, hi]) => {
+    const n = Math.max(0, -(Number.isFinite(lo) ? lo : 0)), p = Math.max(0, Number.isFinite(hi) ? hi : 0)
+    return n + p > 0 ? [n, p] : [1, 1]
+  })
+  // share of the height below zero: the mean of the axes' own shares, kept off the edges
+  const r = Math.min(0.9, Math.max(0.1, parts.reduce((a, [n, p]) => a + n / (n + p), 0) / parts.length))
+  return parts.map(([n, p]) => {
+    const below = Math.max(n, (p * r) / (1 - r)), above = Math.max(p, (n * (1 - r)) / r)
+    return [-below * 1.05, above * 1.05]
+  })
+}

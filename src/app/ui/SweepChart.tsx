@@ -11,7 +11,7 @@ import type { ModelUnits, UnitSystem } from '../../model/units.ts'
 import { displayFactor, displayUnitLabel } from '../../model/units.ts'
 import type { SweepReply } from '../../../workers/engineTypes.ts'
 import { formatNumber } from '../format.ts'
-import { offsetsInDisplay, SERIES, seriesInDisplay } from '../sweepSeries.ts'
+import { offsetsInDisplay, SERIES, seriesInDisplay, zeroAlignedRanges } from '../sweepSeries.ts'
 import type { SeriesKey } from '../sweepSeries.ts'
 
 export interface SweepChartProps {
@@ -52,11 +52,14 @@ function markerPlugin(get: () => number | null): uPlot.Plugin {
   }
 }
 
-/** Whole decades inside [min, max] for a log axis, at most four of them (every other, then every third). */
+/** Smallest residual drawn; a free body that balances to round-off sits on this floor. */
+const RESIDUAL_FLOOR = 1e-16
+
+/** Whole exponents inside [min, max] (the residual plot draws log10 of the ratio), at most four. */
 function decades(_u: uPlot, _axis: number, min: number, max: number): number[] {
-  if (!(min > 0 && max > min)) return [min, max].filter((v) => v > 0)
   const out: number[] = []
-  for (let e = Math.ceil(Math.log10(min) - 1e-9); e <= Math.floor(Math.log10(max) + 1e-9); e++) out.push(10 ** e)
+  for (let e = Math.ceil(min - 1e-9); e <= Math.floor(max + 1e-9); e++) out.push(e)
+  if (out.length === 0) return [Math.round((min + max) / 2)]
   const step = Math.ceil(out.length / 4)
   return out.filter((_, i) => (out.length - 1 - i) % step === 0)
 }
@@ -97,19 +100,34 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
     const axes: uPlot.Axis[] = [{ ...AXIS, values: fmtTick, size: 34 }]
     if (hasF || !hasM) axes.push({ ...AXIS, scale: 'F', label: `Force [${Fu}]`, labelSize: 16, size: 46, values: fmtTick, labelFont: AXIS.font })
     if (hasM) axes.push({ ...AXIS, scale: 'M', side: hasF ? 1 : 3, label: `Moment [${Mu}]`, labelSize: 16, size: 46, values: fmtTick, labelFont: AXIS.font, grid: { show: !hasF } })
+    // Force and moment axes share their zero line (see zeroAlignedRanges).
+    const extentOf = (q: 'force' | 'moment'): [number, number] => {
+      let lo = Infinity, hi = -Infinity
+      keys.forEach((s, i) => {
+        if (s.quantity !== q) return
+        for (const v of ys[i]) if (v !== null) { if (v < lo) lo = v; if (v > hi) hi = v }
+      })
+      return [lo, hi]
+    }
+    const aligned = hasF && hasM ? zeroAlignedRanges([extentOf('force'), extentOf('moment')]) : null
     const main = new uPlot({
       width, height: 190, legend: { show: false }, cursor,
-      scales: { x: { time: false }, F: { auto: true }, M: { auto: true } },
+      scales: {
+        x: { time: false },
+        F: aligned ? { auto: false, range: () => aligned[0] } : { auto: true },
+        M: aligned ? { auto: false, range: () => aligned[1] } : { auto: true },
+      },
       axes,
       series: [{ label: `Position [${Lu}]` }, ...keys.map((s) => ({ label: s.symbol, scale: s.quantity === 'force' ? 'F' : 'M', stroke: s.colour, width: 1.6, points: { show: false } }))],
       plugins: [markerPlugin(() => markerRef.current)],
       hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
     }, [x, ...ys] as uPlot.AlignedData, box.current)
-    const res = Array.from(sweep.freeBodyRelative, (v, k) => (empty[k] ? null : Math.max(v, 1e-16)))
+    // log10 on a linear scale: the ticks stay whole decades however narrow the range
+    const res = Array.from(sweep.freeBodyRelative, (v, k) => (empty[k] ? null : Math.log10(Math.max(v, RESIDUAL_FLOOR))))
     const resid = new uPlot({
       width, height: 80, legend: { show: false }, cursor,
-      scales: { x: { time: false }, r: { distr: 3 } },
-      axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', size: 62, splits: decades, values: (_u, vals) => vals.map((v) => formatNumber(v, 1)) }],
+      scales: { x: { time: false }, r: { auto: true, range: (_u, lo, hi) => [Math.floor(lo), Math.max(Math.ceil(hi), Math.floor(lo) + 1)] } },
+      axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', size: 62, splits: decades, values: (_u, vals) => vals.map((v) => formatNumber(10 ** v, 1)) }],
       series: [{}, { label: 'residual', scale: 'r', stroke: '#4a545e', width: 1.2, points: { show: false } }],
       plugins: [markerPlugin(() => markerRef.current)],
       hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },

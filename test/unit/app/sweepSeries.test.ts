@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { SweepReply } from '../../../workers/engineTypes.ts'
-import { nearestIndex, offsetForPosition, positionAlong, seriesInDisplay, sweepTable, worstResidual } from '../../../src/app/sweepSeries.ts'
+import { nearestIndex, offsetForPosition, positionAlong, seriesInDisplay, sweepTable, worstResidual, zeroAlignedRanges } from '../../../src/app/sweepSeries.ts'
 
 const mmMPa = { length: 'mm', stress: 'MPa' } as const
 
@@ -58,5 +58,18 @@ describe('sweep series', () => {
     // a flipped plane normal is still parallel; a tilted one gets no marker
     expect(positionAlong(planePoint, [0, -2, 0], m)).toBe(140)
     expect(positionAlong(planePoint, [0.1, 1, 0], m)).toBeNull()
+  })
+})
+
+describe('zero-aligned axis ranges', () => {
+  // Two y axes over one plot share their zero line (common practice for dual-axis charts).
+  it('puts zero at the same height on every axis and keeps each axis\'s data inside', () => {
+    const input: [number, number][] = [[0, 43], [-4.9, 0.1], [-2, 6]]
+    const out = zeroAlignedRanges(input)
+    const share = out.map(([lo, hi]) => -lo / (hi - lo))
+    for (const s of share) expect(s).toBeCloseTo(share[0], 12)
+    out.forEach(([lo, hi], i) => { expect(lo).toBeLessThanOrEqual(input[i][0]); expect(hi).toBeGreaterThanOrEqual(input[i][1]) })
+    // an empty axis gets a symmetric range
+    expect(zeroAlignedRanges([[Infinity, -Infinity]])).toEqual([[-1.05, 1.05]])
   })
 })
