@@ -42,6 +42,8 @@ export function niceTicks(lo: number, hi: number, target = 5): number[] {
 export function diagramGeometry(
   x: ArrayLike<number>, lines: readonly DiagramLineInput[], width: number, height: number,
   margin = { left: 64, right: 12, top: 10, bottom: 28 },
+  /** Horizontal range to show, when wider than the data's (e.g. the part's whole extent). */
+  xDomain?: readonly [number, number],
 ): DiagramGeometry {
   const plot = { x: margin.left, y: margin.top, w: width - margin.left - margin.right, h: height - margin.top - margin.bottom }
   let x0 = Infinity, x1 = -Infinity, y0 = Infinity, y1 = -Infinity
@@ -52,6 +54,7 @@ export function diagramGeometry(
       if (Number.isFinite(v)) { if (v < y0) y0 = v; if (v > y1) y1 = v }
     }
   }
+  if (xDomain && Number.isFinite(xDomain[0]) && Number.isFinite(xDomain[1])) { x0 = Math.min(x0, xDomain[0]); x1 = Math.max(x1, xDomain[1]) }
   if (!(x0 <= x1)) { x0 = 0; x1 = 1 }
   if (x0 === x1) { x0 -= 0.5; x1 += 0.5 }
   if (!(y0 <= y1)) { y0 = 0; y1 = 1 }

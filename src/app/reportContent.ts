@@ -131,6 +131,9 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
   const L = displayUnitLabel('length', sys)
   const blocks: ReportBlock[] = []
   const xLabel = `Position x·m along m = ${vec(s.normal)} [${L}]`
+  const Lf = convert(1, units, 'length', sys)
+  const domain: [number, number] = [s.extent[0] * Lf, s.extent[1] * Lf]
+  const M = { left: 64, right: 12, top: 10, bottom: 28 }
   for (const q of ['force', 'moment'] as const) {
     const lines = SERIES.filter((d) => d.quantity === q && input.shown[d.key]).map((d) => {
       const v = seriesInDisplay(s, d.key, units, sys)
@@ -141,13 +144,13 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
     blocks.push({
       kind: 'diagram', id: `diagram-${q}`, heading: q === 'force' ? 'Forces along the part' : 'Moments along the part',
       xLabel, yLabel: `${q === 'force' ? 'Force' : 'Moment'} [${displayUnitLabel(q, sys)}]`,
-      geometry: diagramGeometry(x, lines, 720, 260),
+      geometry: diagramGeometry(x, lines, 720, 260, M, domain),
     })
   }
   const res = Float64Array.from(s.freeBodyRelative, (v, k) => (s.empty[k] ? NaN : v))
   blocks.push({
     kind: 'diagram', id: 'diagram-residual', heading: 'Free-body residual along the part',
-    xLabel, yLabel: 'Residual / gross load', geometry: diagramGeometry(x, [{ label: 'Free-body residual / gross', colour: '#4a545e', values: res }], 720, 160),
+    xLabel, yLabel: 'Residual / gross load', geometry: diagramGeometry(x, [{ label: 'Free-body residual / gross', colour: '#4a545e', values: res }], 720, 160, M, domain),
   })
   const t = sweepTable(s, units, sys)
   blocks.push({

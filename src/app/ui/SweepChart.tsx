@@ -109,11 +109,14 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
       })
       return [lo, hi]
     }
+    // The part's whole extent, so the ends of the part are the ends of the axis.
+    const xr: [number, number] = [Math.min(sweep.extent[0] * Lf, x[0]), Math.max(sweep.extent[1] * Lf, x[x.length - 1])]
+    const xScale: uPlot.Scale = { time: false, auto: false, range: () => (xr[0] < xr[1] ? xr : [xr[0] - 1, xr[1] + 1]) }
     const aligned = hasF && hasM ? zeroAlignedRanges([extentOf('force'), extentOf('moment')]) : null
     const main = new uPlot({
       width, height: 190, legend: { show: false }, cursor,
       scales: {
-        x: { time: false },
+        x: xScale,
         F: aligned ? { auto: false, range: () => aligned[0] } : { auto: true },
         M: aligned ? { auto: false, range: () => aligned[1] } : { auto: true },
       },
@@ -126,7 +129,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
     const res = Array.from(sweep.freeBodyRelative, (v, k) => (empty[k] ? null : Math.log10(Math.max(v, RESIDUAL_FLOOR))))
     const resid = new uPlot({
       width, height: 80, legend: { show: false }, cursor,
-      scales: { x: { time: false }, r: { auto: true, range: (_u, lo, hi) => [Math.floor(lo), Math.max(Math.ceil(hi), Math.floor(lo) + 1)] } },
+      scales: { x: xScale, r: { auto: true, range: (_u, lo, hi) => [Math.floor(lo), Math.max(Math.ceil(hi), Math.floor(lo) + 1)] } },
       axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', size: 62, splits: decades, values: (_u, vals) => vals.map((v) => formatNumber(10 ** v, 1)) }],
       series: [{}, { label: 'residual', scale: 'r', stroke: '#4a545e', width: 1.2, points: { show: false } }],
       plugins: [markerPlugin(() => markerRef.current)],

@@ -25,3 +25,13 @@ describe('diagram geometry', () => {
     expect(g.xTicks.map((t) => t.label)).toContain('3')
   })
 })
+
+describe('diagram domain', () => {
+  it('widens the horizontal range to a given domain', () => {
+    const g = diagramGeometry([0.1, 2.9], [{ label: 'a', colour: '#000', values: [1, 2] }], 200, 100,
+      { left: 0, right: 0, top: 0, bottom: 0 }, [0, 3])
+    expect(g.xTicks[0].label).toBe('0')
+    expect(g.xTicks[g.xTicks.length - 1].label).toBe('3')
+    expect(Number(g.lines[0].runs[0].split(',')[0])).toBeCloseTo((0.1 / 3) * 200, 1)
+  })
+})
