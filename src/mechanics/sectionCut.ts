@@ -10,6 +10,7 @@
  * computed here each call.
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import type { ElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
@@ -76,47 +77,12 @@ export function cutSection(
   const coords = mesh.coords, N = mesh.nodeCount
   if (distScratch.length < N) distScratch = new Float64Array(N)
   const d = distScratch
-  const px = point[0], py = point[1], pz = point[2], mx = m[0], my = m[1], mz = m[2]
-  const amx = Math.abs(mx), amy = Math.abs(my), amz = Math.abs(mz)
-  const pAbs = Math.abs(px) * amx + Math.abs(py) * amy + Math.abs(pz) * amz
-  for (let i = 0; i < N; i++) {
-    const x = coords[3 * i], y = coords[3 * i + 1], z = coords[3 * i + 2]
-    const r = (x - px) * mx + (y - py) * my + (z - pz) * mz
-    const band = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz + pAbs)
-    d[i] = r < -band || r > band ? r : 0
-  }
+  nodeDistances(d, coords, N, point, m)
 
   const acc = new Float64Array(ACC_SIZE)
   const sc = createPolygonScratch()
-  const dist = sc.dist
   const collect = options.polygons ? createPolygonCollector() : null
-  for (const block of mesh.blocks) {
-    const topo = ELEMENT_TYPES[block.type]
-    const nn = topo.nodeCount, cc = topo.cornerCount
-    const cases = crossingCases(block.type)
-    const conn = block.conn
-    const count = conn.length / nn
-    for (let e = 0, base = 0; e < count; e++, base += nn) {
-      if (cc === 4) {
-        // tetrahedra, the bulk of large models: reject before touching the scratch
-        const d0 = d[conn[base]], d1 = d[conn[base + 1]], d2 = d[conn[base + 2]], d3 = d[conn[base + 3]]
-        const neg = (d0 < 0 ? 1 : 0) + (d1 < 0 ? 1 : 0) + (d2 < 0 ? 1 : 0) + (d3 < 0 ? 1 : 0)
-        if (neg === 0 || neg === 4) continue // all corners on one side
-        dist[0] = d0; dist[1] = d1; dist[2] = d2; dist[3] = d3
-      } else {
-        let neg = 0
-        for (let c = 0; c < cc; c++) {
-          const dc = d[conn[base + c]]
-          dist[c] = dc
-          if (dc < 0) neg++
-        }
-        if (neg === 0 || neg === cc) continue // all corners on one side
-      }
-      if (elementPolygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
-      integratePolygon(acc, 0, sc, frame, 6)
-      if (collect) collect.add(sc, m, block.offset + e)
-    }
-  }
+  for (const block of mesh.blocks) cutBlock(acc, sc, d, coords, stress, block.type, block.conn, block.offset, frame, collect, m)
   const polygons = collect ? collect.finish() : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about), polygons }
@@ -131,6 +97,58 @@ export function cutSection(
   const Ms = momentAboutCentroid(acc, 0, c, frame)
   const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce)
   return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody), polygons }
+}
+
+// The passes below are separate functions so that each is optimised with its own type feedback:
+// inside one long function, the optimiser compiles the first loop while it runs (on-stack) and
+// then gives the code up at every later pass it has not seen run yet, for the first few calls.
+
+/** Snapped signed distances d = (x - p)·m of the first N nodes (see SNAP_EPS). */
+function nodeDistances(d: Float64Array, coords: Float64Array, N: number, point: Vec3, m: Vec3): void {
+  const px = point[0], py = point[1], pz = point[2], mx = m[0], my = m[1], mz = m[2]
+  const amx = Math.abs(mx), amy = Math.abs(my), amz = Math.abs(mz)
+  const pAbs = Math.abs(px) * amx + Math.abs(py) * amy + Math.abs(pz) * amz
+  for (let i = 0; i < N; i++) {
+    const x = coords[3 * i], y = coords[3 * i + 1], z = coords[3 * i + 2]
+    const r = (x - px) * mx + (y - py) * my + (z - pz) * mz
+    const band = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz + pAbs)
+    d[i] = r < -band || r > band ? r : 0
+  }
+}
+
+/** Adds the section polygons of one block's cut elements to `acc` (and to `collect` when drawing). */
+function cutBlock(
+  acc: Float64Array, sc: PolygonScratch, d: Float64Array, coords: Float64Array, stress: Float64Array,
+  type: ElementTypeName, conn: Int32Array, offset: number, frame: Float64Array, collect: PolygonCollector | null, m: Vec3,
+): void {
+  const topo = ELEMENT_TYPES[type]
+  const nn = topo.nodeCount, cc = topo.cornerCount
+  const cases = crossingCases(type)
+  const count = conn.length / nn
+  const dist = sc.dist
+  // Imported kernels once into locals: under a CommonJS transform (tsx) each use of an imported
+  // name is otherwise a getter call per element.
+  const polygon = elementPolygon, integrate = integratePolygon
+  for (let e = 0, base = 0; e < count; e++, base += nn) {
+    if (cc === 4) {
+      // tetrahedra, the bulk of large models: reject before touching the scratch
+      const d0 = d[conn[base]], d1 = d[conn[base + 1]], d2 = d[conn[base + 2]], d3 = d[conn[base + 3]]
+      const neg = (d0 < 0 ? 1 : 0) + (d1 < 0 ? 1 : 0) + (d2 < 0 ? 1 : 0) + (d3 < 0 ? 1 : 0)
+      if (neg === 0 || neg === 4) continue // all corners on one side
+      dist[0] = d0; dist[1] = d1; dist[2] = d2; dist[3] = d3
+    } else {
+      let neg = 0
+      for (let c = 0; c < cc; c++) {
+        const dc = d[conn[base + c]]
+        dist[c] = dc
+        if (dc < 0) neg++
+      }
+      if (neg === 0 || neg === cc) continue // all corners on one side
+    }
+    if (polygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
+    integrate(acc, 0, sc, frame, 6)
+    if (collect) collect.add(sc, m, offset + e)
+  }
 }
 
 /** Section moment about its centroid c from the accumulator's moment about its local origin. */
@@ -155,8 +173,9 @@ function freeBodyFaces(
 ): void {
   const nodes = faces.nodes, kind = faces.kind, dist = sc.dist
   const cx = c[0], cy = c[1], cz = c[2], gx = g[0], gy = g[1], gz = g[2]
+  const corners = faceCornerCount, whole = addWholeFace, clipped = addClippedFace
   for (let f = 0; f < faces.count; f++) {
-    const nc = faceCornerCount(kind[f])
+    const nc = corners(kind[f])
     let neg = 0
     for (let k = 0; k < nc; k++) {
       const dk = d[nodes[FACE_SLOTS * f + k]]
@@ -164,10 +183,12 @@ function freeBodyFaces(
       if (dk < 0) neg++
     }
     if (neg === 0) continue // wholly on the + side (or lying in the plane)
-    if (neg === nc) addWholeFace(fb, off, faces, tractions, f, gx, gy, gz)
-    else addClippedFace(fb, off, coords, stress, faces, f, sc, cx, cy, cz, gx, gy, gz)
+    if (neg === nc) whole(fb, off, faces, tractions, f, gx, gy, gz)
+    else clipped(fb, off, coords, stress, faces, f, sc, cx, cy, cz, gx, gy, gz)
   }
 }
+
+type PolygonCollector = ReturnType<typeof createPolygonCollector>
 
 /** Collects drawn polygons into typed arrays that double when full (drawing is not the hot path). */
 function createPolygonCollector() {
