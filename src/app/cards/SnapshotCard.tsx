@@ -1,9 +1,10 @@
 import { useState } from 'react'
 import { Card } from '../ui/Card.tsx'
 import { takeSnapshot } from '../actions.ts'
+import { ReportButton } from '../ui/ReportButton.tsx'
 import { useStore } from '../store.ts'
 
-/** PNG for design reviews and the link that restores this view. */
+/** PNG for design reviews, the link that restores this view, and the one-file review report. */
 export function SnapshotCard() {
   const model = useStore((s) => s.model)
   const [scale, setScale] = useState(2)
@@ -27,6 +28,7 @@ export function SnapshotCard() {
           setLink(href)
           void navigator.clipboard?.writeText(href).catch(() => undefined)
         }}>Link to this view</button>
+        <ReportButton />
       </div>
       {link ? <input className="link" readOnly value={link} data-testid="view-link" onFocus={(e) => e.target.select()} /> : null}
     </Card>

@@ -6,7 +6,6 @@ import { NumberField } from '../ui/NumberField.tsx'
 import { SweepChart } from '../ui/SweepChart.tsx'
 import { requestSweep } from '../engine.ts'
 import { formatNumber } from '../format.ts'
-import { exportReport } from '../report.ts'
 import { sectionPlaneOf, useStore } from '../store.ts'
 import { useSweepStore } from '../sweepState.ts'
 import { offsetForPosition, positionAlong, SERIES, worstResidual } from '../sweepSeries.ts'
@@ -32,7 +31,6 @@ export function SweepCard() {
   const [count, setCount] = useState(100)
   const [wide, setWide] = useState(false)
   const [error, setError] = useState('')
-  const [reporting, setReporting] = useState(false)
   const root = useRef<HTMLDivElement>(null)
 
   // The wider layout widens the whole card column while this card asks for it.
@@ -100,11 +98,6 @@ export function SweepCard() {
         ) : <p className="note">Run to cut the part at evenly spaced planes from end to end.</p>}
         <div className="row">
           <label className="check"><input type="checkbox" data-testid="sweep-wide" checked={wide} onChange={(e) => setWide(e.target.checked)} /> Wider cards</label>
-          <span className="spacer" />
-          <button type="button" data-testid="review-report" disabled={reporting} title="One HTML file with the view, the audit, the patches, the section and these diagrams"
-            onClick={async () => { setReporting(true); try { await exportReport() } finally { setReporting(false) } }}>
-            {reporting ? 'Writing…' : 'Review report'}
-          </button>
         </div>
       </div>
     </Card>
