@@ -112,7 +112,8 @@ function nodeDistances(d: Float64Array, coords: Float64Array, N: number, point: 
     const x = coords[3 * i], y = coords[3 * i + 1], z = coords[3 * i + 2]
     const r = (x - px) * mx + (y - py) * my + (z - pz) * mz
     const band = SNAP_EPS * (Math.abs(x) * amx + Math.abs(y) * amy + Math.abs(z) * amz + pAbs)
-    d[i] = r < -band || r > band ? r : 0
+    // |r| > band is r < -band || r > band (band ≥ 0) in one compare that every node takes.
+    d[i] = Math.abs(r) > band ? r : 0
   }
 }
 
@@ -129,26 +130,54 @@ function cutBlock(
   // Imported kernels once into locals: under a CommonJS transform (tsx) each use of an imported
   // name is otherwise a getter call per element.
   const polygon = elementPolygon, integrate = integratePolygon
-  for (let e = 0, base = 0; e < count; e++, base += nn) {
-    if (cc === 4) {
-      // tetrahedra, the bulk of large models: reject before touching the scratch
-      const d0 = d[conn[base]], d1 = d[conn[base + 1]], d2 = d[conn[base + 2]], d3 = d[conn[base + 3]]
-      const neg = (d0 < 0 ? 1 : 0) + (d1 < 0 ? 1 : 0) + (d2 < 0 ? 1 : 0) + (d3 < 0 ? 1 : 0)
-      if (neg === 0 || neg === 4) continue // all corners on one side
-      dist[0] = d0; dist[1] = d1; dist[2] = d2; dist[3] = d3
-    } else {
-      let neg = 0
-      for (let c = 0; c < cc; c++) {
-        const dc = d[conn[base + c]]
-        dist[c] = dc
-        if (dc < 0) neg++
-      }
-      if (neg === 0 || neg === cc) continue // all corners on one side
+  if (cc === 4) {
+    // Tetrahedra, the bulk of large models: a small scan finds the cut elements (quick to optimise,
+    // so the first cut pays little for the warm-up), then only those are clipped, in element order.
+    const n = tet4CutList(d, conn, count)
+    const list = tetCutList
+    for (let i = 0; i < n; i++) {
+      const base = 4 * list[i]
+      dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
+      if (polygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
+      integrate(acc, 0, sc, frame, 6)
+      if (collect) collect.add(sc, m, offset + list[i])
     }
+    return
+  }
+  for (let e = 0, base = 0; e < count; e++, base += nn) {
+    let neg = 0
+    for (let c = 0; c < cc; c++) {
+      const dc = d[conn[base + c]]
+      dist[c] = dc
+      if (dc < 0) neg++
+    }
+    if (neg === 0 || neg === cc) continue // all corners on one side
     if (polygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
     integrate(acc, 0, sc, frame, 6)
     if (collect) collect.add(sc, m, offset + e)
   }
+}
+
+/**
+ * Grows-only list of cut tetrahedra (local indices), reused across cuts like distScratch. It has
+ * room for a whole block, so the scan has no growth branch (code that has not run yet makes the
+ * optimised scan fall back to the interpreter); only the entries written are touched memory.
+ */
+let tetCutList = new Int32Array(0)
+
+/** Writes the tetrahedra of a tet4 block with corners on both sides (d < 0 and d ≥ 0) to tetCutList, in order; returns their count. */
+function tet4CutList(d: Float64Array, conn: Int32Array, count: number): number {
+  if (tetCutList.length < count) tetCutList = new Int32Array(count)
+  const list = tetCutList
+  let n = 0
+  for (let e = 0; e < count; e++) {
+    const base = 4 * e
+    const neg = (d[conn[base]] < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
+    // Stored always, kept only when cut: the store has run from the first element on.
+    list[n] = e
+    n += (neg & 3) !== 0 ? 1 : 0
+  }
+  return n
 }
 
 /** Section moment about its centroid c from the accumulator's moment about its local origin. */
