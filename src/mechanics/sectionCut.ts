@@ -131,12 +131,12 @@ function cutBlock(
   // name is otherwise a getter call per element.
   const polygon = elementPolygon, integrate = integratePolygon
   if (cc === 4) {
-    // Tetrahedra, the bulk of large models: a small scan finds the cut elements (quick to optimise,
+    // Tetrahedra (4 corners), the bulk of large models: a small scan finds the cut elements (quick to optimise,
     // so the first cut pays little for the warm-up), then only those are clipped, in element order.
-    const n = tet4CutList(d, conn, count)
+    const n = findCutTets(d, conn, count, nn)
     const list = tetCutList
     for (let i = 0; i < n; i++) {
-      const base = 4 * list[i]
+      const base = nn * list[i]
       dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
       if (polygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
       integrate(acc, 0, sc, frame, 6)
@@ -165,13 +165,15 @@ function cutBlock(
  */
 let tetCutList = new Int32Array(0)
 
-/** Writes the tetrahedra of a tet4 block with corners on both sides (d < 0 and d ≥ 0) to tetCutList, in order; returns their count. */
-function tet4CutList(d: Float64Array, conn: Int32Array, count: number): number {
+/**
+ * Writes the tetrahedra (tet4 or tet10: corners first, nn nodes each) of a block with corners on
+ * both sides (d < 0 and d ≥ 0) to tetCutList, in order; returns their count.
+ */
+function findCutTets(d: Float64Array, conn: Int32Array, count: number, nn: number): number {
   if (tetCutList.length < count) tetCutList = new Int32Array(count)
   const list = tetCutList
   let n = 0
-  for (let e = 0; e < count; e++) {
-    const base = 4 * e
+  for (let e = 0, base = 0; e < count; e++, base += nn) {
     const neg = (d[conn[base]] < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
     // Stored always, kept only when cut: the store has run from the first element on.
     list[n] = e
