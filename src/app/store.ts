@@ -132,7 +132,9 @@ export interface ArrowSettings {
  * (see `sectionPlaneOf`). `point` length units, `normal` any non-zero vector (normalised on use),
  * `offset` length units along n̂. `hide`: which side of the plane is hidden in the scene
  * ('positive' = the +n side, the side whose action the resultant reports), or 'none'.
- * `traction`: which section traction colours the fill. `dragging`: true while the handle moves.
+ * `traction`: which section traction colours the fill. `dragging`: true while the handle or the
+ * offset slider moves; on software WebGL the app then cuts without section arrows (they return on
+ * release), and a slider drag moves `offset` only together with its cut result.
  */
 export interface SectionState {
   readonly enabled: boolean
