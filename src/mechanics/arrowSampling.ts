@@ -23,6 +23,7 @@
  */
 import type { Vec3 } from '../model/model.ts'
 import type { BoundaryFaces, SectionPolygons, SurfaceTractions } from './types.ts'
+import { mulberry32 } from './seededRandom.ts'
 
 export type ArrowMode = 'full' | 'normal' | 'shear'
 
@@ -48,16 +49,6 @@ export interface ArrowOptions {
 
 export const DEFAULT_ARROW_BUDGET = 2000
 
-/** Mulberry32: small, fast, seedable; good enough for jittering strata. Returns [0, 1). */
-function mulberry32(seed: number): () => number {
-  let s = seed >>> 0
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0
-    let r = Math.imul(s ^ (s >>> 15), 1 | s)
-    r = (r + Math.imul(r ^ (r >>> 7), 61 | r)) ^ r
-    return ((r ^ (r >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 /**
  * Stratified choice of items by area. Writes the chosen item indices (ascending) into `outItem`

@@ -3,18 +3,8 @@ import { boxMesh } from '../../src/demo/boxMesh.ts'
 import { addFaceLoads } from '../../src/demo/consistentLoads.ts'
 import { hexBoundaryFaces, selectFaces } from '../../src/demo/hexFaces.ts'
 import { solveElastic } from '../../src/demo/solveElastic.ts'
+import { mulberry32 as rng } from '../../src/mechanics/seededRandom.ts'
 
-/** Seeded generator (mulberry32) so a failing case can be rerun; the seed is printed. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 describe('demo solver: patch test', () => {
   // Irons patch test (common practice; Irons & Razzaque 1972, in the "traction" form): a patch of

@@ -4,6 +4,8 @@
  * rotations", Graphics Gems III, 1992).
  */
 import type { Mesh } from '../../src/model/model.ts'
+import { mulberry32 } from '../../src/mechanics/seededRandom.ts'
+export { mulberry32 }
 
 export type Mat3 = [number, number, number, number, number, number, number, number, number]
 
@@ -18,17 +20,6 @@ export function rotationFromUniforms(u1: number, u2: number, u3: number): Mat3 {
   ]
 }
 
-/** Seeded PRNG (mulberry32, common practice) returning numbers in [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 export function rotateVec(Q: Mat3, v: ArrayLike<number>, o = 0): [number, number, number] {
   const x = v[o], y = v[o + 1], z = v[o + 2]

@@ -9,7 +9,10 @@ import type { BlockInput } from '../../src/model/createMesh.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../../src/model/model.ts'
 
-export type Mat3 = [number, number, number, number, number, number, number, number, number]
+import { rotateMesh, rotateStressField, rotateVec } from './rotation.ts'
+import type { Mat3 } from './rotation.ts'
+export { rotateVec }
+export type { Mat3 }
 
 /** Nodal stress from a function of position (xx, yy, zz, xy, yz, xz per node). */
 export function nodalStress(mesh: Mesh, f: (x: number, y: number, z: number) => readonly number[]): Float64Array {
@@ -45,35 +48,9 @@ export function rotationFromQuaternion(q0: number, q1: number, q2: number, q3: n
   ]
 }
 
-export function rotateVec(Q: Mat3, v: readonly number[]): Vec3 {
-  return [
-    Q[0] * v[0] + Q[1] * v[1] + Q[2] * v[2],
-    Q[3] * v[0] + Q[4] * v[1] + Q[5] * v[2],
-    Q[6] * v[0] + Q[7] * v[1] + Q[8] * v[2],
-  ]
-}
-
-/** σ' = Q σ Qᵀ on a 6-vector. */
-export function rotateStress6(Q: Mat3, s: readonly number[]): number[] {
-  const S = [s[0], s[3], s[5], s[3], s[1], s[4], s[5], s[4], s[2]]
-  const R = new Array<number>(9).fill(0)
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) {
-    let v = 0
-    for (let k = 0; k < 3; k++) for (let l = 0; l < 3; l++) v += Q[3 * i + k] * S[3 * k + l] * Q[3 * j + l]
-    R[3 * i + j] = v
-  }
-  return [R[0], R[4], R[8], R[1], R[5], R[2]]
-}
-
 /** The same body turned rigidly by Q: coordinates x' = Qx, stress σ' = QσQᵀ. */
 export function rotateModel(mesh: Mesh, stress: Float64Array, Q: Mat3): { mesh: Mesh; stress: Float64Array } {
-  const x = new Float64Array(mesh.coords.length)
-  const s = new Float64Array(stress.length)
-  for (let i = 0; i < mesh.nodeCount; i++) {
-    x.set(rotateVec(Q, mesh.coords.subarray(3 * i, 3 * i + 3) as unknown as number[]), 3 * i)
-    s.set(rotateStress6(Q, Array.from(stress.subarray(6 * i, 6 * i + 6))), 6 * i)
-  }
-  return { mesh: { ...mesh, coords: x }, stress: s }
+  return { mesh: rotateMesh(mesh, Q), stress: rotateStressField(Q, stress) }
 }
 
 /** Scales every coordinate by k (for the scale-invariance checks). */

@@ -1,18 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
 import { computeNodalInvariants, principalStresses, vonMises } from '../../../src/mechanics/invariants.ts'
+import { mulberry32 } from '../../../src/mechanics/seededRandom.ts'
 
-/** Seeded PRNG (mulberry32, common practice) so a failure can be replayed from the printed seed. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 const SEED = Number(process.env.TRACTUS_SEED ?? 20261201)
 

@@ -1,0 +1,13 @@
+/**
+ * Mulberry32 (Tommy Ettinger's public-domain generator; common practice for seeded jitter and
+ * reproducible tests): small, fast, seedable. Returns numbers in [0, 1). Not for cryptography.
+ */
+export function mulberry32(seed: number): () => number {
+  let s = seed >>> 0
+  return () => {
+    s = (s + 0x6d2b79f5) >>> 0
+    let r = Math.imul(s ^ (s >>> 15), 1 | s)
+    r = (r + Math.imul(r ^ (r >>> 7), 61 | r)) ^ r
+    return ((r ^ (r >>> 14)) >>> 0) / 4294967296
+  }
+}
