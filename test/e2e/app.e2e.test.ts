@@ -3,22 +3,14 @@
  * snapshot PNG carries the colour bar, a link restores the view, a crafted link cannot break the
  * app, help and units work, and no request leaves 127.0.0.1.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { readFileSync, writeFileSync } from 'node:fs'
 import { colourMapTable } from '../../src/app/colourMaps.ts'
 import { snapshotLayout } from '../../src/app/snapshotLayout.ts'
-import { newPage, openBrowser, OUT_DIR, pixelsAt, pixelStats, waitForCut, waitForModel } from './browser.ts'
-import type { Session } from './browser.ts'
+import { newPage, useBrowserSession, OUT_DIR, pixelsAt, pixelStats, waitForCut, waitForModel } from './browser.ts'
 import type { Page } from 'playwright-core'
 
-let s: Session
-
-beforeAll(async () => { s = await openBrowser() })
-afterAll(async () => { await s?.close() })
-afterEach(() => {
-  expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
-  expect(s.pageErrors, 'uncaught page errors').toEqual([])
-})
+const s = useBrowserSession()
 
 /** Scene area left of the cards, under the top bar, above the colour bar. */
 const SCENE_RECT = { x: 0, y: 40, w: 900, h: 560 }

@@ -2,6 +2,7 @@
  * Browser helpers for the end-to-end tests: Debian's Chromium through playwright-core, software
  * WebGL, and a guard that records every request leaving 127.0.0.1 (the suite fails on any).
  */
+import { afterAll, afterEach, beforeAll, expect } from 'vitest'
 import { chromium } from 'playwright-core'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { mkdirSync } from 'node:fs'
@@ -44,6 +45,22 @@ export async function openBrowser(): Promise<Session> {
   })
   context.on('page', (p) => p.on('pageerror', (e) => pageErrors.push(String(e))))
   return { browser, context, outside, pageErrors, close: () => browser.close() }
+}
+
+/**
+ * One browser for the test file, with the guards every browser test shares: after each test, no
+ * request may have left 127.0.0.1 and no page may have thrown. The returned session is filled in
+ * by beforeAll, so use it inside tests only.
+ */
+export function useBrowserSession(): Session {
+  const s = {} as Session
+  beforeAll(async () => { Object.assign(s, await openBrowser()) })
+  afterAll(async () => { await s.close?.() })
+  afterEach(() => {
+    expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
+    expect(s.pageErrors, 'uncaught page errors').toEqual([])
+  })
+  return s
 }
 
 export async function newPage(s: Session, hash = ''): Promise<Page> {

@@ -4,23 +4,15 @@
  * model loads), cancelling a long load, the probe, and the section card against cutSection run
  * here in Node on the same files.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { readCsvBundle } from '../../src/io/index.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { bundleFiles, bundleTexts, cantileverModel } from './bundle.ts'
-import { figure, newPage, openBrowser, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
-import type { Session } from './browser.ts'
+import { figure, newPage, useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
 import type { Page } from 'playwright-core'
 
-let s: Session
-
-beforeAll(async () => { s = await openBrowser() })
-afterAll(async () => { await s?.close() })
-afterEach(() => {
-  expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
-  expect(s.pageErrors, 'uncaught page errors').toEqual([])
-})
+const s = useBrowserSession()
 
 const MARKUP_NAME = 'Bracket <img src=x onerror="window.__pwned=1"> & <b>bold</b>'
 

@@ -5,22 +5,14 @@
  * test. Tasks after the release (the final cut with its arrows) are reported, not asserted. The figures are
  * printed and written to test-output/e2e/large-model.json.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { writeFileSync } from 'node:fs'
-import { openBrowser, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
-import type { Session } from './browser.ts'
+import { useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
 
 const ELEMENTS = 200_000
 const LIMIT_MS = 200
 
-let s: Session
-
-beforeAll(async () => { s = await openBrowser() })
-afterAll(async () => { await s?.close() })
-afterEach(() => {
-  expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
-  expect(s.pageErrors, 'uncaught page errors').toEqual([])
-})
+const s = useBrowserSession()
 
 interface Task { start: number; duration: number }
 

@@ -3,21 +3,13 @@
  * along its normal without turning the camera, and a 4× snapshot comes back at four times the
  * view's size (rendered in tiles) with the model in it.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
-import { newPage, openBrowser, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
-import type { Session } from './browser.ts'
+import { newPage, useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
 import type { Page } from 'playwright-core'
 import { BACKGROUND, HANDLE } from '../../src/scene/sceneLook.ts'
 
-let s: Session
-
-beforeAll(async () => { s = await openBrowser() })
-afterAll(async () => { await s?.close() })
-afterEach(() => {
-  expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
-  expect(s.pageErrors, 'uncaught page errors').toEqual([])
-})
+const s = useBrowserSession()
 
 /** A screenshot pixel (CSS px) within `tol` of an sRGB hex colour, near the middle of all such pixels, and their count. */
 async function findColour(page: Page, png: Buffer, hex: string, tol: number): Promise<{ x: number; y: number; n: number }> {

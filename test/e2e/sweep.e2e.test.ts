@@ -4,22 +4,14 @@
  * then export the review report and open it with every request refused: it carries the tables,
  * the diagrams and the caution, and asks for nothing.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { readFileSync, writeFileSync } from 'node:fs'
-import { figure, newPage, openBrowser, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
-import type { Session } from './browser.ts'
+import { figure, newPage, useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
 import { CAUTION } from '../../src/app/caution.ts'
 import { bundleFiles, cantileverModel } from './bundle.ts'
 import type { Page } from 'playwright-core'
 
-let s: Session
-
-beforeAll(async () => { s = await openBrowser() })
-afterAll(async () => { await s?.close() })
-afterEach(() => {
-  expect(s.outside, 'requests that left 127.0.0.1').toEqual([])
-  expect(s.pageErrors, 'uncaught page errors').toEqual([])
-})
+const s = useBrowserSession()
 
 /** Exports the review report from `page` and opens it where every request is refused and recorded. */
 async function openReport(page: Page, name: string): Promise<{ html: string; view: Page; asked: string[]; errors: string[]; close: () => Promise<void> }> {
