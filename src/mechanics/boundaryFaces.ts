@@ -24,8 +24,12 @@ import type { BoundaryFaces } from './types.ts'
 /** Faces per element are at most 6; a face reference is globalElement·8 + localFace. */
 const REF_STRIDE = 8
 
-/** Faces matched per part of the node range (16 bytes of temporaries each). */
-const PART_FACES = 1 << 20
+/**
+ * Faces matched per part of the node range: 16 bytes of temporaries each, 8 MB in all. Fresh
+ * memory costs page faults; more parts cost more passes over the elements (cheap: each pass skips
+ * the elements outside its part).
+ */
+const PART_FACES = 1 << 19
 
 /** Local corner lists of every face of a type, 4 per face (-1 for the 4th corner of triangles). */
 function faceCornerTable(faces: readonly (readonly number[])[], kinds: readonly FaceKind[]): Int32Array {
@@ -91,10 +95,17 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
       const topo = ELEMENT_TYPES[b.type]
       const nn = topo.nodeCount, nf = topo.faces.length
       const fc = faceCornerTable(topo.faces, topo.faceKinds)
-      const conn = b.conn, off = b.offset
+      const conn = b.conn, off = b.offset, cc = topo.cornerCount
       const count = conn.length / nn
       for (let e = 0; e < count; e++) {
         const eb = e * nn
+        if (span < N) {
+          // Several parts: an element whose corners all lie outside this part's node range has
+          // no face here (every face's smallest corner lies between its own smallest and largest).
+          let eMin = conn[eb], eMax = eMin
+          for (let k = 1; k < cc; k++) { const v = conn[eb + k]; eMin = Math.min(eMin, v); eMax = Math.max(eMax, v) }
+          if (eMin >= hi || eMax < lo) continue
+        }
         for (let f = 0; f < nf; f++) {
           let a = conn[eb + fc[4 * f]], bb = conn[eb + fc[4 * f + 1]], c = conn[eb + fc[4 * f + 2]]
           const l3 = fc[4 * f + 3]
