@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useRef } from 'react'
+import { useCallback, useEffect, useMemo, useRef } from 'react'
 import { Vector3 } from 'three'
 import type { PerspectiveCamera } from 'three'
 import { useThree } from '@react-three/fiber'
@@ -6,7 +6,7 @@ import { OrbitControls } from '@react-three/drei'
 import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib'
 import { useStore } from '../app/store.ts'
 import type { ModelSummary, ViewRequest } from '../app/store.ts'
-import { frameSphere, setClipPlanes } from './frameSphere.ts'
+import { defaultViewDirection, frameSphere, setClipPlanes, upForBodyForce } from './frameSphere.ts'
 
 function modelSphere(m: ModelSummary): { center: Vector3; radius: number } {
   const { min, max } = m.bounds
@@ -29,6 +29,12 @@ export function CameraRig() {
   const model = useStore((s) => s.model)
   const viewRequest = useStore((s) => s.viewRequest)
   const lastSeq = useRef(-1)
+  // camera.up must be set before the (re)made controls read it, so it is set while rendering.
+  const upKey = useMemo(() => {
+    const up = upForBodyForce(model ? model.bodyForce : [0, 0, 0])
+    camera.up.copy(up)
+    return `${up.x.toFixed(6)},${up.y.toFixed(6)},${up.z.toFixed(6)}`
+  }, [model, camera])
   const pending = useRef<ViewRequest | null>(null)
 
   const report = useCallback(() => {
@@ -85,12 +91,14 @@ export function CameraRig() {
       return
     }
     const { center, radius } = modelSphere(model)
-    frameSphere(camera, controls.target, center, radius, false)
+    frameSphere(camera, controls.target, center, radius, false, defaultViewDirection(camera.up))
     controls.target.copy(center)
     controls.update()
     invalidate()
     report()
   }, [model, controls, camera, apply, invalidate, report])
 
-  return <OrbitControls makeDefault enableDamping={false} onEnd={report} />
+  // The controls fix their orbit axis from camera.up when they are made, so a model whose up
+  // differs (see upForBodyForce) gets fresh controls.
+  return <OrbitControls key={upKey} makeDefault enableDamping={false} onEnd={report} />
 }
