@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { PerspectiveCamera, Vector3 } from 'three'
-import { fitDistance, frameSphere } from '../../../src/scene/frameSphere.ts'
+import { DEFAULT_VIEW_DIRECTION, defaultViewDirection, fitDistance, frameSphere, upForBodyForce } from '../../../src/scene/frameSphere.ts'
 
 describe('frameSphere', () => {
   it('puts the sphere tangent to the narrower field of view (d = r / sin(half-angle), elementary geometry)', () => {
@@ -28,5 +28,21 @@ describe('frameSphere', () => {
     }
     expect(cam.near).toBeLessThan(dir.length() - 2)
     expect(cam.far).toBeGreaterThan(dir.length() + 2)
+  })
+})
+
+describe('upForBodyForce', () => {
+  it('points the screen up against gravity and keeps the three-quarter view above the model (common practice)', () => {
+    const up = upForBodyForce([0, -25_506, 0])
+    expect(up.distanceTo(new Vector3(0, 1, 0))).toBe(0)
+    const dir = defaultViewDirection(up)
+    // The default view looks from above: its component along up is the same as along +z for a z-up model.
+    expect(dir.dot(up)).toBeCloseTo(DEFAULT_VIEW_DIRECTION.z, 12)
+    expect(dir.length()).toBeCloseTo(1, 12)
+  })
+
+  it('falls back to +z without a body force, or with a non-finite one', () => {
+    expect(upForBodyForce([0, 0, 0]).toArray()).toEqual([0, 0, 1])
+    expect(upForBodyForce([Number.NaN, 0, 0]).toArray()).toEqual([0, 0, 1])
   })
 })
