@@ -139,51 +139,50 @@ export function checkBlockOrientation(coords: Float64Array, type: ElementTypeNam
 
 /**
  * The tet4 case of checkBlockOrientation in one loop over locals, without a call or a scratch
- * array per element. The signed volume takes the same operations in the same order as
- * measureElement, so its sign is the same bit for bit. The size test avoids the bounding box
- * (its min/max compares mispredict on every element): each extent max - min is at most the sum
- * of |x_a - x_0| over the other corners, so D² = Σ (that sum)² ≥ d², and an element with
- * V² > 1.0001 · (1e-12)² · D⁶ passes the exact test too (the 1e-4 margin covers rounding). Only
- * elements that fail the bound (none in a sane mesh; overflow and underflow land here too) are
- * measured exactly by measureElement, which alone decides degeneracy.
+ * array per element, and without the bounding box (its min/max compares mispredict on every
+ * element). With u, v, w the edges from corner 0, each extent max - min is at most |u_x| + |v_x|
+ * + |w_x| (and so for y, z), so D² = Σ (those sums)² ≥ d², and |u|, |v|, |w| ≤ D. An element whose
+ * six-fold volume T = u·(v×w) from the raw coordinates has T² > (6·10⁻⁶)² D⁶ is accepted at once:
+ * its volume is a million times above the degeneracy threshold, and the rounding of T or of
+ * measureElement's centred form (a few ε D³) cannot flip its sign, so the exact test would say
+ * the same. Only elements below that bound (very flat ones; none in a sane mesh; overflow and
+ * underflow land here too) are measured exactly by measureElement, which alone decides them.
  */
 function checkTet4Orientation(x: Float64Array, conn: Int32Array): BlockOrientation {
   const count = (conn.length / 4) | 0
   const inv = new InvertedList()
-  const limit2 = 1.0001 * DEGENERATE_RELATIVE_VOLUME * DEGENERATE_RELATIVE_VOLUME
+  const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
   let out: Float64Array | null = null, scratch: Float64Array | null = null
   for (let e = 0; e < count; e++) {
     const p0 = 3 * conn[4 * e], p1 = 3 * conn[4 * e + 1], p2 = 3 * conn[4 * e + 2], p3 = 3 * conn[4 * e + 3]
     const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
-    const x1 = x[p1], y1 = x[p1 + 1], z1 = x[p1 + 2]
-    const x2 = x[p2], y2 = x[p2 + 1], z2 = x[p2 + 2]
-    const x3 = x[p3], y3 = x[p3 + 1], z3 = x[p3 + 2]
-    // Corners relative to the centroid, as in measureElement.
-    const cx = (x0 + x1 + x2 + x3) / 4, cy = (y0 + y1 + y2 + y3) / 4, cz = (z0 + z1 + z2 + z3) / 4
-    const ax = x0 - cx, ay = y0 - cy, az = z0 - cz
-    const ux = (x1 - cx) - ax, uy = (y1 - cy) - ay, uz = (z1 - cz) - az
-    const vx = (x2 - cx) - ax, vy = (y2 - cy) - ay, vz = (z2 - cz) - az
-    const wx = (x3 - cx) - ax, wy = (y3 - cy) - ay, wz = (z3 - cz) - az
-    let v = ((uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz) / 6
-    const sx = Math.abs(x1 - x0) + Math.abs(x2 - x0) + Math.abs(x3 - x0)
-    const sy = Math.abs(y1 - y0) + Math.abs(y2 - y0) + Math.abs(y3 - y0)
-    const sz = Math.abs(z1 - z0) + Math.abs(z2 - z0) + Math.abs(z3 - z0)
+    const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
+    const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0
+    const wx = x[p3] - x0, wy = x[p3 + 1] - y0, wz = x[p3 + 2] - z0
+    const t = (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
+    const sx = Math.abs(ux) + Math.abs(vx) + Math.abs(wx)
+    const sy = Math.abs(uy) + Math.abs(vy) + Math.abs(wy)
+    const sz = Math.abs(uz) + Math.abs(vz) + Math.abs(wz)
     const D2 = sx * sx + sy * sy + sz * sz
-    if (!(v * v > limit2 * D2 * D2 * D2)) {
-      out ??= new Float64Array(2)
-      scratch ??= new Float64Array(24)
-      measureElement(out, scratch, x, conn, 4 * e, 'tet4')
-      v = out[0]
-      const d = out[1]
-      // Also catches NaN volumes (never from finite coordinates, but never trusted either).
-      if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
-        return { inverted: inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: d }
-      }
+    if (t * t > limit2 * D2 * D2 * D2) {
+      if (t < 0) inv.push(e)
+      continue
+    }
+    out ??= new Float64Array(2)
+    scratch ??= new Float64Array(24)
+    measureElement(out, scratch, x, conn, 4 * e, 'tet4')
+    const v = out[0], d = out[1]
+    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
+    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
+      return { inverted: inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: d }
     }
     if (v < 0) inv.push(e)
   }
   return { inverted: inv.done(), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
 }
+
+/** Relative volume (V / D³) above which a tetrahedron is accepted without the exact measurement. */
+const FAST_ACCEPT_RELATIVE = 1e-6
 
 /** Growing list of inverted element indices (usually empty). */
 class InvertedList {
