@@ -53,6 +53,7 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
   const next = nextRecord, comma = takeComma, id_ = readId, count_ = readCount, skip = skipField, lineEnd = atLineEnd, finish = finishLine
   const OK = PARSE_OK
+  const textLen = text.length
   const byType: (Growing | undefined)[] = []
   const order: number[] = []
   // The first type seen gets room for every line; others start small and double as needed.
@@ -89,7 +90,22 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
       if (hasPart) g.part = growInt(g.part, cap)
     }
     const base = g.count * nn
+    const nodeIds = g.nodeIds
+    // Fast path for the usual ",digits" fields: parsed here without a call per field. A field it
+    // does not take as is (blanks, signs, decimals, out of range, a bad end) is left to readId
+    // below from that field on, so results and messages are the same.
     let k = 0
+    let p = cur.pos
+    while (k < nn && p < textLen && text.charCodeAt(p) === CH_COMMA) {
+      let q = p + 1, v = 0, nd = 0
+      let c = q < textLen ? text.charCodeAt(q) : -1
+      while (c >= CH_0 && c <= CH_9 && nd < 10) { v = v * 10 + (c - CH_0); nd++; c = ++q < textLen ? text.charCodeAt(q) : -1 }
+      if (nd === 0 || v < 1 || v > MAX_ID || !(c === CH_COMMA || c === CH_LF || c === CH_CR || c === -1)) break
+      nodeIds[base + k] = v
+      k++
+      p = q
+    }
+    cur.pos = p
     while (comma(cur)) {
       if (k === nn) {
         const found = countFieldsOfLine(cur) - firstNode
@@ -97,7 +113,7 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
       }
       const nid = id_(cur)
       if (cur.status !== OK) failField(cur, `n${k + 1}`, 'id', id)
-      g.nodeIds[base + k] = nid
+      nodeIds[base + k] = nid
       k++
     }
     if (!lineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"`, undefined, id)
@@ -122,6 +138,10 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
     }
   })
 }
+
+const CH_LF = 10, CH_CR = 13, CH_COMMA = 44, CH_0 = 48, CH_9 = 57
+/** Largest id (2^31 - 1), as readId accepts. */
+const MAX_ID = 2147483647
 
 /** Type names and node counts by index, module constants (no getter per row, see readNumericTable). */
 const TYPE_NAMES: readonly ElementTypeName[] = [...ELEMENT_TYPE_NAMES]

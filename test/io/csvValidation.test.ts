@@ -139,6 +139,17 @@ describe('elements', () => {
   it('row too short for id and type', () => {
     expectError(edit('elements.csv', (t) => setLine(t, 3, '2')), 'column-count', ['elements.csv', 'line 3'])
   })
+  it('node fields in any accepted spelling give the same connectivity, and bad ones the same errors', () => {
+    // Blanks, a plus sign, leading zeros and "12.0" are ids as readId reads them; the row reader's
+    // shortcut for plain digits must agree with it field by field (common practice: one grammar).
+    const plain = readCsvBundle(toFiles(tinyBundle()))
+    const spelled = readCsvBundle(toFiles(edit('elements.csv', (t) => setLine(setLine(t, 2, '1,hex8, 1,+2,03,4.0 ,5,6,7,8'), 3, '2,tet4,5,6,8,9  '))))
+    expect(Array.from(spelled.mesh.blocks[0].conn)).toEqual(Array.from(plain.mesh.blocks[0].conn))
+    expect(Array.from(spelled.mesh.blocks[1].conn)).toEqual(Array.from(plain.mesh.blocks[1].conn))
+    expectError(edit('elements.csv', (t) => setLine(t, 3, '2,tet4,5,6,0,9')), 'bad-id', ['line 3', 'column "n3"', 'element 2'])
+    expectError(edit('elements.csv', (t) => setLine(t, 3, '2,tet4,5,6,21474836470,9')), 'bad-id', ['line 3', 'column "n3"'])
+    expectError(edit('elements.csv', (t) => setLine(t, 3, '2,tet4,5,6,8x,9')), 'not-a-number', ['line 3', 'column "n3"', '"8x"'])
+  })
   it('element referencing a missing node', () => {
     expectError(edit('elements.csv', (t) => setLine(t, 3, '2,tet4,5,6,8,99')), 'missing-node', ['elements.csv', 'line 3', 'column "n4"', 'element 2', 'node 99 is not in nodes.csv'])
   })
