@@ -199,7 +199,7 @@ export interface CameraState {
 export interface ViewRequest {
   readonly seq: number
   readonly camera?: CameraState
-  readonly frame?: { readonly center: Vec3; readonly radius: number }
+  readonly frame?: { readonly center: Vec3; readonly radius: number; /** Outward normal of what is framed, to look at it from outside; optional. */ readonly normal?: Vec3 }
 }
 
 /**

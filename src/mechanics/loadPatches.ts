@@ -91,7 +91,7 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
   const rootIndex = new Int32Array(F).fill(-1)
   let P = 0
   for (let f = 0; f < F; f++) if (loaded[f]) { const r = find(f); if (rootIndex[r] < 0) rootIndex[r] = P++ }
-  const cnt = new Int32Array(P), area = new Float64Array(P), cen = new Float64Array(3 * P)
+  const cnt = new Int32Array(P), area = new Float64Array(P), cen = new Float64Array(3 * P), nrm = new Float64Array(3 * P)
   const force = new Float64Array(3 * P), mom = new Float64Array(3 * P), peak = new Float64Array(P), magInt = new Float64Array(P)
   const nodeMag = tractions.nodeMagnitude
   let freeArea = 0, freeInt = 0, freePeak = 0
@@ -110,6 +110,7 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
     area[p] += A
     for (let k = 0; k < 3; k++) {
       cen[3 * p + k] += A * faces.centroid[3 * f + k]
+      nrm[3 * p + k] += A * faces.normal[3 * f + k]
       force[3 * p + k] += tractions.force[3 * f + k]
       mom[3 * p + k] += tractions.moment[3 * f + k]
     }
@@ -128,7 +129,8 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
       mom[3 * p + 1] - (c[2] * Fv[0] - c[0] * Fv[2]),
       mom[3 * p + 2] - (c[0] * Fv[1] - c[1] * Fv[0]),
     ]
-    patches.push({ id: p, faceCount: cnt[p], area: A, centroid: c, force: Fv, moment: M, peak: peak[p], mean: A > 0 ? magInt[p] / A : 0 })
+    const n: Vec3 = A > 0 ? [nrm[3 * p] / A, nrm[3 * p + 1] / A, nrm[3 * p + 2] / A] : [0, 0, 0]
+    patches.push({ id: p, faceCount: cnt[p], area: A, centroid: c, normal: n, force: Fv, moment: M, peak: peak[p], mean: A > 0 ? magInt[p] / A : 0 })
   }
   // Sort by |force| descending (ties by area, then by first face) and renumber.
   const order = patches.map((_, i) => i).sort((a, b) =>

@@ -99,6 +99,11 @@ export interface LoadPatch {
   readonly faceCount: number
   readonly area: number
   readonly centroid: Vec3
+  /**
+   * Area-weighted mean outward normal ∫ n dA / area: a unit vector for a flat patch, shorter for
+   * a curved one (zero for a closed surface). Used to look at the patch from outside.
+   */
+  readonly normal: Vec3
   /** ∫ t dA over the patch. */
   readonly force: Vec3
   /** ∫ (x - centroid) × t dA over the patch. */

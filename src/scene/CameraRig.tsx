@@ -55,7 +55,15 @@ export function CameraRig() {
       setClipPlanes(camera, radius)
     } else if (req.frame) {
       const center = new Vector3(req.frame.center[0], req.frame.center[1], req.frame.center[2])
-      if (m) {
+      const n = req.frame.normal ? new Vector3(req.frame.normal[0], req.frame.normal[1], req.frame.normal[2]) : null
+      if (n && n.lengthSq() > 0.04) {
+        // Look at the patch along its own outward normal, raised towards the screen's up so a
+        // patch inside a hole is seen over the hole's rim (and a flat one in a three-quarter view).
+        const current = camera.position.clone().sub(controls.target).normalize()
+        const dir = n.normalize().add(camera.up.clone().multiplyScalar(0.7)).addScaledVector(current, 0.3).normalize()
+        controls.target.copy(center)
+        camera.position.copy(center).add(dir)
+      } else if (m) {
         // Look at a patch from outside the part: lean the view towards the direction from the
         // model centre to the patch, so a patch on the far side is not framed from behind.
         const outward = center.clone().sub(modelSphere(m).center)

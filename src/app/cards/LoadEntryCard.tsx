@@ -31,7 +31,7 @@ export function LoadEntryCard() {
                   <button type="button" title="Frame this patch" onClick={(e) => {
                     e.stopPropagation()
                     set({ highlightedPatch: p.id })
-                    requestView({ frame: { center: p.centroid, radius: Math.max(Math.sqrt(p.area), 1e-9) } })
+                    requestView({ frame: { center: p.centroid, radius: Math.max(Math.sqrt(p.area), 1e-9), normal: p.normal } })
                   }}>Frame</button>
                 </td>
               </tr>
