@@ -34,6 +34,9 @@ describe('bar pulled at both ends: two load-entry patches', () => {
         expect(Math.sign(p.force[0])).toBe(p.centroid[0] > L / 2 ? 1 : -1)
         expect(p.centroid[1]).toBeCloseTo(W / 2, 12)
         expect(p.centroid[2]).toBeCloseTo(D / 2, 12)
+        // The end faces are flat, so their mean outward normal is the unit normal ±x (geometry).
+        expect(p.normal[0]).toBeCloseTo(p.centroid[0] > L / 2 ? 1 : -1, 12)
+        expect(Math.hypot(p.normal[1], p.normal[2])).toBeLessThan(1e-12)
       }
       expect(lp.patches.map((p) => p.id)).toEqual([0, 1])
       expect(lp.freeSurface.area).toBeCloseTo(2 * L * (W + D), 12)
