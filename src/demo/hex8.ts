@@ -12,6 +12,8 @@
  * cantilever test shows the error left at its mesh.
  */
 
+import { shapeDerivatives, shapeValues } from '../mechanics/shapeFunctions.ts'
+
 /** Reference corner signs of the hex8 nodes. */
 export const HEX8_CORNER = Float64Array.of(
   -1, -1, -1, 1, -1, -1, 1, 1, -1, -1, 1, -1,
@@ -26,24 +28,14 @@ export const HEX8_GAUSS = (() => {
   return out
 })()
 
-/** dN_a/dξ_k at (ξ, η, ζ): out[3a + k]. */
+/** dN_a/dξ_k at (ξ, η, ζ): out[3a + k] (the element library's hex8). */
 export function hex8ShapeDerivatives(out: Float64Array, xi: number, eta: number, zeta: number): Float64Array {
-  for (let a = 0; a < 8; a++) {
-    const sx = HEX8_CORNER[3 * a], sy = HEX8_CORNER[3 * a + 1], sz = HEX8_CORNER[3 * a + 2]
-    const fx = 1 + sx * xi, fy = 1 + sy * eta, fz = 1 + sz * zeta
-    out[3 * a] = 0.125 * sx * fy * fz
-    out[3 * a + 1] = 0.125 * sy * fx * fz
-    out[3 * a + 2] = 0.125 * sz * fx * fy
-  }
-  return out
+  return shapeDerivatives('hex8', xi, eta, zeta, out)
 }
 
-/** N_a at (ξ, η, ζ). */
+/** N_a at (ξ, η, ζ) (the element library's hex8). */
 export function hex8ShapeValues(out: Float64Array, xi: number, eta: number, zeta: number): Float64Array {
-  for (let a = 0; a < 8; a++) {
-    out[a] = 0.125 * (1 + HEX8_CORNER[3 * a] * xi) * (1 + HEX8_CORNER[3 * a + 1] * eta) * (1 + HEX8_CORNER[3 * a + 2] * zeta)
-  }
-  return out
+  return shapeValues('hex8', xi, eta, zeta, out)
 }
 
 /** Reference derivatives at the 8 Gauss points, 24 per point; computed once. */
