@@ -199,7 +199,9 @@ const api: EngineApi = {
     return probeModel(current.model.mesh, current.model.stress, current.faces, req.section ? current.polygons : null, req)
   },
 
-  async crash(): Promise<void> {
+  async crash(kind: 'throw' | 'memory' = 'throw'): Promise<void> {
+    // 'memory' asks for far more memory than any browser grants, so the allocation really fails.
+    if (kind === 'memory') { new Float64Array(2 ** 40); return }
     throw new Error('deliberate failure inside the engine (test hook)')
   },
 

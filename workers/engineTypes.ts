@@ -86,7 +86,7 @@ export interface EngineApi {
   /** Sections along `normal`; `from`/`to` default to the model's extent along it (length units). */
   sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply>>
   /** Test hook: throws an unexpected (non-input) error inside the worker. */
-  crash(): Promise<void>
+  crash(kind?: 'throw' | 'memory'): Promise<void>
   dispose(): void
 }
 

@@ -151,8 +151,7 @@ export async function loadSource(source: AppSource, opts: { quiet?: boolean } = 
   } catch (e) {
     if (gen !== generation) return false
     // A real failure inside the worker: show it, start a fresh worker with the last good model.
-    const message = e instanceof Error ? e.message : String(e)
-    await recover({ message: `The engine failed while loading: ${message}. The previous model is kept.` })
+    await recover({ message: failureMessage(e, 'while loading') })
     return false
   }
 }
@@ -331,20 +330,33 @@ export async function requestSweep(normal: Vec3, count: number, from?: number, t
   }
 }
 
-/** Test hook: make the worker throw an unexpected error; the app must recover. */
-export async function crashEngine(): Promise<void> {
+/** True for the errors a browser raises when it cannot give the memory asked for. */
+function isOutOfMemory(e: unknown): boolean {
+  return e instanceof Error && (e.name === 'RangeError' || /out of memory|allocation failed/i.test(e.message))
+}
+
+/** Words for an unexpected engine failure; running out of memory gets its own advice. */
+function failureMessage(e: unknown, during: string): string {
+  const message = e instanceof Error ? e.message : String(e)
+  return isOutOfMemory(e)
+    ? `The browser ran out of memory ${during} (${message}). The previous model is kept; try a smaller or coarser model, or close other tabs.`
+    : `The engine failed ${during}: ${message}. The previous model is kept.`
+}
+
+/** Test hook: make the worker throw an unexpected error or fail an allocation; the app must recover. */
+export async function crashEngine(kind: 'throw' | 'memory' = 'throw'): Promise<void> {
   const gen = generation
   try {
-    await enqueue((api) => api.crash())
+    await enqueue((api) => api.crash(kind))
   } catch (e) {
-    if (gen === generation) await recover({ message: `The engine failed: ${e instanceof Error ? e.message : String(e)}. The previous model is kept.` })
+    if (gen === generation) await recover({ message: failureMessage(e, 'in the engine') })
   }
 }
 
 declare global {
   interface Window {
     /** Hooks for the end-to-end tests only; nothing in the app calls them. */
-    __tractusTest?: { crashEngine: () => Promise<void> }
+    __tractusTest?: { crashEngine: (kind?: 'throw' | 'memory') => Promise<void> }
   }
 }
 if (typeof window !== 'undefined') window.__tractusTest = { crashEngine }

@@ -108,6 +108,20 @@ describe('opening models', () => {
     await page.close()
   })
 
+  it('recovers from a failed allocation in the worker: out-of-memory card, previous model, next model loads', async () => {
+    const page = await newPage(s)
+    await waitForModel(page)
+    const before = await modelName(page)
+    await page.evaluate(() => window.__tractusTest!.crashEngine('memory'))
+    await page.locator('[data-testid="error-card"]').waitFor()
+    expect(await page.textContent('[data-testid="error-card"]')).toContain('ran out of memory')
+    await waitForModel(page)
+    expect(await modelName(page)).toBe(before)
+    await openBundle(page, bundleFiles(cantileverModel('after running out of memory')))
+    await page.waitForFunction(() => document.querySelector('[data-testid="model-name"]')?.textContent === 'after running out of memory')
+    await page.close()
+  })
+
   it('cancels a long load and keeps the previous model', async () => {
     const page = await newPage(s)
     await waitForModel(page)
