@@ -18,6 +18,7 @@ import { ProbeCard } from './cards/ProbeCard.tsx'
 import { ColourCard } from './cards/ColourCard.tsx'
 import { SnapshotCard } from './cards/SnapshotCard.tsx'
 import { SweepCard } from './cards/SweepCard.tsx'
+import { ModelCard } from './cards/ModelCard.tsx'
 import { SceneView } from './SceneView.tsx'
 
 /** Arrow count (count) used when WebGL reports a software renderer. */
@@ -77,6 +78,7 @@ export function App() {
       <ProgressBar />
       <aside className="cards" aria-label="Cards">
         <ErrorCard />
+        <ModelCard />
         <CutCard />
         <SweepCard />
         <EquilibriumCard />

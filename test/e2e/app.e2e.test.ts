@@ -35,6 +35,8 @@ describe('Tractus in Chromium', () => {
     expect((await pixelStats(page, barShot)).distinct).toBeGreaterThan(50)
     expect(await bar.textContent()).toMatch(/MPa|ksi|–/)
     expect(await page.textContent('[data-testid="caution"]')).toContain('does not certify a design')
+    // The lug demo carries its own caution about lifting devices, shown in the model card.
+    expect(await page.textContent('[data-testid="model-caution"]')).toContain('designed and checked by a qualified engineer')
     await page.close()
 
     // A view for the README: the lug demo (when shipped) cut through its neck, von Mises on the
