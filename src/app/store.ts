@@ -14,15 +14,12 @@ import { create } from 'zustand'
 import type { Vec3 } from '../model/model.ts'
 import type { ModelUnits, UnitSystem } from '../model/units.ts'
 import type { BodyBalance, LoadPatch, SectionResult } from '../mechanics/types.ts'
+import { SURFACE_QUANTITIES } from '../mechanics/surfaceTriangles.ts'
+import type { SurfaceQuantity, SurfaceTriangles } from '../mechanics/surfaceTriangles.ts'
 
-/** Scalar quantities the surface can be coloured by. */
-export type QuantityName =
-  | 'normalTraction' | 'shearTraction' | 'tractionMagnitude'
-  | 'vonMises' | 'principal1' | 'principal3' | 'balanceIndicator'
-
-export const QUANTITY_NAMES: readonly QuantityName[] = [
-  'normalTraction', 'shearTraction', 'tractionMagnitude', 'vonMises', 'principal1', 'principal3', 'balanceIndicator',
-]
+/** Scalar quantities the surface can be coloured by (the worker's buffer builder defines them). */
+export type QuantityName = SurfaceQuantity
+export const QUANTITY_NAMES: readonly QuantityName[] = SURFACE_QUANTITIES
 
 /**
  * Published colour map names (viridis/cividis sequential, ColorBrewer RdBu/PuOr diverging).
@@ -64,14 +61,7 @@ export interface ModelSummary {
  *   (compare with `highlightedPatch` in the shader);
  * - `triangleFace`: Uint32Array(T), boundary-face index of each triangle (picking, patches).
  */
-export interface SurfaceBuffers {
-  readonly positions: Float32Array
-  readonly normals: Float32Array
-  readonly index: Uint32Array
-  readonly scalars: Readonly<Record<QuantityName, Float32Array>>
-  readonly ranges: Readonly<Record<QuantityName, readonly [number, number]>>
-  readonly patch: Float32Array
-  readonly triangleFace: Uint32Array
+export type SurfaceBuffers = Omit<SurfaceTriangles, 'faceVertexStart' | 'bounds'> & {
   /** Optional feature-edge segments, Float32Array(6·S), length units (src/mechanics/featureEdges.ts). */
   readonly edges?: Float32Array
 }
