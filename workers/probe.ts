@@ -10,7 +10,6 @@ import type { Mesh, Vec3 } from '../src/model/model.ts'
 import { shapeDerivatives, shapeValues } from '../src/mechanics/shapeFunctions.ts'
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
 import { elementIdOf } from '../src/mechanics/boundaryFaces.ts'
-import { FACE_SLOTS } from '../src/mechanics/types.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
 import type { ProbeResult } from '../src/app/store.ts'
 import type { ProbeRequest } from './engineTypes.ts'
@@ -150,7 +149,7 @@ export function probeModel(
   let best: Hit | null = null
   const at = (t: number): Vec3 => [o[0] + t * d[0], o[1] + t * d[1], o[2] + t * d[2]]
   for (let f = 0; f < faces.count; f++) {
-    const s = f * FACE_SLOTS, nodes = faces.nodes
+    const s = f * faces.slots, nodes = faces.nodes
     const nc = CORNERS_OF_KIND[faces.kind[f]]
     let t = rayTriangle(o, d, x, nodes[s], nodes[s + 1], nodes[s + 2])
     if (nc === 4) t = Math.min(t, rayTriangle(o, d, x, nodes[s], nodes[s + 2], nodes[s + 3]))

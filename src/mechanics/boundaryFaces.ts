@@ -14,7 +14,7 @@
 import { ELEMENT_TYPES, FACE_CORNER_COUNT, FACE_KIND_CODE, FACE_NODE_COUNT } from '../model/elementTypes.ts'
 import type { FaceKind } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
-import type { Mesh } from '../model/model.ts'
+import type { ElementBlock, Mesh } from '../model/model.ts'
 import { faceRule } from './quadrature.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
@@ -36,6 +36,21 @@ function faceCornerTable(faces: readonly (readonly number[])[], kinds: readonly 
   const t = new Int32Array(4 * faces.length).fill(-1)
   faces.forEach((f, i) => { for (let c = 0; c < FACE_CORNER_COUNT[kinds[i]]; c++) t[4 * i + c] = f[c] })
   return t
+}
+
+/**
+ * Stride of the per-face-node arrays for these blocks: the largest node count of any face kind of
+ * an element type that has elements here (tri3 3, quad4 4, tri6 6, quad8 8). Blocks without
+ * elements add nothing, and a mesh without elements gets 3, the smallest face.
+ */
+export function faceSlotsOf(blocks: readonly ElementBlock[]): number {
+  let slots = FACE_NODE_COUNT.tri3
+  for (const b of blocks) {
+    const topo = ELEMENT_TYPES[b.type]
+    if (b.conn.length === 0) continue
+    for (const kd of topo.faceKinds) slots = Math.max(slots, FACE_NODE_COUNT[kd])
+  }
+  return slots
 }
 
 export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
@@ -155,7 +170,8 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
   // Pass 4: emit boundary faces in element order.
   const F = boundaryCount
   const elem = new Int32Array(F), localFace = new Uint8Array(F), kind = new Uint8Array(F)
-  const nodes = new Int32Array(FACE_SLOTS * F).fill(-1)
+  const S = faceSlotsOf(blocks)
+  const nodes = new Int32Array(S * F).fill(-1)
   let k = 0
   for (const b of blocks) {
     const topo = ELEMENT_TYPES[b.type]
@@ -168,15 +184,15 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
         if (!(isBoundary[g] & (1 << f))) continue
         const face = topo.faces[f]
         elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
-        for (let a = 0; a < face.length; a++) nodes[FACE_SLOTS * k + a] = conn[e * nn + face[a]]
+        for (let a = 0; a < face.length; a++) nodes[S * k + a] = conn[e * nn + face[a]]
         k++
       }
     }
   }
 
   const area = new Float64Array(F), normal = new Float64Array(3 * F), centroid = new Float64Array(3 * F)
-  computeFaceGeometry(mesh.coords, kind, nodes, area, normal, centroid)
-  return { count: F, elem, localFace, kind, nodes, area, normal, centroid }
+  computeFaceGeometry(mesh.coords, kind, nodes, S, area, normal, centroid)
+  return { count: F, slots: S, elem, localFace, kind, nodes, area, normal, centroid }
 }
 
 /** Orders a big bucket (a node shared by very many elements) without the quadratic insertion sort. */
@@ -195,17 +211,18 @@ export function faceQuadratureTables(): FaceTable[] {
 }
 
 /**
- * Area, unit mean outward normal and area centroid of faces given by kind code and node slots,
+ * Area, unit mean outward normal and area centroid of faces given by kind code and node slots
+ * (`slots` per face in `nodes`, at least the node count of the largest face present),
  * with the face quadrature (curved quadratic faces included; flat triangles in closed form).
  * A zero-area face gets a zero normal and its corner mean as centroid.
  */
-export function computeFaceGeometry(coords: Float64Array, kind: Uint8Array, nodes: Int32Array, outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array): void {
+export function computeFaceGeometry(coords: Float64Array, kind: Uint8Array, nodes: Int32Array, slots: number, outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array): void {
   const tables = faceQuadratureTables()
   const F = kind.length
   const xs = new Float64Array(3 * FACE_SLOTS)
   for (let f = 0; f < F; f++) {
     const kc = kind[f]
-    const o = FACE_SLOTS * f
+    const o = slots * f
     if (kc === 0) {
       // Flat triangle: exact in closed form.
       const a = 3 * nodes[o], b = 3 * nodes[o + 1], c = 3 * nodes[o + 2]

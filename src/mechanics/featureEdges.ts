@@ -10,7 +10,7 @@
  * Edges are matched by their corner nodes in an open-addressing table of typed arrays: linear in
  * the number of faces, no per-face allocation.
  */
-import { FACE_SLOTS, type BoundaryFaces } from './types.ts'
+import type { BoundaryFaces } from './types.ts'
 
 export interface FeatureEdges {
   readonly count: number
@@ -27,7 +27,7 @@ export const DEFAULT_CREASE_DEGREES = 30
 
 export function buildFeatureEdges(coords: Float64Array, faces: BoundaryFaces, creaseDegrees = DEFAULT_CREASE_DEGREES): FeatureEdges {
   const F = faces.count
-  const kind = faces.kind, nodes = faces.nodes, normal = faces.normal
+  const kind = faces.kind, nodes = faces.nodes, normal = faces.normal, slots = faces.slots
   let faceEdges = 0
   for (let f = 0; f < F; f++) faceEdges += CORNERS[kind[f]]
   let size = 16
@@ -43,7 +43,7 @@ export function buildFeatureEdges(coords: Float64Array, faces: BoundaryFaces, cr
 
   for (let f = 0; f < F; f++) {
     const nc = CORNERS[kind[f]]
-    const base = f * FACE_SLOTS
+    const base = f * slots
     for (let e = 0; e < nc; e++) {
       const p = nodes[base + e], q = nodes[base + ((e + 1) % nc)]
       const a = p < q ? p : q, b = p < q ? q : p
@@ -76,7 +76,7 @@ export function buildFeatureEdges(coords: Float64Array, faces: BoundaryFaces, cr
   }
   for (let h = 0; h < size; h++) {
     if (keyA[h] === -1 || (uses[h] === 2 && !crease[h])) continue
-    const f = firstFace[h], e = firstLocal[h], k = kind[f], nc = CORNERS[k], base = f * FACE_SLOTS
+    const f = firstFace[h], e = firstLocal[h], k = kind[f], nc = CORNERS[k], base = f * slots
     const p = nodes[base + e], q = nodes[base + ((e + 1) % nc)]
     if (QUADRATIC[k]) {
       const m = nodes[base + nc + e]

@@ -21,7 +21,6 @@
  */
 import type { Vec3 } from '../model/model.ts'
 import type { BalanceFigure, BoundaryFaces, SurfaceTractions } from './types.ts'
-import { FACE_SLOTS } from './types.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 
 export const FB_FORCE = 0
@@ -67,7 +66,7 @@ export function addClippedFace(
 ): void {
   const kind = faces.kind[f]
   const nc = FACE_CORNERS[kind], quadratic = FACE_QUADRATIC[kind]
-  const nodes = faces.nodes, base = FACE_SLOTS * f
+  const nodes = faces.nodes, base = faces.slots * f
   const dist = sc.dist, pos = sc.pos, sig = sc.sig
   // Sutherland–Hodgman against one plane: keep - corners, add a point where an edge crosses
   let n = 0

@@ -19,7 +19,6 @@
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { percentiles } from './balanceAudit.ts'
 import { vonMisesAt } from './invariants.ts'
-import { FACE_SLOTS } from './types.ts'
 import type { BoundaryFaces, LoadPatch, LoadPatches, SurfaceTractions } from './types.ts'
 
 const CORNERS_BY_CODE = [3, 3, 4, 4]
@@ -52,12 +51,12 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
   }
 
   // Edges of loaded faces bucketed by their smaller node (CSR), each with its larger node.
-  const nodes = faces.nodes, kind = faces.kind
+  const nodes = faces.nodes, kind = faces.kind, S = faces.slots
   const start = new Int32Array(N + 1)
   let edgeCount = 0
   for (let f = 0; f < F; f++) {
     if (!loaded[f]) continue
-    const nc = CORNERS_BY_CODE[kind[f]], o = FACE_SLOTS * f
+    const nc = CORNERS_BY_CODE[kind[f]], o = S * f
     for (let c = 0; c < nc; c++) {
       const a = nodes[o + c], b = nodes[o + (c + 1) % nc]
       start[(a < b ? a : b) + 1]++
@@ -69,7 +68,7 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
   const edgeFace = new Int32Array(edgeCount), edgeOther = new Int32Array(edgeCount)
   for (let f = 0; f < F; f++) {
     if (!loaded[f]) continue
-    const nc = CORNERS_BY_CODE[kind[f]], o = FACE_SLOTS * f
+    const nc = CORNERS_BY_CODE[kind[f]], o = S * f
     for (let c = 0; c < nc; c++) {
       const a = nodes[o + c], b = nodes[o + (c + 1) % nc]
       const lo = a < b ? a : b, hi = a < b ? b : a
@@ -99,7 +98,7 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
     const A = faces.area[f]
     let pk = 0
     const nn = NODES_BY_CODE[kind[f]]
-    for (let a = 0; a < nn; a++) { const m = nodeMag[FACE_SLOTS * f + a]; if (m > pk) pk = m }
+    for (let a = 0; a < nn; a++) { const m = nodeMag[S * f + a]; if (m > pk) pk = m }
     if (!loaded[f]) {
       freeArea += A; freeInt += meanMag[f] * A
       if (pk > freePeak) freePeak = pk

@@ -23,7 +23,6 @@ import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { computeSurfaceTractions } from './tractions.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
-import { FACE_SLOTS } from './types.ts'
 
 export interface CutSectionOptions {
   /** Point the moment is taken about (model length); default the section centroid. */
@@ -202,14 +201,14 @@ function freeBodyFaces(
   fb: Float64Array, off: number, coords: Float64Array, stress: Float64Array, faces: BoundaryFaces,
   tractions: SurfaceTractions, d: Float64Array, sc: PolygonScratch, c: ArrayLike<number>, g: ArrayLike<number>,
 ): void {
-  const nodes = faces.nodes, kind = faces.kind, dist = sc.dist
+  const nodes = faces.nodes, kind = faces.kind, dist = sc.dist, S = faces.slots
   const cx = c[0], cy = c[1], cz = c[2], gx = g[0], gy = g[1], gz = g[2]
   const corners = faceCornerCount, whole = addWholeFace, clipped = addClippedFace
   for (let f = 0; f < faces.count; f++) {
     const nc = corners(kind[f])
     let neg = 0
     for (let k = 0; k < nc; k++) {
-      const dk = d[nodes[FACE_SLOTS * f + k]]
+      const dk = d[nodes[S * f + k]]
       dist[k] = dk
       if (dk < 0) neg++
     }

@@ -26,7 +26,6 @@ import {
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { computeSurfaceTractions } from './tractions.ts'
 import type { BoundaryFaces, SectionResult, SurfaceTractions } from './types.ts'
-import { FACE_SLOTS } from './types.ts'
 
 export interface SweepOptions {
   /** Precomputed boundary faces of `mesh`, reused across calls. */
@@ -120,9 +119,9 @@ export function sweepSections(
   const g = N > 0 ? [coords[0], coords[1], coords[2]] : [0, 0, 0]
   const whole = new Float64Array((count + 1) * FB_SIZE) // bucketed whole-face figures
   const fb = new Float64Array(count * FB_SIZE) // clipped-face figures per section
-  const nodes = faces.nodes, kind = faces.kind
+  const nodes = faces.nodes, kind = faces.kind, S = faces.slots
   for (let f = 0; f < faces.count; f++) {
-    const nc = faceCornerCount(kind[f]), fbase = FACE_SLOTS * f
+    const nc = faceCornerCount(kind[f]), fbase = S * f
     let lo = Infinity, hi = -Infinity
     for (let c = 0; c < nc; c++) {
       const i = nodes[fbase + c], v = D[i], t = 2 * T[i] + wide

@@ -24,7 +24,7 @@
  * Linear in the number of faces; the only allocations are the output arrays.
  */
 import type { Vec3 } from '../model/model.ts'
-import { FACE_SLOTS, type BoundaryFaces, type NodalInvariants, type SurfaceTractions } from './types.ts'
+import type { BoundaryFaces, NodalInvariants, SurfaceTractions } from './types.ts'
 
 /** Scalars the surface can be coloured by (names shared with the app store's QuantityName). */
 export type SurfaceQuantity =
@@ -97,7 +97,7 @@ export function buildSurfaceTriangles(
   const balanceIndicator = new Float32Array(V)
   const patch = new Float32Array(V)
 
-  const nodes = faces.nodes, elem = faces.elem
+  const nodes = faces.nodes, elem = faces.elem, S = faces.slots
   const nodeNormal = tractions.nodeNormal, nn = tractions.nodeNormalTraction
   const ns = tractions.nodeShear, nm = tractions.nodeMagnitude
   const vm = invariants.vonMises, pr = invariants.principal
@@ -111,7 +111,7 @@ export function buildSurfaceTriangles(
     const ind = indicator ? indicator[elem[f]] : 0
     const label = faceLabel ? faceLabel[f] : -1
     for (let a = 0; a < nv; a++) {
-      const slot = f * FACE_SLOTS + a
+      const slot = f * S + a
       const node = nodes[slot]
       const v = v0 + a
       const x = coords[3 * node], y = coords[3 * node + 1], z = coords[3 * node + 2]

@@ -15,7 +15,6 @@ import { FACE_KIND_BY_CODE } from '../model/elementTypes.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
-import { FACE_SLOTS } from './types.ts'
 import type { BoundaryFaces, SurfaceTractions } from './types.ts'
 
 /** t = σn for one stress 6-vector (xx, yy, zz, xy, yz, xz) and a vector n; writes out3. */
@@ -38,7 +37,7 @@ export function computeSurfaceTractions(mesh: Mesh, stress: Float64Array, faces:
   const F = faces.count
   const coords = mesh.coords
   const kind = faces.kind, nodes = faces.nodes
-  const S = FACE_SLOTS
+  const S = faces.slots
   const nodeNormal = new Float64Array(3 * S * F).fill(NaN)
   const nodeTraction = new Float64Array(3 * S * F).fill(NaN)
   const nodeNormalTraction = new Float64Array(S * F).fill(NaN)

@@ -5,13 +5,20 @@
  */
 import type { Vec3 } from '../model/model.ts'
 
-/** Slots per boundary face in per-face-node arrays; unused slots of smaller faces hold -1 / NaN. */
+/**
+ * The largest stride of per-face-node arrays (a quad8 face): an upper bound for `BoundaryFaces.slots`,
+ * e.g. for scratch buffers sized once for any face.
+ */
 export const FACE_SLOTS = 8
 
 /**
  * Boundary faces: faces used by exactly one element, oriented outward.
  * - `elem`: global element index; `localFace`: face number in the element's topology.
- * - `kind`: FACE_KIND_CODE of the face; `nodes`: Int32Array(8·F), the face's node indices,
+ * - `slots`: stride of every per-face-node array (`nodes` here and the node arrays of
+ *   SurfaceTractions): the largest node count of the face kinds the mesh's element types have
+ *   (tri3 3, quad4 4, tri6 6, quad8 8; 3 for a mesh without elements). A fixed stride of 8 would
+ *   waste 5 of 8 slots on an all-tet4 mesh.
+ * - `kind`: FACE_KIND_CODE of the face; `nodes`: Int32Array(slots·F), the face's node indices,
  *   corners first then mid-edge nodes, counter-clockwise seen from outside, padded with -1.
  * - `area`: face area (quadrature over the curved face for quadratic faces).
  * - `normal`: Float64Array(3·F), unit area-weighted mean outward normal.
@@ -19,6 +26,7 @@ export const FACE_SLOTS = 8
  */
 export interface BoundaryFaces {
   readonly count: number
+  readonly slots: number
   readonly elem: Int32Array
   readonly localFace: Uint8Array
   readonly kind: Uint8Array
@@ -30,10 +38,10 @@ export interface BoundaryFaces {
 
 /**
  * Tractions on the boundary faces, t = σn (n outward unit normal), tension positive.
- * Per face node slot (8 per face, NaN in unused slots):
- * - `nodeNormal` (3·8·F): unit outward normal at that node of the face (curved faces differ per node);
- * - `nodeTraction` (3·8·F): t at that node; `nodeNormalTraction` (8·F): t_n = n·t;
- *   `nodeShear` (8·F): |t - t_n n|; `nodeMagnitude` (8·F): |t|.
+ * Per face node slot (`faces.slots` per face, the stride of `faces.nodes`; NaN in unused slots):
+ * - `nodeNormal` (3·slots·F): unit outward normal at that node of the face (curved faces differ per node);
+ * - `nodeTraction` (3·slots·F): t at that node; `nodeNormalTraction` (slots·F): t_n = n·t;
+ *   `nodeShear` (slots·F): |t - t_n n|; `nodeMagnitude` (slots·F): |t|.
  * Per face, integrated with the face's quadrature rule:
  * - `force` (3·F): ∫ t dA; `moment` (3·F): ∫ x × t dA about the origin;
  * - `meanNormal` (F): ∫ t_n dA / A; `meanShear` (F): ∫ |τ| dA / A; `meanMagnitude` (F): ∫ |t| dA / A.

@@ -40,13 +40,13 @@ function holeTraction(type: ElementTypeName, ntheta: number) {
     const nn = FACE_NODES_BY_CODE[faces.kind[f]]
     let onHole = true
     for (let k = 0; k < nn; k++) {
-      const p = faces.nodes[8 * f + k]
+      const p = faces.nodes[faces.slots * f + k]
       if (Math.abs(Math.hypot(mesh.coords[3 * p], mesh.coords[3 * p + 1]) - a) > 1e-9) onHole = false
     }
     if (!onHole) continue
     holeFaces++
     hole.push(f)
-    for (let k = 0; k < nn; k++) peak = Math.max(peak, tractions.nodeMagnitude[8 * f + k] / S)
+    for (let k = 0; k < nn; k++) peak = Math.max(peak, tractions.nodeMagnitude[faces.slots * f + k] / S)
   }
   return { mesh, stress, run, peak, holeFaces, hole }
 }

@@ -33,15 +33,15 @@ function readFaces(type: ElementTypeName, ntheta: number) {
     const nn = FACE_NODES_BY_CODE[faces.kind[f]]
     let onInner = true, onOuter = true
     for (let k = 0; k < nn; k++) {
-      const r = radius(faces.nodes[8 * f + k])
+      const r = radius(faces.nodes[faces.slots * f + k])
       if (Math.abs(r - a) > 1e-9) onInner = false
       if (Math.abs(r - b) > 1e-9) onOuter = false
     }
     if (!onInner && !onOuter) continue
     const p = onInner ? pi : po
     for (let k = 0; k < nn; k++) {
-      const err = Math.abs(tractions.nodeNormalTraction[8 * f + k] + p) / p
-      if (onInner) { out.inner = Math.max(out.inner, err); out.innerShear = Math.max(out.innerShear, tractions.nodeShear[8 * f + k] / pi) }
+      const err = Math.abs(tractions.nodeNormalTraction[faces.slots * f + k] + p) / p
+      if (onInner) { out.inner = Math.max(out.inner, err); out.innerShear = Math.max(out.innerShear, tractions.nodeShear[faces.slots * f + k] / pi) }
       else out.outer = Math.max(out.outer, err)
     }
     if (onInner) { out.innerFaces++; for (let c = 0; c < 3; c++) out.force[c] += tractions.force[3 * f + c] } else out.outerFaces++

@@ -48,7 +48,7 @@ describe(`uniform stress on every element type (rotation seed ${SEED})`, () => {
         for (let f = 0; f < faces.count; f++) {
           const nn = FACE_NODES_BY_CODE[faces.kind[f]]
           for (let a = 0; a < nn; a++) {
-            const k = 8 * f + a
+            const k = faces.slots * f + a
             const n = [tractions.nodeNormal[3 * k], tractions.nodeNormal[3 * k + 1], tractions.nodeNormal[3 * k + 2]]
             const t = [s[0] * n[0] + s[3] * n[1] + s[5] * n[2], s[3] * n[0] + s[1] * n[1] + s[4] * n[2], s[5] * n[0] + s[4] * n[1] + s[2] * n[2]]
             for (let c = 0; c < 3; c++) tErr = Math.max(tErr, Math.abs(tractions.nodeTraction[3 * k + c] - t[c]))

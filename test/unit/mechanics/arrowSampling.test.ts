@@ -11,7 +11,7 @@ function faceSet(areas: number[], traction: (f: number) => Vec3): { faces: Bound
   areas.forEach((a, f) => { const t = traction(f); force[3 * f] = t[0] * a; force[3 * f + 1] = t[1] * a; force[3 * f + 2] = t[2] * a })
   return {
     faces: {
-      count: F, elem: new Int32Array(F), localFace: new Uint8Array(F), kind: new Uint8Array(F), nodes: new Int32Array(8 * F),
+      count: F, slots: 3, elem: new Int32Array(F), localFace: new Uint8Array(F), kind: new Uint8Array(F), nodes: new Int32Array(3 * F),
       area: new Float64Array(areas), normal: new Float64Array(areas.flatMap(() => [0, 0, 1])),
       centroid: new Float64Array(areas.flatMap((_, f) => [f, 0, 0])),
     },

@@ -4,6 +4,8 @@ import { createMesh } from '../../../src/model/createMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 import { isInputError } from '../../../src/model/errors.ts'
 import { extractBoundaryFaces, extractBoundaryFacesInParts } from '../../../src/mechanics/boundaryFaces.ts'
+import { computeSurfaceTractions } from '../../../src/mechanics/tractions.ts'
+import { mergeMeshes } from '../../helpers/sectionMeshes.ts'
 
 // Geometry of a box (elementary): surface area 2(ab + bc + ca); the closed-surface identity
 // ∮ n dA = 0 (divergence theorem, any vector-calculus text); surface centroid of a box = its centre.
@@ -39,7 +41,7 @@ describe('extractBoundaryFaces', () => {
       // Slots beyond the face's node count are padded with -1.
       for (let i = 0; i < f.count; i++) {
         const used = [3, 6, 4, 8][f.kind[i]]
-        for (let a = used; a < 8; a++) expect(f.nodes[8 * i + a]).toBe(-1)
+        for (let a = used; a < f.slots; a++) expect(f.nodes[f.slots * i + a]).toBe(-1)
       }
     })
   }
@@ -114,5 +116,40 @@ describe('extractBoundaryFaces', () => {
       expect(Array.from(f.nodes)).toEqual(Array.from(one.nodes))
     }
     expect(() => extractBoundaryFacesInParts(createMesh(hex.coords, [{ type: 'hex8', conn: new Int32Array([...hex.blocks[0].conn.subarray(0, 8), ...hex.blocks[0].conn.subarray(0, 16)]) }]), 3)).toThrow(/shared by 3 elements/)
+  })
+})
+
+// Node counts of the face kinds (tri3 3, quad4 4, tri6 6, quad8 8): common practice for these
+// Lagrange and serendipity faces. The stride is the largest face kind the mesh's element types have.
+describe('per-face-node stride (slots)', () => {
+  const spec = { nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }
+  const cases = [['tet4', 3], ['hex8', 4], ['tet10', 6], ['hex20', 8], ['wedge6', 4]] as const
+  it.each(cases)('a %s box has %i slots per face, and its arrays use that stride', (type, slots) => {
+    const mesh = boxMesh(spec, type)
+    const f = extractBoundaryFaces(mesh)
+    expect(f.slots).toBe(slots)
+    expect(f.nodes.length).toBe(slots * f.count)
+    const t = computeSurfaceTractions(mesh, new Float64Array(6 * mesh.nodeCount), f)
+    expect(t.nodeMagnitude.length).toBe(slots * f.count)
+    expect(t.nodeNormal.length).toBe(3 * slots * f.count)
+  })
+
+  it('a mixed tet4 + hex20 mesh takes the largest face (quad8): 8 slots, tri3 faces padded with -1', () => {
+    const mesh = mergeMeshes([boxMesh(spec, 'tet4'), boxMesh({ ...spec, z0: 3 }, 'hex20')])
+    const f = extractBoundaryFaces(mesh)
+    expect(f.slots).toBe(8)
+    let tri = 0
+    for (let i = 0; i < f.count; i++) {
+      if (f.kind[i] !== 0) continue
+      tri++
+      for (let a = 3; a < 8; a++) expect(f.nodes[8 * i + a]).toBe(-1)
+    }
+    expect(tri).toBe(2 * 2 * (2 * 1 + 1 * 1 + 2 * 1))
+  })
+
+  it('a mesh without elements has 3 slots and no faces', () => {
+    const f = extractBoundaryFaces(createMesh(new Float64Array(3), []))
+    expect(f.slots).toBe(3)
+    expect(f.count).toBe(0)
   })
 })

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest'
 import { buildSurfaceTriangles, fillVertexPatch, finiteRange, SURFACE_QUANTITIES } from '../../../src/mechanics/surfaceTriangles.ts'
-import { FACE_SLOTS } from '../../../src/mechanics/types.ts'
 import type { BoundaryFaces, NodalInvariants, SurfaceTractions } from '../../../src/mechanics/types.ts'
 import { FACE_KIND_CODE, FACE_NODE_COUNT } from '../../../src/model/elementTypes.ts'
 import type { FaceKind } from '../../../src/model/elementTypes.ts'
@@ -30,10 +29,13 @@ function fixture(): { coords: Float64Array; faces: BoundaryFaces; tractions: Sur
   })
   const F = kinds.length, N = pts.length
   const coords = new Float64Array(pts.flat())
-  const nodes = new Int32Array(FACE_SLOTS * F).fill(-1)
-  faceNodes.forEach((l, f) => l.forEach((n, a) => { nodes[FACE_SLOTS * f + a] = n }))
+  // Stride of the per-face-node arrays: the largest face present (quad8, 8 nodes).
+  const slots = Math.max(...kinds.map((k) => FACE_NODE_COUNT[k]))
+  const nodes = new Int32Array(slots * F).fill(-1)
+  faceNodes.forEach((l, f) => l.forEach((n, a) => { nodes[slots * f + a] = n }))
   const faces: BoundaryFaces = {
     count: F,
+    slots,
     elem: new Int32Array([5, 6, 7, 8]),
     localFace: new Uint8Array(F),
     kind: new Uint8Array(kinds.map((k) => FACE_KIND_CODE[k])),
@@ -42,7 +44,7 @@ function fixture(): { coords: Float64Array; faces: BoundaryFaces; tractions: Sur
     normal: new Float64Array(kinds.flatMap(() => [0, 0, 1])),
     centroid: new Float64Array(3 * F),
   }
-  const S = FACE_SLOTS * F
+  const S = slots * F
   const slotVal = (off: number) => Float64Array.from({ length: S }, (_, i) => (nodes[i] < 0 ? NaN : off + i))
   const tractions: SurfaceTractions = {
     nodeNormal: Float64Array.from({ length: 3 * S }, (_, i) => (i % 3 === 2 ? 1 : 0)),
@@ -99,7 +101,7 @@ describe('buildSurfaceTriangles', () => {
     for (let f = 0; f < faces.count; f++) {
       const nv = FACE_NODE_COUNT[(['tri3', 'tri6', 'quad4', 'quad8'] as FaceKind[])[faces.kind[f]]]
       for (let a = 0; a < nv; a++) {
-        const v = s.faceVertexStart[f] + a, slot = FACE_SLOTS * f + a, node = faces.nodes[slot]
+        const v = s.faceVertexStart[f] + a, slot = faces.slots * f + a, node = faces.nodes[slot]
         expect(s.scalars.normalTraction[v]).toBe(Math.fround(tractions.nodeNormalTraction[slot]))
         expect(s.scalars.shearTraction[v]).toBe(Math.fround(tractions.nodeShear[slot]))
         expect(s.scalars.tractionMagnitude[v]).toBe(Math.fround(tractions.nodeMagnitude[slot]))
