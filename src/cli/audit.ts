@@ -24,7 +24,7 @@ export function elementId(mesh: Mesh, g: number): number {
 }
 
 /** Indices of the `k` largest values, largest first (one pass, k small). */
-export function topIndices(values: Float64Array, k: number): number[] {
+export function topIndices(values: ArrayLike<number>, k: number): number[] {
   const best: number[] = []
   for (let i = 0; i < values.length; i++) {
     const v = values[i]

@@ -18,9 +18,24 @@ import { faceQuadratureTables } from './boundaryFaces.ts'
 import { elementVolumesAndCentroids } from './elementVolume.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } from './types.ts'
 
-export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): ElementBalance {
+/** Fresh output arrays for E elements in the chosen storage precision (see ElementBalance). */
+export function allocateElementBalance(E: number, precision: 'double' | 'single' = 'double'): ElementBalance {
+  const A = precision === 'single' ? Float32Array : Float64Array
+  return { residual: new A(3 * E), gross: new A(E), indicator: new A(E) }
+}
+
+/**
+ * Fills `out` (default: fresh double-precision arrays) for every element of `mesh`; sums always
+ * run in double precision. To split the work, run it on meshSlice(mesh, from, to) with `out`
+ * holding subarray views [from, to) of the whole output.
+ */
+export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out?: ElementBalance): ElementBalance {
   const E = mesh.elementCount
-  const residual = new Float64Array(3 * E), gross = new Float64Array(E), indicator = new Float64Array(E)
+  const result = out ?? allocateElementBalance(E)
+  if (result.gross.length < E || result.indicator.length < E || result.residual.length < 3 * E) {
+    throw new RangeError(`element balance output holds ${result.gross.length} elements, the mesh has ${E}`)
+  }
+  const { residual, gross, indicator } = result
   // tet4 blocks compute their volume inline; the others use the volume quadrature (an array only
   // when there are such blocks).
   const hasOther = mesh.blocks.some((b) => b.type !== 'tet4')
@@ -119,7 +134,7 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
       store(off + e, volume[off + e], rx, ry, rz, g)
     }
   }
-  return { residual, gross, indicator }
+  return result
 
   function store(ge: number, v: number, rx: number, ry: number, rz: number, faceSum: number): void {
     rx += bx * v; ry += by * v; rz += bz * v
