@@ -70,7 +70,7 @@ export function buildSurfaceTriangles(
   faces: BoundaryFaces,
   tractions: SurfaceTractions,
   invariants: NodalInvariants,
-  indicator: Float64Array | null = null,
+  indicator: ArrayLike<number> | null = null,
   faceLabel: Int32Array | null = null,
 ): SurfaceTriangles {
   const F = faces.count
