@@ -12,7 +12,7 @@ import { block, num, qty, table, vecJson, vecQty } from './format.ts'
 import type { Mesh } from '../model/model.ts'
 import { extractBoundaryFaces } from '../mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../mechanics/tractions.ts'
-import { computeBodyBalance, computeElementBalance, percentiles } from '../mechanics/balanceAudit.ts'
+import { allocateElementBalance, computeBodyBalance, computeElementBalance, percentiles } from '../mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../mechanics/loadPatches.ts'
 
 /** The user's element id of global element index `g`. */
@@ -66,7 +66,8 @@ export const auditCommand: Command = {
     const faces = extractBoundaryFaces(mesh)
     const tractions = computeSurfaceTractions(mesh, stress, faces)
     const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-    const elements = computeElementBalance(mesh, stress, bodyForce)
+    // Single-precision storage: the indicator is read and ranked, and memory stays near the model's size.
+    const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
     const [p50, p95, pmax] = Array.from(percentiles(elements.indicator, [50, 95, 100]))
     const worst = topIndices(elements.indicator, worstCount).map((g) => ({ id: elementId(mesh, g), indicator: elements.indicator[g] }))
     const lp = findLoadPatches(mesh, stress, faces, tractions, threshold === undefined ? undefined : { threshold })

@@ -17,7 +17,7 @@ import { readFileSync, writeFileSync } from 'node:fs'
 import { readNative, writeNative } from '../../src/io/index.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import { computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
+import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
@@ -48,7 +48,7 @@ if (arg === '--write') {
   const { mesh, stress, bodyForce } = model
   const faces = extractBoundaryFaces(mesh)
   const tractions = computeSurfaceTractions(mesh, stress, faces)
-  const elements = computeElementBalance(mesh, stress, bodyForce)
+  const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
   const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
   const cut = cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions })
   // Keep every result reachable until the measurement, as a user session would.

@@ -19,7 +19,7 @@ import type { Model } from '../../src/model/model.ts'
 import { readCsvBundle, readNative, writeCsvBundle, writeNative } from '../../src/io/index.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import { computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
+import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { syntheticModel, cellsPerSide } from './syntheticModel.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
@@ -133,7 +133,7 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   }
 
   log(`${label}: balance audit`)
-  const audit = measure(() => ({ elements: computeElementBalance(mesh, stress, bodyForce), body: computeBodyBalance(mesh, faces, tractions, bodyForce) }), { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
+  const audit = measure(() => ({ elements: computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(E, 'single')), body: computeBodyBalance(mesh, faces, tractions, bodyForce) }), { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
   const streamCCS = measure(() => streamConnCoordsStress(mesh, stress), { runs: runsFor(E, 7) })
   checks.bodyBalanceRelative = audit.value.body.relative
   let maxIndicator = 0
