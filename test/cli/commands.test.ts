@@ -15,7 +15,7 @@ import type { Model, Vec3 } from '../../src/model/model.ts'
 import { LBF_TO_N } from '../../src/model/units.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import { computeBodyBalance, computeElementBalance, percentiles } from '../../src/mechanics/balanceAudit.ts'
+import { allocateElementBalance, computeBodyBalance, computeElementBalance, percentiles } from '../../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
@@ -132,7 +132,7 @@ describe('tractus audit', () => {
     const faces = extractBoundaryFaces(mesh)
     const tractions = computeSurfaceTractions(mesh, stress, faces)
     const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-    const elements = computeElementBalance(mesh, stress, bodyForce)
+    const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
     const [p50, p95, pmax] = percentiles(elements.indicator, [50, 95, 100])
     const lp = findLoadPatches(mesh, stress, faces, tractions)
     closeVec(j.balance.force, body.force)
