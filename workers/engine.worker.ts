@@ -11,7 +11,7 @@ import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { extractBoundaryFaces } from '../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../src/mechanics/tractions.ts'
 import { computeNodalInvariants } from '../src/mechanics/invariants.ts'
-import { computeBodyBalance, computeElementBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
+import { computeBodyBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { sweepAlong, sweepTransfer } from './sweep.ts'
@@ -25,6 +25,10 @@ import type { AppError, ArrowBuffers, ModelSummary, SectionBuffers, SurfaceBuffe
 import type { ArrowRequest, CutReply, EngineApi, LoadedModel, ModelSource, Outcome, ProbeRequest, ProgressCallback } from './engineTypes.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { probeModel } from './probe.ts'
+import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
+import type { PoolEndpoint } from './kernelPool.ts'
+import type { PoolWorkerApi } from './kernelPool.worker.ts'
+import type { ComputeOptions } from '../src/app/computeOptions.ts'
 
 interface Loaded {
   model: Model
@@ -34,6 +38,54 @@ interface Loaded {
 }
 
 let current: Loaded | null = null
+let computeOptions: ComputeOptions = {}
+let pool: KernelPool | null = null
+
+/** Most pool workers we start, whatever the core count: beyond this the hand-over costs more than it saves. */
+const MAX_POOL = 4
+
+/** A pool worker behind comlink; a script that fails to load or a worker that dies rejects its call. */
+function spawnPoolWorker(): PoolEndpoint {
+  const w = new Worker(new URL('./kernelPool.worker.ts', import.meta.url), { type: 'module', name: 'tractus-pool' })
+  const remote = Comlink.wrap<PoolWorkerApi>(w)
+  const failure = new Promise<never>((_, reject) => {
+    w.addEventListener('error', (ev) => { ev.preventDefault(); reject(new Error(ev.message || 'the pool worker stopped')) })
+    w.addEventListener('messageerror', () => reject(new Error('a message to the pool worker could not be read')))
+  })
+  failure.catch(() => undefined)
+  return {
+    balance: (part, out) => Promise.race([remote.balance(part, out), failure]),
+    terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
+  }
+}
+
+/** No pool workers: the kernels run here. */
+const ONE_THREAD = new KernelPool(0, spawnPoolWorker, 'copy')
+
+/** The pool, started the first time a model is big enough to need it. */
+function kernelPool(elements: number): KernelPool | null {
+  if (pool || elements < POOL_MIN_ELEMENTS || typeof Worker === 'undefined') return pool
+  // One thread per core in all: the engine's own and cores - 1 pool workers.
+  const cores = Math.min(MAX_POOL + 1, Math.max(1, self.navigator?.hardwareConcurrency ?? 1))
+  const size = (computeOptions.threads ?? cores) - 1
+  const shared = self.crossOriginIsolated === true && typeof SharedArrayBuffer !== 'undefined' && computeOptions.sharing !== 'copy'
+  pool = new KernelPool(Math.max(0, size), spawnPoolWorker, shared ? 'shared' : 'copy')
+  return pool
+}
+
+/** Wall time of each load stage (ms), in order, for the summary. */
+function stageClock(): { mark(stage: string): void; stages: [string, number][] } {
+  const stages: [string, number][] = []
+  let stage = '', t = performance.now()
+  return {
+    stages,
+    mark(next: string) {
+      const now = performance.now()
+      if (stage) stages.push([stage, Math.round((now - t) * 10) / 10])
+      stage = next; t = now
+    },
+  }
+}
 
 /** Progress at most every ~10 ms, so a fast job does not flood the main thread with messages. */
 function throttle(cb: ProgressCallback | undefined): (stage: string, fraction: number) => void {
@@ -96,38 +148,57 @@ function sourceLabel(source: ModelSource): string {
 }
 
 const api: EngineApi = {
+  configure(options: ComputeOptions) {
+    computeOptions = options
+  },
+
   async load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>> {
     const report = throttle(onProgress)
+    const clock = stageClock()
     try {
       report(source.kind === 'files' ? 'Reading files' : 'Generating model', 0)
       await yieldTurn()
+      clock.mark(source.kind === 'files' ? 'read' : 'generate')
       const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data }))) : syntheticModel(source.spec)
       const mesh = model.mesh
+      // The element balance needs no faces: on a pool it runs beside the next three stages.
+      const p = kernelPool(mesh.elementCount)
+      const balanceJob = p && p.size > 0 ? p.elementBalance(mesh, model.stress, model.bodyForce) : null
+      balanceJob?.catch(() => undefined)
       report('Boundary faces', 0.3); await yieldTurn()
+      clock.mark('boundary')
       const faces = extractBoundaryFaces(mesh)
       report('Surface tractions', 0.45); await yieldTurn()
+      clock.mark('tractions')
       const tractions = computeSurfaceTractions(mesh, model.stress, faces)
       report('Principal stresses', 0.55); await yieldTurn()
+      clock.mark('invariants')
       const invariants = computeNodalInvariants(model.stress)
       report('Element balance', 0.65); await yieldTurn()
-      const balance = computeElementBalance(mesh, model.stress, model.bodyForce)
+      clock.mark('elementBalance')
+      const { balance, run } = await (balanceJob ?? ONE_THREAD.elementBalance(mesh, model.stress, model.bodyForce))
       report('Body balance', 0.8); await yieldTurn()
+      clock.mark('bodyBalance')
       const body = computeBodyBalance(mesh, faces, tractions, model.bodyForce)
       report('Load patches', 0.85); await yieldTurn()
+      clock.mark('loadPatches')
       const patches = findLoadPatches(mesh, model.stress, faces, tractions)
       const pct = percentiles(balance.indicator, [50, 95, 100])
       report('Surface buffers', 0.95); await yieldTurn()
+      clock.mark('surfaceBuffers')
       const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
       const edges = buildFeatureEdges(mesh.coords, faces).segments
       const surface: SurfaceBuffers = {
         positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
         ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges,
       }
+      clock.mark('')
       const summary: ModelSummary = {
         name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
         nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
         elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
         warnings: [...model.warnings], source: sourceLabel(source),
+        compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
       }
       // Only now, with everything computed, does the new model replace the old one.
       current = { model, faces, tractions, polygons: null }
@@ -207,6 +278,7 @@ const api: EngineApi = {
 
   dispose() {
     current = null
+    pool?.dispose()
     self.close()
   },
 }

@@ -4,6 +4,7 @@
  * Units: model units throughout (see src/app/store.ts).
  */
 import type { Vec3 } from '../src/model/model.ts'
+import type { ComputeOptions } from '../src/app/computeOptions.ts'
 import type { SectionPlane, SectionResult } from '../src/mechanics/types.ts'
 import type {
   AppError, ArrowBuffers, ArrowMode, AuditSummary, ModelSummary, ProbeRay, ProbeResult, Progress,
@@ -79,6 +80,8 @@ export interface SweepReply {
 }
 
 export interface EngineApi {
+  /** Sets how the engine may use the machine (see src/app/computeOptions.ts); before any job. */
+  configure(options: ComputeOptions): void
   load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>>
   surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
   cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>>

@@ -4,6 +4,7 @@
  * then reloads the last good model so the user keeps what they had.
  */
 import * as Comlink from 'comlink'
+import { computeOptionsFromHash } from './computeOptions.ts'
 import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { CutReply, EngineApi, EngineFile, LoadedModel, ModelSource, Outcome, SweepReply, SyntheticSpec, Vec3 } from '../../workers/engineTypes.ts'
@@ -33,6 +34,7 @@ export function onModelLoaded(cb: ((source: AppSource) => void) | null): void { 
 function spawn(): Handle {
   const worker = new Worker(new URL('../../workers/engine.worker.ts', import.meta.url), { type: 'module', name: 'tractus-engine' })
   const h: Handle = { worker, api: Comlink.wrap<EngineApi>(worker) }
+  void h.api.configure(computeOptionsFromHash(location.hash)).catch(() => undefined)
   worker.addEventListener('error', (ev) => {
     ev.preventDefault()
     if (handle === h) void recover({ message: `The engine stopped: ${ev.message || 'an unexpected error'}. The previous model is being reloaded.` })

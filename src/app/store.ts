@@ -47,6 +47,18 @@ export interface ModelSummary {
   readonly warnings: readonly string[]
   /** Where it came from: 'demo:<id>', 'synthetic:<spec>', or 'files:<names>'. */
   readonly source: string
+  /**
+   * How the load was computed: wall time per stage in the engine (ms, in order; a stage the pool
+   * ran beside the others shows only the wait for it), the pool workers the element-parallel
+   * kernels ran on (0: the engine alone) with the hand-over used ('shared' memory, 'copy', or
+   * 'none'), plus why the pool stood down if it did.
+   */
+  readonly compute?: {
+    readonly stagesMs: readonly (readonly [string, number])[]
+    readonly workers: number
+    readonly sharing: 'shared' | 'copy' | 'none'
+    readonly fallback?: string
+  }
 }
 
 /**

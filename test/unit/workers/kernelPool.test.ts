@@ -1,0 +1,83 @@
+/**
+ * The kernel pool's split and hand-over, with in-process endpoints standing in for the browser's
+ * workers (the browser path is measured end to end in test/e2e/large.e2e.test.ts). Reference: the
+ * single-threaded kernel in the same storage precision, bit for bit.
+ */
+import { describe, expect, it } from 'vitest'
+import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { allocateElementBalance, computeElementBalance } from '../../../src/mechanics/balanceAudit.ts'
+import { KernelPool, POOL_MIN_ELEMENTS } from '../../../workers/kernelPool.ts'
+import type { PoolEndpoint, Sharing } from '../../../workers/kernelPool.ts'
+import { balancePart } from '../../../workers/kernelPoolTask.ts'
+import { stressField } from '../../helpers/mappedMeshes.ts'
+
+/** An endpoint that runs the pool worker's task in this thread; structuredClone mimics postMessage. */
+function localEndpoint(log: { shared: number; calls: number }): PoolEndpoint {
+  return {
+    async balance(part, out) {
+      log.calls++
+      if (part.coords.buffer instanceof SharedArrayBuffer) log.shared++
+      const copy = structuredClone(part)
+      const r = balancePart(copy, out)
+      return out ? null : r
+    },
+    terminate() { /* nothing to stop */ },
+  }
+}
+
+/** Same bytes? (A byte comparison: deep equality over 10^5 numbers is slow.) */
+function sameBits(a: ArrayBufferView, b: ArrayBufferView): boolean {
+  return Buffer.from(a.buffer, a.byteOffset, a.byteLength).equals(Buffer.from(b.buffer, b.byteOffset, b.byteLength))
+}
+
+const mesh = boxMesh({ nx: 30, ny: 20, nz: 15, lx: 3, ly: 2, lz: 1.5 }, 'tet4') // 54 000 tet4
+const stress = stressField(mesh, (x, y, z) => [x * y, z * z, x, y * z, -x * z, 2 * y])
+const b: [number, number, number] = [0, 0, -9.81]
+const reference = computeElementBalance(mesh, stress, b, allocateElementBalance(mesh.elementCount, 'single'))
+
+describe('kernel pool: element balance', () => {
+  it('the test mesh is above the size where the pool takes over', () => {
+    expect(mesh.elementCount).toBeGreaterThanOrEqual(POOL_MIN_ELEMENTS)
+  })
+
+  for (const sharing of ['shared', 'copy'] as Sharing[]) {
+    for (const size of [1, 2, 3, 4]) {
+      it(`${sharing} hand-over over ${size} workers equals one thread bit for bit`, async () => {
+        const log = { shared: 0, calls: 0 }
+        const pool = new KernelPool(size, () => localEndpoint(log), sharing)
+        const { balance, run } = await pool.elementBalance(mesh, stress, b)
+        expect(run).toEqual({ workers: size, sharing })
+        expect(log.calls).toBe(size)
+        expect(log.shared).toBe(sharing === 'shared' ? size : 0)
+        expect(balance.indicator).toBeInstanceOf(Float32Array)
+        expect(sameBits(balance.residual, reference.residual)).toBe(true)
+        expect(sameBits(balance.gross, reference.gross)).toBe(true)
+        expect(sameBits(balance.indicator, reference.indicator)).toBe(true)
+        pool.dispose()
+      })
+    }
+  }
+
+  it('a small model runs on one thread without calling the pool', async () => {
+    const log = { shared: 0, calls: 0 }
+    const small = boxMesh({ nx: 4, ny: 3, nz: 2, lx: 1, ly: 1, lz: 1 }, 'hex8')
+    const pool = new KernelPool(2, () => localEndpoint(log), 'shared')
+    const { run } = await pool.elementBalance(small, stressField(small, () => [1, 0, 0, 0, 0, 0]), [0, 0, 0])
+    expect(run).toEqual({ workers: 0, sharing: 'none' })
+    expect(log.calls).toBe(0)
+  })
+
+  it('a failing worker makes the pool stand down; the result still comes, from one thread', async () => {
+    let terminated = 0
+    const failing: PoolEndpoint = { balance: () => Promise.reject(new Error('worker script did not load')), terminate: () => { terminated++ } }
+    const pool = new KernelPool(2, () => failing, 'copy')
+    const first = await pool.elementBalance(mesh, stress, b)
+    expect(first.run.workers).toBe(0)
+    expect(first.run.fallback).toMatch(/worker script did not load/)
+    expect(sameBits(first.balance.indicator, reference.indicator)).toBe(true)
+    expect(terminated).toBe(2)
+    expect(pool.size).toBe(0)
+    const again = await pool.elementBalance(mesh, stress, b)
+    expect(again.run.fallback).toMatch(/worker script did not load/)
+  })
+})

@@ -1,0 +1,30 @@
+/**
+ * What one pool worker computes: the element balance of one contiguous range of elements. The
+ * part carries the whole node arrays (shared views, or copies) and the range's blocks; element 0
+ * of the part is global element `from` of the model.
+ */
+import type { ElementBlock, Mesh, Vec3 } from '../src/model/model.ts'
+import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
+import type { ElementBalance } from '../src/mechanics/types.ts'
+
+export interface BalancePart {
+  readonly coords: Float64Array
+  readonly nodeIds: Int32Array
+  readonly stress: Float64Array
+  readonly blocks: readonly ElementBlock[]
+  readonly elementCount: number
+  readonly bodyForce: Vec3
+}
+
+/** Single-precision output views of one part: written in place when they live in shared memory. */
+export type BalanceOut = ElementBalance
+
+export function partMesh(part: BalancePart): Mesh {
+  return { coords: part.coords, nodeIds: part.nodeIds, blocks: part.blocks, nodeCount: part.coords.length / 3, elementCount: part.elementCount }
+}
+
+/** Runs the audit on the part; writes into `out` when given, else returns fresh single-precision arrays. */
+export function balancePart(part: BalancePart, out?: BalanceOut): ElementBalance {
+  const target = out ?? allocateElementBalance(part.elementCount, 'single')
+  return computeElementBalance(partMesh(part), part.stress, part.bodyForce, target)
+}
