@@ -233,10 +233,11 @@ const api: EngineApi = {
   async cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     const { model, faces, tractions } = current
+    const started = performance.now()
     try {
       const { result, polygons } = cutSection(model.mesh, model.stress, model.bodyForce, plane, { faces, tractions, polygons: true })
       current.polygons = polygons
-      if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null } }
+      if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started } }
       const tri = buildSectionTriangles(polygons, result.plane.normal)
       const a = sampleSectionArrows(polygons, result.plane.normal, { mode: arrows.mode, budget: arrows.budget })
       const buffers: SectionBuffers = {
@@ -244,7 +245,7 @@ const api: EngineApi = {
         shearTraction: tri.shearTraction, ranges: tri.ranges, arrows: a,
       }
       const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction].map((x) => x.buffer as ArrayBuffer)
-      return Comlink.transfer({ ok: true, value: { result, buffers } }, [...list, ...arrowTransfer(a)])
+      return Comlink.transfer({ ok: true, value: { result, buffers, computeMs: performance.now() - started } }, [...list, ...arrowTransfer(a)])
     } catch (e) {
       const error = toAppError(e)
       if (error) return { ok: false, error }

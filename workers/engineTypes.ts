@@ -48,6 +48,8 @@ export interface ArrowRequest {
 export interface CutReply {
   readonly result: SectionResult
   readonly buffers: SectionBuffers | null
+  /** Time the engine spent on this cut (ms): the section, its triangles and arrows. */
+  readonly computeMs: number
 }
 
 export interface ProbeRequest {

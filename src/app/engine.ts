@@ -219,9 +219,12 @@ function startCut(offset: number, paced: boolean): void {
   cutInFlight = true
   cutPending = false
   const gen = generation
+  const asked = performance.now()
   enqueue<Outcome<CutReply>>((api) => api.cut(plane, { mode, budget }))
     .then((out) => {
       if (gen !== generation) return
+      // Request to reply, for the browser tests' figures (a User Timing entry, nothing more).
+      performance.measure('tractus:cut', { start: asked, detail: out.ok ? { computeMs: out.value.computeMs } : null })
       const now = useStore.getState()
       // A paced result that arrives after the drag ended is stale: the release asked for a newer cut.
       if (paced && !now.section.dragging) return
