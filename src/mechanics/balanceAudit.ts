@@ -30,15 +30,31 @@ export function allocateElementBalance(E: number, precision: 'double' | 'single'
  * holding subarray views [from, to) of the whole output.
  */
 export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out?: ElementBalance): ElementBalance {
+  return elementBalance(mesh, stress, bodyForce, out, true)
+}
+
+/**
+ * The same audit with hex8 blocks sent through the general face quadrature instead of their
+ * closed form: the reference the closed form is tested against. Not for production use (slower).
+ */
+export function computeElementBalanceGeneral(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out?: ElementBalance): ElementBalance {
+  return elementBalance(mesh, stress, bodyForce, out, false)
+}
+
+/** hex8 faces as local corner numbers, 4 per face, outward (ELEMENT_TYPES.hex8.faces). */
+const HEX8_FACES = Int32Array.from(ELEMENT_TYPES.hex8.faces.flat())
+
+function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: ElementBalance | undefined, hexClosedForm: boolean): ElementBalance {
   const E = mesh.elementCount
   const result = out ?? allocateElementBalance(E)
   if (result.gross.length < E || result.indicator.length < E || result.residual.length < 3 * E) {
     throw new RangeError(`element balance output holds ${result.gross.length} elements, the mesh has ${E}`)
   }
   const { residual, gross, indicator } = result
-  // tet4 blocks compute their volume inline; the others use the volume quadrature (an array only
-  // when there are such blocks).
-  const hasOther = mesh.blocks.some((b) => b.type !== 'tet4')
+  // tet4 and hex8 blocks compute their volume inline; the others use the volume quadrature (an
+  // array only when there are such blocks).
+  const inline = (t: string): boolean => t === 'tet4' || (hexClosedForm && t === 'hex8')
+  const hasOther = mesh.blocks.some((b) => !inline(b.type))
   const volume = new Float64Array(hasOther ? E : 0)
   if (hasOther) elementVolumesAndCentroids(mesh, volume, null)
   const bx = bodyForce[0], by = bodyForce[1], bz = bodyForce[2]
@@ -90,6 +106,77 @@ export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForc
           g += Math.sqrt(fx * fx + fy * fy + fz * fz)
         }
         store(off + e, vol, rx, ry, rz, g)
+      }
+      continue
+    }
+    if (b.type === 'hex8' && hexClosedForm) {
+      // Each face is the bilinear patch x(u, v) = A + B u + C v + D uv on [-1, 1]² of its corners
+      // x0..x3 (face order, outward), with 4A = x0+x1+x2+x3, 4B = -x0+x1+x2-x3,
+      // 4C = -x0-x1+x2+x3, 4D = x0-x1+x2-x3. Its area vector x_u × x_v = (B + Dv) × (C + Du)
+      // = B×C + u B×D + v D×C is linear in u and v (D×D = 0), and σ = S_A + S_B u + S_C v + S_D uv
+      // is bilinear, so σn has degree ≤ 2 in each face variable: the 2×2 Gauss rule of the general
+      // path (exact to degree 3 per variable) integrates it exactly, and so does this closed form,
+      // keeping only the terms with even powers (∫1 = 4, ∫u² = ∫v² = 4/3 over the square):
+      //   ∫ σn dA = 4 S_A (B×C) + 4/3 (S_B (B×D) + S_C (D×C)).
+      // With b = 4B, c = 4C, d = 4D and sums s_a = 4 S_A, s_b = 4 S_B, s_c = 4 S_C of corner σ:
+      //   ∫ σn dA = (s_a (b×c) + (s_b (b×d) + s_c (d×c)) / 3) / 16.
+      // Volume by the divergence theorem (div x = 3): V = ⅓ ∮ x·n dA. The trilinear element's
+      // boundary is exactly these 6 bilinear patches and x·n also has degree ≤ 2 per variable, so
+      // the same exact integration gives ∫ x·n dA = 4 A·(B×C) (B·(B×D) = C·(D×C) = 0), that is
+      // a·(b×c)/16 with a = 4A, and V = Σ a·(b×c) / 48. Coordinates are taken relative to the
+      // element's node 0 (∮ n dA = 0, so V does not change) to keep the volume sum free of
+      // cancellation far from the origin.
+      for (let e = 0; e < count; e++) {
+        const base = 8 * e
+        const o = 3 * conn[base]
+        const ox = x[o], oy = x[o + 1], oz = x[o + 2]
+        let rx = 0, ry = 0, rz = 0, g = 0, v48 = 0
+        for (let f = 0; f < 24; f += 4) {
+          const p0 = conn[base + HEX8_FACES[f]], p1 = conn[base + HEX8_FACES[f + 1]]
+          const p2 = conn[base + HEX8_FACES[f + 2]], p3 = conn[base + HEX8_FACES[f + 3]]
+          const c0 = 3 * p0, c1 = 3 * p1, c2 = 3 * p2, c3 = 3 * p3
+          const x0 = x[c0] - ox, y0 = x[c0 + 1] - oy, z0 = x[c0 + 2] - oz
+          const x1 = x[c1] - ox, y1 = x[c1 + 1] - oy, z1 = x[c1 + 2] - oz
+          const x2 = x[c2] - ox, y2 = x[c2 + 1] - oy, z2 = x[c2 + 2] - oz
+          const x3 = x[c3] - ox, y3 = x[c3 + 1] - oy, z3 = x[c3 + 2] - oz
+          // eb = b = 4B, ec = c = 4C, ed = d = 4D; n0 = b×c.
+          const ebx = x1 + x2 - x0 - x3, eby = y1 + y2 - y0 - y3, ebz = z1 + z2 - z0 - z3
+          const ecx = x2 + x3 - x0 - x1, ecy = y2 + y3 - y0 - y1, ecz = z2 + z3 - z0 - z1
+          const edx = x0 - x1 + x2 - x3, edy = y0 - y1 + y2 - y3, edz = z0 - z1 + z2 - z3
+          const n0x = eby * ecz - ebz * ecy, n0y = ebz * ecx - ebx * ecz, n0z = ebx * ecy - eby * ecx
+          v48 += (x0 + x1 + x2 + x3) * n0x + (y0 + y1 + y2 + y3) * n0y + (z0 + z1 + z2 + z3) * n0z
+          // The weights folded in: k0 = (b×c)/16, k1 = (b×d)/48, k2 = (d×c)/48.
+          const k0x = n0x * (1 / 16), k0y = n0y * (1 / 16), k0z = n0z * (1 / 16)
+          const k1x = (eby * edz - ebz * edy) * (1 / 48), k1y = (ebz * edx - ebx * edz) * (1 / 48), k1z = (ebx * edy - eby * edx) * (1 / 48)
+          const k2x = (edy * ecz - edz * ecy) * (1 / 48), k2y = (edz * ecx - edx * ecz) * (1 / 48), k2z = (edx * ecy - edy * ecx) * (1 / 48)
+          const s0 = 6 * p0, s1 = 6 * p1, s2 = 6 * p2, s3 = 6 * p3
+          // Per stored component (xx, yy, zz, xy, yz, xz): corner values t0..t3, then
+          // s_a·k0 + s_b·k1 + s_c·k2 along the normal direction(s) the component multiplies.
+          let t0 = stress[s0], t1 = stress[s1], t2 = stress[s2], t3 = stress[s3]
+          let sa = t0 + t1 + t2 + t3, sb = t1 + t2 - t0 - t3, sc = t2 + t3 - t0 - t1
+          let fx = sa * k0x + sb * k1x + sc * k2x
+          t0 = stress[s0 + 1]; t1 = stress[s1 + 1]; t2 = stress[s2 + 1]; t3 = stress[s3 + 1]
+          sa = t0 + t1 + t2 + t3; sb = t1 + t2 - t0 - t3; sc = t2 + t3 - t0 - t1
+          let fy = sa * k0y + sb * k1y + sc * k2y
+          t0 = stress[s0 + 2]; t1 = stress[s1 + 2]; t2 = stress[s2 + 2]; t3 = stress[s3 + 2]
+          sa = t0 + t1 + t2 + t3; sb = t1 + t2 - t0 - t3; sc = t2 + t3 - t0 - t1
+          let fz = sa * k0z + sb * k1z + sc * k2z
+          t0 = stress[s0 + 3]; t1 = stress[s1 + 3]; t2 = stress[s2 + 3]; t3 = stress[s3 + 3]
+          sa = t0 + t1 + t2 + t3; sb = t1 + t2 - t0 - t3; sc = t2 + t3 - t0 - t1
+          fx += sa * k0y + sb * k1y + sc * k2y
+          fy += sa * k0x + sb * k1x + sc * k2x
+          t0 = stress[s0 + 4]; t1 = stress[s1 + 4]; t2 = stress[s2 + 4]; t3 = stress[s3 + 4]
+          sa = t0 + t1 + t2 + t3; sb = t1 + t2 - t0 - t3; sc = t2 + t3 - t0 - t1
+          fy += sa * k0z + sb * k1z + sc * k2z
+          fz += sa * k0y + sb * k1y + sc * k2y
+          t0 = stress[s0 + 5]; t1 = stress[s1 + 5]; t2 = stress[s2 + 5]; t3 = stress[s3 + 5]
+          sa = t0 + t1 + t2 + t3; sb = t1 + t2 - t0 - t3; sc = t2 + t3 - t0 - t1
+          fx += sa * k0z + sb * k1z + sc * k2z
+          fz += sa * k0x + sb * k1x + sc * k2x
+          rx += fx; ry += fy; rz += fz
+          g += Math.sqrt(fx * fx + fy * fy + fz * fz)
+        }
+        store(off + e, v48 / 48, rx, ry, rz, g)
       }
       continue
     }

@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../../src/demo/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
-import { computeElementBalance, percentiles } from '../../../src/mechanics/balanceAudit.ts'
+import { computeElementBalance, computeElementBalanceGeneral, percentiles } from '../../../src/mechanics/balanceAudit.ts'
 import { elementVolumes } from '../../../src/mechanics/elementVolume.ts'
+import { mulberry32 } from '../../../src/mechanics/seededRandom.ts'
+import type { Mesh } from '../../../src/model/model.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
 
 describe('computeElementBalance', () => {
@@ -25,6 +27,66 @@ describe('computeElementBalance', () => {
         for (let k = 0; k < 3; k++) expect(r2.residual[3 * e + k]).toBeCloseTo(div[k] * V[e], 12)
         expect(r.gross[e]).toBeGreaterThan(0)
         expect(r.indicator[e]).toBeCloseTo(Math.hypot(r.residual[3 * e], r.residual[3 * e + 1], r.residual[3 * e + 2]) / r.gross[e], 12)
+      }
+    })
+  }
+
+  /**
+   * A hex8 box with every interior node moved by up to ±15 % of the cell size per axis (seeded):
+   * warped, non-parallel faces, every element still positively oriented (checked by the caller).
+   */
+  function distortedHexBox(nx: number, ny: number, nz: number, seed: number, origin = 0): Mesh {
+    const mesh = boxMesh({ nx, ny, nz, lx: 1, ly: 0.8, lz: 1.2, x0: origin, y0: origin, z0: origin }, 'hex8')
+    const h = [1 / nx, 0.8 / ny, 1.2 / nz]
+    const rand = mulberry32(seed)
+    const c = mesh.coords.slice()
+    let i = 0
+    for (let k = 0; k <= nz; k++) for (let j = 0; j <= ny; j++) for (let l = 0; l <= nx; l++, i++) {
+      if (l === 0 || l === nx || j === 0 || j === ny || k === 0 || k === nz) continue
+      for (let d = 0; d < 3; d++) c[3 * i + d] += 0.15 * h[d] * (2 * rand() - 1)
+    }
+    return { ...mesh, coords: c }
+  }
+
+  // The hex8 closed form integrates the same bilinear faces and σ as the general 2×2 face
+  // quadrature (both exact for that integrand), so the two agree to rounding.
+  for (const [nx, ny, nz, seed] of [[3, 3, 3, 7], [4, 2, 5, 20261201]]) {
+    it(`hex8 closed form = general face quadrature on a distorted ${nx}×${ny}×${nz} box`, () => {
+      const mesh = distortedHexBox(nx, ny, nz, seed)
+      // Boxes are numbered node-fastest in x, then y, then z (boxMesh): distortedHexBox relies on it to find the interior nodes.
+      expect(mesh.nodeCount).toBe((nx + 1) * (ny + 1) * (nz + 1))
+      const V = elementVolumes(mesh)
+      for (let e = 0; e < mesh.elementCount; e++) expect(V[e]).toBeGreaterThan(0)
+      // A quadratic field (σ quadratic in x, y, z with cross terms) with a body force: neither
+      // interpolated exactly nor in equilibrium, so every element has a sizeable residual.
+      const stress = stressField(mesh, (x, y, z) => [1 + x * x + 2 * x * y, 2 + y * y - x * z, -1 + z * z + x * y, 0.5 + x * z + y * y, y * z - x * x, 3 * x * y + z])
+      const b: [number, number, number] = [0.5, 2, -3]
+      const fast = computeElementBalance(mesh, stress, b)
+      const ref = computeElementBalanceGeneral(mesh, stress, b)
+      for (let e = 0; e < mesh.elementCount; e++) {
+        const r = [ref.residual[3 * e], ref.residual[3 * e + 1], ref.residual[3 * e + 2]]
+        const d = [fast.residual[3 * e] - r[0], fast.residual[3 * e + 1] - r[1], fast.residual[3 * e + 2] - r[2]]
+        expect(Math.hypot(...r)).toBeGreaterThan(1e-3 * ref.gross[e])
+        expect(Math.hypot(...d)).toBeLessThanOrEqual(1e-12 * Math.hypot(...r))
+        expect(Math.abs(fast.gross[e] - ref.gross[e])).toBeLessThanOrEqual(1e-12 * ref.gross[e])
+        expect(Math.abs(fast.indicator[e] - ref.indicator[e])).toBeLessThanOrEqual(1e-12 * ref.indicator[e])
+      }
+    })
+  }
+
+  // Divergence theorem with div x = 3: V = ⅓ ∮ x·n dA, exact on a trilinear hexahedron; compared
+  // with the volume quadrature of elementVolumes (∫ det J dξ). With zero stress the residual is
+  // ρb·V and the gross load ½|ρb|V. The second box sits far from the origin.
+  for (const origin of [0, 1000]) {
+    it(`hex8 closed form: residual of zero stress = ρb · V on a distorted box at origin ${origin}`, () => {
+      const mesh = distortedHexBox(4, 3, 3, 99, origin)
+      const b: [number, number, number] = [0.3, -9.81, 1.7]
+      const bMag = Math.hypot(...b)
+      const r = computeElementBalance(mesh, new Float64Array(6 * mesh.nodeCount), b)
+      const V = elementVolumes(mesh)
+      for (let e = 0; e < mesh.elementCount; e++) {
+        for (let k = 0; k < 3; k++) expect(Math.abs(r.residual[3 * e + k] - b[k] * V[e])).toBeLessThanOrEqual(1e-12 * Math.abs(b[k] * V[e]))
+        expect(Math.abs(r.gross[e] - 0.5 * bMag * V[e])).toBeLessThanOrEqual(1e-12 * 0.5 * bMag * V[e])
       }
     })
   }
