@@ -10,7 +10,6 @@ import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { extractBoundaryFaces } from '../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../src/mechanics/tractions.ts'
-import { computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import { computeBodyBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
@@ -41,6 +40,9 @@ let current: Loaded | null = null
 let computeOptions: ComputeOptions = {}
 let pool: KernelPool | null = null
 
+/** How long a load waits for the pool to come up before it runs without it (ms). */
+const POOL_START_MS = 3000
+
 /** Most pool workers we start, whatever the core count: beyond this the hand-over costs more than it saves. */
 const MAX_POOL = 4
 
@@ -54,7 +56,9 @@ function spawnPoolWorker(): PoolEndpoint {
   })
   failure.catch(() => undefined)
   return {
+    ping: () => Promise.race([remote.ping(), failure]),
     balance: (part, out) => Promise.race([remote.balance(part, out), failure]),
+    invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }
@@ -62,15 +66,20 @@ function spawnPoolWorker(): PoolEndpoint {
 /** No pool workers: the kernels run here. */
 const ONE_THREAD = new KernelPool(0, spawnPoolWorker, 'copy')
 
-/** The pool, started the first time a model is big enough to need it. */
-function kernelPool(elements: number): KernelPool | null {
-  if (pool || elements < POOL_MIN_ELEMENTS || typeof Worker === 'undefined') return pool
-  // One thread per core in all: the engine's own and cores - 1 pool workers.
+/**
+ * Starts the pool when the engine is configured, so its workers load their code while the page is
+ * idle rather than during the first large load. One thread per core in all: the engine's own and
+ * cores - 1 pool workers.
+ */
+function startPool(): void {
+  pool?.dispose()
+  pool = null
+  if (typeof Worker === 'undefined') return
   const cores = Math.min(MAX_POOL + 1, Math.max(1, self.navigator?.hardwareConcurrency ?? 1))
   const size = (computeOptions.threads ?? cores) - 1
+  if (size < 1) return
   const shared = self.crossOriginIsolated === true && typeof SharedArrayBuffer !== 'undefined' && computeOptions.sharing !== 'copy'
-  pool = new KernelPool(Math.max(0, size), spawnPoolWorker, shared ? 'shared' : 'copy')
-  return pool
+  pool = new KernelPool(size, spawnPoolWorker, shared ? 'shared' : 'copy')
 }
 
 /** Wall time of each load stage (ms), in order, for the summary. */
@@ -150,6 +159,7 @@ function sourceLabel(source: ModelSource): string {
 const api: EngineApi = {
   configure(options: ComputeOptions) {
     computeOptions = options
+    startPool()
   },
 
   async load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>> {
@@ -161,10 +171,13 @@ const api: EngineApi = {
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
       const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data }))) : syntheticModel(source.spec)
       const mesh = model.mesh
-      // The element balance needs no faces: on a pool it runs beside the next three stages.
-      const p = kernelPool(mesh.elementCount)
-      const balanceJob = p && p.size > 0 ? p.elementBalance(mesh, model.stress, model.bodyForce) : null
+      // The element balance and the invariants need no faces: on a pool they run beside the
+      // boundary and traction stages.
+      const p = pool && mesh.elementCount >= POOL_MIN_ELEMENTS && await pool.upWithin(POOL_START_MS) ? pool : null
+      const balanceJob = p?.elementBalance(mesh, model.stress, model.bodyForce) ?? null
+      const invariantsJob = p?.nodalInvariants(model.stress) ?? null
       balanceJob?.catch(() => undefined)
+      invariantsJob?.catch(() => undefined)
       report('Boundary faces', 0.3); await yieldTurn()
       clock.mark('boundary')
       const faces = extractBoundaryFaces(mesh)
@@ -173,10 +186,10 @@ const api: EngineApi = {
       const tractions = computeSurfaceTractions(mesh, model.stress, faces)
       report('Principal stresses', 0.55); await yieldTurn()
       clock.mark('invariants')
-      const invariants = computeNodalInvariants(model.stress)
+      const { value: invariants } = await (invariantsJob ?? ONE_THREAD.nodalInvariants(model.stress))
       report('Element balance', 0.65); await yieldTurn()
       clock.mark('elementBalance')
-      const { balance, run } = await (balanceJob ?? ONE_THREAD.elementBalance(mesh, model.stress, model.bodyForce))
+      const { value: balance, run } = await (balanceJob ?? ONE_THREAD.elementBalance(mesh, model.stress, model.bodyForce))
       report('Body balance', 0.8); await yieldTurn()
       clock.mark('bodyBalance')
       const body = computeBodyBalance(mesh, faces, tractions, model.bodyForce)

@@ -1,6 +1,7 @@
 /**
- * A small pool of workers that the engine worker splits element-parallel kernels across (today:
- * the element balance audit, the largest O(elements) job of a load that needs no faces). The
+ * A small pool of workers that the engine worker splits element- and node-parallel kernels across
+ * (today: the element balance audit and the nodal invariants, the jobs of a load that need no
+ * boundary faces). The
  * engine starts one worker per core but its own, so the audit runs beside the engine's own
  * stages (boundary faces, tractions, invariants) and every core has one thread to run.
  *
@@ -18,14 +19,18 @@
 import { meshSlice, splitElementRanges } from '../src/model/meshRange.ts'
 import type { ElementBlock, Mesh, Vec3 } from '../src/model/model.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
-import type { ElementBalance } from '../src/mechanics/types.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
+import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 
 export type Sharing = 'shared' | 'copy'
 
 /** One pool worker as the pool sees it (a comlink proxy in the browser, a direct call in tests). */
 export interface PoolEndpoint {
+  /** Resolves once the worker runs (its script loaded): answers a call. */
+  ping(): Promise<boolean>
   balance(part: BalancePart, out?: BalanceOut): Promise<ElementBalance | null>
+  invariants(stress: Float64Array, out?: NodalInvariants): Promise<NodalInvariants | null>
   terminate(): void
 }
 
@@ -37,46 +42,121 @@ export interface PoolRun {
   readonly fallback?: string
 }
 
-/** Below this many elements one thread is faster than handing the work out. */
+/** Below this many elements (nodes) one thread is faster than handing the work out. */
 export const POOL_MIN_ELEMENTS = 50_000
+export const POOL_MIN_NODES = 10_000
 
 export class KernelPool {
   private endpoints: PoolEndpoint[]
   private broken: string | null = null
+  /** Shared copies of the model's arrays, by the array they copy (weakly: a dropped model frees them). */
+  private sharedCopies = new WeakMap<object, Float64Array | Int32Array>()
   readonly sharing: Sharing
+
+  /**
+   * Settles when every worker answers. A nested worker loads its script through its parent's event
+   * loop, which a long synchronous stage blocks: a job sent to a worker that is not up yet would
+   * wait for the engine's next pause, so callers wait for this first.
+   */
+  readonly ready: Promise<void>
 
   constructor(size: number, spawn: () => PoolEndpoint, sharing: Sharing) {
     this.endpoints = Array.from({ length: Math.max(0, Math.floor(size)) }, spawn)
     this.sharing = sharing
+    this.ready = Promise.all(this.endpoints.map((ep) => ep.ping())).then(
+      () => undefined,
+      (e: unknown) => this.standDown(`a pool worker did not start (${e instanceof Error ? e.message : String(e)})`),
+    )
   }
 
   get size(): number { return this.broken ? 0 : this.endpoints.length }
 
+  /** True when the pool is up within `ms` milliseconds (a worker that hangs must not hang a load). */
+  async upWithin(ms: number): Promise<boolean> {
+    let timer: ReturnType<typeof setTimeout> | undefined
+    const late = new Promise<false>((r) => { timer = setTimeout(() => r(false), ms) })
+    const up = await Promise.race([this.ready.then(() => true), late])
+    clearTimeout(timer)
+    return up && this.size > 0
+  }
+
   /** Element balance of the whole mesh in single precision, split over the pool where that pays. */
-  async elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<{ balance: ElementBalance; run: PoolRun }> {
-    const E = mesh.elementCount
-    if (this.size < 1 || E < POOL_MIN_ELEMENTS) {
-      const balance = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(E, 'single'))
-      return { balance, run: { workers: 0, sharing: 'none', ...(this.broken ? { fallback: this.broken } : {}) } }
-    }
+  async elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<{ value: ElementBalance; run: PoolRun }> {
+    const serial = (): ElementBalance => computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
+    if (mesh.elementCount < POOL_MIN_ELEMENTS) return this.runSerial(serial)
+    return this.runSplit(serial, () => (this.sharing === 'shared' ? this.balanceShared(mesh, stress, bodyForce) : this.balanceCopied(mesh, stress, bodyForce)))
+  }
+
+  /** Principal stresses and the other invariants of every node, split by node range. */
+  async nodalInvariants(stress: Float64Array): Promise<{ value: NodalInvariants; run: PoolRun }> {
+    const N = stress.length / 6
+    const serial = (): NodalInvariants => computeNodalInvariants(stress)
+    if (N < POOL_MIN_NODES) return this.runSerial(serial)
+    return this.runSplit(serial, () => (this.sharing === 'shared' ? this.invariantsShared(stress) : this.invariantsCopied(stress)))
+  }
+
+  private runSerial<T>(serial: () => T): { value: T; run: PoolRun } {
+    return { value: serial(), run: { workers: 0, sharing: 'none', ...(this.broken ? { fallback: this.broken } : {}) } }
+  }
+
+  /** The split run, or on any failure of a pool worker the serial one (and the pool stands down). */
+  private async runSplit<T>(serial: () => T, split: () => Promise<T>): Promise<{ value: T; run: PoolRun }> {
+    if (this.size < 1) return this.runSerial(serial)
     try {
-      const balance = this.sharing === 'shared' ? await this.balanceShared(mesh, stress, bodyForce) : await this.balanceCopied(mesh, stress, bodyForce)
-      return { balance, run: { workers: this.endpoints.length, sharing: this.sharing } }
+      const value = await split()
+      return { value, run: { workers: this.endpoints.length, sharing: this.sharing } }
     } catch (e) {
       this.standDown(`a pool worker failed (${e instanceof Error ? e.message : String(e)})`)
-      const balance = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(E, 'single'))
-      return { balance, run: { workers: 0, sharing: 'none', fallback: this.broken! } }
+      return this.runSerial(serial)
     }
+  }
+
+  private async invariantsShared(stress: Float64Array): Promise<NodalInvariants> {
+    const N = stress.length / 6
+    const shared = this.shared(stress)
+    const out: NodalInvariants = {
+      principal: sharedF64(3 * N), directions: sharedF64(9 * N), vonMises: sharedF64(N), tresca: sharedF64(N), mean: sharedF64(N),
+    }
+    const ranges = splitElementRanges(N, this.endpoints.length)
+    await Promise.all(ranges.map(([a, b], i) => this.endpoints[i].invariants(shared.subarray(6 * a, 6 * b), nodeRangeOf(out, a, b))))
+    return out
+  }
+
+  private async invariantsCopied(stress: Float64Array): Promise<NodalInvariants> {
+    const N = stress.length / 6
+    const ranges = splitElementRanges(N, this.endpoints.length)
+    const parts = await Promise.all(ranges.map(([a, b], i) => this.endpoints[i].invariants(stress.slice(6 * a, 6 * b))))
+    const out = allocateNodalInvariants(N)
+    ranges.forEach(([a], i) => {
+      const p = parts[i]
+      if (!p) throw new Error('a pool worker returned no result')
+      out.principal.set(p.principal, 3 * a); out.directions.set(p.directions, 9 * a)
+      out.vonMises.set(p.vonMises, a); out.tresca.set(p.tresca, a); out.mean.set(p.mean, a)
+    })
+    return out
+  }
+
+  /** A shared copy of an array, made once per array (the balance and the invariants share the stress). */
+  private shared<T extends Float64Array | Int32Array>(a: T): T {
+    if (a.buffer instanceof SharedArrayBuffer) return a
+    let s = this.sharedCopies.get(a) as T | undefined
+    if (!s) {
+      const Ctor = a.constructor as { new (b: SharedArrayBuffer): T }
+      s = new Ctor(new SharedArrayBuffer(a.byteLength))
+      s.set(a)
+      this.sharedCopies.set(a, s)
+    }
+    return s
   }
 
   private async balanceShared(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<ElementBalance> {
     const E = mesh.elementCount
     const shared: Mesh = {
-      coords: toShared(mesh.coords), nodeIds: toShared(mesh.nodeIds),
-      blocks: mesh.blocks.map((b) => ({ ...b, conn: toShared(b.conn), ids: toShared(b.ids), part: null })),
+      coords: this.shared(mesh.coords), nodeIds: this.shared(mesh.nodeIds),
+      blocks: mesh.blocks.map((b) => ({ ...b, conn: this.shared(b.conn), ids: this.shared(b.ids), part: null })),
       nodeCount: mesh.nodeCount, elementCount: E,
     }
-    const sStress = toShared(stress)
+    const sStress = this.shared(stress)
     const out: ElementBalance = {
       residual: new Float32Array(new SharedArrayBuffer(12 * E)),
       gross: new Float32Array(new SharedArrayBuffer(4 * E)),
@@ -123,10 +203,11 @@ function partOf(slice: Mesh, stress: Float64Array, bodyForce: Vec3): BalancePart
   return { coords: slice.coords, nodeIds: slice.nodeIds, stress, blocks: slice.blocks, elementCount: slice.elementCount, bodyForce }
 }
 
-function toShared<T extends Float64Array | Int32Array>(a: T): T {
-  if (a.buffer instanceof SharedArrayBuffer) return a
-  const Ctor = a.constructor as { new (b: SharedArrayBuffer): T }
-  const s = new Ctor(new SharedArrayBuffer(a.byteLength))
-  s.set(a)
-  return s
+const sharedF64 = (n: number): Float64Array => new Float64Array(new SharedArrayBuffer(8 * n))
+
+function nodeRangeOf(r: NodalInvariants, a: number, b: number): NodalInvariants {
+  return {
+    principal: r.principal.subarray(3 * a, 3 * b), directions: r.directions.subarray(9 * a, 9 * b),
+    vonMises: r.vonMises.subarray(a, b), tresca: r.tresca.subarray(a, b), mean: r.mean.subarray(a, b),
+  }
 }

@@ -1,18 +1,25 @@
 /**
- * A pool worker: computes element-parallel kernels for one range of elements at a time and keeps
+ * A pool worker: computes element- or node-parallel kernels for one range at a time and keeps
  * nothing between calls. With shared memory the result is written in place and nothing comes
  * back; otherwise the arrays are moved back by transfer.
  */
 import * as Comlink from 'comlink'
+import { computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import { balancePart } from './kernelPoolTask.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
-import type { ElementBalance } from '../src/mechanics/types.ts'
+import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
+
+const buffersOf = (r: object): ArrayBuffer[] => Object.values(r).map((a: Float64Array | Float32Array) => a.buffer as ArrayBuffer)
 
 const api = {
+  ping: (): boolean => true,
   balance(part: BalancePart, out?: BalanceOut): ElementBalance | null {
     const r = balancePart(part, out)
-    if (out) return null
-    return Comlink.transfer(r, [r.residual.buffer, r.gross.buffer, r.indicator.buffer] as ArrayBuffer[])
+    return out ? null : Comlink.transfer(r, buffersOf(r))
+  },
+  invariants(stress: Float64Array, out?: NodalInvariants): NodalInvariants | null {
+    const r = computeNodalInvariants(stress, out)
+    return out ? null : Comlink.transfer(r, buffersOf(r))
   },
 }
 

@@ -1,7 +1,8 @@
 /**
- * What one pool worker computes: the element balance of one contiguous range of elements. The
- * part carries the whole node arrays (shared views, or copies) and the range's blocks; element 0
- * of the part is global element `from` of the model.
+ * What one pool worker computes: the element balance of one contiguous range of elements (the
+ * part carries the whole node arrays, shared views or copies, and the range's blocks; element 0
+ * of the part is global element `from` of the model). Node-parallel kernels need no part: their
+ * input is a subarray of the nodal stress.
  */
 import type { ElementBlock, Mesh, Vec3 } from '../src/model/model.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
@@ -28,3 +29,4 @@ export function balancePart(part: BalancePart, out?: BalanceOut): ElementBalance
   const target = out ?? allocateElementBalance(part.elementCount, 'single')
   return computeElementBalance(partMesh(part), part.stress, part.bodyForce, target)
 }
+

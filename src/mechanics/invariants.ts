@@ -183,15 +183,30 @@ export function vonMisesAt(s: ArrayLike<number>, o: number): number {
 }
 
 /** Invariants at every node of a nodal stress array Float64Array(6·N). */
-export function computeNodalInvariants(stress: Float64Array): NodalInvariants {
+/** Fresh output arrays for N nodes (see NodalInvariants). */
+export function allocateNodalInvariants(N: number): NodalInvariants {
+  return {
+    principal: new Float64Array(3 * N), directions: new Float64Array(9 * N),
+    vonMises: new Float64Array(N), tresca: new Float64Array(N), mean: new Float64Array(N),
+  }
+}
+
+/**
+ * Invariants of every node of `stress` (6 per node) into `out` (default: fresh arrays). Nodes are
+ * independent, so a range of nodes is stress.subarray(6·a, 6·b) with subarray views of the output.
+ */
+export function computeNodalInvariants(stress: Float64Array, out?: NodalInvariants): NodalInvariants {
   const N = stress.length / 6
-  const principal = new Float64Array(3 * N), directions = new Float64Array(9 * N)
-  const vm = new Float64Array(N), tresca = new Float64Array(N), mean = new Float64Array(N)
+  const result = out ?? allocateNodalInvariants(N)
+  if (result.vonMises.length < N || result.principal.length < 3 * N || result.directions.length < 9 * N) {
+    throw new RangeError(`nodal invariant output holds ${result.vonMises.length} nodes, the stress has ${N}`)
+  }
+  const { principal, directions, vonMises: vm, tresca, mean } = result
   for (let i = 0; i < N; i++) {
     principalStressesAt(stress, 6 * i, principal, 3 * i, directions, 9 * i)
     vm[i] = vonMisesAt(stress, 6 * i)
     tresca[i] = principal[3 * i] - principal[3 * i + 2]
     mean[i] = (stress[6 * i] + stress[6 * i + 1] + stress[6 * i + 2]) / 3
   }
-  return { principal, directions, vonMises: vm, tresca, mean }
+  return result
 }

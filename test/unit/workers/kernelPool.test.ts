@@ -9,16 +9,24 @@ import { allocateElementBalance, computeElementBalance } from '../../../src/mech
 import { KernelPool, POOL_MIN_ELEMENTS } from '../../../workers/kernelPool.ts'
 import type { PoolEndpoint, Sharing } from '../../../workers/kernelPool.ts'
 import { balancePart } from '../../../workers/kernelPoolTask.ts'
+import { computeNodalInvariants } from '../../../src/mechanics/invariants.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
 
 /** An endpoint that runs the pool worker's task in this thread; structuredClone mimics postMessage. */
 function localEndpoint(log: { shared: number; calls: number }): PoolEndpoint {
   return {
+    ping: async () => true,
     async balance(part, out) {
       log.calls++
       if (part.coords.buffer instanceof SharedArrayBuffer) log.shared++
       const copy = structuredClone(part)
       const r = balancePart(copy, out)
+      return out ? null : r
+    },
+    async invariants(stress, out) {
+      log.calls++
+      if (stress.buffer instanceof SharedArrayBuffer) log.shared++
+      const r = computeNodalInvariants(structuredClone(stress), out)
       return out ? null : r
     },
     terminate() { /* nothing to stop */ },
@@ -45,7 +53,7 @@ describe('kernel pool: element balance', () => {
       it(`${sharing} hand-over over ${size} workers equals one thread bit for bit`, async () => {
         const log = { shared: 0, calls: 0 }
         const pool = new KernelPool(size, () => localEndpoint(log), sharing)
-        const { balance, run } = await pool.elementBalance(mesh, stress, b)
+        const { value: balance, run } = await pool.elementBalance(mesh, stress, b)
         expect(run).toEqual({ workers: size, sharing })
         expect(log.calls).toBe(size)
         expect(log.shared).toBe(sharing === 'shared' ? size : 0)
@@ -58,6 +66,33 @@ describe('kernel pool: element balance', () => {
     }
   }
 
+  for (const sharing of ['shared', 'copy'] as Sharing[]) {
+    it(`${sharing} hand-over of the nodal invariants over 3 workers equals one thread bit for bit`, async () => {
+      const log = { shared: 0, calls: 0 }
+      const pool = new KernelPool(3, () => localEndpoint(log), sharing)
+      const { value, run } = await pool.nodalInvariants(stress)
+      expect(run).toEqual({ workers: 3, sharing })
+      expect(log.shared).toBe(sharing === 'shared' ? 3 : 0)
+      const one = computeNodalInvariants(stress)
+      for (const k of ['principal', 'directions', 'vonMises', 'tresca', 'mean'] as const) expect(sameBits(value[k], one[k]), k).toBe(true)
+      pool.dispose()
+    })
+  }
+
+  it('a worker that never starts makes the pool stand down before any job', async () => {
+    const pool = new KernelPool(2, () => ({ ping: () => Promise.reject(new Error('script blocked')), balance: async () => null, invariants: async () => null, terminate() { /* none */ } }), 'shared')
+    await pool.ready
+    expect(pool.size).toBe(0)
+    const { run } = await pool.elementBalance(mesh, stress, b)
+    expect(run.workers).toBe(0)
+    expect(run.fallback).toMatch(/did not start \(script blocked\)/)
+  })
+
+  it('a worker that never answers is waited for a bounded time only', async () => {
+    const pool = new KernelPool(1, () => ({ ping: () => new Promise<boolean>(() => undefined), balance: async () => null, invariants: async () => null, terminate() { /* none */ } }), 'copy')
+    expect(await pool.upWithin(20)).toBe(false)
+  })
+
   it('a small model runs on one thread without calling the pool', async () => {
     const log = { shared: 0, calls: 0 }
     const small = boxMesh({ nx: 4, ny: 3, nz: 2, lx: 1, ly: 1, lz: 1 }, 'hex8')
@@ -69,12 +104,13 @@ describe('kernel pool: element balance', () => {
 
   it('a failing worker makes the pool stand down; the result still comes, from one thread', async () => {
     let terminated = 0
-    const failing: PoolEndpoint = { balance: () => Promise.reject(new Error('worker script did not load')), terminate: () => { terminated++ } }
+    const fail = (): Promise<never> => Promise.reject(new Error('worker script did not load'))
+    const failing: PoolEndpoint = { ping: async () => true, balance: fail, invariants: fail, terminate: () => { terminated++ } }
     const pool = new KernelPool(2, () => failing, 'copy')
     const first = await pool.elementBalance(mesh, stress, b)
     expect(first.run.workers).toBe(0)
     expect(first.run.fallback).toMatch(/worker script did not load/)
-    expect(sameBits(first.balance.indicator, reference.indicator)).toBe(true)
+    expect(sameBits(first.value.indicator, reference.indicator)).toBe(true)
     expect(terminated).toBe(2)
     expect(pool.size).toBe(0)
     const again = await pool.elementBalance(mesh, stress, b)
