@@ -190,6 +190,7 @@ const api: EngineApi = {
       report('Element balance', 0.65); await yieldTurn()
       clock.mark('elementBalance')
       const { value: balance, run } = await (balanceJob ?? ONE_THREAD.elementBalance(mesh, model.stress, model.bodyForce))
+      p?.forget()
       report('Body balance', 0.8); await yieldTurn()
       clock.mark('bodyBalance')
       const body = computeBodyBalance(mesh, faces, tractions, model.bodyForce)

@@ -136,6 +136,11 @@ export class KernelPool {
     return out
   }
 
+  /** Drops the shared copies (the jobs of a load are done; they would double the model's memory). */
+  forget(): void {
+    this.sharedCopies = new WeakMap()
+  }
+
   /** A shared copy of an array, made once per array (the balance and the invariants share the stress). */
   private shared<T extends Float64Array | Int32Array>(a: T): T {
     if (a.buffer instanceof SharedArrayBuffer) return a
