@@ -52,6 +52,13 @@ function SceneContents() {
     return { centroid: sectionResult.centroid, halfSize: 2 * Math.sqrt(sectionResult.secondMoments.J / sectionResult.area) }
   }, [sectionResult])
   const sphere = useModelSphere()
+  const renderer = useStore((s) => s.renderer)
+  // The surface's back faces show the inside of the body through the cut. While the plane is
+  // dragged on software WebGL, a section face cut at the plane on screen covers that opening, so
+  // the second pass over the surface is hidden and only costs the rasteriser: at 10^6 elements it
+  // was a third of each drag frame, which the main thread waits for when the canvas is read back.
+  const faceCoversCut = section.dragging && renderer === 'software' && sectionBuffers !== null &&
+    sectionResult !== null && sphere !== null && samePlane(sectionResult.plane, sectionPlaneOf(section), sphere.diagonal)
   // Optional: present when the worker sends feature edges with the surface.
   const edges = surface?.edges ?? null
   const clippingPlanes = useClippingPlanes()
@@ -66,7 +73,7 @@ function SceneContents() {
         <SurfaceMesh
           surface={surface} quantity={quantity} range={range} colourMap={colourMap}
           highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds}
-          clipped={section.enabled && section.hide !== 'none'}
+          clipped={section.enabled && section.hide !== 'none' && !faceCoversCut}
         />
       )}
       {edges && model && <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} />}
@@ -92,6 +99,16 @@ function SceneContents() {
 }
 
 const NO_PLANES: never[] = []
+
+type PlaneLike = { readonly point: readonly number[]; readonly normal: readonly number[] }
+
+/** Same plane up to round-off: unit normals `a`, `b`; `size` the model's diagonal (length units). */
+function samePlane(a: PlaneLike, b: PlaneLike, size: number): boolean {
+  const m = a.normal, n = b.normal
+  const tol = 1e-9 * size
+  const shift = m[0] * (b.point[0] - a.point[0]) + m[1] * (b.point[1] - a.point[1]) + m[2] * (b.point[2] - a.point[2])
+  return Math.abs(shift) <= tol && Math.abs(m[0] - n[0]) + Math.abs(m[1] - n[1]) + Math.abs(m[2] - n[2]) <= 1e-9
+}
 
 /** The 3D view of Tractus: fills its positioned parent. */
 export function SceneView() {
