@@ -16,7 +16,7 @@
  * makes the pool stand down and the kernel run in the engine worker instead: a pool is a speed-up,
  * never a new way to fail.
  */
-import { meshSlice, splitElementRanges } from '../src/model/meshRange.ts'
+import { meshSlice, splitRanges } from '../src/model/meshRange.ts'
 import type { ElementBlock, Mesh, Vec3 } from '../src/model/model.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
@@ -117,14 +117,14 @@ export class KernelPool {
     const out: NodalInvariants = {
       principal: sharedF64(3 * N), directions: sharedF64(9 * N), vonMises: sharedF64(N), tresca: sharedF64(N), mean: sharedF64(N),
     }
-    const ranges = splitElementRanges(N, this.endpoints.length)
+    const ranges = splitRanges(N, this.endpoints.length)
     await Promise.all(ranges.map(([a, b], i) => this.endpoints[i].invariants(shared.subarray(6 * a, 6 * b), nodeRangeOf(out, a, b))))
     return out
   }
 
   private async invariantsCopied(stress: Float64Array): Promise<NodalInvariants> {
     const N = stress.length / 6
-    const ranges = splitElementRanges(N, this.endpoints.length)
+    const ranges = splitRanges(N, this.endpoints.length)
     const parts = await Promise.all(ranges.map(([a, b], i) => this.endpoints[i].invariants(stress.slice(6 * a, 6 * b))))
     const out = allocateNodalInvariants(N)
     ranges.forEach(([a], i) => {
@@ -167,7 +167,7 @@ export class KernelPool {
       gross: new Float32Array(new SharedArrayBuffer(4 * E)),
       indicator: new Float32Array(new SharedArrayBuffer(4 * E)),
     }
-    const ranges = splitElementRanges(E, this.endpoints.length)
+    const ranges = splitRanges(E, this.endpoints.length)
     await Promise.all(ranges.map(([from, to], i) => this.endpoints[i].balance(
       partOf(meshSlice(shared, from, to), sStress, bodyForce),
       { residual: out.residual.subarray(3 * from, 3 * to), gross: out.gross.subarray(from, to), indicator: out.indicator.subarray(from, to) },
@@ -177,7 +177,7 @@ export class KernelPool {
 
   private async balanceCopied(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<ElementBalance> {
     const E = mesh.elementCount
-    const ranges = splitElementRanges(E, this.endpoints.length)
+    const ranges = splitRanges(E, this.endpoints.length)
     const parts = await Promise.all(ranges.map(([from, to], i) => {
       // Own copies of the range's connectivity (structured clone copies the node arrays).
       const slice = meshSlice(mesh, from, to)

@@ -1,19 +1,19 @@
 import { ELEMENT_TYPES } from './elementTypes.ts'
 import type { ElementBlock, Mesh } from './model.ts'
 
-/** [from, to) global element index ranges. */
-export type ElementRange = readonly [number, number]
+/** [from, to) index ranges (elements or nodes). */
+export type IndexRange = readonly [number, number]
 
 /**
- * Splits 0..elementCount into at most `parts` contiguous ranges of near-equal size (none empty),
- * so element-parallel kernels can run one range per worker and write straight into their slice
- * of the output.
+ * Splits 0..count (elements or nodes) into at most `parts` contiguous ranges of near-equal size
+ * (none empty), so parallel kernels can run one range per worker and write straight into their
+ * slice of the output.
  */
-export function splitElementRanges(elementCount: number, parts: number): ElementRange[] {
-  const n = Math.max(1, Math.min(Math.floor(parts) || 1, elementCount))
-  const out: ElementRange[] = []
+export function splitRanges(count: number, parts: number): IndexRange[] {
+  const n = Math.max(1, Math.min(Math.floor(parts) || 1, count))
+  const out: IndexRange[] = []
   for (let i = 0; i < n; i++) {
-    const from = Math.floor((i * elementCount) / n), to = Math.floor(((i + 1) * elementCount) / n)
+    const from = Math.floor((i * count) / n), to = Math.floor(((i + 1) * count) / n)
     if (to > from) out.push([from, to])
   }
   return out

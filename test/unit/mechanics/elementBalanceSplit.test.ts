@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
 import { boxMesh } from '../../../src/demo/boxMesh.ts'
 import { createMesh } from '../../../src/model/createMesh.ts'
-import { meshSlice, splitElementRanges } from '../../../src/model/meshRange.ts'
+import { meshSlice, splitRanges } from '../../../src/model/meshRange.ts'
 import { allocateElementBalance, computeElementBalance } from '../../../src/mechanics/balanceAudit.ts'
 import type { ElementBalance } from '../../../src/mechanics/types.ts'
 import type { Mesh } from '../../../src/model/model.ts'
@@ -26,7 +26,7 @@ function mixedMesh(): Mesh {
 
 function splitRun(mesh: Mesh, stress: Float64Array, parts: number, precision: 'double' | 'single'): ElementBalance {
   const out = allocateElementBalance(mesh.elementCount, precision)
-  for (const [from, to] of splitElementRanges(mesh.elementCount, parts)) {
+  for (const [from, to] of splitRanges(mesh.elementCount, parts)) {
     computeElementBalance(meshSlice(mesh, from, to), stress, [0.3, -2, 1], {
       residual: out.residual.subarray(3 * from, 3 * to), gross: out.gross.subarray(from, to), indicator: out.indicator.subarray(from, to),
     })
@@ -42,7 +42,7 @@ describe('element balance split over element ranges', () => {
 
   it('ranges cover every element once, in order, with none empty', () => {
     fc.assert(fc.property(fc.integer({ min: 0, max: 5000 }), fc.integer({ min: 1, max: 64 }), (E, parts) => {
-      const r = splitElementRanges(E, parts)
+      const r = splitRanges(E, parts)
       let next = 0
       for (const [a, b] of r) { if (a !== next || b <= a) return false; next = b }
       return next === E && r.length === Math.min(parts, E)
