@@ -11,7 +11,7 @@
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
-import { InputError } from '../model/errors.ts'
+import { checkPoint, unitNormal } from './plane.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
@@ -24,6 +24,8 @@ import { emptySection, sectionCentroid, sectionRecord } from './sectionPropertie
 import { computeSurfaceTractions } from './tractions.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
 
+export { unitNormal } from './plane.ts'
+
 export interface CutSectionOptions {
   /** Point the moment is taken about (model length); default the section centroid. */
   readonly about?: Vec3
@@ -33,24 +35,6 @@ export interface CutSectionOptions {
   readonly tractions?: SurfaceTractions
   /** Also return the section polygons for drawing (off by default: it allocates). */
   readonly polygons?: boolean
-}
-
-/**
- * Unit normal of a section plane; a zero or non-finite normal is an InputError the caller can
- * show as is.
- */
-export function unitNormal(n: readonly number[], what = 'section normal'): Vec3 {
-  const l = Math.hypot(n[0], n[1], n[2])
-  if (!(l > 0) || !Number.isFinite(l)) {
-    throw new InputError('bad-argument', `the ${what} (${n[0]}, ${n[1]}, ${n[2]}) has no direction; give a non-zero vector`, { field: 'normal' })
-  }
-  return [n[0] / l, n[1] / l, n[2] / l]
-}
-
-function checkPoint(p: readonly number[], field: string): void {
-  if (!Number.isFinite(p[0]) || !Number.isFinite(p[1]) || !Number.isFinite(p[2])) {
-    throw new InputError('bad-argument', `the ${field} (${p[0]}, ${p[1]}, ${p[2]}) must be three finite numbers`, { field })
-  }
 }
 
 /**

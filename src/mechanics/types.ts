@@ -4,6 +4,7 @@
  * every user. All values are in model units (length L, stress S, force S·L², moment S·L³).
  */
 import type { Vec3 } from '../model/model.ts'
+import type { Plane } from './plane.ts'
 
 /**
  * The largest stride of per-face-node arrays (a quad8 face): an upper bound for `BoundaryFaces.slots`,
@@ -141,10 +142,8 @@ export interface LoadPatches {
 }
 
 /** A section plane through `point` with unit `normal` m. */
-export interface SectionPlane {
-  readonly point: Vec3
-  readonly normal: Vec3
-}
+/** A section plane; the one plane type lives in plane.ts (unit normal, checked input). */
+export type SectionPlane = Plane
 
 /**
  * Section result by the DESIGN.md convention: force and moment the material on the +m side
