@@ -6,7 +6,7 @@
  */
 import { boxMesh } from '../src/model/boxMesh.ts'
 import type { Model } from '../src/model/model.ts'
-import type { SyntheticSpec } from './engineTypes.ts'
+import type { SyntheticSpec } from './protocol.ts'
 
 /** Largest generated model (elements), so a typed hash cannot exhaust memory. */
 export const MAX_SYNTHETIC_ELEMENTS = 2_000_000
