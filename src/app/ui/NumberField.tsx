@@ -8,7 +8,8 @@ import { useEffect, useState } from 'react'
 export function NumberField({ label, value, onCommit, testId, width = 6, invalid = false }: { label: string; value: number; onCommit: (v: number) => void; testId?: string; width?: number; invalid?: boolean }) {
   const [text, setText] = useState(String(round(value)))
   const [bad, setBad] = useState(false)
-  useEffect(() => { setText(String(round(value))); setBad(false) }, [value])
+  // A refused value shows the stored one again, marked, until a good one is taken.
+  useEffect(() => { setText(String(round(value))); setBad(false) }, [value, invalid])
   const commit = (): void => {
     const v = Number(text.trim().replace('−', '-'))
     if (text.trim() === '' || !Number.isFinite(v)) { setBad(true); return }
