@@ -20,14 +20,15 @@ import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrowSampling.ts'
 import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SurfaceTractions } from '../src/mechanics/types.ts'
-import type { AppError, ArrowBuffers, ModelSummary, SectionBuffers, SurfaceBuffers } from '../src/app/store.ts'
-import type { ArrowRequest, CutReply, EngineApi, LoadedModel, ModelSource, Outcome, ProbeRequest, ProgressCallback } from './engineTypes.ts'
+import type {
+  AppError, ArrowBuffers, ArrowRequest, ComputeOptions, CrashKind, CutReply, EngineApi, LoadedModel, ModelSource, ModelSummary,
+  Outcome, ProbeRequest, ProgressCallback, SectionBuffers, SurfaceBuffers,
+} from './protocol.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import type { PoolEndpoint } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
-import type { ComputeOptions } from '../src/app/computeOptions.ts'
 
 interface Loaded {
   model: Model
@@ -285,17 +286,21 @@ const api: EngineApi = {
     return probeModel(current.model.mesh, current.model.stress, current.faces, req.section ? current.polygons : null, req)
   },
 
-  async crash(kind: 'throw' | 'memory' = 'throw'): Promise<void> {
-    // 'memory' asks for far more memory than any browser grants, so the allocation really fails.
-    if (kind === 'memory') { new Float64Array(2 ** 40); return }
-    throw new Error('deliberate failure inside the engine (test hook)')
-  },
-
   dispose() {
     current = null
     pool?.dispose()
     self.close()
   },
+}
+
+// The end-to-end build only (vite build --mode e2e): a deliberate failure, so the browser tests can
+// check that the app recovers. The release build drops this branch, string and all.
+if (import.meta.env.MODE === 'e2e') {
+  api.crash = async (kind: CrashKind = 'throw'): Promise<void> => {
+    // 'memory' asks for far more memory than any browser grants, so the allocation really fails.
+    if (kind === 'memory') { new Float64Array(2 ** 40); return }
+    throw new Error('deliberate failure inside the engine (test hook)')
+  }
 }
 
 Comlink.expose(api)

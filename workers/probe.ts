@@ -11,8 +11,7 @@ import { shapeDerivatives, shapeValues } from '../src/mechanics/shapeFunctions.t
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
 import { elementIdOf } from '../src/mechanics/boundaryFaces.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
-import type { ProbeResult } from '../src/app/store.ts'
-import type { ProbeRequest } from './engineTypes.ts'
+import type { ProbeRequest, ProbeResult } from './protocol.ts'
 
 const CORNERS_OF_KIND = [3, 3, 4, 4]
 

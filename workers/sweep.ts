@@ -7,7 +7,7 @@ import type { Model, Vec3 } from '../src/model/model.ts'
 import { InputError } from '../src/model/errors.ts'
 import { sweepSections } from '../src/mechanics/sectionSweep.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
-import type { SweepReply } from './engineTypes.ts'
+import type { SweepReply } from './protocol.ts'
 
 /** [min, max] of x·m over the nodes (length units); m need not be unit (it is normalised). */
 export function extentAlong(coords: Float64Array, normal: Vec3): [number, number] {

@@ -4,9 +4,9 @@
  * (1970), §21: σx = -P·x·y / I, τxy = -(P / 2I)(c² - y²), all else zero, which satisfies
  * div σ = 0 exactly, leaves y = ±c and the z faces free, and carries the load P at x = 0.
  */
-import { boxMesh } from '../src/demo/boxMesh.ts'
+import { boxMesh } from '../src/model/boxMesh.ts'
 import type { Model } from '../src/model/model.ts'
-import type { SyntheticSpec } from './engineTypes.ts'
+import type { SyntheticSpec } from './protocol.ts'
 
 /** Largest generated model (elements), so a typed hash cannot exhaust memory. */
 export const MAX_SYNTHETIC_ELEMENTS = 2_000_000

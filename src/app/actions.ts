@@ -3,10 +3,10 @@
  * worker client; nothing O(elements) happens here.
  */
 import { download, fileStem } from './exports.ts'
-import { loadSource, onModelLoaded } from './engine.ts'
+import { engine } from './engine.ts'
 import type { AppSource } from './engine.ts'
 import { composeSnapshot } from './snapshot.ts'
-import { defaultMapFor, useStore } from './store.ts'
+import { useStore } from '../state/store.ts'
 import { buildViewLink, parseViewLink } from './urlHash.ts'
 import type { ViewLink } from './urlHash.ts'
 
@@ -54,7 +54,7 @@ export function demoSource(d: DemoEntry): AppSource {
 
 export async function openFiles(files: readonly File[]): Promise<void> {
   if (files.length === 0) return
-  await loadSource({ kind: 'files', files: [...files] })
+  await engine.load({ kind: 'files', files: [...files] })
 }
 
 export async function takeSnapshot(scale: number): Promise<void> {
@@ -66,7 +66,7 @@ export async function takeSnapshot(scale: number): Promise<void> {
     const stamp = new Date().toISOString().slice(0, 16).replace(/[:T]/g, '-')
     download(`${fileStem(st.model?.name ?? 'tractus')}-${stamp}-${scale}x.png`, blob)
   } catch (e) {
-    st.set({ error: { message: `The snapshot could not be made: ${e instanceof Error ? e.message : String(e)}` } })
+    st.showError({ message: `The snapshot could not be made: ${e instanceof Error ? e.message : String(e)}` })
   }
 }
 
@@ -88,13 +88,7 @@ let pendingView: ViewLink | null = null
 
 /** Applies the parts of a link that do not need a model, and keeps the rest for after the load. */
 function applyImmediate(v: ViewLink): void {
-  const st = useStore.getState()
-  st.set({
-    ...(v.quantity ? { quantity: v.quantity } : {}),
-    ...(v.colourMap ? { colourMap: v.colourMap } : v.quantity ? { colourMap: defaultMapFor(v.quantity) } : {}),
-    ...(v.units ? { units: v.units } : {}),
-    ...(v.range ? { range: v.range } : {}),
-  })
+  useStore.getState().applyViewSettings(v)
 }
 
 function applyAfterLoad(): void {
@@ -102,8 +96,8 @@ function applyAfterLoad(): void {
   pendingView = null
   if (!v) return
   const st = useStore.getState()
-  if (v.range) st.set({ range: v.range })
-  if (v.section) st.setSection({ ...v.section, dragging: false })
+  if (v.range) st.setRange(v.range)
+  if (v.section) st.setSection(v.section)
   // The scene fits every new model in the render that shows it; asking for the linked camera a
   // moment later lands after that fit instead of being replaced by it.
   const cam = v.camera
@@ -129,9 +123,9 @@ export async function startFromHash(): Promise<void> {
   const v = parseViewLink(window.location.hash)
   applyImmediate(v)
   pendingView = v
-  onModelLoaded(() => applyAfterLoad())
-  const ok = await loadSource(await sourceForLink(v))
-  if (!ok && !useStore.getState().model) await loadSource(FALLBACK_SOURCE)
+  engine.onModelLoaded(() => applyAfterLoad())
+  const ok = await engine.load(await sourceForLink(v))
+  if (!ok && !useStore.getState().model) await engine.load(FALLBACK_SOURCE)
 }
 
 /** A link pasted into this tab: load its model if it names another one, then apply the view. */
@@ -142,7 +136,7 @@ export async function followHash(): Promise<void> {
   const wantKey = v.model?.kind === 'demo' ? `demo:${v.model.id}` : v.model?.kind === 'block' ? `synthetic:block:${v.model.elements}` : null
   if (wantKey && wantKey !== cur) {
     pendingView = v
-    await loadSource(await sourceForLink(v))
+    await engine.load(await sourceForLink(v))
   } else {
     pendingView = v
     applyAfterLoad()

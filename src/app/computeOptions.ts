@@ -4,12 +4,7 @@
  * alone), `sharing=copy` hands the model to the pool by copies even where shared memory is
  * available. Anything else is ignored.
  */
-export interface ComputeOptions {
-  /** Workers for element-parallel kernels; absent = one per core (at most 4). */
-  readonly threads?: number
-  /** 'copy' forces the copying hand-over; absent = shared memory where the page allows it. */
-  readonly sharing?: 'copy'
-}
+import type { ComputeOptions } from '../../workers/protocol.ts'
 
 export function computeOptionsFromHash(hash: string): ComputeOptions {
   let params: URLSearchParams

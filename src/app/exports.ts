@@ -5,7 +5,7 @@
 import type { LoadPatch, SectionResult } from '../mechanics/types.ts'
 import type { ModelUnits, Quantity, UnitSystem } from '../model/units.ts'
 import { convert, unitLabel } from './format.ts'
-import type { ModelSummary } from './store.ts'
+import type { ModelSummary } from '../../workers/protocol.ts'
 
 export interface FigureRow {
   readonly key: string

@@ -1,11 +1,11 @@
 /**
  * Number formatting for display: model units → the chosen unit system, four significant figures,
  * a real minus sign, and the unit on every value. The raw model-unit value stays available to
- * tests and exports through `data-model` attributes (see Value in cards/Value.tsx).
+ * tests and exports through `data-model` attributes (see Num in ui/Num.tsx).
  */
 import { displayFactor, displayUnitLabel } from '../model/units.ts'
 import type { ModelUnits, Quantity, UnitSystem } from '../model/units.ts'
-import type { QuantityName } from './store.ts'
+import type { QuantityName } from '../state/store.ts'
 
 export function formatNumber(v: number, digits = 4): string {
   if (!Number.isFinite(v)) return Number.isNaN(v) ? '—' : v > 0 ? '∞' : '−∞'
@@ -26,10 +26,6 @@ export function convert(v: number, units: ModelUnits, q: Quantity, system: UnitS
 
 export function unitLabel(q: Quantity, system: UnitSystem): string {
   return displayUnitLabel(q, system)
-}
-
-export function formatQuantity(v: number, units: ModelUnits, q: Quantity, system: UnitSystem): string {
-  return `${formatNumber(convert(v, units, q, system))} ${unitLabel(q, system)}`
 }
 
 export const QUANTITY_LABEL: Readonly<Record<QuantityName, string>> = {

@@ -7,8 +7,7 @@ import { download, fileStem } from './exports.ts'
 import { buildReportContent } from './reportContent.ts'
 import { renderReport } from './reportDocument.ts'
 import { composeSnapshot } from './snapshot.ts'
-import { useStore } from './store.ts'
-import { useSweepStore } from './sweepState.ts'
+import { useStore } from '../state/store.ts'
 
 function blobToDataUrl(b: Blob): Promise<string> {
   return new Promise((resolve, reject) => {
@@ -29,10 +28,9 @@ export async function buildReportHtml(): Promise<string> {
     const w = canvas?.clientWidth || 960, h = canvas?.clientHeight || 600
     snapshot = await blobToDataUrl(await composeSnapshot(st, w, h, 1, canvas))
   } catch { snapshot = null /* the report still carries every table */ }
-  const sw = useSweepStore.getState()
   const content = buildReportContent({
     model: st.model, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
-    section: st.section.enabled ? st.sectionResult : null, sweep: sw.sweep, shown: sw.shown, snapshot,
+    section: st.section.enabled ? st.sectionResult : null, sweep: st.sweep, shown: st.sweepShown, snapshot,
   })
   return renderReport(content)
 }
@@ -44,6 +42,6 @@ export async function exportReport(): Promise<void> {
     const stamp = new Date().toISOString().slice(0, 16).replace(/[:T]/g, '-')
     download(`${fileStem(st.model?.name ?? 'tractus')}-review-${stamp}.html`, html, 'text/html')
   } catch (e) {
-    st.set({ error: { message: `The review report could not be made: ${e instanceof Error ? e.message : String(e)}` } })
+    st.showError({ message: `The review report could not be made: ${e instanceof Error ? e.message : String(e)}` })
   }
 }

@@ -6,14 +6,12 @@
 import type { SectionResult } from '../mechanics/types.ts'
 import type { UnitSystem } from '../model/units.ts'
 import { displayUnitLabel } from '../model/units.ts'
-import type { SweepReply } from '../../workers/engineTypes.ts'
 import { diagramGeometry } from './diagramGeometry.ts'
 import type { DiagramGeometry } from './diagramGeometry.ts'
 import { patchRow, sectionRows } from './exports.ts'
 import { convert, formatNumber } from './format.ts'
-import type { AuditSummary, ModelSummary } from './store.ts'
+import type { AuditSummary, ModelSummary, SeriesKey, SweepReply } from '../../workers/protocol.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
-import type { SeriesKey } from './sweepSeries.ts'
 
 export interface ReportTable {
   readonly kind: 'table'

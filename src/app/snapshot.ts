@@ -5,12 +5,12 @@
  * HTML), so a model name with markup stays text.
  */
 import { CAUTION } from './caution.ts'
-import { colourMapTable } from './colourMaps.ts'
+import { colourMapTable } from '../scene/colourMaps.ts'
 import { sectionRows } from './exports.ts'
 import { formatNumber, QUANTITY_LABEL, quantityDisplay } from './format.ts'
 import { snapshotLayout } from './snapshotLayout.ts'
-import { activeRange, sectionPlaneOf } from './store.ts'
-import type { ColourMapName, TractusState } from './store.ts'
+import { activeRange, sectionPlaneOf } from '../state/selectors.ts'
+import type { ColourMapName, TractusState } from '../state/store.ts'
 import { sectionColouring } from '../scene/index.ts'
 
 type Picture = HTMLCanvasElement | OffscreenCanvas

@@ -6,10 +6,10 @@
 import type { ModelUnits, UnitSystem } from '../model/units.ts'
 import { displayFactor, displayUnitLabel } from '../model/units.ts'
 import type { Vec3 } from '../model/model.ts'
-import type { SweepReply } from '../../workers/engineTypes.ts'
+import type { SeriesKey, SweepReply } from '../../workers/protocol.ts'
 import { formatNumber } from './format.ts'
 
-export type SeriesKey = 'axial' | 'shear1' | 'shear2' | 'torque' | 'bending1' | 'bending2'
+export type { SeriesKey }
 
 export interface SeriesInfo {
   readonly key: SeriesKey

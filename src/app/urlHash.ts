@@ -8,10 +8,9 @@
  * hide=positive|negative|none, cam=px,py,pz,tx,ty,tz,ux,uy,uz,fov.
  */
 import type { Vec3 } from '../model/model.ts'
-import { QUANTITY_NAMES } from './store.ts'
-import type { CameraState, ColourMapName, ColourRange, QuantityName, SectionState } from './store.ts'
+import { COLOUR_MAP_NAMES, QUANTITY_NAMES } from '../state/store.ts'
+import type { CameraState, ColourMapName, ColourRange, QuantityName, SectionState } from '../state/store.ts'
 import type { UnitSystem } from '../model/units.ts'
-import { COLOUR_MAP_NAMES } from './colourMaps.ts'
 
 export interface ViewLink {
   model?: { kind: 'demo'; id: string } | { kind: 'block'; elements: number }

@@ -4,16 +4,15 @@ import type { PerspectiveCamera } from 'three'
 import { useThree } from '@react-three/fiber'
 import { OrbitControls } from '@react-three/drei'
 import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib'
-import { useStore } from '../app/store.ts'
-import type { ModelSummary, ViewRequest } from '../app/store.ts'
+import { useStore } from '../state/store.ts'
+import type { ViewRequest } from '../state/store.ts'
+import { modelSphere as boundsSphere } from '../state/selectors.ts'
+import type { ModelSummary } from '../../workers/protocol.ts'
 import { defaultViewDirection, frameSphere, setClipPlanes, upForBodyForce } from './frameSphere.ts'
 
 function modelSphere(m: ModelSummary): { center: Vector3; radius: number } {
-  const { min, max } = m.bounds
-  return {
-    center: new Vector3((min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2),
-    radius: 0.5 * Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]),
-  }
+  const { center, radius } = boundsSphere(m.bounds)
+  return { center: new Vector3(center[0], center[1], center[2]), radius }
 }
 
 /**
@@ -40,7 +39,7 @@ export function CameraRig() {
   const report = useCallback(() => {
     if (!controls) return
     const p = camera.position, t = controls.target, u = camera.up
-    useStore.getState().set({ camera: { position: [p.x, p.y, p.z], target: [t.x, t.y, t.z], up: [u.x, u.y, u.z], fov: camera.fov } })
+    useStore.getState().cameraMoved({ position: [p.x, p.y, p.z], target: [t.x, t.y, t.z], up: [u.x, u.y, u.z], fov: camera.fov })
   }, [camera, controls])
 
   const apply = useCallback((req: ViewRequest, m: ModelSummary | null) => {

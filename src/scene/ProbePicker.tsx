@@ -1,6 +1,6 @@
 import { useEffect } from 'react'
 import { useThree } from '@react-three/fiber'
-import { useStore } from '../app/store.ts'
+import { useStore } from '../state/store.ts'
 import { rayFromPointer } from './rayFromPointer.ts'
 
 /** A press that moves farther than this (CSS pixels) is an orbit, not a click. */

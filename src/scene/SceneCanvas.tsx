@@ -1,7 +1,7 @@
 import { useMemo } from 'react'
 import type { ReactNode } from 'react'
 import { Canvas } from '@react-three/fiber'
-import { useStore } from '../app/store.ts'
+import { useStore } from '../state/store.ts'
 import { classifyRenderer, probeRenderer, rendererName } from './rendererKind.ts'
 import { rawColour } from './rawColour.ts'
 import { BACKGROUND } from './sceneLook.ts'
@@ -29,7 +29,7 @@ export function SceneCanvas({ children }: { children?: ReactNode }) {
           gl.localClippingEnabled = true
           gl.setClearColor(rawColour(BACKGROUND), 1)
           const kind = classifyRenderer(rendererName(gl.getContext()))
-          useStore.getState().set({ renderer: kind === 'unknown' ? probe.kind : kind })
+          useStore.getState().setRenderer(kind === 'unknown' ? probe.kind : kind)
         }}
       >
         {children}

@@ -1,5 +1,6 @@
 import { useMemo } from 'react'
-import { activeRange, sectionPlaneOf, useStore } from '../app/store.ts'
+import { activeRange, modelSphere, sectionPlaneOf } from '../state/selectors.ts'
+import { useStore } from '../state/store.ts'
 import { ArrowField } from './ArrowField.tsx'
 import { CameraRig } from './CameraRig.tsx'
 import { FeatureEdges } from './FeatureEdges.tsx'
@@ -16,12 +17,7 @@ import { useClippingPlanes } from './useClippingPlanes.ts'
 /** Model sphere from the summary bounds: centre and radius, length units. */
 function useModelSphere(): { center: [number, number, number]; radius: number; diagonal: number } | null {
   const model = useStore((s) => s.model)
-  return useMemo(() => {
-    if (!model) return null
-    const { min, max } = model.bounds
-    const diagonal = Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) || 1
-    return { center: [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2], radius: diagonal / 2, diagonal }
-  }, [model])
+  return useMemo(() => (model ? modelSphere(model.bounds) : null), [model])
 }
 
 /** Everything inside the canvas; reads the store, holds no state of its own. */

@@ -1,7 +1,8 @@
 import { useEffect, useMemo } from 'react'
 import { BufferAttribute, BufferGeometry } from 'three'
 import { useThree } from '@react-three/fiber'
-import type { ColourMapName, SectionBuffers } from '../app/store.ts'
+import type { SectionBuffers } from '../../workers/protocol.ts'
+import type { ColourMapName } from '../state/store.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
 import { createScalarMaterial } from './scalarMaterial.ts'
 

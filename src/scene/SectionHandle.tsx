@@ -3,8 +3,9 @@ import { BufferAttribute, BufferGeometry, LineBasicMaterial, LineLoop, MeshBasic
 import type { PerspectiveCamera } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { ThreeEvent } from '@react-three/fiber'
-import { sectionPlaneOf, useStore } from '../app/store.ts'
-import type { SectionState } from '../app/store.ts'
+import { sectionPlaneOf } from '../state/selectors.ts'
+import { useStore } from '../state/store.ts'
+import type { SectionState } from '../state/store.ts'
 import { unitArrowGeometry } from './arrowGeometry.ts'
 import { closestOnLine } from './closestOnLine.ts'
 import { rawColour } from './rawColour.ts'
@@ -34,8 +35,9 @@ function basis(n: Vector3): [Vector3, Vector3] {
 /**
  * The section plane drawn as an outline with an arrow along its normal. Dragging the arrow moves
  * the plane along the normal: the pointer ray's closest point on the normal line gives the new
- * offset, written to the store at most once per animation frame; orbiting is off while dragging.
- * Kept out of snapshots (userData.noSnapshot).
+ * offset, handed to the store's section drag (beginSectionDrag / dragSection / endSectionDrag,
+ * the protocol the offset slider uses too) at most once per animation frame; the plane on screen
+ * follows with each cut. Orbiting is off while dragging. Kept out of snapshots (userData.noSnapshot).
  */
 export function SectionHandle({ section, center, radius, cut }: SectionHandleProps) {
   const camera = useThree((s) => s.camera) as PerspectiveCamera
@@ -107,11 +109,11 @@ export function SectionHandle({ section, center, radius, cut }: SectionHandlePro
     let pendingOffset = startOffset
     if (controls) controls.enabled = false
     setDragging(true)
-    state.setSection({ dragging: true })
+    state.beginSectionDrag()
 
     const flush = () => {
       frame.current = 0
-      useStore.getState().setSection({ offset: pendingOffset })
+      useStore.getState().dragSection(pendingOffset)
     }
     const move = (ev: PointerEvent) => {
       const s = closestOnLine(P, n, rayFromPointer(ev.clientX, ev.clientY, gl.domElement, camera))
@@ -127,7 +129,7 @@ export function SectionHandle({ section, center, radius, cut }: SectionHandlePro
       if (frame.current) { cancelAnimationFrame(frame.current); frame.current = 0 }
       if (controls) controls.enabled = true
       setDragging(false)
-      useStore.getState().setSection({ offset: pendingOffset, dragging: false })
+      useStore.getState().endSectionDrag(pendingOffset)
     }
     window.addEventListener('pointermove', move)
     window.addEventListener('pointerup', up)

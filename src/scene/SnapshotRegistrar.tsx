@@ -1,6 +1,6 @@
 import { useEffect } from 'react'
 import { useThree } from '@react-three/fiber'
-import { useStore } from '../app/store.ts'
+import { useStore } from '../state/store.ts'
 import { renderViewToCanvas } from './captureView.ts'
 
 /**
@@ -20,9 +20,9 @@ export function SnapshotRegistrar() {
       invalidate()
       return canvas
     }
-    useStore.getState().set({ snapshotRenderer: render })
+    useStore.getState().setSnapshotRenderer(render)
     return () => {
-      if (useStore.getState().snapshotRenderer === render) useStore.getState().set({ snapshotRenderer: null })
+      if (useStore.getState().snapshotRenderer === render) useStore.getState().setSnapshotRenderer(null)
     }
   }, [gl, scene, camera, invalidate])
   return null

@@ -1,10 +1,11 @@
 import { useEffect, useMemo } from 'react'
 import { BackSide, BufferAttribute, BufferGeometry, FrontSide, Sphere, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
-import type { QuantityName, SurfaceBuffers } from '../app/store.ts'
+import type { SurfaceBuffers } from '../../workers/protocol.ts'
+import type { QuantityName } from '../state/store.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
 import { createScalarMaterial } from './scalarMaterial.ts'
-import type { ColourMapName } from '../app/store.ts'
+import type { ColourMapName } from '../state/store.ts'
 import type { Plane } from 'three'
 
 export interface SurfaceMeshProps {

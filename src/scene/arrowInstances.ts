@@ -1,7 +1,8 @@
 import { Matrix4, Quaternion, Vector3 } from 'three'
 import type { InstancedMesh } from 'three'
-import { colourMapTable } from '../app/colourMaps.ts'
-import type { ArrowBuffers, ColourMapName } from '../app/store.ts'
+import type { ArrowBuffers } from '../../workers/protocol.ts'
+import type { ColourMapName } from '../state/store.ts'
+import { colourMapTable } from './colourMaps.ts'
 
 const DIVERGING: ReadonlySet<ColourMapName> = new Set(['RdBu', 'PuOr'])
 

@@ -1,5 +1,5 @@
-import { colourMapTable } from '../app/colourMaps.ts'
-import type { ColourMapName } from '../app/store.ts'
+import type { ColourMapName } from '../state/store.ts'
+import { colourMapTable } from './colourMaps.ts'
 
 /**
  * A CSS `linear-gradient(...)` of a colour map, low end on the left, from the same 256-entry

@@ -1,6 +1,6 @@
 import { ClampToEdgeWrapping, DataTexture, LinearFilter, NoColorSpace, RGBAFormat, UnsignedByteType } from 'three'
-import { colourMapTable } from '../app/colourMaps.ts'
-import type { ColourMapName } from '../app/store.ts'
+import type { ColourMapName } from '../state/store.ts'
+import { colourMapTable } from './colourMaps.ts'
 
 const cache = new Map<ColourMapName, DataTexture>()
 

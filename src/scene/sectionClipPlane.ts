@@ -1,7 +1,7 @@
 import { Vector3 } from 'three'
 import type { Plane } from 'three'
-import { sectionPlaneOf } from '../app/store.ts'
-import type { SectionState } from '../app/store.ts'
+import { sectionPlaneOf } from '../state/selectors.ts'
+import type { SectionState } from '../state/store.ts'
 
 /** Offset that puts the plane beyond any model: nothing is clipped, yet the shader keeps its plane. */
 export const NOWHERE = 1e30

@@ -1,5 +1,5 @@
-import { activeRange, isSignedQuantity } from '../app/store.ts'
-import type { ColourMapName, TractusState } from '../app/store.ts'
+import { activeRange, isSignedQuantity } from '../state/selectors.ts'
+import type { ColourMapName, TractusData } from '../state/store.ts'
 
 /**
  * Colours of the section face. When the surface shows the same quantity as the section
@@ -7,7 +7,7 @@ import type { ColourMapName, TractusState } from '../app/store.ts'
  * reads both; otherwise it gets its own range from its data: symmetric about zero on the
  * diverging map for normal traction, from zero on viridis for the shear magnitude.
  */
-export function sectionColouring(s: Pick<TractusState, 'quantity' | 'range' | 'surface' | 'colourMap' | 'section' | 'sectionBuffers'>): {
+export function sectionColouring(s: Pick<TractusData, 'quantity' | 'range' | 'surface' | 'colourMap' | 'section' | 'sectionBuffers'>): {
   map: ColourMapName; range: readonly [number, number]; sharedWithSurface: boolean
 } {
   const q = s.section.traction

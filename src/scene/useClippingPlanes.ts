@@ -1,7 +1,7 @@
 import { useEffect, useMemo } from 'react'
 import { Plane, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
-import { useStore } from '../app/store.ts'
+import { useStore } from '../state/store.ts'
 import { NOWHERE, sectionClipPlane } from './sectionClipPlane.ts'
 
 /**

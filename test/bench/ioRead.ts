@@ -7,7 +7,7 @@
  * machine the CPU time is the steadier figure.
  * Run: npx tsx test/bench/ioRead.ts [cellsPerSide=60]
  */
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { readNative, writeNative } from '../../src/io/nativeContainer.ts'

@@ -1,6 +1,6 @@
 // Quick timing of the mechanics core on a 10^6-element tet4 box (seeded, checks outside the timed
 // part). Run: npx tsx test/bench/mechanicsCoreQuick.ts [cellsPerSide]
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 

@@ -13,7 +13,7 @@
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import type { Model, Vec3 } from '../../src/model/model.ts'
 import { DEFAULT_UNITS } from '../../src/model/units.ts'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 
 export const FIELD = { A: 1e6, B: 5e5, C: -2e5, D: 3e5, gamma: 2.35e4, E: 1e5, F: -1.5e5, G: 2e5 } as const
 

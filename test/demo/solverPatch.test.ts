@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { addFaceLoads } from '../../src/demo/consistentLoads.ts'
 import { hexBoundaryFaces, selectFaces } from '../../src/demo/hexFaces.ts'
 import { solveElastic } from '../../src/demo/solveElastic.ts'

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { readFileSync, writeFileSync } from 'node:fs'
-import { colourMapTable } from '../../src/app/colourMaps.ts'
+import { colourMapTable } from '../../src/scene/colourMaps.ts'
 import { snapshotLayout } from '../../src/app/snapshotLayout.ts'
 import { newPage, useBrowserSession, OUT_DIR, pixelsAt, pixelStats, waitForCut, waitForModel } from './browser.ts'
 import type { Page } from 'playwright-core'

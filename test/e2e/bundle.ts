@@ -3,7 +3,7 @@
  * Invented data: a hex8 box carrying the end-loaded cantilever field of Timoshenko & Goodier,
  * Theory of Elasticity, 3rd ed. (1970), §21 (σx = -Pxy/I, τxy = -(P/2I)(c² - y²)).
  */
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { writeCsvBundle } from '../../src/io/index.ts'
 import type { Model } from '../../src/model/model.ts'
 

@@ -1,6 +1,7 @@
 /**
  * Starts `vite preview` of the built app on 127.0.0.1:4173 for the end-to-end tests and stops it
- * afterwards. `npm run e2e` builds first; a missing dist/ is an error that says so.
+ * afterwards. `npm run e2e` builds first, as the end-to-end build (`vite build --mode e2e`, the
+ * release build plus the hooks of src/app/testHooks.ts); a missing dist/ is an error that says so.
  */
 import { spawn } from 'node:child_process'
 import type { ChildProcess } from 'node:child_process'
@@ -26,7 +27,7 @@ async function waitForServer(timeoutMs: number): Promise<void> {
 
 export async function setup(): Promise<void> {
   const root = resolve(import.meta.dirname, '../..')
-  if (!existsSync(resolve(root, 'dist/index.html'))) throw new Error('dist/ is missing: run `vite build` first (npm run e2e does).')
+  if (!existsSync(resolve(root, 'dist/index.html'))) throw new Error('dist/ is missing: run `vite build --mode e2e` first (npm run e2e does).')
   const vite = resolve(root, 'node_modules/vite/bin/vite.js')
   server = spawn(process.execPath, [vite, 'preview', '--host', '127.0.0.1', '--port', '4173', '--strictPort'], {
     cwd: root, stdio: ['ignore', 'pipe', 'pipe'],

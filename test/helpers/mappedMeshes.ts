@@ -1,5 +1,5 @@
 /**
- * Test meshes made by mapping a structured box (src/demo/boxMesh.ts) through a coordinate map,
+ * Test meshes made by mapping a structured box (src/model/boxMesh.ts) through a coordinate map,
  * so quadratic types get curved edges for free: the box's mid-edge nodes sit at parameter
  * midpoints and land on the true arcs.
  * - quarterCylinder: (r, θ, z) ∈ [a, b] × [0, π/2] × [0, L] → (r cos θ, r sin θ, z), for the
@@ -7,7 +7,7 @@
  *   are ordinary boundary faces here).
  * - mixedBox: cells of a structured box split into several element types that conform.
  */
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { createMesh } from '../../src/model/createMesh.ts'
 import type { BlockInput } from '../../src/model/createMesh.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'

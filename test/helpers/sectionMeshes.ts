@@ -3,7 +3,7 @@
  * model, merged multi-type blocks, and a thick-walled cylinder (annulus × height) in hex8 or tet4.
  * Geometry only; the expected values live beside each check in the tests.
  */
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { createMesh } from '../../src/model/createMesh.ts'
 import type { BlockInput } from '../../src/model/createMesh.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'

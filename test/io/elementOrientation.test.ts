@@ -5,7 +5,7 @@
  * src/model/elementTypes.ts. Each case is also run rotated, as the volume must not depend on it.
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { ELEMENT_TYPES } from '../../src/model/elementTypes.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import { MIRROR_PERMUTATION, checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'

@@ -1,12 +1,12 @@
 /**
- * Test models: box meshes (src/demo/boxMesh.ts) carrying an analytic stress field, the end-loaded
+ * Test models: box meshes (src/model/boxMesh.ts) carrying an analytic stress field, the end-loaded
  * cantilever of Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), §21:
  * σx = -P x y / I, τxy = -(P / 2I)(c² - y²), σy = σz = τyz = τxz = 0, beam along x, depth 2c in y,
  * unit thickness in z (I = 2c³/3). The I/O tests only need exact numbers to round-trip; the
  * field keeps them realistic (mixed signs, zeros, non-integers).
  */
-import { boxMesh } from '../../src/demo/boxMesh.ts'
-import type { BoxSpec } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
+import type { BoxSpec } from '../../src/model/boxMesh.ts'
 import { createMesh } from '../../src/model/createMesh.ts'
 import type { BlockInput } from '../../src/model/createMesh.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'

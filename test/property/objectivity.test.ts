@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { computeNodalInvariants } from '../../src/mechanics/invariants.ts'

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import { maxAbs, runCore } from '../helpers/pipeline.ts'
 

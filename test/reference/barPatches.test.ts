@@ -5,7 +5,7 @@
  * lateral surface is traction-free.
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
 import { stressField } from '../helpers/mappedMeshes.ts'

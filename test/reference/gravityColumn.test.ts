@@ -5,7 +5,7 @@
  * base reaction equals the weight ρgV (statics).
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'

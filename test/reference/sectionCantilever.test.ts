@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 import type { Vec3 } from '../../src/model/model.ts'

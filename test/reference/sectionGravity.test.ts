@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { nodalStress } from '../helpers/sectionMeshes.ts'

@@ -6,7 +6,7 @@
  * forces and moments rotate with the body, F' = QF, M' = QM (objectivity).
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../src/model/boxMesh.ts'
 import type { Mesh } from '../../src/model/model.ts'
 import { mixedBox, quarterCylinder } from '../helpers/mappedMeshes.ts'
 import { FACE_NODES_BY_CODE, maxAbs, runCore } from '../helpers/pipeline.ts'

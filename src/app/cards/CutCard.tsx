@@ -1,25 +1,27 @@
-import { useState } from 'react'
 import type { Vec3 } from '../../model/model.ts'
-import { beginPacedDrag, endPacedDrag, setSectionPaced } from '../engine.ts'
 import { displayFactor } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
 import { Num, Vec } from '../ui/Num.tsx'
 import { NumberField } from '../ui/NumberField.tsx'
 import { download, fileStem, sectionCsv, sectionJson, sectionRows } from '../exports.ts'
 import { unitLabel } from '../format.ts'
-import { sectionPlaneOf, useStore } from '../store.ts'
+import { modelSphere, sectionPlaneOf } from '../../state/selectors.ts'
+import { useStore } from '../../state/store.ts'
 
 /**
- * The offset slider. While the pointer holds it, moves go through setSectionPaced (one cut at a
- * time, the newest move wins, the plane shown with its cut) and the thumb follows the pointer
- * from local state.
+ * The offset slider. While the pointer holds it, moves go through the store's section drag (the
+ * protocol the scene's handle uses too: one cut at a time, the newest step wins, the plane shown
+ * with its cut) and the thumb follows the pointer from the drag's target. Keys on the focused
+ * slider move the plane directly.
  */
 function OffsetSlider({ half }: { half: number }) {
   const offset = useStore((s) => s.section.offset)
-  const dragging = useStore((s) => s.section.dragging)
+  const target = useStore((s) => s.sectionDrag?.offset ?? null)
   const setSection = useStore((s) => s.setSection)
-  const [local, setLocal] = useState(offset)
-  const shown = dragging ? local : offset
+  const beginSectionDrag = useStore((s) => s.beginSectionDrag)
+  const dragSection = useStore((s) => s.dragSection)
+  const endSectionDrag = useStore((s) => s.endSectionDrag)
+  const shown = target ?? offset
   return (
     <label className="slider">
       <span className="lbl">Offset</span>
@@ -27,13 +29,12 @@ function OffsetSlider({ half }: { half: number }) {
         type="range" data-testid="cut-offset" min={-half} max={half} step={half / 500} value={shown}
         onChange={(e) => {
           const v = Number(e.target.value)
-          setLocal(v)
-          if (useStore.getState().section.dragging) setSectionPaced(v)
+          if (useStore.getState().section.dragging) dragSection(v)
           else setSection({ offset: v })
         }}
-        onPointerDown={() => { setLocal(offset); beginPacedDrag() }}
-        onPointerUp={() => endPacedDrag(local)}
-        onPointerCancel={() => endPacedDrag(local)}
+        onPointerDown={() => beginSectionDrag()}
+        onPointerUp={() => endSectionDrag()}
+        onPointerCancel={() => endSectionDrag()}
       />
       <Num v={shown} q="length" />
     </label>
@@ -47,13 +48,13 @@ export function CutCard() {
   const model = useStore((s) => s.model)
   const section = useStore((s) => s.section)
   const result = useStore((s) => s.sectionResult)
+  const inputError = useStore((s) => s.sectionInputError)
   const system = useStore((s) => s.units)
   const setSection = useStore((s) => s.setSection)
   if (!model) return null
   const Lf = displayFactor(model.units, 'length', system)
   const Lu = unitLabel('length', system)
-  const b = model.bounds
-  const half = Math.max(1e-12, Math.hypot(b.max[0] - b.min[0], b.max[1] - b.min[1], b.max[2] - b.min[2]) / 2)
+  const half = Math.max(1e-12, modelSphere(model.bounds).radius)
   const plane = sectionPlaneOf(section)
   const setPoint = (k: number, v: number): void => {
     const p = [...section.point] as Vec3
@@ -63,7 +64,8 @@ export function CutCard() {
   const setNormal = (k: number, v: number): void => {
     const n = [...section.normal] as Vec3
     n[k] = v
-    if (Math.hypot(...n) > 0) setSection({ normal: n })
+    // A normal with no direction is refused by the store, which keeps the previous plane and cut.
+    setSection({ normal: n })
   }
   const rows = result && !result.empty ? sectionRows(result, model.units, system) : []
   const byKey = new Map(rows.map((r) => [r.key, r]))
@@ -85,12 +87,13 @@ export function CutCard() {
         <>
           <div className="row">
             <span className="lbl">Point [{Lu}]</span>
-            {[0, 1, 2].map((k) => <NumberField key={k} label={'xyz'[k]} value={section.point[k] * Lf} onCommit={(v) => setPoint(k, v)} testId={`cut-p${'xyz'[k]}`} />)}
+            {[0, 1, 2].map((k) => <NumberField key={k} label={'xyz'[k]} value={section.point[k] * Lf} onCommit={(v) => setPoint(k, v)} testId={`cut-p${'xyz'[k]}`} invalid={inputError?.field === 'point'} />)}
           </div>
           <div className="row">
             <span className="lbl">Normal</span>
-            {[0, 1, 2].map((k) => <NumberField key={k} label={'xyz'[k]} value={section.normal[k]} onCommit={(v) => setNormal(k, v)} testId={`cut-n${'xyz'[k]}`} width={4} />)}
+            {[0, 1, 2].map((k) => <NumberField key={k} label={'xyz'[k]} value={section.normal[k]} onCommit={(v) => setNormal(k, v)} testId={`cut-n${'xyz'[k]}`} width={4} invalid={inputError?.field === 'normal'} />)}
           </div>
+          {inputError ? <p className="note bad" data-testid="cut-input-error">{inputError.message}. The previous plane is kept.</p> : null}
           <div className="row">
             <span className="lbl">Snap</span>
             {AXES.map(([name, n]) => (

@@ -1,6 +1,6 @@
 import { Card } from '../ui/Card.tsx'
 import { Num, VecRow } from '../ui/Num.tsx'
-import { useStore } from '../store.ts'
+import { useStore } from '../../state/store.ts'
 
 /** Whole-body balance, the spread of the element indicator and the traction left on free surface. */
 export function EquilibriumCard() {

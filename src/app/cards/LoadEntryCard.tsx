@@ -1,7 +1,7 @@
 import { Card } from '../ui/Card.tsx'
 import { Num } from '../ui/Num.tsx'
 import { download, fileStem, patchesCsv, patchesJson } from '../exports.ts'
-import { useStore } from '../store.ts'
+import { useStore } from '../../state/store.ts'
 
 /** Load-entry patches from the audit: list, highlight, frame, export. */
 export function LoadEntryCard() {
@@ -9,7 +9,7 @@ export function LoadEntryCard() {
   const model = useStore((s) => s.model)
   const highlighted = useStore((s) => s.highlightedPatch)
   const system = useStore((s) => s.units)
-  const set = useStore((s) => s.set)
+  const highlightPatch = useStore((s) => s.highlightPatch)
   const requestView = useStore((s) => s.requestView)
   if (!audit || !model) return null
   const patches = audit.patches
@@ -22,7 +22,7 @@ export function LoadEntryCard() {
           <tbody>
             {patches.map((p) => (
               <tr key={p.id} className={p.id === highlighted ? 'sel' : ''} data-patch={p.id}
-                onClick={() => set({ highlightedPatch: p.id === highlighted ? -1 : p.id })}>
+                onClick={() => highlightPatch(p.id === highlighted ? -1 : p.id)}>
                 <td>{p.id}</td>
                 <td><Num v={p.area} q="area" /></td>
                 <td><Num v={Math.hypot(...p.force)} q="force" /></td>
@@ -30,7 +30,7 @@ export function LoadEntryCard() {
                 <td>
                   <button type="button" title="Frame this patch" onClick={(e) => {
                     e.stopPropagation()
-                    set({ highlightedPatch: p.id })
+                    highlightPatch(p.id)
                     requestView({ frame: { center: p.centroid, radius: Math.max(Math.sqrt(p.area), 1e-9), normal: p.normal } })
                   }}>Frame</button>
                 </td>

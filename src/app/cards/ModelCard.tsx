@@ -1,5 +1,5 @@
-import { useStore } from '../store.ts'
-import type { ModelSummary } from '../store.ts'
+import { useStore } from '../../state/store.ts'
+import type { ModelSummary } from '../../../workers/protocol.ts'
 import { Card } from '../ui/Card.tsx'
 
 type Compute = NonNullable<ModelSummary['compute']>

@@ -2,7 +2,7 @@ import { useState } from 'react'
 import { Card } from '../ui/Card.tsx'
 import { takeSnapshot } from '../actions.ts'
 import { ReportButton } from '../ui/ReportButton.tsx'
-import { useStore } from '../store.ts'
+import { useStore } from '../../state/store.ts'
 
 /** PNG for design reviews, the link that restores this view, and the one-file review report. */
 export function SnapshotCard() {

@@ -4,10 +4,10 @@ import { displayFactor, displayUnitLabel } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
 import { NumberField } from '../ui/NumberField.tsx'
 import { SweepChart } from '../ui/SweepChart.tsx'
-import { requestSweep } from '../engine.ts'
+import { engine } from '../engine.ts'
 import { formatNumber } from '../format.ts'
-import { sectionPlaneOf, useStore } from '../store.ts'
-import { useSweepStore } from '../sweepState.ts'
+import { sectionPlaneOf } from '../../state/selectors.ts'
+import { useStore } from '../../state/store.ts'
 import { offsetForPosition, positionAlong, SERIES, worstResidual } from '../sweepSeries.ts'
 import './sweepCard.css'
 
@@ -26,7 +26,10 @@ export function SweepCard() {
   const model = useStore((s) => s.model)
   const system = useStore((s) => s.units)
   const section = useStore((s) => s.section)
-  const { sweep, shown, running, set } = useSweepStore()
+  const sweep = useStore((s) => s.sweep)
+  const shown = useStore((s) => s.sweepShown)
+  const running = useStore((s) => s.sweepRunning)
+  const showSweepSeries = useStore((s) => s.showSweepSeries)
   const [direction, setDirection] = useState<Direction>('section')
   const [count, setCount] = useState(100)
   const [wide, setWide] = useState(false)
@@ -43,13 +46,11 @@ export function SweepCard() {
   if (!model) return null
   const run = async (): Promise<void> => {
     const n: Vec3 = direction === 'section' ? sectionPlaneOf(section).normal : AXIS[direction]
-    set({ running: true })
+    useStore.getState().sweepStarted()
     setError('')
-    const out = await requestSweep(n, count)
-    set({ running: false })
-    if (!out) return
-    if (out.ok) set({ sweep: out.value })
-    else setError(out.error.message)
+    const out = await engine.sweep(n, count)
+    useStore.getState().sweepEnded(out?.ok ? out.value : null)
+    if (out && !out.ok) setError(out.error.message)
   }
   const plane = sectionPlaneOf(section)
   const marker = sweep && section.enabled ? positionAlong(plane.point, plane.normal, sweep.normal) : null
@@ -78,7 +79,7 @@ export function SweepCard() {
         <div className="row sweep-pick" role="group" aria-label="Quantities to plot">
           {SERIES.map((s) => (
             <label key={s.key} className="check" title={s.label}>
-              <input type="checkbox" data-testid={`sweep-show-${s.key}`} checked={shown[s.key]} onChange={(e) => set({ shown: { ...shown, [s.key]: e.target.checked } })} />
+              <input type="checkbox" data-testid={`sweep-show-${s.key}`} checked={shown[s.key]} onChange={(e) => showSweepSeries(s.key, e.target.checked)} />
               <span className="swatch" style={{ background: s.colour }} aria-hidden />{s.symbol}
             </label>
           ))}

@@ -1,9 +1,10 @@
 import { useEffect, useRef } from 'react'
 import { sectionColouring } from '../../scene/index.ts'
-import { colourMapTable } from '../colourMaps.ts'
+import { colourMapTable } from '../../scene/colourMaps.ts'
 import { formatNumber, QUANTITY_LABEL, quantityDisplay } from '../format.ts'
-import { activeRange, useStore } from '../store.ts'
-import type { ColourMapName } from '../store.ts'
+import { activeRange } from '../../state/selectors.ts'
+import { useStore } from '../../state/store.ts'
+import type { ColourMapName } from '../../state/store.ts'
 
 function Bar({ testId, title, unit, map, lo, hi, factor, note }: { testId: string; title: string; unit: string; map: ColourMapName; lo: number; hi: number; factor: number; note: string }) {
   const ref = useRef<HTMLCanvasElement>(null)
@@ -35,19 +36,29 @@ function Bar({ testId, title, unit, map, lo, hi, factor, note }: { testId: strin
  * traction when the section face has its own map or range.
  */
 export function ColourBar() {
-  const st = useStore((s) => s)
-  if (!st.model) return null
-  const { factor, unit } = quantityDisplay(st.quantity, st.model.units, st.units)
-  const [lo, hi] = activeRange(st)
-  const sec = st.section.enabled && st.sectionBuffers ? sectionColouring(st) : null
-  const secDisp = quantityDisplay(st.section.traction, st.model.units, st.units)
+  const model = useStore((s) => s.model)
+  const system = useStore((s) => s.units)
+  const quantity = useStore((s) => s.quantity)
+  const colourMap = useStore((s) => s.colourMap)
+  const auto = useStore((s) => s.range === 'auto')
+  // Select numbers, not fresh arrays: a selector returning a new array each call never settles.
+  const lo = useStore((s) => activeRange(s)[0])
+  const hi = useStore((s) => activeRange(s)[1])
+  const traction = useStore((s) => s.section.traction)
+  const ownSectionBar = useStore((s) => s.section.enabled && s.sectionBuffers !== null && !sectionColouring(s).sharedWithSurface)
+  const sectionMap = useStore((s) => sectionColouring(s).map)
+  const sectionLo = useStore((s) => sectionColouring(s).range[0])
+  const sectionHi = useStore((s) => sectionColouring(s).range[1])
+  if (!model) return null
+  const { factor, unit } = quantityDisplay(quantity, model.units, system)
+  const secDisp = quantityDisplay(traction, model.units, system)
   return (
     <div className="colourbars">
-      <Bar testId="colour-bar" title={QUANTITY_LABEL[st.quantity]} unit={unit} map={st.colourMap} lo={lo} hi={hi} factor={factor}
-        note={st.range === 'auto' ? 'auto range' : 'fixed range'} />
-      {sec && !sec.sharedWithSurface ? (
-        <Bar testId="section-colour-bar" title={`Section: ${QUANTITY_LABEL[st.section.traction]}`} unit={secDisp.unit} map={sec.map}
-          lo={sec.range[0]} hi={sec.range[1]} factor={secDisp.factor} note="section range" />
+      <Bar testId="colour-bar" title={QUANTITY_LABEL[quantity]} unit={unit} map={colourMap} lo={lo} hi={hi} factor={factor}
+        note={auto ? 'auto range' : 'fixed range'} />
+      {ownSectionBar ? (
+        <Bar testId="section-colour-bar" title={`Section: ${QUANTITY_LABEL[traction]}`} unit={secDisp.unit} map={sectionMap}
+          lo={sectionLo} hi={sectionHi} factor={secDisp.factor} note="section range" />
       ) : null}
     </div>
   )

@@ -1,6 +1,6 @@
 import type { Quantity } from '../../model/units.ts'
 import { convert, formatNumber, unitLabel } from '../format.ts'
-import { useStore } from '../store.ts'
+import { useStore } from '../../state/store.ts'
 
 /**
  * One number with its unit, converted to the chosen system. `data-model` keeps the full-precision

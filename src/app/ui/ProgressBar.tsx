@@ -1,5 +1,5 @@
-import { cancelLoad } from '../engine.ts'
-import { useStore } from '../store.ts'
+import { engine } from '../engine.ts'
+import { useStore } from '../../state/store.ts'
 
 export function ProgressBar() {
   const busy = useStore((s) => s.busy)
@@ -10,7 +10,7 @@ export function ProgressBar() {
     <div className="progress" data-testid="progress" role="status">
       <div className="bar"><div className="fill" style={{ width: `${f * 100}%` }} /></div>
       <span className="stage">{p?.stage ?? 'Working'}… <span className="num">{Math.round(f * 100)} %</span></span>
-      <button type="button" data-testid="cancel" onClick={() => void cancelLoad()}>Cancel <kbd>Esc</kbd></button>
+      <button type="button" data-testid="cancel" onClick={() => void engine.cancelLoad()}>Cancel <kbd>Esc</kbd></button>
     </div>
   )
 }

@@ -9,10 +9,9 @@ import uPlot from 'uplot'
 import 'uplot/dist/uPlot.min.css'
 import type { ModelUnits, UnitSystem } from '../../model/units.ts'
 import { displayFactor, displayUnitLabel } from '../../model/units.ts'
-import type { SweepReply } from '../../../workers/engineTypes.ts'
+import type { SeriesKey, SweepReply } from '../../../workers/protocol.ts'
 import { formatNumber } from '../format.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, zeroAlignedRanges } from '../sweepSeries.ts'
-import type { SeriesKey } from '../sweepSeries.ts'
 
 export interface SweepChartProps {
   readonly sweep: SweepReply

@@ -1,15 +1,16 @@
 import { useEffect, useState } from 'react'
 import { demos, demoSource } from '../actions.ts'
 import type { DemoEntry } from '../actions.ts'
-import { loadSource } from '../engine.ts'
+import { engine } from '../engine.ts'
 import { QuantitySelect } from '../cards/ColourCard.tsx'
-import { useStore } from '../store.ts'
+import { useStore } from '../../state/store.ts'
 
 /** Slim bar: model name, quantity, units switch, open, demos, help. The name is React text only. */
 export function TopBar({ onOpen }: { onOpen: () => void }) {
   const model = useStore((s) => s.model)
   const units = useStore((s) => s.units)
-  const set = useStore((s) => s.set)
+  const setUnits = useStore((s) => s.setUnits)
+  const setHelpOpen = useStore((s) => s.setHelpOpen)
   const busy = useStore((s) => s.busy)
   const [list, setList] = useState<DemoEntry[]>([])
   useEffect(() => { void demos().then(setList) }, [])
@@ -23,20 +24,20 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
       <QuantitySelect testId="quantity" />
       <div className="seg" role="group" aria-label="Units">
         {(['SI', 'US'] as const).map((u) => (
-          <button key={u} type="button" data-testid={`units-${u}`} aria-pressed={units === u} className={units === u ? 'on' : ''} onClick={() => set({ units: u })}>
+          <button key={u} type="button" data-testid={`units-${u}`} aria-pressed={units === u} className={units === u ? 'on' : ''} onClick={() => setUnits(u)}>
             {u === 'SI' ? 'SI' : 'US'}
           </button>
         ))}
       </div>
       {list.length ? (
         <select value={current} data-testid="demo-select" aria-label="Demo model" disabled={busy}
-          onChange={(e) => { const d = list.find((x) => x.id === e.target.value); if (d) void loadSource(demoSource(d)) }}>
+          onChange={(e) => { const d = list.find((x) => x.id === e.target.value); if (d) void engine.load(demoSource(d)) }}>
           <option value="" disabled>Demo models…</option>
           {list.map((d) => <option key={d.id} value={d.id}>{d.name}</option>)}
         </select>
       ) : null}
       <button type="button" data-testid="open" onClick={onOpen} disabled={busy}>Open… <kbd>O</kbd></button>
-      <button type="button" data-testid="help" onClick={() => set({ helpOpen: true })} aria-label="Keyboard shortcuts">?</button>
+      <button type="button" data-testid="help" onClick={() => setHelpOpen(true)} aria-label="Keyboard shortcuts">?</button>
     </header>
   )
 }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { buildReportContent } from '../../../src/app/reportContent.ts'
 import type { ReportInput, ReportTable } from '../../../src/app/reportContent.ts'
 import { CAUTION } from '../../../src/app/caution.ts'
-import type { SweepReply } from '../../../workers/engineTypes.ts'
+import type { SweepReply } from '../../../workers/protocol.ts'
 
 const f = (...v: number[]): Float64Array => Float64Array.from(v)
 const sweep: SweepReply = {

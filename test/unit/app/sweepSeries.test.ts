@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import type { SweepReply } from '../../../workers/engineTypes.ts'
+import type { SweepReply } from '../../../workers/protocol.ts'
 import { nearestIndex, offsetForPosition, positionAlong, seriesInDisplay, sweepTable, worstResidual, zeroAlignedRanges } from '../../../src/app/sweepSeries.ts'
 
 const mmMPa = { length: 'mm', stress: 'MPa' } as const

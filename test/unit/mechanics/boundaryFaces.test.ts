@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { createMesh } from '../../../src/model/createMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 import { isInputError } from '../../../src/model/errors.ts'

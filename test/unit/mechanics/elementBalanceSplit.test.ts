@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { createMesh } from '../../../src/model/createMesh.ts'
 import { meshSlice, splitRanges } from '../../../src/model/meshRange.ts'
 import { allocateElementBalance, computeElementBalance } from '../../../src/mechanics/balanceAudit.ts'

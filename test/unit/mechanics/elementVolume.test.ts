@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 import { elementCentroids, elementVolumes } from '../../../src/mechanics/elementVolume.ts'
 import { quarterCylinder } from '../../helpers/mappedMeshes.ts'

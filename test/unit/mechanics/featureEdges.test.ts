@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { buildFeatureEdges } from '../../../src/mechanics/featureEdges.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 
 describe('buildFeatureEdges', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { findLoadPatches } from '../../../src/mechanics/loadPatches.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
 import { runCore } from '../../helpers/pipeline.ts'

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions, tractionAt } from '../../../src/mechanics/tractions.ts'
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { InstancedBufferAttribute, InstancedMesh, Matrix4, Vector3, BufferGeometry, MeshBasicMaterial } from 'three'
 import { writeArrowInstances } from '../../../src/scene/arrowInstances.ts'
-import type { ArrowBuffers } from '../../../src/app/store.ts'
+import type { ArrowBuffers } from '../../../workers/protocol.ts'
 
 /** Where the unit arrow's tail (0,0,0) and tip (0,1,0) land under instance i's matrix. */
 function ends(mesh: InstancedMesh, i: number): { tail: Vector3; tip: Vector3 } {

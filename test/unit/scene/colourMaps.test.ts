@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { colourMapTable } from '../../../src/app/colourMaps.ts'
+import { colourMapTable } from '../../../src/scene/colourMaps.ts'
 
 const hex = (h: string): [number, number, number] => [parseInt(h.slice(1, 3), 16), parseInt(h.slice(3, 5), 16), parseInt(h.slice(5, 7), 16)]
 const entry = (t: Uint8Array, i: number): [number, number, number] => [t[4 * i], t[4 * i + 1], t[4 * i + 2]]

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { Plane, Vector3 } from 'three'
 import { sectionClipPlane } from '../../../src/scene/sectionClipPlane.ts'
-import { DEFAULT_SECTION } from '../../../src/app/store.ts'
+import { DEFAULT_SECTION } from '../../../src/state/store.ts'
 
 // three.js clips points whose signed distance to a clipping plane is negative (three.js docs,
 // Material.clippingPlanes).

@@ -4,7 +4,7 @@
  * single-threaded kernel in the same storage precision, bit for bit.
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { allocateElementBalance, computeElementBalance } from '../../../src/mechanics/balanceAudit.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from '../../../workers/kernelPool.ts'
 import type { PoolEndpoint, Sharing } from '../../../workers/kernelPool.ts'

@@ -9,7 +9,7 @@
  * Values come from d3-scale-chromatic (the published tables), not typed in by hand.
  */
 import { interpolateCividis, interpolatePuOr, interpolateRdBu, interpolateViridis } from 'd3-scale-chromatic'
-import type { ColourMapName } from './store.ts'
+import type { ColourMapName } from '../state/store.ts'
 
 const INTERPOLATORS: Readonly<Record<ColourMapName, (t: number) => string>> = {
   viridis: interpolateViridis,
@@ -17,8 +17,6 @@ const INTERPOLATORS: Readonly<Record<ColourMapName, (t: number) => string>> = {
   RdBu: (t) => interpolateRdBu(1 - t),
   PuOr: (t) => interpolatePuOr(1 - t),
 }
-
-export const COLOUR_MAP_NAMES: readonly ColourMapName[] = ['viridis', 'cividis', 'RdBu', 'PuOr']
 
 /** Parses "rgb(r, g, b)" or "#rrggbb" into 0..255 components. */
 function parseColour(s: string, out: Uint8Array, at: number): void {
@@ -47,10 +45,4 @@ export function colourMapTable(name: ColourMapName, n = 256): Uint8Array {
     cache.set(key, t)
   }
   return t
-}
-
-/** CSS colour at t in [0, 1] (clamped). */
-export function colourAt(name: ColourMapName, t: number): string {
-  const f = INTERPOLATORS[name] ?? interpolateViridis
-  return f(Math.min(1, Math.max(0, Number.isFinite(t) ? t : 0)))
 }

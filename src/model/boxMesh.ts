@@ -1,7 +1,7 @@
-import type { ElementTypeName } from '../model/elementTypes.ts'
-import { ELEMENT_TYPES } from '../model/elementTypes.ts'
-import { createMesh } from '../model/createMesh.ts'
-import type { Mesh } from '../model/model.ts'
+import type { ElementTypeName } from './elementTypes.ts'
+import { ELEMENT_TYPES } from './elementTypes.ts'
+import { createMesh } from './createMesh.ts'
+import type { Mesh } from './model.ts'
 
 /**
  * Structured meshes of a box [x0, x0+lx] × [y0, y0+ly] × [z0, z0+lz] with nx × ny × nz cells,

@@ -1,0 +1,389 @@
+/**
+ * The engine client: the app's one line to the engine worker, as a small object made by
+ * `createEngineClient(deps)` (no module state; the worker factory, the store and the frame clock
+ * are handed in, so Node tests drive it with a fake worker). It runs one job at a time, reacts to
+ * the store's requests once `watch()` is on (a plane, a drag step, a probe ray, arrow settings),
+ * reports every reply through the store's named actions, and on cancel or a crash ends the
+ * worker, starts a fresh one and reloads the last good model, so the user keeps what they had.
+ *
+ * Section cuts follow one protocol, whatever moves the plane (the offset slider, the handle in the
+ * scene, the keys, a typed value, a link):
+ * - the latest plane wins: while a cut is in flight, a request only replaces the one pending
+ *   request, and when the running cut's frame is out the newest pending one is sent, once; so a
+ *   drag never queues more than one job behind the one in flight, and the worker never computes
+ *   while that frame is drawn (on two cores the cut and a software rasteriser would slow each
+ *   other down);
+ * - during a drag (the store's beginSectionDrag … endSectionDrag) a step's plane is shown only
+ *   together with its cut, so the clipped surface and the section face move as one; the first
+ *   step waits for the frame the grab itself causes; the release cuts once more, with the arrows
+ *   a software renderer leaves out while dragging;
+ * - every job belongs to the worker generation it was sent to, and a reply from before a restart
+ *   is dropped.
+ */
+import type { StoreApi } from 'zustand'
+import { checkModelSize } from '../io/sizeGuard.ts'
+import { isInputError } from '../model/errors.ts'
+import type { Vec3 } from '../model/model.ts'
+import { sectionPlaneOf } from '../state/selectors.ts'
+import type { TractusState } from '../state/store.ts'
+import type {
+  AppError, ComputeOptions, CutReply, EngineCalls, EngineFile, LoadedModel, ModelSource, Outcome, Progress, SweepReply, SyntheticSpec,
+} from '../../workers/protocol.ts'
+
+/** Where a model comes from, in a form that can be loaded again after a restart. */
+export type AppSource =
+  | { readonly kind: 'demo'; readonly id: string; readonly url: string; readonly file: string }
+  | { readonly kind: 'files'; readonly files: readonly File[] }
+  | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
+
+/** A running engine worker as the client sees it. */
+export interface EngineConnection {
+  readonly calls: EngineCalls
+  /** Ends the worker at once; calls in flight never answer. */
+  terminate(): void
+}
+
+export interface EngineClientDeps {
+  /** Starts an engine worker; `onFailure` is called when it dies outside a call (its error event). */
+  readonly createWorker: (onFailure: (message: string) => void) => EngineConnection
+  readonly store: StoreApi<TractusState>
+  /** How the engine may use the machine, read when a worker starts (default: no settings). */
+  readonly computeOptions?: () => ComputeOptions
+  /** Runs `cb` once the next frame is out (default: an animation frame, then a task). */
+  readonly afterFrame?: (cb: () => void) => void
+  /** Reads a demo model (default: the global fetch). */
+  readonly fetch?: (url: string) => Promise<Response>
+  /** Each cut's request-to-reply time, for the browser tests' figures (default: a User Timing measure 'tractus:cut'). */
+  readonly cutTimed?: (askedAt: number, computeMs: number | null) => void
+}
+
+export interface EngineClient {
+  /** Reacts to the store's requests from now on; returns the function that stops it. */
+  watch(): () => void
+  /**
+   * Loads a model. On an input error the error card shows and the previous model stays. `quiet`
+   * (used after a restart) keeps the current error card. True when the model is shown.
+   */
+  load(source: AppSource, opts?: { quiet?: boolean }): Promise<boolean>
+  /** Stops a running load: the worker is ended and restarted, the last good model reloaded. */
+  cancelLoad(): Promise<void>
+  /**
+   * Sections along `normal` (model extent when from/to are left out). Resolves to null when a
+   * restart dropped the job; input problems come back as {ok: false}.
+   */
+  sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply> | null>
+  /** Runs `job` in turn; an unexpected failure shows in the error card and the engine restarts. Null then. */
+  runJob<T>(job: (calls: EngineCalls) => Promise<T>): Promise<T | null>
+  /** Called after each successful load (the app applies a pending link view then). */
+  onModelLoaded(cb: ((source: AppSource) => void) | null): void
+  /** Ends the worker; the client starts a new one if asked again. */
+  dispose(): void
+}
+
+/** A cut to send: the section as in the store, moved to `offset`; `paced`: a drag step. */
+interface CutAsk {
+  readonly offset: number
+  readonly paced: boolean
+}
+
+/** Runs `cb` after the next animation frame has been produced (rAF, then a task after it). */
+function afterNextFrame(cb: () => void): void {
+  if (typeof requestAnimationFrame !== 'function' || (typeof document !== 'undefined' && document.hidden)) { setTimeout(cb, 0); return }
+  requestAnimationFrame(() => setTimeout(cb, 0))
+}
+
+/** Request to reply of a cut, as a User Timing entry the browser tests read (nothing more). */
+function measureCut(askedAt: number, computeMs: number | null): void {
+  if (typeof performance.measure === 'function') performance.measure('tractus:cut', { start: askedAt, detail: computeMs === null ? null : { computeMs } })
+}
+
+/** CSV and JSON travel as text; anything else (the binary container) as bytes. */
+async function readFile(f: File): Promise<EngineFile> {
+  const lower = f.name.toLowerCase()
+  if (lower.endsWith('.csv') || lower.endsWith('.json') || lower.endsWith('.txt')) return { name: f.name, data: await f.text() }
+  return { name: f.name, data: await f.arrayBuffer() }
+}
+
+/** True for the errors a browser raises when it cannot give the memory asked for. */
+function isOutOfMemory(e: unknown): boolean {
+  return e instanceof Error && (e.name === 'RangeError' || /out of memory|allocation failed/i.test(e.message))
+}
+
+/** Words for an unexpected engine failure; running out of memory gets its own advice. */
+function failureMessage(e: unknown, during: string): string {
+  const message = e instanceof Error ? e.message : String(e)
+  return isOutOfMemory(e)
+    ? `The browser ran out of memory ${during} (${message}). The previous model is kept; try a smaller or coarser model, or close other tabs.`
+    : `The engine failed ${during}: ${message}. The previous model is kept.`
+}
+
+function cutKey(plane: { point: readonly number[]; normal: readonly number[] }, mode: string, budget: number): string {
+  return `${plane.point.join(',')}|${plane.normal.join(',')}|${mode}|${budget}`
+}
+
+export function createEngineClient(deps: EngineClientDeps): EngineClient {
+  const { store } = deps
+  const afterFrame = deps.afterFrame ?? afterNextFrame
+  const fetchUrl = deps.fetch ?? ((url: string) => fetch(url))
+  const cutTimed = deps.cutTimed ?? measureCut
+
+  let handle: EngineConnection | null = null
+  let queue: Promise<unknown> = Promise.resolve()
+  /** Worker generation: a restart moves it on, and replies of an older one are dropped. */
+  let generation = 0
+  let lastGood: AppSource | null = null
+  let afterLoad: ((source: AppSource) => void) | null = null
+  let cutInFlight = false
+  /** The newest cut asked for while one was in flight (or before a drag's first frame). */
+  let cutPending: CutAsk | null = null
+  /** True from the start of a drag until its first frame is out (that frame must not share the CPU). */
+  let dragStartGate = false
+  /** Plane, arrow mode and budget of the cut on screen, so an unchanged request does nothing. */
+  let shownKey = ''
+  let probeInFlight = false
+
+  function connection(): EngineConnection {
+    if (handle) return handle
+    const h: EngineConnection = deps.createWorker((message) => {
+      if (handle === h) void recover({ message: `The engine stopped: ${message || 'an unexpected error'}. The previous model is being reloaded.` })
+    })
+    handle = h
+    void h.calls.configure(deps.computeOptions?.() ?? {}).catch(() => undefined)
+    return h
+  }
+
+  /** Runs jobs one after another; a job queued before a restart is dropped by its generation. */
+  function enqueue<T>(job: (calls: EngineCalls) => Promise<T>): Promise<T> {
+    const gen = generation
+    const run = queue.then(() => (gen === generation ? job(connection().calls) : Promise.reject(new Error('cancelled'))))
+    queue = run.catch(() => undefined)
+    return run
+  }
+
+  function restart(): void {
+    generation++
+    handle?.terminate()
+    handle = null
+    queue = Promise.resolve()
+    cutInFlight = false
+    cutPending = null
+    dragStartGate = false
+    probeInFlight = false
+    shownKey = ''
+  }
+
+  async function recover(error: AppError): Promise<void> {
+    restart()
+    store.getState().loadEnded(error)
+    if (lastGood) await load(lastGood, { quiet: true })
+  }
+
+  async function toModelSource(s: AppSource): Promise<ModelSource> {
+    if (s.kind === 'synthetic') return { kind: 'synthetic', spec: s.spec }
+    if (s.kind === 'files') {
+      checkModelSize(s.files.map((f) => ({ name: f.name, size: f.size })))
+      return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(',') }
+    }
+    const res = await fetchUrl(s.url)
+    if (!res.ok) throw new Error(`Could not read the demo model ${s.file} (HTTP ${res.status}).`)
+    const data = s.file.toLowerCase().endsWith('.json') ? await res.text() : await res.arrayBuffer()
+    const name = s.file.split('/').pop() ?? s.file
+    return { kind: 'files', files: [{ name, data }], label: `demo:${s.id}` }
+  }
+
+  async function load(source: AppSource, opts: { quiet?: boolean } = {}): Promise<boolean> {
+    store.getState().loadStarted({ keepError: !!opts.quiet })
+    let src: ModelSource
+    try {
+      src = await toModelSource(source)
+    } catch (e) {
+      const err = isInputError(e) ? { message: e.message, file: e.where.file, hint: 'Choose a smaller model.' } : { message: e instanceof Error ? e.message : String(e) }
+      store.getState().loadEnded(err)
+      return false
+    }
+    const gen = generation
+    try {
+      const onProgress = (p: Progress): void => { if (gen === generation) store.getState().loadProgress(p) }
+      const out = await enqueue<Outcome<LoadedModel>>((calls) => calls.load(src, onProgress))
+      if (gen !== generation) return false
+      if (!out.ok) { store.getState().loadEnded(out.error); return false }
+      lastGood = source
+      shownKey = ''
+      store.getState().modelLoaded(out.value)
+      afterLoad?.(source)
+      void refreshSurfaceArrows()
+      requestCut()
+      return true
+    } catch (e) {
+      if (gen !== generation) return false
+      // A real failure inside the worker: show it, start a fresh worker with the last good model.
+      await recover({ message: failureMessage(e, 'while loading') })
+      return false
+    }
+  }
+
+  async function cancelLoad(): Promise<void> {
+    restart()
+    store.getState().loadEnded()
+    if (lastGood) await load(lastGood, { quiet: true })
+  }
+
+  async function refreshSurfaceArrows(): Promise<void> {
+    const st = store.getState()
+    if (!st.model || !st.arrowSettings.surface) { if (st.arrows) st.surfaceArrowsShown(null); return }
+    const gen = generation
+    const { mode, budget } = st.arrowSettings
+    try {
+      const a = await enqueue((calls) => calls.surfaceArrows({ mode, budget }))
+      if (gen === generation) store.getState().surfaceArrowsShown(a)
+    } catch { /* dropped by a restart */ }
+  }
+
+  /** Asks for a cut of the store's current plane (not a drag step). */
+  function requestCut(): void {
+    const st = store.getState()
+    if (!st.model) return
+    if (!st.section.enabled) {
+      shownKey = ''
+      if (st.sectionResult || st.sectionBuffers) st.cutCleared()
+      return
+    }
+    ask({ offset: st.section.offset, paced: false })
+  }
+
+  /** The one entry of every cut: sent now, or kept as the one pending request (the newest wins). */
+  function ask(a: CutAsk): void {
+    if (cutInFlight || dragStartGate) { cutPending = a; return }
+    startCut(a)
+  }
+
+  /** Sends the pending request, if any, once the previous cut's frame is out. */
+  function sendPending(): void {
+    const next = cutPending
+    cutPending = null
+    if (!next) return
+    // A drag step left over after the release: the release asked for its own cut.
+    if (next.paced) { if (store.getState().section.dragging) startCut(next) } else requestCut()
+  }
+
+  function startCut(a: CutAsk): void {
+    const st = store.getState()
+    if (!st.model || !st.section.enabled) return
+    const plane = sectionPlaneOf({ ...st.section, offset: a.offset })
+    const { mode } = st.arrowSettings
+    // Software WebGL pays for every arrow on every frame (the compositor waits for the picture):
+    // while the plane is being dragged there, the section arrows are left out; they return on release.
+    const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
+    const key = cutKey(plane, mode, budget)
+    if (!a.paced && key === shownKey && st.sectionResult) return
+    cutInFlight = true
+    const gen = generation
+    const asked = performance.now()
+    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }))
+      .then((out) => {
+        if (gen !== generation) return
+        cutTimed(asked, out.ok ? out.value.computeMs : null)
+        const now = store.getState()
+        // A drag step's cut that arrives after the release is stale: the release asked for a newer cut.
+        if (a.paced && !now.section.dragging) return
+        if (!out.ok) { now.showError(out.error); return }
+        shownKey = key
+        now.cutShown(out.value.result, out.value.buffers, a.paced ? a.offset : undefined)
+      })
+      .catch((e) => {
+        if (gen === generation) store.getState().showError({ message: `The section could not be computed: ${e instanceof Error ? e.message : String(e)}` })
+      })
+      .finally(() => {
+        if (gen !== generation) return
+        afterFrame(() => {
+          if (gen !== generation) return
+          cutInFlight = false
+          sendPending()
+        })
+      })
+  }
+
+  /** A drag began: its first step waits for the frame the grab itself causes. */
+  function dragStarted(): void {
+    dragStartGate = true
+    const gen = generation
+    afterFrame(() => {
+      if (gen !== generation) return
+      dragStartGate = false
+      if (!cutInFlight) sendPending()
+    })
+  }
+
+  /** Intersects the stored probe ray in the worker (the latest ray wins). */
+  function runProbe(): void {
+    const st = store.getState()
+    const ray = st.probeRay
+    if (!ray || !st.model || probeInFlight) return
+    probeInFlight = true
+    const gen = generation
+    const section = st.section.enabled ? { plane: sectionPlaneOf(st.section), hide: st.section.hide } : null
+    enqueue((calls) => calls.probe({ ray, section }))
+      .then((r) => { if (gen === generation) store.getState().probeShown(r) })
+      .catch(() => undefined)
+      .finally(() => {
+        if (gen !== generation) return
+        probeInFlight = false
+        if (store.getState().probeRay !== ray) runProbe()
+      })
+  }
+
+  function watch(): () => void {
+    return store.subscribe((s, p) => {
+      if (s.section !== p.section) {
+        const a = s.section, b = p.section
+        if (a.dragging && !b.dragging) dragStarted()
+        // Only the plane and the switch change the cut; hide, fill and dragging are drawing matters,
+        // and an offset that changes during a drag came with its own cut. The release cuts once
+        // more, with the arrows the drag left out.
+        if (a.enabled !== b.enabled || a.point !== b.point || a.normal !== b.normal ||
+            (a.offset !== b.offset && !a.dragging) || (b.dragging && !a.dragging)) requestCut()
+      }
+      // A drag step (the grab itself only records where the drag starts).
+      if (s.sectionDrag && p.sectionDrag && s.sectionDrag !== p.sectionDrag && s.section.dragging) ask({ offset: s.sectionDrag.offset, paced: true })
+      const x = s.arrowSettings, y = p.arrowSettings
+      if (x !== y) {
+        if (x.mode !== y.mode || x.budget !== y.budget) requestCut()
+        if (x.surface !== y.surface || x.mode !== y.mode || x.budget !== y.budget) void refreshSurfaceArrows()
+      }
+      if (s.probeRay !== p.probeRay && s.probeRay) runProbe()
+    })
+  }
+
+  async function sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply> | null> {
+    const gen = generation
+    try {
+      const out = await enqueue<Outcome<SweepReply>>((calls) => calls.sweep(normal, count, from, to))
+      return gen === generation ? out : null
+    } catch (e) {
+      if (gen !== generation) return null
+      return { ok: false, error: { message: `The sweep could not be computed: ${e instanceof Error ? e.message : String(e)}` } }
+    }
+  }
+
+  async function runJob<T>(job: (calls: EngineCalls) => Promise<T>): Promise<T | null> {
+    const gen = generation
+    try {
+      return await enqueue(job)
+    } catch (e) {
+      if (gen === generation) await recover({ message: failureMessage(e, 'in the engine') })
+      return null
+    }
+  }
+
+  return {
+    watch,
+    load,
+    cancelLoad,
+    sweep,
+    runJob,
+    onModelLoaded(cb) { afterLoad = cb },
+    dispose() {
+      restart()
+    },
+  }
+}

@@ -1,0 +1,40 @@
+/**
+ * Starts the engine worker in the browser and speaks comlink to it: the factory the app hands to
+ * `createEngineClient` (src/app/engineClient.ts). Model files travel by transfer, the progress
+ * callback as a comlink proxy. A worker that dies outside a call reports through `onFailure`.
+ */
+import * as Comlink from 'comlink'
+import type { CrashKind, EngineApi, EngineCalls, ModelSource } from '../../workers/protocol.ts'
+import type { EngineConnection } from './engineClient.ts'
+
+function transferList(src: ModelSource): Transferable[] {
+  if (src.kind !== 'files') return []
+  return src.files.flatMap((f) => (typeof f.data === 'string' ? [] : [f.data]))
+}
+
+export function startEngineWorker(onFailure: (message: string) => void): EngineConnection {
+  const worker = new Worker(new URL('../../workers/engine.worker.ts', import.meta.url), { type: 'module', name: 'tractus-engine' })
+  const remote = Comlink.wrap<Required<EngineApi>>(worker)
+  worker.addEventListener('error', (ev) => {
+    ev.preventDefault()
+    onFailure(ev.message)
+  })
+  const calls: EngineCalls = {
+    configure: (options) => remote.configure(options),
+    load: (source, onProgress) => remote.load(Comlink.transfer(source, transferList(source)), onProgress ? Comlink.proxy(onProgress) : undefined),
+    surfaceArrows: (req) => remote.surfaceArrows(req),
+    cut: (plane, arrows) => remote.cut(plane, arrows),
+    probe: (req) => remote.probe(req),
+    sweep: (normal, count, from, to) => remote.sweep(normal, count, from, to),
+    dispose: () => remote.dispose(),
+    // The end-to-end build only; the release build drops it (see workers/engine.worker.ts).
+    ...(import.meta.env.MODE === 'e2e' ? { crash: (kind: CrashKind) => remote.crash(kind) } : {}),
+  }
+  return {
+    calls,
+    terminate() {
+      remote[Comlink.releaseProxy]()
+      worker.terminate()
+    },
+  }
+}

@@ -1,0 +1,45 @@
+/**
+ * Values derived from the store's fields, for the cards, the scene and the engine client alike.
+ * Pure functions of the state (no store access, type imports only), so a selector can call them and tests can too.
+ */
+import type { Plane } from '../mechanics/plane.ts'
+import { unitNormal } from '../mechanics/plane.ts'
+import type { ColourMapName, QuantityName, SectionState, TractusData } from './store.ts'
+
+/** Signed quantities get a diverging map centred on zero; magnitudes a sequential one. */
+export function isSignedQuantity(q: QuantityName): boolean {
+  return q === 'normalTraction' || q === 'principal1' || q === 'principal3'
+}
+
+export function defaultMapFor(q: QuantityName): ColourMapName {
+  return isSignedQuantity(q) ? 'RdBu' : 'viridis'
+}
+
+/**
+ * The plane in use: unit normal, point moved by `offset` along it (length units). The store
+ * refuses a zero or non-finite normal (`setSection`), so this never meets one.
+ */
+export function sectionPlaneOf(s: SectionState): Plane {
+  const n = unitNormal(s.normal, 'section normal')
+  const [px, py, pz] = s.point
+  return { point: [px + s.offset * n[0], py + s.offset * n[1], pz + s.offset * n[2]], normal: n }
+}
+
+/** The colour range in use for the current quantity (model units), resolving 'auto'. */
+export function activeRange(s: Pick<TractusData, 'range' | 'quantity' | 'surface'>): readonly [number, number] {
+  if (s.range !== 'auto') return s.range
+  const r = s.surface?.ranges[s.quantity] ?? [0, 1]
+  if (isSignedQuantity(s.quantity)) {
+    // Diverging maps centre on zero: a symmetric range keeps white at zero.
+    const a = Math.max(Math.abs(r[0]), Math.abs(r[1])) || 1
+    return [-a, a]
+  }
+  return r[0] === r[1] ? [r[0], r[0] + 1] : r
+}
+
+/** The model's bounding sphere from the summary bounds: centre, radius and diagonal (length units). */
+export function modelSphere(bounds: { readonly min: readonly number[]; readonly max: readonly number[] }): { center: [number, number, number]; radius: number; diagonal: number } {
+  const { min, max } = bounds
+  const diagonal = Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) || 1
+  return { center: [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2], radius: diagonal / 2, diagonal }
+}

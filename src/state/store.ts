@@ -1,0 +1,356 @@
+/**
+ * The one store of the app (zustand): what the cards and the scene both read, and the named
+ * actions that change it. Actions only change fields: no worker calls, no O(elements) work. The
+ * engine client (src/app/engineClient.ts) watches the store and turns requests into worker jobs
+ * (a new plane, a drag step, a probe ray, new arrow settings), then reports the replies through
+ * the actions of the "engine replies" group below.
+ *
+ * Units: unless a doc comment says otherwise, every number is in MODEL units (length L and stress S
+ * of `model.units`; force S·L², moment S·L³). Conversion to the display system happens only when a
+ * value is shown (src/model/units.ts `toDisplay`), so switching SI/US never touches buffers.
+ *
+ * Buffers arrive from the worker as transferables; treat them as immutable (replace, never mutate),
+ * so a React/r3f component can key its geometry on the array identity.
+ *
+ * Read it with narrow selectors (`useStore((s) => s.quantity)`), never the whole state, so a
+ * component renders again only when what it shows changes.
+ */
+import { create } from 'zustand'
+import { createStore } from 'zustand/vanilla'
+import type { StateCreator, StoreApi } from 'zustand'
+import type { Vec3 } from '../model/model.ts'
+import type { UnitSystem } from '../model/units.ts'
+import { isInputError } from '../model/errors.ts'
+import { checkPoint, unitNormal } from '../mechanics/plane.ts'
+import type { SectionResult } from '../mechanics/types.ts'
+import { SURFACE_QUANTITIES } from '../mechanics/surfaceTriangles.ts'
+import type {
+  AppError, ArrowBuffers, ArrowMode, AuditSummary, LoadedModel, ModelSummary, ProbeRay, ProbeResult, Progress,
+  SectionBuffers, SurfaceBuffers, SurfaceQuantity,
+} from '../../workers/protocol.ts'
+import { defaultMapFor, isSignedQuantity, modelSphere } from './selectors.ts'
+import { createSweepSlice } from './sweepSlice.ts'
+import type { SweepSlice } from './sweepSlice.ts'
+
+/** Scalar quantities the surface can be coloured by (the worker's buffer builder defines them). */
+export type QuantityName = SurfaceQuantity
+export const QUANTITY_NAMES: readonly QuantityName[] = SURFACE_QUANTITIES
+
+/**
+ * Published colour map names (viridis/cividis sequential, ColorBrewer RdBu/PuOr diverging).
+ * Tables: src/scene/colourMaps.ts `colourMapTable(name, 256)` (RGBA8, low end first), shared by the
+ * shader and the colour bar. Map t = (value - range[0]) / (range[1] - range[0]) clamped to [0, 1].
+ */
+export type ColourMapName = 'viridis' | 'cividis' | 'RdBu' | 'PuOr'
+export const COLOUR_MAP_NAMES: readonly ColourMapName[] = ['viridis', 'cividis', 'RdBu', 'PuOr']
+
+export interface ArrowSettings {
+  /** Show arrows on the surface. */
+  readonly surface: boolean
+  /** Show arrows on the section face. */
+  readonly section: boolean
+  readonly mode: ArrowMode
+  /** Dimensionless length factor (see ArrowBuffers for the drawn length). */
+  readonly scale: number
+  /** Largest number of arrows kept after decimation by area (count). */
+  readonly budget: number
+  /** 'magnitude': arrows coloured by |v| with the current colour map; 'single': one colour. */
+  readonly colour: 'magnitude' | 'single'
+}
+
+/**
+ * The cutting plane the user controls. The plane used is point + offset·n̂ with unit normal n̂
+ * (see `sectionPlaneOf`). `point` length units, `normal` any non-zero finite vector (normalised on
+ * use; `setSection` refuses any other), `offset` length units along n̂. `hide`: which side of the
+ * plane is hidden in the scene ('positive' = the +n side, the side whose action the resultant
+ * reports), or 'none'. `traction`: which section traction colours the fill. `dragging`: true while
+ * the handle or the offset slider is held (see `beginSectionDrag`); on software WebGL the app then
+ * cuts without section arrows (they return on release).
+ */
+export interface SectionState {
+  readonly enabled: boolean
+  readonly point: Vec3
+  readonly normal: Vec3
+  readonly offset: number
+  readonly hide: 'positive' | 'negative' | 'none'
+  readonly traction: 'normalTraction' | 'shearTraction'
+  readonly dragging: boolean
+}
+
+/** Camera for the URL hash and restore: position/target length units, up unit, fov degrees. */
+export interface CameraState {
+  readonly position: Vec3
+  readonly target: Vec3
+  readonly up: Vec3
+  readonly fov: number
+}
+
+/**
+ * A request for the scene to move the camera; the scene applies it when `seq` changes.
+ * Either an exact `camera`, or `frame` a sphere (centre length units, radius length units) to fit.
+ */
+export interface ViewRequest {
+  readonly seq: number
+  readonly camera?: CameraState
+  readonly frame?: { readonly center: Vec3; readonly radius: number; /** Outward normal of what is framed, to look at it from outside; optional. */ readonly normal?: Vec3 }
+}
+
+/**
+ * Renders the current view off-screen at `width`×`height` device pixels and returns a canvas
+ * with the picture (no overlays); the scene registers it, the snapshot card composes overlays.
+ */
+export type SnapshotRenderer = (width: number, height: number) => HTMLCanvasElement | OffscreenCanvas | Promise<HTMLCanvasElement | OffscreenCanvas>
+
+/** Colour range: 'auto' follows the data; a fixed [min, max] in the quantity's MODEL units. */
+export type ColourRange = 'auto' | readonly [number, number]
+
+/** A typed value the store refused, with the reason in words; the card marks that field. */
+export interface FieldError {
+  readonly field: 'normal' | 'point'
+  readonly message: string
+}
+
+/** The fields of the store (no actions). */
+export interface TractusData {
+  readonly model: ModelSummary | null
+  readonly surface: SurfaceBuffers | null
+  readonly arrows: ArrowBuffers | null
+  readonly sectionBuffers: SectionBuffers | null
+
+  readonly quantity: QuantityName
+  readonly range: ColourRange
+  /** Map for the current quantity: sequential for magnitudes, diverging for signed (see setQuantity). */
+  readonly colourMap: ColourMapName
+  readonly arrowSettings: ArrowSettings
+
+  readonly section: SectionState
+  /** The offset the drag asks for while the section is dragged (length units), else null. */
+  readonly sectionDrag: { readonly offset: number } | null
+  /** The last section input the store refused (a zero normal, say), until a good one arrives. */
+  readonly sectionInputError: FieldError | null
+  readonly sectionResult: SectionResult | null
+  readonly audit: AuditSummary | null
+  /** Load-patch id to highlight, -1 for none. */
+  readonly highlightedPatch: number
+  readonly probeRay: ProbeRay | null
+  readonly probe: ProbeResult | null
+
+  readonly units: UnitSystem
+  /** Last camera reported by the scene (written on the end of a camera move). */
+  readonly camera: CameraState | null
+  readonly viewRequest: ViewRequest | null
+  readonly snapshotRenderer: SnapshotRenderer | null
+  /** 'software' when WebGL reports a software renderer (SwiftShader, llvmpipe); set by the scene. */
+  readonly renderer: 'hardware' | 'software' | 'unknown'
+
+  readonly busy: boolean
+  readonly progress: Progress | null
+  readonly error: AppError | null
+  readonly helpOpen: boolean
+}
+
+export interface TractusActions {
+  // What the user sets in the cards, by key or through a link.
+  /** Colours by `q`: the range goes back to auto, the map family follows the quantity's sign. */
+  setQuantity: (q: QuantityName) => void
+  setRange: (range: ColourRange) => void
+  setColourMap: (map: ColourMapName) => void
+  setUnits: (units: UnitSystem) => void
+  /** A link's view settings at once; a quantity without a map gets its default map. */
+  applyViewSettings: (v: { quantity?: QuantityName; range?: ColourRange; colourMap?: ColourMapName; units?: UnitSystem }) => void
+  setArrowSettings: (patch: Partial<ArrowSettings>) => void
+  /**
+   * Changes the section. A normal that is zero or not finite, or a point that is not finite, is
+   * refused: the store keeps the previous plane (and so the previous cut) and records why in
+   * `sectionInputError` for the card to show.
+   */
+  setSection: (patch: Partial<Omit<SectionState, 'dragging'>>) => void
+  highlightPatch: (id: number) => void
+  setHelpOpen: (open: boolean) => void
+  dismissError: () => void
+  showError: (error: AppError) => void
+
+  // The section drag: the one protocol of the offset slider and the scene's handle.
+  /** The slider or the handle is grabbed. */
+  beginSectionDrag: () => void
+  /** A drag step to `offset`: the plane shown moves only when its cut is ready (see the engine client). */
+  dragSection: (offset: number) => void
+  /** Released at `offset` (default: the last step); the plane takes it and a full cut follows. */
+  endSectionDrag: (offset?: number) => void
+
+  // What the scene reports.
+  /** Scene: the user clicked; the engine client asks the worker to intersect. */
+  requestProbe: (ray: ProbeRay) => void
+  /** Ask the scene to move the camera. */
+  requestView: (req: Omit<ViewRequest, 'seq'>) => void
+  cameraMoved: (camera: CameraState) => void
+  /** The renderer kind; software WebGL lowers the arrow budget to what it draws quickly. */
+  setRenderer: (kind: TractusData['renderer']) => void
+  setSnapshotRenderer: (render: SnapshotRenderer | null) => void
+
+  // Engine replies (called by the engine client).
+  loadStarted: (opts: { keepError: boolean }) => void
+  loadProgress: (p: Progress) => void
+  /** The job ended without a new model; `error` (if any) goes to the error card. */
+  loadEnded: (error?: AppError) => void
+  /** A new model replaces the old one: its results, a fresh section through its centre, the camera framed. */
+  modelLoaded: (loaded: LoadedModel) => void
+  surfaceArrowsShown: (arrows: ArrowBuffers | null) => void
+  /** The cut of the current plane; with `offset`, a drag step's cut, and the plane moves to it. */
+  cutShown: (result: SectionResult, buffers: SectionBuffers | null, offset?: number) => void
+  cutCleared: () => void
+  probeShown: (probe: ProbeResult | null) => void
+}
+
+export type TractusState = TractusData & TractusActions & SweepSlice
+
+export const DEFAULT_SECTION: SectionState = {
+  enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'positive', traction: 'normalTraction', dragging: false,
+}
+
+export const DEFAULT_ARROWS: ArrowSettings = {
+  surface: false, section: true, mode: 'full', scale: 1, budget: 1500, colour: 'magnitude',
+}
+
+/** Arrow count (count) used when WebGL reports a software renderer: it draws instanced arrows slowly. */
+export const SOFTWARE_ARROW_BUDGET = 150
+
+const NO_ARROWS: ArrowBuffers = {
+  mode: 'full', origins: new Float32Array(0), vectors: new Float32Array(0), normals: new Float32Array(0),
+  magnitudes: new Float32Array(0), maxMagnitude: 0,
+}
+
+/** Why a section patch cannot be taken, or null when it can. */
+function sectionPatchError(patch: Partial<SectionState>): FieldError | null {
+  try {
+    if (patch.normal) unitNormal(patch.normal, 'section normal')
+    if (patch.point) checkPoint(patch.point, 'section point')
+    return null
+  } catch (e) {
+    if (!isInputError(e)) throw e
+    return { field: e.where.field === 'normal' ? 'normal' : 'point', message: e.message }
+  }
+}
+
+const INITIAL: TractusData = {
+  model: null,
+  surface: null,
+  arrows: null,
+  sectionBuffers: null,
+  quantity: 'normalTraction',
+  range: 'auto',
+  colourMap: 'RdBu',
+  arrowSettings: DEFAULT_ARROWS,
+  section: DEFAULT_SECTION,
+  sectionDrag: null,
+  sectionInputError: null,
+  sectionResult: null,
+  audit: null,
+  highlightedPatch: -1,
+  probeRay: null,
+  probe: null,
+  units: 'SI',
+  camera: null,
+  viewRequest: null,
+  snapshotRenderer: null,
+  renderer: 'unknown',
+  busy: false,
+  progress: null,
+  error: null,
+  helpOpen: false,
+}
+
+const tractusState: StateCreator<TractusState> = (set, get, api) => ({
+  ...INITIAL,
+  ...createSweepSlice(set, get, api),
+
+  setQuantity: (q) => {
+    const st = get()
+    const colourMap = isSignedQuantity(st.quantity) === isSignedQuantity(q) ? st.colourMap : defaultMapFor(q)
+    set({ quantity: q, range: 'auto', colourMap })
+  },
+  setRange: (range) => set({ range }),
+  setColourMap: (colourMap) => set({ colourMap }),
+  setUnits: (units) => set({ units }),
+  applyViewSettings: (v) => set({
+    ...(v.quantity ? { quantity: v.quantity } : {}),
+    ...(v.colourMap ? { colourMap: v.colourMap } : v.quantity ? { colourMap: defaultMapFor(v.quantity) } : {}),
+    ...(v.units ? { units: v.units } : {}),
+    ...(v.range ? { range: v.range } : {}),
+  }),
+  setArrowSettings: (patch) => set({ arrowSettings: { ...get().arrowSettings, ...patch } }),
+  setSection: (patch) => {
+    const refused = sectionPatchError(patch)
+    if (refused) { set({ sectionInputError: refused }); return }
+    const st = get()
+    set({
+      section: { ...st.section, ...patch },
+      ...(st.sectionInputError && (patch.normal || patch.point) ? { sectionInputError: null } : {}),
+    })
+  },
+  highlightPatch: (highlightedPatch) => set({ highlightedPatch }),
+  setHelpOpen: (helpOpen) => set({ helpOpen }),
+  dismissError: () => set({ error: null }),
+  showError: (error) => set({ error }),
+
+  beginSectionDrag: () => {
+    const st = get()
+    // Software WebGL pays for every arrow on every frame (the compositor waits for the picture):
+    // the section arrows leave at once and return with the cut that follows the release.
+    const drop = st.renderer === 'software' && st.sectionBuffers !== null && st.sectionBuffers.arrows.magnitudes.length > 0
+    set({
+      section: { ...st.section, dragging: true },
+      sectionDrag: { offset: st.section.offset },
+      ...(drop ? { sectionBuffers: { ...st.sectionBuffers!, arrows: NO_ARROWS } } : {}),
+    })
+  },
+  dragSection: (offset) => {
+    if (get().section.dragging && Number.isFinite(offset)) set({ sectionDrag: { offset } })
+  },
+  endSectionDrag: (offset) => {
+    const st = get()
+    const to = offset !== undefined && Number.isFinite(offset) ? offset : st.sectionDrag?.offset ?? st.section.offset
+    set({ section: { ...st.section, offset: to, dragging: false }, sectionDrag: null })
+  },
+
+  requestProbe: (probeRay) => set({ probeRay }),
+  requestView: (req) => set({ viewRequest: { ...req, seq: (get().viewRequest?.seq ?? 0) + 1 } }),
+  cameraMoved: (camera) => set({ camera }),
+  setRenderer: (renderer) => {
+    const st = get()
+    const lower = renderer === 'software' && st.renderer !== 'software' && st.arrowSettings.budget > SOFTWARE_ARROW_BUDGET
+    set({ renderer, ...(lower ? { arrowSettings: { ...st.arrowSettings, budget: SOFTWARE_ARROW_BUDGET } } : {}) })
+  },
+  setSnapshotRenderer: (snapshotRenderer) => set({ snapshotRenderer }),
+
+  loadStarted: ({ keepError }) => set({ busy: true, progress: { stage: 'Preparing', fraction: 0 }, ...(keepError ? {} : { error: null }) }),
+  loadProgress: (progress) => set({ progress }),
+  loadEnded: (error) => set({ busy: false, progress: null, ...(error ? { error } : {}) }),
+  modelLoaded: ({ summary, surface, audit }) => {
+    const prev = get().section
+    const { center: centre, radius } = modelSphere(summary.bounds)
+    set({
+      model: summary, surface, audit, arrows: null, sectionBuffers: null, sectionResult: null, probe: null, probeRay: null,
+      highlightedPatch: -1, busy: false, progress: null, sectionDrag: null, sectionInputError: null,
+      section: { ...DEFAULT_SECTION, enabled: prev.enabled, normal: prev.normal, hide: prev.hide, traction: prev.traction, point: centre },
+      // Old diagrams never sit on a new part.
+      sweep: null,
+    })
+    // Frame the model first; a link applied after the load may then ask for its own camera.
+    get().requestView({ frame: { center: centre, radius } })
+  },
+  surfaceArrowsShown: (arrows) => set({ arrows }),
+  cutShown: (sectionResult, sectionBuffers, offset) => set({
+    sectionResult, sectionBuffers, ...(offset !== undefined ? { section: { ...get().section, offset } } : {}),
+  }),
+  cutCleared: () => set({ sectionResult: null, sectionBuffers: null }),
+  probeShown: (probe) => set({ probe }),
+})
+
+/** A store of its own (tests, and anything that must not share the app's). */
+export function createTractusStore(): StoreApi<TractusState> {
+  return createStore<TractusState>()(tractusState)
+}
+
+/** The app's store: a React hook with the store's API (getState, setState, subscribe) on it. */
+export const useStore = create<TractusState>()(tractusState)

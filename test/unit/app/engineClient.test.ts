@@ -1,0 +1,222 @@
+/**
+ * The engine client in Node, with a fake worker whose replies the test releases by hand and a
+ * frame clock the test advances: no browser. Three behaviours of the section protocol and the
+ * restart (the contract is written in src/app/engineClient.ts; common practice for request
+ * coalescing in interactive tools):
+ * - the latest plane wins: while a cut is in flight, further requests only replace the pending
+ *   one, and the newest is sent next, once (for a drag and for plain moves alike);
+ * - a reply from before a restart is dropped (the worker generation);
+ * - cancelling a load keeps the last good model, reloads it in a fresh worker, and ignores the
+ *   cancelled load's late reply.
+ */
+import { describe, expect, it } from 'vitest'
+import { createEngineClient } from '../../../src/app/engineClient.ts'
+import type { AppSource, EngineConnection } from '../../../src/app/engineClient.ts'
+import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
+import type { SectionResult } from '../../../src/mechanics/types.ts'
+import type {
+  ArrowRequest, AuditSummary, CutReply, EngineCalls, LoadedModel, ModelSource, Outcome, Plane, SurfaceBuffers,
+} from '../../../workers/protocol.ts'
+
+interface Deferred<T> { readonly promise: Promise<T>; resolve(v: T): void }
+
+function deferred<T>(): Deferred<T> {
+  let resolve!: (v: T) => void
+  const promise = new Promise<T>((r) => { resolve = r })
+  return { promise, resolve }
+}
+
+/** One fake engine worker: records every load and cut and answers when the test says so. */
+class FakeWorker {
+  readonly loads: { source: ModelSource; reply: Deferred<Outcome<LoadedModel>> }[] = []
+  readonly cuts: { plane: Plane; arrows: ArrowRequest; reply: Deferred<Outcome<CutReply>> }[] = []
+  terminated = false
+  constructor(readonly onFailure: (message: string) => void) {}
+  readonly calls: EngineCalls = {
+    configure: async () => undefined,
+    load: (source) => { const reply = deferred<Outcome<LoadedModel>>(); this.loads.push({ source, reply }); return reply.promise },
+    surfaceArrows: async () => null,
+    cut: (plane, arrows) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, reply }); return reply.promise },
+    probe: async () => null,
+    sweep: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    dispose: async () => undefined,
+  }
+}
+
+/** A model summary of a 2 × 1 × 1 box (length units m), centre (1, 0.5, 0.5). */
+function loaded(name: string): Outcome<LoadedModel> {
+  return {
+    ok: true,
+    value: {
+      summary: {
+        name, description: '', units: { length: 'm', stress: 'Pa' }, nodeCount: 8, elementCount: 1, boundaryFaceCount: 6,
+        elementTypes: { hex8: 1 }, bounds: { min: [0, 0, 0], max: [2, 1, 1] }, bodyForce: [0, 0, 0], warnings: [], source: `synthetic:${name}`,
+      },
+      // The client passes buffers through to the store untouched; their content is not read here.
+      surface: {} as SurfaceBuffers,
+      audit: {} as AuditSummary,
+    },
+  }
+}
+
+/** A cut reply whose result carries the plane's x, so the test can tell which cut is shown. */
+function cutReply(x: number): Outcome<CutReply> {
+  return { ok: true, value: { result: { planeX: x } as unknown as SectionResult, buffers: null, computeMs: 1 } }
+}
+
+const shownX = (r: SectionResult | null): number | null => (r ? (r as unknown as { planeX: number }).planeX : null)
+
+/** Lets queued promise callbacks run. */
+const settle = (): Promise<void> => new Promise((r) => setTimeout(r, 0))
+
+function setUp() {
+  const store = createTractusStore()
+  const workers: FakeWorker[] = []
+  const frames: (() => void)[] = []
+  const client = createEngineClient({
+    store,
+    createWorker: (onFailure): EngineConnection => {
+      const w = new FakeWorker(onFailure)
+      workers.push(w)
+      return { calls: w.calls, terminate: () => { w.terminated = true } }
+    },
+    afterFrame: (cb) => { frames.push(cb) },
+    cutTimed: () => undefined,
+  })
+  /** Puts out the frames asked for so far (and those they ask for in turn). */
+  const frame = async (): Promise<void> => {
+    await settle()
+    while (frames.length) frames.splice(0).forEach((cb) => cb())
+    await settle()
+  }
+  return { store, workers, client, frame }
+}
+
+const BLOCK = (name: string): AppSource => ({ kind: 'synthetic', spec: { kind: 'block', elements: name.length } })
+
+async function loadModel(t: ReturnType<typeof setUp>, name: string): Promise<void> {
+  const done = t.client.load(BLOCK(name))
+  await settle()
+  const w = t.workers[t.workers.length - 1]
+  w.loads[w.loads.length - 1].reply.resolve(loaded(name))
+  expect(await done).toBe(true)
+}
+
+describe('engine client: the latest plane wins', () => {
+  it('a drag sends only the newest step after the cut in flight, and the plane moves with its cut', async () => {
+    const t = setUp()
+    t.client.watch()
+    // Software WebGL: drag steps are cut without section arrows, the release with them.
+    t.store.getState().setRenderer('software')
+    await loadModel(t, 'A')
+    const w = t.workers[0]
+    t.store.getState().setSection({ enabled: true })
+    await settle()
+    expect(w.cuts.length).toBe(1)
+    expect(w.cuts[0].plane.point[0]).toBe(1)
+
+    const st = t.store.getState()
+    st.beginSectionDrag()
+    for (const offset of [0.1, 0.2, 0.3]) st.dragSection(offset)
+    await t.frame()
+    // The first cut has not answered: nothing new is sent, whatever the pointer does.
+    expect(w.cuts.length).toBe(1)
+    w.cuts[0].reply.resolve(cutReply(1))
+    await t.frame()
+    // One cut, of the newest step only; 0.1 and 0.2 were dropped.
+    expect(w.cuts.length).toBe(2)
+    expect(w.cuts[1].plane.point[0]).toBeCloseTo(1.3, 12)
+    expect(w.cuts[1].arrows.budget).toBe(0)
+    // The plane on screen stays where it was until its cut is there.
+    expect(t.store.getState().section.offset).toBe(0)
+    w.cuts[1].reply.resolve(cutReply(1.3))
+    await t.frame()
+    expect(shownX(t.store.getState().sectionResult)).toBe(1.3)
+    expect(t.store.getState().section.offset).toBe(0.3)
+
+    // The release takes the last step and cuts once more, with the arrows.
+    t.store.getState().endSectionDrag()
+    await t.frame()
+    expect(t.store.getState().section).toMatchObject({ offset: 0.3, dragging: false })
+    expect(w.cuts.length).toBe(3)
+    expect(w.cuts[2].plane.point[0]).toBeCloseTo(1.3, 12)
+    expect(w.cuts[2].arrows.budget).toBe(SOFTWARE_ARROW_BUDGET)
+  })
+
+  it('moves by key or typed value while a cut is in flight: the newest plane is cut next, once', async () => {
+    const t = setUp()
+    t.client.watch()
+    await loadModel(t, 'A')
+    const w = t.workers[0]
+    t.store.getState().setSection({ enabled: true })
+    await settle()
+    for (const offset of [0.1, 0.2, 0.3, 0.4]) t.store.getState().setSection({ offset })
+    await t.frame()
+    expect(w.cuts.length).toBe(1)
+    w.cuts[0].reply.resolve(cutReply(1))
+    await t.frame()
+    expect(w.cuts.map((c) => c.plane.point[0])).toEqual([1, 1.4])
+    w.cuts[1].reply.resolve(cutReply(1.4))
+    await t.frame()
+    expect(shownX(t.store.getState().sectionResult)).toBe(1.4)
+    expect(w.cuts.length).toBe(2)
+  })
+})
+
+describe('engine client: restarts', () => {
+  it('drops a reply that arrives from the worker before a restart', async () => {
+    const t = setUp()
+    t.client.watch()
+    await loadModel(t, 'A')
+    const old = t.workers[0]
+    t.store.getState().setSection({ enabled: true })
+    await settle()
+    expect(old.cuts.length).toBe(1)
+    // The worker dies outside a call (its error event): the client restarts it and reloads A.
+    old.onFailure('boom')
+    await settle()
+    expect(old.terminated).toBe(true)
+    expect(t.store.getState().error?.message).toContain('boom')
+    const fresh = t.workers[1]
+    expect(fresh.loads.length).toBe(1)
+    // The old worker's cut answers late: it must not reach the store.
+    old.cuts[0].reply.resolve(cutReply(-1))
+    await t.frame()
+    expect(t.store.getState().sectionResult).toBeNull()
+    fresh.loads[0].reply.resolve(loaded('A'))
+    await t.frame()
+    expect(fresh.cuts.length).toBe(1)
+    fresh.cuts[0].reply.resolve(cutReply(1))
+    await t.frame()
+    expect(shownX(t.store.getState().sectionResult)).toBe(1)
+  })
+
+  it('cancel keeps the last good model, reloads it in a fresh worker and ignores the cancelled load', async () => {
+    const t = setUp()
+    t.client.watch()
+    await loadModel(t, 'A')
+    const old = t.workers[0]
+    const big = t.client.load(BLOCK('B-large'))
+    await settle()
+    expect(old.loads.length).toBe(2)
+    expect(t.store.getState().busy).toBe(true)
+
+    const cancelled = t.client.cancelLoad()
+    await settle()
+    expect(old.terminated).toBe(true)
+    expect(t.store.getState().model?.name).toBe('A')
+    const fresh = t.workers[1]
+    expect(fresh.loads.length).toBe(1)
+    expect(fresh.loads[0].source).toEqual({ kind: 'synthetic', spec: { kind: 'block', elements: 1 } })
+
+    // The cancelled load answers late: B never shows.
+    old.loads[1].reply.resolve(loaded('B-large'))
+    expect(await big).toBe(false)
+    expect(t.store.getState().model?.name).toBe('A')
+
+    fresh.loads[0].reply.resolve(loaded('A'))
+    await cancelled
+    expect(t.store.getState()).toMatchObject({ busy: false, error: null })
+    expect(t.store.getState().model?.name).toBe('A')
+  })
+})

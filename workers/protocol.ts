@@ -1,0 +1,267 @@
+/**
+ * The worker protocol: every type that crosses the boundary between the app and the engine worker,
+ * in one place. Requests and replies travel by structured clone; typed arrays inside replies are
+ * moved with transfer (never copied as JSON). The app's store (src/state) keeps these records as
+ * they arrive, so it imports its types from here; this file imports nothing from the UI.
+ *
+ * Units: unless a doc comment says otherwise, every number is in MODEL units (length L and stress
+ * S of the model's units; force S·L², moment S·L³). Conversion to a display system happens only
+ * where a value is shown.
+ */
+import type { Vec3 } from '../src/model/model.ts'
+import type { ModelUnits } from '../src/model/units.ts'
+import type { Plane } from '../src/mechanics/plane.ts'
+import type { BodyBalance, LoadPatch, SectionResult } from '../src/mechanics/types.ts'
+import type { SurfaceQuantity, SurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
+import type { ArrowMode } from '../src/mechanics/arrowSampling.ts'
+
+export type { ArrowMode, Plane, SurfaceQuantity, Vec3 }
+
+/** Summary of the loaded model (no O(elements) data). */
+export interface ModelSummary {
+  /** Model name as given by the file (plain text; render as React text only, never as HTML). */
+  readonly name: string
+  readonly description: string
+  readonly units: ModelUnits
+  readonly nodeCount: number
+  readonly elementCount: number
+  readonly boundaryFaceCount: number
+  /** Element count per type name, e.g. {tet10: 1200}. */
+  readonly elementTypes: Readonly<Record<string, number>>
+  /** Axis-aligned bounds, length units. */
+  readonly bounds: { readonly min: Vec3; readonly max: Vec3 }
+  /** Body force ρb, stress / length. */
+  readonly bodyForce: Vec3
+  /** What the reader fixed or noticed, in words. */
+  readonly warnings: readonly string[]
+  /** Where it came from: 'demo:<id>', 'synthetic:<spec>', or 'files:<names>'. */
+  readonly source: string
+  /**
+   * How the load was computed: wall time per stage in the engine (ms, in order; a stage the pool
+   * ran beside the others shows only the wait for it), the pool workers the element-parallel
+   * kernels ran on (0: the engine alone) with the hand-over used ('shared' memory, 'copy', or
+   * 'none'), plus why the pool stood down if it did.
+   */
+  readonly compute?: {
+    readonly stagesMs: readonly (readonly [string, number])[]
+    readonly workers: number
+    readonly sharing: 'shared' | 'copy' | 'none'
+    readonly fallback?: string
+  }
+}
+
+/**
+ * Boundary-surface triangles. Vertices are per face node (not shared between faces), because the
+ * traction jumps across face edges. Quadratic faces are split into flat sub-triangles.
+ * - `positions`, `normals`: Float32Array(3·V), length units / unit outward normals;
+ * - `index`: Uint32Array(3·T) into the vertices;
+ * - `scalars[q]`: Float32Array(V) per quantity, in stress units, except `balanceIndicator`
+ *   (dimensionless, the element's |residual|/gross, constant over the element's faces);
+ * - `ranges[q]`: [min, max] of `scalars[q]` (finite values only);
+ * - `patch`: Float32Array(V), load-patch id of the vertex's face, -1 on the free surface
+ *   (compare with the highlighted patch in the shader);
+ * - `triangleFace`: Uint32Array(T), boundary-face index of each triangle (picking, patches).
+ */
+export type SurfaceBuffers = Omit<SurfaceTriangles, 'faceVertexStart' | 'bounds'> & {
+  /** Optional feature-edge segments, Float32Array(6·S), length units (src/mechanics/featureEdges.ts). */
+  readonly edges?: Float32Array
+}
+
+/**
+ * Instanced arrows, already decimated by area to at most the requested budget:
+ * - `origins`: Float32Array(3·A), length units, the arrow's tail;
+ * - `vectors`: Float32Array(3·A), stress units (traction, its normal part or its shear part
+ *   according to `mode`);
+ * - `normals`: Float32Array(3·A), unit outward face normal (or section normal m) at each arrow;
+ * - `magnitudes`: Float32Array(A) = |vectors|, stress units; `maxMagnitude` their maximum.
+ * (This is the ArrowSamples record of src/mechanics/arrowSampling.ts, passed through.)
+ * Drawn length = scale · |v| / maxMagnitude · 0.08 · (diagonal of the model bounds).
+ */
+export interface ArrowBuffers {
+  readonly mode: ArrowMode
+  readonly origins: Float32Array
+  readonly vectors: Float32Array
+  readonly normals: Float32Array
+  readonly magnitudes: Float32Array
+  readonly maxMagnitude: number
+}
+
+/**
+ * The filled section face: triangulated cut polygons.
+ * - `positions`: Float32Array(3·V) length units; `index`: Uint32Array(3·T);
+ * - `normalTraction`: Float32Array(V) = m·(σm), stress units, tension positive;
+ * - `shearTraction`: Float32Array(V) = |σm - (m·σm)m|, stress units;
+ * - `ranges`: [min, max] of each; `arrows`: traction σm on the section, same rules as surface arrows.
+ */
+export interface SectionBuffers {
+  readonly positions: Float32Array
+  readonly index: Uint32Array
+  readonly normalTraction: Float32Array
+  readonly shearTraction: Float32Array
+  readonly ranges: { readonly normalTraction: readonly [number, number]; readonly shearTraction: readonly [number, number] }
+  readonly arrows: ArrowBuffers
+}
+
+/** Whole-body audit. Figures in model units; `indicator` percentiles dimensionless. */
+export interface AuditSummary {
+  readonly body: BodyBalance
+  /** Percentiles 50/95/100 of the element balance indicator (dimensionless). */
+  readonly indicator: { readonly p50: number; readonly p95: number; readonly max: number }
+  readonly patches: readonly LoadPatch[]
+  /** Threshold and reference stress used to find patches (stress units). */
+  readonly threshold: number
+  readonly referenceStress: number
+  /** Traction left on the free surface: area L², mean/peak S, relative dimensionless. */
+  readonly freeSurface: { readonly area: number; readonly mean: number; readonly relative: number; readonly peak: number }
+}
+
+/** A pick ray in model coordinates (length units; direction need not be unit). */
+export interface ProbeRay {
+  readonly origin: Vec3
+  readonly direction: Vec3
+}
+
+/**
+ * What the probe read at the picked point. `stress` 6 components xx,yy,zz,xy,yz,xz (S),
+ * `principal` σ1 ≥ σ2 ≥ σ3 (S), `vonMises` (S), `normal` unit outward normal (or the section
+ * normal m), `traction` σn (S), its `normalTraction` (S) and `shearTraction` magnitude (S).
+ * `where`: 'surface' or 'section'; `elementId`: the user's element id.
+ */
+export interface ProbeResult {
+  readonly where: 'surface' | 'section'
+  readonly position: Vec3
+  readonly elementId: number
+  readonly stress: readonly [number, number, number, number, number, number]
+  readonly principal: Vec3
+  readonly vonMises: number
+  readonly normal: Vec3
+  readonly traction: Vec3
+  readonly normalTraction: number
+  readonly shearTraction: number
+}
+
+/** A user-facing error (shown by the error card): message plus where, when known. */
+export interface AppError {
+  readonly message: string
+  readonly file?: string
+  readonly line?: number
+  /** Short hint on what to fix, when there is one. */
+  readonly hint?: string
+}
+
+export interface Progress {
+  /** Stage in words, e.g. "Reading files", "Boundary faces", "Tractions". */
+  readonly stage: string
+  /** 0..1 within the whole job. */
+  readonly fraction: number
+}
+
+/**
+ * How the engine may use the machine (a diagnostic setting read from the page address by
+ * src/app/computeOptions.ts).
+ */
+export interface ComputeOptions {
+  /** Workers for element-parallel kernels; absent = one per core (at most 4). */
+  readonly threads?: number
+  /** 'copy' forces the copying hand-over; absent = shared memory where the page allows it. */
+  readonly sharing?: 'copy'
+}
+
+/**
+ * A generated model: `block` is a tet4 box carrying the end-loaded cantilever stress field of
+ * Timoshenko & Goodier §21 (smooth, in equilibrium), with at least `elements` elements.
+ */
+export interface SyntheticSpec {
+  readonly kind: 'block'
+  readonly elements: number
+}
+
+/** One file of a model: name plus bytes (binary container) or text (CSV, JSON). */
+export interface EngineFile {
+  readonly name: string
+  readonly data: ArrayBuffer | string
+}
+
+export type ModelSource =
+  | { readonly kind: 'files'; readonly files: readonly EngineFile[]; readonly label?: string }
+  | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
+
+export interface LoadedModel {
+  readonly summary: ModelSummary
+  readonly surface: SurfaceBuffers
+  readonly audit: AuditSummary
+}
+
+/** Either a value or a user-facing error; input problems come back as values, not exceptions. */
+export type Outcome<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: AppError }
+
+export interface ArrowRequest {
+  readonly mode: ArrowMode
+  /** Largest arrow count (count). */
+  readonly budget: number
+}
+
+export interface CutReply {
+  readonly result: SectionResult
+  readonly buffers: SectionBuffers | null
+  /** Time the engine spent on this cut (ms): the section, its triangles and arrows. */
+  readonly computeMs: number
+}
+
+export interface ProbeRequest {
+  readonly ray: ProbeRay
+  /** The section in use (or null); the hidden side cannot be picked. */
+  readonly section: { readonly plane: Plane; readonly hide: 'positive' | 'negative' | 'none' } | null
+}
+
+export type ProgressCallback = (p: Progress) => void
+
+/** The six section quantities a sweep reply carries as series, in section axes. */
+export type SeriesKey = 'axial' | 'shear1' | 'shear2' | 'torque' | 'bending1' | 'bending2'
+
+/**
+ * A row of parallel sections along unit normal `normal` (see src/mechanics/sectionSweep.ts):
+ * section k lies on the plane x·m = offsets[k]. `offsets` length units; axial, shear1, shear2
+ * force units (S·L²); torque, bending1, bending2 moment units (S·L³), section axes per section,
+ * moments about each section's centroid; `freeBodyRelative` dimensionless; `empty[k]` = 1 where
+ * plane k misses the body (its figures are 0). `extent`: [min, max] of x·m over the nodes (L).
+ */
+export interface SweepReply {
+  readonly normal: Vec3
+  readonly extent: readonly [number, number]
+  readonly offsets: Float64Array
+  readonly axial: Float64Array
+  readonly shear1: Float64Array
+  readonly shear2: Float64Array
+  readonly torque: Float64Array
+  readonly bending1: Float64Array
+  readonly bending2: Float64Array
+  readonly freeBodyRelative: Float64Array
+  readonly empty: Uint8Array
+}
+
+/** Kinds of deliberate failure the end-to-end build's engine can be asked for (see `crash`). */
+export type CrashKind = 'throw' | 'memory'
+
+export interface EngineApi {
+  /** Sets how the engine may use the machine; before any job. */
+  configure(options: ComputeOptions): void
+  load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>>
+  surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
+  cut(plane: Plane, arrows: ArrowRequest): Promise<Outcome<CutReply>>
+  probe(req: ProbeRequest): Promise<ProbeResult | null>
+  /** Sections along `normal`; `from`/`to` default to the model's extent along it (length units). */
+  sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply>>
+  /**
+   * Present only in the end-to-end build (`vite build --mode e2e`): throws an unexpected
+   * (non-input) error, or fails an allocation, inside the worker, so the browser tests can check
+   * that the app recovers. The release build leaves it out.
+   */
+  crash?(kind: CrashKind): Promise<void>
+  dispose(): void
+}
+
+/** The engine as the app calls it: the same methods, every one asynchronous (comlink's view). */
+export type EngineCalls = {
+  readonly [K in keyof EngineApi]: NonNullable<EngineApi[K]> extends (...args: infer A) => infer R ? (...args: A) => Promise<Awaited<R>> : never
+}
