@@ -22,7 +22,7 @@ import { checkStressField } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
 import { elementVolumesAndCentroids } from './elementVolume.ts'
-import { FQP_AREA, FQP_SIZE, FQP_STRESS, faceQuadraturePoint } from './faceQuadraturePoint.ts'
+import { FQP_AREA, FQP_SIZE, FQP_STRESS, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } from './types.ts'
 
@@ -71,7 +71,7 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
   const bMag = Math.sqrt(bx * bx + by * by + bz * bz)
   const x = mesh.coords
   const tables = faceQuadratureTables()
-  const xs = new Float64Array(3 * 8), ss = new Float64Array(6 * 8), qp = new Float64Array(FQP_SIZE)
+  const xs = new Float64Array(3 * 8), ss = new Float64Array(6 * 8), qp = createFacePoints(tables)
 
   for (let bi = 0; bi < mesh.blocks.length; bi++) {
     const b = mesh.blocks[bi]
@@ -205,13 +205,13 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
           for (let c = 0; c < 6; c++) ss[6 * a + c] = stress[r + c]
         }
         let fx = 0, fy = 0, fz = 0
+        faceQuadraturePoints(qp, t, xs, ss, false)
         for (let q = 0; q < nq; q++) {
-          faceQuadraturePoint(qp, t, q, xs, ss)
           // (t_u × t_v) w is the area vector n dA of this quadrature point.
-          const w = W[q]
-          const nx = qp[FQP_AREA] * w, ny = qp[FQP_AREA + 1] * w, nz = qp[FQP_AREA + 2] * w
-          const sxx = qp[FQP_STRESS], syy = qp[FQP_STRESS + 1], szz = qp[FQP_STRESS + 2]
-          const sxy = qp[FQP_STRESS + 3], syz = qp[FQP_STRESS + 4], sxz = qp[FQP_STRESS + 5]
+          const r = FQP_SIZE * q, w = W[q]
+          const nx = qp[r + FQP_AREA] * w, ny = qp[r + FQP_AREA + 1] * w, nz = qp[r + FQP_AREA + 2] * w
+          const sxx = qp[r + FQP_STRESS], syy = qp[r + FQP_STRESS + 1], szz = qp[r + FQP_STRESS + 2]
+          const sxy = qp[r + FQP_STRESS + 3], syz = qp[r + FQP_STRESS + 4], sxz = qp[r + FQP_STRESS + 5]
           fx += sxx * nx + sxy * ny + sxz * nz
           fy += sxy * nx + syy * ny + syz * nz
           fz += sxz * nx + syz * ny + szz * nz

@@ -16,7 +16,7 @@ import { elementIdOf } from '../model/elementId.ts'
 import type { FaceKind } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { ElementBlock, Mesh } from '../model/model.ts'
-import { FQP_AREA, FQP_SIZE, FQP_X, faceQuadraturePoint } from './faceQuadraturePoint.ts'
+import { FQP_AREA, FQP_SIZE, FQP_X, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { faceRule } from './quadrature.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
@@ -222,7 +222,7 @@ export function faceQuadratureTables(): FaceTable[] {
 export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array, coords: Float64Array, kind: Uint8Array, nodes: Int32Array, slots: number): void {
   const tables = faceQuadratureTables()
   const F = kind.length
-  const xs = new Float64Array(3 * FACE_SLOTS), qp = new Float64Array(FQP_SIZE)
+  const xs = new Float64Array(3 * FACE_SLOTS), qp = createFacePoints(tables)
   for (let f = 0; f < F; f++) {
     const kc = kind[f]
     const o = slots * f
@@ -249,13 +249,13 @@ export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Arr
       xs[3 * a] = coords[p]; xs[3 * a + 1] = coords[p + 1]; xs[3 * a + 2] = coords[p + 2]
     }
     let A = 0, sx = 0, sy = 0, sz = 0, cx = 0, cy = 0, cz = 0
+    faceQuadraturePoints(qp, t, xs, null, true)
     for (let q = 0; q < nq; q++) {
-      faceQuadraturePoint(qp, t, q, xs, null)
-      const w = W[q]
-      const nx = qp[FQP_AREA], ny = qp[FQP_AREA + 1], nz = qp[FQP_AREA + 2]
+      const r = FQP_SIZE * q, w = W[q]
+      const nx = qp[r + FQP_AREA], ny = qp[r + FQP_AREA + 1], nz = qp[r + FQP_AREA + 2]
       const dA = Math.sqrt(nx * nx + ny * ny + nz * nz) * w
       A += dA; sx += nx * w; sy += ny * w; sz += nz * w
-      cx += qp[FQP_X] * dA; cy += qp[FQP_X + 1] * dA; cz += qp[FQP_X + 2] * dA
+      cx += qp[r + FQP_X] * dA; cy += qp[r + FQP_X + 1] * dA; cz += qp[r + FQP_X + 2] * dA
     }
     outArea[f] = A
     const len = Math.sqrt(sx * sx + sy * sy + sz * sz)

@@ -20,7 +20,7 @@ import { ELEMENT_TYPES, FACE_KIND_BY_CODE } from '../model/elementTypes.ts'
 import { checkStressField } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
-import { FQP_AREA, FQP_SIZE, FQP_STRESS, FQP_X, faceQuadraturePoint } from './faceQuadraturePoint.ts'
+import { FQP_AREA, FQP_SIZE, FQP_STRESS, FQP_X, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
 import { FACE_SLOTS } from './types.ts'
@@ -76,7 +76,8 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
   const { nodeNormal, nodeTraction, nodeNormalTraction, nodeShear, nodeMagnitude, force, moment, meanNormal, meanShear, meanMagnitude } = out
 
   const nodeTabs = faceNodeTables(), quadTabs = faceQuadratureTables()
-  const xs = new Float64Array(3 * S), ss = new Float64Array(6 * S), qp = new Float64Array(FQP_SIZE)
+  const xs = new Float64Array(3 * S), ss = new Float64Array(6 * S)
+  const qp = createFacePoints(quadTabs), np = createFacePoints(nodeTabs)
   const blocks = mesh.blocks
   const faceLocal = blocks.map((b) => localFaceNodes(ELEMENT_TYPES[b.type].faces))
   const nodesPer = blocks.map((b) => ELEMENT_TYPES[b.type].nodeCount)
@@ -103,9 +104,10 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
     }
 
     // Node slots: normal from the face tangents at the node, traction from the node's stress.
+    faceQuadraturePoints(np, nt, xs, null, false)
     for (let b = 0; b < nn; b++) {
-      faceQuadraturePoint(qp, nt, b, xs, null)
-      let nx = qp[FQP_AREA], ny = qp[FQP_AREA + 1], nz = qp[FQP_AREA + 2]
+      const r = FQP_SIZE * b
+      let nx = np[r + FQP_AREA], ny = np[r + FQP_AREA + 1], nz = np[r + FQP_AREA + 2]
       const len = Math.sqrt(nx * nx + ny * ny + nz * nz)
       // A degenerate corner (collapsed edge) has no tangent plane: fall back to the face's mean normal.
       if (len > 0) { nx /= len; ny /= len; nz /= len } else { nx = faces.normal[3 * f]; ny = faces.normal[3 * f + 1]; nz = faces.normal[3 * f + 2] }
@@ -136,23 +138,23 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
     // Face integrals.
     const W = qt.weights, nq = qt.pointCount
     let fx = 0, fy = 0, fz = 0, mx = 0, my = 0, mz = 0, A = 0, In = 0, Is = 0, Im = 0
+    faceQuadraturePoints(qp, qt, xs, ss, true)
     for (let q = 0; q < nq; q++) {
-      faceQuadraturePoint(qp, qt, q, xs, ss)
-      const w = W[q]
+      const r = FQP_SIZE * q, w = W[q]
       // c = t_u × t_v carries both the normal direction and the area element.
-      const cx = qp[FQP_AREA], cy = qp[FQP_AREA + 1], cz = qp[FQP_AREA + 2]
+      const cx = qp[r + FQP_AREA], cy = qp[r + FQP_AREA + 1], cz = qp[r + FQP_AREA + 2]
       const J = Math.sqrt(cx * cx + cy * cy + cz * cz)
       if (J === 0) continue // degenerate point: contributes no area
       const dA = J * w
       const nx = cx / J, ny = cy / J, nz = cz / J
-      const sxx = qp[FQP_STRESS], syy = qp[FQP_STRESS + 1], szz = qp[FQP_STRESS + 2]
-      const sxy = qp[FQP_STRESS + 3], syz = qp[FQP_STRESS + 4], sxz = qp[FQP_STRESS + 5]
+      const sxx = qp[r + FQP_STRESS], syy = qp[r + FQP_STRESS + 1], szz = qp[r + FQP_STRESS + 2]
+      const sxy = qp[r + FQP_STRESS + 3], syz = qp[r + FQP_STRESS + 4], sxz = qp[r + FQP_STRESS + 5]
       const tx = sxx * nx + sxy * ny + sxz * nz
       const ty = sxy * nx + syy * ny + syz * nz
       const tz = sxz * nx + syz * ny + szz * nz
       const tn = tx * nx + ty * ny + tz * nz
       const t2 = tx * tx + ty * ty + tz * tz
-      const px = qp[FQP_X], py = qp[FQP_X + 1], pz = qp[FQP_X + 2]
+      const px = qp[r + FQP_X], py = qp[r + FQP_X + 1], pz = qp[r + FQP_X + 2]
       fx += tx * dA; fy += ty * dA; fz += tz * dA
       // x × t in scalar locals (see vec3.ts): this is the innermost loop of the traction pass.
       mx += (py * tz - pz * ty) * dA; my += (pz * tx - px * tz) * dA; mz += (px * ty - py * tx) * dA

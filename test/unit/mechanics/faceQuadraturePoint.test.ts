@@ -11,7 +11,7 @@
 import { describe, expect, it } from 'vitest'
 import { FACE_KIND_BY_CODE, FACE_NODE_COUNT } from '../../../src/model/elementTypes.ts'
 import { faceQuadratureTables } from '../../../src/mechanics/boundaryFaces.ts'
-import { FQP_AREA, FQP_SIZE, FQP_STRESS, FQP_X, faceQuadraturePoint } from '../../../src/mechanics/faceQuadraturePoint.ts'
+import { FQP_AREA, FQP_SIZE, FQP_STRESS, FQP_X, createFacePoints, faceQuadraturePoints } from '../../../src/mechanics/faceQuadraturePoint.ts'
 import { cross } from '../../../src/mechanics/vec3.ts'
 import { rotationFromUniforms, rotateVec } from '../../helpers/rotation.ts'
 
@@ -30,7 +30,7 @@ function faceNodes(kind: string, corners: V[]): V[] {
 /** σ(x): a linear field. */
 const sigma = (x: V): number[] => [1 + x[0], 2 - x[1], 3 * x[2], x[0] + x[1], -x[2], 0.5 * x[0]]
 
-describe('faceQuadraturePoint', () => {
+describe('faceQuadraturePoints', () => {
   const tables = faceQuadratureTables()
   FACE_KIND_BY_CODE.forEach((kind, code) => {
     it(`${kind}: vector area, centroid and a linear stress field are exact on a flat face`, () => {
@@ -43,18 +43,18 @@ describe('faceQuadraturePoint', () => {
         const t = tables[code]
         const xs = Float64Array.from(nodes.flat())
         const ss = Float64Array.from(nodes.flatMap(sigma))
-        const qp = new Float64Array(FQP_SIZE)
+        const qp = createFacePoints(tables)
+        expect(faceQuadraturePoints(qp, t, xs, ss, true)).toBe(qp)
         const sum: V = [0, 0, 0], moment: V = [0, 0, 0]
         let area = 0
         for (let q = 0; q < t.pointCount; q++) {
-          expect(faceQuadraturePoint(qp, t, q, xs, ss)).toBe(qp)
-          const w = t.weights[q]
-          const a: V = [qp[FQP_AREA], qp[FQP_AREA + 1], qp[FQP_AREA + 2]]
+          const r = FQP_SIZE * q, w = t.weights[q]
+          const a: V = [qp[r + FQP_AREA], qp[r + FQP_AREA + 1], qp[r + FQP_AREA + 2]]
           const dA = Math.hypot(...a) * w
-          for (let k = 0; k < 3; k++) { sum[k] += a[k] * w; moment[k] += qp[FQP_X + k] * dA }
+          for (let k = 0; k < 3; k++) { sum[k] += a[k] * w; moment[k] += qp[r + FQP_X + k] * dA }
           area += dA
-          const x: V = [qp[FQP_X], qp[FQP_X + 1], qp[FQP_X + 2]]
-          sigma(x).forEach((s, k) => expect(qp[FQP_STRESS + k]).toBeCloseTo(s, 12))
+          const x: V = [qp[r + FQP_X], qp[r + FQP_X + 1], qp[r + FQP_X + 2]]
+          sigma(x).forEach((s, k) => expect(qp[r + FQP_STRESS + k]).toBeCloseTo(s, 12))
         }
         const c = nodes.slice(0, tri ? 3 : 4)
         const exact = tri ? cross([0, 0, 0], sub(c[1], c[0]), sub(c[2], c[0])) : cross([0, 0, 0], sub(c[2], c[0]), sub(c[3], c[1]))
@@ -67,11 +67,16 @@ describe('faceQuadraturePoint', () => {
     })
   })
 
-  it('without stress rows the stress slots are left as they were', () => {
+  it('without stress rows or position those slots are left as they were; the area vector is always there', () => {
     const t = tables[0]
-    const qp = new Float64Array(FQP_SIZE).fill(7)
-    faceQuadraturePoint(qp, t, 0, Float64Array.from([0, 0, 0, 1, 0, 0, 0, 1, 0]), null)
-    expect(Array.from(qp.subarray(FQP_STRESS))).toEqual([7, 7, 7, 7, 7, 7])
-    expect(qp[FQP_AREA + 2]).toBe(1)
+    const qp = createFacePoints([t]).fill(7)
+    expect(qp.length).toBe(FQP_SIZE * t.pointCount)
+    faceQuadraturePoints(qp, t, Float64Array.from([0, 0, 0, 1, 0, 0, 0, 1, 0]), null, false)
+    for (let q = 0; q < t.pointCount; q++) {
+      const r = FQP_SIZE * q
+      expect(Array.from(qp.subarray(r + FQP_STRESS, r + FQP_SIZE))).toEqual([7, 7, 7, 7, 7, 7])
+      expect(Array.from(qp.subarray(r + FQP_X, r + FQP_X + 3))).toEqual([7, 7, 7])
+      expect(Array.from(qp.subarray(r + FQP_AREA, r + FQP_AREA + 3))).toEqual([0, 0, 1])
+    }
   })
 })
