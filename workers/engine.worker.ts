@@ -63,7 +63,6 @@ function spawnPoolWorker(): PoolEndpoint {
   }
 }
 
-
 /**
  * Starts the pool when the engine is configured, so its workers load their code while the page is
  * idle rather than during the first large load. One thread per core in all: the engine's own and

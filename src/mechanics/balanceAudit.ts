@@ -88,7 +88,8 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
         const ux = x[3 * n1] - x0, uy = x[3 * n1 + 1] - y0, uz = x[3 * n1 + 2] - z0
         const vx = x[3 * n2] - x0, vy = x[3 * n2 + 1] - y0, vz = x[3 * n2 + 2] - z0
         const wx = x[3 * n3] - x0, wy = x[3 * n3 + 1] - y0, wz = x[3 * n3 + 2] - z0
-        // Outward doubled area vectors: opposite 3 = v × u, opposite 2 = u × w, opposite 1 = w × v.
+        // Outward doubled area vectors: opposite 3 = v × u, opposite 2 = u × w, opposite 1 = w × v
+        // (scalar locals, not vec3.cross: this loop runs once per element, see vec3.ts).
         const a3x = vy * uz - vz * uy, a3y = vz * ux - vx * uz, a3z = vx * uy - vy * ux
         const a2x = uy * wz - uz * wy, a2y = uz * wx - ux * wz, a2z = ux * wy - uy * wx
         const a1x = wy * vz - wz * vy, a1y = wz * vx - wx * vz, a1z = wx * vy - wy * vx

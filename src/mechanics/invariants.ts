@@ -88,7 +88,8 @@ export function principalStressesAt(
   const r0x = a11 - la, r0y = a12, r0z = a13
   const r1x = a12, r1y = a22 - la, r1z = a23
   const r2x = a13, r2y = a23, r2z = a33 - la
-  // Cross products of row pairs; the longest is the best-conditioned null vector.
+  // Cross products of row pairs; the longest is the best-conditioned null vector. (Here and below
+  // in scalar locals, not vec3.cross: this runs once per node.)
   let c0x = r0y * r1z - r0z * r1y, c0y = r0z * r1x - r0x * r1z, c0z = r0x * r1y - r0y * r1x
   const c1x = r0y * r2z - r0z * r2y, c1y = r0z * r2x - r0x * r2z, c1z = r0x * r2y - r0y * r2x
   const c2x = r1y * r2z - r1z * r2y, c2y = r1z * r2x - r1x * r2z, c2z = r1x * r2y - r1y * r2x
