@@ -56,7 +56,7 @@ export const auditCommand: Command = {
     // Single-precision storage of the element balance: the indicator is read and ranked, and
     // memory stays near the model's size.
     const { faces, bodyBalance: body, elementBalance: elements, loadPatches: lp } = runAnalysis(
-      analysisInputOf(model, bodyForce), { balancePrecision: 'single', loadPatches: threshold === undefined ? undefined : { threshold } })
+      analysisInputOf(model, bodyForce), { balancePrecision: 'single', loadPatches: { threshold } })
     const [p50, p95, pmax] = Array.from(percentiles(elements.indicator, [50, 95, 100]))
     const worst = topIndices(elements.indicator, worstCount).map((g) => ({ id: elementIdOf(mesh, g), indicator: elements.indicator[g] }))
 
