@@ -8,10 +8,10 @@ import * as Comlink from 'comlink'
 import { readModelFiles } from '../src/io/index.ts'
 import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
-import { extractBoundaryFaces } from '../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../src/mechanics/tractions.ts'
-import { computeBodyBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
-import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
+import { nodalDisplayStress } from '../src/model/stressField.ts'
+import { analysisInputOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
+import type { AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
+import { percentiles } from '../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
@@ -27,7 +27,7 @@ import type {
 import { syntheticModel } from './syntheticModel.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
-import type { PoolEndpoint } from './kernelPool.ts'
+import type { PoolEndpoint, PoolRun } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
 interface Loaded {
@@ -63,9 +63,6 @@ function spawnPoolWorker(): PoolEndpoint {
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }
-
-/** No pool workers: the kernels run here. */
-const ONE_THREAD = new KernelPool(0, spawnPoolWorker, 'copy')
 
 /**
  * Starts the pool when the engine is configured, so its workers load their code while the page is
@@ -106,6 +103,12 @@ function throttle(cb: ProgressCallback | undefined): (stage: string, fraction: n
     last = now
     void Promise.resolve(cb({ stage, fraction })).catch(() => undefined)
   }
+}
+
+/** What the progress line says while each analysis stage runs, and how far the load is then. */
+const STAGE_PROGRESS: Record<AnalysisStage, [string, number]> = {
+  faces: ['Boundary faces', 0.3], tractions: ['Surface tractions', 0.45], invariants: ['Principal stresses', 0.55],
+  elementBalance: ['Element balance', 0.65], bodyBalance: ['Body balance', 0.8], loadPatches: ['Load patches', 0.85],
 }
 
 /** The event loop gets a turn between stages, so progress messages leave while we compute. */
@@ -172,32 +175,24 @@ const api: EngineApi = {
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
       const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data }))) : syntheticModel(source.spec)
       const mesh = model.mesh
+      const input = analysisInputOf(model)
       // The element balance and the invariants need no faces: on a pool they run beside the
-      // boundary and traction stages.
+      // boundary and traction stages, and the pipeline awaits them at their turn.
       const p = pool && mesh.elementCount >= POOL_MIN_ELEMENTS && await pool.upWithin(POOL_START_MS) ? pool : null
-      const balanceJob = p?.elementBalance(mesh, model.stress, model.bodyForce) ?? null
-      const invariantsJob = p?.nodalInvariants(model.stress) ?? null
-      balanceJob?.catch(() => undefined)
-      invariantsJob?.catch(() => undefined)
-      report('Boundary faces', 0.3); await yieldTurn()
-      clock.mark('boundary')
-      const faces = extractBoundaryFaces(mesh)
-      report('Surface tractions', 0.45); await yieldTurn()
-      clock.mark('tractions')
-      const tractions = computeSurfaceTractions(mesh, model.stress, faces)
-      report('Principal stresses', 0.55); await yieldTurn()
-      clock.mark('invariants')
-      const { value: invariants } = await (invariantsJob ?? ONE_THREAD.nodalInvariants(model.stress))
-      report('Element balance', 0.65); await yieldTurn()
-      clock.mark('elementBalance')
-      const { value: balance, run } = await (balanceJob ?? ONE_THREAD.elementBalance(mesh, model.stress, model.bodyForce))
-      p?.forget()
-      report('Body balance', 0.8); await yieldTurn()
-      clock.mark('bodyBalance')
-      const body = computeBodyBalance(mesh, faces, tractions, model.bodyForce)
-      report('Load patches', 0.85); await yieldTurn()
-      clock.mark('loadPatches')
-      const patches = findLoadPatches(mesh, model.stress, faces, tractions)
+      let run: PoolRun = { workers: 0, sharing: 'none' }
+      const offloaded: OffloadedStages = p
+        ? {
+            elementBalance: p.elementBalance(mesh, input.stress, input.bodyForce).then((r) => { run = r.run; return r.value }),
+            invariants: p.nodalInvariants(nodalDisplayStress(input.stress)).then((r) => r.value),
+          }
+        : {}
+      offloaded.elementBalance?.catch(() => undefined)
+      offloaded.invariants?.catch(() => undefined)
+      const { faces, tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches } = await runAnalysisAsync(
+        input, { balancePrecision: 'single' },
+        { offloaded, beforeStage: async (stage) => { report(...STAGE_PROGRESS[stage]); await yieldTurn(); clock.mark(stage) } },
+        ({ stage }) => { if (stage === 'elementBalance') p?.forget() },
+      )
       const pct = percentiles(balance.indicator, [50, 95, 100])
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')

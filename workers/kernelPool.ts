@@ -18,6 +18,8 @@
  */
 import { meshSlice, splitRanges } from '../src/model/meshRange.ts'
 import type { ElementBlock, Mesh, Vec3 } from '../src/model/model.ts'
+import { nodalStressField, stressFieldSlice } from '../src/model/stressField.ts'
+import type { StressField } from '../src/model/stressField.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
@@ -81,8 +83,8 @@ export class KernelPool {
   }
 
   /** Element balance of the whole mesh in single precision, split over the pool where that pays. */
-  async elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<{ value: ElementBalance; run: PoolRun }> {
-    const serial = (): ElementBalance => computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
+  async elementBalance(mesh: Mesh, stress: StressField, bodyForce: Vec3): Promise<{ value: ElementBalance; run: PoolRun }> {
+    const serial = (): ElementBalance => computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, stress, bodyForce)
     if (mesh.elementCount < POOL_MIN_ELEMENTS) return this.runSerial(serial)
     return this.runSplit(serial, () => (this.sharing === 'shared' ? this.balanceShared(mesh, stress, bodyForce) : this.balanceCopied(mesh, stress, bodyForce)))
   }
@@ -90,7 +92,7 @@ export class KernelPool {
   /** Principal stresses and the other invariants of every node, split by node range. */
   async nodalInvariants(stress: Float64Array): Promise<{ value: NodalInvariants; run: PoolRun }> {
     const N = stress.length / 6
-    const serial = (): NodalInvariants => computeNodalInvariants(stress)
+    const serial = (): NodalInvariants => computeNodalInvariants(allocateNodalInvariants(N), stress)
     if (N < POOL_MIN_NODES) return this.runSerial(serial)
     return this.runSplit(serial, () => (this.sharing === 'shared' ? this.invariantsShared(stress) : this.invariantsCopied(stress)))
   }
@@ -154,14 +156,15 @@ export class KernelPool {
     return s
   }
 
-  private async balanceShared(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<ElementBalance> {
+  private async balanceShared(mesh: Mesh, stress: StressField, bodyForce: Vec3): Promise<ElementBalance> {
     const E = mesh.elementCount
     const shared: Mesh = {
       coords: this.shared(mesh.coords), nodeIds: this.shared(mesh.nodeIds),
       blocks: mesh.blocks.map((b) => ({ ...b, conn: this.shared(b.conn), ids: this.shared(b.ids), part: null })),
       nodeCount: mesh.nodeCount, elementCount: E,
     }
-    const sStress = this.shared(stress)
+    // Nodal rows are the connectivity: the copy made for it above serves them too.
+    const sStress: StressField = { values: this.shared(stress.values), rows: stress.rows.map((r) => this.shared(r)), layout: stress.layout }
     const out: ElementBalance = {
       residual: new Float32Array(new SharedArrayBuffer(12 * E)),
       gross: new Float32Array(new SharedArrayBuffer(4 * E)),
@@ -169,20 +172,26 @@ export class KernelPool {
     }
     const ranges = splitRanges(E, this.endpoints.length)
     await Promise.all(ranges.map(([from, to], i) => this.endpoints[i].balance(
-      partOf(meshSlice(shared, from, to), sStress, bodyForce),
+      partOf(shared, from, to, sStress, bodyForce),
       { residual: out.residual.subarray(3 * from, 3 * to), gross: out.gross.subarray(from, to), indicator: out.indicator.subarray(from, to) },
     )))
     return out
   }
 
-  private async balanceCopied(mesh: Mesh, stress: Float64Array, bodyForce: Vec3): Promise<ElementBalance> {
+  private async balanceCopied(mesh: Mesh, stress: StressField, bodyForce: Vec3): Promise<ElementBalance> {
     const E = mesh.elementCount
     const ranges = splitRanges(E, this.endpoints.length)
     const parts = await Promise.all(ranges.map(([from, to], i) => {
-      // Own copies of the range's connectivity (structured clone copies the node arrays).
+      // Own copies of the range's connectivity and stress rows (structured clone copies the node
+      // arrays and the stress values). Nodal rows are the copied connectivity itself, which
+      // structured clone sends once.
       const slice = meshSlice(mesh, from, to)
       const blocks: ElementBlock[] = slice.blocks.map((b) => ({ ...b, conn: b.conn.slice(), ids: b.ids.slice(), part: null }))
-      return this.endpoints[i].balance(partOf({ ...slice, blocks }, stress, bodyForce))
+      const own: Mesh = { ...slice, blocks }
+      const field: StressField = stress.layout === 'nodal'
+        ? nodalStressField(own, stress.values)
+        : { ...stress, rows: stressFieldSlice(stress, mesh, slice, from).rows.map((r) => r.slice()) }
+      return this.endpoints[i].balance(partAs(own, field, bodyForce))
     }))
     const out = allocateElementBalance(E, 'single')
     ranges.forEach(([from], i) => {
@@ -204,7 +213,13 @@ export class KernelPool {
   }
 }
 
-function partOf(slice: Mesh, stress: Float64Array, bodyForce: Vec3): BalancePart {
+/** The part of elements [from, to) of `mesh` with its stress rows. */
+function partOf(mesh: Mesh, from: number, to: number, stress: StressField, bodyForce: Vec3): BalancePart {
+  const slice = meshSlice(mesh, from, to)
+  return partAs(slice, stressFieldSlice(stress, mesh, slice, from), bodyForce)
+}
+
+function partAs(slice: Mesh, stress: StressField, bodyForce: Vec3): BalancePart {
   return { coords: slice.coords, nodeIds: slice.nodeIds, stress, blocks: slice.blocks, elementCount: slice.elementCount, bodyForce }
 }
 

@@ -4,7 +4,7 @@
  * back; otherwise the arrays are moved back by transfer.
  */
 import * as Comlink from 'comlink'
-import { computeNodalInvariants } from '../src/mechanics/invariants.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import { balancePart } from './kernelPoolTask.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
@@ -18,7 +18,7 @@ const api = {
     return out ? null : Comlink.transfer(r, buffersOf(r))
   },
   invariants(stress: Float64Array, out?: NodalInvariants): NodalInvariants | null {
-    const r = computeNodalInvariants(stress, out)
+    const r = computeNodalInvariants(out ?? allocateNodalInvariants(stress.length / 6), stress)
     return out ? null : Comlink.transfer(r, buffersOf(r))
   },
 }

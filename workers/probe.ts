@@ -9,7 +9,8 @@ import type { ElementTypeName } from '../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../src/model/model.ts'
 import { shapeDerivatives, shapeValues } from '../src/mechanics/shapeFunctions.ts'
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
-import { elementIdOf } from '../src/mechanics/boundaryFaces.ts'
+import { elementIdOf } from '../src/model/elementId.ts'
+import { makePlane, planeDistance } from '../src/mechanics/plane.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
 import type { ProbeRequest, ProbeResult } from './protocol.ts'
 
@@ -36,15 +37,10 @@ function rayTriangle(o: Vec3, d: Vec3, x: Float64Array, a: number, b: number, c:
   return t > 0 ? t : Infinity
 }
 
-function signedSide(p: Vec3, plane: SectionPlane): number {
-  const m = plane.normal, q = plane.point
-  return (p[0] - q[0]) * m[0] + (p[1] - q[1]) * m[1] + (p[2] - q[2]) * m[2]
-}
-
-function hidden(p: Vec3, req: ProbeRequest): boolean {
+function hidden(p: Vec3, req: ProbeRequest, plane: SectionPlane | null): boolean {
   const s = req.section
-  if (!s || s.hide === 'none') return false
-  const side = signedSide(p, s.plane)
+  if (!s || !plane || s.hide === 'none') return false
+  const side = planeDistance(plane, p[0], p[1], p[2])
   return s.hide === 'positive' ? side > 0 : side < 0
 }
 
@@ -142,7 +138,10 @@ export function probeModel(
 ): ProbeResult | null {
   const o = req.ray.origin
   const dl = Math.hypot(...req.ray.direction)
+  // A pick ray is not user input: one without a direction hits nothing.
   if (!(dl > 0) || !o.every(Number.isFinite)) return null
+  // The section plane by the one plane rule (a zero or non-finite normal is an InputError).
+  const plane = req.section ? makePlane(req.section.plane.point, req.section.plane.normal) : null
   const d: Vec3 = [req.ray.direction[0] / dl, req.ray.direction[1] / dl, req.ray.direction[2] / dl]
   const x = mesh.coords
   let best: Hit | null = null
@@ -152,15 +151,15 @@ export function probeModel(
     const nc = CORNERS_OF_KIND[faces.kind[f]]
     let t = rayTriangle(o, d, x, nodes[s], nodes[s + 1], nodes[s + 2])
     if (nc === 4) t = Math.min(t, rayTriangle(o, d, x, nodes[s], nodes[s + 2], nodes[s + 3]))
-    if (t < (best?.t ?? Infinity) && !hidden(at(t), req)) {
+    if (t < (best?.t ?? Infinity) && !hidden(at(t), req, plane)) {
       best = { t, elem: faces.elem[f], normal: [faces.normal[3 * f], faces.normal[3 * f + 1], faces.normal[3 * f + 2]], where: 'surface' }
     }
   }
-  if (req.section && polygons && polygons.count > 0) {
-    const m = req.section.plane.normal
+  if (plane && polygons && polygons.count > 0) {
+    const m = plane.normal
     const denom = d[0] * m[0] + d[1] * m[1] + d[2] * m[2]
     if (Math.abs(denom) > 1e-12) {
-      const t = -signedSide(o, req.section.plane) / denom
+      const t = -planeDistance(plane, o[0], o[1], o[2]) / denom
       if (t > 0 && t < (best?.t ?? Infinity)) {
         const p = at(t)
         for (let q = 0; q < polygons.count; q++) {

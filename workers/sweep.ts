@@ -4,16 +4,14 @@
  * app thread never loops over elements or section records.
  */
 import type { Model, Vec3 } from '../src/model/model.ts'
-import { InputError } from '../src/model/errors.ts'
+import { unitNormal } from '../src/mechanics/plane.ts'
 import { sweepSections } from '../src/mechanics/sectionSweep.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
 import type { SweepReply } from './protocol.ts'
 
-/** [min, max] of x·m over the nodes (length units); m need not be unit (it is normalised). */
+/** [min, max] of x·m over the nodes (length units); m need not be unit (unitNormal: zero is an InputError). */
 export function extentAlong(coords: Float64Array, normal: Vec3): [number, number] {
-  const len = Math.hypot(normal[0], normal[1], normal[2])
-  if (!(len > 0) || !Number.isFinite(len)) throw new InputError('bad-argument', 'the sweep direction must be a non-zero vector', { field: 'normal' })
-  const mx = normal[0] / len, my = normal[1] / len, mz = normal[2] / len
+  const [mx, my, mz] = unitNormal(normal, 'sweep direction')
   let lo = Infinity, hi = -Infinity
   for (let i = 0; i < coords.length; i += 3) {
     const d = coords[i] * mx + coords[i + 1] * my + coords[i + 2] * mz
@@ -48,8 +46,7 @@ export function sweepAlong(
     out.freeBodyRelative[k] = r.freeBody.relative
     out.empty[k] = r.empty ? 1 : 0
   }
-  const len = Math.hypot(normal[0], normal[1], normal[2])
-  return { normal: [normal[0] / len, normal[1] / len, normal[2] / len], extent, offsets, ...out }
+  return { normal: unitNormal(normal, 'sweep direction'), extent, offsets, ...out }
 }
 
 export function sweepTransfer(r: SweepReply): ArrayBuffer[] {

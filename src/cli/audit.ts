@@ -9,19 +9,9 @@ import { UsageError } from './args.ts'
 import { loadModel } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, table, vecJson, vecQty } from './format.ts'
-import type { Mesh } from '../model/model.ts'
-import { extractBoundaryFaces } from '../mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../mechanics/tractions.ts'
-import { allocateElementBalance, computeBodyBalance, computeElementBalance, percentiles } from '../mechanics/balanceAudit.ts'
-import { findLoadPatches } from '../mechanics/loadPatches.ts'
-
-/** The user's element id of global element index `g`. */
-export function elementId(mesh: Mesh, g: number): number {
-  for (const b of mesh.blocks) {
-    if (g >= b.offset && g < b.offset + b.ids.length) return b.ids[g - b.offset]
-  }
-  return -1
-}
+import { elementIdOf } from '../model/elementId.ts'
+import { analysisInputOf, runAnalysis } from '../mechanics/analysisPipeline.ts'
+import { percentiles } from '../mechanics/balanceAudit.ts'
 
 /** Indices of the `k` largest values, largest first (one pass, k small). */
 export function topIndices(values: ArrayLike<number>, k: number): number[] {
@@ -56,21 +46,19 @@ export const auditCommand: Command = {
   run(args, io) {
     const loaded = loadModel(args.positionals[0])
     const { model } = loaded
-    const { mesh, stress } = model
+    const { mesh } = model
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
     const worstCount = args.options.worst === undefined ? 5 : Math.max(0, args.options.worst as number)
     const threshold = args.options.threshold as number | undefined
     if (threshold !== undefined && !(threshold >= 0)) throw new UsageError('--threshold must be a fraction ≥ 0, like 0.05')
 
-    const faces = extractBoundaryFaces(mesh)
-    const tractions = computeSurfaceTractions(mesh, stress, faces)
-    const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-    // Single-precision storage: the indicator is read and ranked, and memory stays near the model's size.
-    const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
+    // Single-precision storage of the element balance: the indicator is read and ranked, and
+    // memory stays near the model's size.
+    const { faces, bodyBalance: body, elementBalance: elements, loadPatches: lp } = runAnalysis(
+      analysisInputOf(model, bodyForce), { balancePrecision: 'single', loadPatches: { threshold } })
     const [p50, p95, pmax] = Array.from(percentiles(elements.indicator, [50, 95, 100]))
-    const worst = topIndices(elements.indicator, worstCount).map((g) => ({ id: elementId(mesh, g), indicator: elements.indicator[g] }))
-    const lp = findLoadPatches(mesh, stress, faces, tractions, threshold === undefined ? undefined : { threshold })
+    const worst = topIndices(elements.indicator, worstCount).map((g) => ({ id: elementIdOf(mesh, g), indicator: elements.indicator[g] }))
 
     const fs = u.factor('stress')
     const fa = u.factor('area')

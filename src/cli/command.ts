@@ -2,7 +2,6 @@
  * What every command of the command line provides, and the options they share.
  */
 import type { OptionSpec, ParsedArgs } from './args.ts'
-import { UsageError } from './args.ts'
 import type { Model, Vec3 } from '../model/model.ts'
 import type { UnitChoice } from './unitView.ts'
 
@@ -44,13 +43,6 @@ export function bodyForceOf(args: ParsedArgs, model: Model): Vec3 {
 export function vecOption(args: ParsedArgs, name: string): Vec3 | undefined {
   const v = args.options[name]
   return Array.isArray(v) ? [v[0], v[1], v[2]] : undefined
-}
-
-/** A unit vector along `v`; a usage error when it has no length. */
-export function unitVector(v: Vec3, name: string): Vec3 {
-  const l = Math.hypot(v[0], v[1], v[2])
-  if (!(l > 0)) throw new UsageError(`--${name} must not be the zero vector`)
-  return [v[0] / l, v[1] / l, v[2] / l]
 }
 
 /** JSON with a trailing newline; non-finite numbers become null so the output always parses. */

@@ -4,8 +4,9 @@
  * free-body check of the piece on the -normal side.
  */
 import type { Command } from './command.ts'
-import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, unitVector, vecOption } from './command.ts'
+import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, vecOption } from './command.ts'
 import { loadModel } from './loadModel.ts'
+import { makePlane } from '../mechanics/plane.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
@@ -56,19 +57,18 @@ export const cutCommand: Command = {
     'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is over that piece\'s gross load.',
   ].join('\n'),
   run(args, io) {
-    const point = vecOption(args, 'point')!
-    const normal = unitVector(vecOption(args, 'normal')!, 'normal')
+    const plane = makePlane(vecOption(args, 'point')!, vecOption(args, 'normal')!)
     const about = vecOption(args, 'about')
     const loaded = loadModel(args.positionals[0])
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
-    const { result: r } = cutSection(model.mesh, model.stress, bodyForce, { point, normal }, { about, polygons: false })
+    const { result: r } = cutSection(model.mesh, model.stress, bodyForce, plane, { about, polygons: false })
     if (args.options.json) {
       printJson(io, { file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u) })
       return 0
     }
-    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(point, 'length', u)}, normal ${vecPlain(normal)}`))
+    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(plane.point, 'length', u)}, normal ${vecPlain(plane.normal)}`))
     return 0
   },
 }

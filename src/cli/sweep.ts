@@ -3,9 +3,10 @@
  * at offsets a..b along the unit normal (plane point = offset · m), as CSV or JSON.
  */
 import type { Command } from './command.ts'
-import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, unitVector, vecOption } from './command.ts'
+import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, vecOption } from './command.ts'
 import { UsageError } from './args.ts'
 import { loadModel } from './loadModel.ts'
+import { unitNormal } from '../mechanics/plane.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { sectionJson } from './cut.ts'
@@ -41,7 +42,7 @@ export const sweepCommand: Command = {
     '--json prints {"sections": [...]} with "offset" and the fields of `tractus cut --json` per section.',
   ].join('\n'),
   run(args, io) {
-    const normal = unitVector(vecOption(args, 'normal')!, 'normal')
+    const normal = unitNormal(vecOption(args, 'normal')!, 'sweep direction')
     const from = args.options.from as number
     const to = args.options.to as number
     const count = args.options.count as number

@@ -12,7 +12,7 @@
  * blocks: [{type, count}], arrays: [{name, dtype, offset, length}]} with `length` in elements.
  * Arrays: coords (f64, 3N), nodeIds (i32, N), stress (f64, 6N), displacement (f64, 3N, optional),
  * and per block k: blockK.conn (i32, count·nodes), blockK.ids (i32, count), blockK.part (i32,
- * count, optional). See docs/FORMATS.md.
+ * count, optional). README.md describes the layout for users ("The `.tractus` container").
  *
  * The reader trusts nothing in the header: every field, range, alignment, count and value is
  * checked, and problems are InputErrors naming the header field. Arrays are zero-copy views on the

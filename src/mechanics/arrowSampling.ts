@@ -24,6 +24,7 @@
 import type { Vec3 } from '../model/model.ts'
 import type { BoundaryFaces, SectionPolygons, SurfaceTractions } from './types.ts'
 import { mulberry32 } from './seededRandom.ts'
+import { unitNormal } from './plane.ts'
 
 export type ArrowMode = 'full' | 'normal' | 'shear'
 
@@ -157,15 +158,15 @@ export function sampleSurfaceArrows(faces: BoundaryFaces, tractions: SurfaceTrac
 /**
  * Section arrows: one item per cut polygon, its area, centroid and mean traction σm from the fan
  * triangles (traction linear over each triangle, so the mean is exact for that interpolation).
- * `normal` is the section normal m (normalised here).
+ * `normal` is the section normal m, any length (normalised by unitNormal: a zero or non-finite
+ * normal is an InputError).
  */
 export function sampleSectionArrows(polygons: SectionPolygons, normal: Vec3, options: ArrowOptions = {}): ArrowSamples {
   const mode = options.mode ?? 'full'
   const budget = options.budget ?? DEFAULT_ARROW_BUDGET
+  const m = unitNormal(normal)
   const P = polygons.count
-  const len = Math.hypot(normal[0], normal[1], normal[2])
-  if (P === 0 || !(len > 0)) return emptySamples(mode)
-  const m: Vec3 = [normal[0] / len, normal[1] / len, normal[2] / len]
+  if (P === 0) return emptySamples(mode)
   const areas = new Float64Array(P)
   const centroid = new Float64Array(3 * P)
   const mean = new Float64Array(3 * P)

@@ -11,11 +11,19 @@
  * Whole body: F = Σ ∫ t dA over the boundary faces + ρb·V; moment about the volume centroid c,
  * Σ ∫ (x - c) × t dA (the body force has no moment about c, since ∫ (x - c) dV = 0);
  * gross = half of (Σ |face force| + |ρb|·V).
+ *
+ * Stress is read through the field's element-node index (`StressField.rows`, beside the
+ * connectivity): the stress of element-node (e, a) is row rows[e·n + a], so nodal and
+ * element-nodal stress take the same path, closed forms included.
  */
 import { ELEMENT_TYPES, FACE_KIND_CODE } from '../model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
+import { checkStressField } from '../model/stressField.ts'
+import type { StressField } from '../model/stressField.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
 import { elementVolumesAndCentroids } from './elementVolume.ts'
+import { FQP_AREA, FQP_SIZE, FQP_STRESS, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
+import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } from './types.ts'
 
 /** Fresh output arrays for E elements in the chosen storage precision (see ElementBalance). */
@@ -25,32 +33,34 @@ export function allocateElementBalance(E: number, precision: 'double' | 'single'
 }
 
 /**
- * Fills `out` (default: fresh double-precision arrays) for every element of `mesh`; sums always
- * run in double precision. To split the work, run it on meshSlice(mesh, from, to) with `out`
- * holding subarray views [from, to) of the whole output.
+ * Fills `out` (allocateElementBalance: double or single precision storage) for every element of
+ * `mesh` and returns it; sums always run in double precision. To split the work, run it on
+ * meshSlice(mesh, from, to) and stressFieldSlice(...) with `out` holding subarray views
+ * [from, to) of the whole output.
  */
-export function computeElementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out?: ElementBalance): ElementBalance {
-  return elementBalance(mesh, stress, bodyForce, out, true)
+export function computeElementBalance(out: ElementBalance, mesh: Mesh, stress: StressField, bodyForce: Vec3): ElementBalance {
+  return elementBalance(out, mesh, stress, bodyForce, true)
 }
 
 /**
  * The same audit with hex8 blocks sent through the general face quadrature instead of their
  * closed form: the reference the closed form is tested against. Not for production use (slower).
  */
-export function computeElementBalanceGeneral(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out?: ElementBalance): ElementBalance {
-  return elementBalance(mesh, stress, bodyForce, out, false)
+export function computeElementBalanceGeneral(out: ElementBalance, mesh: Mesh, stress: StressField, bodyForce: Vec3): ElementBalance {
+  return elementBalance(out, mesh, stress, bodyForce, false)
 }
 
 /** hex8 faces as local corner numbers, 4 per face, outward (ELEMENT_TYPES.hex8.faces). */
 const HEX8_FACES = Int32Array.from(ELEMENT_TYPES.hex8.faces.flat())
 
-function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: ElementBalance | undefined, hexClosedForm: boolean): ElementBalance {
+function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bodyForce: Vec3, hexClosedForm: boolean): ElementBalance {
   const E = mesh.elementCount
-  const result = out ?? allocateElementBalance(E)
-  if (result.gross.length < E || result.indicator.length < E || result.residual.length < 3 * E) {
-    throw new RangeError(`element balance output holds ${result.gross.length} elements, the mesh has ${E}`)
+  if (out.gross.length < E || out.indicator.length < E || out.residual.length < 3 * E) {
+    throw new RangeError(`element balance output holds ${out.gross.length} elements, the mesh has ${E}`)
   }
-  const { residual, gross, indicator } = result
+  checkStressField(mesh, field)
+  const { residual, gross, indicator } = out
+  const stress = field.values
   // tet4 and hex8 blocks compute their volume inline; the others use the volume quadrature (an
   // array only when there are such blocks).
   const inline = (t: string): boolean => t === 'tet4' || (hexClosedForm && t === 'hex8')
@@ -61,11 +71,12 @@ function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: 
   const bMag = Math.sqrt(bx * bx + by * by + bz * bz)
   const x = mesh.coords
   const tables = faceQuadratureTables()
-  const xs = new Float64Array(3 * 8), ss = new Float64Array(6 * 8)
+  const xs = new Float64Array(3 * 8), ss = new Float64Array(6 * 8), qp = createFacePoints(tables)
 
-  for (const b of mesh.blocks) {
+  for (let bi = 0; bi < mesh.blocks.length; bi++) {
+    const b = mesh.blocks[bi]
     const topo = ELEMENT_TYPES[b.type]
-    const conn = b.conn, off = b.offset, nn = topo.nodeCount
+    const conn = b.conn, rows = field.rows[bi], off = b.offset, nn = topo.nodeCount
     const count = conn.length / nn
     if (b.type === 'tet4') {
       // Flat faces and linear σ: ∫ σn dA = σ̄ · (A n) exactly, σ̄ the mean of the face's three
@@ -77,13 +88,14 @@ function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: 
         const ux = x[3 * n1] - x0, uy = x[3 * n1 + 1] - y0, uz = x[3 * n1 + 2] - z0
         const vx = x[3 * n2] - x0, vy = x[3 * n2 + 1] - y0, vz = x[3 * n2 + 2] - z0
         const wx = x[3 * n3] - x0, wy = x[3 * n3 + 1] - y0, wz = x[3 * n3 + 2] - z0
-        // Outward doubled area vectors: opposite 3 = v × u, opposite 2 = u × w, opposite 1 = w × v.
+        // Outward doubled area vectors: opposite 3 = v × u, opposite 2 = u × w, opposite 1 = w × v
+        // (scalar locals, not vec3.cross: this loop runs once per element, see vec3.ts).
         const a3x = vy * uz - vz * uy, a3y = vz * ux - vx * uz, a3z = vx * uy - vy * ux
         const a2x = uy * wz - uz * wy, a2y = uz * wx - ux * wz, a2z = ux * wy - uy * wx
         const a1x = wy * vz - wz * vy, a1y = wz * vx - wx * vz, a1z = wx * vy - wy * vx
         const a0x = -(a1x + a2x + a3x), a0y = -(a1y + a2y + a3y), a0z = -(a1z + a2z + a3z)
         const vol = -(ux * a1x + uy * a1y + uz * a1z) / 6
-        const s0 = 6 * n0, s1 = 6 * n1, s2 = 6 * n2, s3 = 6 * n3
+        const s0 = 6 * rows[4 * e], s1 = 6 * rows[4 * e + 1], s2 = 6 * rows[4 * e + 2], s3 = 6 * rows[4 * e + 3]
         const txx = stress[s0] + stress[s1] + stress[s2] + stress[s3]
         const tyy = stress[s0 + 1] + stress[s1 + 1] + stress[s2 + 1] + stress[s3 + 1]
         const tzz = stress[s0 + 2] + stress[s1 + 2] + stress[s2 + 2] + stress[s3 + 2]
@@ -132,9 +144,8 @@ function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: 
         const ox = x[o], oy = x[o + 1], oz = x[o + 2]
         let rx = 0, ry = 0, rz = 0, g = 0, v48 = 0
         for (let f = 0; f < 24; f += 4) {
-          const p0 = conn[base + HEX8_FACES[f]], p1 = conn[base + HEX8_FACES[f + 1]]
-          const p2 = conn[base + HEX8_FACES[f + 2]], p3 = conn[base + HEX8_FACES[f + 3]]
-          const c0 = 3 * p0, c1 = 3 * p1, c2 = 3 * p2, c3 = 3 * p3
+          const l0 = base + HEX8_FACES[f], l1 = base + HEX8_FACES[f + 1], l2 = base + HEX8_FACES[f + 2], l3 = base + HEX8_FACES[f + 3]
+          const c0 = 3 * conn[l0], c1 = 3 * conn[l1], c2 = 3 * conn[l2], c3 = 3 * conn[l3]
           const x0 = x[c0] - ox, y0 = x[c0 + 1] - oy, z0 = x[c0 + 2] - oz
           const x1 = x[c1] - ox, y1 = x[c1 + 1] - oy, z1 = x[c1 + 2] - oz
           const x2 = x[c2] - ox, y2 = x[c2 + 1] - oy, z2 = x[c2 + 2] - oz
@@ -149,7 +160,7 @@ function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: 
           const k0x = n0x * (1 / 16), k0y = n0y * (1 / 16), k0z = n0z * (1 / 16)
           const k1x = (eby * edz - ebz * edy) * (1 / 48), k1y = (ebz * edx - ebx * edz) * (1 / 48), k1z = (ebx * edy - eby * edx) * (1 / 48)
           const k2x = (edy * ecz - edz * ecy) * (1 / 48), k2y = (edz * ecx - edx * ecz) * (1 / 48), k2z = (edx * ecy - edy * ecx) * (1 / 48)
-          const s0 = 6 * p0, s1 = 6 * p1, s2 = 6 * p2, s3 = 6 * p3
+          const s0 = 6 * rows[l0], s1 = 6 * rows[l1], s2 = 6 * rows[l2], s3 = 6 * rows[l3]
           // Per stored component (xx, yy, zz, xy, yz, xz): corner values t0..t3, then
           // s_a·k0 + s_b·k1 + s_c·k2 along the normal direction(s) the component multiplies.
           let t0 = stress[s0], t1 = stress[s1], t2 = stress[s2], t3 = stress[s3]
@@ -188,29 +199,20 @@ function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: 
       for (let f = 0; f < nf; f++) {
         const fa = topo.faces[f]
         const t = tables[faceCode[f]]
-        const fn = t.nodeCount, nq = t.pointCount, V = t.values, D = t.derivs, W = t.weights
+        const fn = t.nodeCount, nq = t.pointCount, W = t.weights
         for (let a = 0; a < fn; a++) {
-          const p = conn[base + fa[a]]
+          const p = conn[base + fa[a]], r = 6 * rows[base + fa[a]]
           xs[3 * a] = x[3 * p]; xs[3 * a + 1] = x[3 * p + 1]; xs[3 * a + 2] = x[3 * p + 2]
-          for (let c = 0; c < 6; c++) ss[6 * a + c] = stress[6 * p + c]
+          for (let c = 0; c < 6; c++) ss[6 * a + c] = stress[r + c]
         }
         let fx = 0, fy = 0, fz = 0
+        faceQuadraturePoints(qp, t, xs, ss, false)
         for (let q = 0; q < nq; q++) {
-          let ux = 0, uy = 0, uz = 0, vx = 0, vy = 0, vz = 0
-          let sxx = 0, syy = 0, szz = 0, sxy = 0, syz = 0, sxz = 0
-          const vo = q * fn, dof = 2 * q * fn
-          for (let a = 0; a < fn; a++) {
-            const Na = V[vo + a], du = D[dof + 2 * a], dv = D[dof + 2 * a + 1]
-            const ax = xs[3 * a], ay = xs[3 * a + 1], az = xs[3 * a + 2]
-            ux += du * ax; uy += du * ay; uz += du * az
-            vx += dv * ax; vy += dv * ay; vz += dv * az
-            const sa = 6 * a
-            sxx += Na * ss[sa]; syy += Na * ss[sa + 1]; szz += Na * ss[sa + 2]
-            sxy += Na * ss[sa + 3]; syz += Na * ss[sa + 4]; sxz += Na * ss[sa + 5]
-          }
           // (t_u × t_v) w is the area vector n dA of this quadrature point.
-          const w = W[q]
-          const nx = (uy * vz - uz * vy) * w, ny = (uz * vx - ux * vz) * w, nz = (ux * vy - uy * vx) * w
+          const r = FQP_SIZE * q, w = W[q]
+          const nx = qp[r + FQP_AREA] * w, ny = qp[r + FQP_AREA + 1] * w, nz = qp[r + FQP_AREA + 2] * w
+          const sxx = qp[r + FQP_STRESS], syy = qp[r + FQP_STRESS + 1], szz = qp[r + FQP_STRESS + 2]
+          const sxy = qp[r + FQP_STRESS + 3], syz = qp[r + FQP_STRESS + 4], sxz = qp[r + FQP_STRESS + 5]
           fx += sxx * nx + sxy * ny + sxz * nz
           fy += sxy * nx + syy * ny + syz * nz
           fz += sxz * nx + syz * ny + szz * nz
@@ -221,7 +223,7 @@ function elementBalance(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, out: 
       store(off + e, volume[off + e], rx, ry, rz, g)
     }
   }
-  return result
+  return out
 
   function store(ge: number, v: number, rx: number, ry: number, rz: number, faceSum: number): void {
     rx += bx * v; ry += by * v; rz += bz * v
@@ -270,7 +272,7 @@ export function computeBodyBalance(mesh: Mesh, faces: BoundaryFaces, tractions: 
   const bodyForceTotal: Vec3 = [bodyForce[0] * V, bodyForce[1] * V, bodyForce[2] * V]
   const force: Vec3 = [fx + bodyForceTotal[0], fy + bodyForceTotal[1], fz + bodyForceTotal[2]]
   // Shift the surface moment from the origin to c: M_c = M_0 - c × F_surface.
-  const moment: Vec3 = [mx - (c[1] * fz - c[2] * fy), my - (c[2] * fx - c[0] * fz), mz - (c[0] * fy - c[1] * fx)]
+  const moment = momentAbout<Vec3>([0, 0, 0], [mx, my, mz], c, surfaceForce)
   const gross = 0.5 * (faceSum + Math.hypot(...bodyForceTotal))
   const relative = gross > 0 ? Math.hypot(...force) / gross : 0
   return { force, moment, relative, gross, about: c, volume: V, centroid: c, surfaceForce, bodyForceTotal }

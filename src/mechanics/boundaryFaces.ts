@@ -12,9 +12,11 @@
  * for positively oriented elements (the readers reorient inverted ones).
  */
 import { ELEMENT_TYPES, FACE_CORNER_COUNT, FACE_KIND_CODE, FACE_NODE_COUNT } from '../model/elementTypes.ts'
+import { elementIdOf } from '../model/elementId.ts'
 import type { FaceKind } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { ElementBlock, Mesh } from '../model/model.ts'
+import { FQP_AREA, FQP_SIZE, FQP_X, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { faceRule } from './quadrature.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
@@ -191,7 +193,7 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
   }
 
   const area = new Float64Array(F), normal = new Float64Array(3 * F), centroid = new Float64Array(3 * F)
-  computeFaceGeometry(mesh.coords, kind, nodes, S, area, normal, centroid)
+  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
   return { count: F, slots: S, elem, localFace, kind, nodes, area, normal, centroid }
 }
 
@@ -212,19 +214,20 @@ export function faceQuadratureTables(): FaceTable[] {
 
 /**
  * Area, unit mean outward normal and area centroid of faces given by kind code and node slots
- * (`slots` per face in `nodes`, at least the node count of the largest face present),
- * with the face quadrature (curved quadratic faces included; flat triangles in closed form).
- * A zero-area face gets a zero normal and its corner mean as centroid.
+ * (`slots` per face in `nodes`, at least the node count of the largest face present) into
+ * `outArea` (F), `outNormal` (3·F) and `outCentroid` (3·F), with the face quadrature (curved
+ * quadratic faces included; flat triangles in closed form). A zero-area face gets a zero normal
+ * and its corner mean as centroid.
  */
-export function computeFaceGeometry(coords: Float64Array, kind: Uint8Array, nodes: Int32Array, slots: number, outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array): void {
+export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array, coords: Float64Array, kind: Uint8Array, nodes: Int32Array, slots: number): void {
   const tables = faceQuadratureTables()
   const F = kind.length
-  const xs = new Float64Array(3 * FACE_SLOTS)
+  const xs = new Float64Array(3 * FACE_SLOTS), qp = createFacePoints(tables)
   for (let f = 0; f < F; f++) {
     const kc = kind[f]
     const o = slots * f
     if (kc === 0) {
-      // Flat triangle: exact in closed form.
+      // Flat triangle: exact in closed form (scalar locals: one pass over every boundary face).
       const a = 3 * nodes[o], b = 3 * nodes[o + 1], c = 3 * nodes[o + 2]
       const ax = coords[a], ay = coords[a + 1], az = coords[a + 2]
       const ux = coords[b] - ax, uy = coords[b + 1] - ay, uz = coords[b + 2] - az
@@ -240,27 +243,19 @@ export function computeFaceGeometry(coords: Float64Array, kind: Uint8Array, node
       continue
     }
     const t = tables[kc]
-    const nn = t.nodeCount, nq = t.pointCount, V = t.values, D = t.derivs, W = t.weights
+    const nn = t.nodeCount, nq = t.pointCount, W = t.weights
     for (let a = 0; a < nn; a++) {
       const p = 3 * nodes[o + a]
       xs[3 * a] = coords[p]; xs[3 * a + 1] = coords[p + 1]; xs[3 * a + 2] = coords[p + 2]
     }
     let A = 0, sx = 0, sy = 0, sz = 0, cx = 0, cy = 0, cz = 0
+    faceQuadraturePoints(qp, t, xs, null, true)
     for (let q = 0; q < nq; q++) {
-      let px = 0, py = 0, pz = 0, ux = 0, uy = 0, uz = 0, vx = 0, vy = 0, vz = 0
-      const vo = q * nn, dof = 2 * q * nn
-      for (let a = 0; a < nn; a++) {
-        const Na = V[vo + a], du = D[dof + 2 * a], dv = D[dof + 2 * a + 1]
-        const x = xs[3 * a], y = xs[3 * a + 1], z = xs[3 * a + 2]
-        px += Na * x; py += Na * y; pz += Na * z
-        ux += du * x; uy += du * y; uz += du * z
-        vx += dv * x; vy += dv * y; vz += dv * z
-      }
-      const w = W[q]
-      const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx
+      const r = FQP_SIZE * q, w = W[q]
+      const nx = qp[r + FQP_AREA], ny = qp[r + FQP_AREA + 1], nz = qp[r + FQP_AREA + 2]
       const dA = Math.sqrt(nx * nx + ny * ny + nz * nz) * w
       A += dA; sx += nx * w; sy += ny * w; sz += nz * w
-      cx += px * dA; cy += py * dA; cz += pz * dA
+      cx += qp[r + FQP_X] * dA; cy += qp[r + FQP_X + 1] * dA; cz += qp[r + FQP_X + 2] * dA
     }
     outArea[f] = A
     const len = Math.sqrt(sx * sx + sy * sy + sz * sz)
@@ -277,15 +272,6 @@ export function computeFaceGeometry(coords: Float64Array, kind: Uint8Array, node
   }
 }
 
-/** Global element index → user element id. */
-export function elementIdOf(mesh: Mesh, g: number): number {
-  for (const b of mesh.blocks) {
-    const count = b.ids.length
-    if (g >= b.offset && g < b.offset + count) return b.ids[g - b.offset]
-  }
-  return g + 1
-}
-
 function sharedFaceError(mesh: Mesh, ref: Int32Array, i: number, j: number, n0: number, a: number, b: number, c: number): InputError {
   const ids: number[] = []
   for (let p = i; p < j; p++) ids.push(elementIdOf(mesh, Math.floor(ref[p] / REF_STRIDE)))
@@ -296,5 +282,3 @@ function sharedFaceError(mesh: Mesh, ref: Int32Array, i: number, j: number, n0: 
     { elementId: ids[0] })
 }
 
-/** Node count of each face kind code, for loops over `BoundaryFaces.kind`. */
-export const FACE_NODE_COUNT_BY_CODE: readonly number[] = [FACE_NODE_COUNT.tri3, FACE_NODE_COUNT.tri6, FACE_NODE_COUNT.quad4, FACE_NODE_COUNT.quad8]

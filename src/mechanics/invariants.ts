@@ -88,7 +88,8 @@ export function principalStressesAt(
   const r0x = a11 - la, r0y = a12, r0z = a13
   const r1x = a12, r1y = a22 - la, r1z = a23
   const r2x = a13, r2y = a23, r2z = a33 - la
-  // Cross products of row pairs; the longest is the best-conditioned null vector.
+  // Cross products of row pairs; the longest is the best-conditioned null vector. (Here and below
+  // in scalar locals, not vec3.cross: this runs once per node.)
   let c0x = r0y * r1z - r0z * r1y, c0y = r0z * r1x - r0x * r1z, c0z = r0x * r1y - r0y * r1x
   const c1x = r0y * r2z - r0z * r2y, c1y = r0z * r2x - r0x * r2z, c1z = r0x * r2y - r0y * r2x
   const c2x = r1y * r2z - r1z * r2y, c2y = r1z * r2x - r1x * r2z, c2z = r1x * r2y - r1y * r2x
@@ -182,7 +183,6 @@ export function vonMisesAt(s: ArrayLike<number>, o: number): number {
   return Math.sqrt(0.5 * (a * a + b * b + c * c) + 3 * (xy * xy + yz * yz + xz * xz))
 }
 
-/** Invariants at every node of a nodal stress array Float64Array(6·N). */
 /** Fresh output arrays for N nodes (see NodalInvariants). */
 export function allocateNodalInvariants(N: number): NodalInvariants {
   return {
@@ -192,21 +192,23 @@ export function allocateNodalInvariants(N: number): NodalInvariants {
 }
 
 /**
- * Invariants of every node of `stress` (6 per node) into `out` (default: fresh arrays). Nodes are
- * independent, so a range of nodes is stress.subarray(6·a, 6·b) with subarray views of the output.
+ * Invariants of every row of `stress` (6 per node: the nodal display stress, see
+ * nodalDisplayStress in src/model/stressField.ts) into `out` (allocateNodalInvariants) and returns
+ * it. Invariants are display values at nodes: for element-nodal stress they are taken of the
+ * part-wise nodal average, which the caller forms first. Rows are independent, so a range of nodes
+ * is stress.subarray(6·a, 6·b) with subarray views of the output.
  */
-export function computeNodalInvariants(stress: Float64Array, out?: NodalInvariants): NodalInvariants {
+export function computeNodalInvariants(out: NodalInvariants, stress: Float64Array): NodalInvariants {
   const N = stress.length / 6
-  const result = out ?? allocateNodalInvariants(N)
-  if (result.vonMises.length < N || result.principal.length < 3 * N || result.directions.length < 9 * N) {
-    throw new RangeError(`nodal invariant output holds ${result.vonMises.length} nodes, the stress has ${N}`)
+  if (out.vonMises.length < N || out.principal.length < 3 * N || out.directions.length < 9 * N) {
+    throw new RangeError(`nodal invariant output holds ${out.vonMises.length} nodes, the stress has ${N}`)
   }
-  const { principal, directions, vonMises: vm, tresca, mean } = result
+  const { principal, directions, vonMises: vm, tresca, mean } = out
   for (let i = 0; i < N; i++) {
     principalStressesAt(stress, 6 * i, principal, 3 * i, directions, 9 * i)
     vm[i] = vonMisesAt(stress, 6 * i)
     tresca[i] = principal[3 * i] - principal[3 * i + 2]
     mean[i] = (stress[6 * i] + stress[6 * i + 1] + stress[6 * i + 2]) / 3
   }
-  return result
+  return out
 }

@@ -2,7 +2,8 @@
  * Load-entry patches: where does load enter or leave the body?
  *
  * The rule (ours, stated here so a reader can reproduce every number):
- * 1. Reference stress σ_ref = the 95th percentile of the nodal von Mises stress over all nodes.
+ * 1. Reference stress σ_ref = the 95th percentile of the nodal von Mises stress over all nodes
+ *    (the display invariants, NodalInvariants.vonMises, so element-nodal stress needs no path here).
  *    A high percentile rather than the maximum, so one singular node (a re-entrant corner, a
  *    point load) does not decide what counts as "loaded".
  * 2. A boundary face is loaded when its mean traction magnitude ∫|t| dA / A exceeds
@@ -18,8 +19,8 @@
  */
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { percentiles } from './balanceAudit.ts'
-import { vonMisesAt } from './invariants.ts'
 import type { BoundaryFaces, LoadPatch, LoadPatches, SurfaceTractions } from './types.ts'
+import { momentAbout } from './vec3.ts'
 
 const CORNERS_BY_CODE = [3, 3, 4, 4]
 const NODES_BY_CODE = [3, 6, 4, 8]
@@ -29,12 +30,15 @@ export interface LoadPatchOptions {
   readonly threshold?: number
 }
 
-export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: BoundaryFaces, tractions: SurfaceTractions, options: LoadPatchOptions = {}): LoadPatches {
+/**
+ * The patches of `faces` (boundary faces of `mesh`) from their `tractions`; `vonMises` (N) is the
+ * nodal von Mises stress the reference stress is taken from (NodalInvariants.vonMises).
+ */
+export function findLoadPatches(mesh: Mesh, faces: BoundaryFaces, tractions: SurfaceTractions, vonMises: ArrayLike<number>, options: LoadPatchOptions = {}): LoadPatches {
   const fraction = options.threshold ?? 0.05
   const N = mesh.nodeCount, F = faces.count
-  const vm = new Float64Array(N)
-  for (let i = 0; i < N; i++) vm[i] = vonMisesAt(stress, 6 * i)
-  const ref = N > 0 ? percentiles(vm, [95])[0] : 0
+  if (vonMises.length !== N) throw new RangeError(`${vonMises.length} nodal von Mises values for ${N} nodes`)
+  const ref = N > 0 ? percentiles(vonMises, [95])[0] : 0
   const referenceStress = Number.isFinite(ref) ? ref : 0
   const threshold = fraction * referenceStress
 
@@ -123,11 +127,7 @@ export function findLoadPatches(mesh: Mesh, stress: Float64Array, faces: Boundar
     const c: Vec3 = A > 0 ? [cen[3 * p] / A, cen[3 * p + 1] / A, cen[3 * p + 2] / A] : [0, 0, 0]
     const Fv: Vec3 = [force[3 * p], force[3 * p + 1], force[3 * p + 2]]
     // Moment about the patch centroid: M_c = M_0 - c × F.
-    const M: Vec3 = [
-      mom[3 * p] - (c[1] * Fv[2] - c[2] * Fv[1]),
-      mom[3 * p + 1] - (c[2] * Fv[0] - c[0] * Fv[2]),
-      mom[3 * p + 2] - (c[0] * Fv[1] - c[1] * Fv[0]),
-    ]
+    const M = momentAbout<Vec3>([0, 0, 0], mom.subarray(3 * p, 3 * p + 3), c, Fv)
     const n: Vec3 = A > 0 ? [nrm[3 * p] / A, nrm[3 * p + 1] / A, nrm[3 * p + 2] / A] : [0, 0, 0]
     patches.push({ id: p, faceCount: cnt[p], area: A, centroid: c, normal: n, force: Fv, moment: M, peak: peak[p], mean: A > 0 ? magInt[p] / A : 0 })
   }

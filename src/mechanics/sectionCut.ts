@@ -21,7 +21,8 @@ import {
 } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
-import { computeSurfaceTractions } from './tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
+import { nodalStressField } from '../model/stressField.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
 
 export { unitNormal } from './plane.ts'
@@ -72,7 +73,7 @@ export function cutSection(
 
   const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
-  const tractions = options.tractions ?? computeSurfaceTractions(mesh, stress, faces)
+  const tractions = options.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
   const fb = new Float64Array(FB_SIZE)
   // volume terms about the section centroid: the section itself then adds no volume term
   freeBodyFaces(fb, 0, coords, stress, faces, tractions, d, sc, c, c)

@@ -24,7 +24,8 @@ import {
   ACC_AREA, ACC_FORCE, ACC_SIZE, createPolygonScratch, crossingCases, elementPolygon, integratePolygon, sectionFrame,
 } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
-import { computeSurfaceTractions } from './tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
+import { nodalStressField } from '../model/stressField.ts'
 import type { BoundaryFaces, SectionResult, SurfaceTractions } from './types.ts'
 
 export interface SweepOptions {
@@ -114,7 +115,7 @@ export function sweepSections(
     cen[3 * k] = c3[0]; cen[3 * k + 1] = c3[1]; cen[3 * k + 2] = c3[2]
   }
   const faces = options.faces ?? extractBoundaryFaces(mesh)
-  const tractions = options.tractions ?? computeSurfaceTractions(mesh, stress, faces)
+  const tractions = options.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
   // volume origin g: one mesh node, so volume sums stay relative to the body's own size
   const g = N > 0 ? [coords[0], coords[1], coords[2]] : [0, 0, 0]
   const whole = new Float64Array((count + 1) * FB_SIZE) // bucketed whole-face figures

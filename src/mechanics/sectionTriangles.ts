@@ -15,6 +15,7 @@
 import type { Vec3 } from '../model/model.ts'
 import type { SectionPolygons } from './types.ts'
 import { finiteRange } from './surfaceTriangles.ts'
+import { unitNormal } from './plane.ts'
 
 export interface SectionTriangles {
   readonly positions: Float32Array
@@ -26,13 +27,13 @@ export interface SectionTriangles {
   readonly normal: Vec3
 }
 
-/** Triangulates the section polygons; `normal` is the section normal m (normalised here; +x if zero). */
+/**
+ * Triangulates the section polygons; `normal` is the section normal m, any length (normalised by
+ * unitNormal: a zero or non-finite normal is an InputError, as everywhere).
+ */
 export function buildSectionTriangles(polygons: SectionPolygons, normal: Vec3): SectionTriangles {
   const { count: P, start, positions: x, traction: t, elem } = polygons
-  let mx = normal[0], my = normal[1], mz = normal[2]
-  const len = Math.hypot(mx, my, mz)
-  // A zero normal cannot come from a valid plane; fall back to +x rather than fill NaN.
-  if (len > 0 && len < Infinity) { mx /= len; my /= len; mz /= len } else { mx = 1; my = 0; mz = 0 }
+  const [mx, my, mz] = unitNormal(normal)
   const V = P > 0 ? start[P] - start[0] : 0
   let T = 0
   for (let p = 0; p < P; p++) T += Math.max(0, start[p + 1] - start[p] - 2)

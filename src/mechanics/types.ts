@@ -141,12 +141,11 @@ export interface LoadPatches {
   readonly freeSurface: { readonly area: number; readonly mean: number; readonly relative: number; readonly peak: number }
 }
 
-/** A section plane through `point` with unit `normal` m. */
-/** A section plane; the one plane type lives in plane.ts (unit normal, checked input). */
+/** A section plane through `point` with unit `normal` m; the one plane type lives in plane.ts (unit normal, checked input). */
 export type SectionPlane = Plane
 
 /**
- * Section result by the DESIGN.md convention: force and moment the material on the +m side
+ * Section result by the section convention of DEVELOPERS.md (Conventions): force and moment the material on the +m side
  * exerts on the material on the -m side: F = ∫ σm dA, M = ∫ (x - about) × σm dA.
  * Section axes: e3 = m, e1/e2 principal axes of the section area (I1 ≥ I2).
  * `axial` = F·e3, `shear` = [F·e1, F·e2], `torque` = M·e3, `bending` = [M·e1, M·e2].

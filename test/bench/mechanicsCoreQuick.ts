@@ -2,12 +2,14 @@
 // part). Run: npx tsx test/bench/mechanicsCoreQuick.ts [cellsPerSide]
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 
 const n = Number(process.argv[2] ?? 55) // 6·55³ ≈ 1.0·10^6 tetrahedra
 const mesh = boxMesh({ nx: n, ny: n, nz: n, lx: 1, ly: 1, lz: 1 }, 'tet4')
 const stress = new Float64Array(6 * mesh.nodeCount)
 for (let i = 0; i < mesh.nodeCount; i++) { stress[6 * i] = 1; stress[6 * i + 3] = 0.5 }
+const field = nodalStressField(mesh, stress)
 // Wall time and CPU time of this process: on a shared, oversubscribed machine the CPU time is
 // the steadier figure for single-threaded kernels.
 const time = (label: string, fn: () => unknown, reps = 5): unknown => {
@@ -23,14 +25,14 @@ const time = (label: string, fn: () => unknown, reps = 5): unknown => {
 }
 console.log(`elements ${mesh.elementCount}, nodes ${mesh.nodeCount}`)
 const faces = time('extractBoundaryFaces', () => extractBoundaryFaces(mesh)) as ReturnType<typeof extractBoundaryFaces>
-time('computeSurfaceTractions', () => computeSurfaceTractions(mesh, stress, faces))
-time('faces + tractions', () => computeSurfaceTractions(mesh, stress, extractBoundaryFaces(mesh)))
+time('computeSurfaceTractions', () => computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces))
+time('faces + tractions', () => { const f = extractBoundaryFaces(mesh); return computeSurfaceTractions(allocateSurfaceTractions(f), mesh, field, f) })
 console.log(`boundary faces ${faces.count} (expected ${12 * n * n})`)
 
-const { computeElementBalance, computeBodyBalance, percentiles } = await import('../../src/mechanics/balanceAudit.ts')
-const { computeNodalInvariants } = await import('../../src/mechanics/invariants.ts')
-const tr = computeSurfaceTractions(mesh, stress, faces)
-const eb = time('computeElementBalance', () => computeElementBalance(mesh, stress, [0, 0, -1])) as ReturnType<typeof computeElementBalance>
+const { allocateElementBalance, computeElementBalance, computeBodyBalance, percentiles } = await import('../../src/mechanics/balanceAudit.ts')
+const { allocateNodalInvariants, computeNodalInvariants } = await import('../../src/mechanics/invariants.ts')
+const tr = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces)
+const eb = time('computeElementBalance', () => computeElementBalance(allocateElementBalance(mesh.elementCount), mesh, field, [0, 0, -1])) as ReturnType<typeof computeElementBalance>
 time('computeBodyBalance', () => computeBodyBalance(mesh, faces, tr, [0, 0, -1]))
 time('percentiles of the indicator', () => percentiles(eb.indicator, [50, 95, 100]))
-time('computeNodalInvariants', () => computeNodalInvariants(stress), 3)
+time('computeNodalInvariants', () => computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), stress), 3)

@@ -16,7 +16,8 @@
 import { readFileSync, writeFileSync } from 'node:fs'
 import { readNative, writeNative } from '../../src/io/index.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { syntheticModel } from './syntheticModel.ts'
@@ -46,9 +47,10 @@ if (arg === '--write') {
   }
   const model = readNative(bytes, 'probe.tractus')
   const { mesh, stress, bodyForce } = model
+  const field = nodalStressField(mesh, stress)
   const faces = extractBoundaryFaces(mesh)
-  const tractions = computeSurfaceTractions(mesh, stress, faces)
-  const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
+  const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces)
+  const elements = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, field, bodyForce)
   const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
   const cut = cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions })
   // Keep every result reachable until the measurement, as a user session would.

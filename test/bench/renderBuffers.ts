@@ -5,8 +5,9 @@
  * Run: npx tsx test/bench/renderBuffers.ts [elements] [seed]
  */
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import { computeNodalInvariants } from '../../src/mechanics/invariants.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../../src/mechanics/invariants.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { buildSurfaceTriangles } from '../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
@@ -21,8 +22,8 @@ const seed = Number(process.argv[3] ?? 1)
 const model = syntheticModel('tet4', elements, seed)
 const mesh = model.mesh
 const faces = extractBoundaryFaces(mesh)
-const tractions = computeSurfaceTractions(mesh, model.stress, faces)
-const invariants = computeNodalInvariants(model.stress)
+const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, model.stress), faces)
+const invariants = computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), model.stress)
 const { polygons } = cutSection(mesh, model.stress, model.bodyForce, BENCH_PLANE, { faces, tractions, polygons: true })
 if (!polygons) throw new Error('the bench plane misses the block')
 

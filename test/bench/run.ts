@@ -18,7 +18,8 @@ import { fileURLToPath } from 'node:url'
 import type { Model } from '../../src/model/model.ts'
 import { readCsvBundle, readNative, writeCsvBundle, writeNative } from '../../src/io/index.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { syntheticModel, cellsPerSide } from './syntheticModel.ts'
@@ -114,7 +115,8 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   })
 
   log(`${label}: boundary faces with tractions`)
-  const boundary = measure(() => { const f = extractBoundaryFaces(mesh); return { faces: f, tractions: computeSurfaceTractions(mesh, stress, f) } }, { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
+  const field = nodalStressField(mesh, stress)
+  const boundary = measure(() => { const f = extractBoundaryFaces(mesh); return { faces: f, tractions: computeSurfaceTractions(allocateSurfaceTractions(f), mesh, field, f) } }, { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
   const { faces, tractions } = boundary.value
   const streamCC = measure(() => streamConnCoords(mesh), { runs: runsFor(E, 7) })
   checks.boundaryFaces = faces.count
@@ -133,7 +135,7 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   }
 
   log(`${label}: balance audit`)
-  const audit = measure(() => ({ elements: computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(E, 'single')), body: computeBodyBalance(mesh, faces, tractions, bodyForce) }), { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
+  const audit = measure(() => ({ elements: computeElementBalance(allocateElementBalance(E, 'single'), mesh, field, bodyForce), body: computeBodyBalance(mesh, faces, tractions, bodyForce) }), { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
   const streamCCS = measure(() => streamConnCoordsStress(mesh, stress), { runs: runsFor(E, 7) })
   checks.bodyBalanceRelative = audit.value.body.relative
   let maxIndicator = 0

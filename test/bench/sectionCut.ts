@@ -9,7 +9,8 @@
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import type { Mesh } from '../../src/model/model.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { syntheticModel } from './syntheticModel.ts'
@@ -19,7 +20,7 @@ const elements = Number(process.argv[2] ?? 1_000_000)
 const model = syntheticModel('tet4', elements, 7)
 const { mesh, stress, bodyForce } = model
 const faces = extractBoundaryFaces(mesh)
-const tractions = computeSurfaceTractions(mesh, stress, faces)
+const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
 
 /** The floor: node distances plus one read of every element's corners and their distances. */
 function readPass(mesh: Mesh): number {

@@ -14,8 +14,10 @@ import { readCsvBundle, writeCsvBundle } from '../../src/io/index.ts'
 import type { Model, Vec3 } from '../../src/model/model.ts'
 import { LBF_TO_N } from '../../src/model/units.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance, percentiles } from '../../src/mechanics/balanceAudit.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../../src/mechanics/invariants.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
@@ -129,12 +131,14 @@ describe('tractus audit', () => {
   it('prints balance, element percentiles, patches and free surface equal to the kernels', async () => {
     const j = await cliJson('audit', bundle)
     const { mesh, stress, bodyForce } = model
+    const field = nodalStressField(mesh, stress)
     const faces = extractBoundaryFaces(mesh)
-    const tractions = computeSurfaceTractions(mesh, stress, faces)
+    const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces)
     const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-    const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
+    const elements = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, field, bodyForce)
     const [p50, p95, pmax] = percentiles(elements.indicator, [50, 95, 100])
-    const lp = findLoadPatches(mesh, stress, faces, tractions)
+    const vonMises = computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), stress).vonMises
+    const lp = findLoadPatches(mesh, faces, tractions, vonMises)
     closeVec(j.balance.force, body.force)
     closeVec(j.balance.moment, body.moment)
     close(j.balance.relative, body.relative)

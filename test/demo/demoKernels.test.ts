@@ -4,27 +4,23 @@ import { describe, expect, it } from 'vitest'
 import { LUG_DEFAULTS } from '../../src/demo/liftingLug.ts'
 import { TUNNEL_DEFAULTS } from '../../src/demo/tunnelBlock.ts'
 import { readNative } from '../../src/io/nativeContainer.ts'
-import { computeBodyBalance } from '../../src/mechanics/balanceAudit.ts'
-import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
+import { analysisInputOf, runAnalysis } from '../../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 
-// The committed full-size demo files, checked with the project's own kernels (what a user sees).
+// The committed full-size demo files, checked with the project's own pipeline and kernels (what a user sees).
 const load = (id: string) => readNative(readFileSync(join('public', 'demo', id, `${id}.tractus`)), `${id}.tractus`)
 
 describe('committed demo: lifting lug through the mechanics kernels', () => {
   const model = load('lifting-lug')
   const { mesh, stress, bodyForce } = model
-  const faces = extractBoundaryFaces(mesh)
-  const tr = computeSurfaceTractions(mesh, stress, faces)
+  const analysis = runAnalysis(analysisInputOf(model))
   const spec = LUG_DEFAULTS
   const th = (spec.angleDeg * Math.PI) / 180
   const P = [spec.load * Math.sin(th), spec.load * Math.cos(th), 0]
 
   it('whole-body balance residual is under 1 % of the gross load', () => {
     // Cauchy's equation integrated over the body (Malvern 1969, ch. 3).
-    const bal = computeBodyBalance(mesh, faces, tr, bodyForce)
+    const bal = analysis.bodyBalance
     console.log(`lug (full size): balance ${(100 * bal.relative).toFixed(3)} % of ${(bal.gross / 1000).toFixed(2)} kN`)
     expect(bal.relative).toBeLessThan(0.01)
   })
@@ -44,7 +40,7 @@ describe('committed demo: lifting lug through the mechanics kernels', () => {
   })
 
   it('load enters at the hole and leaves at the base', () => {
-    const lp = findLoadPatches(mesh, stress, faces, tr)
+    const lp = analysis.loadPatches
     const big = [...lp.patches].sort((a, b) => Math.hypot(...b.force) - Math.hypot(...a.force)).slice(0, 2)
     console.log(`lug (full size): ${lp.patches.length} load patches; largest ${big.map((p) => `${(Math.hypot(...p.force) / 1000).toFixed(1)} kN at y = ${p.centroid[1].toFixed(0)} mm`).join(', ')}; free surface mean |t| ${(100 * lp.freeSurface.relative).toFixed(2)} % of reference`)
     const atHole = big.find((p) => Math.abs(p.centroid[1] - spec.holeHeight) < spec.headRadius)
@@ -59,9 +55,7 @@ describe('committed demo: lifting lug through the mechanics kernels', () => {
 describe('committed demo: tunnel block through the mechanics kernels', () => {
   const model = load('tunnel-block')
   const { mesh, stress, bodyForce } = model
-  const faces = extractBoundaryFaces(mesh)
-  const tr = computeSurfaceTractions(mesh, stress, faces)
-  const bal = computeBodyBalance(mesh, faces, tr, bodyForce)
+  const { faces, tractions: tr, bodyBalance: bal } = runAnalysis(analysisInputOf(model))
   const s = TUNNEL_DEFAULTS
 
   it('balance under 1 %; the base carries weight + overburden within 1 %', () => {

@@ -1,15 +1,16 @@
-/** Runs the mechanics core on a mesh and stress field, the way the app and the CLI chain it. */
+/**
+ * Runs the analysis pipeline (src/mechanics/analysisPipeline.ts) on a mesh and nodal stress, the
+ * way the app and the CLI run it. `elements` and `body` name the element and body balance for the
+ * tests written against those names.
+ */
 import type { Mesh, Vec3 } from '../../src/model/model.ts'
-import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import { computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
+import { runAnalysis } from '../../src/mechanics/analysisPipeline.ts'
+import type { AnalysisOptions } from '../../src/mechanics/analysisPipeline.ts'
 
-export function runCore(mesh: Mesh, stress: Float64Array, bodyForce: Vec3 = [0, 0, 0]) {
-  const faces = extractBoundaryFaces(mesh)
-  const tractions = computeSurfaceTractions(mesh, stress, faces)
-  const elements = computeElementBalance(mesh, stress, bodyForce)
-  const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-  return { faces, tractions, elements, body }
+export function runCore(mesh: Mesh, stress: Float64Array, bodyForce: Vec3 = [0, 0, 0], options: AnalysisOptions = {}) {
+  const r = runAnalysis({ mesh, stress: nodalStressField(mesh, stress), bodyForce }, options)
+  return { ...r, elements: r.elementBalance, body: r.bodyBalance }
 }
 
 export const FACE_NODES_BY_CODE = [3, 6, 4, 8]

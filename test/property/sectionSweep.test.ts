@@ -3,7 +3,8 @@ import fc from 'fast-check'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import type { SectionResult } from '../../src/mechanics/types.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { anyBox, nodalStress, norm } from '../helpers/sectionMeshes.ts'
@@ -39,7 +40,7 @@ describe.each(['tet4', 'hex8', 'hex20', 'wedge6', 'tet10', 'mixed'] as BoxKind[]
   const mesh = anyBox(kind, 3, 3, 3, 3, 2, 1.5)
   const stress = nodalStress(mesh, field)
   const faces = extractBoundaryFaces(mesh)
-  const tractions = computeSurfaceTractions(mesh, stress, faces)
+  const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
   const scale = { F: 30 * 6, M: 30 * 6 * 3, L: 3, A: 6 }
 
   const compare = (normal: Vec3, from: number, to: number, count: number) => {

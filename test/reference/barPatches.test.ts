@@ -19,8 +19,7 @@ describe('bar pulled at both ends: two load-entry patches', () => {
     it(type, () => {
       const mesh = boxMesh({ nx: 6, ny: 2, nz: 2, lx: L, ly: W, lz: D }, type)
       const stress = stressField(mesh, () => [P / area, 0, 0, 0, 0, 0])
-      const { faces, tractions } = runCore(mesh, stress)
-      const lp = findLoadPatches(mesh, stress, faces, tractions)
+      const lp = runCore(mesh, stress).loadPatches
       expect(lp.referenceStress).toBeCloseTo(P / area, 9)
       expect(lp.threshold).toBeCloseTo(0.05 * P / area, 9)
       expect(lp.patches.length).toBe(2)
@@ -52,11 +51,10 @@ describe('bar pulled at both ends: two load-entry patches', () => {
     const mesh = boxMesh({ nx: 4, ny: 2, nz: 2, lx: L, ly: W, lz: D }, 'hex8')
     // σxx = P/A plus a small σzz = 0.1 P/A: the top and bottom faces carry 10 % of the end traction.
     const stress = stressField(mesh, () => [P / area, 0, 0.1 * P / area, 0, 0, 0])
-    const { faces, tractions } = runCore(mesh, stress)
-    const all = findLoadPatches(mesh, stress, faces, tractions)
+    const { faces, tractions, invariants, loadPatches: all } = runCore(mesh, stress)
     // Ends (2) + top + bottom, joined along shared edges into one connected loaded band.
     expect(all.patches.length).toBe(1)
-    const strict = findLoadPatches(mesh, stress, faces, tractions, { threshold: 0.2 })
+    const strict = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { threshold: 0.2 })
     expect(strict.patches.length).toBe(2)
     expect(strict.freeSurface.relative).toBeGreaterThan(0.01)
   })

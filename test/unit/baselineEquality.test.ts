@@ -7,7 +7,8 @@
  */
 import { describe, expect, it } from 'vitest'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { baselineBoundary } from '../bench/baseline/boundaryBaseline.ts'
 import { baselineCut } from '../bench/baseline/cutBaseline.ts'
@@ -21,7 +22,7 @@ describe.each(['tet4', 'hex8'] as const)('fast kernels equal the plain baselines
   const model = syntheticModel(type, 3000, SEED)
   const { mesh, stress } = model
   const faces = extractBoundaryFaces(mesh)
-  const tractions = computeSurfaceTractions(mesh, stress, faces)
+  const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
 
   it('finds the same boundary faces with the same face forces', () => {
     const base = baselineBoundary(mesh, stress)

@@ -4,7 +4,7 @@ import { createMesh } from '../../../src/model/createMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 import { isInputError } from '../../../src/model/errors.ts'
 import { extractBoundaryFaces, extractBoundaryFacesInParts } from '../../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions } from '../../../src/mechanics/tractions.ts'
 import { mergeMeshes } from '../../helpers/sectionMeshes.ts'
 
 // Geometry of a box (elementary): surface area 2(ab + bc + ca); the closed-surface identity
@@ -129,7 +129,7 @@ describe('per-face-node stride (slots)', () => {
     const f = extractBoundaryFaces(mesh)
     expect(f.slots).toBe(slots)
     expect(f.nodes.length).toBe(slots * f.count)
-    const t = computeSurfaceTractions(mesh, new Float64Array(6 * mesh.nodeCount), f)
+    const t = allocateSurfaceTractions(f)
     expect(t.nodeMagnitude.length).toBe(slots * f.count)
     expect(t.nodeNormal.length).toBe(3 * slots * f.count)
   })

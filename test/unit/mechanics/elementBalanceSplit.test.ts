@@ -1,6 +1,6 @@
 /**
  * Element-parallel running of the balance audit: the pool in the browser runs
- * computeElementBalance on meshSlice ranges writing into views of one output. Splitting must not
+ * computeElementBalance on meshSlice ranges (with stressFieldSlice) writing into views of one output. Splitting must not
  * change a single bit, and single-precision storage must be the double result rounded once.
  */
 import { describe, expect, it } from 'vitest'
@@ -8,6 +8,8 @@ import fc from 'fast-check'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { createMesh } from '../../../src/model/createMesh.ts'
 import { meshSlice, splitRanges } from '../../../src/model/meshRange.ts'
+import { nodalStressField, stressFieldSlice } from '../../../src/model/stressField.ts'
+import type { StressField } from '../../../src/model/stressField.ts'
 import { allocateElementBalance, computeElementBalance } from '../../../src/mechanics/balanceAudit.ts'
 import type { ElementBalance } from '../../../src/mechanics/types.ts'
 import type { Mesh } from '../../../src/model/model.ts'
@@ -24,12 +26,13 @@ function mixedMesh(): Mesh {
   return createMesh(coords, [{ type: 'hex8', conn: a.blocks[0].conn }, { type: 'tet10', conn: connB }])
 }
 
-function splitRun(mesh: Mesh, stress: Float64Array, parts: number, precision: 'double' | 'single'): ElementBalance {
+function splitRun(mesh: Mesh, stress: StressField, parts: number, precision: 'double' | 'single'): ElementBalance {
   const out = allocateElementBalance(mesh.elementCount, precision)
   for (const [from, to] of splitRanges(mesh.elementCount, parts)) {
-    computeElementBalance(meshSlice(mesh, from, to), stress, [0.3, -2, 1], {
+    const slice = meshSlice(mesh, from, to)
+    computeElementBalance({
       residual: out.residual.subarray(3 * from, 3 * to), gross: out.gross.subarray(from, to), indicator: out.indicator.subarray(from, to),
-    })
+    }, slice, stressFieldSlice(stress, mesh, slice, from), [0.3, -2, 1])
   }
   return out
 }
@@ -37,8 +40,8 @@ function splitRun(mesh: Mesh, stress: Float64Array, parts: number, precision: 'd
 describe('element balance split over element ranges', () => {
   const mesh = mixedMesh()
   // A quadratic field, so the residuals are not all zero (the audit has something to report).
-  const stress = stressField(mesh, (x, y, z) => [x * x, y * z, 2 * z, x * y, -x, z * z])
-  const whole = computeElementBalance(mesh, stress, [0.3, -2, 1])
+  const stress = nodalStressField(mesh, stressField(mesh, (x, y, z) => [x * x, y * z, 2 * z, x * y, -x, z * z]))
+  const whole = computeElementBalance(allocateElementBalance(mesh.elementCount), mesh, stress, [0.3, -2, 1])
 
   it('ranges cover every element once, in order, with none empty', () => {
     fc.assert(fc.property(fc.integer({ min: 0, max: 5000 }), fc.integer({ min: 1, max: 64 }), (E, parts) => {
@@ -76,6 +79,6 @@ describe('element balance split over element ranges', () => {
   })
 
   it('an output too small for the mesh is refused, not overrun', () => {
-    expect(() => computeElementBalance(mesh, stress, [0, 0, 0], allocateElementBalance(3))).toThrow(RangeError)
+    expect(() => computeElementBalance(allocateElementBalance(3), mesh, stress, [0, 0, 0])).toThrow(RangeError)
   })
 })

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
-import { computeNodalInvariants, principalStresses, vonMises } from '../../../src/mechanics/invariants.ts'
+import { allocateNodalInvariants, computeNodalInvariants, principalStresses, vonMises } from '../../../src/mechanics/invariants.ts'
 import { mulberry32 } from '../../../src/mechanics/seededRandom.ts'
 
 
@@ -104,7 +104,7 @@ describe('von Mises and Tresca (von Mises 1913; any strength-of-materials text)'
     expect(vonMises([250, 0, 0, 0, 0, 0])).toBeCloseTo(250, 12)
     expect(vonMises([0, 0, -40, 0, 0, 0])).toBeCloseTo(40, 12)
     expect(vonMises([0, 0, 0, 0, 30, 0])).toBeCloseTo(Math.sqrt(3) * 30, 12)
-    const inv = computeNodalInvariants(Float64Array.from([0, 0, 0, 30, 0, 0, 250, 0, 0, 0, 0, 0, 7, 7, 7, 0, 0, 0]))
+    const inv = computeNodalInvariants(allocateNodalInvariants(3), Float64Array.from([0, 0, 0, 30, 0, 0, 250, 0, 0, 0, 0, 0, 7, 7, 7, 0, 0, 0]))
     expect(inv.tresca[0]).toBeCloseTo(60, 12)
     expect(inv.vonMises[0]).toBeCloseTo(Math.sqrt(3) * 30, 12)
     expect(inv.vonMises[1]).toBeCloseTo(250, 12)

@@ -8,8 +8,7 @@ describe('findLoadPatches (rule documented in src/mechanics/loadPatches.ts)', ()
   it('an unstressed body has no patches and a zero reference stress', () => {
     const mesh = boxMesh({ nx: 2, ny: 2, nz: 2, lx: 1, ly: 1, lz: 1 }, 'tet4')
     const stress = new Float64Array(6 * mesh.nodeCount)
-    const { faces, tractions } = runCore(mesh, stress)
-    const lp = findLoadPatches(mesh, stress, faces, tractions)
+    const lp = runCore(mesh, stress).loadPatches
     expect(lp.patches).toEqual([])
     expect(lp.referenceStress).toBe(0)
     expect(lp.freeSurface.area).toBeCloseTo(6, 12)
@@ -23,8 +22,7 @@ describe('findLoadPatches (rule documented in src/mechanics/loadPatches.ts)', ()
     // σxx = 1 everywhere keeps every other face weakly loaded (|t| ≤ 1).
     const mesh = boxMesh({ nx: 2, ny: 2, nz: 1, lx: 2, ly: 2, lz: 1 }, 'hex8')
     const stress = stressField(mesh, (x, y, z) => [1, 0, z === 1 && ((x === 0 && y === 0) || (x === 2 && y === 2)) ? 100 : 0, 0, 0, 0])
-    const { faces, tractions } = runCore(mesh, stress)
-    const lp = findLoadPatches(mesh, stress, faces, tractions, { threshold: 0.1 })
+    const lp = runCore(mesh, stress, [0, 0, 0], { loadPatches: { threshold: 0.1 } }).loadPatches
     // Reference: 95th percentile of 18 nodal von Mises values, two of which are ≈ 99.5.
     expect(lp.referenceStress).toBeCloseTo(Math.sqrt(1 - 100 + 10000), 9)
     expect(lp.patches.length).toBe(2)
@@ -38,7 +36,7 @@ describe('findLoadPatches (rule documented in src/mechanics/loadPatches.ts)', ()
     // Joining them by edges: load the top edge y = 0 too, and the patches merge.
     const s2 = stressField(mesh, (x, y, z) => [1, 0, z === 1 && (y === 0 || (x === 2 && y === 2)) ? 100 : 0, 0, 0, 0])
     const r2 = runCore(mesh, s2)
-    const lp2 = findLoadPatches(mesh, s2, r2.faces, r2.tractions, { threshold: 0.1 })
+    const lp2 = findLoadPatches(mesh, r2.faces, r2.tractions, r2.invariants.vonMises, { threshold: 0.1 })
     // Top faces of cells (0,0), (1,0) and (1,1) are now loaded and chained by shared edges.
     expect(lp2.patches.length).toBe(1)
     expect(lp2.patches[0].faceCount).toBe(3)

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions, tractionAt } from '../../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions, tractionAt } from '../../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../../src/model/stressField.ts'
 
 // Cauchy's formula t = σn (Malvern 1969, ch. 3) on a box under a linear stress field.
 describe('computeSurfaceTractions', () => {
@@ -21,7 +22,7 @@ describe('computeSurfaceTractions', () => {
       const a = 2, b = 0.5
       for (let i = 0; i < N; i++) stress[6 * i] = a + b * mesh.coords[3 * i + 2]
       const faces = extractBoundaryFaces(mesh)
-      const tr = computeSurfaceTractions(mesh, stress, faces)
+      const tr = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
       let Fx = 0, My = 0, Mz = 0
       for (let f = 0; f < faces.count; f++) {
         if (Math.abs(faces.centroid[3 * f] - 2) > 1e-12) continue

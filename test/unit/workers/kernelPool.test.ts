@@ -9,24 +9,29 @@ import { allocateElementBalance, computeElementBalance } from '../../../src/mech
 import { KernelPool, POOL_MIN_ELEMENTS } from '../../../workers/kernelPool.ts'
 import type { PoolEndpoint, Sharing } from '../../../workers/kernelPool.ts'
 import { balancePart } from '../../../workers/kernelPoolTask.ts'
-import { computeNodalInvariants } from '../../../src/mechanics/invariants.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../../../src/mechanics/invariants.ts'
+import { nodalStressField } from '../../../src/model/stressField.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
+import { elementNodalCopy } from '../../helpers/elementNodal.ts'
 
 /** An endpoint that runs the pool worker's task in this thread; structuredClone mimics postMessage. */
-function localEndpoint(log: { shared: number; calls: number }): PoolEndpoint {
+function localEndpoint(log: { shared: number; calls: number; rowCopies?: number }): PoolEndpoint {
   return {
     ping: async () => true,
     async balance(part, out) {
       log.calls++
       if (part.coords.buffer instanceof SharedArrayBuffer) log.shared++
       const copy = structuredClone(part)
+      // Nodal rows are the connectivity itself: one array, sent once.
+      if (copy.stress.layout === 'nodal') copy.stress.rows.forEach((r, i) => { if (r !== copy.blocks[i].conn) log.rowCopies = (log.rowCopies ?? 0) + 1 })
       const r = balancePart(copy, out)
       return out ? null : r
     },
     async invariants(stress, out) {
       log.calls++
       if (stress.buffer instanceof SharedArrayBuffer) log.shared++
-      const r = computeNodalInvariants(structuredClone(stress), out)
+      const copy = structuredClone(stress)
+      const r = computeNodalInvariants(out ?? allocateNodalInvariants(copy.length / 6), copy)
       return out ? null : r
     },
     terminate() { /* nothing to stop */ },
@@ -40,8 +45,9 @@ function sameBits(a: ArrayBufferView, b: ArrayBufferView): boolean {
 
 const mesh = boxMesh({ nx: 30, ny: 20, nz: 15, lx: 3, ly: 2, lz: 1.5 }, 'tet4') // 54 000 tet4
 const stress = stressField(mesh, (x, y, z) => [x * y, z * z, x, y * z, -x * z, 2 * y])
+const field = nodalStressField(mesh, stress)
 const b: [number, number, number] = [0, 0, -9.81]
-const reference = computeElementBalance(mesh, stress, b, allocateElementBalance(mesh.elementCount, 'single'))
+const reference = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, field, b)
 
 describe('kernel pool: element balance', () => {
   it('the test mesh is above the size where the pool takes over', () => {
@@ -51,11 +57,12 @@ describe('kernel pool: element balance', () => {
   for (const sharing of ['shared', 'copy'] as Sharing[]) {
     for (const size of [1, 2, 3, 4]) {
       it(`${sharing} hand-over over ${size} workers equals one thread bit for bit`, async () => {
-        const log = { shared: 0, calls: 0 }
+        const log = { shared: 0, calls: 0, rowCopies: 0 }
         const pool = new KernelPool(size, () => localEndpoint(log), sharing)
-        const { value: balance, run } = await pool.elementBalance(mesh, stress, b)
+        const { value: balance, run } = await pool.elementBalance(mesh, field, b)
         expect(run).toEqual({ workers: size, sharing })
         expect(log.calls).toBe(size)
+        expect(log.rowCopies).toBe(0)
         expect(log.shared).toBe(sharing === 'shared' ? size : 0)
         expect(balance.indicator).toBeInstanceOf(Float32Array)
         expect(sameBits(balance.residual, reference.residual)).toBe(true)
@@ -63,10 +70,23 @@ describe('kernel pool: element balance', () => {
         expect(sameBits(balance.indicator, reference.indicator)).toBe(true)
         // After a load the engine drops the shared copies; the next model is copied afresh.
         pool.forget()
-        expect(sameBits((await pool.elementBalance(mesh, stress, b)).value.residual, reference.residual)).toBe(true)
+        expect(sameBits((await pool.elementBalance(mesh, field, b)).value.residual, reference.residual)).toBe(true)
         pool.dispose()
       })
     }
+  }
+
+  for (const sharing of ['shared', 'copy'] as Sharing[]) {
+    it(`${sharing} hand-over of element-nodal stress (a shuffled copy of the nodal rows) equals the nodal one thread bit for bit`, async () => {
+      const log = { shared: 0, calls: 0 }
+      const pool = new KernelPool(3, () => localEndpoint(log), sharing)
+      const { value, run } = await pool.elementBalance(mesh, elementNodalCopy(mesh, stress), b)
+      expect(run).toEqual({ workers: 3, sharing })
+      expect(sameBits(value.residual, reference.residual)).toBe(true)
+      expect(sameBits(value.gross, reference.gross)).toBe(true)
+      expect(sameBits(value.indicator, reference.indicator)).toBe(true)
+      pool.dispose()
+    })
   }
 
   for (const sharing of ['shared', 'copy'] as Sharing[]) {
@@ -76,7 +96,7 @@ describe('kernel pool: element balance', () => {
       const { value, run } = await pool.nodalInvariants(stress)
       expect(run).toEqual({ workers: 3, sharing })
       expect(log.shared).toBe(sharing === 'shared' ? 3 : 0)
-      const one = computeNodalInvariants(stress)
+      const one = computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), stress)
       for (const k of ['principal', 'directions', 'vonMises', 'tresca', 'mean'] as const) expect(sameBits(value[k], one[k]), k).toBe(true)
       pool.dispose()
     })
@@ -86,7 +106,7 @@ describe('kernel pool: element balance', () => {
     const pool = new KernelPool(2, () => ({ ping: () => Promise.reject(new Error('script blocked')), balance: async () => null, invariants: async () => null, terminate() { /* none */ } }), 'shared')
     await pool.ready
     expect(pool.size).toBe(0)
-    const { run } = await pool.elementBalance(mesh, stress, b)
+    const { run } = await pool.elementBalance(mesh, field, b)
     expect(run.workers).toBe(0)
     expect(run.fallback).toMatch(/did not start \(script blocked\)/)
   })
@@ -100,7 +120,7 @@ describe('kernel pool: element balance', () => {
     const log = { shared: 0, calls: 0 }
     const small = boxMesh({ nx: 4, ny: 3, nz: 2, lx: 1, ly: 1, lz: 1 }, 'hex8')
     const pool = new KernelPool(2, () => localEndpoint(log), 'shared')
-    const { run } = await pool.elementBalance(small, stressField(small, () => [1, 0, 0, 0, 0, 0]), [0, 0, 0])
+    const { run } = await pool.elementBalance(small, nodalStressField(small, stressField(small, () => [1, 0, 0, 0, 0, 0])), [0, 0, 0])
     expect(run).toEqual({ workers: 0, sharing: 'none' })
     expect(log.calls).toBe(0)
   })
@@ -110,13 +130,13 @@ describe('kernel pool: element balance', () => {
     const fail = (): Promise<never> => Promise.reject(new Error('worker script did not load'))
     const failing: PoolEndpoint = { ping: async () => true, balance: fail, invariants: fail, terminate: () => { terminated++ } }
     const pool = new KernelPool(2, () => failing, 'copy')
-    const first = await pool.elementBalance(mesh, stress, b)
+    const first = await pool.elementBalance(mesh, field, b)
     expect(first.run.workers).toBe(0)
     expect(first.run.fallback).toMatch(/worker script did not load/)
     expect(sameBits(first.value.indicator, reference.indicator)).toBe(true)
     expect(terminated).toBe(2)
     expect(pool.size).toBe(0)
-    const again = await pool.elementBalance(mesh, stress, b)
+    const again = await pool.elementBalance(mesh, field, b)
     expect(again.run.fallback).toMatch(/worker script did not load/)
   })
 })

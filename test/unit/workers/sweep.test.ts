@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
-import { computeSurfaceTractions } from '../../../src/mechanics/tractions.ts'
+import { allocateSurfaceTractions, computeSurfaceTractions } from '../../../src/mechanics/tractions.ts'
+import { nodalStressField } from '../../../src/model/stressField.ts'
 import type { Model } from '../../../src/model/model.ts'
 import { extentAlong, sweepAlong } from '../../../workers/sweep.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
@@ -14,7 +15,7 @@ describe('sweepAlong (the engine worker\'s sweep)', () => {
   const stress = stressField(mesh, (_x, _y, z) => [10 + 6 * (z - 0.25), 0, 0, 0, 0, 0])
   const model: Model = { name: 'bar', description: '', units: { length: 'm', stress: 'Pa' }, mesh, stress, displacement: null, bodyForce: [0, 0, 0], warnings: [] }
   const faces = extractBoundaryFaces(mesh)
-  const tractions = computeSurfaceTractions(mesh, stress, faces)
+  const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
 
   it('spans the extent of the nodes along the direction, with packed figures per section', () => {
     expect(extentAlong(mesh.coords, [2, 0, 0])).toEqual([0, 4])
@@ -43,6 +44,6 @@ describe('sweepAlong (the engine worker\'s sweep)', () => {
   })
 
   it('refuses a zero direction with a message', () => {
-    expect(() => sweepAlong(model, faces, tractions, [0, 0, 0], 3)).toThrow(/non-zero/)
+    expect(() => sweepAlong(model, faces, tractions, [0, 0, 0], 3)).toThrow(/the sweep direction \(0, 0, 0\) has no direction/)
   })
 })
