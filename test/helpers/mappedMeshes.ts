@@ -5,11 +5,8 @@
  * - quarterCylinder: (r, θ, z) ∈ [a, b] × [0, π/2] × [0, L] → (r cos θ, r sin θ, z), for the
  *   Lamé thick cylinder and the Kirsch plate with a hole (a quarter model; the symmetry planes
  *   are ordinary boundary faces here).
- * - mixedBox: cells of a structured box split into several element types that conform.
  */
 import { boxMesh } from '../../src/demo/boxMesh.ts'
-import { createMesh } from '../../src/model/createMesh.ts'
-import type { BlockInput } from '../../src/model/createMesh.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import type { Mesh } from '../../src/model/model.ts'
 
@@ -37,30 +34,6 @@ export function quarterCylinder(spec: PolarSpec, type: ElementTypeName): Mesh {
     out[3 * i] = r * Math.cos(th); out[3 * i + 1] = r * Math.sin(th); out[3 * i + 2] = z
   }
   return { ...box, coords: out }
-}
-
-/**
- * A box whose cells are split into element types by `cellType(i, j, k)`: 'hex8' (one hexahedron),
- * 'wedge6' (two wedges on the bottom diagonal 0-2, as boxMesh splits them) or 'tet4' (six Kuhn
- * tetrahedra on the diagonal 0-6). The caller keeps neighbours conforming: hex8 and wedge6 meet
- * on quadrilaterals (lateral neighbours), wedge6 and tet4 on triangles (vertical neighbours).
- */
-export function mixedBox(nx: number, ny: number, nz: number, size: [number, number, number], cellType: (i: number, j: number, k: number) => 'hex8' | 'wedge6' | 'tet4'): Mesh {
-  const hex = boxMesh({ nx, ny, nz, lx: size[0], ly: size[1], lz: size[2] }, 'hex8')
-  const tets = boxMesh({ nx, ny, nz, lx: size[0], ly: size[1], lz: size[2] }, 'tet4')
-  const conn = hex.blocks[0].conn, tconn = tets.blocks[0].conn
-  const lists: Record<'hex8' | 'wedge6' | 'tet4', number[]> = { hex8: [], wedge6: [], tet4: [] }
-  let cell = 0
-  for (let k = 0; k < nz; k++) for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++, cell++) {
-    const c = Array.from(conn.subarray(8 * cell, 8 * cell + 8))
-    const t = cellType(i, j, k)
-    if (t === 'hex8') lists.hex8.push(...c)
-    else if (t === 'wedge6') lists.wedge6.push(c[0], c[1], c[2], c[4], c[5], c[6], c[0], c[2], c[3], c[4], c[6], c[7])
-    else lists.tet4.push(...tconn.subarray(24 * cell, 24 * cell + 24))
-  }
-  const blocks: BlockInput[] = []
-  for (const type of ['hex8', 'wedge6', 'tet4'] as const) if (lists[type].length) blocks.push({ type, conn: Int32Array.from(lists[type]) })
-  return createMesh(hex.coords, blocks)
 }
 
 /** Nodal stress from a function of position. */

@@ -6,11 +6,10 @@
  */
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../src/demo/boxMesh.ts'
-import { ELEMENT_TYPES } from '../../src/model/elementTypes.ts'
-import type { ElementTypeName } from '../../src/model/elementTypes.ts'
-import { MIRROR_PERMUTATION, checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
+import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
+import { checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
 
-const TYPES: ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6']
+const TYPES = ELEMENT_TYPE_NAMES
 
 function rotate(coords: Float64Array, angle: number): Float64Array {
   // Rotation about the unit axis k = (1, 1, 1)/√3 by `angle`, Rodrigues' formula:
@@ -84,7 +83,7 @@ describe('mirroring', () => {
     }
     reorientElements(conn, t, o.inverted)
     expect(Array.from(conn)).toEqual(Array.from(b.conn))
-    expect(MIRROR_PERMUTATION[t].length).toBe(nn)
+    expect(ELEMENT_TYPES[t].mirror.length).toBe(nn)
   })
   it('degenerate: flat and collapsed elements are found, the threshold is relative to size', () => {
     const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, 'hex8')

@@ -5,7 +5,7 @@
  * CSV text: BOM, CRLF, comments, blank lines, reordered columns, sparse ids, mixed types.
  */
 import { describe, expect, it } from 'vitest'
-import type { ElementTypeName } from '../../src/model/elementTypes.ts'
+import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
 import type { CsvFile } from '../../src/io/readCsvBundle.ts'
@@ -15,7 +15,7 @@ import { readLittleEndian, writeLittleEndian } from '../../src/io/littleEndianAr
 import { validateModel } from '../../src/io/validateModel.ts'
 import { boxModel, mixedModel } from './testModels.ts'
 
-const TYPES: ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6']
+const TYPES = ELEMENT_TYPE_NAMES
 
 /** Same model: names, units, body force, every array element (Object.is, so -0 ≠ 0). */
 export function expectSameModel(a: Model, b: Model): void {
@@ -90,6 +90,34 @@ describe('CSV → Model → native → Model', () => {
     // Element 12 lists its corners clockwise: mirrored by swapping local nodes 2 and 3 (1-based).
     expect(r.warnings.join(' ')).toContain('reoriented 1 inverted element (negative volume, local nodes mirrored): 12')
     expect(Array.from(r.mesh.blocks[0].conn.subarray(4, 8)).map((i) => r.mesh.nodeIds[i])).toEqual([2, 3, 4, 8])
+  })
+
+  it('every registered type in one file: one block per type, read back bit for bit through CSV and the container', () => {
+    const m = mixedModel(ELEMENT_TYPE_NAMES)
+    const files = writeCsvBundle(m)
+    const widest = Math.max(...ELEMENT_TYPE_NAMES.map((t) => ELEMENT_TYPES[t].nodeCount))
+    expect(file(files, 'elements.csv').text.split('\n')[0]).toBe('id,type,part,' + Array.from({ length: widest }, (_, i) => `n${i + 1}`).join(','))
+    const r = readCsvBundle(files)
+    expect(r.mesh.blocks.map((b) => b.type)).toEqual(ELEMENT_TYPE_NAMES)
+    expect(r.warnings).toEqual([])
+    expectSameModel(m, r)
+    const back = readNative(writeNative(r))
+    expectSameModel(r, back)
+    validateModel(back)
+  })
+
+  it.each(TYPES)('%s: inverted elements are mirrored back on reading, with a warning naming them', (type) => {
+    const m = boxModel(type)
+    const b = m.mesh.blocks[0]
+    const perm = ELEMENT_TYPES[type].mirror, nn = perm.length
+    // Mirror the 1st and 3rd element: the reader must find them inverted and restore them.
+    const conn = b.conn.slice()
+    for (const e of [0, 2]) for (let a = 0; a < nn; a++) conn[e * nn + a] = b.conn[e * nn + perm[a]]
+    const inverted: Model = { ...m, mesh: { ...m.mesh, blocks: [{ ...b, conn }] } }
+    for (const r of [readCsvBundle(writeCsvBundle(inverted)), readNative(writeNative(inverted))]) {
+      expect(r.warnings.join(' ')).toContain(`reoriented 2 inverted elements (negative volume, local nodes mirrored): ${b.ids[0]}, ${b.ids[2]}`)
+      expect(Array.from(r.mesh.blocks[0].conn)).toEqual(Array.from(b.conn))
+    }
   })
 
   it('the copying reader (big-endian path) gives the same model as the zero-copy views', () => {

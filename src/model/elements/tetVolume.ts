@@ -1,0 +1,13 @@
+/**
+ * Six times the signed volume of a tetrahedron, (x1 - x0) × (x2 - x0) · (x3 - x0): positive when
+ * the corners follow the tet4 numbering of the registry. One formula for the readers' orientation
+ * test, the element volumes of the kernels and the demo meshes. Coordinates in model length
+ * units, result in length³; `x` holds x, y, z per node and p0..p3 are offsets into it (3 × node).
+ */
+export function sixTetVolume(x: ArrayLike<number>, p0: number, p1: number, p2: number, p3: number): number {
+  const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
+  const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
+  const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0
+  const wx = x[p3] - x0, wy = x[p3 + 1] - y0, wz = x[p3 + 2] - z0
+  return (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
+}
