@@ -12,7 +12,7 @@
  * exactly two elements, or lie on the box surface; a layout that breaks this is an error that
  * names the face.
  */
-import { elementType, ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { elementType, ELEMENT_TYPE_NAMES, ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { createMesh } from '../model/createMesh.ts'
 import type { BlockInput } from '../model/createMesh.ts'
@@ -34,7 +34,7 @@ const FACE_STEP = CELL_FACES.map((f) => [0, 1, 2].map((d) => {
 
 /**
  * The mesh of `spec` with cell (i, j, k) filled by `fill(i, j, k)`. `quadratic` gives every
- * element its quadratic twin. Blocks come in registry order, one per type present.
+ * element its quadratic twin. Blocks come one per type present, in code order.
  */
 export function mixedBoxMesh(spec: BoxSpec, fill: (i: number, j: number, k: number) => CellFill, quadratic = false): Mesh {
   const { nx, ny, nz } = spec
@@ -85,14 +85,11 @@ export function mixedBoxMesh(spec: BoxSpec, fill: (i: number, j: number, k: numb
       for (const [a, b, cc] of tris) push('tet4', [p[a], p[cc], p[b], c[CELL_CENTRE]])
     })
   }
-  const order = Object.keys(ELEMENT_TYPES) as ElementTypeName[]
-  const blocks: { type: ElementTypeName; conn: Int32Array }[] = order
-    .filter((t) => lists.has(t))
-    .map((t) => ({ type: t, conn: Int32Array.from(lists.get(t)!) }))
+  const blocks = ELEMENT_TYPE_NAMES.filter((t) => lists.has(t)).map((t) => ({ type: t, conn: Int32Array.from(lists.get(t)!) }))
   checkConforming(coords, blocks, spec)
   if (!quadratic) return createMesh(coords, blocks as BlockInput[])
   const q = addMidEdgeNodesToBlocks(coords, blocks.map((b) => ({ type: quadraticTwin(b.type), conn: b.conn })))
-  return createMesh(q.coords, q.blocks)
+  return createMesh(q.coords, q.blocks.sort((x, y) => ELEMENT_TYPES[x.type].code - ELEMENT_TYPES[y.type].code))
 }
 
 /**
