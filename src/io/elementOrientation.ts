@@ -16,7 +16,7 @@
  */
 import { elementType } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
-import { sixTetVolume } from '../model/elements/tetVolume.ts'
+import { sixTetVolume, tripleProduct } from '../model/elements/tetVolume.ts'
 
 /** Relative volume below which an element counts as degenerate. */
 export const DEGENERATE_RELATIVE_VOLUME = 1e-12
@@ -118,15 +118,20 @@ function checkTetOrientation(x: Float64Array, conn: Int32Array, nn: number, type
   const count = (conn.length / nn) | 0
   const inv = new InvertedList()
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
+  // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
+  const triple = tripleProduct
   let out: Float64Array | null = null, scratch: Float64Array | null = null
   for (let e = 0; e < count; e++) {
     const b = nn * e
     const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
-    const t = sixTetVolume(x, p0, p1, p2, p3)
     const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
-    const sx = Math.abs(x[p1] - x0) + Math.abs(x[p2] - x0) + Math.abs(x[p3] - x0)
-    const sy = Math.abs(x[p1 + 1] - y0) + Math.abs(x[p2 + 1] - y0) + Math.abs(x[p3 + 1] - y0)
-    const sz = Math.abs(x[p1 + 2] - z0) + Math.abs(x[p2 + 2] - z0) + Math.abs(x[p3 + 2] - z0)
+    const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
+    const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0
+    const wx = x[p3] - x0, wy = x[p3 + 1] - y0, wz = x[p3 + 2] - z0
+    const t = triple(ux, uy, uz, vx, vy, vz, wx, wy, wz)
+    const sx = Math.abs(ux) + Math.abs(vx) + Math.abs(wx)
+    const sy = Math.abs(uy) + Math.abs(vy) + Math.abs(wy)
+    const sz = Math.abs(uz) + Math.abs(vz) + Math.abs(wz)
     const D2 = sx * sx + sy * sy + sz * sz
     if (t * t > limit2 * D2 * D2 * D2) {
       if (t < 0) inv.push(e)

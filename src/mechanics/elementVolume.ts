@@ -31,10 +31,12 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
     const conn = b.conn, off = b.offset
     const topo = elementType(b.type)
     if (topo.nodeCount === 4) {
+      // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
+      const six = sixTetVolume
       const count = conn.length / 4
       for (let e = 0; e < count; e++) {
         const p0 = 3 * conn[4 * e], p1 = 3 * conn[4 * e + 1], p2 = 3 * conn[4 * e + 2], p3 = 3 * conn[4 * e + 3]
-        outVolume[off + e] = sixTetVolume(x, p0, p1, p2, p3) / 6
+        outVolume[off + e] = six(x, p0, p1, p2, p3) / 6
         if (outCentroid) {
           const g = 3 * (off + e)
           outCentroid[g] = (x[p0] + x[p1] + x[p2] + x[p3]) / 4

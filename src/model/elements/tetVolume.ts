@@ -6,8 +6,14 @@
  */
 export function sixTetVolume(x: ArrayLike<number>, p0: number, p1: number, p2: number, p3: number): number {
   const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
-  const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
-  const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0
-  const wx = x[p3] - x0, wy = x[p3 + 1] - y0, wz = x[p3 + 2] - z0
+  return tripleProduct(
+    x[p1] - x0, x[p1 + 1] - y0, x[p1 + 2] - z0,
+    x[p2] - x0, x[p2 + 1] - y0, x[p2 + 2] - z0,
+    x[p3] - x0, x[p3 + 1] - y0, x[p3 + 2] - z0,
+  )
+}
+
+/** (u × v) · w for edge vectors u, v, w from corner 0: six times the signed volume. */
+export function tripleProduct(ux: number, uy: number, uz: number, vx: number, vy: number, vz: number, wx: number, wy: number, wz: number): number {
   return (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
 }
