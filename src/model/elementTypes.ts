@@ -18,10 +18,9 @@ import { TET10, TET4 } from './elements/tetrahedra.ts'
 import { WEDGE15, WEDGE6 } from './elements/wedges.ts'
 import { InputError } from './errors.ts'
 
-export type { ElementType, RefPoint } from './elements/elementRecord.ts'
+export type { ElementType, RefPoint, ReferenceDomain } from './elements/elementRecord.ts'
 export type { FaceKind, FaceKindType } from './elements/faceKinds.ts'
 export { FACE_KINDS, faceKind, faceKindOf } from './elements/faceKinds.ts'
-export type { DomainName, ReferenceDomain } from './elements/referenceDomains.ts'
 export type { QuadratureRule } from './elements/quadratureRules.ts'
 
 /** Every element type, in code order (codes are never renumbered; a new type takes the next). */

@@ -12,9 +12,27 @@
  */
 import type { FaceKind } from './faceKinds.ts'
 import type { QuadratureRule } from './quadratureRules.ts'
-import type { ReferenceDomain } from './referenceDomains.ts'
 
 export type RefPoint = readonly [number, number, number]
+
+/**
+ * A family's reference domain, in reference coordinates (ξ, η, ζ): its volume, its centroid
+ * (where the inversion of an element's map starts), a projection into the closed domain (round-off
+ * and points just outside an element land on its boundary), and the collapsed-cube map from
+ * [0, 1]³ onto the domain (for sampling it evenly in tests; the collapsed quadrature rules are
+ * built on the same map).
+ */
+export interface ReferenceDomain {
+  /** The family's domain: tetrahedron, cube, wedge, pyramid. */
+  readonly name: string
+  readonly volume: number
+  /** Reference centroid: the start point for inverting x(ξ) by Newton's method. */
+  readonly centroid: readonly [number, number, number]
+  /** Moves the reference point p (3 numbers, changed in place) into the closed domain. */
+  clamp(p: Float64Array | number[]): void
+  /** Writes the image of (u, v, w) ∈ [0, 1]³ to out (onto the domain; collapsed where it narrows). */
+  fromUnitCube(out: Float64Array | number[], u: number, v: number, w: number): void
+}
 
 export interface ElementType<N extends string = string> {
   readonly name: N

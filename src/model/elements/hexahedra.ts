@@ -6,10 +6,9 @@
  * lists its mid-edge nodes on (0,1) (1,2) (2,3) (3,0), (4,5) (5,6) (6,7) (7,4), (0,4) (1,5) (2,6)
  * (3,7). Mirror: swap the bottom and top faces. A cube cell is one hexahedron.
  */
-import type { ElementType, RefPoint } from './elementRecord.ts'
+import type { ElementType, RefPoint, ReferenceDomain } from './elementRecord.ts'
 import { linearElement, quadraticElement } from './elementRecord.ts'
 import { tensorRule } from './quadratureRules.ts'
-import { CUBE } from './referenceDomains.ts'
 
 const CORNERS: RefPoint[] = [
   [-1, -1, -1], [1, -1, -1], [1, 1, -1], [-1, 1, -1],
@@ -23,6 +22,19 @@ const REF = Float64Array.from([
   ...CORNERS.flat(),
   ...EDGES.flatMap(([a, b]) => [0, 1, 2].map((k) => (CORNERS[a][k] + CORNERS[b][k]) / 2)),
 ])
+
+const clampUnit = (x: number): number => Math.min(1, Math.max(-1, x))
+
+/** Reference cube [-1, 1]³ (volume 8). */
+export const CUBE: ReferenceDomain = {
+  name: 'cube', volume: 8, centroid: [0, 0, 0],
+  clamp(p) {
+    p[0] = clampUnit(p[0]); p[1] = clampUnit(p[1]); p[2] = clampUnit(p[2])
+  },
+  fromUnitCube(out, u, v, w) {
+    out[0] = 2 * u - 1; out[1] = 2 * v - 1; out[2] = 2 * w - 1
+  },
+}
 
 export const HEX8 = linearElement({
   name: 'hex8', code: 3, domain: CUBE,

@@ -36,12 +36,25 @@
  * and centroid exactly (and every polynomial of degree 3). pyramid13's det J has degree ≤ 5 in u,
  * v and ≤ 3 in w: 3×3×3 points integrate its volume exactly (and every polynomial of degree 5).
  */
-import type { ElementType } from './elementRecord.ts'
+import type { ElementType, ReferenceDomain } from './elementRecord.ts'
 import { linearElement, quadraticElement } from './elementRecord.ts'
 import { pyramidRule } from './quadratureRules.ts'
-import { PYRAMID } from './referenceDomains.ts'
 
 const XA = [-1, 1, 1, -1], YA = [-1, -1, 1, 1]
+
+/** Reference pyramid |ξ|, |η| ≤ 1 - ζ, 0 ≤ ζ ≤ 1 (volume 4/3). */
+export const PYRAMID: ReferenceDomain = {
+  // Centroid of a cone: a quarter of the height above the base.
+  name: 'pyramid', volume: 4 / 3, centroid: [0, 0, 0.25],
+  clamp(p) {
+    const z = Math.min(1, Math.max(0, p[2])), s = 1 - z
+    p[0] = Math.min(s, Math.max(-s, p[0])); p[1] = Math.min(s, Math.max(-s, p[1])); p[2] = z
+  },
+  fromUnitCube(out, u, v, w) {
+    const s = 1 - w
+    out[0] = (2 * u - 1) * s; out[1] = (2 * v - 1) * s; out[2] = w
+  },
+}
 
 export const PYRAMID5 = linearElement({
   name: 'pyramid5', code: 6, domain: PYRAMID,

@@ -8,12 +8,24 @@
  * their mid-edge nodes). A cube cell holds six tetrahedra around its diagonal 0-6 (Kuhn's
  * triangulation, conforming across neighbouring cells).
  */
-import type { ElementType } from './elementRecord.ts'
+import type { ElementType, ReferenceDomain } from './elementRecord.ts'
 import { linearElement, quadraticElement } from './elementRecord.ts'
 import { tetRule } from './quadratureRules.ts'
-import { TETRAHEDRON } from './referenceDomains.ts'
 
 const TET10_EDGES = [0, 1, 1, 2, 2, 0, 0, 3, 1, 3, 2, 3]
+
+/** Reference tetrahedron 0 ≤ ξ, η, ζ, ξ + η + ζ ≤ 1 (volume 1/6). */
+export const TETRAHEDRON: ReferenceDomain = {
+  name: 'tetrahedron', volume: 1 / 6, centroid: [0.25, 0.25, 0.25],
+  clamp(p) {
+    p[0] = Math.max(0, p[0]); p[1] = Math.max(0, p[1]); p[2] = Math.max(0, p[2])
+    const s = p[0] + p[1] + p[2]
+    if (s > 1) { p[0] /= s; p[1] /= s; p[2] /= s }
+  },
+  fromUnitCube(out, u, v, w) {
+    out[0] = u; out[1] = (1 - u) * v; out[2] = (1 - u) * (1 - v) * w
+  },
+}
 
 export const TET4 = linearElement({
   name: 'tet4', code: 1, domain: TETRAHEDRON,

@@ -16,10 +16,24 @@
  * on a triangular face to tri6, so wedge15 conforms to hex20 and tet10. Its space holds every
  * quadratic polynomial in ξ, η, ζ.
  */
-import type { ElementType } from './elementRecord.ts'
+import type { ElementType, ReferenceDomain } from './elementRecord.ts'
 import { linearElement, quadraticElement } from './elementRecord.ts'
 import { wedgeRule } from './quadratureRules.ts'
-import { WEDGE } from './referenceDomains.ts'
+
+/** Reference wedge: triangle 0 ≤ ξ, η, ξ + η ≤ 1 times ζ ∈ [-1, 1] (volume 1). */
+export const WEDGE: ReferenceDomain = {
+  name: 'wedge', volume: 1, centroid: [1 / 3, 1 / 3, 0],
+  clamp(p) {
+    // Triangle: negatives to 0, then scaled back onto ξ + η = 1; ζ into [-1, 1].
+    p[0] = Math.max(0, p[0]); p[1] = Math.max(0, p[1])
+    const s = p[0] + p[1]
+    if (s > 1) { p[0] /= s; p[1] /= s }
+    p[2] = Math.min(1, Math.max(-1, p[2]))
+  },
+  fromUnitCube(out, u, v, w) {
+    out[0] = u; out[1] = (1 - u) * v; out[2] = 2 * w - 1
+  },
+}
 
 export const WEDGE6 = linearElement({
   name: 'wedge6', code: 5, domain: WEDGE,
