@@ -27,7 +27,7 @@
  * Kronecker value at the apex). The derivatives stay bounded but depend on the direction from
  * which the apex is approached; at s = 0 we take the limit along the axis ξ = η = 0, where the
  * rational terms vanish identically, which is also their mean over the cross-sections near the
- * apex. The terms are evaluated through a = ξ/s, b = η/s, never ξη/s², so nothing overflows
+ * apex. The terms are evaluated through ra = ξ/s and rb = η/s, never ξη/s², so nothing overflows
  * close to the apex.
  *
  * Volume rules: the collapsed-cube Gauss–Jacobi rule (quadratureRules.ts, pyramidRule). In the
@@ -75,7 +75,7 @@ export const PYRAMID5 = linearElement({
   },
   shapeDerivatives(xi, eta, zeta, out) {
     const s = 1 - zeta
-    // a = ξ/s, b = η/s: bounded by 1 inside; their axis limit 0 at the apex.
+    // ra = ξ/s, rb = η/s: bounded by 1 inside; their axis limit 0 at the apex.
     const ra = s > 0 ? xi / s : 0, rb = s > 0 ? eta / s : 0
     for (let a = 0; a < 4; a++) {
       const c = XA[a] * YA[a]
