@@ -11,7 +11,6 @@ import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { nodalDisplayStress } from '../src/model/stressField.ts'
 import { analysisInputOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
 import type { AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
-import { percentiles } from '../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
@@ -108,7 +107,7 @@ function throttle(cb: ProgressCallback | undefined): (stage: string, fraction: n
 /** What the progress line says while each analysis stage runs, and how far the load is then. */
 const STAGE_PROGRESS: Record<AnalysisStage, [string, number]> = {
   faces: ['Boundary faces', 0.3], tractions: ['Surface tractions', 0.45], invariants: ['Principal stresses', 0.55],
-  elementBalance: ['Element balance', 0.65], bodyBalance: ['Body balance', 0.8], loadPatches: ['Load patches', 0.85],
+  elementBalance: ['Element balance', 0.65], bodyBalance: ['Body balance', 0.8], loadPatches: ['Load patches', 0.85], verdict: ['Balance verdict', 0.9],
 }
 
 /** The event loop gets a turn between stages, so progress messages leave while we compute. */
@@ -188,12 +187,11 @@ const api: EngineApi = {
         : {}
       offloaded.elementBalance?.catch(() => undefined)
       offloaded.invariants?.catch(() => undefined)
-      const { faces, tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches } = await runAnalysisAsync(
+      const { faces, tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = await runAnalysisAsync(
         input, { balancePrecision: 'single' },
         { offloaded, beforeStage: async (stage) => { report(...STAGE_PROGRESS[stage]); await yieldTurn(); clock.mark(stage) } },
         ({ stage }) => { if (stage === 'elementBalance') p?.forget() },
       )
-      const pct = percentiles(balance.indicator, [50, 95, 100])
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
       const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
@@ -218,11 +216,13 @@ const api: EngineApi = {
         surface,
         audit: {
           body,
-          indicator: { p50: pct[0], p95: pct[1], max: pct[2] },
+          indicator: verdict.indicator,
           patches: patches.patches,
           threshold: patches.threshold,
           referenceStress: patches.referenceStress,
           freeSurface: patches.freeSurface,
+          freeSurfaceForce: verdict.freeSurfaceForce,
+          verdict: verdict.verdict,
         },
       }
       const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges, ...Object.values(tri.scalars)].map((a) => a.buffer as ArrayBuffer)

@@ -4,17 +4,17 @@
  * section polygons; the stress at the hit is interpolated with the element's own shape functions
  * after inverting the isoparametric map by Newton's method.
  */
-import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
+import { elementType, FACE_KINDS } from '../src/model/elementTypes.ts'
 import type { ElementTypeName } from '../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../src/model/model.ts'
-import { shapeDerivatives, shapeValues } from '../src/mechanics/shapeFunctions.ts'
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
 import { elementIdOf } from '../src/model/elementId.ts'
 import { makePlane, planeDistance } from '../src/mechanics/plane.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
 import type { ProbeRequest, ProbeResult } from './protocol.ts'
 
-const CORNERS_OF_KIND = [3, 3, 4, 4]
+/** Corners per face kind code, from the element registry. */
+const CORNERS_OF_KIND = FACE_KINDS.map((k) => k.cornerCount)
 
 interface Hit { t: number; elem: number; normal: Vec3; where: 'surface' | 'section' }
 
@@ -68,27 +68,27 @@ function blockOf(mesh: Mesh, g: number): { type: ElementTypeName; conn: Int32Arr
   return null
 }
 
-const N = new Float64Array(20), dN = new Float64Array(60)
+const N = new Float64Array(20), dN = new Float64Array(60), R = new Float64Array(3)
 
 /**
- * Stress (6) at point p inside element g: Newton on x(ξ) = Σ Nₐ(ξ) xₐ from the element centre,
- * then Σ Nₐ σₐ. If Newton does not settle (badly shaped element, point just outside), the last
- * iterate is clamped into the reference domain, which still gives a value from that element.
+ * Stress (6) at point p inside element g: Newton on x(ξ) = Σ Nₐ(ξ) xₐ from the centroid of the
+ * type's reference domain (the element registry), each iterate kept in the closed domain (so
+ * the pyramid's rational functions are never evaluated beyond the apex), then Σ Nₐ σₐ. If Newton
+ * does not settle (badly shaped element, point just outside), the last iterate still lies in the
+ * reference domain, which gives a value from that element. An unknown type is an error.
  */
 export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: Vec3, out: Float64Array): void {
   const blk = blockOf(mesh, g)
+  if (!blk) throw new RangeError(`element index ${g} is not in the mesh (${mesh.elementCount} elements)`)
   out.fill(0)
-  if (!blk) return
-  const topo = ELEMENT_TYPES[blk.type]
-  const nn = topo.nodeCount
+  const topo = elementType(blk.type)
+  const nn = topo.nodeCount, domain = topo.domain
   const base = blk.local * nn
   const x = mesh.coords, conn = blk.conn
-  const tetLike = blk.type === 'tet4' || blk.type === 'tet10'
-  const wedge = blk.type === 'wedge6'
-  let xi = tetLike ? 0.25 : wedge ? 1 / 3 : 0, eta = xi, zeta = tetLike ? 0.25 : 0
+  R[0] = domain.centroid[0]; R[1] = domain.centroid[1]; R[2] = domain.centroid[2]
   for (let it = 0; it < 20; it++) {
-    shapeValues(blk.type, xi, eta, zeta, N)
-    shapeDerivatives(blk.type, xi, eta, zeta, dN)
+    topo.shapeValues(R[0], R[1], R[2], N)
+    topo.shapeDerivatives(R[0], R[1], R[2], dN)
     let rx = -p[0], ry = -p[1], rz = -p[2]
     let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
     for (let a = 0; a < nn; a++) {
@@ -108,23 +108,12 @@ export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: 
     const dx = (c00 * rx + c01 * ry + c02 * rz) / det
     const dy = (c10 * rx + c11 * ry + c12 * rz) / det
     const dz = (c20 * rx + c21 * ry + c22 * rz) / det
-    xi -= dx; eta -= dy; zeta -= dz
+    R[0] -= dx; R[1] -= dy; R[2] -= dz
+    // Keep the iterate in the reference domain (picking lands on the surface, round-off may leave it).
+    domain.clamp(R)
     if (Math.abs(dx) + Math.abs(dy) + Math.abs(dz) < 1e-12) break
   }
-  // Keep the point in the reference domain (picking lands on the surface, round-off may leave it).
-  if (tetLike) {
-    xi = Math.max(0, xi); eta = Math.max(0, eta); zeta = Math.max(0, zeta)
-    const s = xi + eta + zeta
-    if (s > 1) { xi /= s; eta /= s; zeta /= s }
-  } else if (wedge) {
-    xi = Math.max(0, xi); eta = Math.max(0, eta)
-    const s = xi + eta
-    if (s > 1) { xi /= s; eta /= s }
-    zeta = Math.min(1, Math.max(-1, zeta))
-  } else {
-    xi = Math.min(1, Math.max(-1, xi)); eta = Math.min(1, Math.max(-1, eta)); zeta = Math.min(1, Math.max(-1, zeta))
-  }
-  shapeValues(blk.type, xi, eta, zeta, N)
+  topo.shapeValues(R[0], R[1], R[2], N)
   for (let a = 0; a < nn; a++) {
     const n = conn[base + a]
     for (let k = 0; k < 6; k++) out[k] += N[a] * stress[6 * n + k]

@@ -8,6 +8,8 @@
  * S of the model's units; force S·L², moment S·L³). Conversion to a display system happens only
  * where a value is shown.
  */
+import type { BalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
+export type { BalanceVerdict, BalanceVerdictKind } from '../src/mechanics/balanceVerdict.ts'
 import type { Vec3 } from '../src/model/model.ts'
 import type { ModelUnits } from '../src/model/units.ts'
 import type { Plane } from '../src/mechanics/plane.ts'
@@ -113,6 +115,10 @@ export interface AuditSummary {
   readonly referenceStress: number
   /** Traction left on the free surface: area L², mean/peak S, relative dimensionless. */
   readonly freeSurface: { readonly area: number; readonly mean: number; readonly relative: number; readonly peak: number }
+  /** Net force ∫ t dA over the nominally free surface (force units). */
+  readonly freeSurfaceForce: Vec3
+  /** Mesh error or model error, with its reason in words (src/mechanics/balanceVerdict.ts). */
+  readonly verdict: BalanceVerdict
 }
 
 /** A pick ray in model coordinates (length units; direction need not be unit). */

@@ -11,7 +11,6 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, table, vecJson, vecQty } from './format.ts'
 import { elementIdOf } from '../model/elementId.ts'
 import { analysisInputOf, runAnalysis } from '../mechanics/analysisPipeline.ts'
-import { percentiles } from '../mechanics/balanceAudit.ts'
 
 /** Indices of the `k` largest values, largest first (one pass, k small). */
 export function topIndices(values: ArrayLike<number>, k: number): number[] {
@@ -40,6 +39,7 @@ export const auditCommand: Command = {
   ],
   details: [
     'Balance: the surface integral of t = σn plus ∫ρb dV over the whole body; "relative" divides the residual force by the gross load (half the sum of |face force|).',
+    'Verdict: "mesh" where the residual is what a discretisation leaves, "model" where the stress does not belong to the loads or the mesh, "inconclusive" between; the rule and its thresholds are in the README (Equilibrium).',
     'Element indicator: |∮σn dA + ∫ρb dV| of each element over its gross face load; p50, p95 and max over all elements.',
     'Patches: edge-connected boundary faces whose mean traction magnitude exceeds the threshold; the rest is the nominally free surface, whose mean traction should be small next to the reference stress.',
   ].join('\n'),
@@ -55,9 +55,9 @@ export const auditCommand: Command = {
 
     // Single-precision storage of the element balance: the indicator is read and ranked, and
     // memory stays near the model's size.
-    const { faces, bodyBalance: body, elementBalance: elements, loadPatches: lp } = runAnalysis(
+    const { faces, bodyBalance: body, elementBalance: elements, loadPatches: lp, verdict } = runAnalysis(
       analysisInputOf(model, bodyForce), { balancePrecision: 'single', loadPatches: { threshold } })
-    const [p50, p95, pmax] = Array.from(percentiles(elements.indicator, [50, 95, 100]))
+    const { p50, p95, max: pmax } = verdict.indicator
     const worst = topIndices(elements.indicator, worstCount).map((g) => ({ id: elementIdOf(mesh, g), indicator: elements.indicator[g] }))
 
     const fs = u.factor('stress')
@@ -88,6 +88,8 @@ export const auditCommand: Command = {
           surfaceForce: vecJson(body.surfaceForce, 'force', u),
           bodyForceTotal: vecJson(body.bodyForceTotal, 'force', u),
           volume: body.volume * u.factor('volume'),
+          freeSurfaceForce: vecJson(verdict.freeSurfaceForce, 'force', u),
+          verdict: verdict.verdict,
         },
         elements: { count: mesh.elementCount, p50, p95, max: pmax, worst },
         threshold: lp.threshold * fs,
@@ -109,6 +111,8 @@ export const auditCommand: Command = {
       ['relative', `${num(body.relative)} of the gross load ${qty(body.gross, 'force', u)}`],
       ['surface force', vecQty(body.surfaceForce, 'force', u)],
       ['body force ∫ρb dV', `${vecQty(body.bodyForceTotal, 'force', u)} over ${qty(body.volume, 'volume', u)}`],
+      ['of it, free surface', vecQty(verdict.freeSurfaceForce, 'force', u)],
+      ['verdict', `${verdict.verdict.kind}: ${verdict.verdict.reason}`],
     ])
     out += '\n' + block('Element balance indicator |residual| / gross (dimensionless)', [
       ['p50', num(p50)], ['p95', num(p95)], ['max', num(pmax)],

@@ -1,60 +1,33 @@
 /**
  * Orientation of elements from their corner geometry: the signed volume decides whether an
  * element is inverted (negative) or degenerate (|V| ≤ 1e-12 · d³, d = diagonal of the corners'
- * bounding box). Inverted elements are mirrored by a fixed permutation of their local nodes.
+ * bounding box). Inverted elements are mirrored by their type's mirror permutation (the element
+ * registry, src/model/elementTypes.ts), which reverses the orientation and keeps every mid-edge
+ * node on its edge.
  *
- * Signed volume: tetrahedra use the triple product (x2-x1)×(x3-x1)·(x4-x1)/6. Hexahedra and wedges
- * use the divergence theorem on the corner faces: each face, split into triangles about its
- * centre (quads) and oriented outward by the topology table, forms a cone with the corner centroid;
- * the cone volumes add up to the volume of the polyhedron (common practice; exact for planar
- * faces, a consistent symmetric split for warped ones), and to minus it when the element is
- * inside out.
+ * Signed volume: types with four corners use the triple product (x2-x1)×(x3-x1)·(x4-x1)/6. The
+ * others (hexahedra, wedges, pyramids) use the divergence theorem on the registry's corner faces:
+ * each face, split into triangles about its centre (quads) and oriented outward, forms a cone
+ * with the corner centroid; the cone volumes add up to the volume of the closed polyhedron those
+ * flat triangles bound (common practice; exact for planar faces, a consistent symmetric split for
+ * warped ones), and to minus it when the element is inside out. For a pyramid that polyhedron is
+ * the cone from the apex over the base split about its centre (with the apex as origin the side
+ * triangles add nothing; the sum does not depend on the origin).
  */
-import { ELEMENT_TYPES, FACE_CORNER_COUNT } from '../model/elementTypes.ts'
+import { elementType } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
+import { sixTetVolume, tripleProduct } from '../model/elements/tetVolume.ts'
 
 /** Relative volume below which an element counts as degenerate. */
 export const DEGENERATE_RELATIVE_VOLUME = 1e-12
-
-/**
- * Local node permutation that mirrors an element (new local i = old local PERM[i]):
- * tet: swap corners 2 and 3 (1-based) with their mid-edge nodes; hex: swap bottom and top faces;
- * wedge: swap the two triangles.
- */
-export const MIRROR_PERMUTATION: Readonly<Record<ElementTypeName, readonly number[]>> = {
-  tet4: [0, 2, 1, 3],
-  tet10: [0, 2, 1, 3, 6, 5, 4, 7, 9, 8],
-  hex8: [4, 5, 6, 7, 0, 1, 2, 3],
-  hex20: [4, 5, 6, 7, 0, 1, 2, 3, 12, 13, 14, 15, 8, 9, 10, 11, 16, 17, 18, 19],
-  wedge6: [3, 4, 5, 0, 1, 2],
-}
-
-interface FaceTable {
-  /** Corner faces flattened: 4 entries per face, -1 in the fourth for triangles. */
-  readonly faces: Int32Array
-  readonly faceCount: number
-}
-
-const FACE_TABLES: Record<ElementTypeName, FaceTable> = (() => {
-  const out = {} as Record<ElementTypeName, FaceTable>
-  for (const name of Object.keys(ELEMENT_TYPES) as ElementTypeName[]) {
-    const t = ELEMENT_TYPES[name]
-    const faces = new Int32Array(4 * t.faces.length).fill(-1)
-    t.faces.forEach((f, i) => {
-      const nc = FACE_CORNER_COUNT[t.faceKinds[i]]
-      for (let k = 0; k < nc; k++) faces[4 * i + k] = f[k]
-    })
-    out[name] = { faces, faceCount: t.faces.length }
-  }
-  return out
-})()
 
 /**
  * Writes the signed corner volume to out[0] and the corner bounding-box diagonal to out[1] for the
  * element whose nodes start at conn[base]. `scratch` holds at least 24 numbers.
  */
 export function measureElement(out: Float64Array, scratch: Float64Array, coords: Float64Array, conn: Int32Array, base: number, type: ElementTypeName): Float64Array {
-  const nc = ELEMENT_TYPES[type].cornerCount
+  const topo = elementType(type)
+  const nc = topo.cornerCount
   // Corners relative to their centroid: smaller numbers, less cancellation.
   let cx = 0, cy = 0, cz = 0
   let minX = Infinity, minY = Infinity, minZ = Infinity, maxX = -Infinity, maxY = -Infinity, maxZ = -Infinity
@@ -72,10 +45,10 @@ export function measureElement(out: Float64Array, scratch: Float64Array, coords:
   const dx = maxX - minX, dy = maxY - minY, dz = maxZ - minZ
   out[1] = Math.sqrt(dx * dx + dy * dy + dz * dz)
   if (nc === 4) {
-    out[0] = triple(scratch, 0, 3, 6, 9) / 6
+    out[0] = sixTetVolume(scratch, 0, 3, 6, 9) / 6
     return out
   }
-  const { faces, faceCount } = FACE_TABLES[type]
+  const faces = topo.cornerFaces, faceCount = faces.length / 4
   let v6 = 0
   for (let f = 0; f < faceCount; f++) {
     const a = 3 * faces[4 * f], b = 3 * faces[4 * f + 1], c = 3 * faces[4 * f + 2], d4 = faces[4 * f + 3]
@@ -100,14 +73,6 @@ export function measureElement(out: Float64Array, scratch: Float64Array, coords:
   return out
 }
 
-/** Six times the signed volume of the tetrahedron with corners at scratch offsets p, q, r, s. */
-function triple(x: Float64Array, p: number, q: number, r: number, s: number): number {
-  const ux = x[q] - x[p], uy = x[q + 1] - x[p + 1], uz = x[q + 2] - x[p + 2]
-  const vx = x[r] - x[p], vy = x[r + 1] - x[p + 1], vz = x[r + 2] - x[p + 2]
-  const wx = x[s] - x[p], wy = x[s + 1] - x[p + 1], wz = x[s + 2] - x[p + 2]
-  return (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
-}
-
 /** Result of checking one block: local indices of inverted elements, first degenerate one or -1. */
 export interface BlockOrientation {
   readonly inverted: Int32Array
@@ -119,8 +84,9 @@ export interface BlockOrientation {
 
 /** Checks every element of a block; stops at the first degenerate one. Does not change `conn`. */
 export function checkBlockOrientation(coords: Float64Array, type: ElementTypeName, conn: Int32Array): BlockOrientation {
-  if (type === 'tet4') return checkTet4Orientation(coords, conn)
-  const nn = ELEMENT_TYPES[type].nodeCount
+  const topo = elementType(type)
+  const nn = topo.nodeCount
+  if (topo.cornerCount === 4) return checkTetOrientation(coords, conn, nn, type)
   const count = (conn.length / nn) | 0
   const out = new Float64Array(2)
   const scratch = new Float64Array(24)
@@ -138,9 +104,9 @@ export function checkBlockOrientation(coords: Float64Array, type: ElementTypeNam
 }
 
 /**
- * The tet4 case of checkBlockOrientation in one loop over locals, without a call or a scratch
- * array per element, and without the bounding box (its min/max compares mispredict on every
- * element). With u, v, w the edges from corner 0, each extent max - min is at most |u_x| + |v_x|
+ * The tetrahedron case of checkBlockOrientation (tet4 and tet10: corners first, nn nodes each) in
+ * one loop, without a scratch array per element and without the bounding box (its min/max
+ * compares mispredict on every element). With u, v, w the edges from corner 0, each extent max - min is at most |u_x| + |v_x|
  * + |w_x| (and so for y, z), so D² = Σ (those sums)² ≥ d², and |u|, |v|, |w| ≤ D. An element whose
  * six-fold volume T = u·(v×w) from the raw coordinates has T² > (6·10⁻⁶)² D⁶ is accepted at once:
  * its volume is a million times above the degeneracy threshold, and the rounding of T or of
@@ -148,18 +114,21 @@ export function checkBlockOrientation(coords: Float64Array, type: ElementTypeNam
  * the same. Only elements below that bound (very flat ones; none in a sane mesh; overflow and
  * underflow land here too) are measured exactly by measureElement, which alone decides them.
  */
-function checkTet4Orientation(x: Float64Array, conn: Int32Array): BlockOrientation {
-  const count = (conn.length / 4) | 0
+function checkTetOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
+  const count = (conn.length / nn) | 0
   const inv = new InvertedList()
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
+  // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
+  const triple = tripleProduct
   let out: Float64Array | null = null, scratch: Float64Array | null = null
   for (let e = 0; e < count; e++) {
-    const p0 = 3 * conn[4 * e], p1 = 3 * conn[4 * e + 1], p2 = 3 * conn[4 * e + 2], p3 = 3 * conn[4 * e + 3]
+    const b = nn * e
+    const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
     const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
     const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
     const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0
     const wx = x[p3] - x0, wy = x[p3 + 1] - y0, wz = x[p3 + 2] - z0
-    const t = (uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz
+    const t = triple(ux, uy, uz, vx, vy, vz, wx, wy, wz)
     const sx = Math.abs(ux) + Math.abs(vx) + Math.abs(wx)
     const sy = Math.abs(uy) + Math.abs(vy) + Math.abs(wy)
     const sz = Math.abs(uz) + Math.abs(vz) + Math.abs(wz)
@@ -170,7 +139,7 @@ function checkTet4Orientation(x: Float64Array, conn: Int32Array): BlockOrientati
     }
     out ??= new Float64Array(2)
     scratch ??= new Float64Array(24)
-    measureElement(out, scratch, x, conn, 4 * e, 'tet4')
+    measureElement(out, scratch, x, conn, b, type)
     const v = out[0], d = out[1]
     // Also catches NaN volumes (never from finite coordinates, but never trusted either).
     if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
@@ -195,9 +164,9 @@ class InvertedList {
   done(): Int32Array { return this.a.slice(0, this.n) }
 }
 
-/** Mirrors the listed elements of a block in place (see MIRROR_PERMUTATION). */
+/** Mirrors the listed elements of a block in place (the type's mirror permutation in the registry). */
 export function reorientElements(conn: Int32Array, type: ElementTypeName, elements: Int32Array): void {
-  const perm = MIRROR_PERMUTATION[type]
+  const perm = elementType(type).mirror
   const nn = perm.length
   const tmp = new Int32Array(nn)
   for (let i = 0; i < elements.length; i++) {

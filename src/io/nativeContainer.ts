@@ -21,7 +21,7 @@
  */
 import { createMesh } from '../model/createMesh.ts'
 import type { BlockInput } from '../model/createMesh.ts'
-import { ELEMENT_TYPES, isElementTypeName } from '../model/elementTypes.ts'
+import { elementType, isElementTypeName } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { InputErrorKind } from '../model/errors.ts'
@@ -219,7 +219,7 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
 
   // All block arrays are checked against the file before anything is allocated from the counts.
   const blockArrays = blocks.map((b, k) => ({
-    conn: take<Int32Array>(`block${k}.conn`, 'i32', b.count * ELEMENT_TYPES[b.type].nodeCount)!,
+    conn: take<Int32Array>(`block${k}.conn`, 'i32', b.count * elementType(b.type).nodeCount)!,
     ids: take<Int32Array>(`block${k}.ids`, 'i32', b.count)!,
     part: take<Int32Array>(`block${k}.part`, 'i32', b.count, true),
   }))
@@ -237,7 +237,7 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   let invertedTotal = 0
   let at = 0
   blocks.forEach((b, k) => {
-    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const nn = elementType(b.type).nodeCount
     const { ids, part } = blockArrays[k]
     let conn = blockArrays[k].conn
     const bad = firstIndexOutside(conn, N)

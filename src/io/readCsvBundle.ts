@@ -7,7 +7,7 @@
  */
 import { createMesh } from '../model/createMesh.ts'
 import type { BlockInput } from '../model/createMesh.ts'
-import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { elementType } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { Model } from '../model/model.ts'
 import { DEFAULT_UNITS } from '../model/units.ts'
@@ -184,7 +184,7 @@ function checkElementIdsUnique(raw: readonly RawElementBlock[], file: string): v
 /** Replaces user node ids by node indices (in place) and marks used nodes. */
 function resolveNodes(rb: RawElementBlock, nodeIndex: IdIndex, nodesName: string, file: string, used: Uint8Array): Int32Array {
   const conn = rb.nodeIds
-  const nn = ELEMENT_TYPES[rb.type].nodeCount
+  const nn = elementType(rb.type).nodeCount
   // The dense table looked up here directly (a call per entry otherwise); same result as rowOfId.
   const dense = nodeIndex.dense, rowOf = rowOfId
   const dn = dense ? dense.length : 0
@@ -241,7 +241,7 @@ function countUnusedWithout(used: Uint8Array, has: Uint8Array): number {
 function findElementUsing(raw: readonly RawElementBlock[], blocks: readonly BlockInput[], node: number): { id: number } {
   for (let b = 0; b < blocks.length; b++) {
     const conn = blocks[b].conn
-    const nn = ELEMENT_TYPES[blocks[b].type].nodeCount
+    const nn = elementType(blocks[b].type).nodeCount
     const i = conn.indexOf(node)
     if (i >= 0) return { id: raw[b].ids[(i / nn) | 0] }
   }

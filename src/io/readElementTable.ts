@@ -6,7 +6,7 @@
  * appearance; each block keeps the user's element ids and, here, the user's node ids (mapped to
  * indices later).
  */
-import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../model/elementTypes.ts'
+import { elementType, ELEMENT_TYPE_NAMES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import { PARSE_OK, atLineEnd, createCursor, estimateRecordCount, finishLine, nextRecord, readCount, readId, skipField, takeComma, tokenText } from './csvCursor.ts'
@@ -77,7 +77,7 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
     }
     let g = byType[t]
     if (!g) {
-      const nn0 = ELEMENT_TYPES[type].nodeCount
+      const nn0 = elementType(type).nodeCount
       g = { nodeIds: new Int32Array(estimate * nn0), ids: new Int32Array(estimate), part: new Int32Array(hasPart ? estimate : 0), lines: new Int32Array(estimate), count: 0 }
       byType[t] = g
       order.push(t)
@@ -128,7 +128,7 @@ export function readElementTable(file: string, text: string): RawElementBlock[] 
   return order.map((t) => {
     const g = byType[t]!
     const type = ELEMENT_TYPE_NAMES[t]
-    const nn = ELEMENT_TYPES[type].nodeCount
+    const nn = elementType(type).nodeCount
     return {
       type,
       nodeIds: fitInt(g.nodeIds, g.count * nn),
@@ -145,7 +145,7 @@ const MAX_ID = 2147483647
 
 /** Type names and node counts by index, module constants (no getter per row, see readNumericTable). */
 const TYPE_NAMES: readonly ElementTypeName[] = [...ELEMENT_TYPE_NAMES]
-const NODE_COUNTS: readonly number[] = TYPE_NAMES.map((t) => ELEMENT_TYPES[t].nodeCount)
+const NODE_COUNTS: readonly number[] = TYPE_NAMES.map((t) => elementType(t).nodeCount)
 
 /** Index into ELEMENT_TYPE_NAMES of the type token text[s, e) (case-insensitive, optional quotes), or -1. */
 function matchType(text: string, s: number, e: number): number {

@@ -3,7 +3,7 @@
  * and for any code that builds a Model by hand). Throws the first violation as an InputError
  * naming `source` and the field.
  */
-import { ELEMENT_TYPES, isElementTypeName } from '../model/elementTypes.ts'
+import { elementType, isElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { Model } from '../model/model.ts'
 import { isLengthUnit, isStressUnit } from '../model/units.ts'
@@ -41,7 +41,7 @@ export function validateModel(model: Model, source = 'model'): void {
   mesh.blocks.forEach((b, k) => {
     const f = `blocks[${k}]`
     if (!isElementTypeName(b.type)) bad(`${f}.type`, `unknown element type ${JSON.stringify(b.type)}`, 'unknown-type')
-    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const nn = elementType(b.type).nodeCount
     const count = b.ids.length
     if (b.conn.length !== count * nn) bad(`${f}.conn`, `conn has ${b.conn.length} entries, expected ${count} × ${nn}`)
     if (b.part && b.part.length !== count) bad(`${f}.part`, `part has ${b.part.length} entries, expected ${count}`)

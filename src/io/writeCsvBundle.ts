@@ -2,7 +2,7 @@
  * Writes a Model as a CSV bundle that readCsvBundle reads back to the same numbers: numbers are
  * written in the shortest form that round-trips (ECMAScript Number::toString), -0 as "-0".
  */
-import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { elementType } from '../model/elementTypes.ts'
 import type { Model } from '../model/model.ts'
 import type { CsvFile } from './readCsvBundle.ts'
 
@@ -27,12 +27,12 @@ export function writeCsvBundle(model: Model): CsvFile[] {
   files.push({ name: 'nodes.csv', text: table('id,x,y,z', N, 3, mesh.nodeIds, mesh.coords) })
   const hasPart = mesh.blocks.some((b) => b.part !== null)
   let maxNodes = 1
-  for (const b of mesh.blocks) maxNodes = Math.max(maxNodes, ELEMENT_TYPES[b.type].nodeCount)
+  for (const b of mesh.blocks) maxNodes = Math.max(maxNodes, elementType(b.type).nodeCount)
   const head = ['id', 'type', ...(hasPart ? ['part'] : [])]
   for (let k = 1; k <= maxNodes; k++) head.push(`n${k}`)
   const el: string[] = [head.join(',')]
   for (const b of mesh.blocks) {
-    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const nn = elementType(b.type).nodeCount
     const count = b.ids.length
     for (let e = 0; e < count; e++) {
       let line = `${b.ids[e]},${b.type}`

@@ -2,10 +2,11 @@
  * The analysis pipeline: the one place where the stages that follow reading a model are chained,
  * for the engine worker, the command line and the tests alike.
  *
- *   faces → tractions → invariants → elementBalance → bodyBalance → loadPatches
+ *   faces → tractions → invariants → elementBalance → bodyBalance → loadPatches → verdict
  *
  * boundary faces; surface tractions t = σn on them; nodal invariants (display values); the
- * element balance and the whole-body balance; the load-entry patches. Each stage reads the input
+ * element balance and the whole-body balance; the load-entry patches; the balance verdict (mesh
+ * error or model error, balanceVerdict.ts) with the spread of the element indicator. Each stage reads the input
  * and what the stages before it produced, and is reported through `onStage` when it ends, with
  * its wall time (ms) and its result. Units are the model's (see types.ts).
  *
@@ -27,6 +28,8 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.t
 import { allocateNodalInvariants, computeNodalInvariants } from './invariants.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from './balanceAudit.ts'
 import { findLoadPatches } from './loadPatches.ts'
+import { computeBalanceVerdict } from './balanceVerdict.ts'
+import type { BalanceVerdictResult } from './balanceVerdict.ts'
 import type { LoadPatchOptions } from './loadPatches.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, NodalInvariants, SurfaceTractions } from './types.ts'
 
@@ -45,12 +48,13 @@ export interface AnalysisResult {
   readonly elementBalance: ElementBalance
   readonly bodyBalance: BodyBalance
   readonly loadPatches: LoadPatches
+  readonly verdict: BalanceVerdictResult
 }
 
 export type AnalysisStage = keyof AnalysisResult
 
 /** The stages in the order they run. */
-export const ANALYSIS_STAGES: readonly AnalysisStage[] = ['faces', 'tractions', 'invariants', 'elementBalance', 'bodyBalance', 'loadPatches']
+export const ANALYSIS_STAGES: readonly AnalysisStage[] = ['faces', 'tractions', 'invariants', 'elementBalance', 'bodyBalance', 'loadPatches', 'verdict']
 
 export interface AnalysisOptions {
   /**
@@ -99,6 +103,8 @@ const STAGE_WORK: { readonly [K in AnalysisStage]: (input: AnalysisInput, option
     computeElementBalance(allocateElementBalance(mesh.elementCount, o.balancePrecision ?? 'double'), mesh, stress, bodyForce),
   bodyBalance: ({ mesh, bodyForce }, _o, { faces, tractions }) => computeBodyBalance(mesh, faces, tractions, bodyForce),
   loadPatches: ({ mesh }, o, { faces, tractions, invariants }) => findLoadPatches(mesh, faces, tractions, invariants.vonMises, o.loadPatches),
+  verdict: ({ bodyForce }, _o, { faces, tractions, loadPatches, bodyBalance, elementBalance }) =>
+    computeBalanceVerdict(faces, tractions, loadPatches, bodyBalance, elementBalance, bodyForce),
 }
 
 /** Keeps a finished stage's result in `done` and reports it. */

@@ -31,6 +31,7 @@
  *   5. otherwise `inconclusive`, with the figures.
  */
 import type { Vec3 } from '../model/model.ts'
+import { percentiles } from './balanceAudit.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, SurfaceTractions } from './types.ts'
 
 export type BalanceVerdictKind = 'mesh' | 'model' | 'inconclusive'
@@ -55,6 +56,12 @@ export interface BalanceSplit {
   /** The body force per unit volume the stress balances: declared ρb − Σ r_e / V. */
   readonly impliedBodyForce: Vec3
   readonly verdict: BalanceVerdict
+}
+
+/** The pipeline's verdict stage: the split, and the spread of the element indicator it used. */
+export interface BalanceVerdictResult extends BalanceSplit {
+  /** Median, 95th percentile and largest element balance indicator (NaN for an empty mesh). */
+  readonly indicator: { readonly p50: number; readonly p95: number; readonly max: number }
 }
 
 export const VERDICT_BALANCED = 0.01
@@ -156,4 +163,15 @@ export function decideBalance(x: VerdictFigures): BalanceVerdict {
     reason: `inconclusive: the residual is ${pct(x.total)} of the gross load, the median element is out of balance by ${pct(x.median)} ` +
       `and the free surface carries a mean traction of ${pct(x.freeLevel)} of the reference stress; refine the mesh or check the loads`,
   }
+}
+
+/**
+ * The verdict stage of the analysis pipeline: the indicator's spread (one sort of the E
+ * indicators, shared with the cards and the audit command) and the split with its verdict.
+ */
+export function computeBalanceVerdict(
+  faces: BoundaryFaces, tractions: SurfaceTractions, patches: LoadPatches, body: BodyBalance, elements: ElementBalance, bodyForce: Vec3,
+): BalanceVerdictResult {
+  const [p50, p95, max] = percentiles(elements.indicator, [50, 95, 100])
+  return { ...balanceSplit(faces, tractions, patches, body, elements, p50, bodyForce), indicator: { p50, p95, max } }
 }

@@ -11,13 +11,11 @@
  * not depend on node numbering. Faces keep the element's local face node order, which is outward
  * for positively oriented elements (the readers reorient inverted ones).
  */
-import { ELEMENT_TYPES, FACE_CORNER_COUNT, FACE_KIND_CODE, FACE_NODE_COUNT } from '../model/elementTypes.ts'
+import { ELEMENT_TYPES, FACE_KIND_CODE, FACE_KINDS, FACE_NODE_COUNT } from '../model/elementTypes.ts'
 import { elementIdOf } from '../model/elementId.ts'
-import type { FaceKind } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { ElementBlock, Mesh } from '../model/model.ts'
 import { FQP_AREA, FQP_SIZE, FQP_X, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
-import { faceRule } from './quadrature.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
 import { FACE_SLOTS } from './types.ts'
@@ -32,13 +30,6 @@ const REF_STRIDE = 8
  * the elements outside its part).
  */
 const PART_FACES = 1 << 19
-
-/** Local corner lists of every face of a type, 4 per face (-1 for the 4th corner of triangles). */
-function faceCornerTable(faces: readonly (readonly number[])[], kinds: readonly FaceKind[]): Int32Array {
-  const t = new Int32Array(4 * faces.length).fill(-1)
-  faces.forEach((f, i) => { for (let c = 0; c < FACE_CORNER_COUNT[kinds[i]]; c++) t[4 * i + c] = f[c] })
-  return t
-}
 
 /**
  * Stride of the per-face-node arrays for these blocks: the largest node count of any face kind of
@@ -70,7 +61,7 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
   for (const b of blocks) {
     const topo = ELEMENT_TYPES[b.type]
     const nn = topo.nodeCount, nf = topo.faces.length
-    const fc = faceCornerTable(topo.faces, topo.faceKinds)
+    const fc = topo.cornerFaces
     const conn = b.conn
     const count = conn.length / nn
     total += count * nf
@@ -111,7 +102,7 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
     for (const b of blocks) {
       const topo = ELEMENT_TYPES[b.type]
       const nn = topo.nodeCount, nf = topo.faces.length
-      const fc = faceCornerTable(topo.faces, topo.faceKinds)
+      const fc = topo.cornerFaces
       const conn = b.conn, off = b.offset, cc = topo.cornerCount
       const count = conn.length / nn
       for (let e = 0; e < count; e++) {
@@ -208,7 +199,7 @@ function sortLargeBucket(ref: Int32Array, k1: Int32Array, k2: Int32Array, k3: In
 let faceTables: FaceTable[] | null = null
 /** Face tables at the face quadrature points, indexed by FACE_KIND_CODE; built once. */
 export function faceQuadratureTables(): FaceTable[] {
-  if (!faceTables) faceTables = (['tri3', 'tri6', 'quad4', 'quad8'] as const).map((kd) => tabulateFace(kd, faceRule(kd)))
+  if (!faceTables) faceTables = FACE_KINDS.map((kd) => tabulateFace(kd.name, kd.rule))
   return faceTables
 }
 
@@ -281,4 +272,3 @@ function sharedFaceError(mesh: Mesh, ref: Int32Array, i: number, j: number, n0: 
     'a face may belong to at most two elements, so the mesh overlaps itself or has duplicate elements there',
     { elementId: ids[0] })
 }
-

@@ -1,12 +1,13 @@
 /**
  * Element volumes and centroids by the element's own volume quadrature: V = ∫ det J dξ,
- * c = ∫ x det J dξ / V. Tetrahedra with 4 nodes use the closed form (det J is constant).
+ * c = ∫ x det J dξ / V, with the volume rule of the type's registry record. Four-node elements
+ * (tet4: det J constant) use the closed form of src/model/elements/tetVolume.ts.
  * Volumes are in model length³; a negative volume means an inverted element (readers reorient
  * those, so it should not happen on a loaded model).
  */
-import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { elementType } from '../model/elementTypes.ts'
+import { sixTetVolume } from '../model/elements/tetVolume.ts'
 import type { Mesh } from '../model/model.ts'
-import { volumeRule } from './quadrature.ts'
 import { tabulateElement } from './shapeFunctions.ts'
 
 /** Volume of every element, Float64Array(E) indexed by global element index. */
@@ -28,26 +29,25 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
   const x = mesh.coords
   for (const b of mesh.blocks) {
     const conn = b.conn, off = b.offset
-    if (b.type === 'tet4') {
+    const topo = elementType(b.type)
+    if (topo.nodeCount === 4) {
+      // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
+      const six = sixTetVolume
       const count = conn.length / 4
       for (let e = 0; e < count; e++) {
         const p0 = 3 * conn[4 * e], p1 = 3 * conn[4 * e + 1], p2 = 3 * conn[4 * e + 2], p3 = 3 * conn[4 * e + 3]
-        const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
-        const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
-        const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0
-        const wx = x[p3] - x0, wy = x[p3 + 1] - y0, wz = x[p3 + 2] - z0
-        outVolume[off + e] = ((uy * vz - uz * vy) * wx + (uz * vx - ux * vz) * wy + (ux * vy - uy * vx) * wz) / 6
+        outVolume[off + e] = six(x, p0, p1, p2, p3) / 6
         if (outCentroid) {
           const g = 3 * (off + e)
-          outCentroid[g] = (x0 + x[p1] + x[p2] + x[p3]) / 4
-          outCentroid[g + 1] = (y0 + x[p1 + 1] + x[p2 + 1] + x[p3 + 1]) / 4
-          outCentroid[g + 2] = (z0 + x[p1 + 2] + x[p2 + 2] + x[p3 + 2]) / 4
+          outCentroid[g] = (x[p0] + x[p1] + x[p2] + x[p3]) / 4
+          outCentroid[g + 1] = (x[p0 + 1] + x[p1 + 1] + x[p2 + 1] + x[p3 + 1]) / 4
+          outCentroid[g + 2] = (x[p0 + 2] + x[p1 + 2] + x[p2 + 2] + x[p3 + 2]) / 4
         }
       }
       continue
     }
-    const nn = ELEMENT_TYPES[b.type].nodeCount
-    const tab = tabulateElement(b.type, volumeRule(b.type))
+    const nn = topo.nodeCount
+    const tab = tabulateElement(b.type, topo.volumeRule)
     const nq = tab.pointCount, V = tab.values, D = tab.derivs, W = tab.weights
     const xs = new Float64Array(3 * nn)
     const count = conn.length / nn

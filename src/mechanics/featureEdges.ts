@@ -10,6 +10,7 @@
  * Edges are matched by their corner nodes in an open-addressing table of typed arrays: linear in
  * the number of faces, no per-face allocation.
  */
+import { FACE_KINDS } from '../model/elementTypes.ts'
 import type { BoundaryFaces } from './types.ts'
 
 export interface FeatureEdges {
@@ -17,10 +18,9 @@ export interface FeatureEdges {
   readonly segments: Float32Array
 }
 
-/** Corners per face kind code (tri3, tri6, quad4, quad8). */
-const CORNERS = [3, 3, 4, 4]
-/** Whether the kind has mid-edge nodes. */
-const QUADRATIC = [false, true, false, true]
+/** Corners per face kind code, and whether the kind has mid-edge nodes (from the element registry). */
+const CORNERS = FACE_KINDS.map((k) => k.cornerCount)
+const QUADRATIC = FACE_KINDS.map((k) => k.quadratic)
 
 /** Default crease angle in degrees: a box's 90° edges show, a cylinder faceted at 15° does not. */
 export const DEFAULT_CREASE_DEGREES = 30

@@ -17,13 +17,15 @@
  * 5. Every other boundary face is the nominally free surface: its area, mean |t|, that mean
  *    relative to σ_ref, and its peak nodal |t| tell how far the result is from traction-free.
  */
+import { FACE_KINDS } from '../model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { percentiles } from './balanceAudit.ts'
 import type { BoundaryFaces, LoadPatch, LoadPatches, SurfaceTractions } from './types.ts'
 import { momentAbout } from './vec3.ts'
 
-const CORNERS_BY_CODE = [3, 3, 4, 4]
-const NODES_BY_CODE = [3, 6, 4, 8]
+/** Corners and nodes per face kind code, read once from the element registry. */
+const CORNERS_BY_CODE = FACE_KINDS.map((k) => k.cornerCount)
+const NODES_BY_CODE = FACE_KINDS.map((k) => k.nodeCount)
 
 export interface LoadPatchOptions {
   /** Fraction of the reference stress above which a face's mean |t| counts as loaded (default 0.05). */

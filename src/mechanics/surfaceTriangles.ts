@@ -23,6 +23,7 @@
  *
  * Linear in the number of faces; the only allocations are the output arrays.
  */
+import { FACE_KINDS } from '../model/elementTypes.ts'
 import type { Vec3 } from '../model/model.ts'
 import type { BoundaryFaces, NodalInvariants, SurfaceTractions } from './types.ts'
 
@@ -47,19 +48,10 @@ export interface SurfaceTriangles {
   readonly bounds: { readonly min: Vec3; readonly max: Vec3 }
 }
 
-/** Vertices per face kind code (FACE_KIND_CODE order tri3, tri6, quad4, quad8). */
-const NODES_OF_KIND = [3, 6, 4, 8]
-/** Sub-triangles per face kind code. */
-const TRIS_OF_KIND = [1, 4, 2, 6]
-/** Local sub-triangles per face kind code, as face-local vertex numbers. */
-const LOCAL_TRIS: readonly (readonly number[])[] = [
-  [0, 1, 2],
-  // tri6: mid nodes 3 (0-1), 4 (1-2), 5 (2-0)
-  [0, 3, 5, 3, 1, 4, 5, 4, 2, 3, 4, 5],
-  [0, 1, 2, 0, 2, 3],
-  // quad8: mid nodes 4 (0-1), 5 (1-2), 6 (2-3), 7 (3-0)
-  [0, 4, 7, 1, 5, 4, 2, 6, 5, 3, 7, 6, 4, 5, 6, 4, 6, 7],
-]
+/** Vertices, sub-triangles and their face-local vertex lists per face kind code (the registry's drawing split). */
+const NODES_OF_KIND = FACE_KINDS.map((k) => k.nodeCount)
+const TRIS_OF_KIND = FACE_KINDS.map((k) => k.triangles.length / 3)
+const LOCAL_TRIS: readonly (readonly number[])[] = FACE_KINDS.map((k) => k.triangles)
 
 /**
  * Builds the surface render buffers. `indicator` is the ElementBalance indicator per element

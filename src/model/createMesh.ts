@@ -1,3 +1,4 @@
+import { elementType } from './elementTypes.ts'
 import type { ElementTypeName } from './elementTypes.ts'
 import type { ElementBlock, Mesh } from './model.ts'
 
@@ -17,8 +18,9 @@ export function createMesh(coords: Float64Array, blocks: readonly BlockInput[], 
   let offset = 0
   const out: ElementBlock[] = []
   for (const b of blocks) {
-    const nn = nodeCountOf(b.type)
+    const nn = elementType(b.type).nodeCount
     const count = b.conn.length / nn
+    if (!Number.isInteger(count)) throw new RangeError(`a ${b.type} block needs ${nn} nodes per element; its connectivity has ${b.conn.length} entries`)
     let ids = b.ids
     if (!ids) {
       ids = new Int32Array(count)
@@ -33,9 +35,4 @@ export function createMesh(coords: Float64Array, blocks: readonly BlockInput[], 
     for (let i = 0; i < nodeCount; i++) nid[i] = i + 1
   }
   return { coords, nodeIds: nid, blocks: out, nodeCount, elementCount: offset }
-}
-
-const NODE_COUNTS: Record<ElementTypeName, number> = { tet4: 4, tet10: 10, hex8: 8, hex20: 20, wedge6: 6 }
-function nodeCountOf(t: ElementTypeName): number {
-  return NODE_COUNTS[t]
 }

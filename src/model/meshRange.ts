@@ -1,4 +1,4 @@
-import { ELEMENT_TYPES } from './elementTypes.ts'
+import { elementType } from './elementTypes.ts'
 import type { ElementBlock, Mesh } from './model.ts'
 
 /** [from, to) index ranges (elements or nodes). */
@@ -29,7 +29,7 @@ export function meshSlice(mesh: Mesh, from: number, to: number): Mesh {
   const lo = Math.max(0, Math.min(from, mesh.elementCount)), hi = Math.max(lo, Math.min(to, mesh.elementCount))
   const blocks: ElementBlock[] = []
   for (const b of mesh.blocks) {
-    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const nn = elementType(b.type).nodeCount
     const count = b.ids.length
     const a = Math.max(lo, b.offset) - b.offset, z = Math.min(hi, b.offset + count) - b.offset
     if (z <= a) continue

@@ -4,7 +4,7 @@ import type { ModelUnits } from './units.ts'
 /**
  * One block of elements of a single type.
  * - `conn`: Int32Array(count · nodeCount), 0-based node indices into the mesh, local node order
- *   of `ELEMENT_TYPES[type]`, positively oriented (the reader reorients inverted elements).
+ *   of `elementType(type)` (src/model/elementTypes.ts), positively oriented (the reader reorients inverted elements).
  * - `ids`: the user's element ids, so every message and export speaks them.
  * - `part`: optional part number per element (0 when none was given).
  * - `offset`: global element index of this block's first element. Global element indices run

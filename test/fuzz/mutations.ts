@@ -9,6 +9,7 @@ import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { writeNative } from '../../src/io/nativeContainer.ts'
 import type { InputFile } from '../../src/io/detect.ts'
+import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import { mixedModel } from '../io/testModels.ts'
 import { tinyBundle, toFiles } from '../io/tinyBundle.ts'
 import { patchNative } from '../io/nativePatch.ts'
@@ -20,7 +21,7 @@ type Base = CsvBase | NativeBase
 function makeBases(): Base[] {
   const tiny = toFiles(tinyBundle())
   // One cell per type keeps each case well under a millisecond.
-  const mixed = writeCsvBundle(mixedModel(['hex8', 'tet10', 'wedge6', 'hex20', 'tet4'], 100, true, { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }))
+  const mixed = writeCsvBundle(mixedModel(ELEMENT_TYPE_NAMES, 100, true, { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }))
   return [
     { kind: 'csv', name: 'tiny bundle', files: tiny },
     { kind: 'csv', name: 'mixed bundle', files: mixed },

@@ -5,7 +5,6 @@
  * - quarterCylinder: (r, θ, z) ∈ [a, b] × [0, π/2] × [0, L] → (r cos θ, r sin θ, z), for the
  *   Lamé thick cylinder and the Kirsch plate with a hole (a quarter model; the symmetry planes
  *   are ordinary boundary faces here).
- * - mixedBox: cells of a structured box split into several element types that conform.
  */
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import { createMesh } from '../../src/model/createMesh.ts'
@@ -39,6 +38,25 @@ export function quarterCylinder(spec: PolarSpec, type: ElementTypeName): Mesh {
   return { ...box, coords: out }
 }
 
+/** Nodal stress from a function of position. */
+export function stressField(mesh: Mesh, f: (x: number, y: number, z: number) => number[]): Float64Array {
+  const s = new Float64Array(6 * mesh.nodeCount)
+  for (let i = 0; i < mesh.nodeCount; i++) s.set(f(mesh.coords[3 * i], mesh.coords[3 * i + 1], mesh.coords[3 * i + 2]), 6 * i)
+  return s
+}
+
+/** Cartesian stress from polar components (σr, σθ, τrθ) at angle θ, σzz given. */
+export function polarToCartesian(sr: number, st: number, trt: number, theta: number, szz = 0): number[] {
+  const c = Math.cos(theta), s = Math.sin(theta)
+  return [
+    sr * c * c + st * s * s - 2 * trt * s * c,
+    sr * s * s + st * c * c + 2 * trt * s * c,
+    szz,
+    (sr - st) * s * c + trt * (c * c - s * s),
+    0, 0,
+  ]
+}
+
 /**
  * A box whose cells are split into element types by `cellType(i, j, k)`: 'hex8' (one hexahedron),
  * 'wedge6' (two wedges on the bottom diagonal 0-2, as boxMesh splits them) or 'tet4' (six Kuhn
@@ -61,23 +79,4 @@ export function mixedBox(nx: number, ny: number, nz: number, size: [number, numb
   const blocks: BlockInput[] = []
   for (const type of ['hex8', 'wedge6', 'tet4'] as const) if (lists[type].length) blocks.push({ type, conn: Int32Array.from(lists[type]) })
   return createMesh(hex.coords, blocks)
-}
-
-/** Nodal stress from a function of position. */
-export function stressField(mesh: Mesh, f: (x: number, y: number, z: number) => number[]): Float64Array {
-  const s = new Float64Array(6 * mesh.nodeCount)
-  for (let i = 0; i < mesh.nodeCount; i++) s.set(f(mesh.coords[3 * i], mesh.coords[3 * i + 1], mesh.coords[3 * i + 2]), 6 * i)
-  return s
-}
-
-/** Cartesian stress from polar components (σr, σθ, τrθ) at angle θ, σzz given. */
-export function polarToCartesian(sr: number, st: number, trt: number, theta: number, szz = 0): number[] {
-  const c = Math.cos(theta), s = Math.sin(theta)
-  return [
-    sr * c * c + st * s * s - 2 * trt * s * c,
-    sr * s * s + st * c * c + 2 * trt * s * c,
-    szz,
-    (sr - st) * s * c + trt * (c * c - s * s),
-    0, 0,
-  ]
 }

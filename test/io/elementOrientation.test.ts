@@ -6,11 +6,10 @@
  */
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../src/model/boxMesh.ts'
-import { ELEMENT_TYPES } from '../../src/model/elementTypes.ts'
-import type { ElementTypeName } from '../../src/model/elementTypes.ts'
-import { MIRROR_PERMUTATION, checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
+import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
+import { checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
 
-const TYPES: ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6']
+const TYPES = ELEMENT_TYPE_NAMES
 
 function rotate(coords: Float64Array, angle: number): Float64Array {
   // Rotation about the unit axis k = (1, 1, 1)/√3 by `angle`, Rodrigues' formula:
@@ -50,6 +49,38 @@ describe('measureElement', () => {
     expect(out[0]).toBeCloseTo(144, 10)
     expect(out[1]).toBeCloseTo(13, 12) // √(9 + 16 + 144)
   })
+  it.each([0, 0.7, 2.1])('pyramids: base area × height / 3 wherever the apex stands (Cavalieri), inverted when mirrored (rotation %s rad)', (angle) => {
+    // Base: the quadrilateral (0,0,0) (2,0,0) (2,3,0) (0,3,0); apex at height 1.5 over a point
+    // outside the base: V = 6 · 1.5 / 3 = 3. pyramid13 adds straight mid-edge nodes (ignored).
+    const pts = [[0, 0, 0], [2, 0, 0], [2, 3, 0], [0, 3, 0], [3.5, -1, 1.5]]
+    for (const t of ['pyramid5', 'pyramid13'] as const) {
+      const topo = ELEMENT_TYPES[t]
+      const nodes = [...pts, ...topo.edges.filter(([, , m]) => m >= 0).map(([a, b]) => [0, 1, 2].map((k) => (pts[a][k] + pts[b][k]) / 2))]
+      const coords = rotate(Float64Array.from(nodes.flat()), angle)
+      const conn = Int32Array.from(nodes.keys())
+      measureElement(out, scratch, coords, conn, 0, t)
+      expect(out[0]).toBeCloseTo(3, 12)
+      const mirrored = Int32Array.from(topo.mirror.map((i) => conn[i]))
+      measureElement(out, scratch, coords, mirrored, 0, t)
+      expect(out[0]).toBeCloseTo(-3, 12)
+      expect(checkBlockOrientation(coords, t, mirrored).inverted.length).toBe(1)
+      // Apex lowered into the base plane: zero volume, a degenerate element.
+      const flat = Float64Array.from(nodes.flat())
+      flat[14] = 0
+      for (const [a, b, m] of topo.edges) if (m >= 0) flat[3 * m + 2] = (flat[3 * a + 2] + flat[3 * b + 2]) / 2
+      expect(checkBlockOrientation(rotate(flat, angle), t, conn).degenerate).toBe(0)
+    }
+  })
+  it('a pyramid on a warped base is the cone from the apex over the base split about its centre', () => {
+    // Base corner 3 lifted by h = 0.6 over the unit square, apex (0.5, 0.5, 2). Split about the
+    // centre m = (0.5, 0.5, h/4), the base is four triangles; the cones from the apex over them
+    // sum to (1/3) (apex - m) · (area vector) = (1/3)(2 - h/4) · 1 (the area vector's z part is
+    // the projected area 1, and its x, y parts meet apex - m = (0, 0, 2 - h/4) at right angles).
+    const h = 0.6
+    const coords = Float64Array.from([0, 0, 0, 1, 0, 0, 1, 1, 0, 0, 1, h, 0.5, 0.5, 2])
+    measureElement(out, scratch, coords, Int32Array.from([0, 1, 2, 3, 4]), 0, 'pyramid5')
+    expect(out[0]).toBeCloseTo((2 - h / 4) / 3, 14)
+  })
   it('a warped hex (one top corner lifted) is measured by the symmetric face split', () => {
     const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, 'hex8')
     const c = m.coords.slice()
@@ -84,7 +115,7 @@ describe('mirroring', () => {
     }
     reorientElements(conn, t, o.inverted)
     expect(Array.from(conn)).toEqual(Array.from(b.conn))
-    expect(MIRROR_PERMUTATION[t].length).toBe(nn)
+    expect(ELEMENT_TYPES[t].mirror.length).toBe(nn)
   })
   it('degenerate: flat and collapsed elements are found, the threshold is relative to size', () => {
     const m = boxMesh({ nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, 'hex8')

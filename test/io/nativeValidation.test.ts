@@ -89,7 +89,7 @@ describe('broken containers', () => {
     expectError(patchNative(good, (h) => { h.nodeCount = 8 }), 'container', ['field "coords"', 'expected 24'])
     expectError(patchNative(good, (h) => { h.elementCount = 3 }), 'container', ['field "elementCount"', 'the blocks hold 2'])
     expectError(patchNative(good, (h) => { (h.blocks as { count: number }[])[0].count = 0 }), 'container', ['field "blocks[0].count"'])
-    expectError(patchNative(good, (h) => { (h.blocks as { type: string }[])[1].type = 'pyramid5' }), 'unknown-type', ['field "blocks[1].type"'])
+    expectError(patchNative(good, (h) => { (h.blocks as { type: string }[])[1].type = 'hex27' }), 'unknown-type', ['field "blocks[1].type"'])
     expectError(patchNative(good, (h) => { h.nodeCount = '9' }), 'container', ['field "nodeCount"'])
   })
   it('metadata fields', () => {

@@ -5,7 +5,7 @@
  * CSV text: BOM, CRLF, comments, blank lines, reordered columns, sparse ids, mixed types.
  */
 import { describe, expect, it } from 'vitest'
-import type { ElementTypeName } from '../../src/model/elementTypes.ts'
+import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
 import type { CsvFile } from '../../src/io/readCsvBundle.ts'
@@ -13,39 +13,9 @@ import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { readNative, writeNative } from '../../src/io/nativeContainer.ts'
 import { readLittleEndian, writeLittleEndian } from '../../src/io/littleEndianArrays.ts'
 import { validateModel } from '../../src/io/validateModel.ts'
-import { boxModel, mixedModel } from './testModels.ts'
+import { boxModel, expectSameModel, mixedModel, sameNumbers } from './testModels.ts'
 
-const TYPES: ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6']
-
-/** Same model: names, units, body force, every array element (Object.is, so -0 ≠ 0). */
-export function expectSameModel(a: Model, b: Model): void {
-  expect(b.name).toBe(a.name)
-  expect(b.description).toBe(a.description)
-  expect(b.units).toEqual(a.units)
-  expect(b.bodyForce).toEqual(a.bodyForce)
-  expect(b.mesh.nodeCount).toBe(a.mesh.nodeCount)
-  expect(b.mesh.elementCount).toBe(a.mesh.elementCount)
-  expect(Array.from(b.mesh.nodeIds)).toEqual(Array.from(a.mesh.nodeIds))
-  expect(sameNumbers(a.mesh.coords, b.mesh.coords)).toBe(true)
-  expect(sameNumbers(a.stress, b.stress)).toBe(true)
-  expect(a.displacement === null).toBe(b.displacement === null)
-  if (a.displacement && b.displacement) expect(sameNumbers(a.displacement, b.displacement)).toBe(true)
-  expect(b.mesh.blocks.length).toBe(a.mesh.blocks.length)
-  a.mesh.blocks.forEach((ba, k) => {
-    const bb = b.mesh.blocks[k]
-    expect(bb.type).toBe(ba.type)
-    expect(bb.offset).toBe(ba.offset)
-    expect(Array.from(bb.conn)).toEqual(Array.from(ba.conn))
-    expect(Array.from(bb.ids)).toEqual(Array.from(ba.ids))
-    expect(bb.part === null ? null : Array.from(bb.part)).toEqual(ba.part === null ? null : Array.from(ba.part))
-  })
-}
-
-function sameNumbers(a: Float64Array, b: Float64Array): boolean {
-  if (a.length !== b.length) return false
-  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false
-  return true
-}
+const TYPES = ELEMENT_TYPE_NAMES
 
 function file(files: CsvFile[], name: string): CsvFile {
   return files.find((f) => f.name === name)!
@@ -90,6 +60,34 @@ describe('CSV → Model → native → Model', () => {
     // Element 12 lists its corners clockwise: mirrored by swapping local nodes 2 and 3 (1-based).
     expect(r.warnings.join(' ')).toContain('reoriented 1 inverted element (negative volume, local nodes mirrored): 12')
     expect(Array.from(r.mesh.blocks[0].conn.subarray(4, 8)).map((i) => r.mesh.nodeIds[i])).toEqual([2, 3, 4, 8])
+  })
+
+  it('every registered type in one file: one block per type, read back bit for bit through CSV and the container', () => {
+    const m = mixedModel(ELEMENT_TYPE_NAMES)
+    const files = writeCsvBundle(m)
+    const widest = Math.max(...ELEMENT_TYPE_NAMES.map((t) => ELEMENT_TYPES[t].nodeCount))
+    expect(file(files, 'elements.csv').text.split('\n')[0]).toBe('id,type,part,' + Array.from({ length: widest }, (_, i) => `n${i + 1}`).join(','))
+    const r = readCsvBundle(files)
+    expect(r.mesh.blocks.map((b) => b.type)).toEqual(ELEMENT_TYPE_NAMES)
+    expect(r.warnings).toEqual([])
+    expectSameModel(m, r)
+    const back = readNative(writeNative(r))
+    expectSameModel(r, back)
+    validateModel(back)
+  })
+
+  it.each(TYPES)('%s: inverted elements are mirrored back on reading, with a warning naming them', (type) => {
+    const m = boxModel(type)
+    const b = m.mesh.blocks[0]
+    const perm = ELEMENT_TYPES[type].mirror, nn = perm.length
+    // Mirror the 1st and 3rd element: the reader must find them inverted and restore them.
+    const conn = b.conn.slice()
+    for (const e of [0, 2]) for (let a = 0; a < nn; a++) conn[e * nn + a] = b.conn[e * nn + perm[a]]
+    const inverted: Model = { ...m, mesh: { ...m.mesh, blocks: [{ ...b, conn }] } }
+    for (const r of [readCsvBundle(writeCsvBundle(inverted)), readNative(writeNative(inverted))]) {
+      expect(r.warnings.join(' ')).toContain(`reoriented 2 inverted elements (negative volume, local nodes mirrored): ${b.ids[0]}, ${b.ids[2]}`)
+      expect(Array.from(r.mesh.blocks[0].conn)).toEqual(Array.from(b.conn))
+    }
   })
 
   it('the copying reader (big-endian path) gives the same model as the zero-copy views', () => {

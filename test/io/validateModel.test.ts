@@ -2,6 +2,7 @@
  * validateModel: the invariants of a loaded Model, checked on hand-broken copies of a valid one.
  */
 import { describe, expect, it } from 'vitest'
+import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import { InputError } from '../../src/model/errors.ts'
 import type { Model } from '../../src/model/model.ts'
 import { validateModel } from '../../src/io/validateModel.ts'
@@ -14,7 +15,7 @@ function broken(change: (m: Model) => Model): InputError {
 
 describe('validateModel', () => {
   it('accepts the box models', () => {
-    for (const t of ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6'] as const) validateModel(boxModel(t, undefined, true))
+    for (const t of ELEMENT_TYPE_NAMES) validateModel(boxModel(t, undefined, true))
   })
   it('names the field and element of each broken invariant', () => {
     const withConn = (m: Model, conn: Int32Array): Model => ({ ...m, mesh: { ...m.mesh, blocks: [{ ...m.mesh.blocks[0], conn }] } })

@@ -6,6 +6,7 @@ import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { nodalStressField } from '../../src/model/stressField.ts'
 import type { SectionResult } from '../../src/mechanics/types.ts'
+import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { anyBox, nodalStress, norm } from '../helpers/sectionMeshes.ts'
 import type { BoxKind } from '../helpers/sectionMeshes.ts'
@@ -36,7 +37,7 @@ function expectSame(a: SectionResult, b: SectionResult, scale: { F: number; M: n
   expect(Math.abs(a.freeBody.gross - b.freeBody.gross)).toBeLessThan(1e-9 * Math.max(a.freeBody.gross, scale.F))
 }
 
-describe.each(['tet4', 'hex8', 'hex20', 'wedge6', 'tet10', 'mixed'] as BoxKind[])('sweep = single cuts (%s)', (kind) => {
+describe.each([...ELEMENT_TYPE_NAMES, 'mixed'] as BoxKind[])('sweep = single cuts (%s)', (kind) => {
   const mesh = anyBox(kind, 3, 3, 3, 3, 2, 1.5)
   const stress = nodalStress(mesh, field)
   const faces = extractBoundaryFaces(mesh)

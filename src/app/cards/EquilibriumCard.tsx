@@ -1,6 +1,10 @@
 import { Card } from '../ui/Card.tsx'
 import { Num, VecRow } from '../ui/Num.tsx'
 import { useStore } from '../../state/store.ts'
+import type { BalanceVerdictKind } from '../../../workers/protocol.ts'
+
+/** The verdict's tag: what the residual most likely is. */
+const VERDICT_LABEL: Record<BalanceVerdictKind, string> = { mesh: 'mesh error', model: 'model error', inconclusive: 'inconclusive' }
 
 /** Whole-body balance, the spread of the element indicator and the traction left on free surface. */
 export function EquilibriumCard() {
@@ -8,7 +12,7 @@ export function EquilibriumCard() {
   const model = useStore((s) => s.model)
   if (!audit || !model) return null
   const b = audit.body
-  const verdict = b.relative < 1e-3 ? 'balanced' : b.relative < 1e-2 ? 'small residual' : 'check the model'
+  const v = audit.verdict
   return (
     <Card id="equilibrium" title="Equilibrium">
       <table className="figures" data-testid="body-balance">
@@ -16,12 +20,16 @@ export function EquilibriumCard() {
         <tbody>
           <VecRow label="Residual force" v={b.force} q="force" />
           <VecRow label="Residual moment" v={b.moment} q="moment" />
-          <tr><th>Residual / gross load</th><td><Num v={b.relative} q={null} /> <span className={'tag ' + verdict.replace(/ /g, '-')}>{verdict}</span></td></tr>
+          <tr><th>Residual / gross load</th><td><Num v={b.relative} q={null} /></td></tr>
           <tr data-row="gross"><th>Gross load</th><td><Num v={b.gross} q="force" /></td></tr>
           <VecRow label="Body force total" v={b.bodyForceTotal} q="force" />
           <tr><th>Volume</th><td><Num v={b.volume} q="volume" /></td></tr>
+          <VecRow label="Of it, free surface" v={audit.freeSurfaceForce} q="force" />
         </tbody>
       </table>
+      <p className={'verdict ' + v.kind} data-testid="balance-verdict" data-kind={v.kind}>
+        <span className="tag">{VERDICT_LABEL[v.kind]}</span> {v.reason}
+      </p>
       <table className="figures" data-testid="element-balance">
         <caption>Element indicator |residual| / gross</caption>
         <tbody>

@@ -23,6 +23,7 @@ function input(over: Partial<ReportInput> = {}): ReportInput {
       indicator: { p50: 1e-6, p95: 1e-5, max: 1e-4 },
       patches: [{ id: 0, faceCount: 3, area: 1, centroid: [0, 0.5, 0.5], force: [-5000, 0, 0], peak: 5000, mean: 5000 } as never],
       threshold: 50, referenceStress: 5000, freeSurface: { area: 14, mean: 0, relative: 0, peak: 0 },
+      freeSurfaceForce: [0, 0, 0], verdict: { kind: 'mesh', reason: 'in balance: the residual force is 0.05 % of the gross load' },
     },
     section: null, sweep, shown: { axial: true, shear1: false, shear2: true, torque: false, bending1: true, bending2: false },
     snapshot: 'data:image/png;base64,iVBORw0KGgo=',

@@ -5,9 +5,10 @@
  * they are, not computed again.
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { nodalStressField } from '../../../src/model/stressField.ts'
 import type { Model, Vec3 } from '../../../src/model/model.ts'
+import { computeBalanceVerdict } from '../../../src/mechanics/balanceVerdict.ts'
 import { ANALYSIS_STAGES, analysisInputOf, runAnalysis, runAnalysisAsync } from '../../../src/mechanics/analysisPipeline.ts'
 import type { AnalysisStage, StageReport } from '../../../src/mechanics/analysisPipeline.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
@@ -31,14 +32,15 @@ function byHand(precision: 'double' | 'single') {
   const elementBalance = computeElementBalance(allocateElementBalance(mesh.elementCount, precision), mesh, field, bodyForce)
   const bodyBalance = computeBodyBalance(mesh, faces, tractions, bodyForce)
   const loadPatches = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { threshold: 0.1 })
-  return { faces, tractions, invariants, elementBalance, bodyBalance, loadPatches }
+  const verdict = computeBalanceVerdict(faces, tractions, loadPatches, bodyBalance, elementBalance, bodyForce)
+  return { faces, tractions, invariants, elementBalance, bodyBalance, loadPatches, verdict }
 }
 
 describe('runAnalysis', () => {
   it('reports every stage once, in order, with its result and a wall time', () => {
     const seen: StageReport[] = []
     const r = runAnalysis({ mesh, stress: field, bodyForce }, { loadPatches: { threshold: 0.1 } }, (s) => seen.push(s))
-    expect(seen.map((s) => s.stage)).toEqual(['faces', 'tractions', 'invariants', 'elementBalance', 'bodyBalance', 'loadPatches'])
+    expect(seen.map((s) => s.stage)).toEqual(['faces', 'tractions', 'invariants', 'elementBalance', 'bodyBalance', 'loadPatches', 'verdict'])
     expect(ANALYSIS_STAGES).toEqual(seen.map((s) => s.stage))
     for (const s of seen) {
       expect(s.result).toBe(r[s.stage])

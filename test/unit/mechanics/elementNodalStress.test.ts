@@ -7,7 +7,7 @@
  * conforming hex8/wedge6/tet4 box.
  */
 import { describe, expect, it } from 'vitest'
-import { boxMesh } from '../../../src/demo/boxMesh.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 import { meshSlice, splitRanges } from '../../../src/model/meshRange.ts'
 import { nodalStressField, stressFieldSlice } from '../../../src/model/stressField.ts'

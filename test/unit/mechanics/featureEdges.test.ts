@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { buildFeatureEdges } from '../../../src/mechanics/featureEdges.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
-import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
+import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
 
 describe('buildFeatureEdges', () => {
   // A box's only creases are its 12 edges (elementary geometry): the mesh lines inside its flat
@@ -12,7 +12,8 @@ describe('buildFeatureEdges', () => {
     it(`${type} box: only the 12 box edges, total length 4(lx + ly + lz)`, () => {
       const mesh = boxMesh(spec, type)
       const e = buildFeatureEdges(mesh.coords, extractBoundaryFaces(mesh))
-      const perEdge = type === 'tet10' || type === 'hex20' ? 2 : 1
+      // A quadratic face's edge is drawn as two segments through its mid node.
+      const perEdge = ELEMENT_TYPES[type].quadratic ? 2 : 1
       expect(e.count).toBe(4 * (spec.nx + spec.ny + spec.nz) * perEdge)
       let length = 0
       for (let s = 0; s < e.count; s++) {

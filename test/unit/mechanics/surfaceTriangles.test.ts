@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { buildSurfaceTriangles, fillVertexPatch, finiteRange, SURFACE_QUANTITIES } from '../../../src/mechanics/surfaceTriangles.ts'
 import type { BoundaryFaces, NodalInvariants, SurfaceTractions } from '../../../src/mechanics/types.ts'
-import { FACE_KIND_CODE, FACE_NODE_COUNT } from '../../../src/model/elementTypes.ts'
+import { FACE_KIND_CODE, FACE_KINDS, FACE_NODE_COUNT } from '../../../src/model/elementTypes.ts'
 import type { FaceKind } from '../../../src/model/elementTypes.ts'
 
 /**
@@ -99,7 +99,7 @@ describe('buildSurfaceTriangles', () => {
 
   it('values at vertices equal the tractions and invariants they came from', () => {
     for (let f = 0; f < faces.count; f++) {
-      const nv = FACE_NODE_COUNT[(['tri3', 'tri6', 'quad4', 'quad8'] as FaceKind[])[faces.kind[f]]]
+      const nv = FACE_KINDS[faces.kind[f]].nodeCount
       for (let a = 0; a < nv; a++) {
         const v = s.faceVertexStart[f] + a, slot = faces.slots * f + a, node = faces.nodes[slot]
         expect(s.scalars.normalTraction[v]).toBe(Math.fround(tractions.nodeNormalTraction[slot]))
