@@ -8,7 +8,9 @@ import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { mkdirSync } from 'node:fs'
 import { resolve } from 'node:path'
 
-export const ORIGIN = 'http://127.0.0.1:4173'
+/** Port of the preview server: 4173, or E2E_PORT where several checkouts test at once. */
+export const PORT = Number(process.env.E2E_PORT ?? 4173)
+export const ORIGIN = `http://127.0.0.1:${PORT}`
 export const OUT_DIR = resolve(import.meta.dirname, '../../test-output/e2e')
 mkdirSync(OUT_DIR, { recursive: true })
 

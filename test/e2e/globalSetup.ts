@@ -8,7 +8,8 @@ import type { ChildProcess } from 'node:child_process'
 import { existsSync } from 'node:fs'
 import { resolve } from 'node:path'
 
-export const ORIGIN = 'http://127.0.0.1:4173'
+const PORT = Number(process.env.E2E_PORT ?? 4173)
+export const ORIGIN = `http://127.0.0.1:${PORT}`
 
 let server: ChildProcess | null = null
 
@@ -29,7 +30,7 @@ export async function setup(): Promise<void> {
   const root = resolve(import.meta.dirname, '../..')
   if (!existsSync(resolve(root, 'dist/index.html'))) throw new Error('dist/ is missing: run `vite build --mode e2e` first (npm run e2e does).')
   const vite = resolve(root, 'node_modules/vite/bin/vite.js')
-  server = spawn(process.execPath, [vite, 'preview', '--host', '127.0.0.1', '--port', '4173', '--strictPort'], {
+  server = spawn(process.execPath, [vite, 'preview', '--host', '127.0.0.1', '--port', String(PORT), '--strictPort'], {
     cwd: root, stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''
