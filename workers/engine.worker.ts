@@ -13,6 +13,7 @@ import { computeSurfaceTractions } from '../src/mechanics/tractions.ts'
 import { computeBodyBalance, percentiles } from '../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../src/model/stressField.ts'
 import { sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
@@ -249,7 +250,7 @@ const api: EngineApi = {
     const { model, faces, tractions } = current
     const started = performance.now()
     try {
-      const { result, polygons } = cutSection(model.mesh, model.stress, model.bodyForce, plane, { faces, tractions, polygons: true })
+      const { result, polygons } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, plane, { faces, tractions, polygons: true })
       current.polygons = polygons
       if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started } }
       const tri = buildSectionTriangles(polygons, result.plane.normal)

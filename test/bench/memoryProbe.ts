@@ -19,6 +19,7 @@ import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 
@@ -50,7 +51,7 @@ if (arg === '--write') {
   const tractions = computeSurfaceTractions(mesh, stress, faces)
   const elements = computeElementBalance(mesh, stress, bodyForce, allocateElementBalance(mesh.elementCount, 'single'))
   const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-  const cut = cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions })
+  const cut = cutSection(mesh, nodalStressField(mesh, stress), bodyForce, BENCH_PLANE, { faces, tractions })
   // Keep every result reachable until the measurement, as a user session would.
   const keep = [faces.count, tractions.force.length, elements.indicator.length, body.relative, cut.result.area]
   const maxRssBytes = process.resourceUsage().maxRSS * 1024

@@ -8,6 +8,7 @@ import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { computeNodalInvariants } from '../../src/mechanics/invariants.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { buildSurfaceTriangles } from '../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../../src/mechanics/sectionTriangles.ts'
@@ -23,7 +24,7 @@ const mesh = model.mesh
 const faces = extractBoundaryFaces(mesh)
 const tractions = computeSurfaceTractions(mesh, model.stress, faces)
 const invariants = computeNodalInvariants(model.stress)
-const { polygons } = cutSection(mesh, model.stress, model.bodyForce, BENCH_PLANE, { faces, tractions, polygons: true })
+const { polygons } = cutSection(mesh, nodalStressField(mesh, model.stress), model.bodyForce, BENCH_PLANE, { faces, tractions, polygons: true })
 if (!polygons) throw new Error('the bench plane misses the block')
 
 const runs = 5

@@ -18,6 +18,7 @@ import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance, percentiles } from '../../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 
 let root = ''
@@ -83,7 +84,7 @@ describe('tractus cut', () => {
   it('prints every documented field equal to the section kernel', async () => {
     const point: Vec3 = [0.41, 0.52, 0.47], normal: Vec3 = [0.2, -0.3, 1], about: Vec3 = [0.1, 0.2, 0.3]
     const j = await cliJson('cut', bundle, '--point', point.join(','), '--normal', normal.join(','), '--about', about.join(','))
-    const r = cutSection(model.mesh, model.stress, model.bodyForce, { point, normal }, { about }).result
+    const r = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, { point, normal }, { about }).result
     close(j.area, r.area)
     closeVec(j.centroid, r.centroid)
     expect(j.about).toEqual(about)
@@ -167,7 +168,7 @@ describe('tractus audit', () => {
 describe('tractus sweep', () => {
   it('gives the sections of the sweep kernel, as JSON and as CSV', async () => {
     const j = await cliJson('sweep', bundle, '--normal', '0,0,2', '--from', '0.1', '--to', '0.9', '--count', '5')
-    const ref = sweepSections(model.mesh, model.stress, model.bodyForce, [0, 0, 1], 0.1, 0.9, 5)
+    const ref = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, [0, 0, 1], 0.1, 0.9, 5)
     expect(j.sections.length).toBe(5)
     j.sections.forEach((s: { offset: number; area: number; force: number[]; moment: number[]; axial: number }, k: number) => {
       close(s.offset, ref.offsets[k])

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
-import { cutSection } from '../../src/mechanics/sectionCut.ts'
-import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import type { SectionResult } from '../../src/mechanics/types.ts'
 import type { Vec3 } from '../../src/model/model.ts'
-import { anyBox, nodalStress, norm } from '../helpers/sectionMeshes.ts'
+import {
+  anyBox, cutNodal, nodalStress, norm, sweepNodal,
+} from '../helpers/sectionMeshes.ts'
 import type { BoxKind } from '../helpers/sectionMeshes.ts'
 
 // A sweep is N single cuts done in one pass: every figure must equal the single cut at the same
@@ -43,11 +43,11 @@ describe.each(['tet4', 'hex8', 'hex20', 'wedge6', 'tet10', 'mixed'] as BoxKind[]
   const scale = { F: 30 * 6, M: 30 * 6 * 3, L: 3, A: 6 }
 
   const compare = (normal: Vec3, from: number, to: number, count: number) => {
-    const { offsets, results } = sweepSections(mesh, stress, bodyForce, normal, from, to, count, { faces, tractions })
+    const { offsets, results } = sweepNodal(mesh, stress, bodyForce, normal, from, to, count, { faces, tractions })
     expect(results.length).toBe(count)
     const m = normal.map((v) => v / norm(normal))
     results.forEach((r, k) => {
-      const single = cutSection(mesh, stress, bodyForce, { point: [offsets[k] * m[0], offsets[k] * m[1], offsets[k] * m[2]], normal }, { faces, tractions }).result
+      const single = cutNodal(mesh, stress, bodyForce, { point: [offsets[k] * m[0], offsets[k] * m[1], offsets[k] * m[2]], normal }, { faces, tractions }).result
       expectSame(r, single, scale)
     })
   }
@@ -71,8 +71,8 @@ describe('sweep bookkeeping', () => {
   const mesh = anyBox('tet4', 2, 2, 2, 1, 1, 1)
   const stress = nodalStress(mesh, field)
   it('offsets run from `from` to `to` inclusive; a single section sits at `from`', () => {
-    expect(Array.from(sweepSections(mesh, stress, bodyForce, [0, 0, 2], 0.1, 0.9, 5).offsets)).toEqual([0.1, 0.30000000000000004, 0.5, 0.7000000000000001, 0.9])
-    const one = sweepSections(mesh, stress, bodyForce, [0, 0, 1], 0.25, 0.75, 1)
+    expect(Array.from(sweepNodal(mesh, stress, bodyForce, [0, 0, 2], 0.1, 0.9, 5).offsets)).toEqual([0.1, 0.30000000000000004, 0.5, 0.7000000000000001, 0.9])
+    const one = sweepNodal(mesh, stress, bodyForce, [0, 0, 1], 0.25, 0.75, 1)
     expect(Array.from(one.offsets)).toEqual([0.25])
     expect(one.results[0].plane.point[2]).toBe(0.25)
   })

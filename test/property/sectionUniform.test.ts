@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import {
-  anyBox, nodalStress, norm, rotateModel, rotateVec, rotationFromQuaternion, tractionOf, uniformStress,
+  anyBox, cutNodal, nodalStress, norm, rotateModel, rotateVec, rotationFromQuaternion, tractionOf, uniformStress,
 } from '../helpers/sectionMeshes.ts'
 import type { BoxKind } from '../helpers/sectionMeshes.ts'
 
@@ -24,7 +23,7 @@ describe.each(KINDS)('uniform stress, random planes through a %s box', (kind) =>
   it('F = σm·A, M about the centroid = 0, free body balanced', () => {
     fc.assert(fc.property(stressArb, unitArb, unitArb, unitArb, dirArb, (s6, px, py, pz, n) => {
       const stress = uniformStress(mesh, s6)
-      const { result: r } = cutSection(mesh, stress, ZERO, { point: [px * LX, py * LY, pz * LZ], normal: n as Vec3 })
+      const { result: r } = cutNodal(mesh, stress, ZERO, { point: [px * LX, py * LY, pz * LZ], normal: n as Vec3 })
       expect(r.empty).toBe(false)
       const m = r.plane.normal
       const t = tractionOf(s6, m)
@@ -46,7 +45,7 @@ describe.each(KINDS)('uniform stress, random planes through a %s box', (kind) =>
       point[axis] = u * L[axis]
       const normal: Vec3 = [0, 0, 0]
       normal[axis] = 1
-      const { result: r } = cutSection(mesh, stress, ZERO, { point, normal })
+      const { result: r } = cutNodal(mesh, stress, ZERO, { point, normal })
       const exact = (LX * LY * LZ) / L[axis]
       expect(Math.abs(r.area - exact)).toBeLessThan(1e-12 * exact)
       expect(Math.abs(r.axial - (1 + axis) * exact)).toBeLessThan(1e-12 * exact * 3)
@@ -65,8 +64,8 @@ describe.each(KINDS)('uniform stress, random planes through a %s box', (kind) =>
         const Q = rotationFromQuaternion(q[0], q[1], q[2], q[3])
         const point: Vec3 = [px * LX, py * LY, pz * LZ]
         const rot = rotateModel(mesh, stress, Q)
-        const a = cutSection(mesh, stress, ZERO, { point, normal: n as Vec3 }).result
-        const b = cutSection(rot.mesh, rot.stress, ZERO, { point: rotateVec(Q, point), normal: rotateVec(Q, n) }).result
+        const a = cutNodal(mesh, stress, ZERO, { point, normal: n as Vec3 }).result
+        const b = cutNodal(rot.mesh, rot.stress, ZERO, { point: rotateVec(Q, point), normal: rotateVec(Q, n) }).result
         const QF = rotateVec(Q, a.force), QM = rotateVec(Q, a.moment), Qc = rotateVec(Q, a.centroid)
         const fs = norm(a.force) + 1e-3 * a.area, ms = norm(a.moment) + fs * LX
         expect(Math.abs(b.area - a.area)).toBeLessThan(1e-12 * a.area)

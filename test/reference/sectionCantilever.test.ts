@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../src/demo/boxMesh.ts'
-import { cutSection } from '../../src/mechanics/sectionCut.ts'
-import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 import type { Vec3 } from '../../src/model/model.ts'
-import { nodalStress } from '../helpers/sectionMeshes.ts'
+import {
+  cutNodal, nodalStress, sweepNodal,
+} from '../helpers/sectionMeshes.ts'
 
 // Cantilever with an end load, Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), §21:
 // beam along x from the loaded end x = 0, depth 2c (y from -c to c), thickness b (z from 0 to b),
@@ -31,7 +31,7 @@ describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
     const errors: number[] = []
     for (const ny of [2, 4, 8]) {
       const { mesh, stress } = beam('hex8', ny)
-      const { result: r } = cutSection(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
+      const { result: r } = cutNodal(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
       const err = Math.abs(r.force[1] + P) / P
       expect(Math.abs(err - 1 / ny ** 2)).toBeLessThan(1e-9)
       expect(Math.abs(r.axial)).toBeLessThan(1e-9 * P)
@@ -56,7 +56,7 @@ describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
     const fErr: number[] = [], mErr: number[] = [], fb: number[] = [], aErr: number[] = []
     for (const ny of [2, 4, 8]) {
       const { mesh, stress } = beam('tet4', ny)
-      const { result: r } = cutSection(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
+      const { result: r } = cutNodal(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
       fErr.push(Math.abs(r.force[1] + P) / P)
       mErr.push(Math.abs(r.moment[2] - P * x0) / (P * x0))
       fb.push(r.freeBody.relative)
@@ -81,7 +81,7 @@ describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
   it('hex20: same convergence as the corner grid', () => {
     for (const ny of [2, 4]) {
       const { mesh, stress } = beam('hex20', ny)
-      const { result: r } = cutSection(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
+      const { result: r } = cutNodal(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
       expect(Math.abs(Math.abs(r.force[1] + P) / P - 1 / ny ** 2)).toBeLessThan(1e-9)
       expect(Math.abs(r.moment[2] - P * x0)).toBeLessThan(1e-9 * P * x0)
     }
@@ -90,7 +90,7 @@ describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
   // Statics of the end piece (T&G §21): shear constant = P, bending moment linear = P·x.
   it('sweep along the beam: shear P and moment P·x within 1% (hex8, 12 elements deep)', () => {
     const { mesh, stress } = beam('hex8', 12)
-    const { offsets, results } = sweepSections(mesh, stress, ZERO, [1, 0, 0], 0.25, 9.75, 39)
+    const { offsets, results } = sweepNodal(mesh, stress, ZERO, [1, 0, 0], 0.25, 9.75, 39)
     results.forEach((r, k) => {
       const x = offsets[k]
       expect(r.empty).toBe(false)

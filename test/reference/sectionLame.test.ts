@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import type { Vec3 } from '../../src/model/model.ts'
-import { cylinderMesh, nodalStress } from '../helpers/sectionMeshes.ts'
+import {
+  cutNodal, cylinderMesh, nodalStress,
+} from '../helpers/sectionMeshes.ts'
 
 // Thick-walled cylinder, Lamé solution (Timoshenko & Goodier §28): inner radius a with pressure
 // p_i, outer radius b with p_o, open ends (σzz = 0):
@@ -25,7 +26,7 @@ describe('Lamé thick cylinder (Timoshenko & Goodier §28)', () => {
       const mesh = cylinderMesh(a, b, lz, nr, 64, 1, type)
       const stress = nodalStress(mesh, (x, y) => lame(x, y))
       // plane y = 0 with normal +y: the + half (y > 0) pulls on the - half across two strips
-      const { result: r } = cutSection(mesh, stress, ZERO, { point: [0, 0, lz / 2], normal: [0, 1, 0] })
+      const { result: r } = cutNodal(mesh, stress, ZERO, { point: [0, 0, lz / 2], normal: [0, 1, 0] })
       expect(r.area).toBeCloseTo(2 * (b - a) * lz, 12)
       errors.push(Math.abs(r.force[1] - expected) / expected)
       expect(Math.abs(r.force[0]) + Math.abs(r.force[2])).toBeLessThan(1e-9 * expected)
@@ -44,7 +45,7 @@ describe('Lamé thick cylinder (Timoshenko & Goodier §28)', () => {
     const rel: number[] = []
     for (const nt of [32, 64, 128]) {
       const mesh = cylinderMesh(a, b, lz, 32, nt, 1, type)
-      const { result: r } = cutSection(mesh, nodalStress(mesh, (x, y) => lame(x, y)), ZERO, { point: [0, 0, lz / 2], normal: [0, 1, 0] })
+      const { result: r } = cutNodal(mesh, nodalStress(mesh, (x, y) => lame(x, y)), ZERO, { point: [0, 0, lz / 2], normal: [0, 1, 0] })
       rel.push(r.freeBody.relative)
     }
     expect(rel[1]).toBeLessThan(rel[0] / 3)
