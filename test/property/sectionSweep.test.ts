@@ -4,6 +4,7 @@ import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import type { SectionResult } from '../../src/mechanics/types.ts'
 import type { Vec3 } from '../../src/model/model.ts'
+import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import {
   anyBox, cutNodal, nodalStress, norm, sweepNodal,
 } from '../helpers/sectionMeshes.ts'
@@ -28,6 +29,8 @@ function expectSame(a: SectionResult, b: SectionResult, scale: { F: number; M: n
     expect(Math.abs(a.freeBody.force[k] - b.freeBody.force[k])).toBeLessThan(1e-9 * Math.max(a.freeBody.gross, scale.F))
     expect(Math.abs(a.freeBody.moment[k] - b.freeBody.moment[k])).toBeLessThan(1e-9 * Math.max(a.freeBody.gross * scale.L, scale.M))
   }
+  expect(Math.abs(a.freeBody.momentRelative - b.freeBody.momentRelative)).toBeLessThan(1e-9 * Math.max(a.freeBody.momentRelative, 1e-3))
+  expect(a.unmappedPoints).toBe(b.unmappedPoints)
   expect(Math.abs(a.secondMoments.I1 - b.secondMoments.I1)).toBeLessThan(1e-9 * scale.A * scale.L ** 2)
   expect(Math.abs(a.secondMoments.I2 - b.secondMoments.I2)).toBeLessThan(1e-9 * scale.A * scale.L ** 2)
   expect(Math.abs(a.axial - b.axial)).toBeLessThan(1e-9 * scale.F)
@@ -35,7 +38,7 @@ function expectSame(a: SectionResult, b: SectionResult, scale: { F: number; M: n
   expect(Math.abs(a.freeBody.gross - b.freeBody.gross)).toBeLessThan(1e-9 * Math.max(a.freeBody.gross, scale.F))
 }
 
-describe.each(['tet4', 'hex8', 'hex20', 'wedge6', 'tet10', 'mixed'] as BoxKind[])('sweep = single cuts (%s)', (kind) => {
+describe.each([...ELEMENT_TYPE_NAMES, 'mixed'] as BoxKind[])('sweep = single cuts (%s)', (kind) => {
   const mesh = anyBox(kind, 3, 3, 3, 3, 2, 1.5)
   const stress = nodalStress(mesh, field)
   const faces = extractBoundaryFaces(mesh)

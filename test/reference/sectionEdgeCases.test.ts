@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { isInputError } from '../../src/model/errors.ts'
 import type { Vec3 } from '../../src/model/model.ts'
+import { ELEMENT_TYPE_NAMES, ELEMENT_TYPES } from '../../src/model/elementTypes.ts'
+import { shapeValues } from '../../src/mechanics/shapeFunctions.ts'
 import type { SectionResult } from '../../src/mechanics/types.ts'
 import {
   anyBox, cutNodal, nodalStress, norm, rotateModel, rotateVec, rotationFromQuaternion, scaleMesh, sweepNodal, tractionOf, uniformStress,
@@ -8,7 +10,7 @@ import {
 import type { BoxKind } from '../helpers/sectionMeshes.ts'
 
 // Unit cells: a 3 × 3 × 3 box of 3 cells per side, so nodes sit at integer coordinates.
-const KINDS: BoxKind[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6', 'mixed']
+const KINDS: BoxKind[] = [...ELEMENT_TYPE_NAMES, 'mixed']
 const S6 = [3, -2, 5, 1.5, -0.5, 0.7]
 const ZERO: Vec3 = [0, 0, 0]
 
@@ -108,14 +110,15 @@ describe('edge cases of the input', () => {
     expect(q.about).toEqual(p)
   })
 
-  it('polygons for drawing: one per cut element, areas and tractions add up', () => {
-    const big = anyBox('tet4', 3, 3, 3, 1, 1, 1)
+  it.each([...ELEMENT_TYPE_NAMES])('%s polygons for drawing: one per cut element, areas, forces and tractions add up, ξ maps to the vertex', (type) => {
+    const big = anyBox(type, 3, 3, 3, 1, 1, 1)
     const s = uniformStress(big, S6)
     const { result: r, polygons } = cutNodal(big, s, ZERO, { point: [0.5, 0.5, 0.5], normal: [0.2, 0.3, 1] }, { polygons: true })
     const P = polygons!
     expect(P.count).toBe(r.cutElements)
     expect(P.start[P.count]).toBe(P.positions.length / 3)
-    let area = 0
+    let area = 0, polyArea = 0
+    const force = [0, 0, 0]
     const m = r.plane.normal, t = tractionOf(S6, m)
     for (let p = 0; p < P.count; p++) {
       const v = (i: number) => [P.positions[3 * i], P.positions[3 * i + 1], P.positions[3 * i + 2]]
@@ -128,13 +131,27 @@ describe('edge cases of the input', () => {
       for (let i = P.start[p]; i < P.start[p + 1]; i++) for (let k = 0; k < 3; k++) expect(P.traction[3 * i + k]).toBeCloseTo(t[k], 12)
       expect(P.elem[p]).toBeGreaterThanOrEqual(0)
       expect(P.elem[p]).toBeLessThan(big.elementCount)
+      // each vertex's reference coordinates map to the vertex through its element's shape functions
+      const blk = big.blocks[0], nn = ELEMENT_TYPES[type].nodeCount, e = P.elem[p] - blk.offset
+      for (let i = P.start[p]; i < P.start[p + 1]; i++) {
+        const N = shapeValues(type, P.reference[3 * i], P.reference[3 * i + 1], P.reference[3 * i + 2], new Float64Array(nn))
+        for (let k = 0; k < 3; k++) {
+          let x = 0
+          for (let a = 0; a < nn; a++) x += N[a] * big.coords[3 * blk.conn[e * nn + a] + k]
+          expect(Math.abs(x - P.positions[3 * i + k])).toBeLessThan(1e-14)
+        }
+      }
+      for (let k = 0; k < 3; k++) force[k] += P.force[3 * p + k]
+      polyArea += P.area[p]
     }
     expect(area).toBeCloseTo(r.area, 12)
+    expect(polyArea).toBeCloseTo(r.area, 12)
+    for (let k = 0; k < 3; k++) expect(force[k]).toBeCloseTo(r.force[k], 12)
   })
 
   // A node layer that lies in the plane only up to round-off (the box turned by Q) must still be
   // taken once: the snap band treats those nodes as lying on the plane.
-  it.each(['hex8', 'hex20', 'tet4', 'wedge6'] as const)('%s turned: a plane on a node layer is still counted once', (type) => {
+  it.each([...ELEMENT_TYPE_NAMES])('%s turned: a plane on a node layer is still counted once', (type) => {
     const box = anyBox(type, 3, 3, 3, 3, 3, 3)
     const Q = rotationFromQuaternion(0.7, -0.3, 0.5, 0.4)
     const rot = rotateModel(box, uniformStress(box, S6), Q)

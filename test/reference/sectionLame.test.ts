@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import type { Vec3 } from '../../src/model/model.ts'
-import {
-  cutNodal, cylinderMesh, nodalStress,
-} from '../helpers/sectionMeshes.ts'
+import { cutNodal, cylinderMesh, nodalStress } from '../helpers/sectionMeshes.ts'
+import { quarterCylinder } from '../helpers/mappedMeshes.ts'
 
 // Thick-walled cylinder, Lamé solution (Timoshenko & Goodier §28): inner radius a with pressure
 // p_i, outer radius b with p_o, open ends (σzz = 0):
@@ -51,5 +50,42 @@ describe('Lamé thick cylinder (Timoshenko & Goodier §28)', () => {
     expect(rel[1]).toBeLessThan(rel[0] / 3)
     expect(rel[2]).toBeLessThan(rel[1] / 3)
     expect(rel[2]).toBeLessThan(1e-3)
+  })
+})
+
+// Curved quadratic rings (quarterCylinder maps the box's mid-edge nodes onto the true arcs): the
+// nodes carry the closed-form Lamé stress, the section is a radial plane at θ0 = π/5 (never a node
+// layer of these meshes, so it crosses curved element edges and faces), and the hoop force across
+// it is ∫ₐᵇ σθ dr · L = (p_i a - p_o b) L (Timoshenko & Goodier §28, statics of the ring wall).
+// The section polygon's sides are chords between points on the curved edges (elementSection.ts),
+// and the stress inside is each element's own interpolation: the error must fall at least as h²
+// (measured: tet10 about h^3.3, hex20 about h^4, 3.7e-3 → 4.8e-7 and 5.1e-3 → 8.5e-8 from 2 × 4 to
+// 32 × 64 elements across wall × quarter), and the cut-off piece's moment residual with it.
+describe('curved quadratic rings, Lamé stress at the nodes (Timoshenko & Goodier §28)', () => {
+  const th = Math.PI / 5
+  const n: Vec3 = [-Math.sin(th), Math.cos(th), 0]
+  const L = 0.2
+  it.each(['tet10', 'hex20'] as const)('%s: the hoop force across a radial section converges at least as h²', (type) => {
+    const h: number[] = [], err: number[] = [], mrel: number[] = []
+    for (const k of [1, 2, 4, 8]) {
+      const mesh = quarterCylinder({ a, b, length: L, nr: 2 * k, ntheta: 4 * k, nz: 1 }, type)
+      const { result: r } = cutNodal(mesh, nodalStress(mesh, (x, y) => lame(x, y)), ZERO, { point: [0, 0, L / 2], normal: n })
+      const F = r.force[0] * n[0] + r.force[1] * n[1]
+      const exact = (pi * a - po * b) * L
+      h.push(1 / k)
+      err.push(Math.abs(F - exact) / exact)
+      mrel.push(r.freeBody.momentRelative)
+      expect(r.unmappedPoints).toBe(0)
+      expect(Math.abs(r.force[2])).toBeLessThan(1e-9 * exact)
+    }
+    // least-squares slope of log(error) against log(h)
+    const lx = h.map(Math.log), ly = err.map(Math.log)
+    const mx = lx.reduce((s, v) => s + v) / lx.length, my = ly.reduce((s, v) => s + v) / ly.length
+    const rate = lx.reduce((s, v, i) => s + (v - mx) * (ly[i] - my), 0) / lx.reduce((s, v) => s + (v - mx) ** 2, 0)
+    expect(rate).toBeGreaterThan(2)
+    expect(err[3]).toBeLessThan(1e-5)
+    // the free body of the piece θ < θ0 (pressures on its curved faces, its end face, the section)
+    expect(mrel[3]).toBeLessThan(mrel[0] / 100)
+    expect(mrel[3]).toBeLessThan(1e-6)
   })
 })
