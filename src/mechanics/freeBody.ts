@@ -15,7 +15,8 @@
  *   (inverted from the linear estimate on curved elements, inverseMap.ts) — the same shape
  *   functions and rule as the section itself. On a flat face this is exact for the fields the
  *   element represents; on a curved face the flat triangles are chords of it, an approximation
- *   of the same order as the section polygon's (elementSection.ts).
+ *   of the same order as the section polygon's (elementSection.ts). Faces of linear simplices
+ *   (tet4) keep the closed form of the linear path, exact for their linear stress.
  * - Volume V- and its first moment come from the divergence theorem over the closed surface of
  *   the piece (V = 1/3 ∮ (x-g)·n dA, ∫ (x-g) dV = 1/4 ∮ (x-g)((x-g)·n) dA): whole faces by their
  *   area, mean normal and centroid (exact for flat faces; curved quadratic faces approximately),

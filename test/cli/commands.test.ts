@@ -100,6 +100,9 @@ describe('tractus cut', () => {
     closeVec(j.freeBody.force, r.freeBody.force)
     closeVec(j.freeBody.moment, r.freeBody.moment)
     close(j.freeBody.relative, r.freeBody.relative)
+    close(j.freeBody.momentRelative, r.freeBody.momentRelative)
+    close(j.freeBody.gross, r.freeBody.gross)
+    expect(j.unmappedPoints).toBe(0)
   })
 
   it('converts to US customary units with the NIST SP 811 factors', async () => {
@@ -182,6 +185,11 @@ describe('tractus sweep', () => {
     expect(lines.length).toBe(6)
     expect(lines[0]).toMatch(/^offset \[m\],area \[m²\],/)
     expect(Number(lines[3].split(',')[0])).toBeCloseTo(0.5, 12)
+    // the free body's moment column sits beside its force column
+    const head = lines[0].split(',')
+    const col = head.indexOf('freebody_moment_relative')
+    expect(col).toBe(head.indexOf('freebody_relative') + 1)
+    close(Number(lines[3].split(',')[col]), ref.results[2].freeBody.momentRelative)
   })
 })
 

@@ -53,13 +53,14 @@ describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
   // tet4: σx = -Pxy/I is bilinear, so interpolation along oblique edges is not exact either; the
   // error still falls like h² (approximation documented in sectionPolygon.ts).
   it('tet4: shear, moment and the free body converge under refinement', () => {
-    const fErr: number[] = [], mErr: number[] = [], fb: number[] = [], aErr: number[] = []
+    const fErr: number[] = [], mErr: number[] = [], fb: number[] = [], aErr: number[] = [], fbm: number[] = []
     for (const ny of [2, 4, 8]) {
       const { mesh, stress } = beam('tet4', ny)
       const { result: r } = cutNodal(mesh, stress, ZERO, { point: [x0, 0, b / 2], normal: [1, 0, 0] })
       fErr.push(Math.abs(r.force[1] + P) / P)
       mErr.push(Math.abs(r.moment[2] - P * x0) / (P * x0))
       fb.push(r.freeBody.relative)
+      fbm.push(r.freeBody.momentRelative)
       // axial against the tension half of the section, ∫ σx dA over y > 0 = P x b c²/(2I)
       aErr.push(Math.abs(r.axial) / ((P * x0 * b * c * c) / (2 * I)))
     }
@@ -67,6 +68,8 @@ describe('cantilever with an end load (Timoshenko & Goodier §21)', () => {
       expect(fErr[i]).toBeLessThan(fErr[i - 1] / 3)
       expect(mErr[i]).toBeLessThanOrEqual(mErr[i - 1] / 3 + 1e-12)
       expect(fb[i]).toBeLessThanOrEqual(fb[i - 1] / 3 + 1e-12)
+      // the end piece's moment residual about the section centroid, over gross load × its size
+      expect(fbm[i]).toBeLessThanOrEqual(fbm[i - 1] / 3 + 1e-12)
       expect(aErr[i]).toBeLessThanOrEqual(aErr[i - 1] / 3 + 1e-12)
     }
     expect(aErr[2]).toBeLessThan(0.02)
