@@ -43,6 +43,7 @@ import { createPolygonScratch, edgeRoot } from './sectionPolygon.ts'
 import { sectionRule, shapeDegree } from './sectionRule.ts'
 import { shapeValues } from './shapeFunctions.ts'
 import type { BoundaryFaces, FreeBodyFigure, SurfaceTractions } from './types.ts'
+import { computeSurfaceTractions } from './tractions.ts'
 
 export const FB_FORCE = 0
 export const FB_MOMENT = 3
@@ -359,6 +360,15 @@ export function closeFreeBody(
   const rel = gross > 0 ? Math.hypot(Rx, Ry, Rz) / gross : 0
   const momentRel = gross * size > 0 ? Math.hypot(mx, my, mz) / (gross * size) : 0
   return { force: [Rx, Ry, Rz], moment: [mx, my, mz], relative: rel, gross, momentRelative: momentRel, size }
+}
+
+/**
+ * The boundary tractions a free body needs when the caller gave none: the traction kernel reads
+ * nodal stress, so element-nodal stress must come with its own tractions (options.tractions).
+ */
+export function freeBodyTractions(mesh: Mesh, stress: StressField, faces: BoundaryFaces): SurfaceTractions {
+  if (stress.layout !== 'nodal') throw new Error('element-nodal stress: pass the surface tractions computed from it (options.tractions) for the free body')
+  return computeSurfaceTractions(mesh, stress.values, faces)
 }
 
 /** The figure of an empty section (nothing cut). */

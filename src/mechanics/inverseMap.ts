@@ -25,8 +25,10 @@
  *   - at most NEWTON_ITERATIONS steps; a step longer than a third of the reference element's
  *     size is shortened to that length (damping far from the solution);
  *   - after each step the iterate is pulled back toward the reference centre into the reference
- *     element grown by NEWTON_MARGIN of its size on every face (points on a chord of a curved
- *     element lie a little outside it, and their ξ is a slight extrapolation that is kept);
+ *     element grown by NEWTON_MARGIN (half) of its size on every face: points on a chord of a
+ *     curved element lie outside it (0.12 of a tetrahedron's reference size on a ring of five
+ *     elements per quarter, whose diagonal edges are spirals), and their ξ is an extrapolation
+ *     of the element's own polynomial that is kept;
  *   - a singular or non-finite Jacobian, non-finite shape values (a rational pyramid function
  *     evaluated beyond its apex) or the iteration cap end the iteration: the point then gets
  *     its start estimate pulled back into the reference element itself, `failures` is counted up
@@ -50,8 +52,8 @@ export const NEWTON_ITERATIONS = 12
  * the error it leaves is of the order of its square (1e-14), below what the residual test can see.
  */
 export const NEWTON_STEP_DONE = 1e-7
-/** Growth of the reference element, as a fraction of its size, within which iterates may move. */
-export const NEWTON_MARGIN = 0.15
+/** Growth of the reference element, as a fraction of its size, within which iterates may move (header). */
+export const NEWTON_MARGIN = 0.5
 
 /**
  * The reference element of a type as the map inversion needs it:

@@ -16,7 +16,7 @@ import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import {
-  addClippedFace, addWholeFace, closeFreeBody, createClipScratch, faceCornerCount, FB_SIZE, initFreeBody,
+  addClippedFace, addWholeFace, closeFreeBody, createClipScratch, faceCornerCount, FB_SIZE, freeBodyTractions, initFreeBody,
 } from './freeBody.ts'
 import type { ClipScratch } from './freeBody.ts'
 import type { SectionGeometry } from './elementSection.ts'
@@ -34,7 +34,6 @@ import { createPolygonCollector } from './sectionDrawing.ts'
 import type { PolygonCollector } from './sectionDrawing.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { sectionRule, shapeDegree } from './sectionRule.ts'
-import { computeSurfaceTractions } from './tractions.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
 
 export { unitNormal } from './plane.ts'
@@ -104,7 +103,7 @@ export function cutSection(
 
   const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
-  const tractions = options.tractions ?? computeSurfaceTractions(mesh, stress.values, faces)
+  const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
   const fb = new Float64Array(FB_SIZE)
   initFreeBody(fb, 0)
   const cs = createClipScratch()

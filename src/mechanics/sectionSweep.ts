@@ -20,7 +20,7 @@ import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import {
-  addClippedFace, addWholeFace, closeFreeBody, createClipScratch, faceCornerCount, FB_SIZE, initFreeBody, mergeFreeBody,
+  addClippedFace, addWholeFace, closeFreeBody, createClipScratch, faceCornerCount, FB_SIZE, freeBodyTractions, initFreeBody, mergeFreeBody,
 } from './freeBody.ts'
 import { accumulateTraction, createSectionPoints, polygonPoints } from './elementSection.ts'
 import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } from './inverseMap.ts'
@@ -31,7 +31,6 @@ import {
 } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { sectionRule, shapeDegree } from './sectionRule.ts'
-import { computeSurfaceTractions } from './tractions.ts'
 import type { BoundaryFaces, SectionResult, SurfaceTractions } from './types.ts'
 
 export interface SweepOptions {
@@ -149,7 +148,7 @@ export function sweepSections(
     cen[3 * k] = c3[0]; cen[3 * k + 1] = c3[1]; cen[3 * k + 2] = c3[2]
   }
   const faces = options.faces ?? extractBoundaryFaces(mesh)
-  const tractions = options.tractions ?? computeSurfaceTractions(mesh, values, faces)
+  const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
   // volume origin g: one mesh node, so volume sums stay relative to the body's own size
   const g = N > 0 ? [coords[0], coords[1], coords[2]] : [0, 0, 0]
   const whole = new Float64Array((count + 1) * FB_SIZE) // bucketed whole-face figures
