@@ -110,13 +110,18 @@ export function createPolygonCollector(m: Vec3) {
         // midpoints of the sides (v_k, v_k+1), then of the fan diagonals (v_0, v_i), i = 2 .. n-2
         for (let k = 0; k < n; k++) fillMidpoint(sc, order[k], order[(k + 1) % n], em)
         for (let i = 2; i < n - 1; i++) fillMidpoint(sc, order[0], order[i], em)
-        const side = (k: number) => f0 + n + k, diag = (i: number) => f0 + 2 * n + i - 2
+        // side k's midpoint is fill point f0 + n + k, diagonal i's f0 + 2n + i - 2
         for (let i = 1; i < n - 1; i++) {
           const v0 = f0, vi = f0 + i, vj = f0 + i + 1
-          const m01 = i === 1 ? side(0) : diag(i), m12 = side(i), m20 = i + 1 === n - 1 ? side(n - 1) : diag(i + 1)
-          const t4 = [v0, m01, m20, m01, vi, m12, m20, m12, vj, m01, m12, m20]
-          for (let k = 0; k < 12; k++) index[3 * tris + k] = t4[k]
-          for (let k = 0; k < 4; k++) triElem[tris + k] = g
+          const m01 = i === 1 ? f0 + n : f0 + 2 * n + i - 2
+          const m12 = f0 + n + i
+          const m20 = i + 1 === n - 1 ? f0 + 2 * n - 1 : f0 + 2 * n + i - 1
+          const o = 3 * tris
+          index[o] = v0; index[o + 1] = m01; index[o + 2] = m20
+          index[o + 3] = m01; index[o + 4] = vi; index[o + 5] = m12
+          index[o + 6] = m20; index[o + 7] = m12; index[o + 8] = vj
+          index[o + 9] = m01; index[o + 10] = m12; index[o + 11] = m20
+          triElem[tris] = g; triElem[tris + 1] = g; triElem[tris + 2] = g; triElem[tris + 3] = g
           tris += 4
         }
       } else {
