@@ -193,7 +193,7 @@ export function addClippedFace(
   const em = loadElementMap(cs.em, domain, coords, blk.conn, ebase)
   const rule = sectionRule(blk.type), nq = rule.count, L0 = rule.l0, L1 = rule.l1, L2 = rule.l2, W = rule.w
   const N = cs.N, qxi = cs.xi, values = field.values, rows = field.rows[bi]
-  let Fx = 0, Fy = 0, Fz = 0, Mx = 0, My = 0, Mz = 0, V = 0, Qx = 0, Qy = 0, Qz = 0
+  let Fx = 0, Fy = 0, Fz = 0, Mx = 0, My = 0, Mz = 0
   const x0 = pos[0], y0 = pos[1], z0 = pos[2]
   for (let i = 1; i < n - 1; i++) {
     const j = i + 1
@@ -222,13 +222,8 @@ export function addClippedFace(
       Fx += tx; Fy += ty; Fz += tz
       Mx += ry * tz - rz * ty; My += rz * tx - rx * tz; Mz += rx * ty - ry * tx
     }
-    // signed volume of the tetrahedron (g, p0, pi, pj) and its centroid
-    const qx = x0 - gx, qy = y0 - gy, qz = z0 - gz
-    const v = (qx * Sx + qy * Sy + qz * Sz) / 3
-    V += v
-    Qx += 0.25 * v * (3 * qx + e1x + e2x); Qy += 0.25 * v * (3 * qy + e1y + e2y); Qz += 0.25 * v * (3 * qz + e1z + e2z)
   }
-  addClipped(fb, off, Fx, Fy, Fz, Mx, My, Mz, V, Qx, Qy, Qz, cx, cy, cz, pos, n)
+  addClipped(fb, off, Fx, Fy, Fz, Mx, My, Mz, cx, cy, cz, pos, n, gx, gy, gz)
 }
 
 /**
@@ -275,13 +270,13 @@ function addClippedLinearFace(
     n++
   }
   if (n < 3) return
-  let Fx = 0, Fy = 0, Fz = 0, Mx = 0, My = 0, Mz = 0, V = 0, Qx = 0, Qy = 0, Qz = 0
+  let Fx = 0, Fy = 0, Fz = 0, Mx = 0, My = 0, Mz = 0
   const x0 = pos[0], y0 = pos[1], z0 = pos[2]
   for (let i = 1; i < n - 1; i++) {
     const j = i + 1
+    // area vector S = A n of the fan triangle (outward: the face's corner order is kept)
     const e1x = pos[3 * i] - x0, e1y = pos[3 * i + 1] - y0, e1z = pos[3 * i + 2] - z0
     const e2x = pos[3 * j] - x0, e2y = pos[3 * j + 1] - y0, e2z = pos[3 * j + 2] - z0
-    // area vector S = A n (outward: the face's corner order is kept)
     const Sx = 0.5 * (e1y * e2z - e1z * e2y), Sy = 0.5 * (e1z * e2x - e1x * e2z), Sz = 0.5 * (e1x * e2y - e1y * e2x)
     let stx = 0, sty = 0, stz = 0, srx = 0, sry = 0, srz = 0, rtx = 0, rty = 0, rtz = 0
     for (let q = 0; q < 3; q++) {
@@ -296,20 +291,31 @@ function addClippedLinearFace(
     }
     Fx += stx; Fy += sty; Fz += stz
     Mx += sry * stz - srz * sty + rtx; My += srz * stx - srx * stz + rty; Mz += srx * sty - sry * stx + rtz
-    const px = x0 - gx, py = y0 - gy, pz = z0 - gz
-    const v = (px * Sx + py * Sy + pz * Sz) / 3
+  }
+  Fx /= 3; Fy /= 3; Fz /= 3
+  addClipped(fb, off, Fx, Fy, Fz, Mx / 12, My / 12, Mz / 12, cx, cy, cz, pos, n, gx, gy, gz)
+}
+
+/**
+ * Adds one clipped face's figures (force, moment about c) to fb, with its volume terms about g
+ * (the fan of flat triangles of its n points: signed volume of each tetrahedron (g, p0, pi, pj)
+ * and its centroid) and its points' bounding box.
+ */
+function addClipped(
+  fb: Float64Array, off: number, Fx: number, Fy: number, Fz: number, Mx: number, My: number, Mz: number,
+  cx: number, cy: number, cz: number, pos: Float64Array, n: number, gx: number, gy: number, gz: number,
+): void {
+  let V = 0, Qx = 0, Qy = 0, Qz = 0
+  const x0 = pos[0], y0 = pos[1], z0 = pos[2]
+  const px = x0 - gx, py = y0 - gy, pz = z0 - gz
+  for (let i = 1; i < n - 1; i++) {
+    const j = i + 1
+    const e1x = pos[3 * i] - x0, e1y = pos[3 * i + 1] - y0, e1z = pos[3 * i + 2] - z0
+    const e2x = pos[3 * j] - x0, e2y = pos[3 * j + 1] - y0, e2z = pos[3 * j + 2] - z0
+    const v = (px * (e1y * e2z - e1z * e2y) + py * (e1z * e2x - e1x * e2z) + pz * (e1x * e2y - e1y * e2x)) / 6
     V += v
     Qx += 0.25 * v * (3 * px + e1x + e2x); Qy += 0.25 * v * (3 * py + e1y + e2y); Qz += 0.25 * v * (3 * pz + e1z + e2z)
   }
-  Fx /= 3; Fy /= 3; Fz /= 3
-  addClipped(fb, off, Fx, Fy, Fz, Mx / 12, My / 12, Mz / 12, V, Qx, Qy, Qz, cx, cy, cz, pos, n)
-}
-
-/** Adds one clipped face's figures (moment about c) and its points' bounding box to fb. */
-function addClipped(
-  fb: Float64Array, off: number, Fx: number, Fy: number, Fz: number, Mx: number, My: number, Mz: number,
-  V: number, Qx: number, Qy: number, Qz: number, cx: number, cy: number, cz: number, pos: Float64Array, n: number,
-): void {
   fb[off + FB_FORCE] += Fx; fb[off + FB_FORCE + 1] += Fy; fb[off + FB_FORCE + 2] += Fz
   // clipped moments are about c already; the caller's origin-to-c shift must skip them, so add
   // c × F here to cancel it (keeps one shift for all faces)

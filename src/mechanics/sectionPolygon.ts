@@ -209,9 +209,7 @@ export function elementPolygon(
   conn: Int32Array, rows: Int32Array, base: number, cases: CrossingCases, frame: Float64Array,
 ): number {
   const dist = sc.dist, pos = sc.pos, sig = sc.sig, key = sc.key
-  const cc = cases.cornerCount
-  let mask = 0
-  for (let c = 0; c < cc; c++) mask |= (dist[c] < 0 ? 1 : 0) << c
+  const mask = cornerMask(dist, cases.cornerCount)
   const ne = cases.count[mask], ce = cases.edges, e0 = mask * CASE_STRIDE
   let n = 0
   for (let k = 0; k < ne; k++) {
@@ -221,9 +219,7 @@ export function elementPolygon(
     const nq = conn[base + lq], nr = conn[base + lr]
     if (dr === 0) {
       // the plane passes through node nr: several edges meet there, keep the point once
-      let seen = false
-      for (let j = 0; j < n; j++) if (key[j] === nr) { seen = true; break }
-      if (seen) continue
+      if (seenNode(key, n, nr)) continue
       key[n] = nr
       pos[3 * n] = coords[3 * nr]; pos[3 * n + 1] = coords[3 * nr + 1]; pos[3 * n + 2] = coords[3 * nr + 2]
       const fr = stride * rows[base + lr]
@@ -273,9 +269,7 @@ export function elementPolygonRef(
   conn: Int32Array, base: number, cases: CrossingCases, frame: Float64Array, ref: Float64Array,
 ): number {
   const dist = sc.dist, pos = sc.pos, key = sc.key, xi = sc.ref
-  const cc = cases.cornerCount
-  let mask = 0
-  for (let c = 0; c < cc; c++) mask |= (dist[c] < 0 ? 1 : 0) << c
+  const mask = cornerMask(dist, cases.cornerCount)
   const ne = cases.count[mask], ce = cases.edges, e0 = mask * CASE_STRIDE
   let n = 0
   for (let k = 0; k < ne; k++) {
@@ -284,9 +278,7 @@ export function elementPolygonRef(
     const nq = conn[base + lq], nr = conn[base + lr]
     if (dr === 0) {
       // the plane passes through node nr: several edges meet there, keep the point once
-      let seen = false
-      for (let j = 0; j < n; j++) if (key[j] === nr) { seen = true; break }
-      if (seen) continue
+      if (seenNode(key, n, nr)) continue
       key[n] = nr
       pos[3 * n] = coords[3 * nr]; pos[3 * n + 1] = coords[3 * nr + 1]; pos[3 * n + 2] = coords[3 * nr + 2]
       xi[3 * n] = ref[3 * lr]; xi[3 * n + 1] = ref[3 * lr + 1]; xi[3 * n + 2] = ref[3 * lr + 2]
@@ -318,6 +310,19 @@ export function elementPolygonRef(
   sc.count = n
   if (n < 3) return n
   return orderPolygon(sc, acc, off, n, cases.sorted[mask] === 1, frame)
+}
+
+/** Bit c set when corner c lies on the - side (d < 0): the index into the crossing cases. */
+function cornerMask(dist: Float64Array, cc: number): number {
+  let mask = 0
+  for (let c = 0; c < cc; c++) mask |= (dist[c] < 0 ? 1 : 0) << c
+  return mask
+}
+
+/** Whether node `node` is already one of the first n vertices (a plane through a node meets several edges there). */
+function seenNode(key: Int32Array, n: number, node: number): boolean {
+  for (let j = 0; j < n; j++) if (key[j] === node) return true
+  return false
 }
 
 /**
