@@ -3,11 +3,15 @@
  * exerts on the material on the -m side (DESIGN.md), the section's area properties, and the
  * free-body check of the - piece.
  *
- * One pass over the nodes computes d = (x - p)·m (snapped to 0 within round-off, SNAP_EPS); one pass over the elements rejects those whose
- * corners all lie on one side (d == 0 is the + side, see sectionPolygon.ts) and integrates the
- * polygon of each cut element. Boundary faces and their tractions are needed only for the
- * free body; pass them in `options` when cutting repeatedly (dragging the plane), else they are
- * computed here each call.
+ * One pass over the nodes computes d = (x - p)·m (snapped to 0 within round-off, SNAP_EPS); one
+ * pass over the elements rejects those whose corners all lie on one side (d == 0 is the + side,
+ * see sectionPolygon.ts) and builds the polygon of each cut element. Linear simplices (tet4) are
+ * integrated at once in closed form; the other types' polygons leave their quadrature points
+ * (reference coordinates and weights, elementSection.ts) in a per-cut geometry, and one stress
+ * pass then integrates σm over them with each element's own shape functions. Stress is read
+ * through the StressField's element-node rows. Boundary faces and their tractions are needed
+ * only for the free body; pass them in `options` when cutting repeatedly (dragging the plane),
+ * else they are computed here each call (nodal stress only, see freeBodyTractions).
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'

@@ -3,12 +3,15 @@
  * (plane k passes through offsets[k]·m; `to` < `from` sweeps backwards), all resultants in one
  * pass over the elements, not N cuts.
  *
- * Each node gets D = x·m once (and the traction σm, the same for every plane). Each element's
+ * Each node gets D = x·m once, and each stress row its traction σm (the same for every plane;
+ * the shape functions interpolate it like the stress, since σm is linear in σ). Each element's
  * corners span [Dmin, Dmax] along m; only the planes inside that span (widened by the snap band)
  * can cut it, a run of consecutive k found from the uniform spacing. For each, the corner
  * distances d = D - o_k, snapped like a single cut's (SNAP_EPS), decide; the element's polygon
- * goes into section k's accumulator with the same kernels as `cutSection`, visiting elements in
- * the same order, so a sweep equals single cuts at the same offsets up to the rounding of d.
+ * goes into section k's accumulator with the same kernels as `cutSection` (the closed forms for
+ * tet4, the element's shape functions at the polygon's quadrature points for every other type,
+ * its map loaded once for all the planes that cut it), visiting elements in the same order, so a
+ * sweep equals single cuts at the same offsets up to the rounding of d.
  *
  * Free bodies: a boundary face lies wholly on the - side of plane k from some k on (the offsets
  * ascend). Its whole-face figures are dropped into the bucket where that run starts and summed
