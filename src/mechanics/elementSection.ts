@@ -10,9 +10,10 @@
  *   affine element ξ is linear in x, so the barycentric mix of the vertex ξ is exact; otherwise it
  *   is the start of the guarded Newton inversion of inverseMap.ts.
  * - the geometry of a whole cut is kept (`SectionGeometry`: per cut element its points' ξ,
- *   weights and plane coordinates), so the stress pass (`integrateSectionGeometry`) is a gather of
- *   the element's nodal tractions σ_a m and a dot product with N(ξ) per point, and can be run
- *   again for another field on the same plane without redoing any geometry.
+ *   weights and plane coordinates), so the stress pass (`integrateSectionGeometry`) is only a
+ *   gather of the element's nodal tractions σ_a m and a dot product with N(ξ) per point: another
+ *   field on the same plane (a load case) would need that pass alone. The sweep, whose planes
+ *   each need their own points, runs the two halves element by element instead.
  *
  * Curved (non-affine) quadratic elements, the approximation: the polygon's vertices lie exactly on
  * the element's curved edges, but its sides are straight chords between them, while the element's
@@ -42,9 +43,8 @@ import { shapeValues } from './shapeFunctions.ts'
 /** Most quadrature points one polygon can have: its fan triangles times the largest rule. */
 export const MAX_POLYGON_QUADRATURE = (MAX_POLYGON_POINTS - 2) * barycentric(MAX_SECTION_RULE_DEGREE).count
 
-/** Quadrature points of one polygon (scratch, create once). */
+/** Quadrature points of one polygon (scratch, create once; `polygonPoints` says how many). */
 export interface SectionPoints {
-  count: number
   /** ξ per point (3 each). */
   readonly ref: Float64Array
   /** Area weight per point (rule weight × triangle area). */
@@ -56,7 +56,7 @@ export interface SectionPoints {
 
 export function createSectionPoints(): SectionPoints {
   const n = MAX_POLYGON_QUADRATURE
-  return { count: 0, ref: new Float64Array(3 * n), w: new Float64Array(n), a: new Float64Array(n), b: new Float64Array(n) }
+  return { ref: new Float64Array(3 * n), w: new Float64Array(n), a: new Float64Array(n), b: new Float64Array(n) }
 }
 
 /**
