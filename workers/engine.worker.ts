@@ -12,6 +12,7 @@ import { nodalDisplayStress } from '../src/model/stressField.ts'
 import { analysisInputOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
 import type { AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../src/model/stressField.ts'
 import { sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
@@ -245,7 +246,7 @@ const api: EngineApi = {
     const { model, faces, tractions } = current
     const started = performance.now()
     try {
-      const { result, polygons } = cutSection(model.mesh, model.stress, model.bodyForce, plane, { faces, tractions, polygons: true })
+      const { result, polygons } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, plane, { faces, tractions, polygons: true })
       current.polygons = polygons
       if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started } }
       const tri = buildSectionTriangles(polygons, result.plane.normal)

@@ -10,13 +10,15 @@ import type { Mesh, Vec3 } from '../src/model/model.ts'
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
 import { elementIdOf } from '../src/model/elementId.ts'
 import { makePlane, planeDistance } from '../src/mechanics/plane.ts'
+import { sectionStressAt } from '../src/mechanics/sectionDrawing.ts'
+import { nodalStressField } from '../src/model/stressField.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
 import type { ProbeRequest, ProbeResult } from './protocol.ts'
 
 /** Corners per face kind code, from the element registry. */
 const CORNERS_OF_KIND = FACE_KINDS.map((k) => k.cornerCount)
 
-interface Hit { t: number; elem: number; normal: Vec3; where: 'surface' | 'section' }
+interface Hit { t: number; elem: number; normal: Vec3; where: 'surface' | 'section'; polygon: number }
 
 /** Ray–triangle (Möller–Trumbore), returns t or Infinity; both sides count. */
 function rayTriangle(o: Vec3, d: Vec3, x: Float64Array, a: number, b: number, c: number): number {
@@ -141,7 +143,7 @@ export function probeModel(
     let t = rayTriangle(o, d, x, nodes[s], nodes[s + 1], nodes[s + 2])
     if (nc === 4) t = Math.min(t, rayTriangle(o, d, x, nodes[s], nodes[s + 2], nodes[s + 3]))
     if (t < (best?.t ?? Infinity) && !hidden(at(t), req, plane)) {
-      best = { t, elem: faces.elem[f], normal: [faces.normal[3 * f], faces.normal[3 * f + 1], faces.normal[3 * f + 2]], where: 'surface' }
+      best = { t, elem: faces.elem[f], normal: [faces.normal[3 * f], faces.normal[3 * f + 1], faces.normal[3 * f + 2]], where: 'surface', polygon: -1 }
     }
   }
   if (plane && polygons && polygons.count > 0) {
@@ -153,7 +155,7 @@ export function probeModel(
         const p = at(t)
         for (let q = 0; q < polygons.count; q++) {
           if (insidePolygon(p, polygons.positions, polygons.start[q], polygons.start[q + 1], m)) {
-            best = { t, elem: polygons.elem[q], normal: [m[0], m[1], m[2]], where: 'section' }
+            best = { t, elem: polygons.elem[q], normal: [m[0], m[1], m[2]], where: 'section', polygon: q }
             break
           }
         }
@@ -163,7 +165,11 @@ export function probeModel(
   if (!best) return null
   const p = at(best.t)
   const s = new Float64Array(6)
-  stressInElement(mesh, stress, best.elem, p, s)
+  // on the section: the same shape functions and reference coordinates the section's fill and
+  // resultant use (sectionDrawing.ts), so the probe reads what the colours show
+  if (!(best.where === 'section' && polygons && sectionStressAt(s, mesh, nodalStressField(mesh, stress), polygons, best.polygon, p))) {
+    stressInElement(mesh, stress, best.elem, p, s)
+  }
   const pr = new Float64Array(3)
   principalStresses(s, pr)
   const n = best.normal

@@ -46,6 +46,7 @@ export function sectionRows(r: SectionResult, units: ModelUnits, system: UnitSys
     R('fbF', 'Free body |residual force|', Math.hypot(...r.freeBody.force), 'force'),
     R('fbM', 'Free body |residual moment|', Math.hypot(...r.freeBody.moment), 'moment'),
     R('fbRel', 'Free body residual / gross', r.freeBody.relative, null),
+    R('fbRelM', 'Free body moment residual / (gross · L)', r.freeBody.momentRelative, null),
   ]
 }
 

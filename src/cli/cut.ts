@@ -12,6 +12,7 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
+import { nodalStressField } from '../model/stressField.ts'
 
 /** The documented JSON fields of one section (shared with `sweep`), in the view's units. */
 export function sectionJson(r: SectionResult, u: UnitView): Record<string, unknown> {
@@ -35,8 +36,10 @@ export function sectionJson(r: SectionResult, u: UnitView): Record<string, unkno
       moment: vecJson(r.freeBody.moment, 'moment', u),
       relative: r.freeBody.relative,
       gross: r.freeBody.gross * ff,
+      momentRelative: r.freeBody.momentRelative,
     },
     cutElements: r.cutElements,
+    unmappedPoints: r.unmappedPoints,
   }
 }
 
@@ -54,7 +57,7 @@ export const cutCommand: Command = {
   details: [
     'The resultant is what the material on the +m side exerts on the material on the -m side: F = ∫σm dA, M = ∫(x - about) × σm dA.',
     'Section axes: e3 = m, e1 and e2 the principal axes of the section area (I1 ≥ I2). axial = F·e3, shear = [F·e1, F·e2], torque = M·e3, bending = [M·e1, M·e2].',
-    'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is over that piece\'s gross load.',
+    'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is its force over that piece\'s gross load, "momentRelative" its moment about the section centroid over the gross load times the diagonal of the piece\'s bounding box.',
   ].join('\n'),
   run(args, io) {
     const plane = makePlane(vecOption(args, 'point')!, vecOption(args, 'normal')!)
@@ -63,7 +66,7 @@ export const cutCommand: Command = {
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
-    const { result: r } = cutSection(model.mesh, model.stress, bodyForce, plane, { about, polygons: false })
+    const { result: r } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, plane, { about, polygons: false })
     if (args.options.json) {
       printJson(io, { file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u) })
       return 0
@@ -93,5 +96,7 @@ export function sectionText(r: SectionResult, u: UnitView, heading: string): str
     ['free body force', vecQty(r.freeBody.force, 'force', u)],
     ['free body moment', vecQty(r.freeBody.moment, 'moment', u)],
     ['free body relative', `${num(r.freeBody.relative)} of the gross load ${qty(r.freeBody.gross, 'force', u)}`],
+    ['free body moment relative', `${num(r.freeBody.momentRelative)} of the gross load × ${qty(r.freeBody.size, 'length', u)}`],
+    ...(r.unmappedPoints > 0 ? [['unmapped points', `${r.unmappedPoints} (element map not inverted; stress taken at a clamped estimate)`] as [string, string]] : []),
   ])
 }

@@ -12,6 +12,7 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { sectionJson } from './cut.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { sweepSections } from '../mechanics/sectionSweep.ts'
+import { nodalStressField } from '../model/stressField.ts'
 
 const CSV_COLUMNS: readonly [string, (r: SectionResult) => number, Parameters<UnitView['factor']>[0] | null][] = [
   ['area', (r) => r.area, 'area'],
@@ -21,6 +22,7 @@ const CSV_COLUMNS: readonly [string, (r: SectionResult) => number, Parameters<Un
   ['axial', (r) => r.axial, 'force'], ['shear1', (r) => r.shear[0], 'force'], ['shear2', (r) => r.shear[1], 'force'],
   ['torque', (r) => r.torque, 'moment'], ['bending1', (r) => r.bending[0], 'moment'], ['bending2', (r) => r.bending[1], 'moment'],
   ['freebody_relative', (r) => r.freeBody.relative, null],
+  ['freebody_moment_relative', (r) => r.freeBody.momentRelative, null],
   ['cut_elements', (r) => r.cutElements, null],
 ]
 
@@ -38,7 +40,7 @@ export const sweepCommand: Command = {
   ],
   details: [
     'Section k lies on the plane x·m = offset_k with m the unit normal; moments are about each section\'s centroid.',
-    'CSV columns: offset, area, cx, cy, cz, fx, fy, fz, mx, my, mz, axial, shear1, shear2, torque, bending1, bending2, freebody_relative, cut_elements; the header line names the units.',
+    'CSV columns: offset, area, cx, cy, cz, fx, fy, fz, mx, my, mz, axial, shear1, shear2, torque, bending1, bending2, freebody_relative, freebody_moment_relative, cut_elements; the header line names the units.',
     '--json prints {"sections": [...]} with "offset" and the fields of `tractus cut --json` per section.',
   ].join('\n'),
   run(args, io) {
@@ -52,7 +54,7 @@ export const sweepCommand: Command = {
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
-    const { offsets, results } = sweepSections(model.mesh, model.stress, bodyForce, normal, from, to, count)
+    const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, normal, from, to, count)
     const fl = u.factor('length')
     if (args.options.json) {
       printJson(io, {

@@ -156,10 +156,10 @@ export function sampleSurfaceArrows(faces: BoundaryFaces, tractions: SurfaceTrac
 }
 
 /**
- * Section arrows: one item per cut polygon, its area, centroid and mean traction σm from the fan
- * triangles (traction linear over each triangle, so the mean is exact for that interpolation).
- * `normal` is the section normal m, any length (normalised by unitNormal: a zero or non-finite
- * normal is an InputError).
+ * Section arrows: one item per cut polygon, its area, centroid and mean traction σm = ∫ σm dA / A
+ * from the cut's own quadrature by the element's shape functions (SectionPolygons), so the arrows
+ * add up to the section's resultant. `normal` is the section normal m, any length (normalised by
+ * unitNormal: a zero or non-finite normal is an InputError).
  */
 export function sampleSectionArrows(polygons: SectionPolygons, normal: Vec3, options: ArrowOptions = {}): ArrowSamples {
   const mode = options.mode ?? 'full'
@@ -167,55 +167,15 @@ export function sampleSectionArrows(polygons: SectionPolygons, normal: Vec3, opt
   const m = unitNormal(normal)
   const P = polygons.count
   if (P === 0) return emptySamples(mode)
-  const areas = new Float64Array(P)
-  const centroid = new Float64Array(3 * P)
-  const mean = new Float64Array(3 * P)
-  polygonMoments(areas, centroid, mean, polygons, m)
   const cap = Math.min(P, Math.max(0, Math.floor(budget)))
   const chosen = new Int32Array(cap)
   const weight = new Float64Array(cap)
-  const count = stratifiedByArea(chosen, weight, areas, budget, options.seed ?? 1)
-  return fillArrows(mode, chosen, weight, count, centroid, mean, null, m)
-}
-
-/**
- * Per polygon: area (projected on m, length units²), area centroid, and mean of the vertex
- * traction linearly interpolated over the fan triangles (stress units). Zero-area polygons get
- * the vertex average at the vertex average, area 0.
- */
-export function polygonMoments(outArea: Float64Array, outCentroid: Float64Array, outMean: Float64Array, polygons: SectionPolygons, m: Vec3): void {
-  const { count, start, positions: x, traction: t } = polygons
-  const mx = m[0], my = m[1], mz = m[2]
-  for (let p = 0; p < count; p++) {
-    const s = start[p], e = start[p + 1]
-    let A = 0, cx = 0, cy = 0, cz = 0, tx = 0, ty = 0, tz = 0
-    const x0 = x[3 * s], y0 = x[3 * s + 1], z0 = x[3 * s + 2]
-    for (let i = s + 1; i + 1 < e; i++) {
-      const ax = x[3 * i] - x0, ay = x[3 * i + 1] - y0, az = x[3 * i + 2] - z0
-      const bx = x[3 * i + 3] - x0, by = x[3 * i + 4] - y0, bz = x[3 * i + 5] - z0
-      // Signed area projected on m, so a fan over a slightly non-convex polygon still sums right.
-      const a = 0.5 * ((ay * bz - az * by) * mx + (az * bx - ax * bz) * my + (ax * by - ay * bx) * mz)
-      A += a
-      cx += a * (3 * x0 + ax + bx) / 3; cy += a * (3 * y0 + ay + by) / 3; cz += a * (3 * z0 + az + bz) / 3
-      tx += a * (t[3 * s] + t[3 * i] + t[3 * i + 3]) / 3
-      ty += a * (t[3 * s + 1] + t[3 * i + 1] + t[3 * i + 4]) / 3
-      tz += a * (t[3 * s + 2] + t[3 * i + 2] + t[3 * i + 5]) / 3
-    }
-    if (A !== 0) {
-      outArea[p] = Math.abs(A)
-      outCentroid[3 * p] = cx / A; outCentroid[3 * p + 1] = cy / A; outCentroid[3 * p + 2] = cz / A
-      outMean[3 * p] = tx / A; outMean[3 * p + 1] = ty / A; outMean[3 * p + 2] = tz / A
-    } else {
-      // Degenerate polygon: no area to stand for; keep a finite point and traction.
-      const n = Math.max(1, e - s)
-      let px = 0, py = 0, pz = 0, qx = 0, qy = 0, qz = 0
-      for (let i = s; i < e; i++) {
-        px += x[3 * i]; py += x[3 * i + 1]; pz += x[3 * i + 2]
-        qx += t[3 * i]; qy += t[3 * i + 1]; qz += t[3 * i + 2]
-      }
-      outArea[p] = 0
-      outCentroid[3 * p] = px / n; outCentroid[3 * p + 1] = py / n; outCentroid[3 * p + 2] = pz / n
-      outMean[3 * p] = qx / n; outMean[3 * p + 1] = qy / n; outMean[3 * p + 2] = qz / n
-    }
+  const count = stratifiedByArea(chosen, weight, polygons.area, budget, options.seed ?? 1)
+  const mean = new Float64Array(3 * P)
+  const area = polygons.area, force = polygons.force
+  for (let j = 0; j < count; j++) {
+    const p = chosen[j], a = area[p]
+    mean[3 * p] = force[3 * p] / a; mean[3 * p + 1] = force[3 * p + 1] / a; mean[3 * p + 2] = force[3 * p + 2] / a
   }
+  return fillArrows(mode, chosen, weight, count, polygons.centroid, mean, null, m)
 }

@@ -3,26 +3,41 @@
  * exerts on the material on the -m side (DESIGN.md), the section's area properties, and the
  * free-body check of the - piece.
  *
- * One pass over the nodes computes d = (x - p)·m (snapped to 0 within round-off, SNAP_EPS); one pass over the elements rejects those whose
- * corners all lie on one side (d == 0 is the + side, see sectionPolygon.ts) and integrates the
- * polygon of each cut element. Boundary faces and their tractions are needed only for the
- * free body; pass them in `options` when cutting repeatedly (dragging the plane), else they are
- * computed here each call.
+ * One pass over the nodes computes d = (x - p)·m (snapped to 0 within round-off, SNAP_EPS); one
+ * pass over the elements rejects those whose corners all lie on one side (d == 0 is the + side,
+ * see sectionPolygon.ts) and builds the polygon of each cut element. Linear simplices (tet4) are
+ * integrated at once in closed form; the other types' polygons leave their quadrature points
+ * (reference coordinates and weights, elementSection.ts) in a per-cut geometry, and one stress
+ * pass then integrates σm over them with each element's own shape functions. Stress is read
+ * through the StressField's element-node rows. Boundary faces and their tractions are needed
+ * only for the free body; pass them in `options` when cutting repeatedly (dragging the plane),
+ * else they are computed here each call (nodal stress only, see freeBodyTractions).
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { checkPoint, unitNormal } from './plane.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
+import type { StressField } from '../model/stressField.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
-import { addClippedFace, addWholeFace, closeFreeBody, faceCornerCount, FB_SIZE } from './freeBody.ts'
 import {
-  ACC_AREA, ACC_FORCE, ACC_ORIGIN, ACC_SIZE, createPolygonScratch, crossingCases, elementPolygon,
-  integratePolygon, sectionFrame, sectionMomentAtOrigin,
+  addClippedFace, addWholeFace, closeFreeBody, createClipScratch, faceCornerCount, FB_SIZE, freeBodyTractions, initFreeBody,
+} from './freeBody.ts'
+import type { ClipScratch } from './freeBody.ts'
+import type { SectionGeometry } from './elementSection.ts'
+import {
+  addSectionElement, createSectionGeometry, integrateSectionGeometry, polygonPoints, reserveSectionGeometry, resetSectionGeometry,
+} from './elementSection.ts'
+import type { ElementMap } from './inverseMap.ts'
+import { createElementMap, loadElementMap, referenceDomain } from './inverseMap.ts'
+import {
+  ACC_AREA, ACC_FORCE, ACC_GROSS, ACC_ORIGIN, ACC_SIZE, addPolygonArea, createPolygonScratch, crossingCases, elementPolygon,
+  elementPolygonRef, integratePolygon, sectionFrame, sectionMomentAtOrigin,
 } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
+import { createPolygonCollector } from './sectionDrawing.ts'
+import type { PolygonCollector } from './sectionDrawing.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
-import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
-import { nodalStressField } from '../model/stressField.ts'
+import { sectionRule, shapeDegree } from './sectionRule.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
 
 export { unitNormal } from './plane.ts'
@@ -49,9 +64,18 @@ export const SNAP_EPS = 64 * Number.EPSILON
 
 /** Grows-only scratch for node distances: dragging the plane re-cuts the same mesh many times. */
 let distScratch = new Float64Array(0)
+/** The quadrature geometry of the latest cut (grows only, reused like distScratch). */
+const geometry = createSectionGeometry()
 
+/**
+ * Cuts the body with `plane`. `stress` is read through its element-node rows, so nodal and
+ * element-nodal stress take the same path. Linear simplices (shape-function degree 1: tet4) are
+ * integrated by the closed forms of sectionPolygon.ts; every other type by its shape functions
+ * (elementSection.ts): a geometry pass over the cut elements stores the quadrature points' ξ
+ * and weights, then one stress pass integrates the traction over them.
+ */
 export function cutSection(
-  mesh: Mesh, stress: Float64Array, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
+  mesh: Mesh, stress: StressField, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
 ): { result: SectionResult; polygons: SectionPolygons | null } {
   const m = unitNormal(plane.normal)
   checkPoint(plane.point, 'section point')
@@ -65,22 +89,35 @@ export function cutSection(
 
   const acc = new Float64Array(ACC_SIZE)
   const sc = createPolygonScratch()
-  const collect = options.polygons ? createPolygonCollector() : null
-  for (const block of mesh.blocks) cutBlock(acc, sc, d, coords, stress, block.type, block.conn, block.offset, frame, collect, m)
-  const polygons = collect ? collect.finish() : null
+  const collect = options.polygons ? createPolygonCollector(m) : null
+  const geo = geometry
+  resetSectionGeometry(geo)
+  const em = createElementMap()
+  mesh.blocks.forEach((block, bi) => {
+    const rows = stress.rows[bi]
+    if (shapeDegree(block.type) <= 1) cutLinearBlock(acc, sc, d, coords, stress.values, block.type, block.conn, rows, bi, block.offset, frame, collect)
+    else cutBlock(acc, sc, em, geo, d, coords, block.type, block.conn, bi, block.offset, frame, collect)
+  })
+  // the stress pass over the stored geometry
+  const forces = collect ? new Float64Array(3 * geo.elements) : null
+  integrateSectionGeometry(acc, 0, geo, mesh, stress, m, forces)
+  const polygons = collect ? collect.finish(mesh, stress, forces!) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about), polygons }
 
   const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
-  const tractions = options.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, stress), faces)
+  const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
   const fb = new Float64Array(FB_SIZE)
+  initFreeBody(fb, 0)
+  const cs = createClipScratch()
   // volume terms about the section centroid: the section itself then adds no volume term
-  freeBodyFaces(fb, 0, coords, stress, faces, tractions, d, sc, c, c)
+  freeBodyFaces(fb, 0, mesh, stress, faces, tractions, d, cs, c, c)
   const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
   const Ms = momentAboutCentroid(acc, 0, c, frame)
-  const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce)
-  return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody), polygons }
+  const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS])
+  const unmapped = em.failures + cs.em.failures
+  return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped), polygons }
 }
 
 // The passes below are separate functions so that each is optimised with its own type feedback:
@@ -101,30 +138,95 @@ function nodeDistances(d: Float64Array, coords: Float64Array, N: number, point: 
   }
 }
 
-/** Adds the section polygons of one block's cut elements to `acc` (and to `collect` when drawing). */
-function cutBlock(
-  acc: Float64Array, sc: PolygonScratch, d: Float64Array, coords: Float64Array, stress: Float64Array,
-  type: ElementTypeName, conn: Int32Array, offset: number, frame: Float64Array, collect: PolygonCollector | null, m: Vec3,
+/**
+ * Adds the section polygons of one block of linear simplices (tet4) to `acc` (and to `collect`
+ * when drawing): vertex values interpolated along the edges and the closed forms, exact there.
+ */
+function cutLinearBlock(
+  acc: Float64Array, sc: PolygonScratch, d: Float64Array, coords: Float64Array, values: Float64Array, type: ElementTypeName,
+  conn: Int32Array, rows: Int32Array, bi: number, offset: number, frame: Float64Array, collect: PolygonCollector | null,
 ): void {
-  const topo = ELEMENT_TYPES[type]
-  const nn = topo.nodeCount, cc = topo.cornerCount
+  const nn = ELEMENT_TYPES[type].nodeCount
   const cases = crossingCases(type)
-  const count = conn.length / nn
-  const dist = sc.dist
+  const ref = referenceDomain(type).ref
   // Imported kernels once into locals: under a CommonJS transform (tsx) each use of an imported
   // name is otherwise a getter call per element.
   const polygon = elementPolygon, integrate = integratePolygon
+  // A small scan finds the cut elements (quick to optimise, so the first cut pays little for
+  // the warm-up), then only those are clipped, in element order.
+  const n = findCutTets(d, conn, conn.length / nn, nn)
+  const list = tetCutList, dist = sc.dist
+  for (let i = 0; i < n; i++) {
+    const base = nn * list[i]
+    dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
+    if (polygon(sc, acc, 0, coords, values, 6, conn, rows, base, cases, frame) < 3) continue
+    integrate(acc, 0, sc, frame, 6)
+    if (collect) {
+      // the drawn polygon needs its vertices' ξ: the linear path has the edge parameters only
+      // implicitly, so map back through the (affine) element
+      linearVertexReference(sc, coords, conn, base, ref)
+      collect.add(sc, bi, list[i], offset + list[i], sc.force, -1, null, false, true)
+    }
+  }
+}
+
+/** ξ of the vertices in sc for a linear simplex: ξ = Σ λ_k ξ_k with λ its barycentric coordinates. */
+function linearVertexReference(sc: PolygonScratch, coords: Float64Array, conn: Int32Array, base: number, ref: Float64Array): void {
+  const p0 = 3 * conn[base], p1 = 3 * conn[base + 1], p2 = 3 * conn[base + 2], p3 = 3 * conn[base + 3]
+  const x0 = coords[p0], y0 = coords[p0 + 1], z0 = coords[p0 + 2]
+  const ax = coords[p1] - x0, ay = coords[p1 + 1] - y0, az = coords[p1 + 2] - z0
+  const bx = coords[p2] - x0, by = coords[p2 + 1] - y0, bz = coords[p2 + 2] - z0
+  const cx = coords[p3] - x0, cy = coords[p3 + 1] - y0, cz = coords[p3 + 2] - z0
+  // λ1 = r·(b × c)/V6, λ2 = r·(c × a)/V6, λ3 = r·(a × b)/V6 with V6 = a·(b × c)
+  const bcx = by * cz - bz * cy, bcy = bz * cx - bx * cz, bcz = bx * cy - by * cx
+  const cax = cy * az - cz * ay, cay = cz * ax - cx * az, caz = cx * ay - cy * ax
+  const abx = ay * bz - az * by, aby = az * bx - ax * bz, abz = ax * by - ay * bx
+  const v6 = ax * bcx + ay * bcy + az * bcz
+  for (let k = 0; k < sc.count; k++) {
+    const rx = sc.pos[3 * k] - x0, ry = sc.pos[3 * k + 1] - y0, rz = sc.pos[3 * k + 2] - z0
+    const l1 = (rx * bcx + ry * bcy + rz * bcz) / v6
+    const l2 = (rx * cax + ry * cay + rz * caz) / v6
+    const l3 = (rx * abx + ry * aby + rz * abz) / v6
+    const l0 = 1 - l1 - l2 - l3
+    for (let c = 0; c < 3; c++) sc.ref[3 * k + c] = l0 * ref[c] + l1 * ref[3 + c] + l2 * ref[6 + c] + l3 * ref[9 + c]
+  }
+}
+
+/**
+ * The geometry pass of one block of any other type: each cut element's polygon (vertices with
+ * exact ξ), its area integrals into `acc`, and its quadrature points (ξ inverted on curved
+ * elements) appended to `geo` for the stress pass; drawn polygons to `collect`.
+ */
+function cutBlock(
+  acc: Float64Array, sc: PolygonScratch, em: ElementMap, geo: SectionGeometry, d: Float64Array,
+  coords: Float64Array, type: ElementTypeName, conn: Int32Array, bi: number, offset: number, frame: Float64Array,
+  collect: PolygonCollector | null,
+): void {
+  const topo = ELEMENT_TYPES[type]
+  const nn = topo.nodeCount, cc = topo.cornerCount
+  const cases = crossingCases(type), domain = referenceDomain(type), rule = sectionRule(type)
+  const subdivide = shapeDegree(type) > 1
+  const count = conn.length / nn
+  const dist = sc.dist
+  const polygon = elementPolygonRef, area = addPolygonArea, points = polygonPoints, load = loadElementMap
+  const one = (e: number): void => {
+    const base = nn * e
+    if (polygon(sc, acc, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) return
+    area(acc, 0, sc)
+    load(em, domain, coords, conn, base)
+    reserveSectionGeometry(geo)
+    const q = points(geo.ref, geo.w, geo.a, geo.b, geo.points, sc, rule, em)
+    if (collect) collect.add(sc, bi, e, offset + e, null, geo.elements, em, subdivide)
+    addSectionElement(geo, bi, e, q)
+  }
   if (cc === 4) {
-    // Tetrahedra (4 corners), the bulk of large models: a small scan finds the cut elements (quick to optimise,
-    // so the first cut pays little for the warm-up), then only those are clipped, in element order.
+    // tetrahedra: the same quick scan as the linear path
     const n = findCutTets(d, conn, count, nn)
     const list = tetCutList
     for (let i = 0; i < n; i++) {
       const base = nn * list[i]
       dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
-      if (polygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
-      integrate(acc, 0, sc, frame, 6)
-      if (collect) collect.add(sc, m, offset + list[i])
+      one(list[i])
     }
     return
   }
@@ -136,9 +238,7 @@ function cutBlock(
       if (dc < 0) neg++
     }
     if (neg === 0 || neg === cc) continue // all corners on one side
-    if (polygon(sc, acc, 0, coords, stress, 6, conn, base, cases, frame) < 3) continue
-    integrate(acc, 0, sc, frame, 6)
-    if (collect) collect.add(sc, m, offset + e)
+    one(e)
   }
 }
 
@@ -183,10 +283,10 @@ export function momentAboutCentroid(acc: Float64Array, off: number, c: ArrayLike
  * `d` holds the snapped per-node distances. c: section centroid, g: volume origin.
  */
 function freeBodyFaces(
-  fb: Float64Array, off: number, coords: Float64Array, stress: Float64Array, faces: BoundaryFaces,
-  tractions: SurfaceTractions, d: Float64Array, sc: PolygonScratch, c: ArrayLike<number>, g: ArrayLike<number>,
+  fb: Float64Array, off: number, mesh: Mesh, stress: StressField, faces: BoundaryFaces,
+  tractions: SurfaceTractions, d: Float64Array, cs: ClipScratch, c: ArrayLike<number>, g: ArrayLike<number>,
 ): void {
-  const nodes = faces.nodes, kind = faces.kind, dist = sc.dist, S = faces.slots
+  const nodes = faces.nodes, kind = faces.kind, dist = cs.sc.dist, S = faces.slots, coords = mesh.coords
   const cx = c[0], cy = c[1], cz = c[2], gx = g[0], gy = g[1], gz = g[2]
   const corners = faceCornerCount, whole = addWholeFace, clipped = addClippedFace
   for (let f = 0; f < faces.count; f++) {
@@ -198,53 +298,7 @@ function freeBodyFaces(
       if (dk < 0) neg++
     }
     if (neg === 0) continue // wholly on the + side (or lying in the plane)
-    if (neg === nc) whole(fb, off, faces, tractions, f, gx, gy, gz)
-    else clipped(fb, off, coords, stress, faces, f, sc, cx, cy, cz, gx, gy, gz)
+    if (neg === nc) whole(fb, off, coords, faces, tractions, f, gx, gy, gz)
+    else clipped(fb, off, mesh, stress, faces, f, d, 0, cs, cx, cy, cz, gx, gy, gz)
   }
-}
-
-type PolygonCollector = ReturnType<typeof createPolygonCollector>
-
-/** Collects drawn polygons into typed arrays that double when full (drawing is not the hot path). */
-function createPolygonCollector() {
-  let start = new Int32Array(1024), elem = new Int32Array(1024)
-  let positions = new Float64Array(8192), traction = new Float64Array(8192)
-  let count = 0, verts = 0
-  return {
-    add(sc: PolygonScratch, m: Vec3, e: number): void {
-      const n = sc.count
-      if (count + 2 > start.length) { start = growInt(start); elem = growInt(elem) }
-      if (3 * (verts + n) > positions.length) { positions = growFloat(positions); traction = growFloat(traction) }
-      const sig = sc.sig, pos = sc.pos, order = sc.order
-      const mx = m[0], my = m[1], mz = m[2]
-      for (let i = 0; i < n; i++) {
-        const k = order[i], s = 6 * k, o = 3 * (verts + i)
-        positions[o] = pos[3 * k]; positions[o + 1] = pos[3 * k + 1]; positions[o + 2] = pos[3 * k + 2]
-        traction[o] = sig[s] * mx + sig[s + 3] * my + sig[s + 5] * mz
-        traction[o + 1] = sig[s + 3] * mx + sig[s + 1] * my + sig[s + 4] * mz
-        traction[o + 2] = sig[s + 5] * mx + sig[s + 4] * my + sig[s + 2] * mz
-      }
-      verts += n
-      elem[count++] = e
-      start[count] = verts
-    },
-    finish(): SectionPolygons {
-      return {
-        count, start: start.slice(0, count + 1), positions: positions.slice(0, 3 * verts),
-        traction: traction.slice(0, 3 * verts), elem: elem.slice(0, count),
-      }
-    },
-  }
-}
-
-function growInt(a: Int32Array<ArrayBuffer>): Int32Array<ArrayBuffer> {
-  const b = new Int32Array(2 * a.length)
-  b.set(a)
-  return b
-}
-
-function growFloat(a: Float64Array<ArrayBuffer>): Float64Array<ArrayBuffer> {
-  const b = new Float64Array(2 * a.length)
-  b.set(a)
-  return b
 }

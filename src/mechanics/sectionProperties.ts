@@ -3,7 +3,8 @@
  * and axes, and the resultant in section axes, from a section accumulator (sectionPolygon.ts).
  */
 import type { Vec3 } from '../model/model.ts'
-import type { BalanceFigure, SectionResult } from './types.ts'
+import type { FreeBodyFigure, SectionResult } from './types.ts'
+import { ZERO_FREE_BODY } from './freeBody.ts'
 import {
   ACC_AREA, ACC_CUT, ACC_FORCE, ACC_ORIGIN, ACC_SA, ACC_SAA, ACC_SAB, ACC_SB, ACC_SBB, sectionMomentAtOrigin,
 } from './sectionPolygon.ts'
@@ -43,8 +44,6 @@ export function principalAxes(acc: Float64Array, off: number, frame: Float64Arra
   return { I1: mean + rad, I2: mean - rad, e1, e2 }
 }
 
-const ZERO_FIGURE: BalanceFigure = { force: [0, 0, 0], moment: [0, 0, 0], relative: 0, gross: 0 }
-
 /** The record of a plane that misses the body: every figure zero, centroid = the plane point. */
 export function emptySection(point: Vec3, m: Vec3, frame: Float64Array, about: Vec3 | null): SectionResult {
   return {
@@ -52,7 +51,7 @@ export function emptySection(point: Vec3, m: Vec3, frame: Float64Array, about: V
     about: about ?? [point[0], point[1], point[2]], force: [0, 0, 0], moment: [0, 0, 0],
     axes: { e1: [frame[0], frame[1], frame[2]], e2: [frame[3], frame[4], frame[5]], e3: [m[0], m[1], m[2]] },
     secondMoments: { I1: 0, I2: 0, J: 0 }, axial: 0, shear: [0, 0], torque: 0, bending: [0, 0],
-    freeBody: ZERO_FIGURE, cutElements: 0,
+    freeBody: ZERO_FREE_BODY, cutElements: 0, unmappedPoints: 0,
   }
 }
 
@@ -61,7 +60,7 @@ export function emptySection(point: Vec3, m: Vec3, frame: Float64Array, about: V
  * origin o to `about` (default: the centroid): M_about = M_o + (o - about) × F.
  */
 export function sectionRecord(
-  acc: Float64Array, off: number, point: Vec3, m: Vec3, frame: Float64Array, about: Vec3 | null, freeBody: BalanceFigure,
+  acc: Float64Array, off: number, point: Vec3, m: Vec3, frame: Float64Array, about: Vec3 | null, freeBody: FreeBodyFigure, unmappedPoints: number,
 ): SectionResult {
   const c = sectionCentroid(new Float64Array(3), acc, off, frame)
   const centroid: Vec3 = [c[0], c[1], c[2]]
@@ -81,6 +80,6 @@ export function sectionRecord(
     force: F, moment: M, axes: { e1, e2, e3: [m[0], m[1], m[2]] },
     secondMoments: { I1, I2, J: I1 + I2 },
     axial: dot(F, m), shear: [dot(F, e1), dot(F, e2)], torque: dot(M, m), bending: [dot(M, e1), dot(M, e2)],
-    freeBody, cutElements: acc[off + ACC_CUT],
+    freeBody, cutElements: acc[off + ACC_CUT], unmappedPoints,
   }
 }

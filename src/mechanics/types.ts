@@ -168,19 +168,62 @@ export interface SectionResult {
   readonly shear: [number, number]
   readonly torque: number
   readonly bending: [number, number]
-  readonly freeBody: BalanceFigure
+  readonly freeBody: FreeBodyFigure
   readonly cutElements: number
+  /**
+   * Section points (quadrature points, drawn midpoints) of curved elements where the element map
+   * could not be inverted (inverseMap.ts): their stress is taken at a clamped linear estimate.
+   * 0 on any sound mesh; a positive count names a badly shaped element near the plane.
+   */
+  readonly unmappedPoints: number
 }
 
 /**
- * The section polygons for drawing: polygon p has vertices `start[p]..start[p+1]-1` in
- * `positions` (3 per vertex), with the traction σm at each vertex in `traction` (3 per vertex),
- * and `elem[p]` the global element index it cuts.
+ * Free body of the piece on the -m side of a section: the residual force and moment (about the
+ * section centroid) of its boundary tractions, body force and the section resultant.
+ * `gross` = half the sum of |∫ t dA| over the piece's boundary faces (whole and clipped), over the
+ * section's polygons (one per cut element) and |ρb| V: the load passing through the piece counted
+ * with the section's traction distribution, not its resultant. `relative` = |force| / gross;
+ * `momentRelative` = |moment| / (gross · size) with `size` the diagonal of the piece's bounding
+ * box (model length).
+ */
+export interface FreeBodyFigure extends BalanceFigure {
+  readonly momentRelative: number
+  readonly size: number
+}
+
+/**
+ * The section polygons for drawing, arrows and the probe (sectionDrawing.ts): polygon p has
+ * vertices `start[p]..start[p+1]-1` in `positions` (3 per vertex, counter-clockwise about m), with
+ * the traction σm at each vertex in `traction` (3 per vertex) and its reference coordinates ξ in
+ * its element in `reference` (3 per vertex); `elem[p]` is the global element index it cuts.
+ * Per polygon, from the cut's own quadrature: `area` (P), area `centroid` (3·P) and `force`
+ * (3·P) = ∫ σm dA. `fill`: the triangles to colour (see SectionFill).
+ * Stress is interpolated by the element's shape functions everywhere (DESIGN.md).
  */
 export interface SectionPolygons {
   readonly count: number
   readonly start: Int32Array
   readonly positions: Float64Array
   readonly traction: Float64Array
+  readonly reference: Float64Array
   readonly elem: Int32Array
+  readonly area: Float64Array
+  readonly centroid: Float64Array
+  readonly force: Float64Array
+  readonly fill: SectionFill
+}
+
+/**
+ * Fill triangles of the section (V points, T triangles): `positions` (3·V) and `traction` σm
+ * (3·V) per point; `index` (3·T) into them, counter-clockwise about m; `element` (T) the global
+ * element index of each triangle. Points are not shared between polygons (σm jumps between
+ * elements). For types whose stress is not linear, each fan triangle of a polygon is split in
+ * four at its edge midpoints, which carry the element's own interpolated traction.
+ */
+export interface SectionFill {
+  readonly positions: Float64Array
+  readonly traction: Float64Array
+  readonly index: Uint32Array
+  readonly element: Int32Array
 }

@@ -52,7 +52,7 @@ if (arg === '--write') {
   const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces)
   const elements = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, field, bodyForce)
   const body = computeBodyBalance(mesh, faces, tractions, bodyForce)
-  const cut = cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions })
+  const cut = cutSection(mesh, nodalStressField(mesh, stress), bodyForce, BENCH_PLANE, { faces, tractions })
   // Keep every result reachable until the measurement, as a user session would.
   const keep = [faces.count, tractions.force.length, elements.indicator.length, body.relative, cut.result.area]
   const maxRssBytes = process.resourceUsage().maxRSS * 1024

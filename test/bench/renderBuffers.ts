@@ -24,7 +24,7 @@ const mesh = model.mesh
 const faces = extractBoundaryFaces(mesh)
 const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, model.stress), faces)
 const invariants = computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), model.stress)
-const { polygons } = cutSection(mesh, model.stress, model.bodyForce, BENCH_PLANE, { faces, tractions, polygons: true })
+const { polygons } = cutSection(mesh, nodalStressField(mesh, model.stress), model.bodyForce, BENCH_PLANE, { faces, tractions, polygons: true })
 if (!polygons) throw new Error('the bench plane misses the block')
 
 const runs = 5

@@ -22,6 +22,7 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mec
 import { nodalStressField } from '../../src/model/stressField.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { benchCutTypes } from './sectionCut.ts'
 import { syntheticModel, cellsPerSide } from './syntheticModel.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { streamBytes, streamConnCoords, streamConnCoordsStress, streamText } from './streamingLimit.ts'
@@ -143,7 +144,7 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   checks.elementIndicatorMax = maxIndicator
 
   log(`${label}: section cut`)
-  const cut = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false }), { runs: runsFor(E, 11), warmup: 15 })
+  const cut = measure(() => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false }), { runs: runsFor(E, 11), warmup: 15 })
   const r = cut.value.result
   checks.cutElements = r.cutElements
   checks.cutFreeBodyRelative = r.freeBody.relative
@@ -218,6 +219,11 @@ for (const type of ['tet4', 'hex8'] as const) {
   models[type] = benchModel(model, type === 'tet4' || ELEMENTS < 5e5, `${type} ${model.mesh.elementCount}`)
 }
 
+// The section cut per element type at the same element count, back to back (test/bench/sectionCut.ts):
+// the tet10 cut (shape functions) against the tet4 cut (closed forms), and hex8 for comparison.
+log('section cut per element type')
+const cutByType = benchCutTypes(ELEMENTS, SEED, ['tet4', 'tet10', 'hex8'], log)
+
 // Cost growth on tet4 over three sizes a decade apart, the largest being the main run.
 const sizes = [Math.round(ELEMENTS / 100), Math.round(ELEMENTS / 10)]
 const growthRuns: ModelFigures[] = []
@@ -243,6 +249,7 @@ const targets = [
   { name: 'element balance audit ≤ 400 ms', value: k.audit.medianMs, cpu: k.audit.cpuMs, pass: k.audit.medianMs <= 400, cpuPass: k.audit.cpuMs <= 400 },
   { name: 'section cut with free body ≤ 20 ms', value: k.cut.medianMs, cpu: k.cut.cpuMs, pass: k.cut.medianMs <= 20, cpuPass: k.cut.cpuMs <= 20 },
   { name: 'section cut within 4x the streaming limit', value: k.cut.vsStreaming, cpu: k.cut.vsStreamingCpu, pass: k.cut.vsStreaming <= 4, cpuPass: k.cut.vsStreamingCpu <= 4 },
+  { name: 'tet10 cut ≤ 3 × tet4 cut (same elements)', value: cutByType.tet10OverTet4!.medianOverTet4, cpu: cutByType.tet10OverTet4!.cpuOverTet4, pass: cutByType.tet10OverTet4!.medianOverTet4 <= 3, cpuPass: cutByType.tet10OverTet4!.cpuOverTet4 <= 3 },
   { name: 'CSV read ≥ 100 MB/s', value: k.readCsv.mbPerS!, cpu: tet.csvBytes / 1e3 / k.readCsv.cpuMs, pass: k.readCsv.mbPerS! >= 100, cpuPass: tet.csvBytes / 1e3 / k.readCsv.cpuMs >= 100 },
   { name: 'native read ≥ 1000 MB/s', value: k.readNative.mbPerS!, cpu: tet.modelBytes / 1e3 / k.readNative.cpuMs, pass: k.readNative.mbPerS! >= 1000, cpuPass: tet.modelBytes / 1e3 / k.readNative.cpuMs >= 1000 },
   { name: 'peak RSS ≤ idle + 3 × model bytes (MB)', value: memory.peakRssBytes / 1e6, cpu: null, pass: memory.peakRssBytes <= memLimit, cpuPass: null },
@@ -259,6 +266,7 @@ const result = {
   machine: { loadAverage: [loadBefore, os.loadavg()[0]], cpus: os.cpus().length, cpuModel: os.cpus()[0]?.model ?? 'unknown', node: process.version, platform: `${os.platform()} ${os.arch()}`, totalMemBytes: os.totalmem() },
   models,
   growth: { elements: growthSizes, kernels: growth },
+  sectionCutByType: cutByType,
   targets: targets.map((t) => ({ ...t, appliesAt: 'tet4, 10^6 elements' })),
   totalSeconds,
 }
@@ -293,6 +301,12 @@ function renderTables(): string {
     out.push(pad(rows))
     out.push('checks: ' + Object.entries(m.checks).map(([a, b]) => `${a} ${typeof b === 'number' ? f(b) : b}`).join(', '))
   }
+  out.push('')
+  out.push('Section cut per element type (free body included, polygons off; sweep: 200 sections)')
+  const ct = [['type', 'elements', 'nodes', 'cut elements', 'median ms', 'min ms', 'cpu ms', 'with polygons ms', 'sweep ms', 'unmapped']]
+  for (const [t, r] of Object.entries(cutByType.rows)) ct.push([t, String(r.elements), String(r.nodes), String(r.cutElements), f(r.cutMedianMs), f(r.cutMinMs), f(r.cutCpuMs), f(r.cutWithPolygonsMedianMs), f(r.sweep200MedianMs), String(r.unmappedPoints)])
+  out.push(pad(ct))
+  out.push(`tet10 / tet4: median ${f(cutByType.tet10OverTet4?.medianOverTet4)}, min ${f(cutByType.tet10OverTet4?.minOverTet4)}, cpu ${f(cutByType.tet10OverTet4?.cpuOverTet4)}; hex8 / tet4: median ${f(cutByType.hex8OverTet4?.medianOverTet4)}`)
   out.push('')
   out.push(`Cost growth (tet4), time ∝ elements^exponent over ${growthSizes.join(', ')} elements`)
   const g = [['kernel', ...growthSizes.map((s) => `${s} ms`), 'exponent']]

@@ -1,6 +1,7 @@
 /**
  * Seeded synthetic models for the benchmarks: a structured unit block as hex8, or the same block
- * split into tet4 (six per cell), with interior nodes jittered by a seeded generator and a smooth
+ * split into tet4 (six per cell; tet10: the same tets with straight mid-edge nodes added after the
+ * jitter), with interior nodes jittered by a seeded generator and a smooth
  * analytic stress field that is in equilibrium with a gravity-like body force.
  *
  * The field (x, y, z in m, stress in Pa, invented for benchmarking):
@@ -13,7 +14,8 @@
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import type { Model, Vec3 } from '../../src/model/model.ts'
 import { DEFAULT_UNITS } from '../../src/model/units.ts'
-import { boxMesh } from '../../src/model/boxMesh.ts'
+import { addMidEdgeNodes, boxMesh } from '../../src/model/boxMesh.ts'
+import { createMesh } from '../../src/model/createMesh.ts'
 
 export const FIELD = { A: 1e6, B: 5e5, C: -2e5, D: 3e5, gamma: 2.35e4, E: 1e5, F: -1.5e5, G: 2e5 } as const
 
@@ -30,7 +32,7 @@ export function mulberry32(seed: number): () => number {
 }
 
 /** Cells per side so that the block has about `elements` elements of `type`. */
-export function cellsPerSide(type: 'hex8' | 'tet4', elements: number): number {
+export function cellsPerSide(type: 'hex8' | 'tet4' | 'tet10', elements: number): number {
   return Math.max(1, Math.round(Math.cbrt(type === 'hex8' ? elements : elements / 6)))
 }
 
@@ -51,13 +53,13 @@ export const BODY_FORCE: Vec3 = [0, 0, -FIELD.gamma]
  * per coordinate (0.1 cannot invert a Kuhn tetrahedron, whose smallest height is 0.707 cells),
  * boundary nodes stay on the block's faces so its surface stays flat.
  */
-export function syntheticModel(type: 'hex8' | 'tet4', elements: number, seed = 1, jitter = 0.1): Model {
+export function syntheticModel(type: 'hex8' | 'tet4' | 'tet10', elements: number, seed = 1, jitter = 0.1): Model {
   const n = cellsPerSide(type, elements)
-  const mesh = boxMesh({ nx: n, ny: n, nz: n, lx: 1, ly: 1, lz: 1 }, type as ElementTypeName)
-  const x = mesh.coords
+  const corners = boxMesh({ nx: n, ny: n, nz: n, lx: 1, ly: 1, lz: 1 }, (type === 'tet10' ? 'tet4' : type) as ElementTypeName)
+  const x = corners.coords
   const rnd = mulberry32(seed)
   const h = 1 / n
-  const N = mesh.nodeCount
+  const N = corners.nodeCount
   for (let i = 0; i < N; i++) {
     for (let k = 0; k < 3; k++) {
       const v = x[3 * i + k]
@@ -66,8 +68,13 @@ export function syntheticModel(type: 'hex8' | 'tet4', elements: number, seed = 1
       else rnd()
     }
   }
-  const stress = new Float64Array(6 * N)
-  for (let i = 0; i < N; i++) analyticStress(stress, 6 * i, x[3 * i], x[3 * i + 1], x[3 * i + 2])
+  // tet10: mid-edge nodes at the midpoints of the jittered edges (straight-sided elements)
+  const mesh = type === 'tet10'
+    ? (() => { const q = addMidEdgeNodes(x, corners.blocks[0].conn, 'tet4', 'tet10'); return createMesh(q.coords, [{ type: 'tet10', conn: q.conn }]) })()
+    : corners
+  const xs = mesh.coords, NS = mesh.nodeCount
+  const stress = new Float64Array(6 * NS)
+  for (let i = 0; i < NS; i++) analyticStress(stress, 6 * i, xs[3 * i], xs[3 * i + 1], xs[3 * i + 2])
   return {
     name: `bench-${type}-${n}`,
     description: `Synthetic ${type} block, ${n} cells per side, seed ${seed} (invented data for benchmarking)`,

@@ -85,7 +85,7 @@ describe('tractus cut', () => {
   it('prints every documented field equal to the section kernel', async () => {
     const point: Vec3 = [0.41, 0.52, 0.47], normal: Vec3 = [0.2, -0.3, 1], about: Vec3 = [0.1, 0.2, 0.3]
     const j = await cliJson('cut', bundle, '--point', point.join(','), '--normal', normal.join(','), '--about', about.join(','))
-    const r = cutSection(model.mesh, model.stress, model.bodyForce, { point, normal }, { about }).result
+    const r = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, { point, normal }, { about }).result
     close(j.area, r.area)
     closeVec(j.centroid, r.centroid)
     expect(j.about).toEqual(about)
@@ -101,6 +101,9 @@ describe('tractus cut', () => {
     closeVec(j.freeBody.force, r.freeBody.force)
     closeVec(j.freeBody.moment, r.freeBody.moment)
     close(j.freeBody.relative, r.freeBody.relative)
+    close(j.freeBody.momentRelative, r.freeBody.momentRelative)
+    close(j.freeBody.gross, r.freeBody.gross)
+    expect(j.unmappedPoints).toBe(0)
   })
 
   it('converts to US customary units with the NIST SP 811 factors', async () => {
@@ -171,7 +174,7 @@ describe('tractus audit', () => {
 describe('tractus sweep', () => {
   it('gives the sections of the sweep kernel, as JSON and as CSV', async () => {
     const j = await cliJson('sweep', bundle, '--normal', '0,0,2', '--from', '0.1', '--to', '0.9', '--count', '5')
-    const ref = sweepSections(model.mesh, model.stress, model.bodyForce, [0, 0, 1], 0.1, 0.9, 5)
+    const ref = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, [0, 0, 1], 0.1, 0.9, 5)
     expect(j.sections.length).toBe(5)
     j.sections.forEach((s: { offset: number; area: number; force: number[]; moment: number[]; axial: number }, k: number) => {
       close(s.offset, ref.offsets[k])
@@ -185,6 +188,11 @@ describe('tractus sweep', () => {
     expect(lines.length).toBe(6)
     expect(lines[0]).toMatch(/^offset \[m\],area \[m²\],/)
     expect(Number(lines[3].split(',')[0])).toBeCloseTo(0.5, 12)
+    // the free body's moment column sits beside its force column
+    const head = lines[0].split(',')
+    const col = head.indexOf('freebody_moment_relative')
+    expect(col).toBe(head.indexOf('freebody_relative') + 1)
+    close(Number(lines[3].split(',')[col]), ref.results[2].freeBody.momentRelative)
   })
 })
 

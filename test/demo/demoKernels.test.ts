@@ -6,6 +6,7 @@ import { TUNNEL_DEFAULTS } from '../../src/demo/tunnelBlock.ts'
 import { readNative } from '../../src/io/nativeContainer.ts'
 import { analysisInputOf, runAnalysis } from '../../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 
 // The committed full-size demo files, checked with the project's own pipeline and kernels (what a user sees).
 const load = (id: string) => readNative(readFileSync(join('public', 'demo', id, `${id}.tractus`)), `${id}.tractus`)
@@ -28,7 +29,7 @@ describe('committed demo: lifting lug through the mechanics kernels', () => {
   it('a cut through the shank carries the pin load within 2 % (force and moment about its centroid)', () => {
     // Free body above the cut (statics, common practice). The cut at y = 60 mm runs through elements.
     // The pressure on the hole is radial, so the pin load's line of action passes through the hole centre.
-    const { result } = cutSection(mesh, stress, bodyForce, { point: [0, 60, spec.thickness / 2], normal: [0, 1, 0] })
+    const { result } = cutSection(mesh, nodalStressField(mesh, stress), bodyForce, { point: [0, 60, spec.thickness / 2], normal: [0, 1, 0] })
     const dF = Math.hypot(result.force[0] - P[0], result.force[1] - P[1], result.force[2] - P[2]) / spec.load
     const c = result.centroid
     const rx = 0 - c[0], ry = spec.holeHeight - c[1]
@@ -71,7 +72,7 @@ describe('committed demo: tunnel block through the mechanics kernels', () => {
 
   it('a horizontal cut through the tunnel axis carries the overburden and the rock above', () => {
     const yc = s.height / 2
-    const { result } = cutSection(mesh, stress, bodyForce, { point: [0, yc + 1e-3, s.slice / 2], normal: [0, 1, 0] })
+    const { result } = cutSection(mesh, nodalStressField(mesh, stress), bodyForce, { point: [0, yc + 1e-3, s.slice / 2], normal: [0, 1, 0] })
     const gamma = (s.density * s.gravity) / 1000
     // Rock above the cut: the block above y_c + 1 mm less the upper half of the tunnel above it (nearly πa²/2).
     const above = (s.width * (s.height - yc - 1e-3) - (Math.PI * s.radius ** 2) / 2) * s.slice

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest'
 import { readCsvBundle } from '../../src/io/index.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { bundleFiles, bundleTexts, cantileverModel } from './bundle.ts'
 import { figure, newPage, useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
@@ -157,7 +158,7 @@ describe('section card against cutSection in Node', () => {
       const plane = await planeOf(page)
       const got: Record<string, number> = {}
       for (const k of KEYS) got[k] = await figure(page, k)
-      const { result: r } = cutSection(reference.mesh, reference.stress, reference.bodyForce, plane)
+      const { result: r } = cutSection(reference.mesh, nodalStressField(reference.mesh, reference.stress), reference.bodyForce, plane)
       const want: Record<string, number> = {
         axial: r.axial, shear1: r.shear[0], shear2: r.shear[1], torque: r.torque, bending1: r.bending[0], bending2: r.bending[1],
         Fx: r.force[0], Fy: r.force[1], Fz: r.force[2], Mx: r.moment[0], My: r.moment[1], Mz: r.moment[2],

@@ -8,6 +8,12 @@ import { createMesh } from '../../src/model/createMesh.ts'
 import type { BlockInput } from '../../src/model/createMesh.ts'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../../src/model/model.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
+import { cutSection } from '../../src/mechanics/sectionCut.ts'
+import type { CutSectionOptions } from '../../src/mechanics/sectionCut.ts'
+import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
+import type { SweepOptions } from '../../src/mechanics/sectionSweep.ts'
+import type { SectionPlane } from '../../src/mechanics/types.ts'
 
 import { rotateMesh, rotateStressField, rotateVec } from './rotation.ts'
 import type { Mat3 } from './rotation.ts'
@@ -154,3 +160,13 @@ function tetVolume(x: Float64Array, q: readonly number[]): number {
 
 export const norm = (v: readonly number[]) => Math.hypot(v[0], v[1], v[2])
 export const sub = (a: readonly number[], b: readonly number[]): Vec3 => [a[0] - b[0], a[1] - b[1], a[2] - b[2]]
+
+/** cutSection on nodal stress (the tests' common case): the field's rows are the connectivity. */
+export function cutNodal(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, plane: SectionPlane, options?: CutSectionOptions) {
+  return cutSection(mesh, nodalStressField(mesh, stress), bodyForce, plane, options)
+}
+
+/** sweepSections on nodal stress. */
+export function sweepNodal(mesh: Mesh, stress: Float64Array, bodyForce: Vec3, normal: Vec3, from: number, to: number, count: number, options?: SweepOptions) {
+  return sweepSections(mesh, nodalStressField(mesh, stress), bodyForce, normal, from, to, count, options)
+}

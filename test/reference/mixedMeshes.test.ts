@@ -8,6 +8,7 @@
  *   about its centroid; also rotated (x' = Qx, σ' = QσQᵀ: F' = QF);
  * - the readers: CSV bundle and .tractus container give the model back bit for bit.
  */
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { describe, expect, it } from 'vitest'
 import type { BoxSpec } from '../../src/model/boxMesh.ts'
 import { mixedBoxMesh, mixedLayout } from '../../src/demo/mixedMesh.ts'
@@ -100,13 +101,13 @@ describe.each(meshes)('conforming mixed mesh (%s)', (_name, mesh, types) => {
     const stress = uniform(mesh, SIGMA)
     const rotated = rotateMesh(mesh, Q), rotatedStress = uniform(rotated, rotateStress(Q, SIGMA))
     for (const [p, n, area] of planes) {
-      const { result: r } = cutSection(mesh, stress, [0, 0, 0], { point: p, normal: n })
+      const { result: r } = cutSection(mesh, nodalStressField(mesh, stress), [0, 0, 0], { point: p, normal: n })
       expect(r.area).toBeCloseTo(area, 12)
       const t = sigmaN(SIGMA, r.plane.normal)
       for (let k = 0; k < 3; k++) expect(Math.abs(r.force[k] - t[k] * area)).toBeLessThan(1e-12 * maxAbs(SIGMA) * area)
       expect(Math.hypot(...r.moment)).toBeLessThan(1e-12 * maxAbs(SIGMA) * area * 3)
       expect(r.freeBody.relative).toBeLessThan(1e-10)
-      const rq = cutSection(rotated, rotatedStress, [0, 0, 0], { point: rotateVec(Q, p), normal: rotateVec(Q, n) }).result
+      const rq = cutSection(rotated, nodalStressField(rotated, rotatedStress), [0, 0, 0], { point: rotateVec(Q, p), normal: rotateVec(Q, n) }).result
       const F = rotateVec(Q, r.force)
       for (let k = 0; k < 3; k++) expect(Math.abs(rq.force[k] - F[k])).toBeLessThan(1e-11 * maxAbs(SIGMA) * area)
     }

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import type { Vec3 } from '../../src/model/model.ts'
-import { anyBox, cylinderMesh, rotateModel, rotateVec, rotationFromQuaternion, uniformStress } from '../helpers/sectionMeshes.ts'
+import {
+  anyBox, cutNodal, cylinderMesh, rotateModel, rotateVec, rotationFromQuaternion, uniformStress,
+} from '../helpers/sectionMeshes.ts'
 import type { BoxKind } from '../helpers/sectionMeshes.ts'
 
 const ZERO: Vec3 = [0, 0, 0]
@@ -19,7 +20,7 @@ describe('section properties of a rectangle', () => {
     const mesh = mixed ? anyBox('mixed', 6, 3, 4, L, b, h) : anyBox(kind, 3, 4, 5, b, h, L)
     const stress = uniformStress(mesh, [0, 0, 0, 0, 0, 0])
     const point: Vec3 = mixed ? [0.613 * L, b / 2, h / 2] : [b / 2, h / 2, 0.613 * L]
-    const { result: r } = cutSection(mesh, stress, ZERO, { point, normal: mixed ? [1, 0, 0] : [0, 0, 1] })
+    const { result: r } = cutNodal(mesh, stress, ZERO, { point, normal: mixed ? [1, 0, 0] : [0, 0, 1] })
     const bAxis = mixed ? 1 : 0, hAxis = mixed ? 2 : 1
     expect(r.area).toBeCloseTo(b * h, 12)
     expect(r.centroid[bAxis]).toBeCloseTo(b / 2, 12)
@@ -39,7 +40,7 @@ describe('section properties of a rectangle', () => {
     const mesh = anyBox('hex8', 3, 4, 5, b, h, L)
     const Q = rotationFromQuaternion(0.9, 0.2, -0.3, 0.25)
     const rot = rotateModel(mesh, uniformStress(mesh, [0, 0, 0, 0, 0, 0]), Q)
-    const { result: r } = cutSection(rot.mesh, rot.stress, ZERO, { point: rotateVec(Q, [b / 2, h / 2, 0.4 * L]), normal: rotateVec(Q, [0, 0, 1]) })
+    const { result: r } = cutNodal(rot.mesh, rot.stress, ZERO, { point: rotateVec(Q, [b / 2, h / 2, 0.4 * L]), normal: rotateVec(Q, [0, 0, 1]) })
     expect(Math.abs(r.secondMoments.I1 - Ib)).toBeLessThan(1e-12 * Ib)
     expect(Math.abs(r.secondMoments.I2 - Ih)).toBeLessThan(1e-12 * Ib)
     const x = rotateVec(Q, [1, 0, 0])
@@ -64,7 +65,7 @@ describe('annular section of a cylinder mesh', () => {
     const errors: number[] = []
     for (const n of [16, 32, 64, 128]) {
       const mesh = cylinderMesh(a, b, 0.4, 2, n, 2, type)
-      const { result: r } = cutSection(mesh, uniformStress(mesh, [0, 0, 0, 0, 0, 0]), ZERO, { point: [0, 0, 0.137], normal: [0, 0, 1] })
+      const { result: r } = cutNodal(mesh, uniformStress(mesh, [0, 0, 0, 0, 0, 0]), ZERO, { point: [0, 0, 0.137], normal: [0, 0, 1] })
       const ring = { A: ngon(b, n).A - ngon(a, n).A, I: ngon(b, n).I - ngon(a, n).I }
       expect(Math.abs(r.area - ring.A)).toBeLessThan(1e-12 * ring.A)
       expect(Math.abs(r.secondMoments.I1 - ring.I)).toBeLessThan(1e-11 * ring.I)

@@ -139,7 +139,7 @@ export function CutCard() {
               </table>
               <table className="figures">
                 <caption>Free body on the −n side</caption>
-                <tbody>{['fbF', 'fbM', 'fbRel'].map((k) => <Row key={k} k={k} />)}</tbody>
+                <tbody>{['fbF', 'fbM', 'fbRel', 'fbRelM'].map((k) => <Row key={k} k={k} />)}</tbody>
               </table>
               <div className="row">
                 <button type="button" data-testid="export-section-csv" onClick={() => download(`${fileStem(model.name)}-section.csv`, sectionCsv(model, result!, system), 'text/csv')}>Section CSV</button>

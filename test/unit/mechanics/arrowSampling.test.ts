@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
 import { sampleSectionArrows, sampleSurfaceArrows, stratifiedByArea } from '../../../src/mechanics/arrowSampling.ts'
-import type { BoundaryFaces, SectionPolygons, SurfaceTractions } from '../../../src/mechanics/types.ts'
+import type { BoundaryFaces, SurfaceTractions } from '../../../src/mechanics/types.ts'
+import { boxMesh } from '../../../src/model/boxMesh.ts'
+import { cutSection } from '../../../src/mechanics/sectionCut.ts'
+import { nodalStressField } from '../../../src/model/stressField.ts'
 import type { Vec3 } from '../../../src/model/model.ts'
 
 /** F faces with given areas along x, normal +z, force = t·area (t per face). */
@@ -120,22 +123,20 @@ describe('sampleSurfaceArrows', () => {
 })
 
 describe('sampleSectionArrows', () => {
-  it('sums to ∫ σm dA over the fan triangles (linear traction is integrated exactly)', () => {
-    // Two unit squares in z = 0, m = +z, traction linear in x: t = (0, 0, x) → ∫ t dA over
-    // [0,2]×[0,1] = (0, 0, 2) (elementary calculus).
-    const polygons: SectionPolygons = {
-      count: 2,
-      start: new Int32Array([0, 4, 8]),
-      positions: new Float64Array([0, 0, 0, 1, 0, 0, 1, 1, 0, 0, 1, 0, 1, 0, 0, 2, 0, 0, 2, 1, 0, 1, 1, 0]),
-      traction: new Float64Array([0, 0, 0, 0, 0, 1, 0, 0, 1, 0, 0, 0, 0, 0, 1, 0, 0, 2, 0, 0, 2, 0, 0, 1]),
-      elem: new Int32Array([3, 4]),
-    }
-    const a = sampleSectionArrows(polygons, [0, 0, 2])
+  it('sums to the section resultant: one arrow per polygon with its own ∫ σm dA', () => {
+    // Two hex8 cells [0,2]×[0,1]×[0,1], σzz = x·y (bilinear, exact in hex8), plane z = 0.5:
+    // ∫∫ x y dx dy over [0,2]×[0,1] = 2 · 1/2 = 1 (elementary calculus).
+    const mesh = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }, 'hex8')
+    const stress = new Float64Array(6 * mesh.nodeCount)
+    for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = mesh.coords[3 * i] * mesh.coords[3 * i + 1]
+    const { result, polygons } = cutSection(mesh, nodalStressField(mesh, stress), [0, 0, 0], { point: [0, 0, 0.5], normal: [0, 0, 1] }, { polygons: true })
+    const a = sampleSectionArrows(polygons!, [0, 0, 2])
     expect(a.count).toBe(2)
     const s = weightedSum(a)
-    expect(s[2]).toBeCloseTo(2, 12)
+    expect(s[2]).toBeCloseTo(1, 12)
+    expect(s[2]).toBeCloseTo(result.force[2], 12)
     expect(Array.from(a.weights)).toEqual([1, 1])
-    expect(Array.from(a.origins)).toEqual([0.5, 0.5, 0, 1.5, 0.5, 0])
-    expect(sampleSectionArrows(polygons, [0, 0, 1], { mode: 'shear' }).maxMagnitude).toBe(0)
+    expect(Array.from(a.origins)).toEqual([0.5, 0.5, 0.5, 1.5, 0.5, 0.5])
+    expect(sampleSectionArrows(polygons!, [0, 0, 1], { mode: 'shear' }).maxMagnitude).toBe(0)
   })
 })

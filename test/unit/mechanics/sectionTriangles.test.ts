@@ -1,55 +1,91 @@
 import { describe, expect, it } from 'vitest'
 import { buildSectionTriangles } from '../../../src/mechanics/sectionTriangles.ts'
-import type { SectionPolygons } from '../../../src/mechanics/types.ts'
+import { sectionStressAt } from '../../../src/mechanics/sectionDrawing.ts'
+import { shapeDegree } from '../../../src/mechanics/sectionRule.ts'
+import { ELEMENT_TYPE_NAMES } from '../../../src/model/elementTypes.ts'
+import { nodalStressField } from '../../../src/model/stressField.ts'
+import type { Vec3 } from '../../../src/model/model.ts'
+import { exactFields, singleElement, stressOf } from '../../helpers/sectionElements.ts'
+import { anyBox, cutNodal, nodalStress, tractionOf } from '../../helpers/sectionMeshes.ts'
+import { quarterCylinder } from '../../helpers/mappedMeshes.ts'
+
+const ZERO: Vec3 = [0, 0, 0]
 
 describe('buildSectionTriangles', () => {
-  // A triangle, a square and a regular hexagon in the plane x = 1 (m = +x), traction σm given
-  // per vertex with normal part i and shear part (0, 2i, 0).
-  const hex = Array.from({ length: 6 }, (_, i) => [1, 5 + Math.cos((i * Math.PI) / 3), Math.sin((i * Math.PI) / 3)])
-  const verts = [[1, 0, 0], [1, 1, 0], [1, 0, 1], [1, 2, 0], [1, 3, 0], [1, 3, 1], [1, 2, 1], ...hex]
-  const polygons: SectionPolygons = {
-    count: 3,
-    start: new Int32Array([0, 3, 7, 13]),
-    positions: new Float64Array(verts.flat()),
-    traction: new Float64Array(verts.flatMap((_, i) => [i, 2 * i, 0])),
-    elem: new Int32Array([10, 11, 12]),
-  }
-  const s = buildSectionTriangles(polygons, [3, 0, 0])
-
-  it('fans an n-gon into n - 2 triangles over its own vertices', () => {
-    expect(s.positions.length).toBe(3 * 13)
-    expect(s.index.length).toBe(3 * (1 + 2 + 4))
-    expect(Array.from(s.triangleElement)).toEqual([10, 11, 11, 12, 12, 12, 12])
-    expect(Array.from(s.index.subarray(0, 9))).toEqual([0, 1, 2, 3, 4, 5, 3, 5, 6])
-    expect(s.normal).toEqual([1, 0, 0])
-  })
-
-  it('fan areas add up to the polygon areas (unit square 1, regular hexagon 3√3/2)', () => {
-    // Regular hexagon of circumradius 1: area 3√3/2 (elementary geometry).
-    const area = [0, 0, 0]
-    for (let t = 0; t < s.triangleElement.length; t++) {
+  // Box of 2 × 1 × 1 cells, plane x + 2y + 3z = 1.7 cutting both cells.
+  it.each([...ELEMENT_TYPE_NAMES])('%s: fill triangles cover each polygon once, n - 2 (linear) or 4(n - 2) (other types) per n-gon', (type) => {
+    const mesh = anyBox(type, 2, 1, 1, 2, 1, 1)
+    const { polygons } = cutNodal(mesh, nodalStress(mesh, () => [1, 2, 3, 0.5, 0.25, -1]), ZERO, { point: [0.6, 0.3, 0.2], normal: [1, 2, 3] }, { polygons: true })
+    const P = polygons!
+    const s = buildSectionTriangles(P, [2, 4, 6])
+    const split = shapeDegree(type) > 1 ? 4 : 1
+    let T = 0
+    for (let p = 0; p < P.count; p++) T += split * (P.start[p + 1] - P.start[p] - 2)
+    expect(s.index.length).toBe(3 * T)
+    expect(s.triangleElement.length).toBe(T)
+    const m = [1, 2, 3].map((v) => v / Math.hypot(1, 2, 3))
+    // fill triangles face +m and their areas add up to the polygons' areas
+    let area = 0, polyArea = 0
+    for (let t = 0; t < T; t++) {
       const [a, b, c] = [s.index[3 * t], s.index[3 * t + 1], s.index[3 * t + 2]]
-      const uy = s.positions[3 * b + 1] - s.positions[3 * a + 1], uz = s.positions[3 * b + 2] - s.positions[3 * a + 2]
-      const vy = s.positions[3 * c + 1] - s.positions[3 * a + 1], vz = s.positions[3 * c + 2] - s.positions[3 * a + 2]
-      area[s.triangleElement[t] - 10] += 0.5 * Math.abs(uy * vz - uz * vy)
+      const u = [0, 1, 2].map((k) => s.positions[3 * b + k] - s.positions[3 * a + k])
+      const v = [0, 1, 2].map((k) => s.positions[3 * c + k] - s.positions[3 * a + k])
+      const n = [u[1] * v[2] - u[2] * v[1], u[2] * v[0] - u[0] * v[2], u[0] * v[1] - u[1] * v[0]]
+      const at = 0.5 * (n[0] * m[0] + n[1] * m[1] + n[2] * m[2])
+      expect(at).toBeGreaterThan(0)
+      area += at
     }
-    expect(area[0]).toBeCloseTo(0.5, 6)
-    expect(area[1]).toBeCloseTo(1, 6)
-    expect(area[2]).toBeCloseTo((3 * Math.sqrt(3)) / 2, 6)
+    for (let p = 0; p < P.count; p++) polyArea += P.area[p]
+    expect(area).toBeCloseTo(polyArea, 5) // float32 positions
+    // uniform stress (Cauchy's formula): every fill point carries σm
+    const t = tractionOf([1, 2, 3, 0.5, 0.25, -1], m)
+    const tn = t[0] * m[0] + t[1] * m[1] + t[2] * m[2]
+    for (let i = 0; i < s.normalTraction.length; i++) expect(s.normalTraction[i]).toBeCloseTo(tn, 5)
+    expect(s.normal.map((v, k) => v - m[k]).every((d) => Math.abs(d) < 1e-15)).toBe(true)
   })
 
-  it('vertex values are m·(σm) and |σm - (m·σm)m| of the traction they came from', () => {
-    for (let i = 0; i < 13; i++) {
-      expect(s.normalTraction[i]).toBe(i)
-      expect(s.shearTraction[i]).toBe(2 * i)
+  // The fill points carry the element's own interpolation: for a field the element represents
+  // exactly, the colour value at every point (vertices and edge midpoints) is the field there.
+  it.each([...ELEMENT_TYPE_NAMES])('%s: fill values equal an exactly represented field at every fill point', (type) => {
+    const fields = exactFields(type)
+    const coef = Array.from({ length: 6 }, (_, i) => fields.map((_, j) => Math.sin(1 + 3 * i + 7 * j)))
+    const sigma = stressOf(fields, coef)
+    const mesh = singleElement(type, [1.3, 0.8, 1.1], [0.2, -0.4, 0.7])
+    const centre = [0, 1, 2].map((k) => { let s = 0; for (let a = 0; a < mesh.nodeCount; a++) s += mesh.coords[3 * a + k]; return s / mesh.nodeCount }) as Vec3
+    const m: Vec3 = [0.3, -0.5, 0.81]
+    const { polygons } = cutNodal(mesh, nodalStress(mesh, sigma), ZERO, { point: centre, normal: m }, { polygons: true })
+    const P = polygons!
+    expect(P.count).toBe(1)
+    const ml = Math.hypot(...m)
+    const mu = m.map((v) => v / ml)
+    const fill = P.fill
+    for (let i = 0; i < fill.positions.length / 3; i++) {
+      const s = sigma(fill.positions[3 * i], fill.positions[3 * i + 1], fill.positions[3 * i + 2])
+      const t = tractionOf(s, mu)
+      for (let k = 0; k < 3; k++) expect(Math.abs(fill.traction[3 * i + k] - t[k])).toBeLessThan(1e-12 * 10)
     }
-    expect(s.ranges.normalTraction).toEqual([0, 12])
-    expect(s.ranges.shearTraction).toEqual([0, 24])
+    // and the probe on the section reads the same field at any point of the polygon
+    const out = new Float64Array(6)
+    const q: Vec3 = [0, 1, 2].map((k) => (P.positions[k] + P.positions[3 + k] + P.positions[6 + k]) / 3) as Vec3
+    expect(sectionStressAt(out, mesh, nodalStressField(mesh, nodalStress(mesh, sigma)), P, 0, q)).toBe(true)
+    const s = sigma(q[0], q[1], q[2])
+    for (let k = 0; k < 6; k++) expect(Math.abs(out[k] - s[k])).toBeLessThan(1e-12 * 10)
   })
 
-  it('no polygons give empty buffers', () => {
-    const e = buildSectionTriangles({ count: 0, start: new Int32Array([0]), positions: new Float64Array(0), traction: new Float64Array(0), elem: new Int32Array(0) }, [0, 0, 1])
-    expect(e.index.length).toBe(0)
-    expect(e.ranges.normalTraction).toEqual([0, 0])
+  // On a curved element the fill midpoints and the probe invert the element map (inverseMap.ts):
+  // a field linear in x is represented exactly by any isoparametric element, so the values at
+  // every fill point of a curved quarter ring must still be the field there.
+  it.each(['tet10', 'hex20'] as const)('%s curved ring: fill points and probe follow the inverted map', (type) => {
+    const mesh = quarterCylinder({ a: 1, b: 2, length: 0.5, nr: 2, ntheta: 3, nz: 1 }, type)
+    const lin = (x: number, y: number, z: number) => [1 + x, 2 - y, z, x + y, 0.5 * z, -x]
+    const field = nodalStress(mesh, lin)
+    const m: Vec3 = [-Math.sin(0.6), Math.cos(0.6), 0]
+    const { result, polygons } = cutNodal(mesh, field, ZERO, { point: [0, 0, 0.2], normal: m }, { polygons: true })
+    expect(result.unmappedPoints).toBe(0)
+    const fill = polygons!.fill
+    for (let i = 0; i < fill.positions.length / 3; i++) {
+      const t = tractionOf(lin(fill.positions[3 * i], fill.positions[3 * i + 1], fill.positions[3 * i + 2]), m)
+      for (let k = 0; k < 3; k++) expect(Math.abs(fill.traction[3 * i + k] - t[k])).toBeLessThan(1e-11)
+    }
   })
 })

@@ -1,0 +1,238 @@
+/**
+ * Traction integrals over the section polygon of one element of any type, by the element's own
+ * shape functions: the stress at a point of the polygon is Σ N_a(ξ) σ_a over all of the
+ * element's nodes at the point's reference coordinates ξ (DESIGN.md conventions).
+ *
+ * Geometry first, stress second:
+ * - `polygonPoints`: the polygon left by `elementPolygonRef` (sectionPolygon.ts, vertices with
+ *   exact ξ) is split into a fan of triangles from its first vertex; on each, the points of the
+ *   type's Dunavant rule (sectionRule.ts) get their plane coordinates, area weight and ξ. On an
+ *   affine element ξ is linear in x, so the barycentric mix of the vertex ξ is exact; otherwise it
+ *   is the start of the guarded Newton inversion of inverseMap.ts.
+ * - the geometry of a whole cut is kept (`SectionGeometry`: per cut element its points' ξ,
+ *   weights and plane coordinates), so the stress pass (`integrateSectionGeometry`) is only a
+ *   gather of the element's nodal tractions σ_a m and a dot product with N(ξ) per point: another
+ *   field on the same plane (a load case) would need that pass alone. The sweep, whose planes
+ *   each need their own points, runs the two halves element by element instead.
+ *
+ * Curved (non-affine) quadratic elements, the approximation: the polygon's vertices lie exactly on
+ * the element's curved edges, but its sides are straight chords between them, while the element's
+ * true section is bounded by the curves where the plane meets its curved faces. The region between
+ * a chord and its curve is a sliver of width O(h²/R) (h element size, R radius of curvature), so
+ * the section's area and resultant carry an error of order h² relative (less where the plane
+ * meets the faces along straight lines, such as an axial plane through a ring); inside the polygon
+ * the stress is the element's own interpolation at the inverted ξ. The rule is the affine case's;
+ * its error on the non-polynomial integrand falls faster than the chord error. The reference test
+ * (test/reference/sectionLame.test.ts, curved tet10 and hex20 rings) measures the rate.
+ *
+ * Units: plane coordinates a, b in model length (about the section's local origin, see
+ * sectionPolygon.ts), weights in length², tractions in stress units, integrals as in ACC_*.
+ */
+import type { ElementTypeName } from '../model/elementTypes.ts'
+import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import type { Mesh } from '../model/model.ts'
+import type { StressField } from '../model/stressField.ts'
+import type { ElementMap } from './inverseMap.ts'
+import { invertElementMap, MAX_ELEMENT_NODES } from './inverseMap.ts'
+import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, MAX_POLYGON_POINTS } from './sectionPolygon.ts'
+import type { PolygonScratch } from './sectionPolygon.ts'
+import type { BarycentricRule } from './sectionRule.ts'
+import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
+import { shapeValues } from './shapeFunctions.ts'
+
+/** Most quadrature points one polygon can have: its fan triangles times the largest rule. */
+export const MAX_POLYGON_QUADRATURE = (MAX_POLYGON_POINTS - 2) * barycentric(MAX_SECTION_RULE_DEGREE).count
+
+/** Quadrature points of one polygon (scratch, create once; `polygonPoints` says how many). */
+export interface SectionPoints {
+  /** ξ per point (3 each). */
+  readonly ref: Float64Array
+  /** Area weight per point (rule weight × triangle area). */
+  readonly w: Float64Array
+  /** Plane coordinates about the section's local origin. */
+  readonly a: Float64Array
+  readonly b: Float64Array
+}
+
+export function createSectionPoints(): SectionPoints {
+  const n = MAX_POLYGON_QUADRATURE
+  return { ref: new Float64Array(3 * n), w: new Float64Array(n), a: new Float64Array(n), b: new Float64Array(n) }
+}
+
+/**
+ * Quadrature points of the polygon left in `sc` by elementPolygonRef, for the element loaded in
+ * `em` (loadElementMap), written from index o on: ξ to ref (3 each), area weight to w, plane
+ * coordinates to a and b (room for MAX_POLYGON_QUADRATURE points is the caller's). Points whose
+ * Newton inversion fails keep their clamped linear estimate and are counted in em.failures
+ * (inverseMap.ts). Returns the point count.
+ */
+export function polygonPoints(
+  ref: Float64Array, w: Float64Array, pa: Float64Array, pb: Float64Array, o: number,
+  sc: PolygonScratch, rule: BarycentricRule, em: ElementMap,
+): number {
+  const n = sc.count, order = sc.order, a = sc.a, b = sc.b, vref = sc.ref, pos = sc.pos
+  const nq = rule.count, L0 = rule.l0, L1 = rule.l1, L2 = rule.l2, W = rule.w
+  const affine = em.affine
+  const ox = em.origin[0], oy = em.origin[1], oz = em.origin[2]
+  const k0 = order[0]
+  const a0 = a[k0], b0 = b[k0], r0 = 3 * k0
+  let q = o
+  for (let i = 1; i < n - 1; i++) {
+    const ki = order[i], kj = order[i + 1], ri = 3 * ki, rj = 3 * kj
+    const ai = a[ki], bi = b[ki], aj = a[kj], bj = b[kj]
+    const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
+    for (let r = 0; r < nq; r++, q++) {
+      const l0 = L0[r], l1 = L1[r], l2 = L2[r]
+      w[q] = W[r] * At
+      pa[q] = l0 * a0 + l1 * ai + l2 * aj
+      pb[q] = l0 * b0 + l1 * bi + l2 * bj
+      ref[3 * q] = l0 * vref[r0] + l1 * vref[ri] + l2 * vref[rj]
+      ref[3 * q + 1] = l0 * vref[r0 + 1] + l1 * vref[ri + 1] + l2 * vref[rj + 1]
+      ref[3 * q + 2] = l0 * vref[r0 + 2] + l1 * vref[ri + 2] + l2 * vref[rj + 2]
+      if (!affine) {
+        // the point on the flat polygon, relative to the element's origin node
+        const x0 = l0 * pos[r0] + l1 * pos[ri] + l2 * pos[rj] - ox
+        const x1 = l0 * pos[r0 + 1] + l1 * pos[ri + 1] + l2 * pos[rj + 1] - oy
+        const x2 = l0 * pos[r0 + 2] + l1 * pos[ri + 2] + l2 * pos[rj + 2] - oz
+        invertElementMap(em, x0, x1, x2, ref, 3 * q)
+      }
+    }
+  }
+  return q - o
+}
+
+/**
+ * Traction σm of the element's nodes into tn (3 per local node) from the stress rows
+ * values[6·rows[base + a] ..] (the StressField index).
+ */
+export function nodalTraction(tn: Float64Array, values: Float64Array, rows: Int32Array, base: number, nn: number, mx: number, my: number, mz: number): Float64Array {
+  for (let k = 0; k < nn; k++) {
+    const s = 6 * rows[base + k]
+    const sxx = values[s], syy = values[s + 1], szz = values[s + 2], sxy = values[s + 3], syz = values[s + 4], sxz = values[s + 5]
+    tn[3 * k] = sxx * mx + sxy * my + sxz * mz
+    tn[3 * k + 1] = sxy * mx + syy * my + syz * mz
+    tn[3 * k + 2] = sxz * mx + syz * my + szz * mz
+  }
+  return tn
+}
+
+/**
+ * Adds ∫ t dA, ∫ a t dA, ∫ b t dA over points [from, to) with t = Σ N_a(ξ) tn_a to acc[off ..],
+ * and |∫ t dA| of these points (one polygon) to its gross slot; the polygon's ∫ t dA goes to
+ * force[fo .. fo+3). `N` is scratch of at least nodeCount.
+ */
+export function accumulateTraction(
+  acc: Float64Array, off: number, type: ElementTypeName, nn: number, tn: Float64Array,
+  ref: Float64Array, w: Float64Array, a: Float64Array, b: Float64Array, from: number, to: number,
+  N: Float64Array, force: Float64Array, fo: number,
+): void {
+  let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
+  for (let q = from; q < to; q++) {
+    shapeValues(type, ref[3 * q], ref[3 * q + 1], ref[3 * q + 2], N)
+    let tx = 0, ty = 0, tz = 0
+    for (let k = 0; k < nn; k++) {
+      const nk = N[k]
+      tx += nk * tn[3 * k]; ty += nk * tn[3 * k + 1]; tz += nk * tn[3 * k + 2]
+    }
+    const wq = w[q], wa = wq * a[q], wb = wq * b[q]
+    Fx += wq * tx; Fy += wq * ty; Fz += wq * tz
+    Ax += wa * tx; Ay += wa * ty; Az += wa * tz
+    Bx += wb * tx; By += wb * ty; Bz += wb * tz
+  }
+  acc[off + ACC_FORCE] += Fx; acc[off + ACC_FORCE + 1] += Fy; acc[off + ACC_FORCE + 2] += Fz
+  acc[off + ACC_AT] += Ax; acc[off + ACC_AT + 1] += Ay; acc[off + ACC_AT + 2] += Az
+  acc[off + ACC_BT] += Bx; acc[off + ACC_BT + 1] += By; acc[off + ACC_BT + 2] += Bz
+  acc[off + ACC_GROSS] += Math.sqrt(Fx * Fx + Fy * Fy + Fz * Fz)
+  force[fo] = Fx; force[fo + 1] = Fy; force[fo + 2] = Fz
+}
+
+/**
+ * The quadrature geometry of one cut (all cut elements not on the tet4 path), kept between the
+ * geometry and the stress pass: cut element i is element local[i] of mesh block block[i], its
+ * points first[i] .. first[i+1]-1 with ξ in ref (3 each), weight w and plane coordinates a, b.
+ * Arrays grow (doubling) and are reused cut after cut; `elements`/`points` say how much is valid.
+ */
+export interface SectionGeometry {
+  elements: number
+  points: number
+  block: Int32Array
+  local: Int32Array
+  first: Int32Array
+  ref: Float64Array
+  w: Float64Array
+  a: Float64Array
+  b: Float64Array
+}
+
+export function createSectionGeometry(): SectionGeometry {
+  const e = 256, p = 4096
+  const first = new Int32Array(e + 1)
+  return {
+    elements: 0, points: 0, block: new Int32Array(e), local: new Int32Array(e), first,
+    ref: new Float64Array(3 * p), w: new Float64Array(p), a: new Float64Array(p), b: new Float64Array(p),
+  }
+}
+
+/** Empties the geometry for the next cut (keeps its storage). */
+export function resetSectionGeometry(g: SectionGeometry): void {
+  g.elements = 0
+  g.points = 0
+  g.first[0] = 0
+}
+
+/** Makes room for one more element with up to MAX_POLYGON_QUADRATURE points (write them at g.points). */
+export function reserveSectionGeometry(g: SectionGeometry): void {
+  const e = g.elements, p = g.points + MAX_POLYGON_QUADRATURE
+  if (e + 1 > g.block.length) {
+    const size = 2 * g.block.length
+    g.block = growInt(g.block, size); g.local = growInt(g.local, size); g.first = growInt(g.first, size + 1)
+  }
+  if (p > g.w.length) {
+    const size = Math.max(2 * g.w.length, p)
+    g.ref = growFloat(g.ref, 3 * size); g.w = growFloat(g.w, size); g.a = growFloat(g.a, size); g.b = growFloat(g.b, size)
+  }
+}
+
+/** Records cut element `local` of block `block` whose `count` points were written at g.points. */
+export function addSectionElement(g: SectionGeometry, block: number, local: number, count: number): void {
+  const e = g.elements
+  g.block[e] = block; g.local[e] = local
+  g.points += count
+  g.elements = e + 1
+  g.first[e + 1] = g.points
+}
+
+/**
+ * The stress pass of a cut: for every element of `g`, its nodal tractions σ_a m (through the
+ * field's element-node rows) and the traction integrals over its points into acc[off ..]. When
+ * `forces` is given, polygon i's ∫ t dA is written to forces[3i ..] (drawing, arrows).
+ */
+export function integrateSectionGeometry(
+  acc: Float64Array, off: number, g: SectionGeometry, mesh: Mesh, field: StressField, m: ArrayLike<number>, forces: Float64Array | null,
+): void {
+  const mx = m[0], my = m[1], mz = m[2], values = field.values
+  const tn = TN, N = SHAPE, f3 = FORCE3
+  for (let i = 0; i < g.elements; i++) {
+    const type = mesh.blocks[g.block[i]].type, rows = field.rows[g.block[i]]
+    const nn = ELEMENT_TYPES[type].nodeCount
+    nodalTraction(tn, values, rows, g.local[i] * nn, nn, mx, my, mz)
+    if (forces) accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces, 3 * i)
+    else accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, f3, 0)
+  }
+}
+
+const TN = new Float64Array(3 * MAX_ELEMENT_NODES)
+const SHAPE = new Float64Array(MAX_ELEMENT_NODES)
+const FORCE3 = new Float64Array(3)
+
+function growInt(a: Int32Array, n: number): Int32Array {
+  const b = new Int32Array(n)
+  b.set(a)
+  return b
+}
+
+function growFloat(a: Float64Array, n: number): Float64Array {
+  const b = new Float64Array(n)
+  b.set(a)
+  return b
+}

@@ -1,0 +1,98 @@
+import { describe, expect, it } from 'vitest'
+import {
+  createElementMap, invertElementMap, loadElementMap, NEWTON_ITERATIONS, pullInside, referenceDomain,
+} from '../../../src/mechanics/inverseMap.ts'
+import { shapeValues } from '../../../src/mechanics/shapeFunctions.ts'
+import { shapeDegree } from '../../../src/mechanics/sectionRule.ts'
+import { mulberry32 } from '../../../src/mechanics/seededRandom.ts'
+import { ELEMENT_TYPE_NAMES, ELEMENT_TYPES } from '../../../src/model/elementTypes.ts'
+import type { ElementTypeName } from '../../../src/model/elementTypes.ts'
+import { singleElement } from '../../helpers/sectionElements.ts'
+
+const SEED = 4711
+
+/** A random point inside the reference element: a convex combination of its corners. */
+function insidePoint(type: ElementTypeName, rnd: () => number): number[] {
+  const topo = ELEMENT_TYPES[type]
+  const w = Array.from({ length: topo.cornerCount }, () => rnd() + 0.05)
+  const s = w.reduce((a, b) => a + b)
+  return [0, 1, 2].map((k) => w.reduce((acc, wc, c) => acc + (wc / s) * topo.refCoords[c][k], 0))
+}
+
+/** x(ξ) = Σ N_a(ξ) x_a of node coordinates `x` (3 per local node). */
+function forward(type: ElementTypeName, x: Float64Array, xi: readonly number[]): number[] {
+  const nn = ELEMENT_TYPES[type].nodeCount
+  const N = shapeValues(type, xi[0], xi[1], xi[2], new Float64Array(nn))
+  return [0, 1, 2].map((k) => { let v = 0; for (let a = 0; a < nn; a++) v += N[a] * x[3 * a + k]; return v })
+}
+
+describe(`inverse element map (seed ${SEED})`, () => {
+  it.each([...ELEMENT_TYPE_NAMES])('%s: an affine image of the reference element is recognised as affine, a distorted one is not', (type) => {
+    const mesh = singleElement(type, [1.3, 0.8, 1.1], [0.2, -0.4, 0.7])
+    const em = createElementMap()
+    const conn = mesh.blocks[0].conn
+    expect(loadElementMap(em, referenceDomain(type), mesh.coords, conn, 0).affine).toBe(true)
+    const rnd = mulberry32(SEED)
+    const bent = mesh.coords.map((v) => v + 0.05 * (2 * rnd() - 1))
+    // a linear simplex (shape functions of degree 1) is affine whatever its nodes
+    expect(loadElementMap(em, referenceDomain(type), bent, conn, 0).affine).toBe(shapeDegree(type) <= 1)
+  })
+
+  // Self-consistency of the map (Newton's method, any numerical-analysis text): on a distorted
+  // element, ξ → x(ξ) → Newton from the reference centre must return ξ.
+  it.each([...ELEMENT_TYPE_NAMES])('%s: Newton recovers ξ of points of a distorted element to 1e-12', (type) => {
+    const rnd = mulberry32(SEED + 1)
+    const mesh = singleElement(type, [1.3, 0.8, 1.1], [0.2, -0.4, 0.7])
+    const x = mesh.coords.map((v) => v + 0.06 * (2 * rnd() - 1))
+    const dom = referenceDomain(type)
+    const em = loadElementMap(createElementMap(), dom, x, mesh.blocks[0].conn, 0)
+    em.failures = 0
+    for (let k = 0; k < 20; k++) {
+      const xi = insidePoint(type, rnd)
+      const p = forward(type, x, xi)
+      const got = Float64Array.from(dom.centre)
+      expect(invertElementMap(em, p[0] - em.origin[0], p[1] - em.origin[1], p[2] - em.origin[2], got, 0)).toBe(true)
+      for (let c = 0; c < 3; c++) expect(Math.abs(got[c] - xi[c])).toBeLessThan(1e-12)
+    }
+    expect(em.failures).toBe(0)
+  })
+
+  it('a flattened (zero-volume) hex8 or a point far outside is counted as not mapped, never NaN', () => {
+    const type = 'hex8'
+    const dom = referenceDomain(type)
+    const flat = singleElement(type, [1, 1, 1], [0, 0, 0]).coords.map((v, i) => (i % 3 === 2 ? 0 : v))
+    const em = loadElementMap(createElementMap(), dom, flat, Int32Array.from({ length: 8 }, (_, i) => i), 0)
+    em.failures = 0
+    const xi = Float64Array.from([0.3, -0.2, 0.1])
+    expect(invertElementMap(em, 0.2, 0.1, 0.5, xi, 0)).toBe(false)
+    expect(em.failures).toBe(1)
+    for (const v of xi) expect(Number.isFinite(v)).toBe(true)
+    // far outside a sound element: iterates are held in the grown element, the cap ends it
+    const cube = singleElement(type, [1, 1, 1], [0, 0, 0])
+    const em2 = loadElementMap(createElementMap(), dom, cube.coords, cube.blocks[0].conn, 0)
+    em2.failures = 0
+    const far = Float64Array.from([0, 0, 0])
+    expect(invertElementMap(em2, 40 - em2.origin[0], 0, 0, far, 0)).toBe(false)
+    expect(em2.failures).toBe(1)
+    // the fallback is the start estimate pulled into the reference element
+    for (const v of far) expect(Math.abs(v)).toBeLessThanOrEqual(1)
+    expect(NEWTON_ITERATIONS).toBeGreaterThan(3)
+  })
+
+  it.each([...ELEMENT_TYPE_NAMES])('%s: pullInside moves an outside point onto the boundary toward the centre', (type) => {
+    const dom = referenceDomain(type)
+    const out = new Float64Array(3)
+    const far = [dom.centre[0] + 3 * dom.size, dom.centre[1] - 2 * dom.size, dom.centre[2] + dom.size]
+    pullInside(dom, 0, far[0], far[1], far[2], out)
+    // on the boundary: the largest face excess is 0; on the segment from the centre
+    let worst = -Infinity
+    for (let f = 0; f < dom.planes.length; f += 4) worst = Math.max(worst, dom.planes[f] * out[0] + dom.planes[f + 1] * out[1] + dom.planes[f + 2] * out[2] - dom.planes[f + 3])
+    expect(Math.abs(worst)).toBeLessThan(1e-12)
+    const d = far.map((v, k) => v - dom.centre[k]), e = [0, 1, 2].map((k) => out[k] - dom.centre[k])
+    const cr = [d[1] * e[2] - d[2] * e[1], d[2] * e[0] - d[0] * e[2], d[0] * e[1] - d[1] * e[0]]
+    expect(Math.hypot(...cr)).toBeLessThan(1e-12 * Math.hypot(...d))
+    // a point inside stays where it is
+    pullInside(dom, 0, dom.centre[0], dom.centre[1], dom.centre[2], out)
+    expect(Array.from(out)).toEqual(Array.from(dom.centre))
+  })
+})
