@@ -229,7 +229,8 @@ export type SeriesKey = 'axial' | 'shear1' | 'shear2' | 'torque' | 'bending1' | 
  * A row of parallel sections along unit normal `normal` (see src/mechanics/sectionSweep.ts):
  * section k lies on the plane x·m = offsets[k]. `offsets` length units; axial, shear1, shear2
  * force units (S·L²); torque, bending1, bending2 moment units (S·L³), section axes per section,
- * moments about each section's centroid; `freeBodyRelative` dimensionless; `empty[k]` = 1 where
+ * moments about each section's centroid; `freeBodyRelative` (force residual / gross) and
+ * `freeBodyMomentRelative` (moment residual / (gross · L), see freeBody.ts) dimensionless; `empty[k]` = 1 where
  * plane k misses the body (its figures are 0). `extent`: [min, max] of x·m over the nodes (L).
  */
 export interface SweepReply {
@@ -243,6 +244,7 @@ export interface SweepReply {
   readonly bending1: Float64Array
   readonly bending2: Float64Array
   readonly freeBodyRelative: Float64Array
+  readonly freeBodyMomentRelative: Float64Array
   readonly empty: Uint8Array
 }
 

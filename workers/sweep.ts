@@ -34,7 +34,8 @@ export function sweepAlong(
   const n = results.length
   const out = {
     axial: new Float64Array(n), shear1: new Float64Array(n), shear2: new Float64Array(n), torque: new Float64Array(n),
-    bending1: new Float64Array(n), bending2: new Float64Array(n), freeBodyRelative: new Float64Array(n), empty: new Uint8Array(n),
+    bending1: new Float64Array(n), bending2: new Float64Array(n), freeBodyRelative: new Float64Array(n),
+    freeBodyMomentRelative: new Float64Array(n), empty: new Uint8Array(n),
   }
   for (let k = 0; k < n; k++) {
     const r = results[k]
@@ -45,11 +46,12 @@ export function sweepAlong(
     out.bending1[k] = r.bending[0]
     out.bending2[k] = r.bending[1]
     out.freeBodyRelative[k] = r.freeBody.relative
+    out.freeBodyMomentRelative[k] = r.freeBody.momentRelative
     out.empty[k] = r.empty ? 1 : 0
   }
   return { normal: unitNormal(normal, 'sweep direction'), extent, offsets, ...out }
 }
 
 export function sweepTransfer(r: SweepReply): ArrayBuffer[] {
-  return [r.offsets, r.axial, r.shear1, r.shear2, r.torque, r.bending1, r.bending2, r.freeBodyRelative, r.empty].map((a) => a.buffer as ArrayBuffer)
+  return [r.offsets, r.axial, r.shear1, r.shear2, r.torque, r.bending1, r.bending2, r.freeBodyRelative, r.freeBodyMomentRelative, r.empty].map((a) => a.buffer as ArrayBuffer)
 }

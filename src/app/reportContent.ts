@@ -147,14 +147,19 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
     })
   }
   const res = Float64Array.from(s.freeBodyRelative, (v, k) => (s.empty[k] ? NaN : v))
+  const resM = Float64Array.from(s.freeBodyMomentRelative, (v, k) => (s.empty[k] ? NaN : v))
   blocks.push({
     kind: 'diagram', id: 'diagram-residual', heading: 'Free-body residual along the part',
-    xLabel, yLabel: 'Residual / gross load', geometry: diagramGeometry(x, [{ label: 'Free-body residual / gross', colour: '#4a545e', values: res }], 720, 160, M, domain),
+    xLabel, yLabel: 'Residual (relative)',
+    geometry: diagramGeometry(x, [
+      { label: 'Force residual / gross', colour: '#4a545e', values: res },
+      { label: 'Moment residual / (gross · L)', colour: '#9a6a2a', values: resM },
+    ], 720, 160, M, domain),
   })
   const t = sweepTable(s, units, sys)
   blocks.push({
     kind: 'table', id: 'sweep', heading: 'Sections along the part',
-    note: `${s.offsets.length} parallel sections; section axes per section (e₃ = m), moments about each section's centroid. Largest free-body residual / gross: ${formatNumber(worstResidual(s), 2)}.`,
+    note: `${s.offsets.length} parallel sections; section axes per section (e₃ = m), moments about each section's centroid. Largest free-body residual (force / gross or moment / (gross · L)): ${formatNumber(worstResidual(s), 2)}.`,
     head: t.head, rows: t.rows,
   })
   return blocks

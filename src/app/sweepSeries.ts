@@ -80,21 +80,27 @@ export function offsetForPosition(position: number, point: Vec3, m: Vec3): numbe
 /** A table of the sweep in the display system: header with units, one row per section. */
 export function sweepTable(r: SweepReply, units: ModelUnits, system: UnitSystem): { head: string[]; rows: string[][] } {
   const L = displayUnitLabel('length', system)
-  const head = [`Position [${L}]`, ...SERIES.map((s) => `${s.symbol} [${displayUnitLabel(s.quantity, system)}]`), 'Free-body residual / gross']
+  const head = [`Position [${L}]`, ...SERIES.map((s) => `${s.symbol} [${displayUnitLabel(s.quantity, system)}]`), 'Free-body force residual / gross', 'Free-body moment residual / (gross · L)']
   const x = offsetsInDisplay(r, units, system)
   const cols = SERIES.map((s) => seriesInDisplay(r, s.key, units, system))
   const rows: string[][] = []
   for (let k = 0; k < x.length; k++) {
-    if (r.empty[k]) { rows.push([formatNumber(x[k]), ...SERIES.map(() => '—'), 'misses the body']); continue }
-    rows.push([formatNumber(x[k]), ...cols.map((c) => formatNumber(c[k])), formatNumber(r.freeBodyRelative[k], 2)])
+    if (r.empty[k]) { rows.push([formatNumber(x[k]), ...SERIES.map(() => '—'), 'misses the body', '—']); continue }
+    rows.push([formatNumber(x[k]), ...cols.map((c) => formatNumber(c[k])), formatNumber(r.freeBodyRelative[k], 2), formatNumber(r.freeBodyMomentRelative[k], 2)])
   }
   return { head, rows }
 }
 
-/** Largest free-body residual / gross over the sections that cut the body (0 when none). */
+/**
+ * Largest free-body residual over the sections that cut the body (0 when none): the force residual
+ * over the gross load, or the moment residual over gross load × L, whichever is larger.
+ */
 export function worstResidual(r: SweepReply): number {
   let w = 0
-  for (let k = 0; k < r.freeBodyRelative.length; k++) if (!r.empty[k] && r.freeBodyRelative[k] > w) w = r.freeBodyRelative[k]
+  for (let k = 0; k < r.freeBodyRelative.length; k++) {
+    if (r.empty[k]) continue
+    w = Math.max(w, r.freeBodyRelative[k], r.freeBodyMomentRelative[k])
+  }
   return w
 }
 

@@ -92,7 +92,7 @@ export function SweepCard() {
             </p>
             <SweepChart sweep={sweep} units={model.units} system={system} shown={shown} marker={marker} onPick={pick} />
             <p className="note" data-testid="sweep-trust">
-              Free-body residual / gross, largest along the part: <span className="num" data-model={String(worstResidual(sweep))}>{formatNumber(worstResidual(sweep), 2)}</span>
+              Free-body residual (force / gross, moment / (gross · L)), largest along the part: <span className="num" data-model={String(worstResidual(sweep))}>{formatNumber(worstResidual(sweep), 2)}</span>
               {section.enabled && marker === null ? ' · the section is not parallel to these planes; click the chart to align it.' : ''}
             </p>
           </>

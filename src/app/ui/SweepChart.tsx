@@ -125,15 +125,17 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
       hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
     }, [x, ...ys] as uPlot.AlignedData, box.current)
     // log10 on a linear scale: the ticks stay whole decades however narrow the range
-    const res = Array.from(sweep.freeBodyRelative, (v, k) => (empty[k] ? null : Math.log10(Math.max(v, RESIDUAL_FLOOR))))
+    const logOf = (a: Float64Array) => Array.from(a, (v, k) => (empty[k] ? null : Math.log10(Math.max(v, RESIDUAL_FLOOR))))
+    const res = logOf(sweep.freeBodyRelative), resM = logOf(sweep.freeBodyMomentRelative)
     const resid = new uPlot({
       width, height: 80, legend: { show: false }, cursor,
       scales: { x: xScale, r: { auto: true, range: (_u, lo, hi) => [Math.floor(lo), Math.max(Math.ceil(hi), Math.floor(lo) + 1)] } },
       axes: [{ ...AXIS, size: 28, values: fmtTick }, { ...AXIS, scale: 'r', size: 62, splits: decades, values: (_u, vals) => vals.map((v) => formatNumber(10 ** v, 1)) }],
-      series: [{}, { label: 'residual', scale: 'r', stroke: '#4a545e', width: 1.2, points: { show: false } }],
+      series: [{}, { label: 'force residual', scale: 'r', stroke: '#4a545e', width: 1.2, points: { show: false } },
+        { label: 'moment residual', scale: 'r', stroke: '#9a6a2a', width: 1.2, dash: [4, 3], points: { show: false } }],
       plugins: [markerPlugin(() => markerRef.current)],
       hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
-    }, [x, res] as uPlot.AlignedData, resBox.current)
+    }, [x, res, resM] as uPlot.AlignedData, resBox.current)
     plots.current = [main, resid]
     const onClick = (u: uPlot) => (e: MouseEvent): void => {
       const v = u.posToVal(e.offsetX, 'x')
@@ -159,7 +161,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
   return (
     <div className="sweep-chart">
       <div ref={box} data-testid="sweep-chart" />
-      <div className="sweep-res-title">Free-body residual / gross load (log scale)</div>
+      <div className="sweep-res-title">Free-body residual, log scale: force / gross load (solid), moment / (gross load · L) (dashed)</div>
       <div ref={resBox} data-testid="sweep-residual" />
       <div className="sweep-readout" data-testid="sweep-readout" aria-live="polite">
         {k === null ? <span className="note">Hover to read values; click to move the section there.</span> : (
@@ -170,7 +172,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
                 {s.symbol} = {formatNumber(sweep[s.key][k] * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
               </span>
             ))}
-            {sweep.empty[k] ? null : <span data-readout="residual">residual {formatNumber(sweep.freeBodyRelative[k], 2)}</span>}
+            {sweep.empty[k] ? null : <span data-readout="residual">residual {formatNumber(sweep.freeBodyRelative[k], 2)} (force), {formatNumber(sweep.freeBodyMomentRelative[k], 2)} (moment)</span>}
           </>
         )}
       </div>

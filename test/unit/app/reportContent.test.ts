@@ -7,7 +7,7 @@ import type { SweepReply } from '../../../workers/protocol.ts'
 const f = (...v: number[]): Float64Array => Float64Array.from(v)
 const sweep: SweepReply = {
   normal: [1, 0, 0], extent: [0, 4], offsets: f(0.5, 2, 3.5), axial: f(5, 5, 5), shear1: f(0, 0, 0), shear2: f(1, 1, 1),
-  torque: f(0, 0, 0), bending1: f(3, 2, 1), bending2: f(0, 0, 0), freeBodyRelative: f(1e-12, 2e-12, 3e-12), empty: new Uint8Array(3),
+  torque: f(0, 0, 0), bending1: f(3, 2, 1), bending2: f(0, 0, 0), freeBodyRelative: f(1e-12, 2e-12, 3e-12), freeBodyMomentRelative: f(1e-12, 1e-12, 1e-12), empty: new Uint8Array(3),
 }
 
 function input(over: Partial<ReportInput> = {}): ReportInput {
