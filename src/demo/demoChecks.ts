@@ -79,7 +79,7 @@ export function integrateFaceTractions(coords: Float64Array, stress: Float64Arra
 /**
  * The element faces lying on the plane x_axis = value, taken from the elements on the minus
  * side, so their outward normal is +axis: a section that follows element faces. Integrated
- * with integrateFaceTractions it gives the DESIGN.md section resultant F = ∫ σm dA (force of
+ * with integrateFaceTractions it gives the section resultant of the README F = ∫ σm dA (force of
  * the +m side on the -m side) with moments about the section's centroid.
  */
 export function facesOnPlane(coords: Float64Array, conn: Int32Array, axis: 0 | 1 | 2, value: number, tol: number): HexFaces {

@@ -1,7 +1,7 @@
 /**
  * Traction integrals over the section polygon of one element of any type, by the element's own
  * shape functions: the stress at a point of the polygon is Σ N_a(ξ) σ_a over all of the
- * element's nodes at the point's reference coordinates ξ (DESIGN.md conventions).
+ * element's nodes at the point's reference coordinates ξ (the conventions of DEVELOPERS.md).
  *
  * Geometry first, stress second:
  * - `polygonPoints`: the polygon left by `elementPolygonRef` (sectionPolygon.ts, vertices with

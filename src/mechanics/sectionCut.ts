@@ -1,6 +1,6 @@
 /**
  * One section cut: the resultant force and moment that the material on the +m side of a plane
- * exerts on the material on the -m side (DESIGN.md), the section's area properties, and the
+ * exerts on the material on the -m side (the README's convention), the section's area properties, and the
  * free-body check of the - piece.
  *
  * One pass over the nodes computes d = (x - p)·m (snapped to 0 within round-off, SNAP_EPS); one

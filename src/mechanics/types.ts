@@ -199,7 +199,7 @@ export interface FreeBodyFigure extends BalanceFigure {
  * its element in `reference` (3 per vertex); `elem[p]` is the global element index it cuts.
  * Per polygon, from the cut's own quadrature: `area` (P), area `centroid` (3·P) and `force`
  * (3·P) = ∫ σm dA. `fill`: the triangles to colour (see SectionFill).
- * Stress is interpolated by the element's shape functions everywhere (DESIGN.md).
+ * Stress is interpolated by the element's shape functions everywhere (DEVELOPERS.md, Conventions).
  */
 export interface SectionPolygons {
   readonly count: number

@@ -63,7 +63,7 @@ describe.each(KINDS)('uniform stress, random planes through a %s box', (kind) =>
     }), { seed: SEED + 1, numRuns: 20 })
   })
 
-  // Objectivity (REFERENCES.md): turning the whole model by Q (x' = Qx, σ' = QσQᵀ) turns every
+  // Objectivity (any continuum-mechanics text, e.g. Malvern 1969): turning the whole model by Q (x' = Qx, σ' = QσQᵀ) turns every
   // resultant with it, F' = QF, M' = QM. A linear stress field so the moment is not trivially 0.
   it('rotated model: F\' = QF, M\' = QM (linear stress field)', () => {
     const field = (x: number, y: number, z: number) => [10 + 3 * x, -4 + 2 * y - z, 1 + x * 0.5, 2 * z, -1 + y, 0.5 * x - z]

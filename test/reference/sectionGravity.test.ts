@@ -5,7 +5,7 @@ import {
   cutNodal, nodalStress,
 } from '../helpers/sectionMeshes.ts'
 
-// Gravity-loaded column (REFERENCES.md: static form of Cauchy's equation, div σ + ρb = 0; the
+// Gravity-loaded column (Malvern 1969, ch. 3: static form of Cauchy's equation, div σ + ρb = 0; the
 // column itself is common practice): height H, σzz = -ρg(H - z), body force ρb = (0, 0, -ρg).
 // SI units: m, Pa, N. ρ = 2300 kg/m³, g = 9.81 m/s².
 const rho = 2300, g = 9.81, H = 2000, lx = 50, ly = 40

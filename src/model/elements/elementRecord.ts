@@ -5,7 +5,7 @@
  * edges, reference coordinates and the mirror permutation of quadratic types cannot disagree
  * with their corners.
  *
- * Local node numbers are 0-based here (DESIGN.md and the README state them 1-based). Faces list
+ * Local node numbers are 0-based here (the README states them 1-based). Faces list
  * their corners counter-clockwise seen from outside the element (the right-hand normal points
  * outward), then, for quadratic faces, the mid-edge nodes of edges (c0,c1) (c1,c2) (c2,c0) or
  * (c0,c1) (c1,c2) (c2,c3) (c3,c0).

@@ -4,7 +4,7 @@
  * faces) and satisfies Euler's V - E + F = 2; faces point away from the reference centroid; the
  * reference element's volume is that of its domain (elementary geometry: tetrahedron 1/6, cube 8,
  * wedge 1/2 · 2, pyramid 4 · 1/3); mid-edge nodes sit at their edge midpoints. Node orders of the
- * new types are the ones DESIGN.md and the README state (1-based there, 0-based here).
+ * new types are the ones the README states (1-based there, 0-based here).
  */
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
@@ -149,7 +149,7 @@ describe.each(ELEMENT_TYPE_NAMES)('%s record', (type) => {
   })
 })
 
-describe('node orders of the new types (DESIGN.md; 1-based there)', () => {
+describe('node orders of the new types (README; 1-based there)', () => {
   it('pyramid13: faces list corners, then mid-edge nodes; mirror swaps base corners 2 and 4 with their edges', () => {
     const t = ELEMENT_TYPES.pyramid13
     expect(t.faces).toEqual([[0, 3, 2, 1, 8, 7, 6, 5], [0, 1, 4, 5, 10, 9], [1, 2, 4, 6, 11, 10], [2, 3, 4, 7, 12, 11], [3, 0, 4, 8, 9, 12]])
