@@ -6,7 +6,6 @@
  */
 import { describe, expect, it } from 'vitest'
 import type { ElementTypeName } from '../../src/model/elementTypes.ts'
-import type { Model } from '../../src/model/model.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
 import type { CsvFile } from '../../src/io/readCsvBundle.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
@@ -14,38 +13,9 @@ import { readNative, writeNative } from '../../src/io/nativeContainer.ts'
 import { readLittleEndian, writeLittleEndian } from '../../src/io/littleEndianArrays.ts'
 import { validateModel } from '../../src/io/validateModel.ts'
 import { boxModel, mixedModel } from './testModels.ts'
+import { expectSameModel, sameNumbers } from './sameModel.ts'
 
 const TYPES: ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6']
-
-/** Same model: names, units, body force, every array element (Object.is, so -0 ≠ 0). */
-export function expectSameModel(a: Model, b: Model): void {
-  expect(b.name).toBe(a.name)
-  expect(b.description).toBe(a.description)
-  expect(b.units).toEqual(a.units)
-  expect(b.bodyForce).toEqual(a.bodyForce)
-  expect(b.mesh.nodeCount).toBe(a.mesh.nodeCount)
-  expect(b.mesh.elementCount).toBe(a.mesh.elementCount)
-  expect(Array.from(b.mesh.nodeIds)).toEqual(Array.from(a.mesh.nodeIds))
-  expect(sameNumbers(a.mesh.coords, b.mesh.coords)).toBe(true)
-  expect(sameNumbers(a.stress, b.stress)).toBe(true)
-  expect(a.displacement === null).toBe(b.displacement === null)
-  if (a.displacement && b.displacement) expect(sameNumbers(a.displacement, b.displacement)).toBe(true)
-  expect(b.mesh.blocks.length).toBe(a.mesh.blocks.length)
-  a.mesh.blocks.forEach((ba, k) => {
-    const bb = b.mesh.blocks[k]
-    expect(bb.type).toBe(ba.type)
-    expect(bb.offset).toBe(ba.offset)
-    expect(Array.from(bb.conn)).toEqual(Array.from(ba.conn))
-    expect(Array.from(bb.ids)).toEqual(Array.from(ba.ids))
-    expect(bb.part === null ? null : Array.from(bb.part)).toEqual(ba.part === null ? null : Array.from(ba.part))
-  })
-}
-
-function sameNumbers(a: Float64Array, b: Float64Array): boolean {
-  if (a.length !== b.length) return false
-  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false
-  return true
-}
 
 function file(files: CsvFile[], name: string): CsvFile {
   return files.find((f) => f.name === name)!
