@@ -89,13 +89,19 @@ export function matchColumns(file: string, header: CsvHeader, fields: readonly s
     const spare = header.raw.map((n, i) => ({ n, i })).filter(({ i }) => !used.has(i))
     const instead = spare.length ? ` (not used: ${spare.map(({ n, i }) => (n === '' ? `column ${i + 1}` : `"${n}"`)).join(', ')})` : ''
     const example = spare.length && spare[0].n !== '' ? `"${missing[0]}": "${spare[0].n}"` : `"${missing[0]}": "<your header>"`
-    const split = header.rowWidth > 0 && header.rowWidth !== header.width
-      ? `; the header has ${header.width} names but the rows ${header.rowWidth} fields: if names hold the separator, quote them, or declare "csv": {"${role}": {"header": false, "skipLines": ${header.line}}} and name the columns by number`
-      : ''
-    throw new InputError('header', `missing column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}; the header has ${listHeader(header)}${instead}; if yours are named differently, map them in model.json: "columns": {"${role}": {${example}}}${split}`, { file, line: header.line, column: missing[0] })
+    const split = widthMismatch(header, role)
+    throw new InputError('header', `missing column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}; the header has ${listHeader(header)}${instead}; if yours are named differently, map them in model.json: "columns": {"${role}": {${example}}}${split ? '; ' + split : ''}`, { file, line: header.line, column: missing[0] })
   }
   checkDistinct(file, header, fields, columnOf, role)
   return columnOf
+}
+
+/**
+ * When a header's names do not match the rows' fields in number, what to do about it, or ''.
+ */
+export function widthMismatch(header: CsvHeader, role: string): string {
+  if (!header.present || header.rowWidth <= 0 || header.rowWidth === header.width) return ''
+  return `the header has ${header.width} names but the rows ${header.rowWidth} fields: if names hold the separator, quote them, or declare "csv": {"${role}": {"header": false, "skipLines": ${header.line}}} and name the columns by number; if a name is missing, add it`
 }
 
 /** Two fields may not read one column. */

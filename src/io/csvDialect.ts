@@ -26,8 +26,8 @@
  *   when they hold decimal points; both at once are an ambiguity (refused, naming
  *   `csv.decimal`). When the sample holds whole numbers only, the first point or comma in the
  *   rest of the file decides. Thousands separators are not read.
- * A sample without any number is a header alone (or text): its first line is taken as the
- * header and the table reader reports what is missing.
+ * A sample of one line, or without any digit, is a header alone (or text): its first line is
+ * taken as the header and the table reader reports what is missing.
  */
 import { InputError } from '../model/errors.ts'
 
@@ -56,7 +56,8 @@ export interface CsvDialect {
   /** UTF-16 index and 1-based line where reading starts: the header, or the first row. */
   readonly start: number
   readonly startLine: number
-  /** Fields of the first row: the width of a file without a header. */
+  /** Fields of the rows: the most common width among the first data rows of a numeric table, the
+   * first row's in the element table. The width of a file without a header. */
   readonly rowFields: number
 }
 
@@ -109,7 +110,7 @@ export function detectDialect(file: string, text: string, settings: DialectSetti
     if (b.row >= 0) { sep = c; splits = s; block = b.row; width = b.width; break }
   }
   if (sep === null) {
-    if (!candidates.some((c) => sample.some((l) => splitSample(l.text, c, shape).numberKind.some((k) => k > 0)))) return headerOnly(sample, settings, declared, shape)
+    if (sample.length === 1 || !sample.some((l) => /[0-9]/.test(l.text))) return headerOnly(sample, settings, declared, shape)
     const first = sample.find((l) => /[0-9]/.test(l.text))!
     const tried = candidates.map((c) => SEPARATOR_NAMES[c]).join(', ')
     throw new InputError('csv-dialect', `cannot find the rows of numbers: split by ${tried}, the first lines do not form rows of the same fields (first line with digits: ${quoteLine(first.text)}); declare the separator, e.g. ${key('separator', '";"')}, and "skipLines" if lines above the header are not # comments`, { file, line: first.line })
@@ -122,6 +123,12 @@ export function detectDialect(file: string, text: string, settings: DialectSetti
   if (settings.skipLines !== undefined) {
     // The preamble is declared: the first line left is the header or the first row.
     firstRow = 0
+    if (settings.header === undefined && splits[0].kind === Kind.Header && shape === 'numeric' && splits[0].fields.length !== width) {
+      // A header-like line of another width than the rows: a preamble line left in.
+      const next = splits.findIndex((x, i) => i > 0 && x.kind === Kind.Header && x.fields.length === width)
+      const raise = next > 0 ? `raise skipLines to ${sample[next].line - 1}` : 'raise skipLines'
+      throw new InputError('csv-dialect', `${quoteLine(sample[0].text)} is not the header of rows of ${width} fields; "skipLines": ${settings.skipLines} leaves it in: ${raise}, or declare "header": false`, { file, line: sample[0].line })
+    }
     if (settings.header === true || (settings.header === undefined && splits[0].kind === Kind.Header)) { headerAt = 0; firstRow = 1 }
     else if (settings.header === undefined && !rowLike(splits[0], width, shape)) {
       throw new InputError('csv-dialect', `${quoteLine(sample[0].text)} is neither a header nor a row of numbers; "skipLines": ${settings.skipLines} leaves it in: skip it too, or declare "header": true`, { file, line: sample[0].line })
@@ -141,7 +148,7 @@ export function detectDialect(file: string, text: string, settings: DialectSetti
   const at = headerAt >= 0 ? sample[headerAt] : sample[firstRow]
   return {
     separator: sep, decimal, skipLines, headerLine: headerAt >= 0 ? sample[headerAt].line : 0, declared,
-    start: at.pos, startLine: at.line, rowFields: splits[Math.min(Math.max(firstRow, headerAt + 1), splits.length - 1)].fields.length,
+    start: at.pos, startLine: at.line, rowFields: shape === 'numeric' ? width : splits[Math.min(Math.max(firstRow, headerAt + 1), splits.length - 1)].fields.length,
   }
 }
 

@@ -7,7 +7,7 @@
 import { InputError } from '../model/errors.ts'
 import type { InputErrorKind } from '../model/errors.ts'
 import type { ColumnMap } from './bundleLayout.ts'
-import { columnLabel, matchColumns, unitOfColumns, unusedColumns } from './columnMap.ts'
+import { columnLabel, matchColumns, unitOfColumns, unusedColumns, widthMismatch } from './columnMap.ts'
 import type { ColumnUnit, CsvHeader } from './columnMap.ts'
 import {
   PARSE_BAD_INTEGER, PARSE_BAD_QUOTE, PARSE_EMPTY, PARSE_NOT_FINITE, PARSE_OK, PARSE_OPEN_QUOTE, atLineEnd, createCursor,
@@ -159,6 +159,8 @@ export function readNumericTable(file: string, text: string, spec: NumericTableS
   const { cur, dialect, header } = openTable(file, text, spec.settings, 'numeric', spec.role)
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
   const columnOf = matchColumns(file, header, spec.fields, spec.columns, spec.role)
+  const mismatch = widthMismatch(header, spec.role)
+  if (mismatch) throw new InputError('header', `${header.raw.join(', ')}: ${mismatch}`, { file, line: header.line })
   const nf = header.width
   // Per column: the field it holds (0 = id, k = value k), or -1 for a column left out.
   const slotOf = new Int32Array(nf).fill(-1)

@@ -158,6 +158,7 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
       }
       if (!lineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"; fields are separated by ${separatorWords(cur)}`, undefined, id)
       if (k !== nn) failNodeCount(cur, ELEMENT_TYPE_NAMES[t], nn, firstNode, id, k)
+      if (fields > maxNodes) fail(cur, 'node-count', `the row has more fields than the ${maxNodes} node columns of the header; ${ELEMENT_TYPE_NAMES[t]} has ${nn} nodes: list as many node columns in model.json "columns"`, undefined, id)
     } else {
       // Any other layout: field by field, nodes gathered first (the type may come after them).
       rowNodes.fill(0)

@@ -75,8 +75,8 @@ export const NODE_ORDERS: Readonly<Partial<Record<ElementTypeName, readonly numb
 }
 
 /** Rewrites our node order into the user's: user column perm[k] holds our node k. */
-export function toUserOrder(nodes: readonly string[], perm: readonly number[]): string[] {
-  const out = new Array<string>(nodes.length)
+export function toUserOrder<T>(nodes: readonly T[], perm: readonly number[]): T[] {
+  const out = new Array<T>(nodes.length)
   perm.forEach((p, k) => { out[p] = nodes[k] })
   return out
 }

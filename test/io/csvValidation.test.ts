@@ -62,6 +62,10 @@ describe('files', () => {
     const files = [...toFiles(tinyBundle()), { name: 'other/NODES.csv', text: 'id,x,y,z\n1,0,0,0\n' }]
     expect(() => readCsvBundle(files)).toThrow(/two files named nodes\.csv/)
   })
+  it('two model.json files', () => {
+    const files = [...toFiles(tinyBundle()), { name: 'other/model.json', text: '{}' }]
+    expect(() => readCsvBundle(files)).toThrow(/two files named model\.json were given: model\.json and other\/model\.json/)
+  })
   it('a file over the size limit', () => {
     const files = toFiles(tinyBundle())
     const size = files[0].text.length
