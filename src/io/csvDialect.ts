@@ -48,6 +48,8 @@ export interface DialectSettings {
 export interface CsvDialect {
   readonly separator: Separator
   readonly decimal: DecimalMark
+  /** False when the decimal mark was neither declared nor seen (whole numbers only). */
+  readonly decimalSeen: boolean
   /** Lines skipped before the header (or the first row): declared, or the detected preamble. */
   readonly skipLines: number
   /** 1-based line of the header, 0 when the file has none. */
@@ -97,7 +99,7 @@ export function detectDialect(file: string, text: string, settings: DialectSetti
   const key = (k: DialectKey, v: string) => `"csv": {"${k}": ${v}} in model.json (or "csv": {"${role}": {"${k}": ${v}}} for this file only)`
   if (sample.length === 0) {
     // Empty, or only comments: the table reader says so.
-    return { separator: settings.separator ?? ',', decimal: settings.decimal ?? '.', skipLines: settings.skipLines ?? 0, headerLine: 0, declared, start: text.length, startLine: 1, rowFields: 0 }
+    return { separator: settings.separator ?? ',', decimal: settings.decimal ?? '.', decimalSeen: settings.decimal !== undefined, skipLines: settings.skipLines ?? 0, headerLine: 0, declared, start: text.length, startLine: 1, rowFields: 0 }
   }
   // A declared decimal comma rules the comma out as the separator.
   const candidates = settings.separator !== undefined ? [settings.separator] : SEPARATOR_ORDER.filter((c) => !(c === ',' && settings.decimal === ','))
@@ -144,10 +146,10 @@ export function detectDialect(file: string, text: string, settings: DialectSetti
     // A header and nothing below it in the sample: the table reader reports the missing rows.
     firstRow = sample.length - 1
   }
-  const decimal = settings.decimal ?? detectDecimal(file, text, sample, splits, Math.max(firstRow, headerAt + 1), sep, key)
+  const found = settings.decimal !== undefined ? { mark: settings.decimal, seen: true } : detectDecimal(file, text, sample, splits, Math.max(firstRow, headerAt + 1), sep, shape, key)
   const at = headerAt >= 0 ? sample[headerAt] : sample[firstRow]
   return {
-    separator: sep, decimal, skipLines, headerLine: headerAt >= 0 ? sample[headerAt].line : 0, declared,
+    separator: sep, decimal: found.mark, decimalSeen: found.seen, skipLines, headerLine: headerAt >= 0 ? sample[headerAt].line : 0, declared,
     start: at.pos, startLine: at.line, rowFields: shape === 'numeric' ? width : splits[Math.min(Math.max(firstRow, headerAt + 1), splits.length - 1)].fields.length,
   }
 }
@@ -160,11 +162,10 @@ function headerOnly(sample: readonly SampleLine[], settings: DialectSettings, de
     if (n > most) { most = n; best = c }
   }
   const header = settings.header !== false
-  return { separator: best, decimal: settings.decimal ?? '.', skipLines: settings.skipLines ?? 0, headerLine: header ? sample[0].line : 0, declared, start: sample[0].pos, startLine: sample[0].line, rowFields: most }
+  return { separator: best, decimal: settings.decimal ?? '.', decimalSeen: settings.decimal !== undefined, skipLines: settings.skipLines ?? 0, headerLine: header ? sample[0].line : 0, declared, start: sample[0].pos, startLine: sample[0].line, rowFields: most }
 }
 
-function detectDecimal(file: string, text: string, sample: readonly SampleLine[], splits: readonly Split[], from: number, sep: Separator, key: (k: DialectKey, v: string) => string): DecimalMark {
-  if (sep === ',') return '.'
+function detectDecimal(file: string, text: string, sample: readonly SampleLine[], splits: readonly Split[], from: number, sep: Separator, shape: TableShape, key: (k: DialectKey, v: string) => string): { mark: DecimalMark; seen: boolean } {
   let point = -1, comma = -1
   for (let i = from; i < splits.length; i++) {
     if (splits[i].kind !== Kind.Data) continue
@@ -176,13 +177,15 @@ function detectDecimal(file: string, text: string, sample: readonly SampleLine[]
   if (point >= 0 && comma >= 0) {
     throw new InputError('csv-dialect', `the first rows write decimal points (line ${sample[point].line}) and decimal commas (line ${sample[comma].line}); declare which one the file uses, e.g. ${key('decimal', '","')}`, { file, line: sample[Math.max(point, comma)].line })
   }
-  if (comma >= 0) return ','
-  if (point >= 0 || sample.length < SAMPLE_LINES) return '.'
+  if (comma >= 0) return { mark: ',', seen: true }
+  if (point >= 0) return { mark: '.', seen: true }
+  // Element rows hold no decimals worth a search.
+  if (sample.length < SAMPLE_LINES || shape === 'elements') return { mark: '.', seen: false }
   // Only whole numbers in the sample: the first point or comma after it decides (two native
   // searches, no parse); the reader refuses the other mark where it appears, saying so.
   const after = sample[sample.length - 1].pos + sample[sample.length - 1].text.length
-  const p = text.indexOf('.', after), c = text.indexOf(',', after)
-  return c >= 0 && (p < 0 || c < p) ? ',' : '.'
+  const p = text.indexOf('.', after), c = sep === ',' ? -1 : text.indexOf(',', after)
+  return { mark: c >= 0 && (p < 0 || c < p) ? ',' : '.', seen: p >= 0 || c >= 0 }
 }
 
 /**
@@ -305,7 +308,8 @@ function quoteLine(s: string): string {
 
 /** A short description for the model card and `tractus info`. */
 export function describeDialect(d: CsvDialect): string {
-  const parts = [d.separator === ' ' ? 'separated by spaces' : `${SEPARATOR_NAMES[d.separator]}-separated`, d.decimal === ',' ? 'decimal comma' : 'decimal point']
+  const parts = [d.separator === ' ' ? 'separated by spaces' : `${SEPARATOR_NAMES[d.separator]}-separated`]
+  if (d.decimalSeen) parts.push(d.decimal === ',' ? 'decimal comma' : 'decimal point')
   if (d.skipLines > 0) parts.push(`${d.skipLines} line${d.skipLines === 1 ? '' : 's'} skipped`)
   parts.push(d.headerLine > 0 ? `header on line ${d.headerLine}` : `no header, first row on line ${d.startLine}`)
   if (d.declared.length) parts.push(`${d.declared.join(', ')} from model.json`)
