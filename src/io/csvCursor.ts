@@ -288,7 +288,8 @@ export function readNumber(cur: CsvCursor): number {
     // Valid decimal outside the fast path: the platform's correctly rounded conversion, of the
     // token rewritten in its grammar (decimal point, e exponent) where the file writes otherwise.
     let tok = text.slice(start, end)
-    if (dec !== CH_DOT || lower === CH_d) tok = tok.replace(',', '.').replace(/[dD]/, 'e')
+    if (dec !== CH_DOT) tok = tok.replace(',', '.')
+    if (lower === CH_d) tok = tok.replace(/[dD]/, 'e')
     const v = Number(tok)
     if (v === Infinity || v === -Infinity) cur.status = PARSE_NOT_FINITE
     return v

@@ -18,6 +18,11 @@
  * 2. The Jacobian determinant det(∂x/∂ξ) is positive at every point of the type's volume rule:
  *    the map from the reference element does not fold. The readers have already made the corner
  *    volume positive (src/io/elementOrientation.ts), so a non-positive value here means a fold.
+ *    Shortcut: where every mid-edge node sits at its edge's midpoint (to STRAIGHT relative to
+ *    the edge: the decimal round-off of a written midpoint) and the corners form a simplex (4
+ *    corners), the quadratic map is the affine map of the corners (quadratic shape functions
+ *    reproduce linear fields), whose det J is the constant 6V > 0: nothing to evaluate. Most
+ *    elements of a solver's mesh are such; only curved ones pay for the quadrature loop.
  *
  * Units: coordinates in model length units. `conn` holds 0-based node indices, nodeCount per
  * element, in our local node order. Linear types are not checked (O(elements) only for quadratic
@@ -30,6 +35,8 @@ import { shapeDerivatives } from '../mechanics/shapeFunctions.ts'
 
 /** A mid-edge node may lie this fraction of its edge's length from the edge's midpoint. */
 export const MID_EDGE_TOLERANCE = 0.25
+/** A mid-edge node this close to its edge's midpoint (relative to the edge) counts as straight. */
+const STRAIGHT = 1e-10
 
 /** The first element of a block that fails (index within the block). */
 export interface QuadraticFinding {
@@ -67,6 +74,8 @@ export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName,
     dN.set(d, q * nn * 3)
   }
   const tol2 = MID_EDGE_TOLERANCE * MID_EDGE_TOLERANCE
+  const straight2 = STRAIGHT * STRAIGHT
+  const simplex = topo.cornerCount === 4
   const x = new Float64Array(nn * 3)
   const count = (conn.length / nn) | 0
   for (let e = 0; e < count; e++) {
@@ -75,16 +84,19 @@ export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName,
       const p = 3 * conn[base + a]
       x[3 * a] = coords[p]; x[3 * a + 1] = coords[p + 1]; x[3 * a + 2] = coords[p + 2]
     }
-    let worst = 0, worstRel = -1
+    let worst = 0, worstRel = -1, curved = false
     for (let i = 0; i < ne; i++) {
       const a = 3 * edgeNodes[3 * i], b = 3 * edgeNodes[3 * i + 1], m = 3 * edgeNodes[3 * i + 2]
       const ex = x[b] - x[a], ey = x[b + 1] - x[a + 1], ez = x[b + 2] - x[a + 2]
       const ox = x[m] - 0.5 * (x[a] + x[b]), oy = x[m + 1] - 0.5 * (x[a + 1] + x[b + 1]), oz = x[m + 2] - 0.5 * (x[a + 2] + x[b + 2])
       const l2 = ex * ex + ey * ey + ez * ez, o2 = ox * ox + oy * oy + oz * oz
       if (o2 > tol2 * l2) return finding(e, 'mid-edge', i, o2, l2, -1, 0)
+      if (o2 > straight2 * l2) curved = true
       // Relative offset, for naming the likeliest culprit of a fold (o2/l2, no division by 0).
       if (o2 > worstRel * l2) { worstRel = l2 > 0 ? o2 / l2 : Infinity; worst = i }
     }
+    // Straight-sided simplex: det J = 6V > 0 everywhere (see the file's opening comment).
+    if (simplex && !curved) continue
     for (let q = 0; q < nq; q++) {
       let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
       const o = q * nn * 3
