@@ -87,7 +87,7 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
   const slotOf = cols.slotOf
   const label = (j: number, k = -1) => (j < cols.labels.length ? cols.labels[j] : `node ${k + 1}`)
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
-  const next = nextRecord, sep = takeSeparator, id_ = readId, count_ = readCount, skip = skipField, lineEnd = atLineEnd, finish = finishLine
+  const next = nextRecord, sep = takeSeparator, id_ = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
   const OK = PARSE_OK
   const SEP = cur.sep
   const hasPart = cols.hasPart
@@ -100,29 +100,18 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
   const rowNodes = new Int32Array(Math.max(maxNodes, MAX_NODES))
   // The first type seen gets room for every line; others start small and double as needed.
   let estimate = Math.max(16, estimateRecordCount(text))
+  // The row being read: id, type, part and which of them the row had (one record, reused).
+  const row: RowFields = { id: 0, t: -1, part: 0, gotId: false, gotPart: false }
   while (next(cur)) {
-    let id = 0, t = -1, part = 0, k = 0
+    row.id = 0; row.t = -1; row.part = 0; row.gotId = false; row.gotPart = false
+    let k = 0
     if (cols.plain) {
       // id, type and part (and left-out columns) before the nodes, in any order.
       for (let j = 0; j < firstNode; j++) {
-        if (j > 0 && !sep(cur)) fail(cur, 'column-count', `the row ends before column "${label(j)}"; every element row has ${describeColumns(cols, header)}`, label(j), id || undefined)
-        const s = slotOf[j]
-        if (s === SLOT_ID) {
-          id = id_(cur)
-          if (cur.status !== OK) failField(cur, label(j), 'id')
-        } else if (s === SLOT_TYPE) {
-          skip(cur)
-          if (cur.status !== OK) failField(cur, label(j), 'id', id || undefined)
-          t = matchType(text, cur.tokStart, cur.tokEnd, lookup)
-          if (t < 0) failType(cur, label(j), spec, id)
-        } else if (s === SLOT_PART) {
-          part = count_(cur)
-          if (cur.status !== OK) failField(cur, label(j), 'part', id || undefined)
-        } else {
-          skip(cur)
-          if (cur.status !== OK) failField(cur, label(j), 'number', id || undefined)
-        }
+        if (j > 0 && !sep(cur)) fail(cur, 'column-count', `the row ends before column "${label(j)}"; every element row has ${describeColumns(cols, header)}`, label(j), row.id || undefined)
+        readOtherField(cur, slotOf[j], label(j), row, lookup, spec)
       }
+      const t = row.t, id = row.id
       const nn = NODE_COUNTS[t]
       const g = room(t)
       const base = g.count * nn
@@ -162,48 +151,34 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
     } else {
       // Any other layout: field by field, nodes gathered first (the type may come after them).
       rowNodes.fill(0)
-      let gotId = false, gotPart = false, nodeFields = 0
+      let nodeFields = 0
       for (let j = 0; ; j++) {
         if (j > 0 && !sep(cur)) break
-        if (j >= slotOf.length) fail(cur, 'column-count', `the row has more fields than the ${slotOf.length} columns of the header`, undefined, id || undefined)
+        if (j >= slotOf.length) fail(cur, 'column-count', `the row has more fields than the ${slotOf.length} columns of the header`, undefined, row.id || undefined)
         const s = slotOf[j]
         if (s >= 0) {
           const nid = id_(cur)
           if (cur.status === PARSE_EMPTY) continue
-          if (cur.status !== OK) failField(cur, label(j), 'id', id || undefined)
+          if (cur.status !== OK) failField(cur, label(j), 'id', row.id || undefined)
           rowNodes[s] = nid
           nodeFields++
-        } else if (s === SLOT_ID) {
-          id = id_(cur); gotId = true
-          if (cur.status !== OK) failField(cur, label(j), 'id')
-        } else if (s === SLOT_TYPE) {
-          skip(cur)
-          if (cur.status !== OK) failField(cur, label(j), 'id', id || undefined)
-          t = matchType(text, cur.tokStart, cur.tokEnd, lookup)
-          if (t < 0) failType(cur, label(j), spec, id)
-        } else if (s === SLOT_PART) {
-          part = count_(cur); gotPart = true
-          if (cur.status !== OK) failField(cur, label(j), 'part', id || undefined)
-        } else {
-          skip(cur)
-          if (cur.status !== OK) failField(cur, label(j), 'number', id || undefined)
-        }
+        } else readOtherField(cur, s, label(j), row, lookup, spec)
       }
-      if (!lineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"; fields are separated by ${separatorWords(cur)}`, undefined, id || undefined)
-      const missing = !gotId ? SLOT_ID : t < 0 ? SLOT_TYPE : hasPart && !gotPart ? SLOT_PART : 0
+      if (!lineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"; fields are separated by ${separatorWords(cur)}`, undefined, row.id || undefined)
+      const missing = !row.gotId ? SLOT_ID : row.t < 0 ? SLOT_TYPE : hasPart && !row.gotPart ? SLOT_PART : 0
       if (missing) {
         const j = slotOf.indexOf(missing)
-        fail(cur, 'column-count', `the row ends before column "${label(j)}"; every element row has ${describeColumns(cols, header)}`, label(j), gotId ? id : undefined)
+        fail(cur, 'column-count', `the row ends before column "${label(j)}"; every element row has ${describeColumns(cols, header)}`, label(j), row.gotId ? row.id : undefined)
       }
-      const nn = NODE_COUNTS[t]
+      const nn = NODE_COUNTS[row.t]
       for (k = 0; k < nn && rowNodes[k] > 0; k++);
-      if (k !== nn || nodeFields !== nn) failNodeCount(cur, ELEMENT_TYPE_NAMES[t], nn, -1, id, nodeFields)
-      const g = room(t)
+      if (k !== nn || nodeFields !== nn) failNodeCount(cur, ELEMENT_TYPE_NAMES[row.t], nn, -1, row.id, nodeFields)
+      const g = room(row.t)
       g.nodeIds.set(rowNodes.subarray(0, nn), g.count * nn)
     }
-    const g = byType[t]!
-    g.ids[g.count] = id
-    if (hasPart) g.part[g.count] = part
+    const g = byType[row.t]!
+    g.ids[g.count] = row.id
+    if (hasPart) g.part[g.count] = row.part
     g.lines[g.count] = cur.line
     g.count++
     finish(cur)
@@ -238,6 +213,38 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
       if (hasPart) g.part = growInt(g.part, cap)
     }
     return g
+  }
+}
+
+/** The fields of an element row other than its nodes. */
+interface RowFields {
+  id: number
+  /** Index into TYPE_NAMES, -1 until read. */
+  t: number
+  part: number
+  gotId: boolean
+  gotPart: boolean
+}
+
+/** Reads one field that is not a node (id, type, part, or a column left out) into `row`. */
+function readOtherField(cur: CsvCursor, slot: number, column: string, row: RowFields, lookup: TypeLookup, spec: ElementTableSpec): void {
+  const id = row.id || undefined
+  if (slot === SLOT_ID) {
+    row.id = readId(cur)
+    row.gotId = true
+    if (cur.status !== PARSE_OK) failField(cur, column, 'id')
+  } else if (slot === SLOT_TYPE) {
+    skipField(cur)
+    if (cur.status !== PARSE_OK) failField(cur, column, 'id', id)
+    row.t = matchType(cur.text, cur.tokStart, cur.tokEnd, lookup)
+    if (row.t < 0) failType(cur, column, spec, row.id)
+  } else if (slot === SLOT_PART) {
+    row.part = readCount(cur)
+    row.gotPart = true
+    if (cur.status !== PARSE_OK) failField(cur, column, 'part', id)
+  } else {
+    skipField(cur)
+    if (cur.status !== PARSE_OK) failField(cur, column, 'number', id)
   }
 }
 
