@@ -1,6 +1,7 @@
 /**
- * `tractus info <model>`: what is in a model (counts, element types, bounds, units, stress range,
- * body force, reader warnings), without any mechanics.
+ * `tractus info <model>`: what is in a model (counts, element types, bounds, units and where they
+ * came from, stress range, body force, how each file was read, reader warnings), without any
+ * mechanics.
  */
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
@@ -9,6 +10,7 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { block, qty, table, vecJson, vecQty } from './format.ts'
 import { STRESS_COMPONENTS } from '../model/model.ts'
 import type { Model } from '../model/model.ts'
+import type { IntakeReport, UnitSource } from '../io/index.ts'
 
 export interface ModelSummary {
   readonly types: Record<string, number>
@@ -50,6 +52,16 @@ export function summarize(model: Model): ModelSummary {
   return { types, parts: [...parts].sort((a, b) => a - b), min, max, stressMin, stressMax }
 }
 
+const SOURCE_WORDS: Readonly<Record<UnitSource, string>> = {
+  'model.json': 'model.json', header: 'the headers', container: 'the container', default: 'NOT DECLARED, assumed',
+}
+
+/** "length mm (model.json), stress MPa (the headers)". */
+export function unitsText(model: Model, intake: IntakeReport): string {
+  const s = intake.unitSources
+  return `length ${model.units.length} (${SOURCE_WORDS[s.length]}), stress ${model.units.stress} (${SOURCE_WORDS[s.stress]})`
+}
+
 export const infoCommand: Command = {
   name: 'info',
   summary: 'counts, element types, bounds, units and warnings of a model',
@@ -60,6 +72,7 @@ export const infoCommand: Command = {
   run(args, io) {
     const loaded = loadModel(args.positionals[0])
     const { model } = loaded
+    const intake = model.intake
     const u = createUnitView(model.units, unitChoice(args))
     const s = summarize(model)
     const bodyForce = bodyForceOf(args, model)
@@ -73,6 +86,8 @@ export const infoCommand: Command = {
         name: model.name,
         description: model.description,
         modelUnits: { length: model.units.length, stress: model.units.stress },
+        unitsDeclared: intake.unitsDeclared,
+        unitSources: intake.unitSources,
         units: unitLabels(u),
         nodes: model.mesh.nodeCount,
         elements: model.mesh.elementCount,
@@ -82,13 +97,14 @@ export const infoCommand: Command = {
         stress: Object.fromEntries(STRESS_COMPONENTS.map((c, k) => [c, [s.stressMin[k] * fs, s.stressMax[k] * fs]])),
         displacement: model.displacement !== null,
         bodyForce: vecJson(bodyForce, 'forcePerVolume', u),
+        files: intake.files.map((f) => ({ ...f })),
         warnings: [...model.warnings],
       })
       return 0
     }
     const typeText = Object.entries(s.types).map(([t, n]) => `${n} ${t}`).join(', ')
     let out = block(`Model "${model.name}" (${loaded.format === 'native' ? 'native file' : 'CSV bundle'} ${loaded.path})`, [
-      ['model units', `length ${model.units.length}, stress ${model.units.stress}`],
+      ['model units', unitsText(model, intake)],
       ['nodes', String(model.mesh.nodeCount)],
       ['elements', `${model.mesh.elementCount} (${typeText || 'none'})`],
       ['parts', s.parts.length ? s.parts.join(', ') : 'none'],
@@ -99,6 +115,10 @@ export const infoCommand: Command = {
       ['displacement', model.displacement ? 'present' : 'none'],
     ])
     if (model.description) out += `  ${model.description}\n`
+    if (intake.files.length) {
+      out += '\nFiles read\n'
+      out += table(intake.files.map((f) => [`  ${f.role}`, f.file, f.description + (f.ignoredColumns.length ? `; columns left out: ${f.ignoredColumns.join(', ')}` : '')]), [false, false, false])
+    }
     out += '\nNodal stress range\n'
     out += table([
       ['  component', 'min', 'max'],

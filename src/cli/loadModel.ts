@@ -1,17 +1,18 @@
 /**
  * Reads a model from disk for the command line: a bundle folder (CSV files and an optional
- * model.json) or a native `.tractus` file. Reader errors name the file by its path on disk.
+ * model.json, which may name files of any extension in "files") or a native `.tractus` file.
+ * Reader errors name the file by its path on disk.
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs'
 import { basename, extname, join } from 'node:path'
 import { InputError, isInputError } from '../model/errors.ts'
-import type { Model } from '../model/model.ts'
 import { readModelFiles, readNative } from '../io/index.ts'
+import type { ReadModel } from '../io/index.ts'
 
 export const NATIVE_EXTENSION = '.tractus'
 
 export interface LoadedModel {
-  readonly model: Model
+  readonly model: ReadModel
   /** The path as given. */
   readonly path: string
   /** 'bundle' for a CSV folder, 'native' for a .tractus file. */
@@ -38,9 +39,11 @@ export function loadModel(path: string): LoadedModel {
 }
 
 function loadBundle(dir: string): LoadedModel {
-  const names = readdirSync(dir).filter((n) => {
+  const entries = readdirSync(dir).filter((n) => statSync(join(dir, n)).isFile())
+  const named = namedInModelJson(dir, entries)
+  const names = entries.filter((n) => {
     const e = extname(n).toLowerCase()
-    return (e === '.csv' || e === '.json') && statSync(join(dir, n)).isFile()
+    return e === '.csv' || e === '.json' || named.has(n.toLowerCase())
   }).sort()
   if (names.length === 0) {
     throw new InputError('missing-file', 'no CSV files in this folder (expected nodes.csv, elements.csv, stress.csv and optionally model.json)', { file: dir })
@@ -53,6 +56,23 @@ function loadBundle(dir: string): LoadedModel {
   })
   const model = withPath(() => readModelFiles(files), dir, null)
   return { model, path: dir, format: 'bundle', bytes }
+}
+
+/**
+ * The base names (lower-case) that model.json "files" gives, so files of any extension are read.
+ * A model.json that does not parse names none here: the reader reports it.
+ */
+function namedInModelJson(dir: string, entries: readonly string[]): Set<string> {
+  const json = entries.find((n) => n.toLowerCase() === 'model.json')
+  const out = new Set<string>()
+  if (!json) return out
+  try {
+    const files = (JSON.parse(readFileSync(join(dir, json), 'utf8').replace(/^\uFEFF/, '')) as { files?: unknown }).files
+    if (files && typeof files === 'object') for (const v of Object.values(files)) if (typeof v === 'string') out.add(basename(v.trim()).toLowerCase())
+  } catch {
+    // Not JSON: the reader says where.
+  }
+  return out
 }
 
 /** Runs a reader and rewrites the file name in its error into the path on disk. */

@@ -9,9 +9,20 @@
  * floating point numbers accurately", PLDI 1990). Everything else that is a valid decimal goes to
  * Number(substring).
  *
- * Accepted number grammar (spaces and tabs around a field are ignored):
- *   [+-]? ( digits [. digits?]? | . digits ) ( [eE] [+-]? digits )?
- * Number() accepts more ("0x1F", "Infinity", ""): those are rejected here on purpose.
+ * The file's dialect (src/io/csvDialect.ts) is a set of character codes in the cursor, not a
+ * setting the parsers branch on per character: the separator `sep` (',' ';' tab, or a space for
+ * runs of blanks), the decimal mark `dec` ('.' or ',') and the second blank trimmed around a field
+ * (`blank`: tab, or none when tab separates). A comma file runs the very code it always ran.
+ *
+ * Accepted number grammar (blanks around a field are ignored; `.` is the file's decimal mark):
+ *   [+-]? ( digits [. digits?]? | . digits ) ( [eEdD] [+-]? digits )?
+ * `D` exponents are Fortran's double-precision form (1.5D+03 = 1.5e3). Number() accepts more
+ * ("0x1F", "Infinity", ""): those are rejected here on purpose.
+ *
+ * Quoted fields (RFC 4180: "..." with "" for a quote inside; a quoted field may hold the
+ * separator) take a slower path that starts only where a field opens with a quote. A line break
+ * inside quotes is refused (PARSE_OPEN_QUOTE): every table here is one record per line, and a
+ * number or name never holds a line break.
  */
 
 /** Parse status left in `cursor.status` by the field readers. */
@@ -21,6 +32,10 @@ export const PARSE_NOT_FINITE = 2
 export const PARSE_EMPTY = 3
 /** An id or part field that is a finite number but not an integer in range. */
 export const PARSE_BAD_INTEGER = 4
+/** A quoted field whose closing quote is missing on its line. */
+export const PARSE_OPEN_QUOTE = 5
+/** A quoted field with text after its closing quote. */
+export const PARSE_BAD_QUOTE = 6
 
 export interface CsvCursor {
   readonly text: string
@@ -35,10 +50,18 @@ export interface CsvCursor {
   /** Trimmed extent of the last field read, for messages. */
   tokStart: number
   tokEnd: number
+  /** Separator code: 44 ',', 59 ';', 9 tab, or 32 for runs of spaces and tabs. */
+  readonly sep: number
+  /** Decimal mark code: 46 '.' or 44 ','. */
+  readonly dec: number
+  /** Trimmed around fields besides the space: tab (9), or -2 (nothing) when tab separates. */
+  readonly blank: number
+  /** True when runs of blanks separate fields (sep = 32). */
+  readonly runs: boolean
 }
 
-const CH_TAB = 9, CH_LF = 10, CH_CR = 13, CH_SPACE = 32, CH_HASH = 35, CH_PLUS = 43, CH_COMMA = 44
-const CH_MINUS = 45, CH_DOT = 46, CH_0 = 48, CH_9 = 57, CH_E = 69, CH_e = 101
+const CH_TAB = 9, CH_LF = 10, CH_CR = 13, CH_SPACE = 32, CH_QUOTE = 34, CH_HASH = 35, CH_PLUS = 43
+const CH_MINUS = 45, CH_DOT = 46, CH_0 = 48, CH_9 = 57, CH_e = 101, CH_d = 100
 
 /** 2^53: below it every integer is exact in a double. */
 const EXACT_INT_LIMIT = 9007199254740992
@@ -46,10 +69,24 @@ const POW10 = new Float64Array(23)
 for (let i = 0, p = 1; i < 23; i++, p *= 10) POW10[i] = p
 const MAX_ID = 2147483647
 
-export function createCursor(file: string, text: string): CsvCursor {
+/**
+ * A cursor at the start of `text` (after a byte order mark). `separator` is ',', ';', '\t' or
+ * ' ' (runs of spaces and tabs); `decimal` '.' or ','.
+ */
+export function createCursor(file: string, text: string, separator = ',', decimal = '.'): CsvCursor {
   // A UTF-8 byte order mark decoded as text is U+FEFF at the start; skip it.
   const pos = text.length > 0 && text.charCodeAt(0) === 0xfeff ? 1 : 0
-  return { text, file, pos, line: 1, status: PARSE_OK, tokStart: pos, tokEnd: pos }
+  const sep = separator.charCodeAt(0)
+  return {
+    text, file, pos, line: 1, status: PARSE_OK, tokStart: pos, tokEnd: pos,
+    sep, dec: decimal.charCodeAt(0), blank: sep === CH_TAB ? -2 : CH_TAB, runs: sep === CH_SPACE,
+  }
+}
+
+/** Moves the cursor to `pos`, the start of line `line` (1-based), e.g. past a preamble. */
+export function moveCursor(cur: CsvCursor, pos: number, line: number): void {
+  cur.pos = pos
+  cur.line = line
 }
 
 /**
@@ -81,18 +118,41 @@ export function nextRecord(cur: CsvCursor): boolean {
   }
 }
 
-/** True when the cursor sits on a field separator (and steps over it). */
-export function takeComma(cur: CsvCursor): boolean {
-  if (cur.pos < cur.text.length && cur.text.charCodeAt(cur.pos) === CH_COMMA) { cur.pos++; return true }
-  return false
+/**
+ * True when the cursor sits on a field separator (and steps over it). With runs of blanks as the
+ * separator, the field readers have already stepped over the blanks after a field: the cursor is
+ * then on the next field, which counts as a separator when blanks precede it.
+ */
+export function takeSeparator(cur: CsvCursor): boolean {
+  const p = cur.pos
+  if (!cur.runs) {
+    if (p < cur.text.length && cur.text.charCodeAt(p) === cur.sep) { cur.pos = p + 1; return true }
+    return false
+  }
+  return takeBlankRun(cur)
+}
+
+function takeBlankRun(cur: CsvCursor): boolean {
+  const text = cur.text, len = text.length
+  let p = cur.pos
+  let c = p < len ? text.charCodeAt(p) : -1
+  if (!isBlankCode(c) && !(p > 0 && isBlankCode(text.charCodeAt(p - 1)))) return false
+  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
+  cur.pos = p
+  // At the line's end there is no next field.
+  return !(c === -1 || c === CH_LF || c === CH_CR)
+}
+
+function isBlankCode(c: number): boolean {
+  return c === CH_SPACE || c === CH_TAB
 }
 
 /** True when the cursor sits at the end of a line or of the text (after trailing blanks). */
 export function atLineEnd(cur: CsvCursor): boolean {
-  const text = cur.text, len = cur.text.length
+  const text = cur.text, len = cur.text.length, blank = cur.blank
   let p = cur.pos
   let c = p < len ? text.charCodeAt(p) : -1
-  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
   cur.pos = p
   return c === -1 || c === CH_LF || c === CH_CR
 }
@@ -108,19 +168,69 @@ export function finishLine(cur: CsvCursor): void {
   cur.line++
 }
 
-/** Skips the rest of the current field (up to a comma or the end of line); returns its trimmed extent in tokStart/tokEnd. */
+/**
+ * Skips the rest of the current field (up to the separator or the end of line); returns its
+ * trimmed extent in tokStart/tokEnd (with its quotes, when quoted). Status PARSE_OK, or
+ * PARSE_OPEN_QUOTE / PARSE_BAD_QUOTE for a quoted field without its closing quote on the line or
+ * with text after it.
+ */
 export function skipField(cur: CsvCursor): void {
-  const text = cur.text, len = text.length
+  const text = cur.text, len = text.length, sep = cur.sep, blank = cur.blank
+  // With runs of blanks a tab ends a field as a space does; otherwise this repeats `sep`.
+  const alsoEnds = cur.runs ? CH_TAB : sep
   let p = cur.pos
   let c = p < len ? text.charCodeAt(p) : -1
-  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
   const start = p
-  while (c !== CH_COMMA && c !== CH_LF && c !== CH_CR && c !== -1) c = ++p < len ? text.charCodeAt(p) : -1
+  if (c === CH_QUOTE) { skipQuoted(cur, start); return }
+  while (c !== sep && c !== alsoEnds && c !== CH_LF && c !== CH_CR && c !== -1) c = ++p < len ? text.charCodeAt(p) : -1
   let end = p
-  while (end > start && (text.charCodeAt(end - 1) === CH_SPACE || text.charCodeAt(end - 1) === CH_TAB)) end--
+  while (end > start && (text.charCodeAt(end - 1) === CH_SPACE || text.charCodeAt(end - 1) === blank)) end--
   cur.pos = p
   cur.tokStart = start
   cur.tokEnd = end
+  cur.status = PARSE_OK
+}
+
+/** A quoted field from its opening quote at `start`: RFC 4180, "" is a quote inside. */
+function skipQuoted(cur: CsvCursor, start: number): void {
+  const text = cur.text, len = text.length, sep = cur.sep, blank = cur.blank
+  let p = start + 1
+  for (;;) {
+    const c = p < len ? text.charCodeAt(p) : -1
+    if (c === -1 || c === CH_LF || c === CH_CR) {
+      cur.pos = p; cur.tokStart = start; cur.tokEnd = p; cur.status = PARSE_OPEN_QUOTE
+      return
+    }
+    if (c === CH_QUOTE) {
+      if (p + 1 < len && text.charCodeAt(p + 1) === CH_QUOTE) { p += 2; continue }
+      break
+    }
+    p++
+  }
+  const end = ++p
+  let c = p < len ? text.charCodeAt(p) : -1
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
+  cur.tokStart = start
+  cur.tokEnd = end
+  if (c === sep || c === CH_LF || c === CH_CR || c === -1 || (cur.runs && p > end)) {
+    cur.pos = p
+    cur.status = PARSE_OK
+    return
+  }
+  // Text after the closing quote: the field runs on to the separator, and is malformed.
+  const alsoEnds = cur.runs ? CH_TAB : sep
+  while (c !== sep && c !== alsoEnds && c !== CH_LF && c !== CH_CR && c !== -1) c = ++p < len ? text.charCodeAt(p) : -1
+  cur.pos = p
+  cur.tokEnd = p
+  cur.status = PARSE_BAD_QUOTE
+}
+
+/** The last field's text without its quotes ("" inside read as one quote). */
+export function fieldText(cur: CsvCursor): string {
+  const s = cur.text.slice(cur.tokStart, cur.tokEnd)
+  if (s.length >= 2 && s.charCodeAt(0) === CH_QUOTE && s.charCodeAt(s.length - 1) === CH_QUOTE) return s.slice(1, -1).replace(/""/g, '"').trim()
+  return s
 }
 
 /** The last field's text, shortened for messages. */
@@ -130,26 +240,29 @@ export function tokenText(cur: CsvCursor): string {
 }
 
 /**
- * Reads one number field; leaves the cursor on the following comma or line end. Sets
- * `cur.status` to PARSE_OK, PARSE_NOT_A_NUMBER, PARSE_NOT_FINITE or PARSE_EMPTY.
+ * Reads one number field; leaves the cursor on the following separator or line end (with runs of
+ * blanks: on the next field). Sets `cur.status` to PARSE_OK, PARSE_NOT_A_NUMBER,
+ * PARSE_NOT_FINITE, PARSE_EMPTY or a quote status.
  */
 export function readNumber(cur: CsvCursor): number {
-  const text = cur.text, len = text.length
+  const text = cur.text, len = text.length, sep = cur.sep, dec = cur.dec, blank = cur.blank
   let p = cur.pos
   let c = p < len ? text.charCodeAt(p) : -1
-  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
   const start = p
   let neg = false
   if (c === CH_MINUS) { neg = true; c = ++p < len ? text.charCodeAt(p) : -1 } else if (c === CH_PLUS) c = ++p < len ? text.charCodeAt(p) : -1
   let m = 0, digits = 0, frac = 0
   while (c >= CH_0 && c <= CH_9) { m = m * 10 + (c - CH_0); digits++; c = ++p < len ? text.charCodeAt(p) : -1 }
-  if (c === CH_DOT) {
+  if (c === dec) {
     c = ++p < len ? text.charCodeAt(p) : -1
     while (c >= CH_0 && c <= CH_9) { m = m * 10 + (c - CH_0); digits++; frac++; c = ++p < len ? text.charCodeAt(p) : -1 }
   }
   let exp = 0
   let valid = digits > 0
-  if (valid && (c === CH_e || c === CH_E)) {
+  // c | 32 folds E to e and D to d (and maps no other code to either).
+  const lower = c | 32
+  if (valid && (lower === CH_e || lower === CH_d)) {
     c = ++p < len ? text.charCodeAt(p) : -1
     let eneg = false
     if (c === CH_MINUS) { eneg = true; c = ++p < len ? text.charCodeAt(p) : -1 } else if (c === CH_PLUS) c = ++p < len ? text.charCodeAt(p) : -1
@@ -160,8 +273,8 @@ export function readNumber(cur: CsvCursor): number {
     if (eneg) exp = -exp
   }
   const end = p
-  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
-  if (valid && (c === CH_COMMA || c === CH_LF || c === CH_CR || c === -1)) {
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
+  if (valid && (c === sep || c === CH_LF || c === CH_CR || c === -1 || (cur.runs && p > end))) {
     cur.pos = p
     cur.tokStart = start
     cur.tokEnd = end
@@ -172,16 +285,33 @@ export function readNumber(cur: CsvCursor): number {
       if (e10 < 0 && e10 >= -22) return neg ? -(m / POW10[-e10]) : m / POW10[-e10]
       if (e10 > 0 && e10 <= 22) return neg ? -(m * POW10[e10]) : m * POW10[e10]
     }
-    // Valid decimal outside the fast path: the platform's correctly rounded conversion.
-    const v = Number(text.slice(start, end))
+    // Valid decimal outside the fast path: the platform's correctly rounded conversion, of the
+    // token rewritten in its grammar (decimal point, e exponent) where the file writes otherwise.
+    let tok = text.slice(start, end)
+    if (dec !== CH_DOT) tok = tok.replace(',', '.')
+    if (lower === CH_d) tok = tok.replace(/[dD]/, 'e')
+    const v = Number(tok)
     if (v === Infinity || v === -Infinity) cur.status = PARSE_NOT_FINITE
     return v
   }
-  // Not a plain decimal: find the field's extent and say what it is.
   cur.pos = start
+  if (text.charCodeAt(start) === CH_QUOTE) return readQuotedNumber(cur, start)
+  // Not a plain decimal: find the field's extent and say what it is.
   skipField(cur)
   cur.status = classifyBadToken(text, cur.tokStart, cur.tokEnd)
   return NaN
+}
+
+/** A quoted number field ("1.5"): the quotes stripped, the same grammar inside. */
+function readQuotedNumber(cur: CsvCursor, start: number): number {
+  skipQuoted(cur, start)
+  if (cur.status !== PARSE_OK) return NaN
+  const inner = cur.text.slice(cur.tokStart + 1, cur.tokEnd - 1)
+  if (inner.indexOf('"') >= 0) { cur.status = PARSE_NOT_A_NUMBER; return NaN }
+  const sub: CsvCursor = { text: inner, file: cur.file, pos: 0, line: cur.line, status: PARSE_OK, tokStart: 0, tokEnd: 0, sep: -3, dec: cur.dec, blank: CH_TAB, runs: false }
+  const v = readNumber(sub)
+  cur.status = sub.status === PARSE_OK && sub.pos === inner.length ? PARSE_OK : sub.status === PARSE_OK ? PARSE_NOT_A_NUMBER : sub.status
+  return v
 }
 
 function classifyBadToken(text: string, start: number, end: number): number {
@@ -209,16 +339,16 @@ export function readCount(cur: CsvCursor): number {
 }
 
 function readInteger(cur: CsvCursor, min: number): number {
-  const text = cur.text, len = text.length
+  const text = cur.text, len = text.length, sep = cur.sep, blank = cur.blank
   let p = cur.pos
   let c = p < len ? text.charCodeAt(p) : -1
-  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
   const start = p
   let v = 0, digits = 0
   while (c >= CH_0 && c <= CH_9 && digits < 11) { v = v * 10 + (c - CH_0); digits++; c = ++p < len ? text.charCodeAt(p) : -1 }
   const end = p
-  while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? text.charCodeAt(p) : -1
-  if (digits > 0 && (c === CH_COMMA || c === CH_LF || c === CH_CR || c === -1)) {
+  while (c === CH_SPACE || c === blank) c = ++p < len ? text.charCodeAt(p) : -1
+  if (digits > 0 && (c === sep || c === CH_LF || c === CH_CR || c === -1 || (cur.runs && p > end))) {
     cur.pos = p
     cur.tokStart = start
     cur.tokEnd = end

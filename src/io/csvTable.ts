@@ -1,129 +1,178 @@
 /**
- * Line-level CSV handling shared by the bundle readers: the header line, column lookup by name,
- * the messages of a malformed row, and the reader for all-numeric tables (nodes, stress,
- * displacement) whose columns may come in any order.
+ * Line-level CSV handling shared by the bundle readers: opening a file in its dialect (detected
+ * or declared, src/io/csvDialect.ts), the header line, the messages of a malformed row (each
+ * says how to fix it), and the reader for all-numeric tables (nodes, stress, displacement) whose
+ * columns may come in any order, under any names model.json maps, with extra columns left out.
  */
 import { InputError } from '../model/errors.ts'
 import type { InputErrorKind } from '../model/errors.ts'
+import type { ColumnMap } from './bundleLayout.ts'
+import { columnLabel, matchColumns, unitOfColumns, unusedColumns, widthMismatch } from './columnMap.ts'
+import type { ColumnUnit, CsvHeader } from './columnMap.ts'
 import {
-  PARSE_BAD_INTEGER, PARSE_EMPTY, PARSE_NOT_FINITE, PARSE_OK, atLineEnd, createCursor, estimateRecordCount,
-  finishLine, nextRecord, readId, readNumber, skipField, takeComma, tokenText,
+  PARSE_BAD_INTEGER, PARSE_BAD_QUOTE, PARSE_EMPTY, PARSE_NOT_FINITE, PARSE_OK, PARSE_OPEN_QUOTE, atLineEnd, createCursor,
+  estimateRecordCount, fieldText, finishLine, moveCursor, nextRecord, readId, readNumber, skipField, takeSeparator, tokenText,
 } from './csvCursor.ts'
 import type { CsvCursor } from './csvCursor.ts'
-
-export interface CsvHeader {
-  /** Lower-cased, trimmed column names without surrounding quotes. */
-  readonly names: readonly string[]
-  /** 1-based line of the header. */
-  readonly line: number
-}
+import { SEPARATOR_NAMES, detectDialect, splitLine } from './csvDialect.ts'
+import type { CsvDialect, DialectSettings, Separator, TableShape } from './csvDialect.ts'
+import { splitHeaderUnit } from './headerUnits.ts'
 
 export function fail(cur: CsvCursor, kind: InputErrorKind, message: string, column?: string, elementId?: number): never {
   throw new InputError(kind, message, { file: cur.file, line: cur.line, column, elementId })
 }
 
-/** Reads the first non-comment, non-blank line as the header. An empty file is an error. */
+/** A file opened in its dialect, the cursor past its header (or on its first row). */
+export interface OpenTable {
+  readonly cur: CsvCursor
+  readonly dialect: CsvDialect
+  readonly header: CsvHeader
+}
+
+/** Detects (or takes) the file's dialect, skips its preamble and reads its header. */
+export function openTable(file: string, text: string, settings: DialectSettings, shape: TableShape, role: string): OpenTable {
+  const dialect = detectDialect(file, text, settings, shape, role)
+  const cur = createCursor(file, text, dialect.separator, dialect.decimal)
+  moveCursor(cur, dialect.start, dialect.startLine)
+  if (dialect.headerLine > 0 || dialect.start >= text.length) return { cur, dialect, header: { ...readHeader(cur), rowWidth: dialect.rowFields } }
+  const header: CsvHeader = { raw: [], names: [], bare: [], units: [], line: dialect.startLine, present: false, width: dialect.rowFields, rowWidth: dialect.rowFields }
+  return { cur, dialect, header }
+}
+
+/** Reads the next non-comment, non-blank line as the header. An empty file is an error. */
 export function readHeader(cur: CsvCursor): CsvHeader {
   if (!nextRecord(cur)) {
     throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file: cur.file })
   }
-  const names: string[] = []
+  const raw: string[] = []
   for (;;) {
     skipField(cur)
-    let s = cur.text.slice(cur.tokStart, cur.tokEnd)
-    if (s.length >= 2 && s.startsWith('"') && s.endsWith('"')) s = s.slice(1, -1).trim()
-    names.push(s.toLowerCase())
-    if (!takeComma(cur)) break
+    if (cur.status !== PARSE_OK) failQuote(cur, `column ${raw.length + 1} of the header`)
+    raw.push(fieldText(cur))
+    if (!takeSeparator(cur)) break
   }
+  if (!atLineEnd(cur)) failQuote(cur, 'the header')
   const line = cur.line
   finishLine(cur)
-  return { names, line }
-}
-
-/**
- * Finds each required column by name; every header column must be one of them, once.
- * Returns, per header position, the index into `required`.
- */
-export function mapColumns(cur: CsvCursor, header: CsvHeader, required: readonly string[]): Int32Array {
-  const slotOf = new Int32Array(header.names.length).fill(-1)
-  const seen = new Int32Array(required.length).fill(-1)
-  const where = { file: cur.file, line: header.line }
-  const expected = `expected the columns ${required.join(',')} (any order)`
-  header.names.forEach((n, i) => {
-    const k = required.indexOf(n)
-    if (k < 0) {
-      const what = n === '' ? `column ${i + 1} has no name` : `unknown column "${n}"`
-      throw new InputError('header', `${what}; ${expected}`, { ...where, column: n || String(i + 1) })
-    }
-    if (seen[k] >= 0) throw new InputError('header', `column "${n}" appears twice; ${expected}`, { ...where, column: n })
-    seen[k] = i
-    slotOf[i] = k
-  })
-  const missing = required.filter((_, k) => seen[k] < 0)
-  if (missing.length) {
-    throw new InputError('header', `missing column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}; ${expected}`, { ...where, column: missing[0] })
+  const split = raw.map(splitHeaderUnit)
+  return {
+    raw, names: raw.map((n) => n.toLowerCase()), bare: split.map((x) => x.bare.toLowerCase()), units: split.map((x) => x.unit),
+    line, present: true, width: raw.length, rowWidth: 0,
   }
-  return slotOf
 }
 
-/** Counts the fields of the line the cursor is on (error path only). */
+function failQuote(cur: CsvCursor, what: string, elementId?: number): never {
+  if (cur.status === PARSE_OPEN_QUOTE) fail(cur, 'column-count', `a quoted field in ${what} has no closing quote on its line; a field may not hold a line break here: close the quote on the same line`, undefined, elementId)
+  fail(cur, 'column-count', `text after the closing quote of ${tokenText(cur)} in ${what}; a quoted field ends at its quote: write "a ""b"" c" for a quote inside`, undefined, elementId)
+}
+
+/** Counts the fields of the line the cursor is on, as the file's separator splits it (error path only). */
 export function countFieldsOfLine(cur: CsvCursor): number {
+  return splitLine(lineOf(cur), separatorOf(cur)).length
+}
+
+/** The text of the line the cursor is on (error path only). */
+export function lineOf(cur: CsvCursor): string {
   const text = cur.text
-  let p = text.lastIndexOf('\n', cur.pos > 0 ? cur.pos - 1 : 0)
-  const r = text.lastIndexOf('\r', cur.pos > 0 ? cur.pos - 1 : 0)
-  p = Math.max(p, r) + 1
-  let n = 1
-  for (; p < text.length; p++) {
-    const c = text.charCodeAt(p)
-    if (c === 10 || c === 13) break
-    if (c === 44) n++
-  }
-  return n
+  const at = Math.min(cur.pos, text.length)
+  const p = Math.max(text.lastIndexOf('\n', at > 0 ? at - 1 : 0), text.lastIndexOf('\r', at > 0 ? at - 1 : 0)) + 1
+  let e = p
+  while (e < text.length && text.charCodeAt(e) !== 10 && text.charCodeAt(e) !== 13) e++
+  return text.slice(p, e)
+}
+
+function separatorOf(cur: CsvCursor): Separator {
+  return String.fromCharCode(cur.sep) as Separator
+}
+
+/** How the fields are separated, in words, for messages. */
+export function separatorWords(cur: CsvCursor): string {
+  return cur.runs ? 'runs of spaces' : `${SEPARATOR_NAMES[separatorOf(cur)]}s`
 }
 
 export function failColumnCount(cur: CsvCursor, expected: number, names: readonly string[]): never {
   const found = countFieldsOfLine(cur)
-  fail(cur, 'column-count', `expected ${expected} fields (${names.join(',')}), found ${found}`)
+  const line = lineOf(cur)
+  let hint = `every row has the ${expected} fields of the header, separated by ${separatorWords(cur)}; if that is not the file's separator, declare it in model.json, e.g. "csv": {"separator": ";"}`
+  if (found > expected && cur.sep === 44 && /\d,\d/.test(line)) hint = 'a decimal comma in a comma-separated file splits its number in two: write decimal points, or separate the fields by semicolons (the decimal comma is then read)'
+  else if (found < expected) hint = `a field is missing: every row has the ${expected} fields of the header, separated by ${separatorWords(cur)}`
+  fail(cur, 'column-count', `expected ${expected} fields (${names.join(', ')}), found ${found}; ${hint}`)
 }
 
-/** Turns a bad field status into the matching error. */
+/** Turns a bad field status into the matching error, with how to fix it. */
 export function failField(cur: CsvCursor, column: string, what: 'number' | 'id' | 'part', elementId?: number): never {
   const tok = tokenText(cur)
   const st = cur.status
-  if (st === PARSE_EMPTY) fail(cur, 'not-a-number', `empty field, expected ${what === 'number' ? 'a number' : what === 'id' ? 'a positive integer id' : 'a part number'}`, column, elementId)
-  if (st === PARSE_NOT_FINITE) fail(cur, 'not-finite', `"${tok}" is not a finite number`, column, elementId)
+  if (st === PARSE_OPEN_QUOTE || st === PARSE_BAD_QUOTE) failQuote(cur, `column "${column}"`, elementId)
+  if (st === PARSE_EMPTY) fail(cur, 'not-a-number', `empty field, expected ${what === 'number' ? 'a number' : what === 'id' ? 'a positive integer id' : 'a part number'}; every row needs a value in this column`, column, elementId)
+  if (st === PARSE_NOT_FINITE) fail(cur, 'not-finite', `"${tok}" is not a finite number; write a finite value (a solver writes NaN or Inf where it failed)`, column, elementId)
   if (st === PARSE_BAD_INTEGER) {
     const rule = what === 'part' ? 'a part number must be an integer from 0 to 2147483647' : 'ids must be integers from 1 to 2147483647'
     fail(cur, 'bad-id', `"${tok}" is not a valid ${what === 'part' ? 'part number' : 'id'}: ${rule}`, column, elementId)
   }
-  fail(cur, 'not-a-number', `"${tok}" is not a number`, column, elementId)
+  fail(cur, 'not-a-number', `"${tok}" is not a number; ${numberHint(cur, tok)}`, column, elementId)
+}
+
+function numberHint(cur: CsvCursor, tok: string): string {
+  const t = tok.replace(/^"|"$/g, '')
+  if (cur.dec === 46 && cur.sep !== 44 && /^[+-]?\d*,\d+([eEdD][+-]?\d+)?$/.test(t)) return 'if the file writes decimal commas, declare them in model.json: "csv": {"decimal": ","}'
+  if (cur.dec === 44 && /^[+-]?\d*\.\d+([eEdD][+-]?\d+)?$/.test(t)) return 'this file is read with decimal commas (thousands separators are not read): write 2,5 for two and a half, or declare "csv": {"decimal": "."} in model.json'
+  return `write a plain number such as -1${cur.dec === 44 ? ',' : '.'}25e3`
 }
 
 /**
- * An all-numeric table keyed by id: `values` holds `rows` × (required.length - 1) numbers in the
- * order of `required` (without the id); `lines` the 1-based line of each row.
+ * An all-numeric table keyed by id: `values` holds `rows` × (fields.length - 1) numbers in the
+ * order of `fields` (without the id); `lines` the 1-based line of each row.
  */
 export interface NumericTable {
   readonly rows: number
   readonly ids: Int32Array
   readonly values: Float64Array
   readonly lines: Int32Array
+  readonly info: TableInfo
+}
+
+/** What reading one table found out: its dialect, the columns left out, its header unit. */
+export interface TableInfo {
+  readonly dialect: CsvDialect
+  readonly ignored: readonly string[]
+  readonly unit: ColumnUnit | null
+  /** The column of each field, as called in messages. */
+  readonly labels: readonly string[]
+}
+
+/** One numeric table: its role, our fields (id first), the unit kind of its values, and what model.json says. */
+export interface NumericTableSpec {
+  readonly role: string
+  readonly fields: readonly string[]
+  readonly quantity: 'length' | 'stress'
+  readonly settings: DialectSettings
+  readonly columns: ColumnMap | undefined
 }
 
 /**
- * Reads a table whose first required column is `id` and whose other columns are numbers; columns
- * are found by header name. Throws InputError on any malformed row; an empty table is an error.
+ * Reads a table whose first field is `id` and whose other fields are numbers; columns are found
+ * by header name or as model.json maps them. Throws InputError on any malformed row; an empty
+ * table is an error.
  */
-export function readNumericTable(file: string, text: string, required: readonly string[]): NumericTable {
-  const cur = createCursor(file, text)
-  const header = readHeader(cur)
-  const slotOf = mapColumns(cur, header, required)
+export function readNumericTable(file: string, text: string, spec: NumericTableSpec): NumericTable {
+  const { cur, dialect, header } = openTable(file, text, spec.settings, 'numeric', spec.role)
+  if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
+  const columnOf = matchColumns(file, header, spec.fields, spec.columns, spec.role)
+  const mismatch = widthMismatch(header, spec.role)
+  if (mismatch) throw new InputError('header', `${header.raw.join(', ')}: ${mismatch}`, { file, line: header.line })
+  const nf = header.width
+  // Per column: the field it holds (0 = id, k = value k), or -1 for a column left out.
+  const slotOf = new Int32Array(nf).fill(-1)
+  columnOf.forEach((c, k) => { slotOf[c] = k })
+  const labels = spec.fields.map((f, k) => columnLabel(header, columnOf[k], f))
+  const names = Array.from({ length: nf }, (_, c) => (slotOf[c] >= 0 ? labels[slotOf[c]] : columnLabel(header, c)))
+  const unit = unitOfColumns(file, header, columnOf.subarray(1), spec.quantity)
   // The field readers once into locals: under a CommonJS transform (tsx) every use of an imported
   // name is a getter call that the optimiser does not inline, once per field otherwise.
-  const next = nextRecord, comma = takeComma, num = readNumber, id = readId, lineEnd = atLineEnd, finish = finishLine
+  const next = nextRecord, sep = takeSeparator, num = readNumber, id = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
   const OK = PARSE_OK
-  const nf = slotOf.length
-  const nv = required.length - 1
+  const nv = spec.fields.length - 1
   let cap = Math.max(16, estimateRecordCount(text))
   let ids: Int32Array = new Int32Array(cap)
   let values: Float64Array = new Float64Array(cap * nv)
@@ -138,25 +187,31 @@ export function readNumericTable(file: string, text: string, required: readonly 
     }
     const base = rows * nv
     for (let j = 0; j < nf; j++) {
-      if (j > 0 && !comma(cur)) failColumnCount(cur, nf, header.names)
+      if (j > 0 && !sep(cur)) failColumnCount(cur, nf, names)
       const s = slotOf[j]
-      if (s === 0) {
+      if (s > 0) {
+        const v = num(cur)
+        if (cur.status !== OK) failField(cur, names[j], 'number')
+        values[base + s - 1] = v
+      } else if (s === 0) {
         const v = id(cur)
-        if (cur.status !== OK) failField(cur, header.names[j], 'id')
+        if (cur.status !== OK) failField(cur, names[j], 'id')
         ids[rows] = v
       } else {
-        const v = num(cur)
-        if (cur.status !== OK) failField(cur, header.names[j], 'number')
-        values[base + s - 1] = v
+        skip(cur)
+        if (cur.status !== OK) failField(cur, names[j], 'number')
       }
     }
-    if (!lineEnd(cur)) failColumnCount(cur, nf, header.names)
+    if (!lineEnd(cur)) failColumnCount(cur, nf, names)
     lines[rows] = cur.line
     rows++
     finish(cur)
   }
   if (rows === 0) throw new InputError('empty-file', 'the file has a header but no rows', { file, line: header.line })
-  return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows) }
+  const used = new Uint8Array(nf)
+  for (const c of columnOf) used[c] = 1
+  const info: TableInfo = { dialect, ignored: unusedColumns(header, used), unit, labels }
+  return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows), info }
 }
 
 /**

@@ -4,7 +4,7 @@
  * named *.tractus without them is an error rather than being read as text.
  */
 import { InputError } from '../model/errors.ts'
-import type { Model } from '../model/model.ts'
+import type { ReadModel } from './intakeReport.ts'
 import { NATIVE_EXTENSION, isNativeContainer, readNative } from './nativeContainer.ts'
 import { baseName, readCsvBundle } from './readCsvBundle.ts'
 import type { CsvFile } from './readCsvBundle.ts'
@@ -32,8 +32,8 @@ function sizeOf(d: ArrayBuffer | Uint8Array | string): number {
 
 const MAGIC_TEXT = 'TRACTUS\0'
 
-export function readModelFiles(files: readonly InputFile[], options: ReadModelOptions = {}): Model {
-  if (files.length === 0) throw new InputError('missing-file', 'no files given: choose nodes.csv, elements.csv and stress.csv together, or one .tractus file')
+export function readModelFiles(files: readonly InputFile[], options: ReadModelOptions = {}): ReadModel {
+  if (files.length === 0) throw new InputError('missing-file', 'no files given: choose nodes.csv, elements.csv and stress.csv together (and model.json), or one .tractus file')
   const limit = options.maxBytes ?? MAX_MODEL_BYTES
   for (const f of files) assertWithinLimit(f.name, sizeOf(f.data), limit)
   const native = files.filter((f) => (typeof f.data === 'string' ? f.data.startsWith(MAGIC_TEXT) : isNativeContainer(bytesOf(f.data))))

@@ -1,24 +1,31 @@
 /**
  * The optional model.json of a CSV bundle:
  * `{"name": string, "description": string, "units": {"length": LengthUnit, "stress": StressUnit},
- *   "bodyForce": [bx, by, bz]}`, every key optional. Units only label the numbers; nothing is
- * converted. bodyForce is ρ·b in model units (stress / length).
+ *   "bodyForce": [bx, by, bz]}`, every key optional, and the keys of the bundle's layout (files,
+ * csv, columns, types, nodeOrder: src/io/bundleLayout.ts). Units only label the numbers; nothing
+ * is converted. bodyForce is ρ·b in model units (stress / length). A unit left out is not
+ * declared (`declaredUnits` says which were): the reader may take it from the CSV headers, and
+ * warns when nothing declares it.
  */
 import { InputError } from '../model/errors.ts'
 import { jsonErrorOffset } from './jsonErrorPosition.ts'
 import type { Vec3 } from '../model/model.ts'
 import { DEFAULT_UNITS, LENGTH_TO_M, STRESS_TO_PA, isLengthUnit, isStressUnit } from '../model/units.ts'
-import type { ModelUnits } from '../model/units.ts'
+import type { LengthUnit, ModelUnits, StressUnit } from '../model/units.ts'
+import { LAYOUT_KEYS } from './bundleLayout.ts'
 
 export interface ModelMeta {
   readonly name: string | null
   readonly description: string
+  /** The declared units, defaults (m, Pa) filled in where none was declared. */
   readonly units: ModelUnits
+  /** What "units" declared; null where it said nothing. */
+  readonly declaredUnits: { readonly length: LengthUnit | null; readonly stress: StressUnit | null }
   readonly bodyForce: Vec3
   readonly warnings: readonly string[]
 }
 
-const KNOWN_KEYS = ['name', 'description', 'units', 'bodyForce']
+const KNOWN_KEYS: readonly string[] = ['name', 'description', 'units', 'bodyForce', ...LAYOUT_KEYS]
 
 /** Parses JSON text; a syntax error names the line and column when the platform reports a position. */
 export function parseJsonText(file: string, text: string): unknown {
@@ -58,6 +65,7 @@ export function readModelMeta(file: string, value: unknown, fieldPrefix = ''): M
     description = o.description
   }
   let units: ModelUnits = DEFAULT_UNITS
+  let declaredUnits: ModelMeta['declaredUnits'] = { length: null, stress: null }
   if (o.units !== undefined) {
     const u = o.units
     if (typeof u !== 'object' || u === null || Array.isArray(u)) {
@@ -73,6 +81,7 @@ export function readModelMeta(file: string, value: unknown, fieldPrefix = ''): M
       throw new InputError('bad-unit', `unknown stress unit ${JSON.stringify(stress)}; use one of ${Object.keys(STRESS_TO_PA).join(', ')}`, { file, field: f('units.stress') })
     }
     units = { length, stress }
+    declaredUnits = { length: ur.length === undefined ? null : length, stress: ur.stress === undefined ? null : stress }
   }
   let bodyForce: Vec3 = [0, 0, 0]
   if (o.bodyForce !== undefined) {
@@ -85,5 +94,5 @@ export function readModelMeta(file: string, value: unknown, fieldPrefix = ''): M
   if (fieldPrefix === '') {
     for (const k of Object.keys(o)) if (!KNOWN_KEYS.includes(k)) warnings.push(`${file}: unknown key "${k}" ignored`)
   }
-  return { name, description, units, bodyForce, warnings }
+  return { name, description, units, declaredUnits, bodyForce, warnings }
 }

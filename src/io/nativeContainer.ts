@@ -32,6 +32,9 @@ import { buildIdIndex, isDuplicate, isStrictlyAscending } from './idIndex.ts'
 import { DTYPE_SIZE, isDtype, readLittleEndian, writeLittleEndian } from './littleEndianArrays.ts'
 import type { Dtype } from './littleEndianArrays.ts'
 import { readModelMeta } from './modelJson.ts'
+import { isUnitsWarning, unitsWarning } from './intakeReport.ts'
+import type { ReadModel } from './intakeReport.ts'
+import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 
 /** "TRACTUS" and a zero byte. */
 export const NATIVE_MAGIC = new Uint8Array([0x54, 0x52, 0x41, 0x43, 0x54, 0x55, 0x53, 0x00])
@@ -73,7 +76,7 @@ export function writeNative(model: Model): Uint8Array {
     format: FORMAT_TAG,
     name: model.name,
     description: model.description,
-    units: model.units,
+    units: declaredUnits(model),
     bodyForce: model.bodyForce,
     warnings: model.warnings,
     nodeCount: mesh.nodeCount,
@@ -115,7 +118,20 @@ export interface ReadNativeOptions {
   readonly copy?: boolean
 }
 
-export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.tractus', options: ReadNativeOptions = {}): Model {
+/**
+ * The units a model declared: a model read from files whose units nobody declared keeps them
+ * undeclared in the container (the header leaves them out), so its reader warns again.
+ */
+function declaredUnits(model: Model): Partial<Model['units']> {
+  const sources = (model as Partial<ReadModel>).intake?.unitSources
+  if (!sources) return model.units
+  const out: { length?: Model['units']['length']; stress?: Model['units']['stress'] } = {}
+  if (sources.length !== 'default') out.length = model.units.length
+  if (sources.stress !== 'default') out.stress = model.units.stress
+  return out
+}
+
+export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.tractus', options: ReadNativeOptions = {}): ReadModel {
   const bytes = buf instanceof Uint8Array ? buf : new Uint8Array(buf)
   const fail = (kind: InputErrorKind, field: string, message: string, elementId?: number): never => {
     throw new InputError(kind, message, { file: fileName, field, elementId })
@@ -254,11 +270,17 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
       for (let i = 0; i < o.inverted.length && invertedIds.length < 10; i++) invertedIds.push(ids[o.inverted[i]])
       invertedTotal += o.inverted.length
     }
+    const q = checkQuadraticBlock(coords, b.type, conn)
+    if (q) fail(q.kind === 'mid-edge' ? 'mid-edge-node' : 'negative-jacobian', `block${k}.conn`, quadraticFindingMessage(q, b.type, conn, nodeIds), ids[q.element])
     blockInputs.push({ type: b.type, conn, ids, part })
   })
   if (allIds) checkIds(allIds, 'block ids', 'element', fail)
   else if (blockArrays[0].ids[0] < 1) fail('bad-id', 'block ids', `element id ${blockArrays[0].ids[0]} at index 0 is not positive`)
   if (invertedTotal) warnings.push(`${fileName}: ${reorientedWarning(invertedIds, invertedTotal)}`)
+  const unitSources = { length: meta.declaredUnits.length ? 'container' : 'default', stress: meta.declaredUnits.stress ? 'container' : 'default' } as const
+  const unitsText = unitsWarning(meta.units, unitSources, 'native')
+  // A container written from such a model carries the bundle's warning already.
+  if (unitsText && !warnings.some(isUnitsWarning)) warnings.push(unitsText)
   return {
     name: meta.name ?? '',
     description: meta.description,
@@ -268,6 +290,7 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     displacement,
     bodyForce: meta.bodyForce,
     warnings,
+    intake: { format: 'native', files: [], unitSources, unitsDeclared: unitsText === null, unitsWarning: unitsText },
   }
 }
 

@@ -1,22 +1,30 @@
 /**
  * Reads a CSV bundle (nodes.csv, elements.csv, stress.csv, optional displacement.csv and
- * model.json, matched by base name, case-insensitively) into a Model. Every problem is an
- * InputError naming file, line and column or element id; nothing half-loaded is returned.
- * Numbers are stored as written: units in model.json label them, they do not convert them.
- * Nodes keep the order of nodes.csv; elements are grouped into one block per type.
+ * model.json, matched by base name, case-insensitively; model.json "files" may name them
+ * otherwise) into a Model. Each file is read in its own dialect (src/io/csvDialect.ts), its
+ * columns matched by our names or as model.json maps them (src/io/bundleLayout.ts). Every
+ * problem is an InputError naming file, line and column or element id and how to fix it;
+ * nothing half-loaded is returned. Numbers are stored as written: units in model.json or in the
+ * headers label them, they do not convert them; a model whose units nobody declared loads with
+ * a warning. Nodes keep the order of the nodes file; elements are grouped into one block per
+ * type; quadratic elements are checked (src/io/quadraticElementChecks.ts) after orientation.
  */
 import { createMesh } from '../model/createMesh.ts'
 import type { BlockInput } from '../model/createMesh.ts'
 import { elementType } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
-import type { Model } from '../model/model.ts'
-import { DEFAULT_UNITS } from '../model/units.ts'
+import type { LengthUnit, StressUnit } from '../model/units.ts'
+import { BASE_ROLES, DISPLACEMENT_FIELDS, EMPTY_LAYOUT, NODE_FIELDS, STRESS_FIELDS, dialectSettingsFor, readBundleLayout } from './bundleLayout.ts'
+import type { BundleLayout } from './bundleLayout.ts'
 import { readNumericTable } from './csvTable.ts'
-import type { NumericTable } from './csvTable.ts'
+import type { NumericTable, TableInfo } from './csvTable.ts'
 import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
 import { buildIdIndex, isDuplicate, isStrictlyAscending, rowOfId } from './idIndex.ts'
 import type { IdIndex } from './idIndex.ts'
+import { fileIntake, unitsWarning } from './intakeReport.ts'
+import type { FileIntake, IntakeReport, ReadModel, UnitSource } from './intakeReport.ts'
 import { parseJsonText, readModelMeta } from './modelJson.ts'
+import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 import { readElementTable } from './readElementTable.ts'
 import type { RawElementBlock } from './readElementTable.ts'
 import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
@@ -36,60 +44,101 @@ export interface CsvBundleOptions {
 
 export const BUNDLE_FILES = ['nodes.csv', 'elements.csv', 'stress.csv', 'displacement.csv', 'model.json'] as const
 export const REQUIRED_BUNDLE_FILES = ['nodes.csv', 'elements.csv', 'stress.csv'] as const
-type BundleFile = (typeof BUNDLE_FILES)[number]
+const REQUIRED_ROLES = ['nodes', 'elements', 'stress'] as const
 
-export const NODE_COLUMNS = ['id', 'x', 'y', 'z'] as const
-export const STRESS_COLUMNS = ['id', 'sxx', 'syy', 'szz', 'sxy', 'syz', 'sxz'] as const
-export const DISPLACEMENT_COLUMNS = ['id', 'ux', 'uy', 'uz'] as const
+export const NODE_COLUMNS = NODE_FIELDS
+export const STRESS_COLUMNS = STRESS_FIELDS
+export const DISPLACEMENT_COLUMNS = DISPLACEMENT_FIELDS
 
 export function baseName(name: string): string {
   const i = Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\'))
   return name.slice(i + 1)
 }
 
-/** Sorts the given files into the bundle's roles; missing required files are an error listing what was given. */
-export function sortBundleFiles<T extends { readonly name: string }>(files: readonly T[]): { byRole: Map<BundleFile, T>; ignored: string[] } {
-  const byRole = new Map<BundleFile, T>()
-  const ignored: string[] = []
-  for (const f of files) {
-    const b = baseName(f.name).toLowerCase()
-    const role = (BUNDLE_FILES as readonly string[]).includes(b) ? (b as BundleFile) : null
-    if (!role) { ignored.push(f.name); continue }
-    const prev = byRole.get(role)
-    if (prev) throw new InputError('bad-argument', `two files named ${role} were given: ${prev.name} and ${f.name}; give one model at a time`, { file: f.name })
-    byRole.set(role, f)
-  }
-  const missing = REQUIRED_BUNDLE_FILES.filter((r) => !byRole.has(r))
-  if (missing.length) {
-    const got = files.length ? files.map((f) => f.name).join(', ') : 'no files'
-    throw new InputError('missing-file', `missing ${missing.join(', ')}; got: ${got}. A CSV bundle needs nodes.csv, elements.csv and stress.csv (displacement.csv and model.json are optional)`)
-  }
-  return { byRole, ignored }
+/** The files of a bundle by role, the files that are not part of it, and load-case files (stress.NAME) not read yet. */
+export interface BundleFiles<T> {
+  readonly byRole: ReadonlyMap<string, T>
+  readonly modelJson: T | undefined
+  readonly ignored: readonly string[]
+  readonly cases: ReadonlyMap<string, T>
 }
 
-export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptions = {}): Model {
-  const { byRole, ignored } = sortBundleFiles(files)
+const DEFAULT_NAME = /^((?:nodes|elements|stress|displacement)(?:\.[^./\\]+)?)\.csv$/
+
+/**
+ * Sorts the given files into the bundle's roles: model.json "files" names first, then our names
+ * (nodes.csv, ..., stress.NAME.csv); missing required files are an error listing what was given.
+ */
+export function sortBundleFiles<T extends { readonly name: string }>(files: readonly T[], layout: BundleLayout = EMPTY_LAYOUT): BundleFiles<T> {
+  const mappedRole = new Map<string, string>()
+  for (const [role, name] of layout.files) mappedRole.set(baseName(name).toLowerCase(), role)
+  const byRole = new Map<string, T>()
+  const cases = new Map<string, T>()
+  const ignored: string[] = []
+  let modelJson: T | undefined
+  for (const f of files) {
+    const b = baseName(f.name).toLowerCase()
+    if (b === 'model.json') {
+      if (modelJson) throw new InputError('bad-argument', `two files named model.json were given: ${modelJson.name} and ${f.name}; give one model at a time`, { file: f.name })
+      modelJson = f
+      continue
+    }
+    let role = mappedRole.get(b)
+    if (role === undefined) {
+      const m = DEFAULT_NAME.exec(b)
+      // A default name whose role model.json gives to another file is not part of the bundle.
+      if (m && !layout.files.has(m[1])) role = m[1]
+    }
+    if (role === undefined) { ignored.push(f.name); continue }
+    const into = (BASE_ROLES as readonly string[]).includes(role) ? byRole : cases
+    const prev = into.get(role)
+    if (prev) throw new InputError('bad-argument', `two files named ${baseName(prev.name)} were given: ${prev.name} and ${f.name}; give one model at a time`, { file: f.name })
+    into.set(role, f)
+  }
+  const missing = REQUIRED_ROLES.filter((r) => !byRole.has(r))
+  if (missing.length) {
+    const got = files.length ? files.map((f) => f.name).join(', ') : 'no files'
+    const names = missing.map((r) => (layout.files.has(r) ? `${layout.files.get(r)} (model.json files.${r})` : `${r}.csv`))
+    throw new InputError('missing-file', `missing ${names.join(', ')}; got: ${got}. A CSV bundle needs nodes.csv, elements.csv and stress.csv (displacement.csv and model.json are optional); if yours are named differently, name them in model.json, e.g. "files": {"${missing[0]}": "${missing[0]}_results.txt"}`)
+  }
+  return { byRole, modelJson, ignored, cases }
+}
+
+export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptions = {}): ReadModel {
   const limit = options.maxBytes ?? MAX_MODEL_BYTES
+  // model.json first: its "files" say which files are the bundle.
+  const jsonFiles = files.filter((f) => baseName(f.name).toLowerCase() === 'model.json')
+  // Sizes first (before model.json is parsed), of every file named like a bundle file.
+  for (const f of files) {
+    const b = baseName(f.name).toLowerCase()
+    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, f.text.length, limit)
+  }
+  const json = jsonFiles.length === 1 ? parseJsonText(jsonFiles[0].name, jsonFiles[0].text) : null
+  const meta = jsonFiles.length === 1 ? readModelMeta(jsonFiles[0].name, json) : null
+  const layout = meta ? readBundleLayout(jsonFiles[0].name, json as Record<string, unknown>) : EMPTY_LAYOUT
+  const { byRole, ignored, cases } = sortBundleFiles(files, layout)
   for (const f of byRole.values()) assertWithinLimit(f.name, f.text.length, limit)
   const warnings: string[] = ignored.map((n) => `ignored ${n}: not part of a CSV bundle`)
-  const nodesFile = byRole.get('nodes.csv')!
-  const elementsFile = byRole.get('elements.csv')!
-  const stressFile = byRole.get('stress.csv')!
-  const dispFile = byRole.get('displacement.csv')
-  const jsonFile = byRole.get('model.json')
-
-  const meta = jsonFile ? readModelMeta(jsonFile.name, parseJsonText(jsonFile.name, jsonFile.text)) : null
+  for (const [role, f] of cases) warnings.push(`ignored ${f.name}: load case "${role.slice(role.indexOf('.') + 1)}" (${role}) is not read; this version reads one stress field`)
+  const nodesFile = byRole.get('nodes')!
+  const elementsFile = byRole.get('elements')!
+  const stressFile = byRole.get('stress')!
+  const dispFile = byRole.get('displacement')
   if (meta) warnings.push(...meta.warnings)
+  const spec = (role: string, fields: readonly string[], quantity: 'length' | 'stress') => ({ role, fields, quantity, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) })
 
-  // Nodes: order of nodes.csv; ids checked unique.
-  const nodes = readNumericTable(nodesFile.name, nodesFile.text, NODE_COLUMNS)
+  // Nodes: order of the nodes file; ids checked unique.
+  const nodes = readNumericTable(nodesFile.name, nodesFile.text, spec('nodes', NODE_FIELDS, 'length'))
   const nodeIndex = indexOrFail(nodes, nodesFile.name, 'node')
   const coords = nodes.values
   const nodeIds = nodes.ids
   const N = nodes.rows
 
-  // Elements: node ids → indices, element ids unique across blocks, orientation.
-  const raw = readElementTable(elementsFile.name, elementsFile.text)
+  // Elements: node ids → indices, element ids unique across blocks, orientation, quadratic checks.
+  const elementTable = readElementTable(elementsFile.name, elementsFile.text, {
+    settings: dialectSettingsFor(layout, 'elements'), columns: layout.columns.get('elements'), types: layout.types, nodeOrder: layout.nodeOrder,
+  })
+  const raw = elementTable.blocks
   checkElementIdsUnique(raw, elementsFile.name)
   const used = new Uint8Array(N)
   const blocks: BlockInput[] = []
@@ -100,62 +149,114 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
     const o = checkBlockOrientation(coords, rb.type, conn)
     if (o.degenerate >= 0) {
       const e = o.degenerate
-      throw new InputError('zero-volume', `degenerate ${rb.type} element: volume ${o.degenerateVolume.toPrecision(3)} is about zero for its size ${o.degenerateSize.toPrecision(3)} (coincident or flat corners)`, { file: elementsFile.name, line: rb.lines[e], elementId: rb.ids[e] })
+      throw new InputError('zero-volume', `degenerate ${rb.type} element: volume ${o.degenerateVolume.toPrecision(3)} is about zero for its size ${o.degenerateSize.toPrecision(3)} (coincident or flat corners); check its node ids and their coordinates`, { file: elementsFile.name, line: rb.lines[e], elementId: rb.ids[e] })
     }
     if (o.inverted.length) {
       reorientElements(conn, rb.type, o.inverted)
       for (let i = 0; i < o.inverted.length && invertedIds.length < 10; i++) invertedIds.push(rb.ids[o.inverted[i]])
       invertedTotal += o.inverted.length
     }
+    const q = checkQuadraticBlock(coords, rb.type, conn)
+    if (q) {
+      throw new InputError(q.kind === 'mid-edge' ? 'mid-edge-node' : 'negative-jacobian', quadraticFindingMessage(q, rb.type, conn, nodeIds), { file: elementsFile.name, line: rb.lines[q.element], elementId: rb.ids[q.element] })
+    }
     blocks.push({ type: rb.type, conn, ids: rb.ids, part: rb.part })
   }
   if (invertedTotal) warnings.push(`${elementsFile.name}: ${reorientedWarning(invertedIds, invertedTotal)}`)
 
   // Stress: one row per node used by an element.
-  const stressTable = readNumericTable(stressFile.name, stressFile.text, STRESS_COLUMNS)
-  // Rows in the order of nodes.csv (the usual layout) are the stress array as read; otherwise
-  // each row goes to its node's slot.
+  const stressTable = readNumericTable(stressFile.name, stressFile.text, spec('stress', STRESS_FIELDS, 'stress'))
+  // Rows in the order of the nodes file (the usual layout) are the stress array as read;
+  // otherwise each row goes to its node's slot.
   const inNodeOrder = sameIds(stressTable.ids, nodeIds)
   const stress = inNodeOrder ? stressTable.values : new Float64Array(6 * N)
   const hasStress = inNodeOrder ? null : scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
   const noStress = hasStress ? firstUsedWithout(used, hasStress) : -1
   if (noStress >= 0) {
     const el = findElementUsing(raw, blocks, noStress)
-    throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses`, { file: stressFile.name, elementId: el.id })
+    throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses; every node of an element needs one`, { file: stressFile.name, elementId: el.id })
   }
   const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
   if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
 
   let displacement: Float64Array | null = null
+  let dispTable: NumericTable | null = null
   if (dispFile) {
-    const dt = readNumericTable(dispFile.name, dispFile.text, DISPLACEMENT_COLUMNS)
+    const dt = readNumericTable(dispFile.name, dispFile.text, spec('displacement', DISPLACEMENT_FIELDS, 'length'))
+    dispTable = dt
     const dispInOrder = sameIds(dt.ids, nodeIds)
     displacement = dispInOrder ? dt.values : new Float64Array(3 * N)
     const hasDisp = dispInOrder ? null : scatterRows(dt, 3, displacement, nodeIndex, nodesFile.name, dispFile.name)
     const noDisp = hasDisp ? firstUsedWithout(used, hasDisp) : -1
     if (noDisp >= 0) {
       const el = findElementUsing(raw, blocks, noDisp)
-      throw new InputError('missing-displacement', `no displacement row for node ${nodeIds[noDisp]}, which element ${el.id} uses`, { file: dispFile.name, elementId: el.id })
+      throw new InputError('missing-displacement', `no displacement row for node ${nodeIds[noDisp]}, which element ${el.id} uses; every node of an element needs one`, { file: dispFile.name, elementId: el.id })
     }
   }
+
+  // Units: model.json, else the headers, else the defaults with a warning.
+  const read: { file: string; info: TableInfo }[] = [{ file: nodesFile.name, info: nodes.info }]
+  if (dispFile && dispTable) read.push({ file: dispFile.name, info: dispTable.info })
+  const length = resolveUnit('length', meta?.declaredUnits.length ?? null, read, meta?.units.length ?? 'm')
+  const stressUnit = resolveUnit('stress', meta?.declaredUnits.stress ?? null, [{ file: stressFile.name, info: stressTable.info }], meta?.units.stress ?? 'Pa')
+  const units = { length: length.unit as LengthUnit, stress: stressUnit.unit as StressUnit }
+  const unitSources = { length: length.source, stress: stressUnit.source }
+
+  const intakeFiles: FileIntake[] = [
+    fileIntake(nodesFile.name, 'nodes', nodes.info.dialect, nodes.info.ignored),
+    fileIntake(elementsFile.name, 'elements', elementTable.info.dialect, elementTable.info.ignored),
+    fileIntake(stressFile.name, 'stress', stressTable.info.dialect, stressTable.info.ignored),
+  ]
+  if (dispFile && dispTable) intakeFiles.push(fileIntake(dispFile.name, 'displacement', dispTable.info.dialect, dispTable.info.ignored))
+  const left = intakeFiles.filter((f) => f.ignoredColumns.length)
+  if (left.length) warnings.push(`columns left out (not used by this tool): ${left.map((f) => `${f.file}: ${f.ignoredColumns.map((c) => `"${c}"`).join(', ')}`).join('; ')}`)
+  const unitsText = unitsWarning(units, unitSources, 'csv')
+  if (unitsText) warnings.push(unitsText)
+  const intake: IntakeReport = { format: 'csv', files: intakeFiles, unitSources, unitsDeclared: unitsText === null, unitsWarning: unitsText }
 
   const mesh = createMesh(coords, blocks, nodeIds)
   return {
     name: meta?.name ?? options.name ?? 'model',
     description: meta?.description ?? '',
-    units: meta?.units ?? DEFAULT_UNITS,
+    units,
     mesh,
     stress,
     displacement,
     bodyForce: meta?.bodyForce ?? [0, 0, 0],
     warnings,
+    intake,
   }
+}
+
+/**
+ * One unit from model.json (`declared`) or the headers of `tables`; two that disagree are an
+ * InputError naming both.
+ */
+function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables: readonly { file: string; info: TableInfo }[], fallback: string): { unit: string; source: UnitSource } {
+  let fromHeader: { unit: string; file: string; line: number; column: string } | null = null
+  for (const t of tables) {
+    const u = t.info.unit
+    if (!u) continue
+    const here = { unit: u.unit.unit, file: t.file, line: t.info.dialect.headerLine, column: u.column }
+    if (fromHeader && fromHeader.unit !== here.unit) {
+      throw new InputError('bad-unit', `the header says ${here.unit}, but ${fromHeader.file} column "${fromHeader.column}" says ${fromHeader.unit}; lengths share one unit: make the headers agree`, { file: here.file, line: here.line, column: here.column })
+    }
+    fromHeader = fromHeader ?? here
+  }
+  if (declared !== null) {
+    if (fromHeader && fromHeader.unit !== declared) {
+      throw new InputError('bad-unit', `the header says ${fromHeader.unit}, but model.json "units.${kind}" says ${declared}; make them agree, or leave one of them out`, { file: fromHeader.file, line: fromHeader.line, column: fromHeader.column })
+    }
+    return { unit: declared, source: 'model.json' }
+  }
+  if (fromHeader) return { unit: fromHeader.unit, source: 'header' }
+  return { unit: fallback, source: 'default' }
 }
 
 function indexOrFail(t: NumericTable, file: string, what: string): IdIndex {
   const ix = buildIdIndex(t.ids)
   if (isDuplicate(ix)) {
-    throw new InputError('duplicate-id', `${what} id ${ix.id} appears twice (lines ${t.lines[ix.firstRow]} and ${t.lines[ix.secondRow]})`, { file, line: t.lines[ix.secondRow], column: 'id' })
+    throw new InputError('duplicate-id', `${what} id ${ix.id} appears twice (lines ${t.lines[ix.firstRow]} and ${t.lines[ix.secondRow]}); ids must be unique`, { file, line: t.lines[ix.secondRow], column: 'id' })
   }
   return ix
 }
@@ -177,7 +278,7 @@ function checkElementIdsUnique(raw: readonly RawElementBlock[], file: string): v
   const ix = buildIdIndex(ids)
   if (isDuplicate(ix)) {
     const [l1, l2] = [lines[ix.firstRow], lines[ix.secondRow]].sort((a, b) => a - b)
-    throw new InputError('duplicate-id', `element id ${ix.id} appears twice (lines ${l1} and ${l2})`, { file, line: l2, column: 'id', elementId: ix.id })
+    throw new InputError('duplicate-id', `element id ${ix.id} appears twice (lines ${l1} and ${l2}); ids must be unique`, { file, line: l2, column: 'id', elementId: ix.id })
   }
 }
 
@@ -193,7 +294,7 @@ function resolveNodes(rb: RawElementBlock, nodeIndex: IdIndex, nodesName: string
     const r = dense ? (id >= 0 && id < dn ? dense[id] : -1) : rowOf(nodeIndex, id)
     if (r < 0) {
       const e = (i / nn) | 0
-      throw new InputError('missing-node', `node ${conn[i]} is not in ${nodesName}`, { file, line: rb.lines[e], column: `n${(i % nn) + 1}`, elementId: rb.ids[e] })
+      throw new InputError('missing-node', `node ${conn[i]} is not in ${nodesName}; add it there, or correct the element's node ids`, { file, line: rb.lines[e], column: `n${(i % nn) + 1}`, elementId: rb.ids[e] })
     }
     conn[i] = r
     used[r] = 1
@@ -208,10 +309,10 @@ function scatterRows(t: NumericTable, width: number, out: Float64Array, nodeInde
   for (let r = 0; r < t.rows; r++) {
     const id = t.ids[r]
     const n = rowOfId(nodeIndex, id)
-    if (n < 0) throw new InputError('missing-node', `node ${id} is not in ${nodesName}`, { file, line: t.lines[r], column: 'id' })
+    if (n < 0) throw new InputError('missing-node', `node ${id} is not in ${nodesName}; remove the row, or add the node there`, { file, line: t.lines[r], column: 'id' })
     if (has[n]) {
       const first = t.ids.indexOf(id)
-      throw new InputError('duplicate-id', `node ${id} has two rows (lines ${t.lines[first]} and ${t.lines[r]})`, { file, line: t.lines[r], column: 'id' })
+      throw new InputError('duplicate-id', `node ${id} has two rows (lines ${t.lines[first]} and ${t.lines[r]}); keep one`, { file, line: t.lines[r], column: 'id' })
     }
     has[n] = 1
     for (let k = 0; k < width; k++) out[n * width + k] = v[r * width + k]

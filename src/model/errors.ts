@@ -9,6 +9,9 @@ export type InputErrorKind =
   | 'zero-volume' | 'bad-json' | 'bad-unit' | 'container' | 'version' | 'too-large' | 'no-elements'
   | 'bad-argument' | 'missing-displacement' | 'encoding'
   | 'shared-face'
+  // Reading what solvers and spreadsheets write: an undecidable CSV dialect, and quadratic
+  // elements whose mid-edge nodes are off their edges or whose Jacobian is not positive.
+  | 'csv-dialect' | 'mid-edge-node' | 'negative-jacobian'
 
 export interface InputErrorWhere {
   readonly file?: string

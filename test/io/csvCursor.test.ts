@@ -6,7 +6,8 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import {
-  PARSE_BAD_INTEGER, PARSE_EMPTY, PARSE_NOT_A_NUMBER, PARSE_NOT_FINITE, PARSE_OK, createCursor, readId, readNumber,
+  PARSE_BAD_INTEGER, PARSE_BAD_QUOTE, PARSE_EMPTY, PARSE_NOT_A_NUMBER, PARSE_NOT_FINITE, PARSE_OK, PARSE_OPEN_QUOTE, atLineEnd, createCursor,
+  readId, readNumber, skipField, takeSeparator,
 } from '../../src/io/csvCursor.ts'
 
 const SEED = 20261201
@@ -67,7 +68,7 @@ describe('readNumber equals Number()', () => {
 })
 
 describe('readNumber rejects what is not a plain decimal', () => {
-  it.each(['abc', '0x10', '1e', '1e+', '--1', '1.2.3', '1 2', '"1"', '١٢', '1_000', '.', '-', 'e5'])('%s is not a number', (s) => {
+  it.each(['abc', '0x10', '1e', '1e+', '--1', '1.2.3', '1 2', '"1""2"', '"x"', '١٢', '1_000', '.', '-', 'e5', '1d'])('%s is not a number', (s) => {
     expect(parse(s).status).toBe(PARSE_NOT_A_NUMBER)
   })
   it.each(['NaN', 'nan', '-inf', 'Infinity', '+INF', '1e400', '-1e999'])('%s is not finite', (s) => {
@@ -92,5 +93,69 @@ describe('readId', () => {
   })
   it('reports text as not a number', () => {
     expect(id('x1').st).toBe(PARSE_NOT_A_NUMBER)
+  })
+})
+
+describe('the dialects read the same numbers', () => {
+  /** Every field of one line, read with the cursor of a dialect. */
+  function fields(line: string, sep: string, dec: string): { values: number[]; statuses: number[] } {
+    const cur = createCursor('t.csv', line + '\n', sep, dec)
+    const values: number[] = [], statuses: number[] = []
+    do {
+      values.push(readNumber(cur))
+      statuses.push(cur.status)
+    } while (takeSeparator(cur))
+    expect(atLineEnd(cur)).toBe(true)
+    return { values, statuses }
+  }
+
+  it('decimal commas, D exponents and the separators give what Number() gives for the point form', () => {
+    // Reference: ECMAScript Number() of the same token written with a point and an e exponent.
+    fc.assert(fc.property(fc.array(fc.double({ min: -1e30, max: 1e30, noNaN: true }), { minLength: 1, maxLength: 6 }), fc.integer({ min: 1, max: 17 }), (ds, k) => {
+      const toks = ds.map((d) => d.toExponential(k - 1))
+      const ref = toks.map(Number)
+      const comma = toks.map((t) => t.replace('.', ','))
+      const dexp = toks.map((t) => t.replace('e', 'D'))
+      for (const [line, sep, dec] of [
+        [comma.join(';'), ';', ','], [comma.join('\t'), '\t', ','], [comma.join('   '), ' ', ','],
+        [dexp.join(','), ',', '.'], [dexp.join(' \t '), ' ', '.'], [toks.map((t) => `"${t}"`).join(','), ',', '.'],
+        ['  ' + toks.join('  \t') + '  ', ' ', '.'],
+      ] as const) {
+        const r = fields(line, sep, dec)
+        expect(r.statuses.every((st) => st === PARSE_OK), line).toBe(true)
+        expect(r.values.length).toBe(ref.length)
+        r.values.forEach((v, i) => expect(Object.is(v, ref[i]), line).toBe(true))
+      }
+    }), { seed: SEED + 3, numRuns: 400 })
+  })
+
+  it('a quoted field may hold the separator; "" is a quote inside', () => {
+    const cur = createCursor('t.csv', '"a,b","c ""d""",3\n')
+    skipField(cur)
+    expect(cur.text.slice(cur.tokStart, cur.tokEnd)).toBe('"a,b"')
+    expect(takeSeparator(cur)).toBe(true)
+    skipField(cur)
+    expect(cur.text.slice(cur.tokStart, cur.tokEnd)).toBe('"c ""d"""')
+    expect(takeSeparator(cur)).toBe(true)
+    expect(readNumber(cur)).toBe(3)
+  })
+
+  it('a quote left open on its line, or text after the closing quote, is reported as such', () => {
+    expect(parse('"1').status).toBe(PARSE_OPEN_QUOTE)
+    expect(parse('"1\n2"').status).toBe(PARSE_OPEN_QUOTE)
+    expect(parse('"1"x').status).toBe(PARSE_BAD_QUOTE)
+  })
+
+  it('with a decimal comma a point is not a decimal mark (it would be a thousands separator)', () => {
+    const cur = createCursor('t.csv', '1.5;2\n', ';', ',')
+    readNumber(cur)
+    expect(cur.status).toBe(PARSE_NOT_A_NUMBER)
+  })
+
+  it('runs of blanks: leading and trailing blanks are no fields', () => {
+    expect(fields('   1  2\t\t3   ', ' ', '.').values).toEqual([1, 2, 3])
+    // Tab-separated: empty fields between tabs stay fields, spaces around them are trimmed.
+    const r = fields('1\t \t3', '\t', '.')
+    expect(r.statuses).toEqual([PARSE_OK, PARSE_EMPTY, PARSE_OK])
   })
 })

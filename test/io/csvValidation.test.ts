@@ -62,6 +62,10 @@ describe('files', () => {
     const files = [...toFiles(tinyBundle()), { name: 'other/NODES.csv', text: 'id,x,y,z\n1,0,0,0\n' }]
     expect(() => readCsvBundle(files)).toThrow(/two files named nodes\.csv/)
   })
+  it('two model.json files', () => {
+    const files = [...toFiles(tinyBundle()), { name: 'other/model.json', text: '{}' }]
+    expect(() => readCsvBundle(files)).toThrow(/two files named model\.json were given: model\.json and other\/model\.json/)
+  })
   it('a file over the size limit', () => {
     const files = toFiles(tinyBundle())
     const size = files[0].text.length
@@ -76,8 +80,8 @@ describe('headers', () => {
   it('missing column', () => {
     expectError(edit('nodes.csv', (t) => setLine(t, 1, 'id,x,y')), 'header', ['nodes.csv', 'line 1', 'missing column z'])
   })
-  it('unknown column', () => {
-    expectError(edit('stress.csv', (t) => setLine(t, 1, 'id,sxx,syy,szz,sxy,syz,s13')), 'header', ['stress.csv', 'line 1', 'unknown column "s13"'])
+  it('a column of another name: the missing field, the column found instead and the model.json key that maps it', () => {
+    expectError(edit('stress.csv', (t) => setLine(t, 1, 'id,sxx,syy,szz,sxy,syz,s13')), 'header', ['stress.csv', 'line 1', 'missing column sxz', '(not used: "s13")', '"columns": {"stress": {"sxz": "s13"}}'])
   })
   it('column twice', () => {
     expectError(edit('displacement.csv', (t) => setLine(t, 1, 'id,ux,ux,uz')), 'header', ['displacement.csv', 'line 1', '"ux" appears twice'])
@@ -85,11 +89,13 @@ describe('headers', () => {
   it('header on a later line after comments keeps the line count', () => {
     expectError(edit('nodes.csv', (t) => '# exported\n\n' + setLine(t, 1, 'id,x,y,q')), 'header', ['nodes.csv', 'line 3'])
   })
-  it('elements: id and type first, part right after type, node columns n1..nK', () => {
-    expectError(edit('elements.csv', (t) => setLine(t, 1, 'type,id,n1,n2,n3,n4,n5,n6,n7,n8')), 'header', ['elements.csv', 'line 1', 'first column must be "id"'])
-    expectError(edit('elements.csv', (t) => setLine(t, 1, 'id,type,n1,n2,n3,n4,n5,n6,n7,n8,part')), 'header', ['line 1', 'part column must come right after type'])
+  it('elements: id, type and part found by name, node columns n1..nK side by side', () => {
+    // The header decides which column is which: swapped names read the id column as the type.
+    expectError(edit('elements.csv', (t) => setLine(t, 1, 'type,id,n1,n2,n3,n4,n5,n6,n7,n8')), 'unknown-type', ['elements.csv', 'line 2', 'column "type"', '"1"'])
+    // A part column after the nodes is read; rows without a value there end too early.
+    expectError(edit('elements.csv', (t) => setLine(t, 1, 'id,type,n1,n2,n3,n4,n5,n6,n7,n8,part')), 'column-count', ['line 2', 'the row ends before column "part"'])
     expectError(edit('elements.csv', (t) => setLine(t, 1, 'id,type,n1,n2,n4')), 'header', ['line 1', 'expected "n3"'])
-    expectError(edit('elements.csv', (t) => setLine(t, 1, 'id,type')), 'header', ['line 1', 'no node columns'])
+    expectError(edit('elements.csv', (t) => setLine(t, 1, 'id,type')), 'header', ['line 1', 'no node columns', '"columns": {"elements": {"nodes": "N1"}}'])
   })
 })
 
@@ -200,7 +206,10 @@ describe('stress, displacement and model.json', () => {
     expectError(edit('model.json', () => '{"bodyForce": [0, 0]}'), 'bad-json', ['model.json', 'field "bodyForce"'])
     expectError(edit('model.json', () => '[1, 2]'), 'bad-json', ['model.json', 'JSON object'])
     const m = readCsvBundle(toFiles(edit('model.json', () => '{"name": "n", "colour": "red"}')))
-    expect(m.warnings).toEqual(['model.json: unknown key "colour" ignored'])
+    expect(m.warnings[0]).toBe('model.json: unknown key "colour" ignored')
+    // No units in model.json nor in the headers: loaded, and said so.
+    expect(m.warnings[1]).toMatch(/^no units declared: lengths are read as m and stresses as Pa/)
+    expect(m.intake.unitsDeclared).toBe(false)
   })
 })
 

@@ -13,7 +13,8 @@ import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { readNative, writeNative } from '../../src/io/nativeContainer.ts'
 import { readLittleEndian, writeLittleEndian } from '../../src/io/littleEndianArrays.ts'
 import { validateModel } from '../../src/io/validateModel.ts'
-import { boxModel, expectSameModel, mixedModel, sameNumbers } from './testModels.ts'
+import { boxModel, mixedModel } from './testModels.ts'
+import { expectSameModel, sameNumbers } from './sameModel.ts'
 
 const TYPES = ELEMENT_TYPE_NAMES
 

@@ -5,7 +5,6 @@
  * unit thickness in z (I = 2c³/3). The I/O tests only need exact numbers to round-trip; the
  * field keeps them realistic (mixed signs, zeros, non-integers).
  */
-import { expect } from 'vitest'
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import type { BoxSpec } from '../../src/model/boxMesh.ts'
 import { createMesh } from '../../src/model/createMesh.ts'
@@ -77,34 +76,4 @@ export function mixedModel(types: readonly ElementTypeName[], idGap = 1000, with
     nodeBase += m.nodeCount
   })
   return modelOf(createMesh(new Float64Array(coords), blocks, new Int32Array(nodeIds)), withDisplacement)
-}
-
-/** Same model: names, units, body force, every array element (Object.is, so -0 ≠ 0). */
-export function expectSameModel(a: Model, b: Model): void {
-  expect(b.name).toBe(a.name)
-  expect(b.description).toBe(a.description)
-  expect(b.units).toEqual(a.units)
-  expect(b.bodyForce).toEqual(a.bodyForce)
-  expect(b.mesh.nodeCount).toBe(a.mesh.nodeCount)
-  expect(b.mesh.elementCount).toBe(a.mesh.elementCount)
-  expect(Array.from(b.mesh.nodeIds)).toEqual(Array.from(a.mesh.nodeIds))
-  expect(sameNumbers(a.mesh.coords, b.mesh.coords)).toBe(true)
-  expect(sameNumbers(a.stress, b.stress)).toBe(true)
-  expect(a.displacement === null).toBe(b.displacement === null)
-  if (a.displacement && b.displacement) expect(sameNumbers(a.displacement, b.displacement)).toBe(true)
-  expect(b.mesh.blocks.length).toBe(a.mesh.blocks.length)
-  a.mesh.blocks.forEach((ba, k) => {
-    const bb = b.mesh.blocks[k]
-    expect(bb.type).toBe(ba.type)
-    expect(bb.offset).toBe(ba.offset)
-    expect(Array.from(bb.conn)).toEqual(Array.from(ba.conn))
-    expect(Array.from(bb.ids)).toEqual(Array.from(ba.ids))
-    expect(bb.part === null ? null : Array.from(bb.part)).toEqual(ba.part === null ? null : Array.from(ba.part))
-  })
-}
-
-export function sameNumbers(a: Float64Array, b: Float64Array): boolean {
-  if (a.length !== b.length) return false
-  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false
-  return true
 }

@@ -19,7 +19,7 @@ import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { FACE_KINDS } from '../../src/model/elementTypes.ts'
 import type { Mesh, Model, Vec3 } from '../../src/model/model.ts'
-import { expectSameModel } from '../io/testModels.ts'
+import { expectSameModel } from '../io/sameModel.ts'
 import { maxAbs, runCore } from '../helpers/pipeline.ts'
 import { mulberry32, rotateMesh, rotateStress, rotateVec, rotationFromUniforms } from '../helpers/rotation.ts'
 
