@@ -1,0 +1,63 @@
+/**
+ * `tractus cut` with regions and limits: two separate bars through one plane (statics: F = σA
+ * per bar, Cauchy's formula; Malvern 1969, ch. 3), --parts and --within, and their bad input.
+ */
+import { describe, expect, it } from 'vitest'
+import { join } from 'node:path'
+import { cli, cliJson, tempDir, writeBundle } from './cliHarness.ts'
+import { assembly } from '../helpers/assemblies.ts'
+import { modelOf } from '../io/testModels.ts'
+
+function twoBars(): string {
+  const mesh = assembly([
+    { box: { nx: 2, ny: 2, nz: 2, lx: 1, ly: 1, lz: 2 }, type: 'hex8', part: 1 },
+    { box: { nx: 2, ny: 2, nz: 2, lx: 1, ly: 1, lz: 2, x0: 3 }, type: 'hex8', part: 3 },
+  ], false)
+  const stress = new Float64Array(6 * mesh.nodeCount)
+  for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = mesh.coords[3 * i] < 2 ? 10 : -5
+  return writeBundle(join(tempDir(), 'bars'), { ...modelOf(mesh), stress })
+}
+
+describe('tractus cut: regions and limits', () => {
+  const bars = twoBars()
+  const plane = ['--point', '0,0,0.9', '--normal', '0,0,1']
+
+  it('lists the regions with the documented keys; the whole-plane force beside them', async () => {
+    const j = await cliJson('cut', bars, ...plane)
+    expect(j.force[2]).toBeCloseTo(5, 9)
+    expect(j.regions.length).toBe(2)
+    expect(Object.keys(j.regions[0])).toEqual(expect.arrayContaining(['area', 'centroid', 'force', 'moment', 'axial', 'shear', 'torque', 'bending', 'parts']))
+    expect(j.regions[0].force[2]).toBeCloseTo(10, 9)
+    expect(j.regions[0].parts).toEqual([1])
+    expect(j.regions[1].force[2]).toBeCloseTo(-5, 9)
+    expect(j.regions[1].centroid[0]).toBeCloseTo(3.5, 12)
+    const text = await cli('cut', bars, ...plane)
+    expect(text.stdout).toMatch(/region 1 \(part 1\)/)
+  })
+
+  it('limits to parts and to a disc; the selection is the top-level figure', async () => {
+    const p = await cliJson('cut', bars, ...plane, '--parts', '3')
+    expect(p.force[2]).toBeCloseTo(-5, 9)
+    expect(p.limited).toBe(true)
+    expect(p.freeBodyDefined).toBe(false)
+    const w = await cliJson('cut', bars, ...plane, '--within', '0.5,0.5,50,1')
+    expect(w.force[2]).toBeCloseTo(10, 9)
+    const both = await cliJson('cut', bars, ...plane, '--within', '0.5,0.5,0,1', '--parts', '3')
+    expect(both.empty).toBe(true)
+    const t = await cli('cut', bars, ...plane, '--within', '0.5,0.5,0,1', '--parts', '3')
+    expect(t.code).toBe(0)
+    expect(t.stdout).toMatch(/selects no part of the section/)
+    expect((await cli('cut', bars, ...plane, '--parts', '1')).stdout).toMatch(/free body\s+not defined/)
+  })
+
+  it('rejects an unknown part (exit 2), a malformed option or a radius ≤ 0 (exit 1)', async () => {
+    const u = await cli('cut', bars, ...plane, '--parts', '7')
+    expect(u.code).toBe(2)
+    expect(u.stderr).toMatch(/no element has part 7.*parts are 1, 3/)
+    expect((await cli('cut', bars, ...plane, '--parts', '1,x')).code).toBe(1)
+    const r0 = await cli('cut', bars, ...plane, '--within', '0,0,0,0')
+    expect(r0.code).toBe(1)
+    expect(r0.stderr).toMatch(/radius must be greater than 0/)
+    expect((await cli('cut', bars, ...plane, '--within', '0,0,1')).code).toBe(1)
+  })
+})
