@@ -139,39 +139,54 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     const ra = find(a), rb = find(b)
     if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb)
   }
-  const byNodes = new Map<string, number>()
-  const open: number[] = [] // unmatched crossed faces: [owner, c0, c1, c2, c3 or -1] each
-  const coords = mesh.coords
+  const partOf = new Int32Array(n)
+  for (let s = 0; s < n; s++) partOf[s] = recordPart(mesh, r, sel[s])
+  // crossed faces by their three smallest corner numbers (enough to tell faces of a conforming
+  // mesh apart), listed per smallest corner node: a node-indexed head (small, cache-friendly)
+  // and the faces appended in order. A face's owner becomes -1 once its twin is met.
+  const t = faceLists(mesh.nodeCount, 6 * n)
+  const head = t.head
+  let list = t.list, faces = 0
+  const c = new Int32Array(4)
   for (let s = 0; s < n; s++) {
     const i = sel[s]
     const block = mesh.blocks[r.block[i]]
-    const topo = ELEMENT_TYPES[block.type], cf = topo.cornerFaces, nn = topo.nodeCount
+    const topo = ELEMENT_TYPES[block.type], cf = topo.cornerFaces, nn = topo.nodeCount, conn = block.conn
     const base = nn * r.local[i]
     for (let f = 0; 4 * f < cf.length; f++) {
       const nc = cf[4 * f + 3] < 0 ? 3 : 4
       let neg = 0
-      for (let k = 0; k < nc; k++) if (d[block.conn[base + cf[4 * f + k]]] < 0) neg++
-      if (neg === 0 || neg === nc) continue // the plane does not cross this face
-      const ids = [] as number[]
-      for (let k = 0; k < nc; k++) ids.push(block.conn[base + cf[4 * f + k]])
-      ids.sort((x, y) => x - y)
-      const key = ids.join(',')
-      const other = byNodes.get(key)
-      if (other === undefined) byNodes.set(key, s)
-      else {
-        byNodes.set(key, -1 - other) // matched: not open any more
-        if (recordPart(mesh, r, sel[other]) === recordPart(mesh, r, i)) union(other, s)
+      for (let k = 0; k < nc; k++) {
+        c[k] = conn[base + cf[4 * f + k]]
+        if (d[c[k]] < 0) neg++
       }
+      if (neg === 0 || neg === nc) continue // the plane does not cross this face
+      if (nc === 3) c[3] = -1
+      sort4(c)
+      const k0 = nc === 3 ? c[1] : c[0], k1 = nc === 3 ? c[2] : c[1], k2 = nc === 3 ? c[3] : c[2]
+      let e = head[k0]
+      while (e >= 0 && !(list[FL * e + 1] === k1 && list[FL * e + 2] === k2)) e = list[FL * e + 5]
+      if (e >= 0) {
+        const other = list[FL * e + 4]
+        if (other >= 0 && partOf[other] === partOf[s]) union(other, s)
+        list[FL * e + 4] = -1
+        continue
+      }
+      if (FL * (faces + 1) > list.length) { list = growInt(list, 2 * list.length); t.list = list }
+      const o = FL * faces
+      list[o] = k0; list[o + 1] = k1; list[o + 2] = k2; list[o + 3] = nc === 3 ? -1 : c[3]; list[o + 4] = s; list[o + 5] = head[k0]
+      head[k0] = faces++
     }
   }
-  // faces left unmatched by node numbers: boundary faces of a part, or faces whose nodes only coincide
-  for (const [key, s] of byNodes) {
-    if (s < 0) continue
-    const ids = key.split(',').map(Number)
-    open.push(s, ids[0], ids[1], ids[2], ids.length === 4 ? ids[3] : -1)
+  // faces left unmatched by node numbers: the section's outline, or faces whose nodes only coincide
+  const open: number[] = []
+  for (let e = 0; e < faces; e++) {
+    const o = FL * e
+    if (list[o + 4] >= 0) open.push(list[o + 4], list[o], list[o + 1], list[o + 2], list[o + 3])
+    head[list[o]] = -1
   }
-  matchCoincident(open, coords, (a, b) => {
-    if (recordPart(mesh, r, sel[a]) === recordPart(mesh, r, sel[b])) union(a, b)
+  matchCoincident(open, mesh.coords, (a, b) => {
+    if (partOf[a] === partOf[b]) union(a, b)
   })
   const id = new Int32Array(n).fill(-1)
   let count = 0
@@ -181,6 +196,28 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     label[s] = id[root]
   }
   return count
+}
+
+/** Face list stride: three smallest corners, the fourth (or -1), owner (-1 once matched), next face of the same smallest corner. */
+const FL = 6
+interface FaceLists { head: Int32Array; list: Int32Array }
+let lists: FaceLists | null = null
+
+/** The grows-only face lists: a head per node (all -1) and room for about `faces` faces. */
+function faceLists(nodes: number, faces: number): FaceLists {
+  if (!lists || lists.head.length < nodes) lists = { head: new Int32Array(nodes).fill(-1), list: lists?.list ?? new Int32Array(FL * 1024) }
+  if (lists.list.length < FL * faces) lists.list = new Int32Array(FL * faces)
+  return lists
+}
+
+/** Sorts four integers ascending in place (a five-compare network). */
+function sort4(c: Int32Array): void {
+  let t
+  if (c[0] > c[1]) { t = c[0]; c[0] = c[1]; c[1] = t }
+  if (c[2] > c[3]) { t = c[2]; c[2] = c[3]; c[3] = t }
+  if (c[0] > c[2]) { t = c[0]; c[0] = c[2]; c[2] = t }
+  if (c[1] > c[3]) { t = c[1]; c[1] = c[3]; c[3] = t }
+  if (c[1] > c[2]) { t = c[1]; c[1] = c[2]; c[2] = t }
 }
 
 /**
@@ -204,17 +241,19 @@ function matchCoincident(open: number[], coords: Float64Array, pair: (a: number,
   let cell = 0
   for (const f of faces) cell = Math.max(cell, f.tol)
   if (!(cell > 0)) return
-  const grid = new Map<string, number[]>()
+  const grid = new Map<number, number[]>()
   const q = (x: number) => Math.floor(x / cell)
+  // a numeric cell key (collisions only cost a few extra distance tests)
+  const cellKey = (x: number, y: number, z: number) => (Math.imul(x, 73856093) ^ Math.imul(y, 19349663) ^ Math.imul(z, 83492791)) | 0
   faces.forEach((f, i) => {
-    const key = `${q(f.c[0])},${q(f.c[1])},${q(f.c[2])}`
+    const key = cellKey(q(f.c[0]), q(f.c[1]), q(f.c[2]))
     const list = grid.get(key)
     if (list) list.push(i); else grid.set(key, [i])
   })
   faces.forEach((f, i) => {
     const qx = q(f.c[0]), qy = q(f.c[1]), qz = q(f.c[2])
     for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) for (let dz = -1; dz <= 1; dz++) {
-      const list = grid.get(`${qx + dx},${qy + dy},${qz + dz}`)
+      const list = grid.get(cellKey(qx + dx, qy + dy, qz + dz))
       if (!list) continue
       for (const j of list) {
         if (j <= i) continue
