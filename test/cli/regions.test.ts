@@ -61,3 +61,28 @@ describe('tractus cut: regions and limits', () => {
     expect((await cli('cut', bars, ...plane, '--within', '0,0,1')).code).toBe(1)
   })
 })
+
+describe('tractus parts', () => {
+  // a two-part column under its own weight, shared nodes at z = 1 (σzz = w(z - 2); Timoshenko & Goodier §97)
+  const w = 7.7e-5
+  const mesh = assembly([
+    { box: { nx: 1, ny: 1, nz: 2, lx: 1, ly: 1, lz: 1 }, type: 'hex8', part: 1 },
+    { box: { nx: 1, ny: 1, nz: 2, lx: 1, ly: 1, lz: 1, z0: 1 }, type: 'hex8', part: 2 },
+  ], true)
+  const stress = new Float64Array(6 * mesh.nodeCount)
+  for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = w * (mesh.coords[3 * i + 2] - 2)
+  const dir = writeBundle(join(tempDir(), 'column'), { ...modelOf(mesh), stress, bodyForce: [0, 0, -w] })
+
+  it('gives the documented keys, the interface force equal to the upper part\'s weight', async () => {
+    const j = await cliJson('parts', dir)
+    expect(j.parts.map((p: { part: number }) => p.part)).toEqual([1, 2])
+    expect(Object.keys(j.parts[0])).toEqual(['part', 'name', 'elements', 'volume', 'balance'])
+    expect(Object.keys(j.parts[0].balance)).toEqual(expect.arrayContaining(['force', 'moment', 'relative', 'about', 'gross']))
+    expect(j.interfaces.length).toBe(1)
+    expect(Object.keys(j.interfaces[0])).toEqual(expect.arrayContaining(['parts', 'area', 'centroid', 'force', 'moment', 'mismatch']))
+    expect(j.interfaces[0].parts).toEqual([1, 2])
+    expect(j.interfaces[0].force[2]).toBeCloseTo(w, 15)
+    expect(j.interfaces[0].mismatch).toBeLessThan(1e-12)
+    expect((await cli('parts', dir)).stdout).toMatch(/1 → 2/)
+  })
+})
