@@ -86,3 +86,30 @@ describe('tractus parts', () => {
     expect((await cli('parts', dir)).stdout).toMatch(/1 → 2/)
   })
 })
+
+describe('model.json "parts"', () => {
+  it('reads names and a part\'s own body force, round-trips them, and names a bad entry', async () => {
+    const { readModelMeta } = await import('../../src/io/modelJson.ts')
+    const m = readModelMeta('model.json', { parts: { 2: { name: 'base', bodyForce: [0, 0, -1] }, 1: 'bracket' } })
+    expect(m.parts).toEqual([{ part: 1, name: 'bracket', bodyForce: null }, { part: 2, name: 'base', bodyForce: [0, 0, -1] }])
+    expect(m.warnings).toEqual([])
+    expect(() => readModelMeta('model.json', { parts: { x: 'a' } })).toThrow(/parts\.x.*not a part number/)
+    expect(() => readModelMeta('model.json', { parts: { 1: { bodyForce: [0, 0] } } })).toThrow(/parts\.1\.bodyForce/)
+  })
+
+  it('gives each part its own weight in tractus parts', async () => {
+    // column as above; part 2 has its own ρb, twice the model's: its interface then carries 2w
+    const w = 7.7e-5
+    const mesh = assembly([
+      { box: { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, type: 'hex8', part: 1 },
+      { box: { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1, z0: 1 }, type: 'hex8', part: 2 },
+    ], true)
+    const stress = new Float64Array(6 * mesh.nodeCount)
+    for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = 2 * w * (mesh.coords[3 * i + 2] - 2)
+    const dir = writeBundle(join(tempDir(), 'heavy'), { ...modelOf(mesh), stress, bodyForce: [0, 0, -w], parts: [{ part: 1, name: 'base', bodyForce: null }, { part: 2, name: 'top', bodyForce: [0, 0, -2 * w] }] })
+    const j = await cliJson('parts', dir)
+    expect(j.parts.map((p: { name: string }) => p.name)).toEqual(['base', 'top'])
+    expect(j.parts[1].balance.relative).toBeLessThan(1e-10)
+    expect(j.interfaces[0].force[2]).toBeCloseTo(2 * w, 15)
+  })
+})
