@@ -26,6 +26,7 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.t
 import { computeBodyBalance } from './balanceAudit.ts'
 import { faceCornerCount } from './freeBody.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
+import { cellKey, cornersCoincide } from './sectionRegions.ts'
 
 /** Relative tolerance for corners of two parts' faces to coincide (fraction of the face size). */
 export const INTERFACE_TOL = 1e-6
@@ -143,7 +144,7 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Int
     for (const o of open) cell = Math.max(cell, INTERFACE_TOL * size(o))
     if (cell > 0) {
       const q = (x: number) => Math.floor(x / cell)
-      const key = (x: number, y: number, z: number) => (Math.imul(x, 73856093) ^ Math.imul(y, 19349663) ^ Math.imul(z, 83492791)) | 0
+      const key = cellKey
       const grid = new Map<number, number[]>()
       open.forEach((o, i) => {
         const c = cen(o), k = key(q(c[0]), q(c[1]), q(c[2]))
@@ -161,7 +162,7 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Int
             const tol = INTERFACE_TOL * Math.min(size(o), size(open[j]))
             const cj = cen(open[j])
             if (Math.hypot(c[0] - cj[0], c[1] - cj[1], c[2] - cj[2]) > tol) continue
-            if (!cornersCoincide(coords, parts, o, open[j], tol)) continue
+            if (!faceCornersCoincide(coords, parts, o, open[j], tol)) continue
             used[i] = 1; used[j] = 1
             pairs.push([o[0], o[1], open[j][0], open[j][1]])
           }
@@ -203,18 +204,11 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Int
   })
 }
 
-function cornersCoincide(coords: Float64Array, parts: readonly PartFaces[], a: [number, number], b: [number, number], tol: number): boolean {
-  const fa = parts[a[0]].faces, fb = parts[b[0]].faces
-  const na = faceCornerCount(fa.kind[a[1]]), nb = faceCornerCount(fb.kind[b[1]])
-  if (na !== nb) return false
-  for (let i = 0; i < na; i++) {
-    const u = fa.nodes[fa.slots * a[1] + i]
-    let hit = false
-    for (let j = 0; j < nb && !hit; j++) {
-      const v = fb.nodes[fb.slots * b[1] + j]
-      hit = Math.hypot(coords[3 * u] - coords[3 * v], coords[3 * u + 1] - coords[3 * v + 1], coords[3 * u + 2] - coords[3 * v + 2]) <= tol
-    }
-    if (!hit) return false
+function faceCornersCoincide(coords: Float64Array, parts: readonly PartFaces[], a: [number, number], b: [number, number], tol: number): boolean {
+  const corners = (pf: [number, number]): number[] => {
+    const f = parts[pf[0]].faces, nc = faceCornerCount(f.kind[pf[1]])
+    return Array.from(f.nodes.subarray(f.slots * pf[1], f.slots * pf[1] + nc))
   }
-  return true
+  const ca = corners(a), cb = corners(b)
+  return ca.length === cb.length && cornersCoincide(coords, ca, cb, tol)
 }

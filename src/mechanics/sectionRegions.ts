@@ -243,8 +243,6 @@ function matchCoincident(open: number[], coords: Float64Array, pair: (a: number,
   if (!(cell > 0)) return
   const grid = new Map<number, number[]>()
   const q = (x: number) => Math.floor(x / cell)
-  // a numeric cell key (collisions only cost a few extra distance tests)
-  const cellKey = (x: number, y: number, z: number) => (Math.imul(x, 73856093) ^ Math.imul(y, 19349663) ^ Math.imul(z, 83492791)) | 0
   faces.forEach((f, i) => {
     const key = cellKey(q(f.c[0]), q(f.c[1]), q(f.c[2]))
     const list = grid.get(key)
@@ -267,8 +265,13 @@ function matchCoincident(open: number[], coords: Float64Array, pair: (a: number,
   })
 }
 
-/** Every corner of face a lies within tol of some corner of face b. */
-function cornersCoincide(coords: Float64Array, a: number[], b: number[], tol: number): boolean {
+/** A numeric key of a quantised cell (collisions only cost a few extra distance tests). */
+export function cellKey(x: number, y: number, z: number): number {
+  return (Math.imul(x, 73856093) ^ Math.imul(y, 19349663) ^ Math.imul(z, 83492791)) | 0
+}
+
+/** Every corner of face a lies within tol of some corner of face b (node numbers into coords). */
+export function cornersCoincide(coords: Float64Array, a: number[], b: number[], tol: number): boolean {
   for (const u of a) {
     let hit = false
     for (const v of b) {
