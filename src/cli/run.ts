@@ -11,13 +11,14 @@ import { UsageError, checkRequired, parseArgs } from './args.ts'
 import { isInputError } from '../model/errors.ts'
 import { infoCommand } from './info.ts'
 import { auditCommand } from './audit.ts'
+import { partsCommand } from './parts.ts'
 import { cutCommand } from './cut.ts'
 import { sweepCommand } from './sweep.ts'
 import { convertCommand } from './convert.ts'
 
 export type { CliIO } from './command.ts'
 
-export const COMMANDS: readonly Command[] = [infoCommand, auditCommand, cutCommand, sweepCommand, convertCommand]
+export const COMMANDS: readonly Command[] = [infoCommand, auditCommand, cutCommand, sweepCommand, convertCommand, partsCommand]
 
 export const EXIT = { ok: 0, usage: 1, input: 2, internal: 3 } as const
 

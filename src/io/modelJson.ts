@@ -9,7 +9,7 @@
  */
 import { InputError } from '../model/errors.ts'
 import { jsonErrorOffset } from './jsonErrorPosition.ts'
-import type { Vec3 } from '../model/model.ts'
+import type { PartInfo, Vec3 } from '../model/model.ts'
 import { DEFAULT_UNITS, LENGTH_TO_M, STRESS_TO_PA, isLengthUnit, isStressUnit } from '../model/units.ts'
 import type { LengthUnit, ModelUnits, StressUnit } from '../model/units.ts'
 import { LAYOUT_KEYS } from './bundleLayout.ts'
@@ -23,9 +23,11 @@ export interface ModelMeta {
   readonly declaredUnits: { readonly length: LengthUnit | null; readonly stress: StressUnit | null }
   readonly bodyForce: Vec3
   readonly warnings: readonly string[]
+  /** "parts": names and own body forces, by part number (absent when the key is not given). */
+  readonly parts?: readonly PartInfo[]
 }
 
-const KNOWN_KEYS: readonly string[] = ['name', 'description', 'units', 'bodyForce', ...LAYOUT_KEYS]
+const KNOWN_KEYS: readonly string[] = ['name', 'description', 'units', 'bodyForce', 'parts', ...LAYOUT_KEYS]
 
 /** Parses JSON text; a syntax error names the line and column when the platform reports a position. */
 export function parseJsonText(file: string, text: string): unknown {
@@ -94,5 +96,35 @@ export function readModelMeta(file: string, value: unknown, fieldPrefix = ''): M
   if (fieldPrefix === '') {
     for (const k of Object.keys(o)) if (!KNOWN_KEYS.includes(k)) warnings.push(`${file}: unknown key "${k}" ignored`)
   }
-  return { name, description, units, declaredUnits, bodyForce, warnings }
+  const parts = o.parts === undefined ? undefined : readParts(file, o.parts, f('parts'))
+  return { name, description, units, declaredUnits, bodyForce, warnings, ...(parts ? { parts } : {}) }
+}
+
+/**
+ * "parts": {"1": "bracket"} or {"1": {"name": "bracket", "bodyForce": [0, 0, -77000]}} (a part's
+ * own ρb in model units, for assemblies of several materials; it overrides the model's).
+ */
+function readParts(file: string, value: unknown, field: string): PartInfo[] {
+  const how = 'parts must map part numbers to a name or to {"name": ..., "bodyForce": [bx, by, bz]}, like {"1": "bracket"}'
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InputError('bad-json', how, { file, field })
+  const out: PartInfo[] = []
+  for (const [key, v] of Object.entries(value as Record<string, unknown>)) {
+    const at = `${field}.${key}`
+    const part = Number(key)
+    if (!/^\d+$/.test(key) || !Number.isSafeInteger(part)) throw new InputError('bad-json', `"${key}" is not a part number (a whole number ≥ 0); ${how}`, { file, field: at })
+    if (typeof v === 'string') { out.push({ part, name: v, bodyForce: null }); continue }
+    if (typeof v !== 'object' || v === null || Array.isArray(v)) throw new InputError('bad-json', how, { file, field: at })
+    const r = v as Record<string, unknown>
+    if (r.name !== undefined && typeof r.name !== 'string') throw new InputError('bad-json', 'a part\'s name must be a string', { file, field: `${at}.name` })
+    let bodyForce: Vec3 | null = null
+    if (r.bodyForce !== undefined) {
+      const b = r.bodyForce
+      if (!Array.isArray(b) || b.length !== 3 || !b.every((x) => typeof x === 'number' && Number.isFinite(x))) {
+        throw new InputError('bad-json', 'a part\'s bodyForce must be three finite numbers [bx, by, bz] (force per volume, model units)', { file, field: `${at}.bodyForce` })
+      }
+      bodyForce = [b[0], b[1], b[2]]
+    }
+    out.push({ part, name: typeof r.name === 'string' ? r.name : '', bodyForce })
+  }
+  return out.sort((a, b) => a.part - b.part)
 }

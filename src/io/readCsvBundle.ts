@@ -223,6 +223,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
     stress,
     displacement,
     bodyForce: meta?.bodyForce ?? [0, 0, 0],
+    ...(meta?.parts ? { parts: meta.parts } : {}),
     warnings,
     intake,
   }

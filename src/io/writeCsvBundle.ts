@@ -44,7 +44,10 @@ export function writeCsvBundle(model: Model): CsvFile[] {
   files.push({ name: 'elements.csv', text: el.join('\n') + '\n' })
   files.push({ name: 'stress.csv', text: table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
   if (model.displacement) files.push({ name: 'displacement.csv', text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, model.displacement) })
-  const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce }
+  const parts = model.parts && model.parts.length > 0
+    ? { parts: Object.fromEntries(model.parts.map((p) => [String(p.part), p.bodyForce ? { name: p.name, bodyForce: p.bodyForce } : p.name])) }
+    : {}
+  const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts }
   files.push({ name: 'model.json', text: JSON.stringify(meta, null, 2) + '\n' })
   return files
 }

@@ -34,7 +34,7 @@ import type { Mesh } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import type { ElementMap } from './inverseMap.ts'
 import { invertElementMap, MAX_ELEMENT_NODES } from './inverseMap.ts'
-import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, MAX_POLYGON_POINTS } from './sectionPolygon.ts'
+import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, ACC_SIZE, MAX_POLYGON_POINTS } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
 import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
@@ -209,6 +209,7 @@ export function addSectionElement(g: SectionGeometry, block: number, local: numb
  */
 export function integrateSectionGeometry(
   acc: Float64Array, off: number, g: SectionGeometry, mesh: Mesh, field: StressField, m: ArrayLike<number>, forces: Float64Array | null,
+  perElement: Float64Array | null = null, geoRec: Int32Array | null = null,
 ): void {
   const mx = m[0], my = m[1], mz = m[2], values = field.values
   const tn = TN, N = SHAPE, f3 = FORCE3
@@ -216,9 +217,20 @@ export function integrateSectionGeometry(
     const type = mesh.blocks[g.block[i]].type, rows = field.rows[g.block[i]]
     const nn = ELEMENT_TYPES[type].nodeCount
     nodalTraction(tn, values, rows, g.local[i] * nn, nn, mx, my, mz)
-    if (forces) accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces, 3 * i)
+    if (perElement && geoRec) {
+      // into the element's own block (sectionRegions.ts), then the same sums into the whole
+      const o = geoRec[i] * ACC_SIZE
+      accumulateTraction(perElement, o, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces ?? f3, forces ? 3 * i : 0)
+      addTractionSlots(acc, off, perElement, o)
+    } else if (forces) accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces, 3 * i)
     else accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, f3, 0)
   }
+}
+
+/** acc[off ..] += src[so ..] over the slots the stress pass writes (force, its first moments, gross). */
+function addTractionSlots(acc: Float64Array, off: number, src: Float64Array, so: number): void {
+  for (let k = ACC_FORCE; k < ACC_BT + 3; k++) acc[off + k] += src[so + k]
+  acc[off + ACC_GROSS] += src[so + ACC_GROSS]
 }
 
 const TN = new Float64Array(3 * MAX_ELEMENT_NODES)

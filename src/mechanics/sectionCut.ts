@@ -38,7 +38,12 @@ import { createPolygonCollector } from './sectionDrawing.ts'
 import type { PolygonCollector } from './sectionDrawing.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { sectionRule, shapeDegree } from './sectionRule.ts'
-import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
+import type { CutRecord, SectionLimit } from './sectionRegions.ts'
+import {
+  addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, regionAccumulators, selectCutElements, selectionAccumulator,
+} from './sectionRegions.ts'
+import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
+import { ZERO_FREE_BODY } from './freeBody.ts'
 
 export { unitNormal } from './plane.ts'
 
@@ -51,6 +56,11 @@ export interface CutSectionOptions {
   readonly tractions?: SurfaceTractions
   /** Also return the section polygons for drawing (off by default: it allocates). */
   readonly polygons?: boolean
+  // --- assemblies: regions and bounded sections (sectionRegions.ts) ---
+  /** Split the cut into connected regions (SectionResult.regions). */
+  readonly regions?: boolean
+  /** Limit the cut to parts and/or a disc; the top-level figures are then the selection's. */
+  readonly limit?: SectionLimit | null
 }
 
 /**
@@ -66,6 +76,9 @@ export const SNAP_EPS = 64 * Number.EPSILON
 let distScratch = new Float64Array(0)
 /** The quadrature geometry of the latest cut (grows only, reused like distScratch). */
 const geometry = createSectionGeometry()
+/** The per-element record of the latest cut with regions or a limit (grows only). */
+const record = createCutRecord()
+let selScratch = new Int32Array(0), labelScratch = new Int32Array(0)
 
 /**
  * Cuts the body with `plane`. `stress` is read through its element-node rows, so nodal and
@@ -93,16 +106,26 @@ export function cutSection(
   const geo = geometry
   resetSectionGeometry(geo)
   const em = createElementMap()
+  const limit = options.limit ?? null
+  const rec = options.regions || limit ? record : null
+  if (rec) rec.n = 0
   mesh.blocks.forEach((block, bi) => {
     const rows = stress.rows[bi]
-    if (shapeDegree(block.type) <= 1) cutLinearBlock(acc, sc, d, coords, stress.values, block.type, block.conn, rows, bi, block.offset, frame, collect)
-    else cutBlock(acc, sc, em, geo, d, coords, block.type, block.conn, bi, block.offset, frame, collect)
+    if (shapeDegree(block.type) <= 1) cutLinearBlock(acc, sc, d, coords, stress.values, block.type, block.conn, rows, bi, block.offset, frame, collect, rec)
+    else cutBlock(acc, sc, em, geo, d, coords, block.type, block.conn, bi, block.offset, frame, collect, rec)
   })
   // the stress pass over the stored geometry
   const forces = collect ? new Float64Array(3 * geo.elements) : null
-  integrateSectionGeometry(acc, 0, geo, mesh, stress, m, forces)
+  integrateSectionGeometry(acc, 0, geo, mesh, stress, m, forces, rec ? rec.acc : null, rec ? rec.geoRec : null)
   const polygons = collect ? collect.finish(mesh, stress, forces!) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
+  let regions: SectionRegion[] | null = null
+  if (rec) {
+    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons }
+    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures)
+    if (limit) return { result: recorded.result!, polygons }
+    regions = recorded.regions
+  }
   if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about), polygons }
 
   const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
@@ -117,7 +140,37 @@ export function cutSection(
   const Ms = momentAboutCentroid(acc, 0, c, frame)
   const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS])
   const unmapped = em.failures + cs.em.failures
-  return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped), polygons }
+  const result = sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped)
+  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons }
+}
+
+/**
+ * The regions of a recorded cut (largest force first) and, with a limit, the selection's own
+ * record: its figures are those of the selected polygons only, and its free body is marked as
+ * not defined (a disc or a subset of the plane does not bound a piece of the body).
+ */
+function recordedSection(
+  rec: CutRecord, mesh: Mesh, acc: Float64Array, limit: SectionLimit | null, point: Vec3, m: Vec3, frame: Float64Array,
+  about: Vec3 | null, d: Float64Array, unmapped: number,
+): { regions: SectionRegion[]; result: SectionResult | null } {
+  if (selScratch.length < rec.n) { selScratch = new Int32Array(rec.n); labelScratch = new Int32Array(rec.n) }
+  const sel = selScratch, label = labelScratch
+  const n = selectCutElements(sel, rec, mesh, limit, acc, frame)
+  const count = labelRegions(label, sel, n, rec, mesh, d)
+  const ra = regionAccumulators(count, label, sel, n, rec, mesh, acc)
+  const regions: SectionRegion[] = []
+  for (let g = 0; g < count; g++) {
+    const r = sectionRecord(ra.acc, g * ACC_SIZE, point, m, frame, null, ZERO_FREE_BODY, 0)
+    regions.push({
+      area: r.area, centroid: r.centroid, force: r.force, moment: r.moment, axes: r.axes, secondMoments: r.secondMoments,
+      axial: r.axial, shear: r.shear, torque: r.torque, bending: r.bending, parts: ra.parts[g], cutElements: r.cutElements,
+    })
+  }
+  regions.sort((a, b) => Math.hypot(...b.force) - Math.hypot(...a.force))
+  if (!limit) return { regions, result: null }
+  const selAcc = selectionAccumulator(new Float64Array(ACC_SIZE), sel, n, rec, acc)
+  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about), regions: [], limited: true, freeBodyDefined: false } }
+  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped), regions, limited: true, freeBodyDefined: false } }
 }
 
 // The passes below are separate functions so that each is optimised with its own type feedback:
@@ -145,6 +198,7 @@ function nodeDistances(d: Float64Array, coords: Float64Array, N: number, point: 
 function cutLinearBlock(
   acc: Float64Array, sc: PolygonScratch, d: Float64Array, coords: Float64Array, values: Float64Array, type: ElementTypeName,
   conn: Int32Array, rows: Int32Array, bi: number, offset: number, frame: Float64Array, collect: PolygonCollector | null,
+  rec: CutRecord | null,
 ): void {
   const nn = ELEMENT_TYPES[type].nodeCount
   const cases = crossingCases(type)
@@ -160,7 +214,13 @@ function cutLinearBlock(
     const base = nn * list[i]
     dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
     if (polygon(sc, acc, 0, coords, values, 6, conn, rows, base, cases, frame) < 3) continue
-    integrate(acc, 0, sc, frame, 6)
+    if (rec) {
+      // the element's own block first, then the same numbers into the whole (0 + x = x: the
+      // whole section is bit-identical to a cut without the record)
+      const o = recordElement(rec, bi, list[i])
+      integrate(rec.acc, o, sc, frame, 6)
+      addAccumulator(acc, 0, rec.acc, o)
+    } else integrate(acc, 0, sc, frame, 6)
     if (collect) {
       // the drawn polygon needs its vertices' ξ: the linear path has the edge parameters only
       // implicitly, so map back through the (affine) element
@@ -200,7 +260,7 @@ function linearVertexReference(sc: PolygonScratch, coords: Float64Array, conn: I
 function cutBlock(
   acc: Float64Array, sc: PolygonScratch, em: ElementMap, geo: SectionGeometry, d: Float64Array,
   coords: Float64Array, type: ElementTypeName, conn: Int32Array, bi: number, offset: number, frame: Float64Array,
-  collect: PolygonCollector | null,
+  collect: PolygonCollector | null, rec: CutRecord | null,
 ): void {
   const topo = ELEMENT_TYPES[type]
   const nn = topo.nodeCount, cc = topo.cornerCount
@@ -212,7 +272,12 @@ function cutBlock(
   const one = (e: number): void => {
     const base = nn * e
     if (polygon(sc, acc, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) return
-    area(acc, 0, sc)
+    if (rec) {
+      const o = recordElement(rec, bi, e)
+      area(rec.acc, o, sc)
+      addAccumulator(acc, 0, rec.acc, o)
+      recordGeometry(rec, geo.elements)
+    } else area(acc, 0, sc)
     load(em, domain, coords, conn, base)
     reserveSectionGeometry(geo)
     const q = points(geo.ref, geo.w, geo.a, geo.b, geo.points, sc, rule, em)

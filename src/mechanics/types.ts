@@ -176,6 +176,33 @@ export interface SectionResult {
    * 0 on any sound mesh; a positive count names a badly shaped element near the plane.
    */
   readonly unmappedPoints: number
+  // --- assemblies (sectionRegions.ts): present when the cut was asked for regions or a limit ---
+  /** The cut's connected regions (of the selection, when limited), largest force first. */
+  readonly regions?: readonly SectionRegion[]
+  /** True when the figures are those of a part/disc selection, not the whole plane. */
+  readonly limited?: boolean
+  /** False where the free-body check is not defined (a bounded section); freeBody is then zero. */
+  readonly freeBodyDefined?: boolean
+}
+
+/**
+ * One connected region of a section: polygons of neighbouring cut elements of one part. Moments
+ * about the region's own centroid; axes are the region's principal area axes (e3 = m).
+ */
+export interface SectionRegion {
+  readonly area: number
+  readonly centroid: Vec3
+  readonly force: Vec3
+  readonly moment: Vec3
+  readonly axes: { readonly e1: Vec3; readonly e2: Vec3; readonly e3: Vec3 }
+  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly J: number }
+  readonly axial: number
+  readonly shear: [number, number]
+  readonly torque: number
+  readonly bending: [number, number]
+  /** The part numbers the region lies in (one, by construction; 0 when the mesh has none). */
+  readonly parts: readonly number[]
+  readonly cutElements: number
 }
 
 /**

@@ -50,6 +50,15 @@ export interface Model {
   readonly displacement: Float64Array | null
   readonly bodyForce: Vec3
   readonly warnings: readonly string[]
+  // --- assemblies: part names and per-part body force from model.json (absent: none given) ---
+  readonly parts?: readonly PartInfo[]
+}
+
+/** A named part (model.json "parts"): its number, name, and its own ρb when it has one (overrides the model's). */
+export interface PartInfo {
+  readonly part: number
+  readonly name: string
+  readonly bodyForce: Vec3 | null
 }
 
 /** Stress component order in every 6-vector. */
