@@ -189,20 +189,10 @@ export interface SectionResult {
  * One connected region of a section: polygons of neighbouring cut elements of one part. Moments
  * about the region's own centroid; axes are the region's principal area axes (e3 = m).
  */
-export interface SectionRegion {
-  readonly area: number
-  readonly centroid: Vec3
-  readonly force: Vec3
-  readonly moment: Vec3
-  readonly axes: { readonly e1: Vec3; readonly e2: Vec3; readonly e3: Vec3 }
-  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly J: number }
-  readonly axial: number
-  readonly shear: [number, number]
-  readonly torque: number
-  readonly bending: [number, number]
+export interface SectionRegion extends Pick<SectionResult,
+  'area' | 'centroid' | 'force' | 'moment' | 'axes' | 'secondMoments' | 'axial' | 'shear' | 'torque' | 'bending' | 'cutElements'> {
   /** The part numbers the region lies in (one, by construction; 0 when the mesh has none). */
   readonly parts: readonly number[]
-  readonly cutElements: number
 }
 
 /**

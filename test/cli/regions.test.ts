@@ -7,6 +7,7 @@ import { join } from 'node:path'
 import { cli, cliJson, tempDir, writeBundle } from './cliHarness.ts'
 import { assembly } from '../helpers/assemblies.ts'
 import { modelOf } from '../io/testModels.ts'
+import type { Model } from '../../src/model/model.ts'
 
 function twoBars(): string {
   const mesh = assembly([
@@ -62,16 +63,20 @@ describe('tractus cut: regions and limits', () => {
   })
 })
 
-describe('tractus parts', () => {
-  // a two-part column under its own weight, shared nodes at z = 1 (σzz = w(z - 2); Timoshenko & Goodier §97)
-  const w = 7.7e-5
+/** A two-part column 1 × 1 × 2 under ρb = (0, 0, -w), shared nodes at z = 1, σzz = k·w(z - 2) (Timoshenko & Goodier §97). */
+function column(w: number, k: number, name: string, parts?: Model['parts']): string {
   const mesh = assembly([
     { box: { nx: 1, ny: 1, nz: 2, lx: 1, ly: 1, lz: 1 }, type: 'hex8', part: 1 },
     { box: { nx: 1, ny: 1, nz: 2, lx: 1, ly: 1, lz: 1, z0: 1 }, type: 'hex8', part: 2 },
   ], true)
   const stress = new Float64Array(6 * mesh.nodeCount)
-  for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = w * (mesh.coords[3 * i + 2] - 2)
-  const dir = writeBundle(join(tempDir(), 'column'), { ...modelOf(mesh), stress, bodyForce: [0, 0, -w] })
+  for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = k * w * (mesh.coords[3 * i + 2] - 2)
+  return writeBundle(join(tempDir(), name), { ...modelOf(mesh), stress, bodyForce: [0, 0, -w], ...(parts ? { parts } : {}) })
+}
+
+describe('tractus parts', () => {
+  const w = 7.7e-5
+  const dir = column(w, 1, 'column')
 
   it('gives the documented keys, the interface force equal to the upper part\'s weight', async () => {
     const j = await cliJson('parts', dir)
@@ -100,13 +105,7 @@ describe('model.json "parts"', () => {
   it('gives each part its own weight in tractus parts', async () => {
     // column as above; part 2 has its own ρb, twice the model's: its interface then carries 2w
     const w = 7.7e-5
-    const mesh = assembly([
-      { box: { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }, type: 'hex8', part: 1 },
-      { box: { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1, z0: 1 }, type: 'hex8', part: 2 },
-    ], true)
-    const stress = new Float64Array(6 * mesh.nodeCount)
-    for (let i = 0; i < mesh.nodeCount; i++) stress[6 * i + 2] = 2 * w * (mesh.coords[3 * i + 2] - 2)
-    const dir = writeBundle(join(tempDir(), 'heavy'), { ...modelOf(mesh), stress, bodyForce: [0, 0, -w], parts: [{ part: 1, name: 'base', bodyForce: null }, { part: 2, name: 'top', bodyForce: [0, 0, -2 * w] }] })
+    const dir = column(w, 2, 'heavy', [{ part: 1, name: 'base', bodyForce: null }, { part: 2, name: 'top', bodyForce: [0, 0, -2 * w] }])
     const j = await cliJson('parts', dir)
     expect(j.parts.map((p: { name: string }) => p.name)).toEqual(['base', 'top'])
     expect(j.parts[1].balance.relative).toBeLessThan(1e-10)
