@@ -2,9 +2,10 @@
  * The probe: a pick ray from the scene is intersected here, in the worker, with the boundary faces
  * (flat triangles through the face corners, which is close enough to choose the face) and with the
  * section polygons; the stress at the hit is interpolated with the element's own shape functions
- * after inverting the isoparametric map by Newton's method.
+ * after inverting the isoparametric map (src/mechanics/mapInversion.ts).
  */
-import { elementType, FACE_KINDS } from '../src/model/elementTypes.ts'
+import { ELEMENT_TYPE_LIST, elementType, FACE_KINDS } from '../src/model/elementTypes.ts'
+import { invertElementMap } from '../src/mechanics/mapInversion.ts'
 import type { ElementTypeName } from '../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../src/model/model.ts'
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
@@ -68,54 +69,26 @@ function blockOf(mesh: Mesh, g: number): { type: ElementTypeName; conn: Int32Arr
   return null
 }
 
-const N = new Float64Array(20), dN = new Float64Array(60), R = new Float64Array(3)
+const N = new Float64Array(Math.max(...ELEMENT_TYPE_LIST.map((t) => t.nodeCount))), R = new Float64Array(3)
 
 /**
- * Stress (6) at point p inside element g: Newton on x(ξ) = Σ Nₐ(ξ) xₐ from the centroid of the
- * type's reference domain (the element registry), each iterate kept in the closed domain (so
- * the pyramid's rational functions are never evaluated beyond the apex), then Σ Nₐ σₐ. If Newton
- * does not settle (badly shaped element, point just outside), the last iterate still lies in the
- * reference domain, which gives a value from that element. An unknown type is an error.
+ * Stress (6) at point p inside element g: the element's map inverted by the one inversion of the
+ * house (src/mechanics/mapInversion.ts: Newton from the reference centroid, every iterate kept in
+ * the closed domain), then Σ Nₐ σₐ. If p lies just outside the element (a pick on a flat triangle
+ * through a curved face), the inversion ends on the element's boundary nearest to it, which
+ * gives a value from that element. An unknown type is an error.
  */
 export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: Vec3, out: Float64Array): void {
   const blk = blockOf(mesh, g)
   if (!blk) throw new RangeError(`element index ${g} is not in the mesh (${mesh.elementCount} elements)`)
   out.fill(0)
   const topo = elementType(blk.type)
-  const nn = topo.nodeCount, domain = topo.domain
+  const nn = topo.nodeCount
   const base = blk.local * nn
-  const x = mesh.coords, conn = blk.conn
-  R[0] = domain.centroid[0]; R[1] = domain.centroid[1]; R[2] = domain.centroid[2]
-  for (let it = 0; it < 20; it++) {
-    topo.shapeValues(R[0], R[1], R[2], N)
-    topo.shapeDerivatives(R[0], R[1], R[2], dN)
-    let rx = -p[0], ry = -p[1], rz = -p[2]
-    let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
-    for (let a = 0; a < nn; a++) {
-      const n = conn[base + a]
-      const X = x[3 * n], Y = x[3 * n + 1], Z = x[3 * n + 2]
-      rx += N[a] * X; ry += N[a] * Y; rz += N[a] * Z
-      const d0 = dN[3 * a], d1 = dN[3 * a + 1], d2 = dN[3 * a + 2]
-      j00 += X * d0; j01 += X * d1; j02 += X * d2
-      j10 += Y * d0; j11 += Y * d1; j12 += Y * d2
-      j20 += Z * d0; j21 += Z * d1; j22 += Z * d2
-    }
-    const c00 = j11 * j22 - j12 * j21, c01 = j02 * j21 - j01 * j22, c02 = j01 * j12 - j02 * j11
-    const det = j00 * c00 + j10 * c01 + j20 * c02
-    if (!(Math.abs(det) > 0)) break // singular map: keep the current iterate
-    const c10 = j12 * j20 - j10 * j22, c11 = j00 * j22 - j02 * j20, c12 = j02 * j10 - j00 * j12
-    const c20 = j10 * j21 - j11 * j20, c21 = j01 * j20 - j00 * j21, c22 = j00 * j11 - j01 * j10
-    const dx = (c00 * rx + c01 * ry + c02 * rz) / det
-    const dy = (c10 * rx + c11 * ry + c12 * rz) / det
-    const dz = (c20 * rx + c21 * ry + c22 * rz) / det
-    R[0] -= dx; R[1] -= dy; R[2] -= dz
-    // Keep the iterate in the reference domain (picking lands on the surface, round-off may leave it).
-    domain.clamp(R)
-    if (Math.abs(dx) + Math.abs(dy) + Math.abs(dz) < 1e-12) break
-  }
+  invertElementMap(R, topo, mesh.coords, blk.conn, base, p[0], p[1], p[2])
   topo.shapeValues(R[0], R[1], R[2], N)
   for (let a = 0; a < nn; a++) {
-    const n = conn[base + a]
+    const n = blk.conn[base + a]
     for (let k = 0; k < 6; k++) out[k] += N[a] * stress[6 * n + k]
   }
 }
