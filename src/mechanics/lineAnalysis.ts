@@ -161,10 +161,11 @@ export function materialPart(
     let first = -1
     for (let k = 1; k <= 16; k++) if (heldAt(mesh, grid, a, b, (k / 16) * tau, tol)) { first = (k / 16) * tau; break }
     if (first < 0) return `the start of the line lies outside the body (no material within ${len(tau * L)} of it along the line); put both ends on the wall's surfaces`
+    // The surface to a thousandth of the location tolerance, as the walk finds element exits.
     let lo = first - tau / 16, hi = first
-    for (let it = 0; it < 200 && (hi - lo) * L > tol; it++) {
+    for (let it = 0; it < 200 && (hi - lo) * L > 1e-3 * tol; it++) {
       const mid = 0.5 * (lo + hi)
-      if (heldAt(mesh, grid, a, b, mid, tol)) hi = mid
+      if (heldAt(mesh, grid, a, b, mid, 1e-3 * tol)) hi = mid
       else lo = mid
     }
     tIn = hi

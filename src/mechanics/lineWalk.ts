@@ -6,12 +6,12 @@
  *
  * At the current t the elements that hold the line a little further on (p(t + δ), δ four
  * location tolerances along the line) are found (pointLocation.ts) and the one whose exit lies
- * farthest is taken (where the line runs along a face shared by
- * two elements either serves). An element's exit is found by bisection between t (inside) and
- * the exit of its bounding box (outside or the box's end), to the location tolerance; the exit
- * is then checked at three interior points, and when one of them lies outside the element (a
- * curved element the line leaves and enters again) the bisection is repeated below that point,
- * so a segment never reaches over material of another element.
+ * farthest is taken (where the line runs along a face shared by two elements either serves).
+ * An element's exit is found by bisection between t (inside) and the exit of its bounding box
+ * (outside or the box's end), to a thousandth of the location tolerance; the exit is then
+ * checked at three interior points, and when one of them lies outside the element (a curved
+ * element the line leaves and enters again) the bisection is repeated below that point, so a
+ * segment never reaches over material of another element.
  *
  * Parameters t are fractions of the line a → b (t = 0 at a, 1 at b; the walk may run past 1 or
  * start before 0 when asked). Record (S segments): `t0`, `t1` Float64Array(S); `elem` global
@@ -49,18 +49,27 @@ interface Line {
   readonly tol: number
 }
 
-function holds(line: Line, b: number, e: number, t: number): boolean {
-  const { a, d, grid, mesh, tol } = line
+/** Strict tolerance of boundary crossings, as a fraction of the location tolerance. */
+const EDGE = 1e-3
+
+function holds(line: Line, b: number, e: number, t: number, tol = line.tol): boolean {
+  const { a, d, grid, mesh } = line
   const px = a[0] + t * d[0], py = a[1] + t * d[1], pz = a[2] + t * d[2]
   return inElementBox(grid, e, px, py, pz, tol) && elementHolds(XI, 0, mesh, b, e, px, py, pz, tol)
 }
 
-/** Largest s in (lo, hi] with the line held by e over [lo, s], by bisection (lo inside, hi not). */
+/**
+ * Largest s in (lo, hi] with the line held by e over [lo, s], by bisection (lo inside, hi not).
+ * Here "held" is strict (EDGE, a thousandth of the location tolerance, still far above the
+ * round-off of the inversion): a surface crossed by the line is found to that precision, so a
+ * wall's thickness along the line is exact to it.
+ */
 function bisectExit(line: Line, b: number, e: number, lo: number, hi: number): number {
-  const eps = line.tol / line.length
+  const strict = EDGE * line.tol
+  const eps = strict / line.length
   for (let it = 0; it < 200 && hi - lo > eps; it++) {
     const mid = 0.5 * (lo + hi)
-    if (holds(line, b, e, mid)) lo = mid
+    if (holds(line, b, e, mid, strict)) lo = mid
     else hi = mid
   }
   return lo
@@ -69,7 +78,7 @@ function bisectExit(line: Line, b: number, e: number, lo: number, hi: number): n
 /** Where the line, held by element e at t, leaves it (≤ tEnd). */
 function elementExit(line: Line, b: number, e: number, t: number, tEnd: number): number {
   let hi = Math.min(boxExit(line.grid, e, line.a, line.d, t), tEnd)
-  if (holds(line, b, e, hi)) return hi
+  if (holds(line, b, e, hi, EDGE * line.tol)) return hi
   let exit = bisectExit(line, b, e, t, hi)
   // A curved element may be left and entered again: the exit must have the element all the way.
   for (let pass = 0; pass < 4; pass++) {
