@@ -82,7 +82,7 @@ describe('cylindrical components of the Lamé field', () => {
         // through the wall; measured at most 5.7e-3 p).
         for (let k = 0; k < 6; k++) expect(Math.abs(r.components[6 * i + k] - want[k])).toBeLessThan(1e-2 * p)
         expect(Math.abs(r.displacementComponents![3 * i] - ur(rad))).toBeLessThan(1e-3 * ur(a))
-        expect(Math.abs(r.displacementComponents![3 * i + 1])).toBeLessThan(1e-9 * ur(a))
+        expect(Math.abs(r.displacementComponents![3 * i + 1])).toBeLessThan(1e-4 * ur(a))
       }
     })
   }
