@@ -14,10 +14,11 @@ import { auditCommand } from './audit.ts'
 import { cutCommand } from './cut.ts'
 import { sweepCommand } from './sweep.ts'
 import { convertCommand } from './convert.ts'
+import { lineCommand } from './line.ts'
 
 export type { CliIO } from './command.ts'
 
-export const COMMANDS: readonly Command[] = [infoCommand, auditCommand, cutCommand, sweepCommand, convertCommand]
+export const COMMANDS: readonly Command[] = [infoCommand, auditCommand, cutCommand, sweepCommand, lineCommand, convertCommand]
 
 export const EXIT = { ok: 0, usage: 1, input: 2, internal: 3 } as const
 
