@@ -9,9 +9,12 @@
  *
  * Layouts: nodal displacement Float64Array(3N); per-vertex arrays 3 numbers per vertex.
  */
-import { FACE_KINDS } from '../model/elementTypes.ts'
+import { elementType, FACE_KINDS } from '../model/elementTypes.ts'
+import type { Mesh } from '../model/model.ts'
 import { surfaceVertexCount } from './componentScalars.ts'
-import type { BoundaryFaces } from './types.ts'
+import { vectorInElement } from './fieldAtPoint.ts'
+import { invertElementMap } from './mapInversion.ts'
+import type { BoundaryFaces, SectionPolygons } from './types.ts'
 
 /** Largest displacement drawn by the automatic scale, as a fraction of the model diagonal. */
 export const AUTO_DEFORMATION_FRACTION = 0.05
@@ -62,6 +65,60 @@ export function gatherNodalVectors(nodes: Int32Array, u: Float64Array): Float32A
   for (let i = 0; i < nodes.length; i++) {
     const n = 3 * nodes[i]
     out[3 * i] = u[n]; out[3 * i + 1] = u[n + 1]; out[3 * i + 2] = u[n + 2]
+  }
+  return out
+}
+
+const XI = new Float64Array(3)
+
+/**
+ * The displacement at the vertices of section polygons (3 per vertex, in the order of
+ * `polygons.positions`, length units): each vertex lies in its polygon's element, so the
+ * element's map is inverted there (mapInversion.ts) and the nodal displacement interpolated with
+ * its shape functions. What the deformed section face is drawn with.
+ */
+export function displacementOnPolygons(mesh: Mesh, u: Float64Array, polygons: SectionPolygons): Float64Array {
+  const P = polygons.count
+  const V = P > 0 ? polygons.start[P] : 0
+  const out = new Float64Array(3 * V)
+  const x = polygons.positions
+  for (let p = 0; p < P; p++) {
+    const e = polygons.elem[p]
+    let b = 0
+    while (b + 1 < mesh.blocks.length && e >= mesh.blocks[b + 1].offset) b++
+    const blk = mesh.blocks[b], topo = elementType(blk.type), local = e - blk.offset
+    for (let v = polygons.start[p]; v < polygons.start[p + 1]; v++) {
+      invertElementMap(XI, topo, mesh.coords, blk.conn, local * topo.nodeCount, x[3 * v], x[3 * v + 1], x[3 * v + 2])
+      vectorInElement(out, 3 * v, mesh, u, b, local, XI)
+    }
+  }
+  return out
+}
+
+/** Mean of a per-vertex vector (3 per vertex) over each listed item's vertices start[item] .. start[item + 1] − 1: Float32Array(3·items.length). */
+export function meanOverItems(items: Int32Array, start: ArrayLike<number>, vertexVectors: ArrayLike<number>): Float32Array {
+  const out = new Float32Array(3 * items.length)
+  for (let i = 0; i < items.length; i++) {
+    const a = start[items[i]], b = start[items[i] + 1]
+    let sx = 0, sy = 0, sz = 0
+    for (let v = a; v < b; v++) { sx += vertexVectors[3 * v]; sy += vertexVectors[3 * v + 1]; sz += vertexVectors[3 * v + 2] }
+    const n = Math.max(1, b - a)
+    out[3 * i] = sx / n; out[3 * i + 1] = sy / n; out[3 * i + 2] = sz / n
+  }
+  return out
+}
+
+/** Mean of a nodal vector field (3N) over the nodes of each listed boundary face: Float32Array(3·items.length). */
+export function faceMeanVectors(faces: BoundaryFaces, u: Float64Array, items: Int32Array): Float32Array {
+  const out = new Float32Array(3 * items.length)
+  for (let i = 0; i < items.length; i++) {
+    const f = items[i], nv = NODES_OF_KIND[faces.kind[f]], base = f * faces.slots
+    let sx = 0, sy = 0, sz = 0
+    for (let a = 0; a < nv; a++) {
+      const n = 3 * faces.nodes[base + a]
+      sx += u[n]; sy += u[n + 1]; sz += u[n + 2]
+    }
+    out[3 * i] = sx / nv; out[3 * i + 1] = sy / nv; out[3 * i + 2] = sz / nv
   }
   return out
 }
