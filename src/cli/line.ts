@@ -20,14 +20,11 @@ import { checkAxes } from '../mechanics/componentAxes.ts'
 import type { LineAnalysis } from '../mechanics/lineAnalysis.ts'
 import { analyseLine, lineThroughWall, MAX_LINE_POINTS } from '../mechanics/lineAnalysis.ts'
 import type { Linearisation } from '../mechanics/linearisation.ts'
+import { LINEARISATION_CAUTION, LINEARISATION_METHOD } from '../mechanics/linearisation.ts'
 
 /** The sample count when --points is not given. */
 export const DEFAULT_LINE_POINTS = 51
 
-/** The caution every linearisation answer carries (README says the same). */
-export const LINEARISATION_CAUTION = 'Classifying these parts (primary, secondary, peak) and comparing them with allowables is the engineer\'s task under the applicable code.'
-
-export const LINEARISATION_METHOD = 'ASME BPVC Section VIII Division 2, Part 5, Annex 5-A (EN 13445-3 Annex C is alike)'
 
 const perPoint = <T>(n: number, held: Uint8Array, f: (i: number) => T): (T | null)[] => Array.from({ length: n }, (_, i) => (held[i] > 0 ? f(i) : null))
 

@@ -55,6 +55,12 @@ import { gaussLegendre } from './quadrature.ts'
 
 export type EquivalentCriterion = 'vonMises' | 'tresca'
 
+/** The method's name, as every answer carries it. */
+export const LINEARISATION_METHOD = 'ASME BPVC Section VIII Division 2, Part 5, Annex 5-A (EN 13445-3 Annex C is alike)'
+
+/** The caution every linearisation shown to a user carries. */
+export const LINEARISATION_CAUTION = 'Classifying these parts (primary, secondary, peak) and comparing them with allowables is the engineer\'s task under the applicable code.'
+
 export type FrameRule = 'axis' | 'bending' | 'membrane' | 'global'
 
 export type Tensor6 = [number, number, number, number, number, number]
