@@ -24,6 +24,16 @@ import type {
   AppError, ArrowBuffers, ArrowRequest, ComputeOptions, CrashKind, CutReply, EngineApi, LoadedModel, ModelSource, ModelSummary,
   Outcome, ProbeRequest, ProgressCallback, SectionBuffers, SurfaceBuffers,
 } from './protocol.ts'
+import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras, ScalarExtremes, SurfaceQuantity } from './protocol.ts'
+import { SURFACE_QUANTITIES } from '../src/mechanics/surfaceTriangles.ts'
+import { buildComponentScalars } from '../src/mechanics/componentScalars.ts'
+import type { ComponentScalars } from '../src/mechanics/componentScalars.ts'
+import { checkAxes, GLOBAL_AXES } from '../src/mechanics/componentAxes.ts'
+import { scalarExtremes } from '../src/mechanics/scalarExtremes.ts'
+import { displacementOnPolygons, faceMeanVectors, gatherNodalVectors, maxDisplacement, meanOverItems, surfaceDisplacement } from '../src/mechanics/deformation.ts'
+import { buildElementGrid } from '../src/mechanics/elementGrid.ts'
+import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
+import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
@@ -35,6 +45,10 @@ interface Loaded {
   faces: BoundaryFaces
   tractions: SurfaceTractions
   polygons: SectionPolygons | null
+  /** Lines: the element grid, built on the first line through this model. */
+  grid: ElementGrid | null
+  /** Displacement at the current section's polygon vertices (3 per vertex), or null. */
+  polygonDisplacement: Float64Array | null
 }
 
 let current: Loaded | null = null
@@ -160,6 +174,30 @@ function sourceLabel(source: ModelSource): string {
   return source.label ?? 'files:' + source.files.map((f) => f.name).join(',')
 }
 
+/**
+ * What a load adds for the deformed shape, the component quantities and the extremes markers
+ * (protocol LoadExtras): displacement on the surface vertices and the edge ends, the components
+ * in global axes, and the extremes of every surface quantity.
+ */
+function loadExtras(model: Model, faces: BoundaryFaces, nodalStress: Float64Array, scalars: Readonly<Record<SurfaceQuantity, Float32Array>>, edgeNodes: Int32Array): LoadExtras {
+  const u = model.displacement
+  const extremes = {} as Record<SurfaceQuantity, ScalarExtremes>
+  for (const q of SURFACE_QUANTITIES) extremes[q] = scalarExtremes(scalars[q])
+  return {
+    deformation: u ? { surface: surfaceDisplacement(faces, u), edges: gatherNodalVectors(edgeNodes, u), max: maxDisplacement(u) } : null,
+    components: buildComponentScalars(faces, model.mesh.coords, nodalStress, u, GLOBAL_AXES),
+    extremes,
+  }
+}
+
+function componentTransfer(c: ComponentScalars): Float32Array[] {
+  return Object.values(c.scalars).filter((x): x is Float32Array => x !== undefined)
+}
+
+function extrasTransfer(x: LoadExtras): Float32Array[] {
+  return [...(x.deformation ? [x.deformation.surface, x.deformation.edges] : []), ...componentTransfer(x.components)]
+}
+
 const api: EngineApi = {
   configure(options: ComputeOptions) {
     computeOptions = options
@@ -196,11 +234,12 @@ const api: EngineApi = {
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
       const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
-      const edges = buildFeatureEdges(mesh.coords, faces).segments
+      const edges = buildFeatureEdges(mesh.coords, faces)
       const surface: SurfaceBuffers = {
         positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
-        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges,
+        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
       }
+      const extras = loadExtras(model, faces, nodalDisplayStress(input.stress), tri.scalars, edges.nodes)
       clock.mark('')
       const summary: ModelSummary = {
         name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
@@ -210,7 +249,7 @@ const api: EngineApi = {
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
       }
       // Only now, with everything computed, does the new model replace the old one.
-      current = { model, faces, tractions, polygons: null }
+      current = { model, faces, tractions, polygons: null, grid: null, polygonDisplacement: null }
       report('Done', 1)
       const value: LoadedModel = {
         summary,
@@ -225,8 +264,9 @@ const api: EngineApi = {
           freeSurfaceForce: verdict.freeSurfaceForce,
           verdict: verdict.verdict,
         },
+        extras,
       }
-      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges, ...Object.values(tri.scalars)].map((a) => a.buffer as ArrayBuffer)
+      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value }, buffers)
     } catch (e) {
       const error = toAppError(e)
@@ -238,7 +278,10 @@ const api: EngineApi = {
   async surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null> {
     if (!current) return null
     const a = sampleSurfaceArrows(current.faces, current.tractions, { mode: req.mode, budget: req.budget })
-    return Comlink.transfer(a, arrowTransfer(a))
+    // The deformed shape moves each arrow with the mean displacement of its face's nodes.
+    const u = current.model.displacement
+    const du = u ? faceMeanVectors(current.faces, u, a.item) : null
+    return Comlink.transfer(du ? { ...a, displacement: du } : a, [...arrowTransfer(a), ...(du ? [du.buffer as ArrayBuffer] : [])])
   },
 
   async cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>> {
@@ -248,14 +291,22 @@ const api: EngineApi = {
     try {
       const { result, polygons } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, plane, { faces, tractions, polygons: true })
       current.polygons = polygons
+      current.polygonDisplacement = null
       if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started } }
       const tri = buildSectionTriangles(polygons, result.plane.normal)
       const a = sampleSectionArrows(polygons, result.plane.normal, { mode: arrows.mode, budget: arrows.budget })
+      // The deformed shape moves the section face and its arrows with the material.
+      const u = model.displacement
+      const pu = u ? displacementOnPolygons(model.mesh, u, polygons) : null
+      current.polygonDisplacement = pu
+      const sectionU = pu ? Float32Array.from(pu.subarray(3 * polygons.start[0])) : undefined
+      const arrowU = pu ? meanOverItems(a.item, polygons.start, pu) : undefined
       const buffers: SectionBuffers = {
         positions: tri.positions, index: tri.index, normalTraction: tri.normalTraction,
-        shearTraction: tri.shearTraction, ranges: tri.ranges, arrows: a,
+        shearTraction: tri.shearTraction, ranges: tri.ranges, arrows: arrowU ? { ...a, displacement: arrowU } : a,
+        ...(sectionU ? { displacement: sectionU } : {}),
       }
-      const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction].map((x) => x.buffer as ArrayBuffer)
+      const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction, ...(sectionU ? [sectionU] : []), ...(arrowU ? [arrowU] : [])].map((x) => x.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value: { result, buffers, computeMs: performance.now() - started } }, [...list, ...arrowTransfer(a)])
     } catch (e) {
       const error = toAppError(e)
@@ -279,7 +330,52 @@ const api: EngineApi = {
 
   async probe(req: ProbeRequest) {
     if (!current) return null
-    return probeModel(current.model.mesh, current.model.stress, current.faces, req.section ? current.polygons : null, req)
+    return probeModel(current.model.mesh, current.model.stress, current.faces, req.section ? current.polygons : null, req,
+      current.model.displacement, req.section ? current.polygonDisplacement : null)
+  },
+
+  async components(axes: ComponentAxes): Promise<Outcome<ComponentBuffers>> {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    try {
+      const { model, faces } = current
+      const c = buildComponentScalars(faces, model.mesh.coords, nodalDisplayStress(analysisInputOf(model).stress), model.displacement, checkAxes(axes))
+      return Comlink.transfer({ ok: true as const, value: c }, componentTransfer(c))
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
+  },
+
+  async line(req: LineRequest): Promise<Outcome<LineReply>> {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    try {
+      const { model } = current
+      const grid = current.grid ?? (current.grid = buildElementGrid(model.mesh))
+      const r = analyseLine(model.mesh, grid, analysisInputOf(model).stress, model.displacement, req)
+      const s = r.samples
+      // Components in global axes are the stress itself: a copy, so both can be transferred.
+      const components = r.components === s.stress ? s.stress.slice() : r.components
+      const dc = r.displacementComponents && r.displacementComponents === s.displacement ? r.displacementComponents.slice() : r.displacementComponents
+      const value: LineReply = {
+        from: r.from, to: r.to, length: s.length, axes: r.axes, criterion: req.criterion,
+        points: s.points, distance: s.distance, stress: s.stress, components, vonMises: s.vonMises, principal: s.principal,
+        displacement: s.displacement, displacementComponents: dc, held: s.held,
+        linearisation: r.linearisation, refused: r.refused, warnings: r.warnings, outside: r.outside,
+      }
+      const list = [s.points, s.distance, s.stress, components, s.vonMises, s.principal, s.held, ...(s.displacement ? [s.displacement] : []), ...(dc ? [dc] : [])]
+      return Comlink.transfer({ ok: true as const, value }, list.map((x) => x.buffer as ArrayBuffer))
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
+  },
+
+  async lineThroughWall(from: Vec3, to: Vec3) {
+    if (!current) return null
+    const grid = current.grid ?? (current.grid = buildElementGrid(current.model.mesh))
+    return lineThroughWall(current.model.mesh, grid, from, to)
   },
 
   dispose() {

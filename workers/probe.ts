@@ -2,9 +2,16 @@
  * The probe: a pick ray from the scene is intersected here, in the worker, with the boundary faces
  * (flat triangles through the face corners, which is close enough to choose the face) and with the
  * section polygons; the stress at the hit is interpolated with the element's own shape functions
- * after inverting the isoparametric map by Newton's method.
+ * after inverting the isoparametric map (src/mechanics/mapInversion.ts).
+ *
+ * With the deformed shape on screen (ProbeRequest.deformScale s > 0) the ray meets the triangles
+ * as drawn, every corner moved by s·u, and the hit's barycentric coordinates in the drawn
+ * triangle give the material point in the undeformed one: the probe reads the material point
+ * under the pointer, and every figure stays on the undeformed geometry.
  */
-import { elementType, FACE_KINDS } from '../src/model/elementTypes.ts'
+import { ELEMENT_TYPE_LIST, elementType, FACE_KINDS } from '../src/model/elementTypes.ts'
+import { invertElementMap } from '../src/mechanics/mapInversion.ts'
+import { vectorInElement } from '../src/mechanics/fieldAtPoint.ts'
 import type { ElementTypeName } from '../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../src/model/model.ts'
 import { principalStresses, vonMises } from '../src/mechanics/invariants.ts'
@@ -18,13 +25,16 @@ import type { ProbeRequest, ProbeResult } from './protocol.ts'
 /** Corners per face kind code, from the element registry. */
 const CORNERS_OF_KIND = FACE_KINDS.map((k) => k.cornerCount)
 
-interface Hit { t: number; elem: number; normal: Vec3; where: 'surface' | 'section'; polygon: number }
+interface Hit { t: number; elem: number; normal: Vec3; where: 'surface' | 'section'; point: Vec3; polygon: number }
 
-/** Ray–triangle (Möller–Trumbore), returns t or Infinity; both sides count. */
-function rayTriangle(o: Vec3, d: Vec3, x: Float64Array, a: number, b: number, c: number): number {
-  const ax = x[3 * a], ay = x[3 * a + 1], az = x[3 * a + 2]
-  const e1x = x[3 * b] - ax, e1y = x[3 * b + 1] - ay, e1z = x[3 * b + 2] - az
-  const e2x = x[3 * c] - ax, e2y = x[3 * c + 1] - ay, e2z = x[3 * c + 2] - az
+/** Barycentric (u, v) of the last hit of rayTriangle: the hit is a + u (b − a) + v (c − a). */
+const BARY = new Float64Array(2)
+
+/** Ray–triangle (Möller–Trumbore) on the corners a, b, c (3 numbers each at offsets ao, bo, co); t or Infinity; both sides count. */
+function rayTriangle(o: Vec3, d: Vec3, x: ArrayLike<number>, ao: number, bo: number, co: number): number {
+  const ax = x[ao], ay = x[ao + 1], az = x[ao + 2]
+  const e1x = x[bo] - ax, e1y = x[bo + 1] - ay, e1z = x[bo + 2] - az
+  const e2x = x[co] - ax, e2y = x[co + 1] - ay, e2z = x[co + 2] - az
   const px = d[1] * e2z - d[2] * e2y, py = d[2] * e2x - d[0] * e2z, pz = d[0] * e2y - d[1] * e2x
   const det = e1x * px + e1y * py + e1z * pz
   if (Math.abs(det) < 1e-300) return Infinity // ray parallel to the triangle
@@ -36,7 +46,26 @@ function rayTriangle(o: Vec3, d: Vec3, x: Float64Array, a: number, b: number, c:
   const v = (d[0] * qx + d[1] * qy + d[2] * qz) * inv
   if (v < 0 || u + v > 1) return Infinity
   const t = (e2x * qx + e2y * qy + e2z * qz) * inv
-  return t > 0 ? t : Infinity
+  if (!(t > 0)) return Infinity
+  BARY[0] = u; BARY[1] = v
+  return t
+}
+
+/** Nine numbers: the corners a, b, c of a triangle as drawn (undeformed, or moved by s·u). */
+const TRI = new Float64Array(9)
+
+function drawnCorners(x: Float64Array, u: Float64Array | null, s: number, a: number, b: number, c: number, uo: [number, number, number] | null = null): Float64Array {
+  const idx = [a, b, c]
+  for (let k = 0; k < 3; k++) {
+    const n = idx[k], m = uo ? uo[k] : n
+    for (let i = 0; i < 3; i++) TRI[3 * k + i] = x[3 * n + i] + (u && s !== 0 ? s * u[3 * m + i] : 0)
+  }
+  return TRI
+}
+
+/** The point a + u (b − a) + v (c − a) of the undeformed triangle a, b, c (node indices into x). */
+function materialPoint(x: Float64Array, a: number, b: number, c: number, u: number, v: number): Vec3 {
+  return [0, 1, 2].map((i) => x[3 * a + i] + u * (x[3 * b + i] - x[3 * a + i]) + v * (x[3 * c + i] - x[3 * a + i])) as Vec3
 }
 
 function hidden(p: Vec3, req: ProbeRequest, plane: SectionPlane | null): boolean {
@@ -62,70 +91,48 @@ function insidePolygon(p: Vec3, pos: Float64Array, from: number, to: number, m: 
   return inside
 }
 
-function blockOf(mesh: Mesh, g: number): { type: ElementTypeName; conn: Int32Array; local: number } | null {
-  for (const b of mesh.blocks) {
-    const count = b.ids.length
-    if (g >= b.offset && g < b.offset + count) return { type: b.type, conn: b.conn, local: g - b.offset }
+function blockOf(mesh: Mesh, g: number): { type: ElementTypeName; conn: Int32Array; local: number; index: number } | null {
+  for (let i = 0; i < mesh.blocks.length; i++) {
+    const b = mesh.blocks[i], count = b.ids.length
+    if (g >= b.offset && g < b.offset + count) return { type: b.type, conn: b.conn, local: g - b.offset, index: i }
   }
   return null
 }
 
-const N = new Float64Array(20), dN = new Float64Array(60), R = new Float64Array(3)
+const N = new Float64Array(Math.max(...ELEMENT_TYPE_LIST.map((t) => t.nodeCount))), R = new Float64Array(3)
 
 /**
- * Stress (6) at point p inside element g: Newton on x(ξ) = Σ Nₐ(ξ) xₐ from the centroid of the
- * type's reference domain (the element registry), each iterate kept in the closed domain (so
- * the pyramid's rational functions are never evaluated beyond the apex), then Σ Nₐ σₐ. If Newton
- * does not settle (badly shaped element, point just outside), the last iterate still lies in the
- * reference domain, which gives a value from that element. An unknown type is an error.
+ * Stress (6) at point p inside element g: the element's map inverted by the one inversion of the
+ * house (src/mechanics/mapInversion.ts: Newton from the reference centroid, every iterate kept in
+ * the closed domain), then Σ Nₐ σₐ. If p lies just outside the element (a pick on a flat triangle
+ * through a curved face), the inversion ends on the element's boundary nearest to it, which
+ * gives a value from that element. An unknown type is an error.
  */
-export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: Vec3, out: Float64Array): void {
+export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: Vec3, out: Float64Array, outDisplacement: Float64Array | null = null, displacement: Float64Array | null = null): void {
   const blk = blockOf(mesh, g)
   if (!blk) throw new RangeError(`element index ${g} is not in the mesh (${mesh.elementCount} elements)`)
   out.fill(0)
   const topo = elementType(blk.type)
-  const nn = topo.nodeCount, domain = topo.domain
+  const nn = topo.nodeCount
   const base = blk.local * nn
-  const x = mesh.coords, conn = blk.conn
-  R[0] = domain.centroid[0]; R[1] = domain.centroid[1]; R[2] = domain.centroid[2]
-  for (let it = 0; it < 20; it++) {
-    topo.shapeValues(R[0], R[1], R[2], N)
-    topo.shapeDerivatives(R[0], R[1], R[2], dN)
-    let rx = -p[0], ry = -p[1], rz = -p[2]
-    let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
-    for (let a = 0; a < nn; a++) {
-      const n = conn[base + a]
-      const X = x[3 * n], Y = x[3 * n + 1], Z = x[3 * n + 2]
-      rx += N[a] * X; ry += N[a] * Y; rz += N[a] * Z
-      const d0 = dN[3 * a], d1 = dN[3 * a + 1], d2 = dN[3 * a + 2]
-      j00 += X * d0; j01 += X * d1; j02 += X * d2
-      j10 += Y * d0; j11 += Y * d1; j12 += Y * d2
-      j20 += Z * d0; j21 += Z * d1; j22 += Z * d2
-    }
-    const c00 = j11 * j22 - j12 * j21, c01 = j02 * j21 - j01 * j22, c02 = j01 * j12 - j02 * j11
-    const det = j00 * c00 + j10 * c01 + j20 * c02
-    if (!(Math.abs(det) > 0)) break // singular map: keep the current iterate
-    const c10 = j12 * j20 - j10 * j22, c11 = j00 * j22 - j02 * j20, c12 = j02 * j10 - j00 * j12
-    const c20 = j10 * j21 - j11 * j20, c21 = j01 * j20 - j00 * j21, c22 = j00 * j11 - j01 * j10
-    const dx = (c00 * rx + c01 * ry + c02 * rz) / det
-    const dy = (c10 * rx + c11 * ry + c12 * rz) / det
-    const dz = (c20 * rx + c21 * ry + c22 * rz) / det
-    R[0] -= dx; R[1] -= dy; R[2] -= dz
-    // Keep the iterate in the reference domain (picking lands on the surface, round-off may leave it).
-    domain.clamp(R)
-    if (Math.abs(dx) + Math.abs(dy) + Math.abs(dz) < 1e-12) break
-  }
+  invertElementMap(R, topo, mesh.coords, blk.conn, base, p[0], p[1], p[2])
   topo.shapeValues(R[0], R[1], R[2], N)
   for (let a = 0; a < nn; a++) {
-    const n = conn[base + a]
+    const n = blk.conn[base + a]
     for (let k = 0; k < 6; k++) out[k] += N[a] * stress[6 * n + k]
   }
+  if (outDisplacement && displacement) vectorInElement(outDisplacement, 0, mesh, displacement, blk.index, blk.local, R)
 }
 
-/** Finds what the ray hits first (visible surface or section face) and reads the stress there. */
+/**
+ * Finds what the ray hits first (visible surface or section face) and reads the stress there.
+ * `displacement` (3N) and `polygonDisplacement` (3 per section polygon vertex) serve the
+ * deformed shape and the displacement read-out; null without displacement.
+ */
 export function probeModel(
   mesh: Mesh, stress: Float64Array, faces: BoundaryFaces,
   polygons: SectionPolygons | null, req: ProbeRequest,
+  displacement: Float64Array | null = null, polygonDisplacement: Float64Array | null = null,
 ): ProbeResult | null {
   const o = req.ray.origin
   const dl = Math.hypot(...req.ray.direction)
@@ -135,41 +142,62 @@ export function probeModel(
   const plane = req.section ? makePlane(req.section.plane.point, req.section.plane.normal) : null
   const d: Vec3 = [req.ray.direction[0] / dl, req.ray.direction[1] / dl, req.ray.direction[2] / dl]
   const x = mesh.coords
+  const scale = displacement && Number.isFinite(req.deformScale) ? req.deformScale ?? 0 : 0
   let best: Hit | null = null
   const at = (t: number): Vec3 => [o[0] + t * d[0], o[1] + t * d[1], o[2] + t * d[2]]
+  const nodes = faces.nodes
   for (let f = 0; f < faces.count; f++) {
-    const s = f * faces.slots, nodes = faces.nodes
+    const s = f * faces.slots
     const nc = CORNERS_OF_KIND[faces.kind[f]]
-    let t = rayTriangle(o, d, x, nodes[s], nodes[s + 1], nodes[s + 2])
-    if (nc === 4) t = Math.min(t, rayTriangle(o, d, x, nodes[s], nodes[s + 2], nodes[s + 3]))
-    if (t < (best?.t ?? Infinity) && !hidden(at(t), req, plane)) {
-      best = { t, elem: faces.elem[f], normal: [faces.normal[3 * f], faces.normal[3 * f + 1], faces.normal[3 * f + 2]], where: 'surface', polygon: -1 }
+    // Corner triangles (0, 1, 2) and, for a quadrilateral, (0, 2, 3).
+    for (let k = 1; k + 1 < nc; k++) {
+      const a = nodes[s], b = nodes[s + k], c = nodes[s + k + 1]
+      const t = rayTriangle(o, d, drawnCorners(x, displacement, scale, a, b, c), 0, 3, 6)
+      if (!(t < (best?.t ?? Infinity))) continue
+      const p = materialPoint(x, a, b, c, BARY[0], BARY[1])
+      // The cut hides material points (the shader clips the undeformed position).
+      if (hidden(p, req, plane)) continue
+      best = { t, elem: faces.elem[f], normal: [faces.normal[3 * f], faces.normal[3 * f + 1], faces.normal[3 * f + 2]], where: 'surface', point: p, polygon: -1 }
     }
   }
   if (plane && polygons && polygons.count > 0) {
     const m = plane.normal
-    const denom = d[0] * m[0] + d[1] * m[1] + d[2] * m[2]
-    if (Math.abs(denom) > 1e-12) {
-      const t = -planeDistance(plane, o[0], o[1], o[2]) / denom
-      if (t > 0 && t < (best?.t ?? Infinity)) {
-        const p = at(t)
-        for (let q = 0; q < polygons.count; q++) {
-          if (insidePolygon(p, polygons.positions, polygons.start[q], polygons.start[q + 1], m)) {
-            best = { t, elem: polygons.elem[q], normal: [m[0], m[1], m[2]], where: 'section', polygon: q }
-            break
+    if (scale !== 0 && polygonDisplacement) {
+      // The drawn section face is no longer flat: its fan triangles, moved.
+      const pos = polygons.positions, uo: [number, number, number] = [0, 0, 0]
+      for (let q = 0; q < polygons.count; q++) {
+        const v0 = polygons.start[q]
+        for (let v = v0 + 1; v + 1 < polygons.start[q + 1]; v++) {
+          uo[0] = v0; uo[1] = v; uo[2] = v + 1
+          const t = rayTriangle(o, d, drawnCorners(pos, polygonDisplacement, scale, v0, v, v + 1, uo), 0, 3, 6)
+          if (!(t < (best?.t ?? Infinity))) continue
+          best = { t, elem: polygons.elem[q], normal: [m[0], m[1], m[2]], where: 'section', point: materialPoint(pos, v0, v, v + 1, BARY[0], BARY[1]), polygon: q }
+        }
+      }
+    } else {
+      const denom = d[0] * m[0] + d[1] * m[1] + d[2] * m[2]
+      if (Math.abs(denom) > 1e-12) {
+        const t = -planeDistance(plane, o[0], o[1], o[2]) / denom
+        if (t > 0 && t < (best?.t ?? Infinity)) {
+          const p = at(t)
+          for (let q = 0; q < polygons.count; q++) {
+            if (insidePolygon(p, polygons.positions, polygons.start[q], polygons.start[q + 1], m)) {
+              best = { t, elem: polygons.elem[q], normal: [m[0], m[1], m[2]], where: 'section', point: p, polygon: q }
+              break
+            }
           }
         }
       }
     }
   }
   if (!best) return null
-  const p = at(best.t)
+  const p = best.point
   const s = new Float64Array(6)
+  const u = displacement ? new Float64Array(3) : null
+  stressInElement(mesh, stress, best.elem, p, s, u, displacement)
   // on the section: the same shape functions and reference coordinates the section's fill and
   // resultant use (sectionDrawing.ts), so the probe reads what the colours show
-  if (!(best.where === 'section' && polygons && sectionStressAt(s, mesh, nodalStressField(mesh, stress), polygons, best.polygon, p))) {
-    stressInElement(mesh, stress, best.elem, p, s)
-  }
+  if (best.where === 'section' && polygons) sectionStressAt(s, mesh, nodalStressField(mesh, stress), polygons, best.polygon, p)
   const pr = new Float64Array(3)
   principalStresses(s, pr)
   const n = best.normal
@@ -189,5 +217,6 @@ export function probeModel(
     traction: [tx, ty, tz],
     normalTraction: tn,
     shearTraction: shear,
+    ...(u ? { displacement: [u[0], u[1], u[2]] as Vec3 } : {}),
   }
 }

@@ -16,8 +16,13 @@ import type { Plane } from '../src/mechanics/plane.ts'
 import type { BodyBalance, LoadPatch, SectionResult } from '../src/mechanics/types.ts'
 import type { SurfaceQuantity, SurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
 import type { ArrowMode } from '../src/mechanics/arrowSampling.ts'
+import type { ComponentAxes } from '../src/mechanics/componentAxes.ts'
+import type { ComponentQuantity, ComponentScalars } from '../src/mechanics/componentScalars.ts'
+import type { EquivalentCriterion, Linearisation } from '../src/mechanics/linearisation.ts'
+import type { ScalarExtremes } from '../src/mechanics/scalarExtremes.ts'
 
 export type { ArrowMode, Plane, SurfaceQuantity, Vec3 }
+export type { ComponentAxes, ComponentQuantity, EquivalentCriterion, Linearisation, ScalarExtremes }
 
 /** Summary of the loaded model (no O(elements) data). */
 export interface ModelSummary {
@@ -86,6 +91,12 @@ export interface ArrowBuffers {
   readonly normals: Float32Array
   readonly magnitudes: Float32Array
   readonly maxMagnitude: number
+  /**
+   * Float32Array(3·A), length units: the displacement the deformed shape moves each arrow's
+   * origin by (the mean over its face's nodes, or its section polygon's vertices); absent
+   * when the model has no displacement.
+   */
+  readonly displacement?: Float32Array
 }
 
 /**
@@ -102,6 +113,8 @@ export interface SectionBuffers {
   readonly shearTraction: Float32Array
   readonly ranges: { readonly normalTraction: readonly [number, number]; readonly shearTraction: readonly [number, number] }
   readonly arrows: ArrowBuffers
+  /** Float32Array(3·V), length units: displacement at each vertex (the deformed shape); absent without displacement. */
+  readonly displacement?: Float32Array
 }
 
 /** Whole-body audit. Figures in model units; `indicator` percentiles dimensionless. */
@@ -144,6 +157,8 @@ export interface ProbeResult {
   readonly traction: Vec3
   readonly normalTraction: number
   readonly shearTraction: number
+  /** Displacement at the point (length units), when the model has it. */
+  readonly displacement?: Vec3
 }
 
 /** A user-facing error (shown by the error card): message plus where, when known. */
@@ -196,6 +211,8 @@ export interface LoadedModel {
   readonly summary: ModelSummary
   readonly surface: SurfaceBuffers
   readonly audit: AuditSummary
+  /** Lines, deformed shape and components (the block at the end of this file); absent from older engines' replies. */
+  readonly extras?: LoadExtras
 }
 
 /** Either a value or a user-facing error; input problems come back as values, not exceptions. */
@@ -218,6 +235,12 @@ export interface ProbeRequest {
   readonly ray: ProbeRay
   /** The section in use (or null); the hidden side cannot be picked. */
   readonly section: { readonly plane: Plane; readonly hide: 'positive' | 'negative' | 'none' } | null
+  /**
+   * Scale of the deformed shape on screen (0 or absent: undeformed). The ray then meets the
+   * surface and the section as drawn, moved by scale × displacement, and the probe reads the
+   * material point under the hit.
+   */
+  readonly deformScale?: number
 }
 
 export type ProgressCallback = (p: Progress) => void
@@ -260,6 +283,12 @@ export interface EngineApi {
   probe(req: ProbeRequest): Promise<ProbeResult | null>
   /** Sections along `normal`; `from`/`to` default to the model's extent along it (length units). */
   sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply>>
+  /** The surface's stress and displacement components in `axes`. */
+  components(axes: ComponentAxes): Promise<Outcome<ComponentBuffers>>
+  /** Values along a line and its linearisation. */
+  line(req: LineRequest): Promise<Outcome<LineReply>>
+  /** The line along from → to moved to where it enters and leaves the material; null when it misses the body. */
+  lineThroughWall(from: Vec3, to: Vec3): Promise<{ readonly from: Vec3; readonly to: Vec3 } | null>
   /**
    * Present only in the end-to-end build (`vite build --mode e2e`): throws an unexpected
    * (non-input) error, or fails an allocation, inside the worker, so the browser tests can check
@@ -272,4 +301,78 @@ export interface EngineApi {
 /** The engine as the app calls it: the same methods, every one asynchronous (comlink's view). */
 export type EngineCalls = {
   readonly [K in keyof EngineApi]: NonNullable<EngineApi[K]> extends (...args: infer A) => infer R ? (...args: A) => Promise<Awaited<R>> : never
+}
+
+// ---------------------------------------------------------------------------------------------
+// Lines, the deformed shape and stress components (one block, so it merges apart from the rest).
+
+/**
+ * What a load adds for the deformed shape, the component quantities and the extremes markers.
+ * - `deformation`: null without displacement; else `surface` Float32Array(3·V) the nodal
+ *   displacement at each surface vertex, `edges` Float32Array(6·S) at the feature-edge ends, and
+ *   `max` the largest |u| over the nodes (length units), for the automatic scale.
+ * - `components`: the component scalars in global axes (src/mechanics/componentScalars.ts).
+ * - `extremes[q]`: smallest and largest value of each surface quantity and the vertex it is at.
+ */
+export interface LoadExtras {
+  readonly deformation: DeformationBuffers | null
+  readonly components: ComponentBuffers
+  readonly extremes: Readonly<Record<SurfaceQuantity, ScalarExtremes>>
+}
+
+export interface DeformationBuffers {
+  readonly surface: Float32Array
+  readonly edges: Float32Array
+  readonly max: number
+}
+
+/**
+ * The surface's component scalars in `axes`: 'sxx' … 'sxz' stress components ([rr, θθ, zz, rθ,
+ * θz, rz] in cylindrical axes), 'ux' 'uy' 'uz' displacement components and 'displacement' its
+ * magnitude when present; Float32Array(V) each, with ranges and extremes.
+ */
+export type ComponentBuffers = ComponentScalars
+
+/**
+ * A line through the model: `points` samples from `from` to `to` (both included, ≥ 2),
+ * `criterion` of the linearised equivalent stresses, `axes` of the components (and of the
+ * linearisation frame: cylindrical axes give the hoop/meridional frame).
+ */
+export interface LineRequest {
+  readonly from: Vec3
+  readonly to: Vec3
+  readonly points: number
+  readonly criterion: EquivalentCriterion
+  readonly axes: ComponentAxes
+}
+
+/**
+ * Values along the line (P points), model units; every per-point value is NaN where the point
+ * lies outside the body (`held[i]` = 0):
+ * - `points` Float64Array(3P), `distance` Float64Array(P) from `from`;
+ * - `stress` Float64Array(6P) global axes; `components` Float64Array(6P) in `axes`;
+ * - `vonMises` Float64Array(P); `principal` Float64Array(3P) σ1 ≥ σ2 ≥ σ3;
+ * - `displacement`, `displacementComponents` Float64Array(3P) or null without displacement;
+ * - `linearisation` (src/mechanics/linearisation.ts) or null with the reason in `refused`;
+ * - `warnings` about the ends; `outside` true when no point lies in the body.
+ */
+export interface LineReply {
+  readonly from: Vec3
+  readonly to: Vec3
+  readonly length: number
+  readonly axes: ComponentAxes
+  readonly criterion: EquivalentCriterion
+  readonly points: Float64Array
+  readonly distance: Float64Array
+  readonly stress: Float64Array
+  readonly components: Float64Array
+  readonly vonMises: Float64Array
+  readonly principal: Float64Array
+  readonly displacement: Float64Array | null
+  readonly displacementComponents: Float64Array | null
+  readonly held: Uint8Array
+  readonly linearisation: Linearisation | null
+  readonly refused: string | null
+  readonly warnings: readonly string[]
+  readonly outside: boolean
 }

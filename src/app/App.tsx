@@ -17,6 +17,8 @@ import { ColourCard } from './cards/ColourCard.tsx'
 import { SnapshotCard } from './cards/SnapshotCard.tsx'
 import { SweepCard } from './cards/SweepCard.tsx'
 import { ModelCard } from './cards/ModelCard.tsx'
+import { LineCard } from './cards/LineCard.tsx'
+import { DeformationCard } from './cards/DeformationCard.tsx'
 import { SceneView } from './SceneView.tsx'
 
 export function App() {
@@ -47,7 +49,9 @@ export function App() {
         <EquilibriumCard />
         <LoadEntryCard />
         <ProbeCard />
+        <LineCard />
         <ColourCard />
+        <DeformationCard />
         <SnapshotCard />
       </aside>
       <footer className="bottom">

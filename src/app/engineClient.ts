@@ -24,11 +24,12 @@ import type { StoreApi } from 'zustand'
 import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { Vec3 } from '../model/model.ts'
-import { sectionPlaneOf } from '../state/selectors.ts'
+import { deformScaleOf, sectionPlaneOf } from '../state/selectors.ts'
 import type { TractusState } from '../state/store.ts'
 import type {
   AppError, ComputeOptions, CutReply, EngineCalls, EngineFile, LoadedModel, ModelSource, Outcome, Progress, SweepReply, SyntheticSpec,
 } from '../../workers/protocol.ts'
+import type { ComponentAxes } from '../../workers/protocol.ts'
 
 /** Where a model comes from, in a form that can be loaded again after a restart. */
 export type AppSource =
@@ -117,6 +118,13 @@ function failureMessage(e: unknown, during: string): string {
     : `The engine failed ${during}: ${message}. The previous model is kept.`
 }
 
+/** Same component axes (kind, point and direction). */
+function sameAxes(a: ComponentAxes | null, b: ComponentAxes): boolean {
+  if (!a || a.kind !== b.kind) return false
+  if (a.kind === 'global' || b.kind === 'global') return true
+  return a.origin.every((v, k) => v === b.origin[k]) && a.axis.every((v, k) => v === b.axis[k])
+}
+
 function cutKey(plane: { point: readonly number[]; normal: readonly number[] }, mode: string, budget: number): string {
   return `${plane.point.join(',')}|${plane.normal.join(',')}|${mode}|${budget}`
 }
@@ -162,6 +170,9 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
 
   function restart(): void {
     generation++
+    lineInFlight = false
+    lineAgain = false
+    componentsInFlight = false
     handle?.terminate()
     handle = null
     queue = Promise.resolve()
@@ -213,6 +224,8 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       afterLoad?.(source)
       void refreshSurfaceArrows()
       requestCut()
+      // The load brings the components in global axes; other axes chosen before are asked for.
+      runComponents()
       return true
     } catch (e) {
       if (gen !== generation) return false
@@ -322,8 +335,14 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     probeInFlight = true
     const gen = generation
     const section = st.section.enabled ? { plane: sectionPlaneOf(st.section), hide: st.section.hide } : null
-    enqueue((calls) => calls.probe({ ray, section }))
-      .then((r) => { if (gen === generation) store.getState().probeShown(r) })
+    const deformScale = deformScaleOf(st)
+    enqueue((calls) => calls.probe({ ray, section, deformScale }))
+      .then((r) => {
+        if (gen !== generation) return
+        const now = store.getState()
+        // While a line is being picked, a click sets its next end instead of probing.
+        if (now.linePicking !== 'off') { if (r) now.linePointPicked(r.position) } else now.probeShown(r)
+      })
       .catch(() => undefined)
       .finally(() => {
         if (gen !== generation) return
@@ -332,8 +351,60 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       })
   }
 
+  // ---- Lines and stress components: the latest request wins, as for the probe. ----
+  let lineInFlight = false, lineAgain = false, componentsInFlight = false
+
+  /** Asks for the values along the store's line (when both ends are set). */
+  function runLine(): void {
+    const st = store.getState()
+    const { from, to, points, criterion } = st.line
+    if (!st.model || !from || !to) return
+    if (lineInFlight) { lineAgain = true; return }
+    lineInFlight = true
+    const gen = generation
+    st.lineStarted()
+    enqueue((calls) => calls.line({ from, to, points, criterion, axes: st.componentAxes }))
+      .then((out) => {
+        if (gen !== generation) return
+        if (out.ok) store.getState().lineEnded(out.value)
+        else store.getState().lineEnded(null, out.error.message)
+      })
+      .catch((e) => { if (gen === generation) store.getState().lineEnded(null, `The line could not be computed: ${e instanceof Error ? e.message : String(e)}`) })
+      .finally(() => {
+        if (gen !== generation) return
+        lineInFlight = false
+        if (lineAgain) { lineAgain = false; runLine() }
+      })
+  }
+
+  /** Asks for the surface components in the store's axes (unless they are on screen). */
+  function runComponents(): void {
+    const st = store.getState()
+    if (!st.model || componentsInFlight) return
+    const axes = st.componentAxes
+    // Global axes come with every load: nothing to ask for (an engine without them has none).
+    if (st.components ? sameAxes(st.components.axes, axes) : axes.kind === 'global') return
+    componentsInFlight = true
+    const gen = generation
+    enqueue((calls) => calls.components(axes))
+      .then((out) => {
+        if (gen !== generation) return
+        if (out.ok) store.getState().componentsShown(out.value)
+        else store.getState().showError(out.error)
+      })
+      .catch(() => undefined)
+      .finally(() => {
+        if (gen !== generation) return
+        componentsInFlight = false
+        // The axes may have changed again meanwhile (a failed request is not repeated).
+        if (store.getState().componentAxes !== axes) runComponents()
+      })
+  }
+
   function watch(): () => void {
     return store.subscribe((s, p) => {
+      if (s.componentAxes !== p.componentAxes) runComponents()
+      if (s.line !== p.line || (s.componentAxes !== p.componentAxes && s.line.from && s.line.to)) runLine()
       if (s.section !== p.section) {
         const a = s.section, b = p.section
         if (a.dragging && !b.dragging) dragStarted()

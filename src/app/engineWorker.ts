@@ -26,6 +26,9 @@ export function startEngineWorker(onFailure: (message: string) => void): EngineC
     cut: (plane, arrows) => remote.cut(plane, arrows),
     probe: (req) => remote.probe(req),
     sweep: (normal, count, from, to) => remote.sweep(normal, count, from, to),
+    components: (axes) => remote.components(axes),
+    line: (req) => remote.line(req),
+    lineThroughWall: (from, to) => remote.lineThroughWall(from, to),
     dispose: () => remote.dispose(),
     // The end-to-end build only; the release build drops it (see workers/engine.worker.ts).
     ...(import.meta.env.MODE === 'e2e' ? { crash: (kind: CrashKind) => remote.crash(kind) } : {}),

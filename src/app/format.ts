@@ -6,6 +6,7 @@
 import { displayFactor, displayUnitLabel } from '../model/units.ts'
 import type { ModelUnits, Quantity, UnitSystem } from '../model/units.ts'
 import type { QuantityName } from '../state/store.ts'
+import type { ComponentAxes } from '../../workers/protocol.ts'
 
 export function formatNumber(v: number, digits = 4): string {
   if (!Number.isFinite(v)) return Number.isNaN(v) ? '—' : v > 0 ? '∞' : '−∞'
@@ -36,11 +37,37 @@ export const QUANTITY_LABEL: Readonly<Record<QuantityName, string>> = {
   principal1: 'Principal stress σ₁',
   principal3: 'Principal stress σ₃',
   balanceIndicator: 'Element balance indicator',
+  // Components in global axes (quantityLabel names them in cylindrical axes).
+  sxx: 'Stress σxx', syy: 'Stress σyy', szz: 'Stress σzz', sxy: 'Shear stress τxy', syz: 'Shear stress τyz', sxz: 'Shear stress τxz',
+  displacement: 'Displacement |u|', ux: 'Displacement ux', uy: 'Displacement uy', uz: 'Displacement uz',
 }
 
-/** Physical kind of a colour quantity: a stress, or dimensionless. */
+/** The components' names in cylindrical axes about a line (r radial, θ hoop, z along the axis). */
+const CYLINDRICAL_LABEL: Readonly<Partial<Record<QuantityName, string>>> = {
+  sxx: 'Radial stress σrr', syy: 'Hoop stress σθθ', szz: 'Axial stress σzz',
+  sxy: 'Shear stress τrθ', syz: 'Shear stress τθz', sxz: 'Shear stress τrz',
+  ux: 'Radial displacement ur', uy: 'Hoop displacement uθ', uz: 'Axial displacement uz',
+}
+
+/** The label of a colour quantity in the axes its components are shown in. */
+export function quantityLabel(q: QuantityName, axes: ComponentAxes): string {
+  return (axes.kind === 'cylindrical' ? CYLINDRICAL_LABEL[q] : undefined) ?? QUANTITY_LABEL[q]
+}
+
+/** Short symbols of the six stress components ([xx, yy, zz, xy, yz, xz] order) in the axes. */
+export function componentSymbols(axes: ComponentAxes): readonly string[] {
+  return axes.kind === 'cylindrical' ? ['σrr', 'σθθ', 'σzz', 'τrθ', 'τθz', 'τrz'] : ['σxx', 'σyy', 'σzz', 'τxy', 'τyz', 'τxz']
+}
+
+/** Short symbols of the displacement components in the axes. */
+export function displacementSymbols(axes: ComponentAxes): readonly string[] {
+  return axes.kind === 'cylindrical' ? ['ur', 'uθ', 'uz'] : ['ux', 'uy', 'uz']
+}
+
+/** Physical kind of a colour quantity: a stress, a length (displacement), or dimensionless. */
 export function quantityKind(q: QuantityName): Quantity | null {
-  return q === 'balanceIndicator' ? null : 'stress'
+  if (q === 'balanceIndicator') return null
+  return q === 'displacement' || q === 'ux' || q === 'uy' || q === 'uz' ? 'length' : 'stress'
 }
 
 /** Display factor and label for a colour quantity. */

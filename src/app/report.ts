@@ -31,6 +31,7 @@ export async function buildReportHtml(): Promise<string> {
   const content = buildReportContent({
     model: st.model, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
     section: st.section.enabled ? st.sectionResult : null, sweep: st.sweep, shown: st.sweepShown, snapshot,
+    line: st.lineResult, lineShown: st.lineSeries,
   })
   return renderReport(content)
 }

@@ -11,6 +11,10 @@ import type { DiagramGeometry } from './diagramGeometry.ts'
 import { patchRow, sectionRows } from './exports.ts'
 import { convert, formatNumber } from './format.ts'
 import type { AuditSummary, ModelSummary, SeriesKey, SweepReply } from '../../workers/protocol.ts'
+import type { LineReply } from '../../workers/protocol.ts'
+import type { LineSeries } from '../state/lineSlice.ts'
+import { frameNote, linearisationTables, linePointTable, lineSeries, lineSeriesValues } from './lineExport.ts'
+import { LINEARISATION_CAUTION, LINEARISATION_METHOD } from '../mechanics/linearisation.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
 
 export interface ReportTable {
@@ -62,6 +66,9 @@ export interface ReportInput {
   readonly shown: Readonly<Record<SeriesKey, boolean>>
   /** PNG snapshot of the view as a data URL, or null. */
   readonly snapshot: string | null
+  // A line through the model (its values and linearisation) and the series its chart shows.
+  readonly line?: LineReply | null
+  readonly lineShown?: Readonly<Record<LineSeries, boolean>>
 }
 
 const PNG_DATA_URL = /^data:image\/png;base64,[A-Za-z0-9+/]+=*$/
@@ -165,6 +172,55 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
   return blocks
 }
 
+/** The line through the model: its diagram, its linearisation and the table of its points. */
+function lineBlocks(r: LineReply, input: ReportInput): ReportBlock[] {
+  const { units } = input.model, sys = input.system
+  const L = displayUnitLabel('length', sys), S = displayUnitLabel('stress', sys)
+  const f = (v: number): number => convert(v, units, 'length', sys)
+  const ends = `from ${vec(r.from.map(f))} to ${vec(r.to.map(f))} ${L}`
+  const blocks: ReportBlock[] = []
+  if (r.outside) {
+    return [{ kind: 'table', id: 'line', heading: 'Line through the model', note: `The line ${ends} lies wholly outside the body.`, head: [], rows: [] }]
+  }
+  const x = Float64Array.from(r.distance, f)
+  const shown = input.lineShown
+  const defs = lineSeries(r.axes).filter((d) => d.quantity === 'stress' && (!shown || shown[d.key]))
+  const lines = (defs.length ? defs : lineSeries(r.axes).filter((d) => d.key === 'vonMises')).map((d) => ({
+    label: d.label, colour: d.colour, values: Float64Array.from(lineSeriesValues(r, d.key), (v) => convert(v, units, 'stress', sys)),
+  }))
+  const M = { left: 64, right: 12, top: 10, bottom: 28 }
+  blocks.push({
+    kind: 'diagram', id: 'diagram-line', heading: 'Stress along the line',
+    xLabel: `Distance along the line ${ends} [${L}]`, yLabel: `Stress [${S}]`,
+    geometry: diagramGeometry(x, lines, 720, 240, M, [0, f(r.length)]),
+  })
+  const l = r.linearisation
+  if (l) {
+    const t = linearisationTables(l, units, sys)
+    blocks.push({
+      kind: 'table', id: 'linearisation', heading: 'Through-thickness linearisation',
+      note: `${LINEARISATION_METHOD}. Wall thickness along the line ${t.thickness}; ${t.criterion} equivalent stress. Frame: ${frameNote(l)}. ${r.warnings.join(' ')} ${LINEARISATION_CAUTION}`.replace(/\s+/g, ' ').trim(),
+      head: ['Part', `At the start [${S}]`, `At the end [${S}]`],
+      rows: t.equivalents.map((row) => [...row]),
+    })
+    blocks.push({
+      kind: 'table', id: 'linearisation-components', heading: 'Linearised components in the line\'s frame',
+      note: 'Bending only for σ₂₂ and σ₃₃ (Annex 5-A); at the end it is the negative of the value at the start.',
+      head: ['Component', `Membrane [${S}]`, `Bending at the start [${S}]`],
+      rows: t.components.map((row) => [...row]),
+    })
+  } else {
+    blocks.push({ kind: 'table', id: 'linearisation', heading: 'Through-thickness linearisation', note: `Not linearised: ${r.refused ?? 'no reason given'}.`, head: [], rows: [] })
+  }
+  const p = linePointTable(r, units, sys)
+  blocks.push({
+    kind: 'table', id: 'line', heading: 'Points along the line',
+    note: `${r.held.length} points ${ends}; components in ${r.axes.kind === 'cylindrical' ? 'cylindrical axes r, θ, z' : 'global axes'}; points outside the body are marked.`,
+    head: p.head, rows: p.rows,
+  })
+  return blocks
+}
+
 export function buildReportContent(input: ReportInput): ReportContent {
   const m = input.model
   const sys = input.system
@@ -188,5 +244,6 @@ export function buildReportContent(input: ReportInput): ReportContent {
   }
   if (input.section) blocks.push(sectionTable(input.section, input))
   if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))
+  if (input.line) blocks.push(...lineBlocks(input.line, input))
   return { title: `Review report: ${m.name || 'Unnamed model'}`, facts, caution: input.caution, blocks }
 }

@@ -7,7 +7,7 @@
 import { CAUTION } from './caution.ts'
 import { colourMapTable } from '../scene/colourMaps.ts'
 import { sectionRows } from './exports.ts'
-import { formatNumber, QUANTITY_LABEL, quantityDisplay } from './format.ts'
+import { formatNumber, QUANTITY_LABEL, quantityDisplay, quantityLabel } from './format.ts'
 import { snapshotLayout } from './snapshotLayout.ts'
 import { activeRange, sectionPlaneOf } from '../state/selectors.ts'
 import type { ColourMapName, TractusState } from '../state/store.ts'
@@ -48,7 +48,7 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   // Title block, top left.
   const lines = [
     m ? m.name || 'Unnamed model' : 'No model',
-    `${QUANTITY_LABEL[st.quantity]} [${unit}] · units ${st.units === 'SI' ? 'SI' : 'US customary'}`,
+    `${quantityLabel(st.quantity, st.componentAxes)} [${unit}] · units ${st.units === 'SI' ? 'SI' : 'US customary'}`,
     new Date().toISOString().replace('T', ' ').slice(0, 16) + ' UTC',
   ]
   g.font = px(13)
@@ -111,7 +111,7 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   g.fillStyle = '#1d2329'
   g.font = px(12)
   g.textAlign = 'center'
-  g.fillText(`${QUANTITY_LABEL[st.quantity]} [${unit}]`, w / 2, L.footer.y + Math.round(3 * s))
+  g.fillText(`${quantityLabel(st.quantity, st.componentAxes)} [${unit}]`, w / 2, L.footer.y + Math.round(3 * s))
   drawGradient(g, st.colourMap, L.bar.x, L.bar.y, L.bar.w, L.bar.h, s)
   g.font = px(11)
   const ticks = 5

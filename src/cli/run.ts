@@ -15,10 +15,11 @@ import { partsCommand } from './parts.ts'
 import { cutCommand } from './cut.ts'
 import { sweepCommand } from './sweep.ts'
 import { convertCommand } from './convert.ts'
+import { lineCommand } from './line.ts'
 
 export type { CliIO } from './command.ts'
 
-export const COMMANDS: readonly Command[] = [infoCommand, auditCommand, cutCommand, sweepCommand, convertCommand, partsCommand]
+export const COMMANDS: readonly Command[] = [infoCommand, auditCommand, cutCommand, sweepCommand, lineCommand, convertCommand, partsCommand]
 
 export const EXIT = { ok: 0, usage: 1, input: 2, internal: 3 } as const
 

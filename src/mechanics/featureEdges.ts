@@ -6,6 +6,8 @@
  *
  * Record: `segments` Float32Array(6·S), the two end points of each line segment, model length
  * units; a quadratic face's edge is drawn as two segments through its mid node. `count` = S.
+ * `nodes` Int32Array(2·S): the node of each end point (the deformed shape moves them by their
+ * displacement).
  *
  * Edges are matched by their corner nodes in an open-addressing table of typed arrays: linear in
  * the number of faces, no per-face allocation.
@@ -16,6 +18,7 @@ import type { BoundaryFaces } from './types.ts'
 export interface FeatureEdges {
   readonly count: number
   readonly segments: Float32Array
+  readonly nodes: Int32Array
 }
 
 /** Corners per face kind code, and whether the kind has mid-edge nodes (from the element registry). */
@@ -68,8 +71,10 @@ export function buildFeatureEdges(coords: Float64Array, faces: BoundaryFaces, cr
     count += QUADRATIC[kind[firstFace[h]]] ? 2 : 1
   }
   const segments = new Float32Array(6 * count)
+  const ends = new Int32Array(2 * count)
   let s = 0
   const put = (i: number, j: number): void => {
+    ends[2 * s] = i; ends[2 * s + 1] = j
     segments[6 * s] = coords[3 * i]; segments[6 * s + 1] = coords[3 * i + 1]; segments[6 * s + 2] = coords[3 * i + 2]
     segments[6 * s + 3] = coords[3 * j]; segments[6 * s + 4] = coords[3 * j + 1]; segments[6 * s + 5] = coords[3 * j + 2]
     s++
@@ -83,5 +88,5 @@ export function buildFeatureEdges(coords: Float64Array, faces: BoundaryFaces, cr
       put(p, m); put(m, q)
     } else put(p, q)
   }
-  return { count, segments }
+  return { count, segments, nodes: ends }
 }

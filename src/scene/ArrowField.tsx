@@ -18,12 +18,14 @@ export interface ArrowFieldProps {
   readonly colourMap: ColourMapName
   readonly colour: 'magnitude' | 'single'
   readonly clippingPlanes: Plane[]
+  /** Scale of the deformed shape (0: undeformed). */
+  readonly deformScale?: number
 }
 
 const noRaycast = (): void => {}
 
 /** Traction arrows as one instanced mesh: one draw call whatever the count. */
-export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippingPlanes }: ArrowFieldProps) {
+export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippingPlanes, deformScale = 0 }: ArrowFieldProps) {
   const invalidate = useThree((s) => s.invalidate)
   const count = arrows.magnitudes.length
   const material = useMemo(() => createArrowMaterial(clippingPlanes), [clippingPlanes])
@@ -42,10 +44,10 @@ export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippin
 
   useEffect(() => {
     const unit = ARROW_LENGTH_FRACTION * scale * diagonal
-    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, colour === 'magnitude')
+    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, colour === 'magnitude', deformScale)
     material.uniforms.useSingle.value = colour === 'single' ? 1 : 0
     invalidate()
-  }, [mesh, material, arrows, scale, diagonal, colourMap, colour, invalidate])
+  }, [mesh, material, arrows, scale, diagonal, colourMap, colour, deformScale, invalidate])
 
   if (count === 0) return null
   return <primitive object={mesh} />

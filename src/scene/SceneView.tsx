@@ -1,6 +1,12 @@
 import { useMemo } from 'react'
-import { activeRange, modelSphere, sectionPlaneOf } from '../state/selectors.ts'
+import { activeRange, deformScaleOf, modelSphere, quantityExtremes, quantityScalars, sectionPlaneOf } from '../state/selectors.ts'
 import { useStore } from '../state/store.ts'
+import type { QuantityName } from '../state/store.ts'
+import type { Vec3 } from '../../workers/protocol.ts'
+import { ExtremeMarkers } from './ExtremeMarkers.tsx'
+import type { ExtremeMark } from './ExtremeMarkers.tsx'
+import { LineOverlay } from './LineOverlay.tsx'
+import { EDGE } from './sceneLook.ts'
 import { ArrowField } from './ArrowField.tsx'
 import { CameraRig } from './CameraRig.tsx'
 import { FeatureEdges } from './FeatureEdges.tsx'
@@ -20,11 +26,30 @@ function useModelSphere(): { center: [number, number, number]; radius: number; d
   return useMemo(() => (model ? modelSphere(model.bounds) : null), [model])
 }
 
+/** Text of an extremes label: the app writes it (value and unit in the chosen system). */
+export type ExtremeLabel = (kind: 'max' | 'min', value: number, quantity: QuantityName) => string
+
 /** Everything inside the canvas; reads the store, holds no state of its own. */
-function SceneContents() {
+function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
   const model = useStore((s) => s.model)
   const surface = useStore((s) => s.surface)
   const quantity = useStore((s) => s.quantity)
+  const scalars = useStore(quantityScalars)
+  // Lines, the deformed shape and the extremes markers.
+  const deformScale = useStore(deformScaleOf)
+  const deformation = useStore((s) => s.deformation)
+  const deformationBuffers = useStore((s) => s.deformationBuffers)
+  const line = useStore((s) => s.line)
+  const lineResult = useStore((s) => s.lineResult)
+  const extremesShown = useStore((s) => s.extremesShown)
+  const extremes = useStore(quantityExtremes)
+  // The labels carry units: a change of unit system writes them again.
+  const unitSystem = useStore((s) => s.units)
+  const marks = useMemo(
+    () => (surface && extremesShown && extremes && extremeLabel ? extremeMarks(surface.positions, deformationBuffers?.surface ?? null, deformScale, extremes, quantity, extremeLabel) : null),
+    // unitSystem: the label's text depends on it through extremeLabel.
+    [surface, extremesShown, extremes, extremeLabel, deformationBuffers, deformScale, quantity, unitSystem],
+  )
   // Select numbers, not fresh arrays: a selector returning a new array each call never settles.
   const rangeLo = useStore((s) => activeRange(s)[0])
   const rangeHi = useStore((s) => activeRange(s)[1])
@@ -67,34 +92,61 @@ function SceneContents() {
       <SnapshotRegistrar />
       {surface && model && (
         <SurfaceMesh
-          surface={surface} quantity={quantity} range={range} colourMap={colourMap}
+          surface={surface} scalars={scalars} displacement={deformationBuffers?.surface ?? null} deformScale={deformScale} range={range} colourMap={colourMap}
           highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds}
           clipped={section.enabled && section.hide !== 'none' && !faceCoversCut}
         />
       )}
-      {edges && model && <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} />}
+      {edges && model && (
+        <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} displacement={deformationBuffers?.edges ?? null} deformScale={deformScale} />
+      )}
+      {edges && model && deformScale !== 0 && deformation.outline && (
+        <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} colour={EDGE} opacity={0.25} />
+      )}
       {arrows && sphere && arrowSettings.surface && (
         <ArrowField
           arrows={arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
-          colourMap={colourMap} colour={arrowSettings.colour} clippingPlanes={clippingPlanes}
+          colourMap={colourMap} colour={arrowSettings.colour} clippingPlanes={clippingPlanes} deformScale={deformScale}
         />
       )}
       {section.enabled && sectionBuffers && (
-        <SectionFill buffers={sectionBuffers} traction={section.traction} range={sectionRange} colourMap={sectionMap} normal={normal} />
+        <SectionFill buffers={sectionBuffers} traction={section.traction} range={sectionRange} colourMap={sectionMap} normal={normal} deformScale={deformScale} />
       )}
       {section.enabled && sectionBuffers && sphere && arrowSettings.section && (
         <ArrowField
           arrows={sectionBuffers.arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
-          colourMap={sectionMap} colour={arrowSettings.colour} clippingPlanes={NO_PLANES}
+          colourMap={sectionMap} colour={arrowSettings.colour} clippingPlanes={NO_PLANES} deformScale={deformScale}
         />
       )}
-      {probe && sphere && <ProbeMarker position={probe.position} radius={0.006 * sphere.diagonal} />}
+      {probe && sphere && <ProbeMarker position={moved(probe.position, probe.displacement, deformScale)} radius={0.006 * sphere.diagonal} />}
+      {sphere && (line.from || lineResult) && (
+        <LineOverlay reply={lineResult} from={line.from} to={line.to} deformScale={deformScale} radius={0.005 * sphere.diagonal} />
+      )}
+      {sphere && marks && <ExtremeMarkers marks={marks} radius={0.008 * sphere.diagonal} frameRadius={0.08 * sphere.diagonal} />}
       {section.enabled && sphere && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} cut={cut} />}
     </>
   )
 }
 
 const NO_PLANES: never[] = []
+
+/** A point moved by scale × displacement (the deformed shape); as given without displacement. */
+function moved(p: Vec3, u: Vec3 | undefined, scale: number): Vec3 {
+  return u && scale ? [p[0] + scale * u[0], p[1] + scale * u[1], p[2] + scale * u[2]] : p
+}
+
+/** The markers of the largest and smallest value, at their surface vertices as drawn. */
+function extremeMarks(
+  positions: Float32Array, displacement: Float32Array | null, scale: number,
+  x: { max: number; maxIndex: number; min: number; minIndex: number }, quantity: QuantityName, label: ExtremeLabel,
+): ExtremeMark[] {
+  const at = (v: number): Vec3 => [0, 1, 2].map((k) => positions[3 * v + k] + (displacement && scale ? scale * displacement[3 * v + k] : 0)) as Vec3
+  if (x.maxIndex < 0 || x.minIndex < 0) return []
+  return [
+    { kind: 'max', position: at(x.maxIndex), label: label('max', x.max, quantity) },
+    { kind: 'min', position: at(x.minIndex), label: label('min', x.min, quantity) },
+  ]
+}
 
 type PlaneLike = { readonly point: readonly number[]; readonly normal: readonly number[] }
 
@@ -106,11 +158,11 @@ function samePlane(a: PlaneLike, b: PlaneLike, size: number): boolean {
   return Math.abs(shift) <= tol && Math.abs(m[0] - n[0]) + Math.abs(m[1] - n[1]) + Math.abs(m[2] - n[2]) <= 1e-9
 }
 
-/** The 3D view of Tractus: fills its positioned parent. */
-export function SceneView() {
+/** The 3D view of Tractus: fills its positioned parent. `extremeLabel` writes the extremes labels. */
+export function SceneView({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
   return (
     <SceneCanvas>
-      <SceneContents />
+      <SceneContents extremeLabel={extremeLabel} />
     </SceneCanvas>
   )
 }

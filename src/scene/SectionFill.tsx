@@ -13,17 +13,23 @@ export interface SectionFillProps {
   readonly colourMap: ColourMapName
   /** Unit section normal m (world = model coordinates). */
   readonly normal: readonly [number, number, number]
+  /** Scale of the deformed shape (0: undeformed); the face moves by it times buffers.displacement. */
+  readonly deformScale?: number
 }
 
 const noRaycast = (): void => {}
 
-/** The cut face, colour-mapped by the section's normal traction m·σm or shear magnitude. */
-export function SectionFill({ buffers, traction, range, colourMap, normal }: SectionFillProps) {
+/**
+ * The cut face, colour-mapped by the section's normal traction m·σm or shear magnitude; with the
+ * deformed shape it moves with the material (the displacement at its vertices comes from the worker).
+ */
+export function SectionFill({ buffers, traction, range, colourMap, normal, deformScale = 0 }: SectionFillProps) {
   const invalidate = useThree((s) => s.invalidate)
   const { geometry, normalAttr, shearAttr } = useMemo(() => {
     const g = new BufferGeometry()
     g.setAttribute('position', new BufferAttribute(buffers.positions, 3))
     g.setIndex(new BufferAttribute(buffers.index, 1))
+    if (buffers.displacement && buffers.displacement.length === buffers.positions.length) g.setAttribute('displacement', new BufferAttribute(buffers.displacement, 3))
     return { geometry: g, normalAttr: new BufferAttribute(buffers.normalTraction, 1), shearAttr: new BufferAttribute(buffers.shearTraction, 1) }
   }, [buffers])
   useEffect(() => () => {
@@ -52,9 +58,12 @@ export function SectionFill({ buffers, traction, range, colourMap, normal }: Sec
     const u = material.uniforms
     u.map.value = colourMapTexture(colourMap)
     u.range.value.set(range[0], range[1])
+    // A deformed section face is not flat: it takes its vertex normals (the plane's, as given) then.
+    const deformed = buffers.displacement !== undefined && deformScale !== 0
     u.flatNormal.value.set(normal[0], normal[1], normal[2], 1)
+    u.deformScale.value = deformed ? deformScale : 0
     invalidate()
-  }, [material, colourMap, range, normal, invalidate])
+  }, [material, colourMap, range, normal, buffers, deformScale, invalidate])
 
   return <mesh geometry={geometry} material={material} raycast={noRaycast} frustumCulled={false} />
 }

@@ -2,7 +2,6 @@ import { useEffect, useMemo } from 'react'
 import { BackSide, BufferAttribute, BufferGeometry, FrontSide, Sphere, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { SurfaceBuffers } from '../../workers/protocol.ts'
-import type { QuantityName } from '../state/store.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
 import { createScalarMaterial } from './scalarMaterial.ts'
 import type { ColourMapName } from '../state/store.ts'
@@ -10,7 +9,11 @@ import type { Plane } from 'three'
 
 export interface SurfaceMeshProps {
   readonly surface: SurfaceBuffers
-  readonly quantity: QuantityName
+  /** The current quantity's value per vertex (surface buffers or component scalars); null paints neutral. */
+  readonly scalars: Float32Array | null
+  /** Nodal displacement per vertex (3 per vertex), or null; drawn moved by deformScale times it. */
+  readonly displacement: Float32Array | null
+  readonly deformScale: number
   /** Colour range [min, max] in the quantity's model units. */
   readonly range: readonly [number, number]
   readonly colourMap: ColourMapName
@@ -33,7 +36,7 @@ const noRaycast = (): void => {}
  * The boundary surface, colour-mapped by one scalar per vertex. The geometry is built once per
  * buffer set; quantity, range, map and highlight only swap an attribute or set a uniform.
  */
-export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPatch, clippingPlanes, clipped, bounds }: SurfaceMeshProps) {
+export function SurfaceMesh({ surface, scalars, displacement, deformScale, range, colourMap, highlightedPatch, clippingPlanes, clipped, bounds }: SurfaceMeshProps) {
   const invalidate = useThree((s) => s.invalidate)
 
   const { geometry, scalarAttributes } = useMemo(() => {
@@ -46,14 +49,15 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
     const c = new Vector3((bounds.min[0] + bounds.max[0]) / 2, (bounds.min[1] + bounds.max[1]) / 2, (bounds.min[2] + bounds.max[2]) / 2)
     const r = 0.5 * Math.hypot(bounds.max[0] - bounds.min[0], bounds.max[1] - bounds.min[1], bounds.max[2] - bounds.min[2])
     g.boundingSphere = new Sphere(c, r)
-    // One attribute object per quantity, created lazily; three uploads each once.
-    return { geometry: g, scalarAttributes: new Map<QuantityName, BufferAttribute>() }
+    // One attribute object per scalar array, created lazily; three uploads each once.
+    return { geometry: g, scalarAttributes: new Map<Float32Array, BufferAttribute>() }
   }, [surface, bounds])
 
   useEffect(() => () => {
     // three frees only the attributes attached at dispose time; attach every scalar buffer
     // uploaded for this geometry so none stays behind on the GPU.
-    for (const [q, attr] of scalarAttributes) geometry.setAttribute('scalar_' + q, attr)
+    let k = 0
+    for (const attr of scalarAttributes.values()) geometry.setAttribute('scalar_' + k++, attr)
     geometry.dispose()
   }, [geometry, scalarAttributes])
 
@@ -65,14 +69,23 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
   useEffect(() => () => material.dispose(), [material])
 
   useEffect(() => {
-    let attr = scalarAttributes.get(quantity)
-    if (!attr) {
-      attr = new BufferAttribute(surface.scalars[quantity], 1)
-      scalarAttributes.set(quantity, attr)
+    // No values (a component quantity before its buffers arrive): NaN paints neutral.
+    const values = scalars && scalars.length === surface.positions.length / 3 ? scalars : null
+    let attr = values ? scalarAttributes.get(values) : undefined
+    if (values && !attr) {
+      attr = new BufferAttribute(values, 1)
+      scalarAttributes.set(values, attr)
     }
-    geometry.setAttribute('scalar', attr)
+    geometry.setAttribute('scalar', attr ?? new BufferAttribute(new Float32Array(surface.positions.length / 3).fill(NaN), 1))
     invalidate()
-  }, [geometry, scalarAttributes, surface, quantity, invalidate])
+  }, [geometry, scalarAttributes, surface, scalars, invalidate])
+
+  // The deformed shape: the displacement attribute (three frees it with the geometry).
+  useEffect(() => {
+    if (displacement && displacement.length === surface.positions.length) geometry.setAttribute('displacement', new BufferAttribute(displacement, 3))
+    else geometry.deleteAttribute('displacement')
+    invalidate()
+  }, [geometry, surface, displacement, invalidate])
 
   // The inside seen through the cut: a second pass over the same geometry, back faces only,
   // pushed further back in depth so front faces always win along silhouette edges.
@@ -90,8 +103,11 @@ export function SurfaceMesh({ surface, quantity, range, colourMap, highlightedPa
     u.map.value = colourMapTexture(colourMap)
     u.range.value.set(range[0], range[1])
     u.highlight.value = highlightedPatch
+    const s = displacement ? deformScale : 0
+    u.deformScale.value = s
+    backMaterial.uniforms.deformScale.value = s
     invalidate()
-  }, [material, colourMap, range, highlightedPatch, invalidate])
+  }, [material, backMaterial, colourMap, range, highlightedPatch, displacement, deformScale, invalidate])
 
   // The first draw of each surface leaves a User Timing mark (the browser tests time the first picture by it).
   const markFirstDraw = useMemo(() => {

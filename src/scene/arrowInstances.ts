@@ -17,16 +17,18 @@ const Y = new Vector3(0, 1, 0)
  * Writes instance matrices (and colours) of `mesh` from the arrow buffers. `unitLength` is the
  * drawn length of the largest arrow (model length units). An arrow pushing on the surface
  * (v·n < 0, n the outward normal when the buffers carry `normals`) is drawn ending at its point,
- * so it stays outside the body; a pulling one starts there. Bounded by the arrow budget, so
- * running this on the main thread is fine.
+ * so it stays outside the body; a pulling one starts there. With the deformed shape (`deformScale`
+ * > 0 and the buffers' `displacement`) every origin moves by deformScale times its displacement.
+ * Bounded by the arrow budget, so running this on the main thread is fine.
  */
 export function writeArrowInstances(
   mesh: InstancedMesh, arrows: ArrowBuffers, unitLength: number, radius: number,
-  colourMap: ColourMapName, colourByMagnitude: boolean,
+  colourMap: ColourMapName, colourByMagnitude: boolean, deformScale = 0,
 ): void {
   const n = Math.min(mesh.count, arrows.magnitudes.length)
   const { origins, vectors, magnitudes } = arrows
   const normals = (arrows as { normals?: Float32Array }).normals
+  const du = arrows.displacement
   const max = arrows.maxMagnitude > 0 ? arrows.maxMagnitude : 1
   const table = colourMapTable(colourMap, 256)
   const diverging = DIVERGING.has(colourMap)
@@ -39,6 +41,7 @@ export function writeArrowInstances(
     else _d.set(0, 1, 0) // zero arrow: any direction, drawn with zero length
     _q.setFromUnitVectors(Y, _d)
     _p.set(origins[3 * i], origins[3 * i + 1], origins[3 * i + 2])
+    if (du && deformScale !== 0) { _p.x += deformScale * du[3 * i]; _p.y += deformScale * du[3 * i + 1]; _p.z += deformScale * du[3 * i + 2] }
     if (normals && _d.x * normals[3 * i] + _d.y * normals[3 * i + 1] + _d.z * normals[3 * i + 2] < 0) {
       _p.addScaledVector(_d, -L)
     }

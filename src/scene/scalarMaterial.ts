@@ -10,6 +10,10 @@ import { rawColour } from './rawColour.ts'
  * Optional float attribute `label` (load-patch id): while `highlight` ≥ 0, faces of other patches
  * fade towards neutral, so the highlighted patch keeps its data colours and stands out.
  *
+ * Deformed shape: an optional vec3 attribute `displacement` moves every vertex by `deformScale`
+ * times it (0: undeformed). The clipping planes test the undeformed position, so a cut hides the
+ * same material points whatever the scale, and the section face (moved the same way) closes it.
+ *
  * Light: a head light from the viewer, slightly from above, plus ambient, so the shape reads
  * without a lighting setup to tune. Back faces (seen through a section cut) are drawn neutral
  * and darker. Colours are written unchanged (no tone mapping, no colour-space conversion), so
@@ -27,6 +31,8 @@ export interface ScalarMaterialUniforms {
   flatNormal: { value: Vector4 }
   /** 1: back faces neutral and dim (a closed surface seen through a cut); 0: lit like the front. */
   backNeutral: { value: number }
+  /** Scale of the deformed shape (dimensionless); 0 draws the undeformed geometry. */
+  deformScale: { value: number }
 }
 
 const vertexShader = /* glsl */ `
@@ -34,6 +40,8 @@ const vertexShader = /* glsl */ `
 #include <clipping_planes_pars_vertex>
 attribute float scalar;
 attribute float label;
+attribute vec3 displacement;
+uniform float deformScale;
 varying float vScalar;
 varying float vLabel;
 uniform vec4 flatNormal;
@@ -42,8 +50,9 @@ void main() {
   vScalar = scalar;
   vLabel = label;
   vNormalView = flatNormal.w > 0.5 ? (viewMatrix * vec4(flatNormal.xyz, 0.0)).xyz : normalMatrix * normal;
+  // The undeformed position decides clipping (material points); the drawn one is moved.
   vec4 mvPosition = modelViewMatrix * vec4(position, 1.0);
-  gl_Position = projectionMatrix * mvPosition;
+  gl_Position = projectionMatrix * modelViewMatrix * vec4(position + deformScale * displacement, 1.0);
   #include <clipping_planes_vertex>
 }
 `
@@ -100,6 +109,7 @@ export function createScalarMaterial(map: Texture, clippingPlanes: Plane[]): Sha
     useScalar: { value: 1 },
     flatNormal: { value: new Vector4(0, 0, 1, 0) },
     backNeutral: { value: 1 },
+    deformScale: { value: 0 },
   }
   const m = new ShaderMaterial({
     uniforms: uniforms as unknown as ShaderMaterial['uniforms'],
@@ -109,6 +119,8 @@ export function createScalarMaterial(map: Texture, clippingPlanes: Plane[]): Sha
     clippingPlanes,
     toneMapped: false,
   })
+  // A geometry without displacement reads zero (not another program's constant at that location).
+  Object.assign(m.defaultAttributeValues, { displacement: [0, 0, 0] })
   // Pull the surface slightly back so the section fill and edges drawn on it win the depth test.
   m.polygonOffset = true
   m.polygonOffsetFactor = 1

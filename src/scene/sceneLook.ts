@@ -18,3 +18,8 @@ export const ARROW_SINGLE = '#26282b'
 export const EDGE = '#3d3f42'
 /** Drawn arrow length at scale 1 for the largest magnitude, as a fraction of the model diagonal. */
 export const ARROW_LENGTH_FRACTION = 0.08
+/** A line through the model and its end points. */
+export const LINE = '#b0226a'
+/** Extremes markers: the largest and the smallest value of the shown quantity. */
+export const EXTREME_MAX = '#c2410c'
+export const EXTREME_MIN = '#1d4ed8'

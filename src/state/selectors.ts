@@ -4,11 +4,20 @@
  */
 import type { Plane } from '../mechanics/plane.ts'
 import { unitNormal } from '../mechanics/plane.ts'
-import type { ColourMapName, QuantityName, SectionState, TractusData } from './store.ts'
+import { COMPONENT_QUANTITIES } from '../mechanics/componentScalars.ts'
+import type { ComponentQuantity } from '../mechanics/componentScalars.ts'
+import { autoDeformationScale } from '../mechanics/deformation.ts'
+import type { ScalarExtremes } from '../../workers/protocol.ts'
+import type { ColourMapName, QuantityName, SectionState, TractusData, TractusState } from './store.ts'
 
 /** Signed quantities get a diverging map centred on zero; magnitudes a sequential one. */
 export function isSignedQuantity(q: QuantityName): boolean {
-  return q === 'normalTraction' || q === 'principal1' || q === 'principal3'
+  return q === 'normalTraction' || q === 'principal1' || q === 'principal3' || (isComponentQuantity(q) && q !== 'displacement')
+}
+
+/** True for the quantities of the shape slice (stress and displacement components, |u|). */
+export function isComponentQuantity(q: QuantityName): q is ComponentQuantity {
+  return (COMPONENT_QUANTITIES as readonly string[]).includes(q)
 }
 
 export function defaultMapFor(q: QuantityName): ColourMapName {
@@ -26,9 +35,10 @@ export function sectionPlaneOf(s: SectionState): Plane {
 }
 
 /** The colour range in use for the current quantity (model units), resolving 'auto'. */
-export function activeRange(s: Pick<TractusData, 'range' | 'quantity' | 'surface'>): readonly [number, number] {
+export function activeRange(s: Pick<TractusData, 'range' | 'quantity' | 'surface'> & Partial<Pick<TractusState, 'components'>>): readonly [number, number] {
   if (s.range !== 'auto') return s.range
-  const r = s.surface?.ranges[s.quantity] ?? [0, 1]
+  const q = s.quantity
+  const r = (isComponentQuantity(q) ? s.components?.ranges[q] : s.surface?.ranges[q]) ?? [0, 1]
   if (isSignedQuantity(s.quantity)) {
     // Diverging maps centre on zero: a symmetric range keeps white at zero.
     const a = Math.max(Math.abs(r[0]), Math.abs(r[1])) || 1
@@ -42,4 +52,29 @@ export function modelSphere(bounds: { readonly min: readonly number[]; readonly 
   const { min, max } = bounds
   const diagonal = Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) || 1
   return { center: [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2], radius: diagonal / 2, diagonal }
+}
+
+// ---- Lines, the deformed shape and stress components ----
+
+/** The per-vertex values of the current quantity (surface buffers or component scalars), or null. */
+export function quantityScalars(s: Pick<TractusState, 'quantity' | 'surface' | 'components'>): Float32Array | null {
+  const q = s.quantity
+  return (isComponentQuantity(q) ? s.components?.scalars[q] : s.surface?.scalars[q]) ?? null
+}
+
+/** Where the current quantity is smallest and largest on the surface (vertex indices), or null. */
+export function quantityExtremes(s: Pick<TractusState, 'quantity' | 'components' | 'surfaceExtremes'>): ScalarExtremes | null {
+  const q = s.quantity
+  return (isComponentQuantity(q) ? s.components?.extremes[q] : s.surfaceExtremes?.[q]) ?? null
+}
+
+/**
+ * The factor the deformed shape is drawn with (dimensionless): 0 when it is off or the model has
+ * no displacement; the automatic one draws the largest displacement as 5 % of the diagonal.
+ */
+export function deformScaleOf(s: Pick<TractusState, 'deformation' | 'deformationBuffers' | 'model'>): number {
+  const d = s.deformationBuffers
+  if (!s.deformation.shown || !d || !s.model) return 0
+  if (s.deformation.scale !== 'auto') return s.deformation.scale
+  return autoDeformationScale(d.max, modelSphere(s.model.bounds).diagonal)
 }

@@ -31,10 +31,20 @@ import type {
 import { defaultMapFor, isSignedQuantity, modelSphere } from './selectors.ts'
 import { createSweepSlice } from './sweepSlice.ts'
 import type { SweepSlice } from './sweepSlice.ts'
+// Lines, the deformed shape and stress components: two slices of their own.
+import { createLineSlice } from './lineSlice.ts'
+import type { LineSlice } from './lineSlice.ts'
+import { createShapeSlice, shapeOfLoad } from './shapeSlice.ts'
+import type { ShapeSlice } from './shapeSlice.ts'
+import type { ComponentQuantity } from '../mechanics/componentScalars.ts'
 
-/** Scalar quantities the surface can be coloured by (the worker's buffer builder defines them). */
-export type QuantityName = SurfaceQuantity
-export const QUANTITY_NAMES: readonly QuantityName[] = SURFACE_QUANTITIES
+/**
+ * Scalar quantities the surface can be coloured by: the tractions and invariants of the surface
+ * buffers (QUANTITY_NAMES, keys 1–7) and the stress and displacement components of the shape
+ * slice (src/mechanics/componentScalars.ts). The worker's buffer builders define them.
+ */
+export type QuantityName = SurfaceQuantity | ComponentQuantity
+export const QUANTITY_NAMES: readonly SurfaceQuantity[] = SURFACE_QUANTITIES
 
 /**
  * Published colour map names (viridis/cividis sequential, ColorBrewer RdBu/PuOr diverging).
@@ -202,7 +212,7 @@ export interface TractusActions {
   probeShown: (probe: ProbeResult | null) => void
 }
 
-export type TractusState = TractusData & TractusActions & SweepSlice
+export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice
 
 export const DEFAULT_SECTION: SectionState = {
   enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'positive', traction: 'normalTraction', dragging: false,
@@ -263,6 +273,8 @@ const INITIAL: TractusData = {
 const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   ...INITIAL,
   ...createSweepSlice(set, get, api),
+  ...createLineSlice(set, get, api),
+  ...createShapeSlice(set, get, api),
 
   setQuantity: (q) => {
     const st = get()
@@ -326,7 +338,8 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   loadStarted: ({ keepError }) => set({ busy: true, progress: { stage: 'Preparing', fraction: 0 }, ...(keepError ? {} : { error: null }) }),
   loadProgress: (progress) => set({ progress }),
   loadEnded: (error) => set({ busy: false, progress: null, ...(error ? { error } : {}) }),
-  modelLoaded: ({ summary, surface, audit }) => {
+  modelLoaded: (loaded) => {
+    const { summary, surface, audit } = loaded
     const prev = get().section
     const { center: centre, radius } = modelSphere(summary.bounds)
     set({
@@ -335,6 +348,9 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
       section: { ...DEFAULT_SECTION, enabled: prev.enabled, normal: prev.normal, hide: prev.hide, traction: prev.traction, point: centre },
       // Old diagrams never sit on a new part.
       sweep: null,
+      // Nor an old line; the new model's displacement, components and extremes come with it.
+      line: { ...get().line, from: null, to: null }, linePicking: 'off', lineResult: null, lineError: null,
+      ...shapeOfLoad(loaded),
     })
     // Frame the model first; a link applied after the load may then ask for its own camera.
     get().requestView({ frame: { center: centre, radius } })

@@ -1,18 +1,127 @@
+import { displayFactor } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
 import { NumberField } from '../ui/NumberField.tsx'
-import { QUANTITY_LABEL, quantityDisplay } from '../format.ts'
-import { activeRange } from '../../state/selectors.ts'
+import { Num, Vec } from '../ui/Num.tsx'
+import { QUANTITY_LABEL, quantityDisplay, quantityKind, quantityLabel } from '../format.ts'
+import { activeRange, modelSphere, quantityExtremes } from '../../state/selectors.ts'
 import { COLOUR_MAP_NAMES, QUANTITY_NAMES, useStore } from '../../state/store.ts'
 import type { ColourMapName, QuantityName } from '../../state/store.ts'
-import type { ArrowMode } from '../../../workers/protocol.ts'
+import type { ArrowMode, ComponentAxes, ModelSummary, Vec3 } from '../../../workers/protocol.ts'
+import { DISPLACEMENT_COMPONENTS, STRESS_COMPONENTS } from '../../mechanics/componentScalars.ts'
 
 export function QuantitySelect({ testId }: { testId: string }) {
   const quantity = useStore((s) => s.quantity)
   const setQuantity = useStore((s) => s.setQuantity)
+  const axes = useStore((s) => s.componentAxes)
+  const hasDisplacement = useStore((s) => s.deformationBuffers !== null)
+  const cyl = axes.kind === 'cylindrical'
   return (
     <select value={quantity} data-testid={testId} aria-label="Quantity" onChange={(e) => setQuantity(e.target.value as QuantityName)}>
-      {QUANTITY_NAMES.map((q, i) => <option key={q} value={q}>{i + 1} · {QUANTITY_LABEL[q]}</option>)}
+      <optgroup label="Tractions and invariants">
+        {QUANTITY_NAMES.map((q, i) => <option key={q} value={q}>{i + 1} · {QUANTITY_LABEL[q]}</option>)}
+      </optgroup>
+      <optgroup label={cyl ? 'Stress components, cylindrical r, θ, z' : 'Stress components, global x, y, z'}>
+        {STRESS_COMPONENTS.map((q) => <option key={q} value={q}>{quantityLabel(q, axes)}</option>)}
+      </optgroup>
+      {hasDisplacement ? (
+        <optgroup label="Displacement">
+          {(['displacement', ...DISPLACEMENT_COMPONENTS] as const).map((q) => <option key={q} value={q}>{quantityLabel(q, axes)}</option>)}
+        </optgroup>
+      ) : null}
     </select>
+  )
+}
+
+/** A default cylinder axis: through the model's centre, along the box side that differs most from the other two. */
+export function defaultAxis(m: ModelSummary): { origin: Vec3; axis: Vec3 } {
+  const e = [0, 1, 2].map((k) => m.bounds.max[k] - m.bounds.min[k])
+  let best = 2, score = -Infinity
+  for (let k = 0; k < 3; k++) {
+    const s = Math.abs(e[k] - (e[(k + 1) % 3] + e[(k + 2) % 3]) / 2)
+    if (s > score) { score = s; best = k }
+  }
+  const axis: Vec3 = [0, 0, 0]
+  axis[best] = 1
+  return { origin: modelSphere(m.bounds).center, axis }
+}
+
+/** Global or cylindrical axes for the components, the probe and the line read-out. */
+function AxesRow({ model }: { model: ModelSummary }) {
+  const axes = useStore((s) => s.componentAxes)
+  const error = useStore((s) => s.axesError)
+  const system = useStore((s) => s.units)
+  const set = useStore((s) => s.setComponentAxes)
+  const Lf = displayFactor(model.units, 'length', system)
+  const cyl = axes.kind === 'cylindrical' ? axes : null
+  const patch = (which: 'origin' | 'axis', k: number, v: number): void => {
+    if (!cyl) return
+    const next: Vec3 = [...cyl[which]]
+    next[k] = which === 'origin' ? v / Lf : v
+    set({ ...cyl, [which]: next } as ComponentAxes)
+  }
+  return (
+    <>
+      <div className="row">
+        <span className="lbl">Axes</span>
+        <select value={axes.kind} data-testid="component-axes" aria-label="Axes of the components"
+          onChange={(e) => set(e.target.value === 'cylindrical' ? { kind: 'cylindrical', ...defaultAxis(model) } : { kind: 'global' })}>
+          <option value="global">global x, y, z</option>
+          <option value="cylindrical">cylindrical r, θ, z about an axis</option>
+        </select>
+      </div>
+      {cyl ? (
+        <>
+          <div className="row">
+            <span className="lbl">through</span>
+            {(['x', 'y', 'z'] as const).map((a, k) => <NumberField key={a} label={a} width={5} testId={`axis-point-${a}`} value={cyl.origin[k] * Lf} onCommit={(v) => patch('origin', k, v)} />)}
+          </div>
+          <div className="row">
+            <span className="lbl">along</span>
+            {(['x', 'y', 'z'] as const).map((a, k) => <NumberField key={a} label={a} width={5} testId={`axis-dir-${a}`} value={cyl.axis[k]} invalid={!!error} onCommit={(v) => patch('axis', k, v)} />)}
+          </div>
+        </>
+      ) : null}
+      {error ? <p className="note bad" data-testid="axes-error">{error}</p> : null}
+    </>
+  )
+}
+
+/** The extremes markers: on/off, and where the largest and smallest value of the shown quantity are. */
+function ExtremesRows() {
+  const shown = useStore((s) => s.extremesShown)
+  const x = useStore(quantityExtremes)
+  const quantity = useStore((s) => s.quantity)
+  const surface = useStore((s) => s.surface)
+  const model = useStore((s) => s.model)
+  const q = quantityKind(quantity)
+  const at = (v: number): Vec3 | null => (surface && v >= 0 ? [surface.positions[3 * v], surface.positions[3 * v + 1], surface.positions[3 * v + 2]] : null)
+  const frame = (p: Vec3): void => {
+    if (!model) return
+    useStore.getState().requestView({ frame: { center: p, radius: 0.08 * modelSphere(model.bounds).diagonal } })
+  }
+  const row = (kind: 'max' | 'min') => {
+    const p = x ? at(kind === 'max' ? x.maxIndex : x.minIndex) : null
+    if (!x || !p) return null
+    return (
+      <tr data-row={kind}>
+        <th>{kind === 'max' ? 'Largest' : 'Smallest'}</th>
+        <td><Num v={kind === 'max' ? x.max : x.min} q={q} /></td>
+        <td><button type="button" className="small" data-testid={`frame-${kind}`} onClick={() => frame(p)} title="Frame this point">Frame</button></td>
+      </tr>
+    )
+  }
+  return (
+    <>
+      <div className="row">
+        <label className="check"><input type="checkbox" data-testid="extremes-shown" checked={shown} onChange={(e) => useStore.getState().setExtremesShown(e.target.checked)} /> Mark the largest and smallest value</label>
+      </div>
+      {shown && x ? (
+        <table className="figures" data-testid="extremes">
+          <tbody>{row('max')}{row('min')}</tbody>
+        </table>
+      ) : null}
+      {shown && x && at(x.maxIndex) ? <p className="note">Largest at <Vec v={at(x.maxIndex)!} q="length" />, on the surface.</p> : null}
+    </>
   )
 }
 
@@ -36,6 +145,8 @@ export function ColourCard() {
   return (
     <Card id="colour" title="Colour and arrows">
       <div className="row"><span className="lbl">Quantity</span><QuantitySelect testId="quantity-card" /></div>
+      <AxesRow model={model} />
+      <ExtremesRows />
       <div className="row">
         <label className="check"><input type="checkbox" data-testid="range-fixed" checked={fixed} onChange={(e) => setRange(e.target.checked ? [lo, hi] : 'auto')} /> Fix range</label>
         <NumberField label={`min [${unit}]`} testId="range-min" value={lo * factor} onCommit={(v) => { const x = v / factor; if (x < hi) setRange([x, hi]) }} />

@@ -1,7 +1,7 @@
 import { useEffect, useRef } from 'react'
 import { sectionColouring } from '../../scene/index.ts'
 import { colourMapTable } from '../../scene/colourMaps.ts'
-import { formatNumber, QUANTITY_LABEL, quantityDisplay } from '../format.ts'
+import { formatNumber, QUANTITY_LABEL, quantityDisplay, quantityLabel } from '../format.ts'
 import { activeRange } from '../../state/selectors.ts'
 import { useStore } from '../../state/store.ts'
 import type { ColourMapName } from '../../state/store.ts'
@@ -39,6 +39,7 @@ export function ColourBar() {
   const model = useStore((s) => s.model)
   const system = useStore((s) => s.units)
   const quantity = useStore((s) => s.quantity)
+  const axes = useStore((s) => s.componentAxes)
   const colourMap = useStore((s) => s.colourMap)
   const auto = useStore((s) => s.range === 'auto')
   // Select numbers, not fresh arrays: a selector returning a new array each call never settles.
@@ -54,7 +55,7 @@ export function ColourBar() {
   const secDisp = quantityDisplay(traction, model.units, system)
   return (
     <div className="colourbars">
-      <Bar testId="colour-bar" title={QUANTITY_LABEL[quantity]} unit={unit} map={colourMap} lo={lo} hi={hi} factor={factor}
+      <Bar testId="colour-bar" title={quantityLabel(quantity, axes)} unit={unit} map={colourMap} lo={lo} hi={hi} factor={factor}
         note={auto ? 'auto range' : 'fixed range'} />
       {ownSectionBar ? (
         <Bar testId="section-colour-bar" title={`Section: ${QUANTITY_LABEL[traction]}`} unit={secDisp.unit} map={sectionMap}

@@ -39,6 +39,9 @@ class FakeWorker {
     cut: (plane, arrows) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, reply }); return reply.promise },
     probe: async () => null,
     sweep: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    components: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    line: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    lineThroughWall: async () => null,
     dispose: async () => undefined,
   }
 }

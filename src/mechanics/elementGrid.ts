@@ -1,0 +1,150 @@
+/**
+ * A uniform grid over the elements' bounding boxes, built once per model and kept by its owner
+ * (the engine worker builds it on the first line through a model; the command line per run), so
+ * that finding the elements near a point costs a cell look-up instead of a pass over the mesh.
+ *
+ * Record (E elements, C = nx·ny·nz cells):
+ * - `boxes`: Float32Array(6E), per element min x, y, z then max x, y, z of its nodes, widened by
+ *   10 % of the box's own size on every side and by `pad` (so curved quadratic edges, which may
+ *   bulge a little beyond their nodes, stay inside, and round-off of single precision cannot cut
+ *   a box short), model length units;
+ * - `origin`, `cell`: the grid's lower corner and cell size per axis (length units); `dims` the
+ *   cell counts; cell (i, j, k) is i + nx·(j + ny·k);
+ * - `cellStart`: Int32Array(C + 1), `items`: Int32Array: the elements whose box overlaps cell c
+ *   are items[cellStart[c] .. cellStart[c + 1]) (compressed rows, ascending element index);
+ * - `size`: the diagonal of the mesh's bounding box (length units), the scale of tolerances;
+ * - `blockStart`: Int32Array(blocks + 1), the global index of each block's first element (and E
+ *   at the end), so an element's block is found by a short scan (a mesh has a few blocks).
+ *
+ * Cell size: about two elements per cell (cube root of the box volume per element pair), at
+ * most 512 cells along an axis and 4·10⁶ in all, so memory stays near a few integers per element.
+ */
+import { elementType } from '../model/elementTypes.ts'
+import type { Mesh } from '../model/model.ts'
+
+export interface ElementGrid {
+  readonly boxes: Float32Array
+  readonly origin: readonly [number, number, number]
+  readonly cell: readonly [number, number, number]
+  readonly dims: readonly [number, number, number]
+  readonly cellStart: Int32Array
+  readonly items: Int32Array
+  readonly size: number
+  readonly blockStart: Int32Array
+}
+
+const MAX_PER_AXIS = 512
+const MAX_CELLS = 4_000_000
+
+/** Builds the grid of `mesh` (O(elements), two passes: count, then fill). */
+export function buildElementGrid(mesh: Mesh): ElementGrid {
+  const E = mesh.elementCount
+  const x = mesh.coords
+  const boxes = new Float32Array(6 * E)
+  let gx0 = Infinity, gy0 = Infinity, gz0 = Infinity, gx1 = -Infinity, gy1 = -Infinity, gz1 = -Infinity
+  for (let i = 0; i < x.length; i += 3) {
+    const a = x[i], b = x[i + 1], c = x[i + 2]
+    if (a < gx0) gx0 = a
+    if (a > gx1) gx1 = a
+    if (b < gy0) gy0 = b
+    if (b > gy1) gy1 = b
+    if (c < gz0) gz0 = c
+    if (c > gz1) gz1 = c
+  }
+  // No nodes: a unit box keeps every figure finite (nothing will be found in it).
+  if (!(gx0 <= gx1)) { gx0 = gy0 = gz0 = 0; gx1 = gy1 = gz1 = 1 }
+  const size = Math.hypot(gx1 - gx0, gy1 - gy0, gz1 - gz0) || 1
+  const pad = 1e-6 * size
+  const blockStart = new Int32Array(mesh.blocks.length + 1)
+  for (let b = 0; b < mesh.blocks.length; b++) {
+    const blk = mesh.blocks[b]
+    const nn = elementType(blk.type).nodeCount, conn = blk.conn
+    blockStart[b] = blk.offset
+    blockStart[b + 1] = blk.offset + blk.ids.length
+    for (let e = 0; e < blk.ids.length; e++) {
+      let x0 = Infinity, y0 = Infinity, z0 = Infinity, x1 = -Infinity, y1 = -Infinity, z1 = -Infinity
+      for (let a = 0; a < nn; a++) {
+        const n = 3 * conn[e * nn + a]
+        const p = x[n], q = x[n + 1], r = x[n + 2]
+        if (p < x0) x0 = p
+        if (p > x1) x1 = p
+        if (q < y0) y0 = q
+        if (q > y1) y1 = q
+        if (r < z0) z0 = r
+        if (r > z1) z1 = r
+      }
+      const w = 0.1 * Math.max(x1 - x0, y1 - y0, z1 - z0) + pad
+      const o = 6 * (blk.offset + e)
+      boxes[o] = x0 - w; boxes[o + 1] = y0 - w; boxes[o + 2] = z0 - w
+      boxes[o + 3] = x1 + w; boxes[o + 4] = y1 + w; boxes[o + 5] = z1 + w
+    }
+  }
+  // The grid covers the widened boxes too.
+  const margin = 0.15 * size + pad
+  const origin: [number, number, number] = [gx0 - margin, gy0 - margin, gz0 - margin]
+  const ext = [gx1 - gx0 + 2 * margin, gy1 - gy0 + 2 * margin, gz1 - gz0 + 2 * margin]
+  const target = Math.min(MAX_CELLS, Math.max(1, E / 2))
+  const h = Math.cbrt((ext[0] * ext[1] * ext[2]) / target)
+  const dims: [number, number, number] = [0, 0, 0]
+  for (let k = 0; k < 3; k++) dims[k] = Math.min(MAX_PER_AXIS, Math.max(1, Math.ceil(ext[k] / h)))
+  while (dims[0] * dims[1] * dims[2] > MAX_CELLS) for (let k = 0; k < 3; k++) dims[k] = Math.max(1, Math.floor(dims[k] / 2))
+  const cell: [number, number, number] = [ext[0] / dims[0], ext[1] / dims[1], ext[2] / dims[2]]
+  const C = dims[0] * dims[1] * dims[2]
+  const cellStart = new Int32Array(C + 1)
+  const range = new Int32Array(6)
+  const cellRange = (e: number): void => {
+    for (let k = 0; k < 3; k++) {
+      range[k] = clampIndex(Math.floor((boxes[6 * e + k] - origin[k]) / cell[k]), dims[k])
+      range[3 + k] = clampIndex(Math.floor((boxes[6 * e + 3 + k] - origin[k]) / cell[k]), dims[k])
+    }
+  }
+  for (let e = 0; e < E; e++) {
+    cellRange(e)
+    for (let k = range[2]; k <= range[5]; k++) for (let j = range[1]; j <= range[4]; j++) for (let i = range[0]; i <= range[3]; i++) {
+      cellStart[i + dims[0] * (j + dims[1] * k) + 1]++
+    }
+  }
+  for (let c = 0; c < C; c++) cellStart[c + 1] += cellStart[c]
+  const items = new Int32Array(cellStart[C])
+  const fill = cellStart.slice(0, C)
+  for (let e = 0; e < E; e++) {
+    cellRange(e)
+    for (let k = range[2]; k <= range[5]; k++) for (let j = range[1]; j <= range[4]; j++) for (let i = range[0]; i <= range[3]; i++) {
+      items[fill[i + dims[0] * (j + dims[1] * k)]++] = e
+    }
+  }
+  return { boxes, origin, cell, dims, cellStart, items, size, blockStart }
+}
+
+function clampIndex(i: number, n: number): number {
+  return i < 0 ? 0 : i >= n ? n - 1 : i
+}
+
+/** The cell holding p, or -1 when p lies outside the grid. */
+export function gridCellOf(grid: ElementGrid, px: number, py: number, pz: number): number {
+  const { origin: o, cell: h, dims: d } = grid
+  const i = Math.floor((px - o[0]) / h[0]), j = Math.floor((py - o[1]) / h[1]), k = Math.floor((pz - o[2]) / h[2])
+  if (!(i >= 0 && i < d[0] && j >= 0 && j < d[1] && k >= 0 && k < d[2])) return -1
+  return i + d[0] * (j + d[1] * k)
+}
+
+/** True when p lies in element e's widened box (grown by `tol` more, length units). */
+export function inElementBox(grid: ElementGrid, e: number, px: number, py: number, pz: number, tol: number): boolean {
+  const b = grid.boxes, o = 6 * e
+  return px >= b[o] - tol && px <= b[o + 3] + tol && py >= b[o + 1] - tol && py <= b[o + 4] + tol && pz >= b[o + 2] - tol && pz <= b[o + 5] + tol
+}
+
+/**
+ * Parameter s ≥ s0 at which the line p(s) = a + s·d leaves element e's widened box (d need not
+ * be unit; s in units of d). Infinity when d = 0.
+ */
+export function boxExit(grid: ElementGrid, e: number, a: ArrayLike<number>, d: ArrayLike<number>, s0: number): number {
+  const b = grid.boxes, o = 6 * e
+  let s = Infinity
+  for (let k = 0; k < 3; k++) {
+    // Only the far face along the direction of travel bounds the exit.
+    if (d[k] > 0) s = Math.min(s, (b[o + 3 + k] - a[k]) / d[k])
+    else if (d[k] < 0) s = Math.min(s, (b[o + k] - a[k]) / d[k])
+  }
+  return Math.max(s, s0)
+}
