@@ -2,19 +2,22 @@ import type { ModelUnits } from '../model/units.ts'
 import type { Vec3 } from '../model/model.ts'
 import { addFaceLoads } from './consistentLoads.ts'
 import { hexBoundaryFaces, selectFaces } from './hexFaces.ts'
-import { extrudeQuads, gradedSteps, holeRing, minQuadArea } from './quadMesh.ts'
+import { extrudeQuads, holeRing, minQuadArea } from './quadMesh.ts'
 import type { ElasticProblem } from './solveElastic.ts'
 
 /**
- * Demo scenario (invented for the demo): a thick steel pipe segment, welded at one end to a stiff
- * flange, under internal pressure and an end load — a part where a line through the wall and its
- * linearisation make sense. The axis is z; the pipe spans inner radius a to outer radius b and
- * z ∈ [0, L]. Supports: every node of the end z = 0 held (the weld to the flange). Loads: the
- * pressure p on the bore (t = −p n); on the free end z = L the closed-end thrust of the pressure
- * (the cap's force p·(bore area) spread evenly over the end face: axial stress p a²/(b² − a²))
- * and a transverse force Q along x, spread evenly. The mesh is a quadrilateral annulus
- * (src/demo/quadMesh.ts, holeRing with a circular outline) swept along z in layers that grow
- * away from the flange, where the wall bends. Units: mm, MPa, N.
+ * Demo scenario (invented for the demo): a segment cut out of a long thick-walled steel pipe
+ * under internal pressure, with an end load — a part where a line through the wall and its
+ * linearisation make sense. The axis is z; the segment spans inner radius a to outer radius b and
+ * z ∈ [0, L]. Loads: the pressure p on the bore (t = −p n); on each cut end the closed-end thrust
+ * of the pressure (the caps' force p·(bore area), spread evenly: axial stress p a²/(b² − a²)),
+ * outward; a transverse force Q along +x spread evenly over the end z = L, and at z = 0 what the
+ * pipe beyond holds it with: −Q spread evenly and the bending moment Q·L as an axial stress
+ * linear in x. The loads balance exactly (the consistent nodal loads integrate them exactly on
+ * the faceted ends), so the segment is only held against rigid motion: three points of the end
+ * z = 0 (3 + 2 + 1 components, statically determinate: the reactions are round-off).
+ * The mesh is a quadrilateral annulus (src/demo/quadMesh.ts, holeRing with a circular outline)
+ * swept along z. Units: mm, MPa, N.
  */
 export interface PipeSpec {
   /** Inner and outer radius, length (mm). */
@@ -40,7 +43,7 @@ export const PIPE_DEFAULTS: PipeSpec = {
 
 /** Mesh sizes by refinement level: 0 coarse (tests), 1 the committed demo. */
 export function pipeMeshLevel(level: number): Pick<PipeSpec, 'around' | 'through' | 'along'> {
-  return level <= 0 ? { around: 24, through: 3, along: 10 } : { around: 48, through: 6, along: 24 }
+  return level <= 0 ? { around: 24, through: 3, along: 8 } : { around: 48, through: 6, along: 20 }
 }
 
 export interface PipeScenario {
@@ -51,9 +54,11 @@ export interface PipeScenario {
   /** Bore area and end-face area of the faceted mesh (mm²): the loads are spread over these. */
   readonly boreArea: number
   readonly endArea: number
-  /** The loads as applied: axial thrust (N) and transverse force (N) on the free end. */
+  /** The loads as applied on the end z = L: axial thrust (N) and transverse force (N). */
   readonly thrust: number
   readonly transverse: number
+  /** Sum of all nodal loads (N): zero to round-off (the loads balance). */
+  readonly netLoad: Vec3
 }
 
 /** Area of a regular n-gon of circumradius r. */
@@ -67,27 +72,40 @@ export function buildPipeSegment(spec: PipeSpec = PIPE_DEFAULTS): PipeScenario {
   const plane = holeRing(0, 0, a, n / 8, spec.through, (k) => [b * Math.cos((2 * Math.PI * k) / n), b * Math.sin((2 * Math.PI * k) / n)], 1 / spec.through)
   if (!(minQuadArea(plane) > 0)) throw new RangeError('pipe mesh has an inverted quad')
   const { coords, conn } = extrudeQuads(plane, L, spec.along)
-  // Layers grow geometrically away from the flange (first one 2 % of the length): the wall bends
-  // near the weld over a length of about √(r t).
-  const s = gradedSteps(spec.along, 0.02)
   const N = coords.length / 3
-  for (let i = 0; i < N; i++) coords[3 * i + 2] = L * s[Math.round((coords[3 * i + 2] / L) * spec.along)]
   const tol = 1e-9 * L
+  // Held against rigid motion only: (a, 0, 0) in x, y, z; (−a, 0, 0) in y, z; (0, a, 0) in z.
   const fixed = new Uint8Array(3 * N)
-  for (let i = 0; i < N; i++) if (Math.abs(coords[3 * i + 2]) < tol) fixed.fill(1, 3 * i, 3 * i + 3)
+  const hold = (x: number, y: number, dofs: number[]): void => {
+    for (let i = 0; i < N; i++) {
+      if (Math.abs(coords[3 * i] - x) < 1e-6 * a && Math.abs(coords[3 * i + 1] - y) < 1e-6 * a && Math.abs(coords[3 * i + 2]) < tol) for (const d of dofs) fixed[3 * i + d] = 1
+    }
+  }
+  hold(a, 0, [0, 1, 2]); hold(-a, 0, [1, 2]); hold(0, a, [2])
   const load = new Float64Array(3 * N)
   const faces = hexBoundaryFaces(conn, N)
   const bore = selectFaces(faces, coords, (x, y) => Math.abs(Math.hypot(x, y) - a) < 1e-6 * a)
-  const end = selectFaces(faces, coords, (_x, _y, z) => Math.abs(z - L) < tol)
-  const p = spec.pressure
+  const far = selectFaces(faces, coords, (_x, _y, z) => Math.abs(z - L) < tol)
+  const near = selectFaces(faces, coords, (_x, _y, z) => Math.abs(z) < tol)
+  const p = spec.pressure, Q = spec.endForce
   addFaceLoads(load, coords, bore, (t, _x, _y, _z, nx, ny, nz) => { t[0] = -p * nx; t[1] = -p * ny; t[2] = -p * nz })
   const boreArea = polygonArea(n, a), endArea = polygonArea(n, b) - boreArea
-  const axial = (p * boreArea) / endArea, shear = spec.endForce / endArea
-  const applied = addFaceLoads(load, coords, end, (t) => { t[0] = shear; t[1] = 0; t[2] = axial })
+  const axial = (p * boreArea) / endArea, shear = Q / endArea
+  const applied = addFaceLoads(load, coords, far, (t) => { t[0] = shear; t[1] = 0; t[2] = axial })
+  // The second moment of the faceted end about y, ∫ x² dA, from consistent loads of t_z = x
+  // (Σ xₐ fₐ = ∫ x t dA exactly: the 2×2 rule integrates x² det J on these flat quads).
+  const unit = new Float64Array(3 * N)
+  addFaceLoads(unit, coords, near, (t, x) => { t[0] = 0; t[1] = 0; t[2] = x })
+  let I = 0
+  for (let i = 0; i < N; i++) I += coords[3 * i] * unit[3 * i + 2]
+  const k = (Q * L) / I
+  addFaceLoads(load, coords, near, (t, x) => { t[0] = -shear; t[1] = 0; t[2] = -axial + k * x })
+  const net: Vec3 = [0, 0, 0]
+  for (let i = 0; i < N; i++) for (let c = 0; c < 3; c++) net[c] += load[3 * i + c]
   return {
     spec, units: { length: 'mm', stress: 'MPa' }, bodyForce: [0, 0, 0],
     problem: { coords, conn, E: spec.E, nu: spec.nu, fixed, load },
-    boreArea, endArea, thrust: applied[2], transverse: applied[0],
+    boreArea, endArea, thrust: applied[2], transverse: applied[0], netLoad: net,
   }
 }
 
@@ -107,14 +125,15 @@ const f1 = (v: number): string => v.toFixed(1)
 export function pipeDescription(spec: PipeSpec = PIPE_DEFAULTS): string {
   const l = pipeLame(spec)
   const { inner: a, outer: b, length: L, pressure: p } = spec
-  return 'Invented demo data, not a real product: a thick steel pipe segment, ' +
-    `${2 * a} mm bore (inner radius a = ${a} mm), ${b - a} mm wall (outer radius b = ${b} mm), ${L} mm long along z, ` +
-    'welded at z = 0 to a stiff flange (every node of that end held). ' +
-    `Internal pressure ${p} MPa on the bore; the free end carries the closed-end thrust of the pressure (${f1((p * Math.PI * a * a) / 1000)} kN, spread evenly over the end face) ` +
-    `and a transverse load of ${f1(spec.endForce / 1000)} kN along x. Linear elastic steel (E = ${spec.E / 1000} GPa, ν = ${spec.nu}). ` +
+  return 'Invented demo data, not a real product: a segment cut out of a long thick-walled steel pipe, ' +
+    `${2 * a} mm bore (inner radius a = ${a} mm), ${b - a} mm wall (outer radius b = ${b} mm), ${L} mm long along z. ` +
+    `Internal pressure ${p} MPa on the bore; both cut ends carry the closed-end thrust of the pressure (${f1((p * Math.PI * a * a) / 1000)} kN, spread evenly over each end). ` +
+    `The end z = ${L} mm carries a transverse load of ${f1(spec.endForce / 1000)} kN along x, and the end z = 0 what the pipe beyond holds it with (the opposite force and a bending moment of ${f1((spec.endForce * L) / 1e6)} kN·m), ` +
+    'so the loads balance and the segment is held only against rigid motion (at three points). ' +
+    `Linear elastic steel (E = ${spec.E / 1000} GPa, ν = ${spec.nu}). ` +
     `To compare with, away from the ends, the Lamé solution (Timoshenko & Goodier, Theory of Elasticity, §28): hoop stress p(b² + a²)/(b² − a²) = ${f1(l.hoopInner)} MPa at the bore, ` +
     `2pa²/(b² − a²) = ${f1(l.hoopOuter)} MPa at the outside, its mean through the wall (the membrane hoop stress) p·a/(b − a) = ${f1(l.hoopMembrane)} MPa, ` +
-    `and the axial stress of the thrust pa²/(b² − a²) = ${f1(l.axial)} MPa; the transverse load adds axial bending stress that grows towards the flange, where the wall also bends locally. ` +
+    `and the axial stress of the thrust pa²/(b² − a²) = ${f1(l.axial)} MPa; the transverse load adds axial bending stress, largest at x = ±b and growing towards z = 0, and none at x = 0. ` +
     'Stresses solved by the Tractus demo generator (hex8 elements, nodal stress by superconvergent patch recovery). Units: mm, MPa, N. ' +
     'To linearise through the wall: cut across z, pick two points on the section face near the bore and the outside, and move the ends to the surfaces.'
 }
