@@ -47,7 +47,7 @@ export function LineChart({ reply, units, system, shown }: LineChartProps) {
     })
     const hasS = defs.some((d) => d.quantity === 'stress'), hasU = defs.some((d) => d.quantity === 'length')
     const fmt = (_u: uPlot, vals: number[]): string[] => vals.map((v) => formatNumber(v, 3))
-    const axes: uPlot.Axis[] = [{ ...AXIS, values: fmt, size: 34 }]
+    const axes: uPlot.Axis[] = [{ ...AXIS, values: fmt, size: 44, label: `Distance from the start [${displayUnitLabel('length', system)}]`, labelSize: 14, labelFont: AXIS.font }]
     if (hasS || !hasU) axes.push({ ...AXIS, scale: 'S', label: `Stress [${displayUnitLabel('stress', system)}]`, labelSize: 16, size: 50, values: fmt, labelFont: AXIS.font })
     if (hasU) axes.push({ ...AXIS, scale: 'U', side: hasS ? 1 : 3, label: `Displacement [${displayUnitLabel('length', system)}]`, labelSize: 16, size: 56, values: fmt, labelFont: AXIS.font, grid: { show: !hasS } })
     const plot = new uPlot({
