@@ -1,6 +1,6 @@
 /**
  * Generator of the bundled demo models (a Node script: `npm run demo`, `npm run demo -- --large`).
- * Meshes our own two invented scenarios, solves them with the demo's linear-elastic solver, checks
+ * Meshes our own three invented scenarios, solves them with the demo's linear-elastic solver, checks
  * their statics, and writes each as a native container, model.json and a CSV bundle under
  * public/demo/<id>/ (the tunnel's CSV files are not committed: they would push the committed files
  * past about 15 MB; public/demo/.gitignore),
@@ -21,6 +21,8 @@ import { solveElastic } from './solveElastic.ts'
 import { buildTunnelBlock, interpolateTunnelField, TUNNEL_DEFAULTS, TUNNEL_DESCRIPTION, tunnelHierarchy, tunnelMeshLevel } from './tunnelBlock.ts'
 import type { TunnelSpec } from './tunnelBlock.ts'
 import { tunnelStatics } from './tunnelStatics.ts'
+import { buildPipeSegment, PIPE_DEFAULTS, pipeDescription, pipeLame, pipeMeshLevel } from './pipeSegment.ts'
+import { pipeStatics } from './pipeStatics.ts'
 
 interface IndexEntry {
   id: string
@@ -100,6 +102,25 @@ function lug(): IndexEntry {
   return { id, name: model.name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files: { native: files.native, csv: files.csv }, bytes: files.bytes }
 }
 
+function pipe(): IndexEntry {
+  const id = 'pipe-segment'
+  const spec = { ...PIPE_DEFAULTS, ...pipeMeshLevel(1) }
+  const sc = buildPipeSegment(spec)
+  const { sol, cpu } = solveTimed(sc.problem)
+  printStats(id, sol, cpu)
+  const coords = roundSignificant(sc.problem.coords.slice(), 9)
+  const stress = roundSignificant(sol.stress, 6)
+  const disp = roundSignificant(sol.displacement, 6)
+  const st = pipeStatics(sc, stress)
+  const lame = pipeLame(spec)
+  console.log(`  section z = ${fmt(st.z)} mm: thrust error ${pct(st.axialError)}, shear ${pct(st.shearError)}, moment ${pct(st.momentError)}`)
+  console.log(`  line through the wall at mid-length: membrane hoop ${fmt(st.membraneHoop, 2)} MPa vs Lamé ${fmt(lame.hoopMembrane, 2)} (${pct(st.membraneHoopError)}), bending hoop ${fmt(st.bendingHoop, 2)} vs ${fmt(st.bendingHoopLame, 2)}, bore hoop ${fmt(st.boreHoop, 2)} vs ${fmt(lame.hoopInner, 2)} (${pct(st.boreHoopError)})`)
+  const model = demoModel('Thick pipe segment under pressure (invented demo)', pipeDescription(spec), sc.units, sc.bodyForce, coords, sc.problem.conn, stress, disp)
+  // Native container and model.json only: the CSV bundle would triple the committed size.
+  const files = writeModel(id, model, false, false)
+  return { id, name: model.name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files: { native: files.native, csv: files.csv }, bytes: files.bytes }
+}
+
 /** The last tunnel solved, whose displacement starts the next finer one's iterations. */
 let previousTunnel: { spec: TunnelSpec; u: Float64Array } | null = null
 
@@ -127,8 +148,8 @@ function tunnel(level: number, id: string, commitCsv: boolean): IndexEntry {
 
 const t0 = performance.now()
 mkdirSync(outDir, { recursive: true })
-// The committed files stay under about 15 MB: both native containers, the CSV bundle of the lug only.
-const entries: IndexEntry[] = [lug(), tunnel(2, 'tunnel-block', false)]
+// The committed files stay under about 15 MB: the native containers, the CSV bundle of the lug only.
+const entries: IndexEntry[] = [lug(), tunnel(2, 'tunnel-block', false), pipe()]
 const largeId = 'tunnel-block-large'
 if (large) entries.push(tunnel(3, largeId, false))
 else if (existsSync(join(outDir, largeId, `${largeId}.tractus`))) console.log(`  (keeping the earlier ${largeId}; not listed: run with --large to list it again)`)

@@ -129,9 +129,12 @@ function heldAt(mesh: Mesh, grid: ElementGrid, a: Vec3, b: Vec3, t: number, tol:
 
 const HITS = allocatePointHits()
 
-/** A length for messages: four significant figures. */
-function len(v: number): string {
-  return Number(v.toPrecision(4)).toString()
+/**
+ * A distance along the line for messages, as a share of its length (messages carry no units: the
+ * viewer and the command line show lengths in different systems): "1.5 % of the line's length".
+ */
+function share(t: number): string {
+  return `${Number((100 * t).toPrecision(3))} % of the line's length`
 }
 
 /**
@@ -151,16 +154,16 @@ export function materialPart(
     const behind = back.end - 1
     if (behind >= tau * (1 - 1e-9)) {
       tIn = 0
-      warnings.push(`The start of the line lies inside the body (the material continues more than ${len(tau * L)} behind it), not on its surface: the linearisation is not through the whole wall.`)
+      warnings.push(`The start of the line lies inside the body (the material continues more than ${share(tau)} behind it), not on its surface: the linearisation is not through the whole wall.`)
     } else {
       tIn = -behind
-      if (behind > note) warnings.push(`The start of the line lay ${len(behind * L)} inside the surface; the linearisation starts on the surface.`)
+      if (behind > note) warnings.push(`The start of the line lay ${share(behind)} inside the surface; the linearisation starts on the surface.`)
     }
   } else {
     // Outside: the surface must be within the tolerance ahead.
     let first = -1
     for (let k = 1; k <= 16; k++) if (heldAt(mesh, grid, a, b, (k / 16) * tau, tol)) { first = (k / 16) * tau; break }
-    if (first < 0) return `the start of the line lies outside the body (no material within ${len(tau * L)} of it along the line); put both ends on the wall's surfaces`
+    if (first < 0) return `the start of the line lies outside the body (no material within ${share(tau)} of it along the line); put both ends on the wall's surfaces`
     // The surface to a thousandth of the location tolerance, as the walk finds element exits.
     let lo = first - tau / 16, hi = first
     for (let it = 0; it < 200 && (hi - lo) * L > 1e-3 * tol; it++) {
@@ -169,20 +172,20 @@ export function materialPart(
       else lo = mid
     }
     tIn = hi
-    if (tIn > note) warnings.push(`The start of the line lay ${len(tIn * L)} outside the surface; the linearisation starts on the surface.`)
+    if (tIn > note) warnings.push(`The start of the line lay ${share(tIn)} outside the surface; the linearisation starts on the surface.`)
   }
   const walk = walkLine(mesh, grid, a, b, tIn, 1 + tau, tol)
   const end = walk.end
   if (end < 1 - tau) {
-    return `the line leaves the body ${len((end - tIn) * L)} after its start, ${len((1 - end) * L)} before its end; a linearisation needs material all along the line`
+    return `the line leaves the body at ${Number((100 * end).toPrecision(3))} % of its length from the start; a linearisation needs material all along the line`
   }
   let tOut: number
   if (end >= 1 + tau * (1 - 1e-9)) {
     tOut = 1
-    warnings.push(`The end of the line lies inside the body (the material continues more than ${len(tau * L)} beyond it), not on its surface: the linearisation is not through the whole wall.`)
+    warnings.push(`The end of the line lies inside the body (the material continues more than ${share(tau)} beyond it), not on its surface: the linearisation is not through the whole wall.`)
   } else {
     tOut = end
-    if (Math.abs(end - 1) > note) warnings.push(`The end of the line lay ${len(Math.abs(end - 1) * L)} ${end < 1 ? 'outside' : 'inside'} the surface; the linearisation ends on the surface.`)
+    if (Math.abs(end - 1) > note) warnings.push(`The end of the line lay ${share(Math.abs(end - 1))} ${end < 1 ? 'outside' : 'inside'} the surface; the linearisation ends on the surface.`)
   }
   return { tIn, tOut, walk }
 }

@@ -10,8 +10,9 @@
  *   evaluated outside it (the pyramid's rational functions are 0/0 above the apex);
  * - a singular Jacobian stops the iteration at the current iterate;
  * - a second start from the reference point of the node nearest to p is tried when the first,
- *   from the centroid, does not reach p (Newton on a strongly distorted element may stall on the
- *   boundary of the domain from a far start).
+ *   from the centroid, does not reach p but ends within a quarter of the element's size of it
+ *   (Newton on a strongly distorted element may stall on the boundary of the domain from a far
+ *   start; a point farther away is outside the element, and point location meets many of those).
  * The answer is the clamped ξ and the distance |x(ξ) − p| (model length units): zero to round-off
  * when p lies in the element (its interior or boundary), the distance to the point x(ξ) of the
  * element the iteration ended at otherwise. Callers decide "inside" by comparing it with a
@@ -43,14 +44,17 @@ export function invertElementMap(
   const first = newton(outXi, topo, coords, conn, base, px, py, pz)
   // Zero to round-off: nothing to gain from a second start.
   if (first === 0) return 0
-  // Second start: the reference point of the node nearest to p.
+  // Second start: the reference point of the node nearest to p (when p may still be inside).
   const nn = topo.nodeCount
-  let best = 0, bestD = Infinity
+  let best = 0, bestD = Infinity, size = 0
+  const n0 = conn[base]
   for (let a = 0; a < nn; a++) {
     const n = conn[base + a]
     const d = (coords[3 * n] - px) ** 2 + (coords[3 * n + 1] - py) ** 2 + (coords[3 * n + 2] - pz) ** 2
     if (d < bestD) { bestD = d; best = a }
+    size = Math.max(size, Math.abs(coords[3 * n] - coords[3 * n0]), Math.abs(coords[3 * n + 1] - coords[3 * n0 + 1]), Math.abs(coords[3 * n + 2] - coords[3 * n0 + 2]))
   }
+  if (first > 0.25 * size) return first
   const x0 = outXi[0], x1 = outXi[1], x2 = outXi[2]
   const r = topo.refCoords[best]
   // Start a little inside the domain: at a vertex several faces meet and the clamp pins the step.

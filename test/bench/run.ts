@@ -29,6 +29,7 @@ import { streamBytes, streamConnCoords, streamConnCoordsStress, streamText } fro
 import { baselineBoundary } from './baseline/boundaryBaseline.ts'
 import { baselineCut } from './baseline/cutBaseline.ts'
 import { growthExponent, measure } from './timing.ts'
+import { benchLines } from './lines.ts'
 import type { Timing } from './timing.ts'
 
 // ---------------------------------------------------------------- options
@@ -239,6 +240,10 @@ for (const k of KERNELS) {
   growth[k] = { exponent: growthExponent(growthSizes, times), timesMs: times }
 }
 
+// Lines through the model: grid, point location, sampling and linearisation (test/bench/lines.ts).
+log('lines: grid, point location, sampling, linearisation')
+const lines = benchLines(syntheticModel('tet4', ELEMENTS, SEED), SEED)
+
 const tet = models.tet4
 const k = tet.kernels
 const memLimit = memory.idleRssBytes + 3 * tet.modelBytes
@@ -267,6 +272,7 @@ const result = {
   models,
   growth: { elements: growthSizes, kernels: growth },
   sectionCutByType: cutByType,
+  lines,
   targets: targets.map((t) => ({ ...t, appliesAt: 'tet4, 10^6 elements' })),
   totalSeconds,
 }
@@ -312,6 +318,8 @@ function renderTables(): string {
   const g = [['kernel', ...growthSizes.map((s) => `${s} ms`), 'exponent']]
   for (const name of KERNELS) g.push([name, ...growth[name].timesMs.map((t) => f(t)), f(growth[name].exponent)])
   out.push(pad(g))
+  out.push('')
+  out.push(`Lines (tet4, ${lines.elements} elements): grid ${f(lines.gridMs)} ms (${f(lines.gridVsStreaming)} × streaming, ${f(lines.gridItemsPerElement)} entries per element), point location ${f(lines.locateUsPerPoint)} µs per point, 1000-point line ${f(lines.sampleMs)} ms, linearisation across the block ${f(lines.lineariseMs)} ms (${lines.segments} segments); checks ${Object.entries(lines.checks).map(([a, b]) => `${a} ${typeof b === 'number' ? f(b) : b}`).join(', ')}`)
   out.push('')
   out.push(`Memory (separate process: native read, boundary, audit, one cut; peak = VmHWM): peak ${f(memory.peakRssBytes / 1e6)} MB, idle ${f(memory.idleRssBytes / 1e6)} MB, limit idle + 3 × ${f(tet.modelBytes / 1e6)} MB = ${f(memLimit / 1e6)} MB`)
   out.push('')

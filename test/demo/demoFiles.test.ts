@@ -13,8 +13,8 @@ describe('bundled demo files', () => {
   const index = JSON.parse(readFileSync(join(root, 'index.json'), 'utf8')) as { scenarios: Entry[] }
   const committed = index.scenarios.filter((e) => !e.onDemand)
 
-  it('lists both scenarios, each saying it is invented', () => {
-    expect(committed.map((e) => e.id).sort()).toEqual(['lifting-lug', 'tunnel-block'])
+  it('lists the three scenarios, each saying it is invented', () => {
+    expect(committed.map((e) => e.id).sort()).toEqual(['lifting-lug', 'pipe-segment', 'tunnel-block'])
     for (const e of committed) {
       expect(e.description).toMatch(/invented/i)
       const meta = JSON.parse(readFileSync(join(root, e.id, 'model.json'), 'utf8')) as { description: string }
@@ -26,6 +26,18 @@ describe('bundled demo files', () => {
     const lug = committed.find((e) => e.id === 'lifting-lug')!
     expect(lug.description).toMatch(/qualified engineer/)
     expect(lug.description).toMatch(/codes/)
+  })
+
+  it('the pipe quotes the Lamé hoop stress to compare with, and carries displacement', () => {
+    const pipe = committed.find((e) => e.id === 'pipe-segment')!
+    // Lamé (Timoshenko & Goodier §28), a = 100, b = 130, p = 20: mean hoop p·a/(b − a) = 66.7 MPa,
+    // at the bore p(b² + a²)/(b² − a²) = 78.0 MPa.
+    expect(pipe.description).toMatch(/Lamé/)
+    expect(pipe.description).toMatch(/66\.7 MPa/)
+    expect(pipe.description).toMatch(/78\.0 MPa/)
+    const model = readNative(readFileSync(join(root, pipe.files.native)), pipe.files.native)
+    expect(model.displacement).not.toBeNull()
+    expect(model.units).toEqual({ length: 'mm', stress: 'MPa' })
   })
 
   it('native containers load and match the index; committed files stay under 15 MB', () => {

@@ -94,7 +94,10 @@ function ExtremesRows() {
   const surface = useStore((s) => s.surface)
   const model = useStore((s) => s.model)
   const q = quantityKind(quantity)
-  const at = (v: number): Vec3 | null => (surface && v >= 0 ? [surface.positions[3 * v], surface.positions[3 * v + 1], surface.positions[3 * v + 2]] : null)
+  // Round-off of the single-precision buffer below 10⁻⁹ of the model's size reads as zero.
+  const tiny = model ? 1e-9 * modelSphere(model.bounds).diagonal : 0
+  const clean = (x: number): number => (Math.abs(x) < tiny ? 0 : x)
+  const at = (v: number): Vec3 | null => (surface && v >= 0 ? [clean(surface.positions[3 * v]), clean(surface.positions[3 * v + 1]), clean(surface.positions[3 * v + 2])] : null)
   const frame = (p: Vec3): void => {
     if (!model) return
     useStore.getState().requestView({ frame: { center: p, radius: 0.08 * modelSphere(model.bounds).diagonal } })

@@ -31,7 +31,7 @@ export function DeformationCard() {
     <Card id="deformation" title="Deformed shape">
       <div className="row">
         <label className="check"><input type="checkbox" data-testid="deformation-shown" checked={d.shown} onChange={(e) => setDeformation({ shown: e.target.checked })} /> Show the deformed shape</label>
-        <label className="check"><input type="checkbox" data-testid="deformation-outline" checked={d.outline} disabled={!d.shown} onChange={(e) => setDeformation({ outline: e.target.checked })} /> undeformed outline</label>
+        <label className="check"><input type="checkbox" data-testid="deformation-outline" checked={d.outline} disabled={!d.shown} onChange={(e) => setDeformation({ outline: e.target.checked })} /> Undeformed outline</label>
       </div>
       <div className="row">
         <label className="check"><input type="checkbox" data-testid="deformation-auto" checked={auto} onChange={(e) => setDeformation({ scale: e.target.checked ? 'auto' : Number((scale || 1).toPrecision(3)) })} /> Automatic scale</label>

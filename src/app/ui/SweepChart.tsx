@@ -11,6 +11,7 @@ import type { ModelUnits, UnitSystem } from '../../model/units.ts'
 import { displayFactor, displayUnitLabel } from '../../model/units.ts'
 import type { SeriesKey, SweepReply } from '../../../workers/protocol.ts'
 import { formatNumber } from '../format.ts'
+import { useBoxWidth } from './useBoxWidth.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, zeroAlignedRanges } from '../sweepSeries.ts'
 
 export interface SweepChartProps {
@@ -70,18 +71,10 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
   const markerRef = useRef<number | null>(null)
   const pickRef = useRef(onPick)
   const [idx, setIdx] = useState<number | null>(null)
-  const [width, setWidth] = useState(320)
+  const width = useBoxWidth(box)
   pickRef.current = onPick
   const Lf = displayFactor(units, 'length', system)
   markerRef.current = marker === null ? null : marker * Lf
-
-  useEffect(() => {
-    const el = box.current
-    if (!el) return
-    const ro = new ResizeObserver(() => setWidth(Math.max(200, Math.floor(el.clientWidth))))
-    ro.observe(el)
-    return () => ro.disconnect()
-  }, [])
 
   const keys = SERIES.filter((s) => shown[s.key])
   const shownKey = keys.map((s) => s.key).join(',')

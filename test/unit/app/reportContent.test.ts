@@ -63,3 +63,26 @@ describe('review report content', () => {
     expect((c.blocks[0] as ReportTable).note).toBe('The plane misses the body.')
   })
 })
+
+describe('review report: a line through the model', () => {
+  const n = 5
+  const line = {
+    from: [0, 0, 0], to: [0, 1, 0], length: 1, axes: { kind: 'global' }, criterion: 'vonMises',
+    points: Float64Array.from({ length: 3 * n }, (_, i) => (i % 3 === 1 ? Math.floor(i / 3) / (n - 1) : 0)),
+    distance: Float64Array.from({ length: n }, (_, i) => i / (n - 1)),
+    stress: new Float64Array(6 * n).fill(2e6), components: new Float64Array(6 * n).fill(2e6),
+    vonMises: new Float64Array(n).fill(1e6), principal: new Float64Array(3 * n).fill(2e6),
+    displacement: null, displacementComponents: null, held: Uint8Array.from([1, 1, 1, 1, 0]),
+    linearisation: null, refused: 'the line leaves the body 0.75 after its start', warnings: [], outside: false,
+  } as never
+  it('adds the diagram, the refusal and the points with the gap marked', () => {
+    const c = buildReportContent(input({ line, lineShown: { s0: true, s1: false, s2: false, s3: false, s4: false, s5: false, vonMises: true, principal1: false, principal3: false, displacement: false } }))
+    expect(c.blocks.slice(-3).map((b) => b.id)).toEqual(['diagram-line', 'linearisation', 'line'])
+    expect(table(c, 'linearisation').note).toBe('Not linearised: the line leaves the body 0.75 after its start.')
+    const points = table(c, 'line')
+    expect(points.rows).toHaveLength(5)
+    // 2e6 Pa = 2 MPa (SI display), the last point outside the body.
+    expect(points.rows[0][1]).toBe('2')
+    expect(points.rows[4][1]).toBe('outside the body')
+  })
+})

@@ -8,7 +8,8 @@
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
-import { autoDeformationScale, deformPoints, gatherNodalVectors, maxDisplacement, surfaceDisplacement } from '../../../src/mechanics/deformation.ts'
+import { autoDeformationScale, deformPoints, displacementOnPolygons, faceMeanVectors, gatherNodalVectors, maxDisplacement, meanOverItems, surfaceDisplacement } from '../../../src/mechanics/deformation.ts'
+import { cutSection } from '../../../src/mechanics/sectionCut.ts'
 import { buildSurfaceTriangles } from '../../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../../src/mechanics/featureEdges.ts'
 import { runCore } from '../../helpers/pipeline.ts'
@@ -63,6 +64,33 @@ describe('deformed shape', () => {
       expect(drawn[i]).toBeCloseTo(pos[i] + s * 1e-3 * pos[i + 1], 5)
       expect(drawn[i + 1]).toBeCloseTo(pos[i + 1] + s * 1e-3 * pos[i], 5)
     }
+  })
+
+  it('the section face and the arrows move with the material: u = εx at every section vertex', () => {
+    // Any element reproduces a linear displacement field exactly (isoparametric; common practice).
+    const eps = [[2e-3, 5e-4, 0], [0, -1e-3, 3e-4], [1e-4, 0, 5e-4]]
+    const { mesh, u } = strained(eps)
+    const { polygons } = cutSection(mesh, new Float64Array(6 * mesh.nodeCount), [0, 0, 0], { point: [1.3, 0.7, 0.4], normal: [1, 0.3, 0.2] }, { polygons: true })
+    const pu = displacementOnPolygons(mesh, u, polygons!)
+    const x = polygons!.positions
+    expect(polygons!.count).toBeGreaterThan(4)
+    for (let v = 0; v < x.length / 3; v++) for (let r = 0; r < 3; r++) {
+      expect(pu[3 * v + r]).toBeCloseTo(eps[r][0] * x[3 * v] + eps[r][1] * x[3 * v + 1] + eps[r][2] * x[3 * v + 2], 14)
+    }
+    // An arrow moves with the mean of its polygon's vertices, or of its face's nodes.
+    const items = Int32Array.from([0, polygons!.count - 1])
+    const m = meanOverItems(items, polygons!.start, pu)
+    const s0 = polygons!.start[0], s1 = polygons!.start[1]
+    let mx = 0
+    for (let v = s0; v < s1; v++) mx += pu[3 * v] / (s1 - s0)
+    expect(m[0]).toBeCloseTo(mx, 7)
+    const faces = extractBoundaryFaces(mesh)
+    const fm = faceMeanVectors(faces, u, Int32Array.from([0]))
+    const du = surfaceDisplacement(faces, u)
+    // tet10 faces are tri6: the mean over the face's six nodes.
+    let fx = 0
+    for (let a = 0; a < 6; a++) fx += du[3 * a] / 6
+    expect(fm[0]).toBeCloseTo(fx, 7)
   })
 
   it('the automatic scale draws the largest displacement as 5 % of the diagonal', () => {

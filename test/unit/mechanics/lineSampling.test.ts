@@ -174,8 +174,9 @@ describe('the material part of a line', () => {
     const r = run([1.3, -0.01, 0.4], [1.3, 1.005, 0.4])
     expect(r.refused).toBeNull()
     expect(r.linearisation!.thickness).toBeCloseTo(1, 10)
-    expect(r.warnings.join(' ')).toMatch(/start of the line lay 0\.01 outside the surface/)
-    expect(r.warnings.join(' ')).toMatch(/end of the line lay 0\.005 outside the surface/)
+    // The line is 1.015 long: 0.01 and 0.005 of it are 0.985 % and 0.493 %.
+    expect(r.warnings.join(' ')).toMatch(/start of the line lay 0\.985 % of the line's length outside the surface/)
+    expect(r.warnings.join(' ')).toMatch(/end of the line lay 0\.493 % of the line's length outside the surface/)
   })
 
   it('an end inside the body is kept with a warning (not through the whole wall)', () => {
@@ -199,7 +200,8 @@ describe('the material part of a line', () => {
     ]), [{ type: 'hex8', conn: Int32Array.from([0, 1, 3, 2, 4, 5, 7, 6, 8, 9, 11, 10, 12, 13, 15, 14]) }])
     const g = buildElementGrid(l)
     const r = analyseLine(l, g, nodalStressField(l, randomStress(l, 3)), null, { from: [0, 0.5, 0.5], to: [3, 0.5, 0.5], points: 7 })
-    expect(r.refused).toMatch(/leaves the body 1 after its start/)
+    // Material ends at x = 1 of a line from x = 0 to 3: a third of its length.
+    expect(r.refused).toMatch(/leaves the body at 33\.3 % of its length from the start/)
     expect(Array.from(r.samples.held, (h) => h > 0)).toEqual([true, true, true, false, true, true, true])
   })
 

@@ -92,3 +92,26 @@ describe('probe errors', () => {
     expect(() => stressInElement(mesh, new Float64Array(6 * mesh.nodeCount), 99, [0, 0, 0], new Float64Array(6))).toThrow(/element index 99/)
   })
 })
+
+describe('probe on the deformed shape', () => {
+  // A shear displacement u = (γ z, 0, 0) (a homogeneous deformation; Malvern 1969, ch. 4) drawn at
+  // scale s moves the top face z = 1 by s·γ along x: a ray straight down at x = px meets the drawn
+  // top over the material point x = px − s·γ, and the probe reads that point.
+  it('reads the material point under the drawn surface, and its displacement', () => {
+    for (const type of ['hex8', 'tet10'] as const) {
+      const box = boxMesh({ nx: 2, ny: 2, nz: 1, lx: 2, ly: 2, lz: 1 }, type)
+      const stress = stressField(box, (x, y, z) => linear(x, y, z))
+      const u = new Float64Array(3 * box.nodeCount)
+      for (let i = 0; i < box.nodeCount; i++) u[3 * i] = 1e-3 * box.coords[3 * i + 2]
+      const faces = extractBoundaryFaces(box)
+      const s = 200, px = 1.3, py = 0.7
+      const hit = probeModel(box, stress, faces, null, { ray: { origin: [px, py, 5], direction: [0, 0, -1] }, section: null, deformScale: s }, u)!
+      expect(hit.position[0]).toBeCloseTo(px - s * 1e-3, 12)
+      expect(hit.position[1]).toBeCloseTo(py, 12)
+      expect(hit.position[2]).toBeCloseTo(1, 12)
+      expect(hit.displacement![0]).toBeCloseTo(1e-3, 12)
+      const want = linear(...hit.position)
+      for (let k = 0; k < 6; k++) expect(Math.abs(hit.stress[k] - want[k])).toBeLessThan(1e-9)
+    }
+  })
+})
