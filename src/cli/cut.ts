@@ -12,6 +12,34 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
+import { projectReference } from '../mechanics/sectionAxes.ts'
+import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
+import type { Vec3 } from '../model/model.ts'
+import type { OptionSpec, ParsedArgs } from './args.ts'
+
+/** `--reference rx,ry,rz`, shared by `cut` and `sweep`. */
+export const REFERENCE_OPTION: OptionSpec = {
+  name: 'reference', kind: 'vec3', value: 'rx,ry,rz',
+  help: 'resolve the resultant in reference axes: e1 = the projection of this direction onto the plane (not parallel to the normal); principal axes by default',
+}
+
+export const SECTION_AXES_DETAILS = 'Section axes: e3 = m; by default e1, e2 are the principal axes of the section area (I1 ≥ I2), and where I1 and I2 are within 1 % e1 follows the reference direction (the first of x, y, z whose projection onto the plane is longest); with --reference, e1 is the projection of the given direction onto the plane. axial = F·e3, shear = [F·e1, F·e2], torque = M·e3, bending = [M·e1, M·e2]; I1, I2, I12 are about e1 and e2. JSON "axes" says which: {kind, reference, followsReference, e1, e2, e3}.'
+
+/** The axes choice of `--reference` (reference axes), else principal axes; a reference parallel to `normal` is an input error. */
+export function axesOption(args: ParsedArgs, normal: Vec3): SectionAxesChoice {
+  const r = args.options.reference
+  if (!Array.isArray(r)) return { kind: 'principal' }
+  const reference: Vec3 = [r[0], r[1], r[2]]
+  const l = Math.hypot(...normal)
+  projectReference([normal[0] / l, normal[1] / l, normal[2] / l], reference, 'reference')
+  return { kind: 'reference', reference }
+}
+
+/** "principal", "principal (I1 and I2 within 1 %: e1 follows the reference (0, 1, 0))" or "reference (0, 1, 0)". */
+export function axesWords(r: SectionResult): string {
+  if (r.axes.kind === 'reference') return `reference ${vecPlain(r.axes.reference)}: e1 is its projection onto the plane`
+  return r.axes.followsReference ? `principal; I1 and I2 within 1 %, so e1 follows the reference ${vecPlain(r.axes.reference)}` : 'principal (I1 ≥ I2)'
+}
 
 /** The documented JSON fields of one section (shared with `sweep`), in the view's units. */
 export function sectionJson(r: SectionResult, u: UnitView): Record<string, unknown> {
@@ -24,8 +52,11 @@ export function sectionJson(r: SectionResult, u: UnitView): Record<string, unkno
     about: vecJson(r.about, 'length', u),
     force: vecJson(r.force, 'force', u),
     moment: vecJson(r.moment, 'moment', u),
-    axes: { e1: vecJson(r.axes.e1, null, u), e2: vecJson(r.axes.e2, null, u), e3: vecJson(r.axes.e3, null, u) },
-    secondMoments: { I1: r.secondMoments.I1 * fi, I2: r.secondMoments.I2 * fi, J: r.secondMoments.J * fi },
+    axes: {
+      kind: r.axes.kind, reference: vecJson(r.axes.reference, null, u), followsReference: r.axes.followsReference,
+      e1: vecJson(r.axes.e1, null, u), e2: vecJson(r.axes.e2, null, u), e3: vecJson(r.axes.e3, null, u),
+    },
+    secondMoments: { I1: r.secondMoments.I1 * fi, I2: r.secondMoments.I2 * fi, I12: r.secondMoments.I12 * fi, J: r.secondMoments.J * fi },
     axial: r.axial * ff,
     shear: [r.shear[0] * ff, r.shear[1] * ff],
     torque: r.torque * fm,
@@ -43,27 +74,29 @@ export function sectionJson(r: SectionResult, u: UnitView): Record<string, unkno
 export const cutCommand: Command = {
   name: 'cut',
   summary: 'force and moment across a section plane, in global and section axes',
-  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--reference rx,ry,rz] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
   options: [
     { name: 'point', kind: 'vec3', value: 'x,y,z', required: true, help: 'a point on the plane (model length units)' },
     { name: 'normal', kind: 'vec3', value: 'nx,ny,nz', required: true, help: 'plane normal m (any length, not zero)' },
     { name: 'about', kind: 'vec3', value: 'x,y,z', help: 'moment reference point (model length units); the section centroid by default' },
+    REFERENCE_OPTION,
     JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION,
   ],
   details: [
     'The resultant is what the material on the +m side exerts on the material on the -m side: F = ∫σm dA, M = ∫(x - about) × σm dA.',
-    'Section axes: e3 = m, e1 and e2 the principal axes of the section area (I1 ≥ I2). axial = F·e3, shear = [F·e1, F·e2], torque = M·e3, bending = [M·e1, M·e2].',
+    SECTION_AXES_DETAILS,
     'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is over that piece\'s gross load.',
   ].join('\n'),
   run(args, io) {
     const plane = makePlane(vecOption(args, 'point')!, vecOption(args, 'normal')!)
     const about = vecOption(args, 'about')
+    const axes = axesOption(args, plane.normal)
     const loaded = loadModel(args.positionals[0])
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
-    const { result: r } = cutSection(model.mesh, model.stress, bodyForce, plane, { about, polygons: false })
+    const { result: r } = cutSection(model.mesh, model.stress, bodyForce, plane, { about, polygons: false, axes })
     if (args.options.json) {
       printJson(io, { file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u) })
       return 0
@@ -82,10 +115,11 @@ export function sectionText(r: SectionResult, u: UnitView, heading: string): str
     ['cut elements', String(r.cutElements)],
     ['force F', vecQty(r.force, 'force', u)],
     ['moment M', vecQty(r.moment, 'moment', u)],
+    ['section axes', axesWords(r)],
     ['axis e1', vecPlain(r.axes.e1)],
     ['axis e2', vecPlain(r.axes.e2)],
     ['axis e3 = m', vecPlain(r.axes.e3)],
-    ['I1, I2, J', `${num(r.secondMoments.I1 * u.factor('secondMoment'))}, ${num(r.secondMoments.I2 * u.factor('secondMoment'))}, ${num(r.secondMoments.J * u.factor('secondMoment'))} ${u.label('secondMoment')}`],
+    ['I1, I2, I12, J', [r.secondMoments.I1, r.secondMoments.I2, r.secondMoments.I12, r.secondMoments.J].map((v) => num(v * u.factor('secondMoment'))).join(', ') + ` ${u.label('secondMoment')}`],
     ['axial N', qty(r.axial, 'force', u)],
     ['shear V1, V2', `${num(r.shear[0] * u.factor('force'))}, ${num(r.shear[1] * u.factor('force'))} ${u.label('force')}`],
     ['torque T', qty(r.torque, 'moment', u)],

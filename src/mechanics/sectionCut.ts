@@ -21,6 +21,7 @@ import {
 } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
+import type { SectionAxesChoice } from './sectionAxes.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
 import { nodalStressField } from '../model/stressField.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionResult, SurfaceTractions } from './types.ts'
@@ -36,6 +37,8 @@ export interface CutSectionOptions {
   readonly tractions?: SurfaceTractions
   /** Also return the section polygons for drawing (off by default: it allocates). */
   readonly polygons?: boolean
+  /** Section axes: principal (the default) or reference, with the reference direction (sectionAxes.ts). */
+  readonly axes?: SectionAxesChoice
 }
 
 /**
@@ -69,7 +72,7 @@ export function cutSection(
   for (const block of mesh.blocks) cutBlock(acc, sc, d, coords, stress, block.type, block.conn, block.offset, frame, collect, m)
   const polygons = collect ? collect.finish() : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
-  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about), polygons }
+  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons }
 
   const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
@@ -80,7 +83,7 @@ export function cutSection(
   const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
   const Ms = momentAboutCentroid(acc, 0, c, frame)
   const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce)
-  return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody), polygons }
+  return { result: sectionRecord(acc, 0, point, m, frame, about, freeBody, options.axes), polygons }
 }
 
 // The passes below are separate functions so that each is optimised with its own type feedback:

@@ -24,6 +24,7 @@ import {
   ACC_AREA, ACC_FORCE, ACC_SIZE, createPolygonScratch, crossingCases, elementPolygon, integratePolygon, sectionFrame,
 } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
+import type { SectionAxesChoice } from './sectionAxes.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
 import { nodalStressField } from '../model/stressField.ts'
 import type { BoundaryFaces, SectionResult, SurfaceTractions } from './types.ts'
@@ -33,6 +34,8 @@ export interface SweepOptions {
   readonly faces?: BoundaryFaces
   /** Precomputed tractions on `faces`, reused across calls. */
   readonly tractions?: SurfaceTractions
+  /** Section axes of every section: one choice and one reference for the whole sweep (sectionAxes.ts). */
+  readonly axes?: SectionAxesChoice
 }
 
 /** Largest number of sections one sweep computes (about 45 doubles of accumulators each). */
@@ -152,11 +155,11 @@ export function sweepSections(
     const j = descending ? count - 1 - k : k
     const off = j * ACC_SIZE
     const point: Vec3 = [offsets[k] * m[0], offsets[k] * m[1], offsets[k] * m[2]]
-    if (!(acc[off + ACC_AREA] > 0)) { results.push(emptySection(point, m, frame, null)); continue }
+    if (!(acc[off + ACC_AREA] > 0)) { results.push(emptySection(point, m, frame, null, options.axes)); continue }
     const c = cen.subarray(3 * j, 3 * j + 3)
     const Fs: Vec3 = [acc[off + ACC_FORCE], acc[off + ACC_FORCE + 1], acc[off + ACC_FORCE + 2]]
     const freeBody = closeFreeBody(fb, j * FB_SIZE, c, g, acc[off + ACC_AREA], m, Fs, momentAboutCentroid(acc, off, c, frame), bodyForce)
-    results.push(sectionRecord(acc, off, point, m, frame, null, freeBody))
+    results.push(sectionRecord(acc, off, point, m, frame, null, freeBody, options.axes))
   }
   return { offsets, results }
 }

@@ -5,6 +5,7 @@
  */
 import type { Vec3 } from '../model/model.ts'
 import type { Plane } from './plane.ts'
+import type { SectionAxes } from './sectionAxes.ts'
 
 /**
  * The largest stride of per-face-node arrays (a quad8 face): an upper bound for `BoundaryFaces.slots`,
@@ -147,7 +148,9 @@ export type SectionPlane = Plane
 /**
  * Section result by the section convention of DEVELOPERS.md (Conventions): force and moment the material on the +m side
  * exerts on the material on the -m side: F = ∫ σm dA, M = ∫ (x - about) × σm dA.
- * Section axes: e3 = m, e1/e2 principal axes of the section area (I1 ≥ I2).
+ * Section axes (sectionAxes.ts): e3 = m, e1/e2 the principal axes of the section area (I1 ≥ I2;
+ * where I1 and I2 are within 1 %, e1 follows the reference direction) or the reference axes (e1 the
+ * projection of the reference direction onto the plane); `axes` says which.
  * `axial` = F·e3, `shear` = [F·e1, F·e2], `torque` = M·e3, `bending` = [M·e1, M·e2].
  * `freeBody`: residual of the cut-off piece on the -m side (boundary tractions clipped by the plane
  * + body force on the clipped volume + section resultant), relative to that piece's gross load.
@@ -161,9 +164,12 @@ export interface SectionResult {
   readonly about: Vec3
   readonly force: Vec3
   readonly moment: Vec3
-  readonly axes: { readonly e1: Vec3; readonly e2: Vec3; readonly e3: Vec3 }
-  /** Principal second moments of area about the centroid, I1 ≥ I2, and the polar moment J = I1 + I2. */
-  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly J: number }
+  readonly axes: SectionAxes
+  /**
+   * Second moments of area about the centroid: I1 about e1, I2 about e2, their product
+   * I12 = ∫ (x·e1)(x·e2) dA (0 for principal axes, where I1 ≥ I2), the polar moment J = I1 + I2.
+   */
+  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly I12: number; readonly J: number }
   readonly axial: number
   readonly shear: [number, number]
   readonly torque: number

@@ -103,6 +103,37 @@ describe('tractus cut', () => {
     close(j.freeBody.relative, r.freeBody.relative)
   })
 
+  it('says which section axes it used: principal by default, reference axes with --reference', async () => {
+    const point: Vec3 = [0.41, 0.52, 0.47], normal: Vec3 = [0.2, -0.3, 1]
+    const p = await cliJson('cut', bundle, '--point', point.join(','), '--normal', normal.join(','))
+    expect(p.axes.kind).toBe('principal')
+    expect(p.axes.reference).toEqual([1, 0, 0]) // the first of x, y, z with the longest projection
+    const reference: Vec3 = [0, 1, 0]
+    const j = await cliJson('cut', bundle, '--point', point.join(','), '--normal', normal.join(','), '--reference', reference.join(','))
+    const r = cutSection(model.mesh, model.stress, model.bodyForce, { point, normal }, { axes: { kind: 'reference', reference } }).result
+    expect(j.axes.kind).toBe('reference')
+    expect(j.axes.reference).toEqual([0, 1, 0])
+    closeVec(j.axes.e1, r.axes.e1)
+    closeVec(j.axes.e2, r.axes.e2)
+    // e1 is the projection of y onto the plane, so it lies in the plane.
+    const m = Math.hypot(...normal)
+    expect(Math.abs(j.axes.e1[0] * normal[0] + j.axes.e1[1] * normal[1] + j.axes.e1[2] * normal[2]) / m).toBeLessThan(1e-12)
+    closeVec([...j.bending, 0], [...r.bending, 0])
+    close(j.secondMoments.I12, r.secondMoments.I12)
+    const table = await cli('cut', bundle, '--point', point.join(','), '--normal', normal.join(','), '--reference', '0,1,0')
+    expect(table.stdout).toMatch(/section axes\s+reference \(0, 1, 0\)/)
+    const sweep = await cliJson('sweep', bundle, '--normal', '1,0,0', '--from', '0.2', '--to', '0.8', '--count', '3', '--reference', '0,1,1')
+    expect(sweep.axes.kind).toBe('reference')
+    closeVec(sweep.axes.reference, [0, Math.SQRT1_2, Math.SQRT1_2])
+    for (const sec of sweep.sections) expect(sec.axes.kind).toBe('reference')
+  })
+
+  it('refuses a reference parallel to the normal (exit 2, the message names both)', async () => {
+    const out = await cli('cut', bundle, '--point', '0.5,0.5,0.5', '--normal', '0,0,2', '--reference', '0,0,-1')
+    expect(out.code).toBe(2)
+    expect(out.stderr).toMatch(/reference direction \(0, 0, -1\) is parallel to the section normal \(0, 0, 1\)/)
+  })
+
   it('converts to US customary units with the NIST SP 811 factors', async () => {
     const args = ['cut', uniform, '--point', '0.73,0.5,0.5', '--normal', '1,0,0']
     const si = await cliJson(...args)
