@@ -111,6 +111,8 @@ export interface BodyBalance extends BalanceFigure {
 export interface LoadPatch {
   readonly id: number
   readonly faceCount: number
+  /** Part number of its faces (a patch never spans two parts; 0 where the model has no parts). */
+  readonly part: number
   readonly area: number
   readonly centroid: Vec3
   /**
@@ -132,8 +134,15 @@ export interface LoadPatches {
   readonly patches: readonly LoadPatch[]
   /** Int32Array(F): patch id per boundary face, -1 for the nominally free surface. */
   readonly faceLabel: Int32Array
-  /** The threshold used, in stress units, and the reference stress it was derived from. */
+  /**
+   * The thresholds used, in stress units (a face above `threshold` starts a patch, one above
+   * `lowerThreshold` may join one), the reference stress they were derived from, the fractions
+   * of it they are, and the feature angle (degrees) at which patches split.
+   */
   readonly threshold: number
+  readonly lowerThreshold: number
+  readonly fractions: { readonly threshold: number; readonly lowerThreshold: number }
+  readonly featureAngle: number
   readonly referenceStress: number
   /**
    * Traction left on the nominally free surface: area, ∫|t| dA / area (mean), its ratio to the

@@ -189,6 +189,28 @@ describe('tractus audit', () => {
     close(j.freeSurface.mean, lp.freeSurface.mean)
   })
 
+  it('takes the patch rule\'s lower threshold and feature angle, and says what it used', async () => {
+    const j = await cliJson('audit', bundle, '--threshold', '0.1', '--lower-threshold', '0.02', '--feature-angle', '60')
+    expect(j.thresholdFraction).toBe(0.1)
+    expect(j.lowerThresholdFraction).toBe(0.02)
+    expect(j.featureAngle).toBe(60)
+    close(j.lowerThreshold, 0.2 * j.threshold)
+    const f = extractBoundaryFaces(model.mesh)
+    const t = computeSurfaceTractions(allocateSurfaceTractions(f), model.mesh, nodalStressField(model.mesh, model.stress), f)
+    const inv = computeNodalInvariants(allocateNodalInvariants(model.mesh.nodeCount), model.stress)
+    const lp = findLoadPatches(model.mesh, f, t, inv.vonMises, { threshold: 0.1, lowerThreshold: 0.02, featureAngle: 60 })
+    expect(j.patches.length).toBe(lp.patches.length)
+    j.patches.forEach((p: { force: number[]; moment: number[]; part: number }, i: number) => {
+      closeVec(p.force, lp.patches[i].force)
+      closeVec(p.moment, lp.patches[i].moment)
+      expect(p.part).toBe(lp.patches[i].part)
+    })
+    const bad = await cli('audit', bundle, '--threshold', '0.02', '--lower-threshold', '0.05')
+    expect(bad.code).toBe(1)
+    expect(bad.stderr).toMatch(/--lower-threshold \(0\.05\) must not exceed --threshold \(0\.02\)/)
+    expect((await cli('audit', bundle, '--feature-angle', '200')).code).toBe(1)
+  })
+
   it('finds a uniform stress state in balance (Cauchy: ∮σn dA = 0 for constant σ)', async () => {
     const j = await cliJson('audit', uniform)
     for (const v of j.balance.force) expect(Math.abs(v)).toBeLessThan(1e-6)
