@@ -12,7 +12,7 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
-import { projectReference } from '../mechanics/sectionAxes.ts'
+import { describeAxes, projectReference } from '../mechanics/sectionAxes.ts'
 import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
 import type { Vec3 } from '../model/model.ts'
 import type { OptionSpec, ParsedArgs } from './args.ts'
@@ -33,12 +33,6 @@ export function axesOption(args: ParsedArgs, normal: Vec3): SectionAxesChoice {
   const l = Math.hypot(...normal)
   projectReference([normal[0] / l, normal[1] / l, normal[2] / l], reference, 'reference')
   return { kind: 'reference', reference }
-}
-
-/** "principal", "principal (I1 and I2 within 1 %: e1 follows the reference (0, 1, 0))" or "reference (0, 1, 0)". */
-export function axesWords(r: SectionResult): string {
-  if (r.axes.kind === 'reference') return `reference ${vecPlain(r.axes.reference)}: e1 is its projection onto the plane`
-  return r.axes.followsReference ? `principal; I1 and I2 within 1 %, so e1 follows the reference ${vecPlain(r.axes.reference)}` : 'principal (I1 ≥ I2)'
 }
 
 /** The documented JSON fields of one section (shared with `sweep`), in the view's units. */
@@ -115,7 +109,7 @@ export function sectionText(r: SectionResult, u: UnitView, heading: string): str
     ['cut elements', String(r.cutElements)],
     ['force F', vecQty(r.force, 'force', u)],
     ['moment M', vecQty(r.moment, 'moment', u)],
-    ['section axes', axesWords(r)],
+    ['section axes', describeAxes(r.axes)],
     ['axis e1', vecPlain(r.axes.e1)],
     ['axis e2', vecPlain(r.axes.e2)],
     ['axis e3 = m', vecPlain(r.axes.e3)],

@@ -145,6 +145,17 @@ export function resolveSectionAxes(
   return { axes: { kind, reference, e1, e2, e3: m, followsReference }, I1, I2, I12 }
 }
 
+/** The axes in words, for tables and cards: which kind, and why e1 lies where it does. */
+export function describeAxes(axes: SectionAxes): string {
+  const r = fmt(axes.reference.map((v) => (Math.abs(v) < 1e-12 ? 0 : v)))
+  if (axes.kind === 'reference') return `reference axes: e1 is the projection of ${r} onto the plane`
+  if (axes.followsReference) return `principal axes; I1 and I2 are within 1 %, so e1 follows the reference ${r}`
+  const along = axes.e1[0] * axes.reference[0] + axes.e1[1] * axes.reference[1] + axes.e1[2] * axes.reference[2]
+  return Math.abs(along) <= 1e-9
+    ? `principal axes (I1 ≥ I2); e1 is perpendicular to the reference ${r}, so e2 lies along it`
+    : `principal axes (I1 ≥ I2), e1 signed towards the reference ${r}`
+}
+
 function cross(a: Vec3, b: Vec3): Vec3 {
   return [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]]
 }

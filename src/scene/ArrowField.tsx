@@ -16,14 +16,17 @@ export interface ArrowFieldProps {
   /** Model bounding-box diagonal, length units. */
   readonly diagonal: number
   readonly colourMap: ColourMapName
-  readonly colour: 'magnitude' | 'single'
+  /** Range of the signed normal traction over the map (stress units); null: one colour. */
+  readonly colourRange: readonly [number, number] | null
+  /** Magnitude drawn at the full arrow length (stress units), shared by the fields on screen. */
+  readonly reference: number
   readonly clippingPlanes: Plane[]
 }
 
 const noRaycast = (): void => {}
 
 /** Traction arrows as one instanced mesh: one draw call whatever the count. */
-export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippingPlanes }: ArrowFieldProps) {
+export function ArrowField({ arrows, scale, diagonal, colourMap, colourRange, reference, clippingPlanes }: ArrowFieldProps) {
   const invalidate = useThree((s) => s.invalidate)
   const count = arrows.magnitudes.length
   const material = useMemo(() => createArrowMaterial(clippingPlanes), [clippingPlanes])
@@ -40,12 +43,14 @@ export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippin
   // The geometry is shared; only the instance buffers belong to this mesh.
   useEffect(() => () => { mesh.dispose() }, [mesh])
 
+  const lo = colourRange ? colourRange[0] : 0, hi = colourRange ? colourRange[1] : 0
+  const single = colourRange === null
   useEffect(() => {
     const unit = ARROW_LENGTH_FRACTION * scale * diagonal
-    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, colour === 'magnitude')
-    material.uniforms.useSingle.value = colour === 'single' ? 1 : 0
+    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, single ? null : [lo, hi], reference)
+    material.uniforms.useSingle.value = single ? 1 : 0
     invalidate()
-  }, [mesh, material, arrows, scale, diagonal, colourMap, colour, invalidate])
+  }, [mesh, material, arrows, scale, diagonal, colourMap, single, lo, hi, reference, invalidate])
 
   if (count === 0) return null
   return <primitive object={mesh} />

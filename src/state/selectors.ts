@@ -4,7 +4,7 @@
  */
 import type { Plane } from '../mechanics/plane.ts'
 import { unitNormal } from '../mechanics/plane.ts'
-import type { ColourMapName, QuantityName, SectionState, TractusData } from './store.ts'
+import type { CameraState, ColourMapName, QuantityName, SectionState, TractusData } from './store.ts'
 
 /** Signed quantities get a diverging map centred on zero; magnitudes a sequential one. */
 export function isSignedQuantity(q: QuantityName): boolean {
@@ -42,4 +42,18 @@ export function modelSphere(bounds: { readonly min: readonly number[]; readonly 
   const { min, max } = bounds
   const diagonal = Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) || 1
   return { center: [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2], radius: diagonal / 2, diagonal }
+}
+
+/**
+ * The side of the section hidden in the scene: `hide`, with 'auto' resolved to the side the
+ * camera is on (so the cut face, which looks towards the hidden side, faces the camera); the +n
+ * side before any camera is known.
+ */
+export function resolvedHide(s: SectionState, camera: CameraState | null): 'positive' | 'negative' | 'none' {
+  if (s.hide !== 'auto') return s.hide
+  if (!camera) return 'positive'
+  const { point, normal } = sectionPlaneOf(s)
+  const c = camera.position
+  const side = (c[0] - point[0]) * normal[0] + (c[1] - point[1]) * normal[1] + (c[2] - point[2]) * normal[2]
+  return side >= 0 ? 'positive' : 'negative'
 }

@@ -39,6 +39,7 @@ class FakeWorker {
     cut: (plane, arrows) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, reply }); return reply.promise },
     probe: async () => null,
     sweep: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    patches: async () => ({ ok: false, error: { message: 'not in this test' } }),
     dispose: async () => undefined,
   }
 }

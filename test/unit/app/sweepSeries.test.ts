@@ -10,7 +10,7 @@ function reply(): SweepReply {
     normal: [0, 1, 0], extent: [0, 200], offsets: f(10, 100, 190),
     axial: f(43290, 43000, 0), shear1: f(0, 1, 0), shear2: f(25000, 25000, 0),
     torque: f(0, 0, 0), bending1: f(-3.589e6, -1e6, 0), bending2: f(0, 0, 0),
-    freeBodyRelative: f(0.006, 0.011, 0), empty: Uint8Array.from([0, 0, 1]),
+    freeBodyRelative: f(0.006, 0.011, 0), empty: Uint8Array.from([0, 0, 1]), axes: { kind: 'principal', reference: [1, 0, 0] },
   }
 }
 
