@@ -117,7 +117,8 @@ function equilibriumTable(a: AuditSummary, input: ReportInput): ReportTable {
   }
 }
 
-function patchTable(a: AuditSummary, input: ReportInput): ReportTable {
+/** The patches in two tables: their figures, then their vectors (one wide table would not fit a page). */
+function patchTables(a: AuditSummary, input: ReportInput): ReportTable[] {
   const sys = input.system
   const L = displayUnitLabel('length', sys), A = displayUnitLabel('area', sys), F = displayUnitLabel('force', sys), M = displayUnitLabel('moment', sys), S = displayUnitLabel('stress', sys)
   const rows = a.patches.map((p) => patchRow(p, input.model.units, sys))
@@ -125,16 +126,24 @@ function patchTable(a: AuditSummary, input: ReportInput): ReportTable {
   const lFloor = noiseFloor([], convert(modelSize(input.model), input.model.units, 'length', sys))
   const parts = new Set(rows.map((r) => r.part)).size > 1
   const rule = a.fractions ? `Patches: ${patchRuleText(a)}. ` : ''
-  return {
+  const figures: ReportTable = {
     kind: 'table', id: 'patches', heading: 'Load-entry patches',
     note: `${rule}Start level ${fmt(convert(a.threshold, input.model.units, 'stress', sys))} ${S}` +
       (a.lowerThreshold !== undefined ? `, join level ${fmt(convert(a.lowerThreshold, input.model.units, 'stress', sys))} ${S}.` : '.') + (a.patches.length ? '' : ' None were found.'),
-    head: ['#', ...(parts ? ['Part'] : []), 'Faces', `Area [${A}]`, `Centroid [${L}]`, `Force [${F}]`, `|F| [${F}]`, `Moment about centroid [${M}]`, `|M| [${M}]`, `Peak |t| [${S}]`, `Mean |t| [${S}]`],
+    head: ['#', ...(parts ? ['Part'] : []), 'Faces', `Area [${A}]`, `|F| [${F}]`, `|M| about centroid [${M}]`, `Peak |t| [${S}]`, `Mean |t| [${S}]`],
     rows: rows.map((r) => [
-      String(r.id), ...(parts ? [String(r.part)] : []), String(r.faces), fmt(r.area), vec(r.centroid, lFloor), vec(r.force, fFloor), fmt(denoise(r.forceMagnitude, fFloor)),
-      vec(r.moment, mFloor), fmt(denoise(r.momentMagnitude, mFloor)), fmt(r.peak), fmt(r.mean),
+      String(r.id), ...(parts ? [String(r.part)] : []), String(r.faces), fmt(r.area), fmt(denoise(r.forceMagnitude, fFloor)),
+      fmt(denoise(r.momentMagnitude, mFloor)), fmt(r.peak), fmt(r.mean),
     ]),
   }
+  if (!rows.length) return [figures]
+  const vectors: ReportTable = {
+    kind: 'table', id: 'patch-vectors', heading: 'Load-entry patches: centroid, force and moment',
+    note: 'Force ∫ t dA over each patch and its moment about the patch\'s centroid, in x, y, z.',
+    head: ['#', `Centroid [${L}]`, `Force [${F}]`, `Moment [${M}]`],
+    rows: rows.map((r) => [String(r.id), vec(r.centroid, lFloor), vec(r.force, fFloor), vec(r.moment, mFloor)]),
+  }
+  return [figures, vectors]
 }
 
 function sectionTable(r: SectionResult, input: ReportInput): ReportTable {
@@ -163,16 +172,25 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
   const Lf = convert(1, units, 'length', sys)
   const domain: [number, number] = [s.extent[0] * Lf, s.extent[1] * Lf]
   const M = { left: 64, right: 12, top: 10, bottom: 28 }
-  // One diagram per internal force, each on its own scale (a torque of a few N·m beside bending
-  // moments of kN·m would otherwise lie flat on the axis); all six unless the chart hides some.
-  for (const d of SERIES) {
-    if (!input.shown[d.key]) continue
+  // One diagram per internal force, all six unless the chart hides some. Diagrams of one kind
+  // (forces, moments) share one vertical scale, so a torque of round-off size beside bending
+  // moments of kN·m reads as the flat line it is, not as a curve blown up to fill its own axes.
+  const series = SERIES.filter((d) => input.shown[d.key]).map((d) => {
     const v = seriesInDisplay(s, d.key, units, sys)
     for (let k = 0; k < v.length; k++) if (s.empty[k]) v[k] = NaN
+    return { d, v }
+  })
+  const span = (q: 'force' | 'moment'): [number, number] => {
+    let lo = Infinity, hi = -Infinity
+    for (const { d, v } of series) if (d.quantity === q) for (const y of v) if (Number.isFinite(y)) { lo = Math.min(lo, y); hi = Math.max(hi, y) }
+    return lo <= hi ? [lo, hi] : [0, 1]
+  }
+  const shared = { force: span('force'), moment: span('moment') }
+  for (const { d, v } of series) {
     blocks.push({
       kind: 'diagram', id: `diagram-${d.key}`, heading: `${d.label} ${d.symbol} along the part`,
       xLabel, yLabel: `${d.symbol} [${displayUnitLabel(d.quantity, sys)}]`,
-      geometry: diagramGeometry(x, [{ label: `${d.symbol} ${d.label}`, colour: d.colour, values: v }], 720, 200, M, domain),
+      geometry: diagramGeometry(x, [{ label: `${d.symbol} ${d.label}`, colour: d.colour, values: v }], 720, 180, M, domain, shared[d.quantity]),
     })
   }
   const res = Float64Array.from(s.freeBodyRelative, (v, k) => (s.empty[k] ? NaN : v))
@@ -227,7 +245,7 @@ export function buildReportContent(input: ReportInput): ReportContent {
   }
   if (input.audit) {
     blocks.push(equilibriumTable(input.audit, input))
-    blocks.push(patchTable(input.audit, input))
+    blocks.push(...patchTables(input.audit, input))
   }
   if (input.section) blocks.push(sectionTable(input.section, input))
   if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))

@@ -12,6 +12,8 @@ import { snapshotLayout } from './snapshotLayout.ts'
 import { activeRange, modelSphere } from '../state/selectors.ts'
 import type { ColourMapName, ReviewFields, TractusState } from '../state/store.ts'
 import { arrowColouring, sectionColouring } from '../scene/index.ts'
+import { displayUnitLabel } from '../model/units.ts'
+import { TOOL_VERSION } from './version.ts'
 
 type Picture = HTMLCanvasElement | OffscreenCanvas
 
@@ -56,8 +58,14 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
     ...reviewLines(review).map((text) => ({ text, font: px(11), colour: '#1d2329' })),
     { text: new Date().toISOString().replace('T', ' ').slice(0, 16) + ' UTC', font: px(11), colour: '#4a545e' },
   ]
-  const lineH = Math.round(18 * s)
   const maxW = Math.round(w * 0.5)
+  // Traceability, small: the inputs with their sizes and the start of their SHA-256 (the report
+  // has the whole digest), the tool, the stress layout and the units.
+  if (m) {
+    g.font = px(10)
+    for (const text of wrapText(g, traceItems(st), maxW - 2 * L.margin)) lines.push({ text, font: px(10), colour: '#4a545e' })
+  }
+  const lineH = Math.round(18 * s)
   let tw = 0
   for (const l of lines) { g.font = l.font; tw = Math.max(tw, g.measureText(l.text).width) }
   panel(g, 0, 0, Math.min(maxW, tw + 2 * L.margin), Math.round(10 * s) + lineH * lines.length)
@@ -159,6 +167,28 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   g.font = px(11)
   g.fillText(CAUTION, w / 2, L.caution.y + Math.round(5 * s), w - 2 * L.margin)
   g.textAlign = 'left'
+}
+
+/** What a snapshot was made from, as short items: the input files, the tool, the stress, the units. */
+function traceItems(st: TractusState): string[] {
+  const m = st.model!
+  const files = m.inputs?.length
+    ? m.inputs.map((f) => `${f.name} (${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes${f.sha256 ? `, SHA-256 ${f.sha256.slice(0, 16)}…` : ''})`)
+    : [m.source.startsWith('synthetic:') ? 'generated model' : m.source]
+  const shown = (['length', 'force', 'stress'] as const).map((q) => displayUnitLabel(q, st.units)).join(', ')
+  return [...files, `Tractus ${TOOL_VERSION}`, m.stressLayout === 'element-nodal' ? 'element-nodal stress' : 'nodal stress', `model units ${m.units.length}, ${m.units.stress}; shown in ${shown}`]
+}
+
+/** Items joined with " · " into lines no wider than `width` (the canvas's current font). */
+function wrapText(g: CanvasRenderingContext2D, items: readonly string[], width: number): string[] {
+  const lines: string[] = []
+  let cur = ''
+  for (const it of items) {
+    const next = cur ? `${cur} · ${it}` : it
+    if (cur && g.measureText(next).width > width) { lines.push(cur); cur = it } else cur = next
+  }
+  if (cur) lines.push(cur)
+  return lines
 }
 
 /** The reviewer's details as short lines (empty ones left out). */

@@ -35,7 +35,7 @@ export function ElementMarker({ id, centre, radius }: ElementMarkerProps) {
   return (
     <group position={[centre[0], centre[1], centre[2]]}>
       <mesh material={material} renderOrder={16} raycast={() => {}}>
-        <sphereGeometry args={[r, 16, 10]} />
+        <sphereGeometry args={[r, 12, 8]} />
       </mesh>
       <primitive object={label} position={[r, r, 0]} />
     </group>

@@ -54,11 +54,11 @@ const flatMaterial = (hex: string, visible = true): MeshBasicMaterial =>
 /**
  * The section handle, our own: a rail along the section normal that stands beside the cut (to
  * the right of it on screen, never over it), spanning the model's extent along the normal, with a
- * flat tab lying in the plane where the plane meets the rail, and a short leader from the
- * section's edge to the tab. The tab shows where the cut sits within the part, like a slider
- * drawn in the model; it keeps its size on screen however large or small the model is (a rim of
- * the scene's background colour keeps it readable over dense meshes), and it leaves the section
- * face uncovered.
+ * small pill-shaped tab where the plane meets the rail (its long side in the cut plane, turned
+ * about the rail to face the viewer), and a short leader from the section's edge to the tab. The
+ * tab shows where the cut sits within the part, like a slider drawn in the model; it keeps its
+ * size on screen however large or small the model is (a pale rim keeps it readable over dense
+ * meshes), and it leaves the section face uncovered.
  *
  * Dragging the tab moves the plane along its normal; pressing the rail elsewhere moves the plane
  * there and drags on. The pointer ray's closest point on the rail gives the new offset, handed to

@@ -62,7 +62,7 @@ export function EquilibriumCard() {
               const on = marked?.id === e.id
               const show = (): void => {
                 markElement(on ? null : { id: e.id, centre: e.centre, radius: e.radius })
-                if (!on) requestView({ frame: { center: e.centre, radius: Math.max(4 * e.radius, 0.03 * size) } })
+                if (!on) requestView({ frame: { center: e.centre, radius: Math.max(10 * e.radius, 0.12 * size) } })
               }
               return (
                 <tr key={e.id} className={on ? 'sel' : ''} data-element={e.id} onClick={show}>

@@ -57,13 +57,14 @@ describe('review report content', () => {
     expect(c.facts).toContainEqual(['Stress', 'nodal (one value per node)'])
     expect(c.facts).toContainEqual(['Made with', 'Tractus 0.1.0'])
     expect(c.facts).toContainEqual(['Notes', 'first look'])
-    expect(c.blocks.map((b) => b.id)).toEqual(['snapshot', 'equilibrium', 'patches', 'diagram-axial', 'diagram-shear2', 'diagram-bending1', 'diagram-residual', 'sweep'])
+    expect(c.blocks.map((b) => b.id)).toEqual(['snapshot', 'equilibrium', 'patches', 'patch-vectors', 'diagram-axial', 'diagram-shear2', 'diagram-bending1', 'diagram-residual', 'sweep'])
     // 1 N residual of 2000 N gross; N in kN (SI display, common practice); 3e-12 N is rounding noise next to it, shown as 0.
     expect(table(c, 'equilibrium').rows[0]).toEqual(['Residual force', '(0.001, 0, 0)', 'kN'])
     expect(table(c, 'equilibrium').rows[2]).toEqual(['Residual moment taken about (volume centroid)', '(2, 0.5, 0.5)', 'm'])
     expect(table(c, 'equilibrium').rows).toContainEqual(['Least balanced elements (id: indicator)', '17: 1e−4', '–'])
     // Moments: 2e-9 of 30 N·m is noise and reads 0; force and moment per patch.
-    expect(table(c, 'patches').rows[0]).toEqual(['0', '3', '1', '(0, 0.5, 0.5)', '(−5, 0, 0)', '5', '(0, 0, 0.03)', '0.03', '0.005', '0.005'])
+    expect(table(c, 'patches').rows[0]).toEqual(['0', '3', '1', '5', '0.03', '0.005', '0.005'])
+    expect(table(c, 'patch-vectors').rows[0]).toEqual(['0', '(0, 0.5, 0.5)', '(−5, 0, 0)', '(0, 0, 0.03)'])
     expect(table(c, 'patches').note).toMatch(/faces above 1 % of the reference stress start a patch, faces above 0.5 % join one/)
     expect(table(c, 'sweep').rows).toHaveLength(3)
     const bending = c.blocks.find((b) => b.id === 'diagram-bending1')!
@@ -75,6 +76,11 @@ describe('review report content', () => {
     const c = buildReportContent(input({ shown: createTractusStore().getState().sweepShown }))
     expect(c.blocks.filter((b) => b.kind === 'diagram' && b.id !== 'diagram-residual').map((b) => b.id))
       .toEqual(['diagram-axial', 'diagram-shear1', 'diagram-shear2', 'diagram-torque', 'diagram-bending1', 'diagram-bending2'])
+    // Moments share one scale: the zero torque is drawn on the bending moment's axis .
+    const torque = c.blocks.find((b) => b.id === 'diagram-torque')!
+    const bending = c.blocks.find((b) => b.id === 'diagram-bending1')!
+    if (torque.kind !== 'diagram' || bending.kind !== 'diagram') throw new Error('not diagrams')
+    expect(torque.geometry.yTicks.map((t) => t.label)).toEqual(bending.geometry.yTicks.map((t) => t.label))
   })
 
   it('takes only PNG data URLs as the snapshot', () => {
