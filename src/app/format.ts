@@ -23,8 +23,8 @@ export function formatNumber(v: number, digits = 4): string {
  * The display rule for rounding noise, the one place it lives: on screen, in snapshots and in
  * reports (never in JSON or CSV, which carry every digit), a value whose magnitude is below
  * NOISE_FRACTION of the largest value of its family in the same table is shown as 0. Families:
- * forces with forces, moments with moments, second moments with second moments; coordinates
- * against the model's size (the diagonal of its bounds). So a centroid x of −1.4e-17 m on a part
+ * forces with forces, moments with moments, second moments with second moments, stresses with
+ * stresses; coordinates against the model's size (the diagonal of its bounds). So a centroid x of −1.4e-17 m on a part
  * of 0.3 m, or a torque of −1.9e-6 kN·m beside bending moments of 1.7 kN·m, reads 0.
  */
 export const NOISE_FRACTION = 1e-6

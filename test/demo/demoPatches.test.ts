@@ -9,6 +9,7 @@ import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { readNative } from '../../src/io/nativeContainer.ts'
 import { analysisInputOf, runAnalysis } from '../../src/mechanics/analysisPipeline.ts'
+import { cliJson } from '../cli/cliHarness.ts'
 
 function patchesOf(file: string) {
   const model = readNative(readFileSync(join('public', 'demo', file)), file)
@@ -41,5 +42,21 @@ describe('demo load-entry patches', () => {
     // it back, less what the weld toes' own small patches carry.
     expect(Math.hypot(...base.force) / 50e3).toBeGreaterThan(0.99)
     expect(Math.hypot(...base.force) / 50e3).toBeLessThan(1.01)
+  })
+})
+
+describe('demo load-entry patches through `tractus audit --json`', () => {
+  it('tunnel: six patches, each with its force and its moment; the lug: the base patch', async () => {
+    const tunnel = await cliJson('audit', join('public', 'demo', 'tunnel-block', 'tunnel-block.tractus'))
+    expect(tunnel.patches).toHaveLength(6)
+    expect(tunnel).toMatchObject({ thresholdFraction: 0.05, lowerThresholdFraction: 0.005, featureAngle: 40 })
+    for (const p of tunnel.patches) {
+      expect(p.force).toHaveLength(3)
+      expect(p.moment).toHaveLength(3)
+    }
+    const lug = await cliJson('audit', join('public', 'demo', 'lifting-lug', 'lifting-lug.tractus'))
+    const base = lug.patches.find((p: { centroid: number[] }) => Math.abs(p.centroid[1]) < 1e-9)
+    expect(base.area).toBeCloseTo(4000, 6) // mm², the model's own units
+    expect(Math.hypot(...base.force) / 50e3).toBeCloseTo(1, 1)
   })
 })

@@ -15,7 +15,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { writeFileSync } from 'node:fs'
-import { useBrowserSession, OUT_DIR, ORIGIN, waitForCut, waitForModel } from './browser.ts'
+import { colourBox, useBrowserSession, OUT_DIR, ORIGIN, waitForCut, waitForModel } from './browser.ts'
 import { HANDLE } from '../../src/scene/sceneLook.ts'
 
 const ELEMENTS = Number(process.env.TRACTUS_E2E_ELEMENTS ?? 1_000_000)
@@ -93,18 +93,7 @@ describe('large model', () => {
     const sectionOnEnd = await page.evaluate(() => performance.now())
     // The section handle reads as well here as on a small part: its tab, on screen, of its own size.
     const handleShot = await page.screenshot({ path: `${OUT_DIR}/large-model-handle.png` })
-    const tabPixels = await page.evaluate(async ({ b64, hex }) => {
-      const bytes = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))
-      const bmp = await createImageBitmap(new Blob([bytes], { type: 'image/png' }))
-      const c = new OffscreenCanvas(bmp.width, bmp.height)
-      const g = c.getContext('2d')!
-      g.drawImage(bmp, 0, 0)
-      const d = g.getImageData(0, 40, 900, 600).data
-      const want = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16))
-      let n = 0
-      for (let o = 0; o < d.length; o += 4) if (Math.abs(d[o] - want[0]) <= 3 && Math.abs(d[o + 1] - want[1]) <= 3 && Math.abs(d[o + 2] - want[2]) <= 3) n++
-      return n
-    }, { b64: handleShot.toString('base64'), hex: HANDLE })
+    const tabPixels = (await colourBox(page, handleShot, HANDLE, 3, { x: 0, y: 40, w: 900, h: 600 })).n
     expect(tabPixels, 'section handle tab pixels at 10^6 elements').toBeGreaterThan(40)
     await page.evaluate(() => {
       performance.clearMeasures('tractus:cut')

@@ -16,7 +16,7 @@ import { colourMapTable } from '../../src/scene/colourMaps.ts'
 import { snapshotLayout } from '../../src/app/snapshotLayout.ts'
 import { MARKER, SCALE_ARROW } from '../../src/scene/sceneLook.ts'
 import { bundleFiles, cantileverModel } from './bundle.ts'
-import { newPage, OUT_DIR, pixelsAt, useBrowserSession, waitForCut, waitForModel } from './browser.ts'
+import { colourBox, newPage, OUT_DIR, pixelsAt, useBrowserSession, waitForCut, waitForModel } from './browser.ts'
 
 const s = useBrowserSession()
 
@@ -24,20 +24,7 @@ const settle = (page: Page): Promise<void> => page.waitForTimeout(1500)
 const text = (page: Page, sel: string): Promise<string> => page.textContent(sel).then((t) => t ?? '')
 
 /** Pixels within `tol` of an sRGB hex colour in a PNG. */
-async function countColour(page: Page, png: Buffer, hex: string, tol: number): Promise<number> {
-  return page.evaluate(async ({ b64, hex, tol }) => {
-    const bytes = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))
-    const bmp = await createImageBitmap(new Blob([bytes], { type: 'image/png' }))
-    const c = new OffscreenCanvas(bmp.width, bmp.height)
-    const g = c.getContext('2d')!
-    g.drawImage(bmp, 0, 0)
-    const d = g.getImageData(0, 0, bmp.width, bmp.height).data
-    const want = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16))
-    let n = 0
-    for (let o = 0; o < d.length; o += 4) if (Math.abs(d[o] - want[0]) <= tol && Math.abs(d[o + 1] - want[1]) <= tol && Math.abs(d[o + 2] - want[2]) <= tol) n++
-    return n
-  }, { b64: png.toString('base64'), hex, tol })
-}
+const countColour = async (page: Page, png: Buffer, hex: string, tol: number): Promise<number> => (await colourBox(page, png, hex, tol)).n
 
 /** The camera of the view link: position, target, up, fov. */
 async function camera(page: Page): Promise<{ position: Vector3; target: Vector3; up: Vector3; fov: number }> {
@@ -181,7 +168,10 @@ describe('view links', () => {
     await page.keyboard.press(']')
     await page.keyboard.press(']')
     await waitForCut(page)
-    await page.waitForFunction(() => location.hash.includes('model=files:') && location.hash.includes('cut='))
+    await settle(page)
+    // The link holds the plane on screen: its offset is the card's (the address follows the view after a pause).
+    const offset = await page.getAttribute('[data-testid="cut-offset-value"] .num', 'data-model')
+    await page.waitForFunction((o) => location.hash.includes('model=files:') && new URLSearchParams(location.hash.slice(1)).get('cut')?.split(',')[6] === o, offset)
     const plane = await page.$$eval('[data-testid="cut-plane"] .num', (e) => e.map((x) => x.getAttribute('data-model')))
     const link = await page.evaluate(() => location.hash)
     expect(link).toMatch(/model=files:[^&]*nodes\.csv/)

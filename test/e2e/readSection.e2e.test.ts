@@ -11,33 +11,11 @@
 import { describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import type { Page } from 'playwright-core'
-import { figure, newPage, OUT_DIR, useBrowserSession, waitForCut, waitForModel } from './browser.ts'
+import { colourBox, figure, newPage, OUT_DIR, useBrowserSession, waitForCut, waitForModel } from './browser.ts'
 import { BACKGROUND, HANDLE, TRIAD_E1, TRIAD_E2 } from '../../src/scene/sceneLook.ts'
 
 const s = useBrowserSession()
 const LUG = '#model=demo:lifting-lug'
-
-/** Count of pixels within `tol` (per channel) of an sRGB hex colour, and their bounding box, in `rect` of a PNG. */
-async function colourBox(page: Page, png: Buffer, hex: string, tol: number, rect?: { x: number; y: number; w: number; h: number }): Promise<{ n: number; x0: number; y0: number; x1: number; y1: number }> {
-  return page.evaluate(async ({ b64, hex, tol, rect }) => {
-    const bytes = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))
-    const bmp = await createImageBitmap(new Blob([bytes], { type: 'image/png' }))
-    const c = new OffscreenCanvas(bmp.width, bmp.height)
-    const g = c.getContext('2d')!
-    g.drawImage(bmp, 0, 0)
-    const r = rect ?? { x: 0, y: 0, w: bmp.width, h: bmp.height }
-    const d = g.getImageData(r.x, r.y, r.w, r.h).data
-    const want = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16))
-    let n = 0, x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity
-    for (let y = 0; y < r.h; y++) for (let x = 0; x < r.w; x++) {
-      const o = 4 * (y * r.w + x)
-      if (Math.abs(d[o] - want[0]) <= tol && Math.abs(d[o + 1] - want[1]) <= tol && Math.abs(d[o + 2] - want[2]) <= tol) {
-        n++; x0 = Math.min(x0, x + r.x); y0 = Math.min(y0, y + r.y); x1 = Math.max(x1, x + r.x); y1 = Math.max(y1, y + r.y)
-      }
-    }
-    return { n, x0, y0, x1, y1 }
-  }, { b64: png.toString('base64'), hex, tol, rect })
-}
 
 const text = (page: Page, sel: string): Promise<string> => page.textContent(sel).then((t) => t ?? '')
 const settle = (page: Page): Promise<void> => page.waitForTimeout(1500)

@@ -40,6 +40,16 @@ describe('sweep series', () => {
     expect(worstResidual(reply())).toBe(0.011)
   })
 
+  it('shows rounding noise as 0, row by row, forces against forces (format.ts NOISE_FRACTION)', () => {
+    const r = reply()
+    r.shear1[0] = 1e-5 // N, beside 43 290 N of axial force in the same row
+    r.torque[0] = 3e-3 // N·mm, beside −3.589e6 N·mm of bending
+    const t = sweepTable(r, mmMPa, 'SI')
+    expect(t.rows[0][2]).toBe('0')
+    expect(t.rows[0][4]).toBe('0')
+    expect(t.rows[1][2]).toBe('0.001') // 1 N of 43 000 N: 2e-5, data
+  })
+
   it('finds the nearest section', () => {
     const x = Float64Array.from([0, 1, 2, 3])
     expect(nearestIndex(x, 1.4)).toBe(1)
