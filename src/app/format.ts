@@ -19,27 +19,9 @@ export function formatNumber(v: number, digits = 4): string {
   return s.replace(/-/g, '−')
 }
 
-/**
- * The display rule for rounding noise, the one place it lives: on screen, in snapshots and in
- * reports (never in JSON or CSV, which carry every digit), a value whose magnitude is below
- * NOISE_FRACTION of the largest value of its family in the same table is shown as 0. Families:
- * forces with forces, moments with moments, second moments with second moments, stresses with
- * stresses; coordinates against the model's size (the diagonal of its bounds). So a centroid x of −1.4e-17 m on a part
- * of 0.3 m, or a torque of −1.9e-6 kN·m beside bending moments of 1.7 kN·m, reads 0.
- */
-export const NOISE_FRACTION = 1e-6
-
-/** The magnitude below which values of a family are shown as 0: NOISE_FRACTION × the largest |value| (or `scale`, when larger). */
-export function noiseFloor(values: Iterable<number>, scale = 0): number {
-  let big = Math.abs(scale)
-  for (const v of values) { const a = Math.abs(v); if (a > big && Number.isFinite(a)) big = a }
-  return NOISE_FRACTION * big
-}
-
-/** `v`, or 0 when its magnitude is below `floor` (see NOISE_FRACTION). */
-export function denoise(v: number, floor: number): number {
-  return Math.abs(v) < floor ? 0 : v
-}
+// The display rule for rounding noise lives in src/model/roundingNoise.ts (the command line's
+// tables use it too); the cards, snapshot and report take it from here.
+export { denoise, noiseFloor, NOISE_FRACTION } from '../model/roundingNoise.ts'
 
 /** Converts a model-unit value of `q` to the display system. */
 export function convert(v: number, units: ModelUnits, q: Quantity, system: UnitSystem): number {

@@ -12,6 +12,8 @@ import { block, num, qty, table, vecJson, vecQty } from './format.ts'
 import { elementIdOf } from '../model/elementId.ts'
 import { analysisInputOf, runAnalysis } from '../mechanics/analysisPipeline.ts'
 import { LOAD_PATCH_DEFAULTS } from '../mechanics/loadPatches.ts'
+import { noiseFloor } from '../model/roundingNoise.ts'
+import { meshSize } from './cut.ts'
 
 export const auditCommand: Command = {
   name: 'audit',
@@ -103,13 +105,18 @@ export const auditCommand: Command = {
       })
       return 0
     }
+    // The tables read rounding noise as 0 (src/model/roundingNoise.ts); the JSON carries every digit.
+    const size = meshSize(mesh.coords)
+    const fF = noiseFloor([...body.force, ...body.surfaceForce, ...body.bodyForceTotal, ...verdict.freeSurfaceForce], body.gross)
+    const fM = noiseFloor(body.moment)
+    const fL = noiseFloor([], size)
     let out = block(`Balance of "${model.name}" (${mesh.elementCount} elements, ${faces.count} boundary faces)`, [
-      ['residual force', vecQty(body.force, 'force', u)],
-      ['residual moment', `${vecQty(body.moment, 'moment', u)} about ${vecQty(body.about, 'length', u)}`],
+      ['residual force', vecQty(body.force, 'force', u, fF)],
+      ['residual moment', `${vecQty(body.moment, 'moment', u, fM)} about ${vecQty(body.about, 'length', u, fL)} (the volume centroid)`],
       ['relative', `${num(body.relative)} of the gross load ${qty(body.gross, 'force', u)}`],
-      ['surface force', vecQty(body.surfaceForce, 'force', u)],
-      ['body force ∫ρb dV', `${vecQty(body.bodyForceTotal, 'force', u)} over ${qty(body.volume, 'volume', u)}`],
-      ['of it, free surface', vecQty(verdict.freeSurfaceForce, 'force', u)],
+      ['surface force', vecQty(body.surfaceForce, 'force', u, fF)],
+      ['body force ∫ρb dV', `${vecQty(body.bodyForceTotal, 'force', u, fF)} over ${qty(body.volume, 'volume', u)}`],
+      ['of it, free surface', vecQty(verdict.freeSurfaceForce, 'force', u, fF)],
       ['verdict', `${verdict.verdict.kind}: ${verdict.verdict.reason}`],
     ])
     out += '\n' + block('Element balance indicator |residual| / gross (dimensionless)', [
@@ -120,9 +127,10 @@ export const auditCommand: Command = {
       `grow down to ${qty(lp.lowerThreshold, 'stress', u)} = ${num(lowerThreshold)} ×, split at folds over ${num(featureAngle)}° and between parts)\n`
     if (lp.patches.length === 0) out += '  none\n'
     else {
+      const pF = noiseFloor(lp.patches.flatMap((p) => p.force)), pM = noiseFloor(lp.patches.flatMap((p) => p.moment))
       out += table([
         ['  patch', 'part', 'faces', 'area', 'centroid', 'force', 'moment about centroid', 'peak |t|'],
-        ...lp.patches.map((p) => [`  ${p.id}`, String(p.part), String(p.faceCount), qty(p.area, 'area', u), vecQty(p.centroid, 'length', u), vecQty(p.force, 'force', u), vecQty(p.moment, 'moment', u), qty(p.peak, 'stress', u)]),
+        ...lp.patches.map((p) => [`  ${p.id}`, String(p.part), String(p.faceCount), qty(p.area, 'area', u), vecQty(p.centroid, 'length', u, fL), vecQty(p.force, 'force', u, pF), vecQty(p.moment, 'moment', u, pM), qty(p.peak, 'stress', u)]),
       ], [false, true, true, true, false, false, false, true])
     }
     out += '\n' + block('Nominally free surface', [

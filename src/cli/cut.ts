@@ -13,6 +13,7 @@ import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
 import { describeAxes, projectReference } from '../mechanics/sectionAxes.ts'
+import { denoise, noiseFloor } from '../model/roundingNoise.ts'
 import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
 import type { Vec3 } from '../model/model.ts'
 import type { OptionSpec, ParsedArgs } from './args.ts'
@@ -95,31 +96,50 @@ export const cutCommand: Command = {
       printJson(io, { file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u) })
       return 0
     }
-    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(plane.point, 'length', u)}, normal ${vecPlain(plane.normal)}`))
+    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(plane.point, 'length', u)}, normal ${vecPlain(plane.normal)}`, meshSize(model.mesh.coords)))
     return 0
   },
 }
 
-export function sectionText(r: SectionResult, u: UnitView, heading: string): string {
+/**
+ * The section as a table. Figures of one family (forces, moments, second moments; points against
+ * `modelSize`, length units) are read with the rounding-noise rule of src/model/roundingNoise.ts;
+ * the JSON answer carries every digit.
+ */
+export function sectionText(r: SectionResult, u: UnitView, heading: string, modelSize = 0): string {
   if (r.empty) return `${heading}\n  the plane does not cut the body\n`
+  const fF = noiseFloor([...r.force, ...r.freeBody.force])
+  const fM = noiseFloor([...r.moment, ...r.freeBody.moment])
+  const fI = noiseFloor([r.secondMoments.I1, r.secondMoments.I2, r.secondMoments.I12])
+  const fL = noiseFloor([], modelSize)
+  const n = (v: number, q: 'force' | 'moment' | 'secondMoment', floor: number): string => num(denoise(v, floor) * u.factor(q))
   return block(heading, [
     ['area', qty(r.area, 'area', u)],
-    ['centroid', vecQty(r.centroid, 'length', u)],
-    ['moments about', vecQty(r.about, 'length', u)],
+    ['centroid', vecQty(r.centroid, 'length', u, fL)],
+    ['moments about', vecQty(r.about, 'length', u, fL)],
     ['cut elements', String(r.cutElements)],
-    ['force F', vecQty(r.force, 'force', u)],
-    ['moment M', vecQty(r.moment, 'moment', u)],
+    ['force F', vecQty(r.force, 'force', u, fF)],
+    ['moment M', vecQty(r.moment, 'moment', u, fM)],
     ['section axes', describeAxes(r.axes)],
     ['axis e1', vecPlain(r.axes.e1)],
     ['axis e2', vecPlain(r.axes.e2)],
     ['axis e3 = m', vecPlain(r.axes.e3)],
-    ['I1, I2, I12, J', [r.secondMoments.I1, r.secondMoments.I2, r.secondMoments.I12, r.secondMoments.J].map((v) => num(v * u.factor('secondMoment'))).join(', ') + ` ${u.label('secondMoment')}`],
-    ['axial N', qty(r.axial, 'force', u)],
-    ['shear V1, V2', `${num(r.shear[0] * u.factor('force'))}, ${num(r.shear[1] * u.factor('force'))} ${u.label('force')}`],
-    ['torque T', qty(r.torque, 'moment', u)],
-    ['bending M1, M2', `${num(r.bending[0] * u.factor('moment'))}, ${num(r.bending[1] * u.factor('moment'))} ${u.label('moment')}`],
-    ['free body force', vecQty(r.freeBody.force, 'force', u)],
-    ['free body moment', vecQty(r.freeBody.moment, 'moment', u)],
+    ['I1, I2, I12, J', [r.secondMoments.I1, r.secondMoments.I2, r.secondMoments.I12, r.secondMoments.J].map((v) => n(v, 'secondMoment', fI)).join(', ') + ` ${u.label('secondMoment')}`],
+    ['axial N', qty(r.axial, 'force', u, fF)],
+    ['shear V1, V2', `${n(r.shear[0], 'force', fF)}, ${n(r.shear[1], 'force', fF)} ${u.label('force')}`],
+    ['torque T', qty(r.torque, 'moment', u, fM)],
+    ['bending M1, M2', `${n(r.bending[0], 'moment', fM)}, ${n(r.bending[1], 'moment', fM)} ${u.label('moment')}`],
+    ['free body force', vecQty(r.freeBody.force, 'force', u, fF)],
+    ['free body moment', vecQty(r.freeBody.moment, 'moment', u, fM)],
     ['free body relative', `${num(r.freeBody.relative)} of the gross load ${qty(r.freeBody.gross, 'force', u)}`],
   ])
+}
+
+/** The diagonal of the nodes' bounding box (length units): what coordinates are judged against. */
+export function meshSize(coords: Float64Array): number {
+  const lo = [Infinity, Infinity, Infinity], hi = [-Infinity, -Infinity, -Infinity]
+  for (let i = 0; i < coords.length; i += 3) {
+    for (let k = 0; k < 3; k++) { const v = coords[i + k]; if (v < lo[k]) lo[k] = v; if (v > hi[k]) hi[k] = v }
+  }
+  return lo[0] <= hi[0] ? Math.hypot(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]) : 0
 }

@@ -128,6 +128,18 @@ describe('tractus cut', () => {
     for (const sec of sweep.sections) expect(sec.axes.kind).toBe('reference')
   })
 
+  it('reads rounding noise as 0 in its table while the JSON keeps every digit', async () => {
+    // The lug's neck (an invented demo): Fz is about 1e-6 of |F|, the centroid's x about 1e-16 of the part.
+    const lug = join('public', 'demo', 'lifting-lug', 'lifting-lug.tractus')
+    const args = ['cut', lug, '--point', '0,140,10', '--normal', '0,1,0']
+    const j = await cliJson(...args)
+    expect(j.force[2]).not.toBe(0)
+    expect(Math.abs(j.force[2]) / Math.hypot(...j.force)).toBeLessThan(1e-6)
+    const table = await cli(...args)
+    expect(table.stdout).toMatch(/force F\s+\(25009, 43363, 0\) N/)
+    expect(table.stdout).toMatch(/centroid\s+\(0, 140, 10\) mm/)
+  })
+
   it('refuses a reference parallel to the normal (exit 2, the message names both)', async () => {
     const out = await cli('cut', bundle, '--point', '0.5,0.5,0.5', '--normal', '0,0,2', '--reference', '0,0,-1')
     expect(out.code).toBe(2)
