@@ -24,8 +24,8 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
       <span className="spacer" />
       <QuantitySelect testId="quantity" />
       <UnitsMenu />
-      <button type="button" data-testid="wide-cards" aria-pressed={wide} className={wide ? 'on' : ''} title="Widen the column of cards (diagrams read better); W"
-        onClick={() => setWideCards(!wide)}>{wide ? 'Narrow cards' : 'Wide cards'} <kbd>W</kbd></button>
+      <button type="button" data-testid="wide-cards" aria-pressed={wide} className={wide ? 'on' : ''} title="Widen or narrow the column of cards (diagrams read better wide); W"
+        onClick={() => setWideCards(!wide)}>{wide ? 'Narrow' : 'Wide'} <kbd>W</kbd></button>
       {list.length ? (
         <select value={current} data-testid="demo-select" aria-label="Demo model" disabled={busy}
           onChange={(e) => { const d = list.find((x) => x.id === e.target.value); if (d) void engine.load(demoSource(d)) }}>
