@@ -16,6 +16,8 @@ export interface ScaleArrowProps {
   readonly radius: number
   /** The label, e.g. "50 MPa". */
   readonly label: string
+  /** Hidden (kept mounted) while no arrows show, so its label and shaders outlive a drag. */
+  readonly visible?: boolean
 }
 
 const Y = new Vector3(0, 1, 0)
@@ -26,7 +28,7 @@ const Y = new Vector3(0, 1, 0)
  * labelled with the value. It turns with the view (it always runs along the screen, so its
  * length on screen is true at its depth). Part of snapshots.
  */
-export function ScaleArrow({ bounds, length, radius, label }: ScaleArrowProps) {
+export function ScaleArrow({ bounds, length, radius, label, visible = true }: ScaleArrowProps) {
   const invalidate = useThree((s) => s.invalidate)
   const camera = useThree((s) => s.camera) as PerspectiveCamera
   const height = useThree((s) => s.size.height)
@@ -43,6 +45,7 @@ export function ScaleArrow({ bounds, length, radius, label }: ScaleArrowProps) {
   }, [label])
   useEffect(() => () => disposeSprite(sprite), [sprite])
   useEffect(() => { setLabelSize(sprite, height, camera.fov); invalidate() }, [sprite, height, camera.fov, invalidate])
+  useEffect(() => { sprite.visible = visible; invalidate() }, [sprite, visible, invalidate])
   useEffect(() => { invalidate() }, [bounds, length, radius, label, invalidate])
 
   const corners = useMemo(() => {
@@ -71,7 +74,7 @@ export function ScaleArrow({ bounds, length, radius, label }: ScaleArrowProps) {
   })
   return (
     <>
-      <group ref={group}>
+      <group ref={group} visible={visible}>
         <mesh geometry={unitArrowGeometry()} material={materials.halo} scale={[2.4 * radius, length * 1.04, 2.4 * radius]} position={[0, -0.02 * length, 0]} renderOrder={14} raycast={() => {}} />
         <mesh geometry={unitArrowGeometry()} material={materials.arrow} scale={[radius, length, radius]} renderOrder={15} raycast={() => {}} />
       </group>

@@ -1,4 +1,4 @@
-import { useMemo } from 'react'
+import { useEffect, useMemo, useRef } from 'react'
 import { displayFactor, displayUnitLabel } from '../model/units.ts'
 import { activeRange, modelSphere, sectionPlaneOf } from '../state/selectors.ts'
 import { useStore } from '../state/store.ts'
@@ -72,6 +72,8 @@ function SceneContents() {
   const arrowRange = useMemo(() => (Number.isNaN(arrowLo) ? null : [arrowLo, arrowHi] as const), [arrowLo, arrowHi])
   const reference = useStore((s) => arrowReference(s))
   const units = useStore((s) => s.units)
+  // The last scale stays (hidden) while no arrows show, e.g. while a drag leaves them out.
+  const lastScale = useRef<{ length: number; label: string } | null>(null)
   const scaleArrow = useMemo(() => {
     if (!model || !sphere || !(reference > 0)) return null
     // A round value in the shown stress unit, drawn at the length a traction of that value gets.
@@ -82,6 +84,9 @@ function SceneContents() {
     const text = shown >= 1e-3 && shown < 1e6 ? String(Number(shown.toPrecision(1))) : shown.toExponential(0).replace('e+', 'e')
     return { length, label: `${text.replace('-', '−')} ${displayUnitLabel('stress', units)}` }
   }, [model, sphere, reference, units, arrowSettings.scale])
+  if (scaleArrow) lastScale.current = scaleArrow
+  useEffect(() => { lastScale.current = null }, [model])
+  const shownScale = scaleArrow ?? lastScale.current
   const markedElement = useStore((s) => s.markedElement)
   const sectionAxes = sectionResult && !sectionResult.empty ? sectionResult.axes : null
 
@@ -113,9 +118,9 @@ function SceneContents() {
           colourMap={arrowMap} colourRange={arrowRange} reference={reference} clippingPlanes={NO_PLANES}
         />
       )}
-      {scaleArrow && model && sphere && <ScaleArrow bounds={model.bounds} length={scaleArrow.length} radius={0.004 * sphere.diagonal} label={scaleArrow.label} />}
-      {section.enabled && cut && sectionAxes && !section.dragging && (
-        <SectionTriad centroid={cut.centroid} e1={sectionAxes.e1} e2={sectionAxes.e2} e3={sectionAxes.e3} length={0.3 * cut.halfSize} />
+      {shownScale && model && sphere && <ScaleArrow bounds={model.bounds} length={shownScale.length} radius={0.004 * sphere.diagonal} label={shownScale.label} visible={scaleArrow !== null} />}
+      {section.enabled && cut && sectionAxes && (
+        <SectionTriad centroid={cut.centroid} e1={sectionAxes.e1} e2={sectionAxes.e2} e3={sectionAxes.e3} length={0.3 * cut.halfSize} visible={!section.dragging} />
       )}
       {markedElement && <ElementMarker id={markedElement.id} centre={markedElement.centre} radius={markedElement.radius} />}
       {probe && sphere && <ProbeMarker position={probe.position} radius={0.006 * sphere.diagonal} />}

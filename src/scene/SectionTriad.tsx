@@ -19,6 +19,11 @@ export interface SectionTriadProps {
   readonly e3: V3
   /** Arrow length, length units. */
   readonly length: number
+  /**
+   * Hidden (not unmounted) while the plane is dragged: a remount would make new label textures
+   * and, on software WebGL, compile the sprite shader again on the release frame.
+   */
+  readonly visible?: boolean
 }
 
 const AXES = [
@@ -32,7 +37,7 @@ const AXES = [
  * and the normal n = e₃, labelled as in the Cut card, each on a pale halo so it reads on any
  * colour of the section face. Drawn over everything; part of snapshots.
  */
-export function SectionTriad({ centroid, e1, e2, e3, length }: SectionTriadProps) {
+export function SectionTriad({ centroid, e1, e2, e3, length, visible = true }: SectionTriadProps) {
   const invalidate = useThree((s) => s.invalidate)
   const camera = useThree((s) => s.camera) as PerspectiveCamera
   const height = useThree((s) => s.size.height)
@@ -50,10 +55,10 @@ export function SectionTriad({ centroid, e1, e2, e3, length }: SectionTriadProps
     const v = new Vector3(d[0], d[1], d[2])
     return { q: new Quaternion().setFromUnitVectors(new Vector3(0, 1, 0), v), tip: new Vector3(centroid[0], centroid[1], centroid[2]).addScaledVector(v, 1.22 * length) }
   })
-  useEffect(() => { invalidate() }, [centroid, e1, e2, e3, length, invalidate])
+  useEffect(() => { invalidate() }, [centroid, e1, e2, e3, length, visible, invalidate])
   const r = 0.035 * length
   return (
-    <group>
+    <group visible={visible}>
       {arrows.map((a, i) => (
         <group key={AXES[i].key} position={[centroid[0], centroid[1], centroid[2]]} quaternion={a.q}>
           <mesh geometry={unitArrowGeometry()} material={materials.halo} scale={[2.4 * r, 1.06 * length, 2.4 * r]} position={[0, -0.03 * length, 0]} renderOrder={14} raycast={() => {}} />
