@@ -13,16 +13,24 @@ import { analysisInputOf, runAnalysisAsync } from '../src/mechanics/analysisPipe
 import type { AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { nodalStressField } from '../src/model/stressField.ts'
-import { sweepAlong, sweepTransfer } from './sweep.ts'
-import { buildSurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
+import { extentAlong, sweepAlong, sweepTransfer } from './sweep.ts'
+import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
+import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
+import { computeBalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
+import type { BalanceVerdictResult } from '../src/mechanics/balanceVerdict.ts'
+import { projectReference } from '../src/mechanics/sectionAxes.ts'
+import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
+import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
+import { elementIdOf } from '../src/model/elementId.ts'
 import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrowSampling.ts'
 import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
-import type { BoundaryFaces, SectionPlane, SectionPolygons, SurfaceTractions } from '../src/mechanics/types.ts'
+import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, SectionPlane, SectionPolygons, SurfaceTractions } from '../src/mechanics/types.ts'
 import type {
-  AppError, ArrowBuffers, ArrowRequest, ComputeOptions, CrashKind, CutReply, EngineApi, LoadedModel, ModelSource, ModelSummary,
-  Outcome, ProbeRequest, ProgressCallback, SectionBuffers, SurfaceBuffers,
+  AppError, ArrowBuffers, ArrowRequest, AuditSummary, ComputeOptions, CrashKind, CutInfo, CutOptions, CutReply, EngineApi,
+  LeastBalancedElement, LoadedModel, ModelSource, ModelSummary, Outcome, PatchReply, PatchRule, ProbeRequest, ProgressCallback,
+  SectionBuffers, SurfaceBuffers,
 } from './protocol.ts'
 import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras, ScalarExtremes, SurfaceQuantity } from './protocol.ts'
 import { SURFACE_QUANTITIES } from '../src/mechanics/surfaceTriangles.ts'
@@ -49,6 +57,11 @@ interface Loaded {
   grid: ElementGrid | null
   /** Displacement at the current section's polygon vertices (3 per vertex), or null. */
   polygonDisplacement: Float64Array | null
+  /** What finding the patches again needs: nodal von Mises, the element and body balance, the surface's vertex runs. */
+  vonMises: Float64Array
+  balance: ElementBalance
+  body: BodyBalance
+  faceVertexStart: Int32Array
 }
 
 let current: Loaded | null = null
@@ -166,7 +179,7 @@ function typeCounts(mesh: Mesh): Record<string, number> {
 }
 
 function arrowTransfer(a: ArrowSamples): ArrayBuffer[] {
-  return [a.origins.buffer, a.vectors.buffer, a.normals.buffer, a.magnitudes.buffer, a.weights.buffer, a.item.buffer] as ArrayBuffer[]
+  return [a.origins.buffer, a.vectors.buffer, a.normals.buffer, a.magnitudes.buffer, a.normalTraction.buffer, a.weights.buffer, a.item.buffer] as ArrayBuffer[]
 }
 
 function sourceLabel(source: ModelSource): string {
@@ -198,13 +211,62 @@ function extrasTransfer(x: LoadExtras): Float32Array[] {
   return [...(x.deformation ? [x.deformation.surface, x.deformation.edges] : []), ...componentTransfer(x.components)]
 }
 
+/** Centre (mean of the corners) and radius (farthest node from it) of global element g, length units. */
+function elementSphere(mesh: Mesh, g: number): { centre: Vec3; radius: number } {
+  const b = mesh.blocks.find((x) => g >= x.offset && g < x.offset + x.ids.length)!
+  const topo = ELEMENT_TYPES[b.type]
+  const nn = topo.nodeCount, base = nn * (g - b.offset), x = mesh.coords
+  const c: Vec3 = [0, 0, 0]
+  for (let a = 0; a < topo.cornerCount; a++) for (let k = 0; k < 3; k++) c[k] += x[3 * b.conn[base + a] + k] / topo.cornerCount
+  let r = 0
+  for (let a = 0; a < nn; a++) {
+    const i = b.conn[base + a]
+    r = Math.max(r, Math.hypot(x[3 * i] - c[0], x[3 * i + 1] - c[1], x[3 * i + 2] - c[2]))
+  }
+  return { centre: c, radius: r }
+}
+
+/** The audit the app shows, from the pipeline's results (the least balanced elements with their ids and places). */
+function auditSummary(mesh: Mesh, body: BodyBalance, patches: LoadPatches, verdict: BalanceVerdictResult, balance: ElementBalance): AuditSummary {
+  const leastBalanced: LeastBalancedElement[] = verdict.leastBalanced.map((g) => ({ id: elementIdOf(mesh, g), indicator: balance.indicator[g], ...elementSphere(mesh, g) }))
+  return {
+    body,
+    indicator: verdict.indicator,
+    patches: patches.patches,
+    threshold: patches.threshold,
+    lowerThreshold: patches.lowerThreshold,
+    fractions: patches.fractions,
+    featureAngle: patches.featureAngle,
+    referenceStress: patches.referenceStress,
+    freeSurface: patches.freeSurface,
+    freeSurfaceForce: verdict.freeSurfaceForce,
+    verdict: verdict.verdict,
+    leastBalanced,
+  }
+}
+
+/**
+ * The axes of a cut or sweep along unit normal m: a reference parallel to m is replaced by the
+ * default one, with a note that says so (the card shows it).
+ */
+function checkedAxes(m: Vec3, axes: SectionAxesChoice | undefined): { axes: SectionAxesChoice | undefined; note?: string } {
+  if (!axes?.reference) return { axes }
+  try {
+    projectReference(m, axes.reference)
+    return { axes }
+  } catch (e) {
+    if (!isInputError(e)) throw e
+    return { axes: { kind: axes.kind }, note: `${e.message}. The default reference is used instead.` }
+  }
+}
+
 const api: EngineApi = {
   configure(options: ComputeOptions) {
     computeOptions = options
     startPool()
   },
 
-  async load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>> {
+  async load(source: ModelSource, onProgress?: ProgressCallback, rule?: PatchRule): Promise<Outcome<LoadedModel>> {
     const report = throttle(onProgress)
     const clock = stageClock()
     try {
@@ -227,7 +289,7 @@ const api: EngineApi = {
       offloaded.elementBalance?.catch(() => undefined)
       offloaded.invariants?.catch(() => undefined)
       const { faces, tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = await runAnalysisAsync(
-        input, { balancePrecision: 'single' },
+        input, { balancePrecision: 'single', ...(rule ? { loadPatches: rule } : {}) },
         { offloaded, beforeStage: async (stage) => { report(...STAGE_PROGRESS[stage]); await yieldTurn(); clock.mark(stage) } },
         ({ stage }) => { if (stage === 'elementBalance') p?.forget() },
       )
@@ -247,25 +309,16 @@ const api: EngineApi = {
         elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
         warnings: [...model.warnings], source: sourceLabel(source),
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
+        ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
+        stressLayout: input.stress.layout,
       }
       // Only now, with everything computed, does the new model replace the old one.
-      current = { model, faces, tractions, polygons: null, grid: null, polygonDisplacement: null }
-      report('Done', 1)
-      const value: LoadedModel = {
-        summary,
-        surface,
-        audit: {
-          body,
-          indicator: verdict.indicator,
-          patches: patches.patches,
-          threshold: patches.threshold,
-          referenceStress: patches.referenceStress,
-          freeSurface: patches.freeSurface,
-          freeSurfaceForce: verdict.freeSurfaceForce,
-          verdict: verdict.verdict,
-        },
-        extras,
+      current = {
+        model, faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
+        vonMises: invariants.vonMises, balance, body, faceVertexStart: tri.faceVertexStart,
       }
+      report('Done', 1)
+      const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras }
       const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value }, buffers)
     } catch (e) {
@@ -284,15 +337,18 @@ const api: EngineApi = {
     return Comlink.transfer(du ? { ...a, displacement: du } : a, [...arrowTransfer(a), ...(du ? [du.buffer as ArrayBuffer] : [])])
   },
 
-  async cut(plane: SectionPlane, arrows: ArrowRequest): Promise<Outcome<CutReply>> {
+  async cut(plane: SectionPlane, arrows: ArrowRequest, options: CutOptions = {}): Promise<Outcome<CutReply>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     const { model, faces, tractions } = current
     const started = performance.now()
     try {
-      const { result, polygons } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, plane, { faces, tractions, polygons: true })
+      const n = Math.hypot(...plane.normal)
+      const { axes, note } = checkedAxes([plane.normal[0] / n, plane.normal[1] / n, plane.normal[2] / n], options.axes)
+      const { result, polygons } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, plane, { faces, tractions, polygons: true, axes })
       current.polygons = polygons
       current.polygonDisplacement = null
-      if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started } }
+      const info: CutInfo = { ...(note ? { axesNote: note } : {}), ...(result.empty ? { extent: extentAlong(model.mesh.coords, plane.normal) } : {}) }
+      if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started, info } }
       const tri = buildSectionTriangles(polygons, result.plane.normal)
       const a = sampleSectionArrows(polygons, result.plane.normal, { mode: arrows.mode, budget: arrows.budget })
       // The deformed shape moves the section face and its arrows with the material.
@@ -307,7 +363,7 @@ const api: EngineApi = {
         ...(sectionU ? { displacement: sectionU } : {}),
       }
       const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction, ...(sectionU ? [sectionU] : []), ...(arrowU ? [arrowU] : [])].map((x) => x.buffer as ArrayBuffer)
-      return Comlink.transfer({ ok: true, value: { result, buffers, computeMs: performance.now() - started } }, [...list, ...arrowTransfer(a)])
+      return Comlink.transfer({ ok: true, value: { result, buffers, computeMs: performance.now() - started, info } }, [...list, ...arrowTransfer(a)])
     } catch (e) {
       const error = toAppError(e)
       if (error) return { ok: false, error }
@@ -315,17 +371,28 @@ const api: EngineApi = {
     }
   },
 
-  async sweep(normal: Vec3, count: number, from?: number, to?: number) {
+  async sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice) {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     const { model, faces, tractions } = current
     try {
-      const value = sweepAlong(model, faces, tractions, normal, count, from, to)
+      const value = sweepAlong(model, faces, tractions, normal, count, from, to, axes)
       return Comlink.transfer({ ok: true as const, value }, sweepTransfer(value))
     } catch (e) {
       const error = toAppError(e)
       if (error) return { ok: false, error }
       throw e
     }
+  },
+
+  async patches(rule: PatchRule): Promise<Outcome<PatchReply>> {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    const { model, faces, tractions, vonMises, balance, body, faceVertexStart } = current
+    const mesh = model.mesh
+    const patches = findLoadPatches(mesh, faces, tractions, vonMises, rule)
+    const verdict = computeBalanceVerdict(faces, tractions, patches, body, balance, model.bodyForce)
+    const patchLabel = fillVertexPatch(new Float32Array(faceVertexStart[faces.count]), faceVertexStart, patches.faceLabel)
+    const value: PatchReply = { audit: auditSummary(mesh, body, patches, verdict, balance), patchLabel }
+    return Comlink.transfer({ ok: true as const, value }, [patchLabel.buffer as ArrayBuffer])
   },
 
   async probe(req: ProbeRequest) {

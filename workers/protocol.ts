@@ -20,8 +20,9 @@ import type { ComponentAxes } from '../src/mechanics/componentAxes.ts'
 import type { ComponentQuantity, ComponentScalars } from '../src/mechanics/componentScalars.ts'
 import type { EquivalentCriterion, Linearisation } from '../src/mechanics/linearisation.ts'
 import type { ScalarExtremes } from '../src/mechanics/scalarExtremes.ts'
+import type { SectionAxesChoice, SectionAxesKind } from '../src/mechanics/sectionAxes.ts'
 
-export type { ArrowMode, Plane, SurfaceQuantity, Vec3 }
+export type { ArrowMode, Plane, SectionAxesChoice, SectionAxesKind, SurfaceQuantity, Vec3 }
 export type { ComponentAxes, ComponentQuantity, EquivalentCriterion, Linearisation, ScalarExtremes }
 
 /** Summary of the loaded model (no O(elements) data). */
@@ -55,6 +56,10 @@ export interface ModelSummary {
     readonly sharing: 'shared' | 'copy' | 'none'
     readonly fallback?: string
   }
+  /** The files the model was read from, for traceability (absent for a generated model). */
+  readonly inputs?: readonly InputFileRecord[]
+  /** Whether the stress came per node or per element node. */
+  readonly stressLayout?: 'nodal' | 'element-nodal'
 }
 
 /**
@@ -80,7 +85,9 @@ export type SurfaceBuffers = Omit<SurfaceTriangles, 'faceVertexStart' | 'bounds'
  * - `vectors`: Float32Array(3·A), stress units (traction, its normal part or its shear part
  *   according to `mode`);
  * - `normals`: Float32Array(3·A), unit outward face normal (or section normal m) at each arrow;
- * - `magnitudes`: Float32Array(A) = |vectors|, stress units; `maxMagnitude` their maximum.
+ * - `magnitudes`: Float32Array(A) = |vectors|, stress units; `maxMagnitude` their maximum;
+ * - `normalTraction`: Float32Array(A), signed normal traction t̄·n (stress units, tension +),
+ *   whatever the mode: what the arrows are coloured by.
  * (This is the ArrowSamples record of src/mechanics/arrowSampling.ts, passed through.)
  * Drawn length = scale · |v| / maxMagnitude · 0.08 · (diagonal of the model bounds).
  */
@@ -91,6 +98,7 @@ export interface ArrowBuffers {
   readonly normals: Float32Array
   readonly magnitudes: Float32Array
   readonly maxMagnitude: number
+  readonly normalTraction: Float32Array
   /**
    * Float32Array(3·A), length units: the displacement the deformed shape moves each arrow's
    * origin by (the mean over its face's nodes, or its section polygon's vertices); absent
@@ -132,6 +140,12 @@ export interface AuditSummary {
   readonly freeSurfaceForce: Vec3
   /** Mesh error or model error, with its reason in words (src/mechanics/balanceVerdict.ts). */
   readonly verdict: BalanceVerdict
+  /** The patches' lower threshold (stress units), the fractions of the reference stress, and the feature angle (degrees). */
+  readonly lowerThreshold: number
+  readonly fractions: { readonly threshold: number; readonly lowerThreshold: number }
+  readonly featureAngle: number
+  /** The least balanced elements, largest indicator first (src/mechanics/leastBalanced.ts). */
+  readonly leastBalanced: readonly LeastBalancedElement[]
 }
 
 /** A pick ray in model coordinates (length units; direction need not be unit). */
@@ -204,7 +218,7 @@ export interface EngineFile {
 }
 
 export type ModelSource =
-  | { readonly kind: 'files'; readonly files: readonly EngineFile[]; readonly label?: string }
+  | { readonly kind: 'files'; readonly files: readonly EngineFile[]; readonly label?: string; readonly inputs?: readonly InputFileRecord[] }
   | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
 
 export interface LoadedModel {
@@ -229,6 +243,7 @@ export interface CutReply {
   readonly buffers: SectionBuffers | null
   /** Time the engine spent on this cut (ms): the section, its triangles and arrows. */
   readonly computeMs: number
+  readonly info?: CutInfo
 }
 
 export interface ProbeRequest {
@@ -269,6 +284,59 @@ export interface SweepReply {
   readonly freeBodyRelative: Float64Array
   readonly freeBodyMomentRelative: Float64Array
   readonly empty: Uint8Array
+  /** The section axes of every section: one kind and one reference (unit) for the whole sweep. */
+  readonly axes: { readonly kind: SectionAxesKind; readonly reference: Vec3 }
+}
+
+// Reading the results: section axes, the patch rule, traceability, least balanced elements.
+
+/** How a cut is resolved: its section axes (principal by default). */
+export interface CutOptions {
+  readonly axes?: SectionAxesChoice
+}
+
+/**
+ * What the engine adds to a cut: `axesNote` when the asked-for reference was parallel to the
+ * normal (the cut then used the default reference, and says so); `extent` [min, max] of x·m over
+ * the nodes (length units) when the plane missed the body, so the card can say where the body is.
+ */
+export interface CutInfo {
+  readonly axesNote?: string
+  readonly extent?: readonly [number, number]
+}
+
+/**
+ * The load-entry patch rule (src/mechanics/loadPatches.ts): a face above `threshold` × the
+ * reference stress starts a patch, one above `lowerThreshold` × it may join one; patches split
+ * where neighbouring faces' normals differ by more than `featureAngle` degrees, and between parts.
+ */
+export interface PatchRule {
+  readonly threshold: number
+  readonly lowerThreshold: number
+  readonly featureAngle: number
+}
+
+/** Patches by a new rule: the audit (patches, thresholds, free surface, verdict) and the per-vertex patch labels of the surface. */
+export interface PatchReply {
+  readonly audit: AuditSummary
+  /** Float32Array(V), like SurfaceBuffers.patch. */
+  readonly patchLabel: Float32Array
+}
+
+/** One of the least balanced elements: the user's id, its indicator, its centre and size (length units; to frame it). */
+export interface LeastBalancedElement {
+  readonly id: number
+  readonly indicator: number
+  readonly centre: Vec3
+  readonly radius: number
+}
+
+/** An input file as read: its name, size in bytes and SHA-256 (hex), for the report's traceability. */
+export interface InputFileRecord {
+  readonly name: string
+  readonly bytes: number
+  /** Lower-case hex SHA-256 of the bytes read; absent where the browser offers no digest. */
+  readonly sha256?: string
 }
 
 /** Kinds of deliberate failure the end-to-end build's engine can be asked for (see `crash`). */
@@ -277,12 +345,15 @@ export type CrashKind = 'throw' | 'memory'
 export interface EngineApi {
   /** Sets how the engine may use the machine; before any job. */
   configure(options: ComputeOptions): void
-  load(source: ModelSource, onProgress?: ProgressCallback): Promise<Outcome<LoadedModel>>
+  /** Reads and analyses a model; `rule`: the load-entry patch rule (the defaults when absent). */
+  load(source: ModelSource, onProgress?: ProgressCallback, rule?: PatchRule): Promise<Outcome<LoadedModel>>
   surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
-  cut(plane: Plane, arrows: ArrowRequest): Promise<Outcome<CutReply>>
+  cut(plane: Plane, arrows: ArrowRequest, options?: CutOptions): Promise<Outcome<CutReply>>
   probe(req: ProbeRequest): Promise<ProbeResult | null>
   /** Sections along `normal`; `from`/`to` default to the model's extent along it (length units). */
-  sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply>>
+  sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice): Promise<Outcome<SweepReply>>
+  /** The load-entry patches again, by another rule: the audit with them and the surface's patch labels. */
+  patches(rule: PatchRule): Promise<Outcome<PatchReply>>
   /** The surface's stress and displacement components in `axes`. */
   components(axes: ComponentAxes): Promise<Outcome<ComponentBuffers>>
   /** Values along a line and its linearisation. */

@@ -8,6 +8,8 @@ import { unitNormal } from '../src/mechanics/plane.ts'
 import { sweepSections } from '../src/mechanics/sectionSweep.ts'
 import { nodalStressField } from '../src/model/stressField.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
+import { projectReference, referenceOf } from '../src/mechanics/sectionAxes.ts'
+import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
 import type { SweepReply } from './protocol.ts'
 
 /** [min, max] of x·m over the nodes (length units); m need not be unit (unitNormal: zero is an InputError). */
@@ -24,13 +26,18 @@ export function extentAlong(coords: Float64Array, normal: Vec3): [number, number
 
 export function sweepAlong(
   model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, normal: Vec3, count: number, from?: number, to?: number,
+  axes: SectionAxesChoice = { kind: 'principal' },
 ): SweepReply {
   const extent = extentAlong(model.mesh.coords, normal)
+  // One reference for every section (checked once: a reference parallel to the normal is an input error).
+  const m = unitNormal(normal, 'sweep direction')
+  const reference = referenceOf(m, axes)
+  projectReference(m, reference)
   // The end planes sit a hair inside the body: a plane through the very end face cuts nothing.
   const inset = (extent[1] - extent[0]) * 1e-6
   const a = from ?? extent[0] + inset
   const b = to ?? extent[1] - inset
-  const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, normal, a, b, count, { faces, tractions })
+  const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, normal, a, b, count, { faces, tractions, axes: { kind: axes.kind, reference } })
   const n = results.length
   const out = {
     axial: new Float64Array(n), shear1: new Float64Array(n), shear2: new Float64Array(n), torque: new Float64Array(n),
@@ -49,7 +56,7 @@ export function sweepAlong(
     out.freeBodyMomentRelative[k] = r.freeBody.momentRelative
     out.empty[k] = r.empty ? 1 : 0
   }
-  return { normal: unitNormal(normal, 'sweep direction'), extent, offsets, ...out }
+  return { normal: m, extent, offsets, ...out, axes: { kind: axes.kind, reference } }
 }
 
 export function sweepTransfer(r: SweepReply): ArrayBuffer[] {

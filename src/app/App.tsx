@@ -8,6 +8,9 @@ import { ColourBar } from './ui/ColourBar.tsx'
 import { ProgressBar } from './ui/ProgressBar.tsx'
 import { ErrorCard } from './ui/ErrorCard.tsx'
 import { HelpOverlay } from './ui/HelpOverlay.tsx'
+import { NoticeCard } from './ui/NoticeCard.tsx'
+import { ViewButtons } from './ui/ViewButtons.tsx'
+import { useStore } from '../state/store.ts'
 import { FileIntake } from './ui/FileIntake.tsx'
 import { CutCard } from './cards/CutCard.tsx'
 import { EquilibriumCard } from './cards/EquilibriumCard.tsx'
@@ -21,8 +24,35 @@ import { LineCard } from './cards/LineCard.tsx'
 import { DeformationCard } from './cards/DeformationCard.tsx'
 import { SceneView } from './SceneView.tsx'
 
+/**
+ * Reports to the store how much of the scene the top bar, the cards and the bottom bar cover
+ * (CSS pixels), whenever any of them changes size, so framing centres in the open part.
+ */
+function useViewInsets(cards: React.RefObject<HTMLElement | null>): void {
+  useEffect(() => {
+    const measure = (): void => {
+      const W = window.innerWidth
+      const top = document.querySelector('.topbar')?.getBoundingClientRect().bottom ?? 0
+      const bottomEl = document.querySelector('.bottom')?.getBoundingClientRect()
+      const bottom = bottomEl ? Math.max(0, window.innerHeight - bottomEl.top) : 0
+      const c = cards.current?.getBoundingClientRect()
+      // The cards column covers the scene from its left edge to the window's right edge.
+      const right = c && c.width > 0 ? Math.max(0, W - c.left) : 0
+      useStore.getState().setViewInsets({ top: Math.round(top), right: Math.round(right), bottom: Math.round(bottom), left: 0 })
+    }
+    measure()
+    const ro = new ResizeObserver(measure)
+    for (const el of [cards.current, document.querySelector('.topbar'), document.querySelector('.bottom')]) if (el) ro.observe(el)
+    window.addEventListener('resize', measure)
+    return () => { ro.disconnect(); window.removeEventListener('resize', measure) }
+  }, [cards])
+}
+
 export function App() {
   const input = useRef<HTMLInputElement>(null)
+  const cards = useRef<HTMLElement>(null)
+  const wide = useStore((s) => s.wideCards)
+  useViewInsets(cards)
   // The engine client turns the store's requests (a plane, a drag step, a probe ray, arrow
   // settings) into worker jobs while the app is mounted.
   useEffect(() => engine.watch(), [])
@@ -41,8 +71,10 @@ export function App() {
       <SceneView />
       <TopBar onOpen={() => input.current?.click()} />
       <ProgressBar />
-      <aside className="cards" aria-label="Cards">
+      <ViewButtons />
+      <aside ref={cards} className={'cards' + (wide ? ' wide' : '')} aria-label="Cards">
         <ErrorCard />
+        <NoticeCard />
         <ModelCard />
         <CutCard />
         <SweepCard />

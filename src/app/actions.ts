@@ -9,6 +9,7 @@ import { composeSnapshot } from './snapshot.ts'
 import { useStore } from '../state/store.ts'
 import { buildViewLink, parseViewLink } from './urlHash.ts'
 import type { ViewLink } from './urlHash.ts'
+import type { InputFileRecord } from '../../workers/protocol.ts'
 
 /** An entry of public/demo/index.json. */
 export interface DemoEntry {
@@ -70,31 +71,44 @@ export async function takeSnapshot(scale: number): Promise<void> {
   }
 }
 
-/** The link of the current view (model when it can be reloaded from a link). */
+/** The first 12 hex digits of each input's SHA-256, when every input has one. */
+function shortHashes(inputs: readonly InputFileRecord[] | undefined): string[] | undefined {
+  if (!inputs || inputs.length === 0 || !inputs.every((i) => i.sha256)) return undefined
+  return inputs.map((i) => i.sha256!.slice(0, 12))
+}
+
+/** The link of the current view (the model by name: a demo, a generated block, or the user's files). */
 export function currentViewLink(): ViewLink {
   const st = useStore.getState()
   const src = st.model?.source ?? ''
   let model: ViewLink['model']
   if (src.startsWith('demo:')) model = { kind: 'demo', id: src.slice(5) }
   else if (src.startsWith('synthetic:block:')) model = { kind: 'block', elements: Number(src.slice(16)) }
+  else if (src.startsWith('files:')) {
+    const names = st.model?.inputs?.map((i) => i.name) ?? src.slice(6).split(',')
+    const sha = shortHashes(st.model?.inputs)
+    model = { kind: 'files', names, ...(sha ? { sha } : {}) }
+  }
   return {
-    model, quantity: st.quantity, range: st.range, colourMap: st.colourMap, units: st.units,
+    model, quantity: st.quantity, range: st.range, colourMap: st.colourMap, units: st.unitPreset === 'model' ? 'model' : st.units,
     section: st.section.enabled ? { ...st.section } : undefined,
     camera: st.camera ?? undefined,
   }
 }
 
+/** The view of a link that waits for its model: loaded from the link, or (files) opened by the user. */
 let pendingView: ViewLink | null = null
 
 /** Applies the parts of a link that do not need a model, and keeps the rest for after the load. */
 function applyImmediate(v: ViewLink): void {
-  useStore.getState().applyViewSettings(v)
+  const st = useStore.getState()
+  const { units, ...rest } = v
+  st.applyViewSettings({ quantity: rest.quantity, range: rest.range, colourMap: rest.colourMap })
+  if (units === 'model') st.setUnitPreset('model')
+  else if (units) st.setUnits(units)
 }
 
-function applyAfterLoad(): void {
-  const v = pendingView
-  pendingView = null
-  if (!v) return
+function applyView(v: ViewLink): void {
   const st = useStore.getState()
   if (v.range) st.setRange(v.range)
   if (v.section) st.setSection(v.section)
@@ -104,12 +118,72 @@ function applyAfterLoad(): void {
   if (cam) setTimeout(() => useStore.getState().requestView({ camera: cam }), 50)
 }
 
+const sameName = (a: string, b: string): boolean => a.toLowerCase() === b.toLowerCase()
+
+/**
+ * After every load: a pending link view is applied when its model is the one just loaded. A view
+ * made on the user's own files waits for files of the same names; it says so while it waits, and
+ * says when the files opened have those names but other contents.
+ */
+function onLoaded(source: AppSource): void {
+  const v = pendingView
+  if (!v) return
+  const st = useStore.getState()
+  if (v.model?.kind !== 'files') {
+    pendingView = null
+    applyView(v)
+    return
+  }
+  if (source.kind !== 'files') return // a demo shown while the link waits for the user's files
+  const names = v.model.names
+  const opened = source.files.map((f) => f.name)
+  const matches = names.length === opened.length && names.every((n) => opened.some((o) => sameName(n, o)))
+  if (!matches) {
+    st.setLinkNotice({
+      kind: 'needs-files', files: names,
+      message: `This view was made on the files ${names.join(', ')}; the files just opened (${opened.join(', ')}) are other ones, so the view waits. Open ${names.length === 1 ? 'that file' : 'those files'} to apply it.`,
+    })
+    return
+  }
+  pendingView = null
+  applyView(v)
+  const have = shortHashes(st.model?.inputs)
+  const want = v.model.sha
+  if (want && have) {
+    const byName = new Map((st.model?.inputs ?? []).map((i, k) => [i.name.toLowerCase(), have[k]]))
+    const differ = names.filter((n, k) => byName.get(n.toLowerCase()) !== want[k])
+    if (differ.length) {
+      st.setLinkNotice({ kind: 'needs-files', files: names, message: `The view is applied, but ${differ.join(', ')} ${differ.length === 1 ? 'differs' : 'differ'} from the file the link was made on (another SHA-256): check that this is the same model.` })
+      return
+    }
+  }
+  st.setLinkNotice(null)
+}
+
+/**
+ * The model a link loads: its demo or generated block; the first demo for a link on the user's
+ * own files (their view waits, see onLoaded) and, with a notice, for a demo this build lacks.
+ */
 async function sourceForLink(v: ViewLink): Promise<AppSource> {
   if (v.model?.kind === 'block') return { kind: 'synthetic', spec: { kind: 'block', elements: v.model.elements } }
   const list = await demos()
   const m = v.model
   const wanted = m?.kind === 'demo' ? list.find((d) => d.id === m.id) : undefined
   const first = wanted ?? list[0]
+  const st = useStore.getState()
+  if (m?.kind === 'demo' && !wanted) {
+    // The section and camera belong to the missing model: they are not applied to another.
+    pendingView = null
+    st.setLinkNotice({
+      kind: 'unknown-demo',
+      message: `The link names the demo "${m.id}", which this copy of Tractus does not have${first ? `; showing "${first.name}" instead, without the link's section and camera` : ''}.`,
+    })
+  } else if (m?.kind === 'files') {
+    st.setLinkNotice({
+      kind: 'needs-files', files: m.names,
+      message: `This view was made on your own ${m.names.length === 1 ? 'file' : 'files'} ${m.names.join(', ')}, which a link cannot carry. Open ${m.names.length === 1 ? 'it' : 'them'} (Open… or drop ${m.names.length === 1 ? 'it' : 'them'} on the window) and the view — section, camera, colour range — is applied.`,
+    })
+  } else st.setLinkNotice(null)
   return first ? demoSource(first) : FALLBACK_SOURCE
 }
 
@@ -123,7 +197,7 @@ export async function startFromHash(): Promise<void> {
   const v = parseViewLink(window.location.hash)
   applyImmediate(v)
   pendingView = v
-  engine.onModelLoaded(() => applyAfterLoad())
+  engine.onModelLoaded(onLoaded)
   const ok = await engine.load(await sourceForLink(v))
   if (!ok && !useStore.getState().model) await engine.load(FALLBACK_SOURCE)
 }
@@ -133,14 +207,17 @@ export async function followHash(): Promise<void> {
   const v = parseViewLink(window.location.hash)
   const cur = useStore.getState().model?.source ?? ''
   applyImmediate(v)
+  pendingView = v
   const wantKey = v.model?.kind === 'demo' ? `demo:${v.model.id}` : v.model?.kind === 'block' ? `synthetic:block:${v.model.elements}` : null
-  if (wantKey && wantKey !== cur) {
-    pendingView = v
-    await engine.load(await sourceForLink(v))
-  } else {
-    pendingView = v
-    applyAfterLoad()
+  if (v.model?.kind === 'files') {
+    // Already showing those files? Then the view applies now; else it waits for them.
+    const names = useStore.getState().model?.inputs?.map((i) => i.name) ?? []
+    const shown = cur.startsWith('files:') && v.model.names.length === names.length && v.model.names.every((n) => names.some((o) => sameName(n, o)))
+    if (shown) { pendingView = null; applyView(v) } else await sourceForLink(v)
+    return
   }
+  if (wantKey && wantKey !== cur) await engine.load(await sourceForLink(v))
+  else { pendingView = null; applyView(v) }
 }
 
 let lastWritten = ''
@@ -151,7 +228,8 @@ export function startHashSync(): () => void {
   const write = (): void => {
     timer = null
     const st = useStore.getState()
-    if (!st.model || st.section.dragging) return
+    // A link waiting for the user's files keeps its address, so a reload still asks for them.
+    if (!st.model || st.section.dragging || pendingView?.model?.kind === 'files') return
     const h = buildViewLink(currentViewLink())
     if (h !== lastWritten && h !== window.location.hash) {
       lastWritten = h

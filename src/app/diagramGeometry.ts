@@ -44,6 +44,8 @@ export function diagramGeometry(
   margin = { left: 64, right: 12, top: 10, bottom: 28 },
   /** Horizontal range to show, when wider than the data's (e.g. the part's whole extent). */
   xDomain?: readonly [number, number],
+  /** Vertical range to show, when wider than the data's (diagrams that share one scale). */
+  yDomain?: readonly [number, number],
 ): DiagramGeometry {
   const plot = { x: margin.left, y: margin.top, w: width - margin.left - margin.right, h: height - margin.top - margin.bottom }
   let x0 = Infinity, x1 = -Infinity, y0 = Infinity, y1 = -Infinity
@@ -55,6 +57,7 @@ export function diagramGeometry(
     }
   }
   if (xDomain && Number.isFinite(xDomain[0]) && Number.isFinite(xDomain[1])) { x0 = Math.min(x0, xDomain[0]); x1 = Math.max(x1, xDomain[1]) }
+  if (yDomain && Number.isFinite(yDomain[0]) && Number.isFinite(yDomain[1])) { y0 = Math.min(y0, yDomain[0]); y1 = Math.max(y1, yDomain[1]) }
   if (!(x0 <= x1)) { x0 = 0; x1 = 1 }
   if (x0 === x1) { x0 -= 0.5; x1 += 0.5 }
   if (!(y0 <= y1)) { y0 = 0; y1 = 1 }

@@ -24,10 +24,11 @@ import type { StoreApi } from 'zustand'
 import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { Vec3 } from '../model/model.ts'
-import { deformScaleOf, sectionPlaneOf } from '../state/selectors.ts'
+import { deformScaleOf, resolvedHide, sectionPlaneOf } from '../state/selectors.ts'
 import type { TractusState } from '../state/store.ts'
 import type {
-  AppError, ComputeOptions, CutReply, EngineCalls, EngineFile, LoadedModel, ModelSource, Outcome, Progress, SweepReply, SyntheticSpec,
+  AppError, ComputeOptions, CutReply, EngineCalls, EngineFile, InputFileRecord, LoadedModel, ModelSource, Outcome, PatchReply, Progress,
+  SectionAxesChoice, SweepReply, SyntheticSpec,
 } from '../../workers/protocol.ts'
 import type { ComponentAxes } from '../../workers/protocol.ts'
 
@@ -72,7 +73,7 @@ export interface EngineClient {
    * Sections along `normal` (model extent when from/to are left out). Resolves to null when a
    * restart dropped the job; input problems come back as {ok: false}.
    */
-  sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply> | null>
+  sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice): Promise<Outcome<SweepReply> | null>
   /** Runs `job` in turn; an unexpected failure shows in the error card and the engine restarts. Null then. */
   runJob<T>(job: (calls: EngineCalls) => Promise<T>): Promise<T | null>
   /** Called after each successful load (the app applies a pending link view then). */
@@ -103,6 +104,18 @@ async function readFile(f: File): Promise<EngineFile> {
   const lower = f.name.toLowerCase()
   if (lower.endsWith('.csv') || lower.endsWith('.json') || lower.endsWith('.txt')) return { name: f.name, data: await f.text() }
   return { name: f.name, data: await f.arrayBuffer() }
+}
+
+/**
+ * Name, size and SHA-256 of an input file for the report's traceability. The digest is the
+ * browser's own (SubtleCrypto, native and off the script thread); where the page has none (not a
+ * secure context) the record says so by leaving it out.
+ */
+async function inputRecord(name: string, bytes: ArrayBuffer): Promise<InputFileRecord> {
+  const subtle = globalThis.crypto?.subtle
+  if (!subtle) return { name, bytes: bytes.byteLength }
+  const digest = new Uint8Array(await subtle.digest('SHA-256', bytes))
+  return { name, bytes: bytes.byteLength, sha256: Array.from(digest, (b) => b.toString(16).padStart(2, '0')).join('') }
 }
 
 /** True for the errors a browser raises when it cannot give the memory asked for. */
@@ -193,13 +206,16 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     if (s.kind === 'synthetic') return { kind: 'synthetic', spec: s.spec }
     if (s.kind === 'files') {
       checkModelSize(s.files.map((f) => ({ name: f.name, size: f.size })))
-      return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(',') }
+      const inputs = await Promise.all(s.files.map(async (f) => inputRecord(f.name, await f.arrayBuffer())))
+      return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(','), inputs }
     }
     const res = await fetchUrl(s.url)
     if (!res.ok) throw new Error(`Could not read the demo model ${s.file} (HTTP ${res.status}).`)
-    const data = s.file.toLowerCase().endsWith('.json') ? await res.text() : await res.arrayBuffer()
+    const bytes = await res.arrayBuffer()
     const name = s.file.split('/').pop() ?? s.file
-    return { kind: 'files', files: [{ name, data }], label: `demo:${s.id}` }
+    const inputs = [await inputRecord(name, bytes)]
+    const data = s.file.toLowerCase().endsWith('.json') ? new TextDecoder().decode(bytes) : bytes
+    return { kind: 'files', files: [{ name, data }], label: `demo:${s.id}`, inputs }
   }
 
   async function load(source: AppSource, opts: { quiet?: boolean } = {}): Promise<boolean> {
@@ -215,7 +231,8 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     const gen = generation
     try {
       const onProgress = (p: Progress): void => { if (gen === generation) store.getState().loadProgress(p) }
-      const out = await enqueue<Outcome<LoadedModel>>((calls) => calls.load(src, onProgress))
+      const rule = store.getState().patchRule
+      const out = await enqueue<Outcome<LoadedModel>>((calls) => calls.load(src, onProgress, rule))
       if (gen !== generation) return false
       if (!out.ok) { store.getState().loadEnded(out.error); return false }
       lastGood = source
@@ -287,12 +304,13 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     // Software WebGL pays for every arrow on every frame (the compositor waits for the picture):
     // while the plane is being dragged there, the section arrows are left out; they return on release.
     const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
-    const key = cutKey(plane, mode, budget)
+    const axes = st.sectionAxes
+    const key = cutKey(plane, mode, budget) + `|${axes.kind}|${axes.reference?.join(',') ?? ''}`
     if (!a.paced && key === shownKey && st.sectionResult) return
     cutInFlight = true
     const gen = generation
     const asked = performance.now()
-    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }))
+    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }, { axes }))
       .then((out) => {
         if (gen !== generation) return
         cutTimed(asked, out.ok ? out.value.computeMs : null)
@@ -301,7 +319,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
         if (a.paced && !now.section.dragging) return
         if (!out.ok) { now.showError(out.error); return }
         shownKey = key
-        now.cutShown(out.value.result, out.value.buffers, a.paced ? a.offset : undefined)
+        now.cutShown(out.value.result, out.value.buffers, a.paced ? a.offset : undefined, out.value.info ?? null)
       })
       .catch((e) => {
         if (gen === generation) store.getState().showError({ message: `The section could not be computed: ${e instanceof Error ? e.message : String(e)}` })
@@ -334,7 +352,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     if (!ray || !st.model || probeInFlight) return
     probeInFlight = true
     const gen = generation
-    const section = st.section.enabled ? { plane: sectionPlaneOf(st.section), hide: st.section.hide } : null
+    const section = st.section.enabled ? { plane: sectionPlaneOf(st.section), hide: resolvedHide(st.section, st.camera) } : null
     const deformScale = deformScaleOf(st)
     enqueue((calls) => calls.probe({ ray, section, deformScale }))
       .then((r) => {
@@ -422,13 +440,27 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
         if (x.surface !== y.surface || x.mode !== y.mode || x.budget !== y.budget) void refreshSurfaceArrows()
       }
       if (s.probeRay !== p.probeRay && s.probeRay) runProbe()
+      if (s.sectionAxes !== p.sectionAxes) requestCut()
+      if (s.patchRule !== p.patchRule && s.model) void refreshPatches()
     })
   }
 
-  async function sweep(normal: Vec3, count: number, from?: number, to?: number): Promise<Outcome<SweepReply> | null> {
+  /** Finds the patches again by the store's rule (the newest rule wins; an older reply is dropped). */
+  async function refreshPatches(): Promise<void> {
+    const rule = store.getState().patchRule
     const gen = generation
     try {
-      const out = await enqueue<Outcome<SweepReply>>((calls) => calls.sweep(normal, count, from, to))
+      const out = await enqueue<Outcome<PatchReply>>((calls) => calls.patches(rule))
+      if (gen !== generation || store.getState().patchRule !== rule) return
+      if (!out.ok) { store.getState().showError(out.error); return }
+      store.getState().patchesShown(out.value.audit, out.value.patchLabel)
+    } catch { /* dropped by a restart */ }
+  }
+
+  async function sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice): Promise<Outcome<SweepReply> | null> {
+    const gen = generation
+    try {
+      const out = await enqueue<Outcome<SweepReply>>((calls) => calls.sweep(normal, count, from, to, axes))
       return gen === generation ? out : null
     } catch (e) {
       if (gen !== generation) return null

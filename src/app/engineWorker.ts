@@ -21,11 +21,12 @@ export function startEngineWorker(onFailure: (message: string) => void): EngineC
   })
   const calls: EngineCalls = {
     configure: (options) => remote.configure(options),
-    load: (source, onProgress) => remote.load(Comlink.transfer(source, transferList(source)), onProgress ? Comlink.proxy(onProgress) : undefined),
+    load: (source, onProgress, rule) => remote.load(Comlink.transfer(source, transferList(source)), onProgress ? Comlink.proxy(onProgress) : undefined, rule),
     surfaceArrows: (req) => remote.surfaceArrows(req),
-    cut: (plane, arrows) => remote.cut(plane, arrows),
+    cut: (plane, arrows, options) => remote.cut(plane, arrows, options),
     probe: (req) => remote.probe(req),
-    sweep: (normal, count, from, to) => remote.sweep(normal, count, from, to),
+    sweep: (normal, count, from, to, axes) => remote.sweep(normal, count, from, to, axes),
+    patches: (rule) => remote.patches(rule),
     components: (axes) => remote.components(axes),
     line: (req) => remote.line(req),
     lineThroughWall: (from, to) => remote.lineThroughWall(from, to),

@@ -20,6 +20,10 @@ export function formatNumber(v: number, digits = 4): string {
   return s.replace(/-/g, '−')
 }
 
+// The display rule for rounding noise lives in src/model/roundingNoise.ts (the command line's
+// tables use it too); the cards, snapshot and report take it from here.
+export { denoise, noiseFloor, NOISE_FRACTION } from '../model/roundingNoise.ts'
+
 /** Converts a model-unit value of `q` to the display system. */
 export function convert(v: number, units: ModelUnits, q: Quantity, system: UnitSystem): number {
   return v * displayFactor(units, q, system)

@@ -8,6 +8,7 @@ import { buildReportContent } from './reportContent.ts'
 import { renderReport } from './reportDocument.ts'
 import { composeSnapshot } from './snapshot.ts'
 import { useStore } from '../state/store.ts'
+import { TOOL_VERSION } from './version.ts'
 
 function blobToDataUrl(b: Blob): Promise<string> {
   return new Promise((resolve, reject) => {
@@ -32,6 +33,7 @@ export async function buildReportHtml(): Promise<string> {
     model: st.model, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
     section: st.section.enabled ? st.sectionResult : null, sweep: st.sweep, shown: st.sweepShown, snapshot,
     line: st.lineResult, lineShown: st.lineSeries,
+    review: st.review, version: TOOL_VERSION,
   })
   return renderReport(content)
 }

@@ -8,13 +8,14 @@ import type { UnitSystem } from '../model/units.ts'
 import { displayUnitLabel } from '../model/units.ts'
 import { diagramGeometry } from './diagramGeometry.ts'
 import type { DiagramGeometry } from './diagramGeometry.ts'
-import { patchRow, sectionRows } from './exports.ts'
-import { convert, formatNumber } from './format.ts'
+import { axesLines, patchRow, patchRuleText, sectionRows } from './exports.ts'
+import { convert, denoise, formatNumber, noiseFloor } from './format.ts'
 import type { AuditSummary, ModelSummary, SeriesKey, SweepReply } from '../../workers/protocol.ts'
 import type { LineReply } from '../../workers/protocol.ts'
 import type { LineSeries } from '../state/lineSlice.ts'
 import { frameNote, linearisationTables, linePointTable, lineSeries, lineSeriesValues } from './lineExport.ts'
 import { LINEARISATION_CAUTION, LINEARISATION_METHOD } from '../mechanics/linearisation.ts'
+import type { ReviewFields } from '../state/store.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
 
 export interface ReportTable {
@@ -69,35 +70,53 @@ export interface ReportInput {
   // A line through the model (its values and linearisation) and the series its chart shows.
   readonly line?: LineReply | null
   readonly lineShown?: Readonly<Record<LineSeries, boolean>>
+  /** The reviewer's fields (title, project, people, revision, load case, notes); empty ones are left out. */
+  readonly review?: ReviewFields
+  /** The tool's version (package.json). */
+  readonly version?: string
 }
 
 const PNG_DATA_URL = /^data:image\/png;base64,[A-Za-z0-9+/]+=*$/
 
 const fmt = (v: number): string => formatNumber(v)
-const vec = (v: readonly number[]): string => `(${v.map(fmt).join(', ')})`
+/** A vector as read: components below `floor` (display units; the rounding-noise rule of format.ts) shown as 0. */
+const vec = (v: readonly number[], floor = 0): string => `(${v.map((x) => fmt(denoise(x, floor))).join(', ')})`
+
+/** The model's size (its bounds' diagonal, length units): what coordinates are judged against. */
+function modelSize(m: ModelSummary): number {
+  const { min, max } = m.bounds
+  return Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2])
+}
 
 function equilibriumTable(a: AuditSummary, input: ReportInput): ReportTable {
   const { units } = input.model, sys = input.system
-  const F = displayUnitLabel('force', sys), M = displayUnitLabel('moment', sys), S = displayUnitLabel('stress', sys)
+  const F = displayUnitLabel('force', sys), M = displayUnitLabel('moment', sys), S = displayUnitLabel('stress', sys), L = displayUnitLabel('length', sys)
   const f = (v: number): number => convert(v, units, 'force', sys)
   const m = (v: number): number => convert(v, units, 'moment', sys)
+  const l = (v: number): number => convert(v, units, 'length', sys)
   const b = a.body
+  // Forces with forces (and the gross load), moments with moments, points against the model's size.
+  const fFloor = noiseFloor([...b.force, ...b.bodyForceTotal, ...a.freeSurfaceForce].map(f), f(b.gross))
+  const mFloor = noiseFloor(b.moment.map(m))
+  const lFloor = noiseFloor([], l(modelSize(input.model)))
   return {
     kind: 'table', id: 'equilibrium', heading: 'Equilibrium of the whole body',
     note: 'Residual = surface integral of the traction plus the body force integral; element indicator = |element residual| / gross load.',
     head: ['Figure', 'Value', 'Unit'],
     rows: [
-      ['Residual force', vec(b.force.map(f)), F],
-      ['Residual moment', vec(b.moment.map(m)), M],
+      ['Residual force', vec(b.force.map(f), fFloor), F],
+      ['Residual moment', vec(b.moment.map(m), mFloor), M],
+      ['Residual moment taken about (volume centroid)', vec(b.about.map(l), lFloor), L],
       ['Residual / gross load', fmt(b.relative), '–'],
       ['Verdict', a.verdict.reason, '–'],
-      ['Of the residual, free surface', vec(a.freeSurfaceForce.map(f)), F],
+      ['Of the residual, free surface', vec(a.freeSurfaceForce.map(f), fFloor), F],
       ['Gross load', fmt(f(b.gross)), F],
-      ['Body force total', vec(b.bodyForceTotal.map(f)), F],
+      ['Body force total', vec(b.bodyForceTotal.map(f), fFloor), F],
       ['Volume', fmt(convert(b.volume, units, 'volume', sys)), displayUnitLabel('volume', sys)],
       ['Element indicator, median', fmt(a.indicator.p50), '–'],
       ['Element indicator, 95th percentile', fmt(a.indicator.p95), '–'],
       ['Element indicator, largest', fmt(a.indicator.max), '–'],
+      ...(a.leastBalanced ?? []).map((e, i): string[] => [i === 0 ? 'Least balanced elements (id: indicator)' : '', `${e.id}: ${fmt(e.indicator)}`, '–']),
       ['Free surface area', fmt(convert(a.freeSurface.area, units, 'area', sys)), displayUnitLabel('area', sys)],
       ['Free surface mean |t|', fmt(convert(a.freeSurface.mean, units, 'stress', sys)), S],
       ['Free surface peak |t|', fmt(convert(a.freeSurface.peak, units, 'stress', sys)), S],
@@ -105,29 +124,49 @@ function equilibriumTable(a: AuditSummary, input: ReportInput): ReportTable {
   }
 }
 
-function patchTable(a: AuditSummary, input: ReportInput): ReportTable {
+/** The patches in two tables: their figures, then their vectors (one wide table would not fit a page). */
+function patchTables(a: AuditSummary, input: ReportInput): ReportTable[] {
   const sys = input.system
-  const L = displayUnitLabel('length', sys), A = displayUnitLabel('area', sys), F = displayUnitLabel('force', sys), S = displayUnitLabel('stress', sys)
-  return {
+  const L = displayUnitLabel('length', sys), A = displayUnitLabel('area', sys), F = displayUnitLabel('force', sys), M = displayUnitLabel('moment', sys), S = displayUnitLabel('stress', sys)
+  const rows = a.patches.map((p) => patchRow(p, input.model.units, sys))
+  const fFloor = noiseFloor(rows.flatMap((r) => r.force)), mFloor = noiseFloor(rows.flatMap((r) => r.moment))
+  const lFloor = noiseFloor([], convert(modelSize(input.model), input.model.units, 'length', sys))
+  const parts = new Set(rows.map((r) => r.part)).size > 1
+  const rule = a.fractions ? `Patches: ${patchRuleText(a)}. ` : ''
+  const figures: ReportTable = {
     kind: 'table', id: 'patches', heading: 'Load-entry patches',
-    note: `Surface areas whose traction exceeds ${fmt(convert(a.threshold, input.model.units, 'stress', sys))} ${S}.` + (a.patches.length ? '' : ' None were found.'),
-    head: ['#', 'Faces', `Area [${A}]`, `Centroid [${L}]`, `Force [${F}]`, `|F| [${F}]`, `Peak |t| [${S}]`, `Mean |t| [${S}]`],
-    rows: a.patches.map((p) => {
-      const r = patchRow(p, input.model.units, sys)
-      return [String(r.id), String(r.faces), fmt(r.area), vec(r.centroid), vec(r.force), fmt(r.forceMagnitude), fmt(r.peak), fmt(r.mean)]
-    }),
+    note: `${rule}Start level ${fmt(convert(a.threshold, input.model.units, 'stress', sys))} ${S}` +
+      (a.lowerThreshold !== undefined ? `, join level ${fmt(convert(a.lowerThreshold, input.model.units, 'stress', sys))} ${S}.` : '.') + (a.patches.length ? '' : ' None were found.'),
+    head: ['#', ...(parts ? ['Part'] : []), 'Faces', `Area [${A}]`, `|F| [${F}]`, `|M| about centroid [${M}]`, `Peak |t| [${S}]`, `Mean |t| [${S}]`],
+    rows: rows.map((r) => [
+      String(r.id), ...(parts ? [String(r.part)] : []), String(r.faces), fmt(r.area), fmt(denoise(r.forceMagnitude, fFloor)),
+      fmt(denoise(r.momentMagnitude, mFloor)), fmt(r.peak), fmt(r.mean),
+    ]),
   }
+  if (!rows.length) return [figures]
+  const vectors: ReportTable = {
+    kind: 'table', id: 'patch-vectors', heading: 'Load-entry patches: centroid, force and moment',
+    note: 'Force ∫ t dA over each patch and its moment about the patch\'s centroid, in x, y, z.',
+    head: ['#', `Centroid [${L}]`, `Force [${F}]`, `Moment [${M}]`],
+    rows: rows.map((r) => [String(r.id), vec(r.centroid, lFloor), vec(r.force, fFloor), vec(r.moment, mFloor)]),
+  }
+  return [figures, vectors]
 }
 
 function sectionTable(r: SectionResult, input: ReportInput): ReportTable {
   const L = displayUnitLabel('length', input.system)
   const f = (v: number): number => convert(v, input.model.units, 'length', input.system)
+  const size = modelSize(input.model)
+  if (r.empty) return { kind: 'table', id: 'section', heading: 'Current section', note: 'The plane misses the body.', head: ['Figure', 'Value', 'Unit'], rows: [] }
+  const axes = axesLines(r)
   return {
     kind: 'table', id: 'section', heading: 'Current section',
-    note: r.empty ? 'The plane misses the body.'
-      : `Plane through ${vec(r.plane.point.map(f))} ${L}, unit normal ${vec(r.plane.normal)}. What the +n side exerts on the −n side; moments about the section centroid; ${r.cutElements} elements cut.`,
+    note: `Plane through ${vec(r.plane.point.map(f), 1e-6 * f(size))} ${L}, unit normal ${axes.e3}. What the +n side exerts on the −n side; moments about the section centroid; ${r.cutElements} elements cut. Section axes: ${axes.kind}.`,
     head: ['Figure', 'Value', 'Unit'],
-    rows: r.empty ? [] : sectionRows(r, input.model.units, input.system).map((x) => [x.label, fmt(x.value), x.unit]),
+    rows: [
+      ['Axis e₁', axes.e1, '–'], ['Axis e₂', axes.e2, '–'], ['Axis e₃ = n', axes.e3, '–'],
+      ...sectionRows(r, input.model.units, input.system, size).map((x) => [x.label, fmt(x.shown), x.unit]),
+    ],
   }
 }
 
@@ -140,17 +179,25 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
   const Lf = convert(1, units, 'length', sys)
   const domain: [number, number] = [s.extent[0] * Lf, s.extent[1] * Lf]
   const M = { left: 64, right: 12, top: 10, bottom: 28 }
-  for (const q of ['force', 'moment'] as const) {
-    const lines = SERIES.filter((d) => d.quantity === q && input.shown[d.key]).map((d) => {
-      const v = seriesInDisplay(s, d.key, units, sys)
-      for (let k = 0; k < v.length; k++) if (s.empty[k]) v[k] = NaN
-      return { label: `${d.symbol} ${d.label}`, colour: d.colour, values: v }
-    })
-    if (!lines.length) continue
+  // One diagram per internal force, all six unless the chart hides some. Diagrams of one kind
+  // (forces, moments) share one vertical scale, so a torque of round-off size beside bending
+  // moments of kN·m reads as the flat line it is, not as a curve blown up to fill its own axes.
+  const series = SERIES.filter((d) => input.shown[d.key]).map((d) => {
+    const v = seriesInDisplay(s, d.key, units, sys)
+    for (let k = 0; k < v.length; k++) if (s.empty[k]) v[k] = NaN
+    return { d, v }
+  })
+  const span = (q: 'force' | 'moment'): [number, number] => {
+    let lo = Infinity, hi = -Infinity
+    for (const { d, v } of series) if (d.quantity === q) for (const y of v) if (Number.isFinite(y)) { lo = Math.min(lo, y); hi = Math.max(hi, y) }
+    return lo <= hi ? [lo, hi] : [0, 1]
+  }
+  const shared = { force: span('force'), moment: span('moment') }
+  for (const { d, v } of series) {
     blocks.push({
-      kind: 'diagram', id: `diagram-${q}`, heading: q === 'force' ? 'Forces along the part' : 'Moments along the part',
-      xLabel, yLabel: `${q === 'force' ? 'Force' : 'Moment'} [${displayUnitLabel(q, sys)}]`,
-      geometry: diagramGeometry(x, lines, 720, 260, M, domain),
+      kind: 'diagram', id: `diagram-${d.key}`, heading: `${d.label} ${d.symbol} along the part`,
+      xLabel, yLabel: `${d.symbol} [${displayUnitLabel(d.quantity, sys)}]`,
+      geometry: diagramGeometry(x, [{ label: `${d.symbol} ${d.label}`, colour: d.colour, values: v }], 720, 180, M, domain, shared[d.quantity]),
     })
   }
   const res = Float64Array.from(s.freeBodyRelative, (v, k) => (s.empty[k] ? NaN : v))
@@ -166,7 +213,7 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
   const t = sweepTable(s, units, sys)
   blocks.push({
     kind: 'table', id: 'sweep', heading: 'Sections along the part',
-    note: `${s.offsets.length} parallel sections; section axes per section (e₃ = m), moments about each section's centroid. Largest free-body residual (force / gross or moment / (gross · L)): ${formatNumber(worstResidual(s), 2)}.`,
+    note: `${s.offsets.length} parallel sections; ${s.axes?.kind === 'reference' ? 'reference axes' : 'principal axes per section'} with one reference for all (${(s.axes?.reference ?? [0, 0, 0]).map((v) => formatNumber(denoise(v, 1e-9), 3)).join(', ')}), e₃ = m; moments about each section's centroid. Largest free-body residual (force / gross or moment / (gross · L)): ${formatNumber(worstResidual(s), 2)}.`,
     head: t.head, rows: t.rows,
   })
   return blocks
@@ -221,17 +268,36 @@ function lineBlocks(r: LineReply, input: ReportInput): ReportBlock[] {
   return blocks
 }
 
+/** "nodes.csv: 972 724 bytes, SHA-256 3f1c…" for each input file. */
+function inputFacts(m: ModelSummary): [string, string][] {
+  if (!m.inputs || m.inputs.length === 0) return [['Input', m.source.startsWith('synthetic:') ? 'generated in the browser (no input file)' : m.source]]
+  return m.inputs.map((f) => ['Input file', `${f.name}: ${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes, SHA-256 ${f.sha256 ?? 'not available in this browser'}`])
+}
+
 export function buildReportContent(input: ReportInput): ReportContent {
   const m = input.model
   const sys = input.system
+  const r = input.review
+  const filled = (label: string, v: string | undefined): [string, string][] => (v && v.trim() ? [[label, v.trim()]] : [])
+  const shownIn = sys === 'SI' ? 'SI' : sys === 'US' ? 'US customary' : 'chosen units'
   const facts: [string, string][] = [
+    ...filled('Title', r?.title),
+    ...filled('Project', r?.project),
     ['Model', m.name || 'Unnamed model'],
+    ...filled('Author', r?.author),
+    ...filled('Checker', r?.checker),
+    ...filled('Revision', r?.revision),
+    ['Load case', r?.loadCase.trim() || 'the model\'s one stress field (no load case named)'],
     ...(m.description ? [['Description', m.description] as [string, string]] : []),
     ['Source', m.source],
+    ...inputFacts(m),
+    ['Stress', m.stressLayout === 'element-nodal' ? 'element-nodal (a value per element node, averaged within each part for display)' : 'nodal (one value per node)'],
     ['Mesh', `${m.elementCount} elements (${Object.entries(m.elementTypes).map(([k, v]) => `${k} ${v}`).join(', ')}), ${m.nodeCount} nodes`],
     ['Model units', `length ${m.units.length}, stress ${m.units.stress}`],
-    ['Shown in', `${sys === 'SI' ? 'SI' : 'US customary'}: ${(['length', 'force', 'moment', 'stress'] as const).map((q) => displayUnitLabel(q, sys)).join(', ')}`],
+    ['Shown in', `${shownIn}: ${(['length', 'force', 'moment', 'stress'] as const).map((q) => displayUnitLabel(q, sys)).join(', ')}`],
+    ['Made with', `Tractus ${input.version ?? ''}`.trim()],
     ['Made', input.date.toISOString().replace(/\.\d+Z$/, 'Z')],
+    ...filled('Notes', r?.notes),
   ]
   for (const w of m.warnings) facts.push(['Reader note', w])
   const blocks: ReportBlock[] = []
@@ -240,7 +306,7 @@ export function buildReportContent(input: ReportInput): ReportContent {
   }
   if (input.audit) {
     blocks.push(equilibriumTable(input.audit, input))
-    blocks.push(patchTable(input.audit, input))
+    blocks.push(...patchTables(input.audit, input))
   }
   if (input.section) blocks.push(sectionTable(input.section, input))
   if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))

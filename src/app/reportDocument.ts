@@ -28,7 +28,19 @@ svg text { font: 11px system-ui, sans-serif; fill: #4a545e; }
 .legend { display: flex; gap: 14px; flex-wrap: wrap; font-size: 12px; }
 .legend span::before { content: ""; display: inline-block; width: 18px; height: 3px; margin-right: 5px; vertical-align: middle; background: var(--c); }
 footer { margin-top: 28px; color: #4a545e; font-size: 12px; }
-@media print { figure, img.view { break-inside: avoid; } }
+@media print {
+  @page { size: A4; margin: 14mm 12mm 16mm; }
+  body { margin: 0; max-width: none; padding: 0; font-size: 11px; color: #000; }
+  h1 { font-size: 17px; }
+  h2 { font-size: 13px; break-after: avoid; page-break-after: avoid; }
+  figure, img.view, dl.facts, .caution, tr { break-inside: avoid; page-break-inside: avoid; }
+  table { font-size: 10px; }
+  th, td { padding: 1px 4px; }
+  th { background: #eee !important; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+  img.view { max-height: 120mm; }
+  svg polyline { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+  .caution { background: none; }
+}
 `
 
 const SVG_NS = 'http://www.w3.org/2000/svg'

@@ -6,12 +6,14 @@
  */
 import { CAUTION } from './caution.ts'
 import { colourMapTable } from '../scene/colourMaps.ts'
-import { sectionRows } from './exports.ts'
+import { axesLines, sectionRows } from './exports.ts'
 import { formatNumber, QUANTITY_LABEL, quantityDisplay, quantityLabel } from './format.ts'
 import { snapshotLayout } from './snapshotLayout.ts'
-import { activeRange, sectionPlaneOf } from '../state/selectors.ts'
-import type { ColourMapName, TractusState } from '../state/store.ts'
-import { sectionColouring } from '../scene/index.ts'
+import { activeRange, modelSphere } from '../state/selectors.ts'
+import type { ColourMapName, ReviewFields, TractusState } from '../state/store.ts'
+import { arrowColouring, sectionColouring } from '../scene/index.ts'
+import { displayUnitLabel } from '../model/units.ts'
+import { TOOL_VERSION } from './version.ts'
 
 type Picture = HTMLCanvasElement | OffscreenCanvas
 
@@ -45,55 +47,71 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   const range = activeRange(st)
   const px = (n: number): string => `${Math.round(n * s)}px ${FONT}`
 
-  // Title block, top left.
-  const lines = [
-    m ? m.name || 'Unnamed model' : 'No model',
-    `${quantityLabel(st.quantity, st.componentAxes)} [${unit}] · units ${st.units === 'SI' ? 'SI' : 'US customary'}`,
-    new Date().toISOString().replace('T', ' ').slice(0, 16) + ' UTC',
+  // Title block, top left: the reviewer's title (else the model's name), the quantity, the
+  // review details, the date. At most half the width, so the section table keeps its place.
+  const review = st.review
+  const title = review.title.trim() || (m ? m.name || 'Unnamed model' : 'No model')
+  const lines: { text: string; font: string; colour: string }[] = [
+    { text: title, font: `600 ${px(14)}`, colour: '#1d2329' },
+    ...(review.title.trim() && m ? [{ text: `Model: ${m.name || 'Unnamed model'}`, font: px(12), colour: '#1d2329' }] : []),
+    { text: `${quantityLabel(st.quantity, st.componentAxes)} [${unit}]`, font: px(12), colour: '#1d2329' },
+    ...reviewLines(review).map((text) => ({ text, font: px(11), colour: '#1d2329' })),
+    { text: new Date().toISOString().replace('T', ' ').slice(0, 16) + ' UTC', font: px(11), colour: '#4a545e' },
   ]
-  g.font = px(13)
-  const tw = Math.max(...lines.map((t) => g.measureText(t).width)) + 2 * L.margin
-  panel(g, 0, 0, Math.min(w, tw), Math.round(66 * s))
-  g.fillStyle = '#1d2329'
+  const maxW = Math.round(w * 0.5)
+  // Traceability, small: the inputs with their sizes and the start of their SHA-256 (the report
+  // has the whole digest), the tool, the stress layout and the units.
+  if (m) {
+    g.font = px(10)
+    for (const text of wrapText(g, traceItems(st), maxW - 2 * L.margin)) lines.push({ text, font: px(10), colour: '#4a545e' })
+  }
+  const lineH = Math.round(18 * s)
+  let tw = 0
+  for (const l of lines) { g.font = l.font; tw = Math.max(tw, g.measureText(l.text).width) }
+  panel(g, 0, 0, Math.min(maxW, tw + 2 * L.margin), Math.round(10 * s) + lineH * lines.length)
   g.textBaseline = 'top'
-  g.font = `600 ${px(14)}`
-  g.fillText(lines[0], L.margin, Math.round(8 * s), w - 2 * L.margin)
-  g.font = px(12)
-  g.fillText(lines[1], L.margin, Math.round(28 * s), w - 2 * L.margin)
-  g.fillStyle = '#4a545e'
-  g.fillText(lines[2], L.margin, Math.round(46 * s), w - 2 * L.margin)
+  lines.forEach((l, i) => {
+    g.font = l.font
+    g.fillStyle = l.colour
+    g.fillText(l.text, L.margin, Math.round(8 * s) + lineH * i, maxW - 2 * L.margin)
+  })
 
   // Section table, top right.
-  if (st.section.enabled && st.sectionResult && m) {
-    const rows = sectionRows(st.sectionResult, m.units, st.units).filter((r) => !['I1', 'I2', 'fbF', 'fbM'].includes(r.key))
+  if (st.section.enabled && st.sectionResult && !st.sectionResult.empty && m) {
+    const rows = sectionRows(st.sectionResult, m.units, st.units, modelSphere(m.bounds).diagonal).filter((r) => !['I1', 'I2', 'I12', 'fbF', 'fbM'].includes(r.key))
+    const axes = axesLines(st.sectionResult)
     const rowH = Math.round(16 * s)
-    const colW = Math.round(250 * s)
+    const colW = Math.round(290 * s)
     const x0 = w - colW - L.margin, y0 = L.margin
-    const plane = sectionPlaneOf(st.section)
     const sec = st.sectionBuffers ? sectionColouring(st) : null
     const ownBar = !!sec && !sec.sharedWithSurface
     const barBlock = ownBar ? Math.round(52 * s) : 0
-    panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), colW + Math.round(16 * s), rowH * (rows.length + 2) + Math.round(12 * s) + barBlock)
+    const head = 4 // title, normal, e1, e2
+    panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), colW + Math.round(16 * s), rowH * (rows.length + head) + Math.round(12 * s) + barBlock)
     g.fillStyle = '#1d2329'
     g.font = `600 ${px(12)}`
     g.fillText('Section resultant', x0, y0)
     g.font = px(10)
     g.fillStyle = '#4a545e'
-    g.fillText(`n = (${plane.normal.map((v) => formatNumber(v, 3)).join(', ')})`, x0, y0 + rowH)
+    g.fillText(`n = e₃ = ${axes.e3}; ${st.sectionResult.axes.kind === 'principal' ? 'principal axes' : 'reference axes'}${st.sectionResult.axes.followsReference && st.sectionResult.axes.kind === 'principal' ? ' (I₁ ≈ I₂: e₁ follows the reference)' : ''}`, x0, y0 + rowH, colW)
+    g.fillStyle = '#8c4a00'
+    g.fillText(`e₁ = ${axes.e1}`, x0, y0 + 2 * rowH, colW)
+    g.fillStyle = '#1e6b40'
+    g.fillText(`e₂ = ${axes.e2}`, x0, y0 + 3 * rowH, colW)
     g.font = px(11)
     rows.forEach((r, i) => {
-      const y = y0 + rowH * (i + 2)
+      const y = y0 + rowH * (i + head)
       g.fillStyle = '#1d2329'
       g.textAlign = 'left'
       g.fillText(r.label, x0, y)
       g.textAlign = 'right'
-      g.fillText(`${formatNumber(r.value)} ${r.unit === '–' ? '' : r.unit}`, x0 + colW, y)
+      g.fillText(`${formatNumber(r.shown)} ${r.unit === '–' ? '' : r.unit}`, x0 + colW, y)
     })
     g.textAlign = 'left'
     if (ownBar && sec) {
       // The section face has its own map or range: its bar goes under the table.
       const d = quantityDisplay(st.section.traction, m.units, st.units)
-      const by = y0 + rowH * (rows.length + 2) + Math.round(4 * s)
+      const by = y0 + rowH * (rows.length + head) + Math.round(4 * s)
       g.font = px(11)
       g.fillStyle = '#1d2329'
       g.fillText(`Section fill: ${QUANTITY_LABEL[st.section.traction]} [${d.unit}]`, x0, by)
@@ -104,6 +122,25 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
       g.fillText(formatNumber(sec.range[1] * d.factor), x0 + colW, by + Math.round(29 * s))
       g.textAlign = 'left'
     }
+  }
+
+  // The arrows' own colour bar, bottom left above the footer, when they do not share the surface's.
+  const arrowsShown = (st.arrowSettings.surface && st.arrows) || (st.arrowSettings.section && st.section.enabled && st.sectionBuffers)
+  const ac = arrowsShown && m ? arrowColouring(st) : null
+  if (ac && !ac.sharedWithSurface && m) {
+    const d = quantityDisplay('normalTraction', m.units, st.units)
+    const bw = Math.round(220 * s), bh = Math.round(10 * s)
+    const x0 = L.margin, y0 = L.footer.y - Math.round(58 * s)
+    panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), bw + Math.round(16 * s), Math.round(54 * s))
+    g.fillStyle = '#1d2329'
+    g.font = px(11)
+    g.fillText(`Arrow colour: ${QUANTITY_LABEL.normalTraction} [${d.unit}]`, x0, y0)
+    drawGradient(g, ac.map, x0, y0 + Math.round(16 * s), bw, bh, s)
+    g.font = px(10)
+    g.fillText(formatNumber(ac.range[0] * d.factor), x0, y0 + Math.round(29 * s))
+    g.textAlign = 'right'
+    g.fillText(formatNumber(ac.range[1] * d.factor), x0 + bw, y0 + Math.round(29 * s))
+    g.textAlign = 'left'
   }
 
   // Footer: quantity title, colour bar, labels, caution.
@@ -130,6 +167,38 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   g.font = px(11)
   g.fillText(CAUTION, w / 2, L.caution.y + Math.round(5 * s), w - 2 * L.margin)
   g.textAlign = 'left'
+}
+
+/** What a snapshot was made from, as short items: the input files, the tool, the stress, the units. */
+function traceItems(st: TractusState): string[] {
+  const m = st.model!
+  const files = m.inputs?.length
+    ? m.inputs.map((f) => `${f.name} (${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes${f.sha256 ? `, SHA-256 ${f.sha256.slice(0, 16)}…` : ''})`)
+    : [m.source.startsWith('synthetic:') ? 'generated model' : m.source]
+  const shown = (['length', 'force', 'stress'] as const).map((q) => displayUnitLabel(q, st.units)).join(', ')
+  return [...files, `Tractus ${TOOL_VERSION}`, m.stressLayout === 'element-nodal' ? 'element-nodal stress' : 'nodal stress', `model units ${m.units.length}, ${m.units.stress}; shown in ${shown}`]
+}
+
+/** Items joined with " · " into lines no wider than `width` (the canvas's current font). */
+function wrapText(g: CanvasRenderingContext2D, items: readonly string[], width: number): string[] {
+  const lines: string[] = []
+  let cur = ''
+  for (const it of items) {
+    const next = cur ? `${cur} · ${it}` : it
+    if (cur && g.measureText(next).width > width) { lines.push(cur); cur = it } else cur = next
+  }
+  if (cur) lines.push(cur)
+  return lines
+}
+
+/** The reviewer's details as short lines (empty ones left out). */
+function reviewLines(r: ReviewFields): string[] {
+  const pairs: [string, string][] = [['Project', r.project], ['Revision', r.revision], ['Load case', r.loadCase], ['Author', r.author], ['Checker', r.checker]]
+  const filled = pairs.filter(([, v]) => v.trim() !== '').map(([k, v]) => `${k}: ${v.trim()}`)
+  const lines: string[] = []
+  for (let i = 0; i < filled.length; i += 3) lines.push(filled.slice(i, i + 3).join(' · '))
+  if (r.notes.trim()) lines.push(`Notes: ${r.notes.trim().replace(/\s+/g, ' ')}`)
+  return lines
 }
 
 /** A horizontal colour-map gradient with a thin frame, low end on the left. */

@@ -7,7 +7,7 @@ import type { ModelUnits, UnitSystem } from '../model/units.ts'
 import { displayFactor, displayUnitLabel } from '../model/units.ts'
 import type { Vec3 } from '../model/model.ts'
 import type { SeriesKey, SweepReply } from '../../workers/protocol.ts'
-import { formatNumber } from './format.ts'
+import { denoise, formatNumber, noiseFloor } from './format.ts'
 
 export type { SeriesKey }
 
@@ -86,7 +86,9 @@ export function sweepTable(r: SweepReply, units: ModelUnits, system: UnitSystem)
   const rows: string[][] = []
   for (let k = 0; k < x.length; k++) {
     if (r.empty[k]) { rows.push([formatNumber(x[k]), ...SERIES.map(() => '—'), 'misses the body', '—']); continue }
-    rows.push([formatNumber(x[k]), ...cols.map((c) => formatNumber(c[k])), formatNumber(r.freeBodyRelative[k], 2), formatNumber(r.freeBodyMomentRelative[k], 2)])
+    // Each row is one section: its forces judged against its forces, its moments against its moments.
+    const floor = { force: noiseFloor(SERIES.filter((s) => s.quantity === 'force').map((s) => cols[SERIES.indexOf(s)][k])), moment: noiseFloor(SERIES.filter((s) => s.quantity === 'moment').map((s) => cols[SERIES.indexOf(s)][k])) }
+    rows.push([formatNumber(x[k]), ...cols.map((c, i) => formatNumber(denoise(c[k], floor[SERIES[i].quantity]))), formatNumber(r.freeBodyRelative[k], 2), formatNumber(r.freeBodyMomentRelative[k], 2)])
   }
   return { head, rows }
 }

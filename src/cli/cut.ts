@@ -13,12 +13,14 @@ import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
 import { nodalStressField } from '../model/stressField.ts'
-import type { ParsedArgs } from './args.ts'
 import { UsageError } from './args.ts'
 import { InputError } from '../model/errors.ts'
-import type { Mesh } from '../model/model.ts'
+import type { Mesh, Vec3 } from '../model/model.ts'
 import type { SectionLimit } from '../mechanics/sectionRegions.ts'
-import type { OptionSpec } from './args.ts'
+import { describeAxes, projectReference } from '../mechanics/sectionAxes.ts'
+import { denoise, noiseFloor } from '../model/roundingNoise.ts'
+import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
+import type { OptionSpec, ParsedArgs } from './args.ts'
 
 // --- assemblies: --parts and --within, regions in the output ---
 export const PARTS_OPTION: OptionSpec = { name: 'parts', kind: 'string', value: 'a,b,...', help: 'limit the cut to these part numbers (the section on a face between parts belongs to the part on the -m side)' }
@@ -78,6 +80,24 @@ export function regionsJson(r: SectionResult, u: UnitView): Record<string, unkno
   }))
 }
 
+/** `--reference rx,ry,rz`, shared by `cut` and `sweep`. */
+export const REFERENCE_OPTION: OptionSpec = {
+  name: 'reference', kind: 'vec3', value: 'rx,ry,rz',
+  help: 'resolve the resultant in reference axes: e1 = the projection of this direction onto the plane (not parallel to the normal); principal axes by default',
+}
+
+export const SECTION_AXES_DETAILS = 'Section axes: e3 = m; by default e1, e2 are the principal axes of the section area (I1 ≥ I2), and where I1 and I2 are within 1 % e1 follows the reference direction (the first of x, y, z whose projection onto the plane is longest); with --reference, e1 is the projection of the given direction onto the plane. axial = F·e3, shear = [F·e1, F·e2], torque = M·e3, bending = [M·e1, M·e2]; I1, I2, I12 are about e1 and e2. JSON "axes" says which: {kind, reference, followsReference, e1, e2, e3}.'
+
+/** The axes choice of `--reference` (reference axes), else principal axes; a reference parallel to `normal` is an input error. */
+export function axesOption(args: ParsedArgs, normal: Vec3): SectionAxesChoice {
+  const r = args.options.reference
+  if (!Array.isArray(r)) return { kind: 'principal' }
+  const reference: Vec3 = [r[0], r[1], r[2]]
+  const l = Math.hypot(...normal)
+  projectReference([normal[0] / l, normal[1] / l, normal[2] / l], reference, 'reference')
+  return { kind: 'reference', reference }
+}
+
 /** The documented JSON fields of one section (shared with `sweep`), in the view's units. */
 export function sectionJson(r: SectionResult, u: UnitView): Record<string, unknown> {
   const ff = u.factor('force'), fm = u.factor('moment'), fi = u.factor('secondMoment')
@@ -89,8 +109,11 @@ export function sectionJson(r: SectionResult, u: UnitView): Record<string, unkno
     about: vecJson(r.about, 'length', u),
     force: vecJson(r.force, 'force', u),
     moment: vecJson(r.moment, 'moment', u),
-    axes: { e1: vecJson(r.axes.e1, null, u), e2: vecJson(r.axes.e2, null, u), e3: vecJson(r.axes.e3, null, u) },
-    secondMoments: { I1: r.secondMoments.I1 * fi, I2: r.secondMoments.I2 * fi, J: r.secondMoments.J * fi },
+    axes: {
+      kind: r.axes.kind, reference: vecJson(r.axes.reference, null, u), followsReference: r.axes.followsReference,
+      e1: vecJson(r.axes.e1, null, u), e2: vecJson(r.axes.e2, null, u), e3: vecJson(r.axes.e3, null, u),
+    },
+    secondMoments: { I1: r.secondMoments.I1 * fi, I2: r.secondMoments.I2 * fi, I12: r.secondMoments.I12 * fi, J: r.secondMoments.J * fi },
     axial: r.axial * ff,
     shear: [r.shear[0] * ff, r.shear[1] * ff],
     torque: r.torque * fm,
@@ -110,30 +133,31 @@ export function sectionJson(r: SectionResult, u: UnitView): Record<string, unkno
 export const cutCommand: Command = {
   name: 'cut',
   summary: 'force and moment across a section plane, in global and section axes',
-  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--parts a,b] [--within x,y,z,r] [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--reference rx,ry,rz] [--parts a,b] [--within x,y,z,r] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
   options: [
     { name: 'point', kind: 'vec3', value: 'x,y,z', required: true, help: 'a point on the plane (model length units)' },
     { name: 'normal', kind: 'vec3', value: 'nx,ny,nz', required: true, help: 'plane normal m (any length, not zero)' },
     { name: 'about', kind: 'vec3', value: 'x,y,z', help: 'moment reference point (model length units); the section centroid by default' },
-    PARTS_OPTION, WITHIN_OPTION,
+    PARTS_OPTION, WITHIN_OPTION, REFERENCE_OPTION,
     JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION,
   ],
   details: [
     'The resultant is what the material on the +m side exerts on the material on the -m side: F = ∫σm dA, M = ∫(x - about) × σm dA.',
-    'Section axes: e3 = m, e1 and e2 the principal axes of the section area (I1 ≥ I2). axial = F·e3, shear = [F·e1, F·e2], torque = M·e3, bending = [M·e1, M·e2].',
+    SECTION_AXES_DETAILS,
     'Regions: the section split into connected regions (neighbouring cut elements of one part), each with its area, centroid, force and moment about its own centroid, largest force first. With --parts and/or --within the top-level figures are those of the selected polygons only, and the free-body check is not defined.',
     'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is its force over that piece\'s gross load, "momentRelative" its moment about the section centroid over the gross load times the diagonal of the piece\'s bounding box.',
   ].join('\n'),
   run(args, io) {
     const plane = makePlane(vecOption(args, 'point')!, vecOption(args, 'normal')!)
     const about = vecOption(args, 'about')
+    const axes = axesOption(args, plane.normal)
     const loaded = loadModel(args.positionals[0])
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
     const limit = sectionLimitOf(args, model.mesh)
-    const { result: r } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, plane, { about, polygons: false, regions: true, limit })
+    const { result: r } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, plane, { about, polygons: false, regions: true, limit, axes })
     if (args.options.json) {
       printJson(io, {
         file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u),
@@ -141,38 +165,58 @@ export const cutCommand: Command = {
       })
       return 0
     }
-    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(plane.point, 'length', u)}, normal ${vecPlain(plane.normal)}`))
+    io.stdout(sectionText(r, u, `Section of "${model.name}" through ${vecQty(plane.point, 'length', u)}, normal ${vecPlain(plane.normal)}`, meshSize(model.mesh.coords)))
     return 0
   },
 }
 
-export function sectionText(r: SectionResult, u: UnitView, heading: string): string {
+/**
+ * The section as a table. Figures of one family (forces, moments, second moments; points against
+ * `modelSize`, length units) are read with the rounding-noise rule of src/model/roundingNoise.ts;
+ * the JSON answer carries every digit.
+ */
+export function sectionText(r: SectionResult, u: UnitView, heading: string, modelSize = 0): string {
   if (r.empty && r.limited) return `${heading}\n  the limit (--parts / --within) selects no part of the section: nothing to report\n`
   if (r.empty) return `${heading}\n  the plane does not cut the body\n`
+  const fF = noiseFloor([...r.force, ...r.freeBody.force])
+  const fM = noiseFloor([...r.moment, ...r.freeBody.moment])
+  const fI = noiseFloor([r.secondMoments.I1, r.secondMoments.I2, r.secondMoments.I12])
+  const fL = noiseFloor([], modelSize)
+  const n = (v: number, q: 'force' | 'moment' | 'secondMoment', floor: number): string => num(denoise(v, floor) * u.factor(q))
   return block(heading, [
     ...(r.limited ? [['selection', 'the figures below are those of the selected polygons only'] as [string, string]] : []),
     ['area', qty(r.area, 'area', u)],
-    ['centroid', vecQty(r.centroid, 'length', u)],
-    ['moments about', vecQty(r.about, 'length', u)],
+    ['centroid', vecQty(r.centroid, 'length', u, fL)],
+    ['moments about', vecQty(r.about, 'length', u, fL)],
     ['cut elements', String(r.cutElements)],
-    ['force F', vecQty(r.force, 'force', u)],
-    ['moment M', vecQty(r.moment, 'moment', u)],
+    ['force F', vecQty(r.force, 'force', u, fF)],
+    ['moment M', vecQty(r.moment, 'moment', u, fM)],
+    ['section axes', describeAxes(r.axes)],
     ['axis e1', vecPlain(r.axes.e1)],
     ['axis e2', vecPlain(r.axes.e2)],
     ['axis e3 = m', vecPlain(r.axes.e3)],
-    ['I1, I2, J', `${num(r.secondMoments.I1 * u.factor('secondMoment'))}, ${num(r.secondMoments.I2 * u.factor('secondMoment'))}, ${num(r.secondMoments.J * u.factor('secondMoment'))} ${u.label('secondMoment')}`],
-    ['axial N', qty(r.axial, 'force', u)],
-    ['shear V1, V2', `${num(r.shear[0] * u.factor('force'))}, ${num(r.shear[1] * u.factor('force'))} ${u.label('force')}`],
-    ['torque T', qty(r.torque, 'moment', u)],
-    ['bending M1, M2', `${num(r.bending[0] * u.factor('moment'))}, ${num(r.bending[1] * u.factor('moment'))} ${u.label('moment')}`],
+    ['I1, I2, I12, J', [r.secondMoments.I1, r.secondMoments.I2, r.secondMoments.I12, r.secondMoments.J].map((v) => n(v, 'secondMoment', fI)).join(', ') + ` ${u.label('secondMoment')}`],
+    ['axial N', qty(r.axial, 'force', u, fF)],
+    ['shear V1, V2', `${n(r.shear[0], 'force', fF)}, ${n(r.shear[1], 'force', fF)} ${u.label('force')}`],
+    ['torque T', qty(r.torque, 'moment', u, fM)],
+    ['bending M1, M2', `${n(r.bending[0], 'moment', fM)}, ${n(r.bending[1], 'moment', fM)} ${u.label('moment')}`],
     ...(r.freeBodyDefined === false ? [['free body', 'not defined for a bounded section (a part or disc selection does not bound a piece of the body)'] as [string, string]] : [
-      ['free body force', vecQty(r.freeBody.force, 'force', u)],
-      ['free body moment', vecQty(r.freeBody.moment, 'moment', u)],
+      ['free body force', vecQty(r.freeBody.force, 'force', u, fF)],
+      ['free body moment', vecQty(r.freeBody.moment, 'moment', u, fM)],
       ['free body relative', `${num(r.freeBody.relative)} of the gross load ${qty(r.freeBody.gross, 'force', u)}`],
       ['free body moment relative', `${num(r.freeBody.momentRelative)} of the gross load × ${qty(r.freeBody.size, 'length', u)}`],
     ] as [string, string][]),
     ...(r.regions ?? []).map((g, i) => [`region ${i + 1} (part ${g.parts.join(', ')})`,
-      `area ${qty(g.area, 'area', u)}, centroid ${vecQty(g.centroid, 'length', u)}, force ${vecQty(g.force, 'force', u)}, axial ${qty(g.axial, 'force', u)}, moment about its centroid ${vecQty(g.moment, 'moment', u)}`] as [string, string]),
+      `area ${qty(g.area, 'area', u)}, centroid ${vecQty(g.centroid, 'length', u, fL)}, force ${vecQty(g.force, 'force', u, fF)}, axial ${qty(g.axial, 'force', u, fF)}, moment about its centroid ${vecQty(g.moment, 'moment', u, fM)}`] as [string, string]),
     ...(r.unmappedPoints > 0 ? [['unmapped points', `${r.unmappedPoints} (element map not inverted; stress taken at a clamped estimate)`] as [string, string]] : []),
   ])
+}
+
+/** The diagonal of the nodes' bounding box (length units): what coordinates are judged against. */
+export function meshSize(coords: Float64Array): number {
+  const lo = [Infinity, Infinity, Infinity], hi = [-Infinity, -Infinity, -Infinity]
+  for (let i = 0; i < coords.length; i += 3) {
+    for (let k = 0; k < 3; k++) { const v = coords[i + k]; if (v < lo[k]) lo[k] = v; if (v > hi[k]) hi[k] = v }
+  }
+  return lo[0] <= hi[0] ? Math.hypot(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]) : 0
 }

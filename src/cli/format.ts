@@ -4,6 +4,7 @@
  */
 import type { Quantity } from '../model/units.ts'
 import type { UnitView } from './unitView.ts'
+import { denoise } from '../model/roundingNoise.ts'
 
 /** Four significant figures; exponent form outside 1e-3..1e6 so columns stay short. */
 export function num(v: number, digits = 4): string {
@@ -16,20 +17,23 @@ export function num(v: number, digits = 4): string {
   return s.includes('.') ? s.replace(/\.?0+$/, '') : s
 }
 
-/** A quantity in the chosen units, e.g. "12.5 kN". */
-export function qty(v: number, q: Quantity, u: UnitView): string {
-  return `${num(v * u.factor(q))} ${u.label(q)}`
+/**
+ * A quantity in the chosen units, e.g. "12.5 kN". `floor` (model units): the rounding-noise floor
+ * of the value's family in the table (src/model/roundingNoise.ts); below it the value reads 0.
+ */
+export function qty(v: number, q: Quantity, u: UnitView, floor = 0): string {
+  return `${num(denoise(v, floor) * u.factor(q))} ${u.label(q)}`
 }
 
-/** A vector in the chosen units, e.g. "(1, 0, -2.5) kN". */
-export function vecQty(v: ArrayLike<number>, q: Quantity, u: UnitView): string {
+/** A vector in the chosen units, e.g. "(1, 0, -2.5) kN"; `floor` as for qty. */
+export function vecQty(v: ArrayLike<number>, q: Quantity, u: UnitView, floor = 0): string {
   const f = u.factor(q)
-  return `(${num(v[0] * f)}, ${num(v[1] * f)}, ${num(v[2] * f)}) ${u.label(q)}`
+  return `(${num(denoise(v[0], floor) * f)}, ${num(denoise(v[1], floor) * f)}, ${num(denoise(v[2], floor) * f)}) ${u.label(q)}`
 }
 
-/** A dimensionless vector (directions), e.g. "(0, 0, 1)". */
-export function vecPlain(v: ArrayLike<number>): string {
-  return `(${num(v[0])}, ${num(v[1])}, ${num(v[2])})`
+/** A dimensionless vector (directions), e.g. "(0, 0, 1)"; unit vectors read components below 1e-6 as 0 by default. */
+export function vecPlain(v: ArrayLike<number>, floor = 1e-6): string {
+  return `(${num(denoise(v[0], floor))}, ${num(denoise(v[1], floor))}, ${num(denoise(v[2], floor))})`
 }
 
 /** Scales a model-unit vector for JSON: a plain [x, y, z] array. */

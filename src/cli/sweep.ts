@@ -9,7 +9,7 @@ import { loadModel } from './loadModel.ts'
 import { unitNormal } from '../mechanics/plane.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
-import { sectionJson } from './cut.ts'
+import { axesOption, REFERENCE_OPTION, SECTION_AXES_DETAILS, sectionJson } from './cut.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { sweepSections } from '../mechanics/sectionSweep.ts'
 import { nodalStressField } from '../model/stressField.ts'
@@ -29,17 +29,19 @@ const CSV_COLUMNS: readonly [string, (r: SectionResult) => number, Parameters<Un
 export const sweepCommand: Command = {
   name: 'sweep',
   summary: 'parallel sections along a normal, one row per offset (CSV or JSON)',
-  usage: 'tractus sweep <model> --normal nx,ny,nz --from a --to b --count N [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus sweep <model> --normal nx,ny,nz --from a --to b --count N [--reference rx,ry,rz] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
   options: [
     { name: 'normal', kind: 'vec3', value: 'nx,ny,nz', required: true, help: 'section normal m (any length, not zero)' },
     { name: 'from', kind: 'number', value: 'a', required: true, help: 'first offset along the unit normal from the origin (model length units)' },
     { name: 'to', kind: 'number', value: 'b', required: true, help: 'last offset (model length units)' },
     { name: 'count', kind: 'integer', value: 'N', required: true, help: 'number of sections, at least 1 (evenly spaced, both ends included)' },
+    REFERENCE_OPTION,
     JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION,
   ],
   details: [
     'Section k lies on the plane x·m = offset_k with m the unit normal; moments are about each section\'s centroid.',
+    SECTION_AXES_DETAILS + ' One reference serves every section of the sweep.',
     'CSV columns: offset, area, cx, cy, cz, fx, fy, fz, mx, my, mz, axial, shear1, shear2, torque, bending1, bending2, freebody_relative, freebody_moment_relative, cut_elements; the header line names the units.',
     '--json prints {"sections": [...]} with "offset" and the fields of `tractus cut --json` per section.',
   ].join('\n'),
@@ -50,15 +52,17 @@ export const sweepCommand: Command = {
     const count = args.options.count as number
     if (count < 1) throw new UsageError('--count must be at least 1')
     if (count > 100000) throw new UsageError('--count must be at most 100000')
+    const axes = axesOption(args, normal)
     const loaded = loadModel(args.positionals[0])
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
-    const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, normal, from, to, count)
+    const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, normal, from, to, count, { axes })
     const fl = u.factor('length')
     if (args.options.json) {
       printJson(io, {
         file: loaded.path, name: model.name, units: unitLabels(u), normal,
+        axes: { kind: axes.kind, reference: results[0]?.axes.reference ?? null },
         bodyForce: [bodyForce[0] * u.factor('forcePerVolume'), bodyForce[1] * u.factor('forcePerVolume'), bodyForce[2] * u.factor('forcePerVolume')],
         sections: results.map((r, k) => ({ offset: offsets[k] * fl, ...sectionJson(r, u) })),
       })

@@ -35,7 +35,7 @@ export function pipeStatics(sc: PipeScenario, stress: Float64Array): PipeStatics
   // The layer nearest mid-length: a cut along element faces.
   let z = L / 2, best = Infinity
   for (let i = 0; i < coords.length; i += 3) if (Math.abs(coords[i + 2] - L / 2) < best) { best = Math.abs(coords[i + 2] - L / 2); z = coords[i + 2] }
-  const { result } = cutSection(mesh, stress, [0, 0, 0], { point: [0, 0, z], normal: [0, 0, 1] }, { about: [0, 0, z] })
+  const { result } = cutSection(mesh, nodalStressField(mesh, stress), [0, 0, 0], { point: [0, 0, z], normal: [0, 0, 1] }, { about: [0, 0, z] })
   const Q = sc.transverse, M = Q * (L - z)
   const lame = pipeLame(sc.spec)
   const p = sc.spec.pressure, B = (p * a * a * b * b) / (b * b - a * a)

@@ -63,6 +63,8 @@ export interface AnalysisOptions {
    */
   readonly balancePrecision?: 'double' | 'single'
   readonly loadPatches?: LoadPatchOptions
+  /** How many of the least balanced elements the verdict stage lists (default 5). */
+  readonly leastBalanced?: number
 }
 
 /** One finished stage: its name, its wall time (ms) and its result. */
@@ -103,8 +105,8 @@ const STAGE_WORK: { readonly [K in AnalysisStage]: (input: AnalysisInput, option
     computeElementBalance(allocateElementBalance(mesh.elementCount, o.balancePrecision ?? 'double'), mesh, stress, bodyForce),
   bodyBalance: ({ mesh, bodyForce }, _o, { faces, tractions }) => computeBodyBalance(mesh, faces, tractions, bodyForce),
   loadPatches: ({ mesh }, o, { faces, tractions, invariants }) => findLoadPatches(mesh, faces, tractions, invariants.vonMises, o.loadPatches),
-  verdict: ({ bodyForce }, _o, { faces, tractions, loadPatches, bodyBalance, elementBalance }) =>
-    computeBalanceVerdict(faces, tractions, loadPatches, bodyBalance, elementBalance, bodyForce),
+  verdict: ({ bodyForce }, o, { faces, tractions, loadPatches, bodyBalance, elementBalance }) =>
+    computeBalanceVerdict(faces, tractions, loadPatches, bodyBalance, elementBalance, bodyForce, o.leastBalanced),
 }
 
 /** Keeps a finished stage's result in `done` and reports it. */

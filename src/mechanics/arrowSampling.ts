@@ -18,6 +18,8 @@
  * - `normals`: Float32Array(3·A), that unit n, so the scene can draw pushing arrows ending at
  *   the surface instead of hidden inside the body;
  * - `magnitudes`: Float32Array(A) = |vectors|; `maxMagnitude` their largest (0 when none);
+ * - `normalTraction`: Float32Array(A), the signed normal traction t̄·n of the arrow's mean
+ *   traction (stress units, tension positive) whatever the mode, so arrows can be coloured by it;
  * - `weights`: Float32Array(A), area each arrow stands for, length units²;
  * - `item`: Int32Array(A), the face or polygon index.
  */
@@ -36,6 +38,7 @@ export interface ArrowSamples {
   readonly normals: Float32Array
   readonly magnitudes: Float32Array
   readonly maxMagnitude: number
+  readonly normalTraction: Float32Array
   readonly weights: Float32Array
   readonly item: Int32Array
 }
@@ -94,7 +97,7 @@ export function stratifiedByArea(outItem: Int32Array, outWeight: Float64Array, a
 function emptySamples(mode: ArrowMode): ArrowSamples {
   return {
     mode, count: 0, origins: new Float32Array(0), vectors: new Float32Array(0), normals: new Float32Array(0),
-    magnitudes: new Float32Array(0), maxMagnitude: 0, weights: new Float32Array(0), item: new Int32Array(0),
+    magnitudes: new Float32Array(0), maxMagnitude: 0, normalTraction: new Float32Array(0), weights: new Float32Array(0), item: new Int32Array(0),
   }
 }
 
@@ -110,6 +113,7 @@ function fillArrows(
   const vectors = new Float32Array(3 * count)
   const normals = new Float32Array(3 * count)
   const magnitudes = new Float32Array(count)
+  const normalTraction = new Float32Array(count)
   const weights = new Float32Array(count)
   const item = new Int32Array(count)
   let maxMagnitude = 0
@@ -120,6 +124,7 @@ function fillArrows(
     else { nx = normal![3 * i]; ny = normal![3 * i + 1]; nz = normal![3 * i + 2] }
     let tx = traction[3 * i], ty = traction[3 * i + 1], tz = traction[3 * i + 2]
     const tn = tx * nx + ty * ny + tz * nz
+    normalTraction[j] = tn
     if (mode === 'normal') { tx = tn * nx; ty = tn * ny; tz = tn * nz }
     else if (mode === 'shear') { tx -= tn * nx; ty -= tn * ny; tz -= tn * nz }
     origins[3 * j] = centroid[3 * i]; origins[3 * j + 1] = centroid[3 * i + 1]; origins[3 * j + 2] = centroid[3 * i + 2]
@@ -131,7 +136,7 @@ function fillArrows(
     weights[j] = weight[j]
     item[j] = i
   }
-  return { mode, count, origins, vectors, normals, magnitudes, maxMagnitude, weights, item }
+  return { mode, count, origins, vectors, normals, magnitudes, maxMagnitude, normalTraction, weights, item }
 }
 
 /** Surface arrows: one item per boundary face, mean traction = face force / face area. */

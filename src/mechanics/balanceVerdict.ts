@@ -32,6 +32,7 @@
  */
 import type { Vec3 } from '../model/model.ts'
 import { percentiles } from './balanceAudit.ts'
+import { topIndices } from './leastBalanced.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, SurfaceTractions } from './types.ts'
 
 export type BalanceVerdictKind = 'mesh' | 'model' | 'inconclusive'
@@ -62,7 +63,12 @@ export interface BalanceSplit {
 export interface BalanceVerdictResult extends BalanceSplit {
   /** Median, 95th percentile and largest element balance indicator (NaN for an empty mesh). */
   readonly indicator: { readonly p50: number; readonly p95: number; readonly max: number }
+  /** Global indices of the least balanced elements, largest indicator first (leastBalanced.ts). */
+  readonly leastBalanced: readonly number[]
 }
+
+/** How many of the least balanced elements the verdict stage lists unless told otherwise. */
+export const LEAST_BALANCED_COUNT = 5
 
 export const VERDICT_BALANCED = 0.01
 export const VERDICT_COHERENT = 0.9
@@ -167,11 +173,17 @@ export function decideBalance(x: VerdictFigures): BalanceVerdict {
 
 /**
  * The verdict stage of the analysis pipeline: the indicator's spread (one sort of the E
- * indicators, shared with the cards and the audit command) and the split with its verdict.
+ * indicators, shared with the cards and the audit command), the least balanced elements (one
+ * pass) and the split with its verdict.
  */
 export function computeBalanceVerdict(
   faces: BoundaryFaces, tractions: SurfaceTractions, patches: LoadPatches, body: BodyBalance, elements: ElementBalance, bodyForce: Vec3,
+  leastBalancedCount = LEAST_BALANCED_COUNT,
 ): BalanceVerdictResult {
   const [p50, p95, max] = percentiles(elements.indicator, [50, 95, 100])
-  return { ...balanceSplit(faces, tractions, patches, body, elements, p50, bodyForce), indicator: { p50, p95, max } }
+  return {
+    ...balanceSplit(faces, tractions, patches, body, elements, p50, bodyForce),
+    indicator: { p50, p95, max },
+    leastBalanced: topIndices(elements.indicator, leastBalancedCount),
+  }
 }

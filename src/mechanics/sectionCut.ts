@@ -42,6 +42,7 @@ import type { CutRecord, SectionLimit } from './sectionRegions.ts'
 import {
   addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
+import type { SectionAxesChoice } from './sectionAxes.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
 import { ZERO_FREE_BODY } from './freeBody.ts'
 
@@ -61,6 +62,8 @@ export interface CutSectionOptions {
   readonly regions?: boolean
   /** Limit the cut to parts and/or a disc; the top-level figures are then the selection's. */
   readonly limit?: SectionLimit | null
+  /** Section axes: principal (the default) or reference, with the reference direction (sectionAxes.ts). */
+  readonly axes?: SectionAxesChoice
 }
 
 /**
@@ -121,12 +124,12 @@ export function cutSection(
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   let regions: SectionRegion[] | null = null
   if (rec) {
-    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons }
-    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures)
+    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons }
+    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes)
     if (limit) return { result: recorded.result!, polygons }
     regions = recorded.regions
   }
-  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about), polygons }
+  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons }
 
   const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
@@ -140,7 +143,7 @@ export function cutSection(
   const Ms = momentAboutCentroid(acc, 0, c, frame)
   const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS])
   const unmapped = em.failures + cs.em.failures
-  const result = sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped)
+  const result = sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped, options.axes)
   return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons }
 }
 
@@ -151,7 +154,7 @@ export function cutSection(
  */
 function recordedSection(
   rec: CutRecord, mesh: Mesh, acc: Float64Array, limit: SectionLimit | null, point: Vec3, m: Vec3, frame: Float64Array,
-  about: Vec3 | null, d: Float64Array, unmapped: number,
+  about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined,
 ): { regions: SectionRegion[]; result: SectionResult | null } {
   if (selScratch.length < rec.n) { selScratch = new Int32Array(rec.n); labelScratch = new Int32Array(rec.n) }
   const sel = selScratch, label = labelScratch
@@ -160,7 +163,7 @@ function recordedSection(
   const ra = regionAccumulators(count, label, sel, n, rec, mesh, acc)
   const regions: SectionRegion[] = []
   for (let g = 0; g < count; g++) {
-    const r = sectionRecord(ra.acc, g * ACC_SIZE, point, m, frame, null, ZERO_FREE_BODY, 0)
+    const r = sectionRecord(ra.acc, g * ACC_SIZE, point, m, frame, null, ZERO_FREE_BODY, 0, choice)
     regions.push({
       area: r.area, centroid: r.centroid, force: r.force, moment: r.moment, axes: r.axes, secondMoments: r.secondMoments,
       axial: r.axial, shear: r.shear, torque: r.torque, bending: r.bending, parts: ra.parts[g], cutElements: r.cutElements,
@@ -169,8 +172,8 @@ function recordedSection(
   regions.sort((a, b) => Math.hypot(...b.force) - Math.hypot(...a.force))
   if (!limit) return { regions, result: null }
   const selAcc = selectionAccumulator(new Float64Array(ACC_SIZE), sel, n, rec, acc)
-  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about), regions: [], limited: true, freeBodyDefined: false } }
-  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped), regions, limited: true, freeBodyDefined: false } }
+  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about, choice), regions: [], limited: true, freeBodyDefined: false } }
+  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped, choice), regions, limited: true, freeBodyDefined: false } }
 }
 
 // The passes below are separate functions so that each is optimised with its own type feedback:

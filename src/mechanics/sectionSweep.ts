@@ -34,6 +34,7 @@ import {
 } from './sectionPolygon.ts'
 import { emptySection, sectionCentroid, sectionRecord } from './sectionProperties.ts'
 import { sectionRule, shapeDegree } from './sectionRule.ts'
+import type { SectionAxesChoice } from './sectionAxes.ts'
 import type { BoundaryFaces, SectionResult, SurfaceTractions } from './types.ts'
 
 export interface SweepOptions {
@@ -41,6 +42,8 @@ export interface SweepOptions {
   readonly faces?: BoundaryFaces
   /** Precomputed tractions on `faces`, reused across calls. */
   readonly tractions?: SurfaceTractions
+  /** Section axes of every section: one choice and one reference for the whole sweep (sectionAxes.ts). */
+  readonly axes?: SectionAxesChoice
 }
 
 /** Largest number of sections one sweep computes (about 45 doubles of accumulators each). */
@@ -193,11 +196,11 @@ export function sweepSections(
     const j = descending ? count - 1 - k : k
     const off = j * ACC_SIZE
     const point: Vec3 = [offsets[k] * m[0], offsets[k] * m[1], offsets[k] * m[2]]
-    if (!(acc[off + ACC_AREA] > 0)) { results.push(emptySection(point, m, frame, null)); continue }
+    if (!(acc[off + ACC_AREA] > 0)) { results.push(emptySection(point, m, frame, null, options.axes)); continue }
     const c = cen.subarray(3 * j, 3 * j + 3)
     const Fs: Vec3 = [acc[off + ACC_FORCE], acc[off + ACC_FORCE + 1], acc[off + ACC_FORCE + 2]]
     const freeBody = closeFreeBody(fb, j * FB_SIZE, c, g, acc[off + ACC_AREA], m, Fs, momentAboutCentroid(acc, off, c, frame), bodyForce, acc[off + ACC_GROSS])
-    results.push(sectionRecord(acc, off, point, m, frame, null, freeBody, unmapped[j]))
+    results.push(sectionRecord(acc, off, point, m, frame, null, freeBody, unmapped[j], options.axes))
   }
   return { offsets, results }
 }

@@ -5,6 +5,7 @@
  */
 import type { Vec3 } from '../model/model.ts'
 import type { Plane } from './plane.ts'
+import type { SectionAxes } from './sectionAxes.ts'
 
 /**
  * The largest stride of per-face-node arrays (a quad8 face): an upper bound for `BoundaryFaces.slots`,
@@ -110,6 +111,8 @@ export interface BodyBalance extends BalanceFigure {
 export interface LoadPatch {
   readonly id: number
   readonly faceCount: number
+  /** Part number of its faces (a patch never spans two parts; 0 where the model has no parts). */
+  readonly part: number
   readonly area: number
   readonly centroid: Vec3
   /**
@@ -131,8 +134,15 @@ export interface LoadPatches {
   readonly patches: readonly LoadPatch[]
   /** Int32Array(F): patch id per boundary face, -1 for the nominally free surface. */
   readonly faceLabel: Int32Array
-  /** The threshold used, in stress units, and the reference stress it was derived from. */
+  /**
+   * The thresholds used, in stress units (a face above `threshold` starts a patch, one above
+   * `lowerThreshold` may join one), the reference stress they were derived from, the fractions
+   * of it they are, and the feature angle (degrees) at which patches split.
+   */
   readonly threshold: number
+  readonly lowerThreshold: number
+  readonly fractions: { readonly threshold: number; readonly lowerThreshold: number }
+  readonly featureAngle: number
   readonly referenceStress: number
   /**
    * Traction left on the nominally free surface: area, ∫|t| dA / area (mean), its ratio to the
@@ -147,7 +157,9 @@ export type SectionPlane = Plane
 /**
  * Section result by the section convention of DEVELOPERS.md (Conventions): force and moment the material on the +m side
  * exerts on the material on the -m side: F = ∫ σm dA, M = ∫ (x - about) × σm dA.
- * Section axes: e3 = m, e1/e2 principal axes of the section area (I1 ≥ I2).
+ * Section axes (sectionAxes.ts): e3 = m, e1/e2 the principal axes of the section area (I1 ≥ I2;
+ * where I1 and I2 are within 1 %, e1 follows the reference direction) or the reference axes (e1 the
+ * projection of the reference direction onto the plane); `axes` says which.
  * `axial` = F·e3, `shear` = [F·e1, F·e2], `torque` = M·e3, `bending` = [M·e1, M·e2].
  * `freeBody`: residual of the cut-off piece on the -m side (boundary tractions clipped by the plane
  * + body force on the clipped volume + section resultant), relative to that piece's gross load.
@@ -161,9 +173,12 @@ export interface SectionResult {
   readonly about: Vec3
   readonly force: Vec3
   readonly moment: Vec3
-  readonly axes: { readonly e1: Vec3; readonly e2: Vec3; readonly e3: Vec3 }
-  /** Principal second moments of area about the centroid, I1 ≥ I2, and the polar moment J = I1 + I2. */
-  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly J: number }
+  readonly axes: SectionAxes
+  /**
+   * Second moments of area about the centroid: I1 about e1, I2 about e2, their product
+   * I12 = ∫ (x·e1)(x·e2) dA (0 for principal axes, where I1 ≥ I2), the polar moment J = I1 + I2.
+   */
+  readonly secondMoments: { readonly I1: number; readonly I2: number; readonly I12: number; readonly J: number }
   readonly axial: number
   readonly shear: [number, number]
   readonly torque: number

@@ -16,7 +16,10 @@ export interface ArrowFieldProps {
   /** Model bounding-box diagonal, length units. */
   readonly diagonal: number
   readonly colourMap: ColourMapName
-  readonly colour: 'magnitude' | 'single'
+  /** Range of the signed normal traction over the map (stress units); null: one colour. */
+  readonly colourRange: readonly [number, number] | null
+  /** Magnitude drawn at the full arrow length (stress units), shared by the fields on screen. */
+  readonly reference: number
   readonly clippingPlanes: Plane[]
   /** Scale of the deformed shape (0: undeformed). */
   readonly deformScale?: number
@@ -25,7 +28,7 @@ export interface ArrowFieldProps {
 const noRaycast = (): void => {}
 
 /** Traction arrows as one instanced mesh: one draw call whatever the count. */
-export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippingPlanes, deformScale = 0 }: ArrowFieldProps) {
+export function ArrowField({ arrows, scale, diagonal, colourMap, colourRange, reference, clippingPlanes, deformScale = 0 }: ArrowFieldProps) {
   const invalidate = useThree((s) => s.invalidate)
   const count = arrows.magnitudes.length
   const material = useMemo(() => createArrowMaterial(clippingPlanes), [clippingPlanes])
@@ -42,12 +45,14 @@ export function ArrowField({ arrows, scale, diagonal, colourMap, colour, clippin
   // The geometry is shared; only the instance buffers belong to this mesh.
   useEffect(() => () => { mesh.dispose() }, [mesh])
 
+  const lo = colourRange ? colourRange[0] : 0, hi = colourRange ? colourRange[1] : 0
+  const single = colourRange === null
   useEffect(() => {
     const unit = ARROW_LENGTH_FRACTION * scale * diagonal
-    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, colour === 'magnitude', deformScale)
-    material.uniforms.useSingle.value = colour === 'single' ? 1 : 0
+    writeArrowInstances(mesh, arrows, unit, 0.004 * diagonal, colourMap, single ? null : [lo, hi], reference, deformScale)
+    material.uniforms.useSingle.value = single ? 1 : 0
     invalidate()
-  }, [mesh, material, arrows, scale, diagonal, colourMap, colour, deformScale, invalidate])
+  }, [mesh, material, arrows, scale, diagonal, colourMap, single, lo, hi, reference, deformScale, invalidate])
 
   if (count === 0) return null
   return <primitive object={mesh} />

@@ -9,6 +9,7 @@ import type { ViewRequest } from '../state/store.ts'
 import { modelSphere as boundsSphere } from '../state/selectors.ts'
 import type { ModelSummary } from '../../workers/protocol.ts'
 import { defaultViewDirection, frameSphere, setClipPlanes, upForBodyForce } from './frameSphere.ts'
+import type { OpenView } from './frameSphere.ts'
 
 function modelSphere(m: ModelSummary): { center: Vector3; radius: number } {
   const { center, radius } = boundsSphere(m.bounds)
@@ -25,6 +26,12 @@ export function CameraRig() {
   const camera = useThree((s) => s.camera) as PerspectiveCamera
   const controls = useThree((s) => s.controls) as unknown as OrbitControlsImpl | null
   const invalidate = useThree((s) => s.invalidate)
+  const size = useThree((s) => s.size)
+  const sizeNow = useRef(size)
+  sizeNow.current = size
+  // The part of the view the cards and bars leave open: framing centres there (read when framing,
+  // so a resize alone never moves the camera).
+  const open = useCallback((): OpenView => ({ width: sizeNow.current.width, height: sizeNow.current.height, insets: useStore.getState().viewInsets }), [])
   const model = useStore((s) => s.model)
   const viewRequest = useStore((s) => s.viewRequest)
   const lastSeq = useRef(-1)
@@ -55,7 +62,22 @@ export function CameraRig() {
     } else if (req.frame) {
       const center = new Vector3(req.frame.center[0], req.frame.center[1], req.frame.center[2])
       const n = req.frame.normal ? new Vector3(req.frame.normal[0], req.frame.normal[1], req.frame.normal[2]) : null
-      if (n && n.lengthSq() > 0.04) {
+      const along = req.frame.along ? new Vector3(req.frame.along[0], req.frame.along[1], req.frame.along[2]) : null
+      if (along && along.lengthSq() > 0) {
+        // Exactly along the direction asked for (a view button, "look at the section"). Looking
+        // straight along the orbit's up axis is tilted by a milliradian, so the orbit stays
+        // defined; the screen's up then lies on the side the tilt leaves it.
+        const dir = along.normalize().negate()
+        const up = camera.up.clone().normalize()
+        if (Math.abs(dir.dot(up)) > 0.9999) {
+          const hint = req.frame.up ? new Vector3(req.frame.up[0], req.frame.up[1], req.frame.up[2]) : new Vector3(0, 1, 0)
+          hint.addScaledVector(up, -hint.dot(up))
+          if (hint.lengthSq() < 1e-12) hint.set(1, 0, 0).addScaledVector(up, -up.x)
+          dir.addScaledVector(hint.normalize(), -1e-3).normalize()
+        }
+        controls.target.copy(center)
+        camera.position.copy(center).add(dir)
+      } else if (n && n.lengthSq() > 0.04) {
         // Look at the patch along its own outward normal, raised towards the screen's up so a
         // patch inside a hole is seen over the hole's rim (and a flat one in a three-quarter view).
         const current = camera.position.clone().sub(controls.target).normalize()
@@ -73,15 +95,14 @@ export function CameraRig() {
           camera.position.copy(center).add(dir)
         }
       }
-      frameSphere(camera, controls.target, center, req.frame.radius)
-      controls.target.copy(center)
+      controls.target.copy(frameSphere(camera, controls.target, center, req.frame.radius, true, undefined, open()))
       // Keep the far plane set for the whole model, so framing a small patch does not cut it off.
       setClipPlanes(camera, Math.max(radius, req.frame.radius))
     }
     controls.update()
     invalidate()
     report()
-  }, [camera, controls, invalidate, report])
+  }, [camera, controls, invalidate, report, open])
 
   useEffect(() => {
     if (!viewRequest || !controls || viewRequest.seq === lastSeq.current) return
@@ -98,12 +119,11 @@ export function CameraRig() {
       return
     }
     const { center, radius } = modelSphere(model)
-    frameSphere(camera, controls.target, center, radius, false, defaultViewDirection(camera.up))
-    controls.target.copy(center)
+    controls.target.copy(frameSphere(camera, controls.target, center, radius, false, defaultViewDirection(camera.up), open()))
     controls.update()
     invalidate()
     report()
-  }, [model, controls, camera, apply, invalidate, report])
+  }, [model, controls, camera, apply, invalidate, report, open])
 
   // The controls fix their orbit axis from camera.up when they are made, so a model whose up
   // differs (see upForBodyForce) gets fresh controls.

@@ -1,4 +1,5 @@
-import { useMemo } from 'react'
+import { useEffect, useMemo, useRef } from 'react'
+import { displayFactor, displayUnitLabel } from '../model/units.ts'
 import { activeRange, deformScaleOf, modelSphere, quantityExtremes, quantityScalars, sectionPlaneOf } from '../state/selectors.ts'
 import { useStore } from '../state/store.ts'
 import type { QuantityName } from '../state/store.ts'
@@ -19,6 +20,11 @@ import { SnapshotRegistrar } from './SnapshotRegistrar.tsx'
 import { SurfaceMesh } from './SurfaceMesh.tsx'
 import { sectionColouring } from './sectionColouring.ts'
 import { useClippingPlanes } from './useClippingPlanes.ts'
+import { arrowColouring, arrowReference, roundDown125 } from './arrowColouring.ts'
+import { ARROW_LENGTH_FRACTION } from './sceneLook.ts'
+import { ScaleArrow } from './ScaleArrow.tsx'
+import { SectionTriad } from './SectionTriad.tsx'
+import { ElementMarker } from './ElementMarker.tsx'
 
 /** Model sphere from the summary bounds: centre and radius, length units. */
 function useModelSphere(): { center: [number, number, number]; radius: number; diagonal: number } | null {
@@ -84,6 +90,30 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
   const edges = surface?.edges ?? null
   const clippingPlanes = useClippingPlanes()
   const normal = useMemo(() => sectionPlaneOf(section).normal, [section])
+  // Arrows: coloured by their signed normal traction, one length scale for every field on screen.
+  const arrowMap = useStore((s) => arrowColouring(s)?.map ?? s.colourMap)
+  const arrowLo = useStore((s) => arrowColouring(s)?.range[0] ?? NaN)
+  const arrowHi = useStore((s) => arrowColouring(s)?.range[1] ?? NaN)
+  const arrowRange = useMemo(() => (Number.isNaN(arrowLo) ? null : [arrowLo, arrowHi] as const), [arrowLo, arrowHi])
+  const reference = useStore((s) => arrowReference(s))
+  const units = useStore((s) => s.units)
+  // The last scale stays (hidden) while no arrows show, e.g. while a drag leaves them out.
+  const lastScale = useRef<{ length: number; label: string } | null>(null)
+  const scaleArrow = useMemo(() => {
+    if (!model || !sphere || !(reference > 0)) return null
+    // A round value in the shown stress unit, drawn at the length a traction of that value gets.
+    const f = displayFactor(model.units, 'stress', units)
+    const shown = roundDown125(reference * f)
+    const value = shown / f
+    const length = (ARROW_LENGTH_FRACTION * arrowSettings.scale * sphere.diagonal * value) / reference
+    const text = shown >= 1e-3 && shown < 1e6 ? String(Number(shown.toPrecision(1))) : shown.toExponential(0).replace('e+', 'e')
+    return { length, label: `${text.replace('-', '−')} ${displayUnitLabel('stress', units)}` }
+  }, [model, sphere, reference, units, arrowSettings.scale])
+  if (scaleArrow) lastScale.current = scaleArrow
+  useEffect(() => { lastScale.current = null }, [model])
+  const shownScale = scaleArrow ?? lastScale.current
+  const markedElement = useStore((s) => s.markedElement)
+  const sectionAxes = sectionResult && !sectionResult.empty ? sectionResult.axes : null
 
   return (
     <>
@@ -106,7 +136,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
       {arrows && sphere && arrowSettings.surface && (
         <ArrowField
           arrows={arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
-          colourMap={colourMap} colour={arrowSettings.colour} clippingPlanes={clippingPlanes} deformScale={deformScale}
+          colourMap={arrowMap} colourRange={arrowRange} reference={reference} clippingPlanes={clippingPlanes} deformScale={deformScale}
         />
       )}
       {section.enabled && sectionBuffers && (
@@ -115,15 +145,20 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
       {section.enabled && sectionBuffers && sphere && arrowSettings.section && (
         <ArrowField
           arrows={sectionBuffers.arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
-          colourMap={sectionMap} colour={arrowSettings.colour} clippingPlanes={NO_PLANES} deformScale={deformScale}
+          colourMap={arrowMap} colourRange={arrowRange} reference={reference} clippingPlanes={NO_PLANES} deformScale={deformScale}
         />
       )}
+      {shownScale && model && sphere && <ScaleArrow bounds={model.bounds} length={shownScale.length} radius={0.004 * sphere.diagonal} label={shownScale.label} visible={scaleArrow !== null} />}
+      {section.enabled && cut && sectionAxes && (
+        <SectionTriad centroid={cut.centroid} e1={sectionAxes.e1} e2={sectionAxes.e2} e3={sectionAxes.e3} length={0.3 * cut.halfSize} visible={!section.dragging} />
+      )}
+      {markedElement && <ElementMarker id={markedElement.id} centre={markedElement.centre} radius={markedElement.radius} />}
       {probe && sphere && <ProbeMarker position={moved(probe.position, probe.displacement, deformScale)} radius={0.006 * sphere.diagonal} />}
       {sphere && (line.from || lineResult) && (
         <LineOverlay reply={lineResult} from={line.from} to={line.to} deformScale={deformScale} radius={0.005 * sphere.diagonal} />
       )}
       {sphere && marks && <ExtremeMarkers marks={marks} radius={0.008 * sphere.diagonal} frameRadius={0.08 * sphere.diagonal} />}
-      {section.enabled && sphere && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} cut={cut} />}
+      {section.enabled && sphere && model && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} bounds={model.bounds} cut={cut} />}
     </>
   )
 }

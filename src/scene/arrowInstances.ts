@@ -4,8 +4,6 @@ import type { ArrowBuffers } from '../../workers/protocol.ts'
 import type { ColourMapName } from '../state/store.ts'
 import { colourMapTable } from './colourMaps.ts'
 
-const DIVERGING: ReadonlySet<ColourMapName> = new Set(['RdBu', 'PuOr'])
-
 const _m = new Matrix4()
 const _q = new Quaternion()
 const _p = new Vector3()
@@ -15,23 +13,29 @@ const Y = new Vector3(0, 1, 0)
 
 /**
  * Writes instance matrices (and colours) of `mesh` from the arrow buffers. `unitLength` is the
- * drawn length of the largest arrow (model length units). An arrow pushing on the surface
- * (v·n < 0, n the outward normal when the buffers carry `normals`) is drawn ending at its point,
- * so it stays outside the body; a pulling one starts there. With the deformed shape (`deformScale`
- * > 0 and the buffers' `displacement`) every origin moves by deformScale times its displacement.
- * Bounded by the arrow budget, so running this on the main thread is fine.
+ * drawn length (model length units) of an arrow of magnitude `reference` (stress units; default
+ * the largest of these arrows), so arrow fields drawn with one reference share one length scale.
+ * An arrow pushing on the surface (v·n < 0, n the outward normal when the buffers carry
+ * `normals`) is drawn ending at its point, so it stays outside the body; a pulling one starts
+ * there. Colour: the signed normal traction tₙ through `colourMap` over `colourRange` (tension
+ * and compression on the two halves of a diverging map), or none when `colourRange` is null (the
+ * material's single colour). With the deformed shape (`deformScale` > 0 and the buffers'
+ * `displacement`) every origin moves by deformScale times its displacement. Bounded by the arrow
+ * budget, so running this on the main thread is fine.
  */
 export function writeArrowInstances(
   mesh: InstancedMesh, arrows: ArrowBuffers, unitLength: number, radius: number,
-  colourMap: ColourMapName, colourByMagnitude: boolean, deformScale = 0,
+  colourMap: ColourMapName, colourRange: readonly [number, number] | null, reference = arrows.maxMagnitude, deformScale = 0,
 ): void {
   const n = Math.min(mesh.count, arrows.magnitudes.length)
   const { origins, vectors, magnitudes } = arrows
   const normals = (arrows as { normals?: Float32Array }).normals
   const du = arrows.displacement
-  const max = arrows.maxMagnitude > 0 ? arrows.maxMagnitude : 1
+  const tn = (arrows as { normalTraction?: Float32Array }).normalTraction
+  const max = reference > 0 ? reference : 1
   const table = colourMapTable(colourMap, 256)
-  const diverging = DIVERGING.has(colourMap)
+  const lo = colourRange ? colourRange[0] : 0
+  const span = colourRange && colourRange[1] > colourRange[0] ? colourRange[1] - colourRange[0] : 1
   const colours = mesh.instanceColor ? mesh.instanceColor.array as Float32Array : null
   for (let i = 0; i < n; i++) {
     const m = magnitudes[i]
@@ -49,12 +53,9 @@ export function writeArrowInstances(
     _s.set(r, L, r)
     mesh.setMatrixAt(i, _m.compose(_p, _q, _s))
     if (colours) {
-      // Magnitudes run over the upper half of a diverging map (white at zero), over all of a
-      // sequential one.
-      let t = m / max
-      if (diverging) t = 0.5 + 0.5 * t
-      const k = 4 * Math.max(0, Math.min(255, Math.round(t * 255)))
-      const c = colourByMagnitude ? 1 / 255 : 0
+      const t = colourRange && tn ? (tn[i] - lo) / span : 0
+      const k = 4 * Math.max(0, Math.min(255, Math.round((Number.isFinite(t) ? t : 0) * 255)))
+      const c = colourRange ? 1 / 255 : 0
       colours[3 * i] = table[k] * c; colours[3 * i + 1] = table[k + 1] * c; colours[3 * i + 2] = table[k + 2] * c
     }
   }

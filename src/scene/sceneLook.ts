@@ -7,9 +7,19 @@
 export const BACKGROUND = '#e6e6e3'
 /** Surface where a value is missing (NaN), and the back of the surface seen through a cut. */
 export const NEUTRAL_SURFACE = '#b9b9b4'
-/** Section handle: plane outline and drag arrow. */
+/** Section handle (SectionHandle.tsx): the tab, the tab under the pointer, its rim, the rail and leader. */
 export const HANDLE = '#2f4f6f'
-export const HANDLE_ACTIVE = '#d06a12'
+export const HANDLE_HOVER = '#52789e'
+export const HANDLE_RIM = '#f4f4f1'
+export const HANDLE_RAIL = '#8a96a1'
+/** Section axes triad at the centroid (SectionTriad.tsx): e1, e2 and the normal, with a pale halo. */
+export const TRIAD_E1 = '#8c4a00'
+export const TRIAD_E2 = '#1e6b40'
+export const TRIAD_N = '#3d3f42'
+export const HALO = '#f4f4f1'
+/** The scale arrow of the arrow fields and the least balanced element's marker. */
+export const SCALE_ARROW = '#26282b'
+export const MARKER = '#8e1a5a'
 /** The probe's dot. */
 export const PROBE = '#d06a12'
 /** Arrows when coloured with one colour. */

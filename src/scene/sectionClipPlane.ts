@@ -9,9 +9,10 @@ export const NOWHERE = 1e30
 /**
  * Writes the clipping plane that hides one side of the section into `out` (three.js clips where
  * n·x + c < 0). With no section or `hide: 'none'` the plane moves out of reach instead of being
- * removed, so the shader programs keep their clipping variant and never recompile.
+ * removed, so the shader programs keep their clipping variant and never recompile. `hide` must be
+ * resolved ('auto' to a side: selectors.ts `resolvedHide`).
  */
-export function sectionClipPlane(out: Plane, s: SectionState): Plane {
+export function sectionClipPlane(out: Plane, s: SectionState & { readonly hide: 'positive' | 'negative' | 'none' }): Plane {
   if (!s.enabled || s.hide === 'none') return out.set(new Vector3(0, 0, 1), NOWHERE)
   const { point, normal } = sectionPlaneOf(s)
   const d = normal[0] * point[0] + normal[1] * point[1] + normal[2] * point[2]

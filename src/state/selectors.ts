@@ -8,7 +8,7 @@ import { COMPONENT_QUANTITIES } from '../mechanics/componentScalars.ts'
 import type { ComponentQuantity } from '../mechanics/componentScalars.ts'
 import { autoDeformationScale } from '../mechanics/deformation.ts'
 import type { ScalarExtremes } from '../../workers/protocol.ts'
-import type { ColourMapName, QuantityName, SectionState, TractusData, TractusState } from './store.ts'
+import type { CameraState, ColourMapName, QuantityName, SectionState, TractusData, TractusState } from './store.ts'
 
 /** Signed quantities get a diverging map centred on zero; magnitudes a sequential one. */
 export function isSignedQuantity(q: QuantityName): boolean {
@@ -77,4 +77,18 @@ export function deformScaleOf(s: Pick<TractusState, 'deformation' | 'deformation
   if (!s.deformation.shown || !d || !s.model) return 0
   if (s.deformation.scale !== 'auto') return s.deformation.scale
   return autoDeformationScale(d.max, modelSphere(s.model.bounds).diagonal)
+}
+
+/**
+ * The side of the section hidden in the scene: `hide`, with 'auto' resolved to the side the
+ * camera is on (so the cut face, which looks towards the hidden side, faces the camera); the +n
+ * side before any camera is known.
+ */
+export function resolvedHide(s: SectionState, camera: CameraState | null): 'positive' | 'negative' | 'none' {
+  if (s.hide !== 'auto') return s.hide
+  if (!camera) return 'positive'
+  const { point, normal } = sectionPlaneOf(s)
+  const c = camera.position
+  const side = (c[0] - point[0]) * normal[0] + (c[1] - point[1]) * normal[1] + (c[2] - point[2]) * normal[2]
+  return side >= 0 ? 'positive' : 'negative'
 }

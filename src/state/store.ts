@@ -20,14 +20,19 @@ import { createStore } from 'zustand/vanilla'
 import type { StateCreator, StoreApi } from 'zustand'
 import type { Vec3 } from '../model/model.ts'
 import type { UnitSystem } from '../model/units.ts'
+import { modelDisplayUnits } from '../model/units.ts'
 import { isInputError } from '../model/errors.ts'
 import { checkPoint, unitNormal } from '../mechanics/plane.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { SURFACE_QUANTITIES } from '../mechanics/surfaceTriangles.ts'
 import type {
-  AppError, ArrowBuffers, ArrowMode, AuditSummary, LoadedModel, ModelSummary, ProbeRay, ProbeResult, Progress,
-  SectionBuffers, SurfaceBuffers, SurfaceQuantity,
+  AppError, ArrowBuffers, ArrowMode, AuditSummary, CutInfo, LoadedModel, ModelSummary, PatchRule, ProbeRay, ProbeResult, Progress,
+  SectionAxesChoice, SectionBuffers, SurfaceBuffers, SurfaceQuantity,
 } from '../../workers/protocol.ts'
+import { LOAD_PATCH_DEFAULTS } from '../mechanics/loadPatches.ts'
+
+/** The patch rule of a new session: the defaults of src/mechanics/loadPatches.ts. */
+export const DEFAULT_PATCH_RULE: PatchRule = { ...LOAD_PATCH_DEFAULTS }
 import { defaultMapFor, isSignedQuantity, modelSphere } from './selectors.ts'
 import { createSweepSlice } from './sweepSlice.ts'
 import type { SweepSlice } from './sweepSlice.ts'
@@ -64,8 +69,12 @@ export interface ArrowSettings {
   readonly scale: number
   /** Largest number of arrows kept after decimation by area (count). */
   readonly budget: number
-  /** 'magnitude': arrows coloured by |v| with the current colour map; 'single': one colour. */
-  readonly colour: 'magnitude' | 'single'
+  /**
+   * 'normal': arrows coloured by their signed normal traction tₙ on a diverging map (the surface's
+   * map and range when the surface shows tₙ, else their own, with a bar of their own); 'single':
+   * one colour.
+   */
+  readonly colour: 'normal' | 'single'
 }
 
 /**
@@ -73,7 +82,8 @@ export interface ArrowSettings {
  * (see `sectionPlaneOf`). `point` length units, `normal` any non-zero finite vector (normalised on
  * use; `setSection` refuses any other), `offset` length units along n̂. `hide`: which side of the
  * plane is hidden in the scene ('positive' = the +n side, the side whose action the resultant
- * reports), or 'none'. `traction`: which section traction colours the fill. `dragging`: true while
+ * reports; 'auto' = the side the camera is on, so the cut face looks at the camera;
+ * `resolvedHide` in selectors.ts), or 'none'. `traction`: which section traction colours the fill. `dragging`: true while
  * the handle or the offset slider is held (see `beginSectionDrag`); on software WebGL the app then
  * cuts without section arrows (they return on release).
  */
@@ -82,7 +92,7 @@ export interface SectionState {
   readonly point: Vec3
   readonly normal: Vec3
   readonly offset: number
-  readonly hide: 'positive' | 'negative' | 'none'
+  readonly hide: 'auto' | 'positive' | 'negative' | 'none'
   readonly traction: 'normalTraction' | 'shearTraction'
   readonly dragging: boolean
 }
@@ -102,7 +112,15 @@ export interface CameraState {
 export interface ViewRequest {
   readonly seq: number
   readonly camera?: CameraState
-  readonly frame?: { readonly center: Vec3; readonly radius: number; /** Outward normal of what is framed, to look at it from outside; optional. */ readonly normal?: Vec3 }
+  readonly frame?: {
+    readonly center: Vec3
+    readonly radius: number
+    /** Outward normal of what is framed, to look at it from outside; optional. */
+    readonly normal?: Vec3
+    /** Look exactly along this direction (from the camera to the centre), with `up` on screen when given. */
+    readonly along?: Vec3
+    readonly up?: Vec3
+  }
 }
 
 /**
@@ -118,6 +136,51 @@ export type ColourRange = 'auto' | readonly [number, number]
 export interface FieldError {
   readonly field: 'normal' | 'point'
   readonly message: string
+}
+
+/**
+ * How numbers are shown: a named set (SI, US customary), the model's own units, or the user's
+ * own length, force and stress units (`units` holds the resolved units in every case).
+ */
+export type UnitPreset = 'SI' | 'US' | 'model' | 'custom'
+
+/** What a reviewer writes on snapshots and reports (plain text, shown as text only). */
+export interface ReviewFields {
+  readonly title: string
+  readonly project: string
+  readonly author: string
+  readonly checker: string
+  readonly revision: string
+  readonly loadCase: string
+  readonly notes: string
+}
+
+export const EMPTY_REVIEW: ReviewFields = { title: '', project: '', author: '', checker: '', revision: '', loadCase: '', notes: '' }
+
+/**
+ * A link that could not be applied as it stands: it was made on the user's own files (`files`
+ * lists their names; the view waits until files of those names are opened), or it names a demo
+ * this build does not have.
+ */
+export interface LinkNotice {
+  readonly kind: 'needs-files' | 'unknown-demo'
+  readonly message: string
+  readonly files?: readonly string[]
+}
+
+/** An element to point at in the scene (the Equilibrium card's least balanced elements): its id, centre and size (length units). */
+export interface MarkedElement {
+  readonly id: number
+  readonly centre: Vec3
+  readonly radius: number
+}
+
+/** Screen space the cards and bars cover at the edges of the scene (CSS pixels), so framing uses the open part. */
+export interface ViewInsets {
+  readonly top: number
+  readonly right: number
+  readonly bottom: number
+  readonly left: number
 }
 
 /** The fields of the store (no actions). */
@@ -157,6 +220,21 @@ export interface TractusData {
   readonly progress: Progress | null
   readonly error: AppError | null
   readonly helpOpen: boolean
+
+  // Reading the results (section axes, patch rule, display units, reviewer fields, links, layout).
+  /** Section axes the cut is resolved in: principal (default) or reference, with the reference direction. */
+  readonly sectionAxes: SectionAxesChoice
+  /** What the engine added to the last cut: a refused reference, the body's extent when the plane missed. */
+  readonly cutInfo: CutInfo | null
+  /** The load-entry patch rule in use (fractions of the reference stress, feature angle in degrees). */
+  readonly patchRule: PatchRule
+  readonly unitPreset: UnitPreset
+  readonly review: ReviewFields
+  /** The cards column at its wide size (diagrams read better). */
+  readonly wideCards: boolean
+  readonly viewInsets: ViewInsets
+  readonly linkNotice: LinkNotice | null
+  readonly markedElement: MarkedElement | null
 }
 
 export interface TractusActions {
@@ -206,20 +284,35 @@ export interface TractusActions {
   /** A new model replaces the old one: its results, a fresh section through its centre, the camera framed. */
   modelLoaded: (loaded: LoadedModel) => void
   surfaceArrowsShown: (arrows: ArrowBuffers | null) => void
-  /** The cut of the current plane; with `offset`, a drag step's cut, and the plane moves to it. */
-  cutShown: (result: SectionResult, buffers: SectionBuffers | null, offset?: number) => void
+  /** The cut of the current plane; with `offset`, a drag step's cut, and the plane moves to it; `info` what the engine added. */
+  cutShown: (result: SectionResult, buffers: SectionBuffers | null, offset?: number, info?: CutInfo | null) => void
   cutCleared: () => void
   probeShown: (probe: ProbeResult | null) => void
+
+  // Reading the results.
+  setSectionAxes: (choice: SectionAxesChoice) => void
+  /** A new patch rule; the engine client recomputes the patches (see `patchesShown`). */
+  setPatchRule: (rule: PatchRule) => void
+  /** The engine's patches for the rule in use: the audit with them, and the surface's patch labels. */
+  patchesShown: (audit: AuditSummary, patchLabel: Float32Array) => void
+  /** Shows numbers in a preset, or in `custom` units (a DisplayUnits record). */
+  setUnitPreset: (preset: UnitPreset, custom?: Exclude<UnitSystem, 'SI' | 'US'>) => void
+  setReview: (patch: Partial<ReviewFields>) => void
+  setWideCards: (wide: boolean) => void
+  setViewInsets: (insets: ViewInsets) => void
+  setLinkNotice: (notice: LinkNotice | null) => void
+  /** Points at an element in the scene (null: none). */
+  markElement: (element: MarkedElement | null) => void
 }
 
 export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice
 
 export const DEFAULT_SECTION: SectionState = {
-  enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'positive', traction: 'normalTraction', dragging: false,
+  enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'auto', traction: 'normalTraction', dragging: false,
 }
 
 export const DEFAULT_ARROWS: ArrowSettings = {
-  surface: false, section: true, mode: 'full', scale: 1, budget: 1500, colour: 'magnitude',
+  surface: false, section: true, mode: 'full', scale: 1, budget: 1500, colour: 'normal',
 }
 
 /** Arrow count (count) used when WebGL reports a software renderer: it draws instanced arrows slowly. */
@@ -227,7 +320,7 @@ export const SOFTWARE_ARROW_BUDGET = 150
 
 const NO_ARROWS: ArrowBuffers = {
   mode: 'full', origins: new Float32Array(0), vectors: new Float32Array(0), normals: new Float32Array(0),
-  magnitudes: new Float32Array(0), maxMagnitude: 0,
+  magnitudes: new Float32Array(0), maxMagnitude: 0, normalTraction: new Float32Array(0),
 }
 
 /** Why a section patch cannot be taken, or null when it can. */
@@ -268,6 +361,25 @@ const INITIAL: TractusData = {
   progress: null,
   error: null,
   helpOpen: false,
+  sectionAxes: { kind: 'principal' },
+  cutInfo: null,
+  patchRule: DEFAULT_PATCH_RULE,
+  unitPreset: 'SI',
+  review: EMPTY_REVIEW,
+  wideCards: false,
+  viewInsets: { top: 0, right: 0, bottom: 0, left: 0 },
+  linkNotice: null,
+  markedElement: null,
+}
+
+/**
+ * The axis along which a box of these bounds is longest (ties in the order x, y, z): a new cut
+ * goes across it, through the centre, so the first cut shows a cross-section of the part.
+ */
+export function longestAxis(bounds: { readonly min: readonly number[]; readonly max: readonly number[] }): Vec3 {
+  const d = [0, 1, 2].map((k) => bounds.max[k] - bounds.min[k])
+  const k = d[1] > d[0] && d[1] >= d[2] ? 1 : d[2] > d[0] && d[2] > d[1] ? 2 : 0
+  return k === 0 ? [1, 0, 0] : k === 1 ? [0, 1, 0] : [0, 0, 1]
 }
 
 const tractusState: StateCreator<TractusState> = (set, get, api) => ({
@@ -283,11 +395,11 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   },
   setRange: (range) => set({ range }),
   setColourMap: (colourMap) => set({ colourMap }),
-  setUnits: (units) => set({ units }),
+  setUnits: (units) => set({ units, unitPreset: units === 'SI' || units === 'US' ? units : 'custom' }),
   applyViewSettings: (v) => set({
     ...(v.quantity ? { quantity: v.quantity } : {}),
     ...(v.colourMap ? { colourMap: v.colourMap } : v.quantity ? { colourMap: defaultMapFor(v.quantity) } : {}),
-    ...(v.units ? { units: v.units } : {}),
+    ...(v.units ? { units: v.units, unitPreset: v.units === 'SI' || v.units === 'US' ? v.units : 'custom' } : {}),
     ...(v.range ? { range: v.range } : {}),
   }),
   setArrowSettings: (patch) => set({ arrowSettings: { ...get().arrowSettings, ...patch } }),
@@ -344,23 +456,47 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
     const { center: centre, radius } = modelSphere(summary.bounds)
     set({
       model: summary, surface, audit, arrows: null, sectionBuffers: null, sectionResult: null, probe: null, probeRay: null,
-      highlightedPatch: -1, busy: false, progress: null, sectionDrag: null, sectionInputError: null,
-      section: { ...DEFAULT_SECTION, enabled: prev.enabled, normal: prev.normal, hide: prev.hide, traction: prev.traction, point: centre },
+      highlightedPatch: -1, busy: false, progress: null, sectionDrag: null, sectionInputError: null, cutInfo: null, markedElement: null,
+      // A new part gets a cut across its longest extent, through its centre.
+      section: { ...DEFAULT_SECTION, enabled: prev.enabled, normal: longestAxis(summary.bounds), hide: prev.hide, traction: prev.traction, point: centre },
       // Old diagrams never sit on a new part.
       sweep: null,
       // Nor an old line; the new model's displacement, components and extremes come with it.
       line: { ...get().line, from: null, to: null }, linePicking: 'off', lineResult: null, lineError: null,
       ...shapeOfLoad(loaded),
+      // The model's own units follow the model.
+      ...(get().unitPreset === 'model' ? { units: modelDisplayUnits(summary.units) } : {}),
     })
     // Frame the model first; a link applied after the load may then ask for its own camera.
     get().requestView({ frame: { center: centre, radius } })
   },
   surfaceArrowsShown: (arrows) => set({ arrows }),
-  cutShown: (sectionResult, sectionBuffers, offset) => set({
-    sectionResult, sectionBuffers, ...(offset !== undefined ? { section: { ...get().section, offset } } : {}),
+  cutShown: (sectionResult, sectionBuffers, offset, cutInfo = null) => set({
+    sectionResult, sectionBuffers, cutInfo, ...(offset !== undefined ? { section: { ...get().section, offset } } : {}),
   }),
-  cutCleared: () => set({ sectionResult: null, sectionBuffers: null }),
+  cutCleared: () => set({ sectionResult: null, sectionBuffers: null, cutInfo: null }),
   probeShown: (probe) => set({ probe }),
+
+  setSectionAxes: (sectionAxes) => set({ sectionAxes }),
+  setPatchRule: (patchRule) => set({ patchRule }),
+  patchesShown: (audit, patchLabel) => {
+    const st = get()
+    set({ audit, highlightedPatch: -1, ...(st.surface ? { surface: { ...st.surface, patch: patchLabel } } : {}) })
+  },
+  setUnitPreset: (preset, custom) => {
+    const model = get().model
+    if (preset === 'custom') { if (custom) set({ unitPreset: 'custom', units: custom }); return }
+    if (preset === 'model') { set({ unitPreset: 'model', ...(model ? { units: modelDisplayUnits(model.units) } : {}) }); return }
+    set({ unitPreset: preset, units: preset })
+  },
+  setReview: (patch) => set({ review: { ...get().review, ...patch } }),
+  setWideCards: (wideCards) => set({ wideCards }),
+  setViewInsets: (viewInsets) => {
+    const v = get().viewInsets
+    if (v.top !== viewInsets.top || v.right !== viewInsets.right || v.bottom !== viewInsets.bottom || v.left !== viewInsets.left) set({ viewInsets })
+  },
+  setLinkNotice: (linkNotice) => set({ linkNotice }),
+  markElement: (markedElement) => set({ markedElement }),
 })
 
 /** A store of its own (tests, and anything that must not share the app's). */

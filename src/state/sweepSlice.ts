@@ -20,7 +20,8 @@ export interface SweepSlice {
 
 export const createSweepSlice: StateCreator<TractusState, [], [], SweepSlice> = (set, get) => ({
   sweep: null,
-  sweepShown: { axial: true, shear1: true, shear2: true, torque: false, bending1: false, bending2: false },
+  // All six internal forces by default, in the chart and in the report.
+  sweepShown: { axial: true, shear1: true, shear2: true, torque: true, bending1: true, bending2: true },
   sweepRunning: false,
   sweepStarted: () => set({ sweepRunning: true }),
   sweepEnded: (reply) => set({ sweepRunning: false, ...(reply ? { sweep: reply } : {}) }),

@@ -23,6 +23,8 @@ import { nodalStressField } from '../../src/model/stressField.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { benchCutTypes } from './sectionCut.ts'
+import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../../src/mechanics/invariants.ts'
 import { syntheticModel, cellsPerSide } from './syntheticModel.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { streamBytes, streamConnCoords, streamConnCoordsStress, streamText } from './streamingLimit.ts'
@@ -47,8 +49,8 @@ const SEED = Math.round(opt('--seed', 20261201))
 const t0All = performance.now()
 const log = (s: string) => process.stderr.write(s + '\n')
 
-type KernelName = 'boundary' | 'audit' | 'cut' | 'readCsv' | 'readNative'
-const KERNELS: readonly KernelName[] = ['boundary', 'audit', 'cut', 'readCsv', 'readNative']
+type KernelName = 'boundary' | 'audit' | 'patches' | 'cut' | 'readCsv' | 'readNative'
+const KERNELS: readonly KernelName[] = ['boundary', 'audit', 'patches', 'cut', 'readCsv', 'readNative']
 
 interface KernelFigure {
   medianMs: number
@@ -144,6 +146,13 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   for (let i = 0; i < E; i++) if (audit.value.elements.indicator[i] > maxIndicator) maxIndicator = audit.value.elements.indicator[i]
   checks.elementIndicatorMax = maxIndicator
 
+  log(`${label}: load-entry patches`)
+  // The patch rule over the boundary faces (growth by the lower level, folds, parts); the nodal
+  // von Mises it takes its reference from is computed once, outside the timing.
+  const vonMises = computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), stress).vonMises
+  const patches = measure(() => findLoadPatches(mesh, faces, tractions, vonMises), { runs: R, minRuns, warmup: type === 'tet4' ? 3 : 1 })
+  checks.loadPatches = patches.value.patches.length
+
   log(`${label}: section cut`)
   const cut = measure(() => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false }), { runs: runsFor(E, 11), warmup: 15 })
   const r = cut.value.result
@@ -176,6 +185,7 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   const kernels: Record<KernelName, KernelFigure> = {
     boundary: figure(boundary, streamCC, boundaryBaseline),
     audit: figure(audit, streamCCS, null),
+    patches: figure(patches, streamCC, null),
     cut: figure(cut, streamCC, cutBaseline),
     readCsv: { ...figure(csv, streamCsv, null), mbPerS: csvBytes / 1e6 / (csv.medianMs / 1000) },
     readNative: { ...figure(native, streamNative, null), mbPerS: bytes.byteLength / 1e6 / (native.medianMs / 1000) },

@@ -106,6 +106,51 @@ describe('tractus cut', () => {
     expect(j.unmappedPoints).toBe(0)
   })
 
+  it('says which section axes it used: principal by default, reference axes with --reference', async () => {
+    const point: Vec3 = [0.41, 0.52, 0.47], normal: Vec3 = [0.2, -0.3, 1]
+    const p = await cliJson('cut', bundle, '--point', point.join(','), '--normal', normal.join(','))
+    expect(p.axes.kind).toBe('principal')
+    expect(p.axes.reference).toEqual([1, 0, 0]) // the first of x, y, z with the longest projection
+    const reference: Vec3 = [0, 1, 0]
+    const j = await cliJson('cut', bundle, '--point', point.join(','), '--normal', normal.join(','), '--reference', reference.join(','))
+    const r = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, { point, normal }, { axes: { kind: 'reference', reference } }).result
+    expect(j.axes.kind).toBe('reference')
+    expect(j.axes.reference).toEqual([0, 1, 0])
+    closeVec(j.axes.e1, r.axes.e1)
+    closeVec(j.axes.e2, r.axes.e2)
+    // e1 is the projection of y onto the plane, so it lies in the plane.
+    const m = Math.hypot(...normal)
+    expect(Math.abs(j.axes.e1[0] * normal[0] + j.axes.e1[1] * normal[1] + j.axes.e1[2] * normal[2]) / m).toBeLessThan(1e-12)
+    closeVec([...j.bending, 0], [...r.bending, 0])
+    close(j.secondMoments.I12, r.secondMoments.I12)
+    const table = await cli('cut', bundle, '--point', point.join(','), '--normal', normal.join(','), '--reference', '0,1,0')
+    expect(table.stdout).toMatch(/section axes\s+reference axes: e1 is the projection of \(0, 1, 0\)/)
+    const sweep = await cliJson('sweep', bundle, '--normal', '1,0,0', '--from', '0.2', '--to', '0.8', '--count', '3', '--reference', '0,1,1')
+    expect(sweep.axes.kind).toBe('reference')
+    closeVec(sweep.axes.reference, [0, Math.SQRT1_2, Math.SQRT1_2])
+    for (const sec of sweep.sections) expect(sec.axes.kind).toBe('reference')
+  })
+
+  it('reads rounding noise as 0 in its table while the JSON keeps every digit', async () => {
+    // The lug's neck (an invented demo): Fz is about 1e-6 of |F|, the centroid's x about 1e-16 of the part.
+    const lug = join('public', 'demo', 'lifting-lug', 'lifting-lug.tractus')
+    const args = ['cut', lug, '--point', '0,140,10', '--normal', '0,1,0']
+    const j = await cliJson(...args)
+    expect(j.force[2]).not.toBe(0)
+    expect(Math.abs(j.force[2]) / Math.hypot(...j.force)).toBeLessThan(1e-6)
+    const table = await cli(...args)
+    expect(table.stdout).toMatch(/force F\s+\(25011, 43373, 0\) N/)
+    // The region's own figures follow the same rule (one region here: the whole neck).
+    expect(table.stdout).toMatch(/region 1 \(part 0\)\s+area 3200 mm², centroid \(0, 140, 10\) mm, force \(25011, 43373, 0\) N/)
+    expect(table.stdout).toMatch(/centroid\s+\(0, 140, 10\) mm/)
+  })
+
+  it('refuses a reference parallel to the normal (exit 2, the message names both)', async () => {
+    const out = await cli('cut', bundle, '--point', '0.5,0.5,0.5', '--normal', '0,0,2', '--reference', '0,0,-1')
+    expect(out.code).toBe(2)
+    expect(out.stderr).toMatch(/reference direction \(0, 0, -1\) is parallel to the section normal \(0, 0, 1\)/)
+  })
+
   it('converts to US customary units with the NIST SP 811 factors', async () => {
     const args = ['cut', uniform, '--point', '0.73,0.5,0.5', '--normal', '1,0,0']
     const si = await cliJson(...args)
@@ -159,6 +204,28 @@ describe('tractus audit', () => {
     })
     close(j.freeSurface.area, lp.freeSurface.area)
     close(j.freeSurface.mean, lp.freeSurface.mean)
+  })
+
+  it('takes the patch rule\'s lower threshold and feature angle, and says what it used', async () => {
+    const j = await cliJson('audit', bundle, '--threshold', '0.1', '--lower-threshold', '0.02', '--feature-angle', '60')
+    expect(j.thresholdFraction).toBe(0.1)
+    expect(j.lowerThresholdFraction).toBe(0.02)
+    expect(j.featureAngle).toBe(60)
+    close(j.lowerThreshold, 0.2 * j.threshold)
+    const f = extractBoundaryFaces(model.mesh)
+    const t = computeSurfaceTractions(allocateSurfaceTractions(f), model.mesh, nodalStressField(model.mesh, model.stress), f)
+    const inv = computeNodalInvariants(allocateNodalInvariants(model.mesh.nodeCount), model.stress)
+    const lp = findLoadPatches(model.mesh, f, t, inv.vonMises, { threshold: 0.1, lowerThreshold: 0.02, featureAngle: 60 })
+    expect(j.patches.length).toBe(lp.patches.length)
+    j.patches.forEach((p: { force: number[]; moment: number[]; part: number }, i: number) => {
+      closeVec(p.force, lp.patches[i].force)
+      closeVec(p.moment, lp.patches[i].moment)
+      expect(p.part).toBe(lp.patches[i].part)
+    })
+    const bad = await cli('audit', bundle, '--threshold', '0.02', '--lower-threshold', '0.05')
+    expect(bad.code).toBe(1)
+    expect(bad.stderr).toMatch(/--lower-threshold \(0\.05\) must not exceed --threshold \(0\.02\)/)
+    expect((await cli('audit', bundle, '--feature-angle', '200')).code).toBe(1)
   })
 
   it('finds a uniform stress state in balance (Cauchy: ∮σn dA = 0 for constant σ)', async () => {

@@ -32,6 +32,18 @@ export async function openBrowser(): Promise<Session> {
       '--disable-background-networking', '--disable-component-update', '--disable-sync'],
   })
   const context = await browser.newContext({ viewport: { width: 1280, height: 720 }, acceptDownloads: true })
+  // One PNG decoder in every page, for the pixel helpers below: pixels of `rect` (default: all).
+  await context.addInitScript(() => {
+    (globalThis as unknown as { __tractusPng: unknown }).__tractusPng = async (b64: string, rect?: { x: number; y: number; w: number; h: number }) => {
+      const bytes = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))
+      const bmp = await createImageBitmap(new Blob([bytes], { type: 'image/png' }))
+      const c = new OffscreenCanvas(bmp.width, bmp.height)
+      const g = c.getContext('2d')!
+      g.drawImage(bmp, 0, 0)
+      const r = rect ?? { x: 0, y: 0, w: bmp.width, h: bmp.height }
+      return { data: g.getImageData(r.x, r.y, r.w, r.h).data, width: bmp.width, height: bmp.height, rect: r }
+    }
+  })
   const outside: string[] = []
   const pageErrors: string[] = []
   // Anything not from the preview server is recorded and refused.
@@ -91,16 +103,13 @@ export async function figure(page: Page, key: string): Promise<number> {
   return Number(s)
 }
 
+type PngPixels = (b64: string, rect?: { x: number; y: number; w: number; h: number }) => Promise<{ data: Uint8ClampedArray; width: number; height: number; rect: { x: number; y: number; w: number; h: number } }>
+
 /** Fraction of non-background pixels and the number of distinct colours in a PNG screenshot region. */
 export async function pixelStats(page: Page, png: Buffer, rect?: { x: number; y: number; w: number; h: number }): Promise<{ nonBackground: number; distinct: number; width: number; height: number }> {
   return page.evaluate(async ({ b64, rect }) => {
-    const bytes = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))
-    const bmp = await createImageBitmap(new Blob([bytes], { type: 'image/png' }))
-    const c = new OffscreenCanvas(bmp.width, bmp.height)
-    const g = c.getContext('2d')!
-    g.drawImage(bmp, 0, 0)
-    const r = rect ?? { x: 0, y: 0, w: bmp.width, h: bmp.height }
-    const d = g.getImageData(r.x, r.y, r.w, r.h).data
+    const { data: d, width, height } = await (globalThis as unknown as { __tractusPng: PngPixels }).__tractusPng(b64, rect)
+    const bmp = { width, height }
     const bg = [d[0], d[1], d[2]]
     let non = 0
     const seen = new Set<number>()
@@ -123,4 +132,23 @@ export async function pixelsAt(page: Page, png: Buffer, points: readonly (readon
     const rgb = points.map(([x, y]) => { const d = g.getImageData(x, y, 1, 1).data; return [d[0], d[1], d[2]] as [number, number, number] })
     return { size: [bmp.width, bmp.height] as [number, number], rgb }
   }, { b64: png.toString('base64'), points: points.map((p) => [p[0], p[1]]) })
+}
+
+/**
+ * Pixels of a PNG within `tol` (per channel) of an sRGB hex colour, in `rect` (default: all):
+ * their count and bounding box.
+ */
+export async function colourBox(page: Page, png: Buffer, hex: string, tol: number, rect?: { x: number; y: number; w: number; h: number }): Promise<{ n: number; x0: number; y0: number; x1: number; y1: number }> {
+  return page.evaluate(async ({ b64, hex, tol, rect }) => {
+    const { data: d, rect: r } = await (globalThis as unknown as { __tractusPng: PngPixels }).__tractusPng(b64, rect)
+    const want = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16))
+    let n = 0, x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity
+    for (let y = 0; y < r.h; y++) for (let x = 0; x < r.w; x++) {
+      const o = 4 * (y * r.w + x)
+      if (Math.abs(d[o] - want[0]) <= tol && Math.abs(d[o + 1] - want[1]) <= tol && Math.abs(d[o + 2] - want[2]) <= tol) {
+        n++; x0 = Math.min(x0, x + r.x); y0 = Math.min(y0, y + r.y); x1 = Math.max(x1, x + r.x); y1 = Math.max(y1, y + r.y)
+      }
+    }
+    return { n, x0, y0, x1, y1 }
+  }, { b64: png.toString('base64'), hex, tol, rect })
 }

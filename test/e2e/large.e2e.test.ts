@@ -15,7 +15,8 @@
  */
 import { describe, expect, it } from 'vitest'
 import { writeFileSync } from 'node:fs'
-import { useBrowserSession, OUT_DIR, ORIGIN, waitForCut, waitForModel } from './browser.ts'
+import { colourBox, useBrowserSession, OUT_DIR, ORIGIN, waitForCut, waitForModel } from './browser.ts'
+import { HANDLE } from '../../src/scene/sceneLook.ts'
 
 const ELEMENTS = Number(process.env.TRACTUS_E2E_ELEMENTS ?? 1_000_000)
 const LIMIT_MS = 200
@@ -79,11 +80,21 @@ describe('large model', () => {
     const cores = await page.evaluate(() => navigator.hardwareConcurrency)
     if (cores >= 2) expect(compute, compute.line ?? '').toMatchObject({ workers: Math.min(cores, 5) - 1, sharing: 'shared' })
 
+    // The loaded end and the supported end are one patch each, each carrying the end shear
+    // P = 200 kN of the generated cantilever (workers/syntheticModel.ts) within 1 %.
+    const patchForces = await page.$$eval('[data-testid="patch-list"] tbody tr td[data-col="force"] .num', (e) => e.map((x) => Number(x.getAttribute('data-model'))))
+    expect(patchForces).toHaveLength(2)
+    for (const f of patchForces) expect(Math.abs(f - 2e5) / 2e5).toBeLessThan(0.01)
+
     const sectionOnStart = await page.evaluate(() => performance.now())
     await page.keyboard.press('c')
     await waitForCut(page, 120_000)
     await page.waitForTimeout(1500)
     const sectionOnEnd = await page.evaluate(() => performance.now())
+    // The section handle reads as well here as on a small part: its tab, on screen, of its own size.
+    const handleShot = await page.screenshot({ path: `${OUT_DIR}/large-model-handle.png` })
+    const tabPixels = (await colourBox(page, handleShot, HANDLE, 3, { x: 0, y: 40, w: 900, h: 600 })).n
+    expect(tabPixels, 'section handle tab pixels at 10^6 elements').toBeGreaterThan(40)
     await page.evaluate(() => {
       performance.clearMeasures('tractus:cut')
       window.__cutChanges = []

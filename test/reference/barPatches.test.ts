@@ -47,15 +47,26 @@ describe('bar pulled at both ends: two load-entry patches', () => {
     })
   }
 
-  it('a higher threshold option drops weakly loaded faces; patches sort by |force|', () => {
+  it('a higher threshold option drops weakly loaded faces; patches sort by |force|; folds split them', () => {
     const mesh = boxMesh({ nx: 4, ny: 2, nz: 2, lx: L, ly: W, lz: D }, 'hex8')
     // σxx = P/A plus a small σzz = 0.1 P/A: the top and bottom faces carry 10 % of the end traction.
     const stress = stressField(mesh, () => [P / area, 0, 0.1 * P / area, 0, 0, 0])
     const { faces, tractions, invariants, loadPatches: all } = runCore(mesh, stress)
-    // Ends (2) + top + bottom, joined along shared edges into one connected loaded band.
-    expect(all.patches.length).toBe(1)
-    const strict = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { threshold: 0.2 })
+    // Ends (2), top and bottom: loaded, and split where the surface folds by 90°.
+    expect(all.patches.length).toBe(4)
+    expect(all.featureAngle).toBe(40)
+    // With no fold splitting (180°) they join along shared edges into one loaded band.
+    const band = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { featureAngle: 180 })
+    expect(band.patches.length).toBe(1)
+    const strict = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { threshold: 0.2, lowerThreshold: 0.2 })
     expect(strict.patches.length).toBe(2)
     expect(strict.freeSurface.relative).toBeGreaterThan(0.01)
+    // Hysteresis: top and bottom (10 %) start no patch of their own at 20 %, but they join the
+    // ends they touch when the lower level lets them and no fold separates them.
+    const grown = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { threshold: 0.2, lowerThreshold: 0.05, featureAngle: 180 })
+    expect(grown.patches.length).toBe(1)
+    expect(grown.patches[0].area).toBeCloseTo(2 * area + 2 * L * W, 12)
+    const split = findLoadPatches(mesh, faces, tractions, invariants.vonMises, { threshold: 0.2, lowerThreshold: 0.05 })
+    expect(split.patches.length).toBe(2)
   })
 })

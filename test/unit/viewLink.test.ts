@@ -46,6 +46,23 @@ describe('view link', () => {
     }
   })
 
+  it('names the user\'s own files (with the start of each SHA-256) and the display units', () => {
+    const v: ViewLink = {
+      model: { kind: 'files', names: ['nodes.csv', 'elements.csv', 'stress.csv', 'model (2).json'], sha: ['0123456789ab', 'ffffffffffff', '000000000000', 'abcdefabcdef'] },
+      units: { length: 'mm', force: 'N', stress: 'MPa' },
+      section: { enabled: true, point: [0, 60, 10], normal: [0, 1, 0], offset: 0, hide: 'auto' },
+    }
+    const hash = buildViewLink(v)
+    expect(hash).toContain('model=files:nodes.csv/elements.csv/stress.csv/model')
+    expect(parseViewLink(hash)).toEqual(v)
+    expect(parseViewLink('#u=model').units).toBe('model')
+    // Folders, control characters and unknown units are refused.
+    expect(parseViewLink('#model=files:..%2Fetc').model).toBeUndefined()
+    expect(parseViewLink('#model=files:a%00b').model).toBeUndefined()
+    expect(parseViewLink('#model=files:a.csv&fsha=xyz').model).toEqual({ kind: 'files', names: ['a.csv'] })
+    expect(parseViewLink('#u=mm,N,lbs').units).toBeUndefined()
+  })
+
   it('never throws on random text', () => {
     fc.assert(fc.property(fc.string({ maxLength: 300 }), (s) => { parseViewLink('#' + s) }), { seed: 7, numRuns: 500 })
   })

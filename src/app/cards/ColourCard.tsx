@@ -166,18 +166,25 @@ export function ColourCard() {
         <label className="check"><input type="checkbox" data-testid="arrows-section" checked={a.section} onChange={(e) => setArrowSettings({ section: e.target.checked })} /> on section</label>
       </div>
       <div className="row">
-        <span className="lbl">Show</span>
-        <select value={a.mode} data-testid="arrows-mode" onChange={(e) => setArrowSettings({ mode: e.target.value as ArrowMode })}>
-          <option value="full">traction t</option>
-          <option value="normal">normal part</option>
-          <option value="shear">shear part</option>
-        </select>
-        <span className="lbl">Colour</span>
-        <select value={a.colour} onChange={(e) => setArrowSettings({ colour: e.target.value as 'magnitude' | 'single' })}>
-          <option value="magnitude">by magnitude</option>
-          <option value="single">one colour</option>
-        </select>
+        <label className="pair">
+          <span className="lbl">Show</span>
+          <select value={a.mode} data-testid="arrows-mode" onChange={(e) => setArrowSettings({ mode: e.target.value as ArrowMode })}>
+            <option value="full">traction t</option>
+            <option value="normal">normal part</option>
+            <option value="shear">shear part</option>
+          </select>
+        </label>
       </div>
+      <div className="row">
+        <label className="pair">
+          <span className="lbl">Colour</span>
+          <select value={a.colour} data-testid="arrows-colour" onChange={(e) => setArrowSettings({ colour: e.target.value as 'normal' | 'single' })}>
+            <option value="normal">by normal traction tₙ (tension / compression)</option>
+            <option value="single">one colour</option>
+          </select>
+        </label>
+      </div>
+      <p className="note">Arrow lengths share one scale, drawn in the view as an arrow of a round value under the model.</p>
       <label className="slider"><span className="lbl">Length</span>
         <input type="range" min={0.1} max={5} step={0.1} value={a.scale} data-testid="arrows-scale" onChange={(e) => setArrowSettings({ scale: Number(e.target.value) })} />
         <span className="num">×{a.scale.toFixed(1)}</span>

@@ -1,6 +1,7 @@
 import { Card } from '../ui/Card.tsx'
 import { Num, VecRow } from '../ui/Num.tsx'
-import { componentSymbols, displacementSymbols } from '../format.ts'
+import { componentSymbols, displacementSymbols, noiseFloor } from '../format.ts'
+import { modelSphere } from '../../state/selectors.ts'
 import { useStore } from '../../state/store.ts'
 import { basisAt, rotateStressInto, rotateVectorInto } from '../../mechanics/componentAxes.ts'
 
@@ -22,20 +23,23 @@ export function ProbeCard() {
   const s = rotateStressInto(new Float64Array(6), 0, probe.stress, 0, R)
   const u = probe.displacement ? rotateVectorInto(new Float64Array(3), 0, probe.displacement, 0, R) : null
   const sym = componentSymbols(axes), usym = displacementSymbols(axes)
+  // One table: stresses and tractions judged against the largest stress, the point against the model's size.
+  const sFloor = noiseFloor([...probe.stress, ...probe.principal, probe.vonMises, ...probe.traction])
+  const lFloor = noiseFloor([], modelSphere(model.bounds).diagonal)
   return (
     <Card id="probe" title="Probe">
       <table className="figures" data-testid="probe-result">
         <caption>{probe.where === 'section' ? 'On the section' : 'On the surface'}, element {probe.elementId}{axes.kind === 'cylindrical' ? '; components in cylindrical axes' : ''}</caption>
         <tbody>
-          <VecRow label="Position" v={probe.position} q="length" />
-          {Array.from(s, (v, i) => <tr key={i} data-row={sym[i]}><th>{sym[i]}</th><td><Num v={v} q="stress" /></td></tr>)}
-          <VecRow label="σ₁, σ₂, σ₃" v={probe.principal} q="stress" />
-          <tr><th>von Mises</th><td><Num v={probe.vonMises} q="stress" /></td></tr>
-          <VecRow label="Normal n" v={probe.normal} q={null} />
-          <VecRow label="Traction t = σn" v={probe.traction} q="stress" />
-          <tr><th>Normal tₙ</th><td><Num v={probe.normalTraction} q="stress" /></td></tr>
-          <tr><th>Shear |τ|</th><td><Num v={probe.shearTraction} q="stress" /></td></tr>
-          {u ? <VecRow label={`Displacement ${usym.join(', ')}`} v={Array.from(u)} q="length" /> : null}
+          <VecRow label="Position" v={probe.position} q="length" floor={lFloor} />
+          {Array.from(s, (v, i) => <tr key={i} data-row={sym[i]}><th>{sym[i]}</th><td><Num v={v} q="stress" floor={sFloor} /></td></tr>)}
+          <VecRow label="σ₁, σ₂, σ₃" v={probe.principal} q="stress" floor={sFloor} />
+          <tr><th>von Mises</th><td><Num v={probe.vonMises} q="stress" floor={sFloor} /></td></tr>
+          <VecRow label="Normal n" v={probe.normal} q={null} floor={1e-6} />
+          <VecRow label="Traction t = σn" v={probe.traction} q="stress" floor={sFloor} />
+          <tr><th>Normal tₙ</th><td><Num v={probe.normalTraction} q="stress" floor={sFloor} /></td></tr>
+          <tr><th>Shear |τ|</th><td><Num v={probe.shearTraction} q="stress" floor={sFloor} /></td></tr>
+          {u ? <VecRow label={`Displacement ${usym.join(', ')}`} v={Array.from(u)} q="length" floor={lFloor} /> : null}
         </tbody>
       </table>
     </Card>

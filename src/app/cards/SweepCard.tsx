@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react'
+import { useState } from 'react'
 import type { Vec3 } from '../../model/model.ts'
 import { displayFactor, displayUnitLabel } from '../../model/units.ts'
 import { Card } from '../ui/Card.tsx'
@@ -32,23 +32,17 @@ export function SweepCard() {
   const showSweepSeries = useStore((s) => s.showSweepSeries)
   const [direction, setDirection] = useState<Direction>('section')
   const [count, setCount] = useState(100)
-  const [wide, setWide] = useState(false)
+  const [countError, setCountError] = useState('')
   const [error, setError] = useState('')
-  const root = useRef<HTMLDivElement>(null)
-
-  // The wider layout widens the whole card column while this card asks for it.
-  useEffect(() => {
-    const col = root.current?.closest('.cards')
-    col?.classList.toggle('wide', wide)
-    return () => { col?.classList.remove('wide') }
-  }, [wide, model])
+  const axes = useStore((s) => s.sectionAxes)
 
   if (!model) return null
   const run = async (): Promise<void> => {
     const n: Vec3 = direction === 'section' ? sectionPlaneOf(section).normal : AXIS[direction]
     useStore.getState().sweepStarted()
     setError('')
-    const out = await engine.sweep(n, count)
+    // One choice of section axes (and one reference) for every section of the sweep.
+    const out = await engine.sweep(n, count, undefined, undefined, axes)
     useStore.getState().sweepEnded(out?.ok ? out.value : null)
     if (out && !out.ok) setError(out.error.message)
   }
@@ -63,7 +57,7 @@ export function SweepCard() {
   const Lf = displayFactor(model.units, 'length', system)
   return (
     <Card id="sweep" title="Along the part">
-      <div ref={root} className="sweep-card">
+      <div className="sweep-card">
         <div className="row">
           <span className="lbl">Along</span>
           <select value={direction} data-testid="sweep-direction" onChange={(e) => setDirection(e.target.value as Direction)}>
@@ -72,8 +66,13 @@ export function SweepCard() {
             <option value="y">y</option>
             <option value="z">z</option>
           </select>
-          <NumberField label="Sections" value={count} width={4} testId="sweep-count"
-            onCommit={(v) => setCount(Math.min(MAX_COUNT, Math.max(2, Math.round(v))))} />
+          <NumberField label="Sections" value={count} width={4} testId="sweep-count" invalid={!!countError}
+            onCommit={(v) => {
+              // Refused, not clamped: the field is marked and says what it takes.
+              if (!Number.isInteger(v) || v < 2 || v > MAX_COUNT) { setCountError(`${formatNumber(v)} sections: give a whole number from 2 to ${MAX_COUNT} (the command line takes up to 100 000); ${count} kept.`); return }
+              setCountError('')
+              setCount(v)
+            }} />
           <button type="button" data-testid="sweep-run" disabled={running} onClick={() => void run()}>{running ? 'Running…' : 'Run'}</button>
         </div>
         <div className="row sweep-pick" role="group" aria-label="Quantities to plot">
@@ -84,11 +83,13 @@ export function SweepCard() {
             </label>
           ))}
         </div>
+        {countError ? <p className="note bad" data-testid="sweep-count-error">{countError}</p> : null}
         {error ? <p className="note bad" data-testid="sweep-error">{error}</p> : null}
         {sweep ? (
           <>
             <p className="note">
-              {sweep.offsets.length} sections along m = ({sweep.normal.map((v) => formatNumber(v, 3)).join(', ')}), end to end over x·m = {formatNumber(sweep.extent[0] * Lf)} … {formatNumber(sweep.extent[1] * Lf)} {Lu}. Section axes per section, moments about each centroid.
+              {sweep.offsets.length} sections along m = ({sweep.normal.map((v) => formatNumber(v, 3)).join(', ')}), end to end over x·m = {formatNumber(sweep.extent[0] * Lf)} … {formatNumber(sweep.extent[1] * Lf)} {Lu}.
+              {' '}{sweep.axes.kind === 'principal' ? 'Principal axes per section' : 'Reference axes'}, one reference for all: ({sweep.axes.reference.map((v) => formatNumber(Math.abs(v) < 1e-12 ? 0 : v, 3)).join(', ')}); moments about each centroid.
             </p>
             <SweepChart sweep={sweep} units={model.units} system={system} shown={shown} marker={marker} onPick={pick} />
             <p className="note" data-testid="sweep-trust">
@@ -97,9 +98,6 @@ export function SweepCard() {
             </p>
           </>
         ) : <p className="note">Run to cut the part at evenly spaced planes from end to end.</p>}
-        <div className="row">
-          <label className="check"><input type="checkbox" data-testid="sweep-wide" checked={wide} onChange={(e) => setWide(e.target.checked)} /> Wider cards</label>
-        </div>
       </div>
     </Card>
   )

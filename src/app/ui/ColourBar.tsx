@@ -1,5 +1,5 @@
 import { useEffect, useRef } from 'react'
-import { sectionColouring } from '../../scene/index.ts'
+import { arrowColouring, sectionColouring } from '../../scene/index.ts'
 import { colourMapTable } from '../../scene/colourMaps.ts'
 import { formatNumber, QUANTITY_LABEL, quantityDisplay, quantityLabel } from '../format.ts'
 import { activeRange } from '../../state/selectors.ts'
@@ -50,6 +50,12 @@ export function ColourBar() {
   const sectionMap = useStore((s) => sectionColouring(s).map)
   const sectionLo = useStore((s) => sectionColouring(s).range[0])
   const sectionHi = useStore((s) => sectionColouring(s).range[1])
+  // The arrows get a bar of their own when they do not share the surface's map and range.
+  const arrowsShown = useStore((s) => (s.arrowSettings.surface && s.arrows !== null) || (s.arrowSettings.section && s.section.enabled && s.sectionBuffers !== null && s.sectionBuffers.arrows.magnitudes.length > 0))
+  const ownArrowBar = useStore((s) => arrowsShown && arrowColouring(s) !== null && !arrowColouring(s)!.sharedWithSurface)
+  const arrowMap = useStore((s) => arrowColouring(s)?.map ?? 'RdBu')
+  const arrowLo = useStore((s) => arrowColouring(s)?.range[0] ?? -1)
+  const arrowHi = useStore((s) => arrowColouring(s)?.range[1] ?? 1)
   if (!model) return null
   const { factor, unit } = quantityDisplay(quantity, model.units, system)
   const secDisp = quantityDisplay(traction, model.units, system)
@@ -60,6 +66,10 @@ export function ColourBar() {
       {ownSectionBar ? (
         <Bar testId="section-colour-bar" title={`Section: ${QUANTITY_LABEL[traction]}`} unit={secDisp.unit} map={sectionMap}
           lo={sectionLo} hi={sectionHi} factor={secDisp.factor} note="section range" />
+      ) : null}
+      {ownArrowBar ? (
+        <Bar testId="arrow-colour-bar" title="Arrows: normal traction tₙ" unit={quantityDisplay('normalTraction', model.units, system).unit} map={arrowMap}
+          lo={arrowLo} hi={arrowHi} factor={quantityDisplay('normalTraction', model.units, system).factor} note="tension +" />
       ) : null}
     </div>
   )

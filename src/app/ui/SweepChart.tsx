@@ -10,7 +10,7 @@ import 'uplot/dist/uPlot.min.css'
 import type { ModelUnits, UnitSystem } from '../../model/units.ts'
 import { displayFactor, displayUnitLabel } from '../../model/units.ts'
 import type { SeriesKey, SweepReply } from '../../../workers/protocol.ts'
-import { formatNumber } from '../format.ts'
+import { denoise, formatNumber, noiseFloor } from '../format.ts'
 import { useBoxWidth } from './useBoxWidth.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, zeroAlignedRanges } from '../sweepSeries.ts'
 
@@ -151,6 +151,8 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
   useEffect(() => { for (const p of plots.current) p.redraw(false) }, [marker, Lf])
 
   const k = idx !== null && idx >= 0 && idx < sweep.offsets.length ? idx : null
+  // The read-out is one row of a table: forces judged against forces, moments against moments.
+  const floorOf = (q: 'force' | 'moment', at: number): number => noiseFloor(SERIES.filter((x) => x.quantity === q).map((x) => sweep[x.key][at]))
   return (
     <div className="sweep-chart">
       <div ref={box} data-testid="sweep-chart" />
@@ -162,7 +164,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
             <span data-readout="position">x·m = {formatNumber(sweep.offsets[k] * Lf)} <span className="unit">{displayUnitLabel('length', system)}</span></span>
             {sweep.empty[k] ? <span className="note">misses the body</span> : keys.map((s) => (
               <span key={s.key} data-readout={s.key} style={{ color: s.colour }}>
-                {s.symbol} = {formatNumber(sweep[s.key][k] * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
+                {s.symbol} = {formatNumber(denoise(sweep[s.key][k], floorOf(s.quantity, k)) * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
               </span>
             ))}
             {sweep.empty[k] ? null : <span data-readout="residual">residual {formatNumber(sweep.freeBodyRelative[k], 2)} (force), {formatNumber(sweep.freeBodyMomentRelative[k], 2)} (moment)</span>}

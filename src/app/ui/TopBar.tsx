@@ -3,13 +3,14 @@ import { demos, demoSource } from '../actions.ts'
 import type { DemoEntry } from '../actions.ts'
 import { engine } from '../engine.ts'
 import { QuantitySelect } from '../cards/ColourCard.tsx'
+import { UnitsMenu } from './UnitsMenu.tsx'
 import { useStore } from '../../state/store.ts'
 
-/** Slim bar: model name, quantity, units switch, open, demos, help. The name is React text only. */
+/** Slim bar: model name, quantity, units, card width, open, demos, help. The name is React text only. */
 export function TopBar({ onOpen }: { onOpen: () => void }) {
   const model = useStore((s) => s.model)
-  const units = useStore((s) => s.units)
-  const setUnits = useStore((s) => s.setUnits)
+  const wide = useStore((s) => s.wideCards)
+  const setWideCards = useStore((s) => s.setWideCards)
   const setHelpOpen = useStore((s) => s.setHelpOpen)
   const busy = useStore((s) => s.busy)
   const [list, setList] = useState<DemoEntry[]>([])
@@ -22,13 +23,9 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
       {model ? <span className="counts num">{model.elementCount.toLocaleString('en-US')} elements · {model.nodeCount.toLocaleString('en-US')} nodes · model units {model.units.length}, {model.units.stress}</span> : null}
       <span className="spacer" />
       <QuantitySelect testId="quantity" />
-      <div className="seg" role="group" aria-label="Units">
-        {(['SI', 'US'] as const).map((u) => (
-          <button key={u} type="button" data-testid={`units-${u}`} aria-pressed={units === u} className={units === u ? 'on' : ''} onClick={() => setUnits(u)}>
-            {u === 'SI' ? 'SI' : 'US'}
-          </button>
-        ))}
-      </div>
+      <UnitsMenu />
+      <button type="button" data-testid="wide-cards" aria-pressed={wide} className={wide ? 'on' : ''} title="Widen or narrow the column of cards (diagrams read better wide); W"
+        onClick={() => setWideCards(!wide)}>{wide ? 'Narrow' : 'Wide'} <kbd>W</kbd></button>
       {list.length ? (
         <select value={current} data-testid="demo-select" aria-label="Demo model" disabled={busy}
           onChange={(e) => { const d = list.find((x) => x.id === e.target.value); if (d) void engine.load(demoSource(d)) }}>
@@ -37,7 +34,7 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
         </select>
       ) : null}
       <button type="button" data-testid="open" onClick={onOpen} disabled={busy}>Open… <kbd>O</kbd></button>
-      <button type="button" data-testid="help" onClick={() => setHelpOpen(true)} aria-label="Keyboard shortcuts">?</button>
+      <button type="button" data-testid="help" onClick={() => setHelpOpen(true)} aria-label="Keys and what they do" title="Keys and what they do (?)">Keys ?</button>
     </header>
   )
 }

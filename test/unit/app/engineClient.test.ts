@@ -15,7 +15,7 @@ import type { AppSource, EngineConnection } from '../../../src/app/engineClient.
 import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
 import type { SectionResult } from '../../../src/mechanics/types.ts'
 import type {
-  ArrowRequest, AuditSummary, CutReply, EngineCalls, LoadedModel, ModelSource, Outcome, Plane, SurfaceBuffers,
+  ArrowRequest, AuditSummary, CutOptions, CutReply, EngineCalls, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
 } from '../../../workers/protocol.ts'
 
 interface Deferred<T> { readonly promise: Promise<T>; resolve(v: T): void }
@@ -28,20 +28,22 @@ function deferred<T>(): Deferred<T> {
 
 /** One fake engine worker: records every load and cut and answers when the test says so. */
 class FakeWorker {
-  readonly loads: { source: ModelSource; reply: Deferred<Outcome<LoadedModel>> }[] = []
-  readonly cuts: { plane: Plane; arrows: ArrowRequest; reply: Deferred<Outcome<CutReply>> }[] = []
+  readonly loads: { source: ModelSource; reply: Deferred<Outcome<LoadedModel>>; rule?: PatchRule }[] = []
+  readonly cuts: { plane: Plane; arrows: ArrowRequest; options?: CutOptions; reply: Deferred<Outcome<CutReply>> }[] = []
+  readonly patchRules: { rule: PatchRule; reply: Deferred<Outcome<PatchReply>> }[] = []
   terminated = false
   constructor(readonly onFailure: (message: string) => void) {}
   readonly calls: EngineCalls = {
     configure: async () => undefined,
-    load: (source) => { const reply = deferred<Outcome<LoadedModel>>(); this.loads.push({ source, reply }); return reply.promise },
+    load: (source, _onProgress, rule) => { const reply = deferred<Outcome<LoadedModel>>(); this.loads.push({ source, reply, rule }); return reply.promise },
     surfaceArrows: async () => null,
-    cut: (plane, arrows) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, reply }); return reply.promise },
+    cut: (plane, arrows, options) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, options, reply }); return reply.promise },
     probe: async () => null,
     sweep: async () => ({ ok: false, error: { message: 'not in this test' } }),
     components: async () => ({ ok: false, error: { message: 'not in this test' } }),
     line: async () => ({ ok: false, error: { message: 'not in this test' } }),
     lineThroughWall: async () => null,
+    patches: (rule) => { const reply = deferred<Outcome<PatchReply>>(); this.patchRules.push({ rule, reply }); return reply.promise },
     dispose: async () => undefined,
   }
 }
@@ -104,6 +106,52 @@ async function loadModel(t: ReturnType<typeof setUp>, name: string): Promise<voi
   w.loads[w.loads.length - 1].reply.resolve(loaded(name))
   expect(await done).toBe(true)
 }
+
+describe('engine client: section axes and the patch rule', () => {
+  it('cuts with the store\'s section axes, cuts again when they change, and keeps what the engine adds', async () => {
+    const t = setUp()
+    t.client.watch()
+    await loadModel(t, 'A')
+    const w = t.workers[0]
+    t.store.getState().setSection({ enabled: true })
+    await settle()
+    expect(w.cuts[0].options?.axes).toEqual({ kind: 'principal' })
+    w.cuts[0].reply.resolve({ ok: true, value: { result: { planeX: 1 } as unknown as SectionResult, buffers: null, computeMs: 1, info: { axesNote: 'refused' } } })
+    await t.frame()
+    expect(t.store.getState().cutInfo).toEqual({ axesNote: 'refused' })
+    t.store.getState().setSectionAxes({ kind: 'reference', reference: [0, 0, 1] })
+    await t.frame()
+    expect(w.cuts).toHaveLength(2)
+    expect(w.cuts[1].options?.axes).toEqual({ kind: 'reference', reference: [0, 0, 1] })
+  })
+
+  it('loads with the store\'s patch rule and finds the patches again when it changes (the newest rule wins)', async () => {
+    const t = setUp()
+    t.client.watch()
+    t.store.getState().setPatchRule({ threshold: 0.1, lowerThreshold: 0.02, featureAngle: 30 })
+    const done = t.client.load(BLOCK('A'))
+    await settle()
+    const w = t.workers[0]
+    expect(w.loads[0].rule).toEqual({ threshold: 0.1, lowerThreshold: 0.02, featureAngle: 30 })
+    w.loads[0].reply.resolve(loaded('A'))
+    await done
+    t.store.getState().setPatchRule({ threshold: 0.05, lowerThreshold: 0.005, featureAngle: 40 })
+    t.store.getState().setPatchRule({ threshold: 0.05, lowerThreshold: 0.005, featureAngle: 90 })
+    await settle()
+    // Both asked (one job at a time); the older reply is dropped.
+    expect(w.patchRules.map((p) => p.rule.featureAngle)).toEqual([40])
+    const audit = { patches: [] } as unknown as AuditSummary
+    w.patchRules[0].reply.resolve({ ok: true, value: { audit, patchLabel: new Float32Array(0) } })
+    await settle()
+    await settle()
+    expect(t.store.getState().audit).not.toBe(audit)
+    expect(w.patchRules.map((p) => p.rule.featureAngle)).toEqual([40, 90])
+    w.patchRules[1].reply.resolve({ ok: true, value: { audit, patchLabel: new Float32Array(0) } })
+    await settle()
+    await settle()
+    expect(t.store.getState().audit).toBe(audit)
+  })
+})
 
 describe('engine client: the latest plane wins', () => {
   it('a drag sends only the newest step after the cut in flight, and the plane moves with its cut', async () => {

@@ -10,7 +10,7 @@ function reply(): SweepReply {
     normal: [0, 1, 0], extent: [0, 200], offsets: f(10, 100, 190),
     axial: f(43290, 43000, 0), shear1: f(0, 1, 0), shear2: f(25000, 25000, 0),
     torque: f(0, 0, 0), bending1: f(-3.589e6, -1e6, 0), bending2: f(0, 0, 0),
-    freeBodyRelative: f(0.006, 0.011, 0), freeBodyMomentRelative: f(0.002, 0.004, 0), empty: Uint8Array.from([0, 0, 1]),
+    freeBodyRelative: f(0.006, 0.011, 0), freeBodyMomentRelative: f(0.002, 0.004, 0), empty: Uint8Array.from([0, 0, 1]), axes: { kind: 'principal', reference: [1, 0, 0] },
   }
 }
 
@@ -38,6 +38,16 @@ describe('sweep series', () => {
     expect(t.rows[2][1]).toBe('—')
     expect(t.rows[2][7]).toBe('misses the body')
     expect(worstResidual(reply())).toBe(0.011)
+  })
+
+  it('shows rounding noise as 0, row by row, forces against forces (format.ts NOISE_FRACTION)', () => {
+    const r = reply()
+    r.shear1[0] = 1e-5 // N, beside 43 290 N of axial force in the same row
+    r.torque[0] = 3e-3 // N·mm, beside −3.589e6 N·mm of bending
+    const t = sweepTable(r, mmMPa, 'SI')
+    expect(t.rows[0][2]).toBe('0')
+    expect(t.rows[0][4]).toBe('0')
+    expect(t.rows[1][2]).toBe('0.001') // 1 N of 43 000 N: 2e-5, data
   })
 
   it('finds the nearest section', () => {

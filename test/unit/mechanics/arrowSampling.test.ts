@@ -107,6 +107,8 @@ describe('sampleSurfaceArrows', () => {
       for (let k = 0; k < 3; k++) expect(normal.vectors[3 * i + k] + shear.vectors[3 * i + k]).toBeCloseTo(full.vectors[3 * i + k], 6)
       expect(full.magnitudes[i]).toBeCloseTo(Math.hypot(full.vectors[3 * i], full.vectors[3 * i + 1], full.vectors[3 * i + 2]), 5)
       expect(Array.from(full.origins.subarray(3 * i, 3 * i + 3))).toEqual([full.item[i], 0, 0])
+      // The signed normal traction t·n (here t_z = 3 − f) colours the arrows in every mode.
+      for (const a of [full, normal, shear]) expect(a.normalTraction[i]).toBe(3 - full.item[i])
     }
     expect(full.maxMagnitude).toBe(Math.max(...full.magnitudes))
   })

@@ -7,6 +7,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
+import { nodalStressField } from '../../../src/model/stressField.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
 import { autoDeformationScale, deformPoints, displacementOnPolygons, faceMeanVectors, gatherNodalVectors, maxDisplacement, meanOverItems, surfaceDisplacement } from '../../../src/mechanics/deformation.ts'
 import { cutSection } from '../../../src/mechanics/sectionCut.ts'
@@ -70,7 +71,7 @@ describe('deformed shape', () => {
     // Any element reproduces a linear displacement field exactly (isoparametric; common practice).
     const eps = [[2e-3, 5e-4, 0], [0, -1e-3, 3e-4], [1e-4, 0, 5e-4]]
     const { mesh, u } = strained(eps)
-    const { polygons } = cutSection(mesh, new Float64Array(6 * mesh.nodeCount), [0, 0, 0], { point: [1.3, 0.7, 0.4], normal: [1, 0.3, 0.2] }, { polygons: true })
+    const { polygons } = cutSection(mesh, nodalStressField(mesh, new Float64Array(6 * mesh.nodeCount)), [0, 0, 0], { point: [1.3, 0.7, 0.4], normal: [1, 0.3, 0.2] }, { polygons: true })
     const pu = displacementOnPolygons(mesh, u, polygons!)
     const x = polygons!.positions
     expect(polygons!.count).toBeGreaterThan(4)

@@ -19,10 +19,11 @@ describe('writeArrowInstances', () => {
     vectors: new Float32Array([0, 0, 10, 0, 0, -5]),
     magnitudes: new Float32Array([10, 5]),
     normals: new Float32Array([0, 0, 1, 0, 0, 1]),
+    normalTraction: new Float32Array([10, -5]),
   } as ArrowBuffers & { normals: Float32Array }
   const mesh = new InstancedMesh(new BufferGeometry(), new MeshBasicMaterial(), 2)
   mesh.instanceColor = new InstancedBufferAttribute(new Float32Array(6), 3)
-  writeArrowInstances(mesh, arrows, 2, 0.05, 'viridis', true)
+  writeArrowInstances(mesh, arrows, 2, 0.05, 'viridis', [-10, 10])
 
   it('a pulling arrow starts at its point; length ∝ magnitude', () => {
     const { tail, tip } = ends(mesh, 0)
@@ -36,10 +37,19 @@ describe('writeArrowInstances', () => {
     expect(tail.distanceTo(new Vector3(1, 2, 4))).toBeLessThan(1e-6)
   })
 
-  it('colours by magnitude from the map: the largest gets the top entry (viridis #fde725, from memory)', () => {
+  it('colours by signed normal traction over the range: +10 of ±10 gets the top entry (viridis #fde725, from memory)', () => {
     const c = mesh.instanceColor!.array
     expect(Math.round(c[0] * 255)).toBe(0xfd)
     expect(Math.round(c[1] * 255)).toBe(0xe7)
     expect(Math.round(c[2] * 255)).toBe(0x25)
+    // −5 of ±10 lies a quarter of the way up: not the top entry.
+    expect(Math.round(c[3] * 255)).not.toBe(0xfd)
+  })
+
+  it('a shared reference magnitude sets the length: 10 units at reference 20 are drawn half as long', () => {
+    const m2 = new InstancedMesh(new BufferGeometry(), new MeshBasicMaterial(), 2)
+    writeArrowInstances(m2, arrows, 2, 0.05, 'viridis', null, 20)
+    const { tail, tip } = ends(m2, 0)
+    expect(tip.distanceTo(tail)).toBeCloseTo(1, 6)
   })
 })

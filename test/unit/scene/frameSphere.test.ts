@@ -31,6 +31,34 @@ describe('frameSphere', () => {
   })
 })
 
+describe('frameSphere into the open part of the view', () => {
+  it('the sphere lands in the middle of the part the cards leave open, and inside it (projective geometry)', () => {
+    const cam = new PerspectiveCamera(35, 1280 / 720, 0.1, 100)
+    cam.up.set(0, 0, 1)
+    cam.position.set(0, -10, 0)
+    const center = new Vector3(1, 2, 3)
+    const open = { width: 1280, height: 720, insets: { top: 40, right: 360, bottom: 80, left: 0 } }
+    const aim = frameSphere(cam, new Vector3(), center, 2, true, undefined, open)
+    cam.updateMatrixWorld()
+    const c = center.clone().project(cam)
+    // Middle of the open part in normalised device coordinates: x from 0 to 920 px, y from 40 to 640 px.
+    expect((c.x + 1) / 2 * 1280).toBeCloseTo(460, 4)
+    expect((1 - c.y) / 2 * 720).toBeCloseTo(340, 4)
+    // The aim moved with the camera, so the view direction is the one asked for.
+    expect(cam.position.clone().sub(aim).normalize().y).toBeCloseTo(-1, 12)
+    // Every point of the sphere along the screen axes stays within the open part.
+    const right = new Vector3().setFromMatrixColumn(cam.matrixWorld, 0), up = new Vector3().setFromMatrixColumn(cam.matrixWorld, 1)
+    for (const off of [right, right.clone().negate(), up, up.clone().negate()]) {
+      const p = center.clone().addScaledVector(off, 2).project(cam)
+      const px = (p.x + 1) / 2 * 1280, py = (1 - p.y) / 2 * 720
+      expect(px).toBeGreaterThan(0)
+      expect(px).toBeLessThan(920)
+      expect(py).toBeGreaterThan(40)
+      expect(py).toBeLessThan(640)
+    }
+  })
+})
+
 describe('upForBodyForce', () => {
   it('points the screen up against gravity and keeps the three-quarter view above the model (common practice)', () => {
     const up = upForBodyForce([0, -25_506, 0])

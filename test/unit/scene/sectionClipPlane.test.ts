@@ -23,7 +23,7 @@ describe('sectionClipPlane', () => {
   })
 
   it("'none' or a disabled section clip nothing", () => {
-    for (const s of [{ ...base, hide: 'none' as const }, { ...base, enabled: false }]) {
+    for (const s of [{ ...base, hide: 'none' as const }, { ...base, hide: 'positive' as const, enabled: false }]) {
       sectionClipPlane(p, s)
       expect(p.distanceToPoint(new Vector3(1e6, -1e6, -1e6))).toBeGreaterThan(0)
     }

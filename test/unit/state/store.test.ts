@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
-import { sectionPlaneOf } from '../../../src/state/selectors.ts'
+import { resolvedHide, sectionPlaneOf } from '../../../src/state/selectors.ts'
 import type { AuditSummary, LoadedModel, SurfaceBuffers, SweepReply } from '../../../workers/protocol.ts'
 
 const MODEL: LoadedModel = {
@@ -47,6 +47,29 @@ describe('store actions', () => {
     expect(s.section.point).toEqual([1, 1, 1])
     expect(s.viewRequest?.frame?.center).toEqual([1, 1, 1])
     expect(s.viewRequest?.frame?.radius).toBeCloseTo(Math.sqrt(3), 12)
+  })
+
+  it('a new model is cut across its longest extent; "the model\'s own units" follow the model', () => {
+    const store = createTractusStore()
+    store.getState().setUnitPreset('model')
+    store.getState().modelLoaded({ ...MODEL, summary: { ...MODEL.summary, units: { length: 'mm', stress: 'MPa' }, bounds: { min: [0, 0, 0], max: [200, 280, 20] } } })
+    const s = store.getState()
+    expect(s.section.normal).toEqual([0, 1, 0])
+    // MPa·mm² = N (common practice: the consistent unit set of mm and MPa).
+    expect(s.units).toEqual({ length: 'mm', force: 'N', stress: 'MPa' })
+    store.getState().modelLoaded({ ...MODEL, summary: { ...MODEL.summary, units: { length: 'm', stress: 'kPa' } } })
+    expect(store.getState().units).toEqual({ length: 'm', force: 'kN', stress: 'kPa' })
+    store.getState().setUnitPreset('US')
+    expect(store.getState().units).toBe('US')
+  })
+
+  it("'auto' hides the side of the plane the camera is on", () => {
+    const section = { enabled: true, point: [0, 0, 0] as [number, number, number], normal: [0, 0, 1] as [number, number, number], offset: 2, hide: 'auto' as const, traction: 'normalTraction' as const, dragging: false }
+    const cam = (z: number) => ({ position: [0, 0, z] as [number, number, number], target: [0, 0, 0] as [number, number, number], up: [0, 1, 0] as [number, number, number], fov: 35 })
+    expect(resolvedHide(section, cam(5))).toBe('positive')
+    expect(resolvedHide(section, cam(1))).toBe('negative') // below the plane at z = 2
+    expect(resolvedHide(section, null)).toBe('positive')
+    expect(resolvedHide({ ...section, hide: 'none' }, cam(5))).toBe('none')
   })
 
   it('the map family follows the quantity: diverging for signed, sequential for magnitudes', () => {
