@@ -162,11 +162,7 @@ export function readNumericTable(file: string, text: string, spec: NumericTableS
   const mismatch = widthMismatch(header, spec.role)
   if (mismatch) throw new InputError('header', `${header.raw.join(', ')}: ${mismatch}`, { file, line: header.line })
   const nf = header.width
-  // Per column: the field it holds (0 = id, k = value k), or -1 for a column left out.
-  const slotOf = new Int32Array(nf).fill(-1)
-  columnOf.forEach((c, k) => { slotOf[c] = k })
-  const labels = spec.fields.map((f, k) => columnLabel(header, columnOf[k], f))
-  const names = Array.from({ length: nf }, (_, c) => (slotOf[c] >= 0 ? labels[slotOf[c]] : columnLabel(header, c)))
+  const { slotOf, labels, names } = columnSlots(header, spec.fields, columnOf)
   const unit = unitOfColumns(file, header, columnOf.subarray(1), spec.quantity)
   // The field readers once into locals: under a CommonJS transform (tsx) every use of an imported
   // name is a getter call that the optimiser does not inline, once per field otherwise.
@@ -212,6 +208,19 @@ export function readNumericTable(file: string, text: string, spec: NumericTableS
   for (const c of columnOf) used[c] = 1
   const info: TableInfo = { dialect, ignored: unusedColumns(header, used), unit, labels }
   return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows), info }
+}
+
+/**
+ * Per column the field it holds (0 = id, k = value k) or -1 for a column left out, and the
+ * message names of fields and columns. Apart from the reader so that no closure there captures
+ * what its loop reads (a captured variable lives in a heap context: a load more per field).
+ */
+function columnSlots(header: CsvHeader, fields: readonly string[], columnOf: Int32Array): { slotOf: Int32Array; labels: string[]; names: string[] } {
+  const slotOf = new Int32Array(header.width).fill(-1)
+  columnOf.forEach((c, k) => { slotOf[c] = k })
+  const labels = fields.map((f, k) => columnLabel(header, columnOf[k], f))
+  const names = Array.from({ length: header.width }, (_, c) => (slotOf[c] >= 0 ? labels[slotOf[c]] : columnLabel(header, c)))
+  return { slotOf, labels, names }
 }
 
 /**
