@@ -353,6 +353,14 @@ function readInteger(cur: CsvCursor, min: number): number {
     cur.status = v >= min && v <= MAX_ID ? PARSE_OK : PARSE_BAD_INTEGER
     return v
   }
+  return readIntegerAsNumber(cur, start, min)
+}
+
+/**
+ * An integer field that is not plain digits: read as a number, accepted when its value is an
+ * integer in range. Apart from readInteger so that the common path stays small enough to inline.
+ */
+function readIntegerAsNumber(cur: CsvCursor, start: number, min: number): number {
   cur.pos = start
   const x = readNumber(cur)
   if (cur.status === PARSE_OK && !(Number.isInteger(x) && x >= min && x <= MAX_ID)) cur.status = PARSE_BAD_INTEGER

@@ -133,7 +133,9 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
         t = row.t; id = row.id
       }
       const nn = NODE_COUNTS[t]
-      const g = room(grown, t)
+      // room() only for a new type or a full buffer: kept out of line, once in a while.
+      let g = byType[t]
+      if (g === undefined || g.count === g.ids.length) g = room(grown, t)
       const base = g.count * nn
       const nodeIds = g.nodeIds
       // Fast path for the usual "<separator>digits" fields: parsed here without a call per
@@ -414,21 +416,14 @@ function typeLookup(user: ReadonlyMap<string, ElementTypeName>): TypeLookup {
 
 /**
  * Index into TYPE_NAMES of the type token text[s, e) (case-insensitive, optional quotes), or -1:
- * our names first (module constants, the common case), then the user's.
+ * our names first (module constants, the common case, in a loop of its own so that it is
+ * inlined into the row loop), then the user's.
  */
 function matchType(text: string, s: number, e: number, lookup: TypeLookup): number {
   if (e - s >= 2 && text.charCodeAt(s) === 34 && text.charCodeAt(e - 1) === 34) { s++; e-- }
-  const t = matchName(text, s, e, TYPE_NAMES)
-  if (t >= 0 || lookup.names.length === 0) return t
-  const u = matchName(text, s, e, lookup.names)
-  return u < 0 ? -1 : lookup.index[u]
-}
-
-/** Index of the name (lower-case) equal to text[s, e) in any letter case, or -1. */
-function matchName(text: string, s: number, e: number, names: readonly string[]): number {
   const n = e - s
-  outer: for (let t = 0; t < names.length; t++) {
-    const name = names[t]
+  outer: for (let t = 0; t < TYPE_NAMES.length; t++) {
+    const name = TYPE_NAMES[t]
     if (name.length !== n) continue
     for (let i = 0; i < n; i++) {
       let c = text.charCodeAt(s + i)
@@ -437,5 +432,12 @@ function matchName(text: string, s: number, e: number, names: readonly string[])
     }
     return t
   }
-  return -1
+  return lookup.names.length === 0 ? -1 : matchUserType(text, s, e, lookup)
+}
+
+/** The type a model.json "types" name in text[s, e) maps to, or -1. */
+function matchUserType(text: string, s: number, e: number, lookup: TypeLookup): number {
+  const token = text.slice(s, e).toLowerCase()
+  const u = lookup.names.indexOf(token)
+  return u < 0 ? -1 : lookup.index[u]
 }
