@@ -83,7 +83,18 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
   const { cur, dialect, header } = openTable(file, text, spec.settings, 'elements', 'elements')
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
   const cols = matchElementColumns(file, header, spec.columns)
-  const lookup = typeLookup(spec.types)
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: cols.hasPart }
+  readElementRows(cur, cols, header, typeLookup(spec.types), spec, grown)
+  if (grown.order.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', { file, line: header.line })
+  const used = Array.from(cols.slotOf, (s) => s !== SLOT_IGNORED)
+  return { blocks: finishBlocks(grown, spec.nodeOrder), info: { dialect, ignored: unusedColumns(header, used), unit: null, labels: [...cols.labels] } }
+}
+
+/**
+ * The rows of the element file into `grown`, one block per type. Only the row loop, apart from
+ * the table's set-up, so that code the loop never reaches cannot discard its optimised form.
+ */
+function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks): void {
   const slotOf = cols.slotOf
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
   const next = nextRecord, sep = takeSeparator, id_ = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
@@ -92,10 +103,7 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
   const hasPart = cols.hasPart
   const maxNodes = cols.nodeColumns < 0 ? MAX_NODES : cols.nodeColumns
   const firstNode = cols.firstNode
-  const textLen = text.length
-  // Blocks by type index, in order of first appearance (a record passed on, not captured by a
-  // closure: a captured variable lives in a heap context, a load more per row).
-  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart }
+  const text = cur.text, textLen = text.length
   const byType = grown.byType
   // Node fields of the row being read by the general reader (0 = empty).
   const rowNodes = new Int32Array(Math.max(maxNodes, MAX_NODES))
@@ -206,9 +214,6 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
     g.count++
     finish(cur)
   }
-  if (grown.order.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', { file, line: header.line })
-  const used = Array.from(slotOf, (s) => s !== SLOT_IGNORED)
-  return { blocks: finishBlocks(grown, spec.nodeOrder), info: { dialect, ignored: unusedColumns(header, used), unit: null, labels: [...cols.labels] } }
 }
 
 /** The element blocks being read: per type index the growing arrays, the order of first appearance. */
