@@ -149,6 +149,8 @@ export function readBundleLayout(file: string, o: Obj): BundleLayout {
       if (name.trim() === '') bad(key, 'an element type name must not be empty')
       const ours = typeof t === 'string' ? t.trim().toLowerCase() : ''
       if (!isElementTypeName(ours)) bad(key, `${JSON.stringify(t)} is not a type this tool reads; map "${name}" to one of ${ELEMENT_TYPE_NAMES.join(', ')}`)
+      const lower = name.trim().toLowerCase()
+      if (isElementTypeName(lower) && lower !== ours) bad(key, `"${name}" is this tool's own name of ${lower}; it cannot mean ${ours}: rename the type in the file`)
       types.set(name.trim().toLowerCase(), ours as ElementTypeName)
     }
   }

@@ -124,12 +124,10 @@ export function nextRecord(cur: CsvCursor): boolean {
  * then on the next field, which counts as a separator when blanks precede it.
  */
 export function takeSeparator(cur: CsvCursor): boolean {
-  const p = cur.pos
-  if (!cur.runs) {
-    if (p < cur.text.length && cur.text.charCodeAt(p) === cur.sep) { cur.pos = p + 1; return true }
-    return false
-  }
-  return takeBlankRun(cur)
+  // Past the end charCodeAt gives NaN, which equals no separator. Kept this small: it runs
+  // once per field and must stay inlined into the table readers.
+  if (cur.text.charCodeAt(cur.pos) === cur.sep && !cur.runs) { cur.pos++; return true }
+  return cur.runs && takeBlankRun(cur)
 }
 
 function takeBlankRun(cur: CsvCursor): boolean {
@@ -355,6 +353,14 @@ function readInteger(cur: CsvCursor, min: number): number {
     cur.status = v >= min && v <= MAX_ID ? PARSE_OK : PARSE_BAD_INTEGER
     return v
   }
+  return readIntegerAsNumber(cur, start, min)
+}
+
+/**
+ * An integer field that is not plain digits: read as a number, accepted when its value is an
+ * integer in range. Apart from readInteger so that the common path stays small enough to inline.
+ */
+function readIntegerAsNumber(cur: CsvCursor, start: number, min: number): number {
   cur.pos = start
   const x = readNumber(cur)
   if (cur.status === PARSE_OK && !(Number.isInteger(x) && x >= min && x <= MAX_ID)) cur.status = PARSE_BAD_INTEGER

@@ -162,18 +162,28 @@ export function readNumericTable(file: string, text: string, spec: NumericTableS
   const mismatch = widthMismatch(header, spec.role)
   if (mismatch) throw new InputError('header', `${header.raw.join(', ')}: ${mismatch}`, { file, line: header.line })
   const nf = header.width
-  // Per column: the field it holds (0 = id, k = value k), or -1 for a column left out.
-  const slotOf = new Int32Array(nf).fill(-1)
-  columnOf.forEach((c, k) => { slotOf[c] = k })
-  const labels = spec.fields.map((f, k) => columnLabel(header, columnOf[k], f))
-  const names = Array.from({ length: nf }, (_, c) => (slotOf[c] >= 0 ? labels[slotOf[c]] : columnLabel(header, c)))
+  const { slotOf, labels, names } = columnSlots(header, spec.fields, columnOf)
   const unit = unitOfColumns(file, header, columnOf.subarray(1), spec.quantity)
+  const nv = spec.fields.length - 1
+  const { rows, ids, values, lines } = readNumericRows(cur, slotOf, nf, nv, names)
+  if (rows === 0) throw new InputError('empty-file', 'the file has a header but no rows', { file, line: header.line })
+  const used = new Uint8Array(nf)
+  for (const c of columnOf) used[c] = 1
+  const info: TableInfo = { dialect, ignored: unusedColumns(header, used), unit, labels }
+  return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows), info }
+}
+
+/**
+ * The rows of a numeric table: per row the id (slot 0) and the values (slots 1..nv) of the
+ * columns `slotOf` maps, columns of slot -1 skipped. Only the hot loop, apart from the table's
+ * set-up, so that code the loop never reaches cannot discard its optimised form.
+ */
+function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: number, names: readonly string[]): { rows: number; ids: Int32Array; values: Float64Array; lines: Int32Array } {
   // The field readers once into locals: under a CommonJS transform (tsx) every use of an imported
   // name is a getter call that the optimiser does not inline, once per field otherwise.
   const next = nextRecord, sep = takeSeparator, num = readNumber, id = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
   const OK = PARSE_OK
-  const nv = spec.fields.length - 1
-  let cap = Math.max(16, estimateRecordCount(text))
+  let cap = Math.max(16, estimateRecordCount(cur.text))
   let ids: Int32Array = new Int32Array(cap)
   let values: Float64Array = new Float64Array(cap * nv)
   let lines: Int32Array = new Int32Array(cap)
@@ -207,11 +217,20 @@ export function readNumericTable(file: string, text: string, spec: NumericTableS
     rows++
     finish(cur)
   }
-  if (rows === 0) throw new InputError('empty-file', 'the file has a header but no rows', { file, line: header.line })
-  const used = new Uint8Array(nf)
-  for (const c of columnOf) used[c] = 1
-  const info: TableInfo = { dialect, ignored: unusedColumns(header, used), unit, labels }
-  return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows), info }
+  return { rows, ids, values, lines }
+}
+
+/**
+ * Per column the field it holds (0 = id, k = value k) or -1 for a column left out, and the
+ * message names of fields and columns. Apart from the reader so that no closure there captures
+ * what its loop reads (a captured variable lives in a heap context: a load more per field).
+ */
+function columnSlots(header: CsvHeader, fields: readonly string[], columnOf: Int32Array): { slotOf: Int32Array; labels: string[]; names: string[] } {
+  const slotOf = new Int32Array(header.width).fill(-1)
+  columnOf.forEach((c, k) => { slotOf[c] = k })
+  const labels = fields.map((f, k) => columnLabel(header, columnOf[k], f))
+  const names = Array.from({ length: header.width }, (_, c) => (slotOf[c] >= 0 ? labels[slotOf[c]] : columnLabel(header, c)))
+  return { slotOf, labels, names }
 }
 
 /**

@@ -22,7 +22,7 @@ import type { CsvHeader } from './columnMap.ts'
 import { PARSE_EMPTY, PARSE_OK, atLineEnd, estimateRecordCount, finishLine, nextRecord, readCount, readId, skipField, takeSeparator, tokenText } from './csvCursor.ts'
 import type { CsvCursor } from './csvCursor.ts'
 import type { DialectSettings } from './csvDialect.ts'
-import { fail, failField, fitInt, growInt, lineOf, openTable, separatorWords } from './csvTable.ts'
+import { countFieldsOfLine, fail, failField, fitInt, growInt, lineOf, openTable, separatorWords } from './csvTable.ts'
 import type { TableInfo } from './csvTable.ts'
 
 export interface RawElementBlock {
@@ -83,37 +83,67 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
   const { cur, dialect, header } = openTable(file, text, spec.settings, 'elements', 'elements')
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
   const cols = matchElementColumns(file, header, spec.columns)
-  const lookup = typeLookup(spec.types)
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: cols.hasPart }
+  readElementRows(cur, cols, header, typeLookup(spec.types), spec, grown)
+  if (grown.order.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', { file, line: header.line })
+  const used = Array.from(cols.slotOf, (s) => s !== SLOT_IGNORED)
+  return { blocks: finishBlocks(grown, spec.nodeOrder), info: { dialect, ignored: unusedColumns(header, used), unit: null, labels: [...cols.labels] } }
+}
+
+/**
+ * The rows of the element file into `grown`, one block per type. Only the row loop, apart from
+ * the table's set-up, so that code the loop never reaches cannot discard its optimised form.
+ */
+function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks): void {
   const slotOf = cols.slotOf
-  const label = (j: number, k = -1) => (j < cols.labels.length ? cols.labels[j] : `node ${k + 1}`)
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
   const next = nextRecord, sep = takeSeparator, id_ = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
-  const OK = PARSE_OK
+  const OK = PARSE_OK, EMPTY = PARSE_EMPTY
   const SEP = cur.sep
   const hasPart = cols.hasPart
   const maxNodes = cols.nodeColumns < 0 ? MAX_NODES : cols.nodeColumns
   const firstNode = cols.firstNode
-  const textLen = text.length
-  const byType: (Growing | undefined)[] = []
-  const order: number[] = []
+  const text = cur.text, textLen = text.length
+  const byType = grown.byType
   // Node fields of the row being read by the general reader (0 = empty).
   const rowNodes = new Int32Array(Math.max(maxNodes, MAX_NODES))
-  // The first type seen gets room for every line; others start small and double as needed.
-  let estimate = Math.max(16, estimateRecordCount(text))
   // The row being read: id, type, part and which of them the row had (one record, reused).
   const row: RowFields = { id: 0, t: -1, part: 0, gotId: false, gotPart: false }
+  // Our own layout id,type[,part],n1,... is read field by field right here, as before model.json
+  // could map columns: a call per field through readOtherField costs a fifth more per row.
+  const ours = slotOf[0] === SLOT_ID && slotOf[1] === SLOT_TYPE && firstNode === (hasPart ? 3 : 2) && (!hasPart || slotOf[2] === SLOT_PART)
+  const count_ = readCount
   while (next(cur)) {
-    row.id = 0; row.t = -1; row.part = 0; row.gotId = false; row.gotPart = false
     let k = 0
     if (cols.plain) {
-      // id, type and part (and left-out columns) before the nodes, in any order.
-      for (let j = 0; j < firstNode; j++) {
-        if (j > 0 && !sep(cur)) fail(cur, 'column-count', `the row ends before column "${label(j)}"; every element row has ${describeColumns(cols, header)}`, label(j), row.id || undefined)
-        readOtherField(cur, slotOf[j], label(j), row, lookup, spec)
+      let id = 0, t = -1
+      if (ours) {
+        id = id_(cur)
+        if (cur.status !== OK) failField(cur, cols.labels[0], 'id')
+        if (!sep(cur)) fail(cur, 'column-count', `expected at least ${describeColumns(cols, header)}, found ${countFieldsOfLine(cur)} field`, undefined, id)
+        skip(cur)
+        if (cur.status !== OK) failField(cur, cols.labels[1], 'id', id)
+        t = matchType(text, cur.tokStart, cur.tokEnd, lookup)
+        if (t < 0) failType(cur, cols.labels[1], spec, id)
+        if (hasPart) {
+          if (!sep(cur)) fail(cur, 'column-count', 'the row ends before the part column', cols.labels[2], id)
+          row.part = count_(cur)
+          if (cur.status !== OK) failField(cur, cols.labels[2], 'part', id)
+        }
+        row.id = id; row.t = t
+      } else {
+        // id, type and part (and left-out columns) before the nodes, in any order.
+        row.id = 0; row.t = -1
+        for (let j = 0; j < firstNode; j++) {
+          if (j > 0 && !sep(cur)) fail(cur, 'column-count', `the row ends before column "${columnName(cols, j)}"; every element row has ${describeColumns(cols, header)}`, columnName(cols, j), row.id || undefined)
+          readOtherField(cur, slotOf[j], j, cols.labels, row, lookup, spec)
+        }
+        t = row.t; id = row.id
       }
-      const t = row.t, id = row.id
       const nn = NODE_COUNTS[t]
-      const g = room(t)
+      // room() only for a new type or a full buffer: kept out of line, once in a while.
+      let g = byType[t]
+      if (g === undefined || g.count === g.ids.length) g = room(grown, t)
       const base = g.count * nn
       const nodeIds = g.nodeIds
       // Fast path for the usual "<separator>digits" fields: parsed here without a call per
@@ -140,7 +170,7 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
           failNodeCount(cur, ELEMENT_TYPE_NAMES[t], nn, firstNode, id)
         }
         const nid = id_(cur)
-        if (cur.status !== OK) failField(cur, label(firstNode + k, k), 'id', id)
+        if (cur.status !== OK) failField(cur, columnName(cols, firstNode + k, k), 'id', id)
         nodeIds[base + k] = nid
         k++
         fields++
@@ -150,6 +180,7 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
       if (fields > maxNodes) fail(cur, 'node-count', `the row has more fields than the ${maxNodes} node columns of the header; ${ELEMENT_TYPE_NAMES[t]} has ${nn} nodes: list as many node columns in model.json "columns"`, undefined, id)
     } else {
       // Any other layout: field by field, nodes gathered first (the type may come after them).
+      row.id = 0; row.t = -1; row.part = 0; row.gotId = false; row.gotPart = false
       rowNodes.fill(0)
       let nodeFields = 0
       for (let j = 0; ; j++) {
@@ -158,22 +189,22 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
         const s = slotOf[j]
         if (s >= 0) {
           const nid = id_(cur)
-          if (cur.status === PARSE_EMPTY) continue
-          if (cur.status !== OK) failField(cur, label(j), 'id', row.id || undefined)
+          if (cur.status === EMPTY) continue
+          if (cur.status !== OK) failField(cur, columnName(cols, j), 'id', row.id || undefined)
           rowNodes[s] = nid
           nodeFields++
-        } else readOtherField(cur, s, label(j), row, lookup, spec)
+        } else readOtherField(cur, s, j, cols.labels, row, lookup, spec)
       }
       if (!lineEnd(cur)) fail(cur, 'not-a-number', `unexpected text "${tokenText(cur)}"; fields are separated by ${separatorWords(cur)}`, undefined, row.id || undefined)
       const missing = !row.gotId ? SLOT_ID : row.t < 0 ? SLOT_TYPE : hasPart && !row.gotPart ? SLOT_PART : 0
       if (missing) {
         const j = slotOf.indexOf(missing)
-        fail(cur, 'column-count', `the row ends before column "${label(j)}"; every element row has ${describeColumns(cols, header)}`, label(j), row.gotId ? row.id : undefined)
+        fail(cur, 'column-count', `the row ends before column "${columnName(cols, j)}"; every element row has ${describeColumns(cols, header)}`, columnName(cols, j), row.gotId ? row.id : undefined)
       }
       const nn = NODE_COUNTS[row.t]
       for (k = 0; k < nn && rowNodes[k] > 0; k++);
       if (k !== nn || nodeFields !== nn) failNodeCount(cur, ELEMENT_TYPE_NAMES[row.t], nn, -1, row.id, nodeFields)
-      const g = room(row.t)
+      const g = room(grown, row.t)
       g.nodeIds.set(rowNodes.subarray(0, nn), g.count * nn)
     }
     const g = byType[row.t]!
@@ -183,37 +214,52 @@ export function readElementTable(file: string, text: string, spec: ElementTableS
     g.count++
     finish(cur)
   }
-  if (order.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', { file, line: header.line })
-  const blocks = order.map((t) => {
-    const g = byType[t]!
+}
+
+/** The element blocks being read: per type index the growing arrays, the order of first appearance. */
+interface Blocks {
+  readonly byType: (Growing | undefined)[]
+  readonly order: number[]
+  /** Room for the next new type: the first gets room for every line, others start small and double. */
+  estimate: number
+  readonly hasPart: boolean
+}
+
+/** The growing arrays of type t, made or grown to hold one more element. */
+function room(b: Blocks, t: number): Growing {
+  let g = b.byType[t]
+  const nn = NODE_COUNTS[t]
+  if (!g) {
+    const n = b.estimate
+    g = { nodeIds: new Int32Array(n * nn), ids: new Int32Array(n), part: new Int32Array(b.hasPart ? n : 0), lines: new Int32Array(n), count: 0 }
+    b.byType[t] = g
+    b.order.push(t)
+    b.estimate = 1024
+  }
+  if (g.count === g.ids.length) {
+    const cap = 2 * g.count
+    g.ids = growInt(g.ids, cap); g.lines = growInt(g.lines, cap); g.nodeIds = growInt(g.nodeIds, cap * nn)
+    if (b.hasPart) g.part = growInt(g.part, cap)
+  }
+  return g
+}
+
+/** The raw blocks, trimmed to their counts, nodes in our local order. */
+function finishBlocks(b: Blocks, nodeOrder: ReadonlyMap<ElementTypeName, Int32Array>): RawElementBlock[] {
+  return b.order.map((t) => {
+    const g = b.byType[t]!
     const type = TYPE_NAMES[t]
     const nn = NODE_COUNTS[t]
     const nodeIds = fitInt(g.nodeIds, g.count * nn)
-    const perm = spec.nodeOrder.get(type)
+    const perm = nodeOrder.get(type)
     if (perm) permuteNodes(nodeIds, perm)
-    return { type, nodeIds, ids: fitInt(g.ids, g.count), part: hasPart ? fitInt(g.part, g.count) : null, lines: fitInt(g.lines, g.count) }
+    return { type, nodeIds, ids: fitInt(g.ids, g.count), part: b.hasPart ? fitInt(g.part, g.count) : null, lines: fitInt(g.lines, g.count) }
   })
-  const used = Array.from(slotOf, (s) => s !== SLOT_IGNORED)
-  const labels = [...cols.labels]
-  return { blocks, info: { dialect, ignored: unusedColumns(header, used), unit: null, labels } }
+}
 
-  /** The growing arrays of type t, made or grown to hold one more element. */
-  function room(t: number): Growing {
-    let g = byType[t]
-    const nn = NODE_COUNTS[t]
-    if (!g) {
-      g = { nodeIds: new Int32Array(estimate * nn), ids: new Int32Array(estimate), part: new Int32Array(hasPart ? estimate : 0), lines: new Int32Array(estimate), count: 0 }
-      byType[t] = g
-      order.push(t)
-      estimate = 1024
-    }
-    if (g.count === g.ids.length) {
-      const cap = 2 * g.count
-      g.ids = growInt(g.ids, cap); g.lines = growInt(g.lines, cap); g.nodeIds = growInt(g.nodeIds, cap * nn)
-      if (hasPart) g.part = growInt(g.part, cap)
-    }
-    return g
-  }
+/** How column j is called in messages; node columns past the header are "node k+1". */
+function columnName(cols: ElementColumns, j: number, k = -1): string {
+  return j < cols.labels.length ? cols.labels[j] : `node ${k + 1}`
 }
 
 /** The fields of an element row other than its nodes. */
@@ -226,25 +272,31 @@ interface RowFields {
   gotPart: boolean
 }
 
-/** Reads one field that is not a node (id, type, part, or a column left out) into `row`. */
-function readOtherField(cur: CsvCursor, slot: number, column: string, row: RowFields, lookup: TypeLookup, spec: ElementTableSpec): void {
-  const id = row.id || undefined
+// The field readers as module constants: under a CommonJS transform (tsx) every use of an
+// imported name is a getter call; read once here, a use is a plain load.
+const readIdField = readId, readCountField = readCount, skipAnyField = skipField, OK_STATUS = PARSE_OK
+
+/**
+ * Reads one field that is not a node (id, type, part, or a column left out) into `row`.
+ * `labels[j]` names the column in messages (looked up only on an error).
+ */
+function readOtherField(cur: CsvCursor, slot: number, j: number, labels: readonly string[], row: RowFields, lookup: TypeLookup, spec: ElementTableSpec): void {
   if (slot === SLOT_ID) {
-    row.id = readId(cur)
+    row.id = readIdField(cur)
     row.gotId = true
-    if (cur.status !== PARSE_OK) failField(cur, column, 'id')
+    if (cur.status !== OK_STATUS) failField(cur, labels[j], 'id')
   } else if (slot === SLOT_TYPE) {
-    skipField(cur)
-    if (cur.status !== PARSE_OK) failField(cur, column, 'id', id)
+    skipAnyField(cur)
+    if (cur.status !== OK_STATUS) failField(cur, labels[j], 'id', row.id || undefined)
     row.t = matchType(cur.text, cur.tokStart, cur.tokEnd, lookup)
-    if (row.t < 0) failType(cur, column, spec, row.id)
+    if (row.t < 0) failType(cur, labels[j], spec, row.id)
   } else if (slot === SLOT_PART) {
-    row.part = readCount(cur)
+    row.part = readCountField(cur)
     row.gotPart = true
-    if (cur.status !== PARSE_OK) failField(cur, column, 'part', id)
+    if (cur.status !== OK_STATUS) failField(cur, labels[j], 'part', row.id || undefined)
   } else {
-    skipField(cur)
-    if (cur.status !== PARSE_OK) failField(cur, column, 'number', id)
+    skipAnyField(cur)
+    if (cur.status !== OK_STATUS) failField(cur, labels[j], 'number', row.id || undefined)
   }
 }
 
@@ -355,7 +407,7 @@ const NODE_COUNTS: readonly number[] = TYPE_NAMES.map((t) => elementType(t).node
 /** The most nodes of any type. */
 const MAX_NODES = Math.max(...NODE_COUNTS)
 
-/** Type names a file may use, lower-case, with the index of our type: model.json's first, then ours. */
+/** The user's type names (model.json "types"), lower-case, with the index of our type. */
 interface TypeLookup {
   readonly names: readonly string[]
   readonly index: readonly number[]
@@ -364,24 +416,33 @@ interface TypeLookup {
 function typeLookup(user: ReadonlyMap<string, ElementTypeName>): TypeLookup {
   const names: string[] = [], index: number[] = []
   for (const [n, t] of user) { names.push(n); index.push(TYPE_NAMES.indexOf(t)) }
-  TYPE_NAMES.forEach((n, t) => { names.push(n); index.push(t) })
   return { names, index }
 }
 
-/** Index into TYPE_NAMES of the type token text[s, e) (case-insensitive, optional quotes), or -1. */
+/**
+ * Index into TYPE_NAMES of the type token text[s, e) (case-insensitive, optional quotes), or -1:
+ * our names first (module constants, the common case, in a loop of its own so that it is
+ * inlined into the row loop), then the user's.
+ */
 function matchType(text: string, s: number, e: number, lookup: TypeLookup): number {
   if (e - s >= 2 && text.charCodeAt(s) === 34 && text.charCodeAt(e - 1) === 34) { s++; e-- }
   const n = e - s
-  const names = lookup.names
-  outer: for (let t = 0; t < names.length; t++) {
-    const name = names[t]
+  outer: for (let t = 0; t < TYPE_NAMES.length; t++) {
+    const name = TYPE_NAMES[t]
     if (name.length !== n) continue
     for (let i = 0; i < n; i++) {
       let c = text.charCodeAt(s + i)
       if (c >= 65 && c <= 90) c += 32
       if (c !== name.charCodeAt(i)) continue outer
     }
-    return lookup.index[t]
+    return t
   }
-  return -1
+  return lookup.names.length === 0 ? -1 : matchUserType(text, s, e, lookup)
+}
+
+/** The type a model.json "types" name in text[s, e) maps to, or -1. */
+function matchUserType(text: string, s: number, e: number, lookup: TypeLookup): number {
+  const token = text.slice(s, e).toLowerCase()
+  const u = lookup.names.indexOf(token)
+  return u < 0 ? -1 : lookup.index[u]
 }
