@@ -52,6 +52,8 @@ export const LAYOUT_KEYS = ['files', 'csv', 'columns', 'types', 'nodeOrder'] as 
 
 export const NODE_FIELDS = ['id', 'x', 'y', 'z'] as const
 export const STRESS_FIELDS = ['id', 'sxx', 'syy', 'szz', 'sxy', 'syz', 'sxz'] as const
+/** A stress file with an element column: one row per element and node (element-nodal stress). */
+export const ELEMENT_NODAL_STRESS_FIELDS = ['element', 'node', 'sxx', 'syy', 'szz', 'sxy', 'syz', 'sxz'] as const
 export const DISPLACEMENT_FIELDS = ['id', 'ux', 'uy', 'uz'] as const
 export const ELEMENT_FIELDS = ['id', 'type', 'part', 'nodes'] as const
 
@@ -68,7 +70,8 @@ export function isRole(s: string): boolean {
 export function fieldsOfRole(role: string): readonly string[] {
   if (role === 'nodes') return NODE_FIELDS
   if (role === 'elements') return ELEMENT_FIELDS
-  return role.startsWith('stress') ? STRESS_FIELDS : DISPLACEMENT_FIELDS
+  // A stress file is nodal (id) or element-nodal (element, node): either set of keys may be mapped.
+  return role.startsWith('stress') ? [...STRESS_FIELDS, 'element', 'node'] : DISPLACEMENT_FIELDS
 }
 
 /** The dialect settings of one role's file: the top-level "csv" keys, overridden by the role's. */

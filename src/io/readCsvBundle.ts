@@ -14,7 +14,7 @@ import type { BlockInput } from '../model/createMesh.ts'
 import { elementType } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { LengthUnit, StressUnit } from '../model/units.ts'
-import { BASE_ROLES, DISPLACEMENT_FIELDS, EMPTY_LAYOUT, NODE_FIELDS, STRESS_FIELDS, dialectSettingsFor, readBundleLayout } from './bundleLayout.ts'
+import { BASE_ROLES, DISPLACEMENT_FIELDS, ELEMENT_NODAL_STRESS_FIELDS, EMPTY_LAYOUT, NODE_FIELDS, STRESS_FIELDS, dialectSettingsFor, readBundleLayout } from './bundleLayout.ts'
 import type { BundleLayout } from './bundleLayout.ts'
 import { readNumericTable } from './csvTable.ts'
 import type { NumericTable, TableInfo } from './csvTable.ts'
@@ -26,6 +26,9 @@ import type { FileIntake, IntakeReport, ReadModel, UnitSource } from './intakeRe
 import { parseJsonText, readModelMeta } from './modelJson.ts'
 import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 import { readElementTable } from './readElementTable.ts'
+import { elementNodalField } from './elementNodalRows.ts'
+import { partAveragedStress } from '../model/stressField.ts'
+import type { StressField } from '../model/stressField.ts'
 import type { RawElementBlock } from './readElementTable.ts'
 import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 
@@ -164,20 +167,33 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   }
   if (invertedTotal) warnings.push(`${elementsFile.name}: ${reorientedWarning(invertedIds, invertedTotal)}`)
 
-  // Stress: one row per node used by an element.
-  const stressTable = readNumericTable(stressFile.name, stressFile.text, spec('stress', STRESS_FIELDS, 'stress'))
-  // Rows in the order of the nodes file (the usual layout) are the stress array as read;
-  // otherwise each row goes to its node's slot.
-  const inNodeOrder = sameIds(stressTable.ids, nodeIds)
-  const stress = inNodeOrder ? stressTable.values : new Float64Array(6 * N)
-  const hasStress = inNodeOrder ? null : scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
-  const noStress = hasStress ? firstUsedWithout(used, hasStress) : -1
-  if (noStress >= 0) {
-    const el = findElementUsing(raw, blocks, noStress)
-    throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses; every node of an element needs one`, { file: stressFile.name, elementId: el.id })
+  // Stress: one row per node used by an element, or (with an element column) one row per
+  // element and node, kept as read and averaged within each part for display.
+  const stressTable = readNumericTable(stressFile.name, stressFile.text, { ...spec('stress', STRESS_FIELDS, 'stress'), elementNodal: ELEMENT_NODAL_STRESS_FIELDS })
+  let stress: Float64Array
+  let stressField: StressField | null = null
+  if (stressTable.ids2) {
+    // --- element-nodal ---
+    stressField = elementNodalField(stressTable, {
+      blocks: blocks.map((b, k) => ({ type: b.type, conn: b.conn, ids: raw[k].ids })), nodeIds, nodeIndex,
+      stressFile: stressFile.name, elementsFile: elementsFile.name, nodesFile: nodesFile.name,
+      elementColumn: stressTable.info.labels[0], nodeColumn: stressTable.info.labels[1],
+    })
+    stress = partAveragedStress(createMesh(coords, blocks, nodeIds), stressField)
+  } else {
+    // Rows in the order of the nodes file (the usual layout) are the stress array as read;
+    // otherwise each row goes to its node's slot.
+    const inNodeOrder = sameIds(stressTable.ids, nodeIds)
+    stress = inNodeOrder ? stressTable.values : new Float64Array(6 * N)
+    const hasStress = inNodeOrder ? null : scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
+    const noStress = hasStress ? firstUsedWithout(used, hasStress) : -1
+    if (noStress >= 0) {
+      const el = findElementUsing(raw, blocks, noStress)
+      throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses; every node of an element needs one`, { file: stressFile.name, elementId: el.id })
+    }
+    const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
+    if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
   }
-  const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
-  if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
 
   let displacement: Float64Array | null = null
   let dispTable: NumericTable | null = null
@@ -216,6 +232,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
 
   const mesh = createMesh(coords, blocks, nodeIds)
   return {
+    ...(stressField ? { stressField } : {}),
     name: meta?.name ?? options.name ?? 'model',
     description: meta?.description ?? '',
     units,

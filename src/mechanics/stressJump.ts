@@ -1,0 +1,119 @@
+/**
+ * The stress jump at nodes: how much the elements meeting at a node disagree about its stress,
+ * a map of where the mesh is too coarse for the field it carries. Element-nodal (unaveraged)
+ * stress only; for nodal stress every element reads the node's one value and the jump is zero.
+ *
+ * Definition (ours): within one part p, let σ̄ₚ(n) be the mean of the element-node values of the
+ * elements of p at node n. The jump of p at n is
+ *
+ *     Jₚ(n) = max over elements e of p at n of  vM(σₑ(n) − σ̄ₚ(n))  /  max(vM(σ̄ₚ(n)), 0.01·σ_ref)
+ *
+ * with vM the von Mises value of a stress tensor (of the deviation here, so a jump in pressure
+ * alone does not count: a difference in hydrostatic stress is not what a coarse mesh shows first
+ * in a von Mises plot), and σ_ref the model's reference stress (the 95th percentile of the nodal
+ * von Mises, as for the load-entry patches). The floor of 1 % of σ_ref keeps nodes where the
+ * stress is near zero (a neutral axis) from reading as large jumps over round-off. J(n) is the
+ * largest Jₚ(n) over the parts at n: the jump across a joint between parts is physics (another
+ * material, a contact), not mesh error, and is left out by averaging within each part only.
+ * Dimensionless: 0.1 means the elements at the node disagree by a tenth of its stress.
+ *
+ * Layout: `out` Float32Array(N) (single precision is plenty for a colour), 0 at nodes no element
+ * uses. Cost: three passes over the element-nodes, parts one after the other (elements ordered by
+ * part once, by counting); work arrays of 6N + 3N numbers, no allocation in the loops.
+ */
+import type { Mesh } from '../model/model.ts'
+import type { StressField } from '../model/stressField.ts'
+
+/** Share of the reference stress below which a node's own stress no longer scales its jump. */
+export const STRESS_JUMP_FLOOR = 0.01
+
+export function allocateStressJump(nodeCount: number): Float32Array {
+  return new Float32Array(nodeCount)
+}
+
+/** von Mises of the 6-vector at a[o..o+5] (xx, yy, zz, xy, yz, xz). */
+function vm(a: Float64Array, o: number): number {
+  const dxy = a[o] - a[o + 1], dyz = a[o + 1] - a[o + 2], dzx = a[o + 2] - a[o]
+  return Math.sqrt(0.5 * (dxy * dxy + dyz * dyz + dzx * dzx) + 3 * (a[o + 3] * a[o + 3] + a[o + 4] * a[o + 4] + a[o + 5] * a[o + 5]))
+}
+
+/** The stress jump J(n) of `field` on `mesh` into `out` (see the file's opening comment). */
+export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressField, referenceStress: number): Float32Array {
+  const N = mesh.nodeCount
+  out.fill(0)
+  if (field.layout === 'nodal') return out // every element reads the node's one value
+  const floor = STRESS_JUMP_FLOOR * Math.max(0, referenceStress)
+  const v = field.values
+  const blocks = mesh.blocks
+
+  // Elements ordered by part (counting sort over the distinct part numbers).
+  const E = mesh.elementCount
+  const slotOfPart = new Map<number, number>()
+  const partSlot = new Int32Array(E)
+  for (const b of blocks) {
+    for (let e = 0; e < b.ids.length; e++) {
+      const p = b.part ? b.part[e] : 0
+      let s = slotOfPart.get(p)
+      if (s === undefined) { s = slotOfPart.size; slotOfPart.set(p, s) }
+      partSlot[b.offset + e] = s
+    }
+  }
+  const P = slotOfPart.size
+  const start = new Int32Array(P + 1)
+  for (let g = 0; g < E; g++) start[partSlot[g] + 1]++
+  for (let s = 0; s < P; s++) start[s + 1] += start[s]
+  const order = new Int32Array(E)
+  const fill = start.slice(0, P)
+  for (let g = 0; g < E; g++) order[fill[partSlot[g]]++] = g
+  const blockOf = new Int32Array(E)
+  blocks.forEach((b, k) => blockOf.fill(k, b.offset, b.offset + b.ids.length))
+
+  const sum = new Float64Array(6 * N)
+  const count = new Int32Array(N)
+  const worst = new Float64Array(N)
+  const touched = new Int32Array(N)
+  const d = new Float64Array(6)
+  for (let s = 0; s < P; s++) {
+    let T = 0
+    // Pass 1: the part's mean at each of its nodes.
+    for (let i = start[s]; i < start[s + 1]; i++) {
+      const g = order[i], k = blockOf[g], b = blocks[k]
+      const nn = b.conn.length / b.ids.length
+      const base = (g - b.offset) * nn, conn = b.conn, rows = field.rows[k]
+      for (let a = 0; a < nn; a++) {
+        const n = conn[base + a], r = 6 * rows[base + a], o = 6 * n
+        if (count[n] === 0) touched[T++] = n
+        count[n]++
+        sum[o] += v[r]; sum[o + 1] += v[r + 1]; sum[o + 2] += v[r + 2]
+        sum[o + 3] += v[r + 3]; sum[o + 4] += v[r + 4]; sum[o + 5] += v[r + 5]
+      }
+    }
+    for (let t = 0; t < T; t++) {
+      const n = touched[t], o = 6 * n, w = 1 / count[n]
+      sum[o] *= w; sum[o + 1] *= w; sum[o + 2] *= w; sum[o + 3] *= w; sum[o + 4] *= w; sum[o + 5] *= w
+    }
+    // Pass 2: the largest deviation of an element's value from the mean.
+    for (let i = start[s]; i < start[s + 1]; i++) {
+      const g = order[i], k = blockOf[g], b = blocks[k]
+      const nn = b.conn.length / b.ids.length
+      const base = (g - b.offset) * nn, conn = b.conn, rows = field.rows[k]
+      for (let a = 0; a < nn; a++) {
+        const n = conn[base + a], r = 6 * rows[base + a], o = 6 * n
+        for (let c = 0; c < 6; c++) d[c] = v[r + c] - sum[o + c]
+        const dev = vm(d, 0)
+        if (dev > worst[n]) worst[n] = dev
+      }
+    }
+    // Pass 3: scale, keep the largest over the parts, and clear the work arrays for the next part.
+    for (let t = 0; t < T; t++) {
+      const n = touched[t], o = 6 * n
+      const scale = Math.max(vm(sum, o), floor)
+      // A node whose stress and deviation are both zero (an unloaded part) has no jump.
+      const j = worst[n] > 0 ? (scale > 0 ? worst[n] / scale : Infinity) : 0
+      if (j > out[n]) out[n] = j
+      count[n] = 0; worst[n] = 0
+      sum[o] = 0; sum[o + 1] = 0; sum[o + 2] = 0; sum[o + 3] = 0; sum[o + 4] = 0; sum[o + 5] = 0
+    }
+  }
+  return out
+}
