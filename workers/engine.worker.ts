@@ -6,6 +6,7 @@
  */
 import * as Comlink from 'comlink'
 import { readModelFiles } from '../src/io/index.ts'
+import type { ReadModel } from '../src/io/intakeReport.ts'
 import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { analysisInputOf, displayStressOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
@@ -273,7 +274,7 @@ const api: EngineApi = {
       report(source.kind === 'files' ? 'Reading files' : 'Generating model', 0)
       await yieldTurn()
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
-      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data }))) : syntheticModel(source.spec)
+      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data })), source.units ? { units: source.units } : {}) : syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)
       // The element balance and the invariants need no faces: on a pool they run beside the
@@ -313,6 +314,7 @@ const api: EngineApi = {
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
         ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
         stressLayout: input.stress.layout,
+        unitsDeclared: (model as Partial<ReadModel>).intake?.unitsDeclared ?? true,
       }
       // Only now, with everything computed, does the new model replace the old one.
       current = {

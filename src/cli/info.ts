@@ -53,7 +53,7 @@ export function summarize(model: Model): ModelSummary {
 }
 
 const SOURCE_WORDS: Readonly<Record<UnitSource, string>> = {
-  'model.json': 'model.json', header: 'the headers', container: 'the container', default: 'NOT DECLARED, assumed',
+  'model.json': 'model.json', header: 'the headers', container: 'the container', default: 'NOT DECLARED, assumed', chosen: 'NOT DECLARED, chosen when opened',
 }
 
 /** "length mm (model.json), stress MPa (the headers)". */

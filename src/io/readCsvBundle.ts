@@ -43,6 +43,11 @@ export interface CsvBundleOptions {
   readonly name?: string
   /** Largest accepted file, in characters (default MAX_MODEL_BYTES). */
   readonly maxBytes?: number
+  /**
+   * Units the user chose when opening the files (the browser's intake), for those that neither
+   * model.json nor the headers declare; the model still carries the undeclared-units warning.
+   */
+  readonly units?: { readonly length?: LengthUnit; readonly stress?: StressUnit }
 }
 
 export const BUNDLE_FILES = ['nodes.csv', 'elements.csv', 'stress.csv', 'displacement.csv', 'model.json'] as const
@@ -213,8 +218,8 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   // Units: model.json, else the headers, else the defaults with a warning.
   const read: { file: string; info: TableInfo }[] = [{ file: nodesFile.name, info: nodes.info }]
   if (dispFile && dispTable) read.push({ file: dispFile.name, info: dispTable.info })
-  const length = resolveUnit('length', meta?.declaredUnits.length ?? null, read, meta?.units.length ?? 'm')
-  const stressUnit = resolveUnit('stress', meta?.declaredUnits.stress ?? null, [{ file: stressFile.name, info: stressTable.info }], meta?.units.stress ?? 'Pa')
+  const length = resolveUnit('length', meta?.declaredUnits.length ?? null, read, meta?.units.length ?? 'm', options.units?.length)
+  const stressUnit = resolveUnit('stress', meta?.declaredUnits.stress ?? null, [{ file: stressFile.name, info: stressTable.info }], meta?.units.stress ?? 'Pa', options.units?.stress)
   const units = { length: length.unit as LengthUnit, stress: stressUnit.unit as StressUnit }
   const unitSources = { length: length.source, stress: stressUnit.source }
 
@@ -250,7 +255,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
  * One unit from model.json (`declared`) or the headers of `tables`; two that disagree are an
  * InputError naming both.
  */
-function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables: readonly { file: string; info: TableInfo }[], fallback: string): { unit: string; source: UnitSource } {
+function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables: readonly { file: string; info: TableInfo }[], fallback: string, chosen?: string): { unit: string; source: UnitSource } {
   let fromHeader: { unit: string; file: string; line: number; column: string } | null = null
   for (const t of tables) {
     const u = t.info.unit
@@ -268,6 +273,7 @@ function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables:
     return { unit: declared, source: 'model.json' }
   }
   if (fromHeader) return { unit: fromHeader.unit, source: 'header' }
+  if (chosen) return { unit: chosen, source: 'chosen' }
   return { unit: fallback, source: 'default' }
 }
 
