@@ -37,7 +37,10 @@ export function IntakeStep() {
       <section className="intake-step" role="dialog" aria-modal="true" aria-labelledby="intake-title" data-testid="intake-step">
         <h2 id="intake-title">{step.unitsOnly ? 'Units of these files' : 'Match the columns of these files'}</h2>
         {step.unitsOnly ? null : (
-          <p className="why" data-testid="intake-why">The files do not read as they are: {preview.problem}</p>
+          <>
+            <p>Say what each file holds and which of its columns holds each field. Load reads the files so; Save as model.json writes the same choices for next time.</p>
+            <p className="why" data-testid="intake-why">Why this step: {preview.problem}</p>
+          </>
         )}
         {step.unitsOnly ? null : preview.files.map((f, i) => <FileMap key={f.name} file={f} index={i} mapping={mapping} setRole={setRole} setColumn={setColumn} />)}
         {askUnits ? (
