@@ -186,16 +186,9 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
     })
     stress = partAveragedStress(createMesh(coords, blocks, nodeIds), stressField)
   } else {
-    // Rows in the order of the nodes file (the usual layout) are the stress array as read;
-    // otherwise each row goes to its node's slot.
-    const inNodeOrder = sameIds(stressTable.ids, nodeIds)
-    stress = inNodeOrder ? stressTable.values : new Float64Array(6 * N)
-    const hasStress = inNodeOrder ? null : scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
-    const noStress = hasStress ? firstUsedWithout(used, hasStress) : -1
-    if (noStress >= 0) {
-      const el = findElementUsing(raw, blocks, noStress)
-      throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses; every node of an element needs one`, { file: stressFile.name, elementId: el.id })
-    }
+    const r = nodalRows(stressTable, 6, 'stress', { nodeIds, nodeIndex, used, raw, blocks, nodesFile: nodesFile.name, file: stressFile.name })
+    stress = r.values
+    const hasStress = r.has
     const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
     if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
   }
@@ -205,14 +198,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   if (dispFile) {
     const dt = readNumericTable(dispFile.name, dispFile.text, spec('displacement', DISPLACEMENT_FIELDS, 'length'))
     dispTable = dt
-    const dispInOrder = sameIds(dt.ids, nodeIds)
-    displacement = dispInOrder ? dt.values : new Float64Array(3 * N)
-    const hasDisp = dispInOrder ? null : scatterRows(dt, 3, displacement, nodeIndex, nodesFile.name, dispFile.name)
-    const noDisp = hasDisp ? firstUsedWithout(used, hasDisp) : -1
-    if (noDisp >= 0) {
-      const el = findElementUsing(raw, blocks, noDisp)
-      throw new InputError('missing-displacement', `no displacement row for node ${nodeIds[noDisp]}, which element ${el.id} uses; every node of an element needs one`, { file: dispFile.name, elementId: el.id })
-    }
+    displacement = nodalRows(dt, 3, 'displacement', { nodeIds, nodeIndex, used, raw, blocks, nodesFile: nodesFile.name, file: dispFile.name }).values
   }
 
   // Units: model.json, else the headers, else the defaults with a warning.
@@ -304,6 +290,25 @@ function checkElementIdsUnique(raw: readonly RawElementBlock[], file: string): v
     const [l1, l2] = [lines[ix.firstRow], lines[ix.secondRow]].sort((a, b) => a - b)
     throw new InputError('duplicate-id', `element id ${ix.id} appears twice (lines ${l1} and ${l2}); ids must be unique`, { file, line: l2, column: 'id', elementId: ix.id })
   }
+}
+
+/**
+ * The values of a nodal table (stress, displacement) in node order: the table's own array when its
+ * rows follow the nodes file (the usual layout), else each row moved to its node's slot (`has`
+ * marks the nodes with a row). A node an element uses without a row is an error.
+ */
+function nodalRows(t: NumericTable, width: number, kind: 'stress' | 'displacement', c: {
+  nodeIds: Int32Array; nodeIndex: IdIndex; used: Uint8Array; raw: readonly RawElementBlock[]; blocks: readonly BlockInput[]; nodesFile: string; file: string
+}): { values: Float64Array; has: Uint8Array | null } {
+  if (sameIds(t.ids, c.nodeIds)) return { values: t.values, has: null }
+  const values = new Float64Array(width * c.nodeIds.length)
+  const has = scatterRows(t, width, values, c.nodeIndex, c.nodesFile, c.file)
+  const missing = firstUsedWithout(c.used, has)
+  if (missing >= 0) {
+    const el = findElementUsing(c.raw, c.blocks, missing)
+    throw new InputError(kind === 'stress' ? 'missing-stress' : 'missing-displacement', `no ${kind} row for node ${c.nodeIds[missing]}, which element ${el.id} uses; every node of an element needs one`, { file: c.file, elementId: el.id })
+  }
+  return { values, has }
 }
 
 /** Replaces user node ids by node indices (in place) and marks used nodes. */

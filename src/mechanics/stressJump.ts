@@ -18,8 +18,9 @@
  * Dimensionless: 0.1 means the elements at the node disagree by a tenth of its stress.
  *
  * Layout: `out` Float32Array(N) (single precision is plenty for a colour), 0 at nodes no element
- * uses. Cost: three passes over the element-nodes, parts one after the other (elements ordered by
- * part once, by counting); work arrays of 6N + 3N numbers, no allocation in the loops.
+ * uses. Cost: the element-nodes ordered by part once (counting sort: a node and a row index
+ * each, 8 bytes an element-node), then two passes over them and one over the part's nodes;
+ * work arrays of 6N + 3N numbers, no allocation in the loops.
  */
 import type { Mesh } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
@@ -46,27 +47,35 @@ export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressFi
   const v = field.values
   const blocks = mesh.blocks
 
-  // Elements ordered by part (counting sort over the distinct part numbers).
-  const E = mesh.elementCount
+  // Element-nodes ordered by part (counting sort over the distinct part numbers): the node and
+  // the stress row of each, so the passes below run over one part's element-nodes in a row.
   const slotOfPart = new Map<number, number>()
-  const partSlot = new Int32Array(E)
-  for (const b of blocks) {
+  const slotOfBlockElement = blocks.map((b) => {
+    const slots = new Int32Array(b.ids.length)
     for (let e = 0; e < b.ids.length; e++) {
       const p = b.part ? b.part[e] : 0
       let s = slotOfPart.get(p)
       if (s === undefined) { s = slotOfPart.size; slotOfPart.set(p, s) }
-      partSlot[b.offset + e] = s
+      slots[e] = s
     }
-  }
+    return slots
+  })
   const P = slotOfPart.size
   const start = new Int32Array(P + 1)
-  for (let g = 0; g < E; g++) start[partSlot[g] + 1]++
+  blocks.forEach((b, k) => {
+    const nn = b.conn.length / Math.max(1, b.ids.length), slots = slotOfBlockElement[k]
+    for (let e = 0; e < b.ids.length; e++) start[slots[e] + 1] += nn
+  })
   for (let s = 0; s < P; s++) start[s + 1] += start[s]
-  const order = new Int32Array(E)
+  const nodeOf = new Int32Array(start[P]), rowOf = new Int32Array(start[P])
   const fill = start.slice(0, P)
-  for (let g = 0; g < E; g++) order[fill[partSlot[g]]++] = g
-  const blockOf = new Int32Array(E)
-  blocks.forEach((b, k) => blockOf.fill(k, b.offset, b.offset + b.ids.length))
+  blocks.forEach((b, k) => {
+    const nn = b.conn.length / Math.max(1, b.ids.length), slots = slotOfBlockElement[k], conn = b.conn, rows = field.rows[k]
+    for (let i = 0; i < conn.length; i++) {
+      const at = fill[slots[(i / nn) | 0]]++
+      nodeOf[at] = conn[i]; rowOf[at] = rows[i]
+    }
+  })
 
   const sum = new Float64Array(6 * N)
   const count = new Int32Array(N)
@@ -77,16 +86,11 @@ export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressFi
     let T = 0
     // Pass 1: the part's mean at each of its nodes.
     for (let i = start[s]; i < start[s + 1]; i++) {
-      const g = order[i], k = blockOf[g], b = blocks[k]
-      const nn = b.conn.length / b.ids.length
-      const base = (g - b.offset) * nn, conn = b.conn, rows = field.rows[k]
-      for (let a = 0; a < nn; a++) {
-        const n = conn[base + a], r = 6 * rows[base + a], o = 6 * n
-        if (count[n] === 0) touched[T++] = n
-        count[n]++
-        sum[o] += v[r]; sum[o + 1] += v[r + 1]; sum[o + 2] += v[r + 2]
-        sum[o + 3] += v[r + 3]; sum[o + 4] += v[r + 4]; sum[o + 5] += v[r + 5]
-      }
+      const n = nodeOf[i], r = 6 * rowOf[i], o = 6 * n
+      if (count[n] === 0) touched[T++] = n
+      count[n]++
+      sum[o] += v[r]; sum[o + 1] += v[r + 1]; sum[o + 2] += v[r + 2]
+      sum[o + 3] += v[r + 3]; sum[o + 4] += v[r + 4]; sum[o + 5] += v[r + 5]
     }
     for (let t = 0; t < T; t++) {
       const n = touched[t], o = 6 * n, w = 1 / count[n]
@@ -94,17 +98,12 @@ export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressFi
     }
     // Pass 2: the largest deviation of an element's value from the mean.
     for (let i = start[s]; i < start[s + 1]; i++) {
-      const g = order[i], k = blockOf[g], b = blocks[k]
-      const nn = b.conn.length / b.ids.length
-      const base = (g - b.offset) * nn, conn = b.conn, rows = field.rows[k]
-      for (let a = 0; a < nn; a++) {
-        const n = conn[base + a], r = 6 * rows[base + a], o = 6 * n
-        for (let c = 0; c < 6; c++) d[c] = v[r + c] - sum[o + c]
-        const dev = vm(d, 0)
-        if (dev > worst[n]) worst[n] = dev
-      }
+      const n = nodeOf[i], r = 6 * rowOf[i], o = 6 * n
+      for (let c = 0; c < 6; c++) d[c] = v[r + c] - sum[o + c]
+      const dev = vm(d, 0)
+      if (dev > worst[n]) worst[n] = dev
     }
-    // Pass 3: scale, keep the largest over the parts, and clear the work arrays for the next part.
+  // Pass 3: scale, keep the largest over the parts, and clear the work arrays for the next part.
     for (let t = 0; t < T; t++) {
       const n = touched[t], o = 6 * n
       const scale = Math.max(vm(sum, o), floor)
