@@ -70,8 +70,7 @@ export function isRole(s: string): boolean {
 export function fieldsOfRole(role: string): readonly string[] {
   if (role === 'nodes') return NODE_FIELDS
   if (role === 'elements') return ELEMENT_FIELDS
-  // A stress file is nodal (id) or element-nodal (element, node): either set of keys may be mapped.
-  return role.startsWith('stress') ? [...STRESS_FIELDS, 'element', 'node'] : DISPLACEMENT_FIELDS
+  return role.startsWith('stress') ? STRESS_FIELDS : DISPLACEMENT_FIELDS
 }
 
 /** The dialect settings of one role's file: the top-level "csv" keys, overridden by the role's. */
@@ -127,7 +126,8 @@ export function readBundleLayout(file: string, o: Obj): BundleLayout {
     for (const [role, m] of Object.entries(o.columns as Obj)) {
       if (!isRole(role)) bad(`columns.${role}`, `"${role}" is not a file of a bundle; use ${roleList}`)
       if (!isObj(m)) bad(`columns.${role}`, `columns.${role} must be an object like {"id": "Node"}`)
-      const fields = fieldsOfRole(role)
+      // A stress file is nodal (id) or element-nodal (element, node): either set of keys may be mapped.
+      const fields = role.startsWith('stress') ? [...fieldsOfRole(role), 'element', 'node'] : fieldsOfRole(role)
       const out: Record<string, ColumnRef | readonly ColumnRef[]> = {}
       for (const [field, ref] of Object.entries(m as Obj)) {
         const key = `columns.${role}.${field}`

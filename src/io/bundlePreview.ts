@@ -255,8 +255,11 @@ export function mappingProblems(preview: BundlePreview, m: IntakeMapping): strin
 export function fieldLabel(role: IntakeRole, field: string, cols: Readonly<Record<string, number>>): string {
   if (role === 'stress' && field === 'id') return (cols.element ?? -1) >= 0 ? 'node' : 'node id'
   if (role === 'elements' && field === 'nodes') return 'first node'
-  return field
+  return FIELD_SYMBOLS[field] ?? field
 }
+
+/** Stress components as an engineer writes them. */
+const FIELD_SYMBOLS: Readonly<Record<string, string>> = { sxx: 'σxx', syy: 'σyy', szz: 'σzz', sxy: 'τxy', syz: 'τyz', sxz: 'τxz' }
 
 /**
  * model.json for a complete mapping: the given model.json's keys kept, "files" and "columns"

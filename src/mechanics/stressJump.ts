@@ -70,10 +70,11 @@ export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressFi
   const nodeOf = new Int32Array(start[P]), rowOf = new Int32Array(start[P])
   const fill = start.slice(0, P)
   blocks.forEach((b, k) => {
-    const nn = b.conn.length / Math.max(1, b.ids.length), slots = slotOfBlockElement[k], conn = b.conn, rows = field.rows[k]
-    for (let i = 0; i < conn.length; i++) {
-      const at = fill[slots[(i / nn) | 0]]++
-      nodeOf[at] = conn[i]; rowOf[at] = rows[i]
+    const E = b.ids.length, nn = E > 0 ? b.conn.length / E : 0, slots = slotOfBlockElement[k], conn = b.conn, rows = field.rows[k]
+    for (let e = 0, i = 0; e < E; e++) {
+      let at = fill[slots[e]]
+      for (let end = i + nn; i < end; i++, at++) { nodeOf[at] = conn[i]; rowOf[at] = rows[i] }
+      fill[slots[e]] = at
     }
   })
 
@@ -81,7 +82,6 @@ export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressFi
   const count = new Int32Array(N)
   const worst = new Float64Array(N)
   const touched = new Int32Array(N)
-  const d = new Float64Array(6)
   for (let s = 0; s < P; s++) {
     let T = 0
     // Pass 1: the part's mean at each of its nodes.
@@ -99,16 +99,20 @@ export function computeStressJump(out: Float32Array, mesh: Mesh, field: StressFi
     // Pass 2: the largest deviation of an element's value from the mean.
     for (let i = start[s]; i < start[s + 1]; i++) {
       const n = nodeOf[i], r = 6 * rowOf[i], o = 6 * n
-      for (let c = 0; c < 6; c++) d[c] = v[r + c] - sum[o + c]
-      const dev = vm(d, 0)
-      if (dev > worst[n]) worst[n] = dev
+      const xx = v[r] - sum[o], yy = v[r + 1] - sum[o + 1], zz = v[r + 2] - sum[o + 2]
+      const xy = v[r + 3] - sum[o + 3], yz = v[r + 4] - sum[o + 4], xz = v[r + 5] - sum[o + 5]
+      // von Mises squared of the deviation; the root is taken once per node below.
+      const a = xx - yy, b = yy - zz, c = zz - xx
+      const dev2 = 0.5 * (a * a + b * b + c * c) + 3 * (xy * xy + yz * yz + xz * xz)
+      if (dev2 > worst[n]) worst[n] = dev2
     }
   // Pass 3: scale, keep the largest over the parts, and clear the work arrays for the next part.
     for (let t = 0; t < T; t++) {
       const n = touched[t], o = 6 * n
       const scale = Math.max(vm(sum, o), floor)
       // A node whose stress and deviation are both zero (an unloaded part) has no jump.
-      const j = worst[n] > 0 ? (scale > 0 ? worst[n] / scale : Infinity) : 0
+      const dev = Math.sqrt(worst[n])
+      const j = dev > 0 ? (scale > 0 ? dev / scale : Infinity) : 0
       if (j > out[n]) out[n] = j
       count[n] = 0; worst[n] = 0
       sum[o] = 0; sum[o + 1] = 0; sum[o + 2] = 0; sum[o + 3] = 0; sum[o + 4] = 0; sum[o + 5] = 0

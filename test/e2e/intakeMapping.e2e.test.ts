@@ -80,7 +80,7 @@ describe('intake step', () => {
     // Unmapping a field makes the mapping incomplete: Load is disabled and says what is missing.
     await page.selectOption('[data-testid="intake-col-stress-sxx"]', '-1')
     expect(await page.isDisabled('[data-testid="intake-load"]')).toBe(true)
-    expect(await page.textContent('[data-testid="intake-problems"]')).toContain('nodal_stress.txt: choose the column of sxx.')
+    expect(await page.textContent('[data-testid="intake-problems"]')).toContain('nodal_stress.txt: choose the column of σxx.')
     await page.screenshot({ path: `${OUT_DIR}/intake-mapping-incomplete.png` })
     await page.selectOption('[data-testid="intake-col-stress-sxx"]', '1')
     // Save as model.json: the files and columns for next time.
