@@ -1,5 +1,4 @@
 import { LENGTH_UNITS, STRESS_UNITS } from '../../model/units.ts'
-import type { LengthUnit, StressUnit } from '../../model/units.ts'
 import { INTAKE_ROLES, MAPPING_FIELDS, fieldLabel, mappingProblems, suggestColumns } from '../../io/bundlePreview.ts'
 import type { FilePreview, IntakeMapping, IntakeRole } from '../../io/bundlePreview.ts'
 import { useStore } from '../../state/store.ts'
@@ -47,20 +46,10 @@ export function IntakeStep() {
           <fieldset className="intake-units">
             <legend>Units the files do not state</legend>
             {!preview.unitsDeclared.length ? (
-              <label>Lengths are in{' '}
-                <select data-testid="intake-length" value={mapping.units.length ?? ''} onChange={(e) => setUnits({ ...mapping.units, length: (e.target.value || null) as LengthUnit | null })}>
-                  <option value="">choose…</option>
-                  {LENGTH_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
-                </select>
-              </label>
+              <UnitChoice label="Lengths are in" testId="intake-length" value={mapping.units.length} units={LENGTH_UNITS} onChange={(length) => setUnits({ ...mapping.units, length })} />
             ) : null}
             {!preview.unitsDeclared.stress ? (
-              <label>Stresses are in{' '}
-                <select data-testid="intake-stress" value={mapping.units.stress ?? ''} onChange={(e) => setUnits({ ...mapping.units, stress: (e.target.value || null) as StressUnit | null })}>
-                  <option value="">choose…</option>
-                  {STRESS_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
-                </select>
-              </label>
+              <UnitChoice label="Stresses are in" testId="intake-stress" value={mapping.units.stress} units={STRESS_UNITS} onChange={(stress) => setUnits({ ...mapping.units, stress })} />
             ) : null}
             <p className="note">Numbers are read as written and only labelled with these units. The model stays marked “units not declared” until model.json or the headers state them; “Save as model.json” does that for next time.</p>
           </fieldset>
@@ -74,6 +63,20 @@ export function IntakeStep() {
         </div>
       </section>
     </div>
+  )
+}
+
+/** One unit the files do not state: nothing chosen until the user chooses. */
+function UnitChoice<U extends string>({ label, testId, value, units, onChange }: {
+  label: string; testId: string; value: U | null; units: readonly U[]; onChange: (u: U | null) => void
+}) {
+  return (
+    <label>{label}{' '}
+      <select data-testid={testId} value={value ?? ''} onChange={(e) => onChange((e.target.value || null) as U | null)}>
+        <option value="">choose…</option>
+        {units.map((u) => <option key={u} value={u}>{u}</option>)}
+      </select>
+    </label>
   )
 }
 
