@@ -6,13 +6,14 @@
  */
 import * as Comlink from 'comlink'
 import { readModelFiles } from '../src/io/index.ts'
+import type { ReadModel } from '../src/io/intakeReport.ts'
 import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
-import { nodalDisplayStress } from '../src/model/stressField.ts'
-import { analysisInputOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
+import { analysisInputOf, displayStressOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
 import type { AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
-import { nodalStressField } from '../src/model/stressField.ts'
+import { modelStressField } from '../src/model/stressField.ts'
+import { allocateStressJump, computeStressJump } from '../src/mechanics/stressJump.ts'
 import { extentAlong, sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
@@ -273,7 +274,7 @@ const api: EngineApi = {
       report(source.kind === 'files' ? 'Reading files' : 'Generating model', 0)
       await yieldTurn()
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
-      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data }))) : syntheticModel(source.spec)
+      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data })), source.units ? { units: source.units } : {}) : syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)
       // The element balance and the invariants need no faces: on a pool they run beside the
@@ -283,7 +284,7 @@ const api: EngineApi = {
       const offloaded: OffloadedStages = p
         ? {
             elementBalance: p.elementBalance(mesh, input.stress, input.bodyForce).then((r) => { run = r.run; return r.value }),
-            invariants: p.nodalInvariants(nodalDisplayStress(input.stress)).then((r) => r.value),
+            invariants: p.nodalInvariants(displayStressOf(input)).then((r) => r.value),
           }
         : {}
       offloaded.elementBalance?.catch(() => undefined)
@@ -295,13 +296,15 @@ const api: EngineApi = {
       )
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
-      const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
+      // --- element-nodal: the stress jump, scaled by the reference stress of the patch rule ---
+      const jump = input.stress.layout === 'nodal' ? null : computeStressJump(allocateStressJump(mesh.nodeCount), mesh, input.stress, patches.referenceStress)
+      const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
       const edges = buildFeatureEdges(mesh.coords, faces)
       const surface: SurfaceBuffers = {
         positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
         ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
       }
-      const extras = loadExtras(model, faces, nodalDisplayStress(input.stress), tri.scalars, edges.nodes)
+      const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
       clock.mark('')
       const summary: ModelSummary = {
         name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
@@ -311,6 +314,7 @@ const api: EngineApi = {
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
         ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
         stressLayout: input.stress.layout,
+        unitsDeclared: (model as Partial<ReadModel>).intake?.unitsDeclared ?? true,
       }
       // Only now, with everything computed, does the new model replace the old one.
       current = {
@@ -344,7 +348,7 @@ const api: EngineApi = {
     try {
       const n = Math.hypot(...plane.normal)
       const { axes, note } = checkedAxes([plane.normal[0] / n, plane.normal[1] / n, plane.normal[2] / n], options.axes)
-      const { result, polygons } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, plane, { faces, tractions, polygons: true, axes })
+      const { result, polygons } = cutSection(model.mesh, modelStressField(model), model.bodyForce, plane, { faces, tractions, polygons: true, axes })
       current.polygons = polygons
       current.polygonDisplacement = null
       const info: CutInfo = { ...(note ? { axesNote: note } : {}), ...(result.empty ? { extent: extentAlong(model.mesh.coords, plane.normal) } : {}) }
@@ -397,7 +401,7 @@ const api: EngineApi = {
 
   async probe(req: ProbeRequest) {
     if (!current) return null
-    return probeModel(current.model.mesh, current.model.stress, current.faces, req.section ? current.polygons : null, req,
+    return probeModel(current.model.mesh, modelStressField(current.model), current.faces, req.section ? current.polygons : null, req,
       current.model.displacement, req.section ? current.polygonDisplacement : null)
   },
 
@@ -405,7 +409,7 @@ const api: EngineApi = {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     try {
       const { model, faces } = current
-      const c = buildComponentScalars(faces, model.mesh.coords, nodalDisplayStress(analysisInputOf(model).stress), model.displacement, checkAxes(axes))
+      const c = buildComponentScalars(faces, model.mesh.coords, model.stress, model.displacement, checkAxes(axes))
       return Comlink.transfer({ ok: true as const, value: c }, componentTransfer(c))
     } catch (e) {
       const error = toAppError(e)

@@ -19,6 +19,7 @@ import { elementIdOf } from '../src/model/elementId.ts'
 import { makePlane, planeDistance } from '../src/mechanics/plane.ts'
 import { sectionStressAt } from '../src/mechanics/sectionDrawing.ts'
 import { nodalStressField } from '../src/model/stressField.ts'
+import type { StressField } from '../src/model/stressField.ts'
 import type { BoundaryFaces, SectionPlane, SectionPolygons } from '../src/mechanics/types.ts'
 import type { ProbeRequest, ProbeResult } from './protocol.ts'
 
@@ -108,7 +109,7 @@ const N = new Float64Array(Math.max(...ELEMENT_TYPE_LIST.map((t) => t.nodeCount)
  * through a curved face), the inversion ends on the element's boundary nearest to it, which
  * gives a value from that element. An unknown type is an error.
  */
-export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: Vec3, out: Float64Array, outDisplacement: Float64Array | null = null, displacement: Float64Array | null = null): void {
+export function stressInElement(mesh: Mesh, stress: Float64Array | StressField, g: number, p: Vec3, out: Float64Array, outDisplacement: Float64Array | null = null, displacement: Float64Array | null = null): void {
   const blk = blockOf(mesh, g)
   if (!blk) throw new RangeError(`element index ${g} is not in the mesh (${mesh.elementCount} elements)`)
   out.fill(0)
@@ -117,9 +118,12 @@ export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: 
   const base = blk.local * nn
   invertElementMap(R, topo, mesh.coords, blk.conn, base, p[0], p[1], p[2])
   topo.shapeValues(R[0], R[1], R[2], N)
+  // --- element-nodal: the element's own values through the field's rows (nodal: the connectivity) ---
+  const values = stress instanceof Float64Array ? stress : stress.values
+  const rows = stress instanceof Float64Array ? blk.conn : stress.rows[blk.index]
   for (let a = 0; a < nn; a++) {
-    const n = blk.conn[base + a]
-    for (let k = 0; k < 6; k++) out[k] += N[a] * stress[6 * n + k]
+    const n = rows[base + a]
+    for (let k = 0; k < 6; k++) out[k] += N[a] * values[6 * n + k]
   }
   if (outDisplacement && displacement) vectorInElement(outDisplacement, 0, mesh, displacement, blk.index, blk.local, R)
 }
@@ -130,7 +134,7 @@ export function stressInElement(mesh: Mesh, stress: Float64Array, g: number, p: 
  * deformed shape and the displacement read-out; null without displacement.
  */
 export function probeModel(
-  mesh: Mesh, stress: Float64Array, faces: BoundaryFaces,
+  mesh: Mesh, stress: Float64Array | StressField, faces: BoundaryFaces,
   polygons: SectionPolygons | null, req: ProbeRequest,
   displacement: Float64Array | null = null, polygonDisplacement: Float64Array | null = null,
 ): ProbeResult | null {
@@ -197,7 +201,7 @@ export function probeModel(
   stressInElement(mesh, stress, best.elem, p, s, u, displacement)
   // on the section: the same shape functions and reference coordinates the section's fill and
   // resultant use (sectionDrawing.ts), so the probe reads what the colours show
-  if (best.where === 'section' && polygons) sectionStressAt(s, mesh, nodalStressField(mesh, stress), polygons, best.polygon, p)
+  if (best.where === 'section' && polygons) sectionStressAt(s, mesh, stress instanceof Float64Array ? nodalStressField(mesh, stress) : stress, polygons, best.polygon, p)
   const pr = new Float64Array(3)
   principalStresses(s, pr)
   const n = best.normal

@@ -11,7 +11,7 @@
 import type { BalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
 export type { BalanceVerdict, BalanceVerdictKind } from '../src/mechanics/balanceVerdict.ts'
 import type { Vec3 } from '../src/model/model.ts'
-import type { ModelUnits } from '../src/model/units.ts'
+import type { LengthUnit, ModelUnits, StressUnit } from '../src/model/units.ts'
 import type { Plane } from '../src/mechanics/plane.ts'
 import type { BodyBalance, LoadPatch, SectionResult } from '../src/mechanics/types.ts'
 import type { SurfaceQuantity, SurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
@@ -60,6 +60,9 @@ export interface ModelSummary {
   readonly inputs?: readonly InputFileRecord[]
   /** Whether the stress came per node or per element node. */
   readonly stressLayout?: 'nodal' | 'element-nodal'
+  // --- intake ---
+  /** False when the files declare no units (or only one): the top bar and the model card say so. */
+  readonly unitsDeclared?: boolean
 }
 
 /**
@@ -218,7 +221,11 @@ export interface EngineFile {
 }
 
 export type ModelSource =
-  | { readonly kind: 'files'; readonly files: readonly EngineFile[]; readonly label?: string; readonly inputs?: readonly InputFileRecord[] }
+  | {
+    readonly kind: 'files'; readonly files: readonly EngineFile[]; readonly label?: string; readonly inputs?: readonly InputFileRecord[]
+    // --- intake: units chosen when opening, for those the files do not declare ---
+    readonly units?: { readonly length?: LengthUnit; readonly stress?: StressUnit }
+  }
   | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
 
 export interface LoadedModel {

@@ -6,7 +6,7 @@
 import type { Model, Vec3 } from '../src/model/model.ts'
 import { unitNormal } from '../src/mechanics/plane.ts'
 import { sweepSections } from '../src/mechanics/sectionSweep.ts'
-import { nodalStressField } from '../src/model/stressField.ts'
+import { modelStressField } from '../src/model/stressField.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
 import { projectReference, referenceOf } from '../src/mechanics/sectionAxes.ts'
 import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
@@ -37,7 +37,7 @@ export function sweepAlong(
   const inset = (extent[1] - extent[0]) * 1e-6
   const a = from ?? extent[0] + inset
   const b = to ?? extent[1] - inset
-  const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), model.bodyForce, normal, a, b, count, { faces, tractions, axes: { kind: axes.kind, reference } })
+  const { offsets, results } = sweepSections(model.mesh, modelStressField(model), model.bodyForce, normal, a, b, count, { faces, tractions, axes: { kind: axes.kind, reference } })
   const n = results.length
   const out = {
     axial: new Float64Array(n), shear1: new Float64Array(n), shear2: new Float64Array(n), torque: new Float64Array(n),

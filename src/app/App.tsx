@@ -12,6 +12,7 @@ import { NoticeCard } from './ui/NoticeCard.tsx'
 import { ViewButtons } from './ui/ViewButtons.tsx'
 import { useStore } from '../state/store.ts'
 import { FileIntake } from './ui/FileIntake.tsx'
+import { IntakeStep } from './ui/IntakeStep.tsx'
 import { CutCard } from './cards/CutCard.tsx'
 import { EquilibriumCard } from './cards/EquilibriumCard.tsx'
 import { LoadEntryCard } from './cards/LoadEntryCard.tsx'
@@ -91,6 +92,7 @@ export function App() {
         <p className="caution" data-testid="caution">{CAUTION}</p>
       </footer>
       <FileIntake ref={input} />
+      <IntakeStep />
       <HelpOverlay />
     </div>
   )

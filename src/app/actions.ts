@@ -10,6 +10,8 @@ import { useStore } from '../state/store.ts'
 import { buildViewLink, parseViewLink } from './urlHash.ts'
 import type { ViewLink } from './urlHash.ts'
 import type { InputFileRecord } from '../../workers/protocol.ts'
+import { PREVIEW_BYTES, mappingModelJson, mappingProblems, previewBundle, suggestMapping } from '../io/bundlePreview.ts'
+import type { SampleFile } from '../io/bundlePreview.ts'
 
 /** An entry of public/demo/index.json. */
 export interface DemoEntry {
@@ -53,9 +55,51 @@ export function demoSource(d: DemoEntry): AppSource {
   return { kind: 'demo', id: d.id, file: d.file, url: new URL('demo/' + d.file, document.baseURI).href }
 }
 
+/**
+ * Files chosen or dropped: a container loads at once; a CSV bundle is previewed from its first
+ * bytes (bounded, PREVIEW_BYTES a file) and loads at once when it reads as it is and declares its
+ * units, else the intake step asks for the mapping and the units first (the model on screen stays).
+ */
 export async function openFiles(files: readonly File[]): Promise<void> {
   if (files.length === 0) return
-  await engine.load({ kind: 'files', files: [...files] })
+  const samples = await Promise.all(files.map(sampleOf))
+  if (samples.some((s) => s.text.startsWith('TRACTUS\0'))) { await engine.load({ kind: 'files', files: [...files] }); return }
+  const preview = previewBundle(samples)
+  const declared = preview.unitsDeclared.length && preview.unitsDeclared.stress
+  if (preview.jsonError || (!preview.problem && declared)) { await engine.load({ kind: 'files', files: [...files] }); return }
+  // Units are never guessed: each one the files do not state is chosen by the user.
+  useStore.getState().intakeAsked({ files: [...files], preview, mapping: suggestMapping(preview, { length: null, stress: null }), unitsOnly: !preview.problem })
+}
+
+/** The first bytes of a file as text, cut at its last line end (model.json whole, when small). */
+async function sampleOf(f: File): Promise<SampleFile> {
+  const whole = f.size <= PREVIEW_BYTES || (f.name.toLowerCase().endsWith('.json') && f.size <= 4 * PREVIEW_BYTES)
+  const text = await f.slice(0, whole ? f.size : PREVIEW_BYTES).text()
+  if (whole) return { name: f.name, text }
+  const end = Math.max(text.lastIndexOf('\n'), text.lastIndexOf('\r'))
+  return { name: f.name, text: end > 0 ? text.slice(0, end + 1) : text }
+}
+
+/** Loads the files of the intake step with its mapping (as a model.json beside them) and its units. */
+export async function loadIntake(): Promise<void> {
+  const st = useStore.getState()
+  const step = st.intakeStep
+  if (!step || mappingProblems(step.preview, step.mapping).length) return
+  let files = step.files
+  if (!step.unitsOnly) {
+    const json = mappingModelJson(step.preview, step.mapping, false)
+    files = [...files.filter((f) => f.name.toLowerCase() !== 'model.json'), new File([JSON.stringify(json, null, 2)], 'model.json', { type: 'application/json' })]
+  }
+  st.intakeClosed()
+  const { length, stress } = step.mapping.units
+  await engine.load({ kind: 'files', files: [...files], units: { ...(length ? { length } : {}), ...(stress ? { stress } : {}) } })
+}
+
+/** Downloads the intake step's mapping and units as model.json, for next time. */
+export function saveIntakeJson(): void {
+  const step = useStore.getState().intakeStep
+  if (!step) return
+  download('model.json', JSON.stringify(mappingModelJson(step.preview, step.mapping, true), null, 2) + '\n', 'application/json')
 }
 
 export async function takeSnapshot(scale: number): Promise<void> {

@@ -24,6 +24,7 @@ import type { StoreApi } from 'zustand'
 import { checkModelSize } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { Vec3 } from '../model/model.ts'
+import type { LengthUnit, StressUnit } from '../model/units.ts'
 import { deformScaleOf, resolvedHide, sectionPlaneOf } from '../state/selectors.ts'
 import type { TractusState } from '../state/store.ts'
 import type {
@@ -35,7 +36,7 @@ import type { ComponentAxes } from '../../workers/protocol.ts'
 /** Where a model comes from, in a form that can be loaded again after a restart. */
 export type AppSource =
   | { readonly kind: 'demo'; readonly id: string; readonly url: string; readonly file: string }
-  | { readonly kind: 'files'; readonly files: readonly File[] }
+  | { readonly kind: 'files'; readonly files: readonly File[]; readonly units?: { readonly length?: LengthUnit; readonly stress?: StressUnit } }
   | { readonly kind: 'synthetic'; readonly spec: SyntheticSpec }
 
 /** A running engine worker as the client sees it. */
@@ -207,7 +208,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     if (s.kind === 'files') {
       checkModelSize(s.files.map((f) => ({ name: f.name, size: f.size })))
       const inputs = await Promise.all(s.files.map(async (f) => inputRecord(f.name, await f.arrayBuffer())))
-      return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(','), inputs }
+      return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(','), inputs, ...(s.units ? { units: s.units } : {}) }
     }
     const res = await fetchUrl(s.url)
     if (!res.ok) throw new Error(`Could not read the demo model ${s.file} (HTTP ${res.status}).`)

@@ -41,6 +41,7 @@ export const QUANTITY_LABEL: Readonly<Record<QuantityName, string>> = {
   principal1: 'Principal stress σ₁',
   principal3: 'Principal stress σ₃',
   balanceIndicator: 'Element balance indicator',
+  stressJump: 'Stress jump between elements',
   // Components in global axes (quantityLabel names them in cylindrical axes).
   sxx: 'Stress σxx', syy: 'Stress σyy', szz: 'Stress σzz', sxy: 'Shear stress τxy', syz: 'Shear stress τyz', sxz: 'Shear stress τxz',
   displacement: 'Displacement |u|', ux: 'Displacement ux', uy: 'Displacement uy', uz: 'Displacement uz',
@@ -70,7 +71,7 @@ export function displacementSymbols(axes: ComponentAxes): readonly string[] {
 
 /** Physical kind of a colour quantity: a stress, a length (displacement), or dimensionless. */
 export function quantityKind(q: QuantityName): Quantity | null {
-  if (q === 'balanceIndicator') return null
+  if (q === 'balanceIndicator' || q === 'stressJump') return null
   return q === 'displacement' || q === 'ux' || q === 'uy' || q === 'uz' ? 'length' : 'stress'
 }
 

@@ -12,7 +12,7 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, vecJson, vecPlain, vecQty } from './format.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
-import { nodalStressField } from '../model/stressField.ts'
+import { modelStressField } from '../model/stressField.ts'
 import { UsageError } from './args.ts'
 import { InputError } from '../model/errors.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
@@ -157,7 +157,7 @@ export const cutCommand: Command = {
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
     const limit = sectionLimitOf(args, model.mesh)
-    const { result: r } = cutSection(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, plane, { about, polygons: false, regions: true, limit, axes })
+    const { result: r } = cutSection(model.mesh, modelStressField(model), bodyForce, plane, { about, polygons: false, regions: true, limit, axes })
     if (args.options.json) {
       printJson(io, {
         file: loaded.path, name: model.name, units: unitLabels(u), bodyForce: vecJson(bodyForce, 'forcePerVolume', u), ...sectionJson(r, u),

@@ -53,7 +53,7 @@ export function summarize(model: Model): ModelSummary {
 }
 
 const SOURCE_WORDS: Readonly<Record<UnitSource, string>> = {
-  'model.json': 'model.json', header: 'the headers', container: 'the container', default: 'NOT DECLARED, assumed',
+  'model.json': 'model.json', header: 'the headers', container: 'the container', default: 'NOT DECLARED, assumed', chosen: 'NOT DECLARED, chosen when opened',
 }
 
 /** "length mm (model.json), stress MPa (the headers)". */
@@ -96,6 +96,7 @@ export const infoCommand: Command = {
         bounds: { min: vecJson(s.min, 'length', u), max: vecJson(s.max, 'length', u), size: vecJson(size, 'length', u) },
         stress: Object.fromEntries(STRESS_COMPONENTS.map((c, k) => [c, [s.stressMin[k] * fs, s.stressMax[k] * fs]])),
         displacement: model.displacement !== null,
+        stressLayout: model.stressField ? 'element-nodal' : 'nodal',
         bodyForce: vecJson(bodyForce, 'forcePerVolume', u),
         files: intake.files.map((f) => ({ ...f })),
         warnings: [...model.warnings],
@@ -112,6 +113,7 @@ export const infoCommand: Command = {
       ['bounds max', vecQty(s.max, 'length', u)],
       ['size', vecQty(size, 'length', u)],
       ['body force ρb', vecQty(bodyForce, 'forcePerVolume', u)],
+      ['stress form', model.stressField ? `element-nodal (${model.stressField.values.length / 6} rows, one per element and node; averaged within each part for display)` : 'nodal (one row per node)'],
       ['displacement', model.displacement ? 'present' : 'none'],
     ])
     if (model.description) out += `  ${model.description}\n`

@@ -13,7 +13,7 @@ import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { num, table, vecPlain, vecQty } from './format.ts'
 import { InputError } from '../model/errors.ts'
-import { nodalStressField } from '../model/stressField.ts'
+import { modelStressField } from '../model/stressField.ts'
 import { buildElementGrid } from '../mechanics/elementGrid.ts'
 import type { ComponentAxes } from '../mechanics/componentAxes.ts'
 import { checkAxes } from '../mechanics/componentAxes.ts'
@@ -102,7 +102,7 @@ export const lineCommand: Command = {
     }
     const u = createUnitView(model.units, unitChoice(args))
     const grid = buildElementGrid(model.mesh)
-    const field = nodalStressField(model.mesh, model.stress)
+    const field = modelStressField(model)
     const notes: string[] = []
     if (args.options['through-wall']) {
       const w = lineThroughWall(model.mesh, grid, from, to)

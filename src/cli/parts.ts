@@ -10,7 +10,7 @@ import { loadModel } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { num, qty, table, vecJson, vecQty } from './format.ts'
 import { assemblyBalance } from '../mechanics/partBalance.ts'
-import { nodalStressField } from '../model/stressField.ts'
+import { modelStressField } from '../model/stressField.ts'
 import type { Vec3 } from '../model/model.ts'
 
 export const partsCommand: Command = {
@@ -32,7 +32,7 @@ export const partsCommand: Command = {
     const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
     const bodyForce = (p: number): Vec3 => (args.options['body-force'] === undefined ? info.get(p)?.bodyForce ?? common : common)
     const names = new Map([...info.values()].map((p) => [p.part, p.name]))
-    const asm = assemblyBalance(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, names)
+    const asm = assemblyBalance(model.mesh, modelStressField(model), bodyForce, names)
     const ff = u.factor('force')
     if (args.options.json) {
       printJson(io, {

@@ -12,7 +12,7 @@ import { createUnitView, unitLabels } from './unitView.ts'
 import { axesOption, REFERENCE_OPTION, SECTION_AXES_DETAILS, sectionJson } from './cut.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { sweepSections } from '../mechanics/sectionSweep.ts'
-import { nodalStressField } from '../model/stressField.ts'
+import { modelStressField } from '../model/stressField.ts'
 
 const CSV_COLUMNS: readonly [string, (r: SectionResult) => number, Parameters<UnitView['factor']>[0] | null][] = [
   ['area', (r) => r.area, 'area'],
@@ -57,7 +57,7 @@ export const sweepCommand: Command = {
     const { model } = loaded
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
-    const { offsets, results } = sweepSections(model.mesh, nodalStressField(model.mesh, model.stress), bodyForce, normal, from, to, count, { axes })
+    const { offsets, results } = sweepSections(model.mesh, modelStressField(model), bodyForce, normal, from, to, count, { axes })
     const fl = u.factor('length')
     if (args.options.json) {
       printJson(io, {

@@ -52,6 +52,8 @@ export const LAYOUT_KEYS = ['files', 'csv', 'columns', 'types', 'nodeOrder'] as 
 
 export const NODE_FIELDS = ['id', 'x', 'y', 'z'] as const
 export const STRESS_FIELDS = ['id', 'sxx', 'syy', 'szz', 'sxy', 'syz', 'sxz'] as const
+/** A stress file with an element column: one row per element and node (element-nodal stress). */
+export const ELEMENT_NODAL_STRESS_FIELDS = ['element', 'node', 'sxx', 'syy', 'szz', 'sxy', 'syz', 'sxz'] as const
 export const DISPLACEMENT_FIELDS = ['id', 'ux', 'uy', 'uz'] as const
 export const ELEMENT_FIELDS = ['id', 'type', 'part', 'nodes'] as const
 
@@ -124,7 +126,8 @@ export function readBundleLayout(file: string, o: Obj): BundleLayout {
     for (const [role, m] of Object.entries(o.columns as Obj)) {
       if (!isRole(role)) bad(`columns.${role}`, `"${role}" is not a file of a bundle; use ${roleList}`)
       if (!isObj(m)) bad(`columns.${role}`, `columns.${role} must be an object like {"id": "Node"}`)
-      const fields = fieldsOfRole(role)
+      // A stress file is nodal (id) or element-nodal (element, node): either set of keys may be mapped.
+      const fields = role.startsWith('stress') ? [...fieldsOfRole(role), 'element', 'node'] : fieldsOfRole(role)
       const out: Record<string, ColumnRef | readonly ColumnRef[]> = {}
       for (const [field, ref] of Object.entries(m as Obj)) {
         const key = `columns.${role}.${field}`

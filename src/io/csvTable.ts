@@ -127,6 +127,11 @@ function numberHint(cur: CsvCursor, tok: string): string {
 export interface NumericTable {
   readonly rows: number
   readonly ids: Int32Array
+  /**
+   * The second id column of a table read by `spec.elementNodal` (the node of each row; `ids` are
+   * then the elements), else null.
+   */
+  readonly ids2: Int32Array | null
   readonly values: Float64Array
   readonly lines: Int32Array
   readonly info: TableInfo
@@ -148,6 +153,18 @@ export interface NumericTableSpec {
   readonly quantity: 'length' | 'stress'
   readonly settings: DialectSettings
   readonly columns: ColumnMap | undefined
+  /**
+   * Fields read instead of `fields` when the header has an "element" column (or model.json maps
+   * one): element id first, node id second, then the values. The table then holds one row per
+   * element and node (src/io/elementNodalRows.ts).
+   */
+  readonly elementNodal?: readonly string[]
+}
+
+/** True when the table is in its element-nodal form: an "element" column by name, or mapped. */
+function isElementNodalHeader(header: CsvHeader, columns: ColumnMap | undefined): boolean {
+  if (columns?.element !== undefined) return true
+  return header.present && (header.names.includes('element') || header.bare.includes('element'))
 }
 
 /**
@@ -158,27 +175,32 @@ export interface NumericTableSpec {
 export function readNumericTable(file: string, text: string, spec: NumericTableSpec): NumericTable {
   const { cur, dialect, header } = openTable(file, text, spec.settings, 'numeric', spec.role)
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
-  const columnOf = matchColumns(file, header, spec.fields, spec.columns, spec.role)
+  const twoIds = spec.elementNodal !== undefined && isElementNodalHeader(header, spec.columns)
+  const fields = twoIds ? spec.elementNodal! : spec.fields
+  const columnOf = matchColumns(file, header, fields, spec.columns, spec.role)
   const mismatch = widthMismatch(header, spec.role)
   if (mismatch) throw new InputError('header', `${header.raw.join(', ')}: ${mismatch}`, { file, line: header.line })
   const nf = header.width
-  const { slotOf, labels, names } = columnSlots(header, spec.fields, columnOf)
-  const unit = unitOfColumns(file, header, columnOf.subarray(1), spec.quantity)
-  const nv = spec.fields.length - 1
-  const { rows, ids, values, lines } = readNumericRows(cur, slotOf, nf, nv, names)
+  const { slotOf, labels, names } = columnSlots(header, fields, columnOf, twoIds)
+  const unit = unitOfColumns(file, header, columnOf.subarray(twoIds ? 2 : 1), spec.quantity)
+  const nv = fields.length - (twoIds ? 2 : 1)
+  const { rows, ids, ids2, values, lines } = readNumericRows(cur, slotOf, nf, nv, names, twoIds)
   if (rows === 0) throw new InputError('empty-file', 'the file has a header but no rows', { file, line: header.line })
   const used = new Uint8Array(nf)
   for (const c of columnOf) used[c] = 1
   const info: TableInfo = { dialect, ignored: unusedColumns(header, used), unit, labels }
-  return { rows, ids: fitInt(ids, rows), values: fitFloat(values, rows * nv), lines: fitInt(lines, rows), info }
+  return { rows, ids: fitInt(ids, rows), ids2: ids2 ? fitInt(ids2, rows) : null, values: fitFloat(values, rows * nv), lines: fitInt(lines, rows), info }
 }
+
+/** Slot of the second id column (the node of an element-nodal row). */
+const SLOT_ID2 = -2
 
 /**
  * The rows of a numeric table: per row the id (slot 0) and the values (slots 1..nv) of the
  * columns `slotOf` maps, columns of slot -1 skipped. Only the hot loop, apart from the table's
  * set-up, so that code the loop never reaches cannot discard its optimised form.
  */
-function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: number, names: readonly string[]): { rows: number; ids: Int32Array; values: Float64Array; lines: Int32Array } {
+function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: number, names: readonly string[], twoIds: boolean): { rows: number; ids: Int32Array; ids2: Int32Array | null; values: Float64Array; lines: Int32Array } {
   // The field readers once into locals: under a CommonJS transform (tsx) every use of an imported
   // name is a getter call that the optimiser does not inline, once per field otherwise.
   const next = nextRecord, sep = takeSeparator, num = readNumber, id = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
@@ -187,12 +209,14 @@ function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: num
   let ids: Int32Array = new Int32Array(cap)
   let values: Float64Array = new Float64Array(cap * nv)
   let lines: Int32Array = new Int32Array(cap)
+  let ids2: Int32Array = new Int32Array(twoIds ? cap : 0)
   let rows = 0
   while (next(cur)) {
     if (rows === cap) {
       // Only when line ends are unusual (lone CRs mixed with LFs): grow by doubling.
       cap *= 2
       ids = growInt(ids, cap); lines = growInt(lines, cap)
+      if (twoIds) ids2 = growInt(ids2, cap)
       const v = new Float64Array(cap * nv); v.set(values); values = v
     }
     const base = rows * nv
@@ -207,6 +231,10 @@ function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: num
         const v = id(cur)
         if (cur.status !== OK) failField(cur, names[j], 'id')
         ids[rows] = v
+      } else if (s === SLOT_ID2) {
+        const v = id(cur)
+        if (cur.status !== OK) failField(cur, names[j], 'id')
+        ids2[rows] = v
       } else {
         skip(cur)
         if (cur.status !== OK) failField(cur, names[j], 'number')
@@ -217,19 +245,23 @@ function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: num
     rows++
     finish(cur)
   }
-  return { rows, ids, values, lines }
+  return { rows, ids, ids2: twoIds ? ids2 : null, values, lines }
 }
+
 
 /**
  * Per column the field it holds (0 = id, k = value k) or -1 for a column left out, and the
  * message names of fields and columns. Apart from the reader so that no closure there captures
  * what its loop reads (a captured variable lives in a heap context: a load more per field).
  */
-function columnSlots(header: CsvHeader, fields: readonly string[], columnOf: Int32Array): { slotOf: Int32Array; labels: string[]; names: string[] } {
+function columnSlots(header: CsvHeader, fields: readonly string[], columnOf: Int32Array, twoIds: boolean): { slotOf: Int32Array; labels: string[]; names: string[] } {
   const slotOf = new Int32Array(header.width).fill(-1)
-  columnOf.forEach((c, k) => { slotOf[c] = k })
+  // With two id columns the second is SLOT_ID2 and the values start at field 2 (slot 1).
+  columnOf.forEach((c, k) => { slotOf[c] = !twoIds ? k : k === 0 ? 0 : k === 1 ? SLOT_ID2 : k - 1 })
   const labels = fields.map((f, k) => columnLabel(header, columnOf[k], f))
-  const names = Array.from({ length: header.width }, (_, c) => (slotOf[c] >= 0 ? labels[slotOf[c]] : columnLabel(header, c)))
+  const fieldOf = new Int32Array(header.width).fill(-1)
+  columnOf.forEach((c, k) => { fieldOf[c] = k })
+  const names = Array.from({ length: header.width }, (_, c) => (fieldOf[c] >= 0 ? labels[fieldOf[c]] : columnLabel(header, c)))
   return { slotOf, labels, names }
 }
 

@@ -7,7 +7,7 @@ import { InputError } from '../model/errors.ts'
 import type { ReadModel } from './intakeReport.ts'
 import { NATIVE_EXTENSION, isNativeContainer, readNative } from './nativeContainer.ts'
 import { baseName, readCsvBundle } from './readCsvBundle.ts'
-import type { CsvFile } from './readCsvBundle.ts'
+import type { CsvBundleOptions, CsvFile } from './readCsvBundle.ts'
 import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 
 export interface InputFile {
@@ -20,6 +20,8 @@ export interface ReadModelOptions {
   readonly maxBytes?: number
   /** Model name when the files give none. */
   readonly name?: string
+  /** Units chosen when opening a CSV bundle, for those its files do not declare (CsvBundleOptions.units). */
+  readonly units?: CsvBundleOptions['units']
 }
 
 function bytesOf(d: ArrayBuffer | Uint8Array): Uint8Array {
@@ -52,7 +54,7 @@ export function readModelFiles(files: readonly InputFile[], options: ReadModelOp
     throw new InputError('container', `does not start with the ${NATIVE_EXTENSION} magic bytes "TRACTUS\\0"`, { file: named.name, field: 'magic' })
   }
   const texts: CsvFile[] = files.map((f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : decodeUtf8(f.name, bytesOf(f.data)) }))
-  return readCsvBundle(texts, { maxBytes: limit, name: options.name })
+  return readCsvBundle(texts, { maxBytes: limit, name: options.name, ...(options.units ? { units: options.units } : {}) })
 }
 
 function decodeUtf8(file: string, bytes: Uint8Array): string {

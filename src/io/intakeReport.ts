@@ -9,8 +9,11 @@ import type { LengthUnit, StressUnit } from '../model/units.ts'
 import type { CsvDialect, DecimalMark, DialectKey, Separator } from './csvDialect.ts'
 import { describeDialect } from './csvDialect.ts'
 
-/** Where a unit came from; 'default' = nothing declared it and m or Pa was assumed. */
-export type UnitSource = 'model.json' | 'header' | 'container' | 'default'
+/**
+ * Where a unit came from; 'default' = nothing declared it and m or Pa was assumed; 'chosen' =
+ * nothing in the files declared it and the user chose it when opening them (the browser's intake).
+ */
+export type UnitSource = 'model.json' | 'header' | 'container' | 'default' | 'chosen'
 
 export interface FileIntake {
   /** The file's name as given. */
@@ -59,7 +62,8 @@ export function fileIntake(file: string, role: string, d: CsvDialect, ignoredCol
  * declare them for this kind of input.
  */
 export function unitsWarning(units: { readonly length: LengthUnit; readonly stress: StressUnit }, sources: IntakeReport['unitSources'], where: 'csv' | 'native'): string | null {
-  const noLength = sources.length === 'default', noStress = sources.stress === 'default'
+  const undeclared = (s: UnitSource) => s === 'default' || s === 'chosen'
+  const noLength = undeclared(sources.length), noStress = undeclared(sources.stress)
   if (!noLength && !noStress) return null
   const which = noLength && noStress
     ? `no units declared: lengths are read as ${units.length} and stresses as ${units.stress}`
@@ -67,7 +71,8 @@ export function unitsWarning(units: { readonly length: LengthUnit; readonly stre
   const how = where === 'csv'
     ? 'declare them in model.json, e.g. "units": {"length": "mm", "stress": "MPa"}, or in the headers, e.g. "x [mm]", "sxx (MPa)"'
     : 'write the container again from a bundle whose model.json declares "units"'
-  return `${which} (the defaults, which may be wrong); ${how}`
+  const chosen = (noLength && sources.length === 'chosen') || (noStress && sources.stress === 'chosen')
+  return `${which} (${chosen ? 'as chosen when the files were opened, not stated in them' : 'the defaults, which may be wrong'}); ${how}`
 }
 
 /** True for a warning made by unitsWarning (of a bundle or of a container). */

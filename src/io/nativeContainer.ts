@@ -402,7 +402,10 @@ interface FieldTable {
   readonly displacement: ArrayEntry | null
 }
 
-function readFieldTable(value: unknown, arrays: ReadonlyMap<string, ArrayEntry>, N: number, elementNodeRows: number, fail: (kind: InputErrorKind, field: string, message: string) => never): FieldTable {
+function readFieldTable(value: unknown, arrays: ReadonlyMap<string, ArrayEntry>, N: number, elementNodeRows: number, failWith: (kind: InputErrorKind, field: string, message: string) => never): FieldTable {
+  // Nothing but a damaged file or another writer makes these: the fix is to write it again.
+  const fail = (kind: InputErrorKind, field: string, message: string): never =>
+    failWith(kind, field, /write the container again/.test(message) ? message : `${message}; the field table is damaged: write the container again from the model's files`)
   const how = 'fields must list {kind, case, layout, count, offset} (kind "stress" or "displacement", layout "nodal" or "elementNodal")'
   if (!Array.isArray(value) || value.length === 0) fail('container', 'fields', `${how}; it is ${value === undefined ? 'missing' : 'empty or not a list'}: write the container again`)
   const byOffset = new Map<number, ArrayEntry>()

@@ -14,7 +14,7 @@ import type { BlockInput } from '../model/createMesh.ts'
 import { elementType } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { LengthUnit, StressUnit } from '../model/units.ts'
-import { BASE_ROLES, DISPLACEMENT_FIELDS, EMPTY_LAYOUT, NODE_FIELDS, STRESS_FIELDS, dialectSettingsFor, readBundleLayout } from './bundleLayout.ts'
+import { BASE_ROLES, DISPLACEMENT_FIELDS, ELEMENT_NODAL_STRESS_FIELDS, EMPTY_LAYOUT, NODE_FIELDS, STRESS_FIELDS, dialectSettingsFor, readBundleLayout } from './bundleLayout.ts'
 import type { BundleLayout } from './bundleLayout.ts'
 import { readNumericTable } from './csvTable.ts'
 import type { NumericTable, TableInfo } from './csvTable.ts'
@@ -26,6 +26,9 @@ import type { FileIntake, IntakeReport, ReadModel, UnitSource } from './intakeRe
 import { parseJsonText, readModelMeta } from './modelJson.ts'
 import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 import { readElementTable } from './readElementTable.ts'
+import { elementNodalField } from './elementNodalRows.ts'
+import { partAveragedStress } from '../model/stressField.ts'
+import type { StressField } from '../model/stressField.ts'
 import type { RawElementBlock } from './readElementTable.ts'
 import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 
@@ -40,6 +43,11 @@ export interface CsvBundleOptions {
   readonly name?: string
   /** Largest accepted file, in characters (default MAX_MODEL_BYTES). */
   readonly maxBytes?: number
+  /**
+   * Units the user chose when opening the files (the browser's intake), for those that neither
+   * model.json nor the headers declare; the model still carries the undeclared-units warning.
+   */
+  readonly units?: { readonly length?: LengthUnit; readonly stress?: StressUnit }
 }
 
 export const BUNDLE_FILES = ['nodes.csv', 'elements.csv', 'stress.csv', 'displacement.csv', 'model.json'] as const
@@ -164,41 +172,40 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   }
   if (invertedTotal) warnings.push(`${elementsFile.name}: ${reorientedWarning(invertedIds, invertedTotal)}`)
 
-  // Stress: one row per node used by an element.
-  const stressTable = readNumericTable(stressFile.name, stressFile.text, spec('stress', STRESS_FIELDS, 'stress'))
-  // Rows in the order of the nodes file (the usual layout) are the stress array as read;
-  // otherwise each row goes to its node's slot.
-  const inNodeOrder = sameIds(stressTable.ids, nodeIds)
-  const stress = inNodeOrder ? stressTable.values : new Float64Array(6 * N)
-  const hasStress = inNodeOrder ? null : scatterRows(stressTable, 6, stress, nodeIndex, nodesFile.name, stressFile.name)
-  const noStress = hasStress ? firstUsedWithout(used, hasStress) : -1
-  if (noStress >= 0) {
-    const el = findElementUsing(raw, blocks, noStress)
-    throw new InputError('missing-stress', `no stress row for node ${nodeIds[noStress]}, which element ${el.id} uses; every node of an element needs one`, { file: stressFile.name, elementId: el.id })
+  // Stress: one row per node used by an element, or (with an element column) one row per
+  // element and node, kept as read and averaged within each part for display.
+  const stressTable = readNumericTable(stressFile.name, stressFile.text, { ...spec('stress', STRESS_FIELDS, 'stress'), elementNodal: ELEMENT_NODAL_STRESS_FIELDS })
+  let stress: Float64Array
+  let stressField: StressField | null = null
+  if (stressTable.ids2) {
+    // --- element-nodal ---
+    stressField = elementNodalField(stressTable, {
+      blocks: blocks.map((b, k) => ({ type: b.type, conn: b.conn, ids: raw[k].ids })), nodeIds, nodeIndex,
+      stressFile: stressFile.name, elementsFile: elementsFile.name, nodesFile: nodesFile.name,
+      elementColumn: stressTable.info.labels[0], nodeColumn: stressTable.info.labels[1],
+    })
+    stress = partAveragedStress(createMesh(coords, blocks, nodeIds), stressField)
+  } else {
+    const r = nodalRows(stressTable, 6, 'stress', { nodeIds, nodeIndex, used, raw, blocks, nodesFile: nodesFile.name, file: stressFile.name })
+    stress = r.values
+    const hasStress = r.has
+    const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
+    if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
   }
-  const unusedWithout = hasStress ? countUnusedWithout(used, hasStress) : 0
-  if (unusedWithout) warnings.push(`${stressFile.name}: ${unusedWithout} node${unusedWithout === 1 ? '' : 's'} used by no element ha${unusedWithout === 1 ? 's' : 've'} no stress row; stress set to zero there`)
 
   let displacement: Float64Array | null = null
   let dispTable: NumericTable | null = null
   if (dispFile) {
     const dt = readNumericTable(dispFile.name, dispFile.text, spec('displacement', DISPLACEMENT_FIELDS, 'length'))
     dispTable = dt
-    const dispInOrder = sameIds(dt.ids, nodeIds)
-    displacement = dispInOrder ? dt.values : new Float64Array(3 * N)
-    const hasDisp = dispInOrder ? null : scatterRows(dt, 3, displacement, nodeIndex, nodesFile.name, dispFile.name)
-    const noDisp = hasDisp ? firstUsedWithout(used, hasDisp) : -1
-    if (noDisp >= 0) {
-      const el = findElementUsing(raw, blocks, noDisp)
-      throw new InputError('missing-displacement', `no displacement row for node ${nodeIds[noDisp]}, which element ${el.id} uses; every node of an element needs one`, { file: dispFile.name, elementId: el.id })
-    }
+    displacement = nodalRows(dt, 3, 'displacement', { nodeIds, nodeIndex, used, raw, blocks, nodesFile: nodesFile.name, file: dispFile.name }).values
   }
 
   // Units: model.json, else the headers, else the defaults with a warning.
   const read: { file: string; info: TableInfo }[] = [{ file: nodesFile.name, info: nodes.info }]
   if (dispFile && dispTable) read.push({ file: dispFile.name, info: dispTable.info })
-  const length = resolveUnit('length', meta?.declaredUnits.length ?? null, read, meta?.units.length ?? 'm')
-  const stressUnit = resolveUnit('stress', meta?.declaredUnits.stress ?? null, [{ file: stressFile.name, info: stressTable.info }], meta?.units.stress ?? 'Pa')
+  const length = resolveUnit('length', meta?.declaredUnits.length ?? null, read, meta?.units.length ?? 'm', options.units?.length)
+  const stressUnit = resolveUnit('stress', meta?.declaredUnits.stress ?? null, [{ file: stressFile.name, info: stressTable.info }], meta?.units.stress ?? 'Pa', options.units?.stress)
   const units = { length: length.unit as LengthUnit, stress: stressUnit.unit as StressUnit }
   const unitSources = { length: length.source, stress: stressUnit.source }
 
@@ -216,6 +223,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
 
   const mesh = createMesh(coords, blocks, nodeIds)
   return {
+    ...(stressField ? { stressField } : {}),
     name: meta?.name ?? options.name ?? 'model',
     description: meta?.description ?? '',
     units,
@@ -233,7 +241,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
  * One unit from model.json (`declared`) or the headers of `tables`; two that disagree are an
  * InputError naming both.
  */
-function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables: readonly { file: string; info: TableInfo }[], fallback: string): { unit: string; source: UnitSource } {
+function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables: readonly { file: string; info: TableInfo }[], fallback: string, chosen?: string): { unit: string; source: UnitSource } {
   let fromHeader: { unit: string; file: string; line: number; column: string } | null = null
   for (const t of tables) {
     const u = t.info.unit
@@ -251,6 +259,7 @@ function resolveUnit(kind: 'length' | 'stress', declared: string | null, tables:
     return { unit: declared, source: 'model.json' }
   }
   if (fromHeader) return { unit: fromHeader.unit, source: 'header' }
+  if (chosen) return { unit: chosen, source: 'chosen' }
   return { unit: fallback, source: 'default' }
 }
 
@@ -281,6 +290,25 @@ function checkElementIdsUnique(raw: readonly RawElementBlock[], file: string): v
     const [l1, l2] = [lines[ix.firstRow], lines[ix.secondRow]].sort((a, b) => a - b)
     throw new InputError('duplicate-id', `element id ${ix.id} appears twice (lines ${l1} and ${l2}); ids must be unique`, { file, line: l2, column: 'id', elementId: ix.id })
   }
+}
+
+/**
+ * The values of a nodal table (stress, displacement) in node order: the table's own array when its
+ * rows follow the nodes file (the usual layout), else each row moved to its node's slot (`has`
+ * marks the nodes with a row). A node an element uses without a row is an error.
+ */
+function nodalRows(t: NumericTable, width: number, kind: 'stress' | 'displacement', c: {
+  nodeIds: Int32Array; nodeIndex: IdIndex; used: Uint8Array; raw: readonly RawElementBlock[]; blocks: readonly BlockInput[]; nodesFile: string; file: string
+}): { values: Float64Array; has: Uint8Array | null } {
+  if (sameIds(t.ids, c.nodeIds)) return { values: t.values, has: null }
+  const values = new Float64Array(width * c.nodeIds.length)
+  const has = scatterRows(t, width, values, c.nodeIndex, c.nodesFile, c.file)
+  const missing = firstUsedWithout(c.used, has)
+  if (missing >= 0) {
+    const el = findElementUsing(c.raw, c.blocks, missing)
+    throw new InputError(kind === 'stress' ? 'missing-stress' : 'missing-displacement', `no ${kind} row for node ${c.nodeIds[missing]}, which element ${el.id} uses; every node of an element needs one`, { file: c.file, elementId: el.id })
+  }
+  return { values, has }
 }
 
 /** Replaces user node ids by node indices (in place) and marks used nodes. */

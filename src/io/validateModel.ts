@@ -36,6 +36,18 @@ export function validateModel(model: Model, source = 'model'): void {
     if (i >= 0) bad('displacement', `node ${mesh.nodeIds[(i / 3) | 0]} has a non-finite displacement`, 'not-finite')
   }
   checkIds(mesh.nodeIds, 'nodeIds', 'node', source)
+  // --- element-nodal: one row index per element-node, every row in range and finite ---
+  const field = model.stressField
+  if (field) {
+    const R = field.values.length / 6
+    if (!Number.isInteger(R) || field.rows.length !== mesh.blocks.length) bad('stressField', `the element-nodal field has ${field.values.length} numbers and rows for ${field.rows.length} of ${mesh.blocks.length} blocks`)
+    i = firstNonFinite(field.values)
+    if (i >= 0) bad('stressField', `element-node row ${(i / 6) | 0} has a non-finite stress`, 'not-finite')
+    field.rows.forEach((rows, k) => {
+      if (rows.length !== mesh.blocks[k].conn.length) bad(`stressField.rows[${k}]`, `${rows.length} rows for ${mesh.blocks[k].conn.length} element-nodes`)
+      for (let j = 0; j < rows.length; j++) if (!(rows[j] >= 0 && rows[j] < R)) bad(`stressField.rows[${k}]`, `row ${rows[j]} is outside 0..${R - 1}`)
+    })
+  }
   let offset = 0
   const allIds: Int32Array[] = []
   mesh.blocks.forEach((b, k) => {

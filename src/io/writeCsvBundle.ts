@@ -1,6 +1,8 @@
 /**
  * Writes a Model as a CSV bundle that readCsvBundle reads back to the same numbers: numbers are
  * written in the shortest form that round-trips (ECMAScript Number::toString), -0 as "-0".
+ * Element-nodal stress (model.stressField) is written as element,node,sxx,... rows in the order
+ * of the connectivity.
  */
 import { elementType } from '../model/elementTypes.ts'
 import type { Model } from '../model/model.ts'
@@ -18,6 +20,24 @@ function table(header: string, rows: number, width: number, ids: Int32Array, val
     for (let k = 0; k < width; k++) line += ',' + num(values[r * width + k])
     out.push(line)
   }
+  return out.join('\n') + '\n'
+}
+
+/** Element-nodal stress: a row per element and node, in the order of the connectivity. */
+function elementNodalTable(model: Model): string {
+  const { mesh } = model
+  const field = model.stressField!
+  const v = field.values
+  const out: string[] = ['element,node,sxx,syy,szz,sxy,syz,sxz']
+  mesh.blocks.forEach((b, k) => {
+    const nn = elementType(b.type).nodeCount
+    const rows = field.rows[k]
+    for (let i = 0; i < b.conn.length; i++) {
+      let line = `${b.ids[(i / nn) | 0]},${mesh.nodeIds[b.conn[i]]}`
+      for (let c = 0; c < 6; c++) line += ',' + num(v[6 * rows[i] + c])
+      out.push(line)
+    }
+  })
   return out.join('\n') + '\n'
 }
 
@@ -43,7 +63,7 @@ export function writeCsvBundle(model: Model): CsvFile[] {
     }
   }
   files.push({ name: 'elements.csv', text: el.join('\n') + '\n' })
-  files.push({ name: 'stress.csv', text: table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
+  files.push({ name: 'stress.csv', text: model.stressField ? elementNodalTable(model) : table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
   if (model.displacement) files.push({ name: 'displacement.csv', text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, model.displacement) })
   const parts = model.parts && model.parts.length > 0 ? { parts: partsJson(model.parts) } : {}
   const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts }

@@ -18,10 +18,11 @@
  *   its event loop turn there).
  *
  * Stress comes as a StressField (src/model/stressField.ts), so nodal and element-nodal stress
- * take the same path; `analysisInputOf` wraps a model's nodal stress.
+ * take the same path; `analysisInputOf` gives a model's field (modelStressField) and its display
+ * stress (element-nodal stress averaged within each part), which the invariants read.
  */
 import type { Model, Mesh, Vec3 } from '../model/model.ts'
-import { nodalDisplayStress, nodalStressField } from '../model/stressField.ts'
+import { modelStressField, nodalDisplayStress } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
@@ -38,6 +39,9 @@ export interface AnalysisInput {
   readonly stress: StressField
   /** ρ·b, force per unit volume (stress / length). */
   readonly bodyForce: Vec3
+  // --- element-nodal ---
+  /** Nodal display stress (6·N) when the caller has it (a model's `stress`); else averaged here from `stress`. */
+  readonly displayStress?: Float64Array
 }
 
 /** What the stages produce, one field per stage (same names). */
@@ -85,9 +89,17 @@ export interface AsyncAnalysisHooks {
   readonly beforeStage?: (stage: AnalysisStage) => void | Promise<void>
 }
 
-/** The input of a loaded model: its nodal stress as a field, its body force unless one is given. */
+/**
+ * The input of a loaded model: its stress field (element-nodal where it has one, else its nodal
+ * stress through the connectivity), its display stress, its body force unless one is given.
+ */
 export function analysisInputOf(model: Model, bodyForce: Vec3 = model.bodyForce): AnalysisInput {
-  return { mesh: model.mesh, stress: nodalStressField(model.mesh, model.stress), bodyForce }
+  return { mesh: model.mesh, stress: modelStressField(model), bodyForce, displayStress: model.stress }
+}
+
+/** The nodal stress the display and the invariants use. */
+export function displayStressOf(input: AnalysisInput): Float64Array {
+  return input.displayStress ?? nodalDisplayStress(input.stress, input.mesh)
 }
 
 /**
@@ -97,8 +109,8 @@ export function analysisInputOf(model: Model, bodyForce: Vec3 = model.bodyForce)
 const STAGE_WORK: { readonly [K in AnalysisStage]: (input: AnalysisInput, options: AnalysisOptions, done: AnalysisResult) => AnalysisResult[K] } = {
   faces: ({ mesh }) => extractBoundaryFaces(mesh),
   tractions: ({ mesh, stress }, _o, { faces }) => computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, stress, faces),
-  invariants: ({ stress }) => {
-    const nodal = nodalDisplayStress(stress)
+  invariants: (input) => {
+    const nodal = displayStressOf(input)
     return computeNodalInvariants(allocateNodalInvariants(nodal.length / 6), nodal)
   },
   elementBalance: ({ mesh, stress, bodyForce }, o) =>

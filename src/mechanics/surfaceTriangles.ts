@@ -15,7 +15,8 @@
  * - `faceVertexStart`: Int32Array(F + 1), first vertex of each face (and V at the end);
  * - `scalars[q]`: Float32Array(V) for each SurfaceQuantity, model stress units, except
  *   `balanceIndicator` (dimensionless, the element's |residual| / gross on all its face vertices,
- *   0 when no balance was given). NaN stays NaN (the shader paints it neutral);
+ *   0 when no balance was given) and `stressJump` (dimensionless, src/mechanics/stressJump.ts, at
+ *   the face's node; 0 when none was given: nodal stress). NaN stays NaN (the shader paints it neutral);
  * - `ranges[q]`: [min, max] over the finite values of `scalars[q]` ([0, 0] when none);
  * - `patch`: Float32Array(V), load-patch id of the vertex's face, -1 on the nominally free surface
  *   (or everywhere when no labels were given); a float because it is a vertex attribute;
@@ -30,10 +31,10 @@ import type { BoundaryFaces, NodalInvariants, SurfaceTractions } from './types.t
 /** Scalars the surface can be coloured by (names shared with the app store's QuantityName). */
 export type SurfaceQuantity =
   | 'normalTraction' | 'shearTraction' | 'tractionMagnitude'
-  | 'vonMises' | 'principal1' | 'principal3' | 'balanceIndicator'
+  | 'vonMises' | 'principal1' | 'principal3' | 'balanceIndicator' | 'stressJump'
 
 export const SURFACE_QUANTITIES: readonly SurfaceQuantity[] = [
-  'normalTraction', 'shearTraction', 'tractionMagnitude', 'vonMises', 'principal1', 'principal3', 'balanceIndicator',
+  'normalTraction', 'shearTraction', 'tractionMagnitude', 'vonMises', 'principal1', 'principal3', 'balanceIndicator', 'stressJump',
 ]
 
 export interface SurfaceTriangles {
@@ -55,7 +56,8 @@ const LOCAL_TRIS: readonly (readonly number[])[] = FACE_KINDS.map((k) => k.trian
 
 /**
  * Builds the surface render buffers. `indicator` is the ElementBalance indicator per element
- * (dimensionless) or null; `faceLabel` the LoadPatches label per boundary face or null.
+ * (dimensionless) or null; `faceLabel` the LoadPatches label per boundary face or null; `jump`
+ * the stress jump per node (element-nodal stress) or null.
  */
 export function buildSurfaceTriangles(
   coords: Float64Array,
@@ -64,6 +66,7 @@ export function buildSurfaceTriangles(
   invariants: NodalInvariants,
   indicator: ArrayLike<number> | null = null,
   faceLabel: Int32Array | null = null,
+  jump: ArrayLike<number> | null = null,
 ): SurfaceTriangles {
   const F = faces.count
   const kind = faces.kind
@@ -87,6 +90,7 @@ export function buildSurfaceTriangles(
   const principal1 = new Float32Array(V)
   const principal3 = new Float32Array(V)
   const balanceIndicator = new Float32Array(V)
+  const stressJump = new Float32Array(V)
   const patch = new Float32Array(V)
 
   const nodes = faces.nodes, elem = faces.elem, S = faces.slots
@@ -124,6 +128,7 @@ export function buildSurfaceTriangles(
       principal1[v] = pr[3 * node]
       principal3[v] = pr[3 * node + 2]
       balanceIndicator[v] = ind
+      if (jump) stressJump[v] = jump[node]
       patch[v] = label
     }
     const local = LOCAL_TRIS[k]
@@ -137,7 +142,7 @@ export function buildSurfaceTriangles(
   }
 
   const scalars: Record<SurfaceQuantity, Float32Array> = {
-    normalTraction, shearTraction, tractionMagnitude, vonMises, principal1, principal3, balanceIndicator,
+    normalTraction, shearTraction, tractionMagnitude, vonMises, principal1, principal3, balanceIndicator, stressJump,
   }
   const ranges = {} as Record<SurfaceQuantity, readonly [number, number]>
   for (const q of SURFACE_QUANTITIES) ranges[q] = finiteRange(scalars[q])

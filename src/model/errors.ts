@@ -12,6 +12,8 @@ export type InputErrorKind =
   // Reading what solvers and spreadsheets write: an undecidable CSV dialect, and quadratic
   // elements whose mid-edge nodes are off their edges or whose Jacobian is not positive.
   | 'csv-dialect' | 'mid-edge-node' | 'negative-jacobian'
+  // --- element-nodal: a stress row for an element that does not exist, or at a node that is not the element's ---
+  | 'missing-element' | 'element-node'
 
 export interface InputErrorWhere {
   readonly file?: string

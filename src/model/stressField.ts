@@ -90,12 +90,14 @@ export function nodalDisplayStress(field: StressField, mesh?: Mesh): Float64Arra
 export function displayPartOfNodes(mesh: Mesh): Int32Array {
   const out = new Int32Array(mesh.nodeCount).fill(-1)
   for (const b of mesh.blocks) {
-    const conn = b.conn, part = b.part
-    const nn = conn.length / Math.max(1, b.ids.length)
-    for (let i = 0; i < conn.length; i++) {
-      const p = part ? part[(i / nn) | 0] : 0
-      const n = conn[i]
-      if (out[n] < 0 || p < out[n]) out[n] = p
+    const conn = b.conn, part = b.part, E = b.ids.length
+    const nn = E > 0 ? conn.length / E : 0
+    for (let e = 0, i = 0; e < E; e++) {
+      const p = part ? part[e] : 0
+      for (let end = i + nn; i < end; i++) {
+        const n = conn[i]
+        if (out[n] < 0 || p < out[n]) out[n] = p
+      }
     }
   }
   return out
@@ -113,16 +115,19 @@ export function partAveragedStress(mesh: Mesh, field: StressField, out: Float64A
   out.fill(0)
   const v = field.values
   mesh.blocks.forEach((b, k) => {
-    const conn = b.conn, part = b.part, rows = field.rows[k]
-    const nn = conn.length / Math.max(1, b.ids.length)
-    for (let i = 0; i < conn.length; i++) {
-      const n = conn[i]
-      // Only the elements of the node's display part contribute.
-      if ((part ? part[(i / nn) | 0] : 0) !== nodePart[n]) continue
-      const r = 6 * rows[i], o = 6 * n
-      out[o] += v[r]; out[o + 1] += v[r + 1]; out[o + 2] += v[r + 2]
-      out[o + 3] += v[r + 3]; out[o + 4] += v[r + 4]; out[o + 5] += v[r + 5]
-      count[n]++
+    const conn = b.conn, part = b.part, rows = field.rows[k], E = b.ids.length
+    const nn = E > 0 ? conn.length / E : 0
+    for (let e = 0, i = 0; e < E; e++) {
+      const p = part ? part[e] : 0
+      for (let end = i + nn; i < end; i++) {
+        const n = conn[i]
+        // Only the elements of the node's display part contribute.
+        if (p !== nodePart[n]) continue
+        const r = 6 * rows[i], o = 6 * n
+        out[o] += v[r]; out[o + 1] += v[r + 1]; out[o + 2] += v[r + 2]
+        out[o + 3] += v[r + 3]; out[o + 4] += v[r + 4]; out[o + 5] += v[r + 5]
+        count[n]++
+      }
     }
   })
   for (let n = 0; n < N; n++) {

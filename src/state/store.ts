@@ -35,6 +35,8 @@ import { LOAD_PATCH_DEFAULTS } from '../mechanics/loadPatches.ts'
 export const DEFAULT_PATCH_RULE: PatchRule = { ...LOAD_PATCH_DEFAULTS }
 import { defaultMapFor, isSignedQuantity, modelSphere } from './selectors.ts'
 import { createSweepSlice } from './sweepSlice.ts'
+import { createIntakeSlice } from './intakeSlice.ts'
+import type { IntakeSlice } from './intakeSlice.ts'
 import type { SweepSlice } from './sweepSlice.ts'
 // Lines, the deformed shape and stress components: two slices of their own.
 import { createLineSlice } from './lineSlice.ts'
@@ -305,7 +307,7 @@ export interface TractusActions {
   markElement: (element: MarkedElement | null) => void
 }
 
-export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice
+export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice & IntakeSlice
 
 export const DEFAULT_SECTION: SectionState = {
   enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'auto', traction: 'normalTraction', dragging: false,
@@ -385,6 +387,7 @@ export function longestAxis(bounds: { readonly min: readonly number[]; readonly 
 const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   ...INITIAL,
   ...createSweepSlice(set, get, api),
+  ...createIntakeSlice(set, get, api),
   ...createLineSlice(set, get, api),
   ...createShapeSlice(set, get, api),
 

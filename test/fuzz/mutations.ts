@@ -1,8 +1,9 @@
 /**
  * Mutations of valid inputs for the fuzz tests: small CSV bundles (as we write them, and in the
  * dialects solvers and spreadsheets write: semicolons and decimal commas, tabs, runs of spaces,
- * quotes, preambles, no header, mapped names, other type names and node orders, extra columns)
- * and .tractus containers, broken by truncation, byte and character flips, line deletion and
+ * quotes, preambles, no header, mapped names, other type names and node orders, extra columns,
+ * element-nodal stress in commas and in semicolons with decimal commas) and .tractus containers
+ * (nodal and element-nodal), broken by truncation, byte and character flips, line deletion and
  * duplication, row shuffles, column swaps, inserted text, dropped files, header edits, swapped
  * separators and decimal marks, stray or wrapping quotes and edits of model.json's keys. One case
  * = one base input and one to three mutations, all drawn by fast-check so a seed reproduces it.
@@ -17,6 +18,7 @@ import { mixedModel } from '../io/testModels.ts'
 import { tinyBundle, toFiles } from '../io/tinyBundle.ts'
 import { patchNative } from '../io/nativePatch.ts'
 import { VARIANTS, bundleOf, variantModel } from '../io/bundleVariants.ts'
+import { elementNodalCopy } from '../helpers/elementNodal.ts'
 
 /** `sep` is the separator the base's CSV files were written with. */
 type CsvBase = { kind: 'csv'; name: string; files: { name: string; text: string }[]; sep: string }
@@ -29,12 +31,20 @@ function makeBases(): Base[] {
   const mixed = writeCsvBundle(mixedModel(ELEMENT_TYPE_NAMES, 100, true, { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 }))
   const plain = bundleOf(variantModel())
   const dialects: CsvBase[] = DIALECT_BASES.map(([name, sep]) => ({ kind: 'csv', name: `${name} bundle`, files: toFiles(VARIANTS.find((v) => v.name === name)!.make(plain)), sep }))
+  // Element-nodal stress (element,node,sxx,...): every type, a row per element and node, also
+  // with semicolons and decimal commas.
+  const enModel = mixedModel(ELEMENT_TYPE_NAMES, 100, true, { nx: 1, ny: 1, nz: 1, lx: 1, ly: 1, lz: 1 })
+  const en = writeCsvBundle({ ...enModel, stressField: elementNodalCopy(enModel.mesh, enModel.stress) })
+  const enSemicolon = en.map((f) => (f.name.endsWith('.csv') ? { name: f.name, text: f.text.replace(/,/g, ';').replace(/\./g, ',') } : f))
   return [
     { kind: 'csv', name: 'tiny bundle', files: tiny, sep: ',' },
     { kind: 'csv', name: 'mixed bundle', files: mixed, sep: ',' },
     ...dialects,
+    { kind: 'csv', name: 'element-nodal bundle', files: en, sep: ',' },
+    { kind: 'csv', name: 'element-nodal semicolon bundle', files: enSemicolon, sep: ';' },
     { kind: 'native', name: 'tiny container', bytes: writeNative(readCsvBundle(tiny)) },
     { kind: 'native', name: 'mixed container', bytes: writeNative(readCsvBundle(mixed)) },
+    { kind: 'native', name: 'element-nodal container', bytes: writeNative(readCsvBundle(en)) },
   ]
 }
 
@@ -69,7 +79,7 @@ export interface FuzzCase { base: number; mutations: Mutation[] }
 const CHARS = ['0', '1', '9', '-', '+', '.', 'e', 'E', 'd', 'D', ',', ';', '\n', '\r', '#', ' ', '\t', 'x', '"', 'N', 'I', '[', ']', '(', ')', '\uFEFF', 'é', '\u0000']
 /** model.json keys a 'json' mutation sets or deletes, and the values it sets them to. */
 const JSON_KEYS = ['csv.separator', 'csv.decimal', 'csv.skipLines', 'csv.header', 'csv.nodes.skipLines', 'csv.stress.header', 'units', 'units.length', 'columns.nodes.x', 'columns.nodes.id',
-  'columns.elements.nodes', 'columns.stress.sxx', 'types.tetra4', 'nodeOrder.tet10', 'nodeOrder.hex20', 'files.nodes', 'files.stress', 'csv', 'columns', 'files']
+  'columns.elements.nodes', 'columns.stress.sxx', 'columns.stress.element', 'columns.stress.node', 'types.tetra4', 'nodeOrder.tet10', 'nodeOrder.hex20', 'files.nodes', 'files.stress', 'csv', 'columns', 'files']
 const JSON_VALUES: readonly unknown[] = [undefined, ',', ';', '\t', ' ', 'spaces', '.', 0, 1, 3, -1, 2.5, true, false, 'X', 'n1', 'Node', 'tet4', 'mm', 'nodes.csv', 'stress.csv',
   [0, 1, 2, 3, 4, 5, 6, 7, 9, 8], [1, 0], ['n1', 'n2'], { length: 'mm' }, {}, null]
 // Positions drawn without fast-check's bias toward small values, so mutations land anywhere.

@@ -14,11 +14,13 @@ export function QuantitySelect({ testId }: { testId: string }) {
   const setQuantity = useStore((s) => s.setQuantity)
   const axes = useStore((s) => s.componentAxes)
   const hasDisplacement = useStore((s) => s.deformationBuffers !== null)
+  // The stress jump needs a value per element and node; with nodal stress it is zero everywhere.
+  const elementNodal = useStore((s) => s.model?.stressLayout === 'element-nodal')
   const cyl = axes.kind === 'cylindrical'
   return (
     <select value={quantity} data-testid={testId} aria-label="Quantity" onChange={(e) => setQuantity(e.target.value as QuantityName)}>
       <optgroup label="Tractions and invariants">
-        {QUANTITY_NAMES.map((q, i) => <option key={q} value={q}>{i + 1} · {QUANTITY_LABEL[q]}</option>)}
+        {QUANTITY_NAMES.map((q, i) => (q !== 'stressJump' || elementNodal ? <option key={q} value={q}>{i + 1} · {QUANTITY_LABEL[q]}</option> : null))}
       </optgroup>
       <optgroup label={cyl ? 'Stress components, cylindrical r, θ, z' : 'Stress components, global x, y, z'}>
         {STRESS_COMPONENTS.map((q) => <option key={q} value={q}>{quantityLabel(q, axes)}</option>)}

@@ -39,7 +39,7 @@ export const FileIntake = forwardRef<HTMLInputElement>(function FileIntake(_prop
       />
       {over ? (
         <div className="drop-zone" data-testid="drop-zone">
-          <p>Drop nodes.csv, elements.csv, stress.csv (and model.json, displacement.csv) together, or one .tractus file.</p>
+          <p>Drop nodes.csv, elements.csv, stress.csv (and model.json, displacement.csv) together, or one .tractus file. Files named otherwise are matched in the next step.</p>
         </div>
       ) : null}
     </>

@@ -21,6 +21,9 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
       <span className="brand">Tractus</span>
       <span className="model-name" data-testid="model-name" title={model?.description ?? ''}>{model ? model.name || 'Unnamed model' : 'No model loaded'}</span>
       {model ? <span className="counts num">{model.elementCount.toLocaleString('en-US')} elements · {model.nodeCount.toLocaleString('en-US')} nodes · model units {model.units.length}, {model.units.stress}</span> : null}
+      {model && model.unitsDeclared === false ? (
+        <span className="units-undeclared" data-testid="units-undeclared" title={model.warnings.find((w) => /declared/.test(w)) ?? 'The files do not state their units.'}>units not declared</span>
+      ) : null}
       <span className="spacer" />
       <QuantitySelect testId="quantity" />
       <UnitsMenu />
