@@ -37,7 +37,8 @@ export async function setup(): Promise<void> {
   server.stdout?.on('data', (d) => { output += String(d) })
   server.stderr?.on('data', (d) => { output += String(d) })
   const exited = new Promise<never>((_, reject) => server!.once('exit', (code) => reject(new Error(`vite preview exited (${code}): ${output}`))))
-  await Promise.race([waitForServer(30_000), exited])
+  // Generous: on a loaded two-core machine the preview server can take tens of seconds to start.
+  await Promise.race([waitForServer(90_000), exited])
 }
 
 export async function teardown(): Promise<void> {
