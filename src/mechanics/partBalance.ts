@@ -72,13 +72,19 @@ export function partNumbers(mesh: Mesh): number[] {
 
 /** The sub-mesh of one part's elements (same nodes) and its stress field. */
 export function partSubmesh(mesh: Mesh, field: StressField, part: number): { mesh: Mesh; field: StressField } {
+  return partsSubmesh(mesh, field, [part])
+}
+
+/** The sub-mesh of the elements of the given parts (same nodes, part numbers kept) and its stress field. */
+export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly number[]): { mesh: Mesh; field: StressField } {
+  const wanted = new Set(parts)
   const blocks: ElementBlock[] = []
   const rows: Int32Array[] = []
   let offset = 0
   mesh.blocks.forEach((b, bi) => {
     const nn = ELEMENT_TYPES[b.type].nodeCount, count = b.ids.length
     const keep: number[] = []
-    for (let e = 0; e < count; e++) if ((b.part ? b.part[e] : 0) === part) keep.push(e)
+    for (let e = 0; e < count; e++) if (wanted.has(b.part ? b.part[e] : 0)) keep.push(e)
     if (keep.length === 0) return
     const conn = new Int32Array(keep.length * nn), ids = new Int32Array(keep.length), r = new Int32Array(keep.length * nn)
     keep.forEach((e, k) => {
@@ -86,7 +92,9 @@ export function partSubmesh(mesh: Mesh, field: StressField, part: number): { mes
       r.set(field.rows[bi].subarray(e * nn, (e + 1) * nn), k * nn)
       ids[k] = b.ids[e]
     })
-    blocks.push({ type: b.type, conn, ids, part: new Int32Array(keep.length).fill(part), offset })
+    const part = new Int32Array(keep.length)
+    if (b.part) keep.forEach((e, k) => { part[k] = b.part![e] })
+    blocks.push({ type: b.type, conn, ids, part, offset })
     rows.push(field.layout === 'nodal' ? conn : r)
     offset += keep.length
   })

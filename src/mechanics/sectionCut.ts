@@ -43,7 +43,8 @@ import {
   addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
-import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
+import type { BoundaryFaces, FreeBodyFigure, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
+import { partsSubmesh } from './partBalance.ts'
 import { ZERO_FREE_BODY } from './freeBody.ts'
 
 export { unitNormal } from './plane.ts'
@@ -62,6 +63,12 @@ export interface CutSectionOptions {
   readonly regions?: boolean
   /** Limit the cut to parts and/or a disc; the top-level figures are then the selection's. */
   readonly limit?: SectionLimit | null
+  /**
+   * For a cut limited to whole parts (no disc): the boundary faces and tractions of those parts'
+   * sub-mesh (partsSubmesh, faces against other parts included), reused across cuts; computed
+   * here when absent.
+   */
+  readonly partPiece?: PartPiece
   /** Section axes: principal (the default) or reference, with the reference direction (sectionAxes.ts). */
   readonly axes?: SectionAxesChoice
 }
@@ -126,14 +133,57 @@ export function cutSection(
   if (rec) {
     if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons }
     const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes)
-    if (limit) return { result: recorded.result!, polygons }
+    if (limit) {
+      const sel = recorded.selection
+      if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons }
+      // a cut limited to whole parts bounds a piece: the selected parts' elements on the -m side,
+      // whose boundary includes their faces against the other parts
+      const piece = options.partPiece ?? partPiece(mesh, stress, limit.parts!)
+      const fb = pieceFreeBody(sel, piece.mesh, piece.field, piece.faces, piece.tractions, d, m, frame, bodyForce)
+      const result = sectionRecord(sel, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
+      return { result: { ...result, regions: recorded.regions, limited: true, freeBodyDefined: true }, polygons }
+    }
     regions = recorded.regions
   }
   if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons }
 
-  const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
   const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
+  const fb = pieceFreeBody(acc, mesh, stress, faces, tractions, d, m, frame, bodyForce)
+  const result = sectionRecord(acc, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
+  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons }
+}
+
+/** The part of a mesh a parts-limited cut bounds: the parts' sub-mesh, its stress, boundary faces and tractions. */
+export interface PartPiece {
+  readonly parts: readonly number[]
+  readonly mesh: Mesh
+  readonly field: StressField
+  readonly faces: BoundaryFaces
+  readonly tractions: SurfaceTractions
+}
+
+/** The piece of `parts` (O(elements): build it once per parts set when cutting repeatedly). */
+export function partPiece(mesh: Mesh, stress: StressField, parts: readonly number[]): PartPiece {
+  const sub = partsSubmesh(mesh, stress, parts)
+  const faces = extractBoundaryFaces(sub.mesh)
+  return { parts: [...parts], mesh: sub.mesh, field: sub.field, faces, tractions: freeBodyTractions(sub.mesh, sub.field, faces) }
+}
+
+/** A limit of whole parts only (no disc): its cut bounds a piece of the body, so the free body is defined. */
+export function wholeParts(limit: SectionLimit | null | undefined): boolean {
+  return !!limit && !!limit.parts && limit.parts.length > 0 && !limit.within
+}
+
+/**
+ * The free body of the -m piece of (a sub-mesh of) the body: its boundary faces on the -m side
+ * (whole and clipped), the section (acc), and the body force; moments about the section centroid.
+ */
+function pieceFreeBody(
+  acc: Float64Array, mesh: Mesh, stress: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, d: Float64Array,
+  m: Vec3, frame: Float64Array, bodyForce: Vec3,
+): { freeBody: FreeBodyFigure; unmapped: number } {
+  const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const fb = new Float64Array(FB_SIZE)
   initFreeBody(fb, 0)
   const cs = createClipScratch()
@@ -141,21 +191,19 @@ export function cutSection(
   freeBodyFaces(fb, 0, mesh, stress, faces, tractions, d, cs, c, c)
   const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
   const Ms = momentAboutCentroid(acc, 0, c, frame)
-  const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS])
-  const unmapped = em.failures + cs.em.failures
-  const result = sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped, options.axes)
-  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons }
+  return { freeBody: closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS]), unmapped: cs.em.failures }
 }
 
 /**
  * The regions of a recorded cut (largest force first) and, with a limit, the selection's own
- * record: its figures are those of the selected polygons only, and its free body is marked as
- * not defined (a disc or a subset of the plane does not bound a piece of the body).
+ * record and accumulator: its figures are those of the selected polygons only, and its free body
+ * is marked as not defined (a disc does not bound a piece of the body; the caller replaces it
+ * for a limit of whole parts).
  */
 function recordedSection(
   rec: CutRecord, mesh: Mesh, acc: Float64Array, limit: SectionLimit | null, point: Vec3, m: Vec3, frame: Float64Array,
   about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined,
-): { regions: SectionRegion[]; result: SectionResult | null } {
+): { regions: SectionRegion[]; result: SectionResult | null; selection: Float64Array | null } {
   if (selScratch.length < rec.n) { selScratch = new Int32Array(rec.n); labelScratch = new Int32Array(rec.n) }
   const sel = selScratch, label = labelScratch
   const n = selectCutElements(sel, rec, mesh, limit, acc, frame)
@@ -170,10 +218,10 @@ function recordedSection(
     })
   }
   regions.sort((a, b) => Math.hypot(...b.force) - Math.hypot(...a.force))
-  if (!limit) return { regions, result: null }
+  if (!limit) return { regions, result: null, selection: null }
   const selAcc = selectionAccumulator(new Float64Array(ACC_SIZE), sel, n, rec, acc)
-  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about, choice), regions: [], limited: true, freeBodyDefined: false } }
-  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped, choice), regions, limited: true, freeBodyDefined: false } }
+  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about, choice), regions: [], limited: true, freeBodyDefined: false }, selection: null }
+  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped, choice), regions, limited: true, freeBodyDefined: false }, selection: selAcc }
 }
 
 // The passes below are separate functions so that each is optimised with its own type feedback:
