@@ -99,7 +99,7 @@ let selScratch = new Int32Array(0), labelScratch = new Int32Array(0)
  */
 export function cutSection(
   mesh: Mesh, stress: StressField, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
-): { result: SectionResult; polygons: SectionPolygons | null } {
+): { result: SectionResult; polygons: SectionPolygons | null; labels: RegionLabels | null } {
   const m = unitNormal(plane.normal)
   checkPoint(plane.point, 'section point')
   if (options.about) checkPoint(options.about, 'moment point')
@@ -130,28 +130,39 @@ export function cutSection(
   const polygons = collect ? collect.finish(mesh, stress, forces!) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   let regions: SectionRegion[] | null = null
+  const labels: RegionLabels | null = rec && options.polygons ? { element: new Int32Array(0), region: new Int32Array(0) } : null
   if (rec) {
-    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons }
-    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes)
+    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
+    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes, labels)
     if (limit) {
       const sel = recorded.selection
-      if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons }
+      if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons, labels }
       // a cut limited to whole parts bounds a piece: the selected parts' elements on the -m side,
       // whose boundary includes their faces against the other parts
       const piece = options.partPiece ?? partPiece(mesh, stress, limit.parts!)
       const fb = pieceFreeBody(sel, piece.mesh, piece.field, piece.faces, piece.tractions, d, m, frame, bodyForce)
       const result = sectionRecord(sel, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
-      return { result: { ...result, regions: recorded.regions, limited: true, freeBodyDefined: true }, polygons }
+      return { result: { ...result, regions: recorded.regions, limited: true, freeBodyDefined: true }, polygons, labels }
     }
     regions = recorded.regions
   }
-  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons }
+  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons, labels }
 
   const faces = options.faces ?? extractBoundaryFaces(mesh)
   const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
   const fb = pieceFreeBody(acc, mesh, stress, faces, tractions, d, m, frame, bodyForce)
   const result = sectionRecord(acc, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
-  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons }
+  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons, labels }
+}
+
+/**
+ * Which region each selected cut element lies in, for drawing (only when the cut was asked for
+ * polygons and regions): `element[s]` its global element index, `region[s]` the index of its
+ * region in SectionResult.regions (largest force first). Unselected elements are not listed.
+ */
+export interface RegionLabels {
+  element: Int32Array
+  region: Int32Array
 }
 
 /** The part of a mesh a parts-limited cut bounds: the parts' sub-mesh, its stress, boundary faces and tractions. */
@@ -202,22 +213,31 @@ function pieceFreeBody(
  */
 function recordedSection(
   rec: CutRecord, mesh: Mesh, acc: Float64Array, limit: SectionLimit | null, point: Vec3, m: Vec3, frame: Float64Array,
-  about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined,
+  about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined, labelsOut: RegionLabels | null,
 ): { regions: SectionRegion[]; result: SectionResult | null; selection: Float64Array | null } {
   if (selScratch.length < rec.n) { selScratch = new Int32Array(rec.n); labelScratch = new Int32Array(rec.n) }
   const sel = selScratch, label = labelScratch
   const n = selectCutElements(sel, rec, mesh, limit, acc, frame)
   const count = labelRegions(label, sel, n, rec, mesh, d)
   const ra = regionAccumulators(count, label, sel, n, rec, mesh, acc)
-  const regions: SectionRegion[] = []
+  const unsorted: SectionRegion[] = []
   for (let g = 0; g < count; g++) {
     const r = sectionRecord(ra.acc, g * ACC_SIZE, point, m, frame, null, ZERO_FREE_BODY, 0, choice)
-    regions.push({
+    unsorted.push({
       area: r.area, centroid: r.centroid, force: r.force, moment: r.moment, axes: r.axes, secondMoments: r.secondMoments,
       axial: r.axial, shear: r.shear, torque: r.torque, bending: r.bending, parts: ra.parts[g], cutElements: r.cutElements,
     })
   }
-  regions.sort((a, b) => Math.hypot(...b.force) - Math.hypot(...a.force))
+  // largest force first (stable: equal forces keep the order of their first element)
+  const order = unsorted.map((_, g) => g).sort((a, b) => Math.hypot(...unsorted[b].force) - Math.hypot(...unsorted[a].force) || a - b)
+  const regions = order.map((g) => unsorted[g])
+  if (labelsOut) {
+    const rank = new Int32Array(count)
+    order.forEach((g, k) => { rank[g] = k })
+    const element = new Int32Array(n), region = new Int32Array(n)
+    for (let s = 0; s < n; s++) { element[s] = mesh.blocks[rec.block[sel[s]]].offset + rec.local[sel[s]]; region[s] = rank[label[s]] }
+    labelsOut.element = element; labelsOut.region = region
+  }
   if (!limit) return { regions, result: null, selection: null }
   const selAcc = selectionAccumulator(new Float64Array(ACC_SIZE), sel, n, rec, acc)
   if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about, choice), regions: [], limited: true, freeBodyDefined: false }, selection: null }
