@@ -9,6 +9,8 @@ import { Card } from '../ui/Card.tsx'
 import { Num } from '../ui/Num.tsx'
 import { formatNumber, unitLabel } from '../format.ts'
 import { useStore } from '../../state/store.ts'
+import { download, fileStem } from '../exports.ts'
+import { assemblyCsv, assemblyRecords } from '../assemblyTables.ts'
 
 /** The colour of the part of rank k among n when the surface is coloured by part (CSS rgb). */
 export function partColour(k: number, n: number): string {
@@ -25,7 +27,8 @@ export function PartsCard() {
   const isolate = useStore((s) => s.isolatePart)
   const setColours = useStore((s) => s.setPartColours)
   const system = useStore((s) => s.units)
-  if (!assembly) return null
+  const model = useStore((s) => s.model)
+  if (!assembly || !model) return null
   const n = assembly.parts.length
   return (
     <Card id="parts" title={`Parts (${n})`}>
@@ -52,6 +55,10 @@ export function PartsCard() {
           })}
         </tbody>
       </table>
+      <div className="row">
+        <button type="button" data-testid="export-parts-csv" onClick={() => download(`${fileStem(model.name)}-parts.csv`, assemblyCsv(model.name, assembly, model.units, system), 'text/csv')}>Parts CSV</button>
+        <button type="button" data-testid="export-parts-json" onClick={() => download(`${fileStem(model.name)}-parts.json`, JSON.stringify({ model: model.name, modelUnits: model.units, ...assemblyRecords(assembly) }, null, 2), 'application/json')}>Parts JSON</button>
+      </div>
       <p className="note">Balance: each part is a free body whose boundary includes its faces against other parts; the full load path is in the review report.</p>
     </Card>
   )
