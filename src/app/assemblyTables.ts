@@ -55,7 +55,7 @@ export function interfaceTable(a: AssemblySummary, units: ModelUnits, system: Un
   return {
     head: ['parts a → b', `area [${unitLabel('area', system)}]`, `centroid [${unitLabel('length', system)}]`, `force a on b [${unitLabel('force', system)}]`, `moment [${unitLabel('moment', system)}]`, 'mismatch'],
     rows: a.interfaces.map((i) => [
-      `${partName(a, i.parts[0])} → ${partName(a, i.parts[1])}`, formatNumber(i.area * A), vec(i.centroid, L), vec(i.force, F, fFloor), vec(i.moment, M, mFloor), formatNumber(i.mismatch, 2),
+      `${partName(a, i.parts[0])} → ${partName(a, i.parts[1])}`, formatNumber(i.area * A), vec(i.centroid, L), vec(i.force, F, fFloor), vec(i.moment, M, mFloor), formatNumber(i.mismatch < 1e-12 ? 0 : i.mismatch, 2),
     ]),
   }
 }

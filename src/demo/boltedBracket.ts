@@ -75,7 +75,8 @@ export function bracketDescription(spec: BracketSpec, elastic: readonly number[]
     `(cut at z = 13 mm, its regions): ${pairs}. They differ because the plates are not rigid: the bracket plate bends between the bolts, ` +
     'and the bonded shanks also carry bending and shear, which the method leaves out. The four section forces add to ' +
     `${kN(section.reduce((a, b) => a + b, 0))} kN against ${kN(applied)} kN applied: nodal stress recovered across the bonded joints ` +
-    'on a coarse mesh (2 × 2 elements across a bolt). Units: mm, MPa, N.'
+    'on a coarse mesh (2 × 2 elements across a bolt). For the same reason the interfaces between bolts and plates, whose load ' +
+    'passes as shear across the bonded joints, read well below the bolt forces (about half here): read the bolts on sections. Units: mm, MPa, N.'
 }
 
 export interface BracketScenario {

@@ -6,13 +6,13 @@
  * the triangles, so nothing here loops over them.
  */
 import { useEffect, useMemo } from 'react'
-import { BufferAttribute, BufferGeometry, DoubleSide, MeshBasicMaterial } from 'three'
-import type { PerspectiveCamera, Sprite } from 'three'
+import { BufferAttribute, BufferGeometry, DoubleSide, MeshBasicMaterial, MeshLambertMaterial } from 'three'
+import type { PerspectiveCamera, Plane, Sprite } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { SectionBuffers, Vec3 } from '../../workers/protocol.ts'
 import { rawColour } from './rawColour.ts'
 import { disposeSprite, setLabelSize, textSprite } from './textSprite.ts'
-import { INTERFACE, REGION } from './sceneLook.ts'
+import { INTERFACE, NEUTRAL_SURFACE, REGION } from './sceneLook.ts'
 
 const noRaycast = (): void => {}
 
@@ -99,6 +99,43 @@ export function InterfacePatches({ positions, offsets, highlighted }: InterfaceP
     <>
       <mesh geometry={geometry} material={soft} renderOrder={6} raycast={noRaycast} frustumCulled={false} />
       {ok ? <mesh geometry={strong} material={hard} renderOrder={7} raycast={noRaycast} frustumCulled={false} /> : null}
+    </>
+  )
+}
+
+export interface ClosingFacesProps {
+  readonly positions: Float32Array
+  readonly offsets: Int32Array
+  /** Interfaces to draw (indices): those between a shown and a hidden part. */
+  readonly shown: readonly number[]
+  readonly clippingPlanes: Plane[]
+}
+
+/**
+ * The faces a shown part has against hidden parts: they are not on the body's surface (shared-node
+ * interfaces lie inside it), so a part shown alone would be open there. Drawn plain, in depth.
+ */
+export function ClosingFaces({ positions, offsets, shown, clippingPlanes }: ClosingFacesProps) {
+  const invalidate = useThree((s) => s.invalidate)
+  const geometry = useMemo(() => {
+    const g = new BufferGeometry()
+    g.setAttribute('position', new BufferAttribute(positions, 3))
+    g.computeVertexNormals()
+    return g
+  }, [positions])
+  useEffect(() => () => geometry.dispose(), [geometry])
+  const material = useMemo(() => new MeshLambertMaterial({ color: rawColour(NEUTRAL_SURFACE), side: DoubleSide, clippingPlanes, toneMapped: false }), [clippingPlanes])
+  useEffect(() => () => material.dispose(), [material])
+  useEffect(() => {
+    geometry.clearGroups()
+    for (const i of shown) geometry.addGroup(3 * offsets[i], 3 * (offsets[i + 1] - offsets[i]), 0)
+    invalidate()
+  }, [geometry, offsets, shown, invalidate])
+  const materials = useMemo(() => [material], [material])
+  return (
+    <>
+      <hemisphereLight args={['#ffffff', '#c4c4bf', 1.7]} />
+      <mesh geometry={geometry} material={materials} raycast={noRaycast} frustumCulled={false} />
     </>
   )
 }

@@ -18,7 +18,7 @@ import { SectionFill } from './SectionFill.tsx'
 import { SectionHandle } from './SectionHandle.tsx'
 import { SnapshotRegistrar } from './SnapshotRegistrar.tsx'
 import { SurfaceMesh } from './SurfaceMesh.tsx'
-import { InterfacePatches, RegionMarks } from './AssemblyMarks.tsx'
+import { ClosingFaces, InterfacePatches, RegionMarks } from './AssemblyMarks.tsx'
 import { sectionColouring } from './sectionColouring.ts'
 import { useClippingPlanes } from './useClippingPlanes.ts'
 import { arrowColouring, arrowReference, roundDown125 } from './arrowColouring.ts'
@@ -127,6 +127,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
     const o = assembly.partTriangles
     return assembly.parts.flatMap((p, k): [number, number][] => (hiddenParts.includes(p.part) ? [] : [[o[k], o[k + 1] - o[k]]]))
   }, [assembly, hiddenParts])
+  const closing = useMemo(() => (!assembly || hiddenParts.length === 0 ? [] : assembly.interfaces.flatMap((i, k) => (hiddenParts.includes(i.parts[0]) !== hiddenParts.includes(i.parts[1]) ? [k] : []))), [assembly, hiddenParts])
   const partRange = useMemo((): [number, number] => [-0.5, (assembly?.parts.length ?? 1) - 0.5], [assembly])
   // numbers only where the cut has several regions (one would sit on the section triad)
   const regionCentroids = useMemo(() => ((sectionResult?.regions?.length ?? 0) > 1 ? sectionResult!.regions!.map((g) => g.centroid) : []), [sectionResult])
@@ -145,7 +146,8 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
           clipped={section.enabled && section.hide !== 'none' && !faceCoversCut}
         />
       )}
-      {edges && model && (
+      {/* the feature edges belong to the whole body: left out while parts are hidden */}
+      {edges && model && hiddenParts.length === 0 && (
         <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} displacement={deformationBuffers?.edges ?? null} deformScale={deformScale} />
       )}
       {edges && model && deformScale !== 0 && deformation.outline && (
@@ -168,6 +170,9 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
       )}
       {section.enabled && sectionBuffers && regionTriangles && !section.dragging && (
         <RegionMarks buffers={sectionBuffers} offsets={regionTriangles} centroids={regionCentroids} highlighted={highlightedRegion} />
+      )}
+      {assembly && closing.length > 0 && (
+        <ClosingFaces positions={assembly.interfacePositions} offsets={assembly.interfaceTriangles} shown={closing} clippingPlanes={clippingPlanes} />
       )}
       {assembly && interfacesShown && assembly.interfaces.length > 0 && (
         <InterfacePatches positions={assembly.interfacePositions} offsets={assembly.interfaceTriangles} highlighted={highlightedInterface} />

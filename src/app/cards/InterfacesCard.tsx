@@ -37,7 +37,8 @@ export function InterfacesCard() {
                   <td>{i.parts[0]} → {i.parts[1]}</td>
                   <td><Num v={i.area} q="area" bare /></td>
                   <td><Num v={Math.hypot(...i.force)} q="force" bare floor={fFloor} /></td>
-                  <td><span className="num" data-model={String(i.mismatch)}>{formatNumber(i.mismatch, 2)}</span></td>
+                  {/* round-off (below 10⁻¹²) reads 0; data-model keeps the value */}
+                  <td><span className="num" data-model={String(i.mismatch)}>{formatNumber(i.mismatch < 1e-12 ? 0 : i.mismatch, 2)}</span></td>
                 </tr>
               ))}
             </tbody>

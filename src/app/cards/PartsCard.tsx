@@ -37,7 +37,7 @@ export function PartsCard() {
         <button type="button" data-testid="parts-show-all" disabled={hidden.length === 0} onClick={() => isolate(null)}>Show every part</button>
       </div>
       <table className="figures list" data-testid="parts-table">
-        <thead><tr><th title="shown">⎚</th><th>#</th><th>Name</th><th>Elements</th><th>Volume [{unitLabel('volume', system)}]</th><th title="|residual force| / gross load of the part's own free body">Balance</th><th /></tr></thead>
+        <thead><tr><th title="shown">⎚</th><th>#</th><th>Name</th><th>Elements</th><th>Volume [{unitLabel('volume', system)}]</th><th /></tr></thead>
         <tbody>
           {assembly.parts.map((p, k) => {
             const shown = !hidden.includes(p.part)
@@ -45,10 +45,9 @@ export function PartsCard() {
               <tr key={p.part} data-part={p.part} className={shown ? '' : 'hidden'}>
                 <td><input type="checkbox" aria-label={`show part ${p.part}`} data-testid={`part-shown-${p.part}`} checked={shown} onChange={(e) => setHidden(p.part, !e.target.checked)} /></td>
                 <td>{colours ? <span className="swatch" style={{ background: partColour(k, n) }} aria-hidden /> : null}{p.part}</td>
-                <td className="name">{p.name || '—'}</td>
+                <td className="name" title={`own balance: residual ${formatNumber(p.balance.relative, 2)} of the part's gross load`}>{p.name || '—'}</td>
                 <td><span className="num">{p.elements}</span></td>
                 <td><Num v={p.volume} q="volume" bare /></td>
-                <td><span className="num" data-model={String(p.balance.relative)}>{formatNumber(p.balance.relative, 2)}</span></td>
                 <td><button type="button" data-testid={`part-isolate-${p.part}`} title={`Show part ${p.part} alone`} onClick={() => isolate(p.part)}>alone</button></td>
               </tr>
             )
@@ -59,7 +58,7 @@ export function PartsCard() {
         <button type="button" data-testid="export-parts-csv" onClick={() => download(`${fileStem(model.name)}-parts.csv`, assemblyCsv(model.name, assembly, model.units, system), 'text/csv')}>Parts CSV</button>
         <button type="button" data-testid="export-parts-json" onClick={() => download(`${fileStem(model.name)}-parts.json`, JSON.stringify({ model: model.name, modelUnits: model.units, ...assemblyRecords(assembly) }, null, 2), 'application/json')}>Parts JSON</button>
       </div>
-      <p className="note">Balance: each part is a free body whose boundary includes its faces against other parts; the full load path is in the review report.</p>
+      <p className="note">Each part&apos;s own balance (a free body whose boundary includes its faces against other parts) and the load path are in the exports and the review report.</p>
     </Card>
   )
 }

@@ -43,7 +43,7 @@ export function RegionTable({ result }: { result: SectionResult }) {
           {regions.map((g, k) => (
             <tr key={k} className={k === highlighted ? 'sel' : ''} data-region={k + 1} onClick={() => setHighlighted(k === highlighted ? -1 : k)}>
               <td>{k + 1}</td>
-              <td>{g.parts.map((p) => partLabel(p, names)).join(', ')}</td>
+              <td title={g.parts.map((p) => partLabel(p, names)).join(', ')}>{g.parts.join(', ')}</td>
               <td><Num v={g.area} q="area" bare /></td>
               <td><Num v={g.axial} q="force" bare floor={fFloor} /></td>
               <td><Num v={Math.hypot(...g.shear)} q="force" bare floor={fFloor} /></td>
@@ -54,7 +54,7 @@ export function RegionTable({ result }: { result: SectionResult }) {
       </table>
       {sel ? (
         <table className="figures" data-testid="cut-region-selected">
-          <caption>Region {highlighted + 1}: about its own centroid, in its own section axes</caption>
+          <caption>Region {highlighted + 1} (part {sel.parts.map((p) => partLabel(p, names)).join(', ')}): about its own centroid, in its own section axes</caption>
           <tbody>
             <tr className="vlabel"><th colSpan={2}>Centroid</th></tr>
             <tr className="vvalue"><td colSpan={2}><Vec v={sel.centroid} q="length" /></td></tr>
