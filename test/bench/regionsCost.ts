@@ -9,7 +9,7 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mec
 import { nodalStressField } from '../../src/model/stressField.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { syntheticModel } from './syntheticModel.ts'
-for (const type of ['tet4', 'hex8'] as const) {
+for (const type of (process.argv[2] ? [process.argv[2]] : ['tet4', 'hex8']) as ('tet4' | 'hex8')[]) {
   const model = syntheticModel(type, 1e6, 1)
   const field = nodalStressField(model.mesh, model.stress)
   const faces = extractBoundaryFaces(model.mesh)
