@@ -21,6 +21,7 @@ import type { ComponentQuantity, ComponentScalars } from '../src/mechanics/compo
 import type { EquivalentCriterion, Linearisation } from '../src/mechanics/linearisation.ts'
 import type { ScalarExtremes } from '../src/mechanics/scalarExtremes.ts'
 import type { SectionAxesChoice, SectionAxesKind } from '../src/mechanics/sectionAxes.ts'
+import type { InterfaceRecord, PartRecord } from '../src/mechanics/partBalance.ts'
 
 export type { ArrowMode, Plane, SectionAxesChoice, SectionAxesKind, SurfaceQuantity, Vec3 }
 export type { ComponentAxes, ComponentQuantity, EquivalentCriterion, Linearisation, ScalarExtremes }
@@ -473,31 +474,18 @@ export interface CutLimit {
   readonly within?: { readonly center: Vec3; readonly radius: number }
 }
 
-/** One part: its number, name ('' when none), element count, volume (L³) and its own balance (BodyBalance, model units). */
-export interface PartSummary {
-  readonly part: number
-  readonly name: string
-  readonly elements: number
-  readonly volume: number
-  readonly balance: BodyBalance
-}
+/**
+ * One part (PartRecord of src/mechanics/partBalance.ts): its number, name ('' when none), element
+ * count, volume (L³) and its own balance (BodyBalance, model units).
+ */
+export type PartSummary = PartRecord
 
 /**
- * One interface between parts a < b: `force` what a exerts on b (b's faces, b's stress),
- * `reverseForce` what b exerts on a, `moment` of `force` about `centroid`, `mismatch`
- * |F_ab + F_ba| / gross (dimensionless), `gross` ∫|t| dA (force), `faces` the face count.
+ * One interface between parts a < b (InterfaceRecord): `force` what a exerts on b (b's faces,
+ * b's stress), `reverseForce` what b exerts on a, `moment` of `force` about `centroid`,
+ * `mismatch` |F_ab + F_ba| / gross (dimensionless), `gross` ∫|t| dA (force), `faces` the count.
  */
-export interface InterfaceSummary {
-  readonly parts: readonly [number, number]
-  readonly faces: number
-  readonly area: number
-  readonly centroid: Vec3
-  readonly force: Vec3
-  readonly moment: Vec3
-  readonly reverseForce: Vec3
-  readonly mismatch: number
-  readonly gross: number
-}
+export type InterfaceSummary = InterfaceRecord
 
 /**
  * The assembly of a model with several parts:

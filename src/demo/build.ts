@@ -66,6 +66,13 @@ function printStats(id: string, sol: ElasticSolution, cpu: number, multigrid = f
   console.log(`  assembly ${fmt(s.assemblySeconds, 2)} s, ${multigrid ? 'multigrid' : 'block-Jacobi'} PCG ${fmt(s.solveSeconds, 2)} s (${s.iterations} iterations, relative residual ${s.relativeResidual.toExponential(2)}), stress recovery ${fmt(s.recoverySeconds, 2)} s`)
 }
 
+/** Solves, prints the figures, and rounds coordinates (9 digits), stress and displacement (6) as the files carry them. */
+function solveRounded(id: string, problem: ElasticProblem): { sol: ElasticSolution; coords: Float64Array; stress: Float64Array; disp: Float64Array } {
+  const { sol, cpu } = solveTimed(problem)
+  printStats(id, sol, cpu)
+  return { sol, coords: roundSignificant(problem.coords.slice(), 9), stress: roundSignificant(sol.stress, 6), disp: roundSignificant(sol.displacement, 6) }
+}
+
 /**
  * Writes the native container, model.json and the CSV bundle. `commitCsv` false: the CSV files are
  * still written (every scenario exists in both forms) but not listed, and public/demo/.gitignore
@@ -96,11 +103,7 @@ function writeModel(id: string, model: Model, commitCsv: boolean, writeCsv = tru
 function lug(): IndexEntry {
   const id = 'lifting-lug'
   const sc = buildLiftingLug({ ...LUG_DEFAULTS, ...lugMeshLevel(2) })
-  const { sol, cpu } = solveTimed(sc.problem)
-  printStats(id, sol, cpu)
-  const coords = roundSignificant(sc.problem.coords.slice(), 9)
-  const stress = roundSignificant(sol.stress, 6)
-  const disp = roundSignificant(sol.displacement, 6)
+  const { sol, coords, stress, disp } = solveRounded(id, sc.problem)
   const st = lugStatics(sc, stress, sol.reaction)
   console.log(`  pin load ${fmt(Math.hypot(...st.pinForce) / 1000, 3)} kN; section y = ${fmt(st.sectionY, 2)} mm: force error ${pct(st.sectionForceError)}, moment error ${pct(st.sectionMomentError)}`)
   console.log(`  body balance residual ${pct(st.balance.relative)} of gross ${fmt(st.balance.gross / 1000, 2)} kN; hole-wall peak hoop stress ${fmt(st.peakHoopStress)} MPa at ${fmt(st.peakHoopAngleDeg)}° = ${fmt(st.peakHoopStress / st.nominalStress, 2)} × nominal ${fmt(st.nominalStress, 2)} MPa`)
@@ -163,11 +166,7 @@ function bracket(): IndexEntry {
   // 5 mm cells (2 × 2 elements across a bolt): the committed demos stay near 15 MB
   const spec = { ...BRACKET_DEFAULTS, cell: 5 }
   const sc = buildBoltedBracket(spec)
-  const { sol, cpu } = solveTimed(sc.problem)
-  printStats(id, sol, cpu)
-  const coords = roundSignificant(sc.problem.coords.slice(), 9)
-  const stress = roundSignificant(sol.stress, 6)
-  const disp = roundSignificant(sol.displacement, 6)
+  const { sol, coords, stress, disp } = solveRounded(id, sc.problem)
   const mesh = createMesh(coords, [{ type: 'hex8', conn: sc.problem.conn, part: sc.part }])
   const g = BRACKET_GEOMETRY
   const cut = cutSection(mesh, nodalStressField(mesh, stress), sc.bodyForce, { point: [0, 0, g.base + g.gap / 2], normal: [0, 0, 1] }, { regions: true }).result

@@ -16,6 +16,17 @@ import { INTERFACE, NEUTRAL_SURFACE, REGION } from './sceneLook.ts'
 
 const noRaycast = (): void => {}
 
+/** Draws only triangle group k of `geometry` (offsets per group); false when k is none or out of range. */
+function useGroupRange(geometry: BufferGeometry, offsets: Int32Array, k: number): boolean {
+  const invalidate = useThree((s) => s.invalidate)
+  const ok = k >= 0 && k + 1 < offsets.length
+  useEffect(() => {
+    if (ok) geometry.setDrawRange(3 * offsets[k], 3 * (offsets[k + 1] - offsets[k]))
+    invalidate()
+  }, [geometry, offsets, k, ok, invalidate])
+  return ok
+}
+
 /** One region's number at its centroid. */
 function RegionNumber({ n, at, strong }: { n: number; at: Vec3; strong: boolean }) {
   const invalidate = useThree((s) => s.invalidate)
@@ -38,7 +49,6 @@ export interface RegionMarksProps {
 
 /** The regions' numbers and the highlighted region over the section fill. */
 export function RegionMarks({ buffers, offsets, centroids, highlighted }: RegionMarksProps) {
-  const invalidate = useThree((s) => s.invalidate)
   const geometry = useMemo(() => {
     const g = new BufferGeometry()
     g.setAttribute('position', new BufferAttribute(buffers.positions, 3))
@@ -51,11 +61,7 @@ export function RegionMarks({ buffers, offsets, centroids, highlighted }: Region
     polygonOffset: true, polygonOffsetFactor: -2, polygonOffsetUnits: -4,
   }), [])
   useEffect(() => () => material.dispose(), [material])
-  const ok = highlighted >= 0 && highlighted + 1 < offsets.length
-  useEffect(() => {
-    if (ok) geometry.setDrawRange(3 * offsets[highlighted], 3 * (offsets[highlighted + 1] - offsets[highlighted]))
-    invalidate()
-  }, [geometry, offsets, highlighted, ok, invalidate])
+  const ok = useGroupRange(geometry, offsets, highlighted)
   return (
     <>
       {ok ? <mesh geometry={geometry} material={material} renderOrder={5} raycast={noRaycast} frustumCulled={false} /> : null}
@@ -73,7 +79,6 @@ export interface InterfacePatchesProps {
 
 /** The interfaces between parts as patches, seen through the surface; the highlighted one stronger. */
 export function InterfacePatches({ positions, offsets, highlighted }: InterfacePatchesProps) {
-  const invalidate = useThree((s) => s.invalidate)
   const geometry = useMemo(() => {
     const g = new BufferGeometry()
     g.setAttribute('position', new BufferAttribute(positions, 3))
@@ -90,11 +95,7 @@ export function InterfacePatches({ positions, offsets, highlighted }: InterfaceP
     new MeshBasicMaterial({ color: rawColour(INTERFACE), transparent: true, opacity: 0.85, side: DoubleSide, depthTest: false, depthWrite: false, toneMapped: false }),
   ], [])
   useEffect(() => () => { soft.dispose(); hard.dispose() }, [soft, hard])
-  const ok = highlighted >= 0 && highlighted + 1 < offsets.length
-  useEffect(() => {
-    if (ok) strong.setDrawRange(3 * offsets[highlighted], 3 * (offsets[highlighted + 1] - offsets[highlighted]))
-    invalidate()
-  }, [strong, offsets, highlighted, ok, invalidate])
+  const ok = useGroupRange(strong, offsets, highlighted)
   return (
     <>
       <mesh geometry={geometry} material={soft} renderOrder={6} raycast={noRaycast} frustumCulled={false} />
