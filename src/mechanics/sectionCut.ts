@@ -133,7 +133,7 @@ export function cutSection(
   const labels: RegionLabels | null = rec && options.polygons ? { element: new Int32Array(0), region: new Int32Array(0) } : null
   if (rec) {
     if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
-    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes, labels)
+    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes, labels, stress)
     if (limit) {
       const sel = recorded.selection
       if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons, labels }
@@ -214,11 +214,15 @@ function pieceFreeBody(
 function recordedSection(
   rec: CutRecord, mesh: Mesh, acc: Float64Array, limit: SectionLimit | null, point: Vec3, m: Vec3, frame: Float64Array,
   about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined, labelsOut: RegionLabels | null,
+  stress: StressField,
 ): { regions: SectionRegion[]; result: SectionResult | null; selection: Float64Array | null } {
   if (selScratch.length < rec.n) { selScratch = new Int32Array(rec.n); labelScratch = new Int32Array(rec.n) }
   const sel = selScratch, label = labelScratch
+  if (limit) fillPending(rec, mesh, stress, d, acc, frame) // the disc reads each polygon's centroid
   const n = selectCutElements(sel, rec, mesh, limit, acc, frame)
   const count = labelRegions(label, sel, n, rec, mesh, d)
+  // one region of every element is the whole section (regionAccumulators): no blocks needed
+  if (count > 1 || n !== rec.n) fillPending(rec, mesh, stress, d, acc, frame)
   const ra = regionAccumulators(count, label, sel, n, rec, mesh, acc)
   const unsorted: SectionRegion[] = []
   for (let g = 0; g < count; g++) {
@@ -285,19 +289,34 @@ function cutLinearBlock(
     const base = nn * list[i]
     dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
     if (polygon(sc, acc, 0, coords, values, 6, conn, rows, base, cases, frame) < 3) continue
-    if (rec) {
-      // the element's own block first, then the same numbers into the whole (0 + x = x: the
-      // whole section is bit-identical to a cut without the record)
-      const o = recordElement(rec, bi, list[i])
-      integrate(rec.acc, o, sc, frame, 6)
-      addAccumulator(acc, 0, rec.acc, o)
-    } else integrate(acc, 0, sc, frame, 6)
+    // the record notes the element only (its block is filled later if needed: fillPending), and
+    // the whole section is integrated as without it
+    if (rec) recordElement(rec, bi, list[i], false)
+    integrate(acc, 0, sc, frame, 6)
     if (collect) {
       // the drawn polygon needs its vertices' ξ: the linear path has the edge parameters only
       // implicitly, so map back through the (affine) element
       linearVertexReference(sc, coords, conn, base, ref)
       collect.add(sc, bi, list[i], offset + list[i], sc.force, -1, null, false, true)
     }
+  }
+}
+
+/**
+ * Computes the pending accumulator blocks of a record (linear simplices noted by cutLinearBlock):
+ * each element's polygon and closed-form integrals again, about the whole section's origin.
+ */
+function fillPending(rec: CutRecord, mesh: Mesh, stress: StressField, d: Float64Array, acc: Float64Array, frame: Float64Array): void {
+  const sc = createPolygonScratch(), dist = sc.dist, coords = mesh.coords, values = stress.values
+  for (let i = 0; i < rec.n; i++) {
+    if (!rec.pending[i]) continue
+    const bi = rec.block[i], block = mesh.blocks[bi], nn = ELEMENT_TYPES[block.type].nodeCount
+    const conn = block.conn, base = nn * rec.local[i], o = i * ACC_SIZE
+    for (let k = o; k < o + ACC_SIZE; k++) rec.acc[k] = 0
+    dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
+    // the whole section's origin is set: elementPolygon only reads it
+    if (elementPolygon(sc, acc, 0, coords, values, 6, conn, stress.rows[bi], base, crossingCases(block.type), frame) >= 3) integratePolygon(rec.acc, o, sc, frame, 6)
+    rec.pending[i] = 0
   }
 }
 
