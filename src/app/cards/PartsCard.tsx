@@ -37,7 +37,7 @@ export function PartsCard() {
         <button type="button" data-testid="parts-show-all" disabled={hidden.length === 0} onClick={() => isolate(null)}>Show every part</button>
       </div>
       <table className="figures list" data-testid="parts-table">
-        <thead><tr><th title="shown">⎚</th><th>#</th><th>Name</th><th>Elements</th><th>Volume [{unitLabel('volume', system)}]</th><th /></tr></thead>
+        <thead><tr><th>Show</th><th>#</th><th>Name</th><th>Elements</th><th>Volume [{unitLabel('volume', system)}]</th><th /></tr></thead>
         <tbody>
           {assembly.parts.map((p, k) => {
             const shown = !hidden.includes(p.part)
