@@ -46,6 +46,7 @@ import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
+import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
 import type { PoolEndpoint, PoolRun } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
@@ -300,6 +301,8 @@ const api: EngineApi = {
       const jump = input.stress.layout === 'nodal' ? null : computeStressJump(allocateStressJump(mesh.nodeCount), mesh, input.stress, patches.referenceStress)
       const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
       const edges = buildFeatureEdges(mesh.coords, faces)
+      // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
+      const assembly = loadAssembly(model, input.stress, faces, tri.index, tri.triangleFace, tri.faceVertexStart)
       const surface: SurfaceBuffers = {
         positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
         ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
@@ -322,8 +325,9 @@ const api: EngineApi = {
         vonMises: invariants.vonMises, balance, body, faceVertexStart: tri.faceVertexStart,
       }
       report('Done', 1)
-      const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras }
-      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
+      const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
+      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
+        ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value }, buffers)
     } catch (e) {
       const error = toAppError(e)
@@ -348,12 +352,18 @@ const api: EngineApi = {
     try {
       const n = Math.hypot(...plane.normal)
       const { axes, note } = checkedAxes([plane.normal[0] / n, plane.normal[1] / n, plane.normal[2] / n], options.axes)
-      const { result, polygons } = cutSection(model.mesh, modelStressField(model), model.bodyForce, plane, { faces, tractions, polygons: true, axes })
+      // --- assemblies: regions and a bounded section ---
+      const field = modelStressField(model)
+      const limit = checkLimit(options.limit, model)
+      const { result, polygons, labels } = cutSection(model.mesh, field, model.bodyForce, plane, {
+        faces, tractions, polygons: true, axes, regions: options.regions === true, limit, partPiece: pieceFor(model, field, limit),
+      })
       current.polygons = polygons
       current.polygonDisplacement = null
       const info: CutInfo = { ...(note ? { axesNote: note } : {}), ...(result.empty ? { extent: extentAlong(model.mesh.coords, plane.normal) } : {}) }
       if (!polygons || polygons.count === 0) return { ok: true, value: { result, buffers: null, computeMs: performance.now() - started, info } }
       const tri = buildSectionTriangles(polygons, result.plane.normal)
+      const regionTris = labels && result.regions ? regionTriangles(labels, result.regions.length, tri.index, tri.triangleElement) : null
       const a = sampleSectionArrows(polygons, result.plane.normal, { mode: arrows.mode, budget: arrows.budget })
       // The deformed shape moves the section face and its arrows with the material.
       const u = model.displacement
@@ -367,7 +377,8 @@ const api: EngineApi = {
         ...(sectionU ? { displacement: sectionU } : {}),
       }
       const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction, ...(sectionU ? [sectionU] : []), ...(arrowU ? [arrowU] : [])].map((x) => x.buffer as ArrayBuffer)
-      return Comlink.transfer({ ok: true, value: { result, buffers, computeMs: performance.now() - started, info } }, [...list, ...arrowTransfer(a)])
+      const value: CutReply = { result, buffers, computeMs: performance.now() - started, info, ...(regionTris ? { regionTriangles: regionTris } : {}) }
+      return Comlink.transfer({ ok: true, value }, [...list, ...arrowTransfer(a), ...(regionTris ? [regionTris.buffer as ArrayBuffer] : [])])
     } catch (e) {
       const error = toAppError(e)
       if (error) return { ok: false, error }

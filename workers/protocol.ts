@@ -21,6 +21,7 @@ import type { ComponentQuantity, ComponentScalars } from '../src/mechanics/compo
 import type { EquivalentCriterion, Linearisation } from '../src/mechanics/linearisation.ts'
 import type { ScalarExtremes } from '../src/mechanics/scalarExtremes.ts'
 import type { SectionAxesChoice, SectionAxesKind } from '../src/mechanics/sectionAxes.ts'
+import type { InterfaceRecord, PartRecord } from '../src/mechanics/partBalance.ts'
 
 export type { ArrowMode, Plane, SectionAxesChoice, SectionAxesKind, SurfaceQuantity, Vec3 }
 export type { ComponentAxes, ComponentQuantity, EquivalentCriterion, Linearisation, ScalarExtremes }
@@ -234,6 +235,9 @@ export interface LoadedModel {
   readonly audit: AuditSummary
   /** Lines, deformed shape and components (the block at the end of this file); absent from older engines' replies. */
   readonly extras?: LoadExtras
+  // --- assemblies ---
+  /** Parts, their balance and interfaces; absent when the model has one part. */
+  readonly assembly?: AssemblySummary
 }
 
 /** Either a value or a user-facing error; input problems come back as values, not exceptions. */
@@ -251,6 +255,13 @@ export interface CutReply {
   /** Time the engine spent on this cut (ms): the section, its triangles and arrows. */
   readonly computeMs: number
   readonly info?: CutInfo
+  // --- assemblies ---
+  /**
+   * With regions: the section's triangles (`buffers.index`) are grouped by region, region k
+   * (result.regions order) from triangle regionTriangles[k] to regionTriangles[k + 1] − 1; the
+   * polygons outside a limit come last.
+   */
+  readonly regionTriangles?: Int32Array
 }
 
 export interface ProbeRequest {
@@ -300,6 +311,11 @@ export interface SweepReply {
 /** How a cut is resolved: its section axes (principal by default). */
 export interface CutOptions {
   readonly axes?: SectionAxesChoice
+  // --- assemblies ---
+  /** Split the cut into regions (off while dragging: the card shows them on release). */
+  readonly regions?: boolean
+  /** A bounded section: the figures are those of the selected polygons only. */
+  readonly limit?: CutLimit | null
 }
 
 /**
@@ -453,4 +469,46 @@ export interface LineReply {
   readonly refused: string | null
   readonly warnings: readonly string[]
   readonly outside: boolean
+}
+
+// ---------------------------------------------------------------------------------------------
+// --- assemblies --- parts, interfaces and bounded sections (src/mechanics/partBalance.ts,
+// sectionRegions.ts).
+
+/** A bounded section: parts (numbers) and/or a disc (centre projected onto the plane, radius > 0; length units). */
+export interface CutLimit {
+  readonly parts?: readonly number[]
+  readonly within?: { readonly center: Vec3; readonly radius: number }
+}
+
+/**
+ * One part (PartRecord of src/mechanics/partBalance.ts): its number, name ('' when none), element
+ * count, volume (L³) and its own balance (BodyBalance, model units).
+ */
+export type PartSummary = PartRecord
+
+/**
+ * One interface between parts a < b (InterfaceRecord): `force` what a exerts on b (b's faces,
+ * b's stress), `reverseForce` what b exerts on a, `moment` of `force` about `centroid`,
+ * `mismatch` |F_ab + F_ba| / gross (dimensionless), `gross` ∫|t| dA (force), `faces` the count.
+ */
+export type InterfaceSummary = InterfaceRecord
+
+/**
+ * The assembly of a model with several parts:
+ * - `parts` ascending by number; `interfaces` ascending by (a, b);
+ * - `partTriangles` Int32Array(P + 2): the surface's triangles are grouped by part (in `parts`
+ *   order), part k from partTriangles[k] to partTriangles[k + 1] − 1;
+ * - `vertexPart` the part's rank at each surface vertex;
+ * - `interfacePositions` Float32Array(9·T) length units, triangles of the interfaces' faces,
+ *   interface i from interfaceTriangles[i] to interfaceTriangles[i + 1] − 1.
+ */
+export interface AssemblySummary {
+  readonly parts: readonly PartSummary[]
+  readonly interfaces: readonly InterfaceSummary[]
+  readonly partTriangles: Int32Array
+  /** Float32Array(V): the rank of each surface vertex's part in `parts` (colour by part). */
+  readonly vertexPart: Float32Array
+  readonly interfacePositions: Float32Array
+  readonly interfaceTriangles: Int32Array
 }

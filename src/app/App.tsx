@@ -23,6 +23,8 @@ import { SweepCard } from './cards/SweepCard.tsx'
 import { ModelCard } from './cards/ModelCard.tsx'
 import { LineCard } from './cards/LineCard.tsx'
 import { DeformationCard } from './cards/DeformationCard.tsx'
+import { PartsCard } from './cards/PartsCard.tsx'
+import { InterfacesCard } from './cards/InterfacesCard.tsx'
 import { SceneView } from './SceneView.tsx'
 
 /**
@@ -78,6 +80,8 @@ export function App() {
         <NoticeCard />
         <ModelCard />
         <CutCard />
+        <PartsCard />
+        <InterfacesCard />
         <SweepCard />
         <EquilibriumCard />
         <LoadEntryCard />

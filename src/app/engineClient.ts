@@ -306,12 +306,14 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     // while the plane is being dragged there, the section arrows are left out; they return on release.
     const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
     const axes = st.sectionAxes
-    const key = cutKey(plane, mode, budget) + `|${axes.kind}|${axes.reference?.join(',') ?? ''}`
+    // --- assemblies: regions (not while dragging) and the bounded section ---
+    const regions = !st.section.dragging, limit = st.sectionLimit
+    const key = cutKey(plane, mode, budget) + `|${axes.kind}|${axes.reference?.join(',') ?? ''}|${regions}|${JSON.stringify(limit)}`
     if (!a.paced && key === shownKey && st.sectionResult) return
     cutInFlight = true
     const gen = generation
     const asked = performance.now()
-    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }, { axes }))
+    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }, { axes, regions, limit }))
       .then((out) => {
         if (gen !== generation) return
         cutTimed(asked, out.ok ? out.value.computeMs : null)
@@ -321,6 +323,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
         if (!out.ok) { now.showError(out.error); return }
         shownKey = key
         now.cutShown(out.value.result, out.value.buffers, a.paced ? a.offset : undefined, out.value.info ?? null)
+        now.regionsShown(out.value.regionTriangles ?? null)
       })
       .catch((e) => {
         if (gen === generation) store.getState().showError({ message: `The section could not be computed: ${e instanceof Error ? e.message : String(e)}` })
@@ -441,7 +444,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
         if (x.surface !== y.surface || x.mode !== y.mode || x.budget !== y.budget) void refreshSurfaceArrows()
       }
       if (s.probeRay !== p.probeRay && s.probeRay) runProbe()
-      if (s.sectionAxes !== p.sectionAxes) requestCut()
+      if (s.sectionAxes !== p.sectionAxes || s.sectionLimit !== p.sectionLimit) requestCut()
       if (s.patchRule !== p.patchRule && s.model) void refreshPatches()
     })
   }

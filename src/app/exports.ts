@@ -9,6 +9,7 @@ import { describeAxes } from '../mechanics/sectionAxes.ts'
 import type { ModelUnits, Quantity, UnitSystem } from '../model/units.ts'
 import { convert, denoise, formatNumber, noiseFloor, unitLabel } from './format.ts'
 import type { ModelSummary } from '../../workers/protocol.ts'
+import { regionCsvLines, regionRecords } from './assemblyTables.ts'
 
 export interface FigureRow {
   readonly key: string
@@ -129,6 +130,9 @@ export function sectionCsv(m: ModelSummary, r: SectionResult, system: UnitSystem
     'quantity,value,unit',
   ]
   for (const row of sectionRows(r, m.units, system)) lines.push([csvField(row.label), csvField(row.value), csvField(row.unit)].join(','))
+  // --- assemblies: the regions (and whether the figures are a selection's) ---
+  if (r.limited) lines.splice(3, 0, '# limited: the figures are those of the selected polygons only')
+  if (r.regions && r.regions.length) lines.push('', ...regionCsvLines(r, system, m.units))
   return lines.join('\n') + '\n'
 }
 
@@ -138,6 +142,7 @@ export function sectionJson(m: ModelSummary, r: SectionResult, system: UnitSyste
     model: m.name, modelUnits: m.units, displayUnits: system,
     plane: r.plane, about: r.about, axes: r.axes, empty: r.empty, cutElements: r.cutElements,
     figures: Object.fromEntries(rows.map((x) => [x.key, { value: x.value, unit: x.unit, modelValue: x.model }])),
+    ...(r.regions ? { limited: r.limited ?? false, freeBodyDefined: r.freeBodyDefined ?? true, regions: regionRecords(r) } : {}),
   }, null, 2)
 }
 

@@ -33,7 +33,7 @@ export async function buildReportHtml(): Promise<string> {
     model: st.model, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
     section: st.section.enabled ? st.sectionResult : null, sweep: st.sweep, shown: st.sweepShown, snapshot,
     line: st.lineResult, lineShown: st.lineSeries,
-    review: st.review, version: TOOL_VERSION,
+    review: st.review, version: TOOL_VERSION, assembly: st.assembly,
   })
   return renderReport(content)
 }

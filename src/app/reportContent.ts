@@ -17,6 +17,8 @@ import { frameNote, linearisationTables, linePointTable, lineSeries, lineSeriesV
 import { LINEARISATION_CAUTION, LINEARISATION_METHOD } from '../mechanics/linearisation.ts'
 import type { ReviewFields } from '../state/store.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
+import { interfaceTable, loadPathTable, partTable, regionTable } from './assemblyTables.ts'
+import type { AssemblySummary } from '../../workers/protocol.ts'
 
 export interface ReportTable {
   readonly kind: 'table'
@@ -63,6 +65,8 @@ export interface ReportInput {
   readonly caution: string
   readonly audit: AuditSummary | null
   readonly section: SectionResult | null
+  /** --- assemblies: the parts and interfaces (absent or null with one part) --- */
+  readonly assembly?: AssemblySummary | null
   readonly sweep: SweepReply | null
   readonly shown: Readonly<Record<SeriesKey, boolean>>
   /** PNG snapshot of the view as a data URL, or null. */
@@ -274,6 +278,26 @@ function inputFacts(m: ModelSummary): [string, string][] {
   return m.inputs.map((f) => ['Input file', `${f.name}: ${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes, SHA-256 ${f.sha256 ?? 'not available in this browser'}`])
 }
 
+/** The regions of the current cut, the parts, the load path (per-part free bodies) and the interfaces. */
+function assemblyBlocks(input: ReportInput): ReportTable[] {
+  const { units } = input.model, sys = input.system, a = input.assembly ?? null
+  const out: ReportTable[] = []
+  const r = input.section
+  if (r && !r.empty && r.regions && r.regions.length > 1) {
+    out.push({ kind: 'table', id: 'regions', heading: 'Regions of the current section', note: 'Connected pieces of one part, largest force first; what the +n side exerts on the −n side, moments about each region\'s own centroid in its own section axes.', ...regionTable(r, a, units, sys) })
+  }
+  if (!a) return out
+  out.push({ kind: 'table', id: 'parts', heading: 'Parts', note: 'Each part\'s own free body: its boundary includes its faces against other parts; residual of ∮ t dA + ∫ ρb dV over the part, relative to its gross load.', ...partTable(a, units, sys) })
+  const sumF = [0, 1, 2].map((k) => a.parts.reduce((s, p) => s + p.balance.force[k], 0))
+  const mis = [0, 1, 2].map((k) => a.interfaces.reduce((s, i) => s + i.force[k] + i.reverseForce[k], 0))
+  const body = input.audit?.body.force
+  const F = convert(1, units, 'force', sys)
+  const check = body ? ` Sum over the parts of the residual forces ${vec(sumF.map((v) => v * F))} ${displayUnitLabel('force', sys)}; the whole body's residual ${vec(body.map((v) => v * F))} plus the interface mismatches ${vec(mis.map((v) => v * F))}.` : ''
+  out.push({ kind: 'table', id: 'load-path', heading: 'Load path: where the load enters each part', note: `Per part, the external load-entry patches and the interfaces (the force the other part exerts on it), then the part's residual.${check}`, ...loadPathTable(a, input.audit?.patches ?? [], units, sys) })
+  if (a.interfaces.length) out.push({ kind: 'table', id: 'interfaces', heading: 'Interfaces between parts', note: 'Force that part a exerts on part b (b\'s faces and stress), moment about the interface centroid; mismatch |F_ab + F_ba| over the interface\'s gross load (zero for nodal stress with shared nodes).', ...interfaceTable(a, units, sys) })
+  return out
+}
+
 export function buildReportContent(input: ReportInput): ReportContent {
   const m = input.model
   const sys = input.system
@@ -309,6 +333,7 @@ export function buildReportContent(input: ReportInput): ReportContent {
     blocks.push(...patchTables(input.audit, input))
   }
   if (input.section) blocks.push(sectionTable(input.section, input))
+  blocks.push(...assemblyBlocks(input))
   if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))
   if (input.line) blocks.push(...lineBlocks(input.line, input))
   return { title: `Review report: ${m.name || 'Unnamed model'}`, facts, caution: input.caution, blocks }

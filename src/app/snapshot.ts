@@ -14,6 +14,8 @@ import type { ColourMapName, ReviewFields, TractusState } from '../state/store.t
 import { arrowColouring, sectionColouring } from '../scene/index.ts'
 import { displayUnitLabel } from '../model/units.ts'
 import { TOOL_VERSION } from './version.ts'
+import { regionTable } from './assemblyTables.ts'
+import type { DisplayTable } from './assemblyTables.ts'
 
 type Picture = HTMLCanvasElement | OffscreenCanvas
 
@@ -38,6 +40,30 @@ export async function composeSnapshot(st: TractusState, cssWidth: number, cssHei
 function panel(g: CanvasRenderingContext2D, x: number, y: number, w: number, h: number): void {
   g.fillStyle = 'rgba(255,255,255,0.88)'
   g.fillRect(x, y, w, h)
+}
+
+/** The regions of the cut as a small table (at most 8 rows; the rest counted). */
+function drawRegions(g: CanvasRenderingContext2D, t: DisplayTable, x0: number, y0: number, colW: number, s: number): void {
+  const rowH = Math.round(15 * s), shown = t.rows.slice(0, 8), more = t.rows.length - shown.length
+  const cols = [0, 0.08, 0.4, 0.58, 0.79, 1] // #, part, area, N, |V| (right edges from area on)
+  panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), colW + Math.round(16 * s), rowH * (shown.length + 2 + (more > 0 ? 1 : 0)) + Math.round(8 * s))
+  g.fillStyle = '#1d2329'
+  g.font = `600 ${Math.round(12 * s)}px system-ui, sans-serif`
+  g.fillText(`Regions (${t.rows.length}), largest force first; each about its own centroid`, x0, y0, colW)
+  g.font = `${Math.round(10 * s)}px system-ui, sans-serif`
+  const line = (cells: readonly string[], y: number): void => {
+    g.textAlign = 'left'
+    g.fillText(cells[0], x0, y)
+    g.fillText(cells[1], x0 + cols[1] * colW, y, (cols[2] - cols[1] - 0.14) * colW)
+    g.textAlign = 'right'
+    for (let c = 2; c <= 4; c++) g.fillText(cells[c], x0 + cols[c + 1] * colW, y)
+    g.textAlign = 'left'
+  }
+  g.fillStyle = '#4a545e'
+  line(t.head, y0 + rowH)
+  g.fillStyle = '#1d2329'
+  shown.forEach((r, i) => line(r, y0 + rowH * (i + 2)))
+  if (more > 0) g.fillText(`… and ${more} more (the exports list them all)`, x0, y0 + rowH * (shown.length + 2))
 }
 
 export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: number, h: number, s: number): void {
@@ -122,6 +148,9 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
       g.fillText(formatNumber(sec.range[1] * d.factor), x0 + colW, by + Math.round(29 * s))
       g.textAlign = 'left'
     }
+    // --- assemblies: the regions of the cut under the section table ---
+    const regions = st.sectionResult.regions ?? []
+    if (regions.length > 1) drawRegions(g, regionTable(st.sectionResult, st.assembly, m.units, st.units), x0, y0 + rowH * (rows.length + head) + barBlock + Math.round(14 * s), colW, s)
   }
 
   // The arrows' own colour bar, bottom left above the footer, when they do not share the surface's.

@@ -145,7 +145,7 @@ export const cutCommand: Command = {
   details: [
     'The resultant is what the material on the +m side exerts on the material on the -m side: F = ∫σm dA, M = ∫(x - about) × σm dA.',
     SECTION_AXES_DETAILS,
-    'Regions: the section split into connected regions (neighbouring cut elements of one part), each with its area, centroid, force and moment about its own centroid, largest force first. With --parts and/or --within the top-level figures are those of the selected polygons only, and the free-body check is not defined.',
+    'Regions: the section split into connected regions (neighbouring cut elements of one part), each with its area, centroid, force and moment about its own centroid, largest force first. With --parts and/or --within the top-level figures are those of the selected polygons only. With --parts alone the free body is that of the selected parts\' piece on the -m side, its boundary including its faces against other parts; with --within it is not defined.',
     'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is its force over that piece\'s gross load, "momentRelative" its moment about the section centroid over the gross load times the diagonal of the piece\'s bounding box.',
   ].join('\n'),
   run(args, io) {
@@ -200,7 +200,7 @@ export function sectionText(r: SectionResult, u: UnitView, heading: string, mode
     ['shear V1, V2', `${n(r.shear[0], 'force', fF)}, ${n(r.shear[1], 'force', fF)} ${u.label('force')}`],
     ['torque T', qty(r.torque, 'moment', u, fM)],
     ['bending M1, M2', `${n(r.bending[0], 'moment', fM)}, ${n(r.bending[1], 'moment', fM)} ${u.label('moment')}`],
-    ...(r.freeBodyDefined === false ? [['free body', 'not defined for a bounded section (a part or disc selection does not bound a piece of the body)'] as [string, string]] : [
+    ...(r.freeBodyDefined === false ? [['free body', 'not defined for a disc (a disc of the plane does not bound a piece of the body); limit to whole parts alone for it'] as [string, string]] : [
       ['free body force', vecQty(r.freeBody.force, 'force', u, fF)],
       ['free body moment', vecQty(r.freeBody.moment, 'moment', u, fM)],
       ['free body relative', `${num(r.freeBody.relative)} of the gross load ${qty(r.freeBody.gross, 'force', u)}`],

@@ -57,6 +57,28 @@ export const BRACKET_DESCRIPTION =
   'The elastic bolt-group method (rigid plate) gives 15 kN in bolts A and B and 5 kN in C and D; the plates ' +
   'are not rigid, so the section forces through the bolts differ from it. Not a design of a real joint.'
 
+/**
+ * The model card's text with the figures of the solved model: the elastic bolt-group tensions
+ * (rigid plate) and the section force through each bolt at mid-gap (N, bolts A–D in order).
+ */
+export function bracketDescription(spec: BracketSpec, elastic: readonly number[], section: readonly number[], applied: number): string {
+  const kN = (v: number) => (v / 1000).toFixed(1)
+  const names = ['A', 'B', 'C', 'D']
+  const pairs = names.map((n, i) => `${n} ${kN(elastic[i])} kN / ${kN(section[i])} kN`).join(', ')
+  return 'Invented demo, not a design of a real joint: a 10 mm bracket plate (part 2) held to a 12 mm base plate (part 1) ' +
+    `by four 10 × 10 mm square bolts (parts 3–6: A at (+50, +35), B (+50, −35), C (−50, −35), D (−50, +35) mm), pulled up by ${kN(spec.load)} kN ` +
+    'on a 30 × 30 mm patch centred 25 mm off the bolt group\'s centre towards A and B. The base plate\'s underside is held. ' +
+    `Linear elastic steel (E = ${spec.E / 1000} GPa, ν = ${spec.nu}), hex8 elements of ${spec.cell} mm, nodal stress by patch recovery; ` +
+    'the bolts are bonded to both plates by shared nodes, with no heads, preload or contact, and a 2 mm gap keeps the plates apart, ' +
+    'so only the bolts carry load between them. Bolt tensions, elastic bolt-group method (rigid plate, load along the bolt axes: ' +
+    'P/n + M·yᵢ/Σyⱼ²; Shigley, Mechanical Engineering Design, bolted joints, from memory) against the section force through each bolt at mid-gap ' +
+    `(cut at z = 13 mm, its regions): ${pairs}. They differ because the plates are not rigid: the bracket plate bends between the bolts, ` +
+    'and the bonded shanks also carry bending and shear, which the method leaves out. The four section forces add to ' +
+    `${kN(section.reduce((a, b) => a + b, 0))} kN against ${kN(applied)} kN applied: nodal stress recovered across the bonded joints ` +
+    'on a coarse mesh (2 × 2 elements across a bolt). For the same reason the interfaces between bolts and plates, whose load ' +
+    'passes as shear across the bonded joints, read well below the bolt forces (about half here): read the bolts on sections. Units: mm, MPa, N.'
+}
+
 export interface BracketScenario {
   readonly spec: BracketSpec
   readonly problem: ElasticProblem
@@ -90,7 +112,7 @@ export function buildBoltedBracket(spec: BracketSpec = BRACKET_DEFAULTS): Bracke
   zs.push(g.base + g.gap / 2)
   for (let k = 0; k <= spec.plateLayers; k++) zs.push(g.base + g.gap + g.bracket * k / spec.plateLayers)
   const nz = zs.length
-  const coords = new Float64Array(3 * (nx + 1) * (ny + 1) * nz)
+  let coords = new Float64Array(3 * (nx + 1) * (ny + 1) * nz)
   const node = (i: number, j: number, k: number) => (k * (ny + 1) + j) * (nx + 1) + i
   for (let k = 0; k < nz; k++) for (let j = 0; j <= ny; j++) for (let i = 0; i <= nx; i++) {
     const o = 3 * node(i, j, k)
@@ -106,7 +128,16 @@ export function buildBoltedBracket(spec: BracketSpec = BRACKET_DEFAULTS): Bracke
       node(i, j, k + 1), node(i + 1, j, k + 1), node(i + 1, j + 1, k + 1), node(i, j + 1, k + 1))
     part.push(bolt >= 0 ? 3 + bolt : k < gapLayer ? 1 : 2)
   }
-  const N = coords.length / 3
+  // the mid-gap grid nodes outside the bolts belong to no element: drop them (a node without an
+  // element has no stiffness and no recovered stress)
+  const keep = new Int32Array(coords.length / 3).fill(-1)
+  let N = 0
+  for (const n of conn) if (keep[n] < 0) keep[n] = 0
+  for (let n = 0; n < keep.length; n++) if (keep[n] === 0) keep[n] = N++
+  const used = new Float64Array(3 * N)
+  for (let n = 0; n < keep.length; n++) if (keep[n] >= 0) used.set(coords.subarray(3 * n, 3 * n + 3), 3 * keep[n])
+  coords = used
+  for (let k = 0; k < conn.length; k++) conn[k] = keep[conn[k]]
   const fixed = new Uint8Array(3 * N)
   for (let n = 0; n < N; n++) if (coords[3 * n + 2] === 0) fixed[3 * n] = fixed[3 * n + 1] = fixed[3 * n + 2] = 1
   // the load patch: top-face quads of the bracket inside the patch square
@@ -115,7 +146,7 @@ export function buildBoltedBracket(spec: BracketSpec = BRACKET_DEFAULTS): Bracke
   for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) {
     const x = -g.halfX + (i + 0.5) * h, y = -g.halfY + (j + 0.5) * h
     if (Math.abs(x - p.x) < p.half && Math.abs(y - p.y) < p.half) {
-      faceNodes.push(node(i, j, top), node(i + 1, j, top), node(i + 1, j + 1, top), node(i, j + 1, top))
+      faceNodes.push(keep[node(i, j, top)], keep[node(i + 1, j, top)], keep[node(i + 1, j + 1, top)], keep[node(i, j + 1, top)])
     }
   }
   const faces: HexFaces = { count: faceNodes.length / 4, nodes: Int32Array.from(faceNodes), elem: new Int32Array(faceNodes.length / 4) }

@@ -1,6 +1,6 @@
 /**
- * Generator of the bundled demo models (a Node script: `npm run demo`, `npm run demo -- --large`).
- * Meshes our own three invented scenarios, solves them with the demo's linear-elastic solver, checks
+ * Generator of the bundled demo models (a Node script: `npm run demo`, `npm run demo -- --large`,
+ * `npm run demo -- --only bolted-bracket` for one of them). Meshes our own four invented scenarios, solves them with the demo's linear-elastic solver, checks
  * their statics, and writes each as a native container, model.json and a CSV bundle under
  * public/demo/<id>/ (the tunnel's CSV files are not committed: they would push the committed files
  * past about 15 MB; public/demo/.gitignore),
@@ -8,7 +8,7 @@
  * hundred thousand elements, native container only) to public/demo/tunnel-block-large/, which is
  * not committed (public/demo/.gitignore). `--out <dir>` writes elsewhere.
  */
-import { existsSync, mkdirSync, rmSync, writeFileSync } from 'node:fs'
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { join, relative } from 'node:path'
 import { writeCsvBundle } from '../io/writeCsvBundle.ts'
 import { writeNative } from '../io/nativeContainer.ts'
@@ -23,6 +23,10 @@ import type { TunnelSpec } from './tunnelBlock.ts'
 import { tunnelStatics } from './tunnelStatics.ts'
 import { buildPipeSegment, PIPE_DEFAULTS, pipeDescription, pipeLame, pipeMeshLevel } from './pipeSegment.ts'
 import { pipeStatics } from './pipeStatics.ts'
+import { BRACKET_DEFAULTS, BRACKET_GEOMETRY, BRACKET_PART_NAMES, boltGroupTensions, bracketDescription, buildBoltedBracket } from './boltedBracket.ts'
+import { createMesh } from '../model/createMesh.ts'
+import { cutSection } from '../mechanics/sectionCut.ts'
+import { nodalStressField } from '../model/stressField.ts'
 
 interface IndexEntry {
   id: string
@@ -39,6 +43,9 @@ interface IndexEntry {
 
 const args = process.argv.slice(2)
 const large = args.includes('--large')
+/** `--only <id>`: regenerate one scenario and keep the other entries of index.json as they are. */
+const onlyAt = args.indexOf('--only')
+const only = onlyAt >= 0 ? args[onlyAt + 1] : null
 const outAt = args.indexOf('--out')
 const outDir = outAt >= 0 ? args[outAt + 1] : join('public', 'demo')
 
@@ -57,6 +64,13 @@ function printStats(id: string, sol: ElasticSolution, cpu: number, multigrid = f
   const s = sol.stats
   console.log(`${id}: ${s.elements} hex8 elements, ${s.nodes} nodes, ${s.freeDofs} free dofs, ${s.matrixBlocks} 3×3 blocks; solve ${fmt(s.assemblySeconds + s.solveSeconds + s.recoverySeconds, 2)} s wall, ${fmt(cpu, 2)} s CPU`)
   console.log(`  assembly ${fmt(s.assemblySeconds, 2)} s, ${multigrid ? 'multigrid' : 'block-Jacobi'} PCG ${fmt(s.solveSeconds, 2)} s (${s.iterations} iterations, relative residual ${s.relativeResidual.toExponential(2)}), stress recovery ${fmt(s.recoverySeconds, 2)} s`)
+}
+
+/** Solves, prints the figures, and rounds coordinates (9 digits), stress and displacement (6) as the files carry them. */
+function solveRounded(id: string, problem: ElasticProblem): { sol: ElasticSolution; coords: Float64Array; stress: Float64Array; disp: Float64Array } {
+  const { sol, cpu } = solveTimed(problem)
+  printStats(id, sol, cpu)
+  return { sol, coords: roundSignificant(problem.coords.slice(), 9), stress: roundSignificant(sol.stress, 6), disp: roundSignificant(sol.displacement, 6) }
 }
 
 /**
@@ -89,11 +103,7 @@ function writeModel(id: string, model: Model, commitCsv: boolean, writeCsv = tru
 function lug(): IndexEntry {
   const id = 'lifting-lug'
   const sc = buildLiftingLug({ ...LUG_DEFAULTS, ...lugMeshLevel(2) })
-  const { sol, cpu } = solveTimed(sc.problem)
-  printStats(id, sol, cpu)
-  const coords = roundSignificant(sc.problem.coords.slice(), 9)
-  const stress = roundSignificant(sol.stress, 6)
-  const disp = roundSignificant(sol.displacement, 6)
+  const { sol, coords, stress, disp } = solveRounded(id, sc.problem)
   const st = lugStatics(sc, stress, sol.reaction)
   console.log(`  pin load ${fmt(Math.hypot(...st.pinForce) / 1000, 3)} kN; section y = ${fmt(st.sectionY, 2)} mm: force error ${pct(st.sectionForceError)}, moment error ${pct(st.sectionMomentError)}`)
   console.log(`  body balance residual ${pct(st.balance.relative)} of gross ${fmt(st.balance.gross / 1000, 2)} kN; hole-wall peak hoop stress ${fmt(st.peakHoopStress)} MPa at ${fmt(st.peakHoopAngleDeg)}° = ${fmt(st.peakHoopStress / st.nominalStress, 2)} × nominal ${fmt(st.nominalStress, 2)} MPa`)
@@ -146,10 +156,47 @@ function tunnel(level: number, id: string, commitCsv: boolean): IndexEntry {
   return { id, name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files: { native: files.native, csv: files.csv }, bytes: files.bytes, ...(level >= 3 ? { onDemand: true } : {}) }
 }
 
+/**
+ * The bolted bracket assembly: parts with names (model.json "parts"; the native container of
+ * version 1 carries the part numbers only), and its model card with the elastic bolt-group
+ * tensions beside the section force through each bolt at mid-gap.
+ */
+function bracket(): IndexEntry {
+  const id = 'bolted-bracket'
+  // 5 mm cells (2 × 2 elements across a bolt): the committed demos stay near 15 MB
+  const spec = { ...BRACKET_DEFAULTS, cell: 5 }
+  const sc = buildBoltedBracket(spec)
+  const { sol, coords, stress, disp } = solveRounded(id, sc.problem)
+  const mesh = createMesh(coords, [{ type: 'hex8', conn: sc.problem.conn, part: sc.part }])
+  const g = BRACKET_GEOMETRY
+  const cut = cutSection(mesh, nodalStressField(mesh, stress), sc.bodyForce, { point: [0, 0, g.base + g.gap / 2], normal: [0, 0, 1] }, { regions: true }).result
+  const section = g.bolts.map((_, b) => cut.regions!.find((r) => r.parts[0] === 3 + b)?.axial ?? NaN)
+  const elastic = boltGroupTensions(spec.load, g.patch.x, g.patch.y, g.bolts)
+  console.log(`  bolt tensions (kN), elastic method / section at mid-gap: ${elastic.map((e, b) => `${fmt(e / 1000, 2)} / ${fmt(section[b] / 1000, 2)}`).join(', ')}; sum ${fmt(section.reduce((a, b) => a + b, 0) / 1000, 2)} kN`)
+  const applied = (f: readonly number[]) => f[2]
+  const model: Model = {
+    name: 'Bolted bracket assembly (invented demo)', description: bracketDescription(spec, elastic, section, applied(sc.applied)), units: sc.units,
+    bodyForce: sc.bodyForce, warnings: [], mesh, stress, displacement: disp,
+    parts: Object.entries(BRACKET_PART_NAMES).map(([k, name]) => ({ part: Number(k), name, bodyForce: null })),
+  }
+  const files = writeModel(id, model, false, false)
+  return { id, name: model.name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files: { native: files.native, csv: files.csv }, bytes: files.bytes }
+}
+
 const t0 = performance.now()
 mkdirSync(outDir, { recursive: true })
+const builders: Record<string, () => IndexEntry> = {
+  'lifting-lug': lug, 'tunnel-block': () => tunnel(2, 'tunnel-block', false), 'pipe-segment': pipe, 'bolted-bracket': bracket,
+}
+if (only !== null && !(only in builders)) throw new Error(`--only: no scenario "${only}"; the scenarios are ${Object.keys(builders).join(', ')}`)
 // The committed files stay under about 15 MB: the native containers, the CSV bundle of the lug only.
-const entries: IndexEntry[] = [lug(), tunnel(2, 'tunnel-block', false), pipe()]
+const entries: IndexEntry[] = only === null
+  ? Object.values(builders).map((b) => b())
+  : (JSON.parse(readFileSync(join(outDir, 'index.json'), 'utf8')) as { scenarios: IndexEntry[] }).scenarios.filter((e) => !e.onDemand)
+if (only !== null) {
+  const entry = builders[only](), at = entries.findIndex((e) => e.id === only)
+  if (at >= 0) entries[at] = entry; else entries.push(entry)
+}
 const largeId = 'tunnel-block-large'
 if (large) entries.push(tunnel(3, largeId, false))
 else if (existsSync(join(outDir, largeId, `${largeId}.tractus`))) console.log(`  (keeping the earlier ${largeId}; not listed: run with --large to list it again)`)

@@ -25,12 +25,15 @@
  *    first, and numbered 0, 1, ... in that order.
  * 5. Every other boundary face is the nominally free surface: its area, mean |t|, that mean
  *    relative to σ_ref, and its peak nodal |t| tell how far the result is from traction-free.
+ *    Faces against another part whose nodes only coincide (interfaceFaces.ts) are neither:
+ *    their label is -2.
  */
 import { FACE_KINDS } from '../model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import { percentiles } from './balanceAudit.ts'
 import type { BoundaryFaces, LoadPatch, LoadPatches, SurfaceTractions } from './types.ts'
 import { momentAbout } from './vec3.ts'
+import { coincidentInterfaceFaces } from './interfaceFaces.ts'
 
 /** Corners and nodes per face kind code, read once from the element registry. */
 const CORNERS_BY_CODE = FACE_KINDS.map((k) => k.cornerCount)
@@ -85,6 +88,9 @@ export function findLoadPatches(mesh: Mesh, faces: BoundaryFaces, tractions: Sur
     }
   }
   const part = facePart(mesh, faces)
+  // --- assemblies: faces against another part (meshed apart) are neither load nor free surface ---
+  const against = coincidentInterfaceFaces(mesh.coords, faces, part)
+  if (against) for (let f = 0; f < F; f++) if (against[f]) level[f] = 0
 
   // Union–find over the faces that may join.
   const parent = new Int32Array(F)
@@ -155,6 +161,7 @@ export function findLoadPatches(mesh: Mesh, faces: BoundaryFaces, tractions: Sur
     let pk = 0
     const nn = NODES_BY_CODE[kind[f]]
     for (let a = 0; a < nn; a++) { const m = nodeMag[S * f + a]; if (m > pk) pk = m }
+    if (against && against[f]) continue
     if (!loaded[f]) {
       freeArea += A; freeInt += meanMag[f] * A
       if (pk > freePeak) freePeak = pk
@@ -191,6 +198,7 @@ export function findLoadPatches(mesh: Mesh, faces: BoundaryFaces, tractions: Sur
   const sorted = order.map((old, rank) => ({ ...patches[old], id: rank }))
   const faceLabel = new Int32Array(F).fill(-1)
   for (let f = 0; f < F; f++) if (loaded[f]) faceLabel[f] = newId[rootIndex[find(f)]]
+  if (against) for (let f = 0; f < F; f++) if (against[f]) faceLabel[f] = -2
 
   const freeMean = freeArea > 0 ? freeInt / freeArea : 0
   return {

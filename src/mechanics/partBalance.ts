@@ -58,6 +58,12 @@ export interface InterfaceRecord {
 export interface AssemblyBalance {
   readonly parts: readonly PartRecord[]
   readonly interfaces: readonly InterfaceRecord[]
+  /**
+   * The interfaces' faces for drawing: corner triangles (quads split in two) of part b's faces,
+   * `positions` Float32Array(9·T) length units, interface i's triangles from `offsets[i]` to
+   * `offsets[i + 1]` (interfaces in the order of `interfaces`).
+   */
+  readonly interfaceMesh: { readonly positions: Float32Array; readonly offsets: Int32Array }
 }
 
 /** The part numbers of the mesh, ascending (0 for elements without one). */
@@ -72,13 +78,19 @@ export function partNumbers(mesh: Mesh): number[] {
 
 /** The sub-mesh of one part's elements (same nodes) and its stress field. */
 export function partSubmesh(mesh: Mesh, field: StressField, part: number): { mesh: Mesh; field: StressField } {
+  return partsSubmesh(mesh, field, [part])
+}
+
+/** The sub-mesh of the elements of the given parts (same nodes, part numbers kept) and its stress field. */
+export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly number[]): { mesh: Mesh; field: StressField } {
+  const wanted = new Set(parts)
   const blocks: ElementBlock[] = []
   const rows: Int32Array[] = []
   let offset = 0
   mesh.blocks.forEach((b, bi) => {
     const nn = ELEMENT_TYPES[b.type].nodeCount, count = b.ids.length
     const keep: number[] = []
-    for (let e = 0; e < count; e++) if ((b.part ? b.part[e] : 0) === part) keep.push(e)
+    for (let e = 0; e < count; e++) if (wanted.has(b.part ? b.part[e] : 0)) keep.push(e)
     if (keep.length === 0) return
     const conn = new Int32Array(keep.length * nn), ids = new Int32Array(keep.length), r = new Int32Array(keep.length * nn)
     keep.forEach((e, k) => {
@@ -86,7 +98,9 @@ export function partSubmesh(mesh: Mesh, field: StressField, part: number): { mes
       r.set(field.rows[bi].subarray(e * nn, (e + 1) * nn), k * nn)
       ids[k] = b.ids[e]
     })
-    blocks.push({ type: b.type, conn, ids, part: new Int32Array(keep.length).fill(part), offset })
+    const part = new Int32Array(keep.length)
+    if (b.part) keep.forEach((e, k) => { part[k] = b.part![e] })
+    blocks.push({ type: b.type, conn, ids, part, offset })
     rows.push(field.layout === 'nodal' ? conn : r)
     offset += keep.length
   })
@@ -109,13 +123,13 @@ export function assemblyBalance(
     const balance = computeBodyBalance(sub.mesh, faces, tractions, bodyForce(p))
     return { part: p, faces, tractions, record: { part: p, name: names.get(p) ?? '', elements: sub.mesh.elementCount, volume: balance.volume, balance } }
   })
-  return { parts: each.map((e) => e.record), interfaces: matchInterfaces(mesh.coords, each) }
+  return { parts: each.map((e) => e.record), ...matchInterfaces(mesh.coords, each) }
 }
 
 interface PartFaces { part: number; faces: BoundaryFaces; tractions: SurfaceTractions }
 
 /** Pairs boundary faces of different parts by shared corner nodes or coinciding corners; sums per pair. */
-function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): InterfaceRecord[] {
+function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
   // every boundary face: owner part index, face index; keyed by sorted corners, else geometric
   const byNodes = new Map<string, [number, number]>()
   const pairs: [number, number, number, number][] = [] // [pa, fa, pb, fb]
@@ -171,14 +185,14 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Int
     }
   }
   // sums per pair of parts
-  interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number }
+  interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
   const accs = new Map<string, Acc>()
   for (const [p1, f1, p2, f2] of pairs) {
     // orient: a is the lower part number
     const [pa, fa, pb, fb] = parts[p1].part < parts[p2].part ? [p1, f1, p2, f2] : [p2, f2, p1, f1]
     const k = `${parts[pa].part},${parts[pb].part}`
     let acc = accs.get(k)
-    if (!acc) { acc = { a: parts[pa].part, b: parts[pb].part, faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0 }; accs.set(k, acc) }
+    if (!acc) { acc = { a: parts[pa].part, b: parts[pb].part, faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(k, acc) }
     const B = parts[pb], A = parts[pa]
     const ar = B.faces.area[fb]
     acc.faces++
@@ -190,8 +204,10 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Int
       acc.m0[c] += B.tractions.moment[3 * fb + c]
     }
     acc.gross += 0.5 * (B.tractions.meanMagnitude[fb] * ar + A.tractions.meanMagnitude[fa] * A.faces.area[fa])
+    acc.drawn.push(pb, fb)
   }
-  return [...accs.values()].sort((x, y) => x.a - y.a || x.b - y.b).map((s) => {
+  const sorted = [...accs.values()].sort((x, y) => x.a - y.a || x.b - y.b)
+  const interfaces = sorted.map((s) => {
     const c: Vec3 = s.area > 0 ? [s.cx / s.area, s.cy / s.area, s.cz / s.area] : [0, 0, 0]
     const F = s.fb
     // M_c = M_0 - c × F
@@ -202,6 +218,28 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Int
       reverseForce: [s.fa[0], s.fa[1], s.fa[2]] as Vec3, mismatch: s.gross > 0 ? sum / s.gross : 0, gross: s.gross,
     }
   })
+  return { interfaces, interfaceMesh: interfaceTriangles(coords, parts, sorted.map((s) => s.drawn)) }
+}
+
+/** Corner triangles of each interface's faces (pairs [part index, face index]), for drawing. */
+function interfaceTriangles(coords: Float64Array, parts: readonly PartFaces[], drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
+  let T = 0
+  for (const list of drawn) for (let k = 0; k < list.length; k += 2) T += faceCornerCount(parts[list[k]].faces.kind[list[k + 1]]) - 2
+  const positions = new Float32Array(9 * T), offsets = new Int32Array(drawn.length + 1)
+  let t = 0
+  drawn.forEach((list, i) => {
+    for (let k = 0; k < list.length; k += 2) {
+      const f = parts[list[k]].faces, face = list[k + 1], nc = faceCornerCount(f.kind[face]), base = f.slots * face
+      for (let c = 1; c + 1 < nc; c++) {
+        for (const v of [f.nodes[base], f.nodes[base + c], f.nodes[base + c + 1]]) {
+          positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
+          t++
+        }
+      }
+    }
+    offsets[i + 1] = t / 3
+  })
+  return { positions, offsets }
 }
 
 function faceCornersCoincide(coords: Float64Array, parts: readonly PartFaces[], a: [number, number], b: [number, number], tol: number): boolean {

@@ -43,7 +43,8 @@ import {
   addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
-import type { BoundaryFaces, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
+import type { BoundaryFaces, FreeBodyFigure, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
+import { partsSubmesh } from './partBalance.ts'
 import { ZERO_FREE_BODY } from './freeBody.ts'
 
 export { unitNormal } from './plane.ts'
@@ -62,6 +63,12 @@ export interface CutSectionOptions {
   readonly regions?: boolean
   /** Limit the cut to parts and/or a disc; the top-level figures are then the selection's. */
   readonly limit?: SectionLimit | null
+  /**
+   * For a cut limited to whole parts (no disc): the boundary faces and tractions of those parts'
+   * sub-mesh (partsSubmesh, faces against other parts included), reused across cuts; computed
+   * here when absent.
+   */
+  readonly partPiece?: PartPiece
   /** Section axes: principal (the default) or reference, with the reference direction (sectionAxes.ts). */
   readonly axes?: SectionAxesChoice
 }
@@ -92,7 +99,7 @@ let selScratch = new Int32Array(0), labelScratch = new Int32Array(0)
  */
 export function cutSection(
   mesh: Mesh, stress: StressField, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
-): { result: SectionResult; polygons: SectionPolygons | null } {
+): { result: SectionResult; polygons: SectionPolygons | null; labels: RegionLabels | null } {
   const m = unitNormal(plane.normal)
   checkPoint(plane.point, 'section point')
   if (options.about) checkPoint(options.about, 'moment point')
@@ -123,17 +130,71 @@ export function cutSection(
   const polygons = collect ? collect.finish(mesh, stress, forces!) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   let regions: SectionRegion[] | null = null
+  const labels: RegionLabels | null = rec && options.polygons ? { element: new Int32Array(0), region: new Int32Array(0) } : null
   if (rec) {
-    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons }
-    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes)
-    if (limit) return { result: recorded.result!, polygons }
+    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
+    const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes, labels, stress)
+    if (limit) {
+      const sel = recorded.selection
+      if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons, labels }
+      // a cut limited to whole parts bounds a piece: the selected parts' elements on the -m side,
+      // whose boundary includes their faces against the other parts
+      const piece = options.partPiece ?? partPiece(mesh, stress, limit.parts!)
+      const fb = pieceFreeBody(sel, piece.mesh, piece.field, piece.faces, piece.tractions, d, m, frame, bodyForce)
+      const result = sectionRecord(sel, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
+      return { result: { ...result, regions: recorded.regions, limited: true, freeBodyDefined: true }, polygons, labels }
+    }
     regions = recorded.regions
   }
-  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons }
+  if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons, labels }
 
-  const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const faces = options.faces ?? extractBoundaryFaces(mesh)
   const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
+  const fb = pieceFreeBody(acc, mesh, stress, faces, tractions, d, m, frame, bodyForce)
+  const result = sectionRecord(acc, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
+  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons, labels }
+}
+
+/**
+ * Which region each selected cut element lies in, for drawing (only when the cut was asked for
+ * polygons and regions): `element[s]` its global element index, `region[s]` the index of its
+ * region in SectionResult.regions (largest force first). Unselected elements are not listed.
+ */
+export interface RegionLabels {
+  element: Int32Array
+  region: Int32Array
+}
+
+/** The part of a mesh a parts-limited cut bounds: the parts' sub-mesh, its stress, boundary faces and tractions. */
+export interface PartPiece {
+  readonly parts: readonly number[]
+  readonly mesh: Mesh
+  readonly field: StressField
+  readonly faces: BoundaryFaces
+  readonly tractions: SurfaceTractions
+}
+
+/** The piece of `parts` (O(elements): build it once per parts set when cutting repeatedly). */
+export function partPiece(mesh: Mesh, stress: StressField, parts: readonly number[]): PartPiece {
+  const sub = partsSubmesh(mesh, stress, parts)
+  const faces = extractBoundaryFaces(sub.mesh)
+  return { parts: [...parts], mesh: sub.mesh, field: sub.field, faces, tractions: freeBodyTractions(sub.mesh, sub.field, faces) }
+}
+
+/** A limit of whole parts only (no disc): its cut bounds a piece of the body, so the free body is defined. */
+export function wholeParts(limit: SectionLimit | null | undefined): boolean {
+  return !!limit && !!limit.parts && limit.parts.length > 0 && !limit.within
+}
+
+/**
+ * The free body of the -m piece of (a sub-mesh of) the body: its boundary faces on the -m side
+ * (whole and clipped), the section (acc), and the body force; moments about the section centroid.
+ */
+function pieceFreeBody(
+  acc: Float64Array, mesh: Mesh, stress: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, d: Float64Array,
+  m: Vec3, frame: Float64Array, bodyForce: Vec3,
+): { freeBody: FreeBodyFigure; unmapped: number } {
+  const c = sectionCentroid(new Float64Array(3), acc, 0, frame)
   const fb = new Float64Array(FB_SIZE)
   initFreeBody(fb, 0)
   const cs = createClipScratch()
@@ -141,39 +202,50 @@ export function cutSection(
   freeBodyFaces(fb, 0, mesh, stress, faces, tractions, d, cs, c, c)
   const Fs: Vec3 = [acc[ACC_FORCE], acc[ACC_FORCE + 1], acc[ACC_FORCE + 2]]
   const Ms = momentAboutCentroid(acc, 0, c, frame)
-  const freeBody = closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS])
-  const unmapped = em.failures + cs.em.failures
-  const result = sectionRecord(acc, 0, point, m, frame, about, freeBody, unmapped, options.axes)
-  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons }
+  return { freeBody: closeFreeBody(fb, 0, c, c, acc[ACC_AREA], m, Fs, Ms, bodyForce, acc[ACC_GROSS]), unmapped: cs.em.failures }
 }
 
 /**
  * The regions of a recorded cut (largest force first) and, with a limit, the selection's own
- * record: its figures are those of the selected polygons only, and its free body is marked as
- * not defined (a disc or a subset of the plane does not bound a piece of the body).
+ * record and accumulator: its figures are those of the selected polygons only, and its free body
+ * is marked as not defined (a disc does not bound a piece of the body; the caller replaces it
+ * for a limit of whole parts).
  */
 function recordedSection(
   rec: CutRecord, mesh: Mesh, acc: Float64Array, limit: SectionLimit | null, point: Vec3, m: Vec3, frame: Float64Array,
-  about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined,
-): { regions: SectionRegion[]; result: SectionResult | null } {
+  about: Vec3 | null, d: Float64Array, unmapped: number, choice: SectionAxesChoice | undefined, labelsOut: RegionLabels | null,
+  stress: StressField,
+): { regions: SectionRegion[]; result: SectionResult | null; selection: Float64Array | null } {
   if (selScratch.length < rec.n) { selScratch = new Int32Array(rec.n); labelScratch = new Int32Array(rec.n) }
   const sel = selScratch, label = labelScratch
+  if (limit) fillPending(rec, mesh, stress, d, acc, frame) // the disc reads each polygon's centroid
   const n = selectCutElements(sel, rec, mesh, limit, acc, frame)
   const count = labelRegions(label, sel, n, rec, mesh, d)
+  // one region of every element is the whole section (regionAccumulators): no blocks needed
+  if (count > 1 || n !== rec.n) fillPending(rec, mesh, stress, d, acc, frame)
   const ra = regionAccumulators(count, label, sel, n, rec, mesh, acc)
-  const regions: SectionRegion[] = []
+  const unsorted: SectionRegion[] = []
   for (let g = 0; g < count; g++) {
     const r = sectionRecord(ra.acc, g * ACC_SIZE, point, m, frame, null, ZERO_FREE_BODY, 0, choice)
-    regions.push({
+    unsorted.push({
       area: r.area, centroid: r.centroid, force: r.force, moment: r.moment, axes: r.axes, secondMoments: r.secondMoments,
       axial: r.axial, shear: r.shear, torque: r.torque, bending: r.bending, parts: ra.parts[g], cutElements: r.cutElements,
     })
   }
-  regions.sort((a, b) => Math.hypot(...b.force) - Math.hypot(...a.force))
-  if (!limit) return { regions, result: null }
+  // largest force first (stable: equal forces keep the order of their first element)
+  const order = unsorted.map((_, g) => g).sort((a, b) => Math.hypot(...unsorted[b].force) - Math.hypot(...unsorted[a].force) || a - b)
+  const regions = order.map((g) => unsorted[g])
+  if (labelsOut) {
+    const rank = new Int32Array(count)
+    order.forEach((g, k) => { rank[g] = k })
+    const element = new Int32Array(n), region = new Int32Array(n)
+    for (let s = 0; s < n; s++) { element[s] = mesh.blocks[rec.block[sel[s]]].offset + rec.local[sel[s]]; region[s] = rank[label[s]] }
+    labelsOut.element = element; labelsOut.region = region
+  }
+  if (!limit) return { regions, result: null, selection: null }
   const selAcc = selectionAccumulator(new Float64Array(ACC_SIZE), sel, n, rec, acc)
-  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about, choice), regions: [], limited: true, freeBodyDefined: false } }
-  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped, choice), regions, limited: true, freeBodyDefined: false } }
+  if (!(selAcc[ACC_AREA] > 0)) return { regions, result: { ...emptySection(point, m, frame, about, choice), regions: [], limited: true, freeBodyDefined: false }, selection: null }
+  return { regions, result: { ...sectionRecord(selAcc, 0, point, m, frame, about, ZERO_FREE_BODY, unmapped, choice), regions, limited: true, freeBodyDefined: false }, selection: selAcc }
 }
 
 // The passes below are separate functions so that each is optimised with its own type feedback:
@@ -217,19 +289,34 @@ function cutLinearBlock(
     const base = nn * list[i]
     dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
     if (polygon(sc, acc, 0, coords, values, 6, conn, rows, base, cases, frame) < 3) continue
-    if (rec) {
-      // the element's own block first, then the same numbers into the whole (0 + x = x: the
-      // whole section is bit-identical to a cut without the record)
-      const o = recordElement(rec, bi, list[i])
-      integrate(rec.acc, o, sc, frame, 6)
-      addAccumulator(acc, 0, rec.acc, o)
-    } else integrate(acc, 0, sc, frame, 6)
+    // the record notes the element only (its block is filled later if needed: fillPending), and
+    // the whole section is integrated as without it
+    if (rec) recordElement(rec, bi, list[i], false)
+    integrate(acc, 0, sc, frame, 6)
     if (collect) {
       // the drawn polygon needs its vertices' ξ: the linear path has the edge parameters only
       // implicitly, so map back through the (affine) element
       linearVertexReference(sc, coords, conn, base, ref)
       collect.add(sc, bi, list[i], offset + list[i], sc.force, -1, null, false, true)
     }
+  }
+}
+
+/**
+ * Computes the pending accumulator blocks of a record (linear simplices noted by cutLinearBlock):
+ * each element's polygon and closed-form integrals again, about the whole section's origin.
+ */
+function fillPending(rec: CutRecord, mesh: Mesh, stress: StressField, d: Float64Array, acc: Float64Array, frame: Float64Array): void {
+  const sc = createPolygonScratch(), dist = sc.dist, coords = mesh.coords, values = stress.values
+  for (let i = 0; i < rec.n; i++) {
+    if (!rec.pending[i]) continue
+    const bi = rec.block[i], block = mesh.blocks[bi], nn = ELEMENT_TYPES[block.type].nodeCount
+    const conn = block.conn, base = nn * rec.local[i], o = i * ACC_SIZE
+    for (let k = o; k < o + ACC_SIZE; k++) rec.acc[k] = 0
+    dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
+    // the whole section's origin is set: elementPolygon only reads it
+    if (elementPolygon(sc, acc, 0, coords, values, 6, conn, stress.rows[bi], base, crossingCases(block.type), frame) >= 3) integratePolygon(rec.acc, o, sc, frame, 6)
+    rec.pending[i] = 0
   }
 }
 

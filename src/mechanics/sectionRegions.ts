@@ -39,26 +39,42 @@ export interface CutRecord {
   local: Int32Array
   acc: Float64Array
   geoRec: Int32Array
+  /**
+   * 1 where the element's block is not computed yet (`recordElement(.., false)`: linear
+   * simplices, whose closed forms are cheap to run again). Most cuts have one region, whose
+   * figures are the whole section's, so the hot loop records only what labelling needs and the
+   * blocks are filled (`fillPending` in sectionCut.ts) only for several regions or a limit.
+   */
+  pending: Uint8Array
 }
 
 export function createCutRecord(): CutRecord {
   const e = 256
-  return { n: 0, block: new Int32Array(e), local: new Int32Array(e), acc: new Float64Array(e * ACC_SIZE), geoRec: new Int32Array(e) }
+  return { n: 0, block: new Int32Array(e), local: new Int32Array(e), acc: new Float64Array(e * ACC_SIZE), geoRec: new Int32Array(e), pending: new Uint8Array(e) }
 }
 
-/** Opens the record of a new cut element (zeroed block); returns its accumulator offset. */
-export function recordElement(r: CutRecord, block: number, local: number): number {
+/**
+ * Opens the record of a new cut element; with `withBlock` (the default) its accumulator block is
+ * zeroed to be filled now, else it is marked pending. Returns the block's offset.
+ */
+export function recordElement(r: CutRecord, block: number, local: number, withBlock = true): number {
   if (r.n === r.block.length) {
     const cap = 2 * r.n
     r.block = growInt(r.block, cap); r.local = growInt(r.local, cap)
     const acc = new Float64Array(cap * ACC_SIZE)
     acc.set(r.acc)
     r.acc = acc
+    const pending = new Uint8Array(cap)
+    pending.set(r.pending)
+    r.pending = pending
   }
   const i = r.n++
   r.block[i] = block; r.local[i] = local
-  const off = i * ACC_SIZE
-  r.acc.fill(0, off, off + ACC_SIZE)
+  if (!withBlock) { r.pending[i] = 1; return i * ACC_SIZE }
+  r.pending[i] = 0
+  const off = i * ACC_SIZE, acc = r.acc
+  // a plain loop: TypedArray.prototype.fill on 21 slots costs more than the writes (a call per element)
+  for (let k = off, end = off + ACC_SIZE; k < end; k++) acc[k] = 0
   return off
 }
 
@@ -140,41 +156,56 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb)
   }
   const partOf = new Int32Array(n)
-  for (let s = 0; s < n; s++) partOf[s] = recordPart(mesh, r, sel[s])
   // crossed faces by their three smallest corner numbers (enough to tell faces of a conforming
   // mesh apart), listed per smallest corner node: a node-indexed head (small, cache-friendly)
   // and the faces appended in order. A face's owner becomes -1 once its twin is met.
   const t = faceLists(mesh.nodeCount, 6 * n)
   const head = t.head
   let list = t.list, faces = 0
-  const c = new Int32Array(4)
+  // The hot loop: records come in block order, so each block's tables are read once per run;
+  // corners sorted in locals (no scratch array); the part read straight from the block.
+  let lastBlock = -1, conn = mesh.blocks[0].conn, cf = ELEMENT_TYPES[mesh.blocks[0].type].cornerFaces, nn = 0, nf = 0, cc = 0
+  let part: Int32Array | null = null, masks = faceMasks(cf)
   for (let s = 0; s < n; s++) {
     const i = sel[s]
-    const block = mesh.blocks[r.block[i]]
-    const topo = ELEMENT_TYPES[block.type], cf = topo.cornerFaces, nn = topo.nodeCount, conn = block.conn
-    const base = nn * r.local[i]
-    for (let f = 0; 4 * f < cf.length; f++) {
-      const nc = cf[4 * f + 3] < 0 ? 3 : 4
-      let neg = 0
-      for (let k = 0; k < nc; k++) {
-        c[k] = conn[base + cf[4 * f + k]]
-        if (d[c[k]] < 0) neg++
-      }
-      if (neg === 0 || neg === nc) continue // the plane does not cross this face
-      if (nc === 3) c[3] = -1
-      sort4(c)
-      const k0 = nc === 3 ? c[1] : c[0], k1 = nc === 3 ? c[2] : c[1], k2 = nc === 3 ? c[3] : c[2]
+    const bi = r.block[i]
+    if (bi !== lastBlock) {
+      const block = mesh.blocks[bi], topo = ELEMENT_TYPES[block.type]
+      conn = block.conn; cf = topo.cornerFaces; nn = topo.nodeCount; nf = cf.length >> 2; part = block.part; lastBlock = bi
+      cc = topo.cornerCount; masks = faceMasks(cf)
+    }
+    const local = r.local[i], base = nn * local
+    const ps = part ? part[local] : 0
+    partOf[s] = ps
+    // which corners lie on the - side, read once per element (bit k: corner k)
+    let below = 0
+    for (let k = 0; k < cc; k++) if (d[conn[base + k]] < 0) below |= 1 << k
+    for (let f = 0; f < nf; f++) {
+      const m = masks[f], hit = below & m
+      if (hit === 0 || hit === m) continue // the plane does not cross this face
+      const o4 = 4 * f
+      let c0 = conn[base + cf[o4]], c1 = conn[base + cf[o4 + 1]], c2 = conn[base + cf[o4 + 2]]
+      const tri = cf[o4 + 3] < 0
+      let c3 = tri ? -1 : conn[base + cf[o4 + 3]]
+      // sort ascending (five compares; a triangle's -1 sorts first)
+      let x
+      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+      const k0 = tri ? c1 : c0, k1 = tri ? c2 : c1, k2 = tri ? c3 : c2
       let e = head[k0]
       while (e >= 0 && !(list[FL * e + 1] === k1 && list[FL * e + 2] === k2)) e = list[FL * e + 5]
       if (e >= 0) {
         const other = list[FL * e + 4]
-        if (other >= 0 && partOf[other] === partOf[s]) union(other, s)
+        if (other >= 0 && partOf[other] === ps) union(other, s)
         list[FL * e + 4] = -1
         continue
       }
       if (FL * (faces + 1) > list.length) { list = growInt(list, 2 * list.length); t.list = list }
       const o = FL * faces
-      list[o] = k0; list[o + 1] = k1; list[o + 2] = k2; list[o + 3] = nc === 3 ? -1 : c[3]; list[o + 4] = s; list[o + 5] = head[k0]
+      list[o] = k0; list[o + 1] = k1; list[o + 2] = k2; list[o + 3] = tri ? -1 : c3; list[o + 4] = s; list[o + 5] = head[k0]
       head[k0] = faces++
     }
   }
@@ -198,6 +229,18 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
   return count
 }
 
+/** Bit masks of each corner face's corners (cornerFaces layout: 4 per face, -1 for a triangle's fourth), cached per table. */
+const maskCache = new WeakMap<ArrayLike<number>, Int32Array>()
+function faceMasks(cf: ArrayLike<number>): Int32Array {
+  let m = maskCache.get(cf)
+  if (!m) {
+    m = new Int32Array(cf.length >> 2)
+    for (let f = 0; f < m.length; f++) for (let k = 0; k < 4; k++) if (cf[4 * f + k] >= 0) m[f] |= 1 << cf[4 * f + k]
+    maskCache.set(cf, m)
+  }
+  return m
+}
+
 /** Face list stride: three smallest corners, the fourth (or -1), owner (-1 once matched), next face of the same smallest corner. */
 const FL = 6
 interface FaceLists { head: Int32Array; list: Int32Array }
@@ -208,16 +251,6 @@ function faceLists(nodes: number, faces: number): FaceLists {
   if (!lists || lists.head.length < nodes) lists = { head: new Int32Array(nodes).fill(-1), list: lists?.list ?? new Int32Array(FL * 1024) }
   if (lists.list.length < FL * faces) lists.list = new Int32Array(FL * faces)
   return lists
-}
-
-/** Sorts four integers ascending in place (a five-compare network). */
-function sort4(c: Int32Array): void {
-  let t
-  if (c[0] > c[1]) { t = c[0]; c[0] = c[1]; c[1] = t }
-  if (c[2] > c[3]) { t = c[2]; c[2] = c[3]; c[3] = t }
-  if (c[0] > c[2]) { t = c[0]; c[0] = c[2]; c[2] = t }
-  if (c[1] > c[3]) { t = c[1]; c[1] = c[3]; c[3] = t }
-  if (c[1] > c[2]) { t = c[1]; c[1] = c[2]; c[2] = t }
 }
 
 /**
@@ -289,14 +322,18 @@ export function cornersCoincide(coords: Float64Array, a: number[], b: number[], 
 export function regionAccumulators(
   count: number, label: Int32Array, sel: Int32Array, n: number, r: CutRecord, mesh: Mesh, acc: Float64Array,
 ): { acc: Float64Array; parts: number[][] } {
+  // one region holding every recorded element is the whole section (its sums in the same order)
+  if (count === 1 && n === r.n) return { acc: acc.slice(0, ACC_SIZE), parts: [[recordPart(mesh, r, sel[0])]] }
   const out = new Float64Array(count * ACC_SIZE)
-  const parts: Set<number>[] = Array.from({ length: count }, () => new Set<number>())
+  // a region lies in one part by construction (labelRegions joins only elements of one part)
+  const part = new Int32Array(count).fill(-1)
   for (let g = 0; g < count; g++) copyOrigin(out, g * ACC_SIZE, acc, 0)
   for (let s = 0; s < n; s++) {
-    addAccumulator(out, label[s] * ACC_SIZE, r.acc, sel[s] * ACC_SIZE)
-    parts[label[s]].add(recordPart(mesh, r, sel[s]))
+    const g = label[s]
+    addAccumulator(out, g * ACC_SIZE, r.acc, sel[s] * ACC_SIZE)
+    if (part[g] < 0) part[g] = recordPart(mesh, r, sel[s])
   }
-  return { acc: out, parts: parts.map((p) => [...p].sort((a, b) => a - b)) }
+  return { acc: out, parts: Array.from(part, (p) => [p]) }
 }
 
 /** The accumulator of the selected elements only (the whole section's origin). */

@@ -132,7 +132,7 @@ export interface LoadPatch {
 
 export interface LoadPatches {
   readonly patches: readonly LoadPatch[]
-  /** Int32Array(F): patch id per boundary face, -1 for the nominally free surface. */
+  /** Int32Array(F): patch id per boundary face, -1 for the nominally free surface, -2 for a face against another part (interfaceFaces.ts). */
   readonly faceLabel: Int32Array
   /**
    * The thresholds used, in stress units (a face above `threshold` starts a patch, one above

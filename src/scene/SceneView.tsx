@@ -18,6 +18,7 @@ import { SectionFill } from './SectionFill.tsx'
 import { SectionHandle } from './SectionHandle.tsx'
 import { SnapshotRegistrar } from './SnapshotRegistrar.tsx'
 import { SurfaceMesh } from './SurfaceMesh.tsx'
+import { ClosingFaces, InterfacePatches, RegionMarks } from './AssemblyMarks.tsx'
 import { sectionColouring } from './sectionColouring.ts'
 import { useClippingPlanes } from './useClippingPlanes.ts'
 import { arrowColouring, arrowReference, roundDown125 } from './arrowColouring.ts'
@@ -113,6 +114,23 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
   useEffect(() => { lastScale.current = null }, [model])
   const shownScale = scaleArrow ?? lastScale.current
   const markedElement = useStore((s) => s.markedElement)
+  // --- assemblies: shown parts, colour by part, regions and interfaces ---
+  const assembly = useStore((s) => s.assembly)
+  const hiddenParts = useStore((s) => s.hiddenParts)
+  const partColours = useStore((s) => s.partColours && s.assembly !== null)
+  const regionTriangles = useStore((s) => s.regionTriangles)
+  const highlightedRegion = useStore((s) => s.highlightedRegion)
+  const interfacesShown = useStore((s) => s.interfacesShown)
+  const highlightedInterface = useStore((s) => s.highlightedInterface)
+  const partRanges = useMemo(() => {
+    if (!assembly || hiddenParts.length === 0) return null
+    const o = assembly.partTriangles
+    return assembly.parts.flatMap((p, k): [number, number][] => (hiddenParts.includes(p.part) ? [] : [[o[k], o[k + 1] - o[k]]]))
+  }, [assembly, hiddenParts])
+  const closing = useMemo(() => (!assembly || hiddenParts.length === 0 ? [] : assembly.interfaces.flatMap((i, k) => (hiddenParts.includes(i.parts[0]) !== hiddenParts.includes(i.parts[1]) ? [k] : []))), [assembly, hiddenParts])
+  const partRange = useMemo((): [number, number] => [-0.5, (assembly?.parts.length ?? 1) - 0.5], [assembly])
+  // numbers only where the cut has several regions (one would sit on the section triad)
+  const regionCentroids = useMemo(() => ((sectionResult?.regions?.length ?? 0) > 1 ? sectionResult!.regions!.map((g) => g.centroid) : []), [sectionResult])
   const sectionAxes = sectionResult && !sectionResult.empty ? sectionResult.axes : null
 
   return (
@@ -122,12 +140,14 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
       <SnapshotRegistrar />
       {surface && model && (
         <SurfaceMesh
-          surface={surface} scalars={scalars} displacement={deformationBuffers?.surface ?? null} deformScale={deformScale} range={range} colourMap={colourMap}
-          highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds}
+          surface={surface} scalars={partColours ? assembly!.vertexPart : scalars} displacement={deformationBuffers?.surface ?? null} deformScale={deformScale}
+          range={partColours ? partRange : range} colourMap={partColours ? 'viridis' : colourMap}
+          highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds} ranges={partRanges}
           clipped={section.enabled && section.hide !== 'none' && !faceCoversCut}
         />
       )}
-      {edges && model && (
+      {/* the feature edges belong to the whole body: left out while parts are hidden */}
+      {edges && model && hiddenParts.length === 0 && (
         <FeatureEdges segments={edges} clippingPlanes={clippingPlanes} bounds={model.bounds} displacement={deformationBuffers?.edges ?? null} deformScale={deformScale} />
       )}
       {edges && model && deformScale !== 0 && deformation.outline && (
@@ -147,6 +167,15 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
           arrows={sectionBuffers.arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
           colourMap={arrowMap} colourRange={arrowRange} reference={reference} clippingPlanes={NO_PLANES} deformScale={deformScale}
         />
+      )}
+      {section.enabled && sectionBuffers && regionTriangles && !section.dragging && (
+        <RegionMarks buffers={sectionBuffers} offsets={regionTriangles} centroids={regionCentroids} highlighted={highlightedRegion} />
+      )}
+      {assembly && closing.length > 0 && (
+        <ClosingFaces positions={assembly.interfacePositions} offsets={assembly.interfaceTriangles} shown={closing} clippingPlanes={clippingPlanes} />
+      )}
+      {assembly && interfacesShown && assembly.interfaces.length > 0 && (
+        <InterfacePatches positions={assembly.interfacePositions} offsets={assembly.interfaceTriangles} highlighted={highlightedInterface} />
       )}
       {shownScale && model && sphere && <ScaleArrow bounds={model.bounds} length={shownScale.length} radius={0.004 * sphere.diagonal} label={shownScale.label} visible={scaleArrow !== null} />}
       {section.enabled && cut && sectionAxes && (

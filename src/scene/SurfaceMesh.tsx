@@ -27,6 +27,8 @@ export interface SurfaceMeshProps {
   readonly clipped: boolean
   /** Model bounds, so three.js never loops over the vertices to find them. */
   readonly bounds: { readonly min: readonly number[]; readonly max: readonly number[] }
+  /** Triangle ranges [first, count] to draw (the shown parts; the worker groups triangles by part); absent: all. */
+  readonly ranges?: readonly (readonly [number, number])[] | null
 }
 
 /** Never raycast the big surface on the main thread: picking goes to the worker. */
@@ -36,7 +38,7 @@ const noRaycast = (): void => {}
  * The boundary surface, colour-mapped by one scalar per vertex. The geometry is built once per
  * buffer set; quantity, range, map and highlight only swap an attribute or set a uniform.
  */
-export function SurfaceMesh({ surface, scalars, displacement, deformScale, range, colourMap, highlightedPatch, clippingPlanes, clipped, bounds }: SurfaceMeshProps) {
+export function SurfaceMesh({ surface, scalars, displacement, deformScale, range, colourMap, highlightedPatch, clippingPlanes, clipped, bounds, ranges = null }: SurfaceMeshProps) {
   const invalidate = useThree((s) => s.invalidate)
 
   const { geometry, scalarAttributes } = useMemo(() => {
@@ -109,6 +111,15 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
     invalidate()
   }, [material, backMaterial, colourMap, range, highlightedPatch, displacement, deformScale, invalidate])
 
+  // Hidden parts: only the shown parts' ranges are drawn (groups of one material; none drawn when empty).
+  useEffect(() => {
+    geometry.clearGroups()
+    if (ranges) for (const [first, count] of ranges) geometry.addGroup(3 * first, 3 * count, 0)
+    invalidate()
+  }, [geometry, ranges, invalidate])
+  const front = useMemo(() => (ranges ? [material] : material), [ranges, material])
+  const back = useMemo(() => (ranges ? [backMaterial] : backMaterial), [ranges, backMaterial])
+
   // The first draw of each surface leaves a User Timing mark (the browser tests time the first picture by it).
   const markFirstDraw = useMemo(() => {
     let done = false
@@ -117,8 +128,8 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
 
   return (
     <>
-      <mesh geometry={geometry} material={material} raycast={noRaycast} frustumCulled={false} onAfterRender={markFirstDraw} />
-      {clipped && <mesh geometry={geometry} material={backMaterial} raycast={noRaycast} frustumCulled={false} />}
+      <mesh geometry={geometry} material={front} raycast={noRaycast} frustumCulled={false} onAfterRender={markFirstDraw} />
+      {clipped && <mesh geometry={geometry} material={back} raycast={noRaycast} frustumCulled={false} />}
     </>
   )
 }

@@ -33,3 +33,6 @@ export const LINE = '#b0226a'
 /** Extremes markers: the largest and the smallest value of the shown quantity. */
 export const EXTREME_MAX = '#c2410c'
 export const EXTREME_MIN = '#1d4ed8'
+/** Assemblies: the highlighted region of a cut (and its number), and the interfaces between parts. */
+export const REGION = '#e0590b'
+export const INTERFACE = '#7b2cbf'

@@ -43,6 +43,8 @@ import { createLineSlice } from './lineSlice.ts'
 import type { LineSlice } from './lineSlice.ts'
 import { createShapeSlice, shapeOfLoad } from './shapeSlice.ts'
 import type { ShapeSlice } from './shapeSlice.ts'
+import { assemblyOfLoad, createAssemblySlice } from './assemblySlice.ts'
+import type { AssemblySlice } from './assemblySlice.ts'
 import type { ComponentQuantity } from '../mechanics/componentScalars.ts'
 
 /**
@@ -307,7 +309,7 @@ export interface TractusActions {
   markElement: (element: MarkedElement | null) => void
 }
 
-export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice & IntakeSlice
+export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice & IntakeSlice & AssemblySlice
 
 export const DEFAULT_SECTION: SectionState = {
   enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'auto', traction: 'normalTraction', dragging: false,
@@ -390,6 +392,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   ...createIntakeSlice(set, get, api),
   ...createLineSlice(set, get, api),
   ...createShapeSlice(set, get, api),
+  ...createAssemblySlice(set, get, api),
 
   setQuantity: (q) => {
     const st = get()
@@ -467,6 +470,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
       // Nor an old line; the new model's displacement, components and extremes come with it.
       line: { ...get().line, from: null, to: null }, linePicking: 'off', lineResult: null, lineError: null,
       ...shapeOfLoad(loaded),
+      ...assemblyOfLoad(loaded),
       // The model's own units follow the model.
       ...(get().unitPreset === 'model' ? { units: modelDisplayUnits(summary.units) } : {}),
     })
@@ -477,7 +481,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   cutShown: (sectionResult, sectionBuffers, offset, cutInfo = null) => set({
     sectionResult, sectionBuffers, cutInfo, ...(offset !== undefined ? { section: { ...get().section, offset } } : {}),
   }),
-  cutCleared: () => set({ sectionResult: null, sectionBuffers: null, cutInfo: null }),
+  cutCleared: () => set({ sectionResult: null, sectionBuffers: null, cutInfo: null, regionTriangles: null }),
   probeShown: (probe) => set({ probe }),
 
   setSectionAxes: (sectionAxes) => set({ sectionAxes }),

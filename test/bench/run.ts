@@ -49,8 +49,8 @@ const SEED = Math.round(opt('--seed', 20261201))
 const t0All = performance.now()
 const log = (s: string) => process.stderr.write(s + '\n')
 
-type KernelName = 'boundary' | 'audit' | 'patches' | 'cut' | 'readCsv' | 'readNative'
-const KERNELS: readonly KernelName[] = ['boundary', 'audit', 'patches', 'cut', 'readCsv', 'readNative']
+type KernelName = 'boundary' | 'audit' | 'patches' | 'cut' | 'cutRegions' | 'readCsv' | 'readNative'
+const KERNELS: readonly KernelName[] = ['boundary', 'audit', 'patches', 'cut', 'cutRegions', 'readCsv', 'readNative']
 
 interface KernelFigure {
   medianMs: number
@@ -158,6 +158,10 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
   const r = cut.value.result
   checks.cutElements = r.cutElements
   checks.cutFreeBodyRelative = r.freeBody.relative
+  // assemblies: the same cut split into regions (sectionRegions.ts), right after the plain one
+  log(`${label}: section cut with regions`)
+  const cutRegions = measure(() => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false, regions: true }), { runs: runsFor(E, 11), warmup: 15 })
+  checks.cutRegions = cutRegions.value.result.regions!.length
   let cutBaseline: Timing<unknown> | null = null
   if (withBaselines) {
     log(`${label}: plain cut baseline`)
@@ -187,6 +191,7 @@ function benchModel(model: Model, withBaselines: boolean, label: string): ModelF
     audit: figure(audit, streamCCS, null),
     patches: figure(patches, streamCC, null),
     cut: figure(cut, streamCC, cutBaseline),
+    cutRegions: figure(cutRegions, streamCC, null),
     readCsv: { ...figure(csv, streamCsv, null), mbPerS: csvBytes / 1e6 / (csv.medianMs / 1000) },
     readNative: { ...figure(native, streamNative, null), mbPerS: bytes.byteLength / 1e6 / (native.medianMs / 1000) },
   }
@@ -264,6 +269,7 @@ const targets = [
   { name: 'element balance audit ≤ 400 ms', value: k.audit.medianMs, cpu: k.audit.cpuMs, pass: k.audit.medianMs <= 400, cpuPass: k.audit.cpuMs <= 400 },
   { name: 'section cut with free body ≤ 20 ms', value: k.cut.medianMs, cpu: k.cut.cpuMs, pass: k.cut.medianMs <= 20, cpuPass: k.cut.cpuMs <= 20 },
   { name: 'section cut within 4x the streaming limit', value: k.cut.vsStreaming, cpu: k.cut.vsStreamingCpu, pass: k.cut.vsStreaming <= 4, cpuPass: k.cut.vsStreamingCpu <= 4 },
+  { name: 'regions add ≤ 25 % to the cut', value: k.cutRegions.medianMs / k.cut.medianMs - 1, cpu: k.cutRegions.cpuMs / k.cut.cpuMs - 1, pass: k.cutRegions.medianMs <= 1.25 * k.cut.medianMs, cpuPass: k.cutRegions.cpuMs <= 1.25 * k.cut.cpuMs },
   { name: 'tet10 cut ≤ 3 × tet4 cut (same elements)', value: cutByType.tet10OverTet4!.medianOverTet4, cpu: cutByType.tet10OverTet4!.cpuOverTet4, pass: cutByType.tet10OverTet4!.medianOverTet4 <= 3, cpuPass: cutByType.tet10OverTet4!.cpuOverTet4 <= 3 },
   { name: 'CSV read ≥ 100 MB/s', value: k.readCsv.mbPerS!, cpu: tet.csvBytes / 1e3 / k.readCsv.cpuMs, pass: k.readCsv.mbPerS! >= 100, cpuPass: tet.csvBytes / 1e3 / k.readCsv.cpuMs >= 100 },
   { name: 'native read ≥ 1000 MB/s', value: k.readNative.mbPerS!, cpu: tet.modelBytes / 1e3 / k.readNative.cpuMs, pass: k.readNative.mbPerS! >= 1000, cpuPass: tet.modelBytes / 1e3 / k.readNative.cpuMs >= 1000 },

@@ -40,7 +40,7 @@ describe('tractus cut: regions and limits', () => {
     const p = await cliJson('cut', bars, ...plane, '--parts', '3')
     expect(p.force[2]).toBeCloseTo(-5, 9)
     expect(p.limited).toBe(true)
-    expect(p.freeBodyDefined).toBe(false)
+    expect(p.freeBodyDefined).toBe(true)
     const w = await cliJson('cut', bars, ...plane, '--within', '0.5,0.5,50,1')
     expect(w.force[2]).toBeCloseTo(10, 9)
     const both = await cliJson('cut', bars, ...plane, '--within', '0.5,0.5,0,1', '--parts', '3')
@@ -48,7 +48,8 @@ describe('tractus cut: regions and limits', () => {
     const t = await cli('cut', bars, ...plane, '--within', '0.5,0.5,0,1', '--parts', '3')
     expect(t.code).toBe(0)
     expect(t.stdout).toMatch(/selects no part of the section/)
-    expect((await cli('cut', bars, ...plane, '--parts', '1')).stdout).toMatch(/free body\s+not defined/)
+    expect((await cli('cut', bars, ...plane, '--within', '0.5,0.5,50,1')).stdout).toMatch(/free body\s+not defined for a disc/)
+    expect((await cli('cut', bars, ...plane, '--parts', '1')).stdout).toMatch(/free body relative/)
   })
 
   it('rejects an unknown part (exit 2), a malformed option or a radius ≤ 0 (exit 1)', async () => {

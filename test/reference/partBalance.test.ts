@@ -10,6 +10,8 @@ import { assemblyBalance } from '../../src/mechanics/partBalance.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { computeBodyBalance } from '../../src/mechanics/balanceAudit.ts'
+import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
+import { allocateNodalInvariants, computeNodalInvariants } from '../../src/mechanics/invariants.ts'
 import { nodalStressField } from '../../src/model/stressField.ts'
 import type { Vec3 } from '../../src/model/model.ts'
 import { assembly } from '../helpers/assemblies.ts'
@@ -41,6 +43,22 @@ describe.each([true, false])('two-part column under its own weight (shared nodes
     expect(Math.abs(i.force[0]) + Math.abs(i.force[1])).toBeLessThan(1e-18)
     expect(i.mismatch).toBeLessThan(1e-12)
     for (const p of asm.parts) expect(p.balance.relative).toBeLessThan(1e-10)
+  })
+
+  it('keeps the interface out of the load-entry patches and the free surface', () => {
+    const faces = extractBoundaryFaces(mesh)
+    const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces)
+    const vm = computeNodalInvariants(allocateNodalInvariants(mesh.nodeCount), stress).vonMises
+    const p = findLoadPatches(mesh, faces, tractions, vm)
+    // the held base (|t| = 2W) is the one patch; the joint (|t| = W, above the 5 % level) is an
+    // interface, not a load, whether its nodes are shared (interior) or only coincide (labelled -2)
+    expect(p.patches.length).toBe(1)
+    expect(p.patches[0].force[2]).toBeCloseTo(2 * W, 15)
+    // free surface: the four sides (area 8) and the top (1)
+    expect(p.freeSurface.area).toBeCloseTo(9, 12)
+    let against = 0
+    for (let f = 0; f < faces.count; f++) if (p.faceLabel[f] === -2) against += faces.area[f]
+    expect(against).toBeCloseTo(merge ? 0 : 2, 12)
   })
 
   it('sums the per-part residuals to the whole-body residual (moments about one point)', () => {

@@ -53,10 +53,13 @@ describe.each(['hex8', 'tet4', 'hex20', 'wedge6'] as const)('two separate bars t
     const p2 = cutSection(mesh, nodalStressField(mesh, stress), ZERO, { point: [0, 0, 1.3], normal: [0, 0, 1] }, { limit: { parts: [2] } }).result
     expect(p2.force[2]).toBeCloseTo(-5, 10)
     expect(p2.area).toBeCloseTo(2, 12)
-    expect(p2.freeBodyDefined).toBe(false)
+    // whole parts bound a piece (bar 2 below the plane): its free body is defined and balanced
+    expect(p2.freeBodyDefined).toBe(true)
+    expect(p2.freeBody.relative).toBeLessThan(1e-12)
     const disc = cutSection(mesh, nodalStressField(mesh, stress), ZERO, { point: [0, 0, 1.3], normal: [0, 0, 1] }, { limit: { within: { center: [0.5, 0.5, 99], radius: 1 } } }).result
     expect(disc.force[2]).toBeCloseTo(10, 10)
     expect(disc.centroid[2]).toBeCloseTo(1.3, 12)
+    expect(disc.freeBodyDefined).toBe(false)
     const none = cutSection(mesh, nodalStressField(mesh, stress), ZERO, { point: [0, 0, 1.3], normal: [0, 0, 1] }, { limit: { within: { center: [2, 0.5, 0], radius: 0.2 } } }).result
     expect(none.empty).toBe(true)
     expect(none.regions).toEqual([])

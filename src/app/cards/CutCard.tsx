@@ -11,6 +11,7 @@ import { lookAtSection } from '../views.ts'
 import { modelSphere, sectionPlaneOf } from '../../state/selectors.ts'
 import { useStore } from '../../state/store.ts'
 import type { SectionState } from '../../state/store.ts'
+import { RegionTable, SectionLimitControl } from './SectionRegions.tsx'
 
 /**
  * The offset slider. While the pointer holds it, moves go through the store's section drag (the
@@ -231,11 +232,14 @@ export function CutCard() {
             Plane through <Vec v={plane.point} q="length" floor={1e-9 * sphere.diagonal} />, n = <span className="vec">(<Num v={plane.normal[0]} q={null} floor={1e-9} />, <Num v={plane.normal[1]} q={null} floor={1e-9} />, <Num v={plane.normal[2]} q={null} floor={1e-9} />)</span>
           </div>
           <AxesChoice explain={!result || result.empty} />
-          {result?.empty ? <MissNote section={section} extent={extent} /> : null}
+          {/* --- assemblies: the bounded section --- */}
+          <SectionLimitControl />
+          {result?.empty && result.limited ? <p className="note bad" data-testid="cut-limit-empty">The limit selects no part of this section: nothing to report.</p> : null}
+          {result?.empty && !result.limited ? <MissNote section={section} extent={extent} /> : null}
           {rows.length && result ? (
             <div data-testid="cut-result">
               <AxesShown r={result} />
-              <p className="note">What the +n side exerts on the −n side; moments about the section centroid.</p>
+              <p className="note">What the +n side exerts on the −n side{result.limited ? ', over the selected polygons only' : ''}; moments about the {result.limited ? 'selection\'s' : 'section'} centroid.</p>
               <table className="figures">
                 <caption>Section axes e₁, e₂, e₃ = n</caption>
                 <tbody>{['axial', 'shear1', 'shear2', 'torque', 'bending1', 'bending2'].map((k) => <Row key={k} k={k} />)}</tbody>
@@ -251,10 +255,13 @@ export function CutCard() {
                   <tr><th>Elements cut</th><td><span className="num" data-model={String(result.cutElements)}>{result.cutElements}</span></td></tr>
                 </tbody>
               </table>
-              <table className="figures">
-                <caption>Free body on the −n side</caption>
-                <tbody>{['fbF', 'fbM', 'fbRel', 'fbRelM'].map((k) => <Row key={k} k={k} />)}</tbody>
-              </table>
+              {result.freeBodyDefined === false
+                ? <p className="note" data-testid="cut-free-body-undefined">Free body: not defined for a disc (a disc of the plane does not bound a piece of the body); limit to whole parts alone for it.</p>
+                : <table className="figures">
+                  <caption>Free body on the −n side{result.limited ? ' of the selected parts (their faces against other parts included)' : ''}</caption>
+                  <tbody>{['fbF', 'fbM', 'fbRel', 'fbRelM'].map((k) => <Row key={k} k={k} />)}</tbody>
+                </table>}
+              <RegionTable result={result} />
               <div className="row">
                 <button type="button" data-testid="export-section-csv" onClick={() => download(`${fileStem(model.name)}-section.csv`, sectionCsv(model, result, system), 'text/csv')}>Section CSV</button>
                 <button type="button" data-testid="export-section-json" onClick={() => download(`${fileStem(model.name)}-section.json`, sectionJson(model, result, system), 'application/json')}>Section JSON</button>

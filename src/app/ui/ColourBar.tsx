@@ -56,14 +56,19 @@ export function ColourBar() {
   const arrowMap = useStore((s) => arrowColouring(s)?.map ?? 'RdBu')
   const arrowLo = useStore((s) => arrowColouring(s)?.range[0] ?? -1)
   const arrowHi = useStore((s) => arrowColouring(s)?.range[1] ?? 1)
+  // --- assemblies: the surface coloured by part has no scale; the section keeps its own bar ---
+  const partColours = useStore((s) => s.partColours && s.assembly !== null)
+  const sectionShown = useStore((s) => s.section.enabled && s.sectionBuffers !== null)
   if (!model) return null
   const { factor, unit } = quantityDisplay(quantity, model.units, system)
   const secDisp = quantityDisplay(traction, model.units, system)
   return (
     <div className="colourbars">
-      <Bar testId="colour-bar" title={quantityLabel(quantity, axes)} unit={unit} map={colourMap} lo={lo} hi={hi} factor={factor}
-        note={auto ? 'auto range' : 'fixed range'} />
-      {ownSectionBar ? (
+      {partColours
+        ? <div className="colourbar" data-testid="colour-bar-parts"><div className="cb-title">Surface coloured by part <span className="cb-map">the Parts card&apos;s swatches are the key</span></div></div>
+        : <Bar testId="colour-bar" title={quantityLabel(quantity, axes)} unit={unit} map={colourMap} lo={lo} hi={hi} factor={factor}
+          note={auto ? 'auto range' : 'fixed range'} />}
+      {ownSectionBar || (partColours && sectionShown) ? (
         <Bar testId="section-colour-bar" title={`Section: ${QUANTITY_LABEL[traction]}`} unit={secDisp.unit} map={sectionMap}
           lo={sectionLo} hi={sectionHi} factor={secDisp.factor} note="section range" />
       ) : null}

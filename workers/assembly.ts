@@ -1,0 +1,91 @@
+/**
+ * The engine's assembly jobs: the parts, their balance and interfaces of a loaded model (once per
+ * load, only when it has several parts), the surface's triangles grouped by part, and a cut's
+ * section triangles grouped by region. Everything here is O(elements) or O(triangles) and runs in
+ * the worker; the scene then shows, hides and highlights whole index ranges.
+ *
+ * Units: model units (see protocol.ts).
+ */
+import type { Model, Vec3 } from '../src/model/model.ts'
+import type { StressField } from '../src/model/stressField.ts'
+import { assemblyBalance, partNumbers } from '../src/mechanics/partBalance.ts'
+import { groupTriangles } from '../src/mechanics/triangleGroups.ts'
+import { partPiece } from '../src/mechanics/sectionCut.ts'
+import type { PartPiece, RegionLabels } from '../src/mechanics/sectionCut.ts'
+import type { BoundaryFaces } from '../src/mechanics/types.ts'
+import type { AssemblySummary, CutLimit } from './protocol.ts'
+import { InputError } from '../src/model/errors.ts'
+
+/** Each element's part number (0 without), by global element index. */
+function elementParts(model: Model): Int32Array {
+  const out = new Int32Array(model.mesh.elementCount)
+  for (const b of model.mesh.blocks) if (b.part) out.set(b.part, b.offset)
+  return out
+}
+
+/**
+ * The assembly of `model` (null with one part), its surface triangles regrouped by part in place
+ * (`index` and `triangleFace` move together, so picking still finds each triangle's face).
+ */
+export function loadAssembly(
+  model: Model, field: StressField, faces: BoundaryFaces, index: Uint32Array, triangleFace: Uint32Array, faceVertexStart: Int32Array,
+): AssemblySummary | null {
+  const numbers = partNumbers(model.mesh)
+  if (numbers.length < 2) return null
+  const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
+  const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
+  const names = new Map([...info.values()].map((p) => [p.part, p.name]))
+  const asm = assemblyBalance(model.mesh, field, bodyForce, names)
+  const rank = new Map(numbers.map((p, k) => [p, k]))
+  const partOf = elementParts(model)
+  const T = triangleFace.length
+  const group = new Int32Array(T)
+  for (let t = 0; t < T; t++) group[t] = rank.get(partOf[faces.elem[triangleFace[t]]]) ?? -1
+  const partTriangles = groupTriangles(index, [triangleFace], group, numbers.length)
+  // the part's rank at every surface vertex (colour by part)
+  const vertexPart = new Float32Array(faceVertexStart[faces.count])
+  for (let f = 0; f < faces.count; f++) vertexPart.fill(rank.get(partOf[faces.elem[f]]) ?? -1, faceVertexStart[f], faceVertexStart[f + 1])
+  return {
+    parts: asm.parts, interfaces: asm.interfaces, partTriangles, vertexPart,
+    interfacePositions: asm.interfaceMesh.positions, interfaceTriangles: asm.interfaceMesh.offsets,
+  }
+}
+
+/** A cut's section triangles regrouped by region in place; returns the region offsets (see CutReply). */
+export function regionTriangles(labels: RegionLabels, count: number, index: Uint32Array, triangleElement: Int32Array): Int32Array {
+  const regionOf = new Map<number, number>()
+  for (let s = 0; s < labels.element.length; s++) regionOf.set(labels.element[s], labels.region[s])
+  const T = triangleElement.length
+  const group = new Int32Array(T)
+  for (let t = 0; t < T; t++) group[t] = regionOf.get(triangleElement[t]) ?? -1
+  return groupTriangles(index, [triangleElement], group, count)
+}
+
+/** Checks a limit from the app: known parts, a finite centre and a radius > 0 (InputError naming the field). */
+export function checkLimit(limit: CutLimit | null | undefined, model: Model): CutLimit | null {
+  if (!limit || (!limit.parts && !limit.within)) return null
+  if (limit.parts) {
+    const known = new Set(partNumbers(model.mesh))
+    const unknown = limit.parts.filter((p) => !known.has(p))
+    if (unknown.length) throw new InputError('bad-argument', `parts: no element has part ${unknown.join(', ')}; the model's parts are ${[...known].join(', ')}`)
+  }
+  const w = limit.within
+  if (w && !(w.center.every(Number.isFinite) && Number.isFinite(w.radius) && w.radius > 0)) {
+    throw new InputError('bad-argument', 'disc: the centre needs three finite numbers and the radius a number greater than 0')
+  }
+  return limit
+}
+
+/** The piece of the last parts limit per model (a parts-limited cut's free body; O(elements) to build). */
+const pieces = new WeakMap<Model, PartPiece>()
+
+/** The piece of `limit`'s parts when the limit is whole parts only (else undefined), kept while the parts stay. */
+export function pieceFor(model: Model, field: StressField, limit: CutLimit | null): PartPiece | undefined {
+  if (!limit?.parts || limit.parts.length === 0 || limit.within) return undefined
+  const key = [...limit.parts].sort((a, b) => a - b).join(',')
+  const old = pieces.get(model)
+  if (old && [...old.parts].sort((a, b) => a - b).join(',') === key) return old
+  const piece = partPiece(model.mesh, field, limit.parts)
+  pieces.set(model, piece)
+  return piece
+}
