@@ -211,6 +211,8 @@ export function faceQuadratureTables(): FaceTable[] {
  * and its corner mean as centroid.
  */
 export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array, coords: Float64Array, kind: Uint8Array, nodes: Int32Array, slots: number): void {
+  // imported names once into locals (getter calls under tsx's CommonJS transform, see tractions.ts)
+  const points = faceQuadraturePoints, X = FQP_X, AREA = FQP_AREA, SIZE = FQP_SIZE
   const tables = faceQuadratureTables()
   const F = kind.length
   const xs = new Float64Array(3 * FACE_SLOTS), qp = createFacePoints(tables)
@@ -240,13 +242,13 @@ export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Arr
       xs[3 * a] = coords[p]; xs[3 * a + 1] = coords[p + 1]; xs[3 * a + 2] = coords[p + 2]
     }
     let A = 0, sx = 0, sy = 0, sz = 0, cx = 0, cy = 0, cz = 0
-    faceQuadraturePoints(qp, t, xs, null, true)
+    points(qp, t, xs, null, true)
     for (let q = 0; q < nq; q++) {
-      const r = FQP_SIZE * q, w = W[q]
-      const nx = qp[r + FQP_AREA], ny = qp[r + FQP_AREA + 1], nz = qp[r + FQP_AREA + 2]
+      const r = SIZE * q, w = W[q]
+      const nx = qp[r + AREA], ny = qp[r + AREA + 1], nz = qp[r + AREA + 2]
       const dA = Math.sqrt(nx * nx + ny * ny + nz * nz) * w
       A += dA; sx += nx * w; sy += ny * w; sz += nz * w
-      cx += qp[r + FQP_X] * dA; cy += qp[r + FQP_X + 1] * dA; cz += qp[r + FQP_X + 2] * dA
+      cx += qp[r + X] * dA; cy += qp[r + X + 1] * dA; cz += qp[r + X + 2] * dA
     }
     outArea[f] = A
     const len = Math.sqrt(sx * sx + sy * sy + sz * sz)
