@@ -241,6 +241,60 @@ const AFFINE = new Float64Array(9)
  * on failure xi holds the estimate pulled into the reference element and em.failures is one up.
  */
 export function invertElementMap(em: ElementMap, x0: number, x1: number, x2: number, xi: Float64Array, o: number): boolean {
+  if (em.trilinear) return invertTrilinear(em, x0, x1, x2, xi, o)
+  return invertGeneral(em, x0, x1, x2, xi, o)
+}
+
+/**
+ * The same guarded Newton iteration for a distorted hex8 in monomial form, in a function of its
+ * own: residual and Jacobian share their products, and the grown reference cube is tested as
+ * max(|ξ|, |η|, |ζ|) > 1 + margin (its face planes are ±ξ ≤ 1 exactly, so this is the general
+ * test's arithmetic). Same steps, same stopping rules, same results as the general loop with
+ * `trilinear` set (tests compare them).
+ */
+function invertTrilinear(em: ElementMap, x0: number, x1: number, x2: number, xi: Float64Array, o: number): boolean {
+  const domain = em.domain, P = em.poly
+  const s0 = xi[o], s1 = xi[o + 1], s2 = xi[o + 2]
+  let a = s0, b = s1, c = s2
+  const tol = 1e-13 * em.size, maxStep = domain.size / 3, done = NEWTON_STEP_DONE * domain.size, margin = NEWTON_MARGIN * domain.size
+  const lim = 1 + margin
+  for (let it = 0; ; it++) {
+    const ab = a * b, bc = b * c, ac = a * c, abc = ab * c
+    // summed as the general loop sums them (bit for bit the same iterates)
+    const r0 = -x0 + (P[0] + P[3] * a + P[6] * b + P[9] * c + P[12] * ab + P[15] * bc + P[18] * ac + P[21] * abc)
+    const r1 = -x1 + (P[1] + P[4] * a + P[7] * b + P[10] * c + P[13] * ab + P[16] * bc + P[19] * ac + P[22] * abc)
+    const r2 = -x2 + (P[2] + P[5] * a + P[8] * b + P[11] * c + P[14] * ab + P[17] * bc + P[20] * ac + P[23] * abc)
+    const rm = Math.max(Math.abs(r0), Math.abs(r1), Math.abs(r2))
+    if (rm <= tol) { xi[o] = a; xi[o + 1] = b; xi[o + 2] = c; return true }
+    if (!(rm < Infinity) || it === NEWTON_ITERATIONS) break // NaN or the cap: give up
+    const j00 = P[3] + P[12] * b + P[18] * c + P[21] * bc, j01 = P[6] + P[12] * a + P[15] * c + P[21] * ac, j02 = P[9] + P[15] * b + P[18] * a + P[21] * ab
+    const j10 = P[4] + P[13] * b + P[19] * c + P[22] * bc, j11 = P[7] + P[13] * a + P[16] * c + P[22] * ac, j12 = P[10] + P[16] * b + P[19] * a + P[22] * ab
+    const j20 = P[5] + P[14] * b + P[20] * c + P[23] * bc, j21 = P[8] + P[14] * a + P[17] * c + P[23] * ac, j22 = P[11] + P[17] * b + P[20] * a + P[23] * ab
+    const c00 = j11 * j22 - j12 * j21, c01 = j02 * j21 - j01 * j22, c02 = j01 * j12 - j02 * j11
+    const det = j00 * c00 + j10 * c01 + j20 * c02
+    if (!(Math.abs(det) > 0 && Math.abs(det) < Infinity)) break // singular map here
+    const c10 = j12 * j20 - j10 * j22, c11 = j00 * j22 - j02 * j20, c12 = j02 * j10 - j00 * j12
+    const c20 = j10 * j21 - j11 * j20, c21 = j01 * j20 - j00 * j21, c22 = j00 * j11 - j01 * j10
+    let da = (c00 * r0 + c01 * r1 + c02 * r2) / det
+    let db = (c10 * r0 + c11 * r1 + c12 * r2) / det
+    let dc = (c20 * r0 + c21 * r1 + c22 * r2) / det
+    const step = Math.max(Math.abs(da), Math.abs(db), Math.abs(dc))
+    if (step > maxStep) { const f = maxStep / step; da *= f; db *= f; dc *= f } // damping
+    a -= da; b -= db; c -= dc
+    if (step <= done) { xi[o] = a; xi[o + 1] = b; xi[o + 2] = c; return true }
+    if (Math.abs(a) > lim || Math.abs(b) > lim || Math.abs(c) > lim) {
+      pullInside(domain, margin, a, b, c, PULLED)
+      a = PULLED[0]; b = PULLED[1]; c = PULLED[2]
+    }
+  }
+  pullInside(domain, 0, s0, s1, s2, PULLED)
+  xi[o] = PULLED[0]; xi[o + 1] = PULLED[1]; xi[o + 2] = PULLED[2]
+  em.failures++
+  return false
+}
+
+/** The guarded Newton iteration over the type's shape functions (or the monomial form, `trilinear`). */
+function invertGeneral(em: ElementMap, x0: number, x1: number, x2: number, xi: Float64Array, o: number): boolean {
   const domain = em.domain, values = domain.values, derivatives = domain.derivatives, nn = domain.nodeCount
   const X = em.x, N = em.N, dN = em.dN, tri = em.trilinear, P = em.poly
   const s0 = xi[o], s1 = xi[o + 1], s2 = xi[o + 2]
