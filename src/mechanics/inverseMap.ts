@@ -188,19 +188,65 @@ export function loadElementMap(em: ElementMap, domain: ReferenceDomain, coords: 
     const p = 3 * conn[base + a]
     x[3 * a] = coords[p] - ox; x[3 * a + 1] = coords[p + 1] - oy; x[3 * a + 2] = coords[p + 2] - oz
   }
+  if (domain.type === 'tet10') {
+    // Straight-sided test on the loaded coordinates: each mid-edge node at its edge's midpoint
+    // within 1e-12 of the size (the general test below, with A's columns the corner edges, reduces
+    // to this; straightTet10.ts is the same test on the mesh arrays), without forming A.
+    let size = 0
+    for (let k = 3; k < 12; k++) size = Math.max(size, Math.abs(x[k]))
+    em.size = size
+    em.affine = midpointsOnEdges(x, size)
+    em.trilinear = false
+    return em
+  }
+  em.size = spanSize(x, domain)
+  em.affine = affineFit(em, domain)
+  em.trilinear = !em.affine && domain.type === 'hex8'
+  if (em.trilinear) trilinearForm(em.poly, x, ref)
+  return em
+}
+
+/** Largest coordinate extent of the span edges of the loaded element (ElementMap.size). */
+function spanSize(x: Float64Array, domain: ReferenceDomain): number {
+  const span = domain.span
+  let size = 0
+  for (let k = 1; k < 4; k++) {
+    const s = 3 * span[k]
+    size = Math.max(size, Math.abs(x[s]), Math.abs(x[s + 1]), Math.abs(x[s + 2]))
+  }
+  return size
+}
+
+/** tet10 edges as (corner, corner, mid-edge node), 3 per edge (ELEMENT_TYPES.tet10.edges). */
+const TET10_EDGES = Int32Array.from(ELEMENT_TYPES.tet10.edges.flat())
+
+/** Whether every tet10 mid-edge node of the loaded x (relative to corner 0) is at its edge's midpoint, 2x_m - x_a - x_b within 2e-12 · size. */
+function midpointsOnEdges(x: Float64Array, size: number): boolean {
+  const tol = 2e-12 * size, E = TET10_EDGES
+  for (let k = 0; k < 18; k += 3) {
+    const a = 3 * E[k], b = 3 * E[k + 1], m = 3 * E[k + 2]
+    if (Math.abs(2 * x[m] - x[a] - x[b]) > tol || Math.abs(2 * x[m + 1] - x[a + 1] - x[b + 1]) > tol || Math.abs(2 * x[m + 2] - x[a + 2] - x[b + 2]) > tol) return false
+  }
+  return true
+}
+
+/**
+ * The general affine test of a loaded element (file header): the affine map A fitted to the span
+ * corners reproduces every node within 1e-12 of the element's size. Exported for the tests that
+ * compare the tet10 shortcut of loadElementMap with it.
+ */
+export function affineFit(em: ElementMap, domain: ReferenceDomain): boolean {
+  const nn = domain.nodeCount, x = em.x, ref = domain.ref, span = domain.span
   // A = X Ξ⁻¹ with X the physical and Ξ the reference span edges as columns
   const s1 = 3 * span[1], s2 = 3 * span[2], s3 = 3 * span[3], S = domain.spanInverse
-  let size = 0
   const A = AFFINE
   for (let r = 0; r < 3; r++) {
     const e1 = x[s1 + r], e2 = x[s2 + r], e3 = x[s3 + r]
-    size = Math.max(size, Math.abs(e1), Math.abs(e2), Math.abs(e3))
     A[3 * r] = e1 * S[0] + e2 * S[3] + e3 * S[6]
     A[3 * r + 1] = e1 * S[1] + e2 * S[4] + e3 * S[7]
     A[3 * r + 2] = e1 * S[2] + e2 * S[5] + e3 * S[8]
   }
-  em.size = size
-  const tol = 1e-12 * size, r0 = 3 * span[0]
+  const tol = 1e-12 * em.size, r0 = 3 * span[0]
   let affine = true
   for (let a = 0; a < nn && affine; a++) {
     const d0 = ref[3 * a] - ref[r0], d1 = ref[3 * a + 1] - ref[r0 + 1], d2 = ref[3 * a + 2] - ref[r0 + 2]
@@ -208,10 +254,7 @@ export function loadElementMap(em: ElementMap, domain: ReferenceDomain, coords: 
     else if (Math.abs(x[3 * a + 1] - (A[3] * d0 + A[4] * d1 + A[5] * d2)) > tol) affine = false
     else if (Math.abs(x[3 * a + 2] - (A[6] * d0 + A[7] * d1 + A[8] * d2)) > tol) affine = false
   }
-  em.affine = affine
-  em.trilinear = !affine && domain.type === 'hex8'
-  if (em.trilinear) trilinearForm(em.poly, x, ref)
-  return em
+  return affine
 }
 
 /**

@@ -13,6 +13,7 @@ import { nodalStressField } from '../../../src/model/stressField.ts'
 import { allocateElementBalance, computeElementBalance, computeElementBalanceGeneral } from '../../../src/mechanics/balanceAudit.ts'
 import { elementVolumesAndCentroids } from '../../../src/mechanics/elementVolume.ts'
 import { isStraightTet10 } from '../../../src/mechanics/straightTet10.ts'
+import { affineFit, createElementMap, loadElementMap, referenceDomain } from '../../../src/mechanics/inverseMap.ts'
 import { mulberry32 } from '../../../src/mechanics/seededRandom.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
 
@@ -89,5 +90,22 @@ describe('fast paths equal the plain paths', () => {
     expect(count(straight)).toBe(straight.elementCount)
     // every interior mid-edge node moved: only elements with all six edges on the box surface stay straight
     expect(count(bent)).toBeLessThan(bent.elementCount / 2)
+  })
+
+  it('loadElementMap: the tet10 midpoint test = the general affine fit, element by element, straight and curved', () => {
+    const dom = referenceDomain('tet10')
+    for (const [seed, at, curved] of [[31, 0, 0], [32, 0, 0.3], [33, 500, 0.3]] as const) {
+      const mesh = jittered('tet10', seed, at, curved)
+      const conn = mesh.blocks[0].conn, em = createElementMap()
+      let straight = 0
+      for (let e = 0; e < mesh.elementCount; e++) {
+        const fast = loadElementMap(em, dom, mesh.coords, conn, 10 * e).affine
+        expect(fast).toBe(affineFit(em, dom))
+        expect(fast).toBe(isStraightTet10(mesh.coords, conn, 10 * e))
+        if (fast) straight++
+      }
+      if (curved > 0) expect(straight).toBeLessThan(mesh.elementCount)
+      else expect(straight).toBe(mesh.elementCount)
+    }
   })
 })
