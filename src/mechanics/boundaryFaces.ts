@@ -26,10 +26,17 @@ const REF_STRIDE = 8
 
 /**
  * Faces matched per part of the node range: 16 bytes of temporaries each, 8 MB in all. Fresh
- * memory costs page faults; more parts cost more passes over the elements (cheap: each pass skips
- * the elements outside its part).
+ * memory costs page faults; more parts cost more passes over the elements (each pass reads every
+ * element's corners to skip those outside its part).
  */
 const PART_FACES = 1 << 19
+/**
+ * At most this many parts: every part re-reads all elements' corners, so a fixed part size would
+ * make the extraction grow as E² (10^7 tet4: 77 passes over 160 MB of connectivity, 5 of its 6
+ * seconds). Above 8 × PART_FACES faces the parts grow instead, to 2 bytes of temporaries per face
+ * (80 MB at 10^7 tet4, a quarter of the model's own arrays), and the time stays linear.
+ */
+const MAX_PARTS = 8
 
 /**
  * Stride of the per-face-node arrays for these blocks: the largest node count of any face kind of
@@ -50,8 +57,11 @@ export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
   return extractBoundaryFacesInParts(mesh, PART_FACES)
 }
 
-/** extractBoundaryFaces with a chosen part size (faces matched per pass); the result does not depend on it. */
-export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): BoundaryFaces {
+/**
+ * extractBoundaryFaces with a chosen part size (faces matched per pass, raised so that there are
+ * at most `maxParts` parts); the result depends on neither.
+ */
+export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number, maxParts = MAX_PARTS): BoundaryFaces {
   const N = mesh.nodeCount, E = mesh.elementCount
   const blocks = mesh.blocks
 
@@ -85,7 +95,7 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
   // belongs to the part of its smallest corner, and the buckets of a part are consecutive.
   let maxBucket = 0
   for (let n = 0; n < N; n++) { const c = bucketStart[n + 1] - bucketStart[n]; if (c > maxBucket) maxBucket = c }
-  const cap = Math.min(total, Math.max(partFaces, maxBucket))
+  const cap = Math.min(total, Math.max(partFaces, maxBucket, Math.ceil(total / maxParts)))
   const ref = new Int32Array(cap), k1 = new Int32Array(cap), k2 = new Int32Array(cap), k3 = new Int32Array(cap)
   const cursor = bucketStart.slice(0, N)
   // Boundary flags, one bit per local face of each element.
