@@ -194,7 +194,9 @@ function benchModel(model: Model, o: BenchOptions, label: string): ModelFigures 
     log(`${label}: CSV read`)
     const files = writeCsvBundle(model)
     csvBytes = files.reduce((s, f) => s + f.text.length, 0)
-    const csv = measure(() => readCsvBundle(files), { runs: runsFor(E, 3), minRuns: o.quick ? 1 : minRuns, warmup: 1, warmupMs: 0 })
+    // tet10 and hex8 at full size: one warm-up and one timed read (a few seconds each); tet4: three
+    const one = !o.quick && type !== 'tet4' && E >= 5e5
+    const csv = measure(() => readCsvBundle(files), { runs: one ? 1 : runsFor(E, 3), minRuns: one || o.quick ? 1 : minRuns, warmup: 1, warmupMs: 0 })
     const streamCsv = measure(() => streamText(files.map((f) => f.text)), { runs: runsFor(E, 3) })
     checks.csvRoundTripCoords = sameArray(csv.value.mesh.coords, mesh.coords)
     checks.csvRoundTripStress = sameArray(csv.value.stress, stress)
@@ -228,7 +230,7 @@ function benchModel(model: Model, o: BenchOptions, label: string): ModelFigures 
 /**
  * The whole load as the command line runs it, timed as one: native read, boundary faces with
  * tractions, element and body balance, load-entry patches (nodal von Mises for their reference
- * included). One warm-up at the smaller sizes; the large one runs once cold-ish (its kernels
+ * included). 10^6: one warm-up and three runs; the middle size two runs; 10^7 one run (its kernels
  * were warmed by the smaller blocks of the same run).
  */
 function benchLoad(model: Model, label: string): { elements: number; medianMs: number; cpuMs: number; runs: number } {
@@ -245,7 +247,7 @@ function benchLoad(model: Model, label: string): { elements: number; medianMs: n
     const vm = computeNodalInvariants(allocateNodalInvariants(m.mesh.nodeCount), m.stress).vonMises
     const patches = findLoadPatches(m.mesh, faces, tractions, vm)
     return elements.indicator.length + body.relative + patches.patches.length
-  }, E >= 3e6 ? { runs: 1, minRuns: 1, warmup: 0, warmupMs: 0 } : { runs: 3, minRuns: 2, warmup: 1, warmupMs: 0 })
+  }, E >= 5e6 ? { runs: 1, minRuns: 1, warmup: 0, warmupMs: 0 } : E >= 2e6 ? { runs: 2, minRuns: 2, warmup: 0, warmupMs: 0 } : { runs: 3, minRuns: 2, warmup: 1, warmupMs: 0 })
   return { elements: E, medianMs: t.medianMs, cpuMs: t.cpuMs, runs: t.samplesMs.length }
 }
 
@@ -303,7 +305,6 @@ for (const type of TYPES) {
   runs.push(models[type])
   log(`section cut per type: ${type}`)
   cutRows[type] = benchCutModel(model, log, 1)
-  if (type === 'tet4') loadRuns.push(benchLoad(model, `load tet4 ${model.mesh.elementCount}`))
   const sizes = runs.map((g) => g.elements)
   const kernels: Record<string, { exponent: number; timesMs: number[]; cpuMs: number[] }> = {}
   for (const k of KERNELS) {
@@ -320,6 +321,12 @@ const growthSizes = growthByType.tet4.elements
 
 // The large tet4 block: the load pipeline at about 10^7 (the CSV read is not run there, see
 // benchModel), and the whole load at a size between, for its growth over three sizes.
+// The three loads back to back, so they share the compiler's state (the per-type runs in between
+// would otherwise leave the first one better warmed than the others).
+{
+  const m = syntheticModel('tet4', ELEMENTS, SEED)
+  loadRuns.push(benchLoad(m, `load tet4 ${m.mesh.elementCount}`))
+}
 {
   const mid = Math.round(Math.sqrt(ELEMENTS * LARGE))
   const m = syntheticModel('tet4', mid, SEED)

@@ -51,7 +51,7 @@ export function benchCutModel(model: Model, log: (s: string) => void = () => {},
   log(`section cut: ${type} timing`)
   const floor = measure(() => readPass(mesh), 15, 3)
   const cut = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions }), 15, 5)
-  const cutPolys = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: true }), 5, 1)
+  const cutPolys = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: true }), sweepRuns > 1 ? 5 : 2, 1)
   const sweep = measure(() => sweepSections(mesh, stress, bodyForce, BENCH_PLANE.normal, 0.02, 1.5, 200, { faces, tractions }), sweepRuns, sweepRuns > 1 ? 1 : 0)
   const r = cut.value.result
   return {
