@@ -21,7 +21,9 @@ import type { Mesh, Vec3 } from '../model/model.ts'
 import { checkStressField } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
-import { elementVolumesAndCentroids } from './elementVolume.ts'
+import { elementByRule, elementVolumesAndCentroids } from './elementVolume.ts'
+import { sixTetVolume } from '../model/elements/tetVolume.ts'
+import { tabulateElement } from './shapeFunctions.ts'
 import { isStraightTet10 } from './straightTet10.ts'
 import { FQP_AREA, FQP_SIZE, FQP_STRESS, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { momentAbout } from './vec3.ts'
@@ -68,7 +70,7 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
   const stress = field.values
   // tet4 and hex8 blocks compute their volume inline; the others use the volume quadrature (an
   // array only when there are such blocks).
-  const inline = (t: string): boolean => t === 'tet4' || (closedForms && t === 'hex8')
+  const inline = (t: string): boolean => t === 'tet4' || (closedForms && (t === 'hex8' || t === 'tet10'))
   const hasOther = mesh.blocks.some((b) => !inline(b.type))
   const volume = new Float64Array(hasOther ? E : 0)
   if (hasOther) elementVolumesAndCentroids(mesh, volume, null, !closedForms)
@@ -80,6 +82,9 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
   // Imported names once into locals: under the CommonJS transform of tsx (the command line, the
   // benchmarks) every use of an imported binding is a getter call, several per face otherwise.
   const points = faceQuadraturePoints, SIZE = FQP_SIZE, AREA = FQP_AREA, STRESS = FQP_STRESS, straightTet10 = isStraightTet10
+  const six = sixTetVolume, byRule = elementByRule
+  // curved tet10 in the closed-form path: their volume by the type's rule, one at a time
+  const tet10Rule = tabulateElement('tet10', ELEMENT_TYPES.tet10.volumeRule), xs10 = new Float64Array(30), vol1 = new Float64Array(1)
 
   for (let bi = 0; bi < mesh.blocks.length; bi++) {
     const b = mesh.blocks[bi]
@@ -213,7 +218,14 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
       // elements take the general path.
       for (let e = 0; e < count; e++) {
         const base = 10 * e
-        if (!straightTet10(x, conn, base)) { generalElement(off + e, conn, rows, base, nf, faceNodes, faceFirst, faceCode); continue }
+        if (!straightTet10(x, conn, base)) {
+          // curved: the volume by the type's rule, the faces by their quadrature
+          byRule(vol1, null, 0, x, conn, base, 10, tet10Rule, xs10)
+          generalElement(off + e, conn, rows, base, nf, faceNodes, faceFirst, faceCode, vol1[0])
+          continue
+        }
+        const p0 = 3 * conn[base], p1 = 3 * conn[base + 1], p2 = 3 * conn[base + 2], p3 = 3 * conn[base + 3]
+        const vol = six(x, p0, p1, p2, p3) / 6
         let rx = 0, ry = 0, rz = 0, g = 0
         for (let f = 0; f < 24; f += 6) {
           const c0 = 3 * conn[base + TET10_FACES[f]], c1 = 3 * conn[base + TET10_FACES[f + 1]], c2 = 3 * conn[base + TET10_FACES[f + 2]]
@@ -231,16 +243,16 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
           rx += fx; ry += fy; rz += fz
           g += Math.sqrt(fx * fx + fy * fy + fz * fz)
         }
-        store(off + e, volume[off + e], rx, ry, rz, g)
+        store(off + e, vol, rx, ry, rz, g)
       }
       continue
     }
-    for (let e = 0; e < count; e++) generalElement(off + e, conn, rows, e * nn, nf, faceNodes, faceFirst, faceCode)
+    for (let e = 0; e < count; e++) generalElement(off + e, conn, rows, e * nn, nf, faceNodes, faceFirst, faceCode, volume[off + e])
   }
   return out
 
   /** The general path for one element: every face by its face quadrature (faceQuadraturePoint.ts). */
-  function generalElement(ge: number, conn: Int32Array, rows: Int32Array, base: number, nf: number, faceNodes: Int32Array, faceFirst: Int32Array, faceCode: readonly number[]): void {
+  function generalElement(ge: number, conn: Int32Array, rows: Int32Array, base: number, nf: number, faceNodes: Int32Array, faceFirst: Int32Array, faceCode: readonly number[], vol: number): void {
     let rx = 0, ry = 0, rz = 0, g = 0
     for (let f = 0; f < nf; f++) {
       const t = tables[faceCode[f]], fo = faceFirst[f]
@@ -266,7 +278,7 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
       rx += fx; ry += fy; rz += fz
       g += Math.sqrt(fx * fx + fy * fy + fz * fz)
     }
-    store(ge, volume[ge], rx, ry, rz, g)
+    store(ge, vol, rx, ry, rz, g)
   }
 
   function store(ge: number, v: number, rx: number, ry: number, rz: number, faceSum: number): void {

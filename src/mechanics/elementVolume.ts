@@ -57,7 +57,7 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
     const tab = tabulateElement(b.type, topo.volumeRule)
     const xs = new Float64Array(3 * nn)
     const count = conn.length / nn
-    const one = generalElement, straight = isStraightTet10, hex = hexElement
+    const one = elementByRule, straight = isStraightTet10, hex = hexElement
     if (b.type === 'tet10' && !general) {
       // straight-sided: the corner tetrahedron's closed forms (straightTet10.ts); curved: the rule
       const six = sixTetVolume
@@ -84,8 +84,12 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
   return outVolume
 }
 
-/** One element by the volume rule of its type (`tab`, tabulated); `xs` is scratch of 3·nn. */
-function generalElement(
+/**
+ * One element by the volume rule of its type (`tab` = tabulateElement(type, volumeRule)): its
+ * volume to outVolume[ge] and, when given, its centroid to outCentroid[3ge ..]; `xs` is scratch of
+ * 3·nn. The balance audit calls it for the curved elements of a type it otherwise takes in closed form.
+ */
+export function elementByRule(
   outVolume: Float64Array, outCentroid: Float64Array | null, ge: number, x: Float64Array, conn: Int32Array, base: number, nn: number,
   tab: ElementTable, xs: Float64Array,
 ): void {
