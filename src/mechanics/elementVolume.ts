@@ -27,9 +27,9 @@ export function elementCentroids(mesh: Mesh): Float64Array {
 }
 
 /**
- * Fills outVolume (E) and, when given, outCentroid (3·E). Returns outVolume. hex8 (monomial form,
- * `hexElement`) and straight-sided tet10 (the corner tetrahedron, straightTet10.ts) take closed
- * forms equal to their volume rule's result to round-off; `general` sends them through the rule
+ * Fills outVolume (E) and, when given, outCentroid (3·E). Returns outVolume. hex8 (its rule in
+ * monomial form, `hexElement`) and straight-sided tet10 (the corner tetrahedron's closed forms,
+ * straightTet10.ts) take shortcuts equal to the volume rule's result to round-off; `general` sends them through the rule
  * (the reference the tests compare with).
  */
 export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, outCentroid: Float64Array | null, general = false): Float64Array {
@@ -38,19 +38,9 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
     const conn = b.conn, off = b.offset
     const topo = elementType(b.type)
     if (topo.nodeCount === 4) {
-      // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
-      const six = sixTetVolume
+      const corners = tetCorners
       const count = conn.length / 4
-      for (let e = 0; e < count; e++) {
-        const p0 = 3 * conn[4 * e], p1 = 3 * conn[4 * e + 1], p2 = 3 * conn[4 * e + 2], p3 = 3 * conn[4 * e + 3]
-        outVolume[off + e] = six(x, p0, p1, p2, p3) / 6
-        if (outCentroid) {
-          const g = 3 * (off + e)
-          outCentroid[g] = (x[p0] + x[p1] + x[p2] + x[p3]) / 4
-          outCentroid[g + 1] = (x[p0 + 1] + x[p1 + 1] + x[p2 + 1] + x[p3 + 1]) / 4
-          outCentroid[g + 2] = (x[p0 + 2] + x[p1 + 2] + x[p2 + 2] + x[p3 + 2]) / 4
-        }
-      }
+      for (let e = 0; e < count; e++) corners(outVolume, outCentroid, off + e, x, conn, 4 * e)
       continue
     }
     const nn = topo.nodeCount
@@ -60,18 +50,11 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
     const one = elementByRule, straight = isStraightTet10, hex = hexElement
     if (b.type === 'tet10' && !general) {
       // straight-sided: the corner tetrahedron's closed forms (straightTet10.ts); curved: the rule
-      const six = sixTetVolume
+      const corners = tetCorners
       for (let e = 0; e < count; e++) {
         const base = 10 * e
-        if (!straight(x, conn, base)) { one(outVolume, outCentroid, off + e, x, conn, base, nn, tab, xs); continue }
-        const p0 = 3 * conn[base], p1 = 3 * conn[base + 1], p2 = 3 * conn[base + 2], p3 = 3 * conn[base + 3]
-        outVolume[off + e] = six(x, p0, p1, p2, p3) / 6
-        if (outCentroid) {
-          const g = 3 * (off + e)
-          outCentroid[g] = (x[p0] + x[p1] + x[p2] + x[p3]) / 4
-          outCentroid[g + 1] = (x[p0 + 1] + x[p1 + 1] + x[p2 + 1] + x[p3 + 1]) / 4
-          outCentroid[g + 2] = (x[p0 + 2] + x[p1 + 2] + x[p2 + 2] + x[p3 + 2]) / 4
-        }
+        if (straight(x, conn, base)) corners(outVolume, outCentroid, off + e, x, conn, base)
+        else one(outVolume, outCentroid, off + e, x, conn, base, nn, tab, xs)
       }
       continue
     }
@@ -82,6 +65,23 @@ export function elementVolumesAndCentroids(mesh: Mesh, outVolume: Float64Array, 
     for (let e = 0; e < count; e++) one(outVolume, outCentroid, off + e, x, conn, e * nn, nn, tab, xs)
   }
   return outVolume
+}
+
+/**
+ * The closed forms of a tetrahedron with corners conn[base .. base + 4): volume (tetVolume.ts)
+ * and, when wanted, the corner mean as centroid (det J constant).
+ */
+function tetCorners(outVolume: Float64Array, outCentroid: Float64Array | null, ge: number, x: Float64Array, conn: Int32Array, base: number): void {
+  // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
+  const six = sixTetVolume
+  const p0 = 3 * conn[base], p1 = 3 * conn[base + 1], p2 = 3 * conn[base + 2], p3 = 3 * conn[base + 3]
+  outVolume[ge] = six(x, p0, p1, p2, p3) / 6
+  if (outCentroid) {
+    const g = 3 * ge
+    outCentroid[g] = (x[p0] + x[p1] + x[p2] + x[p3]) / 4
+    outCentroid[g + 1] = (x[p0 + 1] + x[p1 + 1] + x[p2 + 1] + x[p3 + 1]) / 4
+    outCentroid[g + 2] = (x[p0 + 2] + x[p1 + 2] + x[p2 + 2] + x[p3 + 2]) / 4
+  }
 }
 
 /**
