@@ -21,7 +21,10 @@ import type { Mesh, Vec3 } from '../model/model.ts'
 import { checkStressField } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
-import { elementVolumesAndCentroids } from './elementVolume.ts'
+import { elementByRule, elementVolumesAndCentroids } from './elementVolume.ts'
+import { sixTetVolume } from '../model/elements/tetVolume.ts'
+import { tabulateElement } from './shapeFunctions.ts'
+import { isStraightTet10 } from './straightTet10.ts'
 import { FQP_AREA, FQP_SIZE, FQP_STRESS, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } from './types.ts'
@@ -43,17 +46,21 @@ export function computeElementBalance(out: ElementBalance, mesh: Mesh, stress: S
 }
 
 /**
- * The same audit with hex8 blocks sent through the general face quadrature instead of their
- * closed form: the reference the closed form is tested against. Not for production use (slower).
+ * The same audit with hex8 and straight-sided tet10 blocks sent through the general face
+ * quadrature (and the general volume quadrature) instead of their closed forms: the reference
+ * the closed forms are tested against. Not for production use (slower).
  */
 export function computeElementBalanceGeneral(out: ElementBalance, mesh: Mesh, stress: StressField, bodyForce: Vec3): ElementBalance {
   return elementBalance(out, mesh, stress, bodyForce, false)
 }
 
+/** tet10 faces, 6 local nodes each: corners (outward), then the mid-edge nodes (ELEMENT_TYPES.tet10.faces). */
+const TET10_FACES = Int32Array.from(ELEMENT_TYPES.tet10.faces.flat())
+
 /** hex8 faces as local corner numbers, 4 per face, outward (ELEMENT_TYPES.hex8.faces). */
 const HEX8_FACES = Int32Array.from(ELEMENT_TYPES.hex8.faces.flat())
 
-function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bodyForce: Vec3, hexClosedForm: boolean): ElementBalance {
+function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bodyForce: Vec3, closedForms: boolean): ElementBalance {
   const E = mesh.elementCount
   if (out.gross.length < E || out.indicator.length < E || out.residual.length < 3 * E) {
     throw new RangeError(`element balance output holds ${out.gross.length} elements, the mesh has ${E}`)
@@ -63,15 +70,21 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
   const stress = field.values
   // tet4 and hex8 blocks compute their volume inline; the others use the volume quadrature (an
   // array only when there are such blocks).
-  const inline = (t: string): boolean => t === 'tet4' || (hexClosedForm && t === 'hex8')
+  const inline = (t: string): boolean => t === 'tet4' || (closedForms && (t === 'hex8' || t === 'tet10'))
   const hasOther = mesh.blocks.some((b) => !inline(b.type))
   const volume = new Float64Array(hasOther ? E : 0)
-  if (hasOther) elementVolumesAndCentroids(mesh, volume, null)
+  if (hasOther) elementVolumesAndCentroids(mesh, volume, null, !closedForms)
   const bx = bodyForce[0], by = bodyForce[1], bz = bodyForce[2]
   const bMag = Math.sqrt(bx * bx + by * by + bz * bz)
   const x = mesh.coords
   const tables = faceQuadratureTables()
   const xs = new Float64Array(3 * 8), ss = new Float64Array(6 * 8), qp = createFacePoints(tables)
+  // Imported names once into locals: under the CommonJS transform of tsx (the command line, the
+  // benchmarks) every use of an imported binding is a getter call, several per face otherwise.
+  const points = faceQuadraturePoints, SIZE = FQP_SIZE, AREA = FQP_AREA, STRESS = FQP_STRESS, straightTet10 = isStraightTet10
+  const six = sixTetVolume, byRule = elementByRule
+  // curved tet10 in the closed-form path: their volume by the type's rule, one at a time
+  const tet10Rule = tabulateElement('tet10', ELEMENT_TYPES.tet10.volumeRule), xs10 = new Float64Array(30), vol1 = new Float64Array(1)
 
   for (let bi = 0; bi < mesh.blocks.length; bi++) {
     const b = mesh.blocks[bi]
@@ -121,7 +134,7 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
       }
       continue
     }
-    if (b.type === 'hex8' && hexClosedForm) {
+    if (b.type === 'hex8' && closedForms) {
       // Each face is the bilinear patch x(u, v) = A + B u + C v + D uv on [-1, 1]² of its corners
       // x0..x3 (face order, outward), with 4A = x0+x1+x2+x3, 4B = -x0+x1+x2-x3,
       // 4C = -x0-x1+x2+x3, 4D = x0-x1+x2-x3. Its area vector x_u × x_v = (B + Dv) × (C + Du)
@@ -193,37 +206,80 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
     }
     const nf = topo.faces.length
     const faceCode = topo.faceKinds.map((k) => FACE_KIND_CODE[k])
-    for (let e = 0; e < count; e++) {
-      let rx = 0, ry = 0, rz = 0, g = 0
-      const base = e * nn
-      for (let f = 0; f < nf; f++) {
-        const fa = topo.faces[f]
-        const t = tables[faceCode[f]]
-        const fn = t.nodeCount, nq = t.pointCount, W = t.weights
-        for (let a = 0; a < fn; a++) {
-          const p = conn[base + fa[a]], r = 6 * rows[base + fa[a]]
-          xs[3 * a] = x[3 * p]; xs[3 * a + 1] = x[3 * p + 1]; xs[3 * a + 2] = x[3 * p + 2]
-          for (let c = 0; c < 6; c++) ss[6 * a + c] = stress[r + c]
+    const faceNodes = Int32Array.from(topo.faces.flat()), faceFirst = new Int32Array(nf + 1)
+    for (let f = 0; f < nf; f++) faceFirst[f + 1] = faceFirst[f] + topo.faces[f].length
+    if (b.type === 'tet10' && closedForms) {
+      // Straight-sided tet10 (mid-edge nodes at their edges' midpoints, within 1e-12 of the
+      // element's size: an affine map): each face is a flat triangle of doubled area vector a and
+      // σ is the quadratic interpolant of its six nodes, whose corner functions integrate to 0
+      // and mid-edge functions to A/3 over the triangle (common practice), so exactly
+      // ∫ σn dA = (σ_m1 + σ_m2 + σ_m3) · a / 6: the face quadrature's value (degree 4, exact for
+      // this degree-2 integrand) with four face rules' worth of arithmetic saved. Curved
+      // elements take the general path.
+      for (let e = 0; e < count; e++) {
+        const base = 10 * e
+        if (!straightTet10(x, conn, base)) {
+          // curved: the volume by the type's rule, the faces by their quadrature
+          byRule(vol1, null, 0, x, conn, base, 10, tet10Rule, xs10)
+          generalElement(off + e, conn, rows, base, nf, faceNodes, faceFirst, faceCode, vol1[0])
+          continue
         }
-        let fx = 0, fy = 0, fz = 0
-        faceQuadraturePoints(qp, t, xs, ss, false)
-        for (let q = 0; q < nq; q++) {
-          // (t_u × t_v) w is the area vector n dA of this quadrature point.
-          const r = FQP_SIZE * q, w = W[q]
-          const nx = qp[r + FQP_AREA] * w, ny = qp[r + FQP_AREA + 1] * w, nz = qp[r + FQP_AREA + 2] * w
-          const sxx = qp[r + FQP_STRESS], syy = qp[r + FQP_STRESS + 1], szz = qp[r + FQP_STRESS + 2]
-          const sxy = qp[r + FQP_STRESS + 3], syz = qp[r + FQP_STRESS + 4], sxz = qp[r + FQP_STRESS + 5]
-          fx += sxx * nx + sxy * ny + sxz * nz
-          fy += sxy * nx + syy * ny + syz * nz
-          fz += sxz * nx + syz * ny + szz * nz
+        const p0 = 3 * conn[base], p1 = 3 * conn[base + 1], p2 = 3 * conn[base + 2], p3 = 3 * conn[base + 3]
+        const vol = six(x, p0, p1, p2, p3) / 6
+        let rx = 0, ry = 0, rz = 0, g = 0
+        for (let f = 0; f < 24; f += 6) {
+          const c0 = 3 * conn[base + TET10_FACES[f]], c1 = 3 * conn[base + TET10_FACES[f + 1]], c2 = 3 * conn[base + TET10_FACES[f + 2]]
+          const x0 = x[c0], y0 = x[c0 + 1], z0 = x[c0 + 2]
+          const ux = x[c1] - x0, uy = x[c1 + 1] - y0, uz = x[c1 + 2] - z0
+          const vx = x[c2] - x0, vy = x[c2 + 1] - y0, vz = x[c2 + 2] - z0
+          const ax = (uy * vz - uz * vy) / 6, ay = (uz * vx - ux * vz) / 6, az = (ux * vy - uy * vx) / 6
+          const s0 = 6 * rows[base + TET10_FACES[f + 3]], s1 = 6 * rows[base + TET10_FACES[f + 4]], s2 = 6 * rows[base + TET10_FACES[f + 5]]
+          const sxx = stress[s0] + stress[s1] + stress[s2], syy = stress[s0 + 1] + stress[s1 + 1] + stress[s2 + 1]
+          const szz = stress[s0 + 2] + stress[s1 + 2] + stress[s2 + 2], sxy = stress[s0 + 3] + stress[s1 + 3] + stress[s2 + 3]
+          const syz = stress[s0 + 4] + stress[s1 + 4] + stress[s2 + 4], sxz = stress[s0 + 5] + stress[s1 + 5] + stress[s2 + 5]
+          const fx = sxx * ax + sxy * ay + sxz * az
+          const fy = sxy * ax + syy * ay + syz * az
+          const fz = sxz * ax + syz * ay + szz * az
+          rx += fx; ry += fy; rz += fz
+          g += Math.sqrt(fx * fx + fy * fy + fz * fz)
         }
-        rx += fx; ry += fy; rz += fz
-        g += Math.sqrt(fx * fx + fy * fy + fz * fz)
+        store(off + e, vol, rx, ry, rz, g)
       }
-      store(off + e, volume[off + e], rx, ry, rz, g)
+      continue
     }
+    for (let e = 0; e < count; e++) generalElement(off + e, conn, rows, e * nn, nf, faceNodes, faceFirst, faceCode, volume[off + e])
   }
   return out
+
+  /** The general path for one element: every face by its face quadrature (faceQuadraturePoint.ts). */
+  function generalElement(ge: number, conn: Int32Array, rows: Int32Array, base: number, nf: number, faceNodes: Int32Array, faceFirst: Int32Array, faceCode: readonly number[], vol: number): void {
+    let rx = 0, ry = 0, rz = 0, g = 0
+    for (let f = 0; f < nf; f++) {
+      const t = tables[faceCode[f]], fo = faceFirst[f]
+      const fn = t.nodeCount, nq = t.pointCount, W = t.weights
+      for (let a = 0; a < fn; a++) {
+        const la = base + faceNodes[fo + a]
+        const p = conn[la], r = 6 * rows[la]
+        xs[3 * a] = x[3 * p]; xs[3 * a + 1] = x[3 * p + 1]; xs[3 * a + 2] = x[3 * p + 2]
+        for (let c = 0; c < 6; c++) ss[6 * a + c] = stress[r + c]
+      }
+      let fx = 0, fy = 0, fz = 0
+      points(qp, t, xs, ss, false)
+      for (let q = 0; q < nq; q++) {
+        // (t_u × t_v) w is the area vector n dA of this quadrature point.
+        const r = SIZE * q, w = W[q]
+        const nx = qp[r + AREA] * w, ny = qp[r + AREA + 1] * w, nz = qp[r + AREA + 2] * w
+        const sxx = qp[r + STRESS], syy = qp[r + STRESS + 1], szz = qp[r + STRESS + 2]
+        const sxy = qp[r + STRESS + 3], syz = qp[r + STRESS + 4], sxz = qp[r + STRESS + 5]
+        fx += sxx * nx + sxy * ny + sxz * nz
+        fy += sxy * nx + syy * ny + syz * nz
+        fz += sxz * nx + syz * ny + szz * nz
+      }
+      rx += fx; ry += fy; rz += fz
+      g += Math.sqrt(fx * fx + fy * fy + fz * fz)
+    }
+    store(ge, vol, rx, ry, rz, g)
+  }
 
   function store(ge: number, v: number, rx: number, ry: number, rz: number, faceSum: number): void {
     rx += bx * v; ry += by * v; rz += bz * v

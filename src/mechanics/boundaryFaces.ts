@@ -26,10 +26,17 @@ const REF_STRIDE = 8
 
 /**
  * Faces matched per part of the node range: 16 bytes of temporaries each, 8 MB in all. Fresh
- * memory costs page faults; more parts cost more passes over the elements (cheap: each pass skips
- * the elements outside its part).
+ * memory costs page faults; more parts cost more passes over the elements (each pass reads every
+ * element's corners to skip those outside its part).
  */
 const PART_FACES = 1 << 19
+/**
+ * At most this many parts: every part re-reads all elements' corners, so a fixed part size would
+ * make the extraction grow as E² (10^7 tet4: 77 passes over 160 MB of connectivity, 5 of its 6
+ * seconds). Above 8 × PART_FACES faces the parts grow instead, to 2 bytes of temporaries per face
+ * (80 MB at 10^7 tet4, a quarter of the model's own arrays), and the time stays linear.
+ */
+const MAX_PARTS = 8
 
 /**
  * Stride of the per-face-node arrays for these blocks: the largest node count of any face kind of
@@ -50,8 +57,11 @@ export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
   return extractBoundaryFacesInParts(mesh, PART_FACES)
 }
 
-/** extractBoundaryFaces with a chosen part size (faces matched per pass); the result does not depend on it. */
-export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): BoundaryFaces {
+/**
+ * extractBoundaryFaces with a chosen part size (faces matched per pass, raised so that there are
+ * at most `maxParts` parts); the result depends on neither.
+ */
+export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number, maxParts = MAX_PARTS): BoundaryFaces {
   const N = mesh.nodeCount, E = mesh.elementCount
   const blocks = mesh.blocks
 
@@ -85,7 +95,7 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number): Boun
   // belongs to the part of its smallest corner, and the buckets of a part are consecutive.
   let maxBucket = 0
   for (let n = 0; n < N; n++) { const c = bucketStart[n + 1] - bucketStart[n]; if (c > maxBucket) maxBucket = c }
-  const cap = Math.min(total, Math.max(partFaces, maxBucket))
+  const cap = Math.min(total, Math.max(partFaces, maxBucket, Math.ceil(total / maxParts)))
   const ref = new Int32Array(cap), k1 = new Int32Array(cap), k2 = new Int32Array(cap), k3 = new Int32Array(cap)
   const cursor = bucketStart.slice(0, N)
   // Boundary flags, one bit per local face of each element.
@@ -211,6 +221,8 @@ export function faceQuadratureTables(): FaceTable[] {
  * and its corner mean as centroid.
  */
 export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Array, outCentroid: Float64Array, coords: Float64Array, kind: Uint8Array, nodes: Int32Array, slots: number): void {
+  // imported names once into locals (getter calls under tsx's CommonJS transform, see tractions.ts)
+  const points = faceQuadraturePoints, X = FQP_X, AREA = FQP_AREA, SIZE = FQP_SIZE
   const tables = faceQuadratureTables()
   const F = kind.length
   const xs = new Float64Array(3 * FACE_SLOTS), qp = createFacePoints(tables)
@@ -240,13 +252,13 @@ export function computeFaceGeometry(outArea: Float64Array, outNormal: Float64Arr
       xs[3 * a] = coords[p]; xs[3 * a + 1] = coords[p + 1]; xs[3 * a + 2] = coords[p + 2]
     }
     let A = 0, sx = 0, sy = 0, sz = 0, cx = 0, cy = 0, cz = 0
-    faceQuadraturePoints(qp, t, xs, null, true)
+    points(qp, t, xs, null, true)
     for (let q = 0; q < nq; q++) {
-      const r = FQP_SIZE * q, w = W[q]
-      const nx = qp[r + FQP_AREA], ny = qp[r + FQP_AREA + 1], nz = qp[r + FQP_AREA + 2]
+      const r = SIZE * q, w = W[q]
+      const nx = qp[r + AREA], ny = qp[r + AREA + 1], nz = qp[r + AREA + 2]
       const dA = Math.sqrt(nx * nx + ny * ny + nz * nz) * w
       A += dA; sx += nx * w; sy += ny * w; sz += nz * w
-      cx += qp[r + FQP_X] * dA; cy += qp[r + FQP_X + 1] * dA; cz += qp[r + FQP_X + 2] * dA
+      cx += qp[r + X] * dA; cy += qp[r + X + 1] * dA; cz += qp[r + X + 2] * dA
     }
     outArea[f] = A
     const len = Math.sqrt(sx * sx + sy * sy + sz * sz)

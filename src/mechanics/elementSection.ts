@@ -39,6 +39,10 @@ import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
 import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
 
+// The accumulator slots as module constants: an imported binding read in a per-element function
+// is a getter call under tsx's CommonJS transform (the command line, the benchmarks).
+const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS, SIZE = ACC_SIZE
+
 /** Most quadrature points one polygon can have: its fan triangles times the largest rule. */
 export const MAX_POLYGON_QUADRATURE = (MAX_POLYGON_POINTS - 2) * barycentric(MAX_SECTION_RULE_DEGREE).count
 
@@ -139,10 +143,10 @@ export function accumulateTraction(
     Ax += wa * tx; Ay += wa * ty; Az += wa * tz
     Bx += wb * tx; By += wb * ty; Bz += wb * tz
   }
-  acc[off + ACC_FORCE] += Fx; acc[off + ACC_FORCE + 1] += Fy; acc[off + ACC_FORCE + 2] += Fz
-  acc[off + ACC_AT] += Ax; acc[off + ACC_AT + 1] += Ay; acc[off + ACC_AT + 2] += Az
-  acc[off + ACC_BT] += Bx; acc[off + ACC_BT + 1] += By; acc[off + ACC_BT + 2] += Bz
-  acc[off + ACC_GROSS] += Math.sqrt(Fx * Fx + Fy * Fy + Fz * Fz)
+  acc[off + FORCE] += Fx; acc[off + FORCE + 1] += Fy; acc[off + FORCE + 2] += Fz
+  acc[off + AT] += Ax; acc[off + AT + 1] += Ay; acc[off + AT + 2] += Az
+  acc[off + BT] += Bx; acc[off + BT + 1] += By; acc[off + BT + 2] += Bz
+  acc[off + GROSS] += Math.sqrt(Fx * Fx + Fy * Fy + Fz * Fz)
   force[fo] = Fx; force[fo + 1] = Fy; force[fo + 2] = Fz
 }
 
@@ -219,7 +223,7 @@ export function integrateSectionGeometry(
     nodalTraction(tn, values, rows, g.local[i] * nn, nn, mx, my, mz)
     if (perElement && geoRec) {
       // into the element's own block (sectionRegions.ts), then the same sums into the whole
-      const o = geoRec[i] * ACC_SIZE
+      const o = geoRec[i] * SIZE
       accumulateTraction(perElement, o, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces ?? f3, forces ? 3 * i : 0)
       addTractionSlots(acc, off, perElement, o)
     } else if (forces) accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces, 3 * i)
@@ -229,8 +233,8 @@ export function integrateSectionGeometry(
 
 /** acc[off ..] += src[so ..] over the slots the stress pass writes (force, its first moments, gross). */
 function addTractionSlots(acc: Float64Array, off: number, src: Float64Array, so: number): void {
-  for (let k = ACC_FORCE; k < ACC_BT + 3; k++) acc[off + k] += src[so + k]
-  acc[off + ACC_GROSS] += src[so + ACC_GROSS]
+  for (let k = FORCE; k < BT + 3; k++) acc[off + k] += src[so + k]
+  acc[off + GROSS] += src[so + GROSS]
 }
 
 const TN = new Float64Array(3 * MAX_ELEMENT_NODES)

@@ -358,7 +358,9 @@ function cutBlock(
   const subdivide = shapeDegree(type) > 1
   const count = conn.length / nn
   const dist = sc.dist
+  // imported kernels once into locals (getter calls per element under tsx, see cutLinearBlock)
   const polygon = elementPolygonRef, area = addPolygonArea, points = polygonPoints, load = loadElementMap
+  const reserve = reserveSectionGeometry, addElement = addSectionElement
   const one = (e: number): void => {
     const base = nn * e
     if (polygon(sc, acc, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) return
@@ -369,18 +371,18 @@ function cutBlock(
       recordGeometry(rec, geo.elements)
     } else area(acc, 0, sc)
     load(em, domain, coords, conn, base)
-    reserveSectionGeometry(geo)
+    reserve(geo)
     const q = points(geo.ref, geo.w, geo.a, geo.b, geo.points, sc, rule, em)
     if (collect) collect.add(sc, bi, e, offset + e, null, geo.elements, em, subdivide)
-    addSectionElement(geo, bi, e, q)
+    addElement(geo, bi, e, q)
   }
-  if (cc === 4) {
-    // tetrahedra: the same quick scan as the linear path
-    const n = findCutTets(d, conn, count, nn)
+  if (cc === 4 || cc === 8) {
+    // tetrahedra and hexahedra: a quick branch-free scan as on the linear path, then the cut ones
+    const n = cc === 4 ? findCutTets(d, conn, count, nn) : findCutHexes(d, conn, count, nn)
     const list = tetCutList
     for (let i = 0; i < n; i++) {
       const base = nn * list[i]
-      dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
+      for (let c = 0; c < cc; c++) dist[c] = d[conn[base + c]]
       one(list[i])
     }
     return
@@ -417,6 +419,25 @@ function findCutTets(d: Float64Array, conn: Int32Array, count: number, nn: numbe
     // Stored always, kept only when cut: the store has run from the first element on.
     list[n] = e
     n += (neg & 3) !== 0 ? 1 : 0
+  }
+  return n
+}
+
+/**
+ * The hexahedra (hex8 or hex20: 8 corners first, nn nodes each) of a block with corners on both
+ * sides, written to tetCutList in order like findCutTets; returns their count. Counting the
+ * negative corners without a branch keeps the scan (every element, every cut) at the pace of a
+ * read of the corners' distances.
+ */
+function findCutHexes(d: Float64Array, conn: Int32Array, count: number, nn: number): number {
+  if (tetCutList.length < count) tetCutList = new Int32Array(count)
+  const list = tetCutList
+  let n = 0
+  for (let e = 0, base = 0; e < count; e++, base += nn) {
+    const neg = (d[conn[base]] < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
+      + (d[conn[base + 4]] < 0 ? 1 : 0) + (d[conn[base + 5]] < 0 ? 1 : 0) + (d[conn[base + 6]] < 0 ? 1 : 0) + (d[conn[base + 7]] < 0 ? 1 : 0)
+    list[n] = e
+    n += (neg & 7) !== 0 ? 1 : 0
   }
   return n
 }

@@ -76,6 +76,9 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
   const { nodeNormal, nodeTraction, nodeNormalTraction, nodeShear, nodeMagnitude, force, moment, meanNormal, meanShear, meanMagnitude } = out
 
   const nodeTabs = faceNodeTables(), quadTabs = faceQuadratureTables()
+  // Imported names once into locals: under the CommonJS transform of tsx (the command line, the
+  // benchmarks) every use of an imported binding is a getter call, several per face otherwise.
+  const points = faceQuadraturePoints, X = FQP_X, AREA = FQP_AREA, STRESS = FQP_STRESS, SIZE = FQP_SIZE, SLOTS = FACE_SLOTS
   const xs = new Float64Array(3 * S), ss = new Float64Array(6 * S)
   const qp = createFacePoints(quadTabs), np = createFacePoints(nodeTabs)
   const blocks = mesh.blocks
@@ -95,7 +98,7 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
     while (g >= blocks[bi].offset + blocks[bi].ids.length) {
       if (++bi === blocks.length) throw new RangeError(`face ${f} names element index ${g}, outside the mesh`)
     }
-    const rows = stress.rows[bi], fl = faceLocal[bi], lo = FACE_SLOTS * localFace[f]
+    const rows = stress.rows[bi], fl = faceLocal[bi], lo = SLOTS * localFace[f]
     const rb = (g - blocks[bi].offset) * nodesPer[bi]
     for (let a = 0; a < nn; a++) {
       const p = nodes[o + a], r = 6 * rows[rb + fl[lo + a]]
@@ -104,10 +107,10 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
     }
 
     // Node slots: normal from the face tangents at the node, traction from the node's stress.
-    faceQuadraturePoints(np, nt, xs, null, false)
+    points(np, nt, xs, null, false)
     for (let b = 0; b < nn; b++) {
-      const r = FQP_SIZE * b
-      let nx = np[r + FQP_AREA], ny = np[r + FQP_AREA + 1], nz = np[r + FQP_AREA + 2]
+      const r = SIZE * b
+      let nx = np[r + AREA], ny = np[r + AREA + 1], nz = np[r + AREA + 2]
       const len = Math.sqrt(nx * nx + ny * ny + nz * nz)
       // A degenerate corner (collapsed edge) has no tangent plane: fall back to the face's mean normal.
       if (len > 0) { nx /= len; ny /= len; nz /= len } else { nx = faces.normal[3 * f]; ny = faces.normal[3 * f + 1]; nz = faces.normal[3 * f + 2] }
@@ -138,23 +141,23 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
     // Face integrals.
     const W = qt.weights, nq = qt.pointCount
     let fx = 0, fy = 0, fz = 0, mx = 0, my = 0, mz = 0, A = 0, In = 0, Is = 0, Im = 0
-    faceQuadraturePoints(qp, qt, xs, ss, true)
+    points(qp, qt, xs, ss, true)
     for (let q = 0; q < nq; q++) {
-      const r = FQP_SIZE * q, w = W[q]
+      const r = SIZE * q, w = W[q]
       // c = t_u × t_v carries both the normal direction and the area element.
-      const cx = qp[r + FQP_AREA], cy = qp[r + FQP_AREA + 1], cz = qp[r + FQP_AREA + 2]
+      const cx = qp[r + AREA], cy = qp[r + AREA + 1], cz = qp[r + AREA + 2]
       const J = Math.sqrt(cx * cx + cy * cy + cz * cz)
       if (J === 0) continue // degenerate point: contributes no area
       const dA = J * w
       const nx = cx / J, ny = cy / J, nz = cz / J
-      const sxx = qp[r + FQP_STRESS], syy = qp[r + FQP_STRESS + 1], szz = qp[r + FQP_STRESS + 2]
-      const sxy = qp[r + FQP_STRESS + 3], syz = qp[r + FQP_STRESS + 4], sxz = qp[r + FQP_STRESS + 5]
+      const sxx = qp[r + STRESS], syy = qp[r + STRESS + 1], szz = qp[r + STRESS + 2]
+      const sxy = qp[r + STRESS + 3], syz = qp[r + STRESS + 4], sxz = qp[r + STRESS + 5]
       const tx = sxx * nx + sxy * ny + sxz * nz
       const ty = sxy * nx + syy * ny + syz * nz
       const tz = sxz * nx + syz * ny + szz * nz
       const tn = tx * nx + ty * ny + tz * nz
       const t2 = tx * tx + ty * ty + tz * tz
-      const px = qp[r + FQP_X], py = qp[r + FQP_X + 1], pz = qp[r + FQP_X + 2]
+      const px = qp[r + X], py = qp[r + X + 1], pz = qp[r + X + 2]
       fx += tx * dA; fy += ty * dA; fz += tz * dA
       // x × t in scalar locals (see vec3.ts): this is the innermost loop of the traction pass.
       mx += (py * tz - pz * ty) * dA; my += (pz * tx - px * tz) * dA; mz += (px * ty - py * tx) * dA

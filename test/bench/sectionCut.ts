@@ -15,7 +15,7 @@ import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import type { Mesh } from '../../src/model/model.ts'
+import type { Mesh, Model } from '../../src/model/model.ts'
 import { nodalStressField } from '../../src/model/stressField.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { syntheticModel } from './syntheticModel.ts'
@@ -41,41 +41,48 @@ const min = (t: { samplesMs: number[] }) => Math.min(...t.samplesMs)
 
 export type CutBenchType = 'tet4' | 'tet10' | 'hex8'
 
-/** Section cut (free body included, polygons off) per type at about `elements` elements, and a sweep. */
-export function benchCutTypes(elements: number, seed: number, types: readonly CutBenchType[] = ['tet4', 'tet10', 'hex8'], log: (s: string) => void = () => {}) {
-  const rows: Record<string, Record<string, number>> = {}
-  for (const type of types) {
-    log(`section cut: ${type} model`)
-    const model = syntheticModel(type, elements, seed)
-    const { mesh, bodyForce } = model
-    const stress = nodalStressField(mesh, model.stress)
-    const faces = extractBoundaryFaces(mesh)
-    const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, nodalStressField(mesh, model.stress), faces)
-    log(`section cut: ${type} timing`)
-    const floor = measure(() => readPass(mesh), 15, 3)
-    const cut = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions }), 15, 5)
-    const cutPolys = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: true }), 5, 1)
-    // distorted hexahedra need Newton at every point: one sweep there takes seconds, so once
-    const sweep = type === 'hex8'
-      ? measure(() => sweepSections(mesh, stress, bodyForce, BENCH_PLANE.normal, 0.02, 1.5, 200, { faces, tractions }), 1, 0)
-      : measure(() => sweepSections(mesh, stress, bodyForce, BENCH_PLANE.normal, 0.02, 1.5, 200, { faces, tractions }), 3, 1)
-    const r = cut.value.result
-    rows[type] = {
-      elements: mesh.elementCount, nodes: mesh.nodeCount, boundaryFaces: faces.count, cutElements: r.cutElements,
-      readPassMedianMs: +floor.medianMs.toFixed(2), readPassMinMs: +min(floor).toFixed(2),
-      cutMedianMs: +cut.medianMs.toFixed(2), cutMinMs: +min(cut).toFixed(2), cutCpuMs: +cut.cpuMs.toFixed(2),
-      cutOverReadPassMin: +(min(cut) / min(floor)).toFixed(2),
-      cutWithPolygonsMedianMs: +cutPolys.medianMs.toFixed(2), cutWithPolygonsMinMs: +min(cutPolys).toFixed(2),
-      sweep200MedianMs: +sweep.medianMs.toFixed(1), sweep200MinMs: +min(sweep).toFixed(1),
-      freeBodyRelative: r.freeBody.relative, freeBodyMomentRelative: r.freeBody.momentRelative, unmappedPoints: r.unmappedPoints,
-    }
+/** One model's row: the cut (free body included, polygons off), with polygons, and a sweep of 200 sections. */
+export function benchCutModel(model: Model, log: (s: string) => void = () => {}, sweepRuns = 3): Record<string, number> {
+  const { mesh, bodyForce } = model
+  const type = mesh.blocks[0].type
+  const stress = nodalStressField(mesh, model.stress)
+  const faces = extractBoundaryFaces(mesh)
+  const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, stress, faces)
+  log(`section cut: ${type} timing`)
+  const floor = measure(() => readPass(mesh), 15, 3)
+  const cut = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions }), 15, 5)
+  const cutPolys = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: true }), sweepRuns > 1 ? 5 : 2, 1)
+  const sweep = measure(() => sweepSections(mesh, stress, bodyForce, BENCH_PLANE.normal, 0.02, 1.5, 200, { faces, tractions }), sweepRuns, sweepRuns > 1 ? 1 : 0)
+  const r = cut.value.result
+  return {
+    elements: mesh.elementCount, nodes: mesh.nodeCount, boundaryFaces: faces.count, cutElements: r.cutElements,
+    readPassMedianMs: +floor.medianMs.toFixed(2), readPassMinMs: +min(floor).toFixed(2),
+    cutMedianMs: +cut.medianMs.toFixed(2), cutMinMs: +min(cut).toFixed(2), cutCpuMs: +cut.cpuMs.toFixed(2),
+    cutOverReadPassMin: +(min(cut) / min(floor)).toFixed(2),
+    cutWithPolygonsMedianMs: +cutPolys.medianMs.toFixed(2), cutWithPolygonsMinMs: +min(cutPolys).toFixed(2),
+    sweep200MedianMs: +sweep.medianMs.toFixed(1), sweep200MinMs: +min(sweep).toFixed(1),
+    freeBodyRelative: r.freeBody.relative, freeBodyMomentRelative: r.freeBody.momentRelative, unmappedPoints: r.unmappedPoints,
   }
+}
+
+/** Each type's cut over the tet4 cut at the same element count (median, fastest run, CPU time). */
+export function cutRatios(rows: Record<string, Record<string, number>>) {
   const ratio = (a: string) => (rows[a] && rows.tet4 ? {
     medianOverTet4: +(rows[a].cutMedianMs / rows.tet4.cutMedianMs).toFixed(2),
     minOverTet4: +(rows[a].cutMinMs / rows.tet4.cutMinMs).toFixed(2),
     cpuOverTet4: +(rows[a].cutCpuMs / rows.tet4.cutCpuMs).toFixed(2),
   } : null)
-  return { rows, tet10OverTet4: ratio('tet10'), hex8OverTet4: ratio('hex8') }
+  return { tet10OverTet4: ratio('tet10'), hex8OverTet4: ratio('hex8') }
+}
+
+/** Section cut (free body included, polygons off) per type at about `elements` elements, and a sweep. */
+export function benchCutTypes(elements: number, seed: number, types: readonly CutBenchType[] = ['tet4', 'tet10', 'hex8'], log: (s: string) => void = () => {}) {
+  const rows: Record<string, Record<string, number>> = {}
+  for (const type of types) {
+    log(`section cut: ${type} model`)
+    rows[type] = benchCutModel(syntheticModel(type, elements, seed), log)
+  }
+  return { rows, ...cutRatios(rows) }
 }
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) {

@@ -116,8 +116,8 @@ describe('extractBoundaryFaces', () => {
     const tconn = tet.blocks[0].conn.map((n) => n + N)
     const mesh = createMesh(coords, [{ type: 'hex8', conn: hex.blocks[0].conn }, { type: 'tet4', conn: tconn }])
     const one = extractBoundaryFaces(mesh)
-    for (const part of [1, 5, 17, 64]) {
-      const f = extractBoundaryFacesInParts(mesh, part)
+    for (const [part, maxParts] of [[1, Infinity], [5, Infinity], [17, Infinity], [64, Infinity], [1, 8], [5, 3]]) {
+      const f = extractBoundaryFacesInParts(mesh, part, maxParts)
       expect(f.count).toBe(one.count)
       expect(Array.from(f.elem)).toEqual(Array.from(one.elem))
       expect(Array.from(f.localFace)).toEqual(Array.from(one.localFace))
