@@ -89,11 +89,10 @@ describe('assemblies', () => {
     await waitForModel(page)
     await settle(page)
     expect(await rows(page, '[data-testid="parts-table"] tbody tr td:nth-child(2)')).toEqual(['1', '2', '3', '4', '5', '6'])
-    // The names are in the demo's model.json; the native container carries them from its
-    // version 2 on (until then every name reads "—").
+    // The names come from the demo's model.json, carried by the container (format version 2).
     const names = await rows(page, '[data-testid="parts-table"] tbody td.name')
     const named = ['base plate', 'bracket plate', 'bolt A (+50, +35)', 'bolt B (+50, −35)', 'bolt C (−50, −35)', 'bolt D (−50, +35)']
-    expect(names.every((n) => n === '—') || names.join('|') === named.join('|')).toBe(true)
+    expect(names).toEqual(named)
     const canvas = (await page.locator('[data-testid="scene"] canvas').boundingBox())!
     // the open part of the view: left of the cards, between the view buttons and the colour bar
     const cardsLeft = (await page.locator('aside.cards').boundingBox())!.x
