@@ -14,9 +14,7 @@ import type { CsvFile } from '../../src/io/readCsvBundle.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import { checkQuadraticBlock } from '../../src/io/quadraticElementChecks.ts'
-import { openTable } from '../../src/io/csvTable.ts'
-import { matchColumns } from '../../src/io/columnMap.ts'
-import { fieldsOfRole } from '../../src/io/bundleLayout.ts'
+import { detectAll } from './dialectDetection.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import v8 from 'node:v8'
 import vm from 'node:vm'
@@ -114,16 +112,6 @@ variants.forEach((v, i) => {
 })
 
 /** Detection and mapping alone: the dialect and header of each file, the columns matched; no rows. */
-function detectAll(files: readonly CsvFile[]): number {
-  let n = 0
-  for (const f of files) {
-    if (f.name === 'model.json') continue
-    const role = f.name.startsWith('elements') ? 'elements' : f.name.includes('stress') ? 'stress' : f.name.includes('nodes') ? 'nodes' : 'displacement'
-    const t = openTable(f.name, f.text, {}, role === 'elements' ? 'elements' : 'numeric', role)
-    if (role !== 'elements' && t.header.present) n += matchColumns(f.name, t.header, fieldsOfRole(role), undefined, role).length
-  }
-  return n
-}
 const detection = variants.filter((v) => v.label === 'comma, decimal point' || v.label === 'semicolon, decimal comma').map((v) => ({ label: v.label, t: measure(() => detectAll(v.files), { runs: 21, minRuns: 5, warmup: 3, warmupMs: 0 }) }))
 
 log('quadratic-element checks on a tet10 block')
