@@ -46,7 +46,7 @@ describe('load combinations', () => {
   const f = [1.35, 1.5, -0.9]
   const parts = ['dead', 'imposed', 'wind'].map((n) => modelForCase(m, n))
   const combo = modelForCase(m, 'uls')
-  const sum = <T,>(get: (x: Model) => ArrayLike<number>): Float64Array => {
+  const sum = (get: (x: Model) => ArrayLike<number>): Float64Array => {
     const out = new Float64Array(get(parts[0]).length)
     parts.forEach((p, k) => { const a = get(p); for (let i = 0; i < out.length; i++) out[i] += f[k] * a[i] })
     return out
