@@ -27,7 +27,7 @@ import { denoise, noiseFloor } from '../model/roundingNoise.ts'
 /** The envelope of every case and combination of `model` on one plane. */
 export function modelEnvelope(model: Model, plane: SectionPlane, options: EnvelopeOptions): SectionEnvelope {
   const cases = casesOf(model).map((c) => ({ name: c.name, field: c.stressField ?? nodalStressField(model.mesh, c.stress) }))
-  return sectionEnvelope(model.mesh, cases, combinationsOf(model), plane, options)
+  return sectionEnvelope(model.mesh, cases, combinationsOf(model), plane, { regions: true, ...options })
 }
 
 /** An envelope as JSON: {axial: {max, maxCase, min, minCase}, torque, shear: [.., ..], bending: [.., ..]} in the view's units. */

@@ -16,8 +16,8 @@ import type { Combination } from '../model/loadCases.ts'
 import { sameCaseName } from '../model/loadCases.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
-import type { SectionStencil, StencilOptions } from './sectionStencil.ts'
-import { CASE_SLOTS, buildSectionStencil, stencilIntegrals, stencilRecord } from './sectionStencil.ts'
+import type { CompiledStencil, SectionStencil, StencilOptions } from './sectionStencil.ts'
+import { CASE_SLOTS, buildSectionStencil, compileStencil, stencilIntegrals, stencilRecord } from './sectionStencil.ts'
 import type { SectionPlane, SectionResult } from './types.ts'
 
 /** Largest and smallest value of one component and the cases that govern them (first in order on a tie). */
@@ -94,7 +94,12 @@ export function sectionEnvelope(
 ): SectionEnvelope {
   const s = stencil
   const width = CASE_SLOTS * (1 + s.regionCount)
-  const ints = cases.map((c) => stencilIntegrals(new Float64Array(width), s, mesh, c.field))
+  // one compiled stencil per rows index (every case of a model shares one)
+  let compiled: CompiledStencil | null = null
+  const ints = cases.map((c) => {
+    if (!compiled || !sameRows(compiled.rows, c.field.rows)) compiled = compileStencil(s, mesh, c.field)
+    return stencilIntegrals(new Float64Array(width), compiled, s.normal, c.field.values)
+  })
   const comboInts = combinations.map((k) => {
     const out = new Float64Array(width)
     for (const [name, f] of Object.entries(k.factors)) {
@@ -120,4 +125,8 @@ export function sectionEnvelope(
     return { area: first.area, centroid: first.centroid, parts: s.regionParts[g], envelope: resultantEnvelope(over.map((c) => ({ name: c.name, r: c.regions[g] }))) }
   })
   return { cases: all, envelope, regions, combinationsOnly: options.combinationsOnly === true, stencil: s }
+}
+
+function sameRows(a: readonly Int32Array[], b: readonly Int32Array[]): boolean {
+  return a.length === b.length && a.every((r, i) => r === b[i])
 }

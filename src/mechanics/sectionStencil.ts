@@ -32,14 +32,15 @@ import { checkPoint, unitNormal } from './plane.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
 import { nodeDistances } from './sectionCut.ts'
 import {
-  ACC_AREA, ACC_AT, ACC_BT, ACC_FORCE, ACC_SIZE, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionFrame,
+  ACC_AREA, ACC_AT, ACC_BT, ACC_FORCE, ACC_SIZE, MAX_POLYGON_POINTS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionFrame,
 } from './sectionPolygon.ts'
+import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionRecord } from './sectionProperties.ts'
 import type { SectionLimit } from './sectionRegions.ts'
 import {
   addAccumulator, createCutRecord, labelRegions, recordElement, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
-import { sectionRule } from './sectionRule.ts'
+import { sectionRule, shapeDegree } from './sectionRule.ts'
 import { shapeValues } from './shapeFunctions.ts'
 import type { SectionPlane, SectionResult } from './types.ts'
 
@@ -52,14 +53,15 @@ export interface SectionStencil {
   readonly block: Int32Array
   readonly local: Int32Array
   readonly first: Int32Array
+  /** Output record each cut element adds to: 0 the section, 1 + r region r (with regions); -1 when a limit leaves it out. */
   readonly label: Int32Array
   readonly weights: Float64Array
-  /** Regions (of the selection), largest area first. */
+  /** Regions (of the selection), largest area first; 0 when regions were not asked for. */
   readonly regionCount: number
   /** Geometric accumulators (ACC_SIZE each): [0] the section (the selection, with a limit), then the regions in order. */
   readonly acc: Float64Array
   readonly regionParts: readonly (readonly number[])[]
-  /** Cut elements per group (the section, then the regions). */
+  /** Cut elements per record (the section, then the regions). */
   readonly cutElements: Int32Array
   readonly limited: boolean
   readonly about: Vec3 | null
@@ -67,12 +69,20 @@ export interface SectionStencil {
 }
 
 export interface StencilOptions {
+  /** Split the section into its connected regions (sectionRegions.ts). */
+  readonly regions?: boolean
   readonly limit?: SectionLimit | null
   readonly about?: Vec3
   readonly axes?: SectionAxesChoice
 }
 
-/** Builds the stencil of `plane` on `mesh`: one pass over nodes and elements, then the cut elements' weights. */
+/**
+ * Builds the stencil of `plane` on `mesh`: one pass over the nodes and the elements, then each
+ * cut element's polygon and its nodes' weights. Linear simplices (tet4, shape-function degree 1)
+ * take the closed forms over the polygon's fan of triangles, exact for their linear N_a:
+ * ∫ f dA = A/3 Σ f_k and ∫ f g dA = A/12 (Σf Σg + Σ f_k g_k) per triangle (the forms the single
+ * cut uses), with f_k = N_a at the vertex; every other type its Dunavant points (elementSection.ts).
+ */
 export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: StencilOptions = {}): SectionStencil {
   const m = unitNormal(plane.normal)
   checkPoint(plane.point, 'section point')
@@ -84,120 +94,254 @@ export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: St
   nodeDistances(d, coords, N, point, m)
   const whole = new Float64Array(ACC_SIZE)
   const sc = createPolygonScratch(), em = createElementMap(), pts = createSectionPoints()
-  const rec = createCutRecord()
+  const limit = options.limit ?? null
+  const rec = options.regions || limit ? createCutRecord() : null
   const shape = new Float64Array(MAX_ELEMENT_NODES)
-  let first: Int32Array = new Int32Array(1024), weights: Float64Array = new Float64Array(3 * 1024 * 4)
-  let entries = 0
+  const vw = new Float64Array(3 * MAX_POLYGON_POINTS)
+  const w = { first: new Int32Array(1024) as Int32Array, weights: new Float64Array(3 * 1024 * 4) as Float64Array, block: new Int32Array(1024) as Int32Array, local: new Int32Array(1024) as Int32Array }
+  let entries = 0, n = 0
   mesh.blocks.forEach((block, bi) => {
     const topo = ELEMENT_TYPES[block.type], type = block.type
     const nn = topo.nodeCount, cc = topo.cornerCount, conn = block.conn, count = conn.length / nn
     const cases = crossingCases(type), domain = referenceDomain(type), rule = sectionRule(type)
+    const linear = shapeDegree(type) <= 1
     const dist = sc.dist
-    for (let e = 0, base = 0; e < count; e++, base += nn) {
-      let neg = 0
-      for (let c = 0; c < cc; c++) {
-        const dc = d[conn[base + c]]
-        dist[c] = dc
-        if (dc < 0) neg++
-      }
-      if (neg === 0 || neg === cc) continue // all corners on one side
-      if (elementPolygonRef(sc, whole, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) continue
-      const o = recordElement(rec, bi, e)
-      addPolygonArea(rec.acc, o, sc)
-      addAccumulator(whole, 0, rec.acc, o)
-      loadElementMap(em, domain, coords, conn, base)
-      const q = polygonPoints(pts.ref, pts.w, pts.a, pts.b, 0, sc, rule, em)
-      const i = rec.n - 1
-      if (i + 2 > first.length) first = growInt(first, 2 * first.length)
-      if (3 * (entries + nn) > weights.length) weights = growFloat(weights, Math.max(2 * weights.length, 3 * (entries + nn)))
-      first[i] = entries
-      const wo = 3 * entries
+    const list = cutCandidates(d, conn, count, nn, cc)
+    const polygon = elementPolygonRef, area = addPolygonArea
+    for (let c = 0; c < list.n; c++) {
+      const e = list.items[c], base = nn * e
+      for (let k = 0; k < cc; k++) dist[k] = d[conn[base + k]]
+      if (polygon(sc, whole, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) continue
+      if (rec) {
+        const o = recordElement(rec, bi, e)
+        area(rec.acc, o, sc)
+        addAccumulator(whole, 0, rec.acc, o)
+      } else area(whole, 0, sc)
+      if (n + 2 > w.first.length) { const size = 2 * w.first.length; w.first = growInt(w.first, size); w.block = growInt(w.block, size); w.local = growInt(w.local, size) }
+      if (3 * (entries + nn) > w.weights.length) w.weights = growFloat(w.weights, Math.max(2 * w.weights.length, 3 * (entries + nn)))
+      const weights = w.weights, wo = 3 * entries
+      w.first[n] = entries; w.block[n] = bi; w.local[n] = e
       for (let k = 0; k < 3 * nn; k++) weights[wo + k] = 0
-      for (let p = 0; p < q; p++) {
-        shapeValues(type, pts.ref[3 * p], pts.ref[3 * p + 1], pts.ref[3 * p + 2], shape)
-        const w = pts.w[p], wa = w * pts.a[p], wb = w * pts.b[p]
-        for (let a = 0; a < nn; a++) {
-          const na = shape[a]
-          weights[wo + 3 * a] += w * na
-          weights[wo + 3 * a + 1] += wa * na
-          weights[wo + 3 * a + 2] += wb * na
+      if (linear) {
+        vertexWeights(vw, sc)
+        for (let k = 0; k < sc.count; k++) {
+          shapeValues(type, sc.ref[3 * k], sc.ref[3 * k + 1], sc.ref[3 * k + 2], shape)
+          const v0 = vw[3 * k], v1 = vw[3 * k + 1], v2 = vw[3 * k + 2]
+          for (let a = 0; a < nn; a++) {
+            const na = shape[a]
+            if (na === 0) continue // the vertex lies on an edge away from node a
+            weights[wo + 3 * a] += v0 * na; weights[wo + 3 * a + 1] += v1 * na; weights[wo + 3 * a + 2] += v2 * na
+          }
+        }
+      } else {
+        loadElementMap(em, domain, coords, conn, base)
+        const q = polygonPoints(pts.ref, pts.w, pts.a, pts.b, 0, sc, rule, em)
+        for (let p = 0; p < q; p++) {
+          shapeValues(type, pts.ref[3 * p], pts.ref[3 * p + 1], pts.ref[3 * p + 2], shape)
+          const wp = pts.w[p], wa = wp * pts.a[p], wb = wp * pts.b[p]
+          for (let a = 0; a < nn; a++) {
+            const na = shape[a]
+            weights[wo + 3 * a] += wp * na; weights[wo + 3 * a + 1] += wa * na; weights[wo + 3 * a + 2] += wb * na
+          }
         }
       }
       entries += nn
-      first[i + 1] = entries
+      n++
+      w.first[n] = entries
     }
   })
-  const n = rec.n
-  const limit = options.limit ?? null
-  const sel = new Int32Array(n), lab = new Int32Array(n)
-  const selected = selectCutElements(sel, rec, mesh, limit, whole, frame)
-  const count = whole[ACC_AREA] > 0 ? labelRegions(lab, sel, selected, rec, mesh, d) : 0
-  const ra = regionAccumulators(count, lab, sel, selected, rec, mesh, whole)
-  // regions by area, largest first (ties: first met)
-  const order = Array.from({ length: count }, (_, g) => g).sort((x, y) => ra.acc[y * ACC_SIZE + ACC_AREA] - ra.acc[x * ACC_SIZE + ACC_AREA] || x - y)
-  const rank = new Int32Array(count)
-  order.forEach((g, r) => { rank[g] = r })
-  const label = new Int32Array(n).fill(-1)
-  const cutElements = new Int32Array(1 + count)
-  for (let s = 0; s < selected; s++) {
-    label[sel[s]] = rank[lab[s]]
-    cutElements[0]++
-    cutElements[1 + rank[lab[s]]]++
+  const label = new Int32Array(n)
+  let regionCount = 0
+  let acc: Float64Array
+  let regionParts: number[][] = []
+  const cutElements = new Int32Array(1)
+  cutElements[0] = n
+  if (rec) {
+    const sel = new Int32Array(n), lab = new Int32Array(n)
+    const selected = selectCutElements(sel, rec, mesh, limit, whole, frame)
+    label.fill(-1)
+    const count = options.regions && whole[ACC_AREA] > 0 ? labelRegions(lab, sel, selected, rec, mesh, d) : 0
+    if (count > 0) {
+      const ra = regionAccumulators(count, lab, sel, selected, rec, mesh, whole)
+      // regions by area, largest first (ties: first met)
+      const order = Array.from({ length: count }, (_, g) => g).sort((x, y) => ra.acc[y * ACC_SIZE + ACC_AREA] - ra.acc[x * ACC_SIZE + ACC_AREA] || x - y)
+      const rank = new Int32Array(count)
+      order.forEach((g, r) => { rank[g] = r })
+      acc = new Float64Array((1 + count) * ACC_SIZE)
+      order.forEach((g, r) => acc.set(ra.acc.subarray(g * ACC_SIZE, (g + 1) * ACC_SIZE), (1 + r) * ACC_SIZE))
+      regionParts = order.map((g) => ra.parts[g])
+      for (let s = 0; s < selected; s++) label[sel[s]] = 1 + rank[lab[s]]
+      regionCount = count
+    } else {
+      acc = new Float64Array(ACC_SIZE)
+      for (let s = 0; s < selected; s++) label[sel[s]] = 0
+    }
+    if (limit) selectionAccumulator(acc, sel, selected, rec, whole)
+    else acc.set(whole.subarray(0, ACC_SIZE))
+  } else acc = whole
+  const perRecord = new Int32Array(1 + regionCount)
+  for (let i = 0; i < n; i++) {
+    const g = label[i]
+    if (g < 0) continue
+    perRecord[0]++
+    if (g > 0) perRecord[g]++
   }
-  const acc = new Float64Array((1 + count) * ACC_SIZE)
-  if (limit) selectionAccumulator(acc, sel, selected, rec, whole)
-  else acc.set(whole.subarray(0, ACC_SIZE))
-  order.forEach((g, r) => acc.set(ra.acc.subarray(g * ACC_SIZE, (g + 1) * ACC_SIZE), (1 + r) * ACC_SIZE))
-  const regionParts = order.map((g) => ra.parts[g])
   return {
-    point, normal: m, frame, count: n, block: rec.block.slice(0, n), local: rec.local.slice(0, n), first: first.slice(0, n + 1),
-    label, weights: weights.slice(0, 3 * entries), regionCount: count, acc, regionParts, cutElements, limited: limit !== null,
+    point, normal: m, frame, count: n, block: w.block.slice(0, n), local: w.local.slice(0, n), first: w.first.slice(0, n + 1),
+    label, weights: w.weights.slice(0, 3 * entries), regionCount, acc, regionParts, cutElements: perRecord, limited: limit !== null,
     about: options.about ? [options.about[0], options.about[1], options.about[2]] : null, axes: options.axes,
   }
 }
 
-/** Slots per group of a case's integrals: ∫ t dA, ∫ a t dA, ∫ b t dA. */
+/**
+ * Weights per vertex of the polygon in `sc` (W, WA, WB, 3 each, in the order found) for a
+ * linear field: over the fan from the first vertex in polygon order, a triangle of area A adds
+ * A/3 to W of each of its vertices and A/12 (Σa + a_k) to WA of vertex k (likewise b), so that
+ * Σ_k W_k f_k = ∫ f dA and Σ_k WA_k f_k = ∫ a f dA for f linear.
+ */
+function vertexWeights(out: Float64Array, sc: PolygonScratch): void {
+  const n = sc.count, order = sc.order, a = sc.a, b = sc.b
+  out.fill(0, 0, 3 * n)
+  const k0 = order[0], a0 = a[k0], b0 = b[k0]
+  for (let i = 1; i < n - 1; i++) {
+    const ki = order[i], kj = order[i + 1]
+    const ai = a[ki], bi = b[ki], aj = a[kj], bj = b[kj]
+    const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
+    const w0 = At / 3, sa = a0 + ai + aj, sb = b0 + bi + bj, h = At / 12
+    out[3 * k0] += w0; out[3 * ki] += w0; out[3 * kj] += w0
+    out[3 * k0 + 1] += h * (sa + a0); out[3 * ki + 1] += h * (sa + ai); out[3 * kj + 1] += h * (sa + aj)
+    out[3 * k0 + 2] += h * (sb + b0); out[3 * ki + 2] += h * (sb + bi); out[3 * kj + 2] += h * (sb + bj)
+  }
+}
+
+/** Grows-only list of the elements with corners on both sides (local indices), like sectionCut.ts's. */
+const candidates = { items: new Int32Array(0), n: 0 }
+
+/**
+ * The elements of a block with corners on both sides of the plane (d < 0 and d ≥ 0), in order.
+ * Tetrahedra take a branch-free scan (stored always, kept when cut), as the single cut does.
+ */
+function cutCandidates(d: Float64Array, conn: Int32Array, count: number, nn: number, cc: number): { items: Int32Array; n: number } {
+  if (candidates.items.length < count) candidates.items = new Int32Array(count)
+  const list = candidates.items
+  let n = 0
+  if (cc === 4) {
+    for (let e = 0, base = 0; e < count; e++, base += nn) {
+      const neg = (d[conn[base]] < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
+      list[n] = e
+      n += (neg & 3) !== 0 ? 1 : 0
+    }
+  } else {
+    for (let e = 0, base = 0; e < count; e++, base += nn) {
+      let neg = 0
+      for (let c = 0; c < cc; c++) neg += d[conn[base + c]] < 0 ? 1 : 0
+      if (neg === 0 || neg === cc) continue // all corners on one side
+      list[n++] = e
+    }
+  }
+  candidates.n = n
+  return candidates
+}
+
+/**
+ * A stencil compiled for one field layout: the element-node entries of each output record merged
+ * by stress row (a node shared by several cut elements is read once per case), rows ascending.
+ * Record g's entries are start[g] .. start[g+1]-1: row index `row[e]`, weights at w[3e ..].
+ * Every field whose rows are those of `field` (nodal fields on one mesh, the cases of one
+ * element-nodal model) uses the same compiled stencil.
+ */
+export interface CompiledStencil {
+  readonly records: number
+  readonly start: Int32Array
+  readonly row: Int32Array
+  readonly w: Float64Array
+  readonly rows: readonly Int32Array[]
+}
+
+export function compileStencil(s: SectionStencil, mesh: Mesh, field: StressField): CompiledStencil {
+  const records = 1 + s.regionCount
+  const rowCount = field.values.length / 6
+  // elements by record (counting sort), so each record's entries are merged together
+  const per = new Int32Array(records + 1)
+  for (let i = 0; i < s.count; i++) if (s.label[i] >= 0) per[s.label[i] + 1]++
+  for (let g = 0; g < records; g++) per[g + 1] += per[g]
+  const byRecord = new Int32Array(per[records])
+  const fill = per.slice(0, records)
+  for (let i = 0; i < s.count; i++) if (s.label[i] >= 0) byRecord[fill[s.label[i]]++] = i
+  const slot = new Int32Array(rowCount), stamp = new Int32Array(rowCount).fill(-1)
+  const total = s.weights.length / 3
+  const row = new Int32Array(total), w = new Float64Array(3 * total), start = new Int32Array(records + 1)
+  const W = s.weights
+  let k = 0
+  for (let g = 0; g < records; g++) {
+    start[g] = k
+    const from = k
+    for (let j = per[g]; j < per[g + 1]; j++) {
+      const i = byRecord[j], bi = s.block[i], rows = field.rows[bi]
+      const nn = ELEMENT_TYPES[mesh.blocks[bi].type].nodeCount, base = s.local[i] * nn
+      for (let a = 0, o = 3 * s.first[i]; a < nn; a++, o += 3) {
+        const r = rows[base + a]
+        let e = slot[r]
+        if (stamp[r] !== g) { stamp[r] = g; e = k++; slot[r] = e; row[e] = r }
+        w[3 * e] += W[o]; w[3 * e + 1] += W[o + 1]; w[3 * e + 2] += W[o + 2]
+      }
+    }
+    sortEntries(row, w, from, k)
+  }
+  start[records] = k
+  return { records, start, row: row.slice(0, k), w: w.slice(0, 3 * k), rows: field.rows }
+}
+
+/** Sorts entries [from, to) by row (memory order of the stress values), weights alongside. */
+function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number): void {
+  const n = to - from
+  if (n < 2) return
+  const idx = Array.from({ length: n }, (_, i) => from + i).sort((x, y) => row[x] - row[y])
+  const r2 = row.slice(from, to), w2 = w.slice(3 * from, 3 * to)
+  for (let i = 0; i < n; i++) {
+    const j = idx[i] - from
+    row[from + i] = r2[j]
+    w[3 * (from + i)] = w2[3 * j]; w[3 * (from + i) + 1] = w2[3 * j + 1]; w[3 * (from + i) + 2] = w2[3 * j + 2]
+  }
+}
+
+/** Slots per record of a case's integrals: ∫ t dA, ∫ a t dA, ∫ b t dA. */
 export const CASE_SLOTS = 9
 
 /**
- * One case's pass: the traction integrals of every group (the section, then each region) into
- * out[CASE_SLOTS·g ..] (zeroed first), from the field's element-node rows. Cut elements a limit
- * leaves out add nothing.
+ * One case's pass: the traction integrals of every record (the section, then each region) into
+ * out[CASE_SLOTS·g ..] (zeroed first), from the field's values through the compiled stencil
+ * (compileStencil on a field with the same rows). With regions the section is their sum.
  */
-export function stencilIntegrals(out: Float64Array, s: SectionStencil, mesh: Mesh, field: StressField): Float64Array {
-  out.fill(0, 0, CASE_SLOTS * (1 + s.regionCount))
-  const mx = s.normal[0], my = s.normal[1], mz = s.normal[2], values = field.values, W = s.weights
-  const blocks = mesh.blocks
-  for (let i = 0; i < s.count; i++) {
-    const g = s.label[i]
-    if (g < 0) continue
-    const bi = s.block[i], rows = field.rows[bi]
-    const nn = ELEMENT_TYPES[blocks[bi].type].nodeCount
-    const base = s.local[i] * nn
+export function stencilIntegrals(out: Float64Array, c: CompiledStencil, m: Vec3, values: Float64Array): Float64Array {
+  const records = c.records
+  out.fill(0, 0, CASE_SLOTS * records)
+  const mx = m[0], my = m[1], mz = m[2], W = c.w, row = c.row, start = c.start
+  for (let g = 0; g < records; g++) {
     let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
-    for (let a = 0, w = 3 * s.first[i]; a < nn; a++, w += 3) {
-      const r = 6 * rows[base + a]
+    for (let e = start[g], end = start[g + 1]; e < end; e++) {
+      const r = 6 * row[e], o = 3 * e
       const sxx = values[r], syy = values[r + 1], szz = values[r + 2], sxy = values[r + 3], syz = values[r + 4], sxz = values[r + 5]
       const tx = sxx * mx + sxy * my + sxz * mz
       const ty = sxy * mx + syy * my + syz * mz
       const tz = sxz * mx + syz * my + szz * mz
-      const w0 = W[w], wa = W[w + 1], wb = W[w + 2]
+      const w0 = W[o], wa = W[o + 1], wb = W[o + 2]
       Fx += w0 * tx; Fy += w0 * ty; Fz += w0 * tz
       Ax += wa * tx; Ay += wa * ty; Az += wa * tz
       Bx += wb * tx; By += wb * ty; Bz += wb * tz
     }
-    const o = CASE_SLOTS * (1 + g)
-    out[o] += Fx; out[o + 1] += Fy; out[o + 2] += Fz
-    out[o + 3] += Ax; out[o + 4] += Ay; out[o + 5] += Az
-    out[o + 6] += Bx; out[o + 7] += By; out[o + 8] += Bz
+    const o = CASE_SLOTS * g
+    out[o] = Fx; out[o + 1] = Fy; out[o + 2] = Fz
+    out[o + 3] = Ax; out[o + 4] = Ay; out[o + 5] = Az
+    out[o + 6] = Bx; out[o + 7] = By; out[o + 8] = Bz
   }
-  // the section is the sum of its regions (every selected element has a region)
-  for (let g = 0; g < s.regionCount; g++) for (let k = 0; k < CASE_SLOTS; k++) out[k] += out[CASE_SLOTS * (1 + g) + k]
+  // the section is the sum of its regions (record 0 holds no element then)
+  for (let g = 1; g < records; g++) for (let k = 0; k < CASE_SLOTS; k++) out[k] += out[CASE_SLOTS * g + k]
   return out
 }
 
 /**
- * The section record of group g (0 = the section, 1 + r = region r) from a case's integrals
+ * The section record of record g (0 = the section, 1 + r = region r) from a case's integrals
  * (`ints` as stencilIntegrals writes them): area properties of the stencil, force and moment of
  * the case. No free body (a stencil knows nothing of the body's surface): `freeBody` is zero and
  * `freeBodyDefined` false. Moments about the stencil's `about` for the section, about each

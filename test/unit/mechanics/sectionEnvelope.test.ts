@@ -14,6 +14,7 @@ import { makePlane } from '../../../src/mechanics/plane.ts'
 import { mulberry32 } from '../../helpers/rotation.ts'
 import { assembly } from '../../helpers/assemblies.ts'
 import { nodalStress } from '../../helpers/sectionMeshes.ts'
+import { elementNodalCopy } from '../../helpers/elementNodal.ts'
 
 const rel = (a: readonly number[], b: readonly number[]) => {
   let d = 0, s = 0
@@ -41,7 +42,7 @@ describe('section envelope: one stencil, every case', () => {
     const cases = fields.map((v, k) => ({ name: `c${k}`, field: nodalStressField(mesh, v) }))
     const combos = [{ name: 'K', factors: { c0: 1.35, C2: -0.5 } }]
     const plane = makePlane([0.3, 0.4, 1.37], [0.1, -0.2, 1])
-    const env = sectionEnvelope(mesh, cases, combos, plane, {})
+    const env = sectionEnvelope(mesh, cases, combos, plane, { regions: true })
     expect(env.cases.map((c) => c.name)).toEqual(['c0', 'c1', 'c2', 'K'])
     expect(env.regions.length).toBe(2)
     const combined = new Float64Array(fields[0].length)
@@ -62,6 +63,28 @@ describe('section envelope: one stencil, every case', () => {
       }
     })
     expect(env.regions[0].area).toBeGreaterThan(env.regions[1].area)
+  })
+
+  it('element-nodal fields and a part limit take the same path (equal to the single cut, 1e-9)', () => {
+    const seed = 15_100
+    console.log(`seed ${seed}`)
+    const mesh = assembly([
+      { box: { nx: 2, ny: 2, nz: 3, lx: 1, ly: 1, lz: 3 }, type: 'hex8', part: 1 },
+      { box: { nx: 2, ny: 2, nz: 3, lx: 1, ly: 1, lz: 3, x0: 1 }, type: 'tet4', part: 2 },
+    ], true)
+    // the same row order for both (as a reader gives every case of a model), so the combined values below are a sum row by row
+    const fields = [0, 1].map((k) => elementNodalCopy(mesh, randomLinearStress(mesh, seed + k), seed))
+    const plane = makePlane([0.9, 0.5, 1.3], [0.3, 0, 1])
+    const limit = { parts: [2] }
+    const env = sectionEnvelope(mesh, fields.map((field, k) => ({ name: `e${k}`, field })), [{ name: 'K', factors: { e0: 2, e1: -1 } }], plane, { regions: true, limit })
+    const combined = { ...fields[0], values: fields[0].values.map((v, i) => 2 * v - fields[1].values[i]) }
+    ;[...fields, combined].forEach((field, k) => {
+      const r = cutSection(mesh, field, [0, 0, 0], plane, { regions: true, limit }).result
+      expect(r.limited).toBe(true)
+      expect(rel(env.cases[k].section.force, r.force)).toBeLessThan(1e-9)
+      expect(rel(env.cases[k].section.moment, r.moment)).toBeLessThan(1e-9)
+      expect(env.cases[k].section.area).toBeCloseTo(r.area, 12)
+    })
   })
 
   /**
