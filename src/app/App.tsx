@@ -13,6 +13,7 @@ import { ViewButtons } from './ui/ViewButtons.tsx'
 import { useStore } from '../state/store.ts'
 import { FileIntake } from './ui/FileIntake.tsx'
 import { CutCard } from './cards/CutCard.tsx'
+import { CombinationCard } from './cards/CombinationCard.tsx'
 import { EquilibriumCard } from './cards/EquilibriumCard.tsx'
 import { LoadEntryCard } from './cards/LoadEntryCard.tsx'
 import { ProbeCard } from './cards/ProbeCard.tsx'
@@ -76,6 +77,7 @@ export function App() {
         <ErrorCard />
         <NoticeCard />
         <ModelCard />
+        <CombinationCard />
         <CutCard />
         <SweepCard />
         <EquilibriumCard />

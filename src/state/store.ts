@@ -40,6 +40,8 @@ import type { SweepSlice } from './sweepSlice.ts'
 import { createLineSlice } from './lineSlice.ts'
 import type { LineSlice } from './lineSlice.ts'
 import { createShapeSlice, shapeOfLoad } from './shapeSlice.ts'
+import { caseStateOfLoad, createCaseSlice } from './caseSlice.ts'
+import type { CaseSlice } from './caseSlice.ts'
 import type { ShapeSlice } from './shapeSlice.ts'
 import type { ComponentQuantity } from '../mechanics/componentScalars.ts'
 
@@ -305,7 +307,7 @@ export interface TractusActions {
   markElement: (element: MarkedElement | null) => void
 }
 
-export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice
+export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice & CaseSlice
 
 export const DEFAULT_SECTION: SectionState = {
   enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'auto', traction: 'normalTraction', dragging: false,
@@ -387,6 +389,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   ...createSweepSlice(set, get, api),
   ...createLineSlice(set, get, api),
   ...createShapeSlice(set, get, api),
+  ...createCaseSlice(set, get, api),
 
   setQuantity: (q) => {
     const st = get()
@@ -464,6 +467,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
       // Nor an old line; the new model's displacement, components and extremes come with it.
       line: { ...get().line, from: null, to: null }, linePicking: 'off', lineResult: null, lineError: null,
       ...shapeOfLoad(loaded),
+      ...caseStateOfLoad(summary),
       // The model's own units follow the model.
       ...(get().unitPreset === 'model' ? { units: modelDisplayUnits(summary.units) } : {}),
     })

@@ -4,6 +4,7 @@ import type { DemoEntry } from '../actions.ts'
 import { engine } from '../engine.ts'
 import { QuantitySelect } from '../cards/ColourCard.tsx'
 import { UnitsMenu } from './UnitsMenu.tsx'
+import { CaseSelect } from './CaseSelect.tsx'
 import { useStore } from '../../state/store.ts'
 
 /** Slim bar: model name, quantity, units, card width, open, demos, help. The name is React text only. */
@@ -22,6 +23,7 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
       <span className="model-name" data-testid="model-name" title={model?.description ?? ''}>{model ? model.name || 'Unnamed model' : 'No model loaded'}</span>
       {model ? <span className="counts num">{model.elementCount.toLocaleString('en-US')} elements · {model.nodeCount.toLocaleString('en-US')} nodes · model units {model.units.length}, {model.units.stress}</span> : null}
       <span className="spacer" />
+      <CaseSelect />
       <QuantitySelect testId="quantity" />
       <UnitsMenu />
       <button type="button" data-testid="wide-cards" aria-pressed={wide} className={wide ? 'on' : ''} title="Widen or narrow the column of cards (diagrams read better wide); W"
