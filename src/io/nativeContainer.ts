@@ -2,17 +2,27 @@
  * The native binary container (file extension `.tractus`), our own layout:
  *
  *   bytes 0..7    magic "TRACTUS\0"
- *   bytes 8..11   uint32 LE format version (1)
+ *   bytes 8..11   uint32 LE format version (2; version 1 still reads)
  *   bytes 12..15  uint32 LE byte length H of the header
  *   bytes 16..    H bytes of UTF-8 JSON header
  *   zero padding to a multiple of 8, then the arrays, each starting at a multiple of 8 bytes
  *   (offsets are absolute from the start of the file), little-endian.
  *
  * Header: {format, name, description, units, bodyForce, warnings, nodeCount, elementCount,
- * blocks: [{type, count}], arrays: [{name, dtype, offset, length}]} with `length` in elements.
- * Arrays: coords (f64, 3N), nodeIds (i32, N), stress (f64, 6N), displacement (f64, 3N, optional),
- * and per block k: blockK.conn (i32, count·nodes), blockK.ids (i32, count), blockK.part (i32,
- * count, optional). README.md describes the layout for users ("The `.tractus` container").
+ * blocks: [{type, count}], arrays: [{name, dtype, offset, length}], and from version 2
+ * fields: [{kind, case, layout, count, offset}], parts} with `length` in elements.
+ * Arrays: coords (f64, 3N), nodeIds (i32, N), and per block k: blockK.conn (i32, count·nodes),
+ * blockK.ids (i32, count), blockK.part (i32, count, optional).
+ * Fields (version 2): each entry of the field table is one stress (6 numbers a row) or
+ * displacement (3 a row) field of one load case (`case` "default" for a model without cases),
+ * `count` rows of f64 starting at byte `offset`; the bytes are also an entry of `arrays` (the
+ * writer names them "stress" and "displacement"), so the table's checks of range, alignment and
+ * overlap cover them. Layout "nodal": a row per node, in node order. Layout "elementNodal": a
+ * row per element and node, in the order of the connectivity (block by block, element by
+ * element, local node by local node), so no index array is stored: count = Σ blocks' count ·
+ * nodes. `parts` is model.json's "parts" object ({"1": "name"} or {"1": {"name", "bodyForce"}}).
+ * Version 1 has no field table: its arrays "stress" (6N) and "displacement" (3N) are nodal.
+ * README.md describes the layout for users ("The `.tractus` container").
  *
  * The reader trusts nothing in the header: every field, range, alignment, count and value is
  * checked, and problems are InputErrors naming the header field. Arrays are zero-copy views on the
@@ -25,7 +35,8 @@ import { elementType, isElementTypeName } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { InputError } from '../model/errors.ts'
 import type { InputErrorKind } from '../model/errors.ts'
-import type { Model } from '../model/model.ts'
+import type { Model, PartInfo } from '../model/model.ts'
+import type { StressField } from '../model/stressField.ts'
 import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
 import { firstIndexOutside } from './indexRange.ts'
 import { buildIdIndex, isDuplicate, isStrictlyAscending } from './idIndex.ts'
@@ -35,10 +46,13 @@ import { readModelMeta } from './modelJson.ts'
 import { isUnitsWarning, unitsWarning } from './intakeReport.ts'
 import type { ReadModel } from './intakeReport.ts'
 import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
+import { partAveragedStress } from '../model/stressField.ts'
 
 /** "TRACTUS" and a zero byte. */
 export const NATIVE_MAGIC = new Uint8Array([0x54, 0x52, 0x41, 0x43, 0x54, 0x55, 0x53, 0x00])
-export const NATIVE_VERSION = 1
+export const NATIVE_VERSION = 2
+/** Versions this reader reads. */
+export const NATIVE_READABLE_VERSIONS: readonly number[] = [1, 2]
 export const NATIVE_EXTENSION = '.tractus'
 /** Bytes before the header: magic, version, header length. */
 export const NATIVE_PREAMBLE_BYTES = 16
@@ -60,12 +74,57 @@ export function isNativeContainer(bytes: Uint8Array): boolean {
 
 const align8 = (n: number): number => Math.ceil(n / 8) * 8
 
-export function writeNative(model: Model): Uint8Array {
+/** One entry of the version-2 field table (see the file's opening comment). */
+export interface FieldEntry {
+  readonly kind: 'stress' | 'displacement'
+  readonly case: string
+  readonly layout: 'nodal' | 'elementNodal'
+  readonly count: number
+  readonly offset: number
+}
+
+/** The case name of a model without load cases in the field table. */
+export const DEFAULT_CASE = 'default'
+
+export interface WriteNativeOptions {
+  /** Format version to write (default NATIVE_VERSION); 1 only for nodal stress, for readers of version 1. */
+  readonly version?: 1 | 2
+}
+
+/**
+ * The values of an element-nodal field in the order of the connectivity (row i of the result is
+ * element-node i counted over the blocks), so the container needs no index array.
+ */
+export function elementNodalValuesInOrder(field: StressField): Float64Array {
+  let total = 0
+  for (const r of field.rows) total += r.length
+  const out = new Float64Array(6 * total)
+  const v = field.values
+  let at = 0
+  for (const rows of field.rows) {
+    for (let i = 0; i < rows.length; i++, at += 6) {
+      const r = 6 * rows[i]
+      out[at] = v[r]; out[at + 1] = v[r + 1]; out[at + 2] = v[r + 2]; out[at + 3] = v[r + 3]; out[at + 4] = v[r + 4]; out[at + 5] = v[r + 5]
+    }
+  }
+  return out
+}
+
+/** model.json's "parts" object for part infos (a name alone where a part has no body force of its own). */
+export function partsJson(parts: readonly PartInfo[]): Record<string, string | { name: string; bodyForce: readonly number[] }> {
+  return Object.fromEntries(parts.map((p) => [String(p.part), p.bodyForce ? { name: p.name, bodyForce: p.bodyForce } : p.name]))
+}
+
+export function writeNative(model: Model, options: WriteNativeOptions = {}): Uint8Array {
+  const version = options.version ?? NATIVE_VERSION
   const { mesh } = model
+  const field = model.stressField
+  if (version === 1 && field) throw new RangeError('a version-1 container holds nodal stress only; write version 2 for element-nodal stress')
+  const stressValues = field ? elementNodalValuesInOrder(field) : model.stress
   const arrays: { name: string; data: Float64Array | Int32Array }[] = [
     { name: 'coords', data: mesh.coords },
     { name: 'nodeIds', data: mesh.nodeIds },
-    { name: 'stress', data: model.stress },
+    { name: 'stress', data: stressValues },
   ]
   if (model.displacement) arrays.push({ name: 'displacement', data: model.displacement })
   mesh.blocks.forEach((b, k) => {
@@ -82,12 +141,19 @@ export function writeNative(model: Model): Uint8Array {
     nodeCount: mesh.nodeCount,
     elementCount: mesh.elementCount,
     blocks: mesh.blocks.map((b) => ({ type: b.type, count: b.ids.length })),
+    ...(version >= 2 && model.parts && model.parts.length ? { parts: partsJson(model.parts) } : {}),
   }
+  // The field table points at the arrays "stress" and "displacement" (indices 2 and 3).
+  const fieldsOf = (e: readonly ArrayEntry[]): FieldEntry[] | undefined => version < 2 ? undefined : [
+    { kind: 'stress', case: DEFAULT_CASE, layout: field ? 'elementNodal' : 'nodal', count: e[2].length / 6, offset: e[2].offset },
+    ...(model.displacement ? [{ kind: 'displacement' as const, case: DEFAULT_CASE, layout: 'nodal' as const, count: e[3].length / 3, offset: e[3].offset }] : []),
+  ]
+  const headerOf = (e: readonly ArrayEntry[]) => JSON.stringify({ ...headerBase, arrays: e, ...(version >= 2 ? { fields: fieldsOf(e) } : {}) })
   const enc = new TextEncoder()
   // Offsets depend on the header's length, which depends on the offsets' digits: iterate until
   // the layout is stable (two or three rounds).
   let entries: ArrayEntry[] = arrays.map((a) => ({ name: a.name, dtype: a.data instanceof Float64Array ? 'f64' : 'i32', offset: 0, length: a.data.length }))
-  let headerBytes = enc.encode(JSON.stringify({ ...headerBase, arrays: entries }))
+  let headerBytes = enc.encode(headerOf(entries))
   for (let round = 0; round < 8; round++) {
     let at = align8(NATIVE_PREAMBLE_BYTES + headerBytes.length)
     const next = entries.map((e) => {
@@ -95,7 +161,7 @@ export function writeNative(model: Model): Uint8Array {
       at = align8(at + e.length * DTYPE_SIZE[e.dtype])
       return { ...e, offset: o }
     })
-    const nextBytes = enc.encode(JSON.stringify({ ...headerBase, arrays: next }))
+    const nextBytes = enc.encode(headerOf(next))
     const stable = nextBytes.length === headerBytes.length && next.every((e, i) => e.offset === entries[i].offset)
     entries = next
     headerBytes = nextBytes
@@ -106,7 +172,7 @@ export function writeNative(model: Model): Uint8Array {
   const out = new Uint8Array(total)
   out.set(NATIVE_MAGIC, 0)
   const dv = new DataView(out.buffer)
-  dv.setUint32(8, NATIVE_VERSION, true)
+  dv.setUint32(8, version, true)
   dv.setUint32(12, headerBytes.length, true)
   out.set(headerBytes, NATIVE_PREAMBLE_BYTES)
   arrays.forEach((a, i) => writeLittleEndian(out, entries[i].offset, a.data))
@@ -142,7 +208,7 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   if (!isNativeContainer(bytes)) fail('container', 'magic', `does not start with the Tractus container magic "TRACTUS\\0"; is it a ${NATIVE_EXTENSION} file?`)
   const dv = new DataView(bytes.buffer, bytes.byteOffset, size)
   const version = dv.getUint32(8, true)
-  if (version !== NATIVE_VERSION) fail('version', 'version', `format version ${version} is not supported; this reader reads version ${NATIVE_VERSION}`)
+  if (!NATIVE_READABLE_VERSIONS.includes(version)) fail('version', 'version', `format version ${version} is not supported; this reader reads versions ${NATIVE_READABLE_VERSIONS.join(' and ')}: write the container again with this version of Tractus, or open it with the version that wrote it`)
   const headerLength = dv.getUint32(12, true)
   if (headerLength === 0 || NATIVE_PREAMBLE_BYTES + headerLength > size) fail('container', 'headerLength', `header length ${headerLength} does not fit in the file of ${size} bytes`)
   let text = ''
@@ -160,7 +226,8 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   if (typeof header !== 'object' || header === null || Array.isArray(header)) fail('container', 'header', 'the header is not a JSON object')
   const h = header as Record<string, unknown>
   if (h.format !== FORMAT_TAG) fail('container', 'format', `format is ${JSON.stringify(h.format)}, expected "${FORMAT_TAG}"`)
-  const meta = readModelMeta(fileName, { name: h.name, description: h.description, units: h.units, bodyForce: h.bodyForce }, '')
+  if (version < 2 && (h.fields !== undefined || h.parts !== undefined)) fail('container', h.fields !== undefined ? 'fields' : 'parts', `a version-1 container has no ${h.fields !== undefined ? 'field table' : 'part names'}; the file says version 1 but was written as version 2: write it again`)
+  const meta = readModelMeta(fileName, { name: h.name, description: h.description, units: h.units, bodyForce: h.bodyForce, ...(h.parts !== undefined ? { parts: h.parts } : {}) }, '')
   if (typeof h.name !== 'string') fail('container', 'name', 'name must be a string')
   let warnings: string[] = []
   if (h.warnings !== undefined) {
@@ -221,8 +288,15 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   }
   const coords = take<Float64Array>('coords', 'f64', 3 * N)!
   const nodeIds = take<Int32Array>('nodeIds', 'i32', N)!
-  const stress = take<Float64Array>('stress', 'f64', 6 * N)!
-  const displacement = take<Float64Array>('displacement', 'f64', 3 * N, true)
+  // Element-node rows in connectivity order (version 2, layout elementNodal).
+  let elementNodeRows = 0
+  for (const b of blocks) elementNodeRows += b.count * elementType(b.type).nodeCount
+  const fields = version >= 2 ? readFieldTable(h.fields, table, N, elementNodeRows, fail) : null
+  const stressEntry = fields ? fields.stress : table.get('stress')
+  const stressName = stressEntry?.name ?? 'stress'
+  const elementNodal = fields?.stressLayout === 'elementNodal'
+  const stress = take<Float64Array>(stressName, 'f64', 6 * (elementNodal ? elementNodeRows : N))!
+  const displacement = take<Float64Array>(fields?.displacement?.name ?? 'displacement', 'f64', 3 * N, fields ? fields.displacement === null : true)
   const finite = (a: Float64Array, field: string, width: number) => {
     for (let i = 0; i < a.length; i++) {
       if (!Number.isFinite(a[i])) fail('not-finite', field, `node ${nodeIds[(i / width) | 0]} has a non-finite value (${a[i]}) at index ${i}`)
@@ -230,7 +304,12 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   }
   checkIds(nodeIds, 'nodeIds', 'node', fail)
   finite(coords, 'coords', 3)
-  finite(stress, 'stress', 6)
+  if (!elementNodal) finite(stress, stressName, 6)
+  else {
+    for (let i = 0; i < stress.length; i++) {
+      if (!Number.isFinite(stress[i])) fail('not-finite', stressName, `element-node row ${(i / 6) | 0} has a non-finite value (${stress[i]}) at index ${i}`)
+    }
+  }
   if (displacement) finite(displacement, 'displacement', 3)
 
   // All block arrays are checked against the file before anything is allocated from the counts.
@@ -252,6 +331,8 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   const invertedIds: number[] = []
   let invertedTotal = 0
   let at = 0
+  const rowsOf: Int32Array[] = []
+  let rowAt = 0
   blocks.forEach((b, k) => {
     const nn = elementType(b.type).nodeCount
     const { ids, part } = blockArrays[k]
@@ -263,16 +344,25 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     at += b.count
     const o = checkBlockOrientation(coords, b.type, conn)
     if (o.degenerate >= 0) fail('zero-volume', `block${k}.conn`, `degenerate ${b.type} element: volume ${o.degenerateVolume.toPrecision(3)} is about zero for its size ${o.degenerateSize.toPrecision(3)}`, ids[o.degenerate])
+    let rows: Int32Array | null = null
+    if (elementNodal) {
+      rows = new Int32Array(conn.length)
+      for (let i = 0; i < rows.length; i++) rows[i] = rowAt + i
+      rowAt += rows.length
+    }
     if (o.inverted.length) {
-      // Never write into the caller's buffer: fix a private copy.
+      // Never write into the caller's buffer: fix a private copy. Element-node rows follow
+      // their nodes.
       conn = conn.slice()
       reorientElements(conn, b.type, o.inverted)
+      if (rows) reorientElements(rows, b.type, o.inverted)
       for (let i = 0; i < o.inverted.length && invertedIds.length < 10; i++) invertedIds.push(ids[o.inverted[i]])
       invertedTotal += o.inverted.length
     }
     const q = checkQuadraticBlock(coords, b.type, conn)
     if (q) fail(q.kind === 'mid-edge' ? 'mid-edge-node' : 'negative-jacobian', `block${k}.conn`, quadraticFindingMessage(q, b.type, conn, nodeIds), ids[q.element])
     blockInputs.push({ type: b.type, conn, ids, part })
+    if (rows) rowsOf.push(rows)
   })
   if (allIds) checkIds(allIds, 'block ids', 'element', fail)
   else if (blockArrays[0].ids[0] < 1) fail('bad-id', 'block ids', `element id ${blockArrays[0].ids[0]} at index 0 is not positive`)
@@ -281,14 +371,18 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   const unitsText = unitsWarning(meta.units, unitSources, 'native')
   // A container written from such a model carries the bundle's warning already.
   if (unitsText && !warnings.some(isUnitsWarning)) warnings.push(unitsText)
+  const mesh = createMesh(coords, blockInputs, nodeIds)
+  const stressField: StressField | null = elementNodal ? { values: stress, rows: rowsOf, layout: 'element-nodal' } : null
   return {
     name: meta.name ?? '',
     description: meta.description,
     units: meta.units,
-    mesh: createMesh(coords, blockInputs, nodeIds),
-    stress,
+    mesh,
+    stress: stressField ? partAveragedStress(mesh, stressField) : stress,
+    ...(stressField ? { stressField } : {}),
     displacement,
     bodyForce: meta.bodyForce,
+    ...(meta.parts ? { parts: meta.parts } : {}),
     warnings,
     intake: { format: 'native', files: [], unitSources, unitsDeclared: unitsText === null, unitsWarning: unitsText },
   }
@@ -299,4 +393,43 @@ function checkIds(ids: Int32Array, field: string, what: string, fail: (kind: Inp
   if (isStrictlyAscending(ids)) return
   const ix = buildIdIndex(ids)
   if (isDuplicate(ix)) fail('duplicate-id', field, `${what} id ${ix.id} appears twice (indices ${ix.firstRow} and ${ix.secondRow})`)
+}
+
+/** The stress and displacement fields of a version-2 field table, each pointing at an entry of the array table. */
+interface FieldTable {
+  readonly stress: ArrayEntry
+  readonly stressLayout: 'nodal' | 'elementNodal'
+  readonly displacement: ArrayEntry | null
+}
+
+function readFieldTable(value: unknown, arrays: ReadonlyMap<string, ArrayEntry>, N: number, elementNodeRows: number, fail: (kind: InputErrorKind, field: string, message: string) => never): FieldTable {
+  const how = 'fields must list {kind, case, layout, count, offset} (kind "stress" or "displacement", layout "nodal" or "elementNodal")'
+  if (!Array.isArray(value) || value.length === 0) fail('container', 'fields', `${how}; it is ${value === undefined ? 'missing' : 'empty or not a list'}: write the container again`)
+  const byOffset = new Map<number, ArrayEntry>()
+  for (const e of arrays.values()) byOffset.set(e.offset, e)
+  let stress: { entry: ArrayEntry; layout: 'nodal' | 'elementNodal'; case: string } | null = null
+  let displacement: { entry: ArrayEntry; case: string } | null = null
+  ;(value as unknown[]).forEach((f, i) => {
+    const at = `fields[${i}]`
+    if (typeof f !== 'object' || f === null || Array.isArray(f)) fail('container', at, how)
+    const r = f as Record<string, unknown>
+    if (r.kind !== 'stress' && r.kind !== 'displacement') fail('container', `${at}.kind`, `kind ${JSON.stringify(r.kind)} is not "stress" or "displacement"`)
+    if (typeof r.case !== 'string' || r.case === '') fail('container', `${at}.case`, `case must be a non-empty name ("${DEFAULT_CASE}" for a model without load cases), got ${JSON.stringify(r.case)}`)
+    if (r.layout !== 'nodal' && r.layout !== 'elementNodal') fail('container', `${at}.layout`, `layout ${JSON.stringify(r.layout)} is not "nodal" or "elementNodal"`)
+    if (r.kind === 'displacement' && r.layout !== 'nodal') fail('container', `${at}.layout`, 'a displacement field is nodal (one row per node)')
+    const rows = r.layout === 'nodal' ? N : elementNodeRows
+    if (r.count !== rows) fail('container', `${at}.count`, `count ${JSON.stringify(r.count)} does not match the mesh: a ${r.layout} field has ${rows} rows (${r.layout === 'nodal' ? 'one per node' : 'one per element and node'})`)
+    const entry = typeof r.offset === 'number' ? byOffset.get(r.offset) : undefined
+    if (!entry) fail('container', `${at}.offset`, `offset ${JSON.stringify(r.offset)} is not the start of an array of the array table`)
+    const e = entry as ArrayEntry
+    const width = r.kind === 'stress' ? 6 : 3
+    if (e.dtype !== 'f64' || e.length !== rows * width) fail('container', `${at}.offset`, `the array "${e.name}" at offset ${e.offset} holds ${e.length} × ${e.dtype}, the field needs ${rows * width} × f64`)
+    // This reader shows one case: the first stress field, and the displacement of its case.
+    if (r.kind === 'stress' && !stress) stress = { entry: e, layout: r.layout as 'nodal' | 'elementNodal', case: r.case as string }
+    if (r.kind === 'displacement' && !displacement) displacement = { entry: e, case: r.case as string }
+  })
+  const s = stress as { entry: ArrayEntry; layout: 'nodal' | 'elementNodal'; case: string } | null
+  if (!s) fail('container', 'fields', 'the field table has no stress field; write the container again')
+  const d = displacement as { entry: ArrayEntry; case: string } | null
+  return { stress: s!.entry, stressLayout: s!.layout, displacement: d && d.case === s!.case ? d.entry : null }
 }

@@ -5,6 +5,7 @@
 import { elementType } from '../model/elementTypes.ts'
 import type { Model } from '../model/model.ts'
 import type { CsvFile } from './readCsvBundle.ts'
+import { partsJson } from './nativeContainer.ts'
 
 function num(v: number): string {
   return v === 0 && 1 / v < 0 ? '-0' : String(v)
@@ -44,9 +45,7 @@ export function writeCsvBundle(model: Model): CsvFile[] {
   files.push({ name: 'elements.csv', text: el.join('\n') + '\n' })
   files.push({ name: 'stress.csv', text: table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
   if (model.displacement) files.push({ name: 'displacement.csv', text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, model.displacement) })
-  const parts = model.parts && model.parts.length > 0
-    ? { parts: Object.fromEntries(model.parts.map((p) => [String(p.part), p.bodyForce ? { name: p.name, bodyForce: p.bodyForce } : p.name])) }
-    : {}
+  const parts = model.parts && model.parts.length > 0 ? { parts: partsJson(model.parts) } : {}
   const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts }
   files.push({ name: 'model.json', text: JSON.stringify(meta, null, 2) + '\n' })
   return files

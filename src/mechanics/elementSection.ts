@@ -38,7 +38,6 @@ import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, ACC_SIZE, MAX_POLYGON_POINTS } fr
 import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
 import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
-import { shapeValues } from './shapeFunctions.ts'
 
 /** Most quadrature points one polygon can have: its fan triangles times the largest rule. */
 export const MAX_POLYGON_QUADRATURE = (MAX_POLYGON_POINTS - 2) * barycentric(MAX_SECTION_RULE_DEGREE).count
@@ -127,8 +126,9 @@ export function accumulateTraction(
   N: Float64Array, force: Float64Array, fo: number,
 ): void {
   let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
+  const values = ELEMENT_TYPES[type].shapeValues // the record's own function: no lookup per point
   for (let q = from; q < to; q++) {
-    shapeValues(type, ref[3 * q], ref[3 * q + 1], ref[3 * q + 2], N)
+    values(ref[3 * q], ref[3 * q + 1], ref[3 * q + 2], N)
     let tx = 0, ty = 0, tz = 0
     for (let k = 0; k < nn; k++) {
       const nk = N[k]

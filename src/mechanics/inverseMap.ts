@@ -34,13 +34,15 @@
  *     its start estimate pulled back into the reference element itself, `failures` is counted up
  *     and the function returns false, so the caller can report how many points were not mapped
  *     rather than hand back silent garbage.
+ * A distorted hex8 is inverted in monomial form (`ElementMap.trilinear`): its map written once per
+ * element as eight coefficient vectors, so each Newton step costs a few dozen multiplications
+ * instead of eight shape functions and their 24 derivatives (the same polynomial: tests compare).
  * The apex of a pyramid, where the rational shape functions are 0/0, is the shape-function
  * module's business (it returns their limits); a section vertex lying on the apex node gets
  * that node's reference coordinates directly and is never inverted.
  */
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { ELEMENT_TYPE_NAMES, ELEMENT_TYPES } from '../model/elementTypes.ts'
-import { shapeDerivatives, shapeValues } from './shapeFunctions.ts'
 
 /** The largest node count of any registered type (scratch sizes). */
 export const MAX_ELEMENT_NODES = Math.max(...ELEMENT_TYPE_NAMES.map((t) => ELEMENT_TYPES[t].nodeCount))
@@ -73,6 +75,9 @@ export interface ReferenceDomain {
   readonly size: number
   readonly span: Int32Array
   readonly spanInverse: Float64Array
+  /** The type's shape functions and their derivatives (the registry record's own, called directly in the Newton loop). */
+  readonly values: (xi: number, eta: number, zeta: number, out: Float64Array) => Float64Array
+  readonly derivatives: (xi: number, eta: number, zeta: number, out: Float64Array) => Float64Array
 }
 
 const DOMAINS = new Map<ElementTypeName, ReferenceDomain>()
@@ -107,7 +112,10 @@ export function referenceDomain(type: ElementTypeName): ReferenceDomain {
     if (Math.abs(d) > best * (1 + 1e-12)) { best = Math.abs(d); span = [0, i, j, k] }
   }
   const spanInverse = invert3(edgeMatrix(ref, span[0], span[1], span[2], span[3]))
-  const domain: ReferenceDomain = { type, nodeCount: nn, cornerCount: cc, ref, planes, centre, size, span: Int32Array.from(span), spanInverse }
+  const domain: ReferenceDomain = {
+    type, nodeCount: nn, cornerCount: cc, ref, planes, centre, size, span: Int32Array.from(span), spanInverse,
+    values: topo.shapeValues, derivatives: topo.shapeDerivatives,
+  }
   DOMAINS.set(type, domain)
   return domain
 }
@@ -151,12 +159,21 @@ export interface ElementMap {
   failures: number
   readonly N: Float64Array
   readonly dN: Float64Array
+  /**
+   * A non-affine hex8 in monomial form: x(ξ) = c0 + c1 ξ + c2 η + c3 ζ + c4 ξη + c5 ηζ + c6 ξζ
+   * + c7 ξηζ, the vectors c_k in `poly` (3 each, relative to the origin). The Newton loop then
+   * forms the residual and the Jacobian from these eight vectors instead of the eight shape
+   * functions and their 24 derivatives (the same polynomial, fewer operations).
+   */
+  trilinear: boolean
+  readonly poly: Float64Array
 }
 
 export function createElementMap(): ElementMap {
   return {
     domain: referenceDomain(ELEMENT_TYPE_NAMES[0]), x: new Float64Array(3 * MAX_ELEMENT_NODES), origin: new Float64Array(3),
     affine: true, size: 0, failures: 0, N: new Float64Array(MAX_ELEMENT_NODES), dN: new Float64Array(3 * MAX_ELEMENT_NODES),
+    trilinear: false, poly: new Float64Array(24),
   }
 }
 
@@ -192,8 +209,29 @@ export function loadElementMap(em: ElementMap, domain: ReferenceDomain, coords: 
     else if (Math.abs(x[3 * a + 2] - (A[6] * d0 + A[7] * d1 + A[8] * d2)) > tol) affine = false
   }
   em.affine = affine
+  em.trilinear = !affine && domain.type === 'hex8'
+  if (em.trilinear) trilinearForm(em.poly, x, ref)
   return em
 }
+
+/**
+ * The monomial coefficients of a hex8's map (ElementMap.poly) from its node coordinates x and
+ * reference corners ref (±1 each): N_a = (1 + ξ ξ_a)(1 + η η_a)(1 + ζ ζ_a) / 8 expanded.
+ */
+function trilinearForm(c: Float64Array, x: Float64Array, ref: Float64Array): void {
+  c.fill(0)
+  const f = MONOMIALS
+  for (let a = 0; a < 8; a++) {
+    const p = ref[3 * a], q = ref[3 * a + 1], r = ref[3 * a + 2]
+    f[0] = 1; f[1] = p; f[2] = q; f[3] = r; f[4] = p * q; f[5] = q * r; f[6] = p * r; f[7] = p * q * r
+    for (let k = 0; k < 8; k++) {
+      const w = 0.125 * f[k]
+      c[3 * k] += w * x[3 * a]; c[3 * k + 1] += w * x[3 * a + 1]; c[3 * k + 2] += w * x[3 * a + 2]
+    }
+  }
+}
+
+const MONOMIALS = new Float64Array(8)
 
 const AFFINE = new Float64Array(9)
 
@@ -203,29 +241,44 @@ const AFFINE = new Float64Array(9)
  * on failure xi holds the estimate pulled into the reference element and em.failures is one up.
  */
 export function invertElementMap(em: ElementMap, x0: number, x1: number, x2: number, xi: Float64Array, o: number): boolean {
-  const domain = em.domain, type = domain.type, nn = domain.nodeCount
-  const X = em.x, N = em.N, dN = em.dN
+  const domain = em.domain, values = domain.values, derivatives = domain.derivatives, nn = domain.nodeCount
+  const X = em.x, N = em.N, dN = em.dN, tri = em.trilinear, P = em.poly
   const s0 = xi[o], s1 = xi[o + 1], s2 = xi[o + 2]
   let a = s0, b = s1, c = s2
   const tol = 1e-13 * em.size, maxStep = domain.size / 3, done = NEWTON_STEP_DONE * domain.size, margin = NEWTON_MARGIN * domain.size
   for (let it = 0; ; it++) {
-    shapeValues(type, a, b, c, N)
     let r0 = -x0, r1 = -x1, r2 = -x2
-    for (let k = 0; k < nn; k++) {
-      const n = N[k]
-      r0 += n * X[3 * k]; r1 += n * X[3 * k + 1]; r2 += n * X[3 * k + 2]
+    if (tri) {
+      const ab = a * b, bc = b * c, ac = a * c, abc = ab * c
+      r0 += P[0] + P[3] * a + P[6] * b + P[9] * c + P[12] * ab + P[15] * bc + P[18] * ac + P[21] * abc
+      r1 += P[1] + P[4] * a + P[7] * b + P[10] * c + P[13] * ab + P[16] * bc + P[19] * ac + P[22] * abc
+      r2 += P[2] + P[5] * a + P[8] * b + P[11] * c + P[14] * ab + P[17] * bc + P[20] * ac + P[23] * abc
+    } else {
+      values(a, b, c, N)
+      for (let k = 0; k < nn; k++) {
+        const n = N[k]
+        r0 += n * X[3 * k]; r1 += n * X[3 * k + 1]; r2 += n * X[3 * k + 2]
+      }
     }
     const rm = Math.max(Math.abs(r0), Math.abs(r1), Math.abs(r2))
     if (rm <= tol) { xi[o] = a; xi[o + 1] = b; xi[o + 2] = c; return true }
     if (!(rm < Infinity) || it === NEWTON_ITERATIONS) break // NaN or the cap: give up
-    shapeDerivatives(type, a, b, c, dN)
     let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
-    for (let k = 0; k < nn; k++) {
-      const X0 = X[3 * k], X1 = X[3 * k + 1], X2 = X[3 * k + 2]
-      const d0 = dN[3 * k], d1 = dN[3 * k + 1], d2 = dN[3 * k + 2]
-      j00 += X0 * d0; j01 += X0 * d1; j02 += X0 * d2
-      j10 += X1 * d0; j11 += X1 * d1; j12 += X1 * d2
-      j20 += X2 * d0; j21 += X2 * d1; j22 += X2 * d2
+    if (tri) {
+      // columns ∂x/∂ξ = c1 + c4 η + c6 ζ + c7 ηζ, ∂x/∂η = c2 + c4 ξ + c5 ζ + c7 ξζ, ∂x/∂ζ = c3 + c5 η + c6 ξ + c7 ξη
+      const bc = b * c, ac = a * c, ab = a * b
+      j00 = P[3] + P[12] * b + P[18] * c + P[21] * bc; j01 = P[6] + P[12] * a + P[15] * c + P[21] * ac; j02 = P[9] + P[15] * b + P[18] * a + P[21] * ab
+      j10 = P[4] + P[13] * b + P[19] * c + P[22] * bc; j11 = P[7] + P[13] * a + P[16] * c + P[22] * ac; j12 = P[10] + P[16] * b + P[19] * a + P[22] * ab
+      j20 = P[5] + P[14] * b + P[20] * c + P[23] * bc; j21 = P[8] + P[14] * a + P[17] * c + P[23] * ac; j22 = P[11] + P[17] * b + P[20] * a + P[23] * ab
+    } else {
+      derivatives(a, b, c, dN)
+      for (let k = 0; k < nn; k++) {
+        const X0 = X[3 * k], X1 = X[3 * k + 1], X2 = X[3 * k + 2]
+        const d0 = dN[3 * k], d1 = dN[3 * k + 1], d2 = dN[3 * k + 2]
+        j00 += X0 * d0; j01 += X0 * d1; j02 += X0 * d2
+        j10 += X1 * d0; j11 += X1 * d1; j12 += X1 * d2
+        j20 += X2 * d0; j21 += X2 * d1; j22 += X2 * d2
+      }
     }
     const c00 = j11 * j22 - j12 * j21, c01 = j02 * j21 - j01 * j22, c02 = j01 * j12 - j02 * j11
     const det = j00 * c00 + j10 * c01 + j20 * c02

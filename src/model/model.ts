@@ -1,6 +1,7 @@
 import type { ElementTypeName } from './elementTypes.ts'
 import type { ModelUnits } from './units.ts'
 import type { Combination, LoadCase } from './loadCases.ts'
+import type { StressField } from './stressField.ts'
 
 /**
  * One block of elements of a single type.
@@ -51,6 +52,10 @@ export interface Model {
   readonly displacement: Float64Array | null
   readonly bodyForce: Vec3
   readonly warnings: readonly string[]
+  // --- element-nodal: the unaveraged field when the input gave one value per element and node
+  // (layout 'element-nodal'); `stress` is then its display average per part. Reach it through
+  // modelStressField(model) (src/model/stressField.ts), never directly. ---
+  readonly stressField?: StressField
   // --- assemblies: part names and per-part body force from model.json (absent: none given) ---
   readonly parts?: readonly PartInfo[]
   // --- load cases (loadCases.ts): every case's fields and the combinations; stress etc. above are those of cases[0] ---

@@ -10,7 +10,7 @@
  * - `layout`: 'nodal' when rows are nodes (rows[b] === conn), 'element-nodal' when every
  *   element-node has its own row.
  */
-import type { Mesh } from './model.ts'
+import type { Mesh, Model } from './model.ts'
 
 export type StressLayout = 'nodal' | 'element-nodal'
 
@@ -23,6 +23,14 @@ export interface StressField {
 /** The field of nodal stress `values` (6·N) on `mesh`: rows are the blocks' connectivities. */
 export function nodalStressField(mesh: Mesh, values: Float64Array): StressField {
   return { values, rows: mesh.blocks.map((b) => b.conn), layout: 'nodal' }
+}
+
+/**
+ * The stress field every element-based kernel reads for `model`: its element-nodal field when the
+ * input gave one, else its nodal stress seen through the connectivity.
+ */
+export function modelStressField(model: Model): StressField {
+  return model.stressField ?? nodalStressField(model.mesh, model.stress)
 }
 
 /**
@@ -64,11 +72,65 @@ export function stressFieldSlice(field: StressField, mesh: Mesh, slice: Mesh, fr
 
 /**
  * The stress at nodes for display (invariants, colours, the load-patch reference): for nodal
- * stress the values themselves. Element-nodal stress is averaged to nodes within each part; that
- * averaging arrives with the element-nodal readers, and until then such a field is refused here
- * rather than shown wrong.
+ * stress the values themselves; for element-nodal stress the average within each part
+ * (partAveragedStress).
  */
-export function nodalDisplayStress(field: StressField): Float64Array {
+export function nodalDisplayStress(field: StressField, mesh?: Mesh): Float64Array {
   if (field.layout === 'nodal') return field.values
-  throw new Error('element-nodal stress has no nodal display values yet (the part-wise nodal average is not written)')
+  if (!mesh) throw new Error('element-nodal stress needs its mesh to be averaged to nodes')
+  return partAveragedStress(mesh, field)
+}
+
+/**
+ * The part of each node for display: the lowest part number among the elements that use it
+ * (Int32Array(N), -1 for a node no element uses). Where parts meet, a node has one value per
+ * part; the display shows one of them, the lowest part's, rather than a blend that is the
+ * stress of neither material. Element-based kernels never use it: they read each element's own.
+ */
+export function displayPartOfNodes(mesh: Mesh): Int32Array {
+  const out = new Int32Array(mesh.nodeCount).fill(-1)
+  for (const b of mesh.blocks) {
+    const conn = b.conn, part = b.part
+    const nn = conn.length / Math.max(1, b.ids.length)
+    for (let i = 0; i < conn.length; i++) {
+      const p = part ? part[(i / nn) | 0] : 0
+      const n = conn[i]
+      if (out[n] < 0 || p < out[n]) out[n] = p
+    }
+  }
+  return out
+}
+
+/**
+ * Display stress of an element-nodal field: Float64Array(6·N), at each node the mean of the
+ * element-node values of the elements of the node's display part (displayPartOfNodes) that use
+ * it; zero at nodes no element uses. Two passes over the element-nodes, no other allocation.
+ */
+export function partAveragedStress(mesh: Mesh, field: StressField, out: Float64Array = new Float64Array(6 * mesh.nodeCount)): Float64Array {
+  const N = mesh.nodeCount
+  const nodePart = displayPartOfNodes(mesh)
+  const count = new Int32Array(N)
+  out.fill(0)
+  const v = field.values
+  mesh.blocks.forEach((b, k) => {
+    const conn = b.conn, part = b.part, rows = field.rows[k]
+    const nn = conn.length / Math.max(1, b.ids.length)
+    for (let i = 0; i < conn.length; i++) {
+      const n = conn[i]
+      // Only the elements of the node's display part contribute.
+      if ((part ? part[(i / nn) | 0] : 0) !== nodePart[n]) continue
+      const r = 6 * rows[i], o = 6 * n
+      out[o] += v[r]; out[o + 1] += v[r + 1]; out[o + 2] += v[r + 2]
+      out[o + 3] += v[r + 3]; out[o + 4] += v[r + 4]; out[o + 5] += v[r + 5]
+      count[n]++
+    }
+  })
+  for (let n = 0; n < N; n++) {
+    const c = count[n]
+    if (c > 1) {
+      const o = 6 * n, w = 1 / c
+      out[o] *= w; out[o + 1] *= w; out[o + 2] *= w; out[o + 3] *= w; out[o + 4] *= w; out[o + 5] *= w
+    }
+  }
+  return out
 }

@@ -13,8 +13,6 @@ export function runCore(mesh: Mesh, stress: Float64Array, bodyForce: Vec3 = [0, 
   return { ...r, elements: r.elementBalance, body: r.bodyBalance }
 }
 
-export const FACE_NODES_BY_CODE = [3, 6, 4, 8]
-
 export function maxAbs(a: ArrayLike<number>): number {
   let m = 0
   for (let i = 0; i < a.length; i++) { const v = Math.abs(a[i]); if (v > m) m = v }

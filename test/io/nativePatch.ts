@@ -1,7 +1,7 @@
 /**
  * Test helper: rewrites the JSON header of a native container while keeping its arrays. The new
  * header gets room to grow (padded with spaces, which JSON allows), the data moves behind it and
- * every array offset is shifted before `mutate` sees the header, so a mutation can break exactly
+ * every array offset (and field-table offset) is shifted before `mutate` sees the header, so a mutation can break exactly
  * one thing.
  */
 import { NATIVE_PREAMBLE_BYTES } from '../../src/io/nativeContainer.ts'
@@ -23,6 +23,8 @@ export function patchNative(bytes: Uint8Array, mutate: (h: Header) => void, room
   const newStart = Math.ceil((NATIVE_PREAMBLE_BYTES + reserved) / 8) * 8
   const delta = newStart - oldStart
   for (const a of h.arrays) a.offset += delta
+  // Version 2: the field table points at arrays by offset.
+  for (const f of (h.fields as { offset: number }[] | undefined) ?? []) f.offset += delta
   mutate(h)
   const text = JSON.stringify(h)
   if (text.length > reserved) throw new Error('patchNative: header grew past the reserved room')

@@ -4,10 +4,11 @@
  */
 import { describe, expect, it } from 'vitest'
 import { buildViewLink, parseViewLink } from '../../../src/app/urlHash.ts'
+import type { ViewLink } from '../../../src/app/urlHash.ts'
 
 describe('view link: load cases', () => {
   it('round trip of the case and the combinations', () => {
-    const v = { loadCase: 'ULS-3', combinations: [{ name: 'ULS-3', factors: { dead: 1.35, wind: -0.75 } }, { name: 'k2', factors: { dead: 1e-3 } }] }
+    const v: ViewLink = { loadCase: 'ULS-3', combinations: [{ name: 'ULS-3', factors: { dead: 1.35, wind: -0.75 } }, { name: 'k2', factors: { dead: 1e-3 } }] }
     const hash = buildViewLink(v)
     expect(hash).toContain('lc=ULS-3')
     expect(parseViewLink(hash)).toEqual(v)

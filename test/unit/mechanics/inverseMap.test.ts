@@ -57,6 +57,27 @@ describe(`inverse element map (seed ${SEED})`, () => {
     expect(em.failures).toBe(0)
   })
 
+  // The hex8 fast path (the map in monomial form) against the generic shape-function path: the
+  // same polynomial, so the same ξ to round-off, and the same residual x(ξ) - x.
+  it('hex8: the monomial form gives the ξ of the generic shape-function Newton to 1e-13', () => {
+    const rnd = mulberry32(SEED + 7)
+    const mesh = singleElement('hex8', [1.3, 0.8, 1.1], [0.2, -0.4, 0.7])
+    const x = mesh.coords.map((v) => v + 0.15 * (2 * rnd() - 1))
+    const dom = referenceDomain('hex8')
+    const fast = loadElementMap(createElementMap(), dom, x, mesh.blocks[0].conn, 0)
+    const plain = loadElementMap(createElementMap(), dom, x, mesh.blocks[0].conn, 0)
+    expect(fast.trilinear).toBe(true)
+    plain.trilinear = false
+    for (let k = 0; k < 50; k++) {
+      const xi = insidePoint('hex8', rnd)
+      const p = forward('hex8', x, xi)
+      const a = Float64Array.from(dom.centre), b = Float64Array.from(dom.centre)
+      expect(invertElementMap(fast, p[0] - fast.origin[0], p[1] - fast.origin[1], p[2] - fast.origin[2], a, 0)).toBe(true)
+      expect(invertElementMap(plain, p[0] - plain.origin[0], p[1] - plain.origin[1], p[2] - plain.origin[2], b, 0)).toBe(true)
+      for (let c = 0; c < 3; c++) expect(Math.abs(a[c] - b[c])).toBeLessThan(1e-13)
+    }
+  })
+
   it('a flattened (zero-volume) hex8 or a point far outside is counted as not mapped, never NaN', () => {
     const type = 'hex8'
     const dom = referenceDomain(type)
