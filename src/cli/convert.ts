@@ -20,11 +20,14 @@ export const convertCommand: Command = {
     { name: 'out', kind: 'string', value: `file${NATIVE_EXTENSION}|folder`, required: true, help: `where to write: a ${NATIVE_EXTENSION} file, or a folder for a CSV bundle` },
     CASE_OPTION, JSON_OPTION, HELP_OPTION,
   ],
-  details: `The model is read and checked completely before anything is written. An existing output file is replaced. --json prints {"file", "format", "bytes", "nodes", "elements"} of what was written.`,
+  details: `The model is read and checked completely before anything is written. Every load case and combination is written (container: one field per case; bundle: stress.NAME.csv and model.json "cases"); --case NAME writes that case or combination alone. An existing output file is replaced. --json prints {"file", "format", "bytes", "nodes", "elements"} of what was written.`,
   run(args, io) {
     const out = args.options.out as string
     const loaded = loadModel(args.positionals[0])
-    const { model } = caseModel(loaded.model, args, 'convert')
+    const picked = caseModel(loaded.model, args, 'convert').model
+    // --case writes that case (or combination) alone, as a model of one field; without it every case goes
+    const { cases: _c, combinations: _k, ...single } = picked
+    const model = args.options.case === undefined ? picked : single
     let bytes = 0
     let format: 'native' | 'bundle'
     try {

@@ -4,6 +4,7 @@
  */
 import { elementType } from '../model/elementTypes.ts'
 import type { Model } from '../model/model.ts'
+import { DEFAULT_CASE, sameCaseName } from '../model/loadCases.ts'
 import type { CsvFile } from './readCsvBundle.ts'
 import { partsJson } from './nativeContainer.ts'
 
@@ -43,10 +44,23 @@ export function writeCsvBundle(model: Model): CsvFile[] {
     }
   }
   files.push({ name: 'elements.csv', text: el.join('\n') + '\n' })
-  files.push({ name: 'stress.csv', text: table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
-  if (model.displacement) files.push({ name: 'displacement.csv', text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, model.displacement) })
+  // --- load cases: stress.csv is the case "default", stress.NAME.csv every other; model.json lists them in order ---
+  const cases = model.cases && model.cases.length ? model.cases : [{ name: DEFAULT_CASE, description: '', bodyForce: null, stress: model.stress, displacement: model.displacement }]
+  for (const c of cases) {
+    const stem = sameCaseName(c.name, DEFAULT_CASE) ? '' : `.${c.name}`
+    files.push({ name: `stress${stem}.csv`, text: table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, c.stress) })
+    if (c.displacement) files.push({ name: `displacement${stem}.csv`, text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, c.displacement) })
+  }
   const parts = model.parts && model.parts.length > 0 ? { parts: partsJson(model.parts) } : {}
-  const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts }
+  const meta = {
+    name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts,
+    ...(model.cases && model.cases.length ? { cases: casesJson(model), combinations: (model.combinations ?? []).map((c) => ({ name: c.name, factors: { ...c.factors } })) } : {}),
+  }
   files.push({ name: 'model.json', text: JSON.stringify(meta, null, 2) + '\n' })
   return files
+}
+
+/** model.json's "cases" of a model: name, description and ρb of each case, in order. */
+export function casesJson(model: Model): { name: string; description: string; bodyForce: readonly number[] }[] {
+  return (model.cases ?? []).map((c) => ({ name: c.name, description: c.description, bodyForce: c.bodyForce ?? model.bodyForce }))
 }
