@@ -244,7 +244,7 @@ export function startHashSync(): () => void {
   }
   const unsub = useStore.subscribe((s, p) => {
     if (s.quantity !== p.quantity || s.range !== p.range || s.colourMap !== p.colourMap || s.units !== p.units ||
-        s.section !== p.section || s.camera !== p.camera || s.model !== p.model) {
+        s.section !== p.section || s.camera !== p.camera || s.model !== p.model || s.caseName !== p.caseName || s.userCombinations !== p.userCombinations) {
       if (timer) clearTimeout(timer)
       timer = setTimeout(write, 250)
     }
