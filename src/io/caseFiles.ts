@@ -165,6 +165,7 @@ export interface CaseReadContext<T> {
  */
 export function readOtherCases<T extends { readonly name: string }>(plan: CasePlan<T>, ctx: CaseReadContext<T>): LoadCase[] {
   const N = ctx.nodeIds.length
+  checkCaseMemory(plan.cases.length, 6 * N, plan.cases.filter((c) => c.displacement).length * 3 * N, plan.cases[0].stress.name)
   const out: LoadCase[] = []
   const refStress = nodeSet(ctx.firstStress.table, ctx.nodeIndex, N)
   const refDisp = ctx.firstDisplacement ? nodeSet(ctx.firstDisplacement.table, ctx.nodeIndex, N) : null
@@ -234,4 +235,21 @@ function placeRows<T>(t: NumericTable, width: number, ctx: CaseReadContext<T>, f
     if (ref.set[n] && !seen[n]) throw new InputError(kind === 'stress' ? 'missing-stress' : 'missing-displacement', `no row for node ${ctx.nodeIds[n]}, which ${ref.file} has; every case holds the same nodes: add its row`, { file })
   }
   return out
+}
+
+/**
+ * Most bytes the load cases' fields may take together (Float64 values): 4 GiB. Fifty cases of a
+ * 10^6-element tet4 model (about 1.8·10^5 nodes) take 0.4 GiB nodal and 9 GiB element-nodal; a
+ * browser tab holds a few GiB at most, and the command line's peak stays within its idle size plus
+ * three times the model's arrays only while they fit in memory at all. Beyond the limit the
+ * reader refuses before it reads the cases, saying how much they would take.
+ */
+export const MAX_CASE_FIELD_BYTES = 4 * 2 ** 30
+
+/** Refuses load cases whose fields together (`stressValues` and `displacementValues` numbers per case and in all) would pass MAX_CASE_FIELD_BYTES. */
+export function checkCaseMemory(cases: number, stressValuesPerCase: number, displacementValues: number, file: string): void {
+  const bytes = 8 * (cases * stressValuesPerCase + displacementValues)
+  if (bytes <= MAX_CASE_FIELD_BYTES) return
+  const gib = (b: number) => (b / 2 ** 30).toFixed(1)
+  throw new InputError('too-large', `${cases} load cases need ${gib(bytes)} GiB for their fields (${stressValuesPerCase / 6} stress rows × 6 values × 8 bytes each, and the displacements), more than the ${gib(MAX_CASE_FIELD_BYTES)} GiB this tool holds at once: split the cases over several models (each with the same nodes and elements), or drop the cases you do not review`, { file })
 }

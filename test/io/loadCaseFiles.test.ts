@@ -95,3 +95,14 @@ function withJson(b: Bundle, extra: Record<string, unknown>): Bundle {
   b['model.json'] = JSON.stringify({ ...JSON.parse(b['model.json']), ...extra })
   return b
 }
+
+describe('load cases: memory', () => {
+  it('refuses plainly, before reading, where the fields would not fit', async () => {
+    const { checkCaseMemory, MAX_CASE_FIELD_BYTES } = await import('../../src/io/caseFiles.ts')
+    // 50 nodal cases of about 1.8·10^5 nodes (a 10^6-element tet4 block): 0.4 GiB, accepted
+    expect(() => checkCaseMemory(50, 6 * 175_616, 0, 'stress.csv')).not.toThrow()
+    // 50 element-nodal cases of 10^6 tet4 (4·10^6 element-node rows): about 9 GiB, refused with the figure
+    expect(() => checkCaseMemory(50, 6 * 4_000_000, 0, 'stress.csv')).toThrow(/50 load cases need 8\.9 GiB .* split the cases/)
+    expect(MAX_CASE_FIELD_BYTES).toBe(4 * 2 ** 30)
+  })
+})

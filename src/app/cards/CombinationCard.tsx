@@ -5,6 +5,7 @@ import { useStore } from '../../state/store.ts'
 import { factorsText } from '../../state/caseSlice.ts'
 import { checkCombination } from '../../model/loadCases.ts'
 import { isInputError } from '../../model/errors.ts'
+import './loadCases.css'
 
 /**
  * Load cases: which case is which (description, ρb), the model's combinations, and the app's own
@@ -23,6 +24,8 @@ export function CombinationCard() {
   const cases = model?.cases ?? []
   if (!model || cases.length < 2) return null
   const own = model.combinations ?? []
+  // ρb is listed only where some case has one
+  const anyBodyForce = cases.some((c) => c.bodyForce.some((v) => v !== 0))
   const save = (): void => {
     const f: Record<string, number> = {}
     for (const c of cases) {
@@ -49,25 +52,25 @@ export function CombinationCard() {
   }
   return (
     <Card id="cases" title="Load cases">
-      <table className="figures" data-testid="case-list">
+      <table className="figures case-list" data-testid="case-list">
         <caption>Cases of the model</caption>
         <tbody>
           {cases.map((c) => (
             <tr key={c.name} data-case={c.name} className={c.name === caseName ? 'shown' : ''}>
-              <th>{c.name}</th><td className="text">{c.description || '—'}</td><td>ρb <Vec v={c.bodyForce} q="forcePerVolume" /></td>
+              <th>{c.name}</th><td className="text">{c.description || '—'}{anyBodyForce ? <> · ρb <Vec v={c.bodyForce} q="forcePerVolume" /></> : null}</td>
             </tr>
           ))}
         </tbody>
       </table>
       {own.length || user.length ? (
-        <table className="figures" data-testid="combination-list">
+        <table className="figures case-list" data-testid="combination-list">
           <caption>Combinations</caption>
           <tbody>
-            {own.map((c) => <tr key={c.name} data-combination={c.name}><th>{c.name}</th><td className="text">{factorsText(c)}</td><td className="text">model</td></tr>)}
+            {own.map((c) => <tr key={c.name} data-combination={c.name}><th>{c.name}</th><td className="text">{factorsText(c)}</td><td className="text">(model)</td></tr>)}
             {user.map((c) => (
               <tr key={c.name} data-combination={c.name}>
                 <th>{c.name}</th><td className="text">{factorsText(c)}</td>
-                <td><button type="button" data-testid={`combination-edit-${c.name}`} onClick={() => edit(c.name)}>Edit</button> <button type="button" data-testid={`combination-remove-${c.name}`} onClick={() => removeCombination(c.name)}>Remove</button></td>
+                <td className="act"><button type="button" data-testid={`combination-edit-${c.name}`} onClick={() => edit(c.name)}>Edit</button> <button type="button" data-testid={`combination-remove-${c.name}`} onClick={() => removeCombination(c.name)}>Remove</button></td>
               </tr>
             ))}
           </tbody>

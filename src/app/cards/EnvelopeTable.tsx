@@ -2,6 +2,8 @@ import { Num } from '../ui/Num.tsx'
 import { useStore } from '../../state/store.ts'
 import type { CaseResultant, EnvelopeEntry, ResultantEnvelope } from '../../../workers/protocol.ts'
 import { noiseFloor } from '../../model/roundingNoise.ts'
+import { unitLabel } from '../format.ts'
+import './loadCases.css'
 
 /** The six components of a resultant in section axes: label, unit kind, how to read it from an envelope and from a case. */
 export const ENVELOPE_COMPONENTS: readonly { key: string; label: string; q: 'force' | 'moment'; env: (e: ResultantEnvelope) => EnvelopeEntry; of: (c: CaseResultant) => number }[] = [
@@ -14,11 +16,12 @@ export const ENVELOPE_COMPONENTS: readonly { key: string; label: string; q: 'for
 ]
 
 /**
- * One envelope as a table: per component its largest and smallest value, the case that governs
- * each, and that case's whole resultant (the concurrent values) in the same row. A component
- * that is rounding noise in every case names no governing case.
+ * One envelope as two tables: per component its largest and smallest value and the case that
+ * governs each; then each governing case once with its whole resultant (the concurrent values).
+ * A component that is rounding noise in every case names no governing case.
  */
 export function EnvelopeGrid({ env, cases, testId }: { env: ResultantEnvelope; cases: readonly CaseResultant[]; testId: string }) {
+  const system = useStore((s) => s.units)
   const fF = noiseFloor(cases.flatMap((c) => [c.axial, ...c.shear]))
   const fM = noiseFloor(cases.flatMap((c) => [c.torque, ...c.bending]))
   const floor = (q: 'force' | 'moment') => (q === 'force' ? fF : fM)
@@ -27,25 +30,36 @@ export function EnvelopeGrid({ env, cases, testId }: { env: ResultantEnvelope; c
     const noise = Math.abs(e.max) <= floor(k.q) && Math.abs(e.min) <= floor(k.q)
     return (['max', 'min'] as const).map((side) => ({ k, side, value: side === 'max' ? e.max : e.min, name: noise ? null : side === 'max' ? e.maxCase : e.minCase }))
   })
+  const governing = cases.filter((c) => rows.some((r) => r.name === c.name))
   return (
-    <table className="figures envelope" data-testid={testId}>
-      <thead>
-        <tr><th></th><th>value</th><th>governing case</th>{ENVELOPE_COMPONENTS.map((k) => <th key={k.key} title="concurrent value: the governing case's own">{k.label}</th>)}</tr>
-      </thead>
-      <tbody>
-        {rows.map(({ k, side, value, name }) => {
-          const c = name ? cases.find((x) => x.name === name) : undefined
-          return (
+    <div className="scroll">
+      <table className="figures envelope" data-testid={testId}>
+        <thead><tr><th>component</th><th>value</th><th>governing case</th></tr></thead>
+        <tbody>
+          {rows.map(({ k, side, value, name }) => (
             <tr key={k.key + side} data-row={`${k.key}-${side}`}>
               <th>{k.label} {side === 'max' ? 'largest' : 'smallest'}</th>
               <td><Num v={value} q={k.q} floor={floor(k.q)} /></td>
               <td className="text" data-case={name ?? ''}>{name ?? '—'}</td>
-              {ENVELOPE_COMPONENTS.map((j) => <td key={j.key} className={j.key === k.key ? 'gov' : ''}>{c ? <Num v={j.of(c)} q={j.q} floor={floor(j.q)} bare /> : '—'}</td>)}
             </tr>
-          )
-        })}
-      </tbody>
-    </table>
+          ))}
+        </tbody>
+      </table>
+      <table className="figures envelope" data-testid={`${testId}-concurrent`}>
+        <caption>Concurrent values: each governing case&apos;s whole resultant</caption>
+        <thead>
+          <tr><th>case</th>{ENVELOPE_COMPONENTS.map((j) => <th key={j.key}>{j.label} [{unitLabel(j.q, system)}]</th>)}</tr>
+        </thead>
+        <tbody>
+          {governing.map((c) => (
+            <tr key={c.name} data-case-row={c.name}>
+              <th>{c.name}</th>
+              {ENVELOPE_COMPONENTS.map((j) => <td key={j.key}><Num v={j.of(c)} q={j.q} floor={floor(j.q)} bare /></td>)}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
   )
 }
 
@@ -77,7 +91,7 @@ export function EnvelopeSection() {
           {error ? <p className="note bad">{error}</p> : null}
           {reply && reply.envelope ? (
             <>
-              <p className="note">Section axes as above; moments about the section centroid. Each row: the extreme value, the case that governs it, and that case&apos;s whole resultant. Over {reply.combinationsOnly ? 'the combinations only' : 'every case and combination'}.</p>
+              <p className="note">Over {reply.combinationsOnly ? 'the combinations only' : 'every case and combination'}; section axes as above, moments about the section centroid. Each extreme value names the case that governs it; the second table gives each governing case&apos;s whole resultant (the concurrent values).</p>
               <EnvelopeGrid env={reply.envelope} cases={reply.combinationsOnly ? reply.cases.filter((c) => c.kind === 'combination') : reply.cases} testId="envelope-table" />
               {reply.regions.length > 1 ? reply.regions.map((g, i) => g.envelope ? (
                 <div key={i}>
