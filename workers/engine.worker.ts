@@ -47,7 +47,8 @@ import { casesOf, combinationsOf, findCase, firstCaseName, modelForCase } from '
 import type { Combination } from '../src/model/loadCases.ts'
 import { sectionEnvelope } from '../src/mechanics/sectionEnvelope.ts'
 import { runAnalysis } from '../src/mechanics/analysisPipeline.ts'
-import type { SectionResult } from '../src/mechanics/types.ts'
+import type { NodalInvariants, SectionResult } from '../src/mechanics/types.ts'
+import type { StressField } from '../src/model/stressField.ts'
 import type { CaseResultant, EnvelopeReply, EnvelopeRequest } from './protocol.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
@@ -269,6 +270,31 @@ function checkedAxes(m: Vec3, axes: SectionAxesChoice | undefined): { axes: Sect
   }
 }
 
+/**
+ * What every analysed case sends: the surface triangles with their scalars, the feature edges,
+ * the extras, the summary's figures of the mesh and the case, and the buffers to transfer.
+ */
+function pictureOf(
+  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, patches: LoadPatches, stress: StressField,
+): { tri: ReturnType<typeof buildSurfaceTriangles>; surface: SurfaceBuffers; extras: LoadExtras; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+  const mesh = model.mesh
+  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
+  const edges = buildFeatureEdges(mesh.coords, faces)
+  const surface: SurfaceBuffers = {
+    positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
+    ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
+  }
+  const extras = loadExtras(model, faces, nodalDisplayStress(stress), tri.scalars, edges.nodes)
+  const summary = {
+    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
+    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
+    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
+    warnings: [...model.warnings], stressLayout: stress.layout,
+  }
+  const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
+  return { tri, surface, extras, summary, buffers }
+}
+
 // --- load cases ---
 
 /** The model with the app's own combinations after its own (the app's replace its own of the same name). */
@@ -308,22 +334,9 @@ function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { 
     input, { balancePrecision: 'single', faces: cur.faces, ...(rule ? { loadPatches: rule } : {}) },
   )
   clock.mark('surfaceBuffers')
-  const faces = cur.faces
-  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
-  const edges = buildFeatureEdges(mesh.coords, faces)
-  const surface: SurfaceBuffers = {
-    positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
-    ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
-  }
-  const extras = loadExtras(model, faces, nodalDisplayStress(input.stress), tri.scalars, edges.nodes)
+  const { tri, surface, extras, summary: figures, buffers } = pictureOf(model, cur.faces, tractions, invariants, balance, patches, input.stress)
   clock.mark('')
-  const summary: ModelSummary = {
-    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
-    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
-    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
-    warnings: [...model.warnings], source: '', compute: { stagesMs: clock.stages, workers: 0, sharing: 'none' },
-    stressLayout: input.stress.layout,
-  }
+  const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: 0, sharing: 'none' } }
   cur.model = model
   cur.tractions = tractions
   cur.polygons = null
@@ -333,7 +346,6 @@ function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { 
   cur.body = body
   cur.faceVertexStart = tri.faceVertexStart
   const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras }
-  const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
   return { value, buffers }
 }
 
@@ -372,22 +384,12 @@ const api: EngineApi = {
       )
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
-      const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel)
-      const edges = buildFeatureEdges(mesh.coords, faces)
-      const surface: SurfaceBuffers = {
-        positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
-        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
-      }
-      const extras = loadExtras(model, faces, nodalDisplayStress(input.stress), tri.scalars, edges.nodes)
+      const { tri, surface, extras, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, patches, input.stress)
       clock.mark('')
       const summary: ModelSummary = {
-        name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
-        nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
-        elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
-        warnings: [...model.warnings], source: sourceLabel(source),
+        ...figures, source: sourceLabel(source),
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
         ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
-        stressLayout: input.stress.layout,
         ...caseSummary(model, firstCaseName(model), []),
       }
       // Only now, with everything computed, does the new model replace the old one.
@@ -397,7 +399,6 @@ const api: EngineApi = {
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras }
-      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value }, buffers)
     } catch (e) {
       const error = toAppError(e)

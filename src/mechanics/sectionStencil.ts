@@ -25,8 +25,7 @@ import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { ZERO_FREE_BODY } from './freeBody.ts'
-import { createSectionPoints } from './elementSection.ts'
-import { polygonPoints } from './elementSection.ts'
+import { createSectionPoints, growFloat, growInt, polygonPoints } from './elementSection.ts'
 import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } from './inverseMap.ts'
 import { checkPoint, unitNormal } from './plane.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
@@ -358,16 +357,4 @@ export function stencilRecord(s: SectionStencil, ints: Float64Array, g: number):
   }
   const r = sectionRecord(acc, 0, s.point, s.normal, s.frame, g === 0 ? s.about : null, ZERO_FREE_BODY, 0, s.axes)
   return { ...r, cutElements: s.cutElements[g], limited: s.limited, freeBodyDefined: false }
-}
-
-function growInt(a: Int32Array, n: number): Int32Array {
-  const b = new Int32Array(n)
-  b.set(a)
-  return b
-}
-
-function growFloat(a: Float64Array, n: number): Float64Array {
-  const b = new Float64Array(n)
-  b.set(a)
-  return b
 }

@@ -100,6 +100,6 @@ describe('element-nodal stress through the element-node index', () => {
     expect(sameBits(b.tractions.force, a.tractions.force)).toBe(true)
     expect(b.bodyBalance).toEqual(a.bodyBalance)
     expect(b.loadPatches).toEqual(a.loadPatches)
-    expect(() => runAnalysis({ mesh, stress: elementNodal, bodyForce })).toThrow(/element-nodal stress has no nodal display values yet/)
+    expect(() => runAnalysis({ mesh, stress: elementNodal, bodyForce })).toThrow(/element-nodal stress needs its mesh to be averaged to nodes/)
   })
 })
