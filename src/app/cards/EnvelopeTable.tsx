@@ -4,6 +4,8 @@ import type { CaseResultant, EnvelopeEntry, ResultantEnvelope } from '../../../w
 import { noiseFloor } from '../../model/roundingNoise.ts'
 import { unitLabel } from '../format.ts'
 import './loadCases.css'
+import { download, fileStem } from '../exports.ts'
+import { envelopeCsv, envelopeJson } from '../envelopeExport.ts'
 
 /** The six components of a resultant in section axes: label, unit kind, how to read it from an envelope and from a case. */
 export const ENVELOPE_COMPONENTS: readonly { key: string; label: string; q: 'force' | 'moment'; env: (e: ResultantEnvelope) => EnvelopeEntry; of: (c: CaseResultant) => number }[] = [
@@ -73,6 +75,7 @@ export function EnvelopeSection() {
   const user = useStore((s) => s.userCombinations)
   const setOpen = useStore((s) => s.setEnvelopeOpen)
   const setOnly = useStore((s) => s.setEnvelopeCombinationsOnly)
+  const system = useStore((s) => s.units)
   const count = (model?.cases?.length ?? 1) + (model?.combinations?.length ?? 0) + user.length
   if (!model || count < 2) return null
   const combos = (model.combinations?.length ?? 0) + user.length
@@ -100,6 +103,12 @@ export function EnvelopeSection() {
                 </div>
               ) : null) : null}
             </>
+          ) : null}
+          {reply && reply.envelope && model ? (
+            <div className="row">
+              <button type="button" data-testid="export-envelope-csv" onClick={() => download(`${fileStem(model.name)}-envelope.csv`, envelopeCsv(reply, model, system), 'text/csv')}>Envelope CSV</button>
+              <button type="button" data-testid="export-envelope-json" onClick={() => download(`${fileStem(model.name)}-envelope.json`, envelopeJson(reply, model, system), 'application/json')}>Envelope JSON</button>
+            </div>
           ) : reply && !reply.envelope ? <p className="note">Nothing to envelope here (the plane misses the body, or there are no combinations).</p> : !error ? <p className="note">computing…</p> : null}
         </>
       ) : null}
