@@ -10,6 +10,7 @@
 import type { StateCreator } from 'zustand'
 import type { Combination, EnvelopeReply, LoadedModel, ModelSummary } from '../../workers/protocol.ts'
 import { shapeOfLoad } from './shapeSlice.ts'
+import { describeFactors } from '../model/loadCases.ts'
 import type { TractusState } from './store.ts'
 
 export interface CaseSlice {
@@ -54,13 +55,8 @@ export function pickableCases(summary: ModelSummary | null, user: readonly Combi
   ]
 }
 
-/** "1.35 × dead + 1.5 × imposed" */
-export function factorsText(c: Combination): string {
-  return Object.entries(c.factors).map(([k, f], i) => {
-    const s = `${Math.abs(f)} × ${k}`
-    return i === 0 ? (f < 0 ? `−${s}` : s) : `${f < 0 ? '−' : '+'} ${s}`
-  }).join(' ')
-}
+/** "1.35 × dead + 1.5 × imposed" (the model's own wording, src/model/loadCases.ts). */
+export const factorsText = describeFactors
 
 export const createCaseSlice: StateCreator<TractusState, [], [], CaseSlice> = (set, get) => ({
   caseName: null,
