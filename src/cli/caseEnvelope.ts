@@ -16,7 +16,7 @@ import { combinationsOnly } from './caseOption.ts'
 import { regionsJson, sectionJson, sectionLimitOf, sectionText, meshSize } from './cut.ts'
 import type { Model, Vec3 } from '../model/model.ts'
 import { caseNames, casesOf, combinationsOf, modelForCase } from '../model/loadCases.ts'
-import { nodalStressField } from '../model/stressField.ts'
+import { modelStressField, nodalStressField } from '../model/stressField.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
 import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
 import { sectionEnvelope } from '../mechanics/sectionEnvelope.ts'
@@ -71,7 +71,7 @@ export function cutAllCases(loaded: LoadedModel, args: ParsedArgs, io: CliIO, pl
   const results = caseNames(model).map((name) => {
     const m = modelForCase(model, name)
     const bf = given ?? m.bodyForce
-    return { name, bf, r: cutSection(m.mesh, nodalStressField(m.mesh, m.stress), bf, plane, { about, polygons: false, regions: true, limit, axes }).result }
+    return { name, bf, r: cutSection(m.mesh, modelStressField(m), bf, plane, { about, polygons: false, regions: true, limit, axes }).result }
   })
   const env = modelEnvelope(model, plane, { about, axes, limit, combinationsOnly: only })
   if (args.options.json) {
