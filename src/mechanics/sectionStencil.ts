@@ -285,21 +285,23 @@ export function compileStencil(s: SectionStencil, mesh: Mesh, field: StressField
         w[3 * e] += W[o]; w[3 * e + 1] += W[o + 1]; w[3 * e + 2] += W[o + 2]
       }
     }
-    sortEntries(row, w, from, k)
+    sortEntries(row, w, from, k, slot)
   }
   start[records] = k
   return { records, start, row: row.slice(0, k), w: w.slice(0, 3 * k), rows: field.rows }
 }
 
-/** Sorts entries [from, to) by row (memory order of the stress values), weights alongside. */
-function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number): void {
+/**
+ * Sorts entries [from, to) by row (memory order of the stress values), weights alongside, by a
+ * native sort of the rows and the rows' entry numbers in `slot` (valid for this record).
+ */
+function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number, slot: Int32Array): void {
   const n = to - from
   if (n < 2) return
-  const idx = Array.from({ length: n }, (_, i) => from + i).sort((x, y) => row[x] - row[y])
-  const r2 = row.slice(from, to), w2 = w.slice(3 * from, 3 * to)
+  const rows = row.slice(from, to).sort(), w2 = w.slice(3 * from, 3 * to)
   for (let i = 0; i < n; i++) {
-    const j = idx[i] - from
-    row[from + i] = r2[j]
+    const r = rows[i], j = slot[r] - from
+    row[from + i] = r
     w[3 * (from + i)] = w2[3 * j]; w[3 * (from + i) + 1] = w2[3 * j + 1]; w[3 * (from + i) + 2] = w2[3 * j + 2]
   }
 }
