@@ -10,9 +10,9 @@ import type { ReadModel } from '../src/io/intakeReport.ts'
 import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { analysisInputOf, displayStressOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
-import type { AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
+import type { AnalysisInput, AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
-import { modelStressField } from '../src/model/stressField.ts'
+import { modelStressField, nodalStressField } from '../src/model/stressField.ts'
 import { allocateStressJump, computeStressJump } from '../src/mechanics/stressJump.ts'
 import { extentAlong, sweepAlong, sweepTransfer } from './sweep.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
@@ -44,6 +44,12 @@ import { buildElementGrid } from '../src/mechanics/elementGrid.ts'
 import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
+import { casesOf, combinationsOf, findCase, firstCaseName, modelForCase } from '../src/model/loadCases.ts'
+import type { Combination } from '../src/model/loadCases.ts'
+import { sectionEnvelope } from '../src/mechanics/sectionEnvelope.ts'
+import { runAnalysis } from '../src/mechanics/analysisPipeline.ts'
+import type { NodalInvariants, SectionResult } from '../src/mechanics/types.ts'
+import type { AssemblySummary, CaseResultant, EnvelopeReply, EnvelopeRequest } from './protocol.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
@@ -52,6 +58,9 @@ import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
 interface Loaded {
   model: Model
+  // --- load cases: the model as read (every case), and the case shown ---
+  base: Model
+  shownCase: string
   faces: BoundaryFaces
   tractions: SurfaceTractions
   polygons: SectionPolygons | null
@@ -262,6 +271,90 @@ function checkedAxes(m: Vec3, axes: SectionAxesChoice | undefined): { axes: Sect
   }
 }
 
+/**
+ * What every analysed case sends: the surface triangles with their scalars, the feature edges,
+ * the extras, the summary's figures of the mesh and the case, and the buffers to transfer.
+ */
+function pictureOf(
+  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, patches: LoadPatches, input: AnalysisInput,
+): { tri: ReturnType<typeof buildSurfaceTriangles>; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+  const mesh = model.mesh, stress = input.stress
+  // --- element-nodal: the stress jump, scaled by the reference stress of the patch rule ---
+  const jump = stress.layout === 'nodal' ? null : computeStressJump(allocateStressJump(mesh.nodeCount), mesh, stress, patches.referenceStress)
+  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
+  const edges = buildFeatureEdges(mesh.coords, faces)
+  // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
+  const assembly = loadAssembly(model, stress, faces, tri.index, tri.triangleFace, tri.faceVertexStart)
+  const surface: SurfaceBuffers = {
+    positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
+    ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
+  }
+  const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
+  const summary = {
+    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
+    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
+    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
+    warnings: [...model.warnings], stressLayout: stress.layout,
+  }
+  const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
+    ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
+  return { tri, surface, extras, assembly, summary, buffers }
+}
+
+// --- load cases ---
+
+/** The model with the app's own combinations after its own (the app's replace its own of the same name). */
+function withCombinations(model: Model, extra: readonly Combination[]): Model {
+  if (extra.length === 0) return model
+  const own = combinationsOf(model).filter((c) => !extra.some((x) => x.name.toLowerCase() === c.name.toLowerCase()))
+  return { ...model, combinations: [...own, ...extra] }
+}
+
+/** The name of case or combination `name` as the model spells it. */
+function findCaseName(model: Model, name: string): string {
+  const r = findCase(model, name)
+  return r.kind === 'case' ? r.case.name : r.combination.name
+}
+
+/** What the summary says about the cases: the list, the model's combinations and the case shown. */
+function caseSummary(model: Model, shown: string, _extra: readonly Combination[]): Pick<ModelSummary, 'cases' | 'combinations' | 'shownCase'> {
+  return {
+    cases: casesOf(model).map((c) => ({ name: c.name, description: c.description, bodyForce: c.bodyForce ?? model.bodyForce, displacement: c.displacement !== null })),
+    combinations: combinationsOf(model).map((c) => ({ name: c.name, factors: { ...c.factors } })),
+    shownCase: shown,
+  }
+}
+
+/**
+ * The analysis of another case on the loaded mesh: the pipeline with the boundary faces kept
+ * (they do not depend on the case), the surface's scalars and the extras again; `current` then
+ * holds the case's fields. One thread: a switch runs no pool (its hand-over would cost more
+ * than the balance it saves on the sizes where a switch must stay under a second).
+ */
+function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { value: LoadedModel; buffers: ArrayBuffer[] } {
+  const clock = stageClock()
+  const mesh = model.mesh
+  const input = analysisInputOf(model)
+  clock.mark('case')
+  const { tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = runAnalysis(
+    input, { balancePrecision: 'single', faces: cur.faces, ...(rule ? { loadPatches: rule } : {}) },
+  )
+  clock.mark('surfaceBuffers')
+  const { tri, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, cur.faces, tractions, invariants, balance, patches, input)
+  clock.mark('')
+  const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: 0, sharing: 'none' } }
+  cur.model = model
+  cur.tractions = tractions
+  cur.polygons = null
+  cur.polygonDisplacement = null
+  cur.vonMises = invariants.vonMises
+  cur.balance = balance
+  cur.body = body
+  cur.faceVertexStart = tri.faceVertexStart
+  const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
+  return { value, buffers }
+}
+
 const api: EngineApi = {
   configure(options: ComputeOptions) {
     computeOptions = options
@@ -297,37 +390,23 @@ const api: EngineApi = {
       )
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
-      // --- element-nodal: the stress jump, scaled by the reference stress of the patch rule ---
-      const jump = input.stress.layout === 'nodal' ? null : computeStressJump(allocateStressJump(mesh.nodeCount), mesh, input.stress, patches.referenceStress)
-      const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
-      const edges = buildFeatureEdges(mesh.coords, faces)
-      // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
-      const assembly = loadAssembly(model, input.stress, faces, tri.index, tri.triangleFace, tri.faceVertexStart)
-      const surface: SurfaceBuffers = {
-        positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
-        ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
-      }
-      const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
+      const { tri, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, patches, input)
       clock.mark('')
       const summary: ModelSummary = {
-        name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
-        nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
-        elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
-        warnings: [...model.warnings], source: sourceLabel(source),
+        ...figures, source: sourceLabel(source),
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
         ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
         stressLayout: input.stress.layout,
         unitsDeclared: (model as Partial<ReadModel>).intake?.unitsDeclared ?? true,
+        ...caseSummary(model, firstCaseName(model), []),
       }
       // Only now, with everything computed, does the new model replace the old one.
       current = {
-        model, faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
+        model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
         vonMises: invariants.vonMises, balance, body, faceVertexStart: tri.faceVertexStart,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
-      const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
-        ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
       return Comlink.transfer({ ok: true, value }, buffers)
     } catch (e) {
       const error = toAppError(e)
@@ -458,6 +537,50 @@ const api: EngineApi = {
     if (!current) return null
     const grid = current.grid ?? (current.grid = buildElementGrid(current.model.mesh))
     return lineThroughWall(current.model.mesh, grid, from, to)
+  },
+
+  // --- load cases ---
+  async showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<LoadedModel>> {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    try {
+      const base = withCombinations(current.base, combinations)
+      const model = modelForCase(base, name)
+      const reply = analyseCase(current, model, rule)
+      current.shownCase = findCaseName(base, name)
+      const value: LoadedModel = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase, combinations) } }
+      return Comlink.transfer({ ok: true as const, value }, reply.buffers)
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
+  },
+
+  async envelope(plane: SectionPlane, request: EnvelopeRequest): Promise<Outcome<EnvelopeReply>> {
+    if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    const started = performance.now()
+    try {
+      const base = withCombinations(current.base, request.combinations)
+      const n = Math.hypot(...plane.normal)
+      const { axes } = checkedAxes([plane.normal[0] / n, plane.normal[1] / n, plane.normal[2] / n], request.axes)
+      const cases = casesOf(base).map((c) => ({ name: c.name, field: c.stressField ?? nodalStressField(base.mesh, c.stress) }))
+      const env = sectionEnvelope(base.mesh, cases, combinationsOf(base), plane, { regions: true, axes, combinationsOnly: request.combinationsOnly })
+      const resultant = (name: string, kind: 'case' | 'combination', r: SectionResult): CaseResultant => ({ name, kind, axial: r.axial, shear: r.shear, torque: r.torque, bending: r.bending })
+      const first = env.cases[0].section
+      const value: EnvelopeReply = {
+        plane, combinationsOnly: env.combinationsOnly,
+        cases: env.cases.map((c) => resultant(c.name, c.kind, c.section)),
+        envelope: first.empty ? null : env.envelope,
+        regions: env.regions.map((g, i) => ({ ...g, cases: env.cases.map((c) => resultant(c.name, c.kind, c.regions[i])) })),
+        axes: { e1: first.axes.e1, e2: first.axes.e2, e3: first.axes.e3, kind: first.axes.kind },
+        computeMs: performance.now() - started,
+      }
+      return { ok: true, value }
+    } catch (e) {
+      const error = toAppError(e)
+      if (error) return { ok: false, error }
+      throw e
+    }
   },
 
   dispose() {

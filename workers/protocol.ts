@@ -22,6 +22,8 @@ import type { EquivalentCriterion, Linearisation } from '../src/mechanics/linear
 import type { ScalarExtremes } from '../src/mechanics/scalarExtremes.ts'
 import type { SectionAxesChoice, SectionAxesKind } from '../src/mechanics/sectionAxes.ts'
 import type { InterfaceRecord, PartRecord } from '../src/mechanics/partBalance.ts'
+import type { Combination } from '../src/model/loadCases.ts'
+import type { EnvelopeEntry, ResultantEnvelope } from '../src/mechanics/sectionEnvelope.ts'
 
 export type { ArrowMode, Plane, SectionAxesChoice, SectionAxesKind, SurfaceQuantity, Vec3 }
 export type { ComponentAxes, ComponentQuantity, EquivalentCriterion, Linearisation, ScalarExtremes }
@@ -64,6 +66,12 @@ export interface ModelSummary {
   // --- intake ---
   /** False when the files declare no units (or only one): the top bar and the model card say so. */
   readonly unitsDeclared?: boolean
+  // --- load cases ---
+  /** The model's load cases in order (one, `default`, for a model without cases) and its combinations. */
+  readonly cases?: readonly CaseInfo[]
+  readonly combinations?: readonly Combination[]
+  /** The case or combination whose fields everything shows. */
+  readonly shownCase?: string
 }
 
 /**
@@ -383,6 +391,14 @@ export interface EngineApi {
   line(req: LineRequest): Promise<Outcome<LineReply>>
   /** The line along from → to moved to where it enters and leaves the material; null when it misses the body. */
   lineThroughWall(from: Vec3, to: Vec3): Promise<{ readonly from: Vec3; readonly to: Vec3 } | null>
+  // --- load cases ---
+  /**
+   * Shows case or combination `name` (the model's combinations and the app's own `combinations`):
+   * the analysis again on its fields, the mesh's boundary faces kept. The reply is a load's.
+   */
+  showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<LoadedModel>>
+  /** Every case and combination of the section `plane`, and their envelope (section and regions). */
+  envelope(plane: Plane, request: EnvelopeRequest): Promise<Outcome<EnvelopeReply>>
   /**
    * Present only in the end-to-end build (`vite build --mode e2e`): throws an unexpected
    * (non-input) error, or fails an allocation, inside the worker, so the browser tests can check
@@ -511,4 +527,51 @@ export interface AssemblySummary {
   readonly vertexPart: Float32Array
   readonly interfacePositions: Float32Array
   readonly interfaceTriangles: Int32Array
+}
+
+// --- load cases ---
+
+export type { Combination }
+export type { EnvelopeEntry, ResultantEnvelope }
+
+/** One load case as the app lists it: name, description, ρb (stress / length) and whether it has a displacement. */
+export interface CaseInfo {
+  readonly name: string
+  readonly description: string
+  readonly bodyForce: Vec3
+  readonly displacement: boolean
+}
+
+/** What the envelope of a section ranges over: the app's own combinations too, and whether over combinations only. */
+export interface EnvelopeRequest {
+  readonly combinations: readonly Combination[]
+  readonly combinationsOnly: boolean
+  readonly axes?: SectionAxesChoice
+}
+
+/** One case's (or combination's) resultant of the section in section axes: force S·L², moment S·L³ about the centroid. */
+export interface CaseResultant {
+  readonly name: string
+  readonly kind: 'case' | 'combination'
+  readonly axial: number
+  readonly shear: readonly [number, number]
+  readonly torque: number
+  readonly bending: readonly [number, number]
+}
+
+/**
+ * The envelope of a section (src/mechanics/sectionEnvelope.ts): every case and combination, then
+ * per component the largest and smallest value and the case that governs each; per region
+ * (largest area first) its area (L²), centroid (L), parts and envelope. `envelope` is null when
+ * the plane misses the body or there is nothing to envelope.
+ */
+export interface EnvelopeReply {
+  readonly plane: Plane
+  readonly combinationsOnly: boolean
+  readonly cases: readonly CaseResultant[]
+  readonly envelope: ResultantEnvelope | null
+  readonly regions: readonly { readonly area: number; readonly centroid: Vec3; readonly parts: readonly number[]; readonly envelope: ResultantEnvelope | null; readonly cases: readonly CaseResultant[] }[]
+  readonly axes: { readonly e1: Vec3; readonly e2: Vec3; readonly e3: Vec3; readonly kind: SectionAxesKind }
+  /** Time the engine spent (ms). */
+  readonly computeMs: number
 }

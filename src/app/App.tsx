@@ -14,6 +14,7 @@ import { useStore } from '../state/store.ts'
 import { FileIntake } from './ui/FileIntake.tsx'
 import { IntakeStep } from './ui/IntakeStep.tsx'
 import { CutCard } from './cards/CutCard.tsx'
+import { CombinationCard } from './cards/CombinationCard.tsx'
 import { EquilibriumCard } from './cards/EquilibriumCard.tsx'
 import { LoadEntryCard } from './cards/LoadEntryCard.tsx'
 import { ProbeCard } from './cards/ProbeCard.tsx'
@@ -79,6 +80,7 @@ export function App() {
         <ErrorCard />
         <NoticeCard />
         <ModelCard />
+        <CombinationCard />
         <CutCard />
         <PartsCard />
         <InterfacesCard />

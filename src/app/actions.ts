@@ -137,6 +137,9 @@ export function currentViewLink(): ViewLink {
     model, quantity: st.quantity, range: st.range, colourMap: st.colourMap, units: st.unitPreset === 'model' ? 'model' : st.units,
     section: st.section.enabled ? { ...st.section } : undefined,
     camera: st.camera ?? undefined,
+    // --- load cases ---
+    ...(st.caseName && st.model?.cases && st.caseName !== st.model.cases[0]?.name ? { loadCase: st.caseName } : {}),
+    ...(st.userCombinations.length ? { combinations: [...st.userCombinations] } : {}),
   }
 }
 
@@ -156,6 +159,9 @@ function applyView(v: ViewLink): void {
   const st = useStore.getState()
   if (v.range) st.setRange(v.range)
   if (v.section) st.setSection(v.section)
+  // --- load cases: the app's own combinations first, then the case they may name ---
+  if (v.combinations) st.setUserCombinations(v.combinations)
+  if (v.loadCase) st.chooseCase(v.loadCase)
   // The scene fits every new model in the render that shows it; asking for the linked camera a
   // moment later lands after that fit instead of being replaced by it.
   const cam = v.camera
@@ -282,7 +288,7 @@ export function startHashSync(): () => void {
   }
   const unsub = useStore.subscribe((s, p) => {
     if (s.quantity !== p.quantity || s.range !== p.range || s.colourMap !== p.colourMap || s.units !== p.units ||
-        s.section !== p.section || s.camera !== p.camera || s.model !== p.model) {
+        s.section !== p.section || s.camera !== p.camera || s.model !== p.model || s.caseName !== p.caseName || s.userCombinations !== p.userCombinations) {
       if (timer) clearTimeout(timer)
       timer = setTimeout(write, 250)
     }

@@ -195,6 +195,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     dragStartGate = false
     probeInFlight = false
     shownKey = ''
+    caseInFlight = false; caseAgain = false; envelopeInFlight = false; envelopeAgain = false
   }
 
   async function recover(error: AppError): Promise<void> {
@@ -423,8 +424,79 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       })
   }
 
+  // ---- Load cases: the latest choice wins; the section, the arrows, the line and the sweep follow. ----
+  let caseInFlight = false, caseAgain = false, envelopeInFlight = false, envelopeAgain = false
+
+  /** Asks the engine for the store's case (when it is not the one shown, or its factors changed). */
+  function runCase(): void {
+    const st = store.getState()
+    if (!st.model || !st.caseName) return
+    if (caseInFlight) { caseAgain = true; return }
+    caseInFlight = true
+    st.caseStarted()
+    const gen = generation
+    const name = st.caseName, combos = st.userCombinations, asked = performance.now()
+    enqueue((calls) => calls.showCase(name, combos, st.patchRule))
+      .then((out) => {
+        if (gen !== generation) return
+        const now = store.getState()
+        if (!out.ok) { now.caseShown(null); now.showError(out.error); return }
+        now.caseShown(out.value)
+        if (typeof performance.measure === 'function') performance.measure('tractus:case', { start: asked })
+        shownKey = ''
+        void refreshSurfaceArrows()
+        requestCut()
+        runComponents()
+        if (now.line.from && now.line.to) runLine()
+        const sw = now.sweep
+        if (sw && sw.offsets.length > 0) {
+          now.sweepStarted()
+          void sweep(sw.normal, sw.offsets.length, sw.offsets[0], sw.offsets[sw.offsets.length - 1], now.sectionAxes).then((r) => {
+            if (gen === generation) store.getState().sweepEnded(r && r.ok ? r.value : null)
+          })
+        }
+      })
+      .catch((e) => { if (gen === generation) { store.getState().caseShown(null); store.getState().showError({ message: `The load case could not be shown: ${e instanceof Error ? e.message : String(e)}` }) } })
+      .finally(() => {
+        if (gen !== generation) return
+        caseInFlight = false
+        if (caseAgain) { caseAgain = false; runCase() }
+      })
+  }
+
+  /** The envelope of the section on screen over every case and combination (when the cut card shows it). */
+  function runEnvelope(): void {
+    const st = store.getState()
+    if (!st.model || !st.envelopeOpen || !st.section.enabled || st.section.dragging) return
+    if (envelopeInFlight) { envelopeAgain = true; return }
+    envelopeInFlight = true
+    const gen = generation
+    const plane = sectionPlaneOf(st.section)
+    enqueue((calls) => calls.envelope(plane, { combinations: st.userCombinations, combinationsOnly: st.envelopeCombinationsOnly, axes: st.sectionAxes }))
+      .then((out) => {
+        if (gen !== generation) return
+        if (out.ok) store.getState().envelopeShown(out.value)
+        else store.getState().envelopeShown(null, out.error.message)
+      })
+      .catch((e) => { if (gen === generation) store.getState().envelopeShown(null, `The envelope could not be computed: ${e instanceof Error ? e.message : String(e)}`) })
+      .finally(() => {
+        if (gen !== generation) return
+        envelopeInFlight = false
+        if (envelopeAgain) { envelopeAgain = false; runEnvelope() }
+      })
+  }
+
   function watch(): () => void {
     return store.subscribe((s, p) => {
+      // --- load cases ---
+      if (s.model && s.caseName && (s.caseName !== p.caseName || s.userCombinations !== p.userCombinations)) {
+        const user = s.userCombinations.find((c) => c.name.toLowerCase() === s.caseName!.toLowerCase())
+        const changed = user !== p.userCombinations.find((c) => c.name.toLowerCase() === s.caseName!.toLowerCase())
+        if (s.caseName !== s.model.shownCase || (user && changed)) runCase()
+      }
+      if (s.envelopeOpen && (s.envelopeOpen !== p.envelopeOpen || s.envelopeCombinationsOnly !== p.envelopeCombinationsOnly ||
+          s.userCombinations !== p.userCombinations || s.sectionAxes !== p.sectionAxes || s.model !== p.model && s.model?.source !== p.model?.source ||
+          (s.section !== p.section && !s.section.dragging && (s.section.point !== p.section.point || s.section.normal !== p.section.normal || s.section.offset !== p.section.offset || s.section.enabled !== p.section.enabled || p.section.dragging)))) runEnvelope()
       if (s.componentAxes !== p.componentAxes) runComponents()
       if (s.line !== p.line || (s.componentAxes !== p.componentAxes && s.line.from && s.line.to)) runLine()
       if (s.section !== p.section) {

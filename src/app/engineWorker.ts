@@ -30,6 +30,9 @@ export function startEngineWorker(onFailure: (message: string) => void): EngineC
     components: (axes) => remote.components(axes),
     line: (req) => remote.line(req),
     lineThroughWall: (from, to) => remote.lineThroughWall(from, to),
+    // --- load cases ---
+    showCase: (name, combinations, rule) => remote.showCase(name, combinations, rule),
+    envelope: (plane, request) => remote.envelope(plane, request),
     dispose: () => remote.dispose(),
     // The end-to-end build only; the release build drops it (see workers/engine.worker.ts).
     ...(import.meta.env.MODE === 'e2e' ? { crash: (kind: CrashKind) => remote.crash(kind) } : {}),

@@ -32,6 +32,7 @@ export async function buildReportHtml(): Promise<string> {
   const content = buildReportContent({
     model: st.model, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
     section: st.section.enabled ? st.sectionResult : null, sweep: st.sweep, shown: st.sweepShown, snapshot,
+    envelope: st.section.enabled && st.envelopeOpen ? st.envelope : null,
     line: st.lineResult, lineShown: st.lineSeries,
     review: st.review, version: TOOL_VERSION, assembly: st.assembly,
   })

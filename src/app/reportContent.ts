@@ -16,6 +16,8 @@ import type { LineSeries } from '../state/lineSlice.ts'
 import { frameNote, linearisationTables, linePointTable, lineSeries, lineSeriesValues } from './lineExport.ts'
 import { LINEARISATION_CAUTION, LINEARISATION_METHOD } from '../mechanics/linearisation.ts'
 import type { ReviewFields } from '../state/store.ts'
+import { concurrentRows, envelopeRows, shownValue } from './envelopeExport.ts'
+import type { EnvelopeReply } from '../../workers/protocol.ts'
 import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
 import { interfaceTable, loadPathTable, partTable, regionTable } from './assemblyTables.ts'
 import type { AssemblySummary } from '../../workers/protocol.ts'
@@ -78,6 +80,8 @@ export interface ReportInput {
   readonly review?: ReviewFields
   /** The tool's version (package.json). */
   readonly version?: string
+  // --- load cases: the section's envelope over the cases, when the cut card shows it ---
+  readonly envelope?: EnvelopeReply | null
 }
 
 const PNG_DATA_URL = /^data:image\/png;base64,[A-Za-z0-9+/]+=*$/
@@ -172,6 +176,23 @@ function sectionTable(r: SectionResult, input: ReportInput): ReportTable {
       ...sectionRows(r, input.model.units, input.system, size).map((x) => [x.label, fmt(x.shown), x.unit]),
     ],
   }
+}
+
+/** The section's envelope over the load cases: the extremes with their governing case, then each governing case's resultant. */
+function envelopeTables(e: EnvelopeReply, input: ReportInput): ReportTable[] {
+  const rows = envelopeRows(e, input.model, input.system)
+  const F = displayUnitLabel('force', input.system), M = displayUnitLabel('moment', input.system)
+  return [{
+    kind: 'table', id: 'envelope', heading: 'Envelope of the current section over the load cases',
+    note: `Over ${e.combinationsOnly ? 'the combinations only' : `every case and combination (${e.cases.map((c) => c.name).join(', ')})`}; section axes as for the current section, moments about its centroid.`,
+    head: ['Component', 'Extreme', 'Value', 'Unit', 'Governing case'],
+    rows: rows.map((r) => [r.label, r.side, shownValue(r), r.unit, r.governing ?? '—']),
+  }, {
+    kind: 'table', id: 'envelope-concurrent', heading: 'Concurrent values of the governing cases',
+    note: 'Each governing case\'s whole resultant in section axes.',
+    head: ['Case', `N [${F}]`, `V₁ [${F}]`, `V₂ [${F}]`, `T [${M}]`, `M₁ [${M}]`, `M₂ [${M}]`],
+    rows: concurrentRows(e, input.model, input.system).map((c) => [c.name, ...c.values.map((v) => fmt(v))]),
+  }]
 }
 
 function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
@@ -334,6 +355,7 @@ export function buildReportContent(input: ReportInput): ReportContent {
   }
   if (input.section) blocks.push(sectionTable(input.section, input))
   blocks.push(...assemblyBlocks(input))
+  if (input.envelope?.envelope) blocks.push(...envelopeTables(input.envelope, input))
   if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))
   if (input.line) blocks.push(...lineBlocks(input.line, input))
   return { title: `Review report: ${m.name || 'Unnamed model'}`, facts, caution: input.caution, blocks }

@@ -15,6 +15,7 @@ import type { Vec3 } from '../model/model.ts'
 import { COLOUR_MAP_NAMES, QUANTITY_NAMES } from '../state/store.ts'
 import type { CameraState, ColourMapName, ColourRange, QuantityName, SectionState } from '../state/store.ts'
 import type { UnitSystem } from '../model/units.ts'
+import type { Combination } from '../model/loadCases.ts'
 import { isForceUnit, isLengthUnit, isStressUnit } from '../model/units.ts'
 
 export interface ViewLink {
@@ -26,6 +27,31 @@ export interface ViewLink {
   units?: UnitSystem | 'model'
   section?: Pick<SectionState, 'point' | 'normal' | 'offset' | 'hide'> & { enabled: boolean }
   camera?: CameraState
+  // --- load cases: the case shown (lc=NAME) and the app's own combinations (combo=NAME~case:f,case:f|...) ---
+  loadCase?: string
+  combinations?: Combination[]
+}
+
+const CASE_TEXT = /^[A-Za-z0-9_-]{1,64}$/
+
+/** "NAME~case:f,case:f|NAME2~..." → combinations; anything malformed is left out (at most 20, 50 factors each). */
+function parseCombinations(s: string | null): Combination[] | undefined {
+  if (!s || s.length > 3000) return undefined
+  const out: Combination[] = []
+  for (const part of s.split('|').slice(0, 20)) {
+    const [name, list] = part.split('~')
+    if (!name || !CASE_TEXT.test(name) || !list) continue
+    const factors: Record<string, number> = {}
+    let ok = true
+    for (const f of list.split(',').slice(0, 50)) {
+      const [k, v] = f.split(':')
+      const x = Number(v)
+      if (!k || !CASE_TEXT.test(k) || v === undefined || v.trim() === '' || !Number.isFinite(x) || Math.abs(x) > LIMIT) { ok = false; break }
+      factors[k] = x
+    }
+    if (ok && Object.keys(factors).length > 0) out.push({ name, factors })
+  }
+  return out.length ? out : undefined
 }
 
 const LIMIT = 1e15
@@ -83,6 +109,10 @@ export function parseViewLink(hash: string): ViewLink {
       hide: hide === 'negative' || hide === 'none' || hide === 'positive' ? hide : 'auto',
     }
   }
+  const lc = params.get('lc')
+  if (lc && CASE_TEXT.test(lc)) out.loadCase = lc
+  const combos = parseCombinations(params.get('combo'))
+  if (combos) out.combinations = combos
   const cam = numbers(params.get('cam'), 10)
   if (cam && cam[9] > 1 && cam[9] < 170 && Math.hypot(cam[6], cam[7], cam[8]) > 0 &&
       Math.hypot(cam[0] - cam[3], cam[1] - cam[4], cam[2] - cam[5]) > 0) {
@@ -111,6 +141,8 @@ export function buildViewLink(v: ViewLink): string {
     p.set('cut', `${vec(v.section.point)},${vec(v.section.normal)},${num(v.section.offset)}`)
     p.set('hide', v.section.hide)
   }
+  if (v.loadCase) p.set('lc', v.loadCase)
+  if (v.combinations?.length) p.set('combo', v.combinations.map((c) => `${c.name}~${Object.entries(c.factors).map(([k, f]) => `${k}:${num(f)}`).join(',')}`).join('|'))
   if (v.camera) p.set('cam', `${vec(v.camera.position)},${vec(v.camera.target)},${vec(v.camera.up)},${num(v.camera.fov)}`)
   return '#' + p.toString().replace(/%2C/g, ',').replace(/%3A/g, ':').replace(/%2F/g, '/')
 }

@@ -6,6 +6,7 @@
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
 import { UsageError } from './args.ts'
+import { CASE_OPTION, caseModel } from './caseOption.ts'
 import { loadModel } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, table, vecJson, vecQty } from './format.ts'
@@ -18,10 +19,10 @@ import { meshSize } from './cut.ts'
 export const auditCommand: Command = {
   name: 'audit',
   summary: 'whole-body and element balance, load-entry patches and the free-surface residue',
-  usage: 'tractus audit <model> [--json] [--units si|us] [--body-force bx,by,bz] [--threshold f] [--lower-threshold f] [--feature-angle deg] [--worst n]',
+  usage: 'tractus audit <model> [--case NAME] [--json] [--units si|us] [--body-force bx,by,bz] [--threshold f] [--lower-threshold f] [--feature-angle deg] [--worst n]',
   positionals: ['<model>'],
   options: [
-    JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION,
+    CASE_OPTION, JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION,
     { name: 'threshold', kind: 'number', value: 'f', help: `a boundary face starts a load-entry patch when its mean |t| exceeds f times the reference stress (the 95th percentile of nodal von Mises stress); default ${LOAD_PATCH_DEFAULTS.threshold}` },
     { name: 'lower-threshold', kind: 'number', value: 'f', help: `a face may join a patch it touches when its mean |t| exceeds f times the reference stress (at most --threshold); default ${LOAD_PATCH_DEFAULTS.lowerThreshold}` },
     { name: 'feature-angle', kind: 'number', value: 'deg', help: `patches split where the normals of neighbouring faces differ by more than this angle, in degrees (0 to 180); default ${LOAD_PATCH_DEFAULTS.featureAngle}` },
@@ -36,7 +37,7 @@ export const auditCommand: Command = {
   ].join('\n'),
   run(args, io) {
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
+    const { model } = caseModel(loaded.model, args, 'audit')
     const { mesh } = model
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)

@@ -6,6 +6,7 @@ import { mkdirSync, writeFileSync } from 'node:fs'
 import { extname, join } from 'node:path'
 import type { Command } from './command.ts'
 import { HELP_OPTION, JSON_OPTION, printJson } from './command.ts'
+import { CASE_OPTION, caseModel } from './caseOption.ts'
 import { loadModel, NATIVE_EXTENSION } from './loadModel.ts'
 import { InputError } from '../model/errors.ts'
 import { writeCsvBundle, writeNative } from '../io/index.ts'
@@ -13,17 +14,20 @@ import { writeCsvBundle, writeNative } from '../io/index.ts'
 export const convertCommand: Command = {
   name: 'convert',
   summary: `CSV bundle to the native ${NATIVE_EXTENSION} container (or back, when --out is a folder)`,
-  usage: `tractus convert <model> --out <file${NATIVE_EXTENSION}|folder> [--json]`,
+  usage: `tractus convert <model> --out <file${NATIVE_EXTENSION}|folder> [--case NAME] [--json]`,
   positionals: ['<model>'],
   options: [
     { name: 'out', kind: 'string', value: `file${NATIVE_EXTENSION}|folder`, required: true, help: `where to write: a ${NATIVE_EXTENSION} file, or a folder for a CSV bundle` },
-    JSON_OPTION, HELP_OPTION,
+    CASE_OPTION, JSON_OPTION, HELP_OPTION,
   ],
-  details: `The model is read and checked completely before anything is written. An existing output file is replaced. --json prints {"file", "format", "bytes", "nodes", "elements"} of what was written.`,
+  details: `The model is read and checked completely before anything is written. Every load case and combination is written (container: one field per case; bundle: stress.NAME.csv and model.json "cases"); --case NAME writes that case or combination alone. An existing output file is replaced. --json prints {"file", "format", "bytes", "nodes", "elements"} of what was written.`,
   run(args, io) {
     const out = args.options.out as string
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
+    const picked = caseModel(loaded.model, args, 'convert').model
+    // --case writes that case (or combination) alone, as a model of one field; without it every case goes
+    const { cases: _c, combinations: _k, ...single } = picked
+    const model = args.options.case === undefined ? picked : single
     let bytes = 0
     let format: 'native' | 'bundle'
     try {

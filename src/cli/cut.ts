@@ -6,6 +6,8 @@
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, vecOption } from './command.ts'
 import { loadModel } from './loadModel.ts'
+import { CASE_ALL_OPTION, COMBINATIONS_ONLY_OPTION, allCases, caseModel } from './caseOption.ts'
+import { cutAllCases } from './caseEnvelope.ts'
 import { makePlane } from '../mechanics/plane.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
@@ -133,19 +135,20 @@ export function sectionJson(r: SectionResult, u: UnitView): Record<string, unkno
 export const cutCommand: Command = {
   name: 'cut',
   summary: 'force and moment across a section plane, in global and section axes',
-  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--reference rx,ry,rz] [--parts a,b] [--within x,y,z,r] [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus cut <model> --point x,y,z --normal nx,ny,nz [--about x,y,z] [--reference rx,ry,rz] [--parts a,b] [--within x,y,z,r] [--case NAME|all [--combinations-only]] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
   options: [
     { name: 'point', kind: 'vec3', value: 'x,y,z', required: true, help: 'a point on the plane (model length units)' },
     { name: 'normal', kind: 'vec3', value: 'nx,ny,nz', required: true, help: 'plane normal m (any length, not zero)' },
     { name: 'about', kind: 'vec3', value: 'x,y,z', help: 'moment reference point (model length units); the section centroid by default' },
-    PARTS_OPTION, WITHIN_OPTION, REFERENCE_OPTION,
+    PARTS_OPTION, WITHIN_OPTION, REFERENCE_OPTION, CASE_ALL_OPTION, COMBINATIONS_ONLY_OPTION,
     JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION,
   ],
   details: [
     'The resultant is what the material on the +m side exerts on the material on the -m side: F = ∫σm dA, M = ∫(x - about) × σm dA.',
     SECTION_AXES_DETAILS,
     'Regions: the section split into connected regions (neighbouring cut elements of one part), each with its area, centroid, force and moment about its own centroid, largest force first. With --parts and/or --within the top-level figures are those of the selected polygons only. With --parts alone the free body is that of the selected parts\' piece on the -m side, its boundary including its faces against other parts; with --within it is not defined.',
+    'Load cases: --case NAME cuts one case or combination (the first case by default). --case all cuts every case and combination and adds their envelope: for the section and each region (largest area first), each component in section axes with its largest and smallest value and the case that governs each; --combinations-only envelopes the combinations alone. --json then prints {"cases": [{"case": NAME, ...the fields of one cut...}], "envelope": {"axial": {"max", "maxCase", "min", "minCase"}, "torque": {...}, "shear": [{...}, {...}], "bending": [{...}, {...}], "regions": [{"area", "centroid", "parts", "axial", ...}]}}. With --body-force every case takes that ρb.',
     'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is its force over that piece\'s gross load, "momentRelative" its moment about the section centroid over the gross load times the diagonal of the piece\'s bounding box.',
   ].join('\n'),
   run(args, io) {
@@ -153,7 +156,8 @@ export const cutCommand: Command = {
     const about = vecOption(args, 'about')
     const axes = axesOption(args, plane.normal)
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
+    if (allCases(args)) return cutAllCases(loaded, args, io, plane, about, axes)
+    const { model } = caseModel(loaded.model, args, 'cut')
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
     const limit = sectionLimitOf(args, model.mesh)

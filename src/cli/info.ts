@@ -5,6 +5,8 @@
  */
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
+import { CASE_OPTION, caseModel } from './caseOption.ts'
+import { casesOf, combinationsOf, describeFactors } from '../model/loadCases.ts'
 import { loadModel } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { block, qty, table, vecJson, vecQty } from './format.ts'
@@ -65,13 +67,14 @@ export function unitsText(model: Model, intake: IntakeReport): string {
 export const infoCommand: Command = {
   name: 'info',
   summary: 'counts, element types, bounds, units and warnings of a model',
-  usage: 'tractus info <model> [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus info <model> [--case NAME] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
-  options: [JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION],
-  details: '<model> is a bundle folder (nodes.csv, elements.csv, stress.csv, optional displacement.csv and model.json) or a native .tractus file.',
+  options: [CASE_OPTION, JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION],
+  details: '<model> is a bundle folder (nodes.csv, elements.csv, stress.csv, optional displacement.csv and model.json; further load cases stress.NAME.csv and displacement.NAME.csv) or a native .tractus file. The stress range is that of the case shown (--case); the load cases and combinations are listed ("cases", "combinations" and the shown "case" in --json).',
   run(args, io) {
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
+    const { model, name: shownCase } = caseModel(loaded.model, args, 'info')
+    const cases = casesOf(model), combinations = combinationsOf(model)
     const intake = model.intake
     const u = createUnitView(model.units, unitChoice(args))
     const s = summarize(model)
@@ -98,6 +101,9 @@ export const infoCommand: Command = {
         displacement: model.displacement !== null,
         stressLayout: model.stressField ? 'element-nodal' : 'nodal',
         bodyForce: vecJson(bodyForce, 'forcePerVolume', u),
+        case: shownCase,
+        cases: cases.map((c) => ({ name: c.name, description: c.description, bodyForce: vecJson(c.bodyForce ?? model.bodyForce, 'forcePerVolume', u), displacement: c.displacement !== null })),
+        combinations: combinations.map((c) => ({ name: c.name, factors: { ...c.factors } })),
         files: intake.files.map((f) => ({ ...f })),
         warnings: [...model.warnings],
       })
@@ -117,6 +123,12 @@ export const infoCommand: Command = {
       ['displacement', model.displacement ? 'present' : 'none'],
     ])
     if (model.description) out += `  ${model.description}\n`
+    out += `\nLoad cases (shown: ${shownCase})\n`
+    out += table(cases.map((c) => [`  ${c.name}`, c.description || '—', `ρb ${vecQty(c.bodyForce ?? model.bodyForce, 'forcePerVolume', u)}`, c.displacement ? 'displacement' : 'no displacement']), [false, false, false, false])
+    if (combinations.length) {
+      out += '\nCombinations\n'
+      out += table(combinations.map((c) => [`  ${c.name}`, describeFactors(c)]), [false, false])
+    }
     if (intake.files.length) {
       out += '\nFiles read\n'
       out += table(intake.files.map((f) => [`  ${f.role}`, f.file, f.description + (f.ignoredColumns.length ? `; columns left out: ${f.ignoredColumns.join(', ')}` : '')]), [false, false, false])

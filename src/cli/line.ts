@@ -9,10 +9,10 @@ import type { Command } from './command.ts'
 import { HELP_OPTION, JSON_OPTION, UNITS_OPTION, printJson, unitChoice, vecOption } from './command.ts'
 import { UsageError } from './args.ts'
 import { loadModel } from './loadModel.ts'
+import { CASE_OPTION, caseModel } from './caseOption.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { num, table, vecPlain, vecQty } from './format.ts'
-import { InputError } from '../model/errors.ts'
 import { modelStressField } from '../model/stressField.ts'
 import { buildElementGrid } from '../mechanics/elementGrid.ts'
 import type { ComponentAxes } from '../mechanics/componentAxes.ts'
@@ -71,7 +71,7 @@ export const lineCommand: Command = {
     { name: 'from', kind: 'vec3', value: 'x,y,z', required: true, help: 'start of the line (model length units); for a linearisation, on one surface of the wall' },
     { name: 'to', kind: 'vec3', value: 'x,y,z', required: true, help: 'end of the line, on the other surface' },
     { name: 'points', kind: 'integer', value: 'N', help: `sample points, both ends included (default ${DEFAULT_LINE_POINTS}, at least 2)` },
-    { name: 'case', kind: 'string', value: 'NAME', help: 'load case to read (a model carries one stress field until load cases are read; any name is refused)' },
+    CASE_OPTION,
     { name: 'criterion', kind: 'string', value: 'vonmises|tresca', choices: ['vonmises', 'tresca'], help: 'equivalent stress of the linearised parts (default von Mises)' },
     { name: 'axis', kind: 'vec3', value: 'ax,ay,az', help: 'cylinder axis direction: components in r, θ, z and the linearisation frame hoop/meridional' },
     { name: 'axis-point', kind: 'vec3', value: 'x,y,z', help: 'a point on the cylinder axis (default the origin)' },
@@ -95,11 +95,7 @@ export const lineCommand: Command = {
     const axes = axesOf(args)
     const criterion = args.options.criterion === 'tresca' ? 'tresca' : 'vonMises'
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
-    const caseName = args.options.case
-    if (typeof caseName === 'string') {
-      throw new InputError('bad-argument', `load case "${caseName}" not found: this model carries one stress field (load cases are not read yet); leave out --case`, { file: loaded.path })
-    }
+    const { model } = caseModel(loaded.model, args, 'line')
     const u = createUnitView(model.units, unitChoice(args))
     const grid = buildElementGrid(model.mesh)
     const field = modelStressField(model)

@@ -6,6 +6,7 @@
  */
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
+import { CASE_OPTION, caseModel } from './caseOption.ts'
 import { loadModel } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { num, qty, table, vecJson, vecQty } from './format.ts'
@@ -16,9 +17,9 @@ import type { Vec3 } from '../model/model.ts'
 export const partsCommand: Command = {
   name: 'parts',
   summary: 'parts of an assembly, their balance, and the forces between parts',
-  usage: 'tractus parts <model> [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus parts <model> [--case NAME] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
-  options: [JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION],
+  options: [CASE_OPTION, JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION],
   details: [
     'Each part\'s balance is the residual of ∮ t dA + ∫ ρb dV over the part, its boundary including the faces it shares with other parts; moment about the part\'s volume centroid ("about"); "relative" is |force| over the gross load.',
     'Interfaces: faces shared by two parts (shared nodes) or whose corners coincide within a tolerance. For parts [a, b] (a < b), "force" is what a exerts on b (traction on b\'s side, b\'s outward normal, b\'s stress), "moment" about the interface centroid; "mismatch" is |F_ab + F_ba| over the interface\'s gross load ∫|t| dA (zero for nodal stress with shared nodes).',
@@ -26,7 +27,7 @@ export const partsCommand: Command = {
   ].join('\n'),
   run(args, io) {
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
+    const { model } = caseModel(loaded.model, args, 'parts')
     const u = createUnitView(model.units, unitChoice(args))
     const common = bodyForceOf(args, model)
     const info = new Map((model.parts ?? []).map((p) => [p.part, p]))

@@ -6,6 +6,8 @@ import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, vecOption } from './command.ts'
 import { UsageError } from './args.ts'
 import { loadModel } from './loadModel.ts'
+import { CASE_ALL_OPTION, COMBINATIONS_ONLY_OPTION, allCases, caseModel } from './caseOption.ts'
+import { sweepAllCases } from './caseEnvelope.ts'
 import { unitNormal } from '../mechanics/plane.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
@@ -29,14 +31,14 @@ const CSV_COLUMNS: readonly [string, (r: SectionResult) => number, Parameters<Un
 export const sweepCommand: Command = {
   name: 'sweep',
   summary: 'parallel sections along a normal, one row per offset (CSV or JSON)',
-  usage: 'tractus sweep <model> --normal nx,ny,nz --from a --to b --count N [--reference rx,ry,rz] [--json] [--units si|us] [--body-force bx,by,bz]',
+  usage: 'tractus sweep <model> --normal nx,ny,nz --from a --to b --count N [--reference rx,ry,rz] [--case NAME|all [--combinations-only]] [--json] [--units si|us] [--body-force bx,by,bz]',
   positionals: ['<model>'],
   options: [
     { name: 'normal', kind: 'vec3', value: 'nx,ny,nz', required: true, help: 'section normal m (any length, not zero)' },
     { name: 'from', kind: 'number', value: 'a', required: true, help: 'first offset along the unit normal from the origin (model length units)' },
     { name: 'to', kind: 'number', value: 'b', required: true, help: 'last offset (model length units)' },
     { name: 'count', kind: 'integer', value: 'N', required: true, help: 'number of sections, at least 1 (evenly spaced, both ends included)' },
-    REFERENCE_OPTION,
+    REFERENCE_OPTION, CASE_ALL_OPTION, COMBINATIONS_ONLY_OPTION,
     JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION,
   ],
   details: [
@@ -44,6 +46,7 @@ export const sweepCommand: Command = {
     SECTION_AXES_DETAILS + ' One reference serves every section of the sweep.',
     'CSV columns: offset, area, cx, cy, cz, fx, fy, fz, mx, my, mz, axial, shear1, shear2, torque, bending1, bending2, freebody_relative, freebody_moment_relative, cut_elements; the header line names the units.',
     '--json prints {"sections": [...]} with "offset" and the fields of `tractus cut --json` per section.',
+    '--case all: the envelope over every case and combination per section (--combinations-only: over the combinations), CSV columns offset, then per component (axial, shear1, shear2, torque, bending1, bending2) NAME_max, NAME_max_case, NAME_min, NAME_min_case; --json {"sections": [{"offset", "area", "envelope": {...as cut --case all...}}]}.',
   ].join('\n'),
   run(args, io) {
     const normal = unitNormal(vecOption(args, 'normal')!, 'sweep direction')
@@ -54,7 +57,11 @@ export const sweepCommand: Command = {
     if (count > 100000) throw new UsageError('--count must be at most 100000')
     const axes = axesOption(args, normal)
     const loaded = loadModel(args.positionals[0])
-    const { model } = loaded
+    if (allCases(args)) {
+      const offsets = Array.from({ length: count }, (_, k) => (k === count - 1 && count > 1 ? to : from + (count > 1 ? k * (to - from) / (count - 1) : 0)))
+      return sweepAllCases(loaded, args, io, normal, offsets, axes)
+    }
+    const { model } = caseModel(loaded.model, args, 'sweep')
     const u = createUnitView(model.units, unitChoice(args))
     const bodyForce = bodyForceOf(args, model)
     const { offsets, results } = sweepSections(model.mesh, modelStressField(model), bodyForce, normal, from, to, count, { axes })

@@ -14,8 +14,12 @@ import { writeCsvBundle } from '../io/writeCsvBundle.ts'
 import { writeNative } from '../io/nativeContainer.ts'
 import type { Model } from '../model/model.ts'
 import { demoModel, roundSignificant } from './demoModel.ts'
-import { buildLiftingLug, LUG_DEFAULTS, LUG_DESCRIPTION, lugMeshLevel } from './liftingLug.ts'
+import { buildLiftingLug, LUG_DEFAULTS, LUG_DESCRIPTION, LUG_SLING_ANGLES, lugMeshLevel } from './liftingLug.ts'
 import { lugStatics } from './lugStatics.ts'
+import type { Combination, LoadCase } from '../model/loadCases.ts'
+import type { Vec3 } from '../model/model.ts'
+import { nodalStressField } from '../model/stressField.ts'
+import { sectionEnvelope } from '../mechanics/sectionEnvelope.ts'
 import type { ElasticProblem, ElasticSolution } from './solveElastic.ts'
 import { solveElastic } from './solveElastic.ts'
 import { buildTunnelBlock, interpolateTunnelField, TUNNEL_DEFAULTS, TUNNEL_DESCRIPTION, tunnelHierarchy, tunnelMeshLevel } from './tunnelBlock.ts'
@@ -26,7 +30,6 @@ import { pipeStatics } from './pipeStatics.ts'
 import { BRACKET_DEFAULTS, BRACKET_GEOMETRY, BRACKET_PART_NAMES, boltGroupTensions, bracketDescription, buildBoltedBracket } from './boltedBracket.ts'
 import { createMesh } from '../model/createMesh.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
-import { nodalStressField } from '../model/stressField.ts'
 
 interface IndexEntry {
   id: string
@@ -107,9 +110,50 @@ function lug(): IndexEntry {
   const st = lugStatics(sc, stress, sol.reaction)
   console.log(`  pin load ${fmt(Math.hypot(...st.pinForce) / 1000, 3)} kN; section y = ${fmt(st.sectionY, 2)} mm: force error ${pct(st.sectionForceError)}, moment error ${pct(st.sectionMomentError)}`)
   console.log(`  body balance residual ${pct(st.balance.relative)} of gross ${fmt(st.balance.gross / 1000, 2)} kN; hole-wall peak hoop stress ${fmt(st.peakHoopStress)} MPa at ${fmt(st.peakHoopAngleDeg)}° = ${fmt(st.peakHoopStress / st.nominalStress, 2)} × nominal ${fmt(st.nominalStress, 2)} MPa`)
-  const model = demoModel('Steel lifting lug (invented demo)', LUG_DESCRIPTION, sc.units, sc.bodyForce, coords, sc.problem.conn, stress, disp)
-  const files = writeModel(id, model, true)
+  const base = demoModel('Steel lifting lug (invented demo)', LUG_DESCRIPTION, sc.units, sc.bodyForce, coords, sc.problem.conn, stress, disp)
+  const model = lugCases(base, sc.shankTop)
+  // The lug's CSV tables are not committed (the extra load cases would push the committed files
+  // past about 15 MB); its container carries every case.
+  const files = writeModel(id, model, false)
   return { id, name: model.name, description: model.description, units: sc.units, elements: sol.stats.elements, nodes: sol.stats.nodes, file: files.native, files: { native: files.native, csv: files.csv }, bytes: files.bytes }
+}
+
+/**
+ * The lug's load cases: the sling pulling at other angles from the lug's axis (each solved on its
+ * own), a combination, and the governing angle at the neck (the shank's top, where the head
+ * starts), computed from the section envelope and written into the model's description.
+ */
+function lugCases(model: Model, neckY: number): Model {
+  const angles = LUG_SLING_ANGLES
+  const cases: LoadCase[] = angles.map((angleDeg) => {
+    const name = `sling-${angleDeg}`
+    const description = `pin pull 50 kN at ${angleDeg}° from the lug's axis, in the plate's plane${angleDeg === LUG_DEFAULTS.angleDeg ? ' (the design angle)' : ''}`
+    if (angleDeg === LUG_DEFAULTS.angleDeg) return { name, description, bodyForce: null, stress: model.stress, displacement: model.displacement }
+    const sc = buildLiftingLug({ ...LUG_DEFAULTS, ...lugMeshLevel(2), angleDeg })
+    const { sol, cpu } = solveTimed(sc.problem)
+    console.log(`  case ${name}: solved in ${fmt(cpu, 2)} s CPU`)
+    // no displacement for the extra cases: it would push the committed files past their budget
+    return { name, description, bodyForce: null, stress: roundSignificant(sol.stress, 6), displacement: null }
+  })
+  const combinations: Combination[] = [{ name: 'proof', factors: { [`sling-${LUG_DEFAULTS.angleDeg}`]: 2 } }]
+  const withCases: Model = { ...model, cases, combinations }
+  const plane = { point: [0, neckY, LUG_DEFAULTS.thickness / 2] as Vec3, normal: [0, 1, 0] as Vec3 }
+  const env = sectionEnvelope(model.mesh, cases.map((c) => ({ name: c.name, field: nodalStressField(model.mesh, c.stress) })), [], plane)
+  const e = env.envelope!
+  // in-plane bending: about the plate's normal z, the section axis of the larger second moment (e1)
+  const e1z = Math.abs(env.cases[0].section.axes.e1[2]) > 0.5
+  const inPlane = e1z ? e.bending[0] : e.bending[1]
+  const big = (x: { max: number; maxCase: string; min: number; minCase: string }) => (Math.abs(x.max) >= Math.abs(x.min) ? { v: x.max, c: x.maxCase } : { v: x.min, c: x.minCase })
+  const m = big(inPlane), n = big(e.axial)
+  const v = big(Math.abs(e.shear[0].max) + Math.abs(e.shear[0].min) > Math.abs(e.shear[1].max) + Math.abs(e.shear[1].min) ? e.shear[0] : e.shear[1])
+  const neck = `Load cases: the sling pulls at ${angles.map((a) => `${a}°`).join(', ')} from the lug's axis (cases ${cases.map((c) => c.name).join(', ')}; ` +
+    `sling-${LUG_DEFAULTS.angleDeg} is the design angle), and the combination "proof" is twice the design case (an example of a proof load). ` +
+    `At the neck, the section y = ${fmt(neckY, 0)} mm where the head begins, the in-plane bending moment is largest at ${cases.find((c) => c.name === m.c)!.name.slice(6)}° ` +
+    `(${m.c}: ${fmt(Math.abs(m.v) / 1e6, 2)} kN·m), the pull along the axis at ${n.c.slice(6)}° (${fmt(Math.abs(n.v) / 1000, 1)} kN) and the shear across it at ${v.c.slice(6)}° ` +
+    `(${fmt(Math.abs(v.v) / 1000, 1)} kN): the angle that governs the neck is ${m.c.slice(6)}° (computed by the demo generator from the section envelope). `
+  console.log(`  ${neck}`)
+  // the case text goes before the closing caution, which stays last
+  return { ...withCases, description: model.description.replace('Caution:', neck + 'Caution:') }
 }
 
 function pipe(): IndexEntry {

@@ -52,6 +52,9 @@ export const LUG_DEFAULTS: LugSpec = {
   perSector: 16, ringDivisions: 24, shankRows: 24, layers: 6, ringFirstStep: 0.5, baseHold: 'in-plane',
 }
 
+/** The sling angles of the demo's load cases (degrees from the lug's axis); the design angle first. */
+export const LUG_SLING_ANGLES: readonly number[] = [30, 0, 60]
+
 /** Mesh sizes of the lug by refinement level: 0 coarse (tests), 1 the committed demo, 2 finer. */
 export function lugMeshLevel(level: number): Pick<LugSpec, 'perSector' | 'ringDivisions' | 'shankRows' | 'layers'> {
   switch (level) {

@@ -27,7 +27,7 @@ export interface ModelMeta {
   readonly parts?: readonly PartInfo[]
 }
 
-const KNOWN_KEYS: readonly string[] = ['name', 'description', 'units', 'bodyForce', 'parts', ...LAYOUT_KEYS]
+const KNOWN_KEYS: readonly string[] = ['name', 'description', 'units', 'bodyForce', 'parts', 'cases', 'combinations', ...LAYOUT_KEYS]
 
 /** Parses JSON text; a syntax error names the line and column when the platform reports a position. */
 export function parseJsonText(file: string, text: string): unknown {

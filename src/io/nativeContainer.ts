@@ -47,6 +47,9 @@ import { isUnitsWarning, unitsWarning } from './intakeReport.ts'
 import type { ReadModel } from './intakeReport.ts'
 import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 import { partAveragedStress } from '../model/stressField.ts'
+import type { Combination, LoadCase } from '../model/loadCases.ts'
+import { CASE_NAME, checkCombination } from '../model/loadCases.ts'
+import type { Vec3 } from '../model/model.ts'
 
 /** "TRACTUS" and a zero byte. */
 export const NATIVE_MAGIC = new Uint8Array([0x54, 0x52, 0x41, 0x43, 0x54, 0x55, 0x53, 0x00])
@@ -131,6 +134,14 @@ export function writeNative(model: Model, options: WriteNativeOptions = {}): Uin
     arrays.push({ name: `block${k}.conn`, data: b.conn }, { name: `block${k}.ids`, data: b.ids })
     if (b.part) arrays.push({ name: `block${k}.part`, data: b.part })
   })
+  // --- load cases: the first case's fields are "stress" and "displacement" above, case i's "stress.i" and "displacement.i" ---
+  const cases = version >= 2 && model.cases && model.cases.length ? model.cases : []
+  if (cases.some((c, i) => i > 0 && !c.stressField !== !field)) throw new RangeError('every load case of a model has the same stress layout (nodal or element-nodal)')
+  cases.forEach((c, i) => {
+    if (i === 0) return
+    arrays.push({ name: `stress.${i}`, data: c.stressField ? elementNodalValuesInOrder(c.stressField) : c.stress })
+    if (c.displacement) arrays.push({ name: `displacement.${i}`, data: c.displacement })
+  })
   const headerBase = {
     format: FORMAT_TAG,
     name: model.name,
@@ -142,12 +153,21 @@ export function writeNative(model: Model, options: WriteNativeOptions = {}): Uin
     elementCount: mesh.elementCount,
     blocks: mesh.blocks.map((b) => ({ type: b.type, count: b.ids.length })),
     ...(version >= 2 && model.parts && model.parts.length ? { parts: partsJson(model.parts) } : {}),
+    ...(cases.length ? {
+      cases: cases.map((c) => ({ name: c.name, description: c.description, bodyForce: c.bodyForce ?? model.bodyForce })),
+      combinations: (model.combinations ?? []).map((c) => ({ name: c.name, factors: { ...c.factors } })),
+    } : {}),
   }
   // The field table points at the arrays "stress" and "displacement" (indices 2 and 3).
-  const fieldsOf = (e: readonly ArrayEntry[]): FieldEntry[] | undefined => version < 2 ? undefined : [
-    { kind: 'stress', case: DEFAULT_CASE, layout: field ? 'elementNodal' : 'nodal', count: e[2].length / 6, offset: e[2].offset },
-    ...(model.displacement ? [{ kind: 'displacement' as const, case: DEFAULT_CASE, layout: 'nodal' as const, count: e[3].length / 3, offset: e[3].offset }] : []),
-  ]
+  const fieldsOf = (e: readonly ArrayEntry[]): FieldEntry[] | undefined => version < 2 ? undefined : (cases.length ? cases : [null]).flatMap((c, i) => {
+    const s = e.find((x) => x.name === (i === 0 ? 'stress' : `stress.${i}`))!
+    const d = e.find((x) => x.name === (i === 0 ? 'displacement' : `displacement.${i}`))
+    const name = c ? c.name : DEFAULT_CASE
+    return [
+      { kind: 'stress' as const, case: name, layout: field ? 'elementNodal' as const : 'nodal' as const, count: s.length / 6, offset: s.offset },
+      ...(d ? [{ kind: 'displacement' as const, case: name, layout: 'nodal' as const, count: d.length / 3, offset: d.offset }] : []),
+    ]
+  })
   const headerOf = (e: readonly ArrayEntry[]) => JSON.stringify({ ...headerBase, arrays: e, ...(version >= 2 ? { fields: fieldsOf(e) } : {}) })
   const enc = new TextEncoder()
   // Offsets depend on the header's length, which depends on the offsets' digits: iterate until
@@ -373,16 +393,29 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   if (unitsText && !warnings.some(isUnitsWarning)) warnings.push(unitsText)
   const mesh = createMesh(coords, blockInputs, nodeIds)
   const stressField: StressField | null = elementNodal ? { values: stress, rows: rowsOf, layout: 'element-nodal' } : null
+  const shown = stressField ? partAveragedStress(mesh, stressField) : stress
+  // --- load cases ---
+  const loadCases = fields && (fields.cases.length > 1 || h.cases !== undefined)
+    ? containerCases(h, fields, fileName, { stress: shown, stressField, displacement }, meta.bodyForce, (entry, width, rows) => {
+      const a = take<Float64Array>(entry.name, 'f64', width * rows)!
+      for (let i = 0; i < a.length; i++) if (!Number.isFinite(a[i])) fail('not-finite', entry.name, `row ${(i / width) | 0} has a non-finite value (${a[i]}) at index ${i}`)
+      return a
+    }, (values) => {
+      const f: StressField = { values, rows: rowsOf, layout: 'element-nodal' }
+      return { stress: partAveragedStress(mesh, f), stressField: f }
+    }, elementNodal ? elementNodeRows : N, N)
+    : null
   return {
     name: meta.name ?? '',
     description: meta.description,
     units: meta.units,
     mesh,
-    stress: stressField ? partAveragedStress(mesh, stressField) : stress,
+    stress: shown,
     ...(stressField ? { stressField } : {}),
     displacement,
     bodyForce: meta.bodyForce,
     ...(meta.parts ? { parts: meta.parts } : {}),
+    ...(loadCases ? { cases: loadCases.cases, combinations: loadCases.combinations, bodyForce: loadCases.cases[0].bodyForce ?? meta.bodyForce } : {}),
     warnings,
     intake: { format: 'native', files: [], unitSources, unitsDeclared: unitsText === null, unitsWarning: unitsText },
   }
@@ -400,6 +433,8 @@ interface FieldTable {
   readonly stress: ArrayEntry
   readonly stressLayout: 'nodal' | 'elementNodal'
   readonly displacement: ArrayEntry | null
+  // --- load cases: every case of the table in order (the first is the one above) ---
+  readonly cases: readonly { readonly name: string; readonly stress: ArrayEntry; readonly displacement: ArrayEntry | null; readonly at: string }[]
 }
 
 function readFieldTable(value: unknown, arrays: ReadonlyMap<string, ArrayEntry>, N: number, elementNodeRows: number, failWith: (kind: InputErrorKind, field: string, message: string) => never): FieldTable {
@@ -412,6 +447,7 @@ function readFieldTable(value: unknown, arrays: ReadonlyMap<string, ArrayEntry>,
   for (const e of arrays.values()) byOffset.set(e.offset, e)
   let stress: { entry: ArrayEntry; layout: 'nodal' | 'elementNodal'; case: string } | null = null
   let displacement: { entry: ArrayEntry; case: string } | null = null
+  const cases: { name: string; stress: ArrayEntry | null; displacement: ArrayEntry | null; at: string }[] = []
   ;(value as unknown[]).forEach((f, i) => {
     const at = `fields[${i}]`
     if (typeof f !== 'object' || f === null || Array.isArray(f)) fail('container', at, how)
@@ -427,12 +463,76 @@ function readFieldTable(value: unknown, arrays: ReadonlyMap<string, ArrayEntry>,
     const e = entry as ArrayEntry
     const width = r.kind === 'stress' ? 6 : 3
     if (e.dtype !== 'f64' || e.length !== rows * width) fail('container', `${at}.offset`, `the array "${e.name}" at offset ${e.offset} holds ${e.length} × ${e.dtype}, the field needs ${rows * width} × f64`)
-    // This reader shows one case: the first stress field, and the displacement of its case.
+    // The model shows the first stress field and the displacement of its case.
     if (r.kind === 'stress' && !stress) stress = { entry: e, layout: r.layout as 'nodal' | 'elementNodal', case: r.case as string }
     if (r.kind === 'displacement' && !displacement) displacement = { entry: e, case: r.case as string }
+    // --- load cases: one stress field per case, all in one layout; a displacement per case at most ---
+    const name = r.case as string
+    const c = cases.find((x) => x.name.toLowerCase() === name.toLowerCase())
+    if (r.kind === 'stress') {
+      if (c?.stress) fail('container', `${at}.case`, `case "${name}" has two stress fields`)
+      if (stress && (stress as { layout: string }).layout !== r.layout) fail('container', `${at}.layout`, `every case's stress has one layout; case "${name}" is ${r.layout}, the first ${(stress as { layout: string }).layout}`)
+      if (c) c.stress = e; else cases.push({ name, stress: e, displacement: null, at })
+    } else {
+      if (c?.displacement) fail('container', `${at}.case`, `case "${name}" has two displacement fields`)
+      if (c) c.displacement = e; else cases.push({ name, stress: null, displacement: e, at })
+    }
   })
+  for (const c of cases) if (!c.stress) fail('container', `${c.at}.case`, `case "${c.name}" has a displacement but no stress field`)
   const s = stress as { entry: ArrayEntry; layout: 'nodal' | 'elementNodal'; case: string } | null
   if (!s) fail('container', 'fields', 'the field table has no stress field; write the container again')
   const d = displacement as { entry: ArrayEntry; case: string } | null
-  return { stress: s!.entry, stressLayout: s!.layout, displacement: d && d.case === s!.case ? d.entry : null }
+  return {
+    stress: s!.entry, stressLayout: s!.layout, displacement: d && d.case === s!.case ? d.entry : null,
+    cases: cases.map((c) => ({ name: c.name, stress: c.stress!, displacement: c.displacement, at: c.at })),
+  }
+}
+
+/**
+ * The load cases of a version-2 container: one per case of the field table, in its order, with
+ * the header's "cases" (name, description, bodyForce: the names must be the table's, in its
+ * order) and "combinations" (checked like model.json's). `read` takes a field's array (checked
+ * finite); `elementNodal` makes a case's field and display stress from its values.
+ */
+function containerCases(
+  h: Record<string, unknown>, fields: FieldTable, file: string,
+  first: { stress: Float64Array; stressField: StressField | null; displacement: Float64Array | null }, modelBodyForce: Vec3,
+  read: (entry: ArrayEntry, width: number, rows: number) => Float64Array,
+  elementNodal: (values: Float64Array) => { stress: Float64Array; stressField: StressField }, stressRows: number, N: number,
+): { cases: LoadCase[]; combinations: Combination[] } {
+  const bad = (field: string, message: string): never => { throw new InputError('container', message, { file, field }) }
+  const listed = h.cases === undefined ? null : h.cases
+  if (listed !== null && (!Array.isArray(listed) || listed.length !== fields.cases.length)) bad('cases', `cases must list the ${fields.cases.length} cases of the field table (${fields.cases.map((c) => c.name).join(', ')}) in its order`)
+  const cases: LoadCase[] = fields.cases.map((c, i) => {
+    if (!CASE_NAME.test(c.name)) bad(`${c.at}.case`, `"${c.name}" is not a load case name (letters, digits, "-" and "_")`)
+    const meta = listed ? (listed as unknown[])[i] as Record<string, unknown> : null
+    if (meta && (typeof meta !== 'object' || meta === null || meta.name !== c.name)) bad(`cases[${i}]`, `cases[${i}] must be {"name": "${c.name}", ...}, the field table's case ${i + 1}`)
+    if (meta && meta.description !== undefined && typeof meta.description !== 'string') bad(`cases[${i}].description`, 'a case\'s description must be a string')
+    let bodyForce: Vec3 | null = null
+    if (meta && meta.bodyForce !== undefined) {
+      const b = meta.bodyForce
+      if (!Array.isArray(b) || b.length !== 3 || !b.every((x) => typeof x === 'number' && Number.isFinite(x))) bad(`cases[${i}].bodyForce`, 'a case\'s bodyForce must be three finite numbers')
+      bodyForce = [(b as number[])[0], (b as number[])[1], (b as number[])[2]]
+    }
+    const description = meta && typeof meta.description === 'string' ? meta.description : ''
+    const bf = bodyForce ?? [modelBodyForce[0], modelBodyForce[1], modelBodyForce[2]] as Vec3
+    if (i === 0) return { name: c.name, description, bodyForce: bf, stress: first.stress, ...(first.stressField ? { stressField: first.stressField } : {}), displacement: first.displacement }
+    const values = read(c.stress, 6, stressRows)
+    const s = first.stressField ? elementNodal(values) : { stress: values }
+    return { name: c.name, description, bodyForce: bf, ...s, displacement: c.displacement ? read(c.displacement, 3, N) : null }
+  })
+  const combinations: Combination[] = []
+  if (h.combinations !== undefined) {
+    if (!Array.isArray(h.combinations)) bad('combinations', 'combinations must be a list of {name, factors}')
+    ;(h.combinations as unknown[]).forEach((k, i) => {
+      const r = (typeof k === 'object' && k !== null ? k : {}) as Record<string, unknown>
+      try {
+        combinations.push(checkCombination(cases, { name: r.name, factors: r.factors }, { file, field: `combinations[${i}]` }))
+      } catch (e) {
+        if (e instanceof InputError) throw new InputError('container', e.message.replace(/^[^:]*field "[^"]*": /, ''), { file, field: `combinations[${i}]` })
+        throw e
+      }
+    })
+  }
+  return { cases, combinations }
 }

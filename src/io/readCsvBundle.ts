@@ -24,6 +24,7 @@ import type { IdIndex } from './idIndex.ts'
 import { fileIntake, unitsWarning } from './intakeReport.ts'
 import type { FileIntake, IntakeReport, ReadModel, UnitSource } from './intakeReport.ts'
 import { parseJsonText, readModelMeta } from './modelJson.ts'
+import { planCases, readOtherCases } from './caseFiles.ts'
 import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 import { readElementTable } from './readElementTable.ts'
 import { elementNodalField } from './elementNodalRows.ts'
@@ -100,10 +101,13 @@ export function sortBundleFiles<T extends { readonly name: string }>(files: read
     if (role === undefined) { ignored.push(f.name); continue }
     const into = (BASE_ROLES as readonly string[]).includes(role) ? byRole : cases
     const prev = into.get(role)
+    if (prev && into === cases) throw new InputError('bad-argument', `two files for load case "${role.slice(role.indexOf('.') + 1)}": ${prev.name} and ${f.name} (case names match without regard to letter case); keep one`, { file: f.name })
     if (prev) throw new InputError('bad-argument', `two files named ${baseName(prev.name)} were given: ${prev.name} and ${f.name}; give one model at a time`, { file: f.name })
     into.set(role, f)
   }
-  const missing = REQUIRED_ROLES.filter((r) => !byRole.has(r))
+  // --- load cases: a bundle may hold stress.NAME.csv files only ---
+  const hasCaseStress = [...cases.keys()].some((r) => r.startsWith('stress.'))
+  const missing = REQUIRED_ROLES.filter((r) => !byRole.has(r) && !(r === 'stress' && hasCaseStress))
   if (missing.length) {
     const got = files.length ? files.map((f) => f.name).join(', ') : 'no files'
     const names = missing.map((r) => (layout.files.has(r) ? `${layout.files.get(r)} (model.json files.${r})` : `${r}.csv`))
@@ -127,11 +131,12 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   const { byRole, ignored, cases } = sortBundleFiles(files, layout)
   for (const f of byRole.values()) assertWithinLimit(f.name, f.text.length, limit)
   const warnings: string[] = ignored.map((n) => `ignored ${n}: not part of a CSV bundle`)
-  for (const [role, f] of cases) warnings.push(`ignored ${f.name}: load case "${role.slice(role.indexOf('.') + 1)}" (${role}) is not read; this version reads one stress field`)
   const nodesFile = byRole.get('nodes')!
   const elementsFile = byRole.get('elements')!
-  const stressFile = byRole.get('stress')!
-  const dispFile = byRole.get('displacement')
+  // --- load cases (caseFiles.ts): the first case's files are read here, the others by readOtherCases ---
+  const plan = planCases(byRole, cases, json, jsonFiles.length === 1 ? jsonFiles[0].name : null)
+  const stressFile = plan.cases[0].stress
+  const dispFile = plan.cases[0].displacement
   if (meta) warnings.push(...meta.warnings)
   const spec = (role: string, fields: readonly string[], quantity: 'length' | 'stress') => ({ role, fields, quantity, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) })
 
@@ -221,6 +226,21 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   if (unitsText) warnings.push(unitsText)
   const intake: IntakeReport = { format: 'csv', files: intakeFiles, unitSources, unitsDeclared: unitsText === null, unitsWarning: unitsText }
 
+  // --- load cases ---
+  const caseIntake: FileIntake[] = []
+  const loadCases = plan.described ? readOtherCases(plan, {
+    nodeIndex, nodeIds, bodyForce: meta?.bodyForce ?? [0, 0, 0],
+    firstStress: { file: stressFile.name, table: stressTable, values: stress },
+    firstDisplacement: dispFile && dispTable && displacement ? { file: dispFile.name, table: dispTable, values: displacement } : null,
+    readTable(f, role, kind) {
+      const base = kind === 'stress' ? spec('stress', STRESS_FIELDS, 'stress') : spec('displacement', DISPLACEMENT_FIELDS, 'length')
+      const t = readNumericTable(f.name, f.text, { ...base, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) ?? base.columns })
+      caseIntake.push(fileIntake(f.name, role, t.info.dialect, t.info.ignored))
+      return t
+    },
+  }) : null
+  intakeFiles.push(...caseIntake)
+
   const mesh = createMesh(coords, blocks, nodeIds)
   return {
     ...(stressField ? { stressField } : {}),
@@ -230,8 +250,9 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
     mesh,
     stress,
     displacement,
-    bodyForce: meta?.bodyForce ?? [0, 0, 0],
+    bodyForce: loadCases ? loadCases[0].bodyForce! : meta?.bodyForce ?? [0, 0, 0],
     ...(meta?.parts ? { parts: meta.parts } : {}),
+    ...(loadCases ? { cases: loadCases, combinations: plan.combinations } : {}),
     warnings,
     intake,
   }

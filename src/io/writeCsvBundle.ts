@@ -6,6 +6,7 @@
  */
 import { elementType } from '../model/elementTypes.ts'
 import type { Model } from '../model/model.ts'
+import { DEFAULT_CASE, sameCaseName } from '../model/loadCases.ts'
 import type { CsvFile } from './readCsvBundle.ts'
 import { partsJson } from './nativeContainer.ts'
 
@@ -63,10 +64,25 @@ export function writeCsvBundle(model: Model): CsvFile[] {
     }
   }
   files.push({ name: 'elements.csv', text: el.join('\n') + '\n' })
-  files.push({ name: 'stress.csv', text: model.stressField ? elementNodalTable(model) : table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, model.stress) })
-  if (model.displacement) files.push({ name: 'displacement.csv', text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, model.displacement) })
+  // --- load cases: stress.csv is the case "default", stress.NAME.csv every other; model.json lists them in order ---
+  // Each case keeps its form: element-nodal fields are written as element-nodal tables.
+  const cases = model.cases && model.cases.length ? model.cases : [{ name: DEFAULT_CASE, description: '', bodyForce: null, stress: model.stress, stressField: model.stressField, displacement: model.displacement }]
+  for (const c of cases) {
+    const stem = sameCaseName(c.name, DEFAULT_CASE) ? '' : `.${c.name}`
+    const text = c.stressField ? elementNodalTable({ ...model, stress: c.stress, stressField: c.stressField }) : table('id,sxx,syy,szz,sxy,syz,sxz', N, 6, mesh.nodeIds, c.stress)
+    files.push({ name: `stress${stem}.csv`, text })
+    if (c.displacement) files.push({ name: `displacement${stem}.csv`, text: table('id,ux,uy,uz', N, 3, mesh.nodeIds, c.displacement) })
+  }
   const parts = model.parts && model.parts.length > 0 ? { parts: partsJson(model.parts) } : {}
-  const meta = { name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts }
+  const meta = {
+    name: model.name, description: model.description, units: model.units, bodyForce: model.bodyForce, ...parts,
+    ...(model.cases && model.cases.length ? { cases: casesJson(model), combinations: (model.combinations ?? []).map((c) => ({ name: c.name, factors: { ...c.factors } })) } : {}),
+  }
   files.push({ name: 'model.json', text: JSON.stringify(meta, null, 2) + '\n' })
   return files
+}
+
+/** model.json's "cases" of a model: name, description and ρb of each case, in order. */
+export function casesJson(model: Model): { name: string; description: string; bodyForce: readonly number[] }[] {
+  return (model.cases ?? []).map((c) => ({ name: c.name, description: c.description, bodyForce: c.bodyForce ?? model.bodyForce }))
 }

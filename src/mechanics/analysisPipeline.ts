@@ -69,6 +69,9 @@ export interface AnalysisOptions {
   readonly loadPatches?: LoadPatchOptions
   /** How many of the least balanced elements the verdict stage lists (default 5). */
   readonly leastBalanced?: number
+  // --- load cases ---
+  /** The mesh's boundary faces when already known (they do not depend on the case): switching the case skips that stage. */
+  readonly faces?: BoundaryFaces
 }
 
 /** One finished stage: its name, its wall time (ms) and its result. */
@@ -107,7 +110,7 @@ export function displayStressOf(input: AnalysisInput): Float64Array {
  * ANALYSIS_STAGES guarantees they are there).
  */
 const STAGE_WORK: { readonly [K in AnalysisStage]: (input: AnalysisInput, options: AnalysisOptions, done: AnalysisResult) => AnalysisResult[K] } = {
-  faces: ({ mesh }) => extractBoundaryFaces(mesh),
+  faces: ({ mesh }, o) => o.faces ?? extractBoundaryFaces(mesh),
   tractions: ({ mesh, stress }, _o, { faces }) => computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, stress, faces),
   invariants: (input) => {
     const nodal = displayStressOf(input)

@@ -241,13 +241,15 @@ const TN = new Float64Array(3 * MAX_ELEMENT_NODES)
 const SHAPE = new Float64Array(MAX_ELEMENT_NODES)
 const FORCE3 = new Float64Array(3)
 
-function growInt(a: Int32Array, n: number): Int32Array {
+/** A copy of `a` in a larger array of length n (grows-only storage). */
+export function growInt(a: Int32Array, n: number): Int32Array {
   const b = new Int32Array(n)
   b.set(a)
   return b
 }
 
-function growFloat(a: Float64Array, n: number): Float64Array {
+/** A copy of `a` in a larger array of length n (grows-only storage). */
+export function growFloat(a: Float64Array, n: number): Float64Array {
   const b = new Float64Array(n)
   b.set(a)
   return b

@@ -253,7 +253,7 @@ function recordedSection(
 // then gives the code up at every later pass it has not seen run yet, for the first few calls.
 
 /** Snapped signed distances d = (x - p)·m of the first N nodes (see SNAP_EPS). */
-function nodeDistances(d: Float64Array, coords: Float64Array, N: number, point: Vec3, m: Vec3): void {
+export function nodeDistances(d: Float64Array, coords: Float64Array, N: number, point: Vec3, m: Vec3): void {
   const px = point[0], py = point[1], pz = point[2], mx = m[0], my = m[1], mz = m[2]
   const amx = Math.abs(mx), amy = Math.abs(my), amz = Math.abs(mz)
   const pAbs = Math.abs(px) * amx + Math.abs(py) * amy + Math.abs(pz) * amz

@@ -1,5 +1,6 @@
 import type { ElementTypeName } from './elementTypes.ts'
 import type { ModelUnits } from './units.ts'
+import type { Combination, LoadCase } from './loadCases.ts'
 import type { StressField } from './stressField.ts'
 
 /**
@@ -57,6 +58,9 @@ export interface Model {
   readonly stressField?: StressField
   // --- assemblies: part names and per-part body force from model.json (absent: none given) ---
   readonly parts?: readonly PartInfo[]
+  // --- load cases (loadCases.ts): every case's fields and the combinations; stress etc. above are those of cases[0] ---
+  readonly cases?: readonly LoadCase[]
+  readonly combinations?: readonly Combination[]
 }
 
 /** A named part (model.json "parts"): its number, name, and its own ρb when it has one (overrides the model's). */

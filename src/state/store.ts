@@ -42,6 +42,8 @@ import type { SweepSlice } from './sweepSlice.ts'
 import { createLineSlice } from './lineSlice.ts'
 import type { LineSlice } from './lineSlice.ts'
 import { createShapeSlice, shapeOfLoad } from './shapeSlice.ts'
+import { caseStateOfLoad, createCaseSlice } from './caseSlice.ts'
+import type { CaseSlice } from './caseSlice.ts'
 import type { ShapeSlice } from './shapeSlice.ts'
 import { assemblyOfLoad, createAssemblySlice } from './assemblySlice.ts'
 import type { AssemblySlice } from './assemblySlice.ts'
@@ -309,7 +311,7 @@ export interface TractusActions {
   markElement: (element: MarkedElement | null) => void
 }
 
-export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice & IntakeSlice & AssemblySlice
+export type TractusState = TractusData & TractusActions & SweepSlice & LineSlice & ShapeSlice & IntakeSlice & AssemblySlice & CaseSlice
 
 export const DEFAULT_SECTION: SectionState = {
   enabled: false, point: [0, 0, 0], normal: [1, 0, 0], offset: 0, hide: 'auto', traction: 'normalTraction', dragging: false,
@@ -393,6 +395,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   ...createLineSlice(set, get, api),
   ...createShapeSlice(set, get, api),
   ...createAssemblySlice(set, get, api),
+  ...createCaseSlice(set, get, api),
 
   setQuantity: (q) => {
     const st = get()
@@ -471,6 +474,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
       line: { ...get().line, from: null, to: null }, linePicking: 'off', lineResult: null, lineError: null,
       ...shapeOfLoad(loaded),
       ...assemblyOfLoad(loaded),
+      ...caseStateOfLoad(summary),
       // The model's own units follow the model.
       ...(get().unitPreset === 'model' ? { units: modelDisplayUnits(summary.units) } : {}),
     })

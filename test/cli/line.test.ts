@@ -126,6 +126,6 @@ describe('tractus line', () => {
   it('an unknown load case is an input error (exit 2) naming it', async () => {
     const out = await cli('line', wall, '--from', '1.2,0,0.5', '--to', '1.2,1,0.5', '--case', 'wind')
     expect(out.code).toBe(2)
-    expect(out.stderr).toMatch(/load case "wind" not found/)
+    expect(out.stderr).toMatch(/no load case or combination "wind"; this model has case default/)
   })
 })

@@ -2,6 +2,7 @@ import type { Vec3 } from '../../model/model.ts'
 import { displayFactor } from '../../model/units.ts'
 import type { SectionResult } from '../../mechanics/types.ts'
 import { Card } from '../ui/Card.tsx'
+import { EnvelopeSection } from './EnvelopeTable.tsx'
 import { Num, Vec } from '../ui/Num.tsx'
 import { NumberField } from '../ui/NumberField.tsx'
 import { axesLines, download, fileStem, sectionCsv, sectionJson, sectionRows } from '../exports.ts'
@@ -262,6 +263,7 @@ export function CutCard() {
                   <tbody>{['fbF', 'fbM', 'fbRel', 'fbRelM'].map((k) => <Row key={k} k={k} />)}</tbody>
                 </table>}
               <RegionTable result={result} />
+              <EnvelopeSection />
               <div className="row">
                 <button type="button" data-testid="export-section-csv" onClick={() => download(`${fileStem(model.name)}-section.csv`, sectionCsv(model, result, system), 'text/csv')}>Section CSV</button>
                 <button type="button" data-testid="export-section-json" onClick={() => download(`${fileStem(model.name)}-section.json`, sectionJson(model, result, system), 'application/json')}>Section JSON</button>

@@ -4,6 +4,7 @@ import type { DemoEntry } from '../actions.ts'
 import { engine } from '../engine.ts'
 import { QuantitySelect } from '../cards/ColourCard.tsx'
 import { UnitsMenu } from './UnitsMenu.tsx'
+import { CaseSelect } from './CaseSelect.tsx'
 import { useStore } from '../../state/store.ts'
 
 /** Slim bar: model name, quantity, units, card width, open, demos, help. The name is React text only. */
@@ -25,6 +26,7 @@ export function TopBar({ onOpen }: { onOpen: () => void }) {
         <span className="units-undeclared" data-testid="units-undeclared" title={model.warnings.find((w) => /declared/.test(w)) ?? 'The files do not state their units.'}>units not declared</span>
       ) : null}
       <span className="spacer" />
+      <CaseSelect />
       <QuantitySelect testId="quantity" />
       <UnitsMenu />
       <button type="button" data-testid="wide-cards" aria-pressed={wide} className={wide ? 'on' : ''} title="Widen or narrow the column of cards (diagrams read better wide); W"

@@ -43,6 +43,8 @@ class FakeWorker {
     components: async () => ({ ok: false, error: { message: 'not in this test' } }),
     line: async () => ({ ok: false, error: { message: 'not in this test' } }),
     lineThroughWall: async () => null,
+    showCase: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    envelope: async () => ({ ok: false, error: { message: 'not in this test' } }),
     patches: (rule) => { const reply = deferred<Outcome<PatchReply>>(); this.patchRules.push({ rule, reply }); return reply.promise },
     dispose: async () => undefined,
   }

@@ -118,3 +118,27 @@ describe('review report: a line through the model', () => {
     expect(points.rows[4][1]).toBe('outside the body')
   })
 })
+
+describe('review report: the section envelope over load cases', () => {
+  const z = { axial: 0, shear: [0, 0] as const, torque: 0, bending: [0, 0] as const }
+  const cases = [
+    { name: 'dead', kind: 'case' as const, ...z, axial: 1000, bending: [0, -2000] as const },
+    { name: 'wind', kind: 'case' as const, ...z, axial: -500, bending: [0, 3000] as const },
+  ]
+  const e = (max: number, maxCase: string, min: number, minCase: string) => ({ max, maxCase, min, minCase })
+  const envelope = {
+    plane: { point: [0, 0, 1] as [number, number, number], normal: [0, 0, 1] as [number, number, number] }, combinationsOnly: false, cases,
+    envelope: { axial: e(1000, 'dead', -500, 'wind'), torque: e(0, 'dead', 0, 'dead'), shear: [e(0, 'dead', 0, 'dead'), e(0, 'dead', 0, 'dead')] as const, bending: [e(0, 'dead', 0, 'dead'), e(3000, 'wind', -2000, 'dead')] as const },
+    regions: [], axes: { e1: [1, 0, 0] as [number, number, number], e2: [0, 1, 0] as [number, number, number], e3: [0, 0, 1] as [number, number, number], kind: 'principal' as const }, computeMs: 1,
+  }
+  it('lists each extreme with its governing case (none for a component that is zero in every case) and the concurrent values', () => {
+    const c = buildReportContent(input({ envelope }))
+    const t = table(c, 'envelope')
+    expect(t.rows.find((r) => r[0] === 'Axial force N' && r[1] === 'largest')).toEqual(['Axial force N', 'largest', '1', 'kN', 'dead'])
+    expect(t.rows.find((r) => r[0] === 'Bending moment M₂' && r[1] === 'smallest')).toEqual(['Bending moment M₂', 'smallest', '−2', 'kN·m', 'dead'])
+    expect(t.rows.find((r) => r[0] === 'Torque T')![4]).toBe('—')
+    const k = table(c, 'envelope-concurrent')
+    expect(k.rows.map((r) => r[0])).toEqual(['dead', 'wind'])
+    expect(k.rows[1]).toEqual(['wind', '−0.5', '0', '0', '0', '0', '3'])
+  })
+})

@@ -1,0 +1,362 @@
+/**
+ * The stencil of a section: everything about a cut that does not depend on the stress, built
+ * once, so that each load case then costs only a pass over the section's own element-nodes.
+ *
+ * The resultant of a section is linear in the stress. With t = σm and, on each cut element, the
+ * stress interpolated from its nodes, σ(ξ) = Σ_a N_a(ξ) σ_a, the section's integrals are
+ *   ∫ t dA   = Σ_a W_a  σ_a m,   W_a  = ∫ N_a dA,
+ *   ∫ a t dA = Σ_a WA_a σ_a m,   WA_a = ∫ a N_a dA,      ∫ b t dA likewise with WB_a,
+ * (a, b the plane coordinates about the section's local origin, sectionPolygon.ts), and the
+ * moment follows from these (sectionMomentAtOrigin). The weights W, WA, WB of every cut
+ * element's nodes are integrated here once, by the same polygons (elementPolygonRef, exact ξ of
+ * the vertices) and the same Dunavant rules (sectionRule.ts, degree p + 1) as the single cut
+ * (sectionCut.ts), so a case's figures equal the single cut's to round-off; on tet4 the degree-2
+ * rule is exact for the linear traction times (1, a, b), as the closed forms there are.
+ *
+ * Regions and limits use the cut record of sectionRegions.ts; regions are ordered by area,
+ * largest first (an order that, unlike the single cut's largest-force-first, is the same for
+ * every case).
+ *
+ * Units: model length; weights W in length², WA and WB in length³. Layout: cut element i is
+ * element `local[i]` of block `block[i]`, its nodes' weights at weights[3·(first[i] + a) ..]
+ * (W, WA, WB), its region `label[i]` (-1 when a limit leaves it out).
+ */
+import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import type { Mesh, Vec3 } from '../model/model.ts'
+import type { StressField } from '../model/stressField.ts'
+import { ZERO_FREE_BODY } from './freeBody.ts'
+import { createSectionPoints, growFloat, growInt, polygonPoints } from './elementSection.ts'
+import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } from './inverseMap.ts'
+import { checkPoint, unitNormal } from './plane.ts'
+import type { SectionAxesChoice } from './sectionAxes.ts'
+import { nodeDistances } from './sectionCut.ts'
+import {
+  ACC_AREA, ACC_AT, ACC_BT, ACC_FORCE, ACC_SIZE, MAX_POLYGON_POINTS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionFrame,
+} from './sectionPolygon.ts'
+import type { PolygonScratch } from './sectionPolygon.ts'
+import { emptySection, sectionRecord } from './sectionProperties.ts'
+import type { SectionLimit } from './sectionRegions.ts'
+import {
+  addAccumulator, createCutRecord, labelRegions, recordElement, regionAccumulators, selectCutElements, selectionAccumulator,
+} from './sectionRegions.ts'
+import { sectionRule, shapeDegree } from './sectionRule.ts'
+import { shapeValues } from './shapeFunctions.ts'
+import type { SectionPlane, SectionResult } from './types.ts'
+
+export interface SectionStencil {
+  readonly point: Vec3
+  readonly normal: Vec3
+  readonly frame: Float64Array
+  /** Cut elements (of the selection and outside it). */
+  readonly count: number
+  readonly block: Int32Array
+  readonly local: Int32Array
+  readonly first: Int32Array
+  /** Output record each cut element adds to: 0 the section, 1 + r region r (with regions); -1 when a limit leaves it out. */
+  readonly label: Int32Array
+  readonly weights: Float64Array
+  /** Regions (of the selection), largest area first; 0 when regions were not asked for. */
+  readonly regionCount: number
+  /** Geometric accumulators (ACC_SIZE each): [0] the section (the selection, with a limit), then the regions in order. */
+  readonly acc: Float64Array
+  readonly regionParts: readonly (readonly number[])[]
+  /** Cut elements per record (the section, then the regions). */
+  readonly cutElements: Int32Array
+  readonly limited: boolean
+  readonly about: Vec3 | null
+  readonly axes: SectionAxesChoice | undefined
+}
+
+export interface StencilOptions {
+  /** Split the section into its connected regions (sectionRegions.ts). */
+  readonly regions?: boolean
+  readonly limit?: SectionLimit | null
+  readonly about?: Vec3
+  readonly axes?: SectionAxesChoice
+}
+
+/**
+ * Builds the stencil of `plane` on `mesh`: one pass over the nodes and the elements, then each
+ * cut element's polygon and its nodes' weights. Linear simplices (tet4, shape-function degree 1)
+ * take the closed forms over the polygon's fan of triangles, exact for their linear N_a:
+ * ∫ f dA = A/3 Σ f_k and ∫ f g dA = A/12 (Σf Σg + Σ f_k g_k) per triangle (the forms the single
+ * cut uses), with f_k = N_a at the vertex; every other type its Dunavant points (elementSection.ts).
+ */
+export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: StencilOptions = {}): SectionStencil {
+  const m = unitNormal(plane.normal)
+  checkPoint(plane.point, 'section point')
+  if (options.about) checkPoint(options.about, 'moment point')
+  const point: Vec3 = [plane.point[0], plane.point[1], plane.point[2]]
+  const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
+  const coords = mesh.coords, N = mesh.nodeCount
+  const d = new Float64Array(N)
+  nodeDistances(d, coords, N, point, m)
+  const whole = new Float64Array(ACC_SIZE)
+  const sc = createPolygonScratch(), em = createElementMap(), pts = createSectionPoints()
+  const limit = options.limit ?? null
+  const rec = options.regions || limit ? createCutRecord() : null
+  const shape = new Float64Array(MAX_ELEMENT_NODES)
+  const vw = new Float64Array(3 * MAX_POLYGON_POINTS)
+  const w = { first: new Int32Array(1024) as Int32Array, weights: new Float64Array(3 * 1024 * 4) as Float64Array, block: new Int32Array(1024) as Int32Array, local: new Int32Array(1024) as Int32Array }
+  let entries = 0, n = 0
+  mesh.blocks.forEach((block, bi) => {
+    const topo = ELEMENT_TYPES[block.type], type = block.type
+    const nn = topo.nodeCount, cc = topo.cornerCount, conn = block.conn, count = conn.length / nn
+    const cases = crossingCases(type), domain = referenceDomain(type), rule = sectionRule(type)
+    const linear = shapeDegree(type) <= 1
+    const dist = sc.dist
+    const list = cutCandidates(d, conn, count, nn, cc)
+    const polygon = elementPolygonRef, area = addPolygonArea
+    for (let c = 0; c < list.n; c++) {
+      const e = list.items[c], base = nn * e
+      for (let k = 0; k < cc; k++) dist[k] = d[conn[base + k]]
+      if (polygon(sc, whole, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) continue
+      if (rec) {
+        const o = recordElement(rec, bi, e)
+        area(rec.acc, o, sc)
+        addAccumulator(whole, 0, rec.acc, o)
+      } else area(whole, 0, sc)
+      if (n + 2 > w.first.length) { const size = 2 * w.first.length; w.first = growInt(w.first, size); w.block = growInt(w.block, size); w.local = growInt(w.local, size) }
+      if (3 * (entries + nn) > w.weights.length) w.weights = growFloat(w.weights, Math.max(2 * w.weights.length, 3 * (entries + nn)))
+      const weights = w.weights, wo = 3 * entries
+      w.first[n] = entries; w.block[n] = bi; w.local[n] = e
+      for (let k = 0; k < 3 * nn; k++) weights[wo + k] = 0
+      if (linear) {
+        vertexWeights(vw, sc)
+        for (let k = 0; k < sc.count; k++) {
+          shapeValues(type, sc.ref[3 * k], sc.ref[3 * k + 1], sc.ref[3 * k + 2], shape)
+          const v0 = vw[3 * k], v1 = vw[3 * k + 1], v2 = vw[3 * k + 2]
+          for (let a = 0; a < nn; a++) {
+            const na = shape[a]
+            if (na === 0) continue // the vertex lies on an edge away from node a
+            weights[wo + 3 * a] += v0 * na; weights[wo + 3 * a + 1] += v1 * na; weights[wo + 3 * a + 2] += v2 * na
+          }
+        }
+      } else {
+        loadElementMap(em, domain, coords, conn, base)
+        const q = polygonPoints(pts.ref, pts.w, pts.a, pts.b, 0, sc, rule, em)
+        for (let p = 0; p < q; p++) {
+          shapeValues(type, pts.ref[3 * p], pts.ref[3 * p + 1], pts.ref[3 * p + 2], shape)
+          const wp = pts.w[p], wa = wp * pts.a[p], wb = wp * pts.b[p]
+          for (let a = 0; a < nn; a++) {
+            const na = shape[a]
+            weights[wo + 3 * a] += wp * na; weights[wo + 3 * a + 1] += wa * na; weights[wo + 3 * a + 2] += wb * na
+          }
+        }
+      }
+      entries += nn
+      n++
+      w.first[n] = entries
+    }
+  })
+  const label = new Int32Array(n)
+  let regionCount = 0
+  let acc: Float64Array
+  let regionParts: number[][] = []
+  const cutElements = new Int32Array(1)
+  cutElements[0] = n
+  if (rec) {
+    const sel = new Int32Array(n), lab = new Int32Array(n)
+    const selected = selectCutElements(sel, rec, mesh, limit, whole, frame)
+    label.fill(-1)
+    const count = options.regions && whole[ACC_AREA] > 0 ? labelRegions(lab, sel, selected, rec, mesh, d) : 0
+    if (count > 0) {
+      const ra = regionAccumulators(count, lab, sel, selected, rec, mesh, whole)
+      // regions by area, largest first (ties: first met)
+      const order = Array.from({ length: count }, (_, g) => g).sort((x, y) => ra.acc[y * ACC_SIZE + ACC_AREA] - ra.acc[x * ACC_SIZE + ACC_AREA] || x - y)
+      const rank = new Int32Array(count)
+      order.forEach((g, r) => { rank[g] = r })
+      acc = new Float64Array((1 + count) * ACC_SIZE)
+      order.forEach((g, r) => acc.set(ra.acc.subarray(g * ACC_SIZE, (g + 1) * ACC_SIZE), (1 + r) * ACC_SIZE))
+      regionParts = order.map((g) => ra.parts[g])
+      for (let s = 0; s < selected; s++) label[sel[s]] = 1 + rank[lab[s]]
+      regionCount = count
+    } else {
+      acc = new Float64Array(ACC_SIZE)
+      for (let s = 0; s < selected; s++) label[sel[s]] = 0
+    }
+    if (limit) selectionAccumulator(acc, sel, selected, rec, whole)
+    else acc.set(whole.subarray(0, ACC_SIZE))
+  } else acc = whole
+  const perRecord = new Int32Array(1 + regionCount)
+  for (let i = 0; i < n; i++) {
+    const g = label[i]
+    if (g < 0) continue
+    perRecord[0]++
+    if (g > 0) perRecord[g]++
+  }
+  return {
+    point, normal: m, frame, count: n, block: w.block.slice(0, n), local: w.local.slice(0, n), first: w.first.slice(0, n + 1),
+    label, weights: w.weights.slice(0, 3 * entries), regionCount, acc, regionParts, cutElements: perRecord, limited: limit !== null,
+    about: options.about ? [options.about[0], options.about[1], options.about[2]] : null, axes: options.axes,
+  }
+}
+
+/**
+ * Weights per vertex of the polygon in `sc` (W, WA, WB, 3 each, in the order found) for a
+ * linear field: over the fan from the first vertex in polygon order, a triangle of area A adds
+ * A/3 to W of each of its vertices and A/12 (Σa + a_k) to WA of vertex k (likewise b), so that
+ * Σ_k W_k f_k = ∫ f dA and Σ_k WA_k f_k = ∫ a f dA for f linear.
+ */
+function vertexWeights(out: Float64Array, sc: PolygonScratch): void {
+  const n = sc.count, order = sc.order, a = sc.a, b = sc.b
+  out.fill(0, 0, 3 * n)
+  const k0 = order[0], a0 = a[k0], b0 = b[k0]
+  for (let i = 1; i < n - 1; i++) {
+    const ki = order[i], kj = order[i + 1]
+    const ai = a[ki], bi = b[ki], aj = a[kj], bj = b[kj]
+    const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
+    const w0 = At / 3, sa = a0 + ai + aj, sb = b0 + bi + bj, h = At / 12
+    out[3 * k0] += w0; out[3 * ki] += w0; out[3 * kj] += w0
+    out[3 * k0 + 1] += h * (sa + a0); out[3 * ki + 1] += h * (sa + ai); out[3 * kj + 1] += h * (sa + aj)
+    out[3 * k0 + 2] += h * (sb + b0); out[3 * ki + 2] += h * (sb + bi); out[3 * kj + 2] += h * (sb + bj)
+  }
+}
+
+/** Grows-only list of the elements with corners on both sides (local indices), like sectionCut.ts's. */
+const candidates = { items: new Int32Array(0), n: 0 }
+
+/**
+ * The elements of a block with corners on both sides of the plane (d < 0 and d ≥ 0), in order.
+ * Tetrahedra take a branch-free scan (stored always, kept when cut), as the single cut does.
+ */
+function cutCandidates(d: Float64Array, conn: Int32Array, count: number, nn: number, cc: number): { items: Int32Array; n: number } {
+  if (candidates.items.length < count) candidates.items = new Int32Array(count)
+  const list = candidates.items
+  let n = 0
+  if (cc === 4) {
+    for (let e = 0, base = 0; e < count; e++, base += nn) {
+      const neg = (d[conn[base]] < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
+      list[n] = e
+      n += (neg & 3) !== 0 ? 1 : 0
+    }
+  } else {
+    for (let e = 0, base = 0; e < count; e++, base += nn) {
+      let neg = 0
+      for (let c = 0; c < cc; c++) neg += d[conn[base + c]] < 0 ? 1 : 0
+      if (neg === 0 || neg === cc) continue // all corners on one side
+      list[n++] = e
+    }
+  }
+  candidates.n = n
+  return candidates
+}
+
+/**
+ * A stencil compiled for one field layout: the element-node entries of each output record merged
+ * by stress row (a node shared by several cut elements is read once per case), rows ascending.
+ * Record g's entries are start[g] .. start[g+1]-1: row index `row[e]`, weights at w[3e ..].
+ * Every field whose rows are those of `field` (nodal fields on one mesh, the cases of one
+ * element-nodal model) uses the same compiled stencil.
+ */
+export interface CompiledStencil {
+  readonly records: number
+  readonly start: Int32Array
+  readonly row: Int32Array
+  readonly w: Float64Array
+  readonly rows: readonly Int32Array[]
+}
+
+export function compileStencil(s: SectionStencil, mesh: Mesh, field: StressField): CompiledStencil {
+  const records = 1 + s.regionCount
+  const rowCount = field.values.length / 6
+  // elements by record (counting sort), so each record's entries are merged together
+  const per = new Int32Array(records + 1)
+  for (let i = 0; i < s.count; i++) if (s.label[i] >= 0) per[s.label[i] + 1]++
+  for (let g = 0; g < records; g++) per[g + 1] += per[g]
+  const byRecord = new Int32Array(per[records])
+  const fill = per.slice(0, records)
+  for (let i = 0; i < s.count; i++) if (s.label[i] >= 0) byRecord[fill[s.label[i]]++] = i
+  const slot = new Int32Array(rowCount), stamp = new Int32Array(rowCount).fill(-1)
+  const total = s.weights.length / 3
+  const row = new Int32Array(total), w = new Float64Array(3 * total), start = new Int32Array(records + 1)
+  const W = s.weights
+  let k = 0
+  for (let g = 0; g < records; g++) {
+    start[g] = k
+    const from = k
+    for (let j = per[g]; j < per[g + 1]; j++) {
+      const i = byRecord[j], bi = s.block[i], rows = field.rows[bi]
+      const nn = ELEMENT_TYPES[mesh.blocks[bi].type].nodeCount, base = s.local[i] * nn
+      for (let a = 0, o = 3 * s.first[i]; a < nn; a++, o += 3) {
+        const r = rows[base + a]
+        let e = slot[r]
+        if (stamp[r] !== g) { stamp[r] = g; e = k++; slot[r] = e; row[e] = r }
+        w[3 * e] += W[o]; w[3 * e + 1] += W[o + 1]; w[3 * e + 2] += W[o + 2]
+      }
+    }
+    sortEntries(row, w, from, k, slot)
+  }
+  start[records] = k
+  return { records, start, row: row.slice(0, k), w: w.slice(0, 3 * k), rows: field.rows }
+}
+
+/**
+ * Sorts entries [from, to) by row (memory order of the stress values), weights alongside, by a
+ * native sort of the rows and the rows' entry numbers in `slot` (valid for this record).
+ */
+function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number, slot: Int32Array): void {
+  const n = to - from
+  if (n < 2) return
+  const rows = row.slice(from, to).sort(), w2 = w.slice(3 * from, 3 * to)
+  for (let i = 0; i < n; i++) {
+    const r = rows[i], j = slot[r] - from
+    row[from + i] = r
+    w[3 * (from + i)] = w2[3 * j]; w[3 * (from + i) + 1] = w2[3 * j + 1]; w[3 * (from + i) + 2] = w2[3 * j + 2]
+  }
+}
+
+/** Slots per record of a case's integrals: ∫ t dA, ∫ a t dA, ∫ b t dA. */
+export const CASE_SLOTS = 9
+
+/**
+ * One case's pass: the traction integrals of every record (the section, then each region) into
+ * out[CASE_SLOTS·g ..] (zeroed first), from the field's values through the compiled stencil
+ * (compileStencil on a field with the same rows). With regions the section is their sum.
+ */
+export function stencilIntegrals(out: Float64Array, c: CompiledStencil, m: Vec3, values: Float64Array): Float64Array {
+  const records = c.records
+  out.fill(0, 0, CASE_SLOTS * records)
+  const mx = m[0], my = m[1], mz = m[2], W = c.w, row = c.row, start = c.start
+  for (let g = 0; g < records; g++) {
+    let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
+    for (let e = start[g], end = start[g + 1]; e < end; e++) {
+      const r = 6 * row[e], o = 3 * e
+      const sxx = values[r], syy = values[r + 1], szz = values[r + 2], sxy = values[r + 3], syz = values[r + 4], sxz = values[r + 5]
+      const tx = sxx * mx + sxy * my + sxz * mz
+      const ty = sxy * mx + syy * my + syz * mz
+      const tz = sxz * mx + syz * my + szz * mz
+      const w0 = W[o], wa = W[o + 1], wb = W[o + 2]
+      Fx += w0 * tx; Fy += w0 * ty; Fz += w0 * tz
+      Ax += wa * tx; Ay += wa * ty; Az += wa * tz
+      Bx += wb * tx; By += wb * ty; Bz += wb * tz
+    }
+    const o = CASE_SLOTS * g
+    out[o] = Fx; out[o + 1] = Fy; out[o + 2] = Fz
+    out[o + 3] = Ax; out[o + 4] = Ay; out[o + 5] = Az
+    out[o + 6] = Bx; out[o + 7] = By; out[o + 8] = Bz
+  }
+  // the section is the sum of its regions (record 0 holds no element then)
+  for (let g = 1; g < records; g++) for (let k = 0; k < CASE_SLOTS; k++) out[k] += out[CASE_SLOTS * g + k]
+  return out
+}
+
+/**
+ * The section record of record g (0 = the section, 1 + r = region r) from a case's integrals
+ * (`ints` as stencilIntegrals writes them): area properties of the stencil, force and moment of
+ * the case. No free body (a stencil knows nothing of the body's surface): `freeBody` is zero and
+ * `freeBodyDefined` false. Moments about the stencil's `about` for the section, about each
+ * region's own centroid for a region.
+ */
+export function stencilRecord(s: SectionStencil, ints: Float64Array, g: number): SectionResult {
+  if (!(s.acc[g * ACC_SIZE + ACC_AREA] > 0)) return { ...emptySection(s.point, s.normal, s.frame, g === 0 ? s.about : null, s.axes), limited: s.limited, freeBodyDefined: false }
+  const acc = s.acc.slice(g * ACC_SIZE, (g + 1) * ACC_SIZE)
+  const o = CASE_SLOTS * g
+  for (let k = 0; k < 3; k++) {
+    acc[ACC_FORCE + k] = ints[o + k]
+    acc[ACC_AT + k] = ints[o + 3 + k]
+    acc[ACC_BT + k] = ints[o + 6 + k]
+  }
+  const r = sectionRecord(acc, 0, s.point, s.normal, s.frame, g === 0 ? s.about : null, ZERO_FREE_BODY, 0, s.axes)
+  return { ...r, cutElements: s.cutElements[g], limited: s.limited, freeBodyDefined: false }
+}
