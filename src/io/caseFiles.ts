@@ -15,6 +15,7 @@
  *   extra id is an InputError naming it. Stress here is nodal; ρb in stress / length.
  */
 import { InputError } from '../model/errors.ts'
+import type { StressField } from '../model/stressField.ts'
 import type { Combination, LoadCase } from '../model/loadCases.ts'
 import { ALL_CASES, CASE_NAME, DEFAULT_CASE, checkCombination, sameCaseName } from '../model/loadCases.ts'
 import type { Vec3 } from '../model/model.ts'
@@ -157,6 +158,13 @@ export interface CaseReadContext<T> {
   readonly firstDisplacement: { readonly file: string; readonly table: NumericTable; readonly values: Float64Array } | null
   /** The model's ρb (the default for cases that name none). */
   readonly bodyForce: Vec3
+  /**
+   * Set when the first case's stress is element-nodal: every other case's stress file is read
+   * the same way (one row per element and node, checked complete by the element-nodal reader)
+   * into its field and its display average.
+   */
+  readonly firstStressField?: StressField | null
+  readElementNodal?(file: T, role: string): { readonly field: StressField; readonly stress: Float64Array }
 }
 
 /**
@@ -173,18 +181,30 @@ export function readOtherCases<T extends { readonly name: string }>(plan: CasePl
   plan.cases.forEach((c, i) => {
     const bodyForce = c.bodyForce ?? [ctx.bodyForce[0], ctx.bodyForce[1], ctx.bodyForce[2]]
     if (i === 0) {
-      out.push({ name: c.name, description: c.description, bodyForce, stress: ctx.firstStress.values, displacement: ctx.firstDisplacement?.values ?? null })
+      out.push({
+        name: c.name, description: c.description, bodyForce, stress: ctx.firstStress.values, displacement: ctx.firstDisplacement?.values ?? null,
+        ...(ctx.firstStressField ? { stressField: ctx.firstStressField } : {}),
+      })
       return
     }
-    const st = ctx.readTable(c.stress, c.stressRole, 'stress')
-    const stress = placeRows(st, 6, ctx, c.stress.name, { file: ctx.firstStress.file, set: refStress }, 'stress')
+    let stress: Float64Array
+    let stressField: StressField | null = null
+    if (ctx.firstStressField && ctx.readElementNodal) {
+      // --- element-nodal: every case in the first case's form ---
+      const r = ctx.readElementNodal(c.stress, c.stressRole)
+      stress = r.stress
+      stressField = r.field
+    } else {
+      const st = ctx.readTable(c.stress, c.stressRole, 'stress')
+      stress = placeRows(st, 6, ctx, c.stress.name, { file: ctx.firstStress.file, set: refStress }, 'stress')
+    }
     let displacement: Float64Array | null = null
     if (c.displacement) {
       const dt = ctx.readTable(c.displacement, c.displacementRole, 'displacement')
       if (!dispRef) dispRef = { file: c.displacement.name, set: nodeSet(dt, ctx.nodeIndex, N) }
       displacement = placeRows(dt, 3, ctx, c.displacement.name, dispRef, 'displacement')
     }
-    out.push({ name: c.name, description: c.description, bodyForce, stress, displacement })
+    out.push({ name: c.name, description: c.description, bodyForce, stress, ...(stressField ? { stressField } : {}), displacement })
   })
   return out
 }

@@ -232,6 +232,24 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
     nodeIndex, nodeIds, bodyForce: meta?.bodyForce ?? [0, 0, 0],
     firstStress: { file: stressFile.name, table: stressTable, values: stress },
     firstDisplacement: dispFile && dispTable && displacement ? { file: dispFile.name, table: dispTable, values: displacement } : null,
+    firstStressField: stressField,
+    readElementNodal(f, role) {
+      // the same element-nodal reading as the first case's file, in that file's dialect settings
+      const t = readNumericTable(f.name, f.text, {
+        ...spec('stress', STRESS_FIELDS, 'stress'), settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) ?? spec('stress', STRESS_FIELDS, 'stress').columns,
+        elementNodal: ELEMENT_NODAL_STRESS_FIELDS,
+      })
+      caseIntake.push(fileIntake(f.name, role, t.info.dialect, t.info.ignored))
+      if (!t.ids2) {
+        throw new InputError('header', `one row per node, while ${stressFile.name} holds one row per element and node; give every case in the same form (a column "element" beside "node")`, { file: f.name, line: 1 })
+      }
+      const field = elementNodalField(t, {
+        blocks: blocks.map((b, k) => ({ type: b.type, conn: b.conn, ids: raw[k].ids })), nodeIds, nodeIndex,
+        stressFile: f.name, elementsFile: elementsFile.name, nodesFile: nodesFile.name,
+        elementColumn: t.info.labels[0], nodeColumn: t.info.labels[1],
+      })
+      return { field, stress: partAveragedStress(createMesh(coords, blocks, nodeIds), field) }
+    },
     readTable(f, role, kind) {
       const base = kind === 'stress' ? spec('stress', STRESS_FIELDS, 'stress') : spec('displacement', DISPLACEMENT_FIELDS, 'length')
       const t = readNumericTable(f.name, f.text, { ...base, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) ?? base.columns })

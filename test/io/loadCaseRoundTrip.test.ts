@@ -58,6 +58,32 @@ describe('load cases: round trips', () => {
     }
   })
 
+  it('element-nodal cases in a CSV bundle: each case file read in the first case\'s form, round trip identical; a nodal file beside them is refused', () => {
+    const mesh = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }, 'hex8')
+    const f = [1, 2].map((k) => elementNodalCopy(mesh, nodalStress(mesh, (x, y, z) => [k * x, y, z, 0, 0, k]), 7))
+    const model: Model = {
+      name: 'en', description: '', units: { length: 'm', stress: 'Pa' }, mesh, stress: new Float64Array(6 * mesh.nodeCount), stressField: f[0],
+      displacement: null, bodyForce: [0, 0, 0], warnings: [],
+      cases: [{ name: 'a', description: '', bodyForce: null, stress: new Float64Array(6 * mesh.nodeCount), stressField: f[0], displacement: null },
+        { name: 'b', description: '', bodyForce: null, stress: new Float64Array(6 * mesh.nodeCount), stressField: f[1], displacement: null }],
+    }
+    const files = writeCsvBundle(model)
+    expect(files.find((x) => x.name === 'stress.b.csv')!.text.split('\n')[0]).toMatch(/^element,node,/)
+    const read = readCsvBundle(files)
+    expect(read.cases!.map((c) => c.name)).toEqual(['a', 'b'])
+    for (let k = 0; k < 2; k++) {
+      const got = read.cases![k].stressField!, want = f[k]
+      for (let b = 0; b < mesh.blocks.length; b++) for (let i = 0; i < want.rows[b].length; i++) {
+        for (let j = 0; j < 6; j++) expect(got.values[6 * got.rows[b][i] + j]).toBe(want.values[6 * want.rows[b][i] + j])
+      }
+    }
+    expect(byName(writeCsvBundle(read))).toEqual(byName(files))
+    // a case given per node beside element-nodal cases: one form for all cases
+    const nodal = writeCsvBundle({ ...model, stressField: undefined, cases: undefined }).find((x) => x.name === 'stress.csv')!.text
+    const mixed = files.map((x) => (x.name === 'stress.b.csv' ? { name: x.name, text: nodal } : x))
+    expect(() => readCsvBundle(mixed)).toThrow(/stress\.b\.csv, line 1: one row per node, while stress\.a\.csv holds one row per element and node/)
+  })
+
   it('a container whose header lists other cases than its field table is refused, naming the key', () => {
     const model = readCsvBundle(bundle())
     const bytes = writeNative(model)
