@@ -82,11 +82,13 @@ describe('opening models', () => {
     expect(await modelName(page)).toBe(before)
     await page.screenshot({ path: `${OUT_DIR}/error-card.png` })
 
-    // A bundle without stress.csv: named as missing.
+    // A bundle without stress.csv: the intake step opens and names it as missing; cancelling
+    // it keeps the previous model.
     await page.click('[data-testid="error-dismiss"]')
     await openBundle(page, files.filter((f) => f.name !== 'stress.csv'))
-    await card.waitFor()
-    expect(await card.textContent()).toContain('stress.csv')
+    await page.locator('[data-testid="intake-step"]').waitFor()
+    expect(await page.textContent('[data-testid="intake-why"]')).toContain('missing stress.csv')
+    await page.click('[data-testid="intake-cancel"]')
     expect(await modelName(page)).toBe(before)
 
     // The next good bundle still loads.
