@@ -181,7 +181,7 @@ export function ColourCard() {
         <label className="pair">
           <span className="lbl">Colour</span>
           <select value={a.colour} data-testid="arrows-colour" onChange={(e) => setArrowSettings({ colour: e.target.value as 'normal' | 'single' })}>
-            <option value="normal">by normal traction tₙ (tension / compression)</option>
+            <option value="normal">by tₙ (tension / compression)</option>
             <option value="single">one colour</option>
           </select>
         </label>
