@@ -317,7 +317,7 @@ function findCaseName(model: Model, name: string): string {
 }
 
 /** What the summary says about the cases: the list, the model's combinations and the case shown. */
-function caseSummary(model: Model, shown: string, _extra: readonly Combination[]): Pick<ModelSummary, 'cases' | 'combinations' | 'shownCase'> {
+function caseSummary(model: Model, shown: string): Pick<ModelSummary, 'cases' | 'combinations' | 'shownCase'> {
   return {
     cases: casesOf(model).map((c) => ({ name: c.name, description: c.description, bodyForce: c.bodyForce ?? model.bodyForce, displacement: c.displacement !== null })),
     combinations: combinationsOf(model).map((c) => ({ name: c.name, factors: { ...c.factors } })),
@@ -398,7 +398,7 @@ const api: EngineApi = {
         ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
         stressLayout: input.stress.layout,
         unitsDeclared: (model as Partial<ReadModel>).intake?.unitsDeclared ?? true,
-        ...caseSummary(model, firstCaseName(model), []),
+        ...caseSummary(model, firstCaseName(model)),
       }
       // Only now, with everything computed, does the new model replace the old one.
       current = {
@@ -547,7 +547,7 @@ const api: EngineApi = {
       const model = modelForCase(base, name)
       const reply = analyseCase(current, model, rule)
       current.shownCase = findCaseName(base, name)
-      const value: LoadedModel = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase, combinations) } }
+      const value: LoadedModel = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase) } }
       return Comlink.transfer({ ok: true as const, value }, reply.buffers)
     } catch (e) {
       const error = toAppError(e)

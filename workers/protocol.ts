@@ -15,7 +15,7 @@ import type { LengthUnit, ModelUnits, StressUnit } from '../src/model/units.ts'
 import type { Plane } from '../src/mechanics/plane.ts'
 import type { BodyBalance, LoadPatch, SectionResult } from '../src/mechanics/types.ts'
 import type { SurfaceQuantity, SurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
-import type { ArrowMode } from '../src/mechanics/arrowSampling.ts'
+import type { ArrowMode, ArrowSamples } from '../src/mechanics/arrowSampling.ts'
 import type { ComponentAxes } from '../src/mechanics/componentAxes.ts'
 import type { ComponentQuantity, ComponentScalars } from '../src/mechanics/componentScalars.ts'
 import type { EquivalentCriterion, Linearisation } from '../src/mechanics/linearisation.ts'
@@ -103,14 +103,7 @@ export type SurfaceBuffers = Omit<SurfaceTriangles, 'faceVertexStart' | 'bounds'
  * (This is the ArrowSamples record of src/mechanics/arrowSampling.ts, passed through.)
  * Drawn length = scale · |v| / maxMagnitude · 0.08 · (diagonal of the model bounds).
  */
-export interface ArrowBuffers {
-  readonly mode: ArrowMode
-  readonly origins: Float32Array
-  readonly vectors: Float32Array
-  readonly normals: Float32Array
-  readonly magnitudes: Float32Array
-  readonly maxMagnitude: number
-  readonly normalTraction: Float32Array
+export interface ArrowBuffers extends Pick<ArrowSamples, 'mode' | 'origins' | 'vectors' | 'normals' | 'magnitudes' | 'maxMagnitude' | 'normalTraction'> {
   /**
    * Float32Array(3·A), length units: the displacement the deformed shape moves each arrow's
    * origin by (the mean over its face's nodes, or its section polygon's vertices); absent

@@ -19,6 +19,7 @@ import { UsageError } from './args.ts'
 import { InputError } from '../model/errors.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import type { SectionLimit } from '../mechanics/sectionRegions.ts'
+import { partNumbers } from '../mechanics/partBalance.ts'
 import { describeAxes, projectReference } from '../mechanics/sectionAxes.ts'
 import { denoise, noiseFloor } from '../model/roundingNoise.ts'
 import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
@@ -27,16 +28,6 @@ import type { OptionSpec, ParsedArgs } from './args.ts'
 // --- assemblies: --parts and --within, regions in the output ---
 export const PARTS_OPTION: OptionSpec = { name: 'parts', kind: 'string', value: 'a,b,...', help: 'limit the cut to these part numbers (the section on a face between parts belongs to the part on the -m side)' }
 export const WITHIN_OPTION: OptionSpec = { name: 'within', kind: 'string', value: 'x,y,z,r', help: 'limit the cut to the polygons whose centroid lies within r of the point x,y,z projected onto the plane (model length units)' }
-
-/** The part numbers present in the mesh. */
-export function meshParts(mesh: Mesh): Set<number> {
-  const parts = new Set<number>()
-  for (const b of mesh.blocks) {
-    if (!b.part) { parts.add(0); continue }
-    for (let e = 0; e < b.part.length; e++) parts.add(b.part[e])
-  }
-  return parts
-}
 
 /** --parts and --within as a limit (null when neither is given). Malformed: UsageError; unknown part: InputError. */
 export function sectionLimitOf(args: ParsedArgs, mesh: Mesh): SectionLimit | null {
@@ -49,10 +40,10 @@ export function sectionLimitOf(args: ParsedArgs, mesh: Mesh): SectionLimit | nul
       if (!Number.isInteger(v) || v < 0) throw new UsageError(`--parts needs whole part numbers separated by commas, like 1,3 (got "${rawParts}")`)
       return v
     })
-    const known = meshParts(mesh)
-    const unknown = parts.filter((p) => !known.has(p))
+    const numbers = partNumbers(mesh)
+    const unknown = parts.filter((p) => !numbers.includes(p))
     if (unknown.length > 0) {
-      throw new InputError('bad-argument', `--parts: no element has part ${unknown.join(', ')}; the model's parts are ${[...known].sort((a, b) => a - b).join(', ')}`)
+      throw new InputError('bad-argument', `--parts: no element has part ${unknown.join(', ')}; the model's parts are ${numbers.join(', ')}`)
     }
   }
   let within: SectionLimit['within']

@@ -15,7 +15,6 @@
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
-import { checkPoint, unitNormal } from './plane.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
@@ -31,7 +30,7 @@ import type { ElementMap } from './inverseMap.ts'
 import { createElementMap, loadElementMap, referenceDomain } from './inverseMap.ts'
 import {
   ACC_AREA, ACC_FORCE, ACC_GROSS, ACC_ORIGIN, ACC_SIZE, addPolygonArea, createPolygonScratch, crossingCases, elementPolygon,
-  elementPolygonRef, integratePolygon, sectionFrame, sectionMomentAtOrigin,
+  elementPolygonRef, integratePolygon, sectionBasis, sectionMomentAtOrigin,
 } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import { createPolygonCollector } from './sectionDrawing.ts'
@@ -100,11 +99,7 @@ let selScratch = new Int32Array(0), labelScratch = new Int32Array(0)
 export function cutSection(
   mesh: Mesh, stress: StressField, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
 ): { result: SectionResult; polygons: SectionPolygons | null; labels: RegionLabels | null } {
-  const m = unitNormal(plane.normal)
-  checkPoint(plane.point, 'section point')
-  if (options.about) checkPoint(options.about, 'moment point')
-  const point: Vec3 = [plane.point[0], plane.point[1], plane.point[2]]
-  const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
+  const { m, point, frame } = sectionBasis(plane, options.about)
   const coords = mesh.coords, N = mesh.nodeCount
   if (distScratch.length < N) distScratch = new Float64Array(N)
   const d = distScratch

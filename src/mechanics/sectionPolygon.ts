@@ -27,6 +27,8 @@ import type { ElementTypeName } from '../model/elementTypes.ts'
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 
 import { ELEMENT_TYPE_NAMES } from '../model/elementTypes.ts'
+import type { Vec3 } from '../model/model.ts'
+import { checkPoint, unitNormal } from './plane.ts'
 
 /** Most crossed edges any registered type can have (hex: 12 edges); also the polygon's vertex bound. */
 export const MAX_POLYGON_POINTS = Math.max(...ELEMENT_TYPE_NAMES.map((t) => ELEMENT_TYPES[t].edges.length))
@@ -162,6 +164,20 @@ export function crossingCases(type: ElementTypeName): CrossingCases {
   const t: CrossingCases = { cornerCount: cc, quadratic: topo.quadratic, count, edges, sorted }
   CASES.set(type, t)
   return t
+}
+
+/**
+ * What every section of one plane starts from: the plane's unit normal m and point (both checked:
+ * a zero normal or a non-finite point is the InputError of plane.ts, as is a non-finite moment
+ * point `about`) and its in-plane frame (sectionFrame). Shared by the single cut and the
+ * multi-case stencil, so both refuse the same input the same way.
+ */
+export function sectionBasis(plane: { readonly point: readonly number[]; readonly normal: readonly number[] }, about?: readonly number[]): { m: Vec3; point: Vec3; frame: Float64Array } {
+  const m = unitNormal(plane.normal)
+  checkPoint(plane.point, 'section point')
+  if (about) checkPoint(about, 'moment point')
+  const point: Vec3 = [plane.point[0], plane.point[1], plane.point[2]]
+  return { m, point, frame: sectionFrame(new Float64Array(9), m[0], m[1], m[2]) }
 }
 
 /**

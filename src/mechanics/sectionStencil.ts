@@ -27,11 +27,10 @@ import type { StressField } from '../model/stressField.ts'
 import { ZERO_FREE_BODY } from './freeBody.ts'
 import { createSectionPoints, growFloat, growInt, polygonPoints } from './elementSection.ts'
 import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } from './inverseMap.ts'
-import { checkPoint, unitNormal } from './plane.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
 import { nodeDistances } from './sectionCut.ts'
 import {
-  ACC_AREA, ACC_AT, ACC_BT, ACC_FORCE, ACC_SIZE, MAX_POLYGON_POINTS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionFrame,
+  ACC_AREA, ACC_AT, ACC_BT, ACC_FORCE, ACC_SIZE, MAX_POLYGON_POINTS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionBasis,
 } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionRecord } from './sectionProperties.ts'
@@ -83,11 +82,7 @@ export interface StencilOptions {
  * cut uses), with f_k = N_a at the vertex; every other type its Dunavant points (elementSection.ts).
  */
 export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: StencilOptions = {}): SectionStencil {
-  const m = unitNormal(plane.normal)
-  checkPoint(plane.point, 'section point')
-  if (options.about) checkPoint(options.about, 'moment point')
-  const point: Vec3 = [plane.point[0], plane.point[1], plane.point[2]]
-  const frame = sectionFrame(new Float64Array(9), m[0], m[1], m[2])
+  const { m, point, frame } = sectionBasis(plane, options.about)
   const coords = mesh.coords, N = mesh.nodeCount
   const d = new Float64Array(N)
   nodeDistances(d, coords, N, point, m)
