@@ -22,6 +22,7 @@
  * (W, WA, WB), its region `label[i]` (-1 when a limit leaves it out).
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
+import type { ElementTypeName } from '../model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { ZERO_FREE_BODY } from './freeBody.ts'
@@ -30,16 +31,16 @@ import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } 
 import type { SectionAxesChoice } from './sectionAxes.ts'
 import { nodeDistances } from './sectionCut.ts'
 import {
-  ACC_AREA, ACC_AT, ACC_BT, ACC_FORCE, ACC_SIZE, MAX_POLYGON_POINTS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionBasis,
+  ACC_AREA, ACC_AT, ACC_BT, ACC_CUT, ACC_FORCE, ACC_SAB, ACC_SIZE, MAX_CORNERS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionBasis,
 } from './sectionPolygon.ts'
-import type { PolygonScratch } from './sectionPolygon.ts'
 import { emptySection, sectionRecord } from './sectionProperties.ts'
-import type { SectionLimit } from './sectionRegions.ts'
+import type { CutRecord, SectionLimit } from './sectionRegions.ts'
 import {
   addAccumulator, createCutRecord, labelRegions, recordElement, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
 import { sectionRule, shapeDegree } from './sectionRule.ts'
 import { shapeValues } from './shapeFunctions.ts'
+import { tetSectionWeights } from './tetSectionWeights.ts'
 import type { SectionPlane, SectionResult } from './types.ts'
 
 export interface SectionStencil {
@@ -76,80 +77,33 @@ export interface StencilOptions {
 
 /**
  * Builds the stencil of `plane` on `mesh`: one pass over the nodes and the elements, then each
- * cut element's polygon and its nodes' weights. Linear simplices (tet4, shape-function degree 1)
- * take the closed forms over the polygon's fan of triangles, exact for their linear N_a:
- * ∫ f dA = A/3 Σ f_k and ∫ f g dA = A/12 (Σf Σg + Σ f_k g_k) per triangle (the forms the single
- * cut uses), with f_k = N_a at the vertex; every other type its Dunavant points (elementSection.ts).
+ * cut element's polygon and its nodes' weights. tet4 (shape-function degree 1) takes the closed
+ * forms of tetSectionWeights.ts, exact for its linear field; every other type its Dunavant points
+ * (elementSection.ts). Nothing is allocated per element: the entries go to grows-only scratch and
+ * are copied out once at the end.
  */
 export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: StencilOptions = {}): SectionStencil {
   const { m, point, frame } = sectionBasis(plane, options.about)
   const coords = mesh.coords, N = mesh.nodeCount
-  const d = new Float64Array(N)
+  if (distScratch.length < N) distScratch = new Float64Array(N)
+  const d = distScratch
   nodeDistances(d, coords, N, point, m)
   const whole = new Float64Array(ACC_SIZE)
-  const sc = createPolygonScratch(), em = createElementMap(), pts = createSectionPoints()
   const limit = options.limit ?? null
-  const rec = options.regions || limit ? createCutRecord() : null
-  const shape = new Float64Array(MAX_ELEMENT_NODES)
-  const vw = new Float64Array(3 * MAX_POLYGON_POINTS)
-  const w = { first: new Int32Array(1024) as Int32Array, weights: new Float64Array(3 * 1024 * 4) as Float64Array, block: new Int32Array(1024) as Int32Array, local: new Int32Array(1024) as Int32Array }
-  let entries = 0, n = 0
+  const rec = options.regions || limit ? record : null
+  if (rec) rec.n = 0
+  const st = store
+  st.n = 0; st.entries = 0
   mesh.blocks.forEach((block, bi) => {
-    const topo = ELEMENT_TYPES[block.type], type = block.type
-    const nn = topo.nodeCount, cc = topo.cornerCount, conn = block.conn, count = conn.length / nn
-    const cases = crossingCases(type), domain = referenceDomain(type), rule = sectionRule(type)
-    const linear = shapeDegree(type) <= 1
-    const dist = sc.dist
-    const list = cutCandidates(d, conn, count, nn, cc)
-    const polygon = elementPolygonRef, area = addPolygonArea
-    for (let c = 0; c < list.n; c++) {
-      const e = list.items[c], base = nn * e
-      for (let k = 0; k < cc; k++) dist[k] = d[conn[base + k]]
-      if (polygon(sc, whole, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) continue
-      if (rec) {
-        const o = recordElement(rec, bi, e)
-        area(rec.acc, o, sc)
-        addAccumulator(whole, 0, rec.acc, o)
-      } else area(whole, 0, sc)
-      if (n + 2 > w.first.length) { const size = 2 * w.first.length; w.first = growInt(w.first, size); w.block = growInt(w.block, size); w.local = growInt(w.local, size) }
-      if (3 * (entries + nn) > w.weights.length) w.weights = growFloat(w.weights, Math.max(2 * w.weights.length, 3 * (entries + nn)))
-      const weights = w.weights, wo = 3 * entries
-      w.first[n] = entries; w.block[n] = bi; w.local[n] = e
-      for (let k = 0; k < 3 * nn; k++) weights[wo + k] = 0
-      if (linear) {
-        vertexWeights(vw, sc)
-        for (let k = 0; k < sc.count; k++) {
-          shapeValues(type, sc.ref[3 * k], sc.ref[3 * k + 1], sc.ref[3 * k + 2], shape)
-          const v0 = vw[3 * k], v1 = vw[3 * k + 1], v2 = vw[3 * k + 2]
-          for (let a = 0; a < nn; a++) {
-            const na = shape[a]
-            if (na === 0) continue // the vertex lies on an edge away from node a
-            weights[wo + 3 * a] += v0 * na; weights[wo + 3 * a + 1] += v1 * na; weights[wo + 3 * a + 2] += v2 * na
-          }
-        }
-      } else {
-        loadElementMap(em, domain, coords, conn, base)
-        const q = polygonPoints(pts.ref, pts.w, pts.a, pts.b, 0, sc, rule, em)
-        for (let p = 0; p < q; p++) {
-          shapeValues(type, pts.ref[3 * p], pts.ref[3 * p + 1], pts.ref[3 * p + 2], shape)
-          const wp = pts.w[p], wa = wp * pts.a[p], wb = wp * pts.b[p]
-          for (let a = 0; a < nn; a++) {
-            const na = shape[a]
-            weights[wo + 3 * a] += wp * na; weights[wo + 3 * a + 1] += wa * na; weights[wo + 3 * a + 2] += wb * na
-          }
-        }
-      }
-      entries += nn
-      n++
-      w.first[n] = entries
-    }
+    const topo = ELEMENT_TYPES[block.type]
+    if (shapeDegree(block.type) <= 1 && topo.nodeCount === 4) stencilTets(st, whole, rec, d, coords, block.conn, bi, frame)
+    else stencilBlock(st, whole, rec, d, coords, block.type, block.conn, bi, frame)
   })
+  const n = st.n, entries = st.entries
   const label = new Int32Array(n)
   let regionCount = 0
   let acc: Float64Array
   let regionParts: number[][] = []
-  const cutElements = new Int32Array(1)
-  cutElements[0] = n
   if (rec) {
     const sel = new Int32Array(n), lab = new Int32Array(n)
     const selected = selectCutElements(sel, rec, mesh, limit, whole, frame)
@@ -181,32 +135,127 @@ export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: St
     if (g > 0) perRecord[g]++
   }
   return {
-    point, normal: m, frame, count: n, block: w.block.slice(0, n), local: w.local.slice(0, n), first: w.first.slice(0, n + 1),
-    label, weights: w.weights.slice(0, 3 * entries), regionCount, acc, regionParts, cutElements: perRecord, limited: limit !== null,
+    point, normal: m, frame, count: n, block: st.block.slice(0, n), local: st.local.slice(0, n), first: st.first.slice(0, n + 1),
+    label, weights: st.weights.slice(0, 3 * entries), regionCount, acc, regionParts, cutElements: perRecord, limited: limit !== null,
     about: options.about ? [options.about[0], options.about[1], options.about[2]] : null, axes: options.axes,
   }
 }
 
+/** The per-element record of the latest stencil with regions or a limit (grows only). */
+const record = createCutRecord()
+
+/** Grows-only node distances (the stencil of each plane needs them only while it is built). */
+let distScratch = new Float64Array(0)
+
+/** Grows-only entries of the stencil being built (copied out at its end): see SectionStencil for the layout. */
+interface StencilStore {
+  n: number
+  entries: number
+  first: Int32Array
+  block: Int32Array
+  local: Int32Array
+  weights: Float64Array
+}
+const store: StencilStore = { n: 0, entries: 0, first: new Int32Array(1024), block: new Int32Array(1024), local: new Int32Array(1024), weights: new Float64Array(3 * 4096) }
+
+/** Room for `elements` more cut elements of `nn` nodes each. */
+function reserve(st: StencilStore, elements: number, nn: number): void {
+  if (st.n + elements + 1 > st.first.length) {
+    const size = Math.max(2 * st.first.length, st.n + elements + 1)
+    st.first = growInt(st.first, size); st.block = growInt(st.block, size); st.local = growInt(st.local, size)
+  }
+  const need = 3 * (st.entries + elements * nn)
+  if (need > st.weights.length) st.weights = growFloat(st.weights, Math.max(2 * st.weights.length, need))
+}
+
+// slots as module constants (imported bindings are getter calls under tsx)
+const AREA = ACC_AREA, SAB = ACC_SAB, CUT = ACC_CUT
+
+/** One element's area integrals (tetSectionWeights) before it is known to be cut: a record block's slots. */
+const ELEMENT_ACC = new Float64Array(ACC_SIZE)
+
 /**
- * Weights per vertex of the polygon in `sc` (W, WA, WB, 3 each, in the order found) for a
- * linear field: over the fan from the first vertex in polygon order, a triangle of area A adds
- * A/3 to W of each of its vertices and A/12 (Σa + a_k) to WA of vertex k (likewise b), so that
- * Σ_k W_k f_k = ∫ f dA and Σ_k WA_k f_k = ∫ a f dA for f linear.
+ * The cut tet4 of one block (4 nodes each): polygons, area integrals into `whole` (and into the
+ * record with regions or a limit), and their nodes' weights in closed form (tetSectionWeights).
  */
-function vertexWeights(out: Float64Array, sc: PolygonScratch): void {
-  const n = sc.count, order = sc.order, a = sc.a, b = sc.b
-  out.fill(0, 0, 3 * n)
-  const k0 = order[0], a0 = a[k0], b0 = b[k0]
-  for (let i = 1; i < n - 1; i++) {
-    const ki = order[i], kj = order[i + 1]
-    const ai = a[ki], bi = b[ki], aj = a[kj], bj = b[kj]
-    const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
-    const w0 = At / 3, sa = a0 + ai + aj, sb = b0 + bi + bj, h = At / 12
-    out[3 * k0] += w0; out[3 * ki] += w0; out[3 * kj] += w0
-    out[3 * k0 + 1] += h * (sa + a0); out[3 * ki + 1] += h * (sa + ai); out[3 * kj + 1] += h * (sa + aj)
-    out[3 * k0 + 2] += h * (sb + b0); out[3 * ki + 2] += h * (sb + bi); out[3 * kj + 2] += h * (sb + bj)
+function stencilTets(
+  st: StencilStore, whole: Float64Array, rec: CutRecord | null, d: Float64Array, coords: Float64Array, conn: Int32Array, bi: number, frame: Float64Array,
+): void {
+  const list = cutCandidates(d, conn, conn.length / 4, 4, 4)
+  const items = list.items, count = list.n
+  reserve(st, count, 4)
+  const cases = crossingCases('tet4'), dist = DIST
+  // imported kernels once into locals (getter calls per element under tsx)
+  const weigh = tetSectionWeights, record = recordElement
+  const first = st.first, block = st.block, local = st.local, weights = st.weights, el = ELEMENT_ACC
+  let n = st.n, entries = st.entries
+  for (let c = 0; c < count; c++) {
+    const e = items[c], base = 4 * e
+    dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
+    if (rec) {
+      for (let k = AREA; k <= SAB; k++) el[k] = 0
+      if (weigh(weights, 3 * entries, el, 0, whole, dist, coords, conn, base, cases, frame) < 3) continue
+      // the record's block holds the area integrals only (a stencil's traction comes per case)
+      const o = record(rec, bi, e), ra = rec.acc
+      for (let k = AREA; k <= SAB; k++) { ra[o + k] = el[k]; whole[k] += el[k] }
+      ra[o + CUT] = 1; whole[CUT] += 1
+    } else if (weigh(weights, 3 * entries, whole, 0, whole, dist, coords, conn, base, cases, frame) < 3) continue
+    first[n] = entries; block[n] = bi; local[n] = e
+    entries += 4
+    n++
+  }
+  first[n] = entries
+  st.n = n; st.entries = entries
+}
+
+const DIST = new Float64Array(MAX_CORNERS)
+
+/**
+ * The cut elements of one block of any other type: polygons with exact vertex ξ, area integrals,
+ * and their nodes' weights from the Dunavant points of sectionRule.ts (degree p + 1, as the
+ * single cut integrates them).
+ */
+function stencilBlock(
+  st: StencilStore, whole: Float64Array, rec: CutRecord | null, d: Float64Array, coords: Float64Array, type: ElementTypeName,
+  conn: Int32Array, bi: number, frame: Float64Array,
+): void {
+  const topo = ELEMENT_TYPES[type]
+  const nn = topo.nodeCount, cc = topo.cornerCount, count = conn.length / nn
+  const cases = crossingCases(type), domain = referenceDomain(type), rule = sectionRule(type)
+  const sc = SCRATCH, em = MAP, pts = POINTS, shape = SHAPE, dist = sc.dist
+  const list = cutCandidates(d, conn, count, nn, cc)
+  reserve(st, list.n, nn)
+  const polygon = elementPolygonRef, area = addPolygonArea, points = polygonPoints, load = loadElementMap, values = shapeValues
+  const weights = st.weights
+  for (let c = 0; c < list.n; c++) {
+    const e = list.items[c], base = nn * e
+    for (let k = 0; k < cc; k++) dist[k] = d[conn[base + k]]
+    if (polygon(sc, whole, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) continue
+    if (rec) {
+      const o = recordElement(rec, bi, e)
+      area(rec.acc, o, sc)
+      addAccumulator(whole, 0, rec.acc, o)
+    } else area(whole, 0, sc)
+    const n = st.n, wo = 3 * st.entries
+    st.first[n] = st.entries; st.block[n] = bi; st.local[n] = e
+    for (let k = 0; k < 3 * nn; k++) weights[wo + k] = 0
+    load(em, domain, coords, conn, base)
+    const q = points(pts.ref, pts.w, pts.a, pts.b, 0, sc, rule, em)
+    for (let p = 0; p < q; p++) {
+      values(type, pts.ref[3 * p], pts.ref[3 * p + 1], pts.ref[3 * p + 2], shape)
+      const wp = pts.w[p], wa = wp * pts.a[p], wb = wp * pts.b[p]
+      for (let a = 0; a < nn; a++) {
+        const na = shape[a]
+        weights[wo + 3 * a] += wp * na; weights[wo + 3 * a + 1] += wa * na; weights[wo + 3 * a + 2] += wb * na
+      }
+    }
+    st.entries += nn
+    st.n = n + 1
+    st.first[n + 1] = st.entries
   }
 }
+
+const SCRATCH = createPolygonScratch(), MAP = createElementMap(), POINTS = createSectionPoints(), SHAPE = new Float64Array(MAX_ELEMENT_NODES)
 
 /** Grows-only list of the elements with corners on both sides (local indices), like sectionCut.ts's. */
 const candidates = { items: new Int32Array(0), n: 0 }
@@ -236,6 +285,7 @@ function cutCandidates(d: Float64Array, conn: Int32Array, count: number, nn: num
   candidates.n = n
   return candidates
 }
+
 
 /**
  * A stencil compiled for one field layout: the element-node entries of each output record merged
