@@ -312,42 +312,110 @@ export function compileStencil(s: SectionStencil, mesh: Mesh, field: StressField
   const byRecord = new Int32Array(per[records])
   const fill = per.slice(0, records)
   for (let i = 0; i < s.count; i++) if (s.label[i] >= 0) byRecord[fill[s.label[i]]++] = i
-  const slot = new Int32Array(rowCount), stamp = new Int32Array(rowCount).fill(-1)
+  // element-nodal rows are each element-node's own: nothing to merge, and their order is the elements'
+  const merge = field.layout !== 'element-nodal'
+  const slot = merge ? slotScratch(rowCount) : null
   const total = s.weights.length / 3
-  const row = new Int32Array(total), w = new Float64Array(3 * total), start = new Int32Array(records + 1)
-  const W = s.weights
+  const cs = compileScratch(total)
+  const row = cs.row, w = cs.w, start = new Int32Array(records + 1)
+  const nodes = mesh.blocks.map((b) => ELEMENT_TYPES[b.type].nodeCount)
+  const mergeOne = mergeElement, copyOne = copyElement
   let k = 0
   for (let g = 0; g < records; g++) {
     start[g] = k
     const from = k
     for (let j = per[g]; j < per[g + 1]; j++) {
-      const i = byRecord[j], bi = s.block[i], rows = field.rows[bi]
-      const nn = ELEMENT_TYPES[mesh.blocks[bi].type].nodeCount, base = s.local[i] * nn
-      for (let a = 0, o = 3 * s.first[i]; a < nn; a++, o += 3) {
-        const r = rows[base + a]
-        let e = slot[r]
-        if (stamp[r] !== g) { stamp[r] = g; e = k++; slot[r] = e; row[e] = r }
-        w[3 * e] += W[o]; w[3 * e + 1] += W[o + 1]; w[3 * e + 2] += W[o + 2]
-      }
+      const i = byRecord[j], bi = s.block[i], nn = nodes[bi]
+      k = slot ? mergeOne(row, w, k, slot, field.rows[bi], s.local[i] * nn, nn, s.weights, 3 * s.first[i])
+        : copyOne(row, w, k, field.rows[bi], s.local[i] * nn, nn, s.weights, 3 * s.first[i])
     }
-    sortEntries(row, w, from, k, slot)
+    if (slot) {
+      for (let e = from; e < k; e++) slot[row[e]] = -1 // the slots are clear again for the next record
+      sortEntries(row, w, from, k, rowCount)
+    }
   }
   start[records] = k
   return { records, start, row: row.slice(0, k), w: w.slice(0, 3 * k), rows: field.rows }
 }
 
 /**
- * Sorts entries [from, to) by row (memory order of the stress values), weights alongside, by a
- * native sort of the rows and the rows' entry numbers in `slot` (valid for this record).
+ * Adds one element's entries (nn rows from rows[base ..], weights from W[o ..]) to the merged
+ * entries ending at k: a row met before in this record (slot[r] ≥ 0) adds to its entry, else
+ * opens one. Returns the new end.
  */
-function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number, slot: Int32Array): void {
+function mergeElement(
+  row: Int32Array, w: Float64Array, k: number, slot: Int32Array, rows: Int32Array, base: number, nn: number, W: Float64Array, o: number,
+): number {
+  for (let a = 0; a < nn; a++, o += 3) {
+    const r = rows[base + a]
+    let e = slot[r]
+    if (e < 0) { e = k++; slot[r] = e; row[e] = r; w[3 * e] = 0; w[3 * e + 1] = 0; w[3 * e + 2] = 0 }
+    w[3 * e] += W[o]; w[3 * e + 1] += W[o + 1]; w[3 * e + 2] += W[o + 2]
+  }
+  return k
+}
+
+/** Appends one element's entries unmerged (element-nodal rows); returns the new end. */
+function copyElement(row: Int32Array, w: Float64Array, k: number, rows: Int32Array, base: number, nn: number, W: Float64Array, o: number): number {
+  for (let a = 0; a < nn; a++, o += 3, k++) {
+    row[k] = rows[base + a]
+    w[3 * k] = W[o]; w[3 * k + 1] = W[o + 1]; w[3 * k + 2] = W[o + 2]
+  }
+  return k
+}
+
+/** Grows-only entry number per row for merging, -1 where none (cleared by its user after each record). */
+let slots = new Int32Array(0)
+function slotScratch(rowCount: number): Int32Array {
+  if (slots.length < rowCount) slots = new Int32Array(rowCount).fill(-1)
+  return slots
+}
+
+/** Grows-only room for the compiled entries (copied out at the end). */
+const compiled = { row: new Int32Array(0), w: new Float64Array(0) }
+function compileScratch(entries: number): typeof compiled {
+  if (compiled.row.length < entries) { compiled.row = new Int32Array(entries); compiled.w = new Float64Array(3 * entries) }
+  return compiled
+}
+
+/** Grows-only scratch of the radix sort (keys and entry numbers, two of each, and the weights). */
+const sorting = { keys: new Int32Array(0), keys2: new Int32Array(0), index: new Int32Array(0), index2: new Int32Array(0), w: new Float64Array(0) }
+const RADIX_BITS = 11, RADIX = 1 << RADIX_BITS
+const radixCount = new Int32Array(RADIX)
+
+/**
+ * Sorts entries [from, to) by row (memory order of the stress values), weights alongside: a
+ * least-significant-digit radix sort of the rows (11 bits a pass, as many passes as rows < rowCount
+ * need), then the weights gathered in the new order.
+ */
+function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number, rowCount: number): void {
   const n = to - from
   if (n < 2) return
-  const rows = row.slice(from, to).sort(), w2 = w.slice(3 * from, 3 * to)
+  const t = sorting
+  if (t.keys.length < n) {
+    const size = Math.max(n, 2 * t.keys.length)
+    t.keys = new Int32Array(size); t.keys2 = new Int32Array(size); t.index = new Int32Array(size); t.index2 = new Int32Array(size); t.w = new Float64Array(3 * size)
+  }
+  let keys = t.keys, index = t.index, keys2 = t.keys2, index2 = t.index2
+  for (let i = 0; i < n; i++) { keys[i] = row[from + i]; index[i] = i }
+  const bits = 32 - Math.clz32(Math.max(1, rowCount - 1)), count = radixCount
+  for (let shift = 0; shift < bits; shift += RADIX_BITS) {
+    count.fill(0)
+    for (let i = 0; i < n; i++) count[(keys[i] >>> shift) & (RADIX - 1)]++
+    for (let b = 0, sum = 0; b < RADIX; b++) { const c = count[b]; count[b] = sum; sum += c }
+    for (let i = 0; i < n; i++) {
+      const key = keys[i], p = count[(key >>> shift) & (RADIX - 1)]++
+      keys2[p] = key; index2[p] = index[i]
+    }
+    const k = keys; keys = keys2; keys2 = k
+    const x = index; index = index2; index2 = x
+  }
+  const w2 = t.w
+  for (let i = 0; i < 3 * n; i++) w2[i] = w[3 * from + i]
   for (let i = 0; i < n; i++) {
-    const r = rows[i], j = slot[r] - from
-    row[from + i] = r
-    w[3 * (from + i)] = w2[3 * j]; w[3 * (from + i) + 1] = w2[3 * j + 1]; w[3 * (from + i) + 2] = w2[3 * j + 2]
+    const j = 3 * index[i], o = 3 * (from + i)
+    row[from + i] = keys[i]
+    w[o] = w2[j]; w[o + 1] = w2[j + 1]; w[o + 2] = w2[j + 2]
   }
 }
 
