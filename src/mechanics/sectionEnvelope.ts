@@ -16,7 +16,7 @@ import type { Combination } from '../model/loadCases.ts'
 import { sameCaseName } from '../model/loadCases.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
-import type { CompiledStencil, SectionStencil, StencilOptions } from './sectionStencil.ts'
+import type { CompiledStencil, StencilOptions } from './sectionStencil.ts'
 import { CASE_SLOTS, buildSectionStencil, compileStencil, stencilIntegrals, stencilRecord } from './sectionStencil.ts'
 import type { SectionPlane, SectionResult } from './types.ts'
 
@@ -75,7 +75,8 @@ export interface SectionEnvelope {
   /** Per region (largest area first): its area, centroid, parts and envelope. */
   readonly regions: readonly { readonly area: number; readonly centroid: Vec3; readonly parts: readonly number[]; readonly envelope: ResultantEnvelope | null }[]
   readonly combinationsOnly: boolean
-  readonly stencil: SectionStencil
+  /** Element-node entries of the section's stencil (its size: what each case's pass walks before merging). */
+  readonly stencilEntries: number
 }
 
 export interface EnvelopeOptions extends StencilOptions {
@@ -90,16 +91,25 @@ export interface EnvelopeOptions extends StencilOptions {
  */
 export function sectionEnvelope(
   mesh: Mesh, cases: readonly { readonly name: string; readonly field: StressField }[], combinations: readonly Combination[],
-  plane: SectionPlane, options: EnvelopeOptions = {}, stencil: SectionStencil = buildSectionStencil(mesh, plane, options),
+  plane: SectionPlane, options: EnvelopeOptions = {},
 ): SectionEnvelope {
-  const s = stencil
+  // the stencil's element entries are views of storage the next build reuses: it is compiled
+  // (for every rows index the cases have) within this call
+  const s = buildSectionStencil(mesh, plane, options)
   const width = CASE_SLOTS * (1 + s.regionCount)
-  // one compiled stencil per rows index (every case of a model shares one)
+  // one compiled stencil per rows index (every case of a model shares one); two cases on the
+  // same rows are integrated in one walk (stencilIntegrals)
   let compiled: CompiledStencil | null = null
-  const ints = cases.map((c) => {
+  const ints = cases.map(() => new Float64Array(width))
+  for (let i = 0; i < cases.length; i++) {
+    const c = cases[i]
     if (!compiled || !sameRows(compiled.rows, c.field.rows)) compiled = compileStencil(s, mesh, c.field)
-    return stencilIntegrals(new Float64Array(width), compiled, s.normal, c.field.values)
-  })
+    const next = cases[i + 1]
+    if (next && sameRows(compiled.rows, next.field.rows)) {
+      stencilIntegrals(ints[i], compiled, s.normal, c.field.values, ints[i + 1], next.field.values)
+      i++
+    } else stencilIntegrals(ints[i], compiled, s.normal, c.field.values)
+  }
   const comboInts = combinations.map((k) => {
     const out = new Float64Array(width)
     for (const [name, f] of Object.entries(k.factors)) {
@@ -124,7 +134,7 @@ export function sectionEnvelope(
     const first = all[0].regions[g]
     return { area: first.area, centroid: first.centroid, parts: s.regionParts[g], envelope: resultantEnvelope(over.map((c) => ({ name: c.name, r: c.regions[g] }))) }
   })
-  return { cases: all, envelope, regions, combinationsOnly: options.combinationsOnly === true, stencil: s }
+  return { cases: all, envelope, regions, combinationsOnly: options.combinationsOnly === true, stencilEntries: s.entries }
 }
 
 function sameRows(a: readonly Int32Array[], b: readonly Int32Array[]): boolean {

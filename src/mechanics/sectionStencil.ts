@@ -10,8 +10,13 @@
  * moment follows from these (sectionMomentAtOrigin). The weights W, WA, WB of every cut
  * element's nodes are integrated here once, by the same polygons (elementPolygonRef, exact ξ of
  * the vertices) and the same Dunavant rules (sectionRule.ts, degree p + 1) as the single cut
- * (sectionCut.ts), so a case's figures equal the single cut's to round-off; on tet4 the degree-2
- * rule is exact for the linear traction times (1, a, b), as the closed forms there are.
+ * (sectionCut.ts), so a case's figures equal the single cut's to round-off; tet4 takes closed
+ * forms (tetSectionWeights.ts), exact for its linear field as the single cut's are.
+ *
+ * Cost (10^6 tet4, one oblique plane): the build is one pass like the single cut's, without its
+ * free body; compiling merges the element-nodes by stress row (a node is shared by about a dozen
+ * cut elements) and sorts them in memory order; each case is then one walk over those rows,
+ * bound by reading their scattered stress, so two cases share a walk (stencilIntegrals).
  *
  * Regions and limits use the cut record of sectionRegions.ts; regions are ordered by area,
  * largest first (an order that, unlike the single cut's largest-force-first, is the same for
@@ -19,7 +24,10 @@
  *
  * Units: model length; weights W in length², WA and WB in length³. Layout: cut element i is
  * element `local[i]` of block `block[i]`, its nodes' weights at weights[3·(first[i] + a) ..]
- * (W, WA, WB), its region `label[i]` (-1 when a limit leaves it out).
+ * (W, WA, WB), its region `label[i]` (-1 when a limit leaves it out). `block`, `local`, `first`
+ * and `weights` are views of grows-only storage that the next build reuses (a fresh 3 MB array
+ * per plane costs more in page faults than the whole build): compile the stencil (for every
+ * rows index it will meet) before building another.
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
@@ -49,6 +57,8 @@ export interface SectionStencil {
   readonly frame: Float64Array
   /** Cut elements (of the selection and outside it). */
   readonly count: number
+  /** Element-node entries (weights.length / 3). */
+  readonly entries: number
   readonly block: Int32Array
   readonly local: Int32Array
   readonly first: Int32Array
@@ -79,8 +89,8 @@ export interface StencilOptions {
  * Builds the stencil of `plane` on `mesh`: one pass over the nodes and the elements, then each
  * cut element's polygon and its nodes' weights. tet4 (shape-function degree 1) takes the closed
  * forms of tetSectionWeights.ts, exact for its linear field; every other type its Dunavant points
- * (elementSection.ts). Nothing is allocated per element: the entries go to grows-only scratch and
- * are copied out once at the end.
+ * (elementSection.ts). Nothing is allocated per element: the entries go to grows-only storage
+ * (views of it are valid until the next build, see above).
  */
 export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: StencilOptions = {}): SectionStencil {
   const { m, point, frame } = sectionBasis(plane, options.about)
@@ -135,8 +145,8 @@ export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: St
     if (g > 0) perRecord[g]++
   }
   return {
-    point, normal: m, frame, count: n, block: st.block.slice(0, n), local: st.local.slice(0, n), first: st.first.slice(0, n + 1),
-    label, weights: st.weights.slice(0, 3 * entries), regionCount, acc, regionParts, cutElements: perRecord, limited: limit !== null,
+    point, normal: m, frame, count: n, entries, block: st.block.subarray(0, n), local: st.local.subarray(0, n), first: st.first.subarray(0, n + 1),
+    label, weights: st.weights.subarray(0, 3 * entries), regionCount, acc, regionParts, cutElements: perRecord, limited: limit !== null,
     about: options.about ? [options.about[0], options.about[1], options.about[2]] : null, axes: options.axes,
   }
 }
@@ -147,7 +157,7 @@ const record = createCutRecord()
 /** Grows-only node distances (the stencil of each plane needs them only while it is built). */
 let distScratch = new Float64Array(0)
 
-/** Grows-only entries of the stencil being built (copied out at its end): see SectionStencil for the layout. */
+/** Grows-only entries of the latest stencil: see SectionStencil for the layout. */
 interface StencilStore {
   n: number
   entries: number
@@ -426,32 +436,81 @@ export const CASE_SLOTS = 9
  * One case's pass: the traction integrals of every record (the section, then each region) into
  * out[CASE_SLOTS·g ..] (zeroed first), from the field's values through the compiled stencil
  * (compileStencil on a field with the same rows). With regions the section is their sum.
+ * Given a second case (`out2`, `values2`), both are integrated in the same walk over the
+ * entries: the stress rows of two cases are then read side by side, twice the memory reads in
+ * flight, which is what a case's pass waits on (its rows are scattered over a large array).
  */
-export function stencilIntegrals(out: Float64Array, c: CompiledStencil, m: Vec3, values: Float64Array): Float64Array {
+export function stencilIntegrals(
+  out: Float64Array, c: CompiledStencil, m: Vec3, values: Float64Array, out2: Float64Array | null = null, values2: Float64Array | null = null,
+): Float64Array {
   const records = c.records
-  out.fill(0, 0, CASE_SLOTS * records)
   const mx = m[0], my = m[1], mz = m[2], W = c.w, row = c.row, start = c.start
   for (let g = 0; g < records; g++) {
-    let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
-    for (let e = start[g], end = start[g + 1]; e < end; e++) {
-      const r = 6 * row[e], o = 3 * e
-      const sxx = values[r], syy = values[r + 1], szz = values[r + 2], sxy = values[r + 3], syz = values[r + 4], sxz = values[r + 5]
-      const tx = sxx * mx + sxy * my + sxz * mz
-      const ty = sxy * mx + syy * my + syz * mz
-      const tz = sxz * mx + syz * my + szz * mz
-      const w0 = W[o], wa = W[o + 1], wb = W[o + 2]
-      Fx += w0 * tx; Fy += w0 * ty; Fz += w0 * tz
-      Ax += wa * tx; Ay += wa * ty; Az += wa * tz
-      Bx += wb * tx; By += wb * ty; Bz += wb * tz
-    }
-    const o = CASE_SLOTS * g
-    out[o] = Fx; out[o + 1] = Fy; out[o + 2] = Fz
-    out[o + 3] = Ax; out[o + 4] = Ay; out[o + 5] = Az
-    out[o + 6] = Bx; out[o + 7] = By; out[o + 8] = Bz
+    if (out2 && values2) recordPassPair(out, out2, CASE_SLOTS * g, start[g], start[g + 1], row, W, values, values2, mx, my, mz)
+    else recordPass(out, CASE_SLOTS * g, start[g], start[g + 1], row, W, values, mx, my, mz)
   }
   // the section is the sum of its regions (record 0 holds no element then)
-  for (let g = 1; g < records; g++) for (let k = 0; k < CASE_SLOTS; k++) out[k] += out[CASE_SLOTS * g + k]
+  for (let g = 1; g < records; g++) {
+    for (let k = 0; k < CASE_SLOTS; k++) {
+      out[k] += out[CASE_SLOTS * g + k]
+      if (out2) out2[k] += out2[CASE_SLOTS * g + k]
+    }
+  }
   return out
+}
+
+/** ∫ t dA, ∫ a t dA, ∫ b t dA over entries [from, to) of one case into out[o .. o + 9). */
+function recordPass(
+  out: Float64Array, o: number, from: number, to: number, row: Int32Array, W: Float64Array, values: Float64Array, mx: number, my: number, mz: number,
+): void {
+  let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
+  for (let e = from; e < to; e++) {
+    const r = 6 * row[e], q = 3 * e
+    const sxx = values[r], syy = values[r + 1], szz = values[r + 2], sxy = values[r + 3], syz = values[r + 4], sxz = values[r + 5]
+    const tx = sxx * mx + sxy * my + sxz * mz
+    const ty = sxy * mx + syy * my + syz * mz
+    const tz = sxz * mx + syz * my + szz * mz
+    const w0 = W[q], wa = W[q + 1], wb = W[q + 2]
+    Fx += w0 * tx; Fy += w0 * ty; Fz += w0 * tz
+    Ax += wa * tx; Ay += wa * ty; Az += wa * tz
+    Bx += wb * tx; By += wb * ty; Bz += wb * tz
+  }
+  out[o] = Fx; out[o + 1] = Fy; out[o + 2] = Fz
+  out[o + 3] = Ax; out[o + 4] = Ay; out[o + 5] = Az
+  out[o + 6] = Bx; out[o + 7] = By; out[o + 8] = Bz
+}
+
+/** recordPass for two cases in one walk (values → out, values2 → out2). */
+function recordPassPair(
+  out: Float64Array, out2: Float64Array, o: number, from: number, to: number, row: Int32Array, W: Float64Array,
+  values: Float64Array, values2: Float64Array, mx: number, my: number, mz: number,
+): void {
+  let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
+  let Gx = 0, Gy = 0, Gz = 0, Cx = 0, Cy = 0, Cz = 0, Dx = 0, Dy = 0, Dz = 0
+  for (let e = from; e < to; e++) {
+    const r = 6 * row[e], q = 3 * e
+    const w0 = W[q], wa = W[q + 1], wb = W[q + 2]
+    const sxx = values[r], syy = values[r + 1], szz = values[r + 2], sxy = values[r + 3], syz = values[r + 4], sxz = values[r + 5]
+    const uxx = values2[r], uyy = values2[r + 1], uzz = values2[r + 2], uxy = values2[r + 3], uyz = values2[r + 4], uxz = values2[r + 5]
+    const tx = sxx * mx + sxy * my + sxz * mz
+    const ty = sxy * mx + syy * my + syz * mz
+    const tz = sxz * mx + syz * my + szz * mz
+    Fx += w0 * tx; Fy += w0 * ty; Fz += w0 * tz
+    Ax += wa * tx; Ay += wa * ty; Az += wa * tz
+    Bx += wb * tx; By += wb * ty; Bz += wb * tz
+    const px = uxx * mx + uxy * my + uxz * mz
+    const py = uxy * mx + uyy * my + uyz * mz
+    const pz = uxz * mx + uyz * my + uzz * mz
+    Gx += w0 * px; Gy += w0 * py; Gz += w0 * pz
+    Cx += wa * px; Cy += wa * py; Cz += wa * pz
+    Dx += wb * px; Dy += wb * py; Dz += wb * pz
+  }
+  out[o] = Fx; out[o + 1] = Fy; out[o + 2] = Fz
+  out[o + 3] = Ax; out[o + 4] = Ay; out[o + 5] = Az
+  out[o + 6] = Bx; out[o + 7] = By; out[o + 8] = Bz
+  out2[o] = Gx; out2[o + 1] = Gy; out2[o + 2] = Gz
+  out2[o + 3] = Cx; out2[o + 4] = Cy; out2[o + 5] = Cz
+  out2[o + 6] = Dx; out2[o + 7] = Dy; out2[o + 8] = Dz
 }
 
 /**
