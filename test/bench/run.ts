@@ -11,7 +11,8 @@
  * it is cheap, its speed-up over a plain baseline (string-keyed Map boundary; per-element objects
  * section cut). Then the cost growth of every kernel per type over three sizes a decade apart, the
  * growth of the whole load (read, faces, tractions, balance, patches) from N to L, the section cut
- * per type, lines, and the peak memory of a separate process. Checks of the results run outside
+ * per type, lines, load cases (test/bench/loadCases.ts: all cases of a cut at once against one
+ * cut, the case switch, the bytes of 50 cases), and the peak memory of a separate process. Checks of the results run outside
  * the timed loops. Prints a table then the JSON; with --json only the JSON (progress to stderr).
  */
 import { spawnSync } from 'node:child_process'
@@ -36,6 +37,7 @@ import { baselineBoundary } from './baseline/boundaryBaseline.ts'
 import { baselineCut } from './baseline/cutBaseline.ts'
 import { growthExponent, measure } from './timing.ts'
 import { benchLines } from './lines.ts'
+import { benchLoadCases, loadCaseLines } from './loadCases.ts'
 import { detectAll } from './dialectDetection.ts'
 import type { Timing } from './timing.ts'
 
@@ -360,6 +362,13 @@ const loadGrowth = {
 log('lines: grid, point location, sampling, linearisation')
 const lines = benchLines(syntheticModel('tet4', ELEMENTS, SEED), SEED)
 
+// Load cases (test/bench/loadCases.ts): 50 cases and 2 combinations on tet4 and hex8 blocks, all
+// cases of a cut at once against one cut, the case switch the worker runs (tet4), their memory.
+const LOAD_CASES = 50
+log(`load cases: ${LOAD_CASES} cases and 2 combinations`)
+const loadCases = benchLoadCases(ELEMENTS, LOAD_CASES, log, { switchTypes: ['tet4'] })
+loadSamples.push(os.loadavg()[0])
+
 const tet = models.tet4
 const k = tet.kernels
 const memLimit = memory.idleRssBytes + 3 * tet.modelBytes
@@ -390,6 +399,12 @@ targets.push(atMost('tet4 element balance audit ≤ 400 ms', `tet4, ${tet.elemen
 targets.push(atMost('tet4 section cut with free body ≤ 20 ms', `tet4, ${tet.elements} elements`, k.cut.medianMs, k.cut.cpuMs, 20))
 targets.push(atMost('regions add ≤ 25 % to the tet4 cut', `tet4, ${tet.elements} elements`, k.cutRegions.medianMs / k.cut.medianMs - 1, k.cutRegions.cpuMs / k.cut.cpuMs - 1, 0.25))
 targets.push(atMost('whole load growth exponent ≤ 1.1', `tet4, ${loadGrowth.elements.join(', ')} elements`, loadGrowth.exponent, loadGrowth.exponentCpu, 1.1))
+for (const c of loadCases) {
+  const at = `${c.type}, ${c.elements} elements, ${c.cases} cases + 2 combinations`
+  targets.push(atMost('all cases of a cut at once ≤ 3 × one cut', at, c.ratio, c.ratioCpu, 3))
+  targets.push(atMost('all cases of a cut at once, per region ≤ 3 × one cut with regions', at, c.ratioRegions, c.ratioRegionsCpu, 3))
+  if (c.switchMs !== null) targets.push(atMost('case switch in the worker (to the combination of every case) ≤ 1000 ms', at, c.switchMs, c.switchCpuMs, 1000))
+}
 targets.push({ name: 'peak RSS ≤ idle + 3 × model bytes (MB)', appliesAt: `tet4, ${tet.elements} elements`, value: memory.peakRssBytes / 1e6, cpu: null, pass: memory.peakRssBytes <= memLimit, cpuPass: null })
 const totalSeconds = (performance.now() - t0All) / 1000
 
@@ -407,6 +422,7 @@ const result = {
   loadGrowth,
   sectionCutByType: cutByType,
   lines,
+  loadCases,
   baselines: { elements: baselineModel!.elements, boundary: bk.boundary, cut: bk.cut, checks: baselineModel!.checks },
   targets,
   totalSeconds,
@@ -465,6 +481,14 @@ function renderTables(): string {
   out.push(pad([['elements', ...loadGrowth.elements.map(String)], ['median ms', ...loadGrowth.timesMs.map((t) => f(t))], ['cpu ms', ...loadGrowth.cpuMs.map((t) => f(t))]]))
   out.push('')
   out.push(`Lines (tet4, ${lines.elements} elements): grid ${f(lines.gridMs)} ms (${f(lines.gridVsStreaming)} × streaming, ${f(lines.gridItemsPerElement)} entries per element), point location ${f(lines.locateUsPerPoint)} µs per point, 1000-point line ${f(lines.sampleMs)} ms, linearisation across the block ${f(lines.lineariseMs)} ms (${lines.segments} segments); checks ${Object.entries(lines.checks).map(([a, b]) => `${a} ${typeof b === 'number' ? f(b) : b}`).join(', ')}`)
+  out.push('')
+  out.push(`Load cases (${LOAD_CASES} cases + 2 combinations; all cases of a cut at once ≤ 3 × one cut, the case switch ≤ 1 s)`)
+  const mark = (ok: boolean) => (ok ? '✓' : '✗')
+  for (const c of loadCases) {
+    out.push(`${c.type}: all at once ${mark(c.ratio <= 3)} × ${f(c.ratio)} (cpu ${mark(c.ratioCpu <= 3)} × ${f(c.ratioCpu)}), per region ${mark(c.ratioRegions <= 3)} × ${f(c.ratioRegions)} (cpu ${mark(c.ratioRegionsCpu <= 3)} × ${f(c.ratioRegionsCpu)})` +
+      (c.switchMs !== null ? `; case switch ${mark(c.switchMs <= 1000)} ${f(c.switchMs)} ms (cpu ${mark(c.switchCpuMs! <= 1000)} ${f(c.switchCpuMs)} ms)` : ''))
+  }
+  for (const line of loadCaseLines(loadCases)) out.push(line)
   out.push('')
   out.push(`Memory (separate process: native read, boundary, audit, one cut; peak = VmHWM): peak ${f(memory.peakRssBytes / 1e6)} MB, idle ${f(memory.idleRssBytes / 1e6)} MB, limit idle + 3 × ${f(tet.modelBytes / 1e6)} MB = ${f(memLimit / 1e6)} MB`)
   out.push('')

@@ -9,6 +9,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import type { ElementTypeName } from '../../../src/model/elementTypes.ts'
+import type { Combination } from '../../../src/model/loadCases.ts'
 import type { Mesh } from '../../../src/model/model.ts'
 import type { StressField } from '../../../src/model/stressField.ts'
 import { nodalStressField } from '../../../src/model/stressField.ts'
@@ -95,7 +96,7 @@ describe('section stencil: all cases at once equal one single cut per case', () 
           const mesh = warpedAssembly(type, name === 'oblique')
           const fields = layout === 'nodal' ? [0, 1, 2, 3, 4].map((k) => nodalCase(mesh, seed + 100 * k)) : elementNodalCases(mesh, seed, 5)
           const cases = fields.map((field, k) => ({ name: `c${k}`, field }))
-          const combos = [{ name: 'K1', factors: { c0: 1.35, c3: 1.5 } }, { name: 'K2', factors: { c1: -0.7, c2: 1, c4: 0.25 } }]
+          const combos: Combination[] = [{ name: 'K1', factors: { c0: 1.35, c3: 1.5 } }, { name: 'K2', factors: { c1: -0.7, c2: 1, c4: 0.25 } }]
           const sum = (f: Record<string, number>): StressField => {
             const v = new Float64Array(fields[0].values.length)
             for (const [c, x] of Object.entries(f)) { const s = fields[Number(c.slice(1))].values; for (let i = 0; i < v.length; i++) v[i] += x * s[i] }
