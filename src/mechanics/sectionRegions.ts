@@ -154,23 +154,41 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
   // twin are a thin front of the cut and the table stays small enough to live in the cache (a
   // table of every crossed face, or one indexed by node, is mostly cache misses). Beside the key
   // each face keeps 8·s + f (cut element s, its corner face f): its owner and the order it was met.
-  let t = faceTable()
-  let keys = t.keys, mask = t.mask, live = 0
+  const t = faceTable()
+  t.live = 0
   // The hot loop: records come in block order, so each block's tables are read once per run;
   // corners sorted in locals (no scratch array); the part read straight from the block.
   let lastBlock = -1, conn = mesh.blocks[0].conn, cf = ELEMENT_TYPES[mesh.blocks[0].type].cornerFaces, nn = 0, nf = 0, cc = 0
-  let part: Int32Array | null = null, masks = faceMasks(cf)
+  let part: Int32Array | null = null, masks = faceMasks(cf), tet = false
   for (let s = 0; s < n; s++) {
     const i = sel[s]
     const bi = r.block[i]
     if (bi !== lastBlock) {
       const block = mesh.blocks[bi], topo = ELEMENT_TYPES[block.type]
       conn = block.conn; cf = topo.cornerFaces; nn = topo.nodeCount; nf = cf.length >> 2; part = block.part; lastBlock = bi
-      cc = topo.cornerCount; masks = faceMasks(cf)
+      cc = topo.cornerCount; masks = faceMasks(cf); tet = isTetrahedron(topo)
     }
     const local = r.local[i], base = nn * local
     const ps = part ? part[local] : 0
     partOf[s] = ps
+    if (tet) {
+      // a tetrahedron: its corners sorted once (five compares, each with its side), then face k
+      // is the other three (sorted corner k left out), already in order. Its code is 8·s + k.
+      let a = conn[base], b = conn[base + 1], c = conn[base + 2], e = conn[base + 3], x
+      let sa = d[a] < 0 ? 1 : 0, sb = d[b] < 0 ? 1 : 0, sc = d[c] < 0 ? 1 : 0, se = d[e] < 0 ? 1 : 0
+      if (a > b) { x = a; a = b; b = x; x = sa; sa = sb; sb = x }
+      if (c > e) { x = c; c = e; e = x; x = sc; sc = se; se = x }
+      if (a > c) { x = a; a = c; c = x; x = sa; sa = sc; sc = x }
+      if (b > e) { x = b; b = e; e = x; x = sb; sb = se; se = x }
+      if (b > c) { x = b; b = c; c = x; x = sb; sb = sc; sc = x }
+      // face k leaves corner k out; crossed unless its three corners lie on one side
+      const s0 = sb + sc + se, s1 = sa + sc + se, s2 = sa + sb + se, s3 = sa + sb + sc
+      if (s0 !== 0 && s0 !== 3) meet(t, b, c, e, 8 * s, s, ps, parent, partOf)
+      if (s1 !== 0 && s1 !== 3) meet(t, a, c, e, 8 * s + 1, s, ps, parent, partOf)
+      if (s2 !== 0 && s2 !== 3) meet(t, a, b, e, 8 * s + 2, s, ps, parent, partOf)
+      if (s3 !== 0 && s3 !== 3) meet(t, a, b, c, 8 * s + 3, s, ps, parent, partOf)
+      continue
+    }
     // which corners lie on the - side, read once per element (bit k: corner k)
     let below = 0
     for (let k = 0; k < cc; k++) if (d[conn[base + k]] < 0) below |= 1 << k
@@ -193,32 +211,13 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
         if (c1 > c3) { x = c1; c1 = c3; c3 = x }
         if (c1 > c2) { x = c1; c1 = c2; c2 = x }
       }
-      let h = faceHash(c0, c1, c2) & mask
-      for (;;) {
-        const o = h << 2, k0 = keys[o]
-        if (k0 < 0) {
-          keys[o] = c0; keys[o + 1] = c1; keys[o + 2] = c2; keys[o + 3] = 8 * s + f
-          live++
-          break
-        }
-        if (k0 === c0 && keys[o + 1] === c1 && keys[o + 2] === c2) {
-          const other = keys[o + 3] >> 3
-          if (partOf[other] === ps) union(parent, other, s)
-          removeFace(t, h)
-          live--
-          break
-        }
-        h = (h + 1) & mask
-      }
-      if (live > t.room) {
-        t = growFaceTable(t)
-        keys = t.keys; mask = t.mask
-      }
+      meet(t, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
     }
   }
+  const live = t.live
   // faces left unmatched by node numbers: the section's outline, or faces whose nodes only coincide
-  if (live > 1) matchCoincident(openFaces(t, live, sel, r, mesh), mesh.coords, parent, partOf)
-  else if (live === 1) clearFaceTable(t)
+  if (live > 1) matchCoincident(openFaces(table!, live, sel, r, mesh), mesh.coords, parent, partOf)
+  else if (live === 1) clearFaceTable(table!)
   // a tree's root is its first element, so it is labelled before the rest of its tree
   let count = 0
   for (let s = 0; s < n; s++) {
@@ -226,6 +225,11 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     label[s] = root === s ? count++ : label[root]
   }
   return count
+}
+
+/** Four corners and four triangular faces (tet4, tet10): labelRegions sorts the corners once. */
+function isTetrahedron(topo: { cornerCount: number; cornerFaces: Int32Array }): boolean {
+  return topo.cornerCount === 4 && topo.cornerFaces.length === 16
 }
 
 let parentScratch = new Int32Array(0), partScratch = new Int32Array(0)
@@ -257,13 +261,13 @@ function faceMasks(cf: ArrayLike<number>): Int32Array {
 /**
  * The crossed-face table of labelRegions (grows only, reused across cuts): per slot a face's
  * three smallest corners and 8·s + f, k0 = -1 on a free slot (linear probing, removal by
- * backward shift, so no tombstones). At most `room` faces (half the slots).
+ * backward shift, so no tombstones). `live` faces in it, at most `room` (half the slots).
  */
-interface FaceTable { keys: Int32Array; mask: number; room: number }
+interface FaceTable { keys: Int32Array; mask: number; room: number; live: number }
 let table: FaceTable | null = null
 
 function newFaceTable(slots: number): FaceTable {
-  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, room: slots >> 1 }
+  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, room: slots >> 1, live: 0 }
 }
 
 function faceTable(): FaceTable {
@@ -271,18 +275,40 @@ function faceTable(): FaceTable {
   return table
 }
 
-/** Twice the slots, the faces of `t` moved over. */
-function growFaceTable(t: FaceTable): FaceTable {
-  const g = newFaceTable(2 * (t.mask + 1)), keys = g.keys
-  for (let from = 0; from <= t.mask; from++) {
-    const o = from << 2
-    if (t.keys[o] < 0) continue
-    let h = faceHash(t.keys[o], t.keys[o + 1], t.keys[o + 2]) & g.mask
-    while (keys[h << 2] >= 0) h = (h + 1) & g.mask
-    for (let k = 0; k < 4; k++) keys[(h << 2) + k] = t.keys[o + k]
+/** Twice the slots, the faces moved over (in place: `t` stays the table). */
+function growFaceTable(t: FaceTable): void {
+  const old = t.keys, keys = new Int32Array(2 * old.length).fill(-1), mask = 2 * t.mask + 1
+  for (let o = 0; o < old.length; o += 4) {
+    if (old[o] < 0) continue
+    let h = faceHash(old[o], old[o + 1], old[o + 2]) & mask
+    while (keys[h << 2] >= 0) h = (h + 1) & mask
+    for (let k = 0; k < 4; k++) keys[(h << 2) + k] = old[o + k]
   }
-  table = g
-  return g
+  t.keys = keys; t.mask = mask; t.room = (mask + 1) >> 1
+}
+
+/**
+ * Cut element s (part ps) meets its crossed face (c0 < c1 < c2 its three smallest corners, code
+ * 8·s + face): the twin found joins the two elements when they are of one part and leaves the
+ * table; else the face goes in.
+ */
+function meet(t: FaceTable, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): void {
+  const keys = t.keys, mask = t.mask
+  for (let h = faceHash(c0, c1, c2) & mask; ; h = (h + 1) & mask) {
+    const o = h << 2, k0 = keys[o]
+    if (k0 < 0) {
+      keys[o] = c0; keys[o + 1] = c1; keys[o + 2] = c2; keys[o + 3] = code
+      if (++t.live > t.room) growFaceTable(t)
+      return
+    }
+    if (k0 === c0 && keys[o + 1] === c1 && keys[o + 2] === c2) {
+      const other = keys[o + 3] >> 3
+      if (partOf[other] === ps) union(parent, other, s)
+      removeFace(t, h)
+      t.live--
+      return
+    }
+  }
 }
 
 /** A hash of three node numbers (multiplicative, then the high bits folded in). */
@@ -328,6 +354,12 @@ function openFaces(t: FaceTable, live: number, sel: Int32Array, r: CutRecord, me
     const owner = code >> 3, f = code & 7, i = sel[owner], block = mesh.blocks[r.block[i]], topo = ELEMENT_TYPES[block.type]
     const base = topo.nodeCount * r.local[i], cf = topo.cornerFaces
     const nodes: number[] = []
+    if (isTetrahedron(topo)) {
+      // face f of the sorted corners leaves the f-th out (labelRegions)
+      for (let k = 0; k < 4; k++) nodes.push(block.conn[base + k])
+      nodes.sort((a, b) => a - b).splice(f, 1)
+      return { owner, nodes }
+    }
     for (let k = 0; k < 4; k++) if (cf[4 * f + k] >= 0) nodes.push(block.conn[base + cf[4 * f + k]])
     return { owner, nodes: nodes.sort((a, b) => a - b) }
   })
