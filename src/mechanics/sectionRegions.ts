@@ -145,38 +145,50 @@ export function selectCutElements(
  * first element. `d` holds the cut's snapped node distances.
  */
 export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: CutRecord, mesh: Mesh, d: Float64Array): number {
-  const parent = new Int32Array(n)
+  if (parentScratch.length < n) { parentScratch = new Int32Array(n + (n >> 2)); partScratch = new Int32Array(parentScratch.length) }
+  const parent = parentScratch, partOf = partScratch
   for (let i = 0; i < n; i++) parent[i] = i
-  const find = (i: number): number => {
-    while (parent[i] !== i) { parent[i] = parent[parent[i]]; i = parent[i] }
-    return i
-  }
-  const union = (a: number, b: number): void => {
-    const ra = find(a), rb = find(b)
-    if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb)
-  }
-  const partOf = new Int32Array(n)
-  // crossed faces by their three smallest corner numbers (enough to tell faces of a conforming
-  // mesh apart), listed per smallest corner node: a node-indexed head (small, cache-friendly)
-  // and the faces appended in order. A face's owner becomes -1 once its twin is met.
-  const t = faceLists(mesh.nodeCount, 6 * n)
-  const head = t.head
-  let list = t.list, faces = 0
+  // Crossed faces keyed by their three smallest corner numbers (enough to tell faces of a
+  // conforming mesh apart) in an open-addressing table: a face goes in when first met and out
+  // when its twin meets it. Cut elements come in element order, so the faces waiting for their
+  // twin are a thin front of the cut and the table stays small enough to live in the cache (a
+  // table of every crossed face, or one indexed by node, is mostly cache misses). Beside the key
+  // each face keeps 8·s + f (cut element s, its corner face f): its owner and the order it was met.
+  const t = faceTable()
+  t.live = 0
   // The hot loop: records come in block order, so each block's tables are read once per run;
   // corners sorted in locals (no scratch array); the part read straight from the block.
   let lastBlock = -1, conn = mesh.blocks[0].conn, cf = ELEMENT_TYPES[mesh.blocks[0].type].cornerFaces, nn = 0, nf = 0, cc = 0
-  let part: Int32Array | null = null, masks = faceMasks(cf)
+  let part: Int32Array | null = null, masks = faceMasks(cf), tet = false
   for (let s = 0; s < n; s++) {
     const i = sel[s]
     const bi = r.block[i]
     if (bi !== lastBlock) {
       const block = mesh.blocks[bi], topo = ELEMENT_TYPES[block.type]
       conn = block.conn; cf = topo.cornerFaces; nn = topo.nodeCount; nf = cf.length >> 2; part = block.part; lastBlock = bi
-      cc = topo.cornerCount; masks = faceMasks(cf)
+      cc = topo.cornerCount; masks = faceMasks(cf); tet = isTetrahedron(topo)
     }
     const local = r.local[i], base = nn * local
     const ps = part ? part[local] : 0
     partOf[s] = ps
+    if (tet) {
+      // a tetrahedron: its corners sorted once (five compares, each with its side), then face k
+      // is the other three (sorted corner k left out), already in order. Its code is 8·s + k.
+      let a = conn[base], b = conn[base + 1], c = conn[base + 2], e = conn[base + 3], x
+      let sa = d[a] < 0 ? 1 : 0, sb = d[b] < 0 ? 1 : 0, sc = d[c] < 0 ? 1 : 0, se = d[e] < 0 ? 1 : 0
+      if (a > b) { x = a; a = b; b = x; x = sa; sa = sb; sb = x }
+      if (c > e) { x = c; c = e; e = x; x = sc; sc = se; se = x }
+      if (a > c) { x = a; a = c; c = x; x = sa; sa = sc; sc = x }
+      if (b > e) { x = b; b = e; e = x; x = sb; sb = se; se = x }
+      if (b > c) { x = b; b = c; c = x; x = sb; sb = sc; sc = x }
+      // face k leaves corner k out; crossed unless its three corners lie on one side
+      const s0 = sb + sc + se, s1 = sa + sc + se, s2 = sa + sb + se, s3 = sa + sb + sc
+      if (s0 !== 0 && s0 !== 3) meet(t, b, c, e, 8 * s, s, ps, parent, partOf)
+      if (s1 !== 0 && s1 !== 3) meet(t, a, c, e, 8 * s + 1, s, ps, parent, partOf)
+      if (s2 !== 0 && s2 !== 3) meet(t, a, b, e, 8 * s + 2, s, ps, parent, partOf)
+      if (s3 !== 0 && s3 !== 3) meet(t, a, b, c, 8 * s + 3, s, ps, parent, partOf)
+      continue
+    }
     // which corners lie on the - side, read once per element (bit k: corner k)
     let below = 0
     for (let k = 0; k < cc; k++) if (d[conn[base + k]] < 0) below |= 1 << k
@@ -184,49 +196,54 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
       const m = masks[f], hit = below & m
       if (hit === 0 || hit === m) continue // the plane does not cross this face
       const o4 = 4 * f
-      let c0 = conn[base + cf[o4]], c1 = conn[base + cf[o4 + 1]], c2 = conn[base + cf[o4 + 2]]
-      const tri = cf[o4 + 3] < 0
-      let c3 = tri ? -1 : conn[base + cf[o4 + 3]]
-      // sort ascending (five compares; a triangle's -1 sorts first)
-      let x
-      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
-      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
-      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
-      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
-      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
-      const k0 = tri ? c1 : c0, k1 = tri ? c2 : c1, k2 = tri ? c3 : c2
-      let e = head[k0]
-      while (e >= 0 && !(list[FL * e + 1] === k1 && list[FL * e + 2] === k2)) e = list[FL * e + 5]
-      if (e >= 0) {
-        const other = list[FL * e + 4]
-        if (other >= 0 && partOf[other] === ps) union(other, s)
-        list[FL * e + 4] = -1
-        continue
+      let c0 = conn[base + cf[o4]], c1 = conn[base + cf[o4 + 1]], c2 = conn[base + cf[o4 + 2]], x
+      if (cf[o4 + 3] < 0) {
+        // a triangle: three compares
+        if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+        if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+        if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+      } else {
+        // a quadrilateral: its three smallest corners (five compares)
+        let c3 = conn[base + cf[o4 + 3]]
+        if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+        if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+        if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+        if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+        if (c1 > c2) { x = c1; c1 = c2; c2 = x }
       }
-      if (FL * (faces + 1) > list.length) { list = growInt(list, 2 * list.length); t.list = list }
-      const o = FL * faces
-      list[o] = k0; list[o + 1] = k1; list[o + 2] = k2; list[o + 3] = tri ? -1 : c3; list[o + 4] = s; list[o + 5] = head[k0]
-      head[k0] = faces++
+      meet(t, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
     }
   }
+  const live = t.live
   // faces left unmatched by node numbers: the section's outline, or faces whose nodes only coincide
-  const open: number[] = []
-  for (let e = 0; e < faces; e++) {
-    const o = FL * e
-    if (list[o + 4] >= 0) open.push(list[o + 4], list[o], list[o + 1], list[o + 2], list[o + 3])
-    head[list[o]] = -1
-  }
-  matchCoincident(open, mesh.coords, (a, b) => {
-    if (partOf[a] === partOf[b]) union(a, b)
-  })
-  const id = new Int32Array(n).fill(-1)
+  if (live > 1) matchCoincident(openFaces(table!, live, sel, r, mesh), mesh.coords, parent, partOf)
+  else if (live === 1) clearFaceTable(table!)
+  // a tree's root is its first element, so it is labelled before the rest of its tree
   let count = 0
   for (let s = 0; s < n; s++) {
-    const root = find(s)
-    if (id[root] < 0) id[root] = count++
-    label[s] = id[root]
+    const root = find(parent, s)
+    label[s] = root === s ? count++ : label[root]
   }
   return count
+}
+
+/** Four corners and four triangular faces (tet4, tet10): labelRegions sorts the corners once. */
+function isTetrahedron(topo: { cornerCount: number; cornerFaces: Int32Array }): boolean {
+  return topo.cornerCount === 4 && topo.cornerFaces.length === 16
+}
+
+let parentScratch = new Int32Array(0), partScratch = new Int32Array(0)
+
+/** The root of i in a union-find forest (path halving). */
+function find(parent: Int32Array, i: number): number {
+  while (parent[i] !== i) { parent[i] = parent[parent[i]]; i = parent[i] }
+  return i
+}
+
+/** Joins the trees of a and b under the smaller root (so a tree's root is its first element). */
+function union(parent: Int32Array, a: number, b: number): void {
+  const ra = find(parent, a), rb = find(parent, b)
+  if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb)
 }
 
 /** Bit masks of each corner face's corners (cornerFaces layout: 4 per face, -1 for a triangle's fourth), cached per table. */
@@ -241,61 +258,153 @@ function faceMasks(cf: ArrayLike<number>): Int32Array {
   return m
 }
 
-/** Face list stride: three smallest corners, the fourth (or -1), owner (-1 once matched), next face of the same smallest corner. */
-const FL = 6
-interface FaceLists { head: Int32Array; list: Int32Array }
-let lists: FaceLists | null = null
+/**
+ * The crossed-face table of labelRegions (grows only, reused across cuts): per slot a face's
+ * three smallest corners and 8·s + f, k0 = -1 on a free slot (linear probing, removal by
+ * backward shift, so no tombstones). `live` faces in it, at most `room` (half the slots).
+ */
+interface FaceTable { keys: Int32Array; mask: number; room: number; live: number }
+let table: FaceTable | null = null
 
-/** The grows-only face lists: a head per node (all -1) and room for about `faces` faces. */
-function faceLists(nodes: number, faces: number): FaceLists {
-  if (!lists || lists.head.length < nodes) lists = { head: new Int32Array(nodes).fill(-1), list: lists?.list ?? new Int32Array(FL * 1024) }
-  if (lists.list.length < FL * faces) lists.list = new Int32Array(FL * faces)
-  return lists
+function newFaceTable(slots: number): FaceTable {
+  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, room: slots >> 1, live: 0 }
+}
+
+function faceTable(): FaceTable {
+  if (!table) table = newFaceTable(4096)
+  return table
+}
+
+/** Twice the slots, the faces moved over (in place: `t` stays the table). */
+function growFaceTable(t: FaceTable): void {
+  const old = t.keys, keys = new Int32Array(2 * old.length).fill(-1), mask = 2 * t.mask + 1
+  for (let o = 0; o < old.length; o += 4) {
+    if (old[o] < 0) continue
+    let h = faceHash(old[o], old[o + 1], old[o + 2]) & mask
+    while (keys[h << 2] >= 0) h = (h + 1) & mask
+    for (let k = 0; k < 4; k++) keys[(h << 2) + k] = old[o + k]
+  }
+  t.keys = keys; t.mask = mask; t.room = (mask + 1) >> 1
 }
 
 /**
- * Pairs faces whose corners coincide within COINCIDENT_TOL times their size. `open` holds, per
- * face, its owner then 4 corner node numbers (-1 in the fourth for a triangle).
+ * Cut element s (part ps) meets its crossed face (c0 < c1 < c2 its three smallest corners, code
+ * 8·s + face): the twin found joins the two elements when they are of one part and leaves the
+ * table; else the face goes in.
  */
-function matchCoincident(open: number[], coords: Float64Array, pair: (a: number, b: number) => void): void {
-  interface F { owner: number; nodes: number[]; c: Vec3; tol: number }
-  const faces: F[] = []
-  for (let k = 0; k < open.length; k += 5) {
-    const owner = open[k]
-    const nc = open[k + 4] < 0 ? 3 : 4
-    const nodes = open.slice(k + 1, k + 1 + nc)
+function meet(t: FaceTable, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): void {
+  const keys = t.keys, mask = t.mask
+  for (let h = faceHash(c0, c1, c2) & mask; ; h = (h + 1) & mask) {
+    const o = h << 2, k0 = keys[o]
+    if (k0 < 0) {
+      keys[o] = c0; keys[o + 1] = c1; keys[o + 2] = c2; keys[o + 3] = code
+      if (++t.live > t.room) growFaceTable(t)
+      return
+    }
+    if (k0 === c0 && keys[o + 1] === c1 && keys[o + 2] === c2) {
+      const other = keys[o + 3] >> 3
+      if (partOf[other] === ps) union(parent, other, s)
+      removeFace(t, h)
+      t.live--
+      return
+    }
+  }
+}
+
+/** A hash of three node numbers (multiplicative, then the high bits folded in). */
+function faceHash(a: number, b: number, c: number): number {
+  const h = (Math.imul(a, 0x9e3779b1) + Math.imul(b, 0x85ebca77) + Math.imul(c, 0xc2b2ae3d)) | 0
+  return h ^ (h >>> 15)
+}
+
+/** Empties slot i: later faces of its probe run move back so every face stays reachable from its hash. */
+function removeFace(t: FaceTable, i: number): void {
+  const keys = t.keys, mask = t.mask
+  for (let j = (i + 1) & mask; ; j = (j + 1) & mask) {
+    const oj = j << 2
+    if (keys[oj] < 0) break
+    // the face at j may fill i unless its home slot lies cyclically in (i, j]
+    const home = faceHash(keys[oj], keys[oj + 1], keys[oj + 2]) & mask
+    if (((j - home) & mask) < ((j - i) & mask)) continue
+    const oi = i << 2
+    keys[oi] = keys[oj]; keys[oi + 1] = keys[oj + 1]; keys[oi + 2] = keys[oj + 2]; keys[oi + 3] = keys[oj + 3]
+    i = j
+  }
+  keys[i << 2] = -1
+}
+
+function clearFaceTable(t: FaceTable): void {
+  const keys = t.keys
+  for (let o = 0; o < keys.length; o += 4) keys[o] = -1
+}
+
+/** An open face: its owner (cut element s) and its corner node numbers, ascending. */
+interface OpenFace { owner: number; nodes: number[] }
+
+/** The `live` faces left in the table, in the order they were met; empties the table. */
+function openFaces(t: FaceTable, live: number, sel: Int32Array, r: CutRecord, mesh: Mesh): OpenFace[] {
+  const keys = t.keys, codes: number[] = []
+  for (let o = 0; o < keys.length && codes.length < live; o += 4) {
+    if (keys[o] < 0) continue
+    codes.push(keys[o + 3])
+    keys[o] = -1
+  }
+  codes.sort((a, b) => a - b)
+  return codes.map((code) => {
+    const owner = code >> 3, f = code & 7, i = sel[owner], block = mesh.blocks[r.block[i]], topo = ELEMENT_TYPES[block.type]
+    const base = topo.nodeCount * r.local[i], cf = topo.cornerFaces
+    const nodes: number[] = []
+    if (isTetrahedron(topo)) {
+      // face f of the sorted corners leaves the f-th out (labelRegions)
+      for (let k = 0; k < 4; k++) nodes.push(block.conn[base + k])
+      nodes.sort((a, b) => a - b).splice(f, 1)
+      return { owner, nodes }
+    }
+    for (let k = 0; k < 4; k++) if (cf[4 * f + k] >= 0) nodes.push(block.conn[base + cf[4 * f + k]])
+    return { owner, nodes: nodes.sort((a, b) => a - b) }
+  })
+}
+
+/** A unit direction with no simple relation to mesh axes or diagonals (0.6² + 0.48² + 0.64² = 1). */
+const SWEEP = [0.6, 0.48, 0.64] as const
+
+/**
+ * Joins the owners (of one part) of open faces whose corners coincide within COINCIDENT_TOL
+ * times their size. Candidates come from a sweep along one direction: two centroids within the
+ * tolerance are within it along any unit direction; then the centroids, then every corner.
+ */
+function matchCoincident(open: OpenFace[], coords: Float64Array, parent: Int32Array, partOf: Int32Array): void {
+  const F = open.length
+  const cx = new Float64Array(F), cy = new Float64Array(F), cz = new Float64Array(F), tol = new Float64Array(F), key = new Float64Array(F)
+  let cell = 0
+  for (let i = 0; i < F; i++) {
+    const nodes = open[i].nodes, nc = nodes.length
     const c: Vec3 = [0, 0, 0]
     for (const v of nodes) for (let j = 0; j < 3; j++) c[j] += coords[3 * v + j] / nc
     let size = 0
     for (const v of nodes) size = Math.max(size, Math.hypot(coords[3 * v] - c[0], coords[3 * v + 1] - c[1], coords[3 * v + 2] - c[2]))
-    faces.push({ owner, nodes, c, tol: COINCIDENT_TOL * size })
+    cx[i] = c[0]; cy[i] = c[1]; cz[i] = c[2]
+    tol[i] = COINCIDENT_TOL * size
+    cell = Math.max(cell, tol[i])
+    key[i] = SWEEP[0] * c[0] + SWEEP[1] * c[1] + SWEEP[2] * c[2]
   }
-  if (faces.length < 2) return
-  let cell = 0
-  for (const f of faces) cell = Math.max(cell, f.tol)
   if (!(cell > 0)) return
-  const grid = new Map<number, number[]>()
-  const q = (x: number) => Math.floor(x / cell)
-  faces.forEach((f, i) => {
-    const key = cellKey(q(f.c[0]), q(f.c[1]), q(f.c[2]))
-    const list = grid.get(key)
-    if (list) list.push(i); else grid.set(key, [i])
-  })
-  faces.forEach((f, i) => {
-    const qx = q(f.c[0]), qy = q(f.c[1]), qz = q(f.c[2])
-    for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) for (let dz = -1; dz <= 1; dz++) {
-      const list = grid.get(cellKey(qx + dx, qy + dy, qz + dz))
-      if (!list) continue
-      for (const j of list) {
-        if (j <= i) continue
-        const g = faces[j]
-        if (g.nodes.length !== f.nodes.length || f.owner === g.owner) continue
-        const tol = Math.min(f.tol, g.tol)
-        if (Math.hypot(f.c[0] - g.c[0], f.c[1] - g.c[1], f.c[2] - g.c[2]) > tol) continue
-        if (cornersCoincide(coords, f.nodes, g.nodes, tol)) pair(f.owner, g.owner)
-      }
+  // twice the largest tolerance: round-off in the keys cannot hide a pair
+  const reach = 2 * cell
+  const order: number[] = []
+  for (let i = 0; i < F; i++) if (Number.isFinite(key[i])) order.push(i)
+  order.sort((a, b) => key[a] - key[b])
+  for (let a = 0; a < order.length; a++) {
+    for (let b = a + 1; b < order.length && key[order[b]] - key[order[a]] <= reach; b++) {
+      // the earlier face first (the corner test reads the first face's corners)
+      const i = Math.min(order[a], order[b]), j = Math.max(order[a], order[b])
+      const f = open[i], g = open[j]
+      if (g.nodes.length !== f.nodes.length || f.owner === g.owner || partOf[f.owner] !== partOf[g.owner]) continue
+      const t = Math.min(tol[i], tol[j])
+      if (Math.hypot(cx[i] - cx[j], cy[i] - cy[j], cz[i] - cz[j]) > t) continue
+      if (cornersCoincide(coords, f.nodes, g.nodes, t)) union(parent, f.owner, g.owner)
     }
-  })
+  }
 }
 
 /** A numeric key of a quantised cell (collisions only cost a few extra distance tests). */
