@@ -201,7 +201,25 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   async function recover(error: AppError): Promise<void> {
     restart()
     store.getState().loadEnded(error)
-    if (lastGood) await load(lastGood, { quiet: true })
+    await reloadLastGood()
+  }
+
+  /**
+   * After a restart the fresh worker gets the last good model again, and with it the case shown
+   * and the combinations defined in the app: a new load would reset both (caseStateOfLoad), so
+   * they are put back once it is in, and the case is asked for with them.
+   */
+  async function reloadLastGood(): Promise<void> {
+    if (!lastGood) return
+    const before = store.getState()
+    const keep = before.model ? { caseName: before.caseName, combos: before.userCombinations } : null
+    const shown = await load(lastGood, { quiet: true })
+    if (!shown || !keep) return
+    const st = store.getState()
+    if (keep.combos.length > 0) st.setUserCombinations(keep.combos)
+    if (keep.caseName && keep.caseName !== st.caseName) st.chooseCase(keep.caseName)
+    // without a watch (tests, a client not yet watching) the case is asked for here
+    if (!watching && st.model && store.getState().caseName !== st.model.shownCase) runCase()
   }
 
   async function toModelSource(s: AppSource): Promise<ModelSource> {
@@ -257,7 +275,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   async function cancelLoad(): Promise<void> {
     restart()
     store.getState().loadEnded()
-    if (lastGood) await load(lastGood, { quiet: true })
+    await reloadLastGood()
   }
 
   async function refreshSurfaceArrows(): Promise<void> {
@@ -486,8 +504,11 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       })
   }
 
+  let watching = false
+
   function watch(): () => void {
-    return store.subscribe((s, p) => {
+    watching = true
+    const stop = store.subscribe((s, p) => {
       // --- load cases ---
       if (s.model && s.caseName && (s.caseName !== p.caseName || s.userCombinations !== p.userCombinations)) {
         const user = s.userCombinations.find((c) => c.name.toLowerCase() === s.caseName!.toLowerCase())
@@ -519,6 +540,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       if (s.sectionAxes !== p.sectionAxes || s.sectionLimit !== p.sectionLimit) requestCut()
       if (s.patchRule !== p.patchRule && s.model) void refreshPatches()
     })
+    return () => { watching = false; stop() }
   }
 
   /** Finds the patches again by the store's rule (the newest rule wins; an older reply is dropped). */
