@@ -14,7 +14,7 @@ import type { AnalysisInput, AnalysisStage, OffloadedStages } from '../src/mecha
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { modelStressField, nodalStressField } from '../src/model/stressField.ts'
 import { allocateStressJump, computeStressJump } from '../src/mechanics/stressJump.ts'
-import { extentAlong, sweepAlong, sweepTransfer } from './sweep.ts'
+import { extentAlong, sweepAlong, sweepCasesAlong, sweepTransfer, withCombinations } from './sweep.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { computeBalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
@@ -49,7 +49,7 @@ import type { Combination } from '../src/model/loadCases.ts'
 import { sectionEnvelope } from '../src/mechanics/sectionEnvelope.ts'
 import { runAnalysis } from '../src/mechanics/analysisPipeline.ts'
 import type { NodalInvariants, SectionResult } from '../src/mechanics/types.ts'
-import type { AssemblySummary, CaseResultant, EnvelopeReply, EnvelopeRequest } from './protocol.ts'
+import type { AssemblySummary, CaseResultant, EnvelopeReply, EnvelopeRequest, SweepCaseRequest, SweepReply } from './protocol.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
@@ -304,11 +304,6 @@ function pictureOf(
 // --- load cases ---
 
 /** The model with the app's own combinations after its own (the app's replace its own of the same name). */
-function withCombinations(model: Model, extra: readonly Combination[]): Model {
-  if (extra.length === 0) return model
-  const own = combinationsOf(model).filter((c) => !extra.some((x) => x.name.toLowerCase() === c.name.toLowerCase()))
-  return { ...model, combinations: [...own, ...extra] }
-}
 
 /** The name of case or combination `name` as the model spells it. */
 function findCaseName(model: Model, name: string): string {
@@ -465,11 +460,14 @@ const api: EngineApi = {
     }
   },
 
-  async sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice) {
+  async sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice, cases?: SweepCaseRequest) {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     const { model, faces, tractions } = current
     try {
-      const value = sweepAlong(model, faces, tractions, normal, count, from, to, axes)
+      const shown = sweepAlong(model, faces, tractions, normal, count, from, to, axes)
+      // --- load cases: every case at the same sections, each plane's stencil built once ---
+      const all = cases ? sweepCasesAlong(current.base, shown, cases) : null
+      const value: SweepReply = all ? { ...shown, cases: all } : shown
       return Comlink.transfer({ ok: true as const, value }, sweepTransfer(value))
     } catch (e) {
       const error = toAppError(e)

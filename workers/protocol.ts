@@ -24,6 +24,7 @@ import type { SectionAxesChoice, SectionAxesKind } from '../src/mechanics/sectio
 import type { InterfaceRecord, PartRecord } from '../src/mechanics/partBalance.ts'
 import type { Combination } from '../src/model/loadCases.ts'
 import type { EnvelopeEntry, ResultantEnvelope } from '../src/mechanics/sectionEnvelope.ts'
+import type { SweepCases } from '../src/mechanics/sweepEnvelope.ts'
 
 export type { ArrowMode, Plane, SectionAxesChoice, SectionAxesKind, SurfaceQuantity, Vec3 }
 export type { ComponentAxes, ComponentQuantity, EquivalentCriterion, Linearisation, ScalarExtremes }
@@ -305,6 +306,18 @@ export interface SweepReply {
   readonly empty: Uint8Array
   /** The section axes of every section: one kind and one reference (unit) for the whole sweep. */
   readonly axes: { readonly kind: SectionAxesKind; readonly reference: Vec3 }
+  /**
+   * Every load case and combination (the model's and the app's) at the same sections, and the
+   * envelope per section (src/mechanics/sweepEnvelope.ts); present when asked for and the model
+   * has more than one. The free-body residuals above are the shown case's.
+   */
+  readonly cases?: SweepCases
+}
+
+/** What a sweep over every case needs: the app's combinations, and whether the envelope ranges over combinations only. */
+export interface SweepCaseRequest {
+  readonly combinations: readonly Combination[]
+  readonly combinationsOnly?: boolean
 }
 
 // Reading the results: section axes, the patch rule, traceability, least balanced elements.
@@ -375,7 +388,7 @@ export interface EngineApi {
   cut(plane: Plane, arrows: ArrowRequest, options?: CutOptions): Promise<Outcome<CutReply>>
   probe(req: ProbeRequest): Promise<ProbeResult | null>
   /** Sections along `normal`; `from`/`to` default to the model's extent along it (length units). */
-  sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice): Promise<Outcome<SweepReply>>
+  sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice, cases?: SweepCaseRequest): Promise<Outcome<SweepReply>>
   /** The load-entry patches again, by another rule: the audit with them and the surface's patch labels. */
   patches(rule: PatchRule): Promise<Outcome<PatchReply>>
   /** The surface's stress and displacement components in `axes`. */

@@ -10,7 +10,11 @@ import { modelStressField } from '../src/model/stressField.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
 import { projectReference, referenceOf } from '../src/mechanics/sectionAxes.ts'
 import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
-import type { SweepReply } from './protocol.ts'
+import type { Combination } from '../src/model/loadCases.ts'
+import { casesOf, combinationsOf } from '../src/model/loadCases.ts'
+import { packSweepCases, SWEEP_COMPONENTS, sweepEnvelopes } from '../src/mechanics/sweepEnvelope.ts'
+import type { SweepCases } from '../src/mechanics/sweepEnvelope.ts'
+import type { SweepCaseRequest, SweepReply } from './protocol.ts'
 
 /** [min, max] of x·m over the nodes (length units); m need not be unit (unitNormal: zero is an InputError). */
 export function extentAlong(coords: Float64Array, normal: Vec3): [number, number] {
@@ -59,6 +63,32 @@ export function sweepAlong(
   return { normal: m, extent, offsets, ...out, axes: { kind: axes.kind, reference } }
 }
 
+/**
+ * Every case and combination of `base` (with the app's combinations) at the sweep's own sections,
+ * with the sweep's section axes; null when the model has a single case and no combination.
+ */
+export function sweepCasesAlong(base: Model, sweep: SweepReply, request: SweepCaseRequest): SweepCases | null {
+  const model = withCombinations(base, request.combinations)
+  if (casesOf(model).length + combinationsOf(model).length < 2) return null
+  const only = request.combinationsOnly === true && combinationsOf(model).length > 0
+  const envs = sweepEnvelopes(model, sweep.normal, sweep.offsets, { axes: sweep.axes, regions: false, combinationsOnly: only })
+  return packSweepCases(envs, only)
+}
+
+/** The model with the app's combinations after its own (an app combination replaces a model's of the same name). */
+export function withCombinations(model: Model, extra: readonly Combination[]): Model {
+  if (extra.length === 0) return model
+  const own = combinationsOf(model).filter((c) => !extra.some((x) => x.name.toLowerCase() === c.name.toLowerCase()))
+  return { ...model, combinations: [...own, ...extra] }
+}
+
 export function sweepTransfer(r: SweepReply): ArrayBuffer[] {
-  return [r.offsets, r.axial, r.shear1, r.shear2, r.torque, r.bending1, r.bending2, r.freeBodyRelative, r.freeBodyMomentRelative, r.empty].map((a) => a.buffer as ArrayBuffer)
+  const own = [r.offsets, r.axial, r.shear1, r.shear2, r.torque, r.bending1, r.bending2, r.freeBodyRelative, r.freeBodyMomentRelative, r.empty].map((a) => a.buffer as ArrayBuffer)
+  const c = r.cases
+  if (!c) return own
+  return [
+    ...own,
+    ...c.cases.flatMap((x) => SWEEP_COMPONENTS.map((key) => x[key].buffer as ArrayBuffer)),
+    ...SWEEP_COMPONENTS.flatMap((key) => { const e = c.envelope[key]; return [e.max, e.maxCase, e.min, e.minCase].map((a) => a.buffer as ArrayBuffer) }),
+  ]
 }

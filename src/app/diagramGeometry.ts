@@ -29,6 +29,8 @@ export function niceTicks(lo: number, hi: number, target = 5): number[] {
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) return []
   if (hi < lo) [lo, hi] = [hi, lo]
   if (hi === lo) return [lo]
+  // a range at round-off of its values has no steps that move a double: one tick
+  if (hi - lo <= 1e-12 * Math.max(Math.abs(lo), Math.abs(hi))) return [lo]
   const raw = (hi - lo) / target
   const mag = 10 ** Math.floor(Math.log10(raw))
   // the 1-2-5 step whose count comes closest to the target
@@ -61,7 +63,8 @@ export function diagramGeometry(
   if (!(x0 <= x1)) { x0 = 0; x1 = 1 }
   if (x0 === x1) { x0 -= 0.5; x1 += 0.5 }
   if (!(y0 <= y1)) { y0 = 0; y1 = 1 }
-  if (y0 === y1) { const a = Math.abs(y0) || 1; y0 -= 0.1 * a; y1 += 0.1 * a }
+  // a flat line up to round-off (a constant axial force along a bar) is drawn flat, with room
+  if (y1 - y0 <= 1e-9 * Math.max(Math.abs(y0), Math.abs(y1))) { const a = Math.max(Math.abs(y0), Math.abs(y1)) || 1; y0 -= 0.1 * a; y1 += 0.1 * a }
   const pad = 0.05 * (y1 - y0)
   y0 -= pad; y1 += pad
   const px = (v: number): number => plot.x + ((v - x0) / (x1 - x0)) * plot.w

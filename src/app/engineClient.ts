@@ -201,7 +201,25 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   async function recover(error: AppError): Promise<void> {
     restart()
     store.getState().loadEnded(error)
-    if (lastGood) await load(lastGood, { quiet: true })
+    await reloadLastGood()
+  }
+
+  /**
+   * After a restart the fresh worker gets the last good model again, and with it the case shown
+   * and the combinations defined in the app: a new load would reset both (caseStateOfLoad), so
+   * they are put back once it is in, and the case is asked for with them.
+   */
+  async function reloadLastGood(): Promise<void> {
+    if (!lastGood) return
+    const before = store.getState()
+    const keep = before.model ? { caseName: before.caseName, combos: before.userCombinations } : null
+    const shown = await load(lastGood, { quiet: true })
+    if (!shown || !keep) return
+    const st = store.getState()
+    if (keep.combos.length > 0) st.setUserCombinations(keep.combos)
+    if (keep.caseName && keep.caseName !== st.caseName) st.chooseCase(keep.caseName)
+    // without a watch (tests, a client not yet watching) the case is asked for here
+    if (!watching && st.model && store.getState().caseName !== st.model.shownCase) runCase()
   }
 
   async function toModelSource(s: AppSource): Promise<ModelSource> {
@@ -257,7 +275,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   async function cancelLoad(): Promise<void> {
     restart()
     store.getState().loadEnded()
-    if (lastGood) await load(lastGood, { quiet: true })
+    await reloadLastGood()
   }
 
   async function refreshSurfaceArrows(): Promise<void> {
@@ -448,13 +466,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
         requestCut()
         runComponents()
         if (now.line.from && now.line.to) runLine()
-        const sw = now.sweep
-        if (sw && sw.offsets.length > 0) {
-          now.sweepStarted()
-          void sweep(sw.normal, sw.offsets.length, sw.offsets[0], sw.offsets[sw.offsets.length - 1], now.sectionAxes).then((r) => {
-            if (gen === generation) store.getState().sweepEnded(r && r.ok ? r.value : null)
-          })
-        }
+        resweep()
       })
       .catch((e) => { if (gen === generation) { store.getState().caseShown(null); store.getState().showError({ message: `The load case could not be shown: ${e instanceof Error ? e.message : String(e)}` }) } })
       .finally(() => {
@@ -462,6 +474,18 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
         caseInFlight = false
         if (caseAgain) { caseAgain = false; runCase() }
       })
+  }
+
+  /** The last sweep again at the same sections (another case shown, other combinations). */
+  function resweep(): void {
+    const st = store.getState()
+    const sw = st.sweep
+    if (!sw || sw.offsets.length === 0) return
+    const gen = generation
+    st.sweepStarted()
+    void sweep(sw.normal, sw.offsets.length, sw.offsets[0], sw.offsets[sw.offsets.length - 1], st.sectionAxes).then((r) => {
+      if (gen === generation) store.getState().sweepEnded(r && r.ok ? r.value : null)
+    })
   }
 
   /** The envelope of the section on screen over every case and combination (when the cut card shows it). */
@@ -486,17 +510,23 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       })
   }
 
+  let watching = false
+
   function watch(): () => void {
-    return store.subscribe((s, p) => {
+    watching = true
+    const stop = store.subscribe((s, p) => {
       // --- load cases ---
+      let caseAsked = false
       if (s.model && s.caseName && (s.caseName !== p.caseName || s.userCombinations !== p.userCombinations)) {
         const user = s.userCombinations.find((c) => c.name.toLowerCase() === s.caseName!.toLowerCase())
         const changed = user !== p.userCombinations.find((c) => c.name.toLowerCase() === s.caseName!.toLowerCase())
-        if (s.caseName !== s.model.shownCase || (user && changed)) runCase()
+        if (s.caseName !== s.model.shownCase || (user && changed)) { runCase(); caseAsked = true }
       }
       if (s.envelopeOpen && (s.envelopeOpen !== p.envelopeOpen || s.envelopeCombinationsOnly !== p.envelopeCombinationsOnly ||
           s.userCombinations !== p.userCombinations || s.sectionAxes !== p.sectionAxes || s.model !== p.model && s.model?.source !== p.model?.source ||
           (s.section !== p.section && !s.section.dragging && (s.section.point !== p.section.point || s.section.normal !== p.section.normal || s.section.offset !== p.section.offset || s.section.enabled !== p.section.enabled || p.section.dragging)))) runEnvelope()
+      // other combinations: the sweep's cases and envelope again (the case shown re-sweeps in runCase)
+      if (s.sweep && !caseAsked && s.model === p.model && (s.userCombinations !== p.userCombinations || s.envelopeCombinationsOnly !== p.envelopeCombinationsOnly)) resweep()
       if (s.componentAxes !== p.componentAxes) runComponents()
       if (s.line !== p.line || (s.componentAxes !== p.componentAxes && s.line.from && s.line.to)) runLine()
       if (s.section !== p.section) {
@@ -519,6 +549,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       if (s.sectionAxes !== p.sectionAxes || s.sectionLimit !== p.sectionLimit) requestCut()
       if (s.patchRule !== p.patchRule && s.model) void refreshPatches()
     })
+    return () => { watching = false; stop() }
   }
 
   /** Finds the patches again by the store's rule (the newest rule wins; an older reply is dropped). */
@@ -535,8 +566,12 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
 
   async function sweep(normal: Vec3, count: number, from?: number, to?: number, axes?: SectionAxesChoice): Promise<Outcome<SweepReply> | null> {
     const gen = generation
+    // every case and combination at the same sections, when the model has more than one
+    const st = store.getState()
+    const many = (st.model?.cases?.length ?? 1) + (st.model?.combinations?.length ?? 0) + st.userCombinations.length > 1
+    const cases = many ? { combinations: st.userCombinations, combinationsOnly: st.envelopeCombinationsOnly } : undefined
     try {
-      const out = await enqueue<Outcome<SweepReply>>((calls) => calls.sweep(normal, count, from, to, axes))
+      const out = await enqueue<Outcome<SweepReply>>((calls) => calls.sweep(normal, count, from, to, axes, cases))
       return gen === generation ? out : null
     } catch (e) {
       if (gen !== generation) return null

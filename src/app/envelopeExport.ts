@@ -89,3 +89,30 @@ export function envelopeJson(reply: EnvelopeReply, m: ModelSummary, system: Unit
 export function shownValue(r: EnvelopeRow): string {
   return formatNumber(r.shown)
 }
+
+/** One line per component for the snapshot: largest and smallest value with unit, and their governing cases. */
+export interface EnvelopeLine {
+  readonly label: string
+  readonly largest: string
+  readonly largestCase: string
+  readonly smallest: string
+  readonly smallestCase: string
+}
+
+export function envelopeLines(reply: EnvelopeReply, m: ModelSummary, system: UnitSystem): EnvelopeLine[] {
+  const rows = envelopeRows(reply, m, system)
+  const out: EnvelopeLine[] = []
+  for (let i = 0; i + 1 < rows.length; i += 2) {
+    const hi = rows[i], lo = rows[i + 1]
+    out.push({ label: hi.label, largest: `${formatNumber(hi.shown)} ${hi.unit}`, largestCase: hi.governing ?? '—', smallest: `${formatNumber(lo.shown)} ${lo.unit}`, smallestCase: lo.governing ?? '—' })
+  }
+  return out
+}
+
+/** True when the envelope was computed on `plane` (the one on screen), up to round-off of the model's size. */
+export function envelopeOnPlane(reply: EnvelopeReply, plane: { readonly point: readonly number[]; readonly normal: readonly number[] }, size: number): boolean {
+  const a = reply.plane, n = Math.hypot(...a.normal), k = Math.hypot(...plane.normal)
+  const same = a.normal.every((v, i) => Math.abs(v / n - plane.normal[i] / k) < 1e-9)
+  const off = a.normal.reduce((s, v, i) => s + (v / n) * (a.point[i] - plane.point[i]), 0)
+  return same && Math.abs(off) <= 1e-9 * Math.max(size, 1e-300)
+}

@@ -116,7 +116,7 @@ export function patchRow(p: LoadPatch, units: ModelUnits, system: UnitSystem): P
 }
 
 /** CSV field: quote when needed, and defuse leading formula characters for spreadsheets. */
-function csvField(s: string | number): string {
+export function csvField(s: string | number): string {
   let t = String(s)
   if (/^[=+\-@]/.test(t) && typeof s === 'string') t = "'" + t
   return /[",\n\r]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t

@@ -18,7 +18,7 @@ import { LINEARISATION_CAUTION, LINEARISATION_METHOD } from '../mechanics/linear
 import type { ReviewFields } from '../state/store.ts'
 import { concurrentRows, envelopeRows, shownValue } from './envelopeExport.ts'
 import type { EnvelopeReply } from '../../workers/protocol.ts'
-import { offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
+import { envelopeAlong, envelopeAlongExtremes, offsetsInDisplay, SERIES, seriesInDisplay, sweepTable, worstResidual } from './sweepSeries.ts'
 import { interfaceTable, loadPathTable, partTable, regionTable } from './assemblyTables.ts'
 import type { AssemblySummary } from '../../workers/protocol.ts'
 
@@ -238,9 +238,67 @@ function sweepBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
   const t = sweepTable(s, units, sys)
   blocks.push({
     kind: 'table', id: 'sweep', heading: 'Sections along the part',
-    note: `${s.offsets.length} parallel sections; ${s.axes?.kind === 'reference' ? 'reference axes' : 'principal axes per section'} with one reference for all (${(s.axes?.reference ?? [0, 0, 0]).map((v) => formatNumber(denoise(v, 1e-9), 3)).join(', ')}), e₃ = m; moments about each section's centroid. Largest free-body residual (force / gross or moment / (gross · L)): ${formatNumber(worstResidual(s), 2)}.`,
+    note: `${s.cases && input.model.shownCase ? `Load case ${input.model.shownCase}: ` : ''}${s.offsets.length} parallel sections; ${s.axes?.kind === 'reference' ? 'reference axes' : 'principal axes per section'} with one reference for all (${(s.axes?.reference ?? [0, 0, 0]).map((v) => formatNumber(denoise(v, 1e-9), 3)).join(', ')}), e₃ = m; moments about each section's centroid. Largest free-body residual (force / gross or moment / (gross · L)): ${formatNumber(worstResidual(s), 2)}.`,
     head: t.head, rows: t.rows,
   })
+  return blocks
+}
+
+/**
+ * The envelope along the part (the sweep over every case and combination): per component its
+ * extremes over the whole part with where and which case governs, a diagram of the largest and
+ * smallest value per section, and the per-section table in two halves (forces, moments), each cell
+ * the value with its governing case.
+ */
+function envelopeAlongBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
+  const c = s.cases
+  const rows = c ? envelopeAlong(s, input.model.units, input.system) : null
+  if (!c || !rows) return []
+  const sys = input.system
+  const L = displayUnitLabel('length', sys)
+  const over = c.combinationsOnly ? 'the combinations only' : `every load case and combination (${c.cases.map((x) => x.name).join(', ')})`
+  const unitOf = (q: 'force' | 'moment'): string => displayUnitLabel(q, sys)
+  const blocks: ReportBlock[] = []
+  const extremes = envelopeAlongExtremes(rows)
+  blocks.push({
+    kind: 'table', id: 'envelope-along-extremes', heading: 'Envelope along the part: the extremes',
+    note: `Over ${over}, at the ${s.offsets.length} sections of the sweep; section axes as in the sweep, moments about each section's centroid. Position x·m along m = ${vec(s.normal)}.`,
+    head: ['Component', 'Largest', 'At', 'Governing case', 'Smallest', 'At', 'Governing case'],
+    rows: SERIES.map((d, i) => {
+      const e = extremes[i], u = unitOf(d.quantity)
+      if (!Number.isFinite(e.max)) return [`${d.label} ${d.symbol}`, '—', '—', '—', '—', '—', '—']
+      return [`${d.label} ${d.symbol} [${u}]`, fmt(e.max), `${fmt(e.maxAt)} ${L}`, e.maxCase ?? '—', fmt(e.min), `${fmt(e.minAt)} ${L}`, e.minCase ?? '—']
+    }),
+  })
+  const x = offsetsInDisplay(s, input.model.units, sys)
+  const Lf = convert(1, input.model.units, 'length', sys)
+  const domain: [number, number] = [s.extent[0] * Lf, s.extent[1] * Lf]
+  const M = { left: 64, right: 12, top: 10, bottom: 28 }
+  SERIES.forEach((d, i) => {
+    if (!input.shown[d.key]) return
+    const hi = Float64Array.from(rows, (r) => r.cells[i]?.maxShown ?? NaN)
+    const lo = Float64Array.from(rows, (r) => r.cells[i]?.minShown ?? NaN)
+    blocks.push({
+      kind: 'diagram', id: `diagram-envelope-${d.key}`, heading: `Envelope of ${d.label.toLowerCase()} ${d.symbol} along the part`,
+      xLabel: `Position x·m [${L}]`, yLabel: `${d.symbol} [${unitOf(d.quantity)}]`,
+      geometry: diagramGeometry(x, [{ label: `${d.symbol} largest`, colour: d.colour, values: hi }, { label: `${d.symbol} smallest`, colour: '#4a545e', values: lo }], 720, 180, M, domain),
+    })
+  })
+  const cell = (r: (typeof rows)[number], i: number, side: 'max' | 'min'): string => {
+    const e = r.cells[i]
+    if (!e) return '—'
+    const v = side === 'max' ? e.maxShown : e.minShown, g = side === 'max' ? e.maxCase : e.minCase
+    return g ? `${fmt(v)} (${g})` : fmt(v)
+  }
+  for (const q of ['force', 'moment'] as const) {
+    const keys = SERIES.map((d, i) => ({ d, i })).filter(({ d }) => d.quantity === q)
+    blocks.push({
+      kind: 'table', id: `envelope-along-${q === 'force' ? 'forces' : 'moments'}`, heading: `Envelope along the part: ${q === 'force' ? 'forces' : 'moments'} [${unitOf(q)}]`,
+      note: 'Per section the largest and the smallest value, the governing case in brackets; — where the plane misses the body.',
+      head: [`Position [${L}]`, ...keys.flatMap(({ d }) => [`${d.symbol} largest`, `${d.symbol} smallest`])],
+      rows: rows.map((r) => [fmt(r.position), ...keys.flatMap(({ i }) => [cell(r, i, 'max'), cell(r, i, 'min')])]),
+    })
+  }
   return blocks
 }
 
@@ -356,7 +414,7 @@ export function buildReportContent(input: ReportInput): ReportContent {
   if (input.section) blocks.push(sectionTable(input.section, input))
   blocks.push(...assemblyBlocks(input))
   if (input.envelope?.envelope) blocks.push(...envelopeTables(input.envelope, input))
-  if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input))
+  if (input.sweep) blocks.push(...sweepBlocks(input.sweep, input), ...envelopeAlongBlocks(input.sweep, input))
   if (input.line) blocks.push(...lineBlocks(input.line, input))
   return { title: `Review report: ${m.name || 'Unnamed model'}`, facts, caution: input.caution, blocks }
 }

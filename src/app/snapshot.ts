@@ -16,6 +16,10 @@ import { displayUnitLabel } from '../model/units.ts'
 import { TOOL_VERSION } from './version.ts'
 import { regionTable } from './assemblyTables.ts'
 import type { DisplayTable } from './assemblyTables.ts'
+import { envelopeLines, envelopeOnPlane } from './envelopeExport.ts'
+import type { EnvelopeLine } from './envelopeExport.ts'
+import { sectionPlaneOf } from '../state/selectors.ts'
+import { factorsText } from '../state/caseSlice.ts'
 
 type Picture = HTMLCanvasElement | OffscreenCanvas
 
@@ -66,6 +70,46 @@ function drawRegions(g: CanvasRenderingContext2D, t: DisplayTable, x0: number, y
   if (more > 0) g.fillText(`… and ${more} more (the exports list them all)`, x0, y0 + rowH * (shown.length + 2))
 }
 
+/** Height of the envelope table (px at scale s): title, head, a line per component. */
+const envelopeHeight = (n: number, s: number): number => Math.round(15 * s) * (n + 2) + Math.round(8 * s)
+
+/** The section's envelope over the load cases as a small table: component, largest and smallest with their governing case. */
+function drawEnvelope(g: CanvasRenderingContext2D, title: string, lines: readonly EnvelopeLine[], x0: number, y0: number, colW: number, s: number): void {
+  const rowH = Math.round(15 * s)
+  // the symbol, then each extreme right-aligned with its governing case after it (fractions of the width)
+  const cols = { hi: 0.36, hiCase: 0.38, lo: 0.8, loCase: 0.82 }
+  panel(g, x0 - Math.round(8 * s), y0 - Math.round(6 * s), colW + Math.round(16 * s), envelopeHeight(lines.length, s))
+  g.fillStyle = '#1d2329'
+  g.font = `600 ${Math.round(12 * s)}px ${FONT}`
+  g.fillText(title, x0, y0, colW)
+  g.font = `${Math.round(10 * s)}px ${FONT}`
+  const line = (l: EnvelopeLine, y: number, ink: string, caseInk: string): void => {
+    g.fillStyle = ink
+    g.textAlign = 'left'
+    g.fillText(l.label, x0, y, 0.1 * colW)
+    g.textAlign = 'right'
+    g.fillText(l.largest, x0 + cols.hi * colW, y, 0.25 * colW)
+    g.fillText(l.smallest, x0 + cols.lo * colW, y, 0.25 * colW)
+    g.textAlign = 'left'
+    g.fillStyle = caseInk
+    g.fillText(l.largestCase, x0 + cols.hiCase * colW, y, (cols.lo - 0.25 - cols.hiCase - 0.01) * colW)
+    g.fillText(l.smallestCase, x0 + cols.loCase * colW, y, (1 - cols.loCase) * colW)
+  }
+  line({ label: '', largest: 'largest', largestCase: 'governing case', smallest: 'smallest', smallestCase: 'governing case' }, y0 + rowH, '#4a545e', '#4a545e')
+  // the symbol alone (N, V₁, …, M₂): the words would crowd the figures out
+  lines.forEach((l, i) => line({ ...l, label: l.label.split(' ').pop() ?? l.label }, y0 + rowH * (i + 2), '#1d2329', '#4a545e'))
+  g.textAlign = 'left'
+}
+
+/** "Load case: dead" or "Combination: ULS (1.35 × dead + 1.5 × imposed)" for the title block; null for a model of one case. */
+function caseLine(st: TractusState): string | null {
+  const m = st.model
+  if (!m?.shownCase || ((m.cases?.length ?? 1) < 2 && !(m.combinations?.length) && st.userCombinations.length === 0)) return null
+  const name = m.shownCase.toLowerCase()
+  const combo = st.userCombinations.find((c) => c.name.toLowerCase() === name) ?? m.combinations?.find((c) => c.name.toLowerCase() === name)
+  return combo ? `Combination: ${combo.name} (${factorsText(combo)})` : `Load case: ${m.shownCase}`
+}
+
 export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: number, h: number, s: number): void {
   const L = snapshotLayout(w, h, s)
   const m = st.model
@@ -81,6 +125,7 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
     { text: title, font: `600 ${px(14)}`, colour: '#1d2329' },
     ...(review.title.trim() && m ? [{ text: `Model: ${m.name || 'Unnamed model'}`, font: px(12), colour: '#1d2329' }] : []),
     { text: `${quantityLabel(st.quantity, st.componentAxes)} [${unit}]`, font: px(12), colour: '#1d2329' },
+    ...[caseLine(st)].filter((t): t is string => t !== null).map((text) => ({ text, font: px(12), colour: '#1d2329' })),
     ...reviewLines(review).map((text) => ({ text, font: px(11), colour: '#1d2329' })),
     { text: new Date().toISOString().replace('T', ' ').slice(0, 16) + ' UTC', font: px(11), colour: '#4a545e' },
   ]
@@ -150,12 +195,28 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
     }
     // --- assemblies: the regions of the cut under the section table ---
     const regions = st.sectionResult.regions ?? []
-    if (regions.length > 1) drawRegions(g, regionTable(st.sectionResult, st.assembly, m.units, st.units), x0, y0 + rowH * (rows.length + head) + barBlock + Math.round(14 * s), colW, s)
+    const regionsY = y0 + rowH * (rows.length + head) + barBlock + Math.round(14 * s)
+    const regionRows = regions.length > 1 ? Math.min(8, regions.length) + 2 + (regions.length > 8 ? 1 : 0) : 0
+    if (regions.length > 1) drawRegions(g, regionTable(st.sectionResult, st.assembly, m.units, st.units), x0, regionsY, colW, s)
+    // --- load cases: the section's envelope, when the cut card shows it for this plane ---
+    const env = st.envelopeOpen && st.envelope?.envelope && envelopeOnPlane(st.envelope, sectionPlaneOf(st.section), modelSphere(m.bounds).diagonal) ? st.envelope : null
+    if (env) {
+      const lines = envelopeLines(env, m, st.units)
+      const over = env.combinationsOnly ? 'the combinations' : `${env.cases.length} cases and combinations`
+      const title = `Envelope over ${over}`
+      const eh = envelopeHeight(lines.length, s)
+      const below = (regionRows ? regionsY + Math.round(15 * s) * regionRows + Math.round(22 * s) : regionsY)
+      // under the section table where it fits above the footer, else bottom left
+      const fits = below + eh <= L.footer.y - L.margin
+      const envW = Math.min(Math.round(340 * s), w - 2 * L.margin)
+      const ex = fits ? w - envW - L.margin : L.margin
+      const ey = fits ? below : L.footer.y - L.margin - eh - (arrowBarShown(st) ? Math.round(64 * s) : 0)
+      drawEnvelope(g, title, lines, ex, ey, envW, s)
+    }
   }
 
   // The arrows' own colour bar, bottom left above the footer, when they do not share the surface's.
-  const arrowsShown = (st.arrowSettings.surface && st.arrows) || (st.arrowSettings.section && st.section.enabled && st.sectionBuffers)
-  const ac = arrowsShown && m ? arrowColouring(st) : null
+  const ac = arrowBarShown(st) ? arrowColouring(st) : null
   if (ac && !ac.sharedWithSurface && m) {
     const d = quantityDisplay('normalTraction', m.units, st.units)
     const bw = Math.round(220 * s), bh = Math.round(10 * s)
@@ -196,6 +257,14 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
   g.font = px(11)
   g.fillText(CAUTION, w / 2, L.caution.y + Math.round(5 * s), w - 2 * L.margin)
   g.textAlign = 'left'
+}
+
+/** True when the arrows are drawn with a colour bar of their own (not the surface's). */
+function arrowBarShown(st: TractusState): boolean {
+  const arrowsShown = (st.arrowSettings.surface && st.arrows) || (st.arrowSettings.section && st.section.enabled && st.sectionBuffers)
+  if (!arrowsShown || !st.model) return false
+  const c = arrowColouring(st)
+  return !!c && !c.sharedWithSurface
 }
 
 /** What a snapshot was made from, as short items: the input files, the tool, the stress, the units. */

@@ -123,3 +123,82 @@ export function zeroAlignedRanges(ranges: readonly (readonly [number, number])[]
     return [-below * 1.05, above * 1.05]
   })
 }
+
+// ---- Several load cases on one chart ----
+
+/** Line colours of the cases when one component is drawn (Okabe–Ito, after the component palette's neutral). */
+const CASE_COLOURS = ['#1d2329', '#0072b2', '#d55e00', '#009e73', '#cc79a7', '#e69f00', '#56b4e9', '#9a6a2a'] as const
+/** Dash patterns (px, on/off) of the cases: solid first, then ever sparser. */
+const CASE_DASHES: readonly (readonly number[])[] = [[], [7, 3], [2, 2], [9, 3, 2, 3], [4, 4], [12, 4], [2, 5], [6, 2, 2, 2, 2, 2]]
+
+/** How case `i` of the drawn ones is drawn: one component, a colour per case (and a dash); several, the component's colour and a dash per case. */
+export function caseLineStyle(i: number, oneComponent: boolean, componentColour: string): { readonly colour: string; readonly dash: readonly number[] } {
+  const dash = CASE_DASHES[i % CASE_DASHES.length]
+  return { colour: oneComponent ? CASE_COLOURS[i % CASE_COLOURS.length] : componentColour, dash }
+}
+
+/** The legend's colour of case `i`: its own when one component is drawn, a neutral ink otherwise (the dash tells it). */
+export function caseLegendColour(i: number, oneComponent: boolean): string {
+  return oneComponent ? CASE_COLOURS[i % CASE_COLOURS.length] : '#4a545e'
+}
+
+/** One case's values of one component along the sweep, in the display system (model units in the reply). */
+export function caseSeriesInDisplay(r: SweepReply, name: string, key: SeriesKey, units: ModelUnits, system: UnitSystem): Float64Array {
+  const c = r.cases?.cases.find((x) => x.name === name)
+  if (!c) throw new RangeError(`the sweep holds no case "${name}"`)
+  const f = displayFactor(units, SERIES.find((s) => s.key === key)!.quantity, system)
+  return c[key].map((v) => v * f)
+}
+
+/**
+ * The envelope along the part in the display system: per section its position and, per component,
+ * the largest and smallest value with the governing case (null where the plane misses the body).
+ * Values every digit (`value`) and after the rounding-noise rule of each section's family
+ * (`shown`, for the report), as sweepTable judges a row.
+ */
+export interface EnvelopeAlongRow {
+  readonly position: number
+  readonly cells: readonly ({ readonly key: SeriesKey; readonly max: number; readonly maxShown: number; readonly maxCase: string | null; readonly min: number; readonly minShown: number; readonly minCase: string | null } | null)[]
+}
+
+export function envelopeAlong(r: SweepReply, units: ModelUnits, system: UnitSystem): EnvelopeAlongRow[] | null {
+  const c = r.cases
+  if (!c) return null
+  const x = offsetsInDisplay(r, units, system)
+  const rows: EnvelopeAlongRow[] = []
+  for (let k = 0; k < x.length; k++) {
+    if (r.empty[k] || c.envelope.axial.maxCase[k] < 0) { rows.push({ position: x[k], cells: SERIES.map(() => null) }); continue }
+    const floorOf = (q: 'force' | 'moment'): number => noiseFloor(SERIES.filter((s) => s.quantity === q).flatMap((s) => [c.envelope[s.key].max[k], c.envelope[s.key].min[k]]))
+    const floor = { force: floorOf('force'), moment: floorOf('moment') }
+    rows.push({
+      position: x[k],
+      cells: SERIES.map((s) => {
+        const e = c.envelope[s.key], f = displayFactor(units, s.quantity, system), fl = floor[s.quantity]
+        const hi = denoise(e.max[k], fl), lo = denoise(e.min[k], fl)
+        // a component that is rounding noise in every case has no governing case
+        const noise = hi === 0 && lo === 0
+        return {
+          key: s.key, max: e.max[k] * f, maxShown: hi * f, maxCase: noise ? null : c.cases[e.maxCase[k]].name,
+          min: e.min[k] * f, minShown: lo * f, minCase: noise ? null : c.cases[e.minCase[k]].name,
+        }
+      }),
+    })
+  }
+  return rows
+}
+
+/** Per component, the extremes over the whole part (largest of the maxima, smallest of the minima) with position and governing case. */
+export function envelopeAlongExtremes(rows: readonly EnvelopeAlongRow[]): { key: SeriesKey; max: number; maxAt: number; maxCase: string | null; min: number; minAt: number; minCase: string | null }[] {
+  return SERIES.map((s, i) => {
+    let max = -Infinity, maxAt = NaN, maxCase: string | null = null, min = Infinity, minAt = NaN, minCase: string | null = null
+    for (const r of rows) {
+      const c = r.cells[i]
+      if (!c) continue
+      // ties up to round-off go to the first section (a constant force along a bar is at its start)
+      const tol = 1e-9 * Math.max(Math.abs(c.maxShown), Math.abs(c.minShown))
+      if (c.maxShown > max + tol) { max = c.maxShown; maxAt = r.position; maxCase = c.maxCase }
+      if (c.minShown < min - tol) { min = c.minShown; minAt = r.position; minCase = c.minCase }
+    }
+    return { key: s.key, max, maxAt, maxCase, min, minAt, minCase }
+  })
+}

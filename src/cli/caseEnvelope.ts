@@ -15,20 +15,14 @@ import { num, table, vecJson, vecPlain, vecQty } from './format.ts'
 import { combinationsOnly } from './caseOption.ts'
 import { regionsJson, sectionJson, sectionLimitOf, sectionText, meshSize } from './cut.ts'
 import type { Model, Vec3 } from '../model/model.ts'
-import { caseNames, casesOf, combinationsOf, modelForCase } from '../model/loadCases.ts'
-import { modelStressField, nodalStressField } from '../model/stressField.ts'
+import { caseNames, combinationsOf, modelForCase } from '../model/loadCases.ts'
+import { modelStressField } from '../model/stressField.ts'
 import { cutSection } from '../mechanics/sectionCut.ts'
 import type { SectionAxesChoice } from '../mechanics/sectionAxes.ts'
-import { sectionEnvelope } from '../mechanics/sectionEnvelope.ts'
-import type { EnvelopeEntry, EnvelopeOptions, ResultantEnvelope, SectionEnvelope } from '../mechanics/sectionEnvelope.ts'
+import type { EnvelopeEntry, ResultantEnvelope, SectionEnvelope } from '../mechanics/sectionEnvelope.ts'
+import { modelEnvelope, sweepEnvelopes } from '../mechanics/sweepEnvelope.ts'
 import type { SectionPlane } from '../mechanics/types.ts'
 import { denoise, noiseFloor } from '../model/roundingNoise.ts'
-
-/** The envelope of every case and combination of `model` on one plane. */
-export function modelEnvelope(model: Model, plane: SectionPlane, options: EnvelopeOptions): SectionEnvelope {
-  const cases = casesOf(model).map((c) => ({ name: c.name, field: c.stressField ?? nodalStressField(model.mesh, c.stress) }))
-  return sectionEnvelope(model.mesh, cases, combinationsOf(model), plane, { regions: true, ...options })
-}
 
 /** An envelope as JSON: {axial: {max, maxCase, min, minCase}, torque, shear: [.., ..], bending: [.., ..]} in the view's units. */
 export function envelopeJson(e: ResultantEnvelope | null, u: UnitView): Record<string, unknown> | null {
@@ -110,7 +104,7 @@ export function sweepAllCases(loaded: LoadedModel, args: ParsedArgs, io: CliIO, 
   const model = loaded.model
   const u = createUnitView(model.units, unitChoice(args))
   const only = combinationsOnly(model, args)
-  const envs = offsets.map((o) => modelEnvelope(model, { point: [o * normal[0], o * normal[1], o * normal[2]], normal }, { axes, combinationsOnly: only }))
+  const envs = sweepEnvelopes(model, normal, offsets, { axes, combinationsOnly: only })
   const fl = u.factor('length')
   if (args.options.json) {
     printJson(io, {

@@ -469,7 +469,7 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
       // A new part gets a cut across its longest extent, through its centre.
       section: { ...DEFAULT_SECTION, enabled: prev.enabled, normal: longestAxis(summary.bounds), hide: prev.hide, traction: prev.traction, point: centre },
       // Old diagrams never sit on a new part.
-      sweep: null,
+      sweep: null, sweepCases: [],
       // Nor an old line; the new model's displacement, components and extremes come with it.
       line: { ...get().line, from: null, to: null }, linePicking: 'off', lineResult: null, lineError: null,
       ...shapeOfLoad(loaded),

@@ -9,6 +9,9 @@ import { formatNumber } from '../format.ts'
 import { sectionPlaneOf } from '../../state/selectors.ts'
 import { useStore } from '../../state/store.ts'
 import { offsetForPosition, positionAlong, SERIES, worstResidual } from '../sweepSeries.ts'
+import { download, fileStem } from '../exports.ts'
+import { sweepCsv, sweepJson } from '../sweepExport.ts'
+import { drawnSweepCases } from '../../state/sweepSlice.ts'
 import './sweepCard.css'
 
 type Direction = 'section' | 'x' | 'y' | 'z'
@@ -35,6 +38,8 @@ export function SweepCard() {
   const [countError, setCountError] = useState('')
   const [error, setError] = useState('')
   const axes = useStore((s) => s.sectionAxes)
+  const picked = useStore((s) => s.sweepCases)
+  const showSweepCase = useStore((s) => s.showSweepCase)
 
   if (!model) return null
   const run = async (): Promise<void> => {
@@ -53,6 +58,8 @@ export function SweepCard() {
     const st = useStore.getState()
     st.setSection({ enabled: true, normal: [...sweep.normal] as Vec3, offset: offsetForPosition(position, st.section.point, sweep.normal) })
   }
+  const drawn = drawnSweepCases(sweep, picked)
+  const shownCase = model.shownCase ?? null
   const Lu = displayUnitLabel('length', system)
   const Lf = displayFactor(model.units, 'length', system)
   return (
@@ -83,6 +90,17 @@ export function SweepCard() {
             </label>
           ))}
         </div>
+        {sweep?.cases ? (
+          <div className="row sweep-cases" role="group" aria-label="Load cases to draw" data-testid="sweep-cases">
+            <span className="lbl" title="Draw these load cases and combinations, one line each; none ticked: the case shown">Cases</span>
+            {sweep.cases.cases.map((c) => (
+              <label key={c.name} className="check" title={c.kind === 'combination' ? 'combination' : 'load case'}>
+                <input type="checkbox" data-testid={`sweep-case-${c.name}`} checked={drawn.includes(c.name)} onChange={(e) => showSweepCase(c.name, e.target.checked)} />
+                {c.kind === 'combination' ? <i>{c.name}</i> : c.name}
+              </label>
+            ))}
+          </div>
+        ) : null}
         {countError ? <p className="note bad" data-testid="sweep-count-error">{countError}</p> : null}
         {error ? <p className="note bad" data-testid="sweep-error">{error}</p> : null}
         {sweep ? (
@@ -91,11 +109,16 @@ export function SweepCard() {
               {sweep.offsets.length} sections along m = ({sweep.normal.map((v) => formatNumber(v, 3)).join(', ')}), end to end over x·m = {formatNumber(sweep.extent[0] * Lf)} … {formatNumber(sweep.extent[1] * Lf)} {Lu}.
               {' '}{sweep.axes.kind === 'principal' ? 'Principal axes per section' : 'Reference axes'}, one reference for all: ({sweep.axes.reference.map((v) => formatNumber(Math.abs(v) < 1e-12 ? 0 : v, 3)).join(', ')}); moments about each centroid.
             </p>
-            <SweepChart sweep={sweep} units={model.units} system={system} shown={shown} marker={marker} onPick={pick} />
+            <SweepChart sweep={sweep} units={model.units} system={system} shown={shown} cases={drawn} shownCase={shownCase} marker={marker} onPick={pick} />
             <p className="note" data-testid="sweep-trust">
               Free-body residual (force / gross, moment / (gross · L)), largest along the part: <span className="num" data-model={String(worstResidual(sweep))}>{formatNumber(worstResidual(sweep), 2)}</span>
               {section.enabled && marker === null ? ' · the section is not parallel to these planes; click the chart to align it.' : ''}
             </p>
+            <div className="row">
+              <button type="button" data-testid="export-sweep-csv" onClick={() => download(`${fileStem(model.name)}-sweep.csv`, sweepCsv(model, sweep, system, drawn, shownCase), 'text/csv')}>Sweep CSV</button>
+              <button type="button" data-testid="export-sweep-json" onClick={() => download(`${fileStem(model.name)}-sweep.json`, sweepJson(model, sweep, system, drawn, shownCase), 'application/json')}>Sweep JSON</button>
+              {sweep.cases ? <span className="note">{drawn.length ? `${drawn.length} case${drawn.length > 1 ? 's' : ''}` : 'the case shown'} and the envelope over {sweep.cases.combinationsOnly ? 'the combinations' : 'every case and combination'}</span> : null}
+            </div>
           </>
         ) : <p className="note">Run to cut the part at evenly spaced planes from end to end.</p>}
       </div>

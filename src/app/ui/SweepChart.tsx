@@ -12,13 +12,18 @@ import { displayFactor, displayUnitLabel } from '../../model/units.ts'
 import type { SeriesKey, SweepReply } from '../../../workers/protocol.ts'
 import { denoise, formatNumber, noiseFloor } from '../format.ts'
 import { useBoxWidth } from './useBoxWidth.ts'
-import { offsetsInDisplay, SERIES, seriesInDisplay, zeroAlignedRanges } from '../sweepSeries.ts'
+import { caseLegendColour, caseLineStyle, caseSeriesInDisplay, offsetsInDisplay, SERIES, seriesInDisplay, zeroAlignedRanges } from '../sweepSeries.ts'
+import type { SeriesInfo } from '../sweepSeries.ts'
 
 export interface SweepChartProps {
   readonly sweep: SweepReply
   readonly units: ModelUnits
   readonly system: UnitSystem
   readonly shown: Readonly<Record<SeriesKey, boolean>>
+  /** Load cases drawn, one line each per component (names of `sweep.cases`); empty: the case shown. */
+  readonly cases?: readonly string[]
+  /** The case shown (named in the legend of the free-body residual when several are drawn). */
+  readonly shownCase?: string | null
   /** Live section position along the sweep direction (model length units), or null. */
   readonly marker: number | null
   readonly onPick: (position: number) => void
@@ -64,7 +69,19 @@ function decades(_u: uPlot, _axis: number, min: number, max: number): number[] {
   return out.filter((_, i) => (out.length - 1 - i) % step === 0)
 }
 
-export function SweepChart({ sweep, units, system, shown, marker, onPick }: SweepChartProps) {
+/** One line of the main plot: a component of the case shown, or of one of the drawn cases. */
+interface Line {
+  readonly s: SeriesInfo
+  /** The case, or null for the case shown (the sweep's own figures). */
+  readonly name: string | null
+  readonly colour: string
+  readonly dash: readonly number[]
+}
+
+/** SVG dash attribute of a uPlot dash pattern (empty: solid). */
+const dashAttr = (d: readonly number[]): string | undefined => (d.length ? d.join(' ') : undefined)
+
+export function SweepChart({ sweep, units, system, shown, cases = [], shownCase = null, marker, onPick }: SweepChartProps) {
   const box = useRef<HTMLDivElement>(null)
   const resBox = useRef<HTMLDivElement>(null)
   const plots = useRef<uPlot[]>([])
@@ -77,13 +94,18 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
   markerRef.current = marker === null ? null : marker * Lf
 
   const keys = SERIES.filter((s) => shown[s.key])
-  const shownKey = keys.map((s) => s.key).join(',')
+  const drawn = sweep.cases ? cases.filter((n) => sweep.cases!.cases.some((c) => c.name === n)) : []
+  const one = keys.length === 1
+  const lines: Line[] = drawn.length
+    ? drawn.flatMap((name, ci) => keys.map((s) => ({ s, name, ...caseLineStyle(ci, one, s.colour) })))
+    : keys.map((s) => ({ s, name: null, colour: s.colour, dash: [] }))
+  const shownKey = keys.map((s) => s.key).join(',') + '|' + drawn.join('\u0000')
 
   useEffect(() => {
     if (!box.current || !resBox.current) return
     const x = Array.from(offsetsInDisplay(sweep, units, system))
     const empty = sweep.empty
-    const ys = keys.map((s) => Array.from(seriesInDisplay(sweep, s.key, units, system), (v, k) => (empty[k] ? null : v)))
+    const ys = lines.map((l) => Array.from(l.name === null ? seriesInDisplay(sweep, l.s.key, units, system) : caseSeriesInDisplay(sweep, l.name, l.s.key, units, system), (v, k) => (empty[k] ? null : v)))
     const hasF = keys.some((s) => s.quantity === 'force'), hasM = keys.some((s) => s.quantity === 'moment')
     const Fu = displayUnitLabel('force', system), Mu = displayUnitLabel('moment', system), Lu = displayUnitLabel('length', system)
     const fmtTick = (_u: uPlot, vals: number[]): string[] => vals.map((v) => formatNumber(v, 3))
@@ -95,7 +117,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
     // Force and moment axes share their zero line (see zeroAlignedRanges).
     const extentOf = (q: 'force' | 'moment'): [number, number] => {
       let lo = Infinity, hi = -Infinity
-      keys.forEach((s, i) => {
+      lines.forEach(({ s }, i) => {
         if (s.quantity !== q) return
         for (const v of ys[i]) if (v !== null) { if (v < lo) lo = v; if (v > hi) hi = v }
       })
@@ -113,7 +135,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
         M: aligned ? { auto: false, range: () => aligned[1] } : { auto: true },
       },
       axes,
-      series: [{ label: `Position [${Lu}]` }, ...keys.map((s) => ({ label: s.symbol, scale: s.quantity === 'force' ? 'F' : 'M', stroke: s.colour, width: 1.6, points: { show: false } }))],
+      series: [{ label: `Position [${Lu}]` }, ...lines.map((l) => ({ label: l.name === null ? l.s.symbol : `${l.name} ${l.s.symbol}`, scale: l.s.quantity === 'force' ? 'F' : 'M', stroke: l.colour, width: 1.6, dash: [...l.dash], points: { show: false } }))],
       plugins: [markerPlugin(() => markerRef.current)],
       hooks: { setCursor: [(u) => setIdx(u.cursor.idx ?? null)] },
     }, [x, ...ys] as uPlot.AlignedData, box.current)
@@ -144,7 +166,7 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
       resid.destroy()
       plots.current = []
     }
-    // `keys` follows from shownKey, so it is not a dependency of its own
+    // `keys` and `lines` follow from shownKey, so they are not dependencies of their own
   }, [sweep, units, system, shownKey, width, Lf])
 
   // The marker moves without rebuilding the plots.
@@ -156,13 +178,36 @@ export function SweepChart({ sweep, units, system, shown, marker, onPick }: Swee
   return (
     <div className="sweep-chart">
       <div ref={box} data-testid="sweep-chart" />
-      <div className="sweep-res-title">Free-body residual, log scale: force / gross load (solid), moment / (gross load · L) (dashed)</div>
+      {drawn.length ? (
+        <ul className="sweep-legend" data-testid="sweep-legend" aria-label="Load cases drawn">
+          {drawn.map((name, ci) => (
+            <li key={name} data-case={name}>
+              <svg width="26" height="8" aria-hidden><line x1="1" y1="4" x2="25" y2="4" stroke={caseLegendColour(ci, one)} strokeWidth="2" strokeDasharray={dashAttr(caseLineStyle(ci, one, '').dash)} /></svg>
+              {name}
+            </li>
+          ))}
+          {one ? null : <li className="note">colour: the component</li>}
+        </ul>
+      ) : null}
+      <div className="sweep-res-title">Free-body residual{drawn.length && shownCase ? ` of the case shown (${shownCase})` : ''}, log scale: force / gross load (solid), moment / (gross load · L) (dashed)</div>
       <div ref={resBox} data-testid="sweep-residual" />
       <div className="sweep-readout" data-testid="sweep-readout" aria-live="polite">
         {k === null ? <span className="note">Hover to read values; click to move the section there.</span> : (
           <>
             <span data-readout="position">x·m = {formatNumber(sweep.offsets[k] * Lf)} <span className="unit">{displayUnitLabel('length', system)}</span></span>
-            {sweep.empty[k] ? <span className="note">misses the body</span> : keys.map((s) => (
+            {sweep.empty[k] ? <span className="note">misses the body</span> : drawn.length ? drawn.map((name) => (
+              <span key={name} data-readout-case={name} className="sweep-readout-case">
+                <b>{name}</b>{keys.map((s) => {
+                  const c = sweep.cases!.cases.find((x) => x.name === name)!
+                  const floor = noiseFloor(SERIES.filter((x) => x.quantity === s.quantity).map((x) => c[x.key][k]))
+                  return (
+                    <span key={s.key} data-readout={s.key} style={{ color: one ? undefined : s.colour }}>
+                      {' '}{s.symbol} = {formatNumber(denoise(c[s.key][k], floor) * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
+                    </span>
+                  )
+                })}
+              </span>
+            )) : keys.map((s) => (
               <span key={s.key} data-readout={s.key} style={{ color: s.colour }}>
                 {s.symbol} = {formatNumber(denoise(sweep[s.key][k], floorOf(s.quantity, k)) * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
               </span>

@@ -8,6 +8,9 @@ describe('diagram geometry', () => {
     expect(niceTicks(0, 0.28).map((v) => +v.toFixed(12))).toEqual([0, 0.05, 0.1, 0.15, 0.2, 0.25])
     expect(niceTicks(-3.7, 1.2).map((v) => +v.toFixed(12))).toEqual([-3, -2, -1, 0, 1])
     expect(niceTicks(2, 2)).toEqual([2])
+    // a range at round-off of its values (a constant force along a bar) ends; it once grew its list without end
+    expect(niceTicks(0.004999999999999996, 0.004999999999999997)).toEqual([0.004999999999999996])
+    expect(diagramGeometry([0, 1], [{ label: 'N', colour: '#000', values: [0.004999999999999996, 0.004999999999999997] }], 200, 100).yTicks.length).toBeGreaterThan(1)
     expect(niceTicks(NaN, 1)).toEqual([])
   })
 

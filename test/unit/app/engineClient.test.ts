@@ -15,7 +15,7 @@ import type { AppSource, EngineConnection } from '../../../src/app/engineClient.
 import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
 import type { SectionResult } from '../../../src/mechanics/types.ts'
 import type {
-  ArrowRequest, AuditSummary, CutOptions, CutReply, EngineCalls, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
+  ArrowRequest, AuditSummary, Combination, CutOptions, CutReply, EngineCalls, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
 } from '../../../workers/protocol.ts'
 
 interface Deferred<T> { readonly promise: Promise<T>; resolve(v: T): void }
@@ -31,6 +31,7 @@ class FakeWorker {
   readonly loads: { source: ModelSource; reply: Deferred<Outcome<LoadedModel>>; rule?: PatchRule }[] = []
   readonly cuts: { plane: Plane; arrows: ArrowRequest; options?: CutOptions; reply: Deferred<Outcome<CutReply>> }[] = []
   readonly patchRules: { rule: PatchRule; reply: Deferred<Outcome<PatchReply>> }[] = []
+  readonly shownCases: { name: string; combinations: readonly Combination[] }[] = []
   terminated = false
   constructor(readonly onFailure: (message: string) => void) {}
   readonly calls: EngineCalls = {
@@ -43,7 +44,7 @@ class FakeWorker {
     components: async () => ({ ok: false, error: { message: 'not in this test' } }),
     line: async () => ({ ok: false, error: { message: 'not in this test' } }),
     lineThroughWall: async () => null,
-    showCase: async () => ({ ok: false, error: { message: 'not in this test' } }),
+    showCase: async (name, combinations) => { this.shownCases.push({ name, combinations }); return { ok: false, error: { message: 'not in this test' } } },
     envelope: async () => ({ ok: false, error: { message: 'not in this test' } }),
     patches: (rule) => { const reply = deferred<Outcome<PatchReply>>(); this.patchRules.push({ rule, reply }); return reply.promise },
     dispose: async () => undefined,
@@ -242,6 +243,35 @@ describe('engine client: restarts', () => {
     fresh.cuts[0].reply.resolve(cutReply(1))
     await t.frame()
     expect(shownX(t.store.getState().sectionResult)).toBe(1)
+  })
+
+  it('a restarted worker gets the combinations defined in the app and the case shown', async () => {
+    const t = setUp()
+    t.client.watch()
+    const done = t.client.load(BLOCK('A'))
+    await settle()
+    const withCases = (): Outcome<LoadedModel> => {
+      const r = loaded('A')
+      if (!r.ok) throw new Error('unreachable')
+      const cases = ['dead', 'live'].map((name) => ({ name, description: '', bodyForce: [0, 0, 0] as [number, number, number], displacement: false }))
+      return { ok: true, value: { ...r.value, summary: { ...r.value.summary, cases, shownCase: 'dead' } } }
+    }
+    t.workers[0].loads[0].reply.resolve(withCases())
+    expect(await done).toBe(true)
+    const combo: Combination = { name: 'ULS', factors: { dead: 1.35, live: 1.5 } }
+    t.store.getState().saveCombination(combo)
+    t.store.getState().chooseCase('ULS')
+    await settle()
+    expect(t.workers[0].shownCases).toEqual([{ name: 'ULS', combinations: [combo] }])
+    // The worker dies: the fresh one reloads the model and is sent the app's combination again.
+    t.workers[0].onFailure('boom')
+    await settle()
+    const fresh = t.workers[1]
+    fresh.loads[0].reply.resolve(withCases())
+    await t.frame()
+    expect(t.store.getState().userCombinations).toEqual([combo])
+    expect(t.store.getState().caseName).toBe('ULS')
+    expect(fresh.shownCases).toEqual([{ name: 'ULS', combinations: [combo] }])
   })
 
   it('cancel keeps the last good model, reloads it in a fresh worker and ignores the cancelled load', async () => {
