@@ -48,29 +48,34 @@ export function measureElement(out: Float64Array, scratch: Float64Array, coords:
     out[0] = sixTetVolume(scratch, 0, 3, 6, 9) / 6
     return out
   }
-  const faces = topo.cornerFaces, faceCount = faces.length / 4
+  const v6 = cornerFaceSum(scratch, topo.cornerFaces)
+  out[0] = v6 / 6
+  return out
+}
+
+/**
+ * Six times the volume of the closed polyhedron of the corner faces (`faces`: 4 corner numbers a
+ * face, -1 for a triangle's fourth), corners 3 a number in `s`, as cones from the origin: a
+ * triangle a·(b×c); a quad split into four triangles about its centre m = (a+b+c+d)/4, whose
+ * four cones sum to m·(a×b + b×c + c×d + d×a) = m·((c-a)×(d-b)), one cross product a face.
+ */
+function cornerFaceSum(s: Float64Array, faces: Int32Array): number {
   let v6 = 0
-  for (let f = 0; f < faceCount; f++) {
-    const a = 3 * faces[4 * f], b = 3 * faces[4 * f + 1], c = 3 * faces[4 * f + 2], d4 = faces[4 * f + 3]
+  for (let f = 0; f < faces.length; f += 4) {
+    const a = 3 * faces[f], b = 3 * faces[f + 1], c = 3 * faces[f + 2], d4 = faces[f + 3]
     if (d4 < 0) {
-      // Triangle face: one cone with apex at the centroid (the origin here): a·(b×c).
-      v6 += scratch[a] * (scratch[b + 1] * scratch[c + 2] - scratch[b + 2] * scratch[c + 1])
-        + scratch[a + 1] * (scratch[b + 2] * scratch[c] - scratch[b] * scratch[c + 2])
-        + scratch[a + 2] * (scratch[b] * scratch[c + 1] - scratch[b + 1] * scratch[c])
+      v6 += s[a] * (s[b + 1] * s[c + 2] - s[b + 2] * s[c + 1])
+        + s[a + 1] * (s[b + 2] * s[c] - s[b] * s[c + 2])
+        + s[a + 2] * (s[b] * s[c + 1] - s[b + 1] * s[c])
       continue
     }
     const d = 3 * d4
-    // Quad face split into four triangles about its centre m = (a+b+c+d)/4: the four cones sum to
-    // m·(a×b + b×c + c×d + d×a) = m·((c-a)×(d-b)), one cross product per face.
-    const ux = scratch[c] - scratch[a], uy = scratch[c + 1] - scratch[a + 1], uz = scratch[c + 2] - scratch[a + 2]
-    const wx = scratch[d] - scratch[b], wy = scratch[d + 1] - scratch[b + 1], wz = scratch[d + 2] - scratch[b + 2]
-    const mx = scratch[a] + scratch[b] + scratch[c] + scratch[d]
-    const my = scratch[a + 1] + scratch[b + 1] + scratch[c + 1] + scratch[d + 1]
-    const mz = scratch[a + 2] + scratch[b + 2] + scratch[c + 2] + scratch[d + 2]
+    const ux = s[c] - s[a], uy = s[c + 1] - s[a + 1], uz = s[c + 2] - s[a + 2]
+    const wx = s[d] - s[b], wy = s[d + 1] - s[b + 1], wz = s[d + 2] - s[b + 2]
+    const mx = s[a] + s[b] + s[c] + s[d], my = s[a + 1] + s[b + 1] + s[c + 1] + s[d + 1], mz = s[a + 2] + s[b + 2] + s[c + 2] + s[d + 2]
     v6 += (mx * (uy * wz - uz * wy) + my * (uz * wx - ux * wz) + mz * (ux * wy - uy * wx)) / 4
   }
-  out[0] = v6 / 6
-  return out
+  return v6
 }
 
 /** Result of checking one block: local indices of inverted elements, first degenerate one or -1. */
@@ -104,14 +109,12 @@ export function checkBlockOrientation(coords: Float64Array, type: ElementTypeNam
 function checkPolyhedronOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
   const topo = elementType(type)
   const nc = topo.cornerCount
-  const faces = topo.cornerFaces, faceCount = faces.length >> 2
+  const faces = topo.cornerFaces, faceSum = cornerFaceSum
   if (nc === 8 && sameTable(faces, HEX_CORNER_FACES)) return checkHexOrientation(x, conn, nn, type)
   const count = (conn.length / nn) | 0
-  const inv = new InvertedList()
+  const run = new OrientationRun(), inv = run.inv
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
   const s = new Float64Array(3 * nc)
-  const out = new Float64Array(2)
-  const scratch = new Float64Array(24)
   for (let e = 0; e < count; e++) {
     const b = nn * e
     const p0 = 3 * conn[b]
@@ -123,35 +126,16 @@ function checkPolyhedronOrientation(x: Float64Array, conn: Int32Array, nn: numbe
       s[3 * a] = dx; s[3 * a + 1] = dy; s[3 * a + 2] = dz
       sx += Math.abs(dx); sy += Math.abs(dy); sz += Math.abs(dz)
     }
-    let v6 = 0
-    for (let f = 0; f < faceCount; f++) {
-      const a = 3 * faces[4 * f], c1 = 3 * faces[4 * f + 1], c2 = 3 * faces[4 * f + 2], d4 = faces[4 * f + 3]
-      if (d4 < 0) {
-        v6 += s[a] * (s[c1 + 1] * s[c2 + 2] - s[c1 + 2] * s[c2 + 1])
-          + s[a + 1] * (s[c1 + 2] * s[c2] - s[c1] * s[c2 + 2])
-          + s[a + 2] * (s[c1] * s[c2 + 1] - s[c1 + 1] * s[c2])
-        continue
-      }
-      const d = 3 * d4
-      const ux = s[c2] - s[a], uy = s[c2 + 1] - s[a + 1], uz = s[c2 + 2] - s[a + 2]
-      const wx = s[d] - s[c1], wy = s[d + 1] - s[c1 + 1], wz = s[d + 2] - s[c1 + 2]
-      const mx = s[a] + s[c1] + s[c2] + s[d], my = s[a + 1] + s[c1 + 1] + s[c2 + 1] + s[d + 1], mz = s[a + 2] + s[c1 + 2] + s[c2 + 2] + s[d + 2]
-      v6 += 0.25 * (mx * (uy * wz - uz * wy) + my * (uz * wx - ux * wz) + mz * (ux * wy - uy * wx))
-    }
+    const v6 = faceSum(s, faces)
     const D2 = sx * sx + sy * sy + sz * sz
     if (v6 * v6 > limit2 * D2 * D2 * D2) {
       if (v6 < 0) inv.push(e)
       continue
     }
-    measureElement(out, scratch, x, conn, b, type)
-    const v = out[0], dd = out[1]
-    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
-    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * dd * dd * dd)) {
-      return { inverted: inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: dd }
-    }
-    if (v < 0) inv.push(e)
+    const stop = run.exact(x, conn, b, type, e)
+    if (stop) return stop
   }
-  return { inverted: inv.done(), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
+  return run.result()
 }
 
 /** The hexahedron's corner faces in the registry (outward, corners 0-7), for which checkHexOrientation is written out. */
@@ -167,9 +151,8 @@ function sameTable(a: Int32Array, b: readonly number[]): boolean {
  */
 function checkHexOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
   const count = (conn.length / nn) | 0
-  const inv = new InvertedList()
+  const run = new OrientationRun(), inv = run.inv
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
-  let out: Float64Array | null = null, scratch: Float64Array | null = null
   for (let e = 0; e < count; e++) {
     const b = nn * e
     const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
@@ -204,17 +187,10 @@ function checkHexOrientation(x: Float64Array, conn: Int32Array, nn: number, type
       if (v6 < 0) inv.push(e)
       continue
     }
-    out ??= new Float64Array(2)
-    scratch ??= new Float64Array(24)
-    measureElement(out, scratch, x, conn, b, type)
-    const v = out[0], d = out[1]
-    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
-    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
-      return { inverted: inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: d }
-    }
-    if (v < 0) inv.push(e)
+    const stop = run.exact(x, conn, b, type, e)
+    if (stop) return stop
   }
-  return { inverted: inv.done(), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
+  return run.result()
 }
 
 /**
@@ -224,19 +200,12 @@ function checkHexOrientation(x: Float64Array, conn: Int32Array, nn: number, type
 export function checkBlockOrientationPlain(coords: Float64Array, type: ElementTypeName, conn: Int32Array): BlockOrientation {
   const nn = elementType(type).nodeCount
   const count = (conn.length / nn) | 0
-  const out = new Float64Array(2)
-  const scratch = new Float64Array(24)
-  const inv = new InvertedList()
+  const run = new OrientationRun()
   for (let e = 0; e < count; e++) {
-    measureElement(out, scratch, coords, conn, e * nn, type)
-    const v = out[0], d = out[1]
-    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
-    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
-      return { inverted: inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: d }
-    }
-    if (v < 0) inv.push(e)
+    const stop = run.exact(coords, conn, e * nn, type, e)
+    if (stop) return stop
   }
-  return { inverted: inv.done(), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
+  return run.result()
 }
 
 /**
@@ -252,11 +221,10 @@ export function checkBlockOrientationPlain(coords: Float64Array, type: ElementTy
  */
 function checkTetOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
   const count = (conn.length / nn) | 0
-  const inv = new InvertedList()
+  const run = new OrientationRun(), inv = run.inv
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
   // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
   const triple = tripleProduct
-  let out: Float64Array | null = null, scratch: Float64Array | null = null
   for (let e = 0; e < count; e++) {
     const b = nn * e
     const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
@@ -273,17 +241,10 @@ function checkTetOrientation(x: Float64Array, conn: Int32Array, nn: number, type
       if (t < 0) inv.push(e)
       continue
     }
-    out ??= new Float64Array(2)
-    scratch ??= new Float64Array(24)
-    measureElement(out, scratch, x, conn, b, type)
-    const v = out[0], d = out[1]
-    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
-    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
-      return { inverted: inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: d }
-    }
-    if (v < 0) inv.push(e)
+    const stop = run.exact(x, conn, b, type, e)
+    if (stop) return stop
   }
-  return { inverted: inv.done(), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
+  return run.result()
 }
 
 /** Relative volume (V / D³) above which a tetrahedron is accepted without the exact measurement. */
@@ -298,6 +259,31 @@ class InvertedList {
     this.a[this.n++] = e
   }
   done(): Int32Array { return this.a.slice(0, this.n) }
+}
+
+/**
+ * One block's orientation check in progress: the inverted elements so far, and the exact
+ * decision (measureElement) for an element the fast tests did not accept.
+ */
+class OrientationRun {
+  readonly inv = new InvertedList()
+  private out: Float64Array | null = null
+  private scratch: Float64Array | null = null
+  /** Decides element e (nodes from conn[base]) by measureElement: the block's result when it is degenerate, else null. */
+  exact(x: Float64Array, conn: Int32Array, base: number, type: ElementTypeName, e: number): BlockOrientation | null {
+    const out = (this.out ??= new Float64Array(2))
+    measureElement(out, (this.scratch ??= new Float64Array(24)), x, conn, base, type)
+    const v = out[0], d = out[1]
+    // Also catches NaN volumes (never from finite coordinates, but never trusted either).
+    if (!(Math.abs(v) > DEGENERATE_RELATIVE_VOLUME * d * d * d)) {
+      return { inverted: this.inv.done(), degenerate: e, degenerateVolume: v, degenerateSize: d }
+    }
+    if (v < 0) this.inv.push(e)
+    return null
+  }
+  result(): BlockOrientation {
+    return { inverted: this.inv.done(), degenerate: -1, degenerateVolume: 0, degenerateSize: 0 }
+  }
 }
 
 /** Mirrors the listed elements of a block in place (the type's mirror permutation in the registry). */
