@@ -1,7 +1,7 @@
 /**
- * Little-endian typed arrays in a byte buffer: a zero-copy view when the platform is
- * little-endian and the data is aligned, else a copy read through DataView (which also swaps
- * bytes on a big-endian platform).
+ * Little-endian typed arrays in a byte buffer: on a little-endian platform a zero-copy view when
+ * the data is aligned, else one bulk copy of its bytes (ArrayBuffer.slice); on a big-endian
+ * platform a copy read value by value through DataView, which swaps the bytes.
  */
 export type Dtype = 'f64' | 'i32'
 
@@ -20,10 +20,18 @@ export const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0]
 export function readLittleEndian(bytes: Uint8Array, offset: number, length: number, dtype: Dtype, allowView = true): Float64Array | Int32Array {
   const size = DTYPE_SIZE[dtype]
   const at = bytes.byteOffset + offset
-  if (allowView && HOST_LITTLE_ENDIAN && at % size === 0) {
-    return dtype === 'f64' ? new Float64Array(bytes.buffer, at, length) : new Int32Array(bytes.buffer, at, length)
+  if (HOST_LITTLE_ENDIAN) {
+    // A view where allowed and aligned, else one bulk copy of the bytes (aligned by construction).
+    const buffer = allowView && at % size === 0 ? bytes.buffer : bytes.buffer.slice(at, at + length * size)
+    const start = buffer === bytes.buffer ? at : 0
+    return dtype === 'f64' ? new Float64Array(buffer, start, length) : new Int32Array(buffer, start, length)
   }
-  const dv = new DataView(bytes.buffer, at, length * size)
+  return readLittleEndianByValue(bytes, offset, length, dtype)
+}
+
+/** The big-endian platform's path of readLittleEndian: a copy read value by value through DataView. */
+export function readLittleEndianByValue(bytes: Uint8Array, offset: number, length: number, dtype: Dtype): Float64Array | Int32Array {
+  const dv = new DataView(bytes.buffer, bytes.byteOffset + offset, length * DTYPE_SIZE[dtype])
   if (dtype === 'f64') {
     const out = new Float64Array(length)
     for (let i = 0; i < length; i++) out[i] = dv.getFloat64(8 * i, true)

@@ -56,7 +56,7 @@ export interface QuadraticFinding {
  * Checks every element of one block; returns the first failure, or null. Linear types return
  * null at once.
  */
-export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName, conn: Int32Array): QuadraticFinding | null {
+export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName, conn: Int32Array, plain = false): QuadraticFinding | null {
   const topo = ELEMENT_TYPES[type]
   if (!topo.quadratic) return null
   const nn = topo.nodeCount
@@ -78,25 +78,32 @@ export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName,
   const simplex = topo.cornerCount === 4
   const x = new Float64Array(nn * 3)
   const count = (conn.length / nn) | 0
+  // tet10 in our node order: the straight elements are skipped by a loop written out for them.
+  const tet10 = !plain && nn === 10 && simplex && ne === 6 && edgeNodes.every((v, i) => v === TET10_EDGES[i])
   for (let e = 0; e < count; e++) {
+    if (tet10) {
+      e = nextCurvedTet10(coords, conn, e, count, straight2)
+      if (e >= count) break
+    }
     const base = e * nn
+    // First the mid-edge offsets straight from the coordinates (most elements stop here), then,
+    // for curved ones only, the element's nodes gathered for the Jacobian.
+    let curved = false
+    for (let i = 0; i < ne; i++) {
+      const a = 3 * conn[base + edgeNodes[3 * i]], b = 3 * conn[base + edgeNodes[3 * i + 1]], m = 3 * conn[base + edgeNodes[3 * i + 2]]
+      const xa = coords[a], ya = coords[a + 1], za = coords[a + 2], xb = coords[b], yb = coords[b + 1], zb = coords[b + 2]
+      const ex = xb - xa, ey = yb - ya, ez = zb - za
+      const ox = coords[m] - 0.5 * (xa + xb), oy = coords[m + 1] - 0.5 * (ya + yb), oz = coords[m + 2] - 0.5 * (za + zb)
+      const l2 = ex * ex + ey * ey + ez * ez, o2 = ox * ox + oy * oy + oz * oz
+      if (o2 > tol2 * l2) return finding(e, 'mid-edge', i, o2, l2, -1, 0)
+      if (o2 > straight2 * l2) curved = true
+    }
+    // Straight-sided simplex: det J = 6V > 0 everywhere (see the file's opening comment).
+    if (simplex && !curved) continue
     for (let a = 0; a < nn; a++) {
       const p = 3 * conn[base + a]
       x[3 * a] = coords[p]; x[3 * a + 1] = coords[p + 1]; x[3 * a + 2] = coords[p + 2]
     }
-    let worst = 0, worstRel = -1, curved = false
-    for (let i = 0; i < ne; i++) {
-      const a = 3 * edgeNodes[3 * i], b = 3 * edgeNodes[3 * i + 1], m = 3 * edgeNodes[3 * i + 2]
-      const ex = x[b] - x[a], ey = x[b + 1] - x[a + 1], ez = x[b + 2] - x[a + 2]
-      const ox = x[m] - 0.5 * (x[a] + x[b]), oy = x[m + 1] - 0.5 * (x[a + 1] + x[b + 1]), oz = x[m + 2] - 0.5 * (x[a + 2] + x[b + 2])
-      const l2 = ex * ex + ey * ey + ez * ez, o2 = ox * ox + oy * oy + oz * oz
-      if (o2 > tol2 * l2) return finding(e, 'mid-edge', i, o2, l2, -1, 0)
-      if (o2 > straight2 * l2) curved = true
-      // Relative offset, for naming the likeliest culprit of a fold (o2/l2, no division by 0).
-      if (o2 > worstRel * l2) { worstRel = l2 > 0 ? o2 / l2 : Infinity; worst = i }
-    }
-    // Straight-sided simplex: det J = 6V > 0 everywhere (see the file's opening comment).
-    if (simplex && !curved) continue
     for (let q = 0; q < nq; q++) {
       let j00 = 0, j01 = 0, j02 = 0, j10 = 0, j11 = 0, j12 = 0, j20 = 0, j21 = 0, j22 = 0
       const o = q * nn * 3
@@ -111,6 +118,7 @@ export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName,
       const det = j00 * (j11 * j22 - j12 * j21) - j01 * (j10 * j22 - j12 * j20) + j02 * (j10 * j21 - j11 * j20)
       // Not `det <= 0` alone: NaN from non-finite coordinates counts as a fold too.
       if (!(det > 0)) {
+        const worst = worstEdge(x, edgeNodes, ne)
         const a = 3 * edgeNodes[3 * worst], b = 3 * edgeNodes[3 * worst + 1], m = 3 * edgeNodes[3 * worst + 2]
         const l2 = (x[b] - x[a]) ** 2 + (x[b + 1] - x[a + 1]) ** 2 + (x[b + 2] - x[a + 2]) ** 2
         const o2 = (x[m] - 0.5 * (x[a] + x[b])) ** 2 + (x[m + 1] - 0.5 * (x[a + 1] + x[b + 1])) ** 2 + (x[m + 2] - 0.5 * (x[a + 2] + x[b + 2])) ** 2
@@ -119,6 +127,53 @@ export function checkQuadraticBlock(coords: Float64Array, type: ElementTypeName,
     }
   }
   return null
+}
+
+/** tet10's corner edges with their mid-edge nodes, (a, b, mid) in our order. */
+const TET10_EDGES = [0, 1, 4, 1, 2, 5, 2, 0, 6, 0, 3, 7, 1, 3, 8, 2, 3, 9]
+
+/** o2 − s·l2 for one edge: the mid-edge node's squared offset from the midpoint against s × the squared edge. */
+function edgeExcess(ax: number, ay: number, az: number, bx: number, by: number, bz: number, mx: number, my: number, mz: number, s: number): number {
+  const ex = bx - ax, ey = by - ay, ez = bz - az
+  const ox = mx - 0.5 * (ax + bx), oy = my - 0.5 * (ay + by), oz = mz - 0.5 * (az + bz)
+  return ox * ox + oy * oy + oz * oz - s * (ex * ex + ey * ey + ez * ez)
+}
+
+/**
+ * The first tet10 element from `from` on with a mid-edge node off its midpoint by more than
+ * √straight2 × its edge (`count` if none): the ten nodes gathered once into locals (the generic
+ * loop reads each corner three times). Such elements go through the generic loop, which also
+ * finds the ones off by more than the tolerance.
+ */
+function nextCurvedTet10(x: Float64Array, conn: Int32Array, from: number, count: number, straight2: number): number {
+  const d = edgeExcess
+  for (let e = from; e < count; e++) {
+    const b = 10 * e
+    const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
+    const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2], x1 = x[p1], y1 = x[p1 + 1], z1 = x[p1 + 2]
+    const x2 = x[p2], y2 = x[p2 + 1], z2 = x[p2 + 2], x3 = x[p3], y3 = x[p3 + 1], z3 = x[p3 + 2]
+    const m4 = 3 * conn[b + 4], m5 = 3 * conn[b + 5], m6 = 3 * conn[b + 6], m7 = 3 * conn[b + 7], m8 = 3 * conn[b + 8], m9 = 3 * conn[b + 9]
+    if (d(x0, y0, z0, x1, y1, z1, x[m4], x[m4 + 1], x[m4 + 2], straight2) > 0
+      || d(x1, y1, z1, x2, y2, z2, x[m5], x[m5 + 1], x[m5 + 2], straight2) > 0
+      || d(x2, y2, z2, x0, y0, z0, x[m6], x[m6 + 1], x[m6 + 2], straight2) > 0
+      || d(x0, y0, z0, x3, y3, z3, x[m7], x[m7 + 1], x[m7 + 2], straight2) > 0
+      || d(x1, y1, z1, x3, y3, z3, x[m8], x[m8 + 1], x[m8 + 2], straight2) > 0
+      || d(x2, y2, z2, x3, y3, z3, x[m9], x[m9 + 1], x[m9 + 2], straight2) > 0) return e
+  }
+  return count
+}
+
+/** The mid-edge node farthest off its edge's midpoint relative to the edge (x: the element's nodes, 3 a node). */
+function worstEdge(x: Float64Array, edgeNodes: Int32Array, ne: number): number {
+  let worst = 0, worstRel = -1
+  for (let i = 0; i < ne; i++) {
+    const a = 3 * edgeNodes[3 * i], b = 3 * edgeNodes[3 * i + 1], m = 3 * edgeNodes[3 * i + 2]
+    const l2 = (x[b] - x[a]) ** 2 + (x[b + 1] - x[a + 1]) ** 2 + (x[b + 2] - x[a + 2]) ** 2
+    const o2 = (x[m] - 0.5 * (x[a] + x[b])) ** 2 + (x[m + 1] - 0.5 * (x[a + 1] + x[b + 1])) ** 2 + (x[m + 2] - 0.5 * (x[a + 2] + x[b + 2])) ** 2
+    // Relative offset o2/l2, compared without dividing by a zero length.
+    if (o2 > worstRel * l2) { worstRel = l2 > 0 ? o2 / l2 : Infinity; worst = i }
+  }
+  return worst
 }
 
 function finding(element: number, kind: QuadraticFinding['kind'], edge: number, o2: number, l2: number, point: number, detJ: number): QuadraticFinding {

@@ -6,7 +6,9 @@
  * Geometry first, stress second:
  * - `polygonPoints`: the polygon left by `elementPolygonRef` (sectionPolygon.ts, vertices with
  *   exact ξ) is split into a fan of triangles from its first vertex; on each, the points of the
- *   type's Dunavant rule (sectionRule.ts) get their plane coordinates, area weight and ξ. On an
+ *   type's Dunavant rule (sectionRule.ts) get their plane coordinates, area weight and ξ (for a
+ *   degree-4 rule two neighbouring fan triangles form a quadrilateral, integrated as exactly by
+ *   9 Gauss points instead of 12: `quadPoints`). On an
  *   affine element ξ is linear in x, so the barycentric mix of the vertex ξ is exact; otherwise it
  *   is the start of the guarded Newton inversion of inverseMap.ts.
  * - the geometry of a whole cut is kept (`SectionGeometry`: per cut element its points' ξ,
@@ -77,10 +79,17 @@ export function polygonPoints(
   const nq = rule.count, L0 = rule.l0, L1 = rule.l1, L2 = rule.l2, W = rule.w
   const affine = em.affine
   const ox = em.origin[0], oy = em.origin[1], oz = em.origin[2]
+  // Degree 4: two fan triangles side by side make a quadrilateral, 9 points instead of 12.
+  const quads = rule.degree === 4
   const k0 = order[0]
   const a0 = a[k0], b0 = b[k0], r0 = 3 * k0
   let q = o
-  for (let i = 1; i < n - 1; i++) {
+  for (let i = 1; i < n - 1;) {
+    if (quads && i + 2 < n) {
+      q = quadPoints(ref, w, pa, pb, q, sc, k0, order[i], order[i + 1], order[i + 2], em)
+      i += 2
+      continue
+    }
     const ki = order[i], kj = order[i + 1], ri = 3 * ki, rj = 3 * kj
     const ai = a[ki], bi = b[ki], aj = a[kj], bj = b[kj]
     const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
@@ -100,8 +109,65 @@ export function polygonPoints(
         invertElementMap(em, x0, x1, x2, ref, 3 * q)
       }
     }
+    i++
   }
   return q - o
+}
+
+/**
+ * The 3×3 Gauss–Legendre rule on the unit square (abscissae (1 ∓ √(3/5))/2 and ½, weights 5/18,
+ * 8/18, 5/18 per direction; any numerical-analysis text): per point the bilinear weights of the
+ * corners 0..3 (N0 = (1−u)(1−v), N1 = u(1−v), N2 = uv, N3 = (1−u)v), u, v and the weight.
+ */
+const QUAD_GAUSS = (() => {
+  const g = [(1 - Math.sqrt(0.6)) / 2, 0.5, (1 + Math.sqrt(0.6)) / 2], gw = [5 / 18, 8 / 18, 5 / 18]
+  const t = new Float64Array(9 * 7)
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) {
+    const u = g[i], v = g[j], k = 7 * (3 * i + j)
+    t.set([(1 - u) * (1 - v), u * (1 - v), u * v, (1 - u) * v, u, v, gw[i] * gw[j]], k)
+  }
+  return t
+})()
+
+/**
+ * Quadrature points of the quadrilateral of polygon vertices k0, k1, k2, k3 (in order) for a
+ * degree-4 section rule (sectionRule.ts: hex8, wedge15), from index q on; returns the next index.
+ * The bilinear map of the unit square onto the quadrilateral, X(u, v) = Σ N_k P_k, turns a
+ * polynomial of total degree 4 in the plane coordinates into one of degree ≤ 4 in u and in v, and
+ * its Jacobian determinant is of degree 1 in each: degree ≤ 5 per variable, which the 3×3 Gauss
+ * rule integrates exactly, as the two fan triangles' degree-4 rules do (12 points). A signed
+ * Jacobian integrates the same over a non-convex quadrilateral (the map's degree is 1 inside, 0
+ * outside, as for fan triangles of negative area). ξ is mixed bilinearly like the plane
+ * coordinates: exact on an affine element (ξ linear in x), the Newton start otherwise.
+ */
+function quadPoints(
+  ref: Float64Array, w: Float64Array, pa: Float64Array, pb: Float64Array, q: number,
+  sc: PolygonScratch, k0: number, k1: number, k2: number, k3: number, em: ElementMap,
+): number {
+  const a = sc.a, b = sc.b, vref = sc.ref, pos = sc.pos, G = QUAD_GAUSS
+  const a0 = a[k0], a1 = a[k1], a2 = a[k2], a3 = a[k3], b0 = b[k0], b1 = b[k1], b2 = b[k2], b3 = b[k3]
+  const r0 = 3 * k0, r1 = 3 * k1, r2 = 3 * k2, r3 = 3 * k3
+  const affine = em.affine
+  const ox = em.origin[0], oy = em.origin[1], oz = em.origin[2]
+  for (let g = 0; g < 63; g += 7, q++) {
+    const n0 = G[g], n1 = G[g + 1], n2 = G[g + 2], n3 = G[g + 3], u = G[g + 4], v = G[g + 5]
+    // ∂X/∂u = (1−v)(P1−P0) + v(P2−P3), ∂X/∂v = (1−u)(P3−P0) + u(P2−P1)
+    const au = (1 - v) * (a1 - a0) + v * (a2 - a3), bu = (1 - v) * (b1 - b0) + v * (b2 - b3)
+    const av = (1 - u) * (a3 - a0) + u * (a2 - a1), bv = (1 - u) * (b3 - b0) + u * (b2 - b1)
+    w[q] = G[g + 6] * (au * bv - av * bu)
+    pa[q] = n0 * a0 + n1 * a1 + n2 * a2 + n3 * a3
+    pb[q] = n0 * b0 + n1 * b1 + n2 * b2 + n3 * b3
+    ref[3 * q] = n0 * vref[r0] + n1 * vref[r1] + n2 * vref[r2] + n3 * vref[r3]
+    ref[3 * q + 1] = n0 * vref[r0 + 1] + n1 * vref[r1 + 1] + n2 * vref[r2 + 1] + n3 * vref[r3 + 1]
+    ref[3 * q + 2] = n0 * vref[r0 + 2] + n1 * vref[r1 + 2] + n2 * vref[r2 + 2] + n3 * vref[r3 + 2]
+    if (!affine) {
+      const x0 = n0 * pos[r0] + n1 * pos[r1] + n2 * pos[r2] + n3 * pos[r3] - ox
+      const x1 = n0 * pos[r0 + 1] + n1 * pos[r1 + 1] + n2 * pos[r2 + 1] + n3 * pos[r3 + 1] - oy
+      const x2 = n0 * pos[r0 + 2] + n1 * pos[r1 + 2] + n2 * pos[r2 + 2] + n3 * pos[r3 + 2] - oz
+      invertElementMap(em, x0, x1, x2, ref, 3 * q)
+    }
+  }
+  return q
 }
 
 /**

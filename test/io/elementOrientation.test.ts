@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
-import { checkBlockOrientation, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
+import { checkBlockOrientation, checkBlockOrientationPlain, measureElement, reorientElements, reorientedWarning } from '../../src/io/elementOrientation.ts'
 
 const TYPES = ELEMENT_TYPE_NAMES
 
@@ -160,6 +160,55 @@ describe('mirroring', () => {
         if (degenerate) seen.degenerate++
         else if (out[0] < 0) seen.inverted++
         else seen.positive++
+      }
+    }
+    expect(Math.min(seen.degenerate, seen.inverted, seen.positive)).toBeGreaterThan(50)
+  })
+  it('hexahedra, wedges, pyramids: the fast loops decide like the plain path (measureElement on every element)', () => {
+    // Each type's elements of a 2×2×2 box, corners moved at random by up to 40 % of a cell (and
+    // so some inverted), every fourth one squashed towards z = its first corner's by 1e-5..1e-15
+    // (around the 1e-12 threshold), every third one mirrored, at several scales; whole blocks
+    // and single elements. The
+    // hexahedron's fast loop takes the trilinear volume in closed form (Grandy 1997, from
+    // memory), the others measureElement's face sum relative to corner 0.
+    let seed = 11
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32)
+    const seen = { degenerate: 0, inverted: 0, positive: 0 }
+    for (const t of TYPES.filter((x) => ELEMENT_TYPES[x].cornerCount > 4)) {
+      const m = boxMesh({ nx: 2, ny: 2, nz: 2, lx: 1, ly: 1, lz: 1 }, t)
+      const conn = m.blocks[0].conn, nn = ELEMENT_TYPES[t].nodeCount, nc = ELEMENT_TYPES[t].cornerCount
+      const count = conn.length / nn
+      for (const scale of [1, 1e-6, 1e-100, 1e80]) {
+        for (let round = 0; round < 6; round++) {
+          // Elements get their own nodes so each can be distorted alone.
+          const coords = new Float64Array(3 * conn.length)
+          const own = new Int32Array(conn.length)
+          for (let e = 0; e < count; e++) {
+            const squash = e % 4 === 3 ? 10 ** (-5 - 10 * rnd()) : 1
+            const base = 3 * conn[e * nn]
+            for (let a = 0; a < nn; a++) {
+              const p = 3 * conn[e * nn + a], q = 3 * (e * nn + a)
+              own[e * nn + a] = e * nn + a
+              for (let k = 0; k < 3; k++) coords[q + k] = m.coords[p + k] + (a < nc ? 0.2 * (rnd() - 0.5) : 0)
+              coords[q + 2] = m.coords[base + 2] + (coords[q + 2] - m.coords[base + 2]) * squash
+              for (let k = 0; k < 3; k++) coords[q + k] *= scale
+            }
+          }
+          // Every third element mirrored: inverted.
+          reorientElements(own, t, Int32Array.from({ length: Math.ceil(count / 3) }, (_, i) => 3 * i).filter((e) => e < count))
+          const plain = checkBlockOrientationPlain(coords, t, own)
+          const fast = checkBlockOrientation(coords, t, own)
+          expect(fast.degenerate).toBe(plain.degenerate)
+          expect(Array.from(fast.inverted)).toEqual(Array.from(plain.inverted))
+          for (let e = 0; e < count; e++) {
+            const one = own.subarray(e * nn, (e + 1) * nn)
+            const p1 = checkBlockOrientationPlain(coords, t, one), f1 = checkBlockOrientation(coords, t, one)
+            expect([f1.degenerate, f1.inverted.length]).toEqual([p1.degenerate, p1.inverted.length])
+            if (p1.degenerate === 0) seen.degenerate++
+            else if (p1.inverted.length) seen.inverted++
+            else seen.positive++
+          }
+        }
       }
     }
     expect(Math.min(seen.degenerate, seen.inverted, seen.positive)).toBeGreaterThan(50)

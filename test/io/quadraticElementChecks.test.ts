@@ -169,3 +169,35 @@ describe('a folded element', () => {
     for (const f of ['element 7', 'the tet10 folds over', 'Jacobian determinant', 'node 5 (node 5 of the tet10) lies farthest', nodeOrderText('tet10')]) expect(e.message).toContain(f)
   })
 })
+
+describe('the tet10 fast loop', () => {
+  it('finds what the plain loop finds: straight, curved, reordered and folded elements in a block', () => {
+    // A jittered 3×3×3 tet10 box (straight, 162 elements); in each trial a few elements get one
+    // mid-edge node moved by 1e-12..0.4 × a cell (straight within round-off, curved, off the
+    // bound), so the first finding and its kind move around the block. Every third trial the
+    // block is flattened to 5 % of its height first, so a node lifted within the bound folds
+    // its element (as the sliver above).
+    const rnd = mulberry32(SEED + 1)
+    const m = boxMesh({ nx: 3, ny: 3, nz: 3, lx: 1, ly: 1, lz: 1 }, 'tet10')
+    const conn = m.blocks[0].conn
+    const count = conn.length / 10
+    const kinds = new Set<string>()
+    for (let trial = 0; trial < 300; trial++) {
+      const coords = m.coords.slice()
+      const flat = trial % 3 === 2
+      if (flat) for (let i = 2; i < coords.length; i += 3) coords[i] *= 0.05
+      const moves = 1 + Math.floor(3 * rnd())
+      for (let k = 0; k < moves; k++) {
+        const e = Math.floor(rnd() * count), local = 4 + Math.floor(6 * rnd())
+        const p = 3 * conn[10 * e + local]
+        const size = flat ? 0.2 * rnd() / 3 : 10 ** (-12 + 11.6 * rnd()) / 3
+        for (let c = flat ? 2 : 0; c < 3; c++) coords[p + c] += size * (2 * rnd() - 1)
+      }
+      const fast = checkQuadraticBlock(coords, 'tet10', conn)
+      const plain = checkQuadraticBlock(coords, 'tet10', conn, true)
+      expect(fast).toEqual(plain)
+      kinds.add(plain ? plain.kind : 'none')
+    }
+    expect([...kinds].sort()).toEqual(['jacobian', 'mid-edge', 'none'])
+  })
+})
