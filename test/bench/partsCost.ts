@@ -33,9 +33,12 @@ export interface PartsCost {
   interfaceFacesCpuMs: { min: number; median: number }
   loadWallMs: { min: number; median: number }
   partsWallMs: { min: number; median: number }
+  interfaceFacesWallMs: { min: number; median: number }
   /** (parts + interface faces) / (load − interface faces), from the lowest and the median CPU times. */
   addedMin: number
   addedMedian: number
+  /** The same from the median wall times. */
+  addedMedianWall: number
   loadAverage: number
 }
 
@@ -74,20 +77,21 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
     const c = process.cpuUsage(c0)
     return { value, cpu: (c.user + c.system) / 1000, wall: performance.now() - w0 }
   }
-  const loadCpu: number[] = [], partsCpu: number[] = [], faceCpu: number[] = [], loadWall: number[] = [], partsWall: number[] = []
+  const loadCpu: number[] = [], partsCpu: number[] = [], faceCpu: number[] = [], loadWall: number[] = [], partsWall: number[] = [], faceWall: number[] = []
   for (let i = 0; i < rounds + 1; i++) {
     const l = timed(load)
     const p = timed(() => parts(l.value.m))
     const fp = faceParts(l.value.m, l.value.r.faces)
     const f = timed(() => coincidentInterfaceFaces(l.value.m.mesh.coords, l.value.r.faces, fp))
     if (i === 0) continue // warm-up
-    loadCpu.push(l.cpu); partsCpu.push(p.cpu); faceCpu.push(f.cpu); loadWall.push(l.wall); partsWall.push(p.wall)
+    loadCpu.push(l.cpu); partsCpu.push(p.cpu); faceCpu.push(f.cpu); loadWall.push(l.wall); partsWall.push(p.wall); faceWall.push(f.wall)
   }
-  const L = stat(loadCpu), P = stat(partsCpu), F = stat(faceCpu)
+  const L = stat(loadCpu), P = stat(partsCpu), F = stat(faceCpu), LW = stat(loadWall), PW = stat(partsWall), FW = stat(faceWall)
   return {
     parts: partNumbers(model.mesh).length, elements: model.mesh.elementCount, interfaces, rounds,
-    loadCpuMs: L, partsCpuMs: P, interfaceFacesCpuMs: F, loadWallMs: stat(loadWall), partsWallMs: stat(partsWall),
+    loadCpuMs: L, partsCpuMs: P, interfaceFacesCpuMs: F, loadWallMs: LW, partsWallMs: PW, interfaceFacesWallMs: FW,
     addedMin: (P.min + F.min) / (L.min - F.min), addedMedian: (P.median + F.median) / (L.median - F.median),
+    addedMedianWall: (PW.median + FW.median) / (LW.median - FW.median),
     loadAverage: os.loadavg()[0],
   }
 }
