@@ -26,7 +26,8 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.t
 import { computeBodyBalance } from './balanceAudit.ts'
 import { faceCornerCount } from './freeBody.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
-import { cellKey, cornersCoincide } from './sectionRegions.ts'
+import { cornersCoincide } from './sectionRegions.ts'
+import { nearPoints } from './coincidentSweep.ts'
 
 /** Relative tolerance for corners of two parts' faces to coincide (fraction of the face size). */
 export const INTERFACE_TOL = 1e-6
@@ -87,22 +88,31 @@ export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly num
   const blocks: ElementBlock[] = []
   const rows: Int32Array[] = []
   let offset = 0
+  // typed copies row by row (no per-element closures or views: this runs over every element once per part)
   mesh.blocks.forEach((b, bi) => {
-    const nn = ELEMENT_TYPES[b.type].nodeCount, count = b.ids.length
-    const keep: number[] = []
-    for (let e = 0; e < count; e++) if (wanted.has(b.part ? b.part[e] : 0)) keep.push(e)
-    if (keep.length === 0) return
-    const conn = new Int32Array(keep.length * nn), ids = new Int32Array(keep.length), r = new Int32Array(keep.length * nn)
-    keep.forEach((e, k) => {
-      conn.set(b.conn.subarray(e * nn, (e + 1) * nn), k * nn)
-      r.set(field.rows[bi].subarray(e * nn, (e + 1) * nn), k * nn)
+    const nn = ELEMENT_TYPES[b.type].nodeCount, count = b.ids.length, bp = b.part
+    const keep = new Int32Array(count)
+    let kept = 0
+    if (bp) {
+      // parts are few: the test is a short list (a Set lookup per element costs more)
+      const list = [...wanted]
+      for (let e = 0; e < count; e++) if (list.includes(bp[e])) keep[kept++] = e
+    } else if (wanted.has(0)) {
+      for (let e = 0; e < count; e++) keep[kept++] = e
+    }
+    if (kept === 0) return
+    const src = b.conn, from = field.rows[bi], nodal = field.layout === 'nodal'
+    const conn = new Int32Array(kept * nn), ids = new Int32Array(kept), r = nodal ? conn : new Int32Array(kept * nn), part = new Int32Array(kept)
+    for (let k = 0; k < kept; k++) {
+      const e = keep[k], o = k * nn, so = e * nn
+      for (let c = 0; c < nn; c++) conn[o + c] = src[so + c]
+      if (!nodal) for (let c = 0; c < nn; c++) r[o + c] = from[so + c]
       ids[k] = b.ids[e]
-    })
-    const part = new Int32Array(keep.length)
-    if (b.part) keep.forEach((e, k) => { part[k] = b.part![e] })
+      if (bp) part[k] = bp[e]
+    }
     blocks.push({ type: b.type, conn, ids, part, offset })
-    rows.push(field.layout === 'nodal' ? conn : r)
-    offset += keep.length
+    rows.push(r)
+    offset += kept
   })
   const sub: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: offset, blocks }
   return { mesh: sub, field: { values: field.values, rows, layout: field.layout } }
@@ -130,67 +140,40 @@ interface PartFaces { part: number; faces: BoundaryFaces; tractions: SurfaceTrac
 
 /** Pairs boundary faces of different parts by shared corner nodes or coinciding corners; sums per pair. */
 function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
-  // every boundary face: owner part index, face index; keyed by sorted corners, else geometric
-  const byNodes = new Map<string, [number, number]>()
+  // every boundary face: owner part index, face index; keyed by its sorted corners, else geometric
   const pairs: [number, number, number, number][] = [] // [pa, fa, pb, fb]
-  const open: [number, number][] = []
-  parts.forEach((p, pi) => {
-    const { faces } = p
-    for (let f = 0; f < faces.count; f++) {
-      const nc = faceCornerCount(faces.kind[f])
-      const ids: number[] = []
-      for (let k = 0; k < nc; k++) ids.push(faces.nodes[faces.slots * f + k])
-      ids.sort((x, y) => x - y)
-      const key = ids.join(',')
-      const other = byNodes.get(key)
-      if (other && other[0] !== pi) { pairs.push([other[0], other[1], pi, f]); byNodes.delete(key) } else byNodes.set(key, [pi, f])
-    }
-  })
-  for (const v of byNodes.values()) open.push(v)
-  // geometric: faces whose corners coincide within INTERFACE_TOL × size
+  const open = matchByNodes(parts, pairs)
+  // geometric: faces whose corners coincide within INTERFACE_TOL × size; candidates from a sweep
+  // of their centroids (coincidentSweep.ts)
   if (open.length > 1) {
-    const cen = (pf: [number, number]): Vec3 => {
-      const fc = parts[pf[0]].faces.centroid, f = pf[1]
-      return [fc[3 * f], fc[3 * f + 1], fc[3 * f + 2]]
-    }
     const size = (pf: [number, number]) => Math.sqrt(parts[pf[0]].faces.area[pf[1]])
     let cell = 0
     for (const o of open) cell = Math.max(cell, INTERFACE_TOL * size(o))
     if (cell > 0) {
-      const q = (x: number) => Math.floor(x / cell)
-      const key = cellKey
-      const grid = new Map<number, number[]>()
-      open.forEach((o, i) => {
-        const c = cen(o), k = key(q(c[0]), q(c[1]), q(c[2]))
-        const l = grid.get(k)
-        if (l) l.push(i); else grid.set(k, [i])
-      })
+      const points = new Float64Array(3 * open.length)
+      open.forEach((o, i) => { for (let k = 0; k < 3; k++) points[3 * i + k] = parts[o[0]].faces.centroid[3 * o[1] + k] })
+      const near = nearPoints(points, open.length, 2 * cell)
       const used = new Uint8Array(open.length)
       open.forEach((o, i) => {
-        if (used[i]) return
-        const c = cen(o)
-        const qx = q(c[0]), qy = q(c[1]), qz = q(c[2])
-        for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) for (let dz = -1; dz <= 1; dz++) {
-          for (const j of grid.get(key(qx + dx, qy + dy, qz + dz)) ?? []) {
-            if (j === i || used[j] || used[i] || open[j][0] === o[0]) continue
-            const tol = INTERFACE_TOL * Math.min(size(o), size(open[j]))
-            const cj = cen(open[j])
-            if (Math.hypot(c[0] - cj[0], c[1] - cj[1], c[2] - cj[2]) > tol) continue
-            if (!faceCornersCoincide(coords, parts, o, open[j], tol)) continue
-            used[i] = 1; used[j] = 1
-            pairs.push([o[0], o[1], open[j][0], open[j][1]])
-          }
+        for (let k = near.start[i]; k < near.start[i + 1] && !used[i]; k++) {
+          const j = near.list[k]
+          if (used[j] || open[j][0] === o[0]) continue
+          const tol = INTERFACE_TOL * Math.min(size(o), size(open[j]))
+          if (Math.hypot(points[3 * i] - points[3 * j], points[3 * i + 1] - points[3 * j + 1], points[3 * i + 2] - points[3 * j + 2]) > tol) continue
+          if (!faceCornersCoincide(coords, parts, o, open[j], tol)) continue
+          used[i] = 1; used[j] = 1
+          pairs.push([o[0], o[1], open[j][0], open[j][1]])
         }
       })
     }
   }
   // sums per pair of parts
   interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
-  const accs = new Map<string, Acc>()
+  const accs = new Map<number, Acc>() // by pa · (part count) + pb (part indices; numbers ascend with them)
   for (const [p1, f1, p2, f2] of pairs) {
     // orient: a is the lower part number
     const [pa, fa, pb, fb] = parts[p1].part < parts[p2].part ? [p1, f1, p2, f2] : [p2, f2, p1, f1]
-    const k = `${parts[pa].part},${parts[pb].part}`
+    const k = pa * parts.length + pb
     let acc = accs.get(k)
     if (!acc) { acc = { a: parts[pa].part, b: parts[pb].part, faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(k, acc) }
     const B = parts[pb], A = parts[pa]
@@ -231,7 +214,8 @@ function interfaceTriangles(coords: Float64Array, parts: readonly PartFaces[], d
     for (let k = 0; k < list.length; k += 2) {
       const f = parts[list[k]].faces, face = list[k + 1], nc = faceCornerCount(f.kind[face]), base = f.slots * face
       for (let c = 1; c + 1 < nc; c++) {
-        for (const v of [f.nodes[base], f.nodes[base + c], f.nodes[base + c + 1]]) {
+        for (let q = 0; q < 3; q++) {
+          const v = f.nodes[base + (q === 0 ? 0 : c + q - 1)]
           positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
           t++
         }
@@ -240,6 +224,60 @@ function interfaceTriangles(coords: Float64Array, parts: readonly PartFaces[], d
     offsets[i + 1] = t / 3
   })
   return { positions, offsets }
+}
+
+/**
+ * Pairs boundary faces of different parts with the same corner nodes (pushed to `pairs` in the
+ * order the second is met); returns the faces left, in the order first met. A table keyed by the
+ * sorted corners (open addressing over typed arrays: no string per face).
+ */
+function matchByNodes(parts: readonly PartFaces[], pairs: [number, number, number, number][]): [number, number][] {
+  let total = 0
+  for (const p of parts) total += p.faces.count
+  let slots = 1024
+  while (slots < 2 * total) slots *= 2
+  const mask = slots - 1
+  // per slot: 4 sorted corners (-1 pads a triangle), owner part index, face index (-1: free or matched away)
+  const key = new Int32Array(4 * slots), owner = new Int32Array(slots).fill(-1), face = new Int32Array(slots).fill(-1)
+  const used = new Uint8Array(slots), last = new Int32Array(slots)
+  const order: number[] = [] // slots in the order filled (a slot filled again after its pair: listed again)
+  parts.forEach((p, pi) => {
+    const { faces } = p
+    for (let f = 0; f < faces.count; f++) {
+      const nc = faceCornerCount(faces.kind[f])
+      const o = faces.slots * f
+      // sorted by a five-compare network (a triangle's missing fourth sorts last)
+      let c0 = faces.nodes[o], c1 = faces.nodes[o + 1], c2 = faces.nodes[o + 2], c3 = nc > 3 ? faces.nodes[o + 3] : 0x7fffffff, x
+      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+      let h = (Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d) + Math.imul(c3, 0x27d4eb2f)) | 0
+      h = (h ^ (h >>> 15)) & mask
+      while (used[h] && !(key[4 * h] === c0 && key[4 * h + 1] === c1 && key[4 * h + 2] === c2 && key[4 * h + 3] === c3)) h = (h + 1) & mask
+      if (!used[h]) {
+        used[h] = 1
+        key[4 * h] = c0; key[4 * h + 1] = c1; key[4 * h + 2] = c2; key[4 * h + 3] = c3
+        owner[h] = pi; face[h] = f
+        last[h] = order.length; order.push(h)
+      } else if (owner[h] >= 0 && owner[h] !== pi) {
+        pairs.push([owner[h], face[h], pi, f])
+        owner[h] = -1
+      } else if (owner[h] < 0) {
+        // met again after its pair was taken: open again, now last in order (as a map entry set anew)
+        owner[h] = pi; face[h] = f
+        last[h] = order.length; order.push(h)
+      } else face[h] = f // the same part again: the later face stands for the key
+    }
+  })
+  const open: [number, number][] = []
+  for (let k = 0; k < order.length; k++) {
+    const h = order[k]
+    // a slot reopened later is listed at its last filling only
+    if (owner[h] >= 0 && last[h] === k) open.push([owner[h], face[h]])
+  }
+  return open
 }
 
 function faceCornersCoincide(coords: Float64Array, parts: readonly PartFaces[], a: [number, number], b: [number, number], tol: number): boolean {

@@ -11,9 +11,9 @@
  *   two cut elements whose shared face is itself crossed by the plane (corners on both sides,
  *   d < 0 and d ≥ 0, the rule of sectionPolygon.ts) have polygons that share an edge. Shared
  *   faces are matched through their corner node numbers; faces of the same part whose corners
- *   only coincide (meshed apart) are matched geometrically: a hash of the face centroid
- *   quantised at a tolerance relative to the face size, with the neighbouring cells checked,
- *   then every corner within that tolerance. Never by floating-point equality.
+ *   only coincide (meshed apart) are matched geometrically: candidates from a sweep of the face
+ *   centroids (coincidentSweep.ts), then every corner within a tolerance relative to the face
+ *   size. Never by floating-point equality.
  * - `regionAccumulators` sums the element blocks per region.
  * Elements of different parts never share a region; the plane lying exactly on a face between
  * two parts takes the section in the element on the -m side (d == 0 is the + side), so the
@@ -23,6 +23,7 @@
  */
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../model/model.ts'
+import { nearPoints } from './coincidentSweep.ts'
 import { ACC_AREA, ACC_CUT, ACC_FORCE, ACC_GROSS, ACC_ORIGIN, ACC_ORIGIN_SET, ACC_SA, ACC_SAB, ACC_SB, ACC_SIZE } from './sectionPolygon.ts'
 
 /** Relative tolerance of geometric face matching (fraction of the face's largest corner-to-centroid distance). */
@@ -365,51 +366,40 @@ function openFaces(t: FaceTable, live: number, sel: Int32Array, r: CutRecord, me
   })
 }
 
-/** A unit direction with no simple relation to mesh axes or diagonals (0.6² + 0.48² + 0.64² = 1). */
-const SWEEP = [0.6, 0.48, 0.64] as const
-
 /**
  * Joins the owners (of one part) of open faces whose corners coincide within COINCIDENT_TOL
- * times their size. Candidates come from a sweep along one direction: two centroids within the
- * tolerance are within it along any unit direction; then the centroids, then every corner.
+ * times their size: candidates from a sweep of the centroids (coincidentSweep.ts), then the
+ * centroids within the tolerance, then every corner.
  */
 function matchCoincident(open: OpenFace[], coords: Float64Array, parent: Int32Array, partOf: Int32Array): void {
   const F = open.length
-  const cx = new Float64Array(F), cy = new Float64Array(F), cz = new Float64Array(F), tol = new Float64Array(F), key = new Float64Array(F)
+  const c = new Float64Array(3 * F), tol = new Float64Array(F)
   let cell = 0
   for (let i = 0; i < F; i++) {
     const nodes = open[i].nodes, nc = nodes.length
-    const c: Vec3 = [0, 0, 0]
-    for (const v of nodes) for (let j = 0; j < 3; j++) c[j] += coords[3 * v + j] / nc
+    let x = 0, y = 0, z = 0
+    for (const v of nodes) { x += coords[3 * v] / nc; y += coords[3 * v + 1] / nc; z += coords[3 * v + 2] / nc }
     let size = 0
-    for (const v of nodes) size = Math.max(size, Math.hypot(coords[3 * v] - c[0], coords[3 * v + 1] - c[1], coords[3 * v + 2] - c[2]))
-    cx[i] = c[0]; cy[i] = c[1]; cz[i] = c[2]
+    for (const v of nodes) size = Math.max(size, Math.hypot(coords[3 * v] - x, coords[3 * v + 1] - y, coords[3 * v + 2] - z))
+    c[3 * i] = x; c[3 * i + 1] = y; c[3 * i + 2] = z
     tol[i] = COINCIDENT_TOL * size
     cell = Math.max(cell, tol[i])
-    key[i] = SWEEP[0] * c[0] + SWEEP[1] * c[1] + SWEEP[2] * c[2]
   }
   if (!(cell > 0)) return
-  // twice the largest tolerance: round-off in the keys cannot hide a pair
-  const reach = 2 * cell
-  const order: number[] = []
-  for (let i = 0; i < F; i++) if (Number.isFinite(key[i])) order.push(i)
-  order.sort((a, b) => key[a] - key[b])
-  for (let a = 0; a < order.length; a++) {
-    for (let b = a + 1; b < order.length && key[order[b]] - key[order[a]] <= reach; b++) {
-      // the earlier face first (the corner test reads the first face's corners)
-      const i = Math.min(order[a], order[b]), j = Math.max(order[a], order[b])
+  // twice the largest tolerance: round-off in the projections cannot hide a pair
+  const near = nearPoints(c, F, 2 * cell)
+  for (let i = 0; i < F; i++) {
+    for (let k = near.start[i]; k < near.start[i + 1]; k++) {
+      // each pair once, the earlier face first (the corner test reads the first face's corners)
+      const j = near.list[k]
+      if (j <= i) continue
       const f = open[i], g = open[j]
       if (g.nodes.length !== f.nodes.length || f.owner === g.owner || partOf[f.owner] !== partOf[g.owner]) continue
       const t = Math.min(tol[i], tol[j])
-      if (Math.hypot(cx[i] - cx[j], cy[i] - cy[j], cz[i] - cz[j]) > t) continue
+      if (Math.hypot(c[3 * i] - c[3 * j], c[3 * i + 1] - c[3 * j + 1], c[3 * i + 2] - c[3 * j + 2]) > t) continue
       if (cornersCoincide(coords, f.nodes, g.nodes, t)) union(parent, f.owner, g.owner)
     }
   }
-}
-
-/** A numeric key of a quantised cell (collisions only cost a few extra distance tests). */
-export function cellKey(x: number, y: number, z: number): number {
-  return (Math.imul(x, 73856093) ^ Math.imul(y, 19349663) ^ Math.imul(z, 83492791)) | 0
 }
 
 /** Every corner of face a lies within tol of some corner of face b (node numbers into coords). */

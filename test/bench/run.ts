@@ -40,6 +40,7 @@ import { benchLines } from './lines.ts'
 import { benchLoadCases, loadCaseLines } from './loadCases.ts'
 import { detectAll } from './dialectDetection.ts'
 import type { Timing } from './timing.ts'
+import { partsCost } from './partsCost.ts'
 
 // ---------------------------------------------------------------- options
 const argv = process.argv.slice(2)
@@ -358,6 +359,17 @@ const loadGrowth = {
   exponentCpu: growthExponent(loadRuns.map((r) => r.elements), loadRuns.map((r) => r.cpuMs)),
 }
 
+// ---------------------------------------------------------------- assemblies at load (partsCost.ts)
+// What the part list, per-part faces, tractions and balance, the interfaces, and the faces against
+// parts meshed apart add to the whole load: a one-part tet4 block with a part column, and the same
+// block as four slabs of parts sharing nodes (three interfaces).
+log('assemblies: the load with its part work, one part and four slabs')
+const partsAtLoad = {
+  onePart: partsCost(syntheticModel('tet4', ELEMENTS, SEED, 0.1, 1), 3),
+  fourParts: partsCost(syntheticModel('tet4', ELEMENTS, SEED, 0.1, 4), 3),
+}
+loadSamples.push(os.loadavg()[0])
+
 // Lines through the model: grid, point location, sampling and linearisation (test/bench/lines.ts).
 log('lines: grid, point location, sampling, linearisation')
 const lines = benchLines(syntheticModel('tet4', ELEMENTS, SEED), SEED)
@@ -398,6 +410,9 @@ targets.push(atLeast('boundary ≥ 5 × the plain baseline', atBase, bk.boundary
 targets.push(atMost('tet4 element balance audit ≤ 400 ms', `tet4, ${tet.elements} elements`, k.audit.medianMs, k.audit.cpuMs, 400))
 targets.push(atMost('tet4 section cut with free body ≤ 20 ms', `tet4, ${tet.elements} elements`, k.cut.medianMs, k.cut.cpuMs, 20))
 targets.push(atMost('regions add ≤ 25 % to the tet4 cut', `tet4, ${tet.elements} elements`, k.cutRegions.medianMs / k.cut.medianMs - 1, k.cutRegions.cpuMs / k.cut.cpuMs - 1, 0.25))
+for (const [name, pc] of [['one part', partsAtLoad.onePart], ['four parts sharing nodes', partsAtLoad.fourParts]] as const) {
+  targets.push(atMost(`parts and interfaces add ≤ 25 % to the load (${name})`, `tet4, ${pc.elements} elements`, pc.addedMedianWall, pc.addedMedian, 0.25))
+}
 targets.push(atMost('whole load growth exponent ≤ 1.1', `tet4, ${loadGrowth.elements.join(', ')} elements`, loadGrowth.exponent, loadGrowth.exponentCpu, 1.1))
 for (const c of loadCases) {
   const at = `${c.type}, ${c.elements} elements, ${c.cases} cases + 2 combinations`
@@ -421,6 +436,7 @@ const result = {
   growthByType,
   loadGrowth,
   sectionCutByType: cutByType,
+  partsAtLoad,
   lines,
   loadCases,
   baselines: { elements: baselineModel!.elements, boundary: bk.boundary, cut: bk.cut, checks: baselineModel!.checks },
@@ -479,6 +495,13 @@ function renderTables(): string {
   out.push('')
   out.push(`Whole load (tet4: native read, boundary faces with tractions, element and body balance, patches), time ∝ elements^${f(loadGrowth.exponent)} (cpu ${f(loadGrowth.exponentCpu)})`)
   out.push(pad([['elements', ...loadGrowth.elements.map(String)], ['median ms', ...loadGrowth.timesMs.map((t) => f(t))], ['cpu ms', ...loadGrowth.cpuMs.map((t) => f(t))]]))
+  out.push('')
+  out.push('Assemblies at load (tet4): the whole load, then the part work the engine adds (part list; with two parts or more each part\'s faces, tractions, balance and the interfaces) and the faces against parts meshed apart (inside the patches stage)')
+  const pt = [['model', 'elements', 'parts', 'interfaces', 'load cpu ms', 'parts cpu ms', 'interface faces cpu ms', 'added (min cpu)', 'added (median cpu)', 'added (median wall)', '≤ 25 %']]
+  for (const [name, pc] of [['one part', partsAtLoad.onePart], ['four slabs', partsAtLoad.fourParts]] as const) {
+    pt.push([name, String(pc.elements), String(pc.parts), String(pc.interfaces), f(pc.loadCpuMs.median), f(pc.partsCpuMs.median), f(pc.interfaceFacesCpuMs.median), `${f(100 * pc.addedMin)} %`, `${f(100 * pc.addedMedian)} %`, `${f(100 * pc.addedMedianWall)} %`, pc.addedMedian <= 0.25 ? '✓' : '✗'])
+  }
+  out.push(pad(pt))
   out.push('')
   out.push(`Lines (tet4, ${lines.elements} elements): grid ${f(lines.gridMs)} ms (${f(lines.gridVsStreaming)} × streaming, ${f(lines.gridItemsPerElement)} entries per element), point location ${f(lines.locateUsPerPoint)} µs per point, 1000-point line ${f(lines.sampleMs)} ms, linearisation across the block ${f(lines.lineariseMs)} ms (${lines.segments} segments); checks ${Object.entries(lines.checks).map(([a, b]) => `${a} ${typeof b === 'number' ? f(b) : b}`).join(', ')}`)
   out.push('')

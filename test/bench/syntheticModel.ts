@@ -51,9 +51,12 @@ export const BODY_FORCE: Vec3 = [0, 0, -FIELD.gamma]
 /**
  * A unit block with about `elements` elements. Interior nodes move by up to `jitter` cell sizes
  * per coordinate (0.1 cannot invert a Kuhn tetrahedron, whose smallest height is 0.707 cells),
- * boundary nodes stay on the block's faces so its surface stays flat.
+ * boundary nodes stay on the block's faces so its surface stays flat. With `parts` ≥ 1 every
+ * element gets a part number: `parts` slabs along z of equal thickness (numbered 1.. from z = 0,
+ * by the element's first corner, so a slab's border follows the cells), sharing the nodes where
+ * they meet; `parts` = 1 is a single-part model with a part column.
  */
-export function syntheticModel(type: 'hex8' | 'tet4' | 'tet10', elements: number, seed = 1, jitter = 0.1): Model {
+export function syntheticModel(type: 'hex8' | 'tet4' | 'tet10', elements: number, seed = 1, jitter = 0.1, parts = 0): Model {
   const n = cellsPerSide(type, elements)
   const corners = boxMesh({ nx: n, ny: n, nz: n, lx: 1, ly: 1, lz: 1 }, (type === 'tet10' ? 'tet4' : type) as ElementTypeName)
   const x = corners.coords
@@ -69,15 +72,25 @@ export function syntheticModel(type: 'hex8' | 'tet4' | 'tet10', elements: number
     }
   }
   // tet10: mid-edge nodes at the midpoints of the jittered edges (straight-sided elements)
-  const mesh = type === 'tet10'
+  let mesh = type === 'tet10'
     ? (() => { const q = addMidEdgeNodes(x, corners.blocks[0].conn, 'tet4', 'tet10'); return createMesh(q.coords, [{ type: 'tet10', conn: q.conn }]) })()
     : corners
+  if (parts >= 1) {
+    // the cell's layer: that of its lowest corner (boxMesh numbers grid nodes x fastest, then y, then z)
+    const b = mesh.blocks[0], nn = b.conn.length / b.ids.length, part = new Int32Array(b.ids.length), layer = (n + 1) * (n + 1)
+    for (let e = 0; e < part.length; e++) {
+      let low = n
+      for (let c = 0; c < (type === 'hex8' ? 8 : 4); c++) low = Math.min(low, Math.floor(b.conn[nn * e + c] / layer))
+      part[e] = 1 + Math.min(parts - 1, Math.floor((low * parts) / n))
+    }
+    mesh = createMesh(mesh.coords, [{ type: b.type, conn: b.conn, part }])
+  }
   const xs = mesh.coords, NS = mesh.nodeCount
   const stress = new Float64Array(6 * NS)
   for (let i = 0; i < NS; i++) analyticStress(stress, 6 * i, xs[3 * i], xs[3 * i + 1], xs[3 * i + 2])
   return {
     name: `bench-${type}-${n}`,
-    description: `Synthetic ${type} block, ${n} cells per side, seed ${seed} (invented data for benchmarking)`,
+    description: `Synthetic ${type} block, ${n} cells per side, seed ${seed}${parts >= 1 ? `, ${parts} part slabs` : ""} (invented data for benchmarking)`,
     units: DEFAULT_UNITS,
     mesh,
     stress,
@@ -86,3 +99,4 @@ export function syntheticModel(type: 'hex8' | 'tet4' | 'tet10', elements: number
     warnings: [],
   }
 }
+

@@ -1,0 +1,104 @@
+/**
+ * What assemblies add to a load at about 10^6 elements: the per-part work (the part list, and with
+ * two parts or more each part's boundary faces, tractions and balance and the interfaces between
+ * parts, partBalance.ts, as the engine runs it once per load: workers/assembly.ts) and the faces
+ * against parts meshed apart (interfaceFaces.ts, run inside the patches stage), beside the whole
+ * load (native read, then every stage of analysisPipeline.ts: faces, tractions, invariants,
+ * element and body balance, patches, verdict). Rounds interleave the load and the part work, so a
+ * load change on a shared machine hits both alike; lowest and median CPU time (process.cpuUsage:
+ * this process only) and wall time. `added` = (parts + interface faces) / (load without them).
+ * `npm run bench` runs it on a one-part tet4 block with a part column and on the same block as
+ * four slabs of parts sharing nodes.
+ * Run alone: npx tsx test/bench/partsCost.ts [parts] [rounds]
+ */
+import os from 'node:os'
+import { fileURLToPath } from 'node:url'
+import type { Model } from '../../src/model/model.ts'
+import { readNative, writeNative } from '../../src/io/index.ts'
+import { runAnalysis, analysisInputOf } from '../../src/mechanics/analysisPipeline.ts'
+import { assemblyBalance, partNumbers } from '../../src/mechanics/partBalance.ts'
+import { coincidentInterfaceFaces } from '../../src/mechanics/interfaceFaces.ts'
+import { modelStressField } from '../../src/model/stressField.ts'
+import type { BoundaryFaces } from '../../src/mechanics/types.ts'
+import { syntheticModel } from './syntheticModel.ts'
+
+export interface PartsCost {
+  parts: number
+  elements: number
+  interfaces: number
+  rounds: number
+  /** Lowest and median CPU ms of: the whole load, the part work, the interface faces alone. */
+  loadCpuMs: { min: number; median: number }
+  partsCpuMs: { min: number; median: number }
+  interfaceFacesCpuMs: { min: number; median: number }
+  loadWallMs: { min: number; median: number }
+  partsWallMs: { min: number; median: number }
+  interfaceFacesWallMs: { min: number; median: number }
+  /** (parts + interface faces) / (load − interface faces), from the lowest and the median CPU times. */
+  addedMin: number
+  addedMedian: number
+  /** The same from the median wall times. */
+  addedMedianWall: number
+  loadAverage: number
+}
+
+/** Each boundary face's part (0 without). */
+function faceParts(model: Model, faces: BoundaryFaces): Int32Array {
+  const out = new Int32Array(faces.count)
+  const b = model.mesh.blocks
+  for (let f = 0; f < faces.count; f++) {
+    let k = b.length - 1
+    while (k > 0 && b[k].offset > faces.elem[f]) k--
+    out[f] = b[k].part ? b[k].part![faces.elem[f] - b[k].offset] : 0
+  }
+  return out
+}
+
+const stat = (a: number[]) => { const s = [...a].sort((x, y) => x - y); return { min: s[0], median: s[s.length >> 1] } }
+
+export function partsCost(model: Model, rounds = 5): PartsCost {
+  const bytes = writeNative(model)
+  let interfaces = 0
+  const load = () => {
+    const m = readNative(bytes, 'bench.tractus')
+    return { m, r: runAnalysis(analysisInputOf(m), { balancePrecision: 'single' }) }
+  }
+  // the engine's assembly step: the part list, and the assembly only with two parts or more
+  const parts = (m: Model) => {
+    const numbers = partNumbers(m.mesh)
+    if (numbers.length < 2) return 0
+    const asm = assemblyBalance(m.mesh, modelStressField(m), () => m.bodyForce)
+    interfaces = asm.interfaces.length
+    return asm.parts.length
+  }
+  const timed = <T>(fn: () => T): { value: T; cpu: number; wall: number } => {
+    const c0 = process.cpuUsage(), w0 = performance.now()
+    const value = fn()
+    const c = process.cpuUsage(c0)
+    return { value, cpu: (c.user + c.system) / 1000, wall: performance.now() - w0 }
+  }
+  const loadCpu: number[] = [], partsCpu: number[] = [], faceCpu: number[] = [], loadWall: number[] = [], partsWall: number[] = [], faceWall: number[] = []
+  for (let i = 0; i < rounds + 1; i++) {
+    const l = timed(load)
+    const p = timed(() => parts(l.value.m))
+    const fp = faceParts(l.value.m, l.value.r.faces)
+    const f = timed(() => coincidentInterfaceFaces(l.value.m.mesh.coords, l.value.r.faces, fp))
+    if (i === 0) continue // warm-up
+    loadCpu.push(l.cpu); partsCpu.push(p.cpu); faceCpu.push(f.cpu); loadWall.push(l.wall); partsWall.push(p.wall); faceWall.push(f.wall)
+  }
+  const L = stat(loadCpu), P = stat(partsCpu), F = stat(faceCpu), LW = stat(loadWall), PW = stat(partsWall), FW = stat(faceWall)
+  return {
+    parts: partNumbers(model.mesh).length, elements: model.mesh.elementCount, interfaces, rounds,
+    loadCpuMs: L, partsCpuMs: P, interfaceFacesCpuMs: F, loadWallMs: LW, partsWallMs: PW, interfaceFacesWallMs: FW,
+    addedMin: (P.min + F.min) / (L.min - F.min), addedMedian: (P.median + F.median) / (L.median - F.median),
+    addedMedianWall: (PW.median + FW.median) / (LW.median - FW.median),
+    loadAverage: os.loadavg()[0],
+  }
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  const parts = Number(process.argv[2] ?? 4), rounds = Number(process.argv[3] ?? 5)
+  const r = partsCost(syntheticModel('tet4', 1e6, 20261201, 0.1, parts), rounds)
+  console.log(`tet4, ${r.elements} elements, ${r.parts} part(s), ${r.interfaces} interface(s): load ${r.loadCpuMs.min.toFixed(0)} / ${r.loadCpuMs.median.toFixed(0)} ms CPU (min / median), parts ${r.partsCpuMs.min.toFixed(1)} / ${r.partsCpuMs.median.toFixed(1)} ms, interface faces ${r.interfaceFacesCpuMs.min.toFixed(1)} / ${r.interfaceFacesCpuMs.median.toFixed(1)} ms: +${(100 * r.addedMin).toFixed(0)} % / +${(100 * r.addedMedian).toFixed(0)} %; load average ${r.loadAverage.toFixed(1)}`)
+  console.log(JSON.stringify(r))
+}
