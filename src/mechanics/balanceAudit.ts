@@ -365,22 +365,5 @@ export function computeBodyBalance(mesh: Mesh, faces: BoundaryFaces, tractions: 
   return { force, moment, relative, gross, about: c, volume: V, centroid: c, surfaceForce, bodyForceTotal }
 }
 
-/**
- * Percentiles of `values` (NaN ignored) by linear interpolation between order statistics
- * (the "type 7" definition of Hyndman & Fan, Am. Stat. 50(4), 1996, the default of most
- * statistics packages). Returns NaN for each p when no finite value is present.
- */
-export function percentiles(values: ArrayLike<number>, ps: readonly number[]): number[] {
-  let n = 0
-  for (let i = 0; i < values.length; i++) if (!Number.isNaN(values[i])) n++
-  const sorted = new Float64Array(n)
-  let k = 0
-  for (let i = 0; i < values.length; i++) { const v = values[i]; if (!Number.isNaN(v)) sorted[k++] = v }
-  sorted.sort()
-  return ps.map((p) => {
-    if (n === 0) return NaN
-    const h = (Math.min(100, Math.max(0, p)) / 100) * (n - 1)
-    const lo = Math.floor(h), hi = Math.min(n - 1, lo + 1)
-    return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo])
-  })
-}
+// Percentiles of `values` by selection (no sort): percentiles.ts.
+export { percentiles } from './percentiles.ts'

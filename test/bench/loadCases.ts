@@ -155,8 +155,9 @@ export function loadCaseLines(figures: readonly LoadCaseFigures[]): string[] {
     `${f.type} ${f.elements} elements, ${f.nodes} nodes (load average ${f.loadAverage.toFixed(1)}): one cut ${f.singleCutMs.toFixed(1)} ms; ${f.cases} cases + 2 combinations at once ${f.allCasesMs.toFixed(1)} ms ` +
       `(× ${f.ratio.toFixed(2)}, cpu × ${f.ratioCpu.toFixed(2)}; ${f.stencilEntries} stencil entries); with regions ${f.singleCutRegionsMs.toFixed(1)} ms against ${f.allCasesRegionsMs.toFixed(1)} ms ` +
       `(× ${f.ratioRegions.toFixed(2)}, cpu × ${f.ratioRegionsCpu.toFixed(2)})`,
-    `${f.type} case switch in the worker: to the combination of all ${f.cases} cases ${ms(f.switchMs)} ms (cpu ${ms(f.switchCpuMs)}: fields ${ms(f.switchFieldsMs)}, pipeline ${ms(f.switchPipelineMs)}, picture ${ms(f.switchPictureMs)}), ` +
-      `to one case ${ms(f.switchCaseMs)} ms (cpu ${ms(f.switchCaseCpuMs)}); 50 cases: nodal ${mb(f.bytesNodal50)}, element-nodal ${mb(f.bytesElementNodal50)}`,
+    (f.switchMs === null ? `${f.type}` : `${f.type} case switch in the worker: to the combination of all ${f.cases} cases ${ms(f.switchMs)} ms (cpu ${ms(f.switchCpuMs)}: fields ${ms(f.switchFieldsMs)}, ` +
+      `pipeline ${ms(f.switchPipelineMs)}, picture ${ms(f.switchPictureMs)}), to one case ${ms(f.switchCaseMs)} ms (cpu ${ms(f.switchCaseCpuMs)});`) +
+      ` 50 cases hold: nodal ${mb(f.bytesNodal50)}, element-nodal ${mb(f.bytesElementNodal50)} (Float64 stress)`,
   ])
 }
 
