@@ -42,7 +42,7 @@ describe('reading the user\'s files in slices', () => {
   it('a container read in slices is the model read whole, its arrays views into the one buffer read', async () => {
     const bytes = writeNative(model)
     const whole = readModelFiles([{ name: 'm.tractus', data: bytes }])
-    const read = await readInputFiles([{ name: 'm.tractus', data: new Blob([bytes]) }], undefined, 4096 + 3)
+    const read = await readInputFiles([{ name: 'm.tractus', data: new Blob([bytes as Uint8Array<ArrayBuffer>]) }], undefined, 4096 + 3)
     const got = readModelFiles(read.files)
     expectSameModel(whole, got)
     expect(read.inputs).toEqual([{ name: 'm.tractus', bytes: bytes.byteLength, sha256: sha256(bytes) }])
