@@ -71,8 +71,12 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   const tracer = process.env.TRACTUS_E2E_TRACE ? await startTrace(page) : null
   const t0 = Date.now()
   if (o.file) {
+    // The start page's own model first, then the file, as a user opens one.
     await page.goto(`${ORIGIN}/`)
-    await page.waitForSelector('[data-testid="file-input"]', { state: 'attached' })
+    await waitForModel(page, 120_000)
+    await page.waitForFunction(() => window.__firstPicture !== undefined, undefined, { timeout: 120_000 })
+    await page.waitForTimeout(1000)
+    await page.evaluate(() => { window.__firstPicture = undefined })
     await page.setInputFiles('[data-testid="file-input"]', [o.file])
   } else {
     await page.goto(`${ORIGIN}/#model=block&elements=${o.elements}`)
