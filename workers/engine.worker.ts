@@ -31,7 +31,7 @@ import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, SectionPl
 import type {
   AppError, ArrowBuffers, ArrowRequest, AuditSummary, ComputeOptions, CrashKind, CutInfo, CutOptions, CutReply, EngineApi,
   LeastBalancedElement, LoadedModel, ModelSource, ModelSummary, Outcome, PatchReply, PatchRule, ProbeRequest, ProgressCallback,
-  SectionBuffers, SurfaceBuffers,
+  SectionBuffers, SurfaceBuffers, InputFileRecord,
 } from './protocol.ts'
 import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras, ScalarExtremes, SurfaceQuantity } from './protocol.ts'
 import { SURFACE_QUANTITIES } from '../src/mechanics/surfaceTriangles.ts'
@@ -44,6 +44,8 @@ import { buildElementGrid } from '../src/mechanics/elementGrid.ts'
 import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
+import { readInputFiles } from './inputFiles.ts'
+import { tooLargeHint } from '../src/io/sizeGuard.ts'
 import { casesOf, combinationsOf, findCase, firstCaseName, modelForCase } from '../src/model/loadCases.ts'
 import type { Combination } from '../src/model/loadCases.ts'
 import { sectionEnvelope } from '../src/mechanics/sectionEnvelope.ts'
@@ -155,13 +157,12 @@ const yieldTurn = (): Promise<void> => new Promise((r) => setTimeout(r, 0))
 function toAppError(e: unknown): AppError | null {
   if (!isInputError(e)) return null
   const w = e.where
-  return { message: e.message, file: w.file, line: w.line, hint: hintFor(e.kind) }
+  return { message: e.message, file: w.file, line: w.line, hint: e.kind === 'too-large' ? tooLargeHint(w.file) : hintFor(e.kind) }
 }
 
 function hintFor(kind: string): string | undefined {
   switch (kind) {
     case 'missing-file': return 'Choose nodes.csv, elements.csv and stress.csv together (model.json and displacement.csv are optional), or one .tractus file.'
-    case 'too-large': return 'Split the model or coarsen the mesh; the limit protects the browser from running out of memory.'
     case 'header': case 'column-count': return 'Check the header row and the number of values on that line.'
     case 'not-a-number': case 'not-finite': return 'Each value must be a finite decimal number.'
     case 'missing-node': case 'missing-stress': return 'Every element node needs a row in nodes.csv and in stress.csv.'
@@ -363,7 +364,15 @@ const api: EngineApi = {
       report(source.kind === 'files' ? 'Reading files' : 'Generating model', 0)
       await yieldTurn()
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
-      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data })), source.units ? { units: source.units } : {}) : syntheticModel(source.spec)
+      // The user's files come as Blobs and are read here, in slices (workers/inputFiles.ts).
+      let inputs: readonly InputFileRecord[] | undefined
+      let model: Model
+      if (source.kind === 'files') {
+        const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f))
+        inputs = read.inputs.length > 0 ? read.inputs : source.inputs
+        clock.mark('parse')
+        model = readModelFiles(read.files, source.units ? { units: source.units } : {})
+      } else model = syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)
       // The element balance and the invariants need no faces: on a pool they run beside the
@@ -390,7 +399,7 @@ const api: EngineApi = {
       const summary: ModelSummary = {
         ...figures, source: sourceLabel(source),
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
-        ...(source.kind === 'files' && source.inputs ? { inputs: source.inputs } : {}),
+        ...(inputs ? { inputs } : {}),
         stressLayout: input.stress.layout,
         unitsDeclared: (model as Partial<ReadModel>).intake?.unitsDeclared ?? true,
         ...caseSummary(model, firstCaseName(model)),

@@ -217,10 +217,19 @@ export interface SyntheticSpec {
   readonly elements: number
 }
 
-/** One file of a model: name plus bytes (binary container) or text (CSV, JSON). */
+/**
+ * Largest generated block (elements), so a typed link cannot exhaust memory: 10^7 tet4 is the
+ * size the browser test opens (about 0.35 GB of model arrays, as much again for the analysis).
+ */
+export const MAX_SYNTHETIC_ELEMENTS = 10_000_000
+
+/**
+ * One file of a model: name plus bytes (binary container) or text (CSV, JSON), or the user's file
+ * itself (a Blob: a handle, not its bytes), which the worker reads in slices (workers/inputFiles.ts).
+ */
 export interface EngineFile {
   readonly name: string
-  readonly data: ArrayBuffer | string
+  readonly data: ArrayBuffer | string | Blob
 }
 
 export type ModelSource =

@@ -6,10 +6,9 @@
  */
 import { boxMesh } from '../src/model/boxMesh.ts'
 import type { Model } from '../src/model/model.ts'
+import { MAX_SYNTHETIC_ELEMENTS } from './protocol.ts'
 import type { SyntheticSpec } from './protocol.ts'
 
-/** Largest generated model (elements), so a typed hash cannot exhaust memory. */
-export const MAX_SYNTHETIC_ELEMENTS = 2_000_000
 
 /** Beam length L, half height c, thickness b (m); end load P (N). */
 const L = 4, C = 0.5, B = 0.5, P = 2e5

@@ -12,6 +12,7 @@ import type { ViewLink } from './urlHash.ts'
 import type { InputFileRecord } from '../../workers/protocol.ts'
 import { PREVIEW_BYTES, mappingModelJson, mappingProblems, previewBundle, suggestMapping } from '../io/bundlePreview.ts'
 import type { SampleFile } from '../io/bundlePreview.ts'
+import { limitFor } from '../io/sizeGuard.ts'
 
 /** An entry of public/demo/index.json. */
 export interface DemoEntry {
@@ -62,6 +63,8 @@ export function demoSource(d: DemoEntry): AppSource {
  */
 export async function openFiles(files: readonly File[]): Promise<void> {
   if (files.length === 0) return
+  // A file over its limit is refused at once (the engine client's card), before any preview.
+  if (files.some((f) => f.size > limitFor(f.name))) { await engine.load({ kind: 'files', files: [...files] }); return }
   const samples = await Promise.all(files.map(sampleOf))
   if (samples.some((s) => s.text.startsWith('TRACTUS\0'))) { await engine.load({ kind: 'files', files: [...files] }); return }
   const preview = previewBundle(samples)

@@ -21,14 +21,14 @@
  *   is dropped.
  */
 import type { StoreApi } from 'zustand'
-import { checkModelSize } from '../io/sizeGuard.ts'
+import { checkModelSize, tooLargeHint } from '../io/sizeGuard.ts'
 import { isInputError } from '../model/errors.ts'
 import type { Vec3 } from '../model/model.ts'
 import type { LengthUnit, StressUnit } from '../model/units.ts'
 import { deformScaleOf, resolvedHide, sectionPlaneOf } from '../state/selectors.ts'
 import type { TractusState } from '../state/store.ts'
 import type {
-  AppError, ComputeOptions, CutReply, EngineCalls, EngineFile, InputFileRecord, LoadedModel, ModelSource, Outcome, PatchReply, Progress,
+  AppError, ComputeOptions, CutReply, EngineCalls, EngineFile, LoadedModel, ModelSource, Outcome, PatchReply, Progress,
   SectionAxesChoice, SweepReply, SyntheticSpec,
 } from '../../workers/protocol.ts'
 import type { ComponentAxes } from '../../workers/protocol.ts'
@@ -98,25 +98,6 @@ function afterNextFrame(cb: () => void): void {
 /** Request to reply of a cut, as a User Timing entry the browser tests read (nothing more). */
 function measureCut(askedAt: number, computeMs: number | null): void {
   if (typeof performance.measure === 'function') performance.measure('tractus:cut', { start: askedAt, detail: computeMs === null ? null : { computeMs } })
-}
-
-/** CSV and JSON travel as text; anything else (the binary container) as bytes. */
-async function readFile(f: File): Promise<EngineFile> {
-  const lower = f.name.toLowerCase()
-  if (lower.endsWith('.csv') || lower.endsWith('.json') || lower.endsWith('.txt')) return { name: f.name, data: await f.text() }
-  return { name: f.name, data: await f.arrayBuffer() }
-}
-
-/**
- * Name, size and SHA-256 of an input file for the report's traceability. The digest is the
- * browser's own (SubtleCrypto, native and off the script thread); where the page has none (not a
- * secure context) the record says so by leaving it out.
- */
-async function inputRecord(name: string, bytes: ArrayBuffer): Promise<InputFileRecord> {
-  const subtle = globalThis.crypto?.subtle
-  if (!subtle) return { name, bytes: bytes.byteLength }
-  const digest = new Uint8Array(await subtle.digest('SHA-256', bytes))
-  return { name, bytes: bytes.byteLength, sha256: Array.from(digest, (b) => b.toString(16).padStart(2, '0')).join('') }
 }
 
 /** True for the errors a browser raises when it cannot give the memory asked for. */
@@ -225,17 +206,17 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   async function toModelSource(s: AppSource): Promise<ModelSource> {
     if (s.kind === 'synthetic') return { kind: 'synthetic', spec: s.spec }
     if (s.kind === 'files') {
+      // Refused before anything is read. The files go as they are (handles, not bytes): the worker
+      // reads each in slices and digests it (workers/inputFiles.ts), so no file is held twice.
       checkModelSize(s.files.map((f) => ({ name: f.name, size: f.size })))
-      const inputs = await Promise.all(s.files.map(async (f) => inputRecord(f.name, await f.arrayBuffer())))
-      return { kind: 'files', files: await Promise.all(s.files.map(readFile)), label: 'files:' + s.files.map((f) => f.name).join(','), inputs, ...(s.units ? { units: s.units } : {}) }
+      const files: EngineFile[] = s.files.map((f) => ({ name: f.name, data: f }))
+      return { kind: 'files', files, label: 'files:' + s.files.map((f) => f.name).join(','), ...(s.units ? { units: s.units } : {}) }
     }
     const res = await fetchUrl(s.url)
     if (!res.ok) throw new Error(`Could not read the demo model ${s.file} (HTTP ${res.status}).`)
-    const bytes = await res.arrayBuffer()
     const name = s.file.split('/').pop() ?? s.file
-    const inputs = [await inputRecord(name, bytes)]
-    const data = s.file.toLowerCase().endsWith('.json') ? new TextDecoder().decode(bytes) : bytes
-    return { kind: 'files', files: [{ name, data }], label: `demo:${s.id}`, inputs }
+    // As a file the user opens: the worker reads and digests it.
+    return { kind: 'files', files: [{ name, data: await res.blob() }], label: `demo:${s.id}` }
   }
 
   async function load(source: AppSource, opts: { quiet?: boolean } = {}): Promise<boolean> {
@@ -244,7 +225,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
     try {
       src = await toModelSource(source)
     } catch (e) {
-      const err = isInputError(e) ? { message: e.message, file: e.where.file, hint: 'Choose a smaller model.' } : { message: e instanceof Error ? e.message : String(e) }
+      const err = isInputError(e) ? { message: e.message, file: e.where.file, hint: e.kind === 'too-large' ? tooLargeHint(e.where.file) : undefined } : { message: e instanceof Error ? e.message : String(e) }
       store.getState().loadEnded(err)
       return false
     }

@@ -1,6 +1,7 @@
 /**
  * Starts the engine worker in the browser and speaks comlink to it: the factory the app hands to
- * `createEngineClient` (src/app/engineClient.ts). Model files travel by transfer, the progress
+ * `createEngineClient` (src/app/engineClient.ts). The user's files travel as Blobs (handles: the
+ * worker reads them in slices), a demo's bytes by transfer, the progress
  * callback as a comlink proxy. A worker that dies outside a call reports through `onFailure`.
  */
 import * as Comlink from 'comlink'
@@ -9,7 +10,8 @@ import type { EngineConnection } from './engineClient.ts'
 
 function transferList(src: ModelSource): Transferable[] {
   if (src.kind !== 'files') return []
-  return src.files.flatMap((f) => (typeof f.data === 'string' ? [] : [f.data]))
+  // Text is copied and a Blob goes as a handle (the worker reads its bytes); bytes move.
+  return src.files.flatMap((f) => (f.data instanceof ArrayBuffer ? [f.data] : []))
 }
 
 export function startEngineWorker(onFailure: (message: string) => void): EngineConnection {

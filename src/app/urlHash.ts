@@ -12,6 +12,7 @@
  * needs and applies it once files of those names are opened.
  */
 import type { Vec3 } from '../model/model.ts'
+import { MAX_SYNTHETIC_ELEMENTS } from '../../workers/protocol.ts'
 import { COLOUR_MAP_NAMES, QUANTITY_NAMES } from '../state/store.ts'
 import type { CameraState, ColourMapName, ColourRange, QuantityName, SectionState } from '../state/store.ts'
 import type { UnitSystem } from '../model/units.ts'
@@ -83,7 +84,7 @@ export function parseViewLink(hash: string): ViewLink {
     }
   } else if (model === 'block') {
     const e = Number(params.get('elements') ?? '20000')
-    out.model = { kind: 'block', elements: Number.isInteger(e) && e >= 6 && e <= 2_000_000 ? e : 20000 }
+    out.model = { kind: 'block', elements: Number.isInteger(e) && e >= 6 && e <= MAX_SYNTHETIC_ELEMENTS ? e : 20000 }
   }
   const q = params.get('q')
   if (q && (QUANTITY_NAMES as readonly string[]).includes(q)) out.quantity = q as QuantityName

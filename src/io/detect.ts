@@ -8,7 +8,7 @@ import type { ReadModel } from './intakeReport.ts'
 import { NATIVE_EXTENSION, isNativeContainer, readNative } from './nativeContainer.ts'
 import { baseName, readCsvBundle } from './readCsvBundle.ts'
 import type { CsvBundleOptions, CsvFile } from './readCsvBundle.ts'
-import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
+import { MAX_CONTAINER_BYTES, MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 
 export interface InputFile {
   readonly name: string
@@ -16,7 +16,7 @@ export interface InputFile {
 }
 
 export interface ReadModelOptions {
-  /** Largest accepted file in bytes (default MAX_MODEL_BYTES). */
+  /** Largest accepted file in bytes (default MAX_CONTAINER_BYTES for a container, MAX_MODEL_BYTES for text). */
   readonly maxBytes?: number
   /** Model name when the files give none. */
   readonly name?: string
@@ -37,8 +37,8 @@ const MAGIC_TEXT = 'TRACTUS\0'
 export function readModelFiles(files: readonly InputFile[], options: ReadModelOptions = {}): ReadModel {
   if (files.length === 0) throw new InputError('missing-file', 'no files given: choose nodes.csv, elements.csv and stress.csv together (and model.json), or one .tractus file')
   const limit = options.maxBytes ?? MAX_MODEL_BYTES
-  for (const f of files) assertWithinLimit(f.name, sizeOf(f.data), limit)
   const native = files.filter((f) => (typeof f.data === 'string' ? f.data.startsWith(MAGIC_TEXT) : isNativeContainer(bytesOf(f.data))))
+  for (const f of files) assertWithinLimit(f.name, sizeOf(f.data), native.includes(f) ? options.maxBytes ?? MAX_CONTAINER_BYTES : limit)
   if (native.length > 0) {
     if (files.length > 1) {
       throw new InputError('bad-argument', `give either one ${NATIVE_EXTENSION} container or a CSV bundle, not both; got: ${files.map((f) => f.name).join(', ')}`, { file: native[0].name })
@@ -57,7 +57,8 @@ export function readModelFiles(files: readonly InputFile[], options: ReadModelOp
   return readCsvBundle(texts, { maxBytes: limit, name: options.name, ...(options.units ? { units: options.units } : {}) })
 }
 
-function decodeUtf8(file: string, bytes: Uint8Array): string {
+/** UTF-8 bytes as text; bytes that are not UTF-8 are an input error naming the line of the first bad one. */
+export function decodeUtf8(file: string, bytes: Uint8Array): string {
   try {
     // fatal: a file in another encoding is reported, not silently mangled. The BOM is dropped.
     return new TextDecoder('utf-8', { fatal: true }).decode(bytes)

@@ -19,6 +19,15 @@ export interface SectionFillProps {
 
 const noRaycast = (): void => {}
 
+/** The section face's material: never clipped (it is what the cut shows), no patch labels. */
+export function createSectionFillMaterial(): ReturnType<typeof createScalarMaterial> {
+  const m = createScalarMaterial(colourMapTexture('viridis'), [])
+  m.uniforms.useLabel.value = 0
+  m.uniforms.backNeutral.value = 0
+  m.polygonOffset = false
+  return m
+}
+
 /**
  * The cut face, colour-mapped by the section's normal traction m·σm or shear magnitude; with the
  * deformed shape it moves with the material (the displacement at its vertices comes from the worker).
@@ -39,14 +48,7 @@ export function SectionFill({ buffers, traction, range, colourMap, normal, defor
     geometry.dispose()
   }, [geometry, normalAttr, shearAttr])
 
-  // The section face is never clipped: it is what the cut shows.
-  const material = useMemo(() => {
-    const m = createScalarMaterial(colourMapTexture('viridis'), [])
-    m.uniforms.useLabel.value = 0
-    m.uniforms.backNeutral.value = 0
-    m.polygonOffset = false
-    return m
-  }, [])
+  const material = useMemo(createSectionFillMaterial, [])
   useEffect(() => () => material.dispose(), [material])
 
   useEffect(() => {

@@ -1,9 +1,10 @@
-import { useEffect, useMemo } from 'react'
+import { useEffect, useMemo, useState } from 'react'
 import { BackSide, BufferAttribute, BufferGeometry, FrontSide, Sphere, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { SurfaceBuffers } from '../../workers/protocol.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
 import { createScalarMaterial } from './scalarMaterial.ts'
+import { createSectionFillMaterial } from './SectionFill.tsx'
 import type { ColourMapName } from '../state/store.ts'
 import type { Plane } from 'three'
 
@@ -120,16 +121,54 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
   const front = useMemo(() => (ranges ? [material] : material), [ranges, material])
   const back = useMemo(() => (ranges ? [backMaterial] : backMaterial), [ranges, backMaterial])
 
+  // Warm-up. The first draw with a new shader and render state costs a compile (on software
+  // WebGL a JIT in the GPU process, which the main thread waits for when it reads the frame back:
+  // over a second at 10^6 elements, measured). Switching the section on brings two: the surface's
+  // back pass and the section face. Each is drawn once, a single triangle, in its own frame
+  // shortly after the first picture, so the switch finds them ready. The warm geometries share
+  // the surface's attribute objects (no second upload) and are never disposed, which would free
+  // the shared buffers.
+  const [warmStep, setWarmStep] = useState(0)
+  useEffect(() => setWarmStep(0), [geometry])
+  const warm = useMemo(() => {
+    if (warmStep !== 1 && warmStep !== 2) return null
+    const g = new BufferGeometry()
+    if (warmStep === 1) for (const [name, a] of Object.entries(geometry.attributes)) g.setAttribute(name, a)
+    else {
+      // The section face's layout: positions and one scalar.
+      g.setAttribute('position', geometry.getAttribute('position'))
+      g.setAttribute('scalar', geometry.getAttribute('scalar'))
+    }
+    g.setIndex(geometry.index)
+    g.setDrawRange(0, 3)
+    g.boundingSphere = geometry.boundingSphere
+    return { geometry: g, material: warmStep === 1 ? backMaterial : createSectionFillMaterial(), step: warmStep }
+  }, [warmStep, geometry, backMaterial])
+  useEffect(() => {
+    if (warmStep === 0) return
+    // Steps 1 and 2 draw their triangle; step 3 draws the picture without them.
+    invalidate()
+    if (warm && warm.material !== backMaterial) return () => warm.material.dispose()
+  }, [warmStep, warm, backMaterial, invalidate])
+  /** After a warm draw, the next one in a later task (its own frame). */
+  const warmed = useMemo(() => () => { setTimeout(() => setWarmStep((k) => (k === 1 || k === 2 ? k + 1 : k)), 50) }, [])
+
   // The first draw of each surface leaves a User Timing mark (the browser tests time the first picture by it).
   const markFirstDraw = useMemo(() => {
     let done = false
-    return () => { if (!done) { done = true; performance.mark('tractus:surface-drawn', { detail: { vertices: surface.positions.length / 3 } }) } }
+    return () => {
+      if (done) return
+      done = true
+      performance.mark('tractus:surface-drawn', { detail: { vertices: surface.positions.length / 3 } })
+      setTimeout(() => setWarmStep((k) => (k === 0 ? 1 : k)), 300)
+    }
   }, [surface])
 
   return (
     <>
       <mesh geometry={geometry} material={front} raycast={noRaycast} frustumCulled={false} onAfterRender={markFirstDraw} />
       {clipped && <mesh geometry={geometry} material={back} raycast={noRaycast} frustumCulled={false} />}
+      {warm && <mesh key={warm.step} geometry={warm.geometry} material={warm.material} raycast={noRaycast} frustumCulled={false} onAfterRender={warmed} />}
     </>
   )
 }

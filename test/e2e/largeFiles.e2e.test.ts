@@ -1,0 +1,82 @@
+/**
+ * Files of a large model in the browser: the main thread hands the user's files to the engine
+ * worker as they are (handles), and the worker reads them in slices (workers/inputFiles.ts).
+ * - A container and the CSV bundle of the same model, each spanning several slices, open to the
+ *   same model: the same counts, the same patch forces and the same section resultant.
+ * - A file over its limit is refused at once, by a card naming the file, its size and the limit,
+ *   and saying what to do (the command line). The files are sparse: nothing is written or read.
+ */
+import { describe, expect, it } from 'vitest'
+import { mkdirSync, openSync, closeSync, ftruncateSync, writeFileSync } from 'node:fs'
+import { resolve } from 'node:path'
+import { useBrowserSession, OUT_DIR, figure, newPage, waitForCut, waitForModel } from './browser.ts'
+import { syntheticModel } from '../bench/syntheticModel.ts'
+import { writeCsvBundle, writeNative } from '../../src/io/index.ts'
+import { MAX_CONTAINER_BYTES, MAX_TEXT_BYTES } from '../../src/io/sizeGuard.ts'
+
+const s = useBrowserSession()
+const DIR = resolve(OUT_DIR, 'files')
+mkdirSync(DIR, { recursive: true })
+
+/** A sparse file of `size` bytes (no disk used, and the app must not read it). */
+function sparse(name: string, size: number): string {
+  const path = resolve(DIR, name)
+  const fd = openSync(path, 'w')
+  ftruncateSync(fd, size)
+  closeSync(fd)
+  return path
+}
+
+async function openAndCut(files: string[]): Promise<{ counts: string; patches: number[]; axial: number }> {
+  const page = await newPage(s)
+  await page.setInputFiles('[data-testid="file-input"]', files)
+  await waitForModel(page, 120_000)
+  await page.keyboard.press('c')
+  await waitForCut(page)
+  const counts = (await page.textContent('.counts'))!
+  const patches = await page.$$eval('[data-testid="patch-list"] tbody tr td[data-col="force"] .num', (e) => e.map((x) => Number(x.getAttribute('data-model'))))
+  const axial = await figure(page, 'axial')
+  await page.close()
+  return { counts, patches, axial }
+}
+
+describe('large files', () => {
+  it('a container and a CSV bundle, read in slices, open to the same model', async () => {
+    // About 3 × 10^5 tet4: the container is 12 MB and elements.csv 10 MB, so several 16 MiB slices in all.
+    const model = syntheticModel('tet4', 3e5, 1)
+    const bytes = writeNative(model)
+    const container = resolve(DIR, 'block.tractus')
+    writeFileSync(container, bytes)
+    const bundle = writeCsvBundle(model).map((f) => { const p = resolve(DIR, f.name); writeFileSync(p, f.text); return p })
+    const a = await openAndCut([container])
+    const b = await openAndCut(bundle)
+    expect(a.counts).toMatch(/elements/)
+    expect(b).toEqual(a)
+    expect(a.patches.length).toBeGreaterThan(0)
+  })
+
+  it('a container over 2 GiB is refused by a card naming it, its size and the limit, and sending it to the command line', async () => {
+    const page = await newPage(s)
+    const size = MAX_CONTAINER_BYTES + 4096
+    await page.setInputFiles('[data-testid="file-input"]', [sparse('huge.tractus', size)])
+    await page.waitForSelector('[data-testid="error-card"]')
+    const card = (await page.textContent('[data-testid="error-card"]'))!
+    expect(card).toContain(`huge.tractus: the file is 2.00 GiB (${size} bytes), more than the limit of 2.00 GiB (${MAX_CONTAINER_BYTES} bytes)`)
+    expect(card).toContain('npx tractus audit huge.tractus')
+    await page.screenshot({ path: `${OUT_DIR}/large-files-refused.png` })
+    await page.close()
+  })
+
+  it('a CSV file over 512 MiB is refused before the intake step, with the way to convert the bundle', async () => {
+    const page = await newPage(s)
+    const size = MAX_TEXT_BYTES + 1
+    const small = writeCsvBundle(syntheticModel('tet4', 100, 1)).filter((f) => f.name !== 'elements.csv').map((f) => { const p = resolve(DIR, 'small-' + f.name); writeFileSync(p, f.text); return p })
+    await page.setInputFiles('[data-testid="file-input"]', [...small, sparse('elements.csv', size)])
+    await page.waitForSelector('[data-testid="error-card"]')
+    const card = (await page.textContent('[data-testid="error-card"]'))!
+    expect(card).toContain(`elements.csv: the file is 512.0 MiB (${size} bytes), more than the limit of 512.0 MiB (${MAX_TEXT_BYTES} bytes)`)
+    expect(card).toContain('npx tractus convert <bundle folder> --out model.tractus')
+    expect(await page.$('[data-testid="intake-step"]')).toBeNull()
+    await page.close()
+  })
+})

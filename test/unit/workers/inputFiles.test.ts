@@ -1,0 +1,77 @@
+/**
+ * The engine worker's intake of the user's files (workers/inputFiles.ts): files handed over as
+ * Blobs and read in slices give the same model, bit for bit, as the same files read whole; each
+ * file's digest is its SHA-256 (checked against Node's own, FIPS 180-4); a file over its limit is
+ * refused before a byte is read, naming the file, its size and the limit.
+ */
+import { describe, expect, it } from 'vitest'
+import { createHash } from 'node:crypto'
+import { readInputFiles, readInSlices } from '../../../workers/inputFiles.ts'
+import { readModelFiles, writeCsvBundle, writeNative } from '../../../src/io/index.ts'
+import { MAX_CONTAINER_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
+import { InputError } from '../../../src/model/errors.ts'
+import { boxModel } from '../../io/testModels.ts'
+import { expectSameModel } from '../../io/sameModel.ts'
+
+const sha256 = (b: Uint8Array | string): string => createHash('sha256').update(b).digest('hex')
+
+/** A Blob that says it is `size` bytes long and fails if anything reads it. */
+class HugeBlob extends Blob {
+  constructor(private readonly claimed: number) { super(['x']) }
+  override get size(): number { return this.claimed }
+  override slice(): Blob { throw new Error('read although over the limit') }
+}
+
+describe('reading the user\'s files in slices', () => {
+  const model = boxModel('tet4', { nx: 4, ny: 3, nz: 2, lx: 2, ly: 1, lz: 0.5, y0: -0.5 }, true)
+
+  it('a CSV bundle read in slices (some splitting lines and numbers) is the model read whole', async () => {
+    const csv = writeCsvBundle(model)
+    const whole = readModelFiles(csv.map((f) => ({ name: f.name, data: f.text })))
+    for (const slice of [7, 1000, 1 << 20]) {
+      const fractions: number[] = []
+      const read = await readInputFiles(csv.map((f) => ({ name: f.name, data: new Blob([f.text]) })), (x) => fractions.push(x), slice)
+      expectSameModel(whole, readModelFiles(read.files))
+      expect(read.files.every((f) => typeof f.data === 'string'), 'text files arrive as text, their bytes dropped').toBe(true)
+      expect(read.inputs.map((i) => [i.name, i.bytes, i.sha256])).toEqual(csv.map((f) => [f.name, Buffer.byteLength(f.text), sha256(f.text)]))
+      expect(fractions.at(-1)).toBe(1)
+      for (let i = 1; i < fractions.length; i++) expect(fractions[i]).toBeGreaterThanOrEqual(fractions[i - 1])
+    }
+  })
+
+  it('a container read in slices is the model read whole, its arrays views into the one buffer read', async () => {
+    const bytes = writeNative(model)
+    const whole = readModelFiles([{ name: 'm.tractus', data: bytes }])
+    const read = await readInputFiles([{ name: 'm.tractus', data: new Blob([bytes as Uint8Array<ArrayBuffer>]) }], undefined, 4096 + 3)
+    const got = readModelFiles(read.files)
+    expectSameModel(whole, got)
+    expect(read.inputs).toEqual([{ name: 'm.tractus', bytes: bytes.byteLength, sha256: sha256(bytes) }])
+    // Held once: the model's coordinates live in the buffer the slices were read into.
+    expect(got.mesh.coords.buffer).toBe((read.files[0].data as Uint8Array).buffer)
+  })
+
+  it('readInSlices puts every slice at its place, the last one short', async () => {
+    const data = Uint8Array.from({ length: 1000 }, (_, i) => (i * 37) % 251)
+    const seen: number[] = []
+    const got = await readInSlices(new Blob([data]), (n) => seen.push(n), 300)
+    expect(Array.from(got)).toEqual(Array.from(data))
+    expect(seen).toEqual([300, 300, 300, 100])
+  })
+
+  it('bytes and text given already pass through unread and undigested (a demo the client fetched)', async () => {
+    const read = await readInputFiles([{ name: 'a.json', data: '{}' }])
+    expect(read).toEqual({ files: [{ name: 'a.json', data: '{}' }], inputs: [] })
+  })
+
+  it('a file over its limit is refused before any is read: the file, its size and the limit', async () => {
+    const refusal = async (name: string, size: number): Promise<InputError> => {
+      try { await readInputFiles([{ name: 'nodes.csv', data: new Blob(['id,x,y,z\n']) }, { name, data: new HugeBlob(size) }]) } catch (e) { return e as InputError }
+      throw new Error('not refused')
+    }
+    const csv = await refusal('elements.csv', MAX_TEXT_BYTES + 1)
+    expect(csv.kind).toBe('too-large')
+    expect(csv.message).toBe(`elements.csv: the file is 512.0 MiB (${MAX_TEXT_BYTES + 1} bytes), more than the limit of 512.0 MiB (${MAX_TEXT_BYTES} bytes)`)
+    const big = await refusal('big.tractus', 3 * 1024 ** 3)
+    expect(big.message).toBe(`big.tractus: the file is 3.00 GiB (${3 * 1024 ** 3} bytes), more than the limit of 2.00 GiB (${MAX_CONTAINER_BYTES} bytes)`)
+  })
+})
