@@ -172,6 +172,12 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     const local = r.local[i], base = nn * local
     const ps = part ? part[local] : 0
     partOf[s] = ps
+    // corners on the plane (d == 0 exactly: snapped): two or more, and the polygon may share an
+    // in-plane edge with a polygon of an element that is no face neighbour (a plane through a
+    // layer of nodes: the in-plane triangles of neighbouring cells), matched by that edge
+    let onPlane = 0
+    for (let k = 0; k < cc; k++) if (d[conn[base + k]] === 0) onPlane |= 1 << k
+    if (onPlane & (onPlane - 1)) meetInPlaneEdges(ELEMENT_TYPES[mesh.blocks[bi].type].edges, onPlane, conn, base, s, ps, parent)
     if (tet) {
       // a tetrahedron: its corners sorted once (five compares, each with its side), then face k
       // is the other three (sorted corner k left out), already in order. Its code is 8·s + k.
@@ -215,6 +221,7 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
       meet(t, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
     }
   }
+  clearEdgeTable()
   const live = t.live
   // faces left unmatched by node numbers: the section's outline, or faces whose nodes only coincide
   if (live > 1) matchCoincident(openFaces(table!, live, sel, r, mesh), mesh.coords, parent, partOf)
@@ -337,6 +344,49 @@ function removeFace(t: FaceTable, i: number): void {
 function clearFaceTable(t: FaceTable): void {
   const keys = t.keys
   for (let o = 0; o < keys.length; o += 4) keys[o] = -1
+}
+
+/**
+ * In-plane edges of the cut elements (plane through nodes): per slot the edge's two corner nodes
+ * (ascending), the part and the first cut element met with it; later elements of the same part
+ * with the same edge join it. Grows only; emptied after each cut through the slots it used.
+ */
+let edgeKeys = new Int32Array(4 * 256).fill(-1), edgeMask = 255, edgeUsed = new Int32Array(256), edgeLive = 0
+
+function meetInPlaneEdges(edges: readonly (readonly [number, number, number])[], onPlane: number, conn: Int32Array, base: number, s: number, ps: number, parent: Int32Array): void {
+  for (const [a, b] of edges) {
+    if (((onPlane >> a) & 1) === 0 || ((onPlane >> b) & 1) === 0) continue
+    let u = conn[base + a], v = conn[base + b]
+    if (u > v) { const x = u; u = v; v = x }
+    if (2 * (edgeLive + 1) > edgeMask + 1) growEdgeTable()
+    for (let h = faceHash(u, v, ps) & edgeMask; ; h = (h + 1) & edgeMask) {
+      const o = h << 2
+      if (edgeKeys[o] < 0) {
+        edgeKeys[o] = u; edgeKeys[o + 1] = v; edgeKeys[o + 2] = ps; edgeKeys[o + 3] = s
+        edgeUsed[edgeLive++] = h
+        break
+      }
+      if (edgeKeys[o] === u && edgeKeys[o + 1] === v && edgeKeys[o + 2] === ps) { union(parent, edgeKeys[o + 3], s); break }
+    }
+  }
+}
+
+function growEdgeTable(): void {
+  const old = edgeKeys, oldUsed = edgeUsed, n = edgeLive
+  const slots = 2 * (edgeMask + 1)
+  edgeKeys = new Int32Array(4 * slots).fill(-1); edgeMask = slots - 1; edgeUsed = new Int32Array(slots); edgeLive = 0
+  for (let i = 0; i < n; i++) {
+    const o = oldUsed[i] << 2
+    let h = faceHash(old[o], old[o + 1], old[o + 2]) & edgeMask
+    while (edgeKeys[h << 2] >= 0) h = (h + 1) & edgeMask
+    for (let k = 0; k < 4; k++) edgeKeys[(h << 2) + k] = old[o + k]
+    edgeUsed[edgeLive++] = h
+  }
+}
+
+function clearEdgeTable(): void {
+  for (let i = 0; i < edgeLive; i++) edgeKeys[edgeUsed[i] << 2] = -1
+  edgeLive = 0
 }
 
 /** An open face: its owner (cut element s) and its corner node numbers, ascending. */

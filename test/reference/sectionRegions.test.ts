@@ -101,3 +101,20 @@ describe('how regions join', () => {
     expect(lim([2], [0, 0, -1]).area).toBeCloseTo(1, 12)
   })
 })
+
+describe.each(['tet4', 'tet10', 'hex8', 'wedge6', 'pyramid5'] as const)('a plane through a layer of nodes (%s)', (type) => {
+  // The plane holds element faces: the polygons are the in-plane faces of the elements below
+  // it, and split cells (tetrahedra, wedges, pyramids) put neighbouring in-plane triangles in
+  // elements that share only an edge. One connected section is one region all the same, and
+  // a uniform σzz = 3 gives F_z = σzz A (Cauchy's formula, Malvern 1969, ch. 3).
+  const mesh = assembly([{ box: { nx: 3, ny: 4, nz: 4, lx: 3, ly: 4, lz: 4 }, type, part: 1 }], true)
+  const stress = partStress(mesh, { 1: 3 })
+  for (const [point, normal, area] of [[[0, 0, 2], [0, 0, 1], 12], [[0, 2, 0], [0, 1, 0], 12], [[1, 0, 0], [-1, 0, 0], 16]] as [Vec3, Vec3, number][]) {
+    it(`is one region on the plane through ${point.join(', ')}`, () => {
+      const r = cut(mesh, stress, point, normal)
+      expect(r.area).toBeCloseTo(area, 10)
+      expect(r.regions!.length).toBe(1)
+      expect(r.regions![0].area).toBeCloseTo(area, 10)
+    })
+  }
+})
