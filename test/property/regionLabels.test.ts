@@ -4,8 +4,9 @@
  * coincident nodes (of one part or of two), random planes (some exactly through grid nodes) and
  * random selections (a limit). The reference is the definition written out directly: two cut
  * elements of one part belong together when they have a crossed face with the same corner
- * nodes, or crossed faces whose corners coincide within COINCIDENT_TOL times the face size;
- * every pair of faces is compared (no tables, no hashing). Seeded; the seed is printed.
+ * nodes, an element edge on the plane (both corners at d == 0) with the same two nodes, or
+ * crossed faces whose corners coincide within COINCIDENT_TOL times the face size; every pair of
+ * faces or edges is compared (no tables, no hashing). Seeded; the seed is printed.
  */
 import { describe, expect, it } from 'vitest'
 import { nodeDistances } from '../../src/mechanics/sectionCut.ts'
@@ -46,6 +47,17 @@ function referenceLabels(sel: Int32Array, n: number, r: CutRecord, mesh: Mesh, d
     if (twins.length === 1) open.push(f)
     else if (twins[0] === f && part[twins[0].owner] === part[twins[1].owner]) join(twins[0].owner, twins[1].owner)
   }
+  // an element edge with both corners on the plane (d == 0), the same two nodes in both: the
+  // polygons share that edge (a plane through a layer of nodes)
+  const edges: { owner: number; key: string }[] = []
+  for (let s = 0; s < n; s++) {
+    const i = sel[s], block = mesh.blocks[r.block[i]], topo = ELEMENT_TYPES[block.type], base = topo.nodeCount * r.local[i]
+    for (const [a, b] of topo.edges) {
+      const u = block.conn[base + a], v = block.conn[base + b]
+      if (d[u] === 0 && d[v] === 0) edges.push({ owner: s, key: `${Math.min(u, v)},${Math.max(u, v)}` })
+    }
+  }
+  for (const e of edges) for (const g of edges) if (e.key === g.key && part[e.owner] === part[g.owner]) join(e.owner, g.owner)
   // corners that coincide within the tolerance (the two faces' centroids, then every corner)
   const x = mesh.coords
   const centroid = (f: { nodes: number[] }) => [0, 1, 2].map((j) => f.nodes.reduce((s, v) => s + x[3 * v + j] / f.nodes.length, 0))
