@@ -9,14 +9,11 @@
  * Units: those of the values. Layout: any ArrayLike<number>; NaN is ignored.
  */
 
-/** Grows-only copy of the values being selected in (one per call, reused). */
-let scratch = new Float64Array(0)
-
 /** The percentiles `ps` (0..100) of `values` (NaN ignored); NaN for each p when no value is present. */
 export function percentiles(values: ArrayLike<number>, ps: readonly number[]): number[] {
   let n = 0
-  if (scratch.length < values.length) scratch = new Float64Array(values.length)
-  const a = scratch
+  // a copy per call, as the sort had (a kept one would hold 8 bytes per element for good)
+  const a = new Float64Array(values.length)
   for (let i = 0; i < values.length; i++) { const v = values[i]; if (!Number.isNaN(v)) a[n++] = v }
   if (n === 0) return ps.map(() => NaN)
   // the ranks each p needs, in increasing order: after selecting rank r, every rank above lies in

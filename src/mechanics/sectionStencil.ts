@@ -429,6 +429,9 @@ function sortEntries(row: Int32Array, w: Float64Array, from: number, to: number,
   }
 }
 
+/** Where a single case's pass writes the twin it does not need (grows only). */
+let spare = new Float64Array(0)
+
 /** Slots per record of a case's integrals: ∫ t dA, ∫ a t dA, ∫ b t dA. */
 export const CASE_SLOTS = 9
 
@@ -445,43 +448,26 @@ export function stencilIntegrals(
 ): Float64Array {
   const records = c.records
   const mx = m[0], my = m[1], mz = m[2], W = c.w, row = c.row, start = c.start
-  for (let g = 0; g < records; g++) {
-    if (out2 && values2) recordPassPair(out, out2, CASE_SLOTS * g, start[g], start[g + 1], row, W, values, values2, mx, my, mz)
-    else recordPass(out, CASE_SLOTS * g, start[g], start[g + 1], row, W, values, mx, my, mz)
-  }
+  const two = out2 !== null && values2 !== null
+  if (!two && spare.length < CASE_SLOTS * records) spare = new Float64Array(CASE_SLOTS * records)
+  const o2 = two ? out2 : spare, v2 = two ? values2 : values
+  for (let g = 0; g < records; g++) recordPass(out, o2, CASE_SLOTS * g, start[g], start[g + 1], row, W, values, v2, mx, my, mz)
   // the section is the sum of its regions (record 0 holds no element then)
   for (let g = 1; g < records; g++) {
     for (let k = 0; k < CASE_SLOTS; k++) {
       out[k] += out[CASE_SLOTS * g + k]
-      if (out2) out2[k] += out2[CASE_SLOTS * g + k]
+      o2[k] += o2[CASE_SLOTS * g + k]
     }
   }
   return out
 }
 
-/** ∫ t dA, ∫ a t dA, ∫ b t dA over entries [from, to) of one case into out[o .. o + 9). */
+/**
+ * ∫ t dA, ∫ a t dA, ∫ b t dA over entries [from, to) into out[o .. o + 9) from `values`, and
+ * into out2 from `values2`, in one walk (a single case passes its values twice: the second read
+ * hits the cache).
+ */
 function recordPass(
-  out: Float64Array, o: number, from: number, to: number, row: Int32Array, W: Float64Array, values: Float64Array, mx: number, my: number, mz: number,
-): void {
-  let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
-  for (let e = from; e < to; e++) {
-    const r = 6 * row[e], q = 3 * e
-    const sxx = values[r], syy = values[r + 1], szz = values[r + 2], sxy = values[r + 3], syz = values[r + 4], sxz = values[r + 5]
-    const tx = sxx * mx + sxy * my + sxz * mz
-    const ty = sxy * mx + syy * my + syz * mz
-    const tz = sxz * mx + syz * my + szz * mz
-    const w0 = W[q], wa = W[q + 1], wb = W[q + 2]
-    Fx += w0 * tx; Fy += w0 * ty; Fz += w0 * tz
-    Ax += wa * tx; Ay += wa * ty; Az += wa * tz
-    Bx += wb * tx; By += wb * ty; Bz += wb * tz
-  }
-  out[o] = Fx; out[o + 1] = Fy; out[o + 2] = Fz
-  out[o + 3] = Ax; out[o + 4] = Ay; out[o + 5] = Az
-  out[o + 6] = Bx; out[o + 7] = By; out[o + 8] = Bz
-}
-
-/** recordPass for two cases in one walk (values → out, values2 → out2). */
-function recordPassPair(
   out: Float64Array, out2: Float64Array, o: number, from: number, to: number, row: Int32Array, W: Float64Array,
   values: Float64Array, values2: Float64Array, mx: number, my: number, mz: number,
 ): void {
