@@ -1,4 +1,4 @@
-export { readCsvBundle, sortBundleFiles, baseName, BUNDLE_FILES, REQUIRED_BUNDLE_FILES, NODE_COLUMNS, STRESS_COLUMNS, DISPLACEMENT_COLUMNS } from './readCsvBundle.ts'
+export { readCsvBundle, readCsvBundleInPieces, sortBundleFiles, baseName, BUNDLE_FILES, REQUIRED_BUNDLE_FILES, NODE_COLUMNS, STRESS_COLUMNS, DISPLACEMENT_COLUMNS } from './readCsvBundle.ts'
 export type { CsvFile, CsvBundleOptions, BundleFiles } from './readCsvBundle.ts'
 export type { ReadModel, IntakeReport, FileIntake, UnitSource } from './intakeReport.ts'
 export { describeDialect } from './csvDialect.ts'
