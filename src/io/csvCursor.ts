@@ -386,16 +386,16 @@ function readIntegerAsNumber(cur: CsvCursor, start: number, min: number): number
 }
 
 /**
- * Estimates the number of records from the line ends (LF, or lone CR when a file has no LF), to
- * size the first buffers; readers still grow them when the estimate is short.
+ * Estimates the number of records of text[from, to) from the line ends (LF, or lone CR when it has
+ * no LF), to size the first buffers; readers still grow them when the estimate is short.
  */
-export function estimateRecordCount(text: string): number {
+export function estimateRecordCount(text: string, from = 0, to = text.length): number {
   let n = 1
-  let p = text.indexOf('\n')
-  while (p !== -1) { n++; p = text.indexOf('\n', p + 1) }
-  if (n === 1 && text.indexOf('\r') !== -1) {
-    p = text.indexOf('\r')
-    while (p !== -1) { n++; p = text.indexOf('\r', p + 1) }
+  let p = text.indexOf('\n', from)
+  while (p !== -1 && p < to) { n++; p = text.indexOf('\n', p + 1) }
+  if (n === 1) {
+    p = text.indexOf('\r', from)
+    while (p !== -1 && p < to) { n++; p = text.indexOf('\r', p + 1) }
   }
   return n
 }

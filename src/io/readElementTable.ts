@@ -82,7 +82,7 @@ export interface ElementColumns {
 export function readElementTable(file: string, text: string, spec: ElementTableSpec = PLAIN_ELEMENT_TABLE): ElementTable {
   const t = openElementTable(file, text, spec)
   const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: t.setup.cols.hasPart }
-  readElementRows(t.cur, t.setup.cols, t.setup.header, typeLookup(spec.types), spec, grown)
+  readElementRows(t.cur, t.setup.cols, t.setup.header, typeLookup(spec.types), spec, grown, text.length)
   return finishElementTable(t, [finishBlocks(grown, spec.nodeOrder)])
 }
 
@@ -118,14 +118,15 @@ export function openElementTable(file: string, text: string, spec: ElementTableS
 }
 
 /**
- * Reads the element rows of one piece of the file (whole lines, starting on line `line`) into
- * blocks, one per type in order of first appearance, nodes in our local order.
+ * Reads the element rows of one piece of the file, text[start, end) (whole lines, starting on
+ * line `line`), in place into blocks, one per type in order of first appearance, nodes in our
+ * local order.
  */
-export function readElementPiece(setup: ElementPieceSetup, text: string, line: number): RawElementBlock[] {
+export function readElementPiece(setup: ElementPieceSetup, text: string, start: number, end: number, line: number): RawElementBlock[] {
   const cur = createCursor(setup.file, text, setup.separator, setup.decimal)
-  moveCursor(cur, 0, line)
-  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: setup.cols.hasPart }
-  readElementRows(cur, setup.cols, setup.header, typeLookup(setup.spec.types), setup.spec, grown)
+  moveCursor(cur, start, line)
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text, start, end)), hasPart: setup.cols.hasPart }
+  readElementRows(cur, setup.cols, setup.header, typeLookup(setup.spec.types), setup.spec, grown, end)
   return finishBlocks(grown, setup.spec.nodeOrder)
 }
 
@@ -159,7 +160,7 @@ function concatInt(parts: readonly Int32Array[]): Int32Array {
  * The rows of the element file into `grown`, one block per type. Only the row loop, apart from
  * the table's set-up, so that code the loop never reaches cannot discard its optimised form.
  */
-function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks): void {
+function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks, limit: number): void {
   const slotOf = cols.slotOf
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
   const next = nextRecord, sep = takeSeparator, id_ = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
@@ -178,7 +179,8 @@ function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader
   // could map columns: a call per field through readOtherField costs a fifth more per row.
   const ours = slotOf[0] === SLOT_ID && slotOf[1] === SLOT_TYPE && firstNode === (hasPart ? 3 : 2) && (!hasPart || slotOf[2] === SLOT_PART)
   const count_ = readCount
-  while (next(cur)) {
+  // A piece ends at `limit`, just after a line end: a record found there belongs to the next piece.
+  while (next(cur) && cur.pos < limit) {
     let k = 0
     if (cols.plain) {
       let id = 0, t = -1

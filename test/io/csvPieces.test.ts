@@ -9,7 +9,7 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
 import type { CsvFile } from '../../src/io/index.ts'
-import { readPiece } from '../../src/io/csvPieces.ts'
+import { jobBuffers, readPiece } from '../../src/io/csvPieces.ts'
 import type { PieceLane } from '../../src/io/csvPieces.ts'
 import { lineEndsIn, splitAtRecords } from '../../src/io/recordSplit.ts'
 import { elementType } from '../../src/model/elementTypes.ts'
@@ -22,7 +22,7 @@ const SEED = 20261203
 console.log(`csvPieces property tests: fast-check seed ${SEED}`)
 
 /** A lane in this thread; jobs and results cross a structured clone as they would cross a worker. */
-const cloneLane: PieceLane = async (jobs) => structuredClone(structuredClone(jobs).map(readPiece))
+const cloneLane: PieceLane = async (jobs) => structuredClone(structuredClone(jobs, { transfer: jobBuffers(jobs) }).map(readPiece))
 const lanes = (n: number): PieceLane[] => Array.from({ length: n }, () => cloneLane)
 
 /** Record starts of an RFC 4180 text (line ends outside quotes), by a plain character walk. */
