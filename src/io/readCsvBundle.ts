@@ -40,7 +40,14 @@ import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 export interface CsvFile {
   /** File name, possibly with folders ("run3/nodes.csv"); only the base name matters. */
   readonly name: string
+  /**
+   * The file's text. It may be a getter that reads the file each time (the command line reads
+   * files one at a time, so a bundle of many load cases never holds all their texts): the reader
+   * takes it once per file and keeps none.
+   */
   readonly text: string
+  /** Its size when known without reading it (bytes on disk, at least its length); checked against the size limit instead of `text.length`. */
+  readonly size?: number
 }
 
 export interface CsvBundleOptions {
@@ -188,13 +195,13 @@ function planBundle(files: readonly CsvFile[], options: CsvBundleOptions): Bundl
   // Sizes first (before model.json is parsed), of every file named like a bundle file.
   for (const f of files) {
     const b = baseName(f.name).toLowerCase()
-    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, f.text.length, limit)
+    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, f.size ?? f.text.length, limit)
   }
   const json = jsonFiles.length === 1 ? parseJsonText(jsonFiles[0].name, jsonFiles[0].text) : null
   const meta = jsonFiles.length === 1 ? readModelMeta(jsonFiles[0].name, json) : null
   const layout = meta ? readBundleLayout(jsonFiles[0].name, json as Record<string, unknown>) : EMPTY_LAYOUT
   const { byRole, ignored, cases } = sortBundleFiles(files, layout)
-  for (const f of byRole.values()) assertWithinLimit(f.name, f.text.length, limit)
+  for (const f of byRole.values()) assertWithinLimit(f.name, f.size ?? f.text.length, limit)
   const warnings: string[] = ignored.map((n) => `ignored ${n}: not part of a CSV bundle`)
   // --- load cases (caseFiles.ts): the first case's files are read here, the others by readOtherCases ---
   const plan = planCases(byRole, cases, json, jsonFiles.length === 1 ? jsonFiles[0].name : null)
