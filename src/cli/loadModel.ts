@@ -56,16 +56,21 @@ export async function loadModelAsync(path: string): Promise<LoadedModel> {
   for (let k = 0; k < names.length; k++) withPath(() => assertWithinLimit(names[k], sizes[k], MAX_MODEL_BYTES), path, null)
   const files: CsvFile[] = names.map((name, k) => ({ name, size: sizes[k], get text() { return readFileSync(join(path, name), 'utf8') } }))
   const bytes = sizes.reduce((a, b) => a + b, 0)
-  const first = bytes >= PIECES_MIN_CHARS ? startCsvLanes() : null
+  // What is read in pieces: the first case's tables, not the other cases' files (read one by one).
+  const firstBytes = sizes.reduce((a, b, k) => (OTHER_CASE.test(names[k]) ? a : a + b), 0)
+  const first = firstBytes >= PIECES_MIN_CHARS ? startCsvLanes() : null
   try {
     // Workers that are not up within a fraction of a one-thread reading (at about 150 MB/s) are not waited for.
-    const up = first !== null && first.lanes.length > 0 && await first.readyWithin(Math.max(300, (0.3 * bytes) / 150e3))
+    const up = first !== null && first.lanes.length > 0 && await first.readyWithin(Math.max(300, (0.3 * firstBytes) / 150e3))
     const model = await withPathAsync(() => readCsvBundleInPieces(files, {}, up ? first.lanes : []), path)
     return { model, path, format: 'bundle', bytes }
   } finally {
     await first?.close()
   }
 }
+
+/** A load case's file other than the first case's (stress.NAME.csv, displacement.NAME.csv). */
+const OTHER_CASE = /^(stress|displacement)\.[^./\\]+\.csv$/i
 
 /** True when the file starts with the container's magic bytes. */
 function startsWithMagic(file: string, size: number): boolean {
