@@ -5,7 +5,8 @@
  * rejects, and the client shows it and respawns the worker.
  */
 import * as Comlink from 'comlink'
-import { readModelFiles } from '../src/io/index.ts'
+import { readModelFiles, readModelFilesInPieces } from '../src/io/index.ts'
+import { jobBuffers } from '../src/io/csvPieces.ts'
 import type { ReadModel } from '../src/io/intakeReport.ts'
 import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
@@ -98,6 +99,7 @@ function spawnPoolWorker(): PoolEndpoint {
     ping: () => Promise.race([remote.ping(), failure]),
     balance: (part, out) => Promise.race([remote.balance(part, out), failure]),
     invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
+    csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }
@@ -116,6 +118,18 @@ function startPool(): void {
   if (size < 1) return
   const shared = self.crossOriginIsolated === true && typeof SharedArrayBuffer !== 'undefined' && computeOptions.sharing !== 'copy'
   pool = new KernelPool(size, spawnPoolWorker, shared ? 'shared' : 'copy')
+}
+
+/** Files of 16 MiB or more together are read in pieces on the pool (src/io/csvPieces.ts), when it is up. */
+const PIECES_MIN_BYTES = 16 * 2 ** 20
+
+/** The model of the files handed over: a large CSV bundle's first tables read in pieces on the pool, the same model bit for bit. */
+async function readFiles(source: Extract<ModelSource, { kind: 'files' }>) {
+  const files = source.files.map((f) => ({ name: f.name, data: f.data }))
+  const options = source.units ? { units: source.units } : {}
+  const bytes = files.reduce((s, f) => s + (typeof f.data === 'string' ? f.data.length : f.data.byteLength), 0)
+  const lanes = pool && bytes >= PIECES_MIN_BYTES && await pool.upWithin(POOL_START_MS) ? pool.csvLanes() : []
+  return lanes.length ? readModelFilesInPieces(files, options, lanes) : readModelFiles(files, options)
 }
 
 /** Wall time of each load stage (ms), in order, for the summary. */
@@ -368,7 +382,7 @@ const api: EngineApi = {
       report(source.kind === 'files' ? 'Reading files' : 'Generating model', 0)
       await yieldTurn()
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
-      const model = source.kind === 'files' ? readModelFiles(source.files.map((f) => ({ name: f.name, data: f.data })), source.units ? { units: source.units } : {}) : syntheticModel(source.spec)
+      const model = source.kind === 'files' ? await readFiles(source) : syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)
       // The element balance and the invariants need no faces: on a pool they run beside the

@@ -9,7 +9,7 @@ export { checkQuadraticBlock, MID_EDGE_TOLERANCE } from './quadraticElementCheck
 export { writeCsvBundle } from './writeCsvBundle.ts'
 export { readNative, writeNative, isNativeContainer, NATIVE_MAGIC, NATIVE_VERSION, NATIVE_EXTENSION } from './nativeContainer.ts'
 export type { ReadNativeOptions } from './nativeContainer.ts'
-export { readModelFiles } from './detect.ts'
+export { readModelFiles, readModelFilesInPieces } from './detect.ts'
 export type { InputFile, ReadModelOptions } from './detect.ts'
 export { MAX_MODEL_BYTES, assertWithinLimit, checkModelSize } from './sizeGuard.ts'
 export { validateModel } from './validateModel.ts'
