@@ -5,7 +5,8 @@
  * rejects, and the client shows it and respawns the worker.
  */
 import * as Comlink from 'comlink'
-import { readModelFiles } from '../src/io/index.ts'
+import { readModelFiles, readModelFilesInPieces } from '../src/io/index.ts'
+import { jobBuffers } from '../src/io/csvPieces.ts'
 import type { ReadModel } from '../src/io/intakeReport.ts'
 import { isInputError } from '../src/model/errors.ts'
 import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
@@ -100,6 +101,7 @@ function spawnPoolWorker(): PoolEndpoint {
     ping: () => Promise.race([remote.ping(), failure]),
     balance: (part, out) => Promise.race([remote.balance(part, out), failure]),
     invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
+    csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }
@@ -118,6 +120,17 @@ function startPool(): void {
   if (size < 1) return
   const shared = self.crossOriginIsolated === true && typeof SharedArrayBuffer !== 'undefined' && computeOptions.sharing !== 'copy'
   pool = new KernelPool(size, spawnPoolWorker, shared ? 'shared' : 'copy')
+}
+
+/** Files of 16 MiB or more together are read in pieces on the pool (src/io/csvPieces.ts), when it is up. */
+const PIECES_MIN_BYTES = 16 * 2 ** 20
+
+/** The model of the files handed over: a large CSV bundle's first tables read in pieces on the pool, the same model bit for bit. */
+async function readFiles(files: Parameters<typeof readModelFiles>[0], units: Extract<ModelSource, { kind: 'files' }>['units']) {
+  const options = units ? { units } : {}
+  const bytes = files.reduce((s, f) => s + (typeof f.data === 'string' ? f.data.length : f.data.byteLength), 0)
+  const lanes = pool && bytes >= PIECES_MIN_BYTES && await pool.upWithin(POOL_START_MS) ? pool.csvLanes() : []
+  return lanes.length ? readModelFilesInPieces(files, options, lanes) : readModelFiles(files, options)
 }
 
 /** Wall time of each load stage (ms), in order, for the summary. */
@@ -371,7 +384,7 @@ const api: EngineApi = {
         const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f))
         inputs = read.inputs.length > 0 ? read.inputs : source.inputs
         clock.mark('parse')
-        model = readModelFiles(read.files, source.units ? { units: source.units } : {})
+        model = await readFiles(read.files, source.units)
       } else model = syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)

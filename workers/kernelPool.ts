@@ -24,6 +24,7 @@ import { allocateElementBalance, computeElementBalance } from '../src/mechanics/
 import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
+import type { PieceJob, PieceLane, PieceOutcome } from '../src/io/csvPieces.ts'
 
 export type Sharing = 'shared' | 'copy'
 
@@ -33,6 +34,8 @@ export interface PoolEndpoint {
   ping(): Promise<boolean>
   balance(part: BalancePart, out?: BalanceOut): Promise<ElementBalance | null>
   invariants(stress: Float64Array, out?: NodalInvariants): Promise<NodalInvariants | null>
+  /** Reads pieces of CSV tables (src/io/csvPieces.ts); the jobs' bytes move by transfer. */
+  csvPieces?(jobs: readonly PieceJob[]): Promise<readonly PieceOutcome[]>
   terminate(): void
 }
 
@@ -95,6 +98,23 @@ export class KernelPool {
     const serial = (): NodalInvariants => computeNodalInvariants(allocateNodalInvariants(N), stress)
     if (N < POOL_MIN_NODES) return this.runSerial(serial)
     return this.runSplit(serial, () => (this.sharing === 'shared' ? this.invariantsShared(stress) : this.invariantsCopied(stress)))
+  }
+
+  /**
+   * One lane per pool worker for reading a CSV bundle in pieces (readCsvBundleInPieces); none
+   * when the pool stood down. A worker that fails there makes the pool stand down, and the read
+   * runs on one thread.
+   */
+  csvLanes(): PieceLane[] {
+    if (this.size < 1) return []
+    return this.endpoints.filter((ep) => ep.csvPieces).map((ep) => async (jobs) => {
+      try {
+        return await ep.csvPieces!(jobs)
+      } catch (e) {
+        this.standDown(`a pool worker failed reading CSV (${e instanceof Error ? e.message : String(e)})`)
+        throw e
+      }
+    })
   }
 
   private runSerial<T>(serial: () => T): { value: T; run: PoolRun } {

@@ -8,6 +8,8 @@ import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanic
 import { balancePart } from './kernelPoolTask.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
+import { pieceBuffers, readPiece } from '../src/io/csvPieces.ts'
+import type { PieceJob, PieceOutcome } from '../src/io/csvPieces.ts'
 
 const buffersOf = (r: object): ArrayBuffer[] => Object.values(r).map((a: Float64Array | Float32Array) => a.buffer as ArrayBuffer)
 
@@ -20,6 +22,10 @@ const api = {
   invariants(stress: Float64Array, out?: NodalInvariants): NodalInvariants | null {
     const r = computeNodalInvariants(out ?? allocateNodalInvariants(stress.length / 6), stress)
     return out ? null : Comlink.transfer(r, buffersOf(r))
+  },
+  csvPieces(jobs: readonly PieceJob[]): PieceOutcome[] {
+    const out = jobs.map(readPiece)
+    return Comlink.transfer(out, out.flatMap(pieceBuffers))
   },
 }
 

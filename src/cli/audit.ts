@@ -7,7 +7,7 @@ import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
 import { UsageError } from './args.ts'
 import { CASE_OPTION, caseModel } from './caseOption.ts'
-import { loadModel } from './loadModel.ts'
+import { loadModelAsync } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { block, num, qty, table, vecJson, vecQty } from './format.ts'
 import { elementIdOf } from '../model/elementId.ts'
@@ -35,8 +35,8 @@ export const auditCommand: Command = {
     'Element indicator: |∮σn dA + ∫ρb dV| of each element over its gross face load; p50, p95 and max over all elements.',
     'Patches: boundary faces whose mean traction magnitude exceeds the threshold, grown into edge-connected neighbours down to the lower threshold, split where the surface folds by more than the feature angle and where one part meets another; the rest is the nominally free surface, whose mean traction should be small next to the reference stress.',
   ].join('\n'),
-  run(args, io) {
-    const loaded = loadModel(args.positionals[0])
+  async run(args, io) {
+    const loaded = await loadModelAsync(args.positionals[0])
     const { model } = caseModel(loaded.model, args, 'audit')
     const { mesh } = model
     const u = createUnitView(model.units, unitChoice(args))

@@ -7,7 +7,7 @@ import { extname, join } from 'node:path'
 import type { Command } from './command.ts'
 import { HELP_OPTION, JSON_OPTION, printJson } from './command.ts'
 import { CASE_OPTION, caseModel } from './caseOption.ts'
-import { loadModel, NATIVE_EXTENSION } from './loadModel.ts'
+import { loadModelAsync, NATIVE_EXTENSION } from './loadModel.ts'
 import { InputError } from '../model/errors.ts'
 import { writeCsvBundle, writeNative } from '../io/index.ts'
 
@@ -21,9 +21,9 @@ export const convertCommand: Command = {
     CASE_OPTION, JSON_OPTION, HELP_OPTION,
   ],
   details: `The model is read and checked completely before anything is written. Every load case and combination is written (container: one field per case; bundle: stress.NAME.csv and model.json "cases"); --case NAME writes that case or combination alone. An existing output file is replaced. --json prints {"file", "format", "bytes", "nodes", "elements"} of what was written.`,
-  run(args, io) {
+  async run(args, io) {
     const out = args.options.out as string
-    const loaded = loadModel(args.positionals[0])
+    const loaded = await loadModelAsync(args.positionals[0])
     const picked = caseModel(loaded.model, args, 'convert').model
     // --case writes that case (or combination) alone, as a model of one field; without it every case goes
     const { cases: _c, combinations: _k, ...single } = picked

@@ -5,7 +5,7 @@
  */
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, vecOption } from './command.ts'
-import { loadModel } from './loadModel.ts'
+import { loadModelAsync } from './loadModel.ts'
 import { CASE_ALL_OPTION, COMBINATIONS_ONLY_OPTION, allCases, caseModel } from './caseOption.ts'
 import { cutAllCases } from './caseEnvelope.ts'
 import { makePlane } from '../mechanics/plane.ts'
@@ -142,11 +142,11 @@ export const cutCommand: Command = {
     'Load cases: --case NAME cuts one case or combination (the first case by default). --case all cuts every case and combination and adds their envelope: for the section and each region (largest area first), each component in section axes with its largest and smallest value and the case that governs each; --combinations-only envelopes the combinations alone. --json then prints {"cases": [{"case": NAME, ...the fields of one cut...}], "envelope": {"axial": {"max", "maxCase", "min", "minCase"}, "torque": {...}, "shear": [{...}, {...}], "bending": [{...}, {...}], "regions": [{"area", "centroid", "parts", "axial", ...}]}}. With --body-force every case takes that ρb.',
     'Free body: the residual of the piece on the -m side (its boundary tractions, its body force and the section resultant); "relative" is its force over that piece\'s gross load, "momentRelative" its moment about the section centroid over the gross load times the diagonal of the piece\'s bounding box.',
   ].join('\n'),
-  run(args, io) {
+  async run(args, io) {
     const plane = makePlane(vecOption(args, 'point')!, vecOption(args, 'normal')!)
     const about = vecOption(args, 'about')
     const axes = axesOption(args, plane.normal)
-    const loaded = loadModel(args.positionals[0])
+    const loaded = await loadModelAsync(args.positionals[0])
     if (allCases(args)) return cutAllCases(loaded, args, io, plane, about, axes)
     const { model } = caseModel(loaded.model, args, 'cut')
     const u = createUnitView(model.units, unitChoice(args))

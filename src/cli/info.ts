@@ -7,7 +7,7 @@ import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
 import { CASE_OPTION, caseModel } from './caseOption.ts'
 import { casesOf, combinationsOf, describeFactors } from '../model/loadCases.ts'
-import { loadModel } from './loadModel.ts'
+import { loadModelAsync } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { block, qty, table, vecJson, vecQty } from './format.ts'
 import { STRESS_COMPONENTS } from '../model/model.ts'
@@ -71,8 +71,8 @@ export const infoCommand: Command = {
   positionals: ['<model>'],
   options: [CASE_OPTION, JSON_OPTION, UNITS_OPTION, BODY_FORCE_OPTION, HELP_OPTION],
   details: '<model> is a bundle folder (nodes.csv, elements.csv, stress.csv, optional displacement.csv and model.json; further load cases stress.NAME.csv and displacement.NAME.csv) or a native .tractus file. The stress range is that of the case shown (--case); the load cases and combinations are listed ("cases", "combinations" and the shown "case" in --json).',
-  run(args, io) {
-    const loaded = loadModel(args.positionals[0])
+  async run(args, io) {
+    const loaded = await loadModelAsync(args.positionals[0])
     const { model, name: shownCase } = caseModel(loaded.model, args, 'info')
     const cases = casesOf(model), combinations = combinationsOf(model)
     const intake = model.intake

@@ -8,7 +8,7 @@
 import type { Command } from './command.ts'
 import { HELP_OPTION, JSON_OPTION, UNITS_OPTION, printJson, unitChoice, vecOption } from './command.ts'
 import { UsageError } from './args.ts'
-import { loadModel } from './loadModel.ts'
+import { loadModelAsync } from './loadModel.ts'
 import { CASE_OPTION, caseModel } from './caseOption.ts'
 import type { UnitView } from './unitView.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
@@ -85,7 +85,7 @@ export const lineCommand: Command = {
     'A line wholly outside the body says so and exits 0 with empty arrays.',
     LINEARISATION_CAUTION,
   ].join('\n'),
-  run(args, io) {
+  async run(args, io) {
     let from = vecOption(args, 'from')!
     let to = vecOption(args, 'to')!
     const points = args.options.points === undefined ? DEFAULT_LINE_POINTS : (args.options.points as number)
@@ -94,7 +94,7 @@ export const lineCommand: Command = {
     if (from[0] === to[0] && from[1] === to[1] && from[2] === to[2]) throw new UsageError(`--from and --to are the same point (${from.join(',')}); a line needs two different points`)
     const axes = axesOf(args)
     const criterion = args.options.criterion === 'tresca' ? 'tresca' : 'vonMises'
-    const loaded = loadModel(args.positionals[0])
+    const loaded = await loadModelAsync(args.positionals[0])
     const { model } = caseModel(loaded.model, args, 'line')
     const u = createUnitView(model.units, unitChoice(args))
     const grid = buildElementGrid(model.mesh)

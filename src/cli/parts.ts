@@ -7,7 +7,7 @@
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice } from './command.ts'
 import { CASE_OPTION, caseModel } from './caseOption.ts'
-import { loadModel } from './loadModel.ts'
+import { loadModelAsync } from './loadModel.ts'
 import { createUnitView, unitLabels } from './unitView.ts'
 import { num, qty, table, vecJson, vecQty } from './format.ts'
 import { assemblyBalance } from '../mechanics/partBalance.ts'
@@ -25,8 +25,8 @@ export const partsCommand: Command = {
     'Interfaces: faces shared by two parts (shared nodes) or whose corners coincide within a tolerance. For parts [a, b] (a < b), "force" is what a exerts on b (traction on b\'s side, b\'s outward normal, b\'s stress), "moment" about the interface centroid; "mismatch" is |F_ab + F_ba| over the interface\'s gross load ∫|t| dA (zero for nodal stress with shared nodes).',
     'A part\'s own body force comes from model.json "parts"; --body-force sets the one of every part.',
   ].join('\n'),
-  run(args, io) {
-    const loaded = loadModel(args.positionals[0])
+  async run(args, io) {
+    const loaded = await loadModelAsync(args.positionals[0])
     const { model } = caseModel(loaded.model, args, 'parts')
     const u = createUnitView(model.units, unitChoice(args))
     const common = bodyForceOf(args, model)

@@ -5,7 +5,7 @@
 import type { Command } from './command.ts'
 import { BODY_FORCE_OPTION, HELP_OPTION, JSON_OPTION, UNITS_OPTION, bodyForceOf, printJson, unitChoice, vecOption } from './command.ts'
 import { UsageError } from './args.ts'
-import { loadModel } from './loadModel.ts'
+import { loadModelAsync } from './loadModel.ts'
 import { CASE_ALL_OPTION, COMBINATIONS_ONLY_OPTION, allCases, caseModel } from './caseOption.ts'
 import { sweepAllCases } from './caseEnvelope.ts'
 import { unitNormal } from '../mechanics/plane.ts'
@@ -48,7 +48,7 @@ export const sweepCommand: Command = {
     '--json prints {"sections": [...]} with "offset" and the fields of `tractus cut --json` per section.',
     '--case all: the envelope over every case and combination per section (--combinations-only: over the combinations), CSV columns offset, then per component (axial, shear1, shear2, torque, bending1, bending2) NAME_max, NAME_max_case, NAME_min, NAME_min_case; --json {"sections": [{"offset", "area", "envelope": {...as cut --case all...}}]}.',
   ].join('\n'),
-  run(args, io) {
+  async run(args, io) {
     const normal = unitNormal(vecOption(args, 'normal')!, 'sweep direction')
     const from = args.options.from as number
     const to = args.options.to as number
@@ -56,7 +56,7 @@ export const sweepCommand: Command = {
     if (count < 1) throw new UsageError('--count must be at least 1')
     if (count > 100000) throw new UsageError('--count must be at most 100000')
     const axes = axesOption(args, normal)
-    const loaded = loadModel(args.positionals[0])
+    const loaded = await loadModelAsync(args.positionals[0])
     if (allCases(args)) {
       const offsets = Array.from({ length: count }, (_, k) => (k === count - 1 && count > 1 ? to : from + (count > 1 ? k * (to - from) / (count - 1) : 0)))
       return sweepAllCases(loaded, args, io, normal, offsets, axes)

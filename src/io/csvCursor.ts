@@ -6,8 +6,9 @@
  * `Number()` gives for the same token; the fast path is Clinger's: an integer mantissa below 2^53
  * times or divided by an exact power of ten (10^0..10^22) is one correctly rounded operation, so
  * it equals the correctly rounded decimal value that Number() returns (Clinger, "How to read
- * floating point numbers accurately", PLDI 1990). Everything else that is a valid decimal goes to
- * Number(substring).
+ * floating point numbers accurately", PLDI 1990). A mantissa of up to 20 digits (what "full
+ * precision" output writes) divided by a power of ten takes src/io/longDecimal.ts, exact in doubles
+ * or undecided. Everything else that is a valid decimal goes to Number(substring).
  *
  * The file's dialect (src/io/csvDialect.ts) is a set of character codes in the cursor, not a
  * setting the parsers branch on per character: the separator `sep` (',' ';' tab, or a space for
@@ -24,6 +25,8 @@
  * inside quotes is refused (PARSE_OPEN_QUOTE): every table here is one record per line, and a
  * number or name never holds a line break.
  */
+
+import { longDecimalQuotient } from './longDecimal.ts'
 
 /** Parse status left in `cursor.status` by the field readers. */
 export const PARSE_OK = 0
@@ -63,11 +66,13 @@ export interface CsvCursor {
 const CH_TAB = 9, CH_LF = 10, CH_CR = 13, CH_SPACE = 32, CH_QUOTE = 34, CH_HASH = 35, CH_PLUS = 43
 const CH_MINUS = 45, CH_DOT = 46, CH_0 = 48, CH_9 = 57, CH_e = 101, CH_d = 100
 
-/** 2^53: below it every integer is exact in a double. */
-const EXACT_INT_LIMIT = 9007199254740992
+/** The mantissa accumulator takes digits while below this: m·10 + 9 stays under 2^53, so exact. */
+const M_LIMIT = 9e14
 const POW10 = new Float64Array(23)
 for (let i = 0, p = 1; i < 23; i++, p *= 10) POW10[i] = p
 const MAX_ID = 2147483647
+// Module copy of the import: under a CommonJS transform (tsx) each use of an imported name is a getter call.
+const longQuotient = longDecimalQuotient
 
 /**
  * A cursor at the start of `text` (after a byte order mark). `separator` is ',', ';', '\t' or
@@ -250,11 +255,19 @@ export function readNumber(cur: CsvCursor): number {
   const start = p
   let neg = false
   if (c === CH_MINUS) { neg = true; c = ++p < len ? text.charCodeAt(p) : -1 } else if (c === CH_PLUS) c = ++p < len ? text.charCodeAt(p) : -1
-  let m = 0, digits = 0, frac = 0
-  while (c >= CH_0 && c <= CH_9) { m = m * 10 + (c - CH_0); digits++; c = ++p < len ? text.charCodeAt(p) : -1 }
+  // m collects the digits while it stays below 9·10^14, so it is exact (m·10 + 9 < 2^53); the
+  // digits after it go to lo (a long mantissa: full-precision output).
+  let m = 0, digits = 0, frac = 0, lo = 0, nLo = 0
+  while (c >= CH_0 && c <= CH_9) {
+    if (m < M_LIMIT) m = m * 10 + (c - CH_0); else { lo = lo * 10 + (c - CH_0); nLo++ }
+    digits++; c = ++p < len ? text.charCodeAt(p) : -1
+  }
   if (c === dec) {
     c = ++p < len ? text.charCodeAt(p) : -1
-    while (c >= CH_0 && c <= CH_9) { m = m * 10 + (c - CH_0); digits++; frac++; c = ++p < len ? text.charCodeAt(p) : -1 }
+    while (c >= CH_0 && c <= CH_9) {
+      if (m < M_LIMIT) m = m * 10 + (c - CH_0); else { lo = lo * 10 + (c - CH_0); nLo++ }
+      digits++; frac++; c = ++p < len ? text.charCodeAt(p) : -1
+    }
   }
   let exp = 0
   let valid = digits > 0
@@ -278,10 +291,14 @@ export function readNumber(cur: CsvCursor): number {
     cur.tokEnd = end
     cur.status = PARSE_OK
     const e10 = exp - frac
-    if (m < EXACT_INT_LIMIT) {
+    if (nLo === 0) {
       if (e10 === 0) return neg ? -m : m
       if (e10 < 0 && e10 >= -22) return neg ? -(m / POW10[-e10]) : m / POW10[-e10]
       if (e10 > 0 && e10 <= 22) return neg ? -(m * POW10[e10]) : m * POW10[e10]
+    } else if (e10 <= 0) {
+      // 17 to 20 digits (full-precision output): exact in doubles, or NaN to ask Number().
+      const v = longQuotient(m, lo, nLo, -e10)
+      if (v === v) return neg ? -v : v
     }
     // Valid decimal outside the fast path: the platform's correctly rounded conversion, of the
     // token rewritten in its grammar (decimal point, e exponent) where the file writes otherwise.
@@ -369,16 +386,16 @@ function readIntegerAsNumber(cur: CsvCursor, start: number, min: number): number
 }
 
 /**
- * Estimates the number of records from the line ends (LF, or lone CR when a file has no LF), to
- * size the first buffers; readers still grow them when the estimate is short.
+ * Estimates the number of records of text[from, to) from the line ends (LF, or lone CR when it has
+ * no LF), to size the first buffers; readers still grow them when the estimate is short.
  */
-export function estimateRecordCount(text: string): number {
+export function estimateRecordCount(text: string, from = 0, to = text.length): number {
   let n = 1
-  let p = text.indexOf('\n')
-  while (p !== -1) { n++; p = text.indexOf('\n', p + 1) }
-  if (n === 1 && text.indexOf('\r') !== -1) {
-    p = text.indexOf('\r')
-    while (p !== -1) { n++; p = text.indexOf('\r', p + 1) }
+  let p = text.indexOf('\n', from)
+  while (p !== -1 && p < to) { n++; p = text.indexOf('\n', p + 1) }
+  if (n === 1) {
+    p = text.indexOf('\r', from)
+    while (p !== -1 && p < to) { n++; p = text.indexOf('\r', p + 1) }
   }
   return n
 }

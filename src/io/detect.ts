@@ -6,7 +6,8 @@
 import { InputError } from '../model/errors.ts'
 import type { ReadModel } from './intakeReport.ts'
 import { NATIVE_EXTENSION, isNativeContainer, readNative } from './nativeContainer.ts'
-import { baseName, readCsvBundle } from './readCsvBundle.ts'
+import { baseName, readCsvBundle, readCsvBundleInPieces } from './readCsvBundle.ts'
+import type { PieceLane } from './csvPieces.ts'
 import type { CsvBundleOptions, CsvFile } from './readCsvBundle.ts'
 import { MAX_CONTAINER_BYTES, MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 
@@ -35,6 +36,21 @@ function sizeOf(d: ArrayBuffer | Uint8Array | string): number {
 const MAGIC_TEXT = 'TRACTUS\0'
 
 export function readModelFiles(files: readonly InputFile[], options: ReadModelOptions = {}): ReadModel {
+  const r = readModelOrBundle(files, options)
+  return 'mesh' in r ? r : readCsvBundle(r.texts, r.options)
+}
+
+/**
+ * readModelFiles with a CSV bundle's first tables read in pieces on `lanes` (src/io/csvPieces.ts):
+ * the same model, the same messages.
+ */
+export async function readModelFilesInPieces(files: readonly InputFile[], options: ReadModelOptions, lanes: readonly PieceLane[]): Promise<ReadModel> {
+  const r = readModelOrBundle(files, options)
+  return 'mesh' in r ? r : readCsvBundleInPieces(r.texts, r.options, lanes)
+}
+
+/** A container read, or the texts of a CSV bundle and its options, not read yet. */
+function readModelOrBundle(files: readonly InputFile[], options: ReadModelOptions): ReadModel | { readonly texts: CsvFile[]; readonly options: CsvBundleOptions } {
   if (files.length === 0) throw new InputError('missing-file', 'no files given: choose nodes.csv, elements.csv and stress.csv together (and model.json), or one .tractus file')
   const limit = options.maxBytes ?? MAX_MODEL_BYTES
   const native = files.filter((f) => (typeof f.data === 'string' ? f.data.startsWith(MAGIC_TEXT) : isNativeContainer(bytesOf(f.data))))
@@ -54,7 +70,7 @@ export function readModelFiles(files: readonly InputFile[], options: ReadModelOp
     throw new InputError('container', `does not start with the ${NATIVE_EXTENSION} magic bytes "TRACTUS\\0"`, { file: named.name, field: 'magic' })
   }
   const texts: CsvFile[] = files.map((f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : decodeUtf8(f.name, bytesOf(f.data)) }))
-  return readCsvBundle(texts, { maxBytes: limit, name: options.name, ...(options.units ? { units: options.units } : {}) })
+  return { texts, options: { maxBytes: limit, name: options.name, ...(options.units ? { units: options.units } : {}) } }
 }
 
 /** UTF-8 bytes as text; bytes that are not UTF-8 are an input error naming the line of the first bad one. */

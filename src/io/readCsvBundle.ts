@@ -17,7 +17,9 @@ import type { LengthUnit, StressUnit } from '../model/units.ts'
 import { BASE_ROLES, DISPLACEMENT_FIELDS, ELEMENT_NODAL_STRESS_FIELDS, EMPTY_LAYOUT, NODE_FIELDS, STRESS_FIELDS, dialectSettingsFor, readBundleLayout } from './bundleLayout.ts'
 import type { BundleLayout } from './bundleLayout.ts'
 import { readNumericTable } from './csvTable.ts'
-import type { NumericTable, TableInfo } from './csvTable.ts'
+import type { NumericTable, NumericTableSpec, TableInfo } from './csvTable.ts'
+import { readTablesInPieces } from './csvPieces.ts'
+import type { PieceLane, TableOutcome, TableRequest } from './csvPieces.ts'
 import { checkBlockOrientation, reorientElements, reorientedWarning } from './elementOrientation.ts'
 import { buildIdIndex, isDuplicate, isStrictlyAscending, rowOfId } from './idIndex.ts'
 import type { IdIndex } from './idIndex.ts'
@@ -25,8 +27,10 @@ import { fileIntake, unitsWarning } from './intakeReport.ts'
 import type { FileIntake, IntakeReport, ReadModel, UnitSource } from './intakeReport.ts'
 import { parseJsonText, readModelMeta } from './modelJson.ts'
 import { planCases, readOtherCases } from './caseFiles.ts'
+import type { CasePlan } from './caseFiles.ts'
 import { checkQuadraticBlock, quadraticFindingMessage } from './quadraticElementChecks.ts'
 import { readElementTable } from './readElementTable.ts'
+import type { ElementTable, ElementTableSpec } from './readElementTable.ts'
 import { elementNodalField } from './elementNodalRows.ts'
 import { partAveragedStress } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
@@ -36,7 +40,14 @@ import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
 export interface CsvFile {
   /** File name, possibly with folders ("run3/nodes.csv"); only the base name matters. */
   readonly name: string
+  /**
+   * The file's text. It may be a getter that reads the file each time (the command line reads
+   * files one at a time, so a bundle of many load cases never holds all their texts): the reader
+   * takes it once per file and keeps none.
+   */
   readonly text: string
+  /** Its size when known without reading it (bytes on disk, at least its length); checked against the size limit instead of `text.length`. */
+  readonly size?: number
 }
 
 export interface CsvBundleOptions {
@@ -117,40 +128,114 @@ export function sortBundleFiles<T extends { readonly name: string }>(files: read
 }
 
 export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptions = {}): ReadModel {
+  return assembleBundle(planBundle(files, options), options, READ_IN_PLACE)
+}
+
+/**
+ * The same model as readCsvBundle, with the rows of the first case's tables (nodes, elements,
+ * stress, displacement) read in pieces on other threads (src/io/csvPieces.ts): `lanes` are the
+ * helper threads, the calling thread reads the first piece of every table. Same bits, same
+ * messages; a helper that fails (not an input error) makes it read on one thread instead.
+ */
+export async function readCsvBundleInPieces(files: readonly CsvFile[], options: CsvBundleOptions, lanes: readonly PieceLane[]): Promise<ReadModel> {
+  const plan = planBundle(files, options)
+  if (lanes.length === 0) return assembleBundle(plan, options, READ_IN_PLACE)
+  const t = plan.tables
+  const requests: TableRequest[] = [
+    { kind: 'numeric', file: t.nodes.file, spec: t.nodes.spec },
+    { kind: 'elements', file: t.elements.file, spec: t.elements.spec },
+    { kind: 'numeric', file: t.stress.file, spec: t.stress.spec },
+    ...(t.displacement ? [{ kind: 'numeric' as const, file: t.displacement.file, spec: t.displacement.spec }] : []),
+  ]
+  const read = await readTablesInPieces(requests, lanes)
+  if (read === null) return assembleBundle(plan, options, READ_IN_PLACE)
+  return assembleBundle(plan, options, preRead(read))
+}
+
+/** How the assembly gets the first case's tables: read in place, or handed over already read. */
+interface TableSource {
+  numeric(file: CsvFile, spec: NumericTableSpec): NumericTable
+  elements(file: CsvFile, spec: ElementTableSpec): ElementTable
+}
+
+const READ_IN_PLACE: TableSource = {
+  numeric: (f, spec) => readNumericTable(f.name, f.text, spec),
+  elements: (f, spec) => readElementTable(f.name, f.text, spec),
+}
+
+/** Tables read in pieces: each returned (or its error thrown) when the assembly asks for it, so messages come in the one-thread order. */
+function preRead(read: ReadonlyMap<CsvFile, TableOutcome>): TableSource {
+  const take = (f: CsvFile): NumericTable | ElementTable => {
+    const r = read.get(f)
+    if (!r) throw new RangeError(`${f.name} was not read in pieces`)
+    if (!r.ok) throw r.error
+    return r.table
+  }
+  return { numeric: (f) => take(f) as NumericTable, elements: (f) => take(f) as ElementTable }
+}
+
+/** What the bundle holds and how each file of the first case is read; nothing read yet but model.json. */
+interface BundlePlan {
+  readonly meta: ReturnType<typeof readModelMeta> | null
+  readonly layout: BundleLayout
+  readonly plan: CasePlan<CsvFile>
+  readonly warnings: string[]
+  readonly tables: {
+    readonly nodes: { readonly file: CsvFile; readonly spec: NumericTableSpec }
+    readonly elements: { readonly file: CsvFile; readonly spec: ElementTableSpec }
+    readonly stress: { readonly file: CsvFile; readonly spec: NumericTableSpec }
+    readonly displacement: { readonly file: CsvFile; readonly spec: NumericTableSpec } | null
+  }
+}
+
+function planBundle(files: readonly CsvFile[], options: CsvBundleOptions): BundlePlan {
   const limit = options.maxBytes ?? MAX_MODEL_BYTES
   // model.json first: its "files" say which files are the bundle.
   const jsonFiles = files.filter((f) => baseName(f.name).toLowerCase() === 'model.json')
   // Sizes first (before model.json is parsed), of every file named like a bundle file.
   for (const f of files) {
     const b = baseName(f.name).toLowerCase()
-    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, f.text.length, limit)
+    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, f.size ?? f.text.length, limit)
   }
   const json = jsonFiles.length === 1 ? parseJsonText(jsonFiles[0].name, jsonFiles[0].text) : null
   const meta = jsonFiles.length === 1 ? readModelMeta(jsonFiles[0].name, json) : null
   const layout = meta ? readBundleLayout(jsonFiles[0].name, json as Record<string, unknown>) : EMPTY_LAYOUT
   const { byRole, ignored, cases } = sortBundleFiles(files, layout)
-  for (const f of byRole.values()) assertWithinLimit(f.name, f.text.length, limit)
+  for (const f of byRole.values()) assertWithinLimit(f.name, f.size ?? f.text.length, limit)
   const warnings: string[] = ignored.map((n) => `ignored ${n}: not part of a CSV bundle`)
-  const nodesFile = byRole.get('nodes')!
-  const elementsFile = byRole.get('elements')!
   // --- load cases (caseFiles.ts): the first case's files are read here, the others by readOtherCases ---
   const plan = planCases(byRole, cases, json, jsonFiles.length === 1 ? jsonFiles[0].name : null)
-  const stressFile = plan.cases[0].stress
-  const dispFile = plan.cases[0].displacement
   if (meta) warnings.push(...meta.warnings)
+  const spec = (role: string, fields: readonly string[], quantity: 'length' | 'stress') => ({ role, fields, quantity, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) })
+  const dispFile = plan.cases[0].displacement
+  return {
+    meta, layout, plan, warnings,
+    tables: {
+      nodes: { file: byRole.get('nodes')!, spec: spec('nodes', NODE_FIELDS, 'length') },
+      elements: { file: byRole.get('elements')!, spec: { settings: dialectSettingsFor(layout, 'elements'), columns: layout.columns.get('elements'), types: layout.types, nodeOrder: layout.nodeOrder } },
+      stress: { file: plan.cases[0].stress, spec: { ...spec('stress', STRESS_FIELDS, 'stress'), elementNodal: ELEMENT_NODAL_STRESS_FIELDS } },
+      displacement: dispFile ? { file: dispFile, spec: spec('displacement', DISPLACEMENT_FIELDS, 'length') } : null,
+    },
+  }
+}
+
+function assembleBundle(bp: BundlePlan, options: CsvBundleOptions, source: TableSource): ReadModel {
+  const { meta, layout, plan, warnings } = bp
+  const nodesFile = bp.tables.nodes.file
+  const elementsFile = bp.tables.elements.file
+  const stressFile = bp.tables.stress.file
+  const dispFile = bp.tables.displacement?.file
   const spec = (role: string, fields: readonly string[], quantity: 'length' | 'stress') => ({ role, fields, quantity, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) })
 
   // Nodes: order of the nodes file; ids checked unique.
-  const nodes = readNumericTable(nodesFile.name, nodesFile.text, spec('nodes', NODE_FIELDS, 'length'))
+  const nodes = source.numeric(nodesFile, bp.tables.nodes.spec)
   const nodeIndex = indexOrFail(nodes, nodesFile.name, 'node')
   const coords = nodes.values
   const nodeIds = nodes.ids
   const N = nodes.rows
 
   // Elements: node ids → indices, element ids unique across blocks, orientation, quadratic checks.
-  const elementTable = readElementTable(elementsFile.name, elementsFile.text, {
-    settings: dialectSettingsFor(layout, 'elements'), columns: layout.columns.get('elements'), types: layout.types, nodeOrder: layout.nodeOrder,
-  })
+  const elementTable = source.elements(elementsFile, bp.tables.elements.spec)
   const raw = elementTable.blocks
   checkElementIdsUnique(raw, elementsFile.name)
   const used = new Uint8Array(N)
@@ -179,7 +264,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
 
   // Stress: one row per node used by an element, or (with an element column) one row per
   // element and node, kept as read and averaged within each part for display.
-  const stressTable = readNumericTable(stressFile.name, stressFile.text, { ...spec('stress', STRESS_FIELDS, 'stress'), elementNodal: ELEMENT_NODAL_STRESS_FIELDS })
+  const stressTable = source.numeric(stressFile, bp.tables.stress.spec)
   let stress: Float64Array
   let stressField: StressField | null = null
   if (stressTable.ids2) {
@@ -201,7 +286,7 @@ export function readCsvBundle(files: readonly CsvFile[], options: CsvBundleOptio
   let displacement: Float64Array | null = null
   let dispTable: NumericTable | null = null
   if (dispFile) {
-    const dt = readNumericTable(dispFile.name, dispFile.text, spec('displacement', DISPLACEMENT_FIELDS, 'length'))
+    const dt = source.numeric(dispFile, bp.tables.displacement!.spec)
     dispTable = dt
     displacement = nodalRows(dt, 3, 'displacement', { nodeIds, nodeIndex, used, raw, blocks, nodesFile: nodesFile.name, file: dispFile.name }).values
   }

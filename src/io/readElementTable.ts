@@ -19,7 +19,7 @@ import { InputError } from '../model/errors.ts'
 import type { ColumnMap, ColumnRef } from './bundleLayout.ts'
 import { checkDistinct, columnLabel, findColumn, matchColumns, unusedColumns } from './columnMap.ts'
 import type { CsvHeader } from './columnMap.ts'
-import { PARSE_EMPTY, PARSE_OK, atLineEnd, estimateRecordCount, finishLine, nextRecord, readCount, readId, skipField, takeSeparator, tokenText } from './csvCursor.ts'
+import { PARSE_EMPTY, PARSE_OK, atLineEnd, createCursor, estimateRecordCount, finishLine, moveCursor, nextRecord, readCount, readId, skipField, takeSeparator, tokenText } from './csvCursor.ts'
 import type { CsvCursor } from './csvCursor.ts'
 import type { DialectSettings } from './csvDialect.ts'
 import { countFieldsOfLine, fail, failField, fitInt, growInt, lineOf, openTable, separatorWords } from './csvTable.ts'
@@ -65,7 +65,7 @@ interface Growing {
 const SLOT_IGNORED = -1, SLOT_ID = -2, SLOT_TYPE = -3, SLOT_PART = -4
 
 /** How the columns of the element file map to our fields. */
-interface ElementColumns {
+export interface ElementColumns {
   /** Per column: SLOT_* or the node column index k. */
   readonly slotOf: Int32Array
   readonly hasPart: boolean
@@ -80,21 +80,87 @@ interface ElementColumns {
 
 /** Reads the element file into raw blocks (one per type). Throws InputError on any malformed row. */
 export function readElementTable(file: string, text: string, spec: ElementTableSpec = PLAIN_ELEMENT_TABLE): ElementTable {
+  const t = openElementTable(file, text, spec)
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: t.setup.cols.hasPart }
+  readElementRows(t.cur, t.setup.cols, t.setup.header, typeLookup(spec.types), spec, grown, text.length)
+  return finishElementTable(t, [finishBlocks(grown, spec.nodeOrder)])
+}
+
+/**
+ * What reading element rows needs besides the text: the dialect's characters, the column plan,
+ * the header and model.json's element settings. Plain data (structured-clonable), so a worker can
+ * read a piece of the rows with it.
+ */
+export interface ElementPieceSetup {
+  readonly file: string
+  readonly separator: string
+  readonly decimal: string
+  readonly cols: ElementColumns
+  readonly header: CsvHeader
+  readonly spec: ElementTableSpec
+}
+
+/** The element file opened: dialect found, header read and matched, the cursor on the first row. */
+export interface OpenElementTable {
+  readonly cur: CsvCursor
+  readonly setup: ElementPieceSetup
+  readonly info: TableInfo
+}
+
+/** Opens the element file (dialect, header, column plan); header problems are thrown here. */
+export function openElementTable(file: string, text: string, spec: ElementTableSpec): OpenElementTable {
   const { cur, dialect, header } = openTable(file, text, spec.settings, 'elements', 'elements')
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
   const cols = matchElementColumns(file, header, spec.columns)
-  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: cols.hasPart }
-  readElementRows(cur, cols, header, typeLookup(spec.types), spec, grown)
-  if (grown.order.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', { file, line: header.line })
   const used = Array.from(cols.slotOf, (s) => s !== SLOT_IGNORED)
-  return { blocks: finishBlocks(grown, spec.nodeOrder), info: { dialect, ignored: unusedColumns(header, used), unit: null, labels: [...cols.labels] } }
+  const info: TableInfo = { dialect, ignored: unusedColumns(header, used), unit: null, labels: [...cols.labels] }
+  return { cur, info, setup: { file, separator: dialect.separator, decimal: dialect.decimal, cols, header, spec } }
+}
+
+/**
+ * Reads the element rows of one piece of the file, text[start, end) (whole lines, starting on
+ * line `line`), in place into blocks, one per type in order of first appearance, nodes in our
+ * local order.
+ */
+export function readElementPiece(setup: ElementPieceSetup, text: string, start: number, end: number, line: number): RawElementBlock[] {
+  const cur = createCursor(setup.file, text, setup.separator, setup.decimal)
+  moveCursor(cur, start, line)
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text, start, end)), hasPart: setup.cols.hasPart }
+  readElementRows(cur, setup.cols, setup.header, typeLookup(setup.spec.types), setup.spec, grown, end)
+  return finishBlocks(grown, setup.spec.nodeOrder)
+}
+
+/** The table from its pieces' blocks in file order: one block per type, in order of first appearance. */
+export function finishElementTable(t: OpenElementTable, pieces: readonly (readonly RawElementBlock[])[]): ElementTable {
+  const types: ElementTypeName[] = []
+  for (const p of pieces) for (const b of p) if (!types.includes(b.type)) types.push(b.type)
+  if (types.length === 0) throw new InputError('no-elements', 'the file has a header but no element rows', { file: t.setup.file, line: t.setup.header.line })
+  if (pieces.length === 1) return { blocks: [...pieces[0]], info: t.info }
+  const blocks = types.map((type) => {
+    const parts = pieces.flatMap((p) => p.filter((b) => b.type === type))
+    return {
+      type, nodeIds: concatInt(parts.map((b) => b.nodeIds)), ids: concatInt(parts.map((b) => b.ids)),
+      part: t.setup.cols.hasPart ? concatInt(parts.map((b) => b.part!)) : null, lines: concatInt(parts.map((b) => b.lines)),
+    }
+  })
+  return { blocks, info: t.info }
+}
+
+function concatInt(parts: readonly Int32Array[]): Int32Array {
+  if (parts.length === 1) return parts[0]
+  let n = 0
+  for (const a of parts) n += a.length
+  const out = new Int32Array(n)
+  let at = 0
+  for (const a of parts) { out.set(a, at); at += a.length }
+  return out
 }
 
 /**
  * The rows of the element file into `grown`, one block per type. Only the row loop, apart from
  * the table's set-up, so that code the loop never reaches cannot discard its optimised form.
  */
-function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks): void {
+function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks, limit: number): void {
   const slotOf = cols.slotOf
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
   const next = nextRecord, sep = takeSeparator, id_ = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
@@ -113,7 +179,8 @@ function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader
   // could map columns: a call per field through readOtherField costs a fifth more per row.
   const ours = slotOf[0] === SLOT_ID && slotOf[1] === SLOT_TYPE && firstNode === (hasPart ? 3 : 2) && (!hasPart || slotOf[2] === SLOT_PART)
   const count_ = readCount
-  while (next(cur)) {
+  // A piece ends at `limit`, just after a line end: a record found there belongs to the next piece.
+  while (next(cur) && cur.pos < limit) {
     let k = 0
     if (cols.plain) {
       let id = 0, t = -1

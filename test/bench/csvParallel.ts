@@ -1,0 +1,79 @@
+/**
+ * The CSV read in pieces on worker threads (src/io/csvPieces.ts through src/cli/csvLanes.ts, as
+ * the command line reads a large bundle) against the one-thread read of the same texts, runs
+ * interleaved so both see the same load; wall times (the point is the second core) with the
+ * load average beside them. The workers are started once and reused; their start-up is reported
+ * apart (`startMs`). Checks (the same model bit for bit) run outside the timed runs.
+ * Run alone: npx tsx test/bench/csvParallel.ts [elements=1000000] [type=tet4]
+ */
+import os from 'node:os'
+import { fileURLToPath } from 'node:url'
+import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
+import type { CsvFile, ReadModel } from '../../src/io/index.ts'
+import type { Model } from '../../src/model/model.ts'
+import { startCsvLanes } from '../../src/cli/csvLanes.ts'
+import type { CsvLanes } from '../../src/cli/csvLanes.ts'
+import { median } from './timing.ts'
+import { syntheticModel } from './syntheticModel.ts'
+
+export interface ParallelCsvFigure {
+  /** Median wall time of the read in pieces (ms). */
+  medianMs: number
+  mbPerS: number
+  /** One-thread median over pieces median, from the interleaved runs. */
+  vsOneThread: number
+  oneThreadMs: number
+  /** Threads reading: this one and the workers. */
+  threads: number
+  runs: number
+  /** Load average (1 min) at the start and the end of the runs. */
+  loadAverage: [number, number]
+  /** Same model as the one-thread read (coordinates, connectivity, stress, ids). */
+  same: boolean
+}
+
+function sameModel(a: ReadModel, b: ReadModel): boolean {
+  const eq = (x: ArrayLike<number>, y: ArrayLike<number>) => x.length === y.length && Array.prototype.every.call(x, (v: number, i: number) => Object.is(v, y[i]))
+  return eq(a.mesh.coords, b.mesh.coords) && eq(a.mesh.nodeIds, b.mesh.nodeIds) && eq(a.stress, b.stress)
+    && a.mesh.blocks.length === b.mesh.blocks.length && a.mesh.blocks.every((x, k) => eq(x.conn, b.mesh.blocks[k].conn) && eq(x.ids, b.mesh.blocks[k].ids))
+}
+
+/** Starts the worker threads once (one per core but this one) and says how long they took to come up. */
+export async function startBenchLanes(): Promise<{ lanes: CsvLanes; startMs: number; up: boolean }> {
+  const t = performance.now()
+  const lanes = startCsvLanes()
+  const up = await lanes.readyWithin(60_000)
+  return { lanes, startMs: performance.now() - t, up }
+}
+
+export async function benchCsvParallel(model: Model, lanes: CsvLanes, runs = 3): Promise<ParallelCsvFigure> {
+  const files: CsvFile[] = writeCsvBundle(model)
+  const bytes = files.reduce((s, f) => s + f.text.length, 0)
+  const load0 = os.loadavg()[0]
+  // Warm-up of both paths (the workers' code too), and the check.
+  const one0 = readCsvBundle(files)
+  const same = sameModel(one0, await readCsvBundleInPieces(files, {}, lanes.lanes))
+  const oneMs: number[] = [], piecesMs: number[] = []
+  for (let r = 0; r < runs; r++) {
+    let t = performance.now()
+    readCsvBundle(files)
+    oneMs.push(performance.now() - t)
+    t = performance.now()
+    await readCsvBundleInPieces(files, {}, lanes.lanes)
+    piecesMs.push(performance.now() - t)
+  }
+  const medianMs = median(piecesMs), oneThreadMs = median(oneMs)
+  return {
+    medianMs, mbPerS: bytes / 1e3 / medianMs, vsOneThread: oneThreadMs / medianMs, oneThreadMs, threads: lanes.lanes.length + 1, runs,
+    loadAverage: [load0, os.loadavg()[0]], same,
+  }
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) {
+  const elements = Number(process.argv[2] ?? 1e6)
+  const type = (process.argv[3] ?? 'tet4') as 'tet4' | 'tet10' | 'hex8'
+  const { lanes, startMs, up } = await startBenchLanes()
+  const fig = await benchCsvParallel(syntheticModel(type, elements, 20261201), lanes)
+  await lanes.close()
+  console.log(JSON.stringify({ bench: 'csvParallel', type, elements, startMs, up, ...fig }))
+}

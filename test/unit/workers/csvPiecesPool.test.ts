@@ -1,0 +1,47 @@
+/**
+ * The engine's pool as lanes for reading a CSV bundle in pieces (workers/kernelPool.ts
+ * `csvLanes`): endpoints in this thread whose messages pass through structuredClone with the
+ * jobs' bytes transferred, as comlink sends them. Same model as one thread; a worker that fails
+ * makes the pool stand down and the bundle read on one thread.
+ */
+import { describe, expect, it } from 'vitest'
+import { KernelPool } from '../../../workers/kernelPool.ts'
+import type { PoolEndpoint } from '../../../workers/kernelPool.ts'
+import { jobBuffers, readPiece } from '../../../src/io/csvPieces.ts'
+import { readModelFiles, readModelFilesInPieces, writeCsvBundle } from '../../../src/io/index.ts'
+import { expectSameModel } from '../../io/sameModel.ts'
+import { mixedModel } from '../../io/testModels.ts'
+
+const none = async () => null
+function endpoint(fail = false): PoolEndpoint {
+  return {
+    ping: async () => true, balance: none, invariants: none, terminate() { /* nothing to end */ },
+    csvPieces: async (jobs) => {
+      if (fail) throw new Error('the pool worker stopped')
+      return structuredClone(structuredClone(jobs, { transfer: jobBuffers(jobs) }).map(readPiece))
+    },
+  }
+}
+
+describe('the pool reads a CSV bundle in pieces', () => {
+  const files = writeCsvBundle(mixedModel(['hex8', 'tet10', 'wedge6'], 1000, true, { nx: 3, ny: 3, nz: 2, lx: 2, ly: 1, lz: 1 }))
+    .map((f) => ({ name: f.name, data: new TextEncoder().encode(f.text).buffer }))
+
+  it('with one and with three workers: the one-thread model', async () => {
+    const one = readModelFiles(files)
+    for (const n of [1, 3]) {
+      const pool = new KernelPool(n, () => endpoint(), 'copy')
+      await pool.ready
+      expect(pool.csvLanes()).toHaveLength(n)
+      expectSameModel(one, await readModelFilesInPieces(files, {}, pool.csvLanes()))
+    }
+  })
+
+  it('a worker that fails: the pool stands down and the bundle is read on one thread', async () => {
+    const pool = new KernelPool(1, () => endpoint(true), 'copy')
+    await pool.ready
+    expectSameModel(readModelFiles(files), await readModelFilesInPieces(files, {}, pool.csvLanes()))
+    expect(pool.size).toBe(0)
+    expect(pool.csvLanes()).toEqual([])
+  })
+})
