@@ -203,7 +203,7 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
     if (env) {
       const lines = envelopeLines(env, m, st.units)
       const over = env.combinationsOnly ? 'the combinations' : `${env.cases.length} cases and combinations`
-      const title = `Envelope over ${over}, with the governing case`
+      const title = `Envelope over ${over}`
       const eh = envelopeHeight(lines.length, s)
       const below = (regionRows ? regionsY + Math.round(15 * s) * regionRows + Math.round(22 * s) : regionsY) + Math.round(10 * s)
       // under the section table where it fits above the footer, else bottom left
