@@ -267,7 +267,8 @@ function envelopeAlongBlocks(s: SweepReply, input: ReportInput): ReportBlock[] {
     rows: SERIES.map((d, i) => {
       const e = extremes[i], u = unitOf(d.quantity)
       if (!Number.isFinite(e.max)) return [`${d.label} ${d.symbol}`, '—', '—', '—', '—', '—', '—']
-      return [`${d.label} ${d.symbol} [${u}]`, fmt(e.max), `${fmt(e.maxAt)} ${L}`, e.maxCase ?? '—', fmt(e.min), `${fmt(e.minAt)} ${L}`, e.minCase ?? '—']
+      // a component that is rounding noise all along has no place and no governing case
+      return [`${d.label} ${d.symbol} [${u}]`, fmt(e.max), e.maxCase ? `${fmt(e.maxAt)} ${L}` : '—', e.maxCase ?? '—', fmt(e.min), e.minCase ? `${fmt(e.minAt)} ${L}` : '—', e.minCase ?? '—']
     }),
   })
   const x = offsetsInDisplay(s, input.model.units, sys)

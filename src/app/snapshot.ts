@@ -95,7 +95,7 @@ function drawEnvelope(g: CanvasRenderingContext2D, title: string, lines: readonl
     g.fillText(l.largestCase, x0 + cols.hiCase * colW, y, (cols.lo - 0.25 - cols.hiCase - 0.01) * colW)
     g.fillText(l.smallestCase, x0 + cols.loCase * colW, y, (1 - cols.loCase) * colW)
   }
-  line({ label: '', largest: 'largest', largestCase: 'governing case', smallest: 'smallest', smallestCase: 'governing case' }, y0 + rowH, '#4a545e', '#4a545e')
+  line({ label: '', largest: 'largest', largestCase: 'case', smallest: 'smallest', smallestCase: 'case' }, y0 + rowH, '#4a545e', '#4a545e')
   // the symbol alone (N, V₁, …, M₂): the words would crowd the figures out
   lines.forEach((l, i) => line({ ...l, label: l.label.split(' ').pop() ?? l.label }, y0 + rowH * (i + 2), '#1d2329', '#4a545e'))
   g.textAlign = 'left'
@@ -205,7 +205,7 @@ export function drawOverlays(g: CanvasRenderingContext2D, st: TractusState, w: n
       const over = env.combinationsOnly ? 'the combinations' : `${env.cases.length} cases and combinations`
       const title = `Envelope over ${over}`
       const eh = envelopeHeight(lines.length, s)
-      const below = (regionRows ? regionsY + Math.round(15 * s) * regionRows + Math.round(22 * s) : regionsY)
+      const below = (regionRows ? regionsY + Math.round(15 * s) * regionRows + Math.round(22 * s) : regionsY) + Math.round(10 * s)
       // under the section table where it fits above the footer, else bottom left
       const fits = below + eh <= L.footer.y - L.margin
       const envW = Math.min(Math.round(340 * s), w - 2 * L.margin)

@@ -153,8 +153,8 @@ export function caseSeriesInDisplay(r: SweepReply, name: string, key: SeriesKey,
 /**
  * The envelope along the part in the display system: per section its position and, per component,
  * the largest and smallest value with the governing case (null where the plane misses the body).
- * Values every digit (`value`) and after the rounding-noise rule of each section's family
- * (`shown`, for the report), as sweepTable judges a row.
+ * Values every digit (`value`) and after the rounding-noise rule (`shown`, for the report), each
+ * family judged over the whole part, as one table.
  */
 export interface EnvelopeAlongRow {
   readonly position: number
@@ -165,11 +165,16 @@ export function envelopeAlong(r: SweepReply, units: ModelUnits, system: UnitSyst
   const c = r.cases
   if (!c) return null
   const x = offsetsInDisplay(r, units, system)
+  // One table: forces judged against the forces anywhere along the part, moments against moments
+  // (a tiny end section's round-off is not a governing value).
+  const floorOf = (q: 'force' | 'moment'): number => noiseFloor(SERIES.filter((s) => s.quantity === q).flatMap((s) => {
+    const e = c.envelope[s.key]
+    return Array.from(e.max, (v, k) => (e.maxCase[k] < 0 ? 0 : Math.max(Math.abs(v), Math.abs(e.min[k]))))
+  }))
+  const floor = { force: floorOf('force'), moment: floorOf('moment') }
   const rows: EnvelopeAlongRow[] = []
   for (let k = 0; k < x.length; k++) {
     if (r.empty[k] || c.envelope.axial.maxCase[k] < 0) { rows.push({ position: x[k], cells: SERIES.map(() => null) }); continue }
-    const floorOf = (q: 'force' | 'moment'): number => noiseFloor(SERIES.filter((s) => s.quantity === q).flatMap((s) => [c.envelope[s.key].max[k], c.envelope[s.key].min[k]]))
-    const floor = { force: floorOf('force'), moment: floorOf('moment') }
     rows.push({
       position: x[k],
       cells: SERIES.map((s) => {

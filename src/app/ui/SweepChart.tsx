@@ -199,7 +199,8 @@ export function SweepChart({ sweep, units, system, shown, cases = [], shownCase 
               <span key={name} data-readout-case={name} className="sweep-readout-case">
                 <b>{name}</b>{keys.map((s) => {
                   const c = sweep.cases!.cases.find((x) => x.name === name)!
-                  const floor = noiseFloor(SERIES.filter((x) => x.quantity === s.quantity).map((x) => c[x.key][k]))
+                  // judged against the family's values of every drawn case at this section
+                  const floor = noiseFloor(drawn.flatMap((n) => { const d = sweep.cases!.cases.find((x) => x.name === n)!; return SERIES.filter((x) => x.quantity === s.quantity).map((x) => d[x.key][k]) }))
                   return (
                     <span key={s.key} data-readout={s.key} style={{ color: one ? undefined : s.colour }}>
                       {' '}{s.symbol} = {formatNumber(denoise(c[s.key][k], floor) * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
@@ -212,7 +213,7 @@ export function SweepChart({ sweep, units, system, shown, cases = [], shownCase 
                 {s.symbol} = {formatNumber(denoise(sweep[s.key][k], floorOf(s.quantity, k)) * displayFactor(units, s.quantity, system))} <span className="unit">{displayUnitLabel(s.quantity, system)}</span>
               </span>
             ))}
-            {sweep.empty[k] ? null : <span data-readout="residual">residual {formatNumber(sweep.freeBodyRelative[k], 2)} (force), {formatNumber(sweep.freeBodyMomentRelative[k], 2)} (moment)</span>}
+            {sweep.empty[k] ? null : <span data-readout="residual">{drawn.length && shownCase ? `residual of ${shownCase}` : 'residual'} {formatNumber(sweep.freeBodyRelative[k], 2)} (force), {formatNumber(sweep.freeBodyMomentRelative[k], 2)} (moment)</span>}
           </>
         )}
       </div>

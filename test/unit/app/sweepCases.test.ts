@@ -84,6 +84,7 @@ describe('the sweep over several load cases in the app', () => {
     const ext = c.blocks.find((b) => b.id === 'envelope-along-extremes') as ReportTable
     // (the minus sign is U+2212; ties up to round-off go to the first section)
     expect(ext.rows[0]).toEqual(['Axial force N [kN]', '0.0075', '4e−6 m', 'K', '−0.004', '4e−6 m', 'U'])
+    expect(ext.rows[1]).toEqual(['Shear force 1 V₁ [kN]', '0', '—', '—', '0', '—', '—'])
     const forces = c.blocks.find((b) => b.id === 'envelope-along-forces') as ReportTable
     expect(forces.rows.length).toBe(5)
     expect(forces.rows[0][1]).toBe('0.0075 (K)')
