@@ -13,7 +13,10 @@
  *   faces are matched through their corner node numbers; faces of the same part whose corners
  *   only coincide (meshed apart) are matched geometrically: candidates from a sweep of the face
  *   centroids (coincidentSweep.ts), then every corner within a tolerance relative to the face
- *   size. Never by floating-point equality.
+ *   size. Never by floating-point equality. A plane through a layer of nodes makes polygons of
+ *   element faces, and neighbouring in-plane triangles of split cells may lie in elements that
+ *   share only an edge: cut elements with an edge on the plane (both corners snapped to d == 0)
+ *   are also joined through that edge's two node numbers.
  * - `regionAccumulators` sums the element blocks per region.
  * Elements of different parts never share a region; the plane lying exactly on a face between
  * two parts takes the section in the element on the -m side (d == 0 is the + side), so the
