@@ -5,7 +5,11 @@
  */
 import type { Page } from 'playwright-core'
 
-export interface SwitchTime { readonly to: string; readonly toPictureMs: number; readonly engineMs: number | null }
+export interface SwitchTime {
+  readonly to: string; readonly toPictureMs: number; readonly engineMs: number | null
+  /** The engine's stages of the switch (the model card's data), ms. */
+  readonly stagesMs: Record<string, number>
+}
 
 declare global {
   interface Window { __drawn?: number[] }
@@ -27,7 +31,8 @@ export async function switchTimed(page: Page, name: string): Promise<SwitchTime>
   const drawn = await (await page.waitForFunction((t) => window.__drawn!.find((x) => x > t) ?? false, t0, { timeout: 300_000 })).jsonValue() as number
   const engine = await page.evaluate(() => performance.getEntriesByName('tractus:case').at(-1)?.duration ?? null)
   await page.waitForFunction(() => !document.querySelector('[data-testid="case-running"]'), undefined, { timeout: 120_000 })
-  return { to: name, toPictureMs: Math.round(drawn - t0), engineMs: engine === null ? null : Math.round(engine) }
+  const stages = await page.evaluate(() => JSON.parse(document.querySelector('[data-testid="model-compute"]')?.getAttribute('data-stages') ?? '[]') as [string, number][])
+  return { to: name, toPictureMs: Math.round(drawn - t0), engineMs: engine === null ? null : Math.round(engine), stagesMs: Object.fromEntries(stages) }
 }
 
 export function median(v: number[]): number {
