@@ -87,9 +87,11 @@ describe('review reports', () => {
     // The section table names its axes.
     const section = await view.$$eval('table[data-table="section"] tbody tr', (trs) => trs.map((tr) => Array.from(tr.children, (c) => c.textContent ?? '')))
     expect(section[0]).toEqual(['Axis e₁', '(0, 0, 1)', '–'])
-    // Six internal-force diagrams, one each, plus the free-body residual.
+    // Six internal-force diagrams, one each, plus the free-body residual; the lug has load cases,
+    // so the envelope along the part follows with one diagram per component.
     const diagrams = await view.$$eval('figure[data-diagram]', (f) => f.map((x) => x.getAttribute('data-diagram')))
-    expect(diagrams).toEqual(['diagram-axial', 'diagram-shear1', 'diagram-shear2', 'diagram-torque', 'diagram-bending1', 'diagram-bending2', 'diagram-residual'])
+    const kinds = ['axial', 'shear1', 'shear2', 'torque', 'bending1', 'bending2']
+    expect(diagrams).toEqual([...kinds.map((k) => `diagram-${k}`), 'diagram-residual', ...kinds.map((k) => `diagram-envelope-${k}`)])
     await view.screenshot({ path: `${OUT_DIR}/review-report-lug.png`, fullPage: true })
     // The print stylesheet: A4 pages, no figure split across a page; the PDF comes out.
     await view.emulateMedia({ media: 'print' })
