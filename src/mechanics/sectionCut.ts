@@ -81,8 +81,23 @@ export interface CutSectionOptions {
  */
 export const SNAP_EPS = 64 * Number.EPSILON
 
-/** Grows-only scratch for node distances: dragging the plane re-cuts the same mesh many times. */
+/**
+ * Grows-only scratch for node distances: dragging the plane re-cuts the same mesh many times.
+ * The case stencil (sectionStencil.ts) shares it through planeDistances.
+ */
 let distScratch = new Float64Array(0)
+
+/**
+ * The plane's basis (sectionBasis) and every node's snapped signed distance to it, in the shared
+ * grows-only scratch: valid until the next call (the cut and the stencil use it synchronously).
+ */
+export function planeDistances(mesh: Mesh, plane: SectionPlane, about?: readonly number[]): { m: Vec3; point: Vec3; frame: Float64Array; d: Float64Array } {
+  const basis = sectionBasis(plane, about)
+  const N = mesh.nodeCount
+  if (distScratch.length < N) distScratch = new Float64Array(N)
+  nodeDistances(distScratch, mesh.coords, N, basis.point, basis.m)
+  return { ...basis, d: distScratch }
+}
 /** The quadrature geometry of the latest cut (grows only, reused like distScratch). */
 const geometry = createSectionGeometry()
 /** The per-element record of the latest cut with regions or a limit (grows only). */
@@ -99,11 +114,8 @@ let selScratch = new Int32Array(0), labelScratch = new Int32Array(0)
 export function cutSection(
   mesh: Mesh, stress: StressField, bodyForce: Vec3, plane: SectionPlane, options: CutSectionOptions = {},
 ): { result: SectionResult; polygons: SectionPolygons | null; labels: RegionLabels | null } {
-  const { m, point, frame } = sectionBasis(plane, options.about)
-  const coords = mesh.coords, N = mesh.nodeCount
-  if (distScratch.length < N) distScratch = new Float64Array(N)
-  const d = distScratch
-  nodeDistances(d, coords, N, point, m)
+  const { m, point, frame, d } = planeDistances(mesh, plane, options.about)
+  const coords = mesh.coords
 
   const acc = new Float64Array(ACC_SIZE)
   const sc = createPolygonScratch()
@@ -435,6 +447,26 @@ function findCutHexes(d: Float64Array, conn: Int32Array, count: number, nn: numb
     n += (neg & 7) !== 0 ? 1 : 0
   }
   return n
+}
+
+/**
+ * The elements of a block (cc corners first, nn nodes each) with corners on both sides of the
+ * plane, in order, in the grows-only list shared with the cut (valid until the next scan):
+ * tetrahedra and hexahedra by the branch-free scans above, other types corner by corner.
+ */
+export function cutElements(d: Float64Array, conn: Int32Array, count: number, nn: number, cc: number): { items: Int32Array; n: number } {
+  // the scans may grow tetCutList: read it after them
+  if (cc === 4) { const n = findCutTets(d, conn, count, nn); return { items: tetCutList, n } }
+  if (cc === 8) { const n = findCutHexes(d, conn, count, nn); return { items: tetCutList, n } }
+  if (tetCutList.length < count) tetCutList = new Int32Array(count)
+  const list = tetCutList
+  let n = 0
+  for (let e = 0, base = 0; e < count; e++, base += nn) {
+    let neg = 0
+    for (let c = 0; c < cc; c++) neg += d[conn[base + c]] < 0 ? 1 : 0
+    if (neg !== 0 && neg !== cc) list[n++] = e
+  }
+  return { items: list, n }
 }
 
 /** Section moment about its centroid c from the accumulator's moment about its local origin. */

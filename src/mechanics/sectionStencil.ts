@@ -37,9 +37,9 @@ import { ZERO_FREE_BODY } from './freeBody.ts'
 import { createSectionPoints, growFloat, growInt, polygonPoints } from './elementSection.ts'
 import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } from './inverseMap.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
-import { nodeDistances } from './sectionCut.ts'
+import { cutElements, planeDistances } from './sectionCut.ts'
 import {
-  ACC_AREA, ACC_AT, ACC_BT, ACC_CUT, ACC_FORCE, ACC_SAB, ACC_SIZE, MAX_CORNERS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef, sectionBasis,
+  ACC_AREA, ACC_AT, ACC_BT, ACC_CUT, ACC_FORCE, ACC_SAB, ACC_SIZE, MAX_CORNERS, addPolygonArea, createPolygonScratch, crossingCases, elementPolygonRef,
 } from './sectionPolygon.ts'
 import { emptySection, sectionRecord } from './sectionProperties.ts'
 import type { CutRecord, SectionLimit } from './sectionRegions.ts'
@@ -93,11 +93,8 @@ export interface StencilOptions {
  * (views of it are valid until the next build, see above).
  */
 export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: StencilOptions = {}): SectionStencil {
-  const { m, point, frame } = sectionBasis(plane, options.about)
-  const coords = mesh.coords, N = mesh.nodeCount
-  if (distScratch.length < N) distScratch = new Float64Array(N)
-  const d = distScratch
-  nodeDistances(d, coords, N, point, m)
+  const { m, point, frame, d } = planeDistances(mesh, plane, options.about)
+  const coords = mesh.coords
   const whole = new Float64Array(ACC_SIZE)
   const limit = options.limit ?? null
   const rec = options.regions || limit ? record : null
@@ -154,8 +151,6 @@ export function buildSectionStencil(mesh: Mesh, plane: SectionPlane, options: St
 /** The per-element record of the latest stencil with regions or a limit (grows only). */
 const record = createCutRecord()
 
-/** Grows-only node distances (the stencil of each plane needs them only while it is built). */
-let distScratch = new Float64Array(0)
 
 /** Grows-only entries of the latest stencil: see SectionStencil for the layout. */
 interface StencilStore {
@@ -191,7 +186,7 @@ const ELEMENT_ACC = new Float64Array(ACC_SIZE)
 function stencilTets(
   st: StencilStore, whole: Float64Array, rec: CutRecord | null, d: Float64Array, coords: Float64Array, conn: Int32Array, bi: number, frame: Float64Array,
 ): void {
-  const list = cutCandidates(d, conn, conn.length / 4, 4, 4)
+  const list = cutElements(d, conn, conn.length / 4, 4, 4)
   const items = list.items, count = list.n
   reserve(st, count, 4)
   const cases = crossingCases('tet4'), dist = DIST
@@ -233,7 +228,7 @@ function stencilBlock(
   const nn = topo.nodeCount, cc = topo.cornerCount, count = conn.length / nn
   const cases = crossingCases(type), domain = referenceDomain(type), rule = sectionRule(type)
   const sc = SCRATCH, em = MAP, pts = POINTS, shape = SHAPE, dist = sc.dist
-  const list = cutCandidates(d, conn, count, nn, cc)
+  const list = cutElements(d, conn, count, nn, cc)
   reserve(st, list.n, nn)
   const polygon = elementPolygonRef, area = addPolygonArea, points = polygonPoints, load = loadElementMap, values = shapeValues
   const weights = st.weights
@@ -267,34 +262,6 @@ function stencilBlock(
 
 const SCRATCH = createPolygonScratch(), MAP = createElementMap(), POINTS = createSectionPoints(), SHAPE = new Float64Array(MAX_ELEMENT_NODES)
 
-/** Grows-only list of the elements with corners on both sides (local indices), like sectionCut.ts's. */
-const candidates = { items: new Int32Array(0), n: 0 }
-
-/**
- * The elements of a block with corners on both sides of the plane (d < 0 and d ≥ 0), in order.
- * Tetrahedra take a branch-free scan (stored always, kept when cut), as the single cut does.
- */
-function cutCandidates(d: Float64Array, conn: Int32Array, count: number, nn: number, cc: number): { items: Int32Array; n: number } {
-  if (candidates.items.length < count) candidates.items = new Int32Array(count)
-  const list = candidates.items
-  let n = 0
-  if (cc === 4) {
-    for (let e = 0, base = 0; e < count; e++, base += nn) {
-      const neg = (d[conn[base]] < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
-      list[n] = e
-      n += (neg & 3) !== 0 ? 1 : 0
-    }
-  } else {
-    for (let e = 0, base = 0; e < count; e++, base += nn) {
-      let neg = 0
-      for (let c = 0; c < cc; c++) neg += d[conn[base + c]] < 0 ? 1 : 0
-      if (neg === 0 || neg === cc) continue // all corners on one side
-      list[n++] = e
-    }
-  }
-  candidates.n = n
-  return candidates
-}
 
 
 /**
