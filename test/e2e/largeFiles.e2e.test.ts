@@ -57,6 +57,8 @@ describe('large files', () => {
 
   it('a container over 2 GiB is refused by a card naming it, its size and the limit, and sending it to the command line', async () => {
     const page = await newPage(s)
+    // the demo's load first: its end would clear a card shown before it
+    await waitForModel(page)
     const size = MAX_CONTAINER_BYTES + 4096
     await page.setInputFiles('[data-testid="file-input"]', [sparse('huge.tractus', size)])
     await page.waitForSelector('[data-testid="error-card"]')
@@ -69,6 +71,8 @@ describe('large files', () => {
 
   it('a CSV file over 512 MiB is refused before the intake step, with the way to convert the bundle', async () => {
     const page = await newPage(s)
+    // the demo's load first: its end would clear a card shown before it
+    await waitForModel(page)
     const size = MAX_TEXT_BYTES + 1
     const small = writeCsvBundle(syntheticModel('tet4', 100, 1)).filter((f) => f.name !== 'elements.csv').map((f) => { const p = resolve(DIR, 'small-' + f.name); writeFileSync(p, f.text); return p })
     await page.setInputFiles('[data-testid="file-input"]', [...small, sparse('elements.csv', size)])
