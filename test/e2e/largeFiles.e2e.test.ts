@@ -29,8 +29,14 @@ function sparse(name: string, size: number): string {
 
 async function openAndCut(files: string[]): Promise<{ counts: string; patches: number[]; axial: number }> {
   const page = await newPage(s)
+  // the demo's load first, so that the model waited for below is the file's and not the demo's
+  await waitForModel(page)
+  const demo = await page.textContent('[data-testid="model-name"]')
   await page.setInputFiles('[data-testid="file-input"]', files)
-  await waitForModel(page, 120_000)
+  await page.waitForFunction((demo) => {
+    const name = document.querySelector('[data-testid="model-name"]')?.textContent ?? ''
+    return name !== demo && name !== 'No model loaded' && !document.querySelector('[data-testid="progress"]')
+  }, demo, { timeout: 120_000 })
   await page.keyboard.press('c')
   await waitForCut(page)
   const counts = (await page.textContent('.counts'))!
