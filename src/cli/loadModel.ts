@@ -24,7 +24,10 @@ export interface LoadedModel {
 
 export function loadModel(path: string): LoadedModel {
   const st = statOrThrow(path)
-  if (st.isDirectory()) return loadBundle(path)
+  if (st.isDirectory()) {
+    const container = containerOfFolder(path)
+    return container ? loadModel(container) : loadBundle(path)
+  }
   const ext = extname(path).toLowerCase()
   if (ext === NATIVE_EXTENSION) {
     const buf = readFileSync(path)
@@ -49,6 +52,8 @@ export function loadModel(path: string): LoadedModel {
 export async function loadModelAsync(path: string): Promise<LoadedModel> {
   const st = statOrThrow(path)
   if (!st.isDirectory()) return loadModel(path)
+  const container = containerOfFolder(path)
+  if (container) return loadModel(container)
   const names = bundleNames(path)
   const sizes = names.map((n) => statSync(join(path, n)).size)
   // A container among the files: the reader's refusal, as loadModel gives it.
@@ -83,6 +88,21 @@ function startsWithMagic(file: string, size: number): boolean {
   } finally {
     closeSync(fd)
   }
+}
+
+/**
+ * A folder with no CSV file but one container (a demo's folder: the .tractus file and its
+ * model.json card) is that container; several containers and no CSV file are a question only the
+ * user can answer. null for a CSV folder.
+ */
+function containerOfFolder(dir: string): string | null {
+  const entries = readdirSync(dir).filter((n) => statSync(join(dir, n)).isFile())
+  if (entries.some((n) => extname(n).toLowerCase() === '.csv')) return null
+  const containers = entries.filter((n) => extname(n).toLowerCase() === NATIVE_EXTENSION).sort()
+  if (containers.length > 1) {
+    throw new InputError('bad-argument', `this folder holds ${containers.length} ${NATIVE_EXTENSION} files (${containers.join(', ')}) and no CSV bundle: give the path of one of them`, { file: dir })
+  }
+  return containers.length === 1 ? join(dir, containers[0]) : null
 }
 
 /** The files of a bundle folder that the reader is given: .csv, .json and what model.json names. */

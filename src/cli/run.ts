@@ -33,7 +33,7 @@ function overview(): string {
     'Commands:',
     ...COMMANDS.map((c) => `  ${c.name.padEnd(w)}  ${c.summary}`),
     '',
-    '<model> is a CSV bundle folder or a native .tractus file.',
+    '<model> is a CSV bundle folder, a native .tractus file, or a folder that holds one .tractus file and no CSV.',
     'Run "tractus <command> --help" for the options of a command.',
     '',
   ].join('\n')

@@ -5,7 +5,8 @@
 import { copyFileSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { cli, tempDir, writeBundle } from './cliHarness.ts'
+import { cli, cliJson, tempDir, writeBundle } from './cliHarness.ts'
+import { writeNative } from '../../src/io/index.ts'
 import { syntheticModel } from '../bench/syntheticModel.ts'
 import { COMMANDS } from '../../src/cli/run.ts'
 
@@ -68,6 +69,18 @@ describe('input errors', () => {
     const out = await cli('info', partial)
     expect(out.code).toBe(2)
     expect(out.stderr).toContain('elements.csv')
+  })
+
+  it('a folder with one container and no CSV file is that container; with two, says which to choose', async () => {
+    const dir = tempDir()
+    writeFileSync(join(dir, 'a.tractus'), writeNative(syntheticModel('tet4', 500, 1)))
+    writeFileSync(join(dir, 'model.json'), '{"name": "a card beside the container"}')
+    const one = await cliJson('info', dir)
+    expect(one.elements).toBeGreaterThan(0)
+    writeFileSync(join(dir, 'b.tractus'), writeNative(syntheticModel('tet4', 500, 2)))
+    const two = await cli('info', dir)
+    expect(two.code).toBe(2)
+    expect(two.stderr).toMatch(/2 \.tractus files \(a\.tractus, b\.tractus\) and no CSV bundle: give the path of one of them/)
   })
 
   it('refuses a single CSV file with a hint to give its folder', async () => {
