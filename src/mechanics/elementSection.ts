@@ -40,10 +40,12 @@ import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, ACC_SIZE, MAX_POLYGON_POINTS } fr
 import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
 import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
+import { accumulateTractionHex8 } from './hex8Traction.ts'
 
 // The accumulator slots as module constants: an imported binding read in a per-element function
 // is a getter call under tsx's CommonJS transform (the command line, the benchmarks).
 const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS, SIZE = ACC_SIZE
+const hex8Traction = accumulateTractionHex8
 
 /** Most quadrature points one polygon can have: its fan triangles times the largest rule. */
 export const MAX_POLYGON_QUADRATURE = (MAX_POLYGON_POINTS - 2) * barycentric(MAX_SECTION_RULE_DEGREE).count
@@ -195,6 +197,8 @@ export function accumulateTraction(
   ref: Float64Array, w: Float64Array, a: Float64Array, b: Float64Array, from: number, to: number,
   N: Float64Array, force: Float64Array, fo: number,
 ): void {
+  // hex8: the same sums with t in monomial form (hex8Traction.ts)
+  if (type === 'hex8') return hex8Traction(acc, off, tn, ref, w, a, b, from, to, force, fo)
   let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
   const values = ELEMENT_TYPES[type].shapeValues // the record's own function: no lookup per point
   for (let q = from; q < to; q++) {

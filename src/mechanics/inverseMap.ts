@@ -43,6 +43,7 @@
  */
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { ELEMENT_TYPE_NAMES, ELEMENT_TYPES } from '../model/elementTypes.ts'
+import { TRILINEAR_CORNERS, trilinearMonomials } from './trilinearMonomials.ts'
 
 /** The largest node count of any registered type (scratch sizes). */
 export const MAX_ELEMENT_NODES = Math.max(...ELEMENT_TYPE_NAMES.map((t) => ELEMENT_TYPES[t].nodeCount))
@@ -261,30 +262,23 @@ export function affineFit(em: ElementMap, domain: ReferenceDomain): boolean {
  * The monomial coefficients of a hex8's map (ElementMap.poly) from its node coordinates x, the
  * corners in the registry's order (elements/hexahedra.ts: 0-3 the bottom counter-clockwise from
  * (−1, −1, −1), 4-7 above them): c_k = Σ_a P_k(ξ_a) x_a / 8 with P = 1, ξ, η, ζ, ξη, ηζ, ξζ, ξηζ
- * (N_a = (1 + ξ ξ_a)(1 + η η_a)(1 + ζ ζ_a) / 8 expanded), by a butterfly: sums and differences of
- * the ξ pairs, then along η, then along ζ (about 75 operations instead of 400 for the sum over
- * the eight corners; the tests compare with the shape functions). `ref` is checked once to be
- * that corner order.
+ * (N_a = (1 + ξ ξ_a)(1 + η η_a)(1 + ζ ζ_a) / 8 expanded), by the butterfly of trilinearMonomials.ts
+ * (about 75 operations instead of 400 for the sum over the eight corners; the tests compare with
+ * the shape functions). `ref` is checked once to be that corner order.
  */
 function trilinearForm(c: Float64Array, x: Float64Array, ref: Float64Array): void {
   if (ref !== HEX8_REF_CHECKED) checkHexCorners(ref)
-  for (let k = 0; k < 3; k++) {
-    const x0 = x[k], x1 = x[3 + k], x2 = x[6 + k], x3 = x[9 + k], x4 = x[12 + k], x5 = x[15 + k], x6 = x[18 + k], x7 = x[21 + k]
-    const s01 = x0 + x1, d01 = x1 - x0, s32 = x3 + x2, d32 = x2 - x3, s45 = x4 + x5, d45 = x5 - x4, s76 = x7 + x6, d76 = x6 - x7
-    const a0 = s01 + s32, a2 = s32 - s01, a1 = d01 + d32, a4 = d32 - d01
-    const b0 = s45 + s76, b2 = s76 - s45, b1 = d45 + d76, b4 = d76 - d45
-    c[k] = 0.125 * (a0 + b0); c[3 + k] = 0.125 * (a1 + b1); c[6 + k] = 0.125 * (a2 + b2); c[9 + k] = 0.125 * (b0 - a0)
-    c[12 + k] = 0.125 * (a4 + b4); c[15 + k] = 0.125 * (b2 - a2); c[18 + k] = 0.125 * (b1 - a1); c[21 + k] = 0.125 * (b4 - a4)
-  }
+  monomials(c, x)
 }
 
 /** The reference corners trilinearForm was last checked against (checked once per array). */
 let HEX8_REF_CHECKED: Float64Array | null = null
-const HEX8_CORNER_SIGNS = [-1, -1, -1, 1, -1, -1, 1, 1, -1, -1, 1, -1, -1, -1, 1, 1, -1, 1, 1, 1, 1, -1, 1, 1]
 function checkHexCorners(ref: Float64Array): void {
-  for (let i = 0; i < 24; i++) if (ref[i] !== HEX8_CORNER_SIGNS[i]) throw new Error('trilinearForm: the hex8 corners are not in the registry order it is written for')
+  for (let i = 0; i < 24; i++) if (ref[i] !== TRILINEAR_CORNERS[i]) throw new Error('trilinearForm: the hex8 corners are not in the order trilinearMonomials is written for')
   HEX8_REF_CHECKED = ref
 }
+
+const monomials = trilinearMonomials
 
 const AFFINE = new Float64Array(9)
 
