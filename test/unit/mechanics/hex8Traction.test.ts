@@ -1,5 +1,5 @@
 /**
- * The hex8 traction pass in monomial form (hex8Traction.ts, via accumulateTraction) against the
+ * The hex8 traction pass in monomial form (accumulateTraction, elementSection.ts) against the
  * plain sums written here with the registry's shape functions, t(ξ) = Σ N_a(ξ) t_a
  * (elements/hexahedra.ts): the same trilinear polynomial, so the same sums to round-off. Random
  * nodal tractions, points (inside and a little outside the cube, as Newton's extrapolated ξ can
