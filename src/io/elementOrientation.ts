@@ -17,6 +17,7 @@
 import { elementType } from '../model/elementTypes.ts'
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { sixTetVolume, tripleProduct } from '../model/elements/tetVolume.ts'
+import { firstIndexOutside } from './indexRange.ts'
 
 /** Relative volume below which an element counts as degenerate. */
 export const DEGENERATE_RELATIVE_VOLUME = 1e-12
@@ -85,14 +86,39 @@ export interface BlockOrientation {
   /** Signed volume and bounding diagonal of the degenerate element, for the message. */
   readonly degenerateVolume: number
   readonly degenerateSize: number
+  /**
+   * With a node limit given: whether some index of the block lies outside 0..limit-1 (found in
+   * the same pass, which reads every index anyway; the caller finds the position with
+   * firstIndexOutside). The check stops there and says nothing of the other elements.
+   */
+  readonly outside?: boolean
 }
 
-/** Checks every element of a block; stops at the first degenerate one. Does not change `conn`. */
-export function checkBlockOrientation(coords: Float64Array, type: ElementTypeName, conn: Int32Array): BlockOrientation {
+/**
+ * Checks every element of a block; stops at the first degenerate one. Does not change `conn`.
+ * With `nodeLimit` (the node count) every index is also checked to lie in 0..nodeLimit-1, in the
+ * same pass for tetrahedra (tet4, tet10) and the hexahedron, by firstIndexOutside first for the
+ * other types; an index outside stops the check with `outside` set.
+ */
+export function checkBlockOrientation(coords: Float64Array, type: ElementTypeName, conn: Int32Array, nodeLimit = -1): BlockOrientation {
   const topo = elementType(type)
   const nn = topo.nodeCount
-  if (topo.cornerCount === 4) return checkTetOrientation(coords, conn, nn, type)
-  return checkPolyhedronOrientation(coords, conn, nn, type)
+  if (topo.cornerCount === 4) return checkTetOrientation(coords, conn, nn, type, nodeLimit)
+  if (nodeLimit >= 0 && !(topo.cornerCount === 8 && nn === 8 && sameTable(topo.cornerFaces, HEX_CORNER_FACES)) && firstIndexOutside(conn, nodeLimit) >= 0) return OUTSIDE
+  return checkPolyhedronOrientation(coords, conn, nn, type, nodeLimit)
+}
+
+/** The result of a check stopped at an index outside the node range. */
+const OUTSIDE: BlockOrientation = { inverted: new Int32Array(0), degenerate: -1, degenerateVolume: 0, degenerateSize: 0, outside: true }
+
+/**
+ * Whether the nodes base .. base+nn-1 of conn from `from` on are all in 0..limit-1 (a limit below 0:
+ * no check). One unsigned compare a node: (n >>> 0) maps negative indices above 2^31.
+ */
+function nodesInside(conn: Int32Array, base: number, from: number, nn: number, limit: number): boolean {
+  if (limit < 0) return true
+  for (let a = from; a < nn; a++) if ((conn[base + a] >>> 0) >= limit) return false
+  return true
 }
 
 /**
@@ -106,11 +132,11 @@ export function checkBlockOrientation(coords: Float64Array, type: ElementTypeNam
  * is below 10⁻¹² D³; an element with T² > (6·10⁻⁶)² D⁶ is accepted on T's sign at once, and only
  * the others (very flat elements; overflow and underflow) are measured by measureElement.
  */
-function checkPolyhedronOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
+function checkPolyhedronOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName, nodeLimit: number): BlockOrientation {
   const topo = elementType(type)
   const nc = topo.cornerCount
   const faces = topo.cornerFaces, faceSum = cornerFaceSum
-  if (nc === 8 && sameTable(faces, HEX_CORNER_FACES)) return checkHexOrientation(x, conn, nn, type)
+  if (nc === 8 && sameTable(faces, HEX_CORNER_FACES)) return checkHexOrientation(x, conn, nn, type, nn === 8 ? nodeLimit : -1)
   const count = (conn.length / nn) | 0
   const run = new OrientationRun(), inv = run.inv
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
@@ -149,14 +175,19 @@ function sameTable(a: Int32Array, b: readonly number[]): boolean {
  * checkPolyhedronOrientation for the hexahedron (HEX_CORNER_FACES), the corners in locals relative
  * to corner 0 and the volume in closed form (below): about 70 operations an element instead of 200.
  */
-function checkHexOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
+function checkHexOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName, nodeLimit: number): BlockOrientation {
   const count = (conn.length / nn) | 0
   const run = new OrientationRun(), inv = run.inv
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
+  // without a limit, one above every unsigned 32-bit index
+  const lim = nodeLimit < 0 ? 4294967296 : nodeLimit
   for (let e = 0; e < count; e++) {
     const b = nn * e
-    const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
-    const p4 = 3 * conn[b + 4], p5 = 3 * conn[b + 5], p6 = 3 * conn[b + 6], p7 = 3 * conn[b + 7]
+    const n0 = conn[b], n1 = conn[b + 1], n2 = conn[b + 2], n3 = conn[b + 3], n4 = conn[b + 4], n5 = conn[b + 5], n6 = conn[b + 6], n7 = conn[b + 7]
+    // the node range (unsigned: negative indices land above 2^31), on the indices loaded anyway
+    if ((n0 >>> 0) >= lim || (n1 >>> 0) >= lim || (n2 >>> 0) >= lim || (n3 >>> 0) >= lim || (n4 >>> 0) >= lim || (n5 >>> 0) >= lim || (n6 >>> 0) >= lim || (n7 >>> 0) >= lim) return OUTSIDE
+    const p0 = 3 * n0, p1 = 3 * n1, p2 = 3 * n2, p3 = 3 * n3
+    const p4 = 3 * n4, p5 = 3 * n5, p6 = 3 * n6, p7 = 3 * n7
     const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
     const x1 = x[p1] - x0, y1 = x[p1 + 1] - y0, z1 = x[p1 + 2] - z0
     const x2 = x[p2] - x0, y2 = x[p2 + 1] - y0, z2 = x[p2 + 2] - z0
@@ -219,15 +250,21 @@ export function checkBlockOrientationPlain(coords: Float64Array, type: ElementTy
  * the same. Only elements below that bound (very flat ones; none in a sane mesh; overflow and
  * underflow land here too) are measured exactly by measureElement, which alone decides them.
  */
-function checkTetOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName): BlockOrientation {
+function checkTetOrientation(x: Float64Array, conn: Int32Array, nn: number, type: ElementTypeName, nodeLimit: number): BlockOrientation {
   const count = (conn.length / nn) | 0
   const run = new OrientationRun(), inv = run.inv
   const limit2 = FAST_ACCEPT_RELATIVE * FAST_ACCEPT_RELATIVE * 36
   // Imported kernel into a local once (see readNumericTable: getters under a CommonJS transform).
-  const triple = tripleProduct
+  const triple = tripleProduct, inside = nodesInside
+  // without a limit, one above every unsigned 32-bit index
+  const lim = nodeLimit < 0 ? 4294967296 : nodeLimit
   for (let e = 0; e < count; e++) {
     const b = nn * e
-    const p0 = 3 * conn[b], p1 = 3 * conn[b + 1], p2 = 3 * conn[b + 2], p3 = 3 * conn[b + 3]
+    const n0 = conn[b], n1 = conn[b + 1], n2 = conn[b + 2], n3 = conn[b + 3]
+    // the node range on the corners loaded anyway (unsigned: negative indices land above 2^31),
+    // then on the other nodes of a quadratic element
+    if ((n0 >>> 0) >= lim || (n1 >>> 0) >= lim || (n2 >>> 0) >= lim || (n3 >>> 0) >= lim || (nn > 4 && !inside(conn, b, 4, nn, nodeLimit))) return OUTSIDE
+    const p0 = 3 * n0, p1 = 3 * n1, p2 = 3 * n2, p3 = 3 * n3
     const x0 = x[p0], y0 = x[p0 + 1], z0 = x[p0 + 2]
     const ux = x[p1] - x0, uy = x[p1 + 1] - y0, uz = x[p1 + 2] - z0
     const vx = x[p2] - x0, vy = x[p2 + 1] - y0, vz = x[p2 + 2] - z0

@@ -357,12 +357,17 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
     const nn = elementType(b.type).nodeCount
     const { ids, part } = blockArrays[k]
     let conn = blockArrays[k].conn
-    const bad = firstIndexOutside(conn, N)
-    if (bad >= 0) fail('missing-node', `block${k}.conn`, `node index ${conn[bad]} is outside 0..${N - 1}`, ids[(bad / nn) | 0])
+    // The node range is checked in the orientation pass (it reads every index); when that pass
+    // stops early (an index outside, a degenerate element) the whole block's indices are scanned,
+    // so the findings keep their order: index, part, degenerate element.
+    const o = checkBlockOrientation(coords, b.type, conn, N)
+    if (o.outside || o.degenerate >= 0) {
+      const bad = firstIndexOutside(conn, N)
+      if (bad >= 0) fail('missing-node', `block${k}.conn`, `node index ${conn[bad]} is outside 0..${N - 1}`, ids[(bad / nn) | 0])
+    }
     if (part) for (let i = 0; i < part.length; i++) if (part[i] < 0) fail('bad-id', `block${k}.part`, `part ${part[i]} is negative`, ids[i])
     if (allIds) allIds.set(ids, at)
     at += b.count
-    const o = checkBlockOrientation(coords, b.type, conn)
     if (o.degenerate >= 0) fail('zero-volume', `block${k}.conn`, `degenerate ${b.type} element: volume ${o.degenerateVolume.toPrecision(3)} is about zero for its size ${o.degenerateSize.toPrecision(3)}`, ids[o.degenerate])
     let rows: Int32Array | null = null
     if (elementNodal) {

@@ -27,6 +27,7 @@ import { tabulateElement } from './shapeFunctions.ts'
 import { isStraightTet10 } from './straightTet10.ts'
 import { FQP_AREA, FQP_SIZE, FQP_STRESS, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { momentAbout } from './vec3.ts'
+import { hex8Balance } from './hex8Balance.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } from './types.ts'
 
 /** Fresh output arrays for E elements in the chosen storage precision (see ElementBalance). */
@@ -56,9 +57,6 @@ export function computeElementBalanceGeneral(out: ElementBalance, mesh: Mesh, st
 
 /** tet10 faces, 6 local nodes each: corners (outward), then the mid-edge nodes (ELEMENT_TYPES.tet10.faces). */
 const TET10_FACES = Int32Array.from(ELEMENT_TYPES.tet10.faces.flat())
-
-/** hex8 faces as local corner numbers, 4 per face, outward (ELEMENT_TYPES.hex8.faces). */
-const HEX8_FACES = Int32Array.from(ELEMENT_TYPES.hex8.faces.flat())
 
 function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bodyForce: Vec3, closedForms: boolean): ElementBalance {
   const E = mesh.elementCount
@@ -134,6 +132,8 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
       continue
     }
     if (b.type === 'hex8' && closedForms) {
+      // its own function in its own file (hex8Balance.ts), so its loop is optimised for
+      // hexahedra alone whatever other types ran before
       hex8Balance(out, off, x, conn, rows, stress, bodyForce)
       continue
     }
@@ -216,95 +216,6 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
 
   function store(ge: number, v: number, rx: number, ry: number, rz: number, faceSum: number): void {
     storeBalance(out, ge, v, rx, ry, rz, faceSum, bx, by, bz, bMag)
-  }
-}
-
-/**
- * The hex8 element balance in closed form, for one block (its own function, so its loop is
- * optimised for hexahedra alone whatever other types ran before; element `e` of the block is
- * `off + e` of `out`).
- * Each face is the bilinear patch x(u, v) = A + B u + C v + D uv on [-1, 1]² of its corners
- * x0..x3 (face order, outward), with 4A = x0+x1+x2+x3, 4B = -x0+x1+x2-x3,
- * 4C = -x0-x1+x2+x3, 4D = x0-x1+x2-x3. Its area vector x_u × x_v = (B + Dv) × (C + Du)
- * = B×C + u B×D + v D×C is linear in u and v (D×D = 0), and σ = S_A + S_B u + S_C v + S_D uv
- * is bilinear, so σn has degree ≤ 2 in each face variable: the 2×2 Gauss rule of the general
- * path (exact to degree 3 per variable) integrates it exactly, and so does this closed form,
- * keeping only the terms with even powers (∫1 = 4, ∫u² = ∫v² = 4/3 over the square):
- *   ∫ σn dA = 4 S_A (B×C) + 4/3 (S_B (B×D) + S_C (D×C)).
- * With b = 4B, c = 4C, d = 4D and sums s_a = 4 S_A, s_b = 4 S_B, s_c = 4 S_C of corner σ:
- *   ∫ σn dA = (s_a (b×c) + (s_b (b×d) + s_c (d×c)) / 3) / 16.
- * Volume by the divergence theorem (div x = 3): V = ⅓ ∮ x·n dA. The trilinear element's
- * boundary is exactly these 6 bilinear patches and x·n also has degree ≤ 2 per variable, so
- * the same exact integration gives ∫ x·n dA = 4 A·(B×C) (B·(B×D) = C·(D×C) = 0), that is
- * a·(b×c)/16 with a = 4A, and V = Σ a·(b×c) / 48. Coordinates are taken relative to the
- * element's node 0 (∮ n dA = 0, so V does not change) to keep the volume sum free of
- * cancellation far from the origin.
- * The eight corners are gathered once per element into scratch arrays (coordinates relative
- * to node 0, stress), and the six faces read them there.
- */
-function hex8Balance(out: ElementBalance, off: number, x: Float64Array, conn: Int32Array, rows: Int32Array, stress: Float64Array, bodyForce: Vec3): void {
-  const count = conn.length >> 3
-  const F = HEX8_FACES
-  const bx = bodyForce[0], by = bodyForce[1], bz = bodyForce[2]
-  const bMag = Math.sqrt(bx * bx + by * by + bz * bz)
-  const xs = new Float64Array(24), ss = new Float64Array(48)
-  for (let e = 0; e < count; e++) {
-    const base = 8 * e
-    const o = 3 * conn[base]
-    const ox = x[o], oy = x[o + 1], oz = x[o + 2]
-    for (let a = 0; a < 8; a++) {
-      const p = 3 * conn[base + a], r = 6 * rows[base + a]
-      xs[3 * a] = x[p] - ox; xs[3 * a + 1] = x[p + 1] - oy; xs[3 * a + 2] = x[p + 2] - oz
-      ss[6 * a] = stress[r]; ss[6 * a + 1] = stress[r + 1]; ss[6 * a + 2] = stress[r + 2]
-      ss[6 * a + 3] = stress[r + 3]; ss[6 * a + 4] = stress[r + 4]; ss[6 * a + 5] = stress[r + 5]
-    }
-    let rx = 0, ry = 0, rz = 0, g = 0, v48 = 0
-    for (let f = 0; f < 24; f += 4) {
-      const c0 = 3 * F[f], c1 = 3 * F[f + 1], c2 = 3 * F[f + 2], c3 = 3 * F[f + 3]
-      const x0 = xs[c0], y0 = xs[c0 + 1], z0 = xs[c0 + 2]
-      const x1 = xs[c1], y1 = xs[c1 + 1], z1 = xs[c1 + 2]
-      const x2 = xs[c2], y2 = xs[c2 + 1], z2 = xs[c2 + 2]
-      const x3 = xs[c3], y3 = xs[c3 + 1], z3 = xs[c3 + 2]
-      // eb = b = 4B, ec = c = 4C, ed = d = 4D; n0 = b×c.
-      const ebx = x1 + x2 - x0 - x3, eby = y1 + y2 - y0 - y3, ebz = z1 + z2 - z0 - z3
-      const ecx = x2 + x3 - x0 - x1, ecy = y2 + y3 - y0 - y1, ecz = z2 + z3 - z0 - z1
-      const edx = x0 - x1 + x2 - x3, edy = y0 - y1 + y2 - y3, edz = z0 - z1 + z2 - z3
-      const n0x = eby * ecz - ebz * ecy, n0y = ebz * ecx - ebx * ecz, n0z = ebx * ecy - eby * ecx
-      v48 += (x0 + x1 + x2 + x3) * n0x + (y0 + y1 + y2 + y3) * n0y + (z0 + z1 + z2 + z3) * n0z
-      // 48 × the weights: k0 = 3 (b×c), k1 = b×d, k2 = d×c; the element's sums are divided by
-      // 48 once at the end.
-      const k0x = 3 * n0x, k0y = 3 * n0y, k0z = 3 * n0z
-      const k1x = eby * edz - ebz * edy, k1y = ebz * edx - ebx * edz, k1z = ebx * edy - eby * edx
-      const k2x = edy * ecz - edz * ecy, k2y = edz * ecx - edx * ecz, k2z = edx * ecy - edy * ecx
-      const s0 = 2 * c0, s1 = 2 * c1, s2 = 2 * c2, s3 = 2 * c3
-      // Per stored component (xx, yy, zz, xy, yz, xz): with p = t0 + t1, q = t2 + t3 of the
-      // corner values, s_a = p + q, s_c = q − p, s_b = t1 + t2 − t0 − t3; then
-      // s_a·k0 + s_b·k1 + s_c·k2 along the normal direction(s) the component multiplies.
-      let t0 = ss[s0], t1 = ss[s1], t2 = ss[s2], t3 = ss[s3]
-      let p = t0 + t1, q = t2 + t3, sb = t1 + t2 - t0 - t3
-      let fx = (p + q) * k0x + sb * k1x + (q - p) * k2x
-      t0 = ss[s0 + 1]; t1 = ss[s1 + 1]; t2 = ss[s2 + 1]; t3 = ss[s3 + 1]
-      p = t0 + t1; q = t2 + t3; sb = t1 + t2 - t0 - t3
-      let fy = (p + q) * k0y + sb * k1y + (q - p) * k2y
-      t0 = ss[s0 + 2]; t1 = ss[s1 + 2]; t2 = ss[s2 + 2]; t3 = ss[s3 + 2]
-      p = t0 + t1; q = t2 + t3; sb = t1 + t2 - t0 - t3
-      let fz = (p + q) * k0z + sb * k1z + (q - p) * k2z
-      t0 = ss[s0 + 3]; t1 = ss[s1 + 3]; t2 = ss[s2 + 3]; t3 = ss[s3 + 3]
-      p = t0 + t1; q = t2 + t3; sb = t1 + t2 - t0 - t3
-      fx += (p + q) * k0y + sb * k1y + (q - p) * k2y
-      fy += (p + q) * k0x + sb * k1x + (q - p) * k2x
-      t0 = ss[s0 + 4]; t1 = ss[s1 + 4]; t2 = ss[s2 + 4]; t3 = ss[s3 + 4]
-      p = t0 + t1; q = t2 + t3; sb = t1 + t2 - t0 - t3
-      fy += (p + q) * k0z + sb * k1z + (q - p) * k2z
-      fz += (p + q) * k0y + sb * k1y + (q - p) * k2y
-      t0 = ss[s0 + 5]; t1 = ss[s1 + 5]; t2 = ss[s2 + 5]; t3 = ss[s3 + 5]
-      p = t0 + t1; q = t2 + t3; sb = t1 + t2 - t0 - t3
-      fx += (p + q) * k0z + sb * k1z + (q - p) * k2z
-      fz += (p + q) * k0x + sb * k1x + (q - p) * k2x
-      rx += fx; ry += fy; rz += fz
-      g += Math.sqrt(fx * fx + fy * fy + fz * fz)
-    }
-    storeBalance(out, off + e, v48 * (1 / 48), rx * (1 / 48), ry * (1 / 48), rz * (1 / 48), g * (1 / 48), bx, by, bz, bMag)
   }
 }
 

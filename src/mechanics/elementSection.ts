@@ -40,10 +40,14 @@ import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, ACC_SIZE, MAX_POLYGON_POINTS } fr
 import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
 import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
+import { trilinearMonomials } from './trilinearMonomials.ts'
 
 // The accumulator slots as module constants: an imported binding read in a per-element function
 // is a getter call under tsx's CommonJS transform (the command line, the benchmarks).
 const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS, SIZE = ACC_SIZE
+const monomials = trilinearMonomials
+/** The hex8 traction's monomial coefficients T_0..T_7 of the element in hand (3 each). */
+const TRACTION_MONOMIALS = new Float64Array(24)
 
 /** Most quadrature points one polygon can have: its fan triangles times the largest rule. */
 export const MAX_POLYGON_QUADRATURE = (MAX_POLYGON_POINTS - 2) * barycentric(MAX_SECTION_RULE_DEGREE).count
@@ -197,12 +201,24 @@ export function accumulateTraction(
 ): void {
   let Fx = 0, Fy = 0, Fz = 0, Ax = 0, Ay = 0, Az = 0, Bx = 0, By = 0, Bz = 0
   const values = ELEMENT_TYPES[type].shapeValues // the record's own function: no lookup per point
+  // hex8: t is trilinear, written once per element in monomial form t = Σ_k T_k P_k(ξ)
+  // (trilinearMonomials.ts), so a point costs four products and 21 multiply-adds instead of the
+  // eight shape functions and an eight-node sum (the same polynomial; tested against them)
+  const hex = type === 'hex8', c = hex ? monomials(TRACTION_MONOMIALS, tn) : TRACTION_MONOMIALS
   for (let q = from; q < to; q++) {
-    values(ref[3 * q], ref[3 * q + 1], ref[3 * q + 2], N)
+    const u = ref[3 * q], v = ref[3 * q + 1], s = ref[3 * q + 2]
     let tx = 0, ty = 0, tz = 0
-    for (let k = 0; k < nn; k++) {
-      const nk = N[k]
-      tx += nk * tn[3 * k]; ty += nk * tn[3 * k + 1]; tz += nk * tn[3 * k + 2]
+    if (hex) {
+      const uv = u * v, vs = v * s, us = u * s, uvs = uv * s
+      tx = c[0] + c[3] * u + c[6] * v + c[9] * s + c[12] * uv + c[15] * vs + c[18] * us + c[21] * uvs
+      ty = c[1] + c[4] * u + c[7] * v + c[10] * s + c[13] * uv + c[16] * vs + c[19] * us + c[22] * uvs
+      tz = c[2] + c[5] * u + c[8] * v + c[11] * s + c[14] * uv + c[17] * vs + c[20] * us + c[23] * uvs
+    } else {
+      values(u, v, s, N)
+      for (let k = 0; k < nn; k++) {
+        const nk = N[k]
+        tx += nk * tn[3 * k]; ty += nk * tn[3 * k + 1]; tz += nk * tn[3 * k + 2]
+      }
     }
     const wq = w[q], wa = wq * a[q], wb = wq * b[q]
     Fx += wq * tx; Fy += wq * ty; Fz += wq * tz

@@ -78,6 +78,31 @@ describe(`inverse element map (seed ${SEED})`, () => {
     }
   })
 
+  // The monomial coefficients (a butterfly over the corners) against the shape functions: the same
+  // trilinear polynomial, so x(ξ) agrees at any ξ to round-off, here on random distorted hex8
+  // far from the origin (poly is relative to em.origin).
+  it(`hex8: the monomial form's coefficients reproduce Σ N_a(ξ) x_a (seed ${SEED + 8})`, () => {
+    const rnd = mulberry32(SEED + 8)
+    const dom = referenceDomain('hex8')
+    for (let e = 0; e < 20; e++) {
+      const mesh = singleElement('hex8', [0.5 + rnd(), 0.5 + rnd(), 0.5 + rnd()], [1e3 * rnd(), -1e3 * rnd(), 10 * rnd()])
+      const x = mesh.coords.map((v) => v + 0.3 * (2 * rnd() - 1))
+      const em = loadElementMap(createElementMap(), dom, x, mesh.blocks[0].conn, 0)
+      expect(em.trilinear).toBe(true)
+      const P = em.poly
+      for (let k = 0; k < 10; k++) {
+        const [a, b, c] = [2 * rnd() - 1, 2 * rnd() - 1, 2 * rnd() - 1]
+        const m = [1, a, b, c, a * b, b * c, a * c, a * b * c]
+        const want = forward('hex8', x, [a, b, c])
+        for (let d = 0; d < 3; d++) {
+          let got = em.origin[d]
+          for (let j = 0; j < 8; j++) got += P[3 * j + d] * m[j]
+          expect(Math.abs(got - want[d])).toBeLessThan(1e-12 * 1e3)
+        }
+      }
+    }
+  })
+
   it('a flattened (zero-volume) hex8 or a point far outside is counted as not mapped, never NaN', () => {
     const type = 'hex8'
     const dom = referenceDomain(type)
