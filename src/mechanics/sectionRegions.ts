@@ -145,6 +145,9 @@ const TET_CROSSED = (() => {
   return t
 })()
 
+/** Face k of a tetrahedron's sorted corners: the other three, ascending. */
+const TET_FACE = new Int32Array([1, 2, 3, 0, 2, 3, 0, 1, 3, 0, 1, 2])
+
 /** Notes that quadrature-geometry element j belongs to the last recorded element. */
 export function recordGeometry(r: CutRecord, j: number): void {
   if (j >= r.geoRec.length) r.geoRec = growInt(r.geoRec, Math.max(2 * r.geoRec.length, j + 1))
@@ -221,43 +224,34 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
   // twin are a thin front of the cut and the table stays small enough to live in the cache (a
   // table of every crossed face, or one indexed by node, is mostly cache misses). Beside the key
   // each face keeps 8·s + f (cut element s, its corner face f): its owner and the order it was met.
+  // the table in locals (meet never grows it: room is made before each element, for its faces)
   const t = faceTable()
-  t.live = 0
+  let keys = t.keys, mask = t.mask, shift = t.shift, live = 0
   // The hot loop: records come in block order, so each block's tables are read once per run;
   // the part read straight from the block. Tetrahedra recorded by the cut come with their
   // corners sorted and their sides (recordTet): no connectivity row or distance is read again.
   let lastBlock = -1, conn = mesh.blocks[0].conn, cf = ELEMENT_TYPES[mesh.blocks[0].type].cornerFaces, nn = 0, nf = 0, cc = 0
   let part: Int32Array | null = null, masks = faceMasks(cf), tet = false
+  const blockOf = r.block, localOf = r.local
   for (let s = 0; s < n; s++) {
     const i = sel[s]
-    const bi = r.block[i]
+    const bi = blockOf[i]
+    if (live + MAX_FACES > t.room) { growFaceTable(t, live); keys = t.keys; mask = t.mask; shift = t.shift }
     if (bi !== lastBlock) {
       const block = mesh.blocks[bi], topo = ELEMENT_TYPES[block.type]
       conn = block.conn; cf = topo.cornerFaces; nn = topo.nodeCount; nf = cf.length >> 2; part = block.part; lastBlock = bi
       cc = topo.cornerCount; masks = faceMasks(cf); tet = isTetrahedron(topo)
     }
-    const local = r.local[i], base = nn * local
-    const ps = part ? part[local] : 0
-    partOf[s] = ps
+    const local = localOf[i], base = nn * local
     if (tet) {
-      // a tetrahedron: its corners sorted once (recorded by the cut, else here), then face k is
-      // the other three (sorted corner k left out), already in order. Its code is 8·s + k.
-      let code = r.tetCode[i], o = 4 * i, cs = r.corners
-      if (code === NO_CORNERS) {
-        code = sortTet(tetScratch, 0, conn[base], conn[base + 1], conn[base + 2], conn[base + 3], d[conn[base]], d[conn[base + 1]], d[conn[base + 2]], d[conn[base + 3]])
-        cs = tetScratch; o = 0
-      }
-      const a = cs[o], b = cs[o + 1], c = cs[o + 2], e = cs[o + 3]
-      // two or more corners on the plane: every pair is an edge of the tetrahedron (see below)
-      const zero = code >> 4
-      if (zero & (zero - 1)) meetTetEdges(zero, a, b, c, e, s, ps, parent)
-      const x = TET_CROSSED[code & 15]
-      if (x & 1) meet(t, b, c, e, 8 * s, s, ps, parent, partOf)
-      if (x & 2) meet(t, a, c, e, 8 * s + 1, s, ps, parent, partOf)
-      if (x & 4) meet(t, a, b, e, 8 * s + 2, s, ps, parent, partOf)
-      if (x & 8) meet(t, a, b, c, 8 * s + 3, s, ps, parent, partOf)
+      // the run of tetrahedra of this block at once, in a loop of their own
+      runLive = live
+      s = labelTets(s, n, bi, sel, r, part, conn, nn, d, t, parent, partOf) - 1
+      live = runLive; keys = t.keys; mask = t.mask; shift = t.shift
       continue
     }
+    const ps = part ? part[local] : 0
+    partOf[s] = ps
     // corners on the plane (d == 0 exactly: snapped): two or more, and the polygon may share an
     // in-plane edge with a polygon of an element that is no face neighbour (a plane through a
     // layer of nodes: the in-plane triangles of neighbouring cells), matched by that edge
@@ -286,11 +280,10 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
         if (c1 > c3) { x = c1; c1 = c3; c3 = x }
         if (c1 > c2) { x = c1; c1 = c2; c2 = x }
       }
-      meet(t, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
+      live += meet(keys, mask, shift, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
     }
   }
   clearEdgeTable()
-  const live = t.live
   // faces left unmatched by node numbers: the section's outline, or faces whose nodes only coincide
   if (live > 1) {
     openFaces(table!, live, sel, r, mesh)
@@ -304,6 +297,48 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     label[s] = root === s ? count++ : label[root]
   }
   return count
+}
+
+/** The face table's live count across labelTets (its second result). */
+let runLive = 0
+
+/**
+ * labelRegions over the run of tetrahedra from sel[s0] on while they lie in block bi (part
+ * numbers `part`, connectivity `conn` of nn nodes per element); returns where the run ends,
+ * the table's live count in runLive. A tetrahedron's corners come sorted from the record
+ * (recordTet) or are sorted here once; face k is the other three (sorted corner k left out),
+ * already in order, its code 8·s + k.
+ */
+function labelTets(
+  s0: number, n: number, bi: number, sel: Int32Array, r: CutRecord, part: Int32Array | null, conn: Int32Array, nn: number, d: Float64Array,
+  t: FaceTable, parent: Int32Array, partOf: Int32Array,
+): number {
+  const blockOf = r.block, localOf = r.local, tetCode = r.tetCode, corners = r.corners
+  let keys = t.keys, mask = t.mask, shift = t.shift, live = runLive, s = s0
+  for (; s < n; s++) {
+    const i = sel[s]
+    if (blockOf[i] !== bi) break
+    if (live + MAX_FACES > t.room) { growFaceTable(t, live); keys = t.keys; mask = t.mask; shift = t.shift }
+    const local = localOf[i]
+    const ps = part ? part[local] : 0
+    partOf[s] = ps
+    let code = tetCode[i], o = 4 * i, cs = corners
+    if (code === NO_CORNERS) {
+      const base = nn * local
+      code = sortTet(tetScratch, 0, conn[base], conn[base + 1], conn[base + 2], conn[base + 3], d[conn[base]], d[conn[base + 1]], d[conn[base + 2]], d[conn[base + 3]])
+      cs = tetScratch; o = 0
+    }
+    // two or more corners on the plane: every pair is an edge of the tetrahedron (see labelRegions)
+    const zero = code >> 4
+    if (zero & (zero - 1)) meetTetEdges(zero, cs[o], cs[o + 1], cs[o + 2], cs[o + 3], s, ps, parent)
+    // the crossed faces in order, lowest bit first (one loop, not four guesses of a branch)
+    for (let x = TET_CROSSED[code & 15]; x !== 0; x &= x - 1) {
+      const k = 31 - Math.clz32(x & -x), f = 3 * k
+      live += meet(keys, mask, shift, cs[o + TET_FACE[f]], cs[o + TET_FACE[f + 1]], cs[o + TET_FACE[f + 2]], 8 * s + k, s, ps, parent, partOf)
+    }
+  }
+  runLive = live
+  return s
 }
 
 /** Four corners and four triangular faces (tet4, tet10): labelRegions sorts the corners once. */
@@ -342,52 +377,60 @@ function faceMasks(cf: ArrayLike<number>): Int32Array {
 /**
  * The crossed-face table of labelRegions (grows only, reused across cuts): per slot a face's
  * three smallest corners and 8·s + f, k0 = -1 on a free slot (linear probing, removal by
- * backward shift, so no tombstones). `live` faces in it, at most `room` (half the slots).
+ * backward shift, so no tombstones). A face's home slot is the top bits of its hash
+ * (faceSlot): node numbers of a structured mesh differ in regular steps, and the low bits of
+ * their products repeat, which made long probe runs. At most `room` faces (half the slots);
+ * 16384 slots (256 KB) keep the front of a 10^6-element cut (some 650 faces) at a
+ * load of 4 %, where most probes and removals end at the first slot.
  */
-interface FaceTable { keys: Int32Array; mask: number; room: number; live: number }
+interface FaceTable { keys: Int32Array; mask: number; shift: number; room: number }
 let table: FaceTable | null = null
 
 function newFaceTable(slots: number): FaceTable {
-  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, room: slots >> 1, live: 0 }
+  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, shift: 32 - Math.log2(slots), room: slots >> 1 }
 }
 
 function faceTable(): FaceTable {
-  if (!table) table = newFaceTable(4096)
+  if (!table) table = newFaceTable(16384)
   return table
 }
 
-/** Twice the slots, the faces moved over (in place: `t` stays the table). */
-function growFaceTable(t: FaceTable): void {
-  const old = t.keys, keys = new Int32Array(2 * old.length).fill(-1), mask = 2 * t.mask + 1
-  for (let o = 0; o < old.length; o += 4) {
+/** Twice the slots, the `live` faces moved over (in place: `t` stays the table). */
+function growFaceTable(t: FaceTable, live: number): void {
+  const old = t.keys, keys = new Int32Array(2 * old.length).fill(-1), mask = 2 * t.mask + 1, shift = t.shift - 1
+  for (let o = 0, moved = 0; o < old.length && moved < live; o += 4) {
     if (old[o] < 0) continue
-    let h = faceHash(old[o], old[o + 1], old[o + 2]) & mask
+    let h = faceSlot(old[o], old[o + 1], old[o + 2], shift)
     while (keys[h << 2] >= 0) h = (h + 1) & mask
     for (let k = 0; k < 4; k++) keys[(h << 2) + k] = old[o + k]
+    moved++
   }
-  t.keys = keys; t.mask = mask; t.room = (mask + 1) >> 1
+  t.keys = keys; t.mask = mask; t.shift = shift; t.room = (mask + 1) >> 1
 }
+
+/** The most faces one element has (a hexahedron): room for them is made before each element. */
+const MAX_FACES = 6
 
 /**
  * Cut element s (part ps) meets its crossed face (c0 < c1 < c2 its three smallest corners, code
- * 8·s + face): the twin found joins the two elements when they are of one part and leaves the
- * table; else the face goes in.
+ * 8·s + face) in the face table (`keys`, `mask`, `shift` of FaceTable): the twin found joins the
+ * two elements when they are of one part and leaves the table (returns -1); else the face goes
+ * in (returns 1).
  */
-function meet(t: FaceTable, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): void {
-  const keys = t.keys, mask = t.mask
-  for (let h = faceHash(c0, c1, c2) & mask; ; h = (h + 1) & mask) {
+function meet(keys: Int32Array, mask: number, shift: number, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): number {
+  for (let h = faceSlot(c0, c1, c2, shift); ; h = (h + 1) & mask) {
     const o = h << 2, k0 = keys[o]
     if (k0 < 0) {
       keys[o] = c0; keys[o + 1] = c1; keys[o + 2] = c2; keys[o + 3] = code
-      if (++t.live > t.room) growFaceTable(t)
-      return
+      return 1
     }
     if (k0 === c0 && keys[o + 1] === c1 && keys[o + 2] === c2) {
       const other = keys[o + 3] >> 3
       if (partOf[other] === ps) union(parent, other, s)
-      removeFace(t, h)
-      t.live--
-      return
+      // the next slot free (the common case): nothing to move back
+      if (keys[((h + 1) & mask) << 2] < 0) keys[o] = -1
+      else removeFace(keys, mask, shift, h)
+      return -1
     }
   }
 }
@@ -398,14 +441,18 @@ function faceHash(a: number, b: number, c: number): number {
   return h ^ (h >>> 15)
 }
 
+/** The home slot of a face in a table of 2^(32 - shift) slots: the top bits of the multiplicative hash. */
+function faceSlot(a: number, b: number, c: number, shift: number): number {
+  return ((Math.imul(a, 0x9e3779b1) + Math.imul(b, 0x85ebca77) + Math.imul(c, 0xc2b2ae3d)) | 0) >>> shift
+}
+
 /** Empties slot i: later faces of its probe run move back so every face stays reachable from its hash. */
-function removeFace(t: FaceTable, i: number): void {
-  const keys = t.keys, mask = t.mask
+function removeFace(keys: Int32Array, mask: number, shift: number, i: number): void {
   for (let j = (i + 1) & mask; ; j = (j + 1) & mask) {
     const oj = j << 2
     if (keys[oj] < 0) break
     // the face at j may fill i unless its home slot lies cyclically in (i, j]
-    const home = faceHash(keys[oj], keys[oj + 1], keys[oj + 2]) & mask
+    const home = faceSlot(keys[oj], keys[oj + 1], keys[oj + 2], shift)
     if (((j - home) & mask) < ((j - i) & mask)) continue
     const oi = i << 2
     keys[oi] = keys[oj]; keys[oi + 1] = keys[oj + 1]; keys[oi + 2] = keys[oj + 2]; keys[oi + 3] = keys[oj + 3]
