@@ -314,11 +314,13 @@ function labelTets(
   t: FaceTable, parent: Int32Array, partOf: Int32Array,
 ): number {
   const blockOf = r.block, localOf = r.local, tetCode = r.tetCode, corners = r.corners
-  let keys = t.keys, mask = t.mask, shift = t.shift, live = runLive, s = s0
+  // the table fixed for the run (its locals stay in registers): the run stops where it is full
+  // enough to grow, and labelRegions grows it and starts the rest of the run
+  const keys = t.keys, mask = t.mask, shift = t.shift, room = t.room - MAX_FACES
+  let live = runLive, s = s0
   for (; s < n; s++) {
     const i = sel[s]
-    if (blockOf[i] !== bi) break
-    if (live + MAX_FACES > t.room) { growFaceTable(t, live); keys = t.keys; mask = t.mask; shift = t.shift }
+    if (blockOf[i] !== bi || live > room) break
     const local = localOf[i]
     const ps = part ? part[local] : 0
     partOf[s] = ps
@@ -418,7 +420,8 @@ const MAX_FACES = 6
  * in (returns 1).
  */
 function meet(keys: Int32Array, mask: number, shift: number, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): number {
-  for (let h = faceSlot(c0, c1, c2, shift); ; h = (h + 1) & mask) {
+  // faceSlot written out: called here, it was not inlined, and the call cost a third of the loop
+  for (let h = ((Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d)) | 0) >>> shift; ; h = (h + 1) & mask) {
     const o = h << 2, k0 = keys[o]
     if (k0 < 0) {
       keys[o] = c0; keys[o + 1] = c1; keys[o + 2] = c2; keys[o + 3] = code
@@ -426,7 +429,14 @@ function meet(keys: Int32Array, mask: number, shift: number, c0: number, c1: num
     }
     if (k0 === c0 && keys[o + 1] === c1 && keys[o + 2] === c2) {
       const other = keys[o + 3] >> 3
-      if (partOf[other] === ps) union(parent, other, s)
+      if (partOf[other] === ps) {
+        // union(parent, other, s) written out (not inlined when called)
+        let a = other, b = s
+        while (parent[a] !== a) { parent[a] = parent[parent[a]]; a = parent[a] }
+        while (parent[b] !== b) { parent[b] = parent[parent[b]]; b = parent[b] }
+        if (a < b) parent[b] = a
+        else if (b < a) parent[a] = b
+      }
       // the next slot free (the common case): nothing to move back
       if (keys[((h + 1) & mask) << 2] < 0) keys[o] = -1
       else removeFace(keys, mask, shift, h)
@@ -441,7 +451,7 @@ function faceHash(a: number, b: number, c: number): number {
   return h ^ (h >>> 15)
 }
 
-/** The home slot of a face in a table of 2^(32 - shift) slots: the top bits of the multiplicative hash. */
+/** The home slot of a face in a table of 2^(32 - shift) slots: the top bits of the multiplicative hash (also written out in meet). */
 function faceSlot(a: number, b: number, c: number, shift: number): number {
   return ((Math.imul(a, 0x9e3779b1) + Math.imul(b, 0x85ebca77) + Math.imul(c, 0xc2b2ae3d)) | 0) >>> shift
 }
