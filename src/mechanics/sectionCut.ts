@@ -39,7 +39,7 @@ import { emptySection, sectionCentroid, sectionRecord } from './sectionPropertie
 import { sectionRule, shapeDegree } from './sectionRule.ts'
 import type { CutRecord, SectionLimit } from './sectionRegions.ts'
 import {
-  addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, regionAccumulators, selectCutElements, selectionAccumulator,
+  addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, recordTet, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
 import type { BoundaryFaces, FreeBodyFigure, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
@@ -136,22 +136,18 @@ export function cutSection(
   integrateSectionGeometry(acc, 0, geo, mesh, stress, m, forces, rec ? rec.acc : null, rec ? rec.geoRec : null)
   const polygons = collect ? collect.finish(mesh, stress, forces!) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
-  let regions: SectionRegion[] | null = null
   const labels: RegionLabels | null = rec && options.polygons ? { element: new Int32Array(0), region: new Int32Array(0) } : null
-  if (rec) {
-    if (!(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
+  if (rec && !(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
+  if (rec && limit) {
     const recorded = recordedSection(rec, mesh, acc, limit, point, m, frame, about, d, em.failures, options.axes, labels, stress)
-    if (limit) {
-      const sel = recorded.selection
-      if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons, labels }
-      // a cut limited to whole parts bounds a piece: the selected parts' elements on the -m side,
-      // whose boundary includes their faces against the other parts
-      const piece = options.partPiece ?? partPiece(mesh, stress, limit.parts!)
-      const fb = pieceFreeBody(sel, piece.mesh, piece.field, piece.faces, piece.tractions, d, m, frame, bodyForce)
-      const result = sectionRecord(sel, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
-      return { result: { ...result, regions: recorded.regions, limited: true, freeBodyDefined: true }, polygons, labels }
-    }
-    regions = recorded.regions
+    const sel = recorded.selection
+    if (!wholeParts(limit) || !sel) return { result: recorded.result!, polygons, labels }
+    // a cut limited to whole parts bounds a piece: the selected parts' elements on the -m side,
+    // whose boundary includes their faces against the other parts
+    const piece = options.partPiece ?? partPiece(mesh, stress, limit.parts!)
+    const fb = pieceFreeBody(sel, piece.mesh, piece.field, piece.faces, piece.tractions, d, m, frame, bodyForce)
+    const result = sectionRecord(sel, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
+    return { result: { ...result, regions: recorded.regions, limited: true, freeBodyDefined: true }, polygons, labels }
   }
   if (!(acc[ACC_AREA] > 0)) return { result: emptySection(point, m, frame, about, options.axes), polygons, labels }
 
@@ -159,7 +155,11 @@ export function cutSection(
   const tractions = options.tractions ?? freeBodyTractions(mesh, stress, faces)
   const fb = pieceFreeBody(acc, mesh, stress, faces, tractions, d, m, frame, bodyForce)
   const result = sectionRecord(acc, 0, point, m, frame, about, fb.freeBody, em.failures + fb.unmapped, options.axes)
-  return { result: regions ? { ...result, regions, limited: false, freeBodyDefined: true } : result, polygons, labels }
+  if (!rec) return { result, polygons, labels }
+  // the regions after the free body (they are independent): labelling walks the record and its
+  // tables, which would push the boundary faces and distances the free body reads out of cache
+  const regions = recordedSection(rec, mesh, acc, null, point, m, frame, about, d, em.failures, options.axes, labels, stress).regions
+  return { result: { ...result, regions, limited: false, freeBodyDefined: true }, polygons, labels }
 }
 
 /**
@@ -287,7 +287,7 @@ function cutLinearBlock(
   const ref = referenceDomain(type).ref
   // Imported kernels once into locals: under a CommonJS transform (tsx) each use of an imported
   // name is otherwise a getter call per element.
-  const polygon = elementPolygon, integrate = integratePolygon
+  const polygon = elementPolygon, integrate = integratePolygon, record = recordTet
   // A small scan finds the cut elements (quick to optimise, so the first cut pays little for
   // the warm-up), then only those are clipped, in element order.
   const n = findCutTets(d, conn, conn.length / nn, nn)
@@ -296,9 +296,10 @@ function cutLinearBlock(
     const base = nn * list[i]
     dist[0] = d[conn[base]]; dist[1] = d[conn[base + 1]]; dist[2] = d[conn[base + 2]]; dist[3] = d[conn[base + 3]]
     if (polygon(sc, acc, 0, coords, values, 6, conn, rows, base, cases, frame) < 3) continue
-    // the record notes the element only (its block is filled later if needed: fillPending), and
-    // the whole section is integrated as without it
-    if (rec) recordElement(rec, bi, list[i], false)
+    // the record notes the element only (its block is filled later if needed: fillPending) with
+    // its corners sorted for labelRegions while they are at hand, and the whole section is
+    // integrated as without it
+    if (rec) record(rec, bi, list[i], conn[base], conn[base + 1], conn[base + 2], conn[base + 3], dist[0], dist[1], dist[2], dist[3])
     integrate(acc, 0, sc, frame, 6)
     if (collect) {
       // the drawn polygon needs its vertices' ξ: the linear path has the edge parameters only

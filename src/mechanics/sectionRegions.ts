@@ -50,11 +50,25 @@ export interface CutRecord {
    * blocks are filled (`fillPending` in sectionCut.ts) only for several regions or a limit.
    */
   pending: Uint8Array
+  /**
+   * Tetrahedra recorded by `recordTet` (the cut of linear tetrahedra, while their connectivity
+   * rows are in cache): their four corner nodes ascending in `corners[4i ..]` and `tetCode[i]`,
+   * bit k set when sorted corner k lies on the - side (d < 0), bit 4 + k when on the plane
+   * (d == 0). NO_CORNERS where not recorded: labelRegions then reads the connectivity.
+   */
+  corners: Int32Array
+  tetCode: Uint8Array
 }
+
+/** tetCode of an entry whose corners were not recorded (no tetrahedron has this code: a corner is below or on the plane, not both). */
+export const NO_CORNERS = 255
 
 export function createCutRecord(): CutRecord {
   const e = 256
-  return { n: 0, block: new Int32Array(e), local: new Int32Array(e), acc: new Float64Array(e * ACC_SIZE), geoRec: new Int32Array(e), pending: new Uint8Array(e) }
+  return {
+    n: 0, block: new Int32Array(e), local: new Int32Array(e), acc: new Float64Array(e * ACC_SIZE), geoRec: new Int32Array(e), pending: new Uint8Array(e),
+    corners: new Int32Array(4 * e), tetCode: new Uint8Array(e),
+  }
 }
 
 /**
@@ -71,9 +85,13 @@ export function recordElement(r: CutRecord, block: number, local: number, withBl
     const pending = new Uint8Array(cap)
     pending.set(r.pending)
     r.pending = pending
+    r.corners = growInt(r.corners, 4 * cap)
+    const code = new Uint8Array(cap)
+    code.set(r.tetCode)
+    r.tetCode = code
   }
   const i = r.n++
-  r.block[i] = block; r.local[i] = local
+  r.block[i] = block; r.local[i] = local; r.tetCode[i] = NO_CORNERS
   if (!withBlock) { r.pending[i] = 1; return i * ACC_SIZE }
   r.pending[i] = 0
   const off = i * ACC_SIZE, acc = r.acc
@@ -81,6 +99,54 @@ export function recordElement(r: CutRecord, block: number, local: number, withBl
   for (let k = off, end = off + ACC_SIZE; k < end; k++) acc[k] = 0
   return off
 }
+
+/**
+ * Opens a pending record of a tetrahedron (corners a, b, c, e with snapped distances da .. de)
+ * with its corners sorted and their sides (tetCode): labelling then never reads the
+ * connectivity again. The same as recordElement(r, block, local, false) otherwise.
+ */
+export function recordTet(
+  r: CutRecord, block: number, local: number, a: number, b: number, c: number, e: number, da: number, db: number, dc: number, de: number,
+): void {
+  recordElement(r, block, local, false)
+  const i = r.n - 1
+  r.tetCode[i] = sortTet(r.corners, 4 * i, a, b, c, e, da, db, dc, de)
+}
+
+/**
+ * Writes the corners a, b, c, e ascending to out[o .. o + 3] and returns their code: bit k when
+ * sorted corner k has d < 0, bit 4 + k when d == 0 (five compares, each corner's sides moving
+ * with it).
+ */
+function sortTet(out: Int32Array, o: number, a: number, b: number, c: number, e: number, da: number, db: number, dc: number, de: number): number {
+  let sa = (da < 0 ? 1 : 0) | (da === 0 ? 16 : 0), sb = (db < 0 ? 1 : 0) | (db === 0 ? 16 : 0)
+  let sc = (dc < 0 ? 1 : 0) | (dc === 0 ? 16 : 0), se = (de < 0 ? 1 : 0) | (de === 0 ? 16 : 0), x
+  if (a > b) { x = a; a = b; b = x; x = sa; sa = sb; sb = x }
+  if (c > e) { x = c; c = e; e = x; x = sc; sc = se; se = x }
+  if (a > c) { x = a; a = c; c = x; x = sa; sa = sc; sc = x }
+  if (b > e) { x = b; b = e; e = x; x = sb; sb = se; se = x }
+  if (b > c) { x = b; b = c; c = x; x = sb; sb = sc; sc = x }
+  out[o] = a; out[o + 1] = b; out[o + 2] = c; out[o + 3] = e
+  return sa | (sb << 1) | (sc << 2) | (se << 3)
+}
+
+/**
+ * Per code of the corners below (bits 0-3 of tetCode): bit k set when face k of the sorted
+ * corners (the other three) is crossed, i.e. its corners lie on both sides.
+ */
+const TET_CROSSED = (() => {
+  const t = new Uint8Array(16)
+  for (let below = 0; below < 16; below++) {
+    for (let k = 0; k < 4; k++) {
+      const m = 15 & ~(1 << k), hit = below & m
+      if (hit !== 0 && hit !== m) t[below] |= 1 << k
+    }
+  }
+  return t
+})()
+
+/** Face k of a tetrahedron's sorted corners: the other three, ascending. */
+const TET_FACE = new Int32Array([1, 2, 3, 0, 2, 3, 0, 1, 3, 0, 1, 2])
 
 /** Notes that quadrature-geometry element j belongs to the last recorded element. */
 export function recordGeometry(r: CutRecord, j: number): void {
@@ -158,21 +224,32 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
   // twin are a thin front of the cut and the table stays small enough to live in the cache (a
   // table of every crossed face, or one indexed by node, is mostly cache misses). Beside the key
   // each face keeps 8·s + f (cut element s, its corner face f): its owner and the order it was met.
+  // the table in locals (meet never grows it: room is made before each element, for its faces)
   const t = faceTable()
-  t.live = 0
+  let keys = t.keys, mask = t.mask, shift = t.shift, live = 0
   // The hot loop: records come in block order, so each block's tables are read once per run;
-  // corners sorted in locals (no scratch array); the part read straight from the block.
+  // the part read straight from the block. Tetrahedra recorded by the cut come with their
+  // corners sorted and their sides (recordTet): no connectivity row or distance is read again.
   let lastBlock = -1, conn = mesh.blocks[0].conn, cf = ELEMENT_TYPES[mesh.blocks[0].type].cornerFaces, nn = 0, nf = 0, cc = 0
   let part: Int32Array | null = null, masks = faceMasks(cf), tet = false
+  const blockOf = r.block, localOf = r.local
   for (let s = 0; s < n; s++) {
     const i = sel[s]
-    const bi = r.block[i]
+    const bi = blockOf[i]
+    if (live + MAX_FACES > t.room) { growFaceTable(t, live); keys = t.keys; mask = t.mask; shift = t.shift }
     if (bi !== lastBlock) {
       const block = mesh.blocks[bi], topo = ELEMENT_TYPES[block.type]
       conn = block.conn; cf = topo.cornerFaces; nn = topo.nodeCount; nf = cf.length >> 2; part = block.part; lastBlock = bi
       cc = topo.cornerCount; masks = faceMasks(cf); tet = isTetrahedron(topo)
     }
-    const local = r.local[i], base = nn * local
+    const local = localOf[i], base = nn * local
+    if (tet) {
+      // the run of tetrahedra of this block at once, in a loop of their own
+      runLive = live
+      s = labelTets(s, n, bi, sel, r, part, conn, nn, d, t, parent, partOf) - 1
+      live = runLive; keys = t.keys; mask = t.mask; shift = t.shift
+      continue
+    }
     const ps = part ? part[local] : 0
     partOf[s] = ps
     // corners on the plane (d == 0 exactly: snapped): two or more, and the polygon may share an
@@ -181,24 +258,6 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
     let onPlane = 0
     for (let k = 0; k < cc; k++) if (d[conn[base + k]] === 0) onPlane |= 1 << k
     if (onPlane & (onPlane - 1)) meetInPlaneEdges(ELEMENT_TYPES[mesh.blocks[bi].type].edges, onPlane, conn, base, s, ps, parent)
-    if (tet) {
-      // a tetrahedron: its corners sorted once (five compares, each with its side), then face k
-      // is the other three (sorted corner k left out), already in order. Its code is 8·s + k.
-      let a = conn[base], b = conn[base + 1], c = conn[base + 2], e = conn[base + 3], x
-      let sa = d[a] < 0 ? 1 : 0, sb = d[b] < 0 ? 1 : 0, sc = d[c] < 0 ? 1 : 0, se = d[e] < 0 ? 1 : 0
-      if (a > b) { x = a; a = b; b = x; x = sa; sa = sb; sb = x }
-      if (c > e) { x = c; c = e; e = x; x = sc; sc = se; se = x }
-      if (a > c) { x = a; a = c; c = x; x = sa; sa = sc; sc = x }
-      if (b > e) { x = b; b = e; e = x; x = sb; sb = se; se = x }
-      if (b > c) { x = b; b = c; c = x; x = sb; sb = sc; sc = x }
-      // face k leaves corner k out; crossed unless its three corners lie on one side
-      const s0 = sb + sc + se, s1 = sa + sc + se, s2 = sa + sb + se, s3 = sa + sb + sc
-      if (s0 !== 0 && s0 !== 3) meet(t, b, c, e, 8 * s, s, ps, parent, partOf)
-      if (s1 !== 0 && s1 !== 3) meet(t, a, c, e, 8 * s + 1, s, ps, parent, partOf)
-      if (s2 !== 0 && s2 !== 3) meet(t, a, b, e, 8 * s + 2, s, ps, parent, partOf)
-      if (s3 !== 0 && s3 !== 3) meet(t, a, b, c, 8 * s + 3, s, ps, parent, partOf)
-      continue
-    }
     // which corners lie on the - side, read once per element (bit k: corner k)
     let below = 0
     for (let k = 0; k < cc; k++) if (d[conn[base + k]] < 0) below |= 1 << k
@@ -221,13 +280,15 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
         if (c1 > c3) { x = c1; c1 = c3; c3 = x }
         if (c1 > c2) { x = c1; c1 = c2; c2 = x }
       }
-      meet(t, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
+      live += meet(keys, mask, shift, c0, c1, c2, 8 * s + f, s, ps, parent, partOf)
     }
   }
   clearEdgeTable()
-  const live = t.live
   // faces left unmatched by node numbers: the section's outline, or faces whose nodes only coincide
-  if (live > 1) matchCoincident(openFaces(table!, live, sel, r, mesh), mesh.coords, parent, partOf)
+  if (live > 1) {
+    openFaces(table!, live, sel, r, mesh)
+    matchCoincident(live, mesh.coords, parent, partOf)
+  }
   else if (live === 1) clearFaceTable(table!)
   // a tree's root is its first element, so it is labelled before the rest of its tree
   let count = 0
@@ -238,12 +299,58 @@ export function labelRegions(label: Int32Array, sel: Int32Array, n: number, r: C
   return count
 }
 
+/** The face table's live count across labelTets (its second result). */
+let runLive = 0
+
+/**
+ * labelRegions over the run of tetrahedra from sel[s0] on while they lie in block bi (part
+ * numbers `part`, connectivity `conn` of nn nodes per element); returns where the run ends,
+ * the table's live count in runLive. A tetrahedron's corners come sorted from the record
+ * (recordTet) or are sorted here once; face k is the other three (sorted corner k left out),
+ * already in order, its code 8·s + k.
+ */
+function labelTets(
+  s0: number, n: number, bi: number, sel: Int32Array, r: CutRecord, part: Int32Array | null, conn: Int32Array, nn: number, d: Float64Array,
+  t: FaceTable, parent: Int32Array, partOf: Int32Array,
+): number {
+  const blockOf = r.block, localOf = r.local, tetCode = r.tetCode, corners = r.corners
+  // the table fixed for the run (its locals stay in registers): the run stops where it is full
+  // enough to grow, and labelRegions grows it and starts the rest of the run
+  const keys = t.keys, mask = t.mask, shift = t.shift, room = t.room - MAX_FACES
+  let live = runLive, s = s0
+  for (; s < n; s++) {
+    const i = sel[s]
+    if (blockOf[i] !== bi || live > room) break
+    const local = localOf[i]
+    const ps = part ? part[local] : 0
+    partOf[s] = ps
+    let code = tetCode[i], o = 4 * i, cs = corners
+    if (code === NO_CORNERS) {
+      const base = nn * local
+      code = sortTet(tetScratch, 0, conn[base], conn[base + 1], conn[base + 2], conn[base + 3], d[conn[base]], d[conn[base + 1]], d[conn[base + 2]], d[conn[base + 3]])
+      cs = tetScratch; o = 0
+    }
+    // two or more corners on the plane: every pair is an edge of the tetrahedron (see labelRegions)
+    const zero = code >> 4
+    if (zero & (zero - 1)) meetTetEdges(zero, cs[o], cs[o + 1], cs[o + 2], cs[o + 3], s, ps, parent)
+    // the crossed faces in order, lowest bit first (one loop, not four guesses of a branch)
+    for (let x = TET_CROSSED[code & 15]; x !== 0; x &= x - 1) {
+      const k = 31 - Math.clz32(x & -x), f = 3 * k
+      live += meet(keys, mask, shift, cs[o + TET_FACE[f]], cs[o + TET_FACE[f + 1]], cs[o + TET_FACE[f + 2]], 8 * s + k, s, ps, parent, partOf)
+    }
+  }
+  runLive = live
+  return s
+}
+
 /** Four corners and four triangular faces (tet4, tet10): labelRegions sorts the corners once. */
 function isTetrahedron(topo: { cornerCount: number; cornerFaces: Int32Array }): boolean {
   return topo.cornerCount === 4 && topo.cornerFaces.length === 16
 }
 
 let parentScratch = new Int32Array(0), partScratch = new Int32Array(0)
+/** Sorted corners of a tetrahedron whose record has none (tetCode NO_CORNERS). */
+const tetScratch = new Int32Array(4)
 
 /** The root of i in a union-find forest (path halving). */
 function find(parent: Int32Array, i: number): number {
@@ -272,52 +379,68 @@ function faceMasks(cf: ArrayLike<number>): Int32Array {
 /**
  * The crossed-face table of labelRegions (grows only, reused across cuts): per slot a face's
  * three smallest corners and 8·s + f, k0 = -1 on a free slot (linear probing, removal by
- * backward shift, so no tombstones). `live` faces in it, at most `room` (half the slots).
+ * backward shift, so no tombstones). A face's home slot is the top bits of its hash
+ * (faceSlot): node numbers of a structured mesh differ in regular steps, and the low bits of
+ * their products repeat, which made long probe runs. At most `room` faces (half the slots);
+ * 16384 slots (256 KB) keep the front of a 10^6-element cut (some 650 faces) at a
+ * load of 4 %, where most probes and removals end at the first slot.
  */
-interface FaceTable { keys: Int32Array; mask: number; room: number; live: number }
+interface FaceTable { keys: Int32Array; mask: number; shift: number; room: number }
 let table: FaceTable | null = null
 
 function newFaceTable(slots: number): FaceTable {
-  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, room: slots >> 1, live: 0 }
+  return { keys: new Int32Array(4 * slots).fill(-1), mask: slots - 1, shift: 32 - Math.log2(slots), room: slots >> 1 }
 }
 
 function faceTable(): FaceTable {
-  if (!table) table = newFaceTable(4096)
+  if (!table) table = newFaceTable(16384)
   return table
 }
 
-/** Twice the slots, the faces moved over (in place: `t` stays the table). */
-function growFaceTable(t: FaceTable): void {
-  const old = t.keys, keys = new Int32Array(2 * old.length).fill(-1), mask = 2 * t.mask + 1
-  for (let o = 0; o < old.length; o += 4) {
+/** Twice the slots, the `live` faces moved over (in place: `t` stays the table). */
+function growFaceTable(t: FaceTable, live: number): void {
+  const old = t.keys, keys = new Int32Array(2 * old.length).fill(-1), mask = 2 * t.mask + 1, shift = t.shift - 1
+  for (let o = 0, moved = 0; o < old.length && moved < live; o += 4) {
     if (old[o] < 0) continue
-    let h = faceHash(old[o], old[o + 1], old[o + 2]) & mask
+    let h = faceSlot(old[o], old[o + 1], old[o + 2], shift)
     while (keys[h << 2] >= 0) h = (h + 1) & mask
     for (let k = 0; k < 4; k++) keys[(h << 2) + k] = old[o + k]
+    moved++
   }
-  t.keys = keys; t.mask = mask; t.room = (mask + 1) >> 1
+  t.keys = keys; t.mask = mask; t.shift = shift; t.room = (mask + 1) >> 1
 }
+
+/** The most faces one element has (a hexahedron): room for them is made before each element. */
+const MAX_FACES = 6
 
 /**
  * Cut element s (part ps) meets its crossed face (c0 < c1 < c2 its three smallest corners, code
- * 8·s + face): the twin found joins the two elements when they are of one part and leaves the
- * table; else the face goes in.
+ * 8·s + face) in the face table (`keys`, `mask`, `shift` of FaceTable): the twin found joins the
+ * two elements when they are of one part and leaves the table (returns -1); else the face goes
+ * in (returns 1).
  */
-function meet(t: FaceTable, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): void {
-  const keys = t.keys, mask = t.mask
-  for (let h = faceHash(c0, c1, c2) & mask; ; h = (h + 1) & mask) {
+function meet(keys: Int32Array, mask: number, shift: number, c0: number, c1: number, c2: number, code: number, s: number, ps: number, parent: Int32Array, partOf: Int32Array): number {
+  // faceSlot written out: called here, it was not inlined, and the call cost a third of the loop
+  for (let h = ((Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d)) | 0) >>> shift; ; h = (h + 1) & mask) {
     const o = h << 2, k0 = keys[o]
     if (k0 < 0) {
       keys[o] = c0; keys[o + 1] = c1; keys[o + 2] = c2; keys[o + 3] = code
-      if (++t.live > t.room) growFaceTable(t)
-      return
+      return 1
     }
     if (k0 === c0 && keys[o + 1] === c1 && keys[o + 2] === c2) {
       const other = keys[o + 3] >> 3
-      if (partOf[other] === ps) union(parent, other, s)
-      removeFace(t, h)
-      t.live--
-      return
+      if (partOf[other] === ps) {
+        // union(parent, other, s) written out (not inlined when called)
+        let a = other, b = s
+        while (parent[a] !== a) { parent[a] = parent[parent[a]]; a = parent[a] }
+        while (parent[b] !== b) { parent[b] = parent[parent[b]]; b = parent[b] }
+        if (a < b) parent[b] = a
+        else if (b < a) parent[a] = b
+      }
+      // the next slot free (the common case): nothing to move back
+      if (keys[((h + 1) & mask) << 2] < 0) keys[o] = -1
+      else removeFace(keys, mask, shift, h)
+      return -1
     }
   }
 }
@@ -328,14 +451,18 @@ function faceHash(a: number, b: number, c: number): number {
   return h ^ (h >>> 15)
 }
 
+/** The home slot of a face in a table of 2^(32 - shift) slots: the top bits of the multiplicative hash (also written out in meet). */
+function faceSlot(a: number, b: number, c: number, shift: number): number {
+  return ((Math.imul(a, 0x9e3779b1) + Math.imul(b, 0x85ebca77) + Math.imul(c, 0xc2b2ae3d)) | 0) >>> shift
+}
+
 /** Empties slot i: later faces of its probe run move back so every face stays reachable from its hash. */
-function removeFace(t: FaceTable, i: number): void {
-  const keys = t.keys, mask = t.mask
+function removeFace(keys: Int32Array, mask: number, shift: number, i: number): void {
   for (let j = (i + 1) & mask; ; j = (j + 1) & mask) {
     const oj = j << 2
     if (keys[oj] < 0) break
     // the face at j may fill i unless its home slot lies cyclically in (i, j]
-    const home = faceHash(keys[oj], keys[oj + 1], keys[oj + 2]) & mask
+    const home = faceSlot(keys[oj], keys[oj + 1], keys[oj + 2], shift)
     if (((j - home) & mask) < ((j - i) & mask)) continue
     const oi = i << 2
     keys[oi] = keys[oj]; keys[oi + 1] = keys[oj + 1]; keys[oi + 2] = keys[oj + 2]; keys[oi + 3] = keys[oj + 3]
@@ -359,18 +486,33 @@ let edgeKeys = new Int32Array(4 * 256).fill(-1), edgeMask = 255, edgeUsed = new 
 function meetInPlaneEdges(edges: readonly (readonly [number, number, number])[], onPlane: number, conn: Int32Array, base: number, s: number, ps: number, parent: Int32Array): void {
   for (const [a, b] of edges) {
     if (((onPlane >> a) & 1) === 0 || ((onPlane >> b) & 1) === 0) continue
-    let u = conn[base + a], v = conn[base + b]
-    if (u > v) { const x = u; u = v; v = x }
-    if (2 * (edgeLive + 1) > edgeMask + 1) growEdgeTable()
-    for (let h = faceHash(u, v, ps) & edgeMask; ; h = (h + 1) & edgeMask) {
-      const o = h << 2
-      if (edgeKeys[o] < 0) {
-        edgeKeys[o] = u; edgeKeys[o + 1] = v; edgeKeys[o + 2] = ps; edgeKeys[o + 3] = s
-        edgeUsed[edgeLive++] = h
-        break
-      }
-      if (edgeKeys[o] === u && edgeKeys[o + 1] === v && edgeKeys[o + 2] === ps) { union(parent, edgeKeys[o + 3], s); break }
+    const u = conn[base + a], v = conn[base + b]
+    meetEdge(u < v ? u : v, u < v ? v : u, s, ps, parent)
+  }
+}
+
+/** meetInPlaneEdges for a tetrahedron (every corner pair is an edge): sorted corners a < b < c < e, bit k of `zero` when corner k is on the plane. */
+function meetTetEdges(zero: number, a: number, b: number, c: number, e: number, s: number, ps: number, parent: Int32Array): void {
+  const z0 = zero & 1, z1 = zero & 2, z2 = zero & 4, z3 = zero & 8
+  if (z0 && z1) meetEdge(a, b, s, ps, parent)
+  if (z0 && z2) meetEdge(a, c, s, ps, parent)
+  if (z0 && z3) meetEdge(a, e, s, ps, parent)
+  if (z1 && z2) meetEdge(b, c, s, ps, parent)
+  if (z1 && z3) meetEdge(b, e, s, ps, parent)
+  if (z2 && z3) meetEdge(c, e, s, ps, parent)
+}
+
+/** Cut element s (part ps) has the in-plane edge u < v: it joins the first element of its part met with that edge, or is that element. */
+function meetEdge(u: number, v: number, s: number, ps: number, parent: Int32Array): void {
+  if (2 * (edgeLive + 1) > edgeMask + 1) growEdgeTable()
+  for (let h = faceHash(u, v, ps) & edgeMask; ; h = (h + 1) & edgeMask) {
+    const o = h << 2
+    if (edgeKeys[o] < 0) {
+      edgeKeys[o] = u; edgeKeys[o + 1] = v; edgeKeys[o + 2] = ps; edgeKeys[o + 3] = s
+      edgeUsed[edgeLive++] = h
+      return
     }
+    if (edgeKeys[o] === u && edgeKeys[o + 1] === v && edgeKeys[o + 2] === ps) { union(parent, edgeKeys[o + 3], s); return }
   }
 }
 
@@ -392,50 +534,72 @@ function clearEdgeTable(): void {
   edgeLive = 0
 }
 
-/** An open face: its owner (cut element s) and its corner node numbers, ascending. */
-interface OpenFace { owner: number; nodes: number[] }
+/**
+ * The open faces of labelRegions (grows only): face j is owned by cut element `openOwner[j]`, its
+ * `openSize[j]` corner nodes ascending in `openNodes[4j ..]`.
+ */
+let openOwner = new Int32Array(256), openNodes = new Int32Array(4 * 256), openSize = new Uint8Array(256)
 
-/** The `live` faces left in the table, in the order they were met; empties the table. */
-function openFaces(t: FaceTable, live: number, sel: Int32Array, r: CutRecord, mesh: Mesh): OpenFace[] {
-  const keys = t.keys, codes: number[] = []
-  for (let o = 0; o < keys.length && codes.length < live; o += 4) {
+/**
+ * Writes the `live` faces left in the table to the open faces, in the order they were met;
+ * empties the table. Typed arrays and no comparator: at 10^6 tet4 the section's outline is some
+ * hundreds of faces, met on every cut.
+ */
+function openFaces(t: FaceTable, live: number, sel: Int32Array, r: CutRecord, mesh: Mesh): void {
+  const keys = t.keys
+  if (openOwner.length < live) { openOwner = new Int32Array(2 * live); openNodes = new Int32Array(8 * live); openSize = new Uint8Array(2 * live) }
+  const codes = openOwner
+  let n = 0
+  for (let o = 0; o < keys.length && n < live; o += 4) {
     if (keys[o] < 0) continue
-    codes.push(keys[o + 3])
+    codes[n++] = keys[o + 3]
     keys[o] = -1
   }
-  codes.sort((a, b) => a - b)
-  return codes.map((code) => {
-    const owner = code >> 3, f = code & 7, i = sel[owner], block = mesh.blocks[r.block[i]], topo = ELEMENT_TYPES[block.type]
-    const base = topo.nodeCount * r.local[i], cf = topo.cornerFaces
-    const nodes: number[] = []
+  codes.subarray(0, n).sort()
+  const nodes = openNodes
+  for (let j = 0; j < n; j++) {
+    const code = codes[j], owner = code >> 3, f = code & 7, i = sel[owner], block = mesh.blocks[r.block[i]], topo = ELEMENT_TYPES[block.type]
+    const base = topo.nodeCount * r.local[i], cf = topo.cornerFaces, conn = block.conn, o = 4 * j
+    codes[j] = owner
     if (isTetrahedron(topo)) {
       // face f of the sorted corners leaves the f-th out (labelRegions)
-      for (let k = 0; k < 4; k++) nodes.push(block.conn[base + k])
-      nodes.sort((a, b) => a - b).splice(f, 1)
-      return { owner, nodes }
+      let cs = r.corners, c0 = 4 * i
+      if (r.tetCode[i] === NO_CORNERS) { sortTet(tetScratch, 0, conn[base], conn[base + 1], conn[base + 2], conn[base + 3], 0, 0, 0, 0); cs = tetScratch; c0 = 0 }
+      for (let k = 0, m = 0; k < 4; k++) if (k !== f) nodes[o + m++] = cs[c0 + k]
+      openSize[j] = 3
+      continue
     }
-    for (let k = 0; k < 4; k++) if (cf[4 * f + k] >= 0) nodes.push(block.conn[base + cf[4 * f + k]])
-    return { owner, nodes: nodes.sort((a, b) => a - b) }
-  })
+    let m = 0
+    for (let k = 0; k < 4; k++) {
+      if (cf[4 * f + k] < 0) continue
+      // insertion into the ascending corners so far
+      const v = conn[base + cf[4 * f + k]]
+      let p = m++
+      while (p > 0 && nodes[o + p - 1] > v) { nodes[o + p] = nodes[o + p - 1]; p-- }
+      nodes[o + p] = v
+    }
+    openSize[j] = m
+  }
 }
 
 /**
- * Joins the owners (of one part) of open faces whose corners coincide within COINCIDENT_TOL
- * times their size: candidates from a sweep of the centroids (coincidentSweep.ts), then the
- * centroids within the tolerance, then every corner.
+ * Joins the owners (of one part) of the F open faces whose corners coincide within
+ * COINCIDENT_TOL times their size: candidates from a sweep of the centroids
+ * (coincidentSweep.ts), then the centroids within the tolerance, then every corner.
  */
-function matchCoincident(open: OpenFace[], coords: Float64Array, parent: Int32Array, partOf: Int32Array): void {
-  const F = open.length
-  const c = new Float64Array(3 * F), tol = new Float64Array(F)
+function matchCoincident(F: number, coords: Float64Array, parent: Int32Array, partOf: Int32Array): void {
+  const owner = openOwner, nodes = openNodes, size = openSize
+  if (centroidScratch.length < 3 * F) { centroidScratch = new Float64Array(6 * F); tolScratch = new Float64Array(2 * F) }
+  const c = centroidScratch, tol = tolScratch
   let cell = 0
   for (let i = 0; i < F; i++) {
-    const nodes = open[i].nodes, nc = nodes.length
+    const o = 4 * i, nc = size[i]
     let x = 0, y = 0, z = 0
-    for (const v of nodes) { x += coords[3 * v] / nc; y += coords[3 * v + 1] / nc; z += coords[3 * v + 2] / nc }
-    let size = 0
-    for (const v of nodes) size = Math.max(size, Math.hypot(coords[3 * v] - x, coords[3 * v + 1] - y, coords[3 * v + 2] - z))
+    for (let k = 0; k < nc; k++) { const v = nodes[o + k]; x += coords[3 * v] / nc; y += coords[3 * v + 1] / nc; z += coords[3 * v + 2] / nc }
+    let h = 0
+    for (let k = 0; k < nc; k++) { const v = nodes[o + k]; h = Math.max(h, Math.hypot(coords[3 * v] - x, coords[3 * v + 1] - y, coords[3 * v + 2] - z)) }
     c[3 * i] = x; c[3 * i + 1] = y; c[3 * i + 2] = z
-    tol[i] = COINCIDENT_TOL * size
+    tol[i] = COINCIDENT_TOL * h
     cell = Math.max(cell, tol[i])
   }
   if (!(cell > 0)) return
@@ -446,14 +610,15 @@ function matchCoincident(open: OpenFace[], coords: Float64Array, parent: Int32Ar
       // each pair once, the earlier face first (the corner test reads the first face's corners)
       const j = near.list[k]
       if (j <= i) continue
-      const f = open[i], g = open[j]
-      if (g.nodes.length !== f.nodes.length || f.owner === g.owner || partOf[f.owner] !== partOf[g.owner]) continue
+      if (size[j] !== size[i] || owner[i] === owner[j] || partOf[owner[i]] !== partOf[owner[j]]) continue
       const t = Math.min(tol[i], tol[j])
       if (Math.hypot(c[3 * i] - c[3 * j], c[3 * i + 1] - c[3 * j + 1], c[3 * i + 2] - c[3 * j + 2]) > t) continue
-      if (cornersCoincide(coords, f.nodes, g.nodes, t)) union(parent, f.owner, g.owner)
+      if (cornersCoincide(coords, Array.from(nodes.subarray(4 * i, 4 * i + size[i])), Array.from(nodes.subarray(4 * j, 4 * j + size[j])), t)) union(parent, owner[i], owner[j])
     }
   }
 }
+
+let centroidScratch = new Float64Array(0), tolScratch = new Float64Array(0)
 
 /** Every corner of face a lies within tol of some corner of face b (node numbers into coords). */
 export function cornersCoincide(coords: Float64Array, a: number[], b: number[], tol: number): boolean {
