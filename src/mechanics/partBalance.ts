@@ -2,35 +2,38 @@
  * Parts of an assembly: each part's own free body and the interfaces between parts.
  *
  * A part is the set of elements with one part number. Its boundary faces are those of the
- * sub-mesh of its elements (boundaryFaces.ts), so they include the faces it shares with other
- * parts. Its balance is that of computeBodyBalance over those faces with its own ρb: the residual
- * of ∮ t dA + ∫ ρb dV, moment about the part's volume centroid.
+ * sub-mesh of its elements, so they include the faces it shares with other parts; every part's
+ * are built at once from the whole body's boundary faces and the faces between parts
+ * (partFaces.ts), not by one extraction per part. Its balance is that of computeBodyBalance over
+ * those faces with its own ρb: the residual of ∮ t dA + ∫ ρb dV, moment about the part's volume
+ * centroid.
  *
  * Interfaces: a face of part b's boundary is an interface with part a when part a's boundary has
- * the same face: the same corner nodes (shared nodes), or corners that coincide within
- * INTERFACE_TOL times the face size (parts meshed apart on matching grids; a hash of the face
- * centroid quantised at that tolerance, neighbouring cells checked, then every corner). For a
- * pair a < b: `force` = F_ab, what a exerts on b = ∫ t dA over b's faces (b's outward normal,
+ * the same face: the same corner nodes (shared nodes: the faces between parts), or corners that
+ * coincide within INTERFACE_TOL times the face size (parts meshed apart on matching grids: both
+ * are faces of the whole body's boundary, paired by interfaceFaces.ts). For a pair a < b: `force` = F_ab, what a exerts on b = ∫ t dA over b's faces (b's outward normal,
  * b's stress); `moment` about the interface centroid; `mismatch` = |F_ab + F_ba| / (∫|t| dA,
  * the mean of both sides): zero for nodal stress with shared nodes (Newton's third law holds by
  * construction), a quality figure for element-nodal stress.
  *
  * Units: model units; forces stress·length², moments stress·length³. Not a per-drag kernel:
- * it runs once per load (O(elements), one boundary pass per part).
+ * it runs once per load (O(elements): a pass for the part of each element, one for the nodes
+ * between parts, one for the volumes; the faces and tractions of the whole body come from the
+ * load where it has them).
  */
 import type { ElementBlock, Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
-import { computeBodyBalance } from './balanceAudit.ts'
+import { elementVolumesAndCentroids } from './elementVolume.ts'
 import { faceCornerCount } from './freeBody.ts'
+import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
-import { cornersCoincide } from './sectionRegions.ts'
-import { nearPoints } from './coincidentSweep.ts'
+import { coincidentFacePairs } from './interfaceFaces.ts'
+import { facesBetweenParts } from './partFaces.ts'
 
-/** Relative tolerance for corners of two parts' faces to coincide (fraction of the face size). */
-export const INTERFACE_TOL = 1e-6
+export { INTERFACE_TOL } from './interfaceFaces.ts'
 
 export interface PartRecord {
   readonly part: number
@@ -72,7 +75,11 @@ export function partNumbers(mesh: Mesh): number[] {
   const s = new Set<number>()
   for (const b of mesh.blocks) {
     if (!b.part) s.add(0)
-    else for (let e = 0; e < b.part.length; e++) s.add(b.part[e])
+    else {
+      // runs of one part are the rule: a Set lookup only where the part changes
+      let last = NaN
+      for (let e = 0; e < b.part.length; e++) { const p = b.part[e]; if (p !== last) { s.add(p); last = p } }
+    }
   }
   return [...s].sort((a, b) => a - b)
 }
@@ -118,76 +125,192 @@ export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly num
   return { mesh: sub, field: { values: field.values, rows, layout: field.layout } }
 }
 
-/**
- * Parts and interfaces of an assembly. `bodyForce(part)` gives each part's ρb (a part's own or
- * the model's); `names` the part names (empty when none).
- */
-export function assemblyBalance(
-  mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(),
-): AssemblyBalance {
-  const numbers = partNumbers(mesh)
-  const each = numbers.map((p) => {
-    const sub = partSubmesh(mesh, field, p)
-    const faces = extractBoundaryFaces(sub.mesh)
-    const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), sub.mesh, sub.field, faces)
-    const balance = computeBodyBalance(sub.mesh, faces, tractions, bodyForce(p))
-    return { part: p, faces, tractions, record: { part: p, name: names.get(p) ?? '', elements: sub.mesh.elementCount, volume: balance.volume, balance } }
-  })
-  return { parts: each.map((e) => e.record), ...matchInterfaces(mesh.coords, each) }
+/** What a load already computed on the whole body (the analysis pipeline): reused, not recomputed. */
+export interface BodyFaces {
+  /** The whole body's boundary faces (extractBoundaryFaces). */
+  readonly faces: BoundaryFaces
+  /** Their tractions from the same stress field as the assembly's (computeSurfaceTractions). */
+  readonly tractions: SurfaceTractions
+  /**
+   * Per face, nonzero on a face against a part meshed apart (coincidentInterfaceFaces; the load
+   * patches' label -2): those faces are then paired among themselves only. Without it every
+   * boundary face is searched.
+   */
+  readonly against?: ArrayLike<number> | null
 }
 
-interface PartFaces { part: number; faces: BoundaryFaces; tractions: SurfaceTractions }
+/**
+ * Every part's boundary at once. Part k's boundary faces are the whole body's boundary faces of
+ * its elements (`outer`) and the sides of the faces it shares with other parts (`inner`,
+ * partFaces.ts), in (element, local face) order: the faces, in the order, that extracting the
+ * boundary of its own sub-mesh gives. Sides are numbered outer first: side s < outer.count is
+ * outer face s, else inner face s - outer.count.
+ */
+export interface PartBoundaries {
+  /** Part numbers, ascending; `rank` gives each element's index in it (global element order). */
+  readonly numbers: readonly number[]
+  readonly rank: Int32Array
+  readonly outer: BoundaryFaces
+  readonly outerTractions: SurfaceTractions
+  /** Each outer face's twin on a part meshed apart (-1 for none), null with one part. */
+  readonly outerTwin: Int32Array | null
+  readonly inner: BoundaryFaces
+  readonly innerTractions: SurfaceTractions
+  /** Each inner face's other side. */
+  readonly innerTwin: Int32Array
+}
 
-/** Pairs boundary faces of different parts by shared corner nodes or coinciding corners; sums per pair. */
-function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
-  // every boundary face: owner part index, face index; keyed by its sorted corners, else geometric
-  const pairs: [number, number, number, number][] = [] // [pa, fa, pb, fb]
-  const open = matchByNodes(parts, pairs)
-  // geometric: faces whose corners coincide within INTERFACE_TOL × size; candidates from a sweep
-  // of their centroids (coincidentSweep.ts)
-  if (open.length > 1) {
-    const size = (pf: [number, number]) => Math.sqrt(parts[pf[0]].faces.area[pf[1]])
-    let cell = 0
-    for (const o of open) cell = Math.max(cell, INTERFACE_TOL * size(o))
-    if (cell > 0) {
-      const points = new Float64Array(3 * open.length)
-      open.forEach((o, i) => { for (let k = 0; k < 3; k++) points[3 * i + k] = parts[o[0]].faces.centroid[3 * o[1] + k] })
-      const near = nearPoints(points, open.length, 2 * cell)
-      const used = new Uint8Array(open.length)
-      open.forEach((o, i) => {
-        for (let k = near.start[i]; k < near.start[i + 1] && !used[i]; k++) {
-          const j = near.list[k]
-          if (used[j] || open[j][0] === o[0]) continue
-          const tol = INTERFACE_TOL * Math.min(size(o), size(open[j]))
-          if (Math.hypot(points[3 * i] - points[3 * j], points[3 * i + 1] - points[3 * j + 1], points[3 * i + 2] - points[3 * j + 2]) > tol) continue
-          if (!faceCornersCoincide(coords, parts, o, open[j], tol)) continue
-          used[i] = 1; used[j] = 1
-          pairs.push([o[0], o[1], open[j][0], open[j][1]])
-        }
-      })
+/** Each element's part index in `numbers` (ascending part numbers, partNumbers). */
+function elementRanks(mesh: Mesh, numbers: readonly number[]): Int32Array {
+  const rank = new Int32Array(mesh.elementCount)
+  const index = new Map(numbers.map((p, k) => [p, k]))
+  for (const b of mesh.blocks) {
+    const count = b.ids.length, bp = b.part
+    if (!bp) { rank.fill(index.get(0) ?? 0, b.offset, b.offset + count); continue }
+    // parts are few: remember the last lookup (runs of one part are the rule)
+    let last = NaN, k = 0
+    for (let e = 0; e < count; e++) {
+      const p = bp[e]
+      if (p !== last) { last = p; k = index.get(p) ?? 0 }
+      rank[b.offset + e] = k
     }
   }
+  return rank
+}
+
+/** The boundaries of every part, from the whole body's faces and tractions when a load has them. */
+export function partBoundaries(mesh: Mesh, field: StressField, body?: BodyFaces): PartBoundaries {
+  const numbers = partNumbers(mesh)
+  const rank = elementRanks(mesh, numbers)
+  const outer = body?.faces ?? extractBoundaryFaces(mesh)
+  const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
+  const sides = facesBetweenParts(mesh, rank)
+  const inner = sides.faces
+  const innerTractions = computeSurfaceTractions(allocateSurfaceTractions(inner), mesh, field, inner)
+  const facePart = new Int32Array(outer.count)
+  for (let f = 0; f < outer.count; f++) facePart[f] = rank[outer.elem[f]]
+  const outerTwin = coincidentFacePairs(mesh.coords, outer, facePart, body?.against ?? null)
+  return { numbers, rank, outer, outerTractions, outerTwin, inner, innerTractions, innerTwin: sides.twin }
+}
+
+/**
+ * The sides of `b` in each part's boundary order, merged from outer and inner by (element, local
+ * face): calls `visit(k, side)` with part index k.
+ */
+function forEachSide(b: PartBoundaries, visit: (k: number, side: number) => void): void {
+  const { outer, inner, rank } = b, Fo = outer.count, Fi = inner.count
+  let i = 0, j = 0
+  while (i < Fo || j < Fi) {
+    const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
+    if (takeOuter) { visit(rank[outer.elem[i]], i); i++ } else { visit(rank[inner.elem[j]], Fo + j); j++ }
+  }
+}
+
+/** Part index k's boundary sides (see PartBoundaries), in its boundary order. */
+export function partSides(b: PartBoundaries, k: number): Int32Array {
+  const out: number[] = []
+  forEachSide(b, (p, s) => { if (p === k) out.push(s) })
+  return Int32Array.from(out)
+}
+
+/**
+ * Parts and interfaces of an assembly. `bodyForce(part)` gives each part's ρb (a part's own or
+ * the model's); `names` the part names (empty when none); `body` the whole body's faces and
+ * tractions when a load has them (the engine), else they are computed here (the command line).
+ * Each part's balance is computeBodyBalance's over its own elements and boundary, with the sums
+ * in the same order (balanceAudit.ts).
+ */
+export function assemblyBalance(
+  mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
+): AssemblyBalance {
+  const b = partBoundaries(mesh, field, body)
+  const K = b.numbers.length
+  // volumes and centroids a chunk of elements at a time, summed per part in element order
+  const sums = new Float64Array(4 * K), elements = new Int32Array(K)
+  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
+  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk), rank = b.rank
+  // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
+  let k = 0, V = 0, X = 0, Y = 0, Z = 0, n0 = 0
+  for (const blk of mesh.blocks) {
+    const nn = ELEMENT_TYPES[blk.type].nodeCount
+    const count = blk.conn.length / nn
+    for (let s = 0; s < count; s += chunk) {
+      const n = Math.min(chunk, count - s)
+      const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
+        blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
+      elementVolumesAndCentroids(piece, vol, cen)
+      const g0 = blk.offset + s
+      for (let e = 0; e < n; e++) {
+        const r = rank[g0 + e]
+        if (r !== k) {
+          sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
+          k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
+        }
+        const v = vol[e]
+        n0++
+        V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
+      }
+    }
+  }
+  if (K > 0) { sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0 }
+  // surface sums per part over its sides in its boundary order
+  const surf = new Float64Array(7 * K)
+  const Fo = b.outer.count, oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
+  forEachSide(b, (k, s) => {
+    const F = s < Fo ? oF : iF, M = s < Fo ? oM : iM, f = s < Fo ? s : s - Fo, o = 7 * k
+    const x = F[3 * f], y = F[3 * f + 1], z = F[3 * f + 2]
+    surf[o] += x; surf[o + 1] += y; surf[o + 2] += z
+    surf[o + 3] += M[3 * f]; surf[o + 4] += M[3 * f + 1]; surf[o + 5] += M[3 * f + 2]
+    surf[o + 6] += Math.sqrt(x * x + y * y + z * z)
+  })
+  const parts = b.numbers.map((p, k): PartRecord => {
+    const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
+    // computeBodyBalance's figures (balanceAudit.ts): moment about the volume centroid
+    const c: Vec3 = V !== 0 ? [sums[4 * k + 1] / V, sums[4 * k + 2] / V, sums[4 * k + 3] / V] : [0, 0, 0]
+    const surfaceForce: Vec3 = [surf[o], surf[o + 1], surf[o + 2]]
+    const bodyForceTotal: Vec3 = [w[0] * V, w[1] * V, w[2] * V]
+    const force: Vec3 = [surfaceForce[0] + bodyForceTotal[0], surfaceForce[1] + bodyForceTotal[1], surfaceForce[2] + bodyForceTotal[2]]
+    const moment = momentAbout<Vec3>([0, 0, 0], [surf[o + 3], surf[o + 4], surf[o + 5]], c, surfaceForce)
+    const gross = 0.5 * (surf[o + 6] + Math.hypot(...bodyForceTotal))
+    const balance: BodyBalance = { force, moment, relative: gross > 0 ? Math.hypot(...force) / gross : 0, gross, about: c, volume: V, centroid: c, surfaceForce, bodyForceTotal }
+    return { part: p, name: names.get(p) ?? '', elements: elements[k], volume: V, balance }
+  })
+  return { parts, ...matchInterfaces(mesh.coords, b) }
+}
+
+/** Elements per chunk of the volume sums (2 MB of temporaries), as balanceAudit.ts. */
+const BODY_CHUNK = 1 << 16
+
+/** Sums the pairs of sides (shared nodes, then meshed apart) per pair of parts. */
+function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
+  const { outer, inner, outerTractions: oT, innerTractions: iT, numbers, rank } = b, Fo = outer.count
+  const side = (s: number) => (s < Fo ? { faces: outer, t: oT, f: s } : { faces: inner, t: iT, f: s - Fo })
+  const pairs: number[] = [] // side, side
+  for (let i = 0; i < inner.count; i++) if (i < b.innerTwin[i]) pairs.push(Fo + i, Fo + b.innerTwin[i])
+  if (b.outerTwin) for (let f = 0; f < Fo; f++) if (f < b.outerTwin[f]) pairs.push(f, b.outerTwin[f])
   // sums per pair of parts
   interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
-  const accs = new Map<number, Acc>() // by pa · (part count) + pb (part indices; numbers ascend with them)
-  for (const [p1, f1, p2, f2] of pairs) {
+  const K = numbers.length
+  const accs = new Map<number, Acc>() // by ka · K + kb (part indices; numbers ascend with them)
+  for (let q = 0; q < pairs.length; q += 2) {
+    const s1 = side(pairs[q]), s2 = side(pairs[q + 1])
+    const k1 = rank[s1.faces.elem[s1.f]], k2 = rank[s2.faces.elem[s2.f]]
     // orient: a is the lower part number
-    const [pa, fa, pb, fb] = parts[p1].part < parts[p2].part ? [p1, f1, p2, f2] : [p2, f2, p1, f1]
-    const k = pa * parts.length + pb
-    let acc = accs.get(k)
-    if (!acc) { acc = { a: parts[pa].part, b: parts[pb].part, faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(k, acc) }
-    const B = parts[pb], A = parts[pa]
-    const ar = B.faces.area[fb]
+    const [A, B, ka, kb, sb] = k1 < k2 ? [s1, s2, k1, k2, pairs[q + 1]] : [s2, s1, k2, k1, pairs[q]]
+    const key = ka * K + kb
+    let acc = accs.get(key)
+    if (!acc) { acc = { a: numbers[ka], b: numbers[kb], faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(key, acc) }
+    const fb = B.f, fa = A.f, ar = B.faces.area[fb]
     acc.faces++
     acc.area += ar
     acc.cx += ar * B.faces.centroid[3 * fb]; acc.cy += ar * B.faces.centroid[3 * fb + 1]; acc.cz += ar * B.faces.centroid[3 * fb + 2]
     for (let c = 0; c < 3; c++) {
-      acc.fb[c] += B.tractions.force[3 * fb + c]
-      acc.fa[c] += A.tractions.force[3 * fa + c]
-      acc.m0[c] += B.tractions.moment[3 * fb + c]
+      acc.fb[c] += B.t.force[3 * fb + c]
+      acc.fa[c] += A.t.force[3 * fa + c]
+      acc.m0[c] += B.t.moment[3 * fb + c]
     }
-    acc.gross += 0.5 * (B.tractions.meanMagnitude[fb] * ar + A.tractions.meanMagnitude[fa] * A.faces.area[fa])
-    acc.drawn.push(pb, fb)
+    acc.gross += 0.5 * (B.t.meanMagnitude[fb] * ar + A.t.meanMagnitude[fa] * A.faces.area[fa])
+    acc.drawn.push(sb)
   }
   const sorted = [...accs.values()].sort((x, y) => x.a - y.a || x.b - y.b)
   const interfaces = sorted.map((s) => {
@@ -201,18 +324,18 @@ function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Pic
       reverseForce: [s.fa[0], s.fa[1], s.fa[2]] as Vec3, mismatch: s.gross > 0 ? sum / s.gross : 0, gross: s.gross,
     }
   })
-  return { interfaces, interfaceMesh: interfaceTriangles(coords, parts, sorted.map((s) => s.drawn)) }
+  return { interfaces, interfaceMesh: interfaceTriangles(coords, (s) => side(s), sorted.map((s) => s.drawn)) }
 }
 
-/** Corner triangles of each interface's faces (pairs [part index, face index]), for drawing. */
-function interfaceTriangles(coords: Float64Array, parts: readonly PartFaces[], drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
+/** Corner triangles of each interface's faces (lists of sides), for drawing. */
+function interfaceTriangles(coords: Float64Array, side: (s: number) => { faces: BoundaryFaces; f: number }, drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
   let T = 0
-  for (const list of drawn) for (let k = 0; k < list.length; k += 2) T += faceCornerCount(parts[list[k]].faces.kind[list[k + 1]]) - 2
+  for (const list of drawn) for (const s of list) { const d = side(s); T += faceCornerCount(d.faces.kind[d.f]) - 2 }
   const positions = new Float32Array(9 * T), offsets = new Int32Array(drawn.length + 1)
   let t = 0
   drawn.forEach((list, i) => {
-    for (let k = 0; k < list.length; k += 2) {
-      const f = parts[list[k]].faces, face = list[k + 1], nc = faceCornerCount(f.kind[face]), base = f.slots * face
+    for (const s of list) {
+      const { faces: f, f: face } = side(s), nc = faceCornerCount(f.kind[face]), base = f.slots * face
       for (let c = 1; c + 1 < nc; c++) {
         for (let q = 0; q < 3; q++) {
           const v = f.nodes[base + (q === 0 ? 0 : c + q - 1)]
@@ -224,67 +347,4 @@ function interfaceTriangles(coords: Float64Array, parts: readonly PartFaces[], d
     offsets[i + 1] = t / 3
   })
   return { positions, offsets }
-}
-
-/**
- * Pairs boundary faces of different parts with the same corner nodes (pushed to `pairs` in the
- * order the second is met); returns the faces left, in the order first met. A table keyed by the
- * sorted corners (open addressing over typed arrays: no string per face).
- */
-function matchByNodes(parts: readonly PartFaces[], pairs: [number, number, number, number][]): [number, number][] {
-  let total = 0
-  for (const p of parts) total += p.faces.count
-  let slots = 1024
-  while (slots < 2 * total) slots *= 2
-  const mask = slots - 1
-  // per slot: 4 sorted corners (-1 pads a triangle), owner part index, face index (-1: free or matched away)
-  const key = new Int32Array(4 * slots), owner = new Int32Array(slots).fill(-1), face = new Int32Array(slots).fill(-1)
-  const used = new Uint8Array(slots), last = new Int32Array(slots)
-  const order: number[] = [] // slots in the order filled (a slot filled again after its pair: listed again)
-  parts.forEach((p, pi) => {
-    const { faces } = p
-    for (let f = 0; f < faces.count; f++) {
-      const nc = faceCornerCount(faces.kind[f])
-      const o = faces.slots * f
-      // sorted by a five-compare network (a triangle's missing fourth sorts last)
-      let c0 = faces.nodes[o], c1 = faces.nodes[o + 1], c2 = faces.nodes[o + 2], c3 = nc > 3 ? faces.nodes[o + 3] : 0x7fffffff, x
-      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
-      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
-      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
-      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
-      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
-      let h = (Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d) + Math.imul(c3, 0x27d4eb2f)) | 0
-      h = (h ^ (h >>> 15)) & mask
-      while (used[h] && !(key[4 * h] === c0 && key[4 * h + 1] === c1 && key[4 * h + 2] === c2 && key[4 * h + 3] === c3)) h = (h + 1) & mask
-      if (!used[h]) {
-        used[h] = 1
-        key[4 * h] = c0; key[4 * h + 1] = c1; key[4 * h + 2] = c2; key[4 * h + 3] = c3
-        owner[h] = pi; face[h] = f
-        last[h] = order.length; order.push(h)
-      } else if (owner[h] >= 0 && owner[h] !== pi) {
-        pairs.push([owner[h], face[h], pi, f])
-        owner[h] = -1
-      } else if (owner[h] < 0) {
-        // met again after its pair was taken: open again, now last in order (as a map entry set anew)
-        owner[h] = pi; face[h] = f
-        last[h] = order.length; order.push(h)
-      } else face[h] = f // the same part again: the later face stands for the key
-    }
-  })
-  const open: [number, number][] = []
-  for (let k = 0; k < order.length; k++) {
-    const h = order[k]
-    // a slot reopened later is listed at its last filling only
-    if (owner[h] >= 0 && last[h] === k) open.push([owner[h], face[h]])
-  }
-  return open
-}
-
-function faceCornersCoincide(coords: Float64Array, parts: readonly PartFaces[], a: [number, number], b: [number, number], tol: number): boolean {
-  const corners = (pf: [number, number]): number[] => {
-    const f = parts[pf[0]].faces, nc = faceCornerCount(f.kind[pf[1]])
-    return Array.from(f.nodes.subarray(f.slots * pf[1], f.slots * pf[1] + nc))
-  }
-  const ca = corners(a), cb = corners(b)
-  return ca.length === cb.length && cornersCoincide(coords, ca, cb, tol)
 }

@@ -1,7 +1,8 @@
 /**
  * What assemblies add to a load at about 10^6 elements: the per-part work (the part list, and with
  * two parts or more each part's boundary faces, tractions and balance and the interfaces between
- * parts, partBalance.ts, as the engine runs it once per load: workers/assembly.ts) and the faces
+ * parts, partBalance.ts, as the engine runs it once per load: assemblyAtLoad in workers/assembly.ts,
+ * with the load's own boundary faces, tractions and patch labels) and the faces
  * against parts meshed apart (interfaceFaces.ts, run inside the patches stage), beside the whole
  * load (native read, then every stage of analysisPipeline.ts: faces, tractions, invariants,
  * element and body balance, patches, verdict). Rounds interleave the load and the part work, so a
@@ -16,9 +17,11 @@ import { fileURLToPath } from 'node:url'
 import type { Model } from '../../src/model/model.ts'
 import { readNative, writeNative } from '../../src/io/index.ts'
 import { runAnalysis, analysisInputOf } from '../../src/mechanics/analysisPipeline.ts'
-import { assemblyBalance, partNumbers } from '../../src/mechanics/partBalance.ts'
+import { partNumbers } from '../../src/mechanics/partBalance.ts'
+import { assemblyAtLoad } from '../../workers/assembly.ts'
+import type { AnalysisResult } from '../../src/mechanics/analysisPipeline.ts'
+import type { StressField } from '../../src/model/stressField.ts'
 import { coincidentInterfaceFaces } from '../../src/mechanics/interfaceFaces.ts'
-import { modelStressField } from '../../src/model/stressField.ts'
 import type { BoundaryFaces } from '../../src/mechanics/types.ts'
 import { syntheticModel } from './syntheticModel.ts'
 
@@ -61,13 +64,14 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
   let interfaces = 0
   const load = () => {
     const m = readNative(bytes, 'bench.tractus')
-    return { m, r: runAnalysis(analysisInputOf(m), { balancePrecision: 'single' }) }
+    const input = analysisInputOf(m)
+    return { m, stress: input.stress, r: runAnalysis(input, { balancePrecision: 'single' }) }
   }
-  // the engine's assembly step: the part list, and the assembly only with two parts or more
-  const parts = (m: Model) => {
+  // the engine's assembly step (loadAssembly): the part list, and the assembly only with two parts or more
+  const parts = (m: Model, stress: StressField, r: AnalysisResult) => {
     const numbers = partNumbers(m.mesh)
     if (numbers.length < 2) return 0
-    const asm = assemblyBalance(m.mesh, modelStressField(m), () => m.bodyForce)
+    const asm = assemblyAtLoad(m, stress, r.faces, r.tractions, r.loadPatches.faceLabel)
     interfaces = asm.interfaces.length
     return asm.parts.length
   }
@@ -80,7 +84,7 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
   const loadCpu: number[] = [], partsCpu: number[] = [], faceCpu: number[] = [], loadWall: number[] = [], partsWall: number[] = [], faceWall: number[] = []
   for (let i = 0; i < rounds + 1; i++) {
     const l = timed(load)
-    const p = timed(() => parts(l.value.m))
+    const p = timed(() => parts(l.value.m, l.value.stress, l.value.r))
     const fp = faceParts(l.value.m, l.value.r.faces)
     const f = timed(() => coincidentInterfaceFaces(l.value.m.mesh.coords, l.value.r.faces, fp))
     if (i === 0) continue // warm-up

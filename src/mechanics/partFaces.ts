@@ -1,0 +1,125 @@
+/**
+ * Faces between parts that share nodes, for every part at once: the interior faces of the mesh
+ * whose two elements have different part numbers, each taken once per side (that side's element,
+ * its local face, its nodes in that element's outward order). With the whole body's boundary
+ * faces they make every part's boundary (partBalance.ts) without one face extraction per part.
+ *
+ * One pass marks the corner nodes touched by more than one part; a second lists the elements
+ * with three corners or more so marked. Only their faces whose corners are all marked can lie
+ * between parts, and those few are paired by their sorted corners in an open-addressing table
+ * over typed arrays (a triangle pads its fourth corner, so it never pairs with a quadrilateral).
+ * A pair of the same part is an interior face of that part and is dropped.
+ *
+ * Layout: `rank` Int32Array(E) the part index of each element (global element order). Returns the
+ * sides as BoundaryFaces (slots = faceSlotsOf(mesh.blocks), as extractBoundaryFaces gives the
+ * whole body), ordered by (element, local face) like extractBoundaryFaces, and `twin` Int32Array(F)
+ * the index of each side's other side. Lengths in model units.
+ */
+import { ELEMENT_TYPES, FACE_KIND_CODE } from '../model/elementTypes.ts'
+import type { Mesh } from '../model/model.ts'
+import { computeFaceGeometry, faceSlotsOf } from './boundaryFaces.ts'
+import type { BoundaryFaces } from './types.ts'
+
+/** A face reference is globalElement·8 + localFace (at most 6 faces per element), as boundaryFaces.ts. */
+const REF_STRIDE = 8
+
+export interface PartSides {
+  readonly faces: BoundaryFaces
+  readonly twin: Int32Array
+}
+
+export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
+  const N = mesh.nodeCount, blocks = mesh.blocks
+  // -1: no element yet; r ≥ 0: only elements of part index r; -2: elements of two parts or more
+  const mark = new Int32Array(N).fill(-1)
+  for (const b of blocks) {
+    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
+    const count = conn.length / nn
+    for (let e = 0; e < count; e++) {
+      const r = rank[off + e], eb = e * nn
+      for (let k = 0; k < cc; k++) {
+        const n = conn[eb + k], m = mark[n]
+        if (m !== r) mark[n] = m === -1 ? r : -2
+      }
+    }
+  }
+  // elements with three corners or more on nodes of several parts (a face between parts has all
+  // its corners there): the only ones read again, by global index ascending
+  const listed: number[] = []
+  for (const b of blocks) {
+    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
+    const count = conn.length / nn
+    for (let e = 0; e < count; e++) {
+      const eb = e * nn
+      let mixed = 0
+      for (let k = 0; k < cc; k++) if (mark[conn[eb + k]] === -2) mixed++
+      if (mixed >= 3) listed.push(off + e)
+    }
+  }
+  // their faces with every corner on such nodes, in (element, local face) order: reference and
+  // sorted corners (a triangle's missing fourth, 0x7fffffff, sorts last)
+  const refs: number[] = [], keys: number[] = []
+  let bi = 0
+  for (const g of listed) {
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], nf = topo.faces.length, fc = topo.cornerFaces, conn = b.conn
+    const eb = (g - b.offset) * topo.nodeCount
+    for (let f = 0; f < nf; f++) {
+      let c0 = conn[eb + fc[4 * f]], c1 = conn[eb + fc[4 * f + 1]], c2 = conn[eb + fc[4 * f + 2]], x
+      const l3 = fc[4 * f + 3]
+      let c3 = l3 >= 0 ? conn[eb + l3] : 0x7fffffff
+      if (mark[c0] !== -2 || mark[c1] !== -2 || mark[c2] !== -2 || (l3 >= 0 && mark[c3] !== -2)) continue
+      // five-compare sorting network
+      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+      refs.push(g * REF_STRIDE + f)
+      keys.push(c0, c1, c2, c3)
+    }
+  }
+  // paired by their corners in an open-addressing table: each candidate's twin of another part
+  const C = refs.length
+  let slots = 16
+  while (slots < 2 * C) slots *= 2
+  const mask = slots - 1
+  // per slot: -1 free; w ≥ 0 candidate w waits for its twin; -2 - w candidate w was paired
+  const slot = new Int32Array(slots).fill(-1), partner = new Int32Array(C).fill(-1)
+  for (let i = 0; i < C; i++) {
+    const c0 = keys[4 * i], c1 = keys[4 * i + 1], c2 = keys[4 * i + 2], c3 = keys[4 * i + 3]
+    let h = (Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d) + Math.imul(c3, 0x27d4eb2f)) | 0
+    h = (h ^ (h >>> 15)) & mask
+    for (; ; h = (h + 1) & mask) {
+      const w = slot[h]
+      if (w === -1) { slot[h] = i; break }
+      const o = 4 * (w >= 0 ? w : -2 - w)
+      if (keys[o] !== c0 || keys[o + 1] !== c1 || keys[o + 2] !== c2 || keys[o + 3] !== c3) continue
+      // a face of three elements is refused by the whole body's extraction; here the first pair stands
+      if (w >= 0) {
+        if (rank[(refs[w] / REF_STRIDE) | 0] !== rank[(refs[i] / REF_STRIDE) | 0]) { partner[w] = i; partner[i] = w }
+        slot[h] = -2 - w
+      }
+      break
+    }
+  }
+  // the sides: candidates with a twin, already in (element, local face) order
+  const at = new Int32Array(C)
+  let P = 0
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+  const twin = new Int32Array(P), sorted = new Int32Array(P)
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) { twin[at[i]] = at[partner[i]]; sorted[at[i]] = refs[i] }
+  const S = faceSlotsOf(blocks)
+  const elem = new Int32Array(P), localFace = new Uint8Array(P), kind = new Uint8Array(P), nodes = new Int32Array(S * P).fill(-1)
+  bi = 0
+  for (let k = 0; k < P; k++) {
+    const g = (sorted[k] / REF_STRIDE) | 0, f = sorted[k] - g * REF_STRIDE
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], face = topo.faces[f], eb = (g - b.offset) * topo.nodeCount
+    elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
+    for (let a = 0; a < face.length; a++) nodes[S * k + a] = b.conn[eb + face[a]]
+  }
+  const area = new Float64Array(P), normal = new Float64Array(3 * P), centroid = new Float64Array(3 * P)
+  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
+  return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
+}
