@@ -284,7 +284,6 @@ const BODY_CHUNK = 1 << 16
 /** Sums the pairs of sides (shared nodes, then meshed apart) per pair of parts. */
 function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
   const { outer, inner, outerTractions: oT, innerTractions: iT, numbers, rank } = b, Fo = outer.count
-  const side = (s: number) => (s < Fo ? { faces: outer, t: oT, f: s } : { faces: inner, t: iT, f: s - Fo })
   const pairs: number[] = [] // side, side
   for (let i = 0; i < inner.count; i++) if (i < b.innerTwin[i]) pairs.push(Fo + i, Fo + b.innerTwin[i])
   if (b.outerTwin) for (let f = 0; f < Fo; f++) if (f < b.outerTwin[f]) pairs.push(f, b.outerTwin[f])
@@ -292,24 +291,26 @@ function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<Assembly
   interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
   const K = numbers.length
   const accs = new Map<number, Acc>() // by ka · K + kb (part indices; numbers ascend with them)
+  const rankOf = (s: number) => rank[s < Fo ? outer.elem[s] : inner.elem[s - Fo]]
   for (let q = 0; q < pairs.length; q += 2) {
-    const s1 = side(pairs[q]), s2 = side(pairs[q + 1])
-    const k1 = rank[s1.faces.elem[s1.f]], k2 = rank[s2.faces.elem[s2.f]]
-    // orient: a is the lower part number
-    const [A, B, ka, kb, sb] = k1 < k2 ? [s1, s2, k1, k2, pairs[q + 1]] : [s2, s1, k2, k1, pairs[q]]
+    // orient: side a in the lower part number
+    let sa = pairs[q], sb = pairs[q + 1], ka = rankOf(sa), kb = rankOf(sb)
+    if (ka > kb) { const x = sa; sa = sb; sb = x; const y = ka; ka = kb; kb = y }
     const key = ka * K + kb
     let acc = accs.get(key)
     if (!acc) { acc = { a: numbers[ka], b: numbers[kb], faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(key, acc) }
-    const fb = B.f, fa = A.f, ar = B.faces.area[fb]
+    const A = sa < Fo ? outer : inner, TA = sa < Fo ? oT : iT, fa = sa < Fo ? sa : sa - Fo
+    const B = sb < Fo ? outer : inner, TB = sb < Fo ? oT : iT, fb = sb < Fo ? sb : sb - Fo
+    const ar = B.area[fb]
     acc.faces++
     acc.area += ar
-    acc.cx += ar * B.faces.centroid[3 * fb]; acc.cy += ar * B.faces.centroid[3 * fb + 1]; acc.cz += ar * B.faces.centroid[3 * fb + 2]
+    acc.cx += ar * B.centroid[3 * fb]; acc.cy += ar * B.centroid[3 * fb + 1]; acc.cz += ar * B.centroid[3 * fb + 2]
     for (let c = 0; c < 3; c++) {
-      acc.fb[c] += B.t.force[3 * fb + c]
-      acc.fa[c] += A.t.force[3 * fa + c]
-      acc.m0[c] += B.t.moment[3 * fb + c]
+      acc.fb[c] += TB.force[3 * fb + c]
+      acc.fa[c] += TA.force[3 * fa + c]
+      acc.m0[c] += TB.moment[3 * fb + c]
     }
-    acc.gross += 0.5 * (B.t.meanMagnitude[fb] * ar + A.t.meanMagnitude[fa] * A.faces.area[fa])
+    acc.gross += 0.5 * (TB.meanMagnitude[fb] * ar + TA.meanMagnitude[fa] * A.area[fa])
     acc.drawn.push(sb)
   }
   const sorted = [...accs.values()].sort((x, y) => x.a - y.a || x.b - y.b)
@@ -324,18 +325,19 @@ function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<Assembly
       reverseForce: [s.fa[0], s.fa[1], s.fa[2]] as Vec3, mismatch: s.gross > 0 ? sum / s.gross : 0, gross: s.gross,
     }
   })
-  return { interfaces, interfaceMesh: interfaceTriangles(coords, (s) => side(s), sorted.map((s) => s.drawn)) }
+  return { interfaces, interfaceMesh: interfaceTriangles(coords, outer, inner, sorted.map((s) => s.drawn)) }
 }
 
-/** Corner triangles of each interface's faces (lists of sides), for drawing. */
-function interfaceTriangles(coords: Float64Array, side: (s: number) => { faces: BoundaryFaces; f: number }, drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
+/** Corner triangles of each interface's faces (lists of sides: outer faces, then inner), for drawing. */
+function interfaceTriangles(coords: Float64Array, outer: BoundaryFaces, inner: BoundaryFaces, drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
+  const Fo = outer.count
   let T = 0
-  for (const list of drawn) for (const s of list) { const d = side(s); T += faceCornerCount(d.faces.kind[d.f]) - 2 }
+  for (const list of drawn) for (const s of list) T += faceCornerCount(s < Fo ? outer.kind[s] : inner.kind[s - Fo]) - 2
   const positions = new Float32Array(9 * T), offsets = new Int32Array(drawn.length + 1)
   let t = 0
   drawn.forEach((list, i) => {
     for (const s of list) {
-      const { faces: f, f: face } = side(s), nc = faceCornerCount(f.kind[face]), base = f.slots * face
+      const f = s < Fo ? outer : inner, face = s < Fo ? s : s - Fo, nc = faceCornerCount(f.kind[face]), base = f.slots * face
       for (let c = 1; c + 1 < nc; c++) {
         for (let q = 0; q < 3; q++) {
           const v = f.nodes[base + (q === 0 ? 0 : c + q - 1)]

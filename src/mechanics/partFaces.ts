@@ -29,10 +29,36 @@ export interface PartSides {
 }
 
 export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
-  const N = mesh.nodeCount, blocks = mesh.blocks
-  // -1: no element yet; r ≥ 0: only elements of part index r; -2: elements of two parts or more
-  const mark = new Int32Array(N).fill(-1)
-  for (const b of blocks) {
+  const mark = markSharedNodes(mesh, rank)
+  const listed = listElements(mesh, mark)
+  const { refs, keys } = candidateFaces(mesh, listed, mark)
+  const partner = pairFaces(refs, keys, rank)
+  // the sides: candidates with a twin, already in (element, local face) order
+  const C = refs.length
+  const at = new Int32Array(C)
+  let P = 0
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+  const twin = new Int32Array(P), sorted = new Int32Array(P)
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) { twin[at[i]] = at[partner[i]]; sorted[at[i]] = refs[i] }
+  const blocks = mesh.blocks, S = faceSlotsOf(blocks)
+  const elem = new Int32Array(P), localFace = new Uint8Array(P), kind = new Uint8Array(P), nodes = new Int32Array(S * P).fill(-1)
+  let bi = 0
+  for (let k = 0; k < P; k++) {
+    const g = (sorted[k] / REF_STRIDE) | 0, f = sorted[k] - g * REF_STRIDE
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], face = topo.faces[f], eb = (g - b.offset) * topo.nodeCount
+    elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
+    for (let a = 0; a < face.length; a++) nodes[S * k + a] = b.conn[eb + face[a]]
+  }
+  const area = new Float64Array(P), normal = new Float64Array(3 * P), centroid = new Float64Array(3 * P)
+  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
+  return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
+}
+
+/** Per node: -1 no element; r ≥ 0 elements of part index r only; -2 elements of two parts or more (corner nodes). */
+function markSharedNodes(mesh: Mesh, rank: Int32Array): Int32Array {
+  const mark = new Int32Array(mesh.nodeCount).fill(-1)
+  for (const b of mesh.blocks) {
     const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
     const count = conn.length / nn
     for (let e = 0; e < count; e++) {
@@ -43,10 +69,16 @@ export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
       }
     }
   }
-  // elements with three corners or more on nodes of several parts (a face between parts has all
-  // its corners there): the only ones read again, by global index ascending
+  return mark
+}
+
+/**
+ * The elements with three corners or more on nodes of several parts (a face between parts has all
+ * its corners there), by global index ascending: the only ones read again.
+ */
+function listElements(mesh: Mesh, mark: Int32Array): Int32Array {
   const listed: number[] = []
-  for (const b of blocks) {
+  for (const b of mesh.blocks) {
     const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
     const count = conn.length / nn
     for (let e = 0; e < count; e++) {
@@ -56,30 +88,55 @@ export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
       if (mixed >= 3) listed.push(off + e)
     }
   }
-  // their faces with every corner on such nodes, in (element, local face) order: reference and
-  // sorted corners (a triangle's missing fourth, 0x7fffffff, sorts last)
-  const refs: number[] = [], keys: number[] = []
-  let bi = 0
-  for (const g of listed) {
-    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
-    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], nf = topo.faces.length, fc = topo.cornerFaces, conn = b.conn
-    const eb = (g - b.offset) * topo.nodeCount
-    for (let f = 0; f < nf; f++) {
-      let c0 = conn[eb + fc[4 * f]], c1 = conn[eb + fc[4 * f + 1]], c2 = conn[eb + fc[4 * f + 2]], x
-      const l3 = fc[4 * f + 3]
-      let c3 = l3 >= 0 ? conn[eb + l3] : 0x7fffffff
-      if (mark[c0] !== -2 || mark[c1] !== -2 || mark[c2] !== -2 || (l3 >= 0 && mark[c3] !== -2)) continue
-      // five-compare sorting network
-      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
-      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
-      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
-      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
-      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
-      refs.push(g * REF_STRIDE + f)
-      keys.push(c0, c1, c2, c3)
+  return Int32Array.from(listed)
+}
+
+/**
+ * The listed elements' faces with every corner on nodes of several parts, in (element, local
+ * face) order: `refs` their references, `keys` 4 sorted corners each (a triangle's missing fourth
+ * is the node count, so it sorts last and never equals a node).
+ */
+function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { refs: Int32Array; keys: Int32Array } {
+  const blocks = mesh.blocks, none = mesh.nodeCount
+  let refs = new Int32Array(0), keys = new Int32Array(0)
+  // two rounds: count, then fill
+  for (let round = 0; round < 2; round++) {
+    let C = 0, bi = 0
+    for (let i = 0; i < listed.length; i++) {
+      const g = listed[i]
+      while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+      const b = blocks[bi], topo = ELEMENT_TYPES[b.type], nf = topo.faces.length, fc = topo.cornerFaces, conn = b.conn
+      const eb = (g - b.offset) * topo.nodeCount
+      for (let f = 0; f < nf; f++) {
+        let c0 = conn[eb + fc[4 * f]], c1 = conn[eb + fc[4 * f + 1]], c2 = conn[eb + fc[4 * f + 2]]
+        const l3 = fc[4 * f + 3]
+        let c3 = l3 >= 0 ? conn[eb + l3] : none
+        if (mark[c0] !== -2 || mark[c1] !== -2 || mark[c2] !== -2 || (l3 >= 0 && mark[c3] !== -2)) continue
+        if (round === 1) {
+          // five-compare sorting network
+          let x = 0
+          if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+          if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+          if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+          if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+          if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+          refs[C] = g * REF_STRIDE + f
+          keys[4 * C] = c0; keys[4 * C + 1] = c1; keys[4 * C + 2] = c2; keys[4 * C + 3] = c3
+        }
+        C++
+      }
     }
+    if (round === 0) { refs = new Int32Array(C); keys = new Int32Array(4 * C) }
   }
-  // paired by their corners in an open-addressing table: each candidate's twin of another part
+  return { refs, keys }
+}
+
+/**
+ * Each candidate's twin of another part (-1 for none): candidates with the same sorted corners,
+ * paired in an open-addressing table. Two of one part are an interior face of that part; a face
+ * of three elements is refused by the whole body's extraction, here the first pair stands.
+ */
+function pairFaces(refs: Int32Array, keys: Int32Array, rank: Int32Array): Int32Array {
   const C = refs.length
   let slots = 16
   while (slots < 2 * C) slots *= 2
@@ -95,7 +152,6 @@ export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
       if (w === -1) { slot[h] = i; break }
       const o = 4 * (w >= 0 ? w : -2 - w)
       if (keys[o] !== c0 || keys[o + 1] !== c1 || keys[o + 2] !== c2 || keys[o + 3] !== c3) continue
-      // a face of three elements is refused by the whole body's extraction; here the first pair stands
       if (w >= 0) {
         if (rank[(refs[w] / REF_STRIDE) | 0] !== rank[(refs[i] / REF_STRIDE) | 0]) { partner[w] = i; partner[i] = w }
         slot[h] = -2 - w
@@ -103,23 +159,5 @@ export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
       break
     }
   }
-  // the sides: candidates with a twin, already in (element, local face) order
-  const at = new Int32Array(C)
-  let P = 0
-  for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
-  const twin = new Int32Array(P), sorted = new Int32Array(P)
-  for (let i = 0; i < C; i++) if (partner[i] >= 0) { twin[at[i]] = at[partner[i]]; sorted[at[i]] = refs[i] }
-  const S = faceSlotsOf(blocks)
-  const elem = new Int32Array(P), localFace = new Uint8Array(P), kind = new Uint8Array(P), nodes = new Int32Array(S * P).fill(-1)
-  bi = 0
-  for (let k = 0; k < P; k++) {
-    const g = (sorted[k] / REF_STRIDE) | 0, f = sorted[k] - g * REF_STRIDE
-    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
-    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], face = topo.faces[f], eb = (g - b.offset) * topo.nodeCount
-    elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
-    for (let a = 0; a < face.length; a++) nodes[S * k + a] = b.conn[eb + face[a]]
-  }
-  const area = new Float64Array(P), normal = new Float64Array(3 * P), centroid = new Float64Array(3 * P)
-  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
-  return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
+  return partner
 }
