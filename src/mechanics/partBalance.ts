@@ -147,50 +147,51 @@ export interface BodyFaces {
  * outer face s, else inner face s - outer.count.
  */
 export interface PartBoundaries {
-  /** Part numbers, ascending; `rank` gives each element's index in it (global element order). */
+  /** Part numbers, ascending: a part's index is its place here. */
   readonly numbers: readonly number[]
-  readonly rank: Int32Array
   readonly outer: BoundaryFaces
   readonly outerTractions: SurfaceTractions
+  /** Each outer face's part index. */
+  readonly outerPart: Int32Array
   /** Each outer face's twin on a part meshed apart (-1 for none), null with one part. */
   readonly outerTwin: Int32Array | null
   readonly inner: BoundaryFaces
   readonly innerTractions: SurfaceTractions
+  readonly innerPart: Int32Array
   /** Each inner face's other side. */
   readonly innerTwin: Int32Array
 }
 
-/** Each element's part index in `numbers` (ascending part numbers, partNumbers). */
-function elementRanks(mesh: Mesh, numbers: readonly number[]): Int32Array {
-  const rank = new Int32Array(mesh.elementCount)
-  const index = new Map(numbers.map((p, k) => [p, k]))
-  for (const b of mesh.blocks) {
-    const count = b.ids.length, bp = b.part
-    if (!bp) { rank.fill(index.get(0) ?? 0, b.offset, b.offset + count); continue }
-    // parts are few: remember the last lookup (runs of one part are the rule)
-    let last = NaN, k = 0
-    for (let e = 0; e < count; e++) {
-      const p = bp[e]
-      if (p !== last) { last = p; k = index.get(p) ?? 0 }
-      rank[b.offset + e] = k
-    }
+/**
+ * Each face's part index (`index`: part number → index); faces in element order (a cursor over
+ * the blocks, started over if the order goes back), the index looked up where the part changes.
+ */
+function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<number, number>): Int32Array {
+  const out = new Int32Array(faces.count), blocks = mesh.blocks
+  let bi = 0, last = -1, k = 0
+  for (let f = 0; f < faces.count; f++) {
+    const g = faces.elem[f]
+    if (g < blocks[bi].offset) bi = 0
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], p = b.part ? b.part[g - b.offset] : 0
+    if (p !== last) { last = p; k = index.get(p) ?? 0 }
+    out[f] = k
   }
-  return rank
+  return out
 }
 
 /** The boundaries of every part, from the whole body's faces and tractions when a load has them. */
 export function partBoundaries(mesh: Mesh, field: StressField, body?: BodyFaces): PartBoundaries {
   const numbers = partNumbers(mesh)
-  const rank = elementRanks(mesh, numbers)
+  const index = new Map(numbers.map((p, k) => [p, k]))
   const outer = body?.faces ?? extractBoundaryFaces(mesh)
   const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
-  const sides = facesBetweenParts(mesh, rank)
+  const sides = facesBetweenParts(mesh)
   const inner = sides.faces
   const innerTractions = computeSurfaceTractions(allocateSurfaceTractions(inner), mesh, field, inner)
-  const facePart = new Int32Array(outer.count)
-  for (let f = 0; f < outer.count; f++) facePart[f] = rank[outer.elem[f]]
-  const outerTwin = coincidentFacePairs(mesh.coords, outer, facePart, body?.against ?? null)
-  return { numbers, rank, outer, outerTractions, outerTwin, inner, innerTractions, innerTwin: sides.twin }
+  const outerPart = facePartIndex(mesh, outer, index), innerPart = facePartIndex(mesh, inner, index)
+  const outerTwin = coincidentFacePairs(mesh.coords, outer, outerPart, body?.against ?? null)
+  return { numbers, outer, outerTractions, outerPart, outerTwin, inner, innerTractions, innerPart, innerTwin: sides.twin }
 }
 
 /**
@@ -198,11 +199,11 @@ export function partBoundaries(mesh: Mesh, field: StressField, body?: BodyFaces)
  * face): calls `visit(k, side)` with part index k.
  */
 function forEachSide(b: PartBoundaries, visit: (k: number, side: number) => void): void {
-  const { outer, inner, rank } = b, Fo = outer.count, Fi = inner.count
+  const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
   let i = 0, j = 0
   while (i < Fo || j < Fi) {
     const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
-    if (takeOuter) { visit(rank[outer.elem[i]], i); i++ } else { visit(rank[inner.elem[j]], Fo + j); j++ }
+    if (takeOuter) { visit(outerPart[i], i); i++ } else { visit(innerPart[j], Fo + j); j++ }
   }
 }
 
@@ -228,23 +229,27 @@ export function assemblyBalance(
   // volumes and centroids a chunk of elements at a time, summed per part in element order
   const sums = new Float64Array(4 * K), elements = new Int32Array(K)
   const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
-  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk), rank = b.rank
+  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
+  const index = new Map(b.numbers.map((p, i) => [p, i]))
   // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
-  let k = 0, V = 0, X = 0, Y = 0, Z = 0, n0 = 0
+  let k = 0, V = 0, X = 0, Y = 0, Z = 0, n0 = 0, last = -1
   for (const blk of mesh.blocks) {
-    const nn = ELEMENT_TYPES[blk.type].nodeCount
+    const nn = ELEMENT_TYPES[blk.type].nodeCount, bp = blk.part
     const count = blk.conn.length / nn
     for (let s = 0; s < count; s += chunk) {
       const n = Math.min(chunk, count - s)
       const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
         blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
       elementVolumesAndCentroids(piece, vol, cen)
-      const g0 = blk.offset + s
       for (let e = 0; e < n; e++) {
-        const r = rank[g0 + e]
-        if (r !== k) {
-          sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
-          k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
+        const p = bp ? bp[s + e] : 0
+        if (p !== last) {
+          last = p
+          const r = index.get(p) ?? 0
+          if (r !== k) {
+            sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
+            k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
+          }
         }
         const v = vol[e]
         n0++
@@ -283,7 +288,7 @@ const BODY_CHUNK = 1 << 16
 
 /** Sums the pairs of sides (shared nodes, then meshed apart) per pair of parts. */
 function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
-  const { outer, inner, outerTractions: oT, innerTractions: iT, numbers, rank } = b, Fo = outer.count
+  const { outer, inner, outerTractions: oT, innerTractions: iT, numbers, outerPart, innerPart } = b, Fo = outer.count
   const pairs: number[] = [] // side, side
   for (let i = 0; i < inner.count; i++) if (i < b.innerTwin[i]) pairs.push(Fo + i, Fo + b.innerTwin[i])
   if (b.outerTwin) for (let f = 0; f < Fo; f++) if (f < b.outerTwin[f]) pairs.push(f, b.outerTwin[f])
@@ -291,13 +296,15 @@ function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<Assembly
   interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
   const K = numbers.length
   const accs = new Map<number, Acc>() // by ka · K + kb (part indices; numbers ascend with them)
-  const rankOf = (s: number) => rank[s < Fo ? outer.elem[s] : inner.elem[s - Fo]]
+  const rankOf = (s: number) => (s < Fo ? outerPart[s] : innerPart[s - Fo])
+  let lastKey = -1, acc: Acc | undefined
   for (let q = 0; q < pairs.length; q += 2) {
     // orient: side a in the lower part number
     let sa = pairs[q], sb = pairs[q + 1], ka = rankOf(sa), kb = rankOf(sb)
     if (ka > kb) { const x = sa; sa = sb; sb = x; const y = ka; ka = kb; kb = y }
     const key = ka * K + kb
-    let acc = accs.get(key)
+    // pairs come in runs of one interface: the map only where the pair of parts changes
+    if (key !== lastKey) { lastKey = key; acc = accs.get(key) }
     if (!acc) { acc = { a: numbers[ka], b: numbers[kb], faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(key, acc) }
     const A = sa < Fo ? outer : inner, TA = sa < Fo ? oT : iT, fa = sa < Fo ? sa : sa - Fo
     const B = sb < Fo ? outer : inner, TB = sb < Fo ? oT : iT, fb = sb < Fo ? sb : sb - Fo

@@ -10,8 +10,8 @@
  * over typed arrays (a triangle pads its fourth corner, so it never pairs with a quadrilateral).
  * A pair of the same part is an interior face of that part and is dropped.
  *
- * Layout: `rank` Int32Array(E) the part index of each element (global element order). Returns the
- * sides as BoundaryFaces (slots = faceSlotsOf(mesh.blocks), as extractBoundaryFaces gives the
+ * Part numbers come from the blocks (0 without; they are ≥ 0, so -1 and -2 can mark nodes). Returns
+ * the sides as BoundaryFaces (slots = faceSlotsOf(mesh.blocks), as extractBoundaryFaces gives the
  * whole body), ordered by (element, local face) like extractBoundaryFaces, and `twin` Int32Array(F)
  * the index of each side's other side. Lengths in model units.
  */
@@ -28,11 +28,11 @@ export interface PartSides {
   readonly twin: Int32Array
 }
 
-export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
-  const mark = markSharedNodes(mesh, rank)
+export function facesBetweenParts(mesh: Mesh): PartSides {
+  const mark = markSharedNodes(mesh)
   const listed = listElements(mesh, mark)
-  const { refs, keys } = candidateFaces(mesh, listed, mark)
-  const partner = pairFaces(refs, keys, rank)
+  const { refs, keys, part } = candidateFaces(mesh, listed, mark)
+  const partner = pairFaces(keys, part)
   // the sides: candidates with a twin, already in (element, local face) order
   const C = refs.length
   const at = new Int32Array(C)
@@ -55,14 +55,14 @@ export function facesBetweenParts(mesh: Mesh, rank: Int32Array): PartSides {
   return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
 }
 
-/** Per node: -1 no element; r ≥ 0 elements of part index r only; -2 elements of two parts or more (corner nodes). */
-function markSharedNodes(mesh: Mesh, rank: Int32Array): Int32Array {
+/** Per node: -1 no element; p ≥ 0 elements of part p only; -2 elements of two parts or more (corner nodes). */
+function markSharedNodes(mesh: Mesh): Int32Array {
   const mark = new Int32Array(mesh.nodeCount).fill(-1)
   for (const b of mesh.blocks) {
-    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
+    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, bp = b.part
     const count = conn.length / nn
     for (let e = 0; e < count; e++) {
-      const r = rank[off + e], eb = e * nn
+      const r = bp ? bp[e] : 0, eb = e * nn
       for (let k = 0; k < cc; k++) {
         const n = conn[eb + k], m = mark[n]
         if (m !== r) mark[n] = m === -1 ? r : -2
@@ -94,11 +94,11 @@ function listElements(mesh: Mesh, mark: Int32Array): Int32Array {
 /**
  * The listed elements' faces with every corner on nodes of several parts, in (element, local
  * face) order: `refs` their references, `keys` 4 sorted corners each (a triangle's missing fourth
- * is the node count, so it sorts last and never equals a node).
+ * is the node count, so it sorts last and never equals a node), `part` their element's part.
  */
-function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { refs: Int32Array; keys: Int32Array } {
+function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { refs: Int32Array; keys: Int32Array; part: Int32Array } {
   const blocks = mesh.blocks, none = mesh.nodeCount
-  let refs = new Int32Array(0), keys = new Int32Array(0)
+  let refs = new Int32Array(0), keys = new Int32Array(0), part = new Int32Array(0)
   // two rounds: count, then fill
   for (let round = 0; round < 2; round++) {
     let C = 0, bi = 0
@@ -121,14 +121,15 @@ function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { ref
           if (c1 > c3) { x = c1; c1 = c3; c3 = x }
           if (c1 > c2) { x = c1; c1 = c2; c2 = x }
           refs[C] = g * REF_STRIDE + f
+          part[C] = b.part ? b.part[g - b.offset] : 0
           keys[4 * C] = c0; keys[4 * C + 1] = c1; keys[4 * C + 2] = c2; keys[4 * C + 3] = c3
         }
         C++
       }
     }
-    if (round === 0) { refs = new Int32Array(C); keys = new Int32Array(4 * C) }
+    if (round === 0) { refs = new Int32Array(C); keys = new Int32Array(4 * C); part = new Int32Array(C) }
   }
-  return { refs, keys }
+  return { refs, keys, part }
 }
 
 /**
@@ -136,8 +137,8 @@ function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { ref
  * paired in an open-addressing table. Two of one part are an interior face of that part; a face
  * of three elements is refused by the whole body's extraction, here the first pair stands.
  */
-function pairFaces(refs: Int32Array, keys: Int32Array, rank: Int32Array): Int32Array {
-  const C = refs.length
+function pairFaces(keys: Int32Array, part: Int32Array): Int32Array {
+  const C = part.length
   let slots = 16
   while (slots < 2 * C) slots *= 2
   const mask = slots - 1
@@ -153,7 +154,7 @@ function pairFaces(refs: Int32Array, keys: Int32Array, rank: Int32Array): Int32A
       const o = 4 * (w >= 0 ? w : -2 - w)
       if (keys[o] !== c0 || keys[o + 1] !== c1 || keys[o + 2] !== c2 || keys[o + 3] !== c3) continue
       if (w >= 0) {
-        if (rank[(refs[w] / REF_STRIDE) | 0] !== rank[(refs[i] / REF_STRIDE) | 0]) { partner[w] = i; partner[i] = w }
+        if (part[w] !== part[i]) { partner[w] = i; partner[i] = w }
         slot[h] = -2 - w
       }
       break
