@@ -23,33 +23,17 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mec
 import { computeBodyBalance } from '../../src/mechanics/balanceAudit.ts'
 import { faceCornerCount } from '../../src/mechanics/freeBody.ts'
 import { elementIdOf } from '../../src/model/elementId.ts'
-import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import { nodalStressField } from '../../src/model/stressField.ts'
 import type { StressField } from '../../src/model/stressField.ts'
 import type { Mesh, Vec3 } from '../../src/model/model.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../../src/mechanics/types.ts'
-import { assembly } from '../helpers/assemblies.ts'
-import type { PieceSpec } from '../helpers/assemblies.ts'
+import { randomAssembly } from '../helpers/assemblies.ts'
 import { mulberry32, rotateMesh, rotationFromUniforms } from '../helpers/rotation.ts'
 
 const SEED = 20261203
-const TYPES: readonly ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6', 'pyramid5']
-
-/** 2-5 boxes on a unit lattice, random types and parts; some boxes get a random part per element. */
-function randomAssembly(rnd: () => number): { mesh: Mesh; merged: boolean } {
-  const pieces: PieceSpec[] = []
-  const count = 2 + Math.floor(4 * rnd())
-  for (let p = 0; p < count; p++) {
-    const at = [Math.floor(3 * rnd()), Math.floor(2 * rnd()), Math.floor(2 * rnd())]
-    pieces.push({
-      box: { nx: 2, ny: 2, nz: 2, lx: 1, ly: 1, lz: 1, x0: at[0], y0: at[1], z0: at[2] },
-      type: TYPES[Math.floor(rnd() * TYPES.length)], part: 1 + Math.floor(3 * rnd()),
-    })
-  }
-  const seen = new Set<string>()
-  const kept = pieces.filter((p) => { const k = `${p.box.x0},${p.box.y0},${p.box.z0}`; if (seen.has(k)) return false; seen.add(k); return true })
-  const merged = rnd() < 0.5
-  const mesh = assembly(kept, merged)
+/** A random assembly (assemblies.ts); some of its blocks then get a random part per element. */
+function randomParts(rnd: () => number): { mesh: Mesh; merged: boolean } {
+  const { mesh, merged } = randomAssembly(rnd)
   // parts within a box: faces between parts inside one block (shared nodes)
   for (const b of mesh.blocks) if (b.part && rnd() < 0.3) for (let e = 0; e < b.part.length; e++) if (rnd() < 0.5) b.part[e] = 4 + Math.floor(2 * rnd())
   return { mesh, merged }
@@ -101,7 +85,7 @@ describe(`every part's boundary at once against one extraction per part (seed ${
   console.log(`part faces seed ${SEED}`)
   const rnd = mulberry32(SEED)
   for (let trial = 0; trial < 30; trial++) {
-    const { mesh: flat, merged } = randomAssembly(rnd)
+    const { mesh: flat, merged } = randomParts(rnd)
     const mesh = trial % 2 ? rotateMesh(flat, rotationFromUniforms(rnd(), rnd(), rnd())) : flat
     const nodal = trial % 3 === 0
     it(`trial ${trial}: ${mesh.elementCount} elements, ${partNumbers(mesh).length} parts, ${merged ? 'shared nodes' : 'meshed apart'}, ${nodal ? 'nodal' : 'element-nodal'} stress`, () => {
