@@ -220,54 +220,19 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
  * tractions when a load has them (the engine), else they are computed here (the command line).
  * Each part's balance is computeBodyBalance's over its own elements and boundary, with the sums
  * in the same order (balanceAudit.ts).
+ *
+ * The loops over elements, faces and pairs are small functions over typed arrays: this runs once
+ * per load, so each is compiled afresh at every load (the compiler's time counts as much as the
+ * loops' own at 10^6 elements), and small monomorphic loops compile quickly.
  */
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
 ): AssemblyBalance {
   const b = partBoundaries(mesh, field, body)
   const K = b.numbers.length
-  // volumes and centroids a chunk of elements at a time, summed per part in element order
   const sums = new Float64Array(4 * K), elements = new Int32Array(K)
-  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
-  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
-  const index = new Map(b.numbers.map((p, i) => [p, i]))
-  // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
-  let k = 0, V = 0, X = 0, Y = 0, Z = 0, n0 = 0, last = -1
-  for (const blk of mesh.blocks) {
-    const nn = ELEMENT_TYPES[blk.type].nodeCount, bp = blk.part
-    const count = blk.conn.length / nn
-    for (let s = 0; s < count; s += chunk) {
-      const n = Math.min(chunk, count - s)
-      const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
-        blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
-      elementVolumesAndCentroids(piece, vol, cen)
-      for (let e = 0; e < n; e++) {
-        const p = bp ? bp[s + e] : 0
-        if (p !== last) {
-          last = p
-          const r = index.get(p) ?? 0
-          if (r !== k) {
-            sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
-            k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
-          }
-        }
-        const v = vol[e]
-        n0++
-        V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
-      }
-    }
-  }
-  if (K > 0) { sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0 }
-  // surface sums per part over its sides in its boundary order
-  const surf = new Float64Array(7 * K)
-  const Fo = b.outer.count, oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
-  forEachSide(b, (k, s) => {
-    const F = s < Fo ? oF : iF, M = s < Fo ? oM : iM, f = s < Fo ? s : s - Fo, o = 7 * k
-    const x = F[3 * f], y = F[3 * f + 1], z = F[3 * f + 2]
-    surf[o] += x; surf[o + 1] += y; surf[o + 2] += z
-    surf[o + 3] += M[3 * f]; surf[o + 4] += M[3 * f + 1]; surf[o + 5] += M[3 * f + 2]
-    surf[o + 6] += Math.sqrt(x * x + y * y + z * z)
-  })
+  partVolumes(sums, elements, mesh, new Map(b.numbers.map((p, i) => [p, i])))
+  const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
     const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
     // computeBodyBalance's figures (balanceAudit.ts): moment about the volume centroid
@@ -286,74 +251,178 @@ export function assemblyBalance(
 /** Elements per chunk of the volume sums (2 MB of temporaries), as balanceAudit.ts. */
 const BODY_CHUNK = 1 << 16
 
-/** Sums the pairs of sides (shared nodes, then meshed apart) per pair of parts. */
-function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
-  const { outer, inner, outerTractions: oT, innerTractions: iT, numbers, outerPart, innerPart } = b, Fo = outer.count
-  const pairs: number[] = [] // side, side
-  for (let i = 0; i < inner.count; i++) if (i < b.innerTwin[i]) pairs.push(Fo + i, Fo + b.innerTwin[i])
-  if (b.outerTwin) for (let f = 0; f < Fo; f++) if (f < b.outerTwin[f]) pairs.push(f, b.outerTwin[f])
-  // sums per pair of parts
-  interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
-  const K = numbers.length
-  const accs = new Map<number, Acc>() // by ka · K + kb (part indices; numbers ascend with them)
-  const rankOf = (s: number) => (s < Fo ? outerPart[s] : innerPart[s - Fo])
-  let lastKey = -1, acc: Acc | undefined
-  for (let q = 0; q < pairs.length; q += 2) {
-    // orient: side a in the lower part number
-    let sa = pairs[q], sb = pairs[q + 1], ka = rankOf(sa), kb = rankOf(sb)
-    if (ka > kb) { const x = sa; sa = sb; sb = x; const y = ka; ka = kb; kb = y }
-    const key = ka * K + kb
-    // pairs come in runs of one interface: the map only where the pair of parts changes
-    if (key !== lastKey) { lastKey = key; acc = accs.get(key) }
-    if (!acc) { acc = { a: numbers[ka], b: numbers[kb], faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(key, acc) }
+/**
+ * Per part index (`index`: part number → index): `sums` (4·K) volume and volume-weighted centroid
+ * x, y, z; `elements` (K) the element count. A chunk of elements at a time (elementVolume.ts), in
+ * element order, as computeBodyBalance sums them.
+ */
+function partVolumes(sums: Float64Array, elements: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
+  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
+  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
+  // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
+  const cur = new Float64Array(5), at = [0, -1] // [part index, last part number]
+  for (const blk of mesh.blocks) {
+    const nn = ELEMENT_TYPES[blk.type].nodeCount
+    const count = blk.conn.length / nn
+    for (let s = 0; s < count; s += chunk) {
+      const n = Math.min(chunk, count - s)
+      const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
+        blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
+      elementVolumesAndCentroids(piece, vol, cen)
+      sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
+    }
+  }
+  if (sums.length > 0) { const k = at[0]; sums[4 * k] = cur[0]; sums[4 * k + 1] = cur[1]; sums[4 * k + 2] = cur[2]; sums[4 * k + 3] = cur[3]; elements[k] = cur[4] }
+}
+
+function sumChunk(
+  sums: Float64Array, elements: Int32Array, cur: Float64Array, at: number[], vol: Float64Array, cen: Float64Array, n: number,
+  part: Int32Array | null, first: number, index: ReadonlyMap<number, number>,
+): void {
+  let k = at[0], last = at[1], V = cur[0], X = cur[1], Y = cur[2], Z = cur[3], n0 = cur[4]
+  for (let e = 0; e < n; e++) {
+    const p = part ? part[first + e] : 0
+    if (p !== last) {
+      last = p
+      const r = index.get(p) ?? 0
+      if (r !== k) {
+        sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
+        k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
+      }
+    }
+    const v = vol[e]
+    n0++
+    V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
+  }
+  at[0] = k; at[1] = last; cur[0] = V; cur[1] = X; cur[2] = Y; cur[3] = Z; cur[4] = n0
+}
+
+/**
+ * Per part index (7 per part in `out`): surface force x, y, z, moment about the origin x, y, z,
+ * and the sum of |face force|, over its sides in its boundary order (forEachSide's merge, inline).
+ */
+function partSurfaceSums(out: Float64Array, b: PartBoundaries): Float64Array {
+  const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
+  const oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
+  let i = 0, j = 0
+  while (i < Fo || j < Fi) {
+    const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
+    const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, f = takeOuter ? i++ : j++, o = 7 * (takeOuter ? outerPart[f] : innerPart[f])
+    const x = F[3 * f], y = F[3 * f + 1], z = F[3 * f + 2]
+    out[o] += x; out[o + 1] += y; out[o + 2] += z
+    out[o + 3] += M[3 * f]; out[o + 4] += M[3 * f + 1]; out[o + 5] += M[3 * f + 2]
+    out[o + 6] += Math.sqrt(x * x + y * y + z * z)
+  }
+  return out
+}
+
+/** Per interface (a slot), in `acc`: faces, area, area·centroid (3), F_ab (3), F_ba (3), moment of F_ab about the origin (3), gross. */
+const ACC = 15
+
+/** Pairs of sides (shared nodes, then meshed apart), the side in the lower part first, as Int32Array(2·pairs). */
+function sidePairs(b: PartBoundaries): Int32Array {
+  const { outer, inner, outerPart, innerPart, innerTwin, outerTwin } = b, Fo = outer.count, Fi = inner.count
+  let n = 0
+  for (let i = 0; i < Fi; i++) if (i < innerTwin[i]) n++
+  if (outerTwin) for (let f = 0; f < Fo; f++) if (f < outerTwin[f]) n++
+  const pairs = new Int32Array(2 * n)
+  let q = 0
+  for (let i = 0; i < Fi; i++) {
+    const t = innerTwin[i]
+    if (i >= t) continue
+    const low = innerPart[i] < innerPart[t]
+    pairs[q++] = Fo + (low ? i : t); pairs[q++] = Fo + (low ? t : i)
+  }
+  if (outerTwin) for (let f = 0; f < Fo; f++) {
+    const t = outerTwin[f]
+    if (f >= t) continue
+    const low = outerPart[f] < outerPart[t]
+    pairs[q++] = low ? f : t; pairs[q++] = low ? t : f
+  }
+  return pairs
+}
+
+/** Sums the pairs into `acc` (ACC per slot; slot[q] is pair q's interface). */
+function sumPairs(acc: Float64Array, pairs: Int32Array, slot: Int32Array, b: PartBoundaries): void {
+  const { outer, inner, outerTractions: oT, innerTractions: iT } = b, Fo = outer.count
+  for (let q = 0; q < slot.length; q++) {
+    const sa = pairs[2 * q], sb = pairs[2 * q + 1], o = ACC * slot[q]
     const A = sa < Fo ? outer : inner, TA = sa < Fo ? oT : iT, fa = sa < Fo ? sa : sa - Fo
     const B = sb < Fo ? outer : inner, TB = sb < Fo ? oT : iT, fb = sb < Fo ? sb : sb - Fo
     const ar = B.area[fb]
-    acc.faces++
-    acc.area += ar
-    acc.cx += ar * B.centroid[3 * fb]; acc.cy += ar * B.centroid[3 * fb + 1]; acc.cz += ar * B.centroid[3 * fb + 2]
-    for (let c = 0; c < 3; c++) {
-      acc.fb[c] += TB.force[3 * fb + c]
-      acc.fa[c] += TA.force[3 * fa + c]
-      acc.m0[c] += TB.moment[3 * fb + c]
-    }
-    acc.gross += 0.5 * (TB.meanMagnitude[fb] * ar + TA.meanMagnitude[fa] * A.area[fa])
-    acc.drawn.push(sb)
+    acc[o]++
+    acc[o + 1] += ar
+    acc[o + 2] += ar * B.centroid[3 * fb]; acc[o + 3] += ar * B.centroid[3 * fb + 1]; acc[o + 4] += ar * B.centroid[3 * fb + 2]
+    acc[o + 5] += TB.force[3 * fb]; acc[o + 6] += TB.force[3 * fb + 1]; acc[o + 7] += TB.force[3 * fb + 2]
+    acc[o + 8] += TA.force[3 * fa]; acc[o + 9] += TA.force[3 * fa + 1]; acc[o + 10] += TA.force[3 * fa + 2]
+    acc[o + 11] += TB.moment[3 * fb]; acc[o + 12] += TB.moment[3 * fb + 1]; acc[o + 13] += TB.moment[3 * fb + 2]
+    acc[o + 14] += 0.5 * (TB.meanMagnitude[fb] * ar + TA.meanMagnitude[fa] * A.area[fa])
   }
-  const sorted = [...accs.values()].sort((x, y) => x.a - y.a || x.b - y.b)
-  const interfaces = sorted.map((s) => {
-    const c: Vec3 = s.area > 0 ? [s.cx / s.area, s.cy / s.area, s.cz / s.area] : [0, 0, 0]
-    const F = s.fb
-    // M_c = M_0 - c × F
-    const moment: Vec3 = [s.m0[0] - (c[1] * F[2] - c[2] * F[1]), s.m0[1] - (c[2] * F[0] - c[0] * F[2]), s.m0[2] - (c[0] * F[1] - c[1] * F[0])]
-    const sum = Math.hypot(F[0] + s.fa[0], F[1] + s.fa[1], F[2] + s.fa[2])
-    return {
-      parts: [s.a, s.b] as [number, number], faces: s.faces, area: s.area, centroid: c, force: [F[0], F[1], F[2]] as Vec3, moment,
-      reverseForce: [s.fa[0], s.fa[1], s.fa[2]] as Vec3, mismatch: s.gross > 0 ? sum / s.gross : 0, gross: s.gross,
-    }
-  })
-  return { interfaces, interfaceMesh: interfaceTriangles(coords, outer, inner, sorted.map((s) => s.drawn)) }
 }
 
-/** Corner triangles of each interface's faces (lists of sides: outer faces, then inner), for drawing. */
-function interfaceTriangles(coords: Float64Array, outer: BoundaryFaces, inner: BoundaryFaces, drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
-  const Fo = outer.count
-  let T = 0
-  for (const list of drawn) for (const s of list) T += faceCornerCount(s < Fo ? outer.kind[s] : inner.kind[s - Fo]) - 2
-  const positions = new Float32Array(9 * T), offsets = new Int32Array(drawn.length + 1)
-  let t = 0
-  drawn.forEach((list, i) => {
-    for (const s of list) {
-      const f = s < Fo ? outer : inner, face = s < Fo ? s : s - Fo, nc = faceCornerCount(f.kind[face]), base = f.slots * face
-      for (let c = 1; c + 1 < nc; c++) {
-        for (let q = 0; q < 3; q++) {
-          const v = f.nodes[base + (q === 0 ? 0 : c + q - 1)]
-          positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
-          t++
-        }
+/** Sums the pairs of sides per pair of parts. */
+function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
+  const { outer, numbers, outerPart, innerPart } = b, Fo = outer.count, K = numbers.length
+  const pairs = sidePairs(b), P = pairs.length / 2
+  // each pair's interface: slots by key ka · K + kb (part indices ascend with the numbers), in the
+  // order first met; the map only where the pair of parts changes (pairs come in runs)
+  const slot = new Int32Array(P), keys: number[] = [], slotOf = new Map<number, number>()
+  let lastKey = -1, last = -1
+  for (let q = 0; q < P; q++) {
+    const sa = pairs[2 * q], sb = pairs[2 * q + 1]
+    const key = (sa < Fo ? outerPart[sa] : innerPart[sa - Fo]) * K + (sb < Fo ? outerPart[sb] : innerPart[sb - Fo])
+    if (key !== lastKey) {
+      lastKey = key
+      last = slotOf.get(key) ?? -1
+      if (last < 0) { last = keys.length; slotOf.set(key, last); keys.push(key) }
+    }
+    slot[q] = last
+  }
+  const acc = new Float64Array(ACC * keys.length)
+  sumPairs(acc, pairs, slot, b)
+  const order = keys.map((_, i) => i).sort((x, y) => keys[x] - keys[y])
+  const interfaces = order.map((i): InterfaceRecord => {
+    const o = ACC * i, area = acc[o + 1], ka = Math.floor(keys[i] / K), kb = keys[i] % K
+    const c: Vec3 = area > 0 ? [acc[o + 2] / area, acc[o + 3] / area, acc[o + 4] / area] : [0, 0, 0]
+    const F: Vec3 = [acc[o + 5], acc[o + 6], acc[o + 7]], R: Vec3 = [acc[o + 8], acc[o + 9], acc[o + 10]], gross = acc[o + 14]
+    // M_c = M_0 - c × F
+    const moment: Vec3 = [acc[o + 11] - (c[1] * F[2] - c[2] * F[1]), acc[o + 12] - (c[2] * F[0] - c[0] * F[2]), acc[o + 13] - (c[0] * F[1] - c[1] * F[0])]
+    const sum = Math.hypot(F[0] + R[0], F[1] + R[1], F[2] + R[2])
+    return {
+      parts: [numbers[ka], numbers[kb]], faces: acc[o], area, centroid: c, force: F, moment,
+      reverseForce: R, mismatch: gross > 0 ? sum / gross : 0, gross,
+    }
+  })
+  return { interfaces, interfaceMesh: interfaceTriangles(coords, b, pairs, slot, order) }
+}
+
+/**
+ * Corner triangles of each interface's faces (the second side of each pair, interfaces in
+ * `order` of their slots, each one's faces in pair order), for drawing.
+ */
+function interfaceTriangles(coords: Float64Array, b: PartBoundaries, pairs: Int32Array, slot: Int32Array, order: readonly number[]): AssemblyBalance['interfaceMesh'] {
+  const { outer, inner } = b, Fo = outer.count, S = order.length, P = slot.length
+  // triangles per slot, then each slot's first triangle in the drawing order
+  const rankOf = new Int32Array(S)
+  order.forEach((i, r) => { rankOf[i] = r })
+  const offsets = new Int32Array(S + 1)
+  for (let q = 0; q < P; q++) {
+    const s = pairs[2 * q + 1]
+    offsets[rankOf[slot[q]] + 1] += faceCornerCount(s < Fo ? outer.kind[s] : inner.kind[s - Fo]) - 2
+  }
+  for (let r = 0; r < S; r++) offsets[r + 1] += offsets[r]
+  const T = offsets[S], positions = new Float32Array(9 * T), next = offsets.slice(0, S)
+  for (let q = 0; q < P; q++) {
+    const s = pairs[2 * q + 1], f = s < Fo ? outer : inner, face = s < Fo ? s : s - Fo, nc = faceCornerCount(f.kind[face]), base = f.slots * face
+    let t = 3 * next[rankOf[slot[q]]]
+    for (let c = 1; c + 1 < nc; c++) {
+      for (let k = 0; k < 3; k++) {
+        const v = f.nodes[base + (k === 0 ? 0 : c + k - 1)]
+        positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
+        t++
       }
     }
-    offsets[i + 1] = t / 3
-  })
+    next[rankOf[slot[q]]] = t / 3
+  }
   return { positions, offsets }
 }

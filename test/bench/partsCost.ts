@@ -6,13 +6,20 @@
  * against parts meshed apart (interfaceFaces.ts, run inside the patches stage), beside the whole
  * load (native read, then every stage of analysisPipeline.ts: faces, tractions, invariants,
  * element and body balance, patches, verdict). Rounds interleave the load and the part work, so a
- * load change on a shared machine hits both alike; lowest and median CPU time (process.cpuUsage:
- * this process only) and wall time. `added` = (parts + interface faces) / (load without them).
+ * load change on a shared machine hits both alike. Before each timed step a garbage collection,
+ * then 50 ms for its background threads to finish (process.cpuUsage counts every thread), so no
+ * step is billed for the garbage of the one before: without it the last round's model was freed
+ * in the next load (about 100 ms), which made the load look longer and the parts' share smaller,
+ * or in a part step that happened to collect it. Lowest and median CPU time
+ * (process.cpuUsage: this process only) and wall time. `added` = (parts + interface faces) /
+ * (load without them).
  * `npm run bench` runs it on a one-part tet4 block with a part column and on the same block as
  * four slabs of parts sharing nodes.
  * Run alone: npx tsx test/bench/partsCost.ts [parts] [rounds]
  */
 import os from 'node:os'
+import v8 from 'node:v8'
+import vm from 'node:vm'
 import { fileURLToPath } from 'node:url'
 import type { Model } from '../../src/model/model.ts'
 import { readNative, writeNative } from '../../src/io/index.ts'
@@ -57,6 +64,16 @@ function faceParts(model: Model, faces: BoundaryFaces): Int32Array {
   return out
 }
 
+// `npm run bench` starts Node without --expose-gc (as timing.ts)
+v8.setFlagsFromString('--expose-gc')
+const gc = vm.runInNewContext('gc') as () => void
+const pause = new Int32Array(new SharedArrayBuffer(4))
+/** A full collection, then 50 ms (untimed) for the collector's background sweeping. */
+function settle(): void {
+  gc()
+  Atomics.wait(pause, 0, 0, 50)
+}
+
 const stat = (a: number[]) => { const s = [...a].sort((x, y) => x - y); return { min: s[0], median: s[s.length >> 1] } }
 
 export function partsCost(model: Model, rounds = 5): PartsCost {
@@ -76,6 +93,7 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
     return asm.parts.length
   }
   const timed = <T>(fn: () => T): { value: T; cpu: number; wall: number } => {
+    settle()
     const c0 = process.cpuUsage(), w0 = performance.now()
     const value = fn()
     const c = process.cpuUsage(c0)
