@@ -31,7 +31,7 @@ import { faceCornerCount } from './freeBody.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
 import { coincidentFacePairs } from './interfaceFaces.ts'
-import { facesBetweenParts } from './partFaces.ts'
+import { facesBetweenParts, markNodes } from './partFaces.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -180,13 +180,16 @@ function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<numb
   return out
 }
 
-/** The boundaries of every part, from the whole body's faces and tractions when a load has them. */
-export function partBoundaries(mesh: Mesh, field: StressField, body?: BodyFaces): PartBoundaries {
+/**
+ * The boundaries of every part, from the whole body's faces and tractions when a load has them;
+ * `marked` the nodes' part marks when the caller has them (markSharedNodes, partFaces.ts).
+ */
+export function partBoundaries(mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null): PartBoundaries {
   const numbers = partNumbers(mesh)
   const index = new Map(numbers.map((p, k) => [p, k]))
   const outer = body?.faces ?? extractBoundaryFaces(mesh)
   const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
-  const sides = facesBetweenParts(mesh)
+  const sides = facesBetweenParts(mesh, marked)
   const inner = sides.faces
   const innerTractions = computeSurfaceTractions(allocateSurfaceTractions(inner), mesh, field, inner)
   const outerPart = facePartIndex(mesh, outer, index), innerPart = facePartIndex(mesh, inner, index)
@@ -228,10 +231,11 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
 ): AssemblyBalance {
-  const b = partBoundaries(mesh, field, body)
-  const K = b.numbers.length
-  const sums = new Float64Array(4 * K), elements = new Int32Array(K)
-  partVolumes(sums, elements, mesh, new Map(b.numbers.map((p, i) => [p, i])))
+  // one pass over the elements: the volumes per part, and the nodes' part marks for the faces between parts
+  const numbers = partNumbers(mesh), K = numbers.length
+  const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = new Int32Array(mesh.nodeCount).fill(-1)
+  partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
+  const b = partBoundaries(mesh, field, body, mark)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
     const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
@@ -254,15 +258,16 @@ const BODY_CHUNK = 1 << 16
 /**
  * Per part index (`index`: part number → index): `sums` (4·K) volume and volume-weighted centroid
  * x, y, z; `elements` (K) the element count. A chunk of elements at a time (elementVolume.ts), in
- * element order, as computeBodyBalance sums them.
+ * element order, as computeBodyBalance sums them; each chunk's corners also go into the nodes'
+ * part marks `mark` (markNodes, partFaces.ts) while they are in cache.
  */
-function partVolumes(sums: Float64Array, elements: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
+function partVolumes(sums: Float64Array, elements: Int32Array, mark: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
   const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
   const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
   // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
   const cur = new Float64Array(5), at = [0, -1] // [part index, last part number]
   for (const blk of mesh.blocks) {
-    const nn = ELEMENT_TYPES[blk.type].nodeCount
+    const nn = ELEMENT_TYPES[blk.type].nodeCount, cc = ELEMENT_TYPES[blk.type].cornerCount
     const count = blk.conn.length / nn
     for (let s = 0; s < count; s += chunk) {
       const n = Math.min(chunk, count - s)
@@ -270,6 +275,7 @@ function partVolumes(sums: Float64Array, elements: Int32Array, mesh: Mesh, index
         blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
       elementVolumesAndCentroids(piece, vol, cen)
       sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
+      markNodes(mark, blk.conn, nn, cc, blk.part, s, s + n)
     }
   }
   if (sums.length > 0) { const k = at[0]; sums[4 * k] = cur[0]; sums[4 * k + 1] = cur[1]; sums[4 * k + 2] = cur[2]; sums[4 * k + 3] = cur[3]; elements[k] = cur[4] }

@@ -28,8 +28,8 @@ export interface PartSides {
   readonly twin: Int32Array
 }
 
-export function facesBetweenParts(mesh: Mesh): PartSides {
-  const mark = markSharedNodes(mesh)
+export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null): PartSides {
+  const mark = marked ?? markSharedNodes(mesh)
   const listed = listElements(mesh, mark)
   const { refs, keys, part } = candidateFaces(mesh, listed, mark)
   const partner = pairFaces(keys, part)
@@ -55,21 +55,28 @@ export function facesBetweenParts(mesh: Mesh): PartSides {
   return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
 }
 
-/** Per node: -1 no element; p ≥ 0 elements of part p only; -2 elements of two parts or more (corner nodes). */
-function markSharedNodes(mesh: Mesh): Int32Array {
-  const mark = new Int32Array(mesh.nodeCount).fill(-1)
+/**
+ * Per node (`mark`, filled with -1 first): -1 no element; p ≥ 0 elements of part p only; -2
+ * elements of two parts or more (corner nodes). `facesBetweenParts` takes the marks from a pass
+ * over the elements that a caller makes anyway (partBalance.ts sums the volumes in it).
+ */
+export function markSharedNodes(mesh: Mesh, mark = new Int32Array(mesh.nodeCount).fill(-1)): Int32Array {
   for (const b of mesh.blocks) {
-    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, bp = b.part
-    const count = conn.length / nn
-    for (let e = 0; e < count; e++) {
-      const r = bp ? bp[e] : 0, eb = e * nn
-      for (let k = 0; k < cc; k++) {
-        const n = conn[eb + k], m = mark[n]
-        if (m !== r) mark[n] = m === -1 ? r : -2
-      }
-    }
+    const topo = ELEMENT_TYPES[b.type]
+    markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, b.part, 0, b.conn.length / topo.nodeCount)
   }
   return mark
+}
+
+/** Marks the corners of elements [from, to) of one block (connectivity `conn`, `nn` nodes each, parts `part` or 0). */
+export function markNodes(mark: Int32Array, conn: Int32Array, nn: number, cc: number, part: Int32Array | null, from: number, to: number): void {
+  for (let e = from; e < to; e++) {
+    const r = part ? part[e] : 0, eb = e * nn
+    for (let k = 0; k < cc; k++) {
+      const n = conn[eb + k], m = mark[n]
+      if (m !== r) mark[n] = m === -1 ? r : -2
+    }
+  }
 }
 
 /**
