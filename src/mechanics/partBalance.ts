@@ -182,10 +182,11 @@ function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<numb
 
 /**
  * The boundaries of every part, from the whole body's faces and tractions when a load has them;
- * `marked` the nodes' part marks when the caller has them (markSharedNodes, partFaces.ts).
+ * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has them.
  */
-export function partBoundaries(mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null): PartBoundaries {
-  const numbers = partNumbers(mesh)
+export function partBoundaries(
+  mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null, numbers: readonly number[] = partNumbers(mesh),
+): PartBoundaries {
   const index = new Map(numbers.map((p, k) => [p, k]))
   const outer = body?.faces ?? extractBoundaryFaces(mesh)
   const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
@@ -235,7 +236,7 @@ export function assemblyBalance(
   const numbers = partNumbers(mesh), K = numbers.length
   const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = new Int32Array(mesh.nodeCount).fill(-1)
   partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
-  const b = partBoundaries(mesh, field, body, mark)
+  const b = partBoundaries(mesh, field, body, mark, numbers)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
     const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
