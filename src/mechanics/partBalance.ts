@@ -11,15 +11,15 @@
  * Interfaces: a face of part b's boundary is an interface with part a when part a's boundary has
  * the same face: the same corner nodes (shared nodes: the faces between parts), or corners that
  * coincide within INTERFACE_TOL times the face size (parts meshed apart on matching grids: both
- * are faces of the whole body's boundary, paired by interfaceFaces.ts). For a pair a < b: `force` = F_ab, what a exerts on b = ∫ t dA over b's faces (b's outward normal,
- * b's stress); `moment` about the interface centroid; `mismatch` = |F_ab + F_ba| / (∫|t| dA,
+ * are faces of the whole body's boundary, paired by interfaceFaces.ts). For a pair a < b:
+ * `force` = F_ab, what a exerts on b = ∫ t dA over b's faces (b's outward normal, b's stress); `moment` about the interface centroid; `mismatch` = |F_ab + F_ba| / (∫|t| dA,
  * the mean of both sides): zero for nodal stress with shared nodes (Newton's third law holds by
  * construction), a quality figure for element-nodal stress.
  *
  * Units: model units; forces stress·length², moments stress·length³. Not a per-drag kernel:
- * it runs once per load (O(elements): a pass for the part of each element, one for the nodes
- * between parts, one for the volumes; the faces and tractions of the whole body come from the
- * load where it has them).
+ * it runs once per load (O(elements): one pass for the volumes per part and the nodes between
+ * parts, one for the elements on those nodes; the faces and tractions of the whole body come
+ * from the load where it has them).
  */
 import type { ElementBlock, Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
