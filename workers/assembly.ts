@@ -9,10 +9,11 @@
 import type { Model, Vec3 } from '../src/model/model.ts'
 import type { StressField } from '../src/model/stressField.ts'
 import { assemblyBalance, partNumbers } from '../src/mechanics/partBalance.ts'
+import type { AssemblyBalance } from '../src/mechanics/partBalance.ts'
 import { groupTriangles } from '../src/mechanics/triangleGroups.ts'
 import { partPiece } from '../src/mechanics/sectionCut.ts'
 import type { PartPiece, RegionLabels } from '../src/mechanics/sectionCut.ts'
-import type { BoundaryFaces } from '../src/mechanics/types.ts'
+import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
 import type { AssemblySummary, CutLimit } from './protocol.ts'
 import { InputError } from '../src/model/errors.ts'
 
@@ -24,18 +25,32 @@ function elementParts(model: Model): Int32Array {
 }
 
 /**
- * The assembly of `model` (null with one part), its surface triangles regrouped by part in place
- * (`index` and `triangleFace` move together, so picking still finds each triangle's face).
+ * The parts and interfaces of `model` as a load computes them: the whole body's boundary faces,
+ * their tractions (from `field`) and the faces against parts meshed apart (the load patches'
+ * label -2) are the load's own, reused (partBalance.ts). The benchmark of the per-part work at
+ * load (test/bench/partsCost.ts) runs this same function.
  */
-export function loadAssembly(
-  model: Model, field: StressField, faces: BoundaryFaces, index: Uint32Array, triangleFace: Uint32Array, faceVertexStart: Int32Array,
-): AssemblySummary | null {
-  const numbers = partNumbers(model.mesh)
-  if (numbers.length < 2) return null
+export function assemblyAtLoad(model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array): AssemblyBalance {
   const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
   const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
   const names = new Map([...info.values()].map((p) => [p.part, p.name]))
-  const asm = assemblyBalance(model.mesh, field, bodyForce, names)
+  const against = new Uint8Array(faces.count)
+  for (let f = 0; f < faces.count; f++) against[f] = faceLabel[f] === -2 ? 1 : 0
+  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against })
+}
+
+/**
+ * The assembly of `model` (null with one part), its surface triangles regrouped by part in place
+ * (`index` and `triangleFace` move together, so picking still finds each triangle's face).
+ * `tractions` and `faceLabel` are the load's on `faces` (see assemblyAtLoad).
+ */
+export function loadAssembly(
+  model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array,
+  index: Uint32Array, triangleFace: Uint32Array, faceVertexStart: Int32Array,
+): AssemblySummary | null {
+  const numbers = partNumbers(model.mesh)
+  if (numbers.length < 2) return null
+  const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel)
   const rank = new Map(numbers.map((p, k) => [p, k]))
   const partOf = elementParts(model)
   const T = triangleFace.length

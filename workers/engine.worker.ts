@@ -298,7 +298,7 @@ function pictureOf(
   const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
   const edges = buildFeatureEdges(mesh.coords, faces)
   // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
-  const assembly = loadAssembly(model, stress, faces, tri.index, tri.triangleFace, tri.faceVertexStart)
+  const assembly = loadAssembly(model, stress, faces, tractions, patches.faceLabel, tri.index, tri.triangleFace, tri.faceVertexStart)
   const surface: SurfaceBuffers = {
     positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
     ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,

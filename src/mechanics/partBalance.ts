@@ -2,35 +2,38 @@
  * Parts of an assembly: each part's own free body and the interfaces between parts.
  *
  * A part is the set of elements with one part number. Its boundary faces are those of the
- * sub-mesh of its elements (boundaryFaces.ts), so they include the faces it shares with other
- * parts. Its balance is that of computeBodyBalance over those faces with its own ρb: the residual
- * of ∮ t dA + ∫ ρb dV, moment about the part's volume centroid.
+ * sub-mesh of its elements, so they include the faces it shares with other parts; every part's
+ * are built at once from the whole body's boundary faces and the faces between parts
+ * (partFaces.ts), not by one extraction per part. Its balance is that of computeBodyBalance over
+ * those faces with its own ρb: the residual of ∮ t dA + ∫ ρb dV, moment about the part's volume
+ * centroid.
  *
  * Interfaces: a face of part b's boundary is an interface with part a when part a's boundary has
- * the same face: the same corner nodes (shared nodes), or corners that coincide within
- * INTERFACE_TOL times the face size (parts meshed apart on matching grids; a hash of the face
- * centroid quantised at that tolerance, neighbouring cells checked, then every corner). For a
- * pair a < b: `force` = F_ab, what a exerts on b = ∫ t dA over b's faces (b's outward normal,
- * b's stress); `moment` about the interface centroid; `mismatch` = |F_ab + F_ba| / (∫|t| dA,
+ * the same face: the same corner nodes (shared nodes: the faces between parts), or corners that
+ * coincide within INTERFACE_TOL times the face size (parts meshed apart on matching grids: both
+ * are faces of the whole body's boundary, paired by interfaceFaces.ts). For a pair a < b:
+ * `force` = F_ab, what a exerts on b = ∫ t dA over b's faces (b's outward normal, b's stress); `moment` about the interface centroid; `mismatch` = |F_ab + F_ba| / (∫|t| dA,
  * the mean of both sides): zero for nodal stress with shared nodes (Newton's third law holds by
  * construction), a quality figure for element-nodal stress.
  *
  * Units: model units; forces stress·length², moments stress·length³. Not a per-drag kernel:
- * it runs once per load (O(elements), one boundary pass per part).
+ * it runs once per load (O(elements): one pass for the volumes per part and the nodes between
+ * parts, one for the elements on those nodes; the faces and tractions of the whole body come
+ * from the load where it has them).
  */
 import type { ElementBlock, Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
-import { computeBodyBalance } from './balanceAudit.ts'
+import { elementVolumesAndCentroids } from './elementVolume.ts'
 import { faceCornerCount } from './freeBody.ts'
+import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
-import { cornersCoincide } from './sectionRegions.ts'
-import { nearPoints } from './coincidentSweep.ts'
+import { coincidentFacePairs } from './interfaceFaces.ts'
+import { facesBetweenParts, markNodes } from './partFaces.ts'
 
-/** Relative tolerance for corners of two parts' faces to coincide (fraction of the face size). */
-export const INTERFACE_TOL = 1e-6
+export { INTERFACE_TOL } from './interfaceFaces.ts'
 
 export interface PartRecord {
   readonly part: number
@@ -72,7 +75,11 @@ export function partNumbers(mesh: Mesh): number[] {
   const s = new Set<number>()
   for (const b of mesh.blocks) {
     if (!b.part) s.add(0)
-    else for (let e = 0; e < b.part.length; e++) s.add(b.part[e])
+    else {
+      // runs of one part are the rule: a Set lookup only where the part changes
+      let last = NaN
+      for (let e = 0; e < b.part.length; e++) { const p = b.part[e]; if (p !== last) { s.add(p); last = p } }
+    }
   }
   return [...s].sort((a, b) => a - b)
 }
@@ -118,173 +125,311 @@ export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly num
   return { mesh: sub, field: { values: field.values, rows, layout: field.layout } }
 }
 
+/** What a load already computed on the whole body (the analysis pipeline): reused, not recomputed. */
+export interface BodyFaces {
+  /** The whole body's boundary faces (extractBoundaryFaces). */
+  readonly faces: BoundaryFaces
+  /** Their tractions from the same stress field as the assembly's (computeSurfaceTractions). */
+  readonly tractions: SurfaceTractions
+  /**
+   * Per face, nonzero on a face against a part meshed apart (coincidentInterfaceFaces; the load
+   * patches' label -2): those faces are then paired among themselves only. Without it every
+   * boundary face is searched.
+   */
+  readonly against?: ArrayLike<number> | null
+}
+
+/**
+ * Every part's boundary at once. Part k's boundary faces are the whole body's boundary faces of
+ * its elements (`outer`) and the sides of the faces it shares with other parts (`inner`,
+ * partFaces.ts), in (element, local face) order: the faces, in the order, that extracting the
+ * boundary of its own sub-mesh gives. Sides are numbered outer first: side s < outer.count is
+ * outer face s, else inner face s - outer.count.
+ */
+export interface PartBoundaries {
+  /** Part numbers, ascending: a part's index is its place here. */
+  readonly numbers: readonly number[]
+  readonly outer: BoundaryFaces
+  readonly outerTractions: SurfaceTractions
+  /** Each outer face's part index. */
+  readonly outerPart: Int32Array
+  /** Each outer face's twin on a part meshed apart (-1 for none), null with one part. */
+  readonly outerTwin: Int32Array | null
+  readonly inner: BoundaryFaces
+  readonly innerTractions: SurfaceTractions
+  readonly innerPart: Int32Array
+  /** Each inner face's other side. */
+  readonly innerTwin: Int32Array
+}
+
+/**
+ * Each face's part index (`index`: part number → index); faces in element order (a cursor over
+ * the blocks, started over if the order goes back), the index looked up where the part changes.
+ */
+function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<number, number>): Int32Array {
+  const out = new Int32Array(faces.count), blocks = mesh.blocks
+  let bi = 0, last = -1, k = 0
+  for (let f = 0; f < faces.count; f++) {
+    const g = faces.elem[f]
+    if (g < blocks[bi].offset) bi = 0
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], p = b.part ? b.part[g - b.offset] : 0
+    if (p !== last) { last = p; k = index.get(p) ?? 0 }
+    out[f] = k
+  }
+  return out
+}
+
+/**
+ * The boundaries of every part, from the whole body's faces and tractions when a load has them;
+ * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has them.
+ */
+export function partBoundaries(
+  mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null, numbers: readonly number[] = partNumbers(mesh),
+): PartBoundaries {
+  const index = new Map(numbers.map((p, k) => [p, k]))
+  const outer = body?.faces ?? extractBoundaryFaces(mesh)
+  const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
+  const sides = facesBetweenParts(mesh, marked)
+  const inner = sides.faces
+  const innerTractions = computeSurfaceTractions(allocateSurfaceTractions(inner), mesh, field, inner)
+  const outerPart = facePartIndex(mesh, outer, index), innerPart = facePartIndex(mesh, inner, index)
+  const outerTwin = coincidentFacePairs(mesh.coords, outer, outerPart, body?.against ?? null)
+  return { numbers, outer, outerTractions, outerPart, outerTwin, inner, innerTractions, innerPart, innerTwin: sides.twin }
+}
+
+/**
+ * The sides of `b` in each part's boundary order, merged from outer and inner by (element, local
+ * face): calls `visit(k, side)` with part index k.
+ */
+function forEachSide(b: PartBoundaries, visit: (k: number, side: number) => void): void {
+  const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
+  let i = 0, j = 0
+  while (i < Fo || j < Fi) {
+    const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
+    if (takeOuter) { visit(outerPart[i], i); i++ } else { visit(innerPart[j], Fo + j); j++ }
+  }
+}
+
+/** Part index k's boundary sides (see PartBoundaries), in its boundary order. */
+export function partSides(b: PartBoundaries, k: number): Int32Array {
+  const out: number[] = []
+  forEachSide(b, (p, s) => { if (p === k) out.push(s) })
+  return Int32Array.from(out)
+}
+
 /**
  * Parts and interfaces of an assembly. `bodyForce(part)` gives each part's ρb (a part's own or
- * the model's); `names` the part names (empty when none).
+ * the model's); `names` the part names (empty when none); `body` the whole body's faces and
+ * tractions when a load has them (the engine), else they are computed here (the command line).
+ * Each part's balance is computeBodyBalance's over its own elements and boundary, with the sums
+ * in the same order (balanceAudit.ts).
+ *
+ * The loops over elements, faces and pairs are small functions over typed arrays: this runs once
+ * per load, so each is compiled afresh at every load (the compiler's time counts as much as the
+ * loops' own at 10^6 elements), and small monomorphic loops compile quickly.
  */
 export function assemblyBalance(
-  mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(),
+  mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
 ): AssemblyBalance {
-  const numbers = partNumbers(mesh)
-  const each = numbers.map((p) => {
-    const sub = partSubmesh(mesh, field, p)
-    const faces = extractBoundaryFaces(sub.mesh)
-    const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), sub.mesh, sub.field, faces)
-    const balance = computeBodyBalance(sub.mesh, faces, tractions, bodyForce(p))
-    return { part: p, faces, tractions, record: { part: p, name: names.get(p) ?? '', elements: sub.mesh.elementCount, volume: balance.volume, balance } }
+  // one pass over the elements: the volumes per part, and the nodes' part marks for the faces between parts
+  const numbers = partNumbers(mesh), K = numbers.length
+  const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = new Int32Array(mesh.nodeCount).fill(-1)
+  partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
+  const b = partBoundaries(mesh, field, body, mark, numbers)
+  const surf = partSurfaceSums(new Float64Array(7 * K), b)
+  const parts = b.numbers.map((p, k): PartRecord => {
+    const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
+    // computeBodyBalance's figures (balanceAudit.ts): moment about the volume centroid
+    const c: Vec3 = V !== 0 ? [sums[4 * k + 1] / V, sums[4 * k + 2] / V, sums[4 * k + 3] / V] : [0, 0, 0]
+    const surfaceForce: Vec3 = [surf[o], surf[o + 1], surf[o + 2]]
+    const bodyForceTotal: Vec3 = [w[0] * V, w[1] * V, w[2] * V]
+    const force: Vec3 = [surfaceForce[0] + bodyForceTotal[0], surfaceForce[1] + bodyForceTotal[1], surfaceForce[2] + bodyForceTotal[2]]
+    const moment = momentAbout<Vec3>([0, 0, 0], [surf[o + 3], surf[o + 4], surf[o + 5]], c, surfaceForce)
+    const gross = 0.5 * (surf[o + 6] + Math.hypot(...bodyForceTotal))
+    const balance: BodyBalance = { force, moment, relative: gross > 0 ? Math.hypot(...force) / gross : 0, gross, about: c, volume: V, centroid: c, surfaceForce, bodyForceTotal }
+    return { part: p, name: names.get(p) ?? '', elements: elements[k], volume: V, balance }
   })
-  return { parts: each.map((e) => e.record), ...matchInterfaces(mesh.coords, each) }
+  return { parts, ...matchInterfaces(mesh.coords, b) }
 }
 
-interface PartFaces { part: number; faces: BoundaryFaces; tractions: SurfaceTractions }
+/** Elements per chunk of the volume sums (2 MB of temporaries), as balanceAudit.ts. */
+const BODY_CHUNK = 1 << 16
 
-/** Pairs boundary faces of different parts by shared corner nodes or coinciding corners; sums per pair. */
-function matchInterfaces(coords: Float64Array, parts: readonly PartFaces[]): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
-  // every boundary face: owner part index, face index; keyed by its sorted corners, else geometric
-  const pairs: [number, number, number, number][] = [] // [pa, fa, pb, fb]
-  const open = matchByNodes(parts, pairs)
-  // geometric: faces whose corners coincide within INTERFACE_TOL × size; candidates from a sweep
-  // of their centroids (coincidentSweep.ts)
-  if (open.length > 1) {
-    const size = (pf: [number, number]) => Math.sqrt(parts[pf[0]].faces.area[pf[1]])
-    let cell = 0
-    for (const o of open) cell = Math.max(cell, INTERFACE_TOL * size(o))
-    if (cell > 0) {
-      const points = new Float64Array(3 * open.length)
-      open.forEach((o, i) => { for (let k = 0; k < 3; k++) points[3 * i + k] = parts[o[0]].faces.centroid[3 * o[1] + k] })
-      const near = nearPoints(points, open.length, 2 * cell)
-      const used = new Uint8Array(open.length)
-      open.forEach((o, i) => {
-        for (let k = near.start[i]; k < near.start[i + 1] && !used[i]; k++) {
-          const j = near.list[k]
-          if (used[j] || open[j][0] === o[0]) continue
-          const tol = INTERFACE_TOL * Math.min(size(o), size(open[j]))
-          if (Math.hypot(points[3 * i] - points[3 * j], points[3 * i + 1] - points[3 * j + 1], points[3 * i + 2] - points[3 * j + 2]) > tol) continue
-          if (!faceCornersCoincide(coords, parts, o, open[j], tol)) continue
-          used[i] = 1; used[j] = 1
-          pairs.push([o[0], o[1], open[j][0], open[j][1]])
-        }
-      })
+/**
+ * Per part index (`index`: part number → index): `sums` (4·K) volume and volume-weighted centroid
+ * x, y, z; `elements` (K) the element count. A chunk of elements at a time (elementVolume.ts), in
+ * element order, as computeBodyBalance sums them; each chunk's corners also go into the nodes'
+ * part marks `mark` (markNodes, partFaces.ts) while they are in cache.
+ */
+function partVolumes(sums: Float64Array, elements: Int32Array, mark: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
+  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
+  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
+  // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
+  const cur = new Float64Array(5), at = [0, -1] // [part index, last part number]
+  for (const blk of mesh.blocks) {
+    const nn = ELEMENT_TYPES[blk.type].nodeCount, cc = ELEMENT_TYPES[blk.type].cornerCount
+    const count = blk.conn.length / nn
+    for (let s = 0; s < count; s += chunk) {
+      const n = Math.min(chunk, count - s)
+      const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
+        blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
+      elementVolumesAndCentroids(piece, vol, cen)
+      sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
+      markNodes(mark, blk.conn, nn, cc, blk.part, s, s + n)
     }
   }
-  // sums per pair of parts
-  interface Acc { a: number; b: number; faces: number; area: number; cx: number; cy: number; cz: number; fb: Vec3; fa: Vec3; m0: Vec3; gross: number; drawn: number[] }
-  const accs = new Map<number, Acc>() // by pa · (part count) + pb (part indices; numbers ascend with them)
-  for (const [p1, f1, p2, f2] of pairs) {
-    // orient: a is the lower part number
-    const [pa, fa, pb, fb] = parts[p1].part < parts[p2].part ? [p1, f1, p2, f2] : [p2, f2, p1, f1]
-    const k = pa * parts.length + pb
-    let acc = accs.get(k)
-    if (!acc) { acc = { a: parts[pa].part, b: parts[pb].part, faces: 0, area: 0, cx: 0, cy: 0, cz: 0, fb: [0, 0, 0], fa: [0, 0, 0], m0: [0, 0, 0], gross: 0, drawn: [] }; accs.set(k, acc) }
-    const B = parts[pb], A = parts[pa]
-    const ar = B.faces.area[fb]
-    acc.faces++
-    acc.area += ar
-    acc.cx += ar * B.faces.centroid[3 * fb]; acc.cy += ar * B.faces.centroid[3 * fb + 1]; acc.cz += ar * B.faces.centroid[3 * fb + 2]
-    for (let c = 0; c < 3; c++) {
-      acc.fb[c] += B.tractions.force[3 * fb + c]
-      acc.fa[c] += A.tractions.force[3 * fa + c]
-      acc.m0[c] += B.tractions.moment[3 * fb + c]
-    }
-    acc.gross += 0.5 * (B.tractions.meanMagnitude[fb] * ar + A.tractions.meanMagnitude[fa] * A.faces.area[fa])
-    acc.drawn.push(pb, fb)
-  }
-  const sorted = [...accs.values()].sort((x, y) => x.a - y.a || x.b - y.b)
-  const interfaces = sorted.map((s) => {
-    const c: Vec3 = s.area > 0 ? [s.cx / s.area, s.cy / s.area, s.cz / s.area] : [0, 0, 0]
-    const F = s.fb
-    // M_c = M_0 - c × F
-    const moment: Vec3 = [s.m0[0] - (c[1] * F[2] - c[2] * F[1]), s.m0[1] - (c[2] * F[0] - c[0] * F[2]), s.m0[2] - (c[0] * F[1] - c[1] * F[0])]
-    const sum = Math.hypot(F[0] + s.fa[0], F[1] + s.fa[1], F[2] + s.fa[2])
-    return {
-      parts: [s.a, s.b] as [number, number], faces: s.faces, area: s.area, centroid: c, force: [F[0], F[1], F[2]] as Vec3, moment,
-      reverseForce: [s.fa[0], s.fa[1], s.fa[2]] as Vec3, mismatch: s.gross > 0 ? sum / s.gross : 0, gross: s.gross,
-    }
-  })
-  return { interfaces, interfaceMesh: interfaceTriangles(coords, parts, sorted.map((s) => s.drawn)) }
+  if (sums.length > 0) { const k = at[0]; sums[4 * k] = cur[0]; sums[4 * k + 1] = cur[1]; sums[4 * k + 2] = cur[2]; sums[4 * k + 3] = cur[3]; elements[k] = cur[4] }
 }
 
-/** Corner triangles of each interface's faces (pairs [part index, face index]), for drawing. */
-function interfaceTriangles(coords: Float64Array, parts: readonly PartFaces[], drawn: readonly number[][]): AssemblyBalance['interfaceMesh'] {
-  let T = 0
-  for (const list of drawn) for (let k = 0; k < list.length; k += 2) T += faceCornerCount(parts[list[k]].faces.kind[list[k + 1]]) - 2
-  const positions = new Float32Array(9 * T), offsets = new Int32Array(drawn.length + 1)
-  let t = 0
-  drawn.forEach((list, i) => {
-    for (let k = 0; k < list.length; k += 2) {
-      const f = parts[list[k]].faces, face = list[k + 1], nc = faceCornerCount(f.kind[face]), base = f.slots * face
-      for (let c = 1; c + 1 < nc; c++) {
-        for (let q = 0; q < 3; q++) {
-          const v = f.nodes[base + (q === 0 ? 0 : c + q - 1)]
-          positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
-          t++
-        }
+function sumChunk(
+  sums: Float64Array, elements: Int32Array, cur: Float64Array, at: number[], vol: Float64Array, cen: Float64Array, n: number,
+  part: Int32Array | null, first: number, index: ReadonlyMap<number, number>,
+): void {
+  let k = at[0], last = at[1], V = cur[0], X = cur[1], Y = cur[2], Z = cur[3], n0 = cur[4]
+  for (let e = 0; e < n; e++) {
+    const p = part ? part[first + e] : 0
+    if (p !== last) {
+      last = p
+      const r = index.get(p) ?? 0
+      if (r !== k) {
+        sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
+        k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
       }
     }
-    offsets[i + 1] = t / 3
-  })
-  return { positions, offsets }
+    const v = vol[e]
+    n0++
+    V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
+  }
+  at[0] = k; at[1] = last; cur[0] = V; cur[1] = X; cur[2] = Y; cur[3] = Z; cur[4] = n0
 }
 
 /**
- * Pairs boundary faces of different parts with the same corner nodes (pushed to `pairs` in the
- * order the second is met); returns the faces left, in the order first met. A table keyed by the
- * sorted corners (open addressing over typed arrays: no string per face).
+ * Per part index (7 per part in `out`): surface force x, y, z, moment about the origin x, y, z,
+ * and the sum of |face force|, over its sides in its boundary order (forEachSide's merge, inline).
  */
-function matchByNodes(parts: readonly PartFaces[], pairs: [number, number, number, number][]): [number, number][] {
-  let total = 0
-  for (const p of parts) total += p.faces.count
-  let slots = 1024
-  while (slots < 2 * total) slots *= 2
-  const mask = slots - 1
-  // per slot: 4 sorted corners (-1 pads a triangle), owner part index, face index (-1: free or matched away)
-  const key = new Int32Array(4 * slots), owner = new Int32Array(slots).fill(-1), face = new Int32Array(slots).fill(-1)
-  const used = new Uint8Array(slots), last = new Int32Array(slots)
-  const order: number[] = [] // slots in the order filled (a slot filled again after its pair: listed again)
-  parts.forEach((p, pi) => {
-    const { faces } = p
-    for (let f = 0; f < faces.count; f++) {
-      const nc = faceCornerCount(faces.kind[f])
-      const o = faces.slots * f
-      // sorted by a five-compare network (a triangle's missing fourth sorts last)
-      let c0 = faces.nodes[o], c1 = faces.nodes[o + 1], c2 = faces.nodes[o + 2], c3 = nc > 3 ? faces.nodes[o + 3] : 0x7fffffff, x
-      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
-      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
-      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
-      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
-      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
-      let h = (Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d) + Math.imul(c3, 0x27d4eb2f)) | 0
-      h = (h ^ (h >>> 15)) & mask
-      while (used[h] && !(key[4 * h] === c0 && key[4 * h + 1] === c1 && key[4 * h + 2] === c2 && key[4 * h + 3] === c3)) h = (h + 1) & mask
-      if (!used[h]) {
-        used[h] = 1
-        key[4 * h] = c0; key[4 * h + 1] = c1; key[4 * h + 2] = c2; key[4 * h + 3] = c3
-        owner[h] = pi; face[h] = f
-        last[h] = order.length; order.push(h)
-      } else if (owner[h] >= 0 && owner[h] !== pi) {
-        pairs.push([owner[h], face[h], pi, f])
-        owner[h] = -1
-      } else if (owner[h] < 0) {
-        // met again after its pair was taken: open again, now last in order (as a map entry set anew)
-        owner[h] = pi; face[h] = f
-        last[h] = order.length; order.push(h)
-      } else face[h] = f // the same part again: the later face stands for the key
-    }
-  })
-  const open: [number, number][] = []
-  for (let k = 0; k < order.length; k++) {
-    const h = order[k]
-    // a slot reopened later is listed at its last filling only
-    if (owner[h] >= 0 && last[h] === k) open.push([owner[h], face[h]])
+function partSurfaceSums(out: Float64Array, b: PartBoundaries): Float64Array {
+  const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
+  const oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
+  let i = 0, j = 0
+  while (i < Fo || j < Fi) {
+    const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
+    const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, f = takeOuter ? i++ : j++, o = 7 * (takeOuter ? outerPart[f] : innerPart[f])
+    const x = F[3 * f], y = F[3 * f + 1], z = F[3 * f + 2]
+    out[o] += x; out[o + 1] += y; out[o + 2] += z
+    out[o + 3] += M[3 * f]; out[o + 4] += M[3 * f + 1]; out[o + 5] += M[3 * f + 2]
+    out[o + 6] += Math.sqrt(x * x + y * y + z * z)
   }
-  return open
+  return out
 }
 
-function faceCornersCoincide(coords: Float64Array, parts: readonly PartFaces[], a: [number, number], b: [number, number], tol: number): boolean {
-  const corners = (pf: [number, number]): number[] => {
-    const f = parts[pf[0]].faces, nc = faceCornerCount(f.kind[pf[1]])
-    return Array.from(f.nodes.subarray(f.slots * pf[1], f.slots * pf[1] + nc))
+/** Per interface (a slot), in `acc`: faces, area, area·centroid (3), F_ab (3), F_ba (3), moment of F_ab about the origin (3), gross. */
+const ACC = 15
+
+/** Pairs of sides (shared nodes, then meshed apart), the side in the lower part first, as Int32Array(2·pairs). */
+function sidePairs(b: PartBoundaries): Int32Array {
+  const { outer, inner, outerPart, innerPart, innerTwin, outerTwin } = b, Fo = outer.count, Fi = inner.count
+  let n = 0
+  for (let i = 0; i < Fi; i++) if (i < innerTwin[i]) n++
+  if (outerTwin) for (let f = 0; f < Fo; f++) if (f < outerTwin[f]) n++
+  const pairs = new Int32Array(2 * n)
+  let q = 0
+  for (let i = 0; i < Fi; i++) {
+    const t = innerTwin[i]
+    if (i >= t) continue
+    const low = innerPart[i] < innerPart[t]
+    pairs[q++] = Fo + (low ? i : t); pairs[q++] = Fo + (low ? t : i)
   }
-  const ca = corners(a), cb = corners(b)
-  return ca.length === cb.length && cornersCoincide(coords, ca, cb, tol)
+  if (outerTwin) for (let f = 0; f < Fo; f++) {
+    const t = outerTwin[f]
+    if (f >= t) continue
+    const low = outerPart[f] < outerPart[t]
+    pairs[q++] = low ? f : t; pairs[q++] = low ? t : f
+  }
+  return pairs
+}
+
+/** Sums the pairs into `acc` (ACC per slot; slot[q] is pair q's interface). */
+function sumPairs(acc: Float64Array, pairs: Int32Array, slot: Int32Array, b: PartBoundaries): void {
+  const { outer, inner, outerTractions: oT, innerTractions: iT } = b, Fo = outer.count
+  for (let q = 0; q < slot.length; q++) {
+    const sa = pairs[2 * q], sb = pairs[2 * q + 1], o = ACC * slot[q]
+    const A = sa < Fo ? outer : inner, TA = sa < Fo ? oT : iT, fa = sa < Fo ? sa : sa - Fo
+    const B = sb < Fo ? outer : inner, TB = sb < Fo ? oT : iT, fb = sb < Fo ? sb : sb - Fo
+    const ar = B.area[fb]
+    acc[o]++
+    acc[o + 1] += ar
+    acc[o + 2] += ar * B.centroid[3 * fb]; acc[o + 3] += ar * B.centroid[3 * fb + 1]; acc[o + 4] += ar * B.centroid[3 * fb + 2]
+    acc[o + 5] += TB.force[3 * fb]; acc[o + 6] += TB.force[3 * fb + 1]; acc[o + 7] += TB.force[3 * fb + 2]
+    acc[o + 8] += TA.force[3 * fa]; acc[o + 9] += TA.force[3 * fa + 1]; acc[o + 10] += TA.force[3 * fa + 2]
+    acc[o + 11] += TB.moment[3 * fb]; acc[o + 12] += TB.moment[3 * fb + 1]; acc[o + 13] += TB.moment[3 * fb + 2]
+    acc[o + 14] += 0.5 * (TB.meanMagnitude[fb] * ar + TA.meanMagnitude[fa] * A.area[fa])
+  }
+}
+
+/** Sums the pairs of sides per pair of parts. */
+function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
+  const { outer, numbers, outerPart, innerPart } = b, Fo = outer.count, K = numbers.length
+  const pairs = sidePairs(b), P = pairs.length / 2
+  // each pair's interface: slots by key ka · K + kb (part indices ascend with the numbers), in the
+  // order first met; the map only where the pair of parts changes (pairs come in runs)
+  const slot = new Int32Array(P), keys: number[] = [], slotOf = new Map<number, number>()
+  let lastKey = -1, last = -1
+  for (let q = 0; q < P; q++) {
+    const sa = pairs[2 * q], sb = pairs[2 * q + 1]
+    const key = (sa < Fo ? outerPart[sa] : innerPart[sa - Fo]) * K + (sb < Fo ? outerPart[sb] : innerPart[sb - Fo])
+    if (key !== lastKey) {
+      lastKey = key
+      last = slotOf.get(key) ?? -1
+      if (last < 0) { last = keys.length; slotOf.set(key, last); keys.push(key) }
+    }
+    slot[q] = last
+  }
+  const acc = new Float64Array(ACC * keys.length)
+  sumPairs(acc, pairs, slot, b)
+  const order = keys.map((_, i) => i).sort((x, y) => keys[x] - keys[y])
+  const interfaces = order.map((i): InterfaceRecord => {
+    const o = ACC * i, area = acc[o + 1], ka = Math.floor(keys[i] / K), kb = keys[i] % K
+    const c: Vec3 = area > 0 ? [acc[o + 2] / area, acc[o + 3] / area, acc[o + 4] / area] : [0, 0, 0]
+    const F: Vec3 = [acc[o + 5], acc[o + 6], acc[o + 7]], R: Vec3 = [acc[o + 8], acc[o + 9], acc[o + 10]], gross = acc[o + 14]
+    // M_c = M_0 - c × F
+    const moment: Vec3 = [acc[o + 11] - (c[1] * F[2] - c[2] * F[1]), acc[o + 12] - (c[2] * F[0] - c[0] * F[2]), acc[o + 13] - (c[0] * F[1] - c[1] * F[0])]
+    const sum = Math.hypot(F[0] + R[0], F[1] + R[1], F[2] + R[2])
+    return {
+      parts: [numbers[ka], numbers[kb]], faces: acc[o], area, centroid: c, force: F, moment,
+      reverseForce: R, mismatch: gross > 0 ? sum / gross : 0, gross,
+    }
+  })
+  return { interfaces, interfaceMesh: interfaceTriangles(coords, b, pairs, slot, order) }
+}
+
+/**
+ * Corner triangles of each interface's faces (the second side of each pair, interfaces in
+ * `order` of their slots, each one's faces in pair order), for drawing.
+ */
+function interfaceTriangles(coords: Float64Array, b: PartBoundaries, pairs: Int32Array, slot: Int32Array, order: readonly number[]): AssemblyBalance['interfaceMesh'] {
+  const { outer, inner } = b, Fo = outer.count, S = order.length, P = slot.length
+  // triangles per slot, then each slot's first triangle in the drawing order
+  const rankOf = new Int32Array(S)
+  order.forEach((i, r) => { rankOf[i] = r })
+  const offsets = new Int32Array(S + 1)
+  for (let q = 0; q < P; q++) {
+    const s = pairs[2 * q + 1]
+    offsets[rankOf[slot[q]] + 1] += faceCornerCount(s < Fo ? outer.kind[s] : inner.kind[s - Fo]) - 2
+  }
+  for (let r = 0; r < S; r++) offsets[r + 1] += offsets[r]
+  const T = offsets[S], positions = new Float32Array(9 * T), next = offsets.slice(0, S)
+  for (let q = 0; q < P; q++) {
+    const s = pairs[2 * q + 1], f = s < Fo ? outer : inner, face = s < Fo ? s : s - Fo, nc = faceCornerCount(f.kind[face]), base = f.slots * face
+    let t = 3 * next[rankOf[slot[q]]]
+    for (let c = 1; c + 1 < nc; c++) {
+      for (let k = 0; k < 3; k++) {
+        const v = f.nodes[base + (k === 0 ? 0 : c + k - 1)]
+        positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
+        t++
+      }
+    }
+    next[rankOf[slot[q]]] = t / 3
+  }
+  return { positions, offsets }
 }

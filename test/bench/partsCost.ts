@@ -1,24 +1,34 @@
 /**
  * What assemblies add to a load at about 10^6 elements: the per-part work (the part list, and with
  * two parts or more each part's boundary faces, tractions and balance and the interfaces between
- * parts, partBalance.ts, as the engine runs it once per load: workers/assembly.ts) and the faces
+ * parts, partBalance.ts, as the engine runs it once per load: assemblyAtLoad in workers/assembly.ts,
+ * with the load's own boundary faces, tractions and patch labels) and the faces
  * against parts meshed apart (interfaceFaces.ts, run inside the patches stage), beside the whole
  * load (native read, then every stage of analysisPipeline.ts: faces, tractions, invariants,
  * element and body balance, patches, verdict). Rounds interleave the load and the part work, so a
- * load change on a shared machine hits both alike; lowest and median CPU time (process.cpuUsage:
- * this process only) and wall time. `added` = (parts + interface faces) / (load without them).
+ * load change on a shared machine hits both alike. Before each timed step a garbage collection,
+ * then 50 ms for its background threads to finish (process.cpuUsage counts every thread), so no
+ * step is billed for the garbage of the one before: without it the last round's model was freed
+ * in the next load (about 100 ms), which made the load look longer and the parts' share smaller,
+ * or in a part step that happened to collect it. Lowest and median CPU time
+ * (process.cpuUsage: this process only) and wall time. `added` = (parts + interface faces) /
+ * (load without them).
  * `npm run bench` runs it on a one-part tet4 block with a part column and on the same block as
  * four slabs of parts sharing nodes.
  * Run alone: npx tsx test/bench/partsCost.ts [parts] [rounds]
  */
 import os from 'node:os'
+import v8 from 'node:v8'
+import vm from 'node:vm'
 import { fileURLToPath } from 'node:url'
 import type { Model } from '../../src/model/model.ts'
 import { readNative, writeNative } from '../../src/io/index.ts'
 import { runAnalysis, analysisInputOf } from '../../src/mechanics/analysisPipeline.ts'
-import { assemblyBalance, partNumbers } from '../../src/mechanics/partBalance.ts'
+import { partNumbers } from '../../src/mechanics/partBalance.ts'
+import { assemblyAtLoad } from '../../workers/assembly.ts'
+import type { AnalysisResult } from '../../src/mechanics/analysisPipeline.ts'
+import type { StressField } from '../../src/model/stressField.ts'
 import { coincidentInterfaceFaces } from '../../src/mechanics/interfaceFaces.ts'
-import { modelStressField } from '../../src/model/stressField.ts'
 import type { BoundaryFaces } from '../../src/mechanics/types.ts'
 import { syntheticModel } from './syntheticModel.ts'
 
@@ -54,6 +64,16 @@ function faceParts(model: Model, faces: BoundaryFaces): Int32Array {
   return out
 }
 
+// `npm run bench` starts Node without --expose-gc (as timing.ts)
+v8.setFlagsFromString('--expose-gc')
+const gc = vm.runInNewContext('gc') as () => void
+const pause = new Int32Array(new SharedArrayBuffer(4))
+/** A full collection, then 50 ms (untimed) for the collector's background sweeping. */
+function settle(): void {
+  gc()
+  Atomics.wait(pause, 0, 0, 50)
+}
+
 const stat = (a: number[]) => { const s = [...a].sort((x, y) => x - y); return { min: s[0], median: s[s.length >> 1] } }
 
 export function partsCost(model: Model, rounds = 5): PartsCost {
@@ -61,17 +81,19 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
   let interfaces = 0
   const load = () => {
     const m = readNative(bytes, 'bench.tractus')
-    return { m, r: runAnalysis(analysisInputOf(m), { balancePrecision: 'single' }) }
+    const input = analysisInputOf(m)
+    return { m, stress: input.stress, r: runAnalysis(input, { balancePrecision: 'single' }) }
   }
-  // the engine's assembly step: the part list, and the assembly only with two parts or more
-  const parts = (m: Model) => {
+  // the engine's assembly step (loadAssembly): the part list, and the assembly only with two parts or more
+  const parts = (m: Model, stress: StressField, r: AnalysisResult) => {
     const numbers = partNumbers(m.mesh)
     if (numbers.length < 2) return 0
-    const asm = assemblyBalance(m.mesh, modelStressField(m), () => m.bodyForce)
+    const asm = assemblyAtLoad(m, stress, r.faces, r.tractions, r.loadPatches.faceLabel)
     interfaces = asm.interfaces.length
     return asm.parts.length
   }
   const timed = <T>(fn: () => T): { value: T; cpu: number; wall: number } => {
+    settle()
     const c0 = process.cpuUsage(), w0 = performance.now()
     const value = fn()
     const c = process.cpuUsage(c0)
@@ -80,7 +102,7 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
   const loadCpu: number[] = [], partsCpu: number[] = [], faceCpu: number[] = [], loadWall: number[] = [], partsWall: number[] = [], faceWall: number[] = []
   for (let i = 0; i < rounds + 1; i++) {
     const l = timed(load)
-    const p = timed(() => parts(l.value.m))
+    const p = timed(() => parts(l.value.m, l.value.stress, l.value.r))
     const fp = faceParts(l.value.m, l.value.r.faces)
     const f = timed(() => coincidentInterfaceFaces(l.value.m.mesh.coords, l.value.r.faces, fp))
     if (i === 0) continue // warm-up

@@ -13,10 +13,8 @@ import { nodeDistances } from '../../src/mechanics/sectionCut.ts'
 import { COINCIDENT_TOL, createCutRecord, labelRegions, recordElement } from '../../src/mechanics/sectionRegions.ts'
 import type { CutRecord } from '../../src/mechanics/sectionRegions.ts'
 import { ELEMENT_TYPES } from '../../src/model/elementTypes.ts'
-import type { ElementTypeName } from '../../src/model/elementTypes.ts'
 import type { Mesh, Vec3 } from '../../src/model/model.ts'
-import { assembly } from '../helpers/assemblies.ts'
-import type { PieceSpec } from '../helpers/assemblies.ts'
+import { randomAssembly } from '../helpers/assemblies.ts'
 import { mulberry32, rotateMesh, rotationFromUniforms } from '../helpers/rotation.ts'
 
 const SEED = 20261202
@@ -79,27 +77,6 @@ function referenceLabels(sel: Int32Array, n: number, r: CutRecord, mesh: Mesh, d
     if (!id.has(root)) id.set(root, id.size)
     return id.get(root)!
   })
-}
-
-const TYPES: readonly ElementTypeName[] = ['tet4', 'tet10', 'hex8', 'hex20', 'wedge6', 'pyramid5']
-
-/** A random assembly: 2-5 boxes on a unit lattice (they touch face to face), random types and parts. */
-function randomAssembly(rnd: () => number): { mesh: Mesh; merged: boolean } {
-  const pieces: PieceSpec[] = []
-  const count = 2 + Math.floor(4 * rnd())
-  // one grid spacing for all, so faces of touching boxes match (a type's own split may differ)
-  for (let p = 0; p < count; p++) {
-    const at = [Math.floor(3 * rnd()), Math.floor(2 * rnd()), Math.floor(2 * rnd())]
-    pieces.push({
-      box: { nx: 2, ny: 2, nz: 2, lx: 1, ly: 1, lz: 1, x0: at[0], y0: at[1], z0: at[2] },
-      type: TYPES[Math.floor(rnd() * TYPES.length)], part: 1 + Math.floor(3 * rnd()),
-    })
-  }
-  // boxes on the same lattice cell would overlap: keep the first of each
-  const seen = new Set<string>()
-  const kept = pieces.filter((p) => { const k = `${p.box.x0},${p.box.y0},${p.box.z0}`; if (seen.has(k)) return false; seen.add(k); return true })
-  const merged = rnd() < 0.5
-  return { mesh: assembly(kept, merged), merged }
 }
 
 /** The record a cut makes: every element with corners on both sides (d < 0 and d ≥ 0), in order. */

@@ -1,0 +1,177 @@
+/**
+ * Faces between parts that share nodes, for every part at once: the interior faces of the mesh
+ * whose two elements have different part numbers, each taken once per side (that side's element,
+ * its local face, its nodes in that element's outward order). With the whole body's boundary
+ * faces they make every part's boundary (partBalance.ts) without one face extraction per part.
+ *
+ * One pass marks the corner nodes touched by more than one part; a second lists the elements
+ * with three corners or more so marked (an element's first corners usually tell it has not). Only their faces whose corners are all marked can lie
+ * between parts, and those few are paired by their sorted corners in an open-addressing table
+ * over typed arrays (a triangle pads its fourth corner, so it never pairs with a quadrilateral).
+ * A pair of the same part is an interior face of that part and is dropped.
+ *
+ * Part numbers come from the blocks (0 without; they are ≥ 0, so -1 and -2 can mark nodes). Returns
+ * the sides as BoundaryFaces (slots = faceSlotsOf(mesh.blocks), as extractBoundaryFaces gives the
+ * whole body), ordered by (element, local face) like extractBoundaryFaces, and `twin` Int32Array(F)
+ * the index of each side's other side. Lengths in model units.
+ */
+import { ELEMENT_TYPES, FACE_KIND_CODE } from '../model/elementTypes.ts'
+import type { Mesh } from '../model/model.ts'
+import { computeFaceGeometry, faceSlotsOf } from './boundaryFaces.ts'
+import type { BoundaryFaces } from './types.ts'
+
+/** A face reference is globalElement·8 + localFace (at most 6 faces per element), as boundaryFaces.ts. */
+const REF_STRIDE = 8
+
+export interface PartSides {
+  readonly faces: BoundaryFaces
+  readonly twin: Int32Array
+}
+
+export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null): PartSides {
+  const mark = marked ?? markSharedNodes(mesh)
+  const listed = listElements(mesh, mark)
+  const { refs, keys, part } = candidateFaces(mesh, listed, mark)
+  const partner = pairFaces(keys, part)
+  // the sides: candidates with a twin, already in (element, local face) order
+  const C = refs.length
+  const at = new Int32Array(C)
+  let P = 0
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+  const twin = new Int32Array(P), sorted = new Int32Array(P)
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) { twin[at[i]] = at[partner[i]]; sorted[at[i]] = refs[i] }
+  const blocks = mesh.blocks, S = faceSlotsOf(blocks)
+  const elem = new Int32Array(P), localFace = new Uint8Array(P), kind = new Uint8Array(P), nodes = new Int32Array(S * P).fill(-1)
+  let bi = 0
+  for (let k = 0; k < P; k++) {
+    const g = (sorted[k] / REF_STRIDE) | 0, f = sorted[k] - g * REF_STRIDE
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], face = topo.faces[f], eb = (g - b.offset) * topo.nodeCount
+    elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
+    for (let a = 0; a < face.length; a++) nodes[S * k + a] = b.conn[eb + face[a]]
+  }
+  const area = new Float64Array(P), normal = new Float64Array(3 * P), centroid = new Float64Array(3 * P)
+  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
+  return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
+}
+
+/**
+ * Per node (`mark`, filled with -1 first): -1 no element; p ≥ 0 elements of part p only; -2
+ * elements of two parts or more (corner nodes). `facesBetweenParts` takes the marks from a pass
+ * over the elements that a caller makes anyway (partBalance.ts sums the volumes in it).
+ */
+export function markSharedNodes(mesh: Mesh, mark = new Int32Array(mesh.nodeCount).fill(-1)): Int32Array {
+  for (const b of mesh.blocks) {
+    const topo = ELEMENT_TYPES[b.type]
+    markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, b.part, 0, b.conn.length / topo.nodeCount)
+  }
+  return mark
+}
+
+/** Marks the corners of elements [from, to) of one block (connectivity `conn`, `nn` nodes each, parts `part` or 0). */
+export function markNodes(mark: Int32Array, conn: Int32Array, nn: number, cc: number, part: Int32Array | null, from: number, to: number): void {
+  for (let e = from; e < to; e++) {
+    const r = part ? part[e] : 0, eb = e * nn
+    for (let k = 0; k < cc; k++) {
+      const n = conn[eb + k], m = mark[n]
+      if (m !== r) mark[n] = m === -1 ? r : -2
+    }
+  }
+}
+
+/**
+ * The elements with three corners or more on nodes of several parts (a face between parts has all
+ * its corners there), by global index ascending: the only ones read again. Read from one byte per
+ * node (it stays in cache better than the marks), and an element whose first cornerCount - 2
+ * corners have none is passed at once (it can have two at most).
+ */
+function listElements(mesh: Mesh, mark: Int32Array): Int32Array {
+  const N = mesh.nodeCount, shared = new Uint8Array(N)
+  for (let i = 0; i < N; i++) shared[i] = mark[i] === -2 ? 1 : 0
+  const listed: number[] = []
+  for (const b of mesh.blocks) {
+    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
+    const count = conn.length / nn, first = cc - 2
+    for (let e = 0; e < count; e++) {
+      const eb = e * nn
+      let mixed = 0, k = 0
+      for (; k < first; k++) mixed += shared[conn[eb + k]]
+      if (mixed === 0) continue
+      for (; k < cc; k++) mixed += shared[conn[eb + k]]
+      if (mixed >= 3) listed.push(off + e)
+    }
+  }
+  return Int32Array.from(listed)
+}
+
+/**
+ * The listed elements' faces with every corner on nodes of several parts, in (element, local
+ * face) order: `refs` their references, `keys` 4 sorted corners each (a triangle's missing fourth
+ * is the node count, so it sorts last and never equals a node), `part` their element's part.
+ */
+function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { refs: Int32Array; keys: Int32Array; part: Int32Array } {
+  const blocks = mesh.blocks, none = mesh.nodeCount
+  let refs = new Int32Array(0), keys = new Int32Array(0), part = new Int32Array(0)
+  // two rounds: count, then fill
+  for (let round = 0; round < 2; round++) {
+    let C = 0, bi = 0
+    for (let i = 0; i < listed.length; i++) {
+      const g = listed[i]
+      while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+      const b = blocks[bi], topo = ELEMENT_TYPES[b.type], nf = topo.faces.length, fc = topo.cornerFaces, conn = b.conn
+      const eb = (g - b.offset) * topo.nodeCount
+      for (let f = 0; f < nf; f++) {
+        let c0 = conn[eb + fc[4 * f]], c1 = conn[eb + fc[4 * f + 1]], c2 = conn[eb + fc[4 * f + 2]]
+        const l3 = fc[4 * f + 3]
+        let c3 = l3 >= 0 ? conn[eb + l3] : none
+        if (mark[c0] !== -2 || mark[c1] !== -2 || mark[c2] !== -2 || (l3 >= 0 && mark[c3] !== -2)) continue
+        if (round === 1) {
+          // five-compare sorting network
+          let x = 0
+          if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+          if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+          if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+          if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+          if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+          refs[C] = g * REF_STRIDE + f
+          part[C] = b.part ? b.part[g - b.offset] : 0
+          keys[4 * C] = c0; keys[4 * C + 1] = c1; keys[4 * C + 2] = c2; keys[4 * C + 3] = c3
+        }
+        C++
+      }
+    }
+    if (round === 0) { refs = new Int32Array(C); keys = new Int32Array(4 * C); part = new Int32Array(C) }
+  }
+  return { refs, keys, part }
+}
+
+/**
+ * Each candidate's twin of another part (-1 for none): candidates with the same sorted corners,
+ * paired in an open-addressing table. Two of one part are an interior face of that part; a face
+ * of three elements is refused by the whole body's extraction, here the first pair stands.
+ */
+function pairFaces(keys: Int32Array, part: Int32Array): Int32Array {
+  const C = part.length
+  let slots = 16
+  while (slots < 2 * C) slots *= 2
+  const mask = slots - 1
+  // per slot: -1 free; w ≥ 0 candidate w waits for its twin; -2 - w candidate w was paired
+  const slot = new Int32Array(slots).fill(-1), partner = new Int32Array(C).fill(-1)
+  for (let i = 0; i < C; i++) {
+    const c0 = keys[4 * i], c1 = keys[4 * i + 1], c2 = keys[4 * i + 2], c3 = keys[4 * i + 3]
+    let h = (Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d) + Math.imul(c3, 0x27d4eb2f)) | 0
+    h = (h ^ (h >>> 15)) & mask
+    for (; ; h = (h + 1) & mask) {
+      const w = slot[h]
+      if (w === -1) { slot[h] = i; break }
+      const o = 4 * (w >= 0 ? w : -2 - w)
+      if (keys[o] !== c0 || keys[o + 1] !== c1 || keys[o + 2] !== c2 || keys[o + 3] !== c3) continue
+      if (w >= 0) {
+        if (part[w] !== part[i]) { partner[w] = i; partner[i] = w }
+        slot[h] = -2 - w
+      }
+      break
+    }
+  }
+  return partner
+}
