@@ -32,10 +32,7 @@ export function loadAssembly(
 ): AssemblySummary | null {
   const numbers = partNumbers(model.mesh)
   if (numbers.length < 2) return null
-  const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
-  const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
-  const names = new Map([...info.values()].map((p) => [p.part, p.name]))
-  const asm = assemblyBalance(model.mesh, field, bodyForce, names)
+  const asm = balanceOfParts(model, field)
   const rank = new Map(numbers.map((p, k) => [p, k]))
   const partOf = elementParts(model)
   const T = triangleFace.length
@@ -49,6 +46,24 @@ export function loadAssembly(
     parts: asm.parts, interfaces: asm.interfaces, partTriangles, vertexPart,
     interfacePositions: asm.interfaceMesh.positions, interfaceTriangles: asm.interfaceMesh.offsets,
   }
+}
+
+/** The parts' balance and interfaces of the model's stress (assemblyBalance with the parts' own body forces and names). */
+function balanceOfParts(model: Model, field: StressField): ReturnType<typeof assemblyBalance> {
+  const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
+  const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
+  const names = new Map([...info.values()].map((p) => [p.part, p.name]))
+  return assemblyBalance(model.mesh, field, bodyForce, names)
+}
+
+/**
+ * What another load case changes of the assembly (null with one part): the parts' balance and the
+ * interfaces' forces. The triangle groups, part colours and interface mesh of the load stay.
+ */
+export function caseAssembly(model: Model, field: StressField): Pick<AssemblySummary, 'parts' | 'interfaces'> | null {
+  if (partNumbers(model.mesh).length < 2) return null
+  const asm = balanceOfParts(model, field)
+  return { parts: asm.parts, interfaces: asm.interfaces }
 }
 
 /** A cut's section triangles regrouped by region in place; returns the region offsets (see CutReply). */

@@ -14,7 +14,6 @@ import { analysisInputOf, displayStressOf, runAnalysisAsync } from '../src/mecha
 import type { AnalysisInput, AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { modelStressField, nodalStressField } from '../src/model/stressField.ts'
-import { allocateStressJump, computeStressJump } from '../src/mechanics/stressJump.ts'
 import { extentAlong, sweepAlong, sweepCasesAlong, sweepTransfer, withCombinations } from './sweep.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
@@ -34,13 +33,11 @@ import type {
   LeastBalancedElement, LoadedModel, ModelSource, ModelSummary, Outcome, PatchReply, PatchRule, ProbeRequest, ProgressCallback,
   SectionBuffers, SurfaceBuffers, InputFileRecord,
 } from './protocol.ts'
-import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras, ScalarExtremes, SurfaceQuantity } from './protocol.ts'
-import { SURFACE_QUANTITIES } from '../src/mechanics/surfaceTriangles.ts'
+import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras } from './protocol.ts'
 import { buildComponentScalars } from '../src/mechanics/componentScalars.ts'
 import type { ComponentScalars } from '../src/mechanics/componentScalars.ts'
-import { checkAxes, GLOBAL_AXES } from '../src/mechanics/componentAxes.ts'
-import { scalarExtremes } from '../src/mechanics/scalarExtremes.ts'
-import { displacementOnPolygons, faceMeanVectors, gatherNodalVectors, maxDisplacement, meanOverItems, surfaceDisplacement } from '../src/mechanics/deformation.ts'
+import { checkAxes } from '../src/mechanics/componentAxes.ts'
+import { displacementOnPolygons, faceMeanVectors, meanOverItems } from '../src/mechanics/deformation.ts'
 import { buildElementGrid } from '../src/mechanics/elementGrid.ts'
 import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
@@ -50,12 +47,13 @@ import { tooLargeHint } from '../src/io/sizeGuard.ts'
 import { casesOf, combinationsOf, findCase, firstCaseName, modelForCase } from '../src/model/loadCases.ts'
 import type { Combination } from '../src/model/loadCases.ts'
 import { sectionEnvelope } from '../src/mechanics/sectionEnvelope.ts'
-import { runAnalysis } from '../src/mechanics/analysisPipeline.ts'
 import type { NodalInvariants, SectionResult } from '../src/mechanics/types.ts'
-import type { AssemblySummary, CaseResultant, EnvelopeReply, EnvelopeRequest, SweepCaseRequest, SweepReply } from './protocol.ts'
+import type { AssemblySummary, CaseResultant, CaseShown, EnvelopeReply, EnvelopeRequest, SweepCaseRequest, SweepReply } from './protocol.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
+import { analyseCaseOnSurface, caseSurface, jumpOf, loadExtras, surfaceNodesOf } from './casePicture.ts'
+import type { CaseAnalysis, SurfaceLayout } from './casePicture.ts'
 import type { PoolEndpoint, PoolRun } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
@@ -75,7 +73,8 @@ interface Loaded {
   vonMises: Float64Array
   balance: ElementBalance
   body: BodyBalance
-  faceVertexStart: Int32Array
+  /** What a case switch keeps of the load's picture: the surface's vertex runs, the feature edges' end nodes, the surface's nodes. */
+  layout: SurfaceLayout
 }
 
 let current: Loaded | null = null
@@ -212,22 +211,6 @@ function sourceLabel(source: ModelSource): string {
   return source.label ?? 'files:' + source.files.map((f) => f.name).join(',')
 }
 
-/**
- * What a load adds for the deformed shape, the component quantities and the extremes markers
- * (protocol LoadExtras): displacement on the surface vertices and the edge ends, the components
- * in global axes, and the extremes of every surface quantity.
- */
-function loadExtras(model: Model, faces: BoundaryFaces, nodalStress: Float64Array, scalars: Readonly<Record<SurfaceQuantity, Float32Array>>, edgeNodes: Int32Array): LoadExtras {
-  const u = model.displacement
-  const extremes = {} as Record<SurfaceQuantity, ScalarExtremes>
-  for (const q of SURFACE_QUANTITIES) extremes[q] = scalarExtremes(scalars[q])
-  return {
-    deformation: u ? { surface: surfaceDisplacement(faces, u), edges: gatherNodalVectors(edgeNodes, u), max: maxDisplacement(u) } : null,
-    components: buildComponentScalars(faces, model.mesh.coords, nodalStress, u, GLOBAL_AXES),
-    extremes,
-  }
-}
-
 function componentTransfer(c: ComponentScalars): Float32Array[] {
   return Object.values(c.scalars).filter((x): x is Float32Array => x !== undefined)
 }
@@ -285,17 +268,27 @@ function checkedAxes(m: Vec3, axes: SectionAxesChoice | undefined): { axes: Sect
   }
 }
 
+/** The summary's figures of the mesh and the case (all but the source and the compute record). */
+function summaryFigures(model: Model, faces: BoundaryFaces, stress: AnalysisInput['stress']): Omit<ModelSummary, 'source' | 'compute'> {
+  const mesh = model.mesh
+  return {
+    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
+    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
+    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
+    warnings: [...model.warnings], stressLayout: stress.layout,
+  }
+}
+
 /**
- * What every analysed case sends: the surface triangles with their scalars, the feature edges,
- * the extras, the summary's figures of the mesh and the case, and the buffers to transfer.
+ * What a load sends: the surface triangles with their scalars, the feature edges, the extras,
+ * the summary's figures of the mesh and the case, and the buffers to transfer; and what a case
+ * switch keeps of it (the layout).
  */
 function pictureOf(
   model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, patches: LoadPatches, input: AnalysisInput,
-): { tri: ReturnType<typeof buildSurfaceTriangles>; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+): { layout: SurfaceLayout; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
   const mesh = model.mesh, stress = input.stress
-  // --- element-nodal: the stress jump, scaled by the reference stress of the patch rule ---
-  const jump = stress.layout === 'nodal' ? null : computeStressJump(allocateStressJump(mesh.nodeCount), mesh, stress, patches.referenceStress)
-  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
+  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(mesh, stress, patches))
   const edges = buildFeatureEdges(mesh.coords, faces)
   // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
   const assembly = loadAssembly(model, stress, faces, tri.index, tri.triangleFace, tri.faceVertexStart)
@@ -304,15 +297,19 @@ function pictureOf(
     ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
   }
   const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
-  const summary = {
-    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
-    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
-    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
-    warnings: [...model.warnings], stressLayout: stress.layout,
-  }
   const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
     ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
-  return { tri, surface, extras, assembly, summary, buffers }
+  const layout: SurfaceLayout = { faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes: surfaceNodesOf(faces, mesh.nodeCount) }
+  return { layout, surface, extras, assembly, summary: summaryFigures(model, faces, stress), buffers }
+}
+
+/** What a case switch sends (CaseShown): workers/casePicture.ts's case surface, the summary's figures, and the buffers to transfer. */
+function casePictureOf(
+  model: Model, faces: BoundaryFaces, layout: SurfaceLayout, analysis: CaseAnalysis, input: AnalysisInput,
+): { surface: CaseShown['surface']; extras: LoadExtras; assembly: CaseShown['assembly'] | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+  const { surface, extras, assembly } = caseSurface(model, faces, layout, analysis, input)
+  const buffers = [surface.patch, ...Object.values(surface.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
+  return { surface, extras, assembly, summary: summaryFigures(model, faces, input.stress), buffers }
 }
 
 // --- load cases ---
@@ -335,21 +332,22 @@ function caseSummary(model: Model, shown: string): Pick<ModelSummary, 'cases' | 
 }
 
 /**
- * The analysis of another case on the loaded mesh: the pipeline with the boundary faces kept
- * (they do not depend on the case), the surface's scalars and the extras again; `current` then
- * holds the case's fields. One thread: a switch runs no pool (its hand-over would cost more
- * than the balance it saves on the sizes where a switch must stay under a second).
+ * The analysis of another case on the loaded mesh (workers/casePicture.ts): the boundary faces and
+ * the surface's geometry kept, only the case's scalars, audit and extras computed and sent;
+ * `current` then holds the case's fields. One thread: a switch runs no pool (its hand-over
+ * would cost more than the balance it saves on the sizes where a switch must stay under a second).
  */
-function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { value: LoadedModel; buffers: ArrayBuffer[] } {
+function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRule | undefined): { value: CaseShown; buffers: ArrayBuffer[] } {
   const clock = stageClock()
+  // the case's fields: for a combination, the factored sum of its cases'
+  clock.mark('fields')
+  const model = modelForCase(base, name)
   const mesh = model.mesh
   const input = analysisInputOf(model)
-  clock.mark('case')
-  const { tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = runAnalysis(
-    input, { balancePrecision: 'single', faces: cur.faces, ...(rule ? { loadPatches: rule } : {}) },
-  )
+  const analysis = analyseCaseOnSurface(input, cur.faces, cur.layout.surfaceNodes, rule, clock.mark)
+  const { tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = analysis
   clock.mark('surfaceBuffers')
-  const { tri, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, cur.faces, tractions, invariants, balance, patches, input)
+  const { surface, extras, assembly, summary: figures, buffers } = casePictureOf(model, cur.faces, cur.layout, analysis, input)
   clock.mark('')
   const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: 0, sharing: 'none' } }
   cur.model = model
@@ -359,8 +357,7 @@ function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { 
   cur.vonMises = invariants.vonMises
   cur.balance = balance
   cur.body = body
-  cur.faceVertexStart = tri.faceVertexStart
-  const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
+  const value: CaseShown = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
   return { value, buffers }
 }
 
@@ -407,7 +404,7 @@ const api: EngineApi = {
       )
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
-      const { tri, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, patches, input)
+      const { layout, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, patches, input)
       clock.mark('')
       const summary: ModelSummary = {
         ...figures, source: sourceLabel(source),
@@ -420,7 +417,7 @@ const api: EngineApi = {
       // Only now, with everything computed, does the new model replace the old one.
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
-        vonMises: invariants.vonMises, balance, body, faceVertexStart: tri.faceVertexStart,
+        vonMises: invariants.vonMises, balance, body, layout,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -500,7 +497,8 @@ const api: EngineApi = {
 
   async patches(rule: PatchRule): Promise<Outcome<PatchReply>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
-    const { model, faces, tractions, vonMises, balance, body, faceVertexStart } = current
+    const { model, faces, tractions, vonMises, balance, body } = current
+    const faceVertexStart = current.layout.faceVertexStart
     const mesh = model.mesh
     const patches = findLoadPatches(mesh, faces, tractions, vonMises, rule)
     const verdict = computeBalanceVerdict(faces, tractions, patches, body, balance, model.bodyForce)
@@ -560,14 +558,13 @@ const api: EngineApi = {
   },
 
   // --- load cases ---
-  async showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<LoadedModel>> {
+  async showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<CaseShown>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     try {
       const base = withCombinations(current.base, combinations)
-      const model = modelForCase(base, name)
-      const reply = analyseCase(current, model, rule)
+      const reply = analyseCase(current, base, name, rule)
       current.shownCase = findCaseName(base, name)
-      const value: LoadedModel = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase) } }
+      const value: CaseShown = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase) } }
       return Comlink.transfer({ ok: true as const, value }, reply.buffers)
     } catch (e) {
       const error = toAppError(e)
