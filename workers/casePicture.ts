@@ -4,18 +4,20 @@
  * the surface's geometry (positions, normals, triangles; they stay on the GPU), the feature edges
  * and the assembly's triangle groups. A switch computes and sends only what the case changes:
  *
- *   tractions → invariants (surface) → element balance → body balance → load patches → verdict
+ *   tractions → invariants (surface) → body balance → load patches → element balance → verdict
  *   → surface scalars and patch labels → extras (displacement, components, extremes)
  *
  * The stages are those of the analysis pipeline (src/mechanics/analysisPipeline.ts) with one
  * difference: the principal stresses, which only the surface's colours read, are computed at the
  * surface's nodes alone (about a seventh of the nodes of a 10^6-element block); von Mises, which the
- * load patches take a percentile of over every node, at every node. Same kernels, same values, bit
- * for bit (test/unit/workers/casePicture.test.ts checks them against the pipeline's).
+ * load patches take a percentile of over every node, at every node. The element balance, which
+ * needs no faces, may run on the engine's pool beside the other stages. Same kernels, same values, bit
+ * for bit (test/unit/workers/casePicture.test.ts checks them against the pipeline's). The body
+ * balance takes the body's volume and centroid from the load (they do not depend on the stress).
  *
  * Units: the model's (see src/mechanics/types.ts). Layouts: surfaceTriangles.ts.
  */
-import type { Mesh, Model } from '../src/model/model.ts'
+import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import type { AnalysisInput } from '../src/mechanics/analysisPipeline.ts'
 import { displayStressOf } from '../src/mechanics/analysisPipeline.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from '../src/mechanics/tractions.ts'
@@ -77,34 +79,56 @@ export interface CaseAnalysis {
   readonly verdict: BalanceVerdictResult
 }
 
+/** The stages that need no element balance: tractions, invariants at the surface, body balance, load patches. */
+export type SurfaceStages = Pick<CaseAnalysis, 'tractions' | 'invariants' | 'bodyBalance' | 'loadPatches'>
+
 /**
- * Runs the case's stages on the kept boundary faces; `mark(stage)` is called as each begins (the
- * engine's stage clock). The element balance in single precision, as at load.
+ * The case's stages on the kept boundary faces that need no element balance; `mark(stage)` is
+ * called as each begins (the engine's stage clock). The engine's pool may compute the element
+ * balance meanwhile (it needs no faces), which is why it comes after these.
  */
-export function analyseCaseOnSurface(
-  input: AnalysisInput, faces: BoundaryFaces, surfaceNodes: Int32Array, rule: LoadPatchOptions | undefined, mark: (stage: string) => void,
-): CaseAnalysis {
+export function surfaceStages(
+  input: AnalysisInput, faces: BoundaryFaces, basis: Pick<CaseBasis, 'surfaceNodes' | 'body'>, rule: LoadPatchOptions | undefined, mark: (stage: string) => void,
+): SurfaceStages {
   const mesh: Mesh = input.mesh
   mark('tractions')
   const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, input.stress, faces)
   mark('invariants')
-  const invariants = surfaceInvariants(displayStressOf(input), surfaceNodes)
-  mark('elementBalance')
-  const elementBalance = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, input.stress, input.bodyForce)
+  const invariants = surfaceInvariants(displayStressOf(input), basis.surfaceNodes)
   mark('bodyBalance')
-  const bodyBalance = computeBodyBalance(mesh, faces, tractions, input.bodyForce)
+  const bodyBalance = computeBodyBalance(mesh, faces, tractions, input.bodyForce, basis.body)
   mark('loadPatches')
   const loadPatches = findLoadPatches(mesh, faces, tractions, invariants.vonMises, rule)
-  mark('verdict')
-  const verdict = computeBalanceVerdict(faces, tractions, loadPatches, bodyBalance, elementBalance, input.bodyForce)
-  return { tractions, invariants, elementBalance, bodyBalance, loadPatches, verdict }
+  return { tractions, invariants, bodyBalance, loadPatches }
 }
 
-/** The parts of the load's picture a case switch needs again (the geometry itself went to the main thread). */
-export interface SurfaceLayout {
+/** The verdict stage on the surface's stages and the element balance (single precision, as at load): the whole case analysis. */
+export function withVerdict(input: AnalysisInput, faces: BoundaryFaces, early: SurfaceStages, elementBalance: ElementBalance, mark: (stage: string) => void): CaseAnalysis {
+  mark('verdict')
+  const verdict = computeBalanceVerdict(faces, early.tractions, early.loadPatches, early.bodyBalance, elementBalance, input.bodyForce)
+  return { ...early, elementBalance, verdict }
+}
+
+/** The whole case analysis on one thread: the surface's stages, the element balance, the verdict. */
+export function analyseCaseOnSurface(
+  input: AnalysisInput, faces: BoundaryFaces, basis: Pick<CaseBasis, 'surfaceNodes' | 'body'>, rule: LoadPatchOptions | undefined, mark: (stage: string) => void,
+): CaseAnalysis {
+  const early = surfaceStages(input, faces, basis, rule, mark)
+  mark('elementBalance')
+  const balance = computeElementBalance(allocateElementBalance(input.mesh.elementCount, 'single'), input.mesh, input.stress, input.bodyForce)
+  return withVerdict(input, faces, early, balance, mark)
+}
+
+/**
+ * What a case switch keeps of the load (the surface's geometry itself went to the main thread):
+ * the surface's vertex runs, the feature edges' end nodes, the surface's nodes, and the body's
+ * volume and centroid (L³, L).
+ */
+export interface CaseBasis {
   readonly faceVertexStart: Int32Array
   readonly edgeNodes: Int32Array
   readonly surfaceNodes: Int32Array
+  readonly body: { readonly volume: number; readonly centroid: Vec3 }
 }
 
 /**
@@ -133,7 +157,7 @@ export function jumpOf(mesh: Mesh, stress: AnalysisInput['stress'], patches: Loa
  * and patch labels, the extras, the assembly's case figures (null with one part).
  */
 export function caseSurface(
-  model: Model, faces: BoundaryFaces, layout: SurfaceLayout, analysis: CaseAnalysis, input: AnalysisInput,
+  model: Model, faces: BoundaryFaces, layout: CaseBasis, analysis: CaseAnalysis, input: AnalysisInput,
 ): { surface: SurfaceScalars; extras: LoadExtras; assembly: ReturnType<typeof caseAssembly> } {
   const { tractions, invariants, elementBalance: balance, loadPatches: patches } = analysis
   const surface = buildSurfaceScalars(faces, layout.faceVertexStart, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(model.mesh, input.stress, patches))

@@ -13,6 +13,7 @@ import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { analysisInputOf, displayStressOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
 import type { AnalysisInput, AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
+import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { modelStressField, nodalStressField } from '../src/model/stressField.ts'
 import { extentAlong, sweepAlong, sweepCasesAlong, sweepTransfer, withCombinations } from './sweep.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
@@ -52,8 +53,8 @@ import type { AssemblySummary, CaseResultant, CaseShown, EnvelopeReply, Envelope
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
-import { analyseCaseOnSurface, caseSurface, jumpOf, loadExtras, surfaceNodesOf } from './casePicture.ts'
-import type { CaseAnalysis, SurfaceLayout } from './casePicture.ts'
+import { caseSurface, jumpOf, loadExtras, surfaceNodesOf, surfaceStages, withVerdict } from './casePicture.ts'
+import type { CaseAnalysis, CaseBasis } from './casePicture.ts'
 import type { PoolEndpoint, PoolRun } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
@@ -74,7 +75,7 @@ interface Loaded {
   balance: ElementBalance
   body: BodyBalance
   /** What a case switch keeps of the load's picture: the surface's vertex runs, the feature edges' end nodes, the surface's nodes. */
-  layout: SurfaceLayout
+  basis: CaseBasis
 }
 
 let current: Loaded | null = null
@@ -282,11 +283,11 @@ function summaryFigures(model: Model, faces: BoundaryFaces, stress: AnalysisInpu
 /**
  * What a load sends: the surface triangles with their scalars, the feature edges, the extras,
  * the summary's figures of the mesh and the case, and the buffers to transfer; and what a case
- * switch keeps of it (the layout).
+ * switch keeps of it (the basis).
  */
 function pictureOf(
-  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, patches: LoadPatches, input: AnalysisInput,
-): { layout: SurfaceLayout; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, body: BodyBalance, patches: LoadPatches, input: AnalysisInput,
+): { basis: CaseBasis; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
   const mesh = model.mesh, stress = input.stress
   const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(mesh, stress, patches))
   const edges = buildFeatureEdges(mesh.coords, faces)
@@ -299,15 +300,18 @@ function pictureOf(
   const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
   const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
     ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
-  const layout: SurfaceLayout = { faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes: surfaceNodesOf(faces, mesh.nodeCount) }
-  return { layout, surface, extras, assembly, summary: summaryFigures(model, faces, stress), buffers }
+  const basis: CaseBasis = {
+    faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes: surfaceNodesOf(faces, mesh.nodeCount),
+    body: { volume: body.volume, centroid: body.centroid },
+  }
+  return { basis, surface, extras, assembly, summary: summaryFigures(model, faces, stress), buffers }
 }
 
 /** What a case switch sends (CaseShown): workers/casePicture.ts's case surface, the summary's figures, and the buffers to transfer. */
 function casePictureOf(
-  model: Model, faces: BoundaryFaces, layout: SurfaceLayout, analysis: CaseAnalysis, input: AnalysisInput,
+  model: Model, faces: BoundaryFaces, basis: CaseBasis, analysis: CaseAnalysis, input: AnalysisInput,
 ): { surface: CaseShown['surface']; extras: LoadExtras; assembly: CaseShown['assembly'] | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
-  const { surface, extras, assembly } = caseSurface(model, faces, layout, analysis, input)
+  const { surface, extras, assembly } = caseSurface(model, faces, basis, analysis, input)
   const buffers = [surface.patch, ...Object.values(surface.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
   return { surface, extras, assembly, summary: summaryFigures(model, faces, input.stress), buffers }
 }
@@ -334,22 +338,32 @@ function caseSummary(model: Model, shown: string): Pick<ModelSummary, 'cases' | 
 /**
  * The analysis of another case on the loaded mesh (workers/casePicture.ts): the boundary faces and
  * the surface's geometry kept, only the case's scalars, audit and extras computed and sent;
- * `current` then holds the case's fields. One thread: a switch runs no pool (its hand-over
- * would cost more than the balance it saves on the sizes where a switch must stay under a second).
+ * `current` then holds the case's fields. Where the pool shares memory and the mesh is large, the
+ * element balance runs there beside the surface's stages (the mesh is shared since the load, so
+ * only the case's stress is copied); elsewhere on this thread.
  */
-function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRule | undefined): { value: CaseShown; buffers: ArrayBuffer[] } {
+async function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRule | undefined): Promise<{ value: CaseShown; buffers: ArrayBuffer[] }> {
   const clock = stageClock()
   // the case's fields: for a combination, the factored sum of its cases'
   clock.mark('fields')
   const model = modelForCase(base, name)
   const mesh = model.mesh
   const input = analysisInputOf(model)
-  const analysis = analyseCaseOnSurface(input, cur.faces, cur.layout.surfaceNodes, rule, clock.mark)
-  const { tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = analysis
+  const p = pool && pool.sharing === 'shared' && pool.size > 0 && mesh.elementCount >= POOL_MIN_ELEMENTS ? pool : null
+  let run: PoolRun = { workers: 0, sharing: 'none' }
+  const pooled = p?.elementBalance(mesh, input.stress, input.bodyForce).then((r) => { run = r.run; return r.value })
+  pooled?.catch(() => undefined)
+  const early = surfaceStages(input, cur.faces, cur.basis, rule, clock.mark)
+  clock.mark('elementBalance')
+  const balance = pooled
+    ? await pooled.finally(() => p?.forget())
+    : computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, input.stress, input.bodyForce)
+  const analysis = withVerdict(input, cur.faces, early, balance, clock.mark)
+  const { tractions, invariants, bodyBalance: body, loadPatches: patches, verdict } = analysis
   clock.mark('surfaceBuffers')
-  const { surface, extras, assembly, summary: figures, buffers } = casePictureOf(model, cur.faces, cur.layout, analysis, input)
+  const { surface, extras, assembly, summary: figures, buffers } = casePictureOf(model, cur.faces, cur.basis, analysis, input)
   clock.mark('')
-  const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: 0, sharing: 'none' } }
+  const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) } }
   cur.model = model
   cur.tractions = tractions
   cur.polygons = null
@@ -385,6 +399,7 @@ const api: EngineApi = {
       } else model = syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)
+      let sharedMesh = mesh
       // The element balance and the invariants need no faces: on a pool they run beside the
       // boundary and traction stages, and the pipeline awaits them at their turn.
       const p = pool && mesh.elementCount >= POOL_MIN_ELEMENTS && await pool.upWithin(POOL_START_MS) ? pool : null
@@ -400,11 +415,17 @@ const api: EngineApi = {
       const { faces, tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = await runAnalysisAsync(
         input, { balancePrecision: 'single', ...(rule ? { loadPatches: rule } : {}) },
         { offloaded, beforeStage: async (stage) => { report(...STAGE_PROGRESS[stage]); await yieldTurn(); clock.mark(stage) } },
-        ({ stage }) => { if (stage === 'elementBalance') p?.forget() },
+        ({ stage }) => {
+          if (stage !== 'elementBalance' || !p) return
+          // The model keeps the pool's shared copies of its mesh in place of its own arrays (no
+          // second copy), so a case switch's balance on the pool copies only the case's stress.
+          sharedMesh = p.sharedMesh(mesh)
+          p.forget()
+        },
       )
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
-      const { layout, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, patches, input)
+      const { basis, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, body, patches, input)
       clock.mark('')
       const summary: ModelSummary = {
         ...figures, source: sourceLabel(source),
@@ -415,9 +436,10 @@ const api: EngineApi = {
         ...caseSummary(model, firstCaseName(model)),
       }
       // Only now, with everything computed, does the new model replace the old one.
+      if (sharedMesh !== mesh) model = { ...model, mesh: sharedMesh }
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
-        vonMises: invariants.vonMises, balance, body, layout,
+        vonMises: invariants.vonMises, balance, body, basis,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -498,7 +520,7 @@ const api: EngineApi = {
   async patches(rule: PatchRule): Promise<Outcome<PatchReply>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     const { model, faces, tractions, vonMises, balance, body } = current
-    const faceVertexStart = current.layout.faceVertexStart
+    const faceVertexStart = current.basis.faceVertexStart
     const mesh = model.mesh
     const patches = findLoadPatches(mesh, faces, tractions, vonMises, rule)
     const verdict = computeBalanceVerdict(faces, tractions, patches, body, balance, model.bodyForce)
@@ -562,7 +584,7 @@ const api: EngineApi = {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     try {
       const base = withCombinations(current.base, combinations)
-      const reply = analyseCase(current, base, name, rule)
+      const reply = await analyseCase(current, base, name, rule)
       current.shownCase = findCaseName(base, name)
       const value: CaseShown = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase) } }
       return Comlink.transfer({ ok: true as const, value }, reply.buffers)

@@ -158,6 +158,21 @@ export class KernelPool {
     return out
   }
 
+  /**
+   * The mesh with its node and element arrays replaced by their shared copies (those the load's
+   * balance made; made now where missing); the parts stay. The engine keeps this mesh in place of
+   * its own arrays, which then free: no second copy is held, and a later job on the mesh (the
+   * balance of another load case) shares it as it is, copying only the case's stress. Without
+   * shared memory the mesh itself.
+   */
+  sharedMesh(mesh: Mesh): Mesh {
+    if (this.sharing !== 'shared') return mesh
+    return {
+      ...mesh, coords: this.shared(mesh.coords), nodeIds: this.shared(mesh.nodeIds),
+      blocks: mesh.blocks.map((b) => ({ ...b, conn: this.shared(b.conn), ids: this.shared(b.ids) })),
+    }
+  }
+
   /** Drops the shared copies (the jobs of a load are done; they would double the model's memory). */
   forget(): void {
     this.sharedCopies = new WeakMap()

@@ -3,13 +3,15 @@
  * (the analysis pipeline with the invariants of every node, then the whole surface buffers): the
  * same scalars, ranges, patch labels, extras, audit figures and parts' balance, bit for bit, for
  * each case and a combination of a model with two parts, nodal and element-nodal stress, with
- * displacement. The surface's geometry is the load's, so the scalars must fall on its vertices.
+ * displacement. The surface's geometry is the load's, so the scalars must fall on its vertices; the
+ * body's volume and centroid are the load's too.
  */
 import { describe, expect, it } from 'vitest'
 import type { Model } from '../../../src/model/model.ts'
 import type { LoadCase } from '../../../src/model/loadCases.ts'
 import { modelForCase } from '../../../src/model/loadCases.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
+import { bodyVolume } from '../../../src/mechanics/balanceAudit.ts'
 import { analysisInputOf, displayStressOf, runAnalysis } from '../../../src/mechanics/analysisPipeline.ts'
 import { buildSurfaceTriangles } from '../../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../../src/mechanics/featureEdges.ts'
@@ -65,9 +67,9 @@ describe('the case switch computes only what the case changes, the same values a
         const asm = loadAssembly(model, input.stress, faces, tri.index.slice(), tri.triangleFace.slice(), tri.faceVertexStart)!
         // the switch's path
         const stages: string[] = []
-        const a = analyseCaseOnSurface(input, faces, surfaceNodes, undefined, (s) => stages.push(s))
-        const c = caseSurface(model, faces, { faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes }, a, input)
-        expect(stages).toEqual(['tractions', 'invariants', 'elementBalance', 'bodyBalance', 'loadPatches', 'verdict'])
+        const a = analyseCaseOnSurface(input, faces, { surfaceNodes, body: bodyVolume(model.mesh) }, undefined, (s) => stages.push(s))
+        const c = caseSurface(model, faces, { faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes, body: bodyVolume(model.mesh) }, a, input)
+        expect(stages).toEqual(['tractions', 'invariants', 'bodyBalance', 'loadPatches', 'elementBalance', 'verdict'])
         expect(c.surface.scalars).toEqual(tri.scalars)
         expect(c.surface.ranges).toEqual(tri.ranges)
         expect(c.surface.patch).toEqual(tri.patch)

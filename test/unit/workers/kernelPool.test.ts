@@ -76,6 +76,33 @@ describe('kernel pool: element balance', () => {
     }
   }
 
+  it('keeps the mesh shared after a load: the engine holds the shared copies, and another case\'s balance on them copies only its stress', async () => {
+    const log = { shared: 0, calls: 0 }
+    const pool = new KernelPool(2, () => localEndpoint(log), 'shared')
+    await pool.elementBalance(mesh, field, b)
+    const kept = pool.sharedMesh(mesh)
+    pool.forget()
+    // the same values, in shared memory, the parts and the counts as they were
+    expect(kept.coords.buffer).toBeInstanceOf(SharedArrayBuffer)
+    expect(sameBits(kept.coords, mesh.coords)).toBe(true)
+    kept.blocks.forEach((k, i) => {
+      expect(k.conn.buffer).toBeInstanceOf(SharedArrayBuffer)
+      expect(sameBits(k.conn, mesh.blocks[i].conn)).toBe(true)
+      expect(k.part).toBe(mesh.blocks[i].part)
+      expect(k.offset).toBe(mesh.blocks[i].offset)
+    })
+    // another case (twice the stress): the pool's balance on the kept mesh against one thread on the model's own
+    const twice = stress.map((v) => 2 * v)
+    const plain = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, nodalStressField(mesh, twice), b)
+    const { value } = await pool.elementBalance(kept, nodalStressField(kept, twice), b)
+    expect(sameBits(value.residual, plain.residual)).toBe(true)
+    expect(sameBits(value.indicator, plain.indicator)).toBe(true)
+    // the mesh arrays are shared as they are: asking again gives the very arrays
+    expect(pool.sharedMesh(kept).coords).toBe(kept.coords)
+    expect(new KernelPool(1, () => localEndpoint(log), 'copy').sharedMesh(mesh)).toBe(mesh)
+    pool.dispose()
+  })
+
   for (const sharing of ['shared', 'copy'] as Sharing[]) {
     it(`${sharing} hand-over of element-nodal stress (a shuffled copy of the nodal rows) equals the nodal one thread bit for bit`, async () => {
       const log = { shared: 0, calls: 0 }
