@@ -25,8 +25,8 @@ import { principalStressesAt, vonMisesAt } from '../src/mechanics/invariants.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import type { LoadPatchOptions } from '../src/mechanics/loadPatches.ts'
-import { computeBalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
-import type { BalanceVerdictResult } from '../src/mechanics/balanceVerdict.ts'
+import { computeBalanceVerdict, LEAST_BALANCED_COUNT } from '../src/mechanics/balanceVerdict.ts'
+import type { BalanceVerdictResult, IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import { buildSurfaceScalars, SURFACE_QUANTITIES } from '../src/mechanics/surfaceTriangles.ts'
 import type { SurfaceInvariants, SurfaceQuantity, SurfaceScalars } from '../src/mechanics/surfaceTriangles.ts'
 import { allocateStressJump, computeStressJump } from '../src/mechanics/stressJump.ts'
@@ -102,10 +102,16 @@ export function surfaceStages(
   return { tractions, invariants, bodyBalance, loadPatches }
 }
 
-/** The verdict stage on the surface's stages and the element balance (single precision, as at load): the whole case analysis. */
-export function withVerdict(input: AnalysisInput, faces: BoundaryFaces, early: SurfaceStages, elementBalance: ElementBalance, mark: (stage: string) => void): CaseAnalysis {
+/**
+ * The verdict stage on the surface's stages and the element balance (single precision, as at
+ * load): the whole case analysis. `spread`: the indicator's spread when computed elsewhere (the
+ * engine's pool, beside the surface's scalars).
+ */
+export function withVerdict(
+  input: AnalysisInput, faces: BoundaryFaces, early: SurfaceStages, elementBalance: ElementBalance, mark: (stage: string) => void, spread?: IndicatorSpread,
+): CaseAnalysis {
   mark('verdict')
-  const verdict = computeBalanceVerdict(faces, early.tractions, early.loadPatches, early.bodyBalance, elementBalance, input.bodyForce)
+  const verdict = computeBalanceVerdict(faces, early.tractions, early.loadPatches, early.bodyBalance, elementBalance, input.bodyForce, LEAST_BALANCED_COUNT, spread)
   return { ...early, elementBalance, verdict }
 }
 
@@ -157,10 +163,10 @@ export function jumpOf(mesh: Mesh, stress: AnalysisInput['stress'], patches: Loa
  * and patch labels, the extras, the assembly's case figures (null with one part).
  */
 export function caseSurface(
-  model: Model, faces: BoundaryFaces, layout: CaseBasis, analysis: CaseAnalysis, input: AnalysisInput,
+  model: Model, faces: BoundaryFaces, basis: CaseBasis, analysis: Pick<CaseAnalysis, 'tractions' | 'invariants' | 'elementBalance' | 'loadPatches'>, input: AnalysisInput,
 ): { surface: SurfaceScalars; extras: LoadExtras; assembly: ReturnType<typeof caseAssembly> } {
   const { tractions, invariants, elementBalance: balance, loadPatches: patches } = analysis
-  const surface = buildSurfaceScalars(faces, layout.faceVertexStart, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(model.mesh, input.stress, patches))
-  const extras = loadExtras(model, faces, displayStressOf(input), surface.scalars, layout.edgeNodes)
+  const surface = buildSurfaceScalars(faces, basis.faceVertexStart, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(model.mesh, input.stress, patches))
+  const extras = loadExtras(model, faces, displayStressOf(input), surface.scalars, basis.edgeNodes)
   return { surface, extras, assembly: caseAssembly(model, input.stress) }
 }

@@ -20,6 +20,7 @@ import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surface
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { computeBalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
 import type { BalanceVerdictResult } from '../src/mechanics/balanceVerdict.ts'
+import { LEAST_BALANCED_COUNT } from '../src/mechanics/balanceVerdict.ts'
 import { projectReference } from '../src/mechanics/sectionAxes.ts'
 import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
 import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
@@ -54,7 +55,7 @@ import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
 import { caseSurface, jumpOf, loadExtras, surfaceNodesOf, surfaceStages, withVerdict } from './casePicture.ts'
-import type { CaseAnalysis, CaseBasis } from './casePicture.ts'
+import type { CaseBasis } from './casePicture.ts'
 import type { PoolEndpoint, PoolRun } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
@@ -101,6 +102,7 @@ function spawnPoolWorker(): PoolEndpoint {
     ping: () => Promise.race([remote.ping(), failure]),
     balance: (part, out) => Promise.race([remote.balance(part, out), failure]),
     invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
+    spread: (indicator, count) => Promise.race([remote.spread(indicator, count), failure]),
     csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
@@ -309,7 +311,7 @@ function pictureOf(
 
 /** What a case switch sends (CaseShown): workers/casePicture.ts's case surface, the summary's figures, and the buffers to transfer. */
 function casePictureOf(
-  model: Model, faces: BoundaryFaces, basis: CaseBasis, analysis: CaseAnalysis, input: AnalysisInput,
+  model: Model, faces: BoundaryFaces, basis: CaseBasis, analysis: Parameters<typeof caseSurface>[3], input: AnalysisInput,
 ): { surface: CaseShown['surface']; extras: LoadExtras; assembly: CaseShown['assembly'] | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
   const { surface, extras, assembly } = caseSurface(model, faces, basis, analysis, input)
   const buffers = [surface.patch, ...Object.values(surface.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
@@ -358,10 +360,13 @@ async function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRu
   const balance = pooled
     ? await pooled.finally(() => p?.forget())
     : computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, input.stress, input.bodyForce)
-  const analysis = withVerdict(input, cur.faces, early, balance, clock.mark)
-  const { tractions, invariants, bodyBalance: body, loadPatches: patches, verdict } = analysis
+  // the indicator's spread on the pool (it reads the shared balance in place) while the surface's scalars are built here
+  const spread = pooled && p ? p.indicatorSpread(balance.indicator, LEAST_BALANCED_COUNT) : undefined
+  spread?.catch(() => undefined)
   clock.mark('surfaceBuffers')
-  const { surface, extras, assembly, summary: figures, buffers } = casePictureOf(model, cur.faces, cur.basis, analysis, input)
+  const { surface, extras, assembly, summary: figures, buffers } = casePictureOf(model, cur.faces, cur.basis, { ...early, elementBalance: balance }, input)
+  const analysis = withVerdict(input, cur.faces, early, balance, clock.mark, spread ? await spread : undefined)
+  const { tractions, invariants, bodyBalance: body, loadPatches: patches, verdict } = analysis
   clock.mark('')
   const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) } }
   cur.model = model

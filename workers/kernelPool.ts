@@ -23,6 +23,8 @@ import type { StressField } from '../src/model/stressField.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
+import { indicatorSpread } from '../src/mechanics/balanceVerdict.ts'
+import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { PieceJob, PieceLane, PieceOutcome } from '../src/io/csvPieces.ts'
 
@@ -34,6 +36,8 @@ export interface PoolEndpoint {
   ping(): Promise<boolean>
   balance(part: BalancePart, out?: BalanceOut): Promise<ElementBalance | null>
   invariants(stress: Float64Array, out?: NodalInvariants): Promise<NodalInvariants | null>
+  /** The spread of the element indicator (balanceVerdict.ts), read in place from shared memory. */
+  spread?(indicator: Float32Array | Float64Array, count: number): Promise<IndicatorSpread>
   /** Reads pieces of CSV tables (src/io/csvPieces.ts); the jobs' bytes move by transfer. */
   csvPieces?(jobs: readonly PieceJob[]): Promise<readonly PieceOutcome[]>
   terminate(): void
@@ -98,6 +102,22 @@ export class KernelPool {
     const serial = (): NodalInvariants => computeNodalInvariants(allocateNodalInvariants(N), stress)
     if (N < POOL_MIN_NODES) return this.runSerial(serial)
     return this.runSplit(serial, () => (this.sharing === 'shared' ? this.invariantsShared(stress) : this.invariantsCopied(stress)))
+  }
+
+  /**
+   * The spread of an element indicator (median, 95th percentile, largest, the least balanced),
+   * on a pool worker when the indicator is in shared memory (the pool's balance), so the caller
+   * goes on meanwhile; else, or on any failure, here. Same function, same values.
+   */
+  async indicatorSpread(indicator: Float32Array | Float64Array, count: number): Promise<IndicatorSpread> {
+    const ep = this.endpoints[0]
+    if (this.size < 1 || !ep?.spread || !(indicator.buffer instanceof SharedArrayBuffer)) return indicatorSpread(indicator, count)
+    try {
+      return await ep.spread(indicator, count)
+    } catch (e) {
+      this.standDown(`a pool worker failed (${e instanceof Error ? e.message : String(e)})`)
+      return indicatorSpread(indicator, count)
+    }
   }
 
   /**

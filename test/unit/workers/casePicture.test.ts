@@ -15,7 +15,8 @@ import { bodyVolume } from '../../../src/mechanics/balanceAudit.ts'
 import { analysisInputOf, displayStressOf, runAnalysis } from '../../../src/mechanics/analysisPipeline.ts'
 import { buildSurfaceTriangles } from '../../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../../src/mechanics/featureEdges.ts'
-import { analyseCaseOnSurface, caseSurface, jumpOf, loadExtras, surfaceNodesOf } from '../../../workers/casePicture.ts'
+import { analyseCaseOnSurface, caseSurface, jumpOf, loadExtras, surfaceNodesOf, withVerdict } from '../../../workers/casePicture.ts'
+import { indicatorSpread } from '../../../src/mechanics/balanceVerdict.ts'
 import { loadAssembly } from '../../../workers/assembly.ts'
 import { assembly } from '../../helpers/assemblies.ts'
 import { elementNodalCopy } from '../../helpers/elementNodal.ts'
@@ -81,6 +82,9 @@ describe('the case switch computes only what the case changes, the same values a
         expect(a.bodyBalance).toEqual(r.bodyBalance)
         expect(a.loadPatches).toEqual(r.loadPatches)
         expect(a.verdict).toEqual(r.verdict)
+        // the verdict with the indicator's spread computed elsewhere (the engine's pool) is the same
+        const early = { tractions: a.tractions, invariants: a.invariants, bodyBalance: a.bodyBalance, loadPatches: a.loadPatches }
+        expect(withVerdict(input, faces, early, a.elementBalance, () => {}, indicatorSpread(a.elementBalance.indicator)).verdict).toEqual(r.verdict)
         expect(c.assembly).toEqual({ parts: asm.parts, interfaces: asm.interfaces })
         if (elementNodal) expect(c.surface.scalars.stressJump.some((v) => v > 0)).toBe(true)
       }
