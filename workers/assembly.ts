@@ -66,6 +66,24 @@ export function loadAssembly(
   }
 }
 
+/** The parts' balance and interfaces of the model's stress (assemblyBalance with the parts' own body forces and names). */
+function balanceOfParts(model: Model, field: StressField): ReturnType<typeof assemblyBalance> {
+  const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
+  const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
+  const names = new Map([...info.values()].map((p) => [p.part, p.name]))
+  return assemblyBalance(model.mesh, field, bodyForce, names)
+}
+
+/**
+ * What another load case changes of the assembly (null with one part): the parts' balance and the
+ * interfaces' forces. The triangle groups, part colours and interface mesh of the load stay.
+ */
+export function caseAssembly(model: Model, field: StressField): Pick<AssemblySummary, 'parts' | 'interfaces'> | null {
+  if (partNumbers(model.mesh).length < 2) return null
+  const asm = balanceOfParts(model, field)
+  return { parts: asm.parts, interfaces: asm.interfaces }
+}
+
 /** A cut's section triangles regrouped by region in place; returns the region offsets (see CutReply). */
 export function regionTriangles(labels: RegionLabels, count: number, index: Uint32Array, triangleElement: Int32Array): Int32Array {
   const regionOf = new Map<number, number>()

@@ -13,13 +13,14 @@ import type { Mesh, Model, Vec3 } from '../src/model/model.ts'
 import { analysisInputOf, displayStressOf, runAnalysisAsync } from '../src/mechanics/analysisPipeline.ts'
 import type { AnalysisInput, AnalysisStage, OffloadedStages } from '../src/mechanics/analysisPipeline.ts'
 import { cutSection } from '../src/mechanics/sectionCut.ts'
+import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { modelStressField, nodalStressField } from '../src/model/stressField.ts'
-import { allocateStressJump, computeStressJump } from '../src/mechanics/stressJump.ts'
 import { extentAlong, sweepAlong, sweepCasesAlong, sweepTransfer, withCombinations } from './sweep.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { computeBalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
 import type { BalanceVerdictResult } from '../src/mechanics/balanceVerdict.ts'
+import { LEAST_BALANCED_COUNT } from '../src/mechanics/balanceVerdict.ts'
 import { projectReference } from '../src/mechanics/sectionAxes.ts'
 import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
 import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
@@ -34,13 +35,11 @@ import type {
   LeastBalancedElement, LoadedModel, ModelSource, ModelSummary, Outcome, PatchReply, PatchRule, ProbeRequest, ProgressCallback,
   SectionBuffers, SurfaceBuffers, InputFileRecord,
 } from './protocol.ts'
-import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras, ScalarExtremes, SurfaceQuantity } from './protocol.ts'
-import { SURFACE_QUANTITIES } from '../src/mechanics/surfaceTriangles.ts'
+import type { ComponentAxes, ComponentBuffers, LineReply, LineRequest, LoadExtras } from './protocol.ts'
 import { buildComponentScalars } from '../src/mechanics/componentScalars.ts'
 import type { ComponentScalars } from '../src/mechanics/componentScalars.ts'
-import { checkAxes, GLOBAL_AXES } from '../src/mechanics/componentAxes.ts'
-import { scalarExtremes } from '../src/mechanics/scalarExtremes.ts'
-import { displacementOnPolygons, faceMeanVectors, gatherNodalVectors, maxDisplacement, meanOverItems, surfaceDisplacement } from '../src/mechanics/deformation.ts'
+import { checkAxes } from '../src/mechanics/componentAxes.ts'
+import { displacementOnPolygons, faceMeanVectors, meanOverItems } from '../src/mechanics/deformation.ts'
 import { buildElementGrid } from '../src/mechanics/elementGrid.ts'
 import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
@@ -50,12 +49,13 @@ import { tooLargeHint } from '../src/io/sizeGuard.ts'
 import { casesOf, combinationsOf, findCase, firstCaseName, modelForCase } from '../src/model/loadCases.ts'
 import type { Combination } from '../src/model/loadCases.ts'
 import { sectionEnvelope } from '../src/mechanics/sectionEnvelope.ts'
-import { runAnalysis } from '../src/mechanics/analysisPipeline.ts'
 import type { NodalInvariants, SectionResult } from '../src/mechanics/types.ts'
-import type { AssemblySummary, CaseResultant, EnvelopeReply, EnvelopeRequest, SweepCaseRequest, SweepReply } from './protocol.ts'
+import type { AssemblySummary, CaseResultant, CaseShown, EnvelopeReply, EnvelopeRequest, SweepCaseRequest, SweepReply } from './protocol.ts'
 import { probeModel } from './probe.ts'
 import { KernelPool, POOL_MIN_ELEMENTS } from './kernelPool.ts'
 import { checkLimit, loadAssembly, pieceFor, regionTriangles } from './assembly.ts'
+import { caseSurface, jumpOf, loadExtras, surfaceNodesOf, surfaceStages, withVerdict } from './casePicture.ts'
+import type { CaseBasis } from './casePicture.ts'
 import type { PoolEndpoint, PoolRun } from './kernelPool.ts'
 import type { PoolWorkerApi } from './kernelPool.worker.ts'
 
@@ -75,7 +75,8 @@ interface Loaded {
   vonMises: Float64Array
   balance: ElementBalance
   body: BodyBalance
-  faceVertexStart: Int32Array
+  /** What a case switch keeps of the load's picture: the surface's vertex runs, the feature edges' end nodes, the surface's nodes. */
+  basis: CaseBasis
 }
 
 let current: Loaded | null = null
@@ -101,6 +102,7 @@ function spawnPoolWorker(): PoolEndpoint {
     ping: () => Promise.race([remote.ping(), failure]),
     balance: (part, out) => Promise.race([remote.balance(part, out), failure]),
     invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
+    spread: (indicator, count) => Promise.race([remote.spread(indicator, count), failure]),
     csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
@@ -212,22 +214,6 @@ function sourceLabel(source: ModelSource): string {
   return source.label ?? 'files:' + source.files.map((f) => f.name).join(',')
 }
 
-/**
- * What a load adds for the deformed shape, the component quantities and the extremes markers
- * (protocol LoadExtras): displacement on the surface vertices and the edge ends, the components
- * in global axes, and the extremes of every surface quantity.
- */
-function loadExtras(model: Model, faces: BoundaryFaces, nodalStress: Float64Array, scalars: Readonly<Record<SurfaceQuantity, Float32Array>>, edgeNodes: Int32Array): LoadExtras {
-  const u = model.displacement
-  const extremes = {} as Record<SurfaceQuantity, ScalarExtremes>
-  for (const q of SURFACE_QUANTITIES) extremes[q] = scalarExtremes(scalars[q])
-  return {
-    deformation: u ? { surface: surfaceDisplacement(faces, u), edges: gatherNodalVectors(edgeNodes, u), max: maxDisplacement(u) } : null,
-    components: buildComponentScalars(faces, model.mesh.coords, nodalStress, u, GLOBAL_AXES),
-    extremes,
-  }
-}
-
 function componentTransfer(c: ComponentScalars): Float32Array[] {
   return Object.values(c.scalars).filter((x): x is Float32Array => x !== undefined)
 }
@@ -285,17 +271,27 @@ function checkedAxes(m: Vec3, axes: SectionAxesChoice | undefined): { axes: Sect
   }
 }
 
+/** The summary's figures of the mesh and the case (all but the source and the compute record). */
+function summaryFigures(model: Model, faces: BoundaryFaces, stress: AnalysisInput['stress']): Omit<ModelSummary, 'source' | 'compute'> {
+  const mesh = model.mesh
+  return {
+    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
+    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
+    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
+    warnings: [...model.warnings], stressLayout: stress.layout,
+  }
+}
+
 /**
- * What every analysed case sends: the surface triangles with their scalars, the feature edges,
- * the extras, the summary's figures of the mesh and the case, and the buffers to transfer.
+ * What a load sends: the surface triangles with their scalars, the feature edges, the extras,
+ * the summary's figures of the mesh and the case, and the buffers to transfer; and what a case
+ * switch keeps of it (the basis).
  */
 function pictureOf(
-  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, patches: LoadPatches, input: AnalysisInput,
-): { tri: ReturnType<typeof buildSurfaceTriangles>; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+  model: Model, faces: BoundaryFaces, tractions: SurfaceTractions, invariants: NodalInvariants, balance: ElementBalance, body: BodyBalance, patches: LoadPatches, input: AnalysisInput,
+): { basis: CaseBasis; surface: SurfaceBuffers; extras: LoadExtras; assembly: AssemblySummary | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
   const mesh = model.mesh, stress = input.stress
-  // --- element-nodal: the stress jump, scaled by the reference stress of the patch rule ---
-  const jump = stress.layout === 'nodal' ? null : computeStressJump(allocateStressJump(mesh.nodeCount), mesh, stress, patches.referenceStress)
-  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jump)
+  const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(mesh, stress, patches))
   const edges = buildFeatureEdges(mesh.coords, faces)
   // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
   const assembly = loadAssembly(model, stress, faces, tractions, patches.faceLabel, tri.index, tri.triangleFace, tri.faceVertexStart)
@@ -304,15 +300,22 @@ function pictureOf(
     ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
   }
   const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
-  const summary = {
-    name: String(model.name ?? ''), description: String(model.description ?? ''), units: model.units,
-    nodeCount: mesh.nodeCount, elementCount: mesh.elementCount, boundaryFaceCount: faces.count,
-    elementTypes: typeCounts(mesh), bounds: boundsOf(mesh.coords), bodyForce: model.bodyForce,
-    warnings: [...model.warnings], stressLayout: stress.layout,
-  }
   const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
     ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
-  return { tri, surface, extras, assembly, summary, buffers }
+  const basis: CaseBasis = {
+    faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes: surfaceNodesOf(faces, mesh.nodeCount),
+    body: { volume: body.volume, centroid: body.centroid },
+  }
+  return { basis, surface, extras, assembly, summary: summaryFigures(model, faces, stress), buffers }
+}
+
+/** What a case switch sends (CaseShown): workers/casePicture.ts's case surface, the summary's figures, and the buffers to transfer. */
+function casePictureOf(
+  model: Model, faces: BoundaryFaces, basis: CaseBasis, analysis: Parameters<typeof caseSurface>[3], input: AnalysisInput,
+): { surface: CaseShown['surface']; extras: LoadExtras; assembly: CaseShown['assembly'] | null; summary: Omit<ModelSummary, 'source' | 'compute'>; buffers: ArrayBuffer[] } {
+  const { surface, extras, assembly } = caseSurface(model, faces, basis, analysis, input)
+  const buffers = [surface.patch, ...Object.values(surface.scalars), ...extrasTransfer(extras)].map((a) => a.buffer as ArrayBuffer)
+  return { surface, extras, assembly, summary: summaryFigures(model, faces, input.stress), buffers }
 }
 
 // --- load cases ---
@@ -335,23 +338,37 @@ function caseSummary(model: Model, shown: string): Pick<ModelSummary, 'cases' | 
 }
 
 /**
- * The analysis of another case on the loaded mesh: the pipeline with the boundary faces kept
- * (they do not depend on the case), the surface's scalars and the extras again; `current` then
- * holds the case's fields. One thread: a switch runs no pool (its hand-over would cost more
- * than the balance it saves on the sizes where a switch must stay under a second).
+ * The analysis of another case on the loaded mesh (workers/casePicture.ts): the boundary faces and
+ * the surface's geometry kept, only the case's scalars, audit and extras computed and sent;
+ * `current` then holds the case's fields. Where the pool shares memory and the mesh is large, the
+ * element balance runs there beside the surface's stages (the mesh is shared since the load, so
+ * only the case's stress is copied); elsewhere on this thread.
  */
-function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { value: LoadedModel; buffers: ArrayBuffer[] } {
+async function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRule | undefined): Promise<{ value: CaseShown; buffers: ArrayBuffer[] }> {
   const clock = stageClock()
+  // the case's fields: for a combination, the factored sum of its cases'
+  clock.mark('fields')
+  const model = modelForCase(base, name)
   const mesh = model.mesh
   const input = analysisInputOf(model)
-  clock.mark('case')
-  const { tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = runAnalysis(
-    input, { balancePrecision: 'single', faces: cur.faces, ...(rule ? { loadPatches: rule } : {}) },
-  )
+  const p = pool && pool.sharing === 'shared' && pool.size > 0 && mesh.elementCount >= POOL_MIN_ELEMENTS ? pool : null
+  let run: PoolRun = { workers: 0, sharing: 'none' }
+  const pooled = p?.elementBalance(mesh, input.stress, input.bodyForce).then((r) => { run = r.run; return r.value })
+  pooled?.catch(() => undefined)
+  const early = surfaceStages(input, cur.faces, cur.basis, rule, clock.mark)
+  clock.mark('elementBalance')
+  const balance = pooled
+    ? await pooled.finally(() => p?.forget())
+    : computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, input.stress, input.bodyForce)
+  // the indicator's spread on the pool (it reads the shared balance in place) while the surface's scalars are built here
+  const spread = pooled && p ? p.indicatorSpread(balance.indicator, LEAST_BALANCED_COUNT) : undefined
+  spread?.catch(() => undefined)
   clock.mark('surfaceBuffers')
-  const { tri, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, cur.faces, tractions, invariants, balance, patches, input)
+  const { surface, extras, assembly, summary: figures, buffers } = casePictureOf(model, cur.faces, cur.basis, { ...early, elementBalance: balance }, input)
+  const analysis = withVerdict(input, cur.faces, early, balance, clock.mark, spread ? await spread : undefined)
+  const { tractions, invariants, bodyBalance: body, loadPatches: patches, verdict } = analysis
   clock.mark('')
-  const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: 0, sharing: 'none' } }
+  const summary: ModelSummary = { ...figures, source: '', compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) } }
   cur.model = model
   cur.tractions = tractions
   cur.polygons = null
@@ -359,8 +376,7 @@ function analyseCase(cur: Loaded, model: Model, rule: PatchRule | undefined): { 
   cur.vonMises = invariants.vonMises
   cur.balance = balance
   cur.body = body
-  cur.faceVertexStart = tri.faceVertexStart
-  const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
+  const value: CaseShown = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
   return { value, buffers }
 }
 
@@ -388,6 +404,7 @@ const api: EngineApi = {
       } else model = syntheticModel(source.spec)
       const mesh = model.mesh
       const input = analysisInputOf(model)
+      let sharedMesh = mesh
       // The element balance and the invariants need no faces: on a pool they run beside the
       // boundary and traction stages, and the pipeline awaits them at their turn.
       const p = pool && mesh.elementCount >= POOL_MIN_ELEMENTS && await pool.upWithin(POOL_START_MS) ? pool : null
@@ -403,11 +420,17 @@ const api: EngineApi = {
       const { faces, tractions, invariants, elementBalance: balance, bodyBalance: body, loadPatches: patches, verdict } = await runAnalysisAsync(
         input, { balancePrecision: 'single', ...(rule ? { loadPatches: rule } : {}) },
         { offloaded, beforeStage: async (stage) => { report(...STAGE_PROGRESS[stage]); await yieldTurn(); clock.mark(stage) } },
-        ({ stage }) => { if (stage === 'elementBalance') p?.forget() },
+        ({ stage }) => {
+          if (stage !== 'elementBalance' || !p) return
+          // The model keeps the pool's shared copies of its mesh in place of its own arrays (no
+          // second copy), so a case switch's balance on the pool copies only the case's stress.
+          sharedMesh = p.sharedMesh(mesh)
+          p.forget()
+        },
       )
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
-      const { tri, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, patches, input)
+      const { basis, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, body, patches, input)
       clock.mark('')
       const summary: ModelSummary = {
         ...figures, source: sourceLabel(source),
@@ -418,9 +441,10 @@ const api: EngineApi = {
         ...caseSummary(model, firstCaseName(model)),
       }
       // Only now, with everything computed, does the new model replace the old one.
+      if (sharedMesh !== mesh) model = { ...model, mesh: sharedMesh }
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
-        vonMises: invariants.vonMises, balance, body, faceVertexStart: tri.faceVertexStart,
+        vonMises: invariants.vonMises, balance, body, basis,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -500,7 +524,8 @@ const api: EngineApi = {
 
   async patches(rule: PatchRule): Promise<Outcome<PatchReply>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
-    const { model, faces, tractions, vonMises, balance, body, faceVertexStart } = current
+    const { model, faces, tractions, vonMises, balance, body } = current
+    const faceVertexStart = current.basis.faceVertexStart
     const mesh = model.mesh
     const patches = findLoadPatches(mesh, faces, tractions, vonMises, rule)
     const verdict = computeBalanceVerdict(faces, tractions, patches, body, balance, model.bodyForce)
@@ -560,14 +585,13 @@ const api: EngineApi = {
   },
 
   // --- load cases ---
-  async showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<LoadedModel>> {
+  async showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<CaseShown>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
     try {
       const base = withCombinations(current.base, combinations)
-      const model = modelForCase(base, name)
-      const reply = analyseCase(current, model, rule)
+      const reply = await analyseCase(current, base, name, rule)
       current.shownCase = findCaseName(base, name)
-      const value: LoadedModel = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase) } }
+      const value: CaseShown = { ...reply.value, summary: { ...reply.value.summary, ...caseSummary(current.base, current.shownCase) } }
       return Comlink.transfer({ ok: true as const, value }, reply.buffers)
     } catch (e) {
       const error = toAppError(e)

@@ -23,6 +23,8 @@ import type { StressField } from '../src/model/stressField.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { allocateNodalInvariants, computeNodalInvariants } from '../src/mechanics/invariants.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
+import { indicatorSpread } from '../src/mechanics/balanceVerdict.ts'
+import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { PieceJob, PieceLane, PieceOutcome } from '../src/io/csvPieces.ts'
 
@@ -34,6 +36,8 @@ export interface PoolEndpoint {
   ping(): Promise<boolean>
   balance(part: BalancePart, out?: BalanceOut): Promise<ElementBalance | null>
   invariants(stress: Float64Array, out?: NodalInvariants): Promise<NodalInvariants | null>
+  /** The spread of the element indicator (balanceVerdict.ts), read in place from shared memory. */
+  spread?(indicator: Float32Array | Float64Array, count: number): Promise<IndicatorSpread>
   /** Reads pieces of CSV tables (src/io/csvPieces.ts); the jobs' bytes move by transfer. */
   csvPieces?(jobs: readonly PieceJob[]): Promise<readonly PieceOutcome[]>
   terminate(): void
@@ -101,6 +105,22 @@ export class KernelPool {
   }
 
   /**
+   * The spread of an element indicator (median, 95th percentile, largest, the least balanced),
+   * on a pool worker when the indicator is in shared memory (the pool's balance), so the caller
+   * goes on meanwhile; else, or on any failure, here. Same function, same values.
+   */
+  async indicatorSpread(indicator: Float32Array | Float64Array, count: number): Promise<IndicatorSpread> {
+    const ep = this.endpoints[0]
+    if (this.size < 1 || !ep?.spread || !(indicator.buffer instanceof SharedArrayBuffer)) return indicatorSpread(indicator, count)
+    try {
+      return await ep.spread(indicator, count)
+    } catch (e) {
+      this.standDown(`a pool worker failed (${e instanceof Error ? e.message : String(e)})`)
+      return indicatorSpread(indicator, count)
+    }
+  }
+
+  /**
    * One lane per pool worker for reading a CSV bundle in pieces (readCsvBundleInPieces); none
    * when the pool stood down. A worker that fails there makes the pool stand down, and the read
    * runs on one thread.
@@ -156,6 +176,21 @@ export class KernelPool {
       out.vonMises.set(p.vonMises, a); out.tresca.set(p.tresca, a); out.mean.set(p.mean, a)
     })
     return out
+  }
+
+  /**
+   * The mesh with its node and element arrays replaced by their shared copies (those the load's
+   * balance made; made now where missing); the parts stay. The engine keeps this mesh in place of
+   * its own arrays, which then free: no second copy is held, and a later job on the mesh (the
+   * balance of another load case) shares it as it is, copying only the case's stress. Without
+   * shared memory the mesh itself.
+   */
+  sharedMesh(mesh: Mesh): Mesh {
+    if (this.sharing !== 'shared') return mesh
+    return {
+      ...mesh, coords: this.shared(mesh.coords), nodeIds: this.shared(mesh.nodeIds),
+      blocks: mesh.blocks.map((b) => ({ ...b, conn: this.shared(b.conn), ids: this.shared(b.ids) })),
+    }
   }
 
   /** Drops the shared copies (the jobs of a load are done; they would double the model's memory). */

@@ -9,6 +9,8 @@ import { balancePart } from './kernelPoolTask.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
 import { pieceBuffers, readPiece } from '../src/io/csvPieces.ts'
+import { indicatorSpread } from '../src/mechanics/balanceVerdict.ts'
+import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { PieceJob, PieceOutcome } from '../src/io/csvPieces.ts'
 
 const buffersOf = (r: object): ArrayBuffer[] => Object.values(r).map((a: Float64Array | Float32Array) => a.buffer as ArrayBuffer)
@@ -22,6 +24,9 @@ const api = {
   invariants(stress: Float64Array, out?: NodalInvariants): NodalInvariants | null {
     const r = computeNodalInvariants(out ?? allocateNodalInvariants(stress.length / 6), stress)
     return out ? null : Comlink.transfer(r, buffersOf(r))
+  },
+  spread(indicator: Float32Array | Float64Array, count: number): IndicatorSpread {
+    return indicatorSpread(indicator, count)
   },
   csvPieces(jobs: readonly PieceJob[]): PieceOutcome[] {
     const out = jobs.map(readPiece)

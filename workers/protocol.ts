@@ -251,6 +251,21 @@ export interface LoadedModel {
   readonly assembly?: AssemblySummary
 }
 
+/**
+ * What a case switch sends (showCase): a load's reply without what does not depend on the case.
+ * The surface's positions, normals, triangles, triangle faces and feature edges stay those of the
+ * load (the scene keeps them on the GPU and replaces the scalar it shows); the assembly's
+ * triangle groups, part colours and interface mesh stay too, its parts and interfaces are the
+ * case's.
+ */
+export interface CaseShown {
+  readonly summary: ModelSummary
+  readonly surface: Pick<SurfaceBuffers, 'scalars' | 'ranges' | 'patch'>
+  readonly audit: AuditSummary
+  readonly extras?: LoadExtras
+  readonly assembly?: Pick<AssemblySummary, 'parts' | 'interfaces'>
+}
+
 /** Either a value or a user-facing error; input problems come back as values, not exceptions. */
 export type Outcome<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: AppError }
 
@@ -409,9 +424,10 @@ export interface EngineApi {
   // --- load cases ---
   /**
    * Shows case or combination `name` (the model's combinations and the app's own `combinations`):
-   * the analysis again on its fields, the mesh's boundary faces kept. The reply is a load's.
+   * the analysis again on its fields, the mesh's boundary faces kept. The reply carries only what
+   * the case changes (CaseShown); the surface's geometry of the load stays.
    */
-  showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<LoadedModel>>
+  showCase(name: string, combinations: readonly Combination[], rule?: PatchRule): Promise<Outcome<CaseShown>>
   /** Every case and combination of the section `plane`, and their envelope (section and regions). */
   envelope(plane: Plane, request: EnvelopeRequest): Promise<Outcome<EnvelopeReply>>
   /**

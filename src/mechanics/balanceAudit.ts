@@ -236,7 +236,12 @@ function storeBalance(out: ElementBalance, ge: number, v: number, rx: number, ry
 /** Elements per chunk of the body volume sums (2 MB of temporaries). */
 const BODY_CHUNK = 1 << 16
 
-export function computeBodyBalance(mesh: Mesh, faces: BoundaryFaces, tractions: SurfaceTractions, bodyForce: Vec3): BodyBalance {
+/**
+ * Volume V (L³) and volume centroid (L) of the mesh, about which the body balance takes its
+ * moment: they do not depend on the stress, so a caller that balances several load cases of one
+ * mesh computes them once and hands them to computeBodyBalance.
+ */
+export function bodyVolume(mesh: Mesh): { readonly volume: number; readonly centroid: Vec3 } {
   // Volumes and centroids a chunk of elements at a time, summed in element order: the same sums
   // as over whole-mesh arrays, without 32 bytes per element of temporaries.
   const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
@@ -257,7 +262,13 @@ export function computeBodyBalance(mesh: Mesh, faces: BoundaryFaces, tractions: 
     }
   }
   // An empty or zero-volume body has no centroid: use the origin.
-  const c: Vec3 = V !== 0 ? [cx / V, cy / V, cz / V] : [0, 0, 0]
+  return { volume: V, centroid: V !== 0 ? [cx / V, cy / V, cz / V] : [0, 0, 0] }
+}
+
+export function computeBodyBalance(
+  mesh: Mesh, faces: BoundaryFaces, tractions: SurfaceTractions, bodyForce: Vec3, body: { readonly volume: number; readonly centroid: Vec3 } = bodyVolume(mesh),
+): BodyBalance {
+  const V = body.volume, c: Vec3 = [body.centroid[0], body.centroid[1], body.centroid[2]]
   let fx = 0, fy = 0, fz = 0, mx = 0, my = 0, mz = 0, faceSum = 0
   const F = tractions.force, M = tractions.moment
   for (let f = 0; f < faces.count; f++) {

@@ -171,19 +171,23 @@ export function decideBalance(x: VerdictFigures): BalanceVerdict {
   }
 }
 
+/** The spread of the element indicator the verdict reads: median, 95th percentile, largest, and the least balanced elements. */
+export type IndicatorSpread = Pick<BalanceVerdictResult, 'indicator' | 'leastBalanced'>
+
+/** The indicator's spread (percentiles by selection, percentiles.ts) and the `count` least balanced elements (one pass). */
+export function indicatorSpread(indicator: ArrayLike<number>, count = LEAST_BALANCED_COUNT): IndicatorSpread {
+  const [p50, p95, max] = percentiles(indicator, [50, 95, 100])
+  return { indicator: { p50, p95, max }, leastBalanced: topIndices(indicator, count) }
+}
+
 /**
- * The verdict stage of the analysis pipeline: the indicator's spread (one sort of the E
- * indicators, shared with the cards and the audit command), the least balanced elements (one
- * pass) and the split with its verdict.
+ * The verdict stage of the analysis pipeline: the indicator's spread (shared with the cards and
+ * the audit command; a caller that computed it elsewhere, the engine's pool, hands it in), the
+ * least balanced elements and the split with its verdict.
  */
 export function computeBalanceVerdict(
   faces: BoundaryFaces, tractions: SurfaceTractions, patches: LoadPatches, body: BodyBalance, elements: ElementBalance, bodyForce: Vec3,
-  leastBalancedCount = LEAST_BALANCED_COUNT,
+  leastBalancedCount = LEAST_BALANCED_COUNT, spread: IndicatorSpread = indicatorSpread(elements.indicator, leastBalancedCount),
 ): BalanceVerdictResult {
-  const [p50, p95, max] = percentiles(elements.indicator, [50, 95, 100])
-  return {
-    ...balanceSplit(faces, tractions, patches, body, elements, p50, bodyForce),
-    indicator: { p50, p95, max },
-    leastBalanced: topIndices(elements.indicator, leastBalancedCount),
-  }
+  return { ...balanceSplit(faces, tractions, patches, body, elements, spread.indicator.p50, bodyForce), ...spread }
 }

@@ -22,7 +22,8 @@
  *   (or everywhere when no labels were given); a float because it is a vertex attribute;
  * - `bounds`: axis-aligned box of the vertices, model length units.
  *
- * Linear in the number of faces; the only allocations are the output arrays.
+ * Linear in the number of faces; the only allocations are the output arrays. A load case switch
+ * keeps the geometry and builds only the scalars and labels again (buildSurfaceScalars).
  */
 import { FACE_KINDS } from '../model/elementTypes.ts'
 import type { Vec3 } from '../model/model.ts'
@@ -54,22 +55,19 @@ const NODES_OF_KIND = FACE_KINDS.map((k) => k.nodeCount)
 const TRIS_OF_KIND = FACE_KINDS.map((k) => k.triangles.length / 3)
 const LOCAL_TRIS: readonly (readonly number[])[] = FACE_KINDS.map((k) => k.triangles)
 
-/**
- * Builds the surface render buffers. `indicator` is the ElementBalance indicator per element
- * (dimensionless) or null; `faceLabel` the LoadPatches label per boundary face or null; `jump`
- * the stress jump per node (element-nodal stress) or null.
- */
-export function buildSurfaceTriangles(
-  coords: Float64Array,
-  faces: BoundaryFaces,
-  tractions: SurfaceTractions,
-  invariants: NodalInvariants,
-  indicator: ArrayLike<number> | null = null,
-  faceLabel: Int32Array | null = null,
-  jump: ArrayLike<number> | null = null,
-): SurfaceTriangles {
-  const F = faces.count
-  const kind = faces.kind
+/** The case-dependent part of the surface buffers: the scalars, their ranges and the patch labels (layout above). */
+export interface SurfaceScalars {
+  readonly scalars: Readonly<Record<SurfaceQuantity, Float32Array>>
+  readonly ranges: Readonly<Record<SurfaceQuantity, readonly [number, number]>>
+  readonly patch: Float32Array
+}
+
+/** What the surface scalars read of the invariants: von Mises and the principal values at the surface's nodes. */
+export type SurfaceInvariants = Pick<NodalInvariants, 'vonMises' | 'principal'>
+
+/** First vertex of each face and V at the end (Int32Array(F + 1)), and the triangle count T. */
+export function surfaceVertexRuns(faces: BoundaryFaces): { faceVertexStart: Int32Array; triangles: number } {
+  const F = faces.count, kind = faces.kind
   const faceVertexStart = new Int32Array(F + 1)
   let V = 0, T = 0
   for (let f = 0; f < F; f++) {
@@ -78,25 +76,37 @@ export function buildSurfaceTriangles(
     T += TRIS_OF_KIND[kind[f]]
   }
   faceVertexStart[F] = V
+  return { faceVertexStart, triangles: T }
+}
+
+/**
+ * Builds the surface render buffers. `indicator` is the ElementBalance indicator per element
+ * (dimensionless) or null; `faceLabel` the LoadPatches label per boundary face or null; `jump`
+ * the stress jump per node (element-nodal stress) or null. The geometry (positions, normals,
+ * index, triangle faces, vertex runs, bounds) does not depend on the stress; the scalars and
+ * labels are those of buildSurfaceScalars.
+ */
+export function buildSurfaceTriangles(
+  coords: Float64Array,
+  faces: BoundaryFaces,
+  tractions: SurfaceTractions,
+  invariants: SurfaceInvariants,
+  indicator: ArrayLike<number> | null = null,
+  faceLabel: Int32Array | null = null,
+  jump: ArrayLike<number> | null = null,
+): SurfaceTriangles {
+  const F = faces.count
+  const kind = faces.kind
+  const { faceVertexStart, triangles: T } = surfaceVertexRuns(faces)
+  const V = faceVertexStart[F]
 
   const positions = new Float32Array(3 * V)
   const normals = new Float32Array(3 * V)
   const index = new Uint32Array(3 * T)
   const triangleFace = new Uint32Array(T)
-  const normalTraction = new Float32Array(V)
-  const shearTraction = new Float32Array(V)
-  const tractionMagnitude = new Float32Array(V)
-  const vonMises = new Float32Array(V)
-  const principal1 = new Float32Array(V)
-  const principal3 = new Float32Array(V)
-  const balanceIndicator = new Float32Array(V)
-  const stressJump = new Float32Array(V)
-  const patch = new Float32Array(V)
 
-  const nodes = faces.nodes, elem = faces.elem, S = faces.slots
-  const nodeNormal = tractions.nodeNormal, nn = tractions.nodeNormalTraction
-  const ns = tractions.nodeShear, nm = tractions.nodeMagnitude
-  const vm = invariants.vonMises, pr = invariants.principal
+  const nodes = faces.nodes, S = faces.slots
+  const nodeNormal = tractions.nodeNormal
   let minX = Infinity, minY = Infinity, minZ = Infinity, maxX = -Infinity, maxY = -Infinity, maxZ = -Infinity
 
   let t = 0
@@ -104,8 +114,6 @@ export function buildSurfaceTriangles(
     const k = kind[f]
     const nv = NODES_OF_KIND[k]
     const v0 = faceVertexStart[f]
-    const ind = indicator ? indicator[elem[f]] : 0
-    const label = faceLabel ? faceLabel[f] : -1
     for (let a = 0; a < nv; a++) {
       const slot = f * S + a
       const node = nodes[slot]
@@ -121,15 +129,6 @@ export function buildSurfaceTriangles(
       normals[3 * v] = nodeNormal[3 * slot]
       normals[3 * v + 1] = nodeNormal[3 * slot + 1]
       normals[3 * v + 2] = nodeNormal[3 * slot + 2]
-      normalTraction[v] = nn[slot]
-      shearTraction[v] = ns[slot]
-      tractionMagnitude[v] = nm[slot]
-      vonMises[v] = vm[node]
-      principal1[v] = pr[3 * node]
-      principal3[v] = pr[3 * node + 2]
-      balanceIndicator[v] = ind
-      if (jump) stressJump[v] = jump[node]
-      patch[v] = label
     }
     const local = LOCAL_TRIS[k]
     for (let i = 0; i < local.length; i += 3) {
@@ -141,16 +140,69 @@ export function buildSurfaceTriangles(
     }
   }
 
-  const scalars: Record<SurfaceQuantity, Float32Array> = {
-    normalTraction, shearTraction, tractionMagnitude, vonMises, principal1, principal3, balanceIndicator, stressJump,
-  }
-  const ranges = {} as Record<SurfaceQuantity, readonly [number, number]>
-  for (const q of SURFACE_QUANTITIES) ranges[q] = finiteRange(scalars[q])
+  const { scalars, ranges, patch } = buildSurfaceScalars(faces, faceVertexStart, tractions, invariants, indicator, faceLabel, jump)
   // An empty surface gets a unit box at the origin so camera fitting stays finite.
   const bounds = V > 0
     ? { min: [minX, minY, minZ] as Vec3, max: [maxX, maxY, maxZ] as Vec3 }
     : { min: [0, 0, 0] as Vec3, max: [1, 1, 1] as Vec3 }
   return { positions, normals, index, triangleFace, faceVertexStart, scalars, ranges, patch, bounds }
+}
+
+/**
+ * The scalars, ranges and patch labels of the surface whose vertex runs are `faceVertexStart`
+ * (surfaceVertexRuns): what another load case changes, on the same geometry. Arguments as
+ * buildSurfaceTriangles; `invariants` is read at the surface's nodes only.
+ */
+export function buildSurfaceScalars(
+  faces: BoundaryFaces,
+  faceVertexStart: Int32Array,
+  tractions: SurfaceTractions,
+  invariants: SurfaceInvariants,
+  indicator: ArrayLike<number> | null = null,
+  faceLabel: Int32Array | null = null,
+  jump: ArrayLike<number> | null = null,
+): SurfaceScalars {
+  const F = faces.count
+  const V = faceVertexStart[F]
+  const normalTraction = new Float32Array(V)
+  const shearTraction = new Float32Array(V)
+  const tractionMagnitude = new Float32Array(V)
+  const vonMises = new Float32Array(V)
+  const principal1 = new Float32Array(V)
+  const principal3 = new Float32Array(V)
+  const balanceIndicator = new Float32Array(V)
+  const stressJump = new Float32Array(V)
+  const patch = new Float32Array(V)
+
+  const nodes = faces.nodes, elem = faces.elem, S = faces.slots
+  const nn = tractions.nodeNormalTraction, ns = tractions.nodeShear, nm = tractions.nodeMagnitude
+  const vm = invariants.vonMises, pr = invariants.principal
+  for (let f = 0; f < F; f++) {
+    const v0 = faceVertexStart[f], nv = faceVertexStart[f + 1] - v0
+    const ind = indicator ? indicator[elem[f]] : 0
+    const label = faceLabel ? faceLabel[f] : -1
+    for (let a = 0; a < nv; a++) {
+      const slot = f * S + a
+      const node = nodes[slot]
+      const v = v0 + a
+      normalTraction[v] = nn[slot]
+      shearTraction[v] = ns[slot]
+      tractionMagnitude[v] = nm[slot]
+      vonMises[v] = vm[node]
+      principal1[v] = pr[3 * node]
+      principal3[v] = pr[3 * node + 2]
+      balanceIndicator[v] = ind
+      if (jump) stressJump[v] = jump[node]
+      patch[v] = label
+    }
+  }
+
+  const scalars: Record<SurfaceQuantity, Float32Array> = {
+    normalTraction, shearTraction, tractionMagnitude, vonMises, principal1, principal3, balanceIndicator, stressJump,
+  }
+  const ranges = {} as Record<SurfaceQuantity, readonly [number, number]>
+  for (const q of SURFACE_QUANTITIES) ranges[q] = finiteRange(scalars[q])
+  return { scalars, ranges, patch }
 }
 
 /**

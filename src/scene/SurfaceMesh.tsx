@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react'
+import { useEffect, useLayoutEffect, useMemo, useState } from 'react'
 import { BackSide, BufferAttribute, BufferGeometry, FrontSide, Sphere, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { SurfaceBuffers } from '../../workers/protocol.ts'
@@ -37,32 +37,34 @@ const noRaycast = (): void => {}
 
 /**
  * The boundary surface, colour-mapped by one scalar per vertex. The geometry is built once per
- * buffer set; quantity, range, map and highlight only swap an attribute or set a uniform.
+ * set of geometry buffers (positions, normals, triangles): another load case brings new scalars
+ * and patch labels on the same geometry, and the quantity, range, map and highlight change only
+ * an attribute's values or a uniform. The shown scalar and the patch labels live in one attribute
+ * each, written in place (no new GPU buffer, no new shader).
  */
 export function SurfaceMesh({ surface, scalars, displacement, deformScale, range, colourMap, highlightedPatch, clippingPlanes, clipped, bounds, ranges = null }: SurfaceMeshProps) {
   const invalidate = useThree((s) => s.invalidate)
+  const { positions, normals, index } = surface
+  const V = positions.length / 3
 
-  const { geometry, scalarAttributes } = useMemo(() => {
+  const { geometry, scalarAttribute, labelAttribute } = useMemo(() => {
     const g = new BufferGeometry()
-    g.setAttribute('position', new BufferAttribute(surface.positions, 3))
-    g.setAttribute('normal', new BufferAttribute(surface.normals, 3))
-    g.setAttribute('label', new BufferAttribute(surface.patch, 1))
-    g.setIndex(new BufferAttribute(surface.index, 1))
+    g.setAttribute('position', new BufferAttribute(positions, 3))
+    g.setAttribute('normal', new BufferAttribute(normals, 3))
+    g.setIndex(new BufferAttribute(index, 1))
+    // The scalar shown and the patch labels: arrays of this geometry's own, rewritten in place.
+    const scalar = new BufferAttribute(new Float32Array(positions.length / 3), 1)
+    const label = new BufferAttribute(new Float32Array(positions.length / 3), 1)
+    g.setAttribute('scalar', scalar)
+    g.setAttribute('label', label)
     // Bounds from the model summary: computeBoundingSphere would walk every vertex.
     const c = new Vector3((bounds.min[0] + bounds.max[0]) / 2, (bounds.min[1] + bounds.max[1]) / 2, (bounds.min[2] + bounds.max[2]) / 2)
     const r = 0.5 * Math.hypot(bounds.max[0] - bounds.min[0], bounds.max[1] - bounds.min[1], bounds.max[2] - bounds.min[2])
     g.boundingSphere = new Sphere(c, r)
-    // One attribute object per scalar array, created lazily; three uploads each once.
-    return { geometry: g, scalarAttributes: new Map<Float32Array, BufferAttribute>() }
-  }, [surface, bounds])
+    return { geometry: g, scalarAttribute: scalar, labelAttribute: label }
+  }, [positions, normals, index, bounds])
 
-  useEffect(() => () => {
-    // three frees only the attributes attached at dispose time; attach every scalar buffer
-    // uploaded for this geometry so none stays behind on the GPU.
-    let k = 0
-    for (const attr of scalarAttributes.values()) geometry.setAttribute('scalar_' + k++, attr)
-    geometry.dispose()
-  }, [geometry, scalarAttributes])
+  useEffect(() => () => geometry.dispose(), [geometry])
 
   const material = useMemo(() => {
     const m = createScalarMaterial(colourMapTexture('viridis'), clippingPlanes)
@@ -71,24 +73,30 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
   }, [clippingPlanes])
   useEffect(() => () => material.dispose(), [material])
 
-  useEffect(() => {
+  // Before the frame that shows them (a layout effect: the frame after a new case never draws the old values).
+  useLayoutEffect(() => {
     // No values (a component quantity before its buffers arrive): NaN paints neutral.
-    const values = scalars && scalars.length === surface.positions.length / 3 ? scalars : null
-    let attr = values ? scalarAttributes.get(values) : undefined
-    if (values && !attr) {
-      attr = new BufferAttribute(values, 1)
-      scalarAttributes.set(values, attr)
-    }
-    geometry.setAttribute('scalar', attr ?? new BufferAttribute(new Float32Array(surface.positions.length / 3).fill(NaN), 1))
+    const a = scalarAttribute.array as Float32Array
+    if (scalars && scalars.length === V) a.set(scalars)
+    else a.fill(NaN)
+    scalarAttribute.needsUpdate = true
     invalidate()
-  }, [geometry, scalarAttributes, surface, scalars, invalidate])
+  }, [scalarAttribute, scalars, V, invalidate])
+
+  useLayoutEffect(() => {
+    const a = labelAttribute.array as Float32Array
+    if (surface.patch.length === V) a.set(surface.patch)
+    else a.fill(-1)
+    labelAttribute.needsUpdate = true
+    invalidate()
+  }, [labelAttribute, surface.patch, V, invalidate])
 
   // The deformed shape: the displacement attribute (three frees it with the geometry).
   useEffect(() => {
-    if (displacement && displacement.length === surface.positions.length) geometry.setAttribute('displacement', new BufferAttribute(displacement, 3))
+    if (displacement && displacement.length === 3 * V) geometry.setAttribute('displacement', new BufferAttribute(displacement, 3))
     else geometry.deleteAttribute('displacement')
     invalidate()
-  }, [geometry, surface, displacement, invalidate])
+  }, [geometry, V, displacement, invalidate])
 
   // The inside seen through the cut: a second pass over the same geometry, back faces only,
   // pushed further back in depth so front faces always win along silhouette edges.
@@ -153,13 +161,14 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
   /** After a warm draw, the next one in a later task (its own frame). */
   const warmed = useMemo(() => () => { setTimeout(() => setWarmStep((k) => (k === 1 || k === 2 ? k + 1 : k)), 50) }, [])
 
-  // The first draw of each surface leaves a User Timing mark (the browser tests time the first picture by it).
+  // The first draw of each surface (a load or another case) leaves a User Timing mark (the browser
+  // tests time the first picture and the case switch by it).
   const markFirstDraw = useMemo(() => {
     let done = false
     return () => {
       if (done) return
       done = true
-      performance.mark('tractus:surface-drawn', { detail: { vertices: surface.positions.length / 3 } })
+      performance.mark('tractus:surface-drawn', { detail: { vertices: V } })
       setTimeout(() => setWarmStep((k) => (k === 0 ? 1 : k)), 300)
     }
   }, [surface])

@@ -4,11 +4,12 @@
  * the section over every case and combination (shown in the cut card when asked for).
  *
  * Choosing a case asks the engine for the analysis of that case (the engine client watches
- * `caseName` and the user's combinations); its reply replaces the surface, the audit and the
- * extras through `caseShown`, keeping the section, the camera and the view settings.
+ * `caseName` and the user's combinations); its reply replaces the surface's scalars and patch
+ * labels, the audit and the extras through `caseShown`, keeping the surface's geometry (the scene
+ * keeps it on the GPU), the section, the camera and the view settings.
  */
 import type { StateCreator } from 'zustand'
-import type { Combination, EnvelopeReply, LoadedModel, ModelSummary } from '../../workers/protocol.ts'
+import type { CaseShown, Combination, EnvelopeReply, ModelSummary } from '../../workers/protocol.ts'
 import { shapeOfLoad } from './shapeSlice.ts'
 import { describeFactors } from '../model/loadCases.ts'
 import type { TractusState } from './store.ts'
@@ -34,8 +35,8 @@ export interface CaseSlice {
   setEnvelopeCombinationsOnly: (only: boolean) => void
   envelopeShown: (reply: EnvelopeReply | null, error?: string) => void
   caseStarted: () => void
-  /** The analysis of the chosen case: surface, audit and extras replace the old ones; the section and view stay. */
-  caseShown: (loaded: LoadedModel | null) => void
+  /** The analysis of the chosen case: the surface's scalars, the audit and the extras replace the old ones; the geometry, the section and view stay. */
+  caseShown: (loaded: CaseShown | null) => void
 }
 
 /** What a new model sets in this slice (modelLoaded in store.ts): its first case, no combinations of the user's. */
@@ -89,11 +90,13 @@ export const createCaseSlice: StateCreator<TractusState, [], [], CaseSlice> = (s
     const prev = st.model
     // the model is the same: its source and inputs stay; the figures are the case's
     const model: ModelSummary = { ...loaded.summary, source: prev.source, ...(prev.inputs ? { inputs: prev.inputs } : {}) }
+    // the geometry is the load's: only the scalars, their ranges and the patch labels are the case's
+    const surface = st.surface ? { ...st.surface, ...loaded.surface } : null
     set({
-      model, surface: loaded.surface, audit: loaded.audit, probe: null, highlightedPatch: -1, caseRunning: false,
+      model, surface, audit: loaded.audit, probe: null, highlightedPatch: -1, caseRunning: false,
       ...shapeOfLoad(loaded),
-      // the parts' balances and interfaces are the case's; hidden parts and the limit stay
-      assembly: loaded.assembly ?? null, highlightedInterface: -1,
+      // the parts' balances and interfaces are the case's; their triangles, hidden parts and the limit stay
+      assembly: st.assembly && loaded.assembly ? { ...st.assembly, ...loaded.assembly } : null, highlightedInterface: -1,
     })
   },
 })

@@ -48,7 +48,7 @@ export interface ShapeSlice {
 export const DEFAULT_DEFORMATION: DeformationState = { shown: false, scale: 'auto', outline: true }
 
 /** The slice's fields a loaded model sets (its buffers; the user's choices stay). */
-export function shapeOfLoad(loaded: LoadedModel): Pick<ShapeSlice, 'deformationBuffers' | 'components' | 'surfaceExtremes'> {
+export function shapeOfLoad(loaded: Pick<LoadedModel, 'extras'>): Pick<ShapeSlice, 'deformationBuffers' | 'components' | 'surfaceExtremes'> {
   const x = loaded.extras
   return { deformationBuffers: x?.deformation ?? null, components: x?.components ?? null, surfaceExtremes: x?.extremes ?? null }
 }

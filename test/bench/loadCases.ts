@@ -3,11 +3,11 @@
  * - one single-case cut as the app runs it (boundary faces and tractions given), against all
  *   cases of the same cut at once (sectionEnvelope.ts: the stencil once, then one pass per case;
  *   50 cases and 2 combinations), and their ratio (the issue's bound: at most 3);
- * - switching the case, the steps the engine worker takes (workers/engine.worker.ts, showCase):
- *   the case's fields (modelForCase; for a combination of all 50 cases, the factored sum), the
- *   analysis pipeline with the mesh's boundary faces kept, and the picture (surface triangles
- *   with their scalars, feature edges, the component scalars and their extremes); for a
- *   combination of every case and for one case;
+ * - switching the case, the steps the engine worker takes (workers/engine.worker.ts, showCase;
+ *   workers/casePicture.ts): the case's fields (modelForCase; for a combination of all 50 cases,
+ *   the factored sum), the case's analysis with the load's boundary faces kept, and the case's
+ *   part of the picture (the surface's scalars on the load's geometry, the component scalars and
+ *   their extremes); for a combination of every case and for one case;
  * - the bytes of 50 cases, nodal and element-nodal (Float64 values, 6 per row; element-nodal adds
  *   one Int32 rows index shared by every case).
  * Runs alone: npx tsx test/bench/loadCases.ts [--elements N] [--cases K] [--json]; `npm run bench`
@@ -25,12 +25,12 @@ import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sectionEnvelope } from '../../src/mechanics/sectionEnvelope.ts'
-import { analysisInputOf, displayStressOf, runAnalysis } from '../../src/mechanics/analysisPipeline.ts'
-import { buildSurfaceTriangles, SURFACE_QUANTITIES } from '../../src/mechanics/surfaceTriangles.ts'
+import { analysisInputOf } from '../../src/mechanics/analysisPipeline.ts'
+import { surfaceVertexRuns } from '../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
-import { buildComponentScalars } from '../../src/mechanics/componentScalars.ts'
-import { GLOBAL_AXES } from '../../src/mechanics/componentAxes.ts'
-import { scalarExtremes } from '../../src/mechanics/scalarExtremes.ts'
+import { bodyVolume } from '../../src/mechanics/balanceAudit.ts'
+import { analyseCaseOnSurface, caseSurface, surfaceNodesOf } from '../../workers/casePicture.ts'
+import type { CaseBasis } from '../../workers/casePicture.ts'
 import type { BoundaryFaces } from '../../src/mechanics/types.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { syntheticModel } from './syntheticModel.ts'
@@ -82,21 +82,29 @@ function withCases(model: Model, k: number): Model {
 }
 
 /**
- * What the engine worker does to show another case (analyseCase and pictureOf there): the case's
- * fields, the pipeline with the boundary faces kept, the picture. Returns the three times (ms).
+ * What the engine worker does to show another case (analyseCase there, workers/casePicture.ts):
+ * the case's fields, the case's analysis on the kept faces (the principal stresses at the
+ * surface's nodes only, the body's volume from the load), and the case's part of the picture
+ * (the surface's scalars and patch labels on the load's vertex runs, the component scalars and
+ * the extremes; the geometry and the feature edges are the load's). Returns the three times (ms).
  */
-function caseSwitch(model: Model, faces: BoundaryFaces, name: string): { fieldsMs: number; pipelineMs: number; pictureMs: number } {
+function caseSwitch(model: Model, faces: BoundaryFaces, basis: CaseBasis, name: string): { fieldsMs: number; pipelineMs: number; pictureMs: number } {
   const t0 = performance.now()
   const m = modelForCase(model, name)
   const t1 = performance.now()
   const input = analysisInputOf(m)
-  const r = runAnalysis(input, { balancePrecision: 'single', faces })
+  const r = analyseCaseOnSurface(input, faces, basis, undefined, () => {})
   const t2 = performance.now()
-  const tri = buildSurfaceTriangles(m.mesh.coords, faces, r.tractions, r.invariants, r.elementBalance.indicator, r.loadPatches.faceLabel, null)
-  buildFeatureEdges(m.mesh.coords, faces)
-  buildComponentScalars(faces, m.mesh.coords, displayStressOf(input), m.displacement, GLOBAL_AXES)
-  for (const q of SURFACE_QUANTITIES) scalarExtremes(tri.scalars[q])
+  caseSurface(m, faces, basis, r, input)
   return { fieldsMs: t1 - t0, pipelineMs: t2 - t1, pictureMs: performance.now() - t2 }
+}
+
+/** What the load leaves for the switches (the worker's pictureOf): vertex runs, edge nodes, surface nodes, the body's volume. */
+function caseBasisOf(model: Model, faces: BoundaryFaces): CaseBasis {
+  return {
+    faceVertexStart: surfaceVertexRuns(faces).faceVertexStart, edgeNodes: buildFeatureEdges(model.mesh.coords, faces).nodes,
+    surfaceNodes: surfaceNodesOf(faces, model.mesh.nodeCount), body: bodyVolume(model.mesh),
+  }
 }
 
 export function benchLoadCases(
@@ -124,8 +132,9 @@ export function benchLoadCases(
     if (switchTypes.includes(type)) {
       log(`load cases: ${type}, case switch`)
       const parts: { fieldsMs: number; pipelineMs: number; pictureMs: number }[] = []
-      const all = measure(() => parts.push(caseSwitch(model, faces, 'all-mean')), { runs: 5, minRuns: 3, budgetMs: 6000 })
-      const one = measure(() => caseSwitch(model, faces, 'case-7'), { runs: 5, minRuns: 3, budgetMs: 6000 })
+      const basis = caseBasisOf(model, faces)
+      const all = measure(() => parts.push(caseSwitch(model, faces, basis, 'all-mean')), { runs: 5, minRuns: 3, budgetMs: 6000 })
+      const one = measure(() => caseSwitch(model, faces, basis, 'case-7'), { runs: 5, minRuns: 3, budgetMs: 6000 })
       sw = { parts: parts.slice(-all.samplesMs.length), all, one }
     }
     const part = (key: 'fieldsMs' | 'pipelineMs' | 'pictureMs') => (sw ? median(sw.parts.map((p) => p[key])) : null)

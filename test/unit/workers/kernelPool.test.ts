@@ -12,6 +12,7 @@ import { balancePart } from '../../../workers/kernelPoolTask.ts'
 import { allocateNodalInvariants, computeNodalInvariants } from '../../../src/mechanics/invariants.ts'
 import { nodalStressField } from '../../../src/model/stressField.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
+import { indicatorSpread, LEAST_BALANCED_COUNT } from '../../../src/mechanics/balanceVerdict.ts'
 import { elementNodalCopy } from '../../helpers/elementNodal.ts'
 
 /** An endpoint that runs the pool worker's task in this thread; structuredClone mimics postMessage. */
@@ -33,6 +34,11 @@ function localEndpoint(log: { shared: number; calls: number; rowCopies?: number 
       const copy = structuredClone(stress)
       const r = computeNodalInvariants(out ?? allocateNodalInvariants(copy.length / 6), copy)
       return out ? null : r
+    },
+    async spread(indicator, count) {
+      log.calls++
+      if (indicator.buffer instanceof SharedArrayBuffer) log.shared++
+      return indicatorSpread(structuredClone(indicator), count)
     },
     terminate() { /* nothing to stop */ },
   }
@@ -75,6 +81,40 @@ describe('kernel pool: element balance', () => {
       })
     }
   }
+
+  it('keeps the mesh shared after a load: the engine holds the shared copies, and another case\'s balance on them copies only its stress', async () => {
+    const log = { shared: 0, calls: 0 }
+    const pool = new KernelPool(2, () => localEndpoint(log), 'shared')
+    await pool.elementBalance(mesh, field, b)
+    const kept = pool.sharedMesh(mesh)
+    pool.forget()
+    // the same values, in shared memory, the parts and the counts as they were
+    expect(kept.coords.buffer).toBeInstanceOf(SharedArrayBuffer)
+    expect(sameBits(kept.coords, mesh.coords)).toBe(true)
+    kept.blocks.forEach((k, i) => {
+      expect(k.conn.buffer).toBeInstanceOf(SharedArrayBuffer)
+      expect(sameBits(k.conn, mesh.blocks[i].conn)).toBe(true)
+      expect(k.part).toBe(mesh.blocks[i].part)
+      expect(k.offset).toBe(mesh.blocks[i].offset)
+    })
+    // another case (twice the stress): the pool's balance on the kept mesh against one thread on the model's own
+    const twice = stress.map((v) => 2 * v)
+    const plain = computeElementBalance(allocateElementBalance(mesh.elementCount, 'single'), mesh, nodalStressField(mesh, twice), b)
+    const { value } = await pool.elementBalance(kept, nodalStressField(kept, twice), b)
+    expect(sameBits(value.residual, plain.residual)).toBe(true)
+    expect(sameBits(value.indicator, plain.indicator)).toBe(true)
+    // the indicator's spread read on a pool worker from the shared balance: the verdict's own figures
+    const before = log.calls
+    expect(await pool.indicatorSpread(value.indicator as Float32Array, LEAST_BALANCED_COUNT)).toEqual(indicatorSpread(plain.indicator, LEAST_BALANCED_COUNT))
+    expect(log.calls).toBe(before + 1)
+    // an indicator not in shared memory is read here
+    expect(await pool.indicatorSpread(plain.indicator as Float32Array, 3)).toEqual(indicatorSpread(plain.indicator, 3))
+    expect(log.calls).toBe(before + 1)
+    // the mesh arrays are shared as they are: asking again gives the very arrays
+    expect(pool.sharedMesh(kept).coords).toBe(kept.coords)
+    expect(new KernelPool(1, () => localEndpoint(log), 'copy').sharedMesh(mesh)).toBe(mesh)
+    pool.dispose()
+  })
 
   for (const sharing of ['shared', 'copy'] as Sharing[]) {
     it(`${sharing} hand-over of element-nodal stress (a shuffled copy of the nodal rows) equals the nodal one thread bit for bit`, async () => {
