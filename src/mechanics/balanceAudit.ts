@@ -21,7 +21,7 @@ import type { Mesh, Vec3 } from '../model/model.ts'
 import { checkStressField } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import { faceQuadratureTables } from './boundaryFaces.ts'
-import { elementByRule, elementVolumesAndCentroids } from './elementVolume.ts'
+import { elementByRule, elementVolumesAndCentroids, volumeChunks } from './elementVolume.ts'
 import { sixTetVolume } from '../model/elements/tetVolume.ts'
 import { tabulateElement } from './shapeFunctions.ts'
 import { isStraightTet10 } from './straightTet10.ts'
@@ -233,9 +233,6 @@ function storeBalance(out: ElementBalance, ge: number, v: number, rx: number, ry
   out.indicator[ge] = gr > 0 ? Math.sqrt(rx * rx + ry * ry + rz * rz) / gr : 0
 }
 
-/** Elements per chunk of the body volume sums (2 MB of temporaries). */
-const BODY_CHUNK = 1 << 16
-
 /**
  * Volume V (L³) and volume centroid (L) of the mesh, about which the body balance takes its
  * moment: they do not depend on the stress, so a caller that balances several load cases of one
@@ -243,24 +240,14 @@ const BODY_CHUNK = 1 << 16
  */
 export function bodyVolume(mesh: Mesh): { readonly volume: number; readonly centroid: Vec3 } {
   // Volumes and centroids a chunk of elements at a time, summed in element order: the same sums
-  // as over whole-mesh arrays, without 32 bytes per element of temporaries.
-  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
-  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
+  // as over whole-mesh arrays.
   let V = 0, cx = 0, cy = 0, cz = 0
-  for (const b of mesh.blocks) {
-    const nn = ELEMENT_TYPES[b.type].nodeCount
-    const count = b.conn.length / nn
-    for (let s = 0; s < count; s += chunk) {
-      const n = Math.min(chunk, count - s)
-      const part: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
-        blocks: [{ type: b.type, conn: b.conn.subarray(s * nn, (s + n) * nn), ids: b.ids.subarray(s, s + n), part: null, offset: 0 }] }
-      elementVolumesAndCentroids(part, vol, cen)
-      for (let e = 0; e < n; e++) {
-        const v = vol[e]
-        V += v; cx += v * cen[3 * e]; cy += v * cen[3 * e + 1]; cz += v * cen[3 * e + 2]
-      }
+  volumeChunks(mesh, (_b, _first, n, vol, cen) => {
+    for (let e = 0; e < n; e++) {
+      const v = vol[e]
+      V += v; cx += v * cen[3 * e]; cy += v * cen[3 * e + 1]; cz += v * cen[3 * e + 2]
     }
-  }
+  })
   // An empty or zero-volume body has no centroid: use the origin.
   return { volume: V, centroid: V !== 0 ? [cx / V, cy / V, cz / V] : [0, 0, 0] }
 }

@@ -7,7 +7,7 @@
  */
 import { ELEMENT_TYPES, elementType } from '../model/elementTypes.ts'
 import { sixTetVolume } from '../model/elements/tetVolume.ts'
-import type { Mesh } from '../model/model.ts'
+import type { ElementBlock, Mesh } from '../model/model.ts'
 import { tabulateElement } from './shapeFunctions.ts'
 import type { ElementTable } from './shapeFunctions.ts'
 import { isStraightTet10 } from './straightTet10.ts'
@@ -195,3 +195,30 @@ function hexElement(outVolume: Float64Array, outCentroid: Float64Array | null, g
   }
 }
 
+
+/** Elements per chunk of volumeChunks (2 MB of temporaries). */
+const VOLUME_CHUNK = 1 << 16
+
+/**
+ * Volumes and centroids of the mesh's elements a chunk at a time, in element order, without 32
+ * bytes per element of temporaries: `visit(block, first, n, volume, centroid)` gets the block,
+ * the chunk's first element in it and its count, and the chunk's volumes (n) and centroids (3n)
+ * in scratch reused by the next chunk.
+ */
+export function volumeChunks(
+  mesh: Mesh, visit: (block: ElementBlock, first: number, n: number, volume: Float64Array, centroid: Float64Array) => void,
+): void {
+  const chunk = Math.max(1, Math.min(VOLUME_CHUNK, mesh.elementCount))
+  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
+  for (const b of mesh.blocks) {
+    const nn = ELEMENT_TYPES[b.type].nodeCount
+    const count = b.conn.length / nn
+    for (let s = 0; s < count; s += chunk) {
+      const n = Math.min(chunk, count - s)
+      const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
+        blocks: [{ type: b.type, conn: b.conn.subarray(s * nn, (s + n) * nn), ids: b.ids.subarray(s, s + n), part: null, offset: 0 }] }
+      elementVolumesAndCentroids(piece, vol, cen)
+      visit(b, s, n, vol, cen)
+    }
+  }
+}

@@ -26,7 +26,7 @@ import type { StressField } from '../model/stressField.ts'
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import { extractBoundaryFaces } from './boundaryFaces.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from './tractions.ts'
-import { elementVolumesAndCentroids } from './elementVolume.ts'
+import { volumeChunks } from './elementVolume.ts'
 import { faceCornerCount } from './freeBody.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
@@ -253,9 +253,6 @@ export function assemblyBalance(
   return { parts, ...matchInterfaces(mesh.coords, b) }
 }
 
-/** Elements per chunk of the volume sums (2 MB of temporaries), as balanceAudit.ts. */
-const BODY_CHUNK = 1 << 16
-
 /**
  * Per part index (`index`: part number → index): `sums` (4·K) volume and volume-weighted centroid
  * x, y, z; `elements` (K) the element count. A chunk of elements at a time (elementVolume.ts), in
@@ -263,22 +260,13 @@ const BODY_CHUNK = 1 << 16
  * part marks `mark` (markNodes, partFaces.ts) while they are in cache.
  */
 function partVolumes(sums: Float64Array, elements: Int32Array, mark: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
-  const chunk = Math.max(1, Math.min(BODY_CHUNK, mesh.elementCount))
-  const vol = new Float64Array(chunk), cen = new Float64Array(3 * chunk)
   // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
   const cur = new Float64Array(5), at = [0, -1] // [part index, last part number]
-  for (const blk of mesh.blocks) {
+  volumeChunks(mesh, (blk, s, n, vol, cen) => {
     const nn = ELEMENT_TYPES[blk.type].nodeCount, cc = ELEMENT_TYPES[blk.type].cornerCount
-    const count = blk.conn.length / nn
-    for (let s = 0; s < count; s += chunk) {
-      const n = Math.min(chunk, count - s)
-      const piece: Mesh = { coords: mesh.coords, nodeIds: mesh.nodeIds, nodeCount: mesh.nodeCount, elementCount: n,
-        blocks: [{ type: blk.type, conn: blk.conn.subarray(s * nn, (s + n) * nn), ids: blk.ids.subarray(s, s + n), part: null, offset: 0 }] }
-      elementVolumesAndCentroids(piece, vol, cen)
-      sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
-      markNodes(mark, blk.conn, nn, cc, blk.part, s, s + n)
-    }
-  }
+    sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
+    markNodes(mark, blk.conn, nn, cc, blk.part, s, s + n)
+  })
   if (sums.length > 0) { const k = at[0]; sums[4 * k] = cur[0]; sums[4 * k + 1] = cur[1]; sums[4 * k + 2] = cur[2]; sums[4 * k + 3] = cur[3]; elements[k] = cur[4] }
 }
 
