@@ -395,10 +395,11 @@ const api: EngineApi = {
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
       // The user's files come as Blobs and are read here, in slices (workers/inputFiles.ts).
       let inputs: readonly InputFileRecord[] | undefined
+      let digested: Promise<InputFileRecord[]> | undefined
       let model: Model
       if (source.kind === 'files') {
         const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f))
-        inputs = read.inputs.length > 0 ? read.inputs : source.inputs
+        digested = read.inputs
         clock.mark('parse')
         model = await readFiles(read.files, source.units)
       } else model = syntheticModel(source.spec)
@@ -431,6 +432,13 @@ const api: EngineApi = {
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
       const { basis, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, body, patches, input)
+      if (digested) {
+        // the files' digests, computed on their own worker while the load ran (a stage of its
+        // own only for the wait that is left)
+        clock.mark('digests')
+        const records = await digested
+        inputs = records.length > 0 ? records : source.kind === 'files' ? source.inputs : undefined
+      }
       clock.mark('')
       const summary: ModelSummary = {
         ...figures, source: sourceLabel(source),

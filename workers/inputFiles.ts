@@ -1,20 +1,22 @@
 /**
  * The engine worker's intake of the user's files: each file arrives as a Blob (a handle; the main
- * thread never reads it) and is read here in slices into one buffer of its size, so its bytes are
- * held once, in this worker only. A container keeps those bytes (the model's arrays are views into
- * them); a CSV or JSON file is decoded to text and its bytes dropped before the next file is read.
+ * thread never reads it) and is read here a slice at a time straight into one buffer of its size
+ * (workers/blobBytes.ts), so its bytes are held once, in this worker only. A container keeps
+ * those bytes (the model's arrays are views into them); a CSV or JSON file is decoded to text and
+ * its bytes dropped before the next file is read.
  *
- * Each file's SHA-256 (for the report's traceability) is the browser's own digest of the whole
- * buffer, taken before the parse: its copy lives only while the digest runs (native, about
- * 1 GB/s), and the parse's arrays that come after need more than it did, so it does not raise the
- * peak. A digest in script over the slices as they stream by would hold nothing more but costs
- * about 10 × the time (100 MB/s measured here), on the load's critical path.
+ * Each file's SHA-256 (for the report's traceability) comes from a digest worker that reads the
+ * same Blob itself as the load goes on (workers/inputDigest.ts); the records carrying the digests
+ * are a promise the engine awaits at the load's end.
  */
 import { decodeUtf8 } from '../src/io/detect.ts'
 import type { InputFile } from '../src/io/detect.ts'
 import { isNativeContainer } from '../src/io/nativeContainer.ts'
 import { checkModelSize } from '../src/io/sizeGuard.ts'
+import { InputError } from '../src/model/errors.ts'
 import type { EngineFile, InputFileRecord } from './protocol.ts'
+import { sliceReader } from './blobBytes.ts'
+import { digestsOf } from './inputDigest.ts'
 
 /** Bytes per slice: large enough that the per-read overhead vanishes, small next to a model file. */
 export const SLICE_BYTES = 16 * 1024 * 1024
@@ -23,27 +25,20 @@ const TEXT_EXTENSIONS = ['.csv', '.json', '.txt']
 
 export interface ReadInputs {
   readonly files: InputFile[]
-  /** One record per Blob read (name, size, digest); empty when none was a Blob. */
-  readonly inputs: InputFileRecord[]
-}
-
-/** Lower-case hex SHA-256 by the platform's digest, or undefined where there is none. */
-async function digestOf(bytes: Uint8Array<ArrayBuffer>): Promise<string | undefined> {
-  const subtle = globalThis.crypto?.subtle
-  if (!subtle) return undefined
-  const d = new Uint8Array(await subtle.digest('SHA-256', bytes))
-  return Array.from(d, (b) => b.toString(16).padStart(2, '0')).join('')
+  /** One record per Blob read (name, size, digest), once the digests are done; empty when none was a Blob. */
+  readonly inputs: Promise<InputFileRecord[]>
 }
 
 /** The whole of `blob`, read `slice` bytes at a time into one buffer; `read(bytes)` after each slice. */
 export async function readInSlices(blob: Blob, read: (bytes: number) => void, slice = SLICE_BYTES): Promise<Uint8Array<ArrayBuffer>> {
-  const out = new Uint8Array(blob.size)
+  const next = sliceReader(blob)
+  let buf = new ArrayBuffer(blob.size)
   for (let at = 0; at < blob.size; at += slice) {
-    const end = Math.min(blob.size, at + slice)
-    out.set(new Uint8Array(await blob.slice(at, end).arrayBuffer()), at)
-    read(end - at)
+    const n = Math.min(slice, blob.size - at)
+    buf = (await next(new Uint8Array(buf, at, n))).buffer
+    read(n)
   }
-  return out
+  return new Uint8Array(buf)
 }
 
 /**
@@ -57,16 +52,26 @@ export async function readInputFiles(files: readonly EngineFile[], progress: (fr
   const total = blobs.reduce((s, f) => s + f.data.size, 0)
   let done = 0
   const out: InputFile[] = []
-  const inputs: InputFileRecord[] = []
+  const records: Omit<InputFileRecord, 'sha256'>[] = []
+  const digests = digestsOf(blobs.map((f) => f.data))
+  // never unhandled when a read below fails first
+  digests.catch(() => undefined)
   for (const f of files) {
     if (!(f.data instanceof Blob)) { out.push({ name: f.name, data: f.data }); continue }
-    const bytes = await readInSlices(f.data, (n) => { done += n; progress(total > 0 ? done / total : 1) }, slice)
-    const sha256 = await digestOf(bytes)
-    inputs.push({ name: f.name, bytes: bytes.byteLength, ...(sha256 ? { sha256 } : {}) })
+    let bytes: Uint8Array<ArrayBuffer>
+    try {
+      bytes = await readInSlices(f.data, (n) => { done += n; progress(total > 0 ? done / total : 1) }, slice)
+    } catch (e) {
+      throw new InputError('missing-file', `the file could not be read whole (${e instanceof Error ? e.message : String(e)}); choose it again`, { file: f.name })
+    }
+    records.push({ name: f.name, bytes: bytes.byteLength })
     const lower = f.name.toLowerCase()
     const text = !isNativeContainer(bytes) && TEXT_EXTENSIONS.some((e) => lower.endsWith(e))
     // Text files become text here, so their bytes are gone before the next file is read.
     out.push({ name: f.name, data: text ? decodeUtf8(f.name, bytes) : bytes })
   }
+  // A file that cannot be read again for its digest (changed or gone meanwhile) keeps its record
+  // without one; the model read is not lost for it.
+  const inputs = digests.then((d) => records.map((r, i) => ({ ...r, sha256: d[i] })), () => records)
   return { files: out, inputs }
 }

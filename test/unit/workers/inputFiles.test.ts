@@ -2,11 +2,15 @@
  * The engine worker's intake of the user's files (workers/inputFiles.ts): files handed over as
  * Blobs and read in slices give the same model, bit for bit, as the same files read whole; each
  * file's digest is its SHA-256 (checked against Node's own, FIPS 180-4); a file over its limit is
- * refused before a byte is read, naming the file, its size and the limit.
+ * refused before a byte is read, naming the file, its size and the limit. Both ways of reading a
+ * Blob (its byte stream into the caller's buffer, or slices) and the incremental digest give the
+ * same bytes and Node's SHA-256.
  */
 import { describe, expect, it } from 'vitest'
 import { createHash } from 'node:crypto'
 import { readInputFiles, readInSlices } from '../../../workers/inputFiles.ts'
+import { digestBlob } from '../../../workers/blobDigest.ts'
+import { digestsOf } from '../../../workers/inputDigest.ts'
 import { readModelFiles, writeCsvBundle, writeNative } from '../../../src/io/index.ts'
 import { MAX_CONTAINER_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
 import { InputError } from '../../../src/model/errors.ts'
@@ -33,7 +37,7 @@ describe('reading the user\'s files in slices', () => {
       const read = await readInputFiles(csv.map((f) => ({ name: f.name, data: new Blob([f.text]) })), (x) => fractions.push(x), slice)
       expectSameModel(whole, readModelFiles(read.files))
       expect(read.files.every((f) => typeof f.data === 'string'), 'text files arrive as text, their bytes dropped').toBe(true)
-      expect(read.inputs.map((i) => [i.name, i.bytes, i.sha256])).toEqual(csv.map((f) => [f.name, Buffer.byteLength(f.text), sha256(f.text)]))
+      expect((await read.inputs).map((i) => [i.name, i.bytes, i.sha256])).toEqual(csv.map((f) => [f.name, Buffer.byteLength(f.text), sha256(f.text)]))
       expect(fractions.at(-1)).toBe(1)
       for (let i = 1; i < fractions.length; i++) expect(fractions[i]).toBeGreaterThanOrEqual(fractions[i - 1])
     }
@@ -45,7 +49,7 @@ describe('reading the user\'s files in slices', () => {
     const read = await readInputFiles([{ name: 'm.tractus', data: new Blob([bytes as Uint8Array<ArrayBuffer>]) }], undefined, 4096 + 3)
     const got = readModelFiles(read.files)
     expectSameModel(whole, got)
-    expect(read.inputs).toEqual([{ name: 'm.tractus', bytes: bytes.byteLength, sha256: sha256(bytes) }])
+    expect(await read.inputs).toEqual([{ name: 'm.tractus', bytes: bytes.byteLength, sha256: sha256(bytes) }])
     // Held once: the model's coordinates live in the buffer the slices were read into.
     expect(got.mesh.coords.buffer).toBe((read.files[0].data as Uint8Array).buffer)
   })
@@ -60,7 +64,8 @@ describe('reading the user\'s files in slices', () => {
 
   it('bytes and text given already pass through unread and undigested (a demo the client fetched)', async () => {
     const read = await readInputFiles([{ name: 'a.json', data: '{}' }])
-    expect(read).toEqual({ files: [{ name: 'a.json', data: '{}' }], inputs: [] })
+    expect(read.files).toEqual([{ name: 'a.json', data: '{}' }])
+    expect(await read.inputs).toEqual([])
   })
 
   it('a file over its limit is refused before any is read: the file, its size and the limit', async () => {
@@ -73,5 +78,38 @@ describe('reading the user\'s files in slices', () => {
     expect(csv.message).toBe(`elements.csv: the file is 512.0 MiB (${MAX_TEXT_BYTES + 1} bytes), more than the limit of 512.0 MiB (${MAX_TEXT_BYTES} bytes)`)
     const big = await refusal('big.tractus', 3 * 1024 ** 3)
     expect(big.message).toBe(`big.tractus: the file is 3.00 GiB (${3 * 1024 ** 3} bytes), more than the limit of 2.00 GiB (${MAX_CONTAINER_BYTES} bytes)`)
+  })
+})
+
+/** The same bytes with no byte stream: the readers fall back to Blob.slice(). */
+class SliceOnlyBlob extends Blob {
+  override stream(): ReadableStream<Uint8Array<ArrayBuffer>> { return new ReadableStream() }
+}
+
+/** A Blob that says it is longer than it is (a file cut short while it was read). */
+class ShortBlob extends Blob {
+  override get size(): number { return super.size + 10 }
+}
+
+describe('reading a Blob by its byte stream or by slices, and its digest', () => {
+  const data = Uint8Array.from({ length: 10_007 }, (_, i) => (i * 131) % 253)
+
+  it('both ways give the bytes in place and the SHA-256 of Node\'s crypto (FIPS 180-4), at any slice size', async () => {
+    for (const make of [(d: Uint8Array<ArrayBuffer>) => new Blob([d]), (d: Uint8Array<ArrayBuffer>) => new SliceOnlyBlob([d])]) {
+      for (const slice of [1, 64, 1000, 1 << 20]) {
+        expect(Array.from(await readInSlices(make(data), () => undefined, slice))).toEqual(Array.from(data))
+        expect(await digestBlob(make(data), slice)).toBe(sha256(data))
+      }
+    }
+  })
+
+  it('the digest of an empty file is the empty message\'s (FIPS 180-4 example: e3b0c442…b855)', async () => {
+    expect(await digestBlob(new Blob([]))).toBe('e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855')
+    expect(await digestsOf([])).toEqual([])
+  })
+
+  it('a file shorter than its stated size is a clear error naming it, not a model of zeros', async () => {
+    const err = await readInputFiles([{ name: 'cut.tractus', data: new ShortBlob([data]) }]).then(() => null, (e: unknown) => e as InputError)
+    expect(err?.message).toMatch(/^cut\.tractus: the file could not be read whole \(the file ended before its stated size/)
   })
 })
