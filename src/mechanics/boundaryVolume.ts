@@ -35,6 +35,12 @@
  *   body's moment about it, by that quadrature error rather than by round-off.
  * Where the boundary is straight but elements inside are curved, the sums here are exact and the
  * element rules' first moment is not: the two differ by that quadrature error in the centroid.
+ * Faces are matched by their corners, so the pairs dropped cancel unless the mesh itself is
+ * broken: a curved quadratic face against a neighbour whose face has the same corners but other
+ * mid-edge nodes, or an inverted element (the readers reorient those).
+ * Far from the origin (coordinates above ≈ 10^4 face sizes) a straight quadratic face's mid-edge
+ * nodes can round off their midpoints by more than the test allows: the element sums then, as
+ * for a curved face.
  *
  * Inputs: `coords` (3 per node), the faces (BoundaryFaces: `kind`, `nodes` with `slots` per face,
  * corners first, outward). Output: { volume, centroid } (the origin for a zero volume, as
