@@ -28,6 +28,7 @@ import { isStraightTet10 } from './straightTet10.ts'
 import { FQP_AREA, FQP_SIZE, FQP_STRESS, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { momentAbout } from './vec3.ts'
 import { hex8Balance } from './hex8Balance.ts'
+import { boundaryVolume } from './boundaryVolume.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, SurfaceTractions } from './types.ts'
 
 /** Fresh output arrays for E elements in the chosen storage precision (see ElementBalance). */
@@ -252,8 +253,22 @@ export function bodyVolume(mesh: Mesh): { readonly volume: number; readonly cent
   return { volume: V, centroid: V !== 0 ? [cx / V, cy / V, cz / V] : [0, 0, 0] }
 }
 
+/**
+ * The same volume and centroid from the body's boundary faces (boundaryVolume.ts: the divergence
+ * theorem, a pass over the faces instead of the elements), or by bodyVolume where a quadratic
+ * face is curved or there are no faces. `faces` must be the mesh's boundary as
+ * extractBoundaryFaces gives it (every element face but the matched pairs), not a selection.
+ */
+export function bodyVolumeOf(mesh: Mesh, faces: BoundaryFaces): { readonly volume: number; readonly centroid: Vec3 } {
+  return boundaryVolume(mesh.coords, faces) ?? bodyVolume(mesh)
+}
+
+/**
+ * The whole body's balance over its boundary faces (`faces`: extractBoundaryFaces of `mesh`, with
+ * their tractions); `body` its volume and centroid when the caller has them (bodyVolumeOf).
+ */
 export function computeBodyBalance(
-  mesh: Mesh, faces: BoundaryFaces, tractions: SurfaceTractions, bodyForce: Vec3, body: { readonly volume: number; readonly centroid: Vec3 } = bodyVolume(mesh),
+  mesh: Mesh, faces: BoundaryFaces, tractions: SurfaceTractions, bodyForce: Vec3, body: { readonly volume: number; readonly centroid: Vec3 } = bodyVolumeOf(mesh, faces),
 ): BodyBalance {
   const V = body.volume, c: Vec3 = [body.centroid[0], body.centroid[1], body.centroid[2]]
   let fx = 0, fy = 0, fz = 0, mx = 0, my = 0, mz = 0, faceSum = 0

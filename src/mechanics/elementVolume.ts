@@ -129,58 +129,56 @@ export function elementByRule(
   }
 }
 
-/**
- * Monomial coefficients of the hex8 map: x(ξ) = Σ_k c_k m_k(ξ) with m = (1, ξ, η, ζ, ξη, ηζ, ξζ,
- * ξηζ); c_k = Σ_a HEX_MONO[8k + a] x_a, HEX_MONO[8k + a] = m_k(ξ_a) / 8 over the corners ξ_a = ±1
- * (N_a = (1 + ξ ξ_a)(1 + η η_a)(1 + ζ ζ_a) / 8 expanded).
- */
-const HEX_MONO = (() => {
-  const ref = ELEMENT_TYPES.hex8.refCoords, t = new Float64Array(64)
-  for (let a = 0; a < 8; a++) {
-    const [p, q, r] = ref[a]
-    const m = [1, p, q, r, p * q, q * r, p * r, p * q * r]
-    for (let k = 0; k < 8; k++) t[8 * k + a] = m[k] / 8
-  }
-  return t
-})()
-const HEX_C = new Float64Array(24)
 /** The 2×2×2 Gauss–Legendre abscissa ±1/√3 (weights 1; the hex8 volume rule). */
 const G = 1 / Math.sqrt(3)
 
 /**
  * One hex8 in monomial form with the 2×2×2 Gauss rule (the type's own volume rule, exact: det J
- * has degree ≤ 2 and x det J ≤ 3 per direction): at each point the Jacobian's columns are
- * c1 + c4 η + c6 ζ + c7 ηζ, c2 + c4 ξ + c5 ζ + c7 ξζ, c3 + c5 η + c6 ξ + c7 ξη, so a point costs a
- * few dozen operations instead of eight shape functions with their 24 derivatives. Coordinates
- * relative to node 0 (no digits lost far from the origin).
+ * has degree ≤ 2 and x det J ≤ 3 per direction). The map x(ξ) = Σ_k c_k m_k(ξ), m = (1, ξ, η, ζ,
+ * ξη, ηζ, ξζ, ξηζ), c_k = Σ_a m_k(ξ_a) x_a / 8 over the corners ξ_a = ±1 (N_a = (1 + ξ ξ_a)(1 +
+ * η η_a)(1 + ζ ζ_a) / 8 expanded), its coefficients by one butterfly a coordinate (sums and
+ * differences of the ξ pairs, then along η, then ζ: 23 additions instead of 64 multiply-adds; as
+ * trilinearMonomials.ts) into locals. At each point the Jacobian's columns are c1 + c4 η + c6 ζ +
+ * c7 ηζ, c2 + c4 ξ + c5 ζ + c7 ξζ, c3 + c5 η + c6 ξ + c7 ξη, so a point costs a few dozen
+ * operations instead of eight shape functions with their 24 derivatives. Coordinates relative to
+ * node 0 (no digits lost far from the origin).
  */
 function hexElement(outVolume: Float64Array, outCentroid: Float64Array | null, ge: number, x: Float64Array, conn: Int32Array, base: number): void {
-  const o = 3 * conn[base]
-  const ox = x[o], oy = x[o + 1], oz = x[o + 2]
-  const c = HEX_C, M = HEX_MONO
-  c.fill(0)
-  for (let a = 0; a < 8; a++) {
-    const p = 3 * conn[base + a]
-    const ax = x[p] - ox, ay = x[p + 1] - oy, az = x[p + 2] - oz
-    for (let k = 0; k < 8; k++) {
-      const w = M[8 * k + a]
-      c[3 * k] += w * ax; c[3 * k + 1] += w * ay; c[3 * k + 2] += w * az
-    }
-  }
+  const q0 = 3 * conn[base], q1 = 3 * conn[base + 1], q2 = 3 * conn[base + 2], q3 = 3 * conn[base + 3]
+  const q4 = 3 * conn[base + 4], q5 = 3 * conn[base + 5], q6 = 3 * conn[base + 6], q7 = 3 * conn[base + 7]
+  const ox = x[q0], oy = x[q0 + 1], oz = x[q0 + 2]
+  // x: relative corners, then the butterfly (the coefficients c_k)
+  const x1 = x[q1] - ox, x2 = x[q2] - ox, x3 = x[q3] - ox, x4 = x[q4] - ox, x5 = x[q5] - ox, x6 = x[q6] - ox, x7 = x[q7] - ox
+  const xs01 = x1, xd01 = x1, xs32 = x3 + x2, xd32 = x2 - x3, xs45 = x4 + x5, xd45 = x5 - x4, xs76 = x7 + x6, xd76 = x6 - x7
+  const xa0 = xs01 + xs32, xa2 = xs32 - xs01, xa1 = xd01 + xd32, xa4 = xd32 - xd01, xb0 = xs45 + xs76, xb2 = xs76 - xs45, xb1 = xd45 + xd76, xb4 = xd76 - xd45
+  const xc0 = 0.125 * (xa0 + xb0), xc1 = 0.125 * (xa1 + xb1), xc2 = 0.125 * (xa2 + xb2), xc3 = 0.125 * (xb0 - xa0)
+  const xc4 = 0.125 * (xa4 + xb4), xc5 = 0.125 * (xb2 - xa2), xc6 = 0.125 * (xb1 - xa1), xc7 = 0.125 * (xb4 - xa4)
+  // y: relative corners, then the butterfly (the coefficients c_k)
+  const y1 = x[q1 + 1] - oy, y2 = x[q2 + 1] - oy, y3 = x[q3 + 1] - oy, y4 = x[q4 + 1] - oy, y5 = x[q5 + 1] - oy, y6 = x[q6 + 1] - oy, y7 = x[q7 + 1] - oy
+  const ys01 = y1, yd01 = y1, ys32 = y3 + y2, yd32 = y2 - y3, ys45 = y4 + y5, yd45 = y5 - y4, ys76 = y7 + y6, yd76 = y6 - y7
+  const ya0 = ys01 + ys32, ya2 = ys32 - ys01, ya1 = yd01 + yd32, ya4 = yd32 - yd01, yb0 = ys45 + ys76, yb2 = ys76 - ys45, yb1 = yd45 + yd76, yb4 = yd76 - yd45
+  const yc0 = 0.125 * (ya0 + yb0), yc1 = 0.125 * (ya1 + yb1), yc2 = 0.125 * (ya2 + yb2), yc3 = 0.125 * (yb0 - ya0)
+  const yc4 = 0.125 * (ya4 + yb4), yc5 = 0.125 * (yb2 - ya2), yc6 = 0.125 * (yb1 - ya1), yc7 = 0.125 * (yb4 - ya4)
+  // z: relative corners, then the butterfly (the coefficients c_k)
+  const z1 = x[q1 + 2] - oz, z2 = x[q2 + 2] - oz, z3 = x[q3 + 2] - oz, z4 = x[q4 + 2] - oz, z5 = x[q5 + 2] - oz, z6 = x[q6 + 2] - oz, z7 = x[q7 + 2] - oz
+  const zs01 = z1, zd01 = z1, zs32 = z3 + z2, zd32 = z2 - z3, zs45 = z4 + z5, zd45 = z5 - z4, zs76 = z7 + z6, zd76 = z6 - z7
+  const za0 = zs01 + zs32, za2 = zs32 - zs01, za1 = zd01 + zd32, za4 = zd32 - zd01, zb0 = zs45 + zs76, zb2 = zs76 - zs45, zb1 = zd45 + zd76, zb4 = zd76 - zd45
+  const zc0 = 0.125 * (za0 + zb0), zc1 = 0.125 * (za1 + zb1), zc2 = 0.125 * (za2 + zb2), zc3 = 0.125 * (zb0 - za0)
+  const zc4 = 0.125 * (za4 + zb4), zc5 = 0.125 * (zb2 - za2), zc6 = 0.125 * (zb1 - za1), zc7 = 0.125 * (zb4 - za4)
   let vol = 0, cx = 0, cy = 0, cz = 0
   for (let s = 0; s < 8; s++) {
     const a = s & 1 ? G : -G, b = s & 2 ? G : -G, d = s & 4 ? G : -G
     const ab = a * b, bd = b * d, ad = a * d
-    const j00 = c[3] + c[12] * b + c[18] * d + c[21] * bd, j01 = c[6] + c[12] * a + c[15] * d + c[21] * ad, j02 = c[9] + c[15] * b + c[18] * a + c[21] * ab
-    const j10 = c[4] + c[13] * b + c[19] * d + c[22] * bd, j11 = c[7] + c[13] * a + c[16] * d + c[22] * ad, j12 = c[10] + c[16] * b + c[19] * a + c[22] * ab
-    const j20 = c[5] + c[14] * b + c[20] * d + c[23] * bd, j21 = c[8] + c[14] * a + c[17] * d + c[23] * ad, j22 = c[11] + c[17] * b + c[20] * a + c[23] * ab
+    const j00 = xc1 + xc4 * b + xc6 * d + xc7 * bd, j01 = xc2 + xc4 * a + xc5 * d + xc7 * ad, j02 = xc3 + xc5 * b + xc6 * a + xc7 * ab
+    const j10 = yc1 + yc4 * b + yc6 * d + yc7 * bd, j11 = yc2 + yc4 * a + yc5 * d + yc7 * ad, j12 = yc3 + yc5 * b + yc6 * a + yc7 * ab
+    const j20 = zc1 + zc4 * b + zc6 * d + zc7 * bd, j21 = zc2 + zc4 * a + zc5 * d + zc7 * ad, j22 = zc3 + zc5 * b + zc6 * a + zc7 * ab
     const det = j00 * (j11 * j22 - j12 * j21) - j01 * (j10 * j22 - j12 * j20) + j02 * (j10 * j21 - j11 * j20)
     vol += det
     if (outCentroid) {
       const abd = ab * d
-      cx += det * (c[0] + c[3] * a + c[6] * b + c[9] * d + c[12] * ab + c[15] * bd + c[18] * ad + c[21] * abd)
-      cy += det * (c[1] + c[4] * a + c[7] * b + c[10] * d + c[13] * ab + c[16] * bd + c[19] * ad + c[22] * abd)
-      cz += det * (c[2] + c[5] * a + c[8] * b + c[11] * d + c[14] * ab + c[17] * bd + c[20] * ad + c[23] * abd)
+      cx += det * (xc0 + xc1 * a + xc2 * b + xc3 * d + xc4 * ab + xc5 * bd + xc6 * ad + xc7 * abd)
+      cy += det * (yc0 + yc1 * a + yc2 * b + yc3 * d + yc4 * ab + yc5 * bd + yc6 * ad + yc7 * abd)
+      cz += det * (zc0 + zc1 * a + zc2 * b + zc3 * d + zc4 * ab + zc5 * bd + zc6 * ad + zc7 * abd)
     }
   }
   outVolume[ge] = vol
@@ -189,12 +187,11 @@ function hexElement(outVolume: Float64Array, outCentroid: Float64Array | null, g
     if (vol !== 0) { outCentroid[g] = ox + cx / vol; outCentroid[g + 1] = oy + cy / vol; outCentroid[g + 2] = oz + cz / vol } else {
       // zero volume: the node mean, as the general path
       let mx = 0, my = 0, mz = 0
-      for (let a = 0; a < 8; a++) { const p = 3 * conn[base + a]; mx += x[p]; my += x[p + 1]; mz += x[p + 2] }
+      for (let k = 0; k < 8; k++) { const p = 3 * conn[base + k]; mx += x[p]; my += x[p + 1]; mz += x[p + 2] }
       outCentroid[g] = mx / 8; outCentroid[g + 1] = my / 8; outCentroid[g + 2] = mz / 8
     }
   }
 }
-
 
 /** Elements per chunk of volumeChunks (2 MB of temporaries). */
 const VOLUME_CHUNK = 1 << 16

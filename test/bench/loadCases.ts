@@ -28,7 +28,7 @@ import { sectionEnvelope } from '../../src/mechanics/sectionEnvelope.ts'
 import { analysisInputOf } from '../../src/mechanics/analysisPipeline.ts'
 import { surfaceVertexRuns } from '../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
-import { bodyVolume } from '../../src/mechanics/balanceAudit.ts'
+import { bodyVolumeOf } from '../../src/mechanics/balanceAudit.ts'
 import { analyseCaseOnSurface, caseSurface, surfaceNodesOf } from '../../workers/casePicture.ts'
 import type { CaseBasis } from '../../workers/casePicture.ts'
 import type { BoundaryFaces } from '../../src/mechanics/types.ts'
@@ -103,7 +103,7 @@ function caseSwitch(model: Model, faces: BoundaryFaces, basis: CaseBasis, name: 
 function caseBasisOf(model: Model, faces: BoundaryFaces): CaseBasis {
   return {
     faceVertexStart: surfaceVertexRuns(faces).faceVertexStart, edgeNodes: buildFeatureEdges(model.mesh.coords, faces).nodes,
-    surfaceNodes: surfaceNodesOf(faces, model.mesh.nodeCount), body: bodyVolume(model.mesh),
+    surfaceNodes: surfaceNodesOf(faces, model.mesh.nodeCount), body: bodyVolumeOf(model.mesh, faces),
   }
 }
 

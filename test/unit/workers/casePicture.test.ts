@@ -11,7 +11,7 @@ import type { Model } from '../../../src/model/model.ts'
 import type { LoadCase } from '../../../src/model/loadCases.ts'
 import { modelForCase } from '../../../src/model/loadCases.ts'
 import { extractBoundaryFaces } from '../../../src/mechanics/boundaryFaces.ts'
-import { bodyVolume } from '../../../src/mechanics/balanceAudit.ts'
+import { bodyVolumeOf } from '../../../src/mechanics/balanceAudit.ts'
 import { analysisInputOf, displayStressOf, runAnalysis } from '../../../src/mechanics/analysisPipeline.ts'
 import { buildSurfaceTriangles } from '../../../src/mechanics/surfaceTriangles.ts'
 import { buildFeatureEdges } from '../../../src/mechanics/featureEdges.ts'
@@ -68,8 +68,8 @@ describe('the case switch computes only what the case changes, the same values a
         const asm = loadAssembly(model, input.stress, faces, r.tractions, r.loadPatches.faceLabel, tri.index.slice(), tri.triangleFace.slice(), tri.faceVertexStart)!
         // the switch's path
         const stages: string[] = []
-        const a = analyseCaseOnSurface(input, faces, { surfaceNodes, body: bodyVolume(model.mesh) }, undefined, (s) => stages.push(s))
-        const c = caseSurface(model, faces, { faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes, body: bodyVolume(model.mesh) }, a, input)
+        const a = analyseCaseOnSurface(input, faces, { surfaceNodes, body: bodyVolumeOf(model.mesh, faces) }, undefined, (s) => stages.push(s))
+        const c = caseSurface(model, faces, { faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes, body: bodyVolumeOf(model.mesh, faces) }, a, input)
         expect(stages).toEqual(['tractions', 'invariants', 'bodyBalance', 'loadPatches', 'elementBalance', 'verdict'])
         expect(c.surface.scalars).toEqual(tri.scalars)
         expect(c.surface.ranges).toEqual(tri.ranges)
