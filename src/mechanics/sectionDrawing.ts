@@ -28,6 +28,24 @@ import type { SectionPolygons } from './types.ts'
 export type PolygonCollector = ReturnType<typeof createPolygonCollector>
 
 /**
+ * The collector's arrays, grown as needed and kept from one cut to the next: dragging a section
+ * re-cuts the body many times, and arrays allocated afresh each cut cost their growth copies and
+ * the first touch of new memory every time (at 10^7 tet4, a quarter of a cut). `finish` copies
+ * out what it returns, so nothing handed out aliases them; one collector is in use at a time
+ * (a cut runs synchronously).
+ */
+const kept = {
+  traction: new Float64Array(8192), fillTraction: new Float64Array(8192),
+  linear: new Uint8Array(1024),
+  start: new Int32Array(1024), fillStart: new Int32Array(1024), elem: new Int32Array(1024),
+  block: new Int32Array(1024), local: new Int32Array(1024), forceIndex: new Int32Array(1024),
+  direct: new Float64Array(3 * 1024),
+  pos: new Float64Array(8192), ref: new Float64Array(8192),
+  fillPos: new Float64Array(8192), fillRef: new Float64Array(8192),
+  index: new Uint32Array(3 * 4096), triElem: new Int32Array(4096),
+}
+
+/**
  * Collects drawn polygons into typed arrays that double when full. `m`: the section normal.
  * Polygons of linear simplices come with their vertex stress (sc.sig, exact there) and need no
  * evaluation; the others get their tractions from the shape functions in `finish`.
@@ -35,14 +53,15 @@ export type PolygonCollector = ReturnType<typeof createPolygonCollector>
 export function createPolygonCollector(m: Vec3) {
   const mx = m[0], my = m[1], mz = m[2]
   let count = 0, verts = 0, fills = 0, tris = 0
-  let traction = new Float64Array(8192), fillTraction = new Float64Array(8192)
-  let linear = new Uint8Array(1024)
-  let start = new Int32Array(1024), fillStart = new Int32Array(1024), elem = new Int32Array(1024)
-  let block = new Int32Array(1024), local = new Int32Array(1024), forceIndex = new Int32Array(1024)
-  let direct = new Float64Array(3 * 1024)
-  let pos = new Float64Array(8192), ref = new Float64Array(8192)
-  let fillPos = new Float64Array(8192), fillRef = new Float64Array(8192)
-  let index = new Uint32Array(3 * 4096), triElem = new Int32Array(4096)
+  const k = kept
+  let traction = k.traction, fillTraction = k.fillTraction
+  let linear = k.linear
+  let start = k.start, fillStart = k.fillStart, elem = k.elem
+  let block = k.block, local = k.local, forceIndex = k.forceIndex
+  let direct = k.direct
+  let pos = k.pos, ref = k.ref
+  let fillPos = k.fillPos, fillRef = k.fillRef
+  let index = k.index, triElem = k.triElem
   const mid = new Float64Array(3)
 
   function room(p: number, v: number, f: number, t: number): void {
@@ -60,6 +79,8 @@ export function createPolygonCollector(m: Vec3) {
       fillPos = growF(fillPos, n); fillRef = growF(fillRef, n); fillTraction = growF(fillTraction, n)
     }
     if (3 * (tris + t) > index.length) { const n = Math.max(2 * index.length, 3 * (tris + t)); index = growU(index, n); triElem = growI(triElem, n / 3) }
+    // the next cut starts from the grown arrays
+    Object.assign(k, { traction, fillTraction, linear, start, fillStart, elem, block, local, forceIndex, direct, pos, ref, fillPos, fillRef, index, triElem })
   }
 
   /** Adds point k of the polygon in sc (position, ξ) as fill point `fills`. */
