@@ -45,6 +45,8 @@ import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { readInputFiles } from './inputFiles.ts'
+import { buildElementChunks } from '../src/mechanics/elementChunks.ts'
+import type { ElementChunks } from '../src/mechanics/elementChunks.ts'
 import { tooLargeHint } from '../src/io/sizeGuard.ts'
 import { casesOf, combinationsOf, findCase, firstCaseName, modelForCase } from '../src/model/loadCases.ts'
 import type { Combination } from '../src/model/loadCases.ts'
@@ -77,6 +79,10 @@ interface Loaded {
   body: BodyBalance
   /** What a case switch keeps of the load's picture: the surface's vertex runs, the feature edges' end nodes, the surface's nodes. */
   basis: CaseBasis
+  /** The elements in chunks with their boxes, built at the second cut of a large model (elementChunks.ts). */
+  chunks: ElementChunks | null
+  /** Cuts made of this model so far. */
+  cuts: number
 }
 
 let current: Loaded | null = null
@@ -380,6 +386,20 @@ async function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRu
   return { value, buffers }
 }
 
+/** Below this many elements a cut scans every element quickly enough: no chunks. */
+const CHUNKS_MIN_ELEMENTS = 100_000
+
+/**
+ * The chunks of the loaded mesh: the same for every case, plane and normal, built (a pass over
+ * the corners, about 0.2 s at 10^7 tet4) at the second cut, so a single cut is not delayed and a
+ * drag pays it once.
+ */
+function chunksFor(cur: Loaded): ElementChunks | null {
+  if (cur.model.mesh.elementCount < CHUNKS_MIN_ELEMENTS || cur.cuts++ === 0) return null
+  cur.chunks ??= buildElementChunks(cur.model.mesh)
+  return cur.chunks
+}
+
 const api: EngineApi = {
   configure(options: ComputeOptions) {
     computeOptions = options
@@ -452,7 +472,7 @@ const api: EngineApi = {
       if (sharedMesh !== mesh) model = { ...model, mesh: sharedMesh }
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
-        vonMises: invariants.vonMises, balance, body, basis,
+        vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -485,6 +505,7 @@ const api: EngineApi = {
       const limit = checkLimit(options.limit, model)
       const { result, polygons, labels } = cutSection(model.mesh, field, model.bodyForce, plane, {
         faces, tractions, polygons: true, axes, regions: options.regions === true, limit, partPiece: pieceFor(model, field, limit),
+        chunks: chunksFor(current),
       })
       current.polygons = polygons
       current.polygonDisplacement = null
