@@ -79,10 +79,14 @@ interface Loaded {
   body: BodyBalance
   /** What a case switch keeps of the load's picture: the surface's vertex runs, the feature edges' end nodes, the surface's nodes. */
   basis: CaseBasis
-  /** The elements in chunks with their boxes, built at the second cut of a large model (elementChunks.ts). */
+  /**
+   * The elements in chunks with their boxes (elementChunks.ts) on a large model: built on a pool
+   * worker right after the load, else here at the second cut.
+   */
   chunks: ElementChunks | null
-  /** Cuts made of this model so far. */
+  /** Cuts made of this model so far; whether a pool worker is building the chunks. */
   cuts: number
+  chunksOnPool: boolean
 }
 
 let current: Loaded | null = null
@@ -110,6 +114,7 @@ function spawnPoolWorker(): PoolEndpoint {
     invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
     spread: (indicator, count) => Promise.race([remote.spread(indicator, count), failure]),
     csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
+    chunks: (mesh) => Promise.race([remote.chunks(mesh), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }
@@ -390,14 +395,25 @@ async function analyseCase(cur: Loaded, base: Model, name: string, rule: PatchRu
 const CHUNKS_MIN_ELEMENTS = 100_000
 
 /**
- * The chunks of the loaded mesh: the same for every case, plane and normal, built (a pass over
- * the corners, about 0.2 s at 10^7 tet4) at the second cut, so a single cut is not delayed and a
- * drag pays it once.
+ * The chunks of the loaded mesh: the same for every case, plane and normal. A pool worker builds
+ * them after the load (a pass over the corners: 0.2 s in Node, about 1 s in the browser at 10^7
+ * tet4), and the cuts until then scan every element; without a pool they are built here at the
+ * second cut, so a single cut is not delayed and a drag pays it once.
  */
 function chunksFor(cur: Loaded): ElementChunks | null {
-  if (cur.model.mesh.elementCount < CHUNKS_MIN_ELEMENTS || cur.cuts++ === 0) return null
-  cur.chunks ??= buildElementChunks(cur.model.mesh)
+  if (cur.chunks || cur.model.mesh.elementCount < CHUNKS_MIN_ELEMENTS || cur.chunksOnPool || cur.cuts++ === 0) return cur.chunks
+  cur.chunks = buildElementChunks(cur.model.mesh)
   return cur.chunks
+}
+
+/** Starts the chunks' build on the pool for the model just loaded (its mesh in shared memory). */
+function chunksOnPool(p: KernelPool | null, loaded: Loaded): void {
+  if (!p || loaded.model.mesh.elementCount < CHUNKS_MIN_ELEMENTS) return
+  loaded.chunksOnPool = true
+  p.elementChunks(loaded.model.mesh).then(
+    (c) => { loaded.chunks ??= c; loaded.chunksOnPool = false },
+    () => { loaded.chunksOnPool = false },
+  )
 }
 
 const api: EngineApi = {
@@ -472,8 +488,9 @@ const api: EngineApi = {
       if (sharedMesh !== mesh) model = { ...model, mesh: sharedMesh }
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
-        vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0,
+        vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0, chunksOnPool: false,
       }
+      chunksOnPool(p, current)
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
       return Comlink.transfer({ ok: true, value }, buffers)

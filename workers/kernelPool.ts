@@ -17,6 +17,7 @@
  * never a new way to fail.
  */
 import { meshSlice, splitRanges } from '../src/model/meshRange.ts'
+import type { ElementChunks } from '../src/mechanics/elementChunks.ts'
 import type { ElementBlock, Mesh, Vec3 } from '../src/model/model.ts'
 import { nodalStressField, stressFieldSlice } from '../src/model/stressField.ts'
 import type { StressField } from '../src/model/stressField.ts'
@@ -40,6 +41,8 @@ export interface PoolEndpoint {
   spread?(indicator: Float32Array | Float64Array, count: number): Promise<IndicatorSpread>
   /** Reads pieces of CSV tables (src/io/csvPieces.ts); the jobs' bytes move by transfer. */
   csvPieces?(jobs: readonly PieceJob[]): Promise<readonly PieceOutcome[]>
+  /** The element chunks of a mesh in shared memory (src/mechanics/elementChunks.ts); the chunks' arrays move by transfer. */
+  chunks?(mesh: Mesh): Promise<ElementChunks>
   terminate(): void
 }
 
@@ -117,6 +120,22 @@ export class KernelPool {
     } catch (e) {
       this.standDown(`a pool worker failed (${e instanceof Error ? e.message : String(e)})`)
       return indicatorSpread(indicator, count)
+    }
+  }
+
+  /**
+   * The element chunks of a mesh whose arrays are shared (sharedMesh), built on a pool worker
+   * while the engine goes on; null without shared memory or a worker that can, or on a failure
+   * (the engine then builds them itself when it needs them).
+   */
+  async elementChunks(mesh: Mesh): Promise<ElementChunks | null> {
+    const ep = this.endpoints[0]
+    if (this.size < 1 || this.sharing !== 'shared' || !ep?.chunks || !(mesh.coords.buffer instanceof SharedArrayBuffer)) return null
+    try {
+      const blocks = mesh.blocks.map((b) => ({ ...b, part: null }))
+      return await ep.chunks({ ...mesh, blocks })
+    } catch {
+      return null
     }
   }
 

@@ -10,6 +10,9 @@ import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { ElementBalance, NodalInvariants } from '../src/mechanics/types.ts'
 import { pieceBuffers, readPiece } from '../src/io/csvPieces.ts'
 import { indicatorSpread } from '../src/mechanics/balanceVerdict.ts'
+import { buildElementChunks } from '../src/mechanics/elementChunks.ts'
+import type { ElementChunks } from '../src/mechanics/elementChunks.ts'
+import type { Mesh } from '../src/model/model.ts'
 import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { PieceJob, PieceOutcome } from '../src/io/csvPieces.ts'
 
@@ -27,6 +30,10 @@ const api = {
   },
   spread(indicator: Float32Array | Float64Array, count: number): IndicatorSpread {
     return indicatorSpread(indicator, count)
+  },
+  chunks(mesh: Mesh): ElementChunks {
+    const c = buildElementChunks(mesh)
+    return Comlink.transfer(c, [c.block, c.first, c.count, c.centre, c.half].map((a) => a.buffer as ArrayBuffer))
   },
   csvPieces(jobs: readonly PieceJob[]): PieceOutcome[] {
     const out = jobs.map(readPiece)

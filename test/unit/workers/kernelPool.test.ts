@@ -14,6 +14,7 @@ import { nodalStressField } from '../../../src/model/stressField.ts'
 import { stressField } from '../../helpers/mappedMeshes.ts'
 import { indicatorSpread, LEAST_BALANCED_COUNT } from '../../../src/mechanics/balanceVerdict.ts'
 import { elementNodalCopy } from '../../helpers/elementNodal.ts'
+import { buildElementChunks } from '../../../src/mechanics/elementChunks.ts'
 
 /** An endpoint that runs the pool worker's task in this thread; structuredClone mimics postMessage. */
 function localEndpoint(log: { shared: number; calls: number; rowCopies?: number }): PoolEndpoint {
@@ -178,5 +179,27 @@ describe('kernel pool: element balance', () => {
     expect(pool.size).toBe(0)
     const again = await pool.elementBalance(mesh, field, b)
     expect(again.run.fallback).toMatch(/worker script did not load/)
+  })
+})
+
+describe('kernel pool: element chunks', () => {
+  const chunksEndpoint = (): PoolEndpoint => ({
+    ...localEndpoint({ shared: 0, calls: 0 }),
+    chunks: async (m) => buildElementChunks(structuredClone(m)),
+  })
+
+  it('a pool worker builds the chunks of a shared mesh, the same as here', async () => {
+    const pool = new KernelPool(1, chunksEndpoint, 'shared')
+    const shared = pool.sharedMesh(mesh)
+    const got = await pool.elementChunks(shared)
+    const want = buildElementChunks(mesh)
+    expect(got).not.toBeNull()
+    for (const k of ['block', 'first', 'count', 'centre', 'half'] as const) expect(sameBits(got![k], want[k])).toBe(true)
+  })
+
+  it('none without shared memory or on a failure: the engine builds them itself', async () => {
+    expect(await new KernelPool(1, chunksEndpoint, 'copy').elementChunks(mesh)).toBeNull()
+    const failing = new KernelPool(1, () => ({ ...chunksEndpoint(), chunks: async () => { throw new Error('gone') } }), 'shared')
+    expect(await failing.elementChunks(failing.sharedMesh(mesh))).toBeNull()
   })
 })
