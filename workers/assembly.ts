@@ -8,7 +8,7 @@
  */
 import type { Model, Vec3 } from '../src/model/model.ts'
 import type { StressField } from '../src/model/stressField.ts'
-import { assemblyBalance, partNumbers } from '../src/mechanics/partBalance.ts'
+import { assemblyBalance, facePartIndex, partNumbers } from '../src/mechanics/partBalance.ts'
 import type { AssemblyBalance } from '../src/mechanics/partBalance.ts'
 import { groupTriangles } from '../src/mechanics/triangleGroups.ts'
 import { partPiece } from '../src/mechanics/sectionCut.ts'
@@ -17,26 +17,21 @@ import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
 import type { AssemblySummary, CutLimit } from './protocol.ts'
 import { InputError } from '../src/model/errors.ts'
 
-/** Each element's part number (0 without), by global element index. */
-function elementParts(model: Model): Int32Array {
-  const out = new Int32Array(model.mesh.elementCount)
-  for (const b of model.mesh.blocks) if (b.part) out.set(b.part, b.offset)
-  return out
-}
-
 /**
  * The parts and interfaces of `model` as a load computes them: the whole body's boundary faces,
  * their tractions (from `field`) and the faces against parts meshed apart (the load patches'
  * label -2) are the load's own, reused (partBalance.ts). The benchmark of the per-part work at
  * load (test/bench/partsCost.ts) runs this same function.
  */
-export function assemblyAtLoad(model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array): AssemblyBalance {
+export function assemblyAtLoad(
+  model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array, numbers: readonly number[] = partNumbers(model.mesh),
+): AssemblyBalance {
   const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
   const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
   const names = new Map([...info.values()].map((p) => [p.part, p.name]))
   const against = new Uint8Array(faces.count)
   for (let f = 0; f < faces.count; f++) against[f] = faceLabel[f] === -2 ? 1 : 0
-  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against })
+  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against }, numbers)
 }
 
 /**
@@ -50,16 +45,16 @@ export function loadAssembly(
 ): AssemblySummary | null {
   const numbers = partNumbers(model.mesh)
   if (numbers.length < 2) return null
-  const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel)
-  const rank = new Map(numbers.map((p, k) => [p, k]))
-  const partOf = elementParts(model)
+  const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel, numbers)
+  // each face's part rank (its part's place in `numbers`), from the faces alone: no array per element
+  const rank = facePartIndex(model.mesh, faces, new Map(numbers.map((p, k) => [p, k])))
   const T = triangleFace.length
   const group = new Int32Array(T)
-  for (let t = 0; t < T; t++) group[t] = rank.get(partOf[faces.elem[triangleFace[t]]]) ?? -1
+  for (let t = 0; t < T; t++) group[t] = rank[triangleFace[t]]
   const partTriangles = groupTriangles(index, [triangleFace], group, numbers.length)
   // the part's rank at every surface vertex (colour by part)
   const vertexPart = new Float32Array(faceVertexStart[faces.count])
-  for (let f = 0; f < faces.count; f++) vertexPart.fill(rank.get(partOf[faces.elem[f]]) ?? -1, faceVertexStart[f], faceVertexStart[f + 1])
+  for (let f = 0; f < faces.count; f++) vertexPart.fill(rank[f], faceVertexStart[f], faceVertexStart[f + 1])
   return {
     parts: asm.parts, interfaces: asm.interfaces, partTriangles, vertexPart,
     interfacePositions: asm.interfaceMesh.positions, interfaceTriangles: asm.interfaceMesh.offsets,

@@ -129,8 +129,8 @@ export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly num
 export interface BodyFaces {
   /** The whole body's boundary faces (extractBoundaryFaces). */
   readonly faces: BoundaryFaces
-  /** Their tractions from the same stress field as the assembly's (computeSurfaceTractions). */
-  readonly tractions: SurfaceTractions
+  /** Their tractions from the same stress field as the assembly's (computeSurfaceTractions; the face integrals are read). */
+  readonly tractions: FaceLoads
   /**
    * Per face, nonzero on a face against a part meshed apart (coincidentInterfaceFaces; the load
    * patches' label -2): those faces are then paired among themselves only. Without it every
@@ -150,13 +150,13 @@ export interface PartBoundaries {
   /** Part numbers, ascending: a part's index is its place here. */
   readonly numbers: readonly number[]
   readonly outer: BoundaryFaces
-  readonly outerTractions: SurfaceTractions
+  readonly outerTractions: FaceLoads
   /** Each outer face's part index. */
   readonly outerPart: Int32Array
   /** Each outer face's twin on a part meshed apart (-1 for none), null with one part. */
   readonly outerTwin: Int32Array | null
   readonly inner: BoundaryFaces
-  readonly innerTractions: SurfaceTractions
+  readonly innerTractions: FaceLoads
   readonly innerPart: Int32Array
   /** Each inner face's other side. */
   readonly innerTwin: Int32Array
@@ -166,7 +166,7 @@ export interface PartBoundaries {
  * Each face's part index (`index`: part number → index); faces in element order (a cursor over
  * the blocks, started over if the order goes back), the index looked up where the part changes.
  */
-function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<number, number>): Int32Array {
+export function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<number, number>): Int32Array {
   const out = new Int32Array(faces.count), blocks = mesh.blocks
   let bi = 0, last = -1, k = 0
   for (let f = 0; f < faces.count; f++) {
@@ -180,6 +180,45 @@ function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<numb
   return out
 }
 
+/** What the parts read of a face's tractions (see SurfaceTractions): force, moment about the origin, mean |t|. */
+export type FaceLoads = Pick<SurfaceTractions, 'force' | 'moment' | 'meanMagnitude'>
+
+/** Faces per call of computeSurfaceTractions in faceLoads. */
+const LOAD_CHUNK = 2048
+/**
+ * faceLoads' scratch for the per-node outputs that the parts do not read (9 numbers per face node
+ * slot), kept from one load to the next: about 0.5 MB for triangles instead of 300 bytes per face
+ * (10 MB at 10^6 tet4 in four slabs), whose first touch costs a page fault per 4 KiB.
+ */
+let loadScratch: SurfaceTractions | null = null
+
+/**
+ * The tractions' face integrals of `faces` (computeSurfaceTractions, the same numbers), LOAD_CHUNK
+ * faces at a time through a reused scratch, so only 7 numbers per face are new memory.
+ */
+export function faceLoads(mesh: Mesh, field: StressField, faces: BoundaryFaces): FaceLoads {
+  const F = faces.count, S = faces.slots
+  const out: FaceLoads = { force: new Float64Array(3 * F), moment: new Float64Array(3 * F), meanMagnitude: new Float64Array(F) }
+  if (!loadScratch || loadScratch.nodeMagnitude.length < S * LOAD_CHUNK) {
+    loadScratch = allocateSurfaceTractions({ ...faces, count: LOAD_CHUNK })
+  }
+  const t = loadScratch
+  for (let s = 0; s < F; s += LOAD_CHUNK) {
+    const n = Math.min(LOAD_CHUNK, F - s)
+    // a view of faces [s, s + n), its fields in BoundaryFaces order (one object shape for the kernel)
+    const piece: BoundaryFaces = {
+      count: n, slots: S, elem: faces.elem.subarray(s, s + n), localFace: faces.localFace.subarray(s, s + n), kind: faces.kind.subarray(s, s + n),
+      nodes: faces.nodes.subarray(S * s, S * (s + n)), area: faces.area.subarray(s, s + n), normal: faces.normal.subarray(3 * s, 3 * (s + n)),
+      centroid: faces.centroid.subarray(3 * s, 3 * (s + n)),
+    }
+    computeSurfaceTractions(t, mesh, field, piece)
+    out.force.set(t.force.subarray(0, 3 * n), 3 * s)
+    out.moment.set(t.moment.subarray(0, 3 * n), 3 * s)
+    out.meanMagnitude.set(t.meanMagnitude.subarray(0, n), s)
+  }
+  return out
+}
+
 /**
  * The boundaries of every part, from the whole body's faces and tractions when a load has them;
  * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has them.
@@ -189,10 +228,10 @@ export function partBoundaries(
 ): PartBoundaries {
   const index = new Map(numbers.map((p, k) => [p, k]))
   const outer = body?.faces ?? extractBoundaryFaces(mesh)
-  const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
+  const outerTractions = body?.tractions ?? faceLoads(mesh, field, outer)
   const sides = facesBetweenParts(mesh, marked)
   const inner = sides.faces
-  const innerTractions = computeSurfaceTractions(allocateSurfaceTractions(inner), mesh, field, inner)
+  const innerTractions = faceLoads(mesh, field, inner)
   const outerPart = facePartIndex(mesh, outer, index), innerPart = facePartIndex(mesh, inner, index)
   const outerTwin = coincidentFacePairs(mesh.coords, outer, outerPart, body?.against ?? null)
   return { numbers, outer, outerTractions, outerPart, outerTwin, inner, innerTractions, innerPart, innerTwin: sides.twin }
@@ -231,10 +270,11 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
  */
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
+  numbers: readonly number[] = partNumbers(mesh),
 ): AssemblyBalance {
   // one pass over the elements: the volumes per part, and the nodes' part marks for the faces between parts
-  const numbers = partNumbers(mesh), K = numbers.length
-  const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = new Int32Array(mesh.nodeCount).fill(-1)
+  const K = numbers.length
+  const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = nodeMarks(mesh.nodeCount)
   partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
   const b = partBoundaries(mesh, field, body, mark, numbers)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
@@ -251,6 +291,18 @@ export function assemblyBalance(
     return { part: p, name: names.get(p) ?? '', elements: elements[k], volume: V, balance }
   })
   return { parts, ...matchInterfaces(mesh.coords, b) }
+}
+
+/** nodeMarks' array, kept from one call to the next (a model-size array is fresh memory otherwise). */
+let marks = new Int32Array(0)
+
+/**
+ * Int32Array(N) filled with -1 for the nodes' part marks (markNodes), in memory reused from the
+ * last call: valid until the next call (assemblyBalance reads it within its own call only).
+ */
+function nodeMarks(N: number): Int32Array {
+  if (marks.length < N) marks = new Int32Array(N)
+  return marks.subarray(0, N).fill(-1)
 }
 
 /**
