@@ -31,7 +31,7 @@ import { faceCornerCount } from './freeBody.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
 import { coincidentFacePairs } from './interfaceFaces.ts'
-import { facesBetweenParts, markNodes } from './partFaces.ts'
+import { facesBetweenParts, keptFloat64, keptInt32, markNodes } from './partFaces.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -194,11 +194,14 @@ let loadScratch: SurfaceTractions | null = null
 
 /**
  * The tractions' face integrals of `faces` (computeSurfaceTractions, the same numbers), LOAD_CHUNK
- * faces at a time through a reused scratch, so only 7 numbers per face are new memory.
+ * faces at a time through a reused scratch, so only 7 numbers per face are new memory; with
+ * `reuse`, none: they are kept arrays (partFaces.ts), valid until the next such call.
  */
-export function faceLoads(mesh: Mesh, field: StressField, faces: BoundaryFaces): FaceLoads {
+export function faceLoads(mesh: Mesh, field: StressField, faces: BoundaryFaces, reuse = false): FaceLoads {
   const F = faces.count, S = faces.slots
-  const out: FaceLoads = { force: new Float64Array(3 * F), moment: new Float64Array(3 * F), meanMagnitude: new Float64Array(F) }
+  const out: FaceLoads = reuse
+    ? { force: keptFloat64('loadForce', 3 * F), moment: keptFloat64('loadMoment', 3 * F), meanMagnitude: keptFloat64('loadMagnitude', F) }
+    : { force: new Float64Array(3 * F), moment: new Float64Array(3 * F), meanMagnitude: new Float64Array(F) }
   if (!loadScratch || loadScratch.nodeMagnitude.length < S * LOAD_CHUNK) {
     loadScratch = allocateSurfaceTractions({ ...faces, count: LOAD_CHUNK })
   }
@@ -221,20 +224,29 @@ export function faceLoads(mesh: Mesh, field: StressField, faces: BoundaryFaces):
 
 /**
  * The boundaries of every part, from the whole body's faces and tractions when a load has them;
- * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has them.
+ * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has
+ * them; with `reuse` the faces between parts and their loads are in kept arrays (partFaces.ts),
+ * valid until the next such call.
  */
 export function partBoundaries(
-  mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null, numbers: readonly number[] = partNumbers(mesh),
+  mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null, numbers: readonly number[] = partNumbers(mesh), reuse = false,
 ): PartBoundaries {
   const index = new Map(numbers.map((p, k) => [p, k]))
   const outer = body?.faces ?? extractBoundaryFaces(mesh)
   const outerTractions = body?.tractions ?? faceLoads(mesh, field, outer)
-  const sides = facesBetweenParts(mesh, marked)
+  const sides = facesBetweenParts(mesh, marked, reuse)
   const inner = sides.faces
-  const innerTractions = faceLoads(mesh, field, inner)
+  const innerTractions = faceLoads(mesh, field, inner, reuse)
   const outerPart = facePartIndex(mesh, outer, index), innerPart = facePartIndex(mesh, inner, index)
-  const outerTwin = coincidentFacePairs(mesh.coords, outer, outerPart, body?.against ?? null)
+  // no face labelled against a part meshed apart: no pairs to search for
+  const against = body?.against ?? null
+  const outerTwin = against && !anyNonzero(against) ? null : coincidentFacePairs(mesh.coords, outer, outerPart, against)
   return { numbers, outer, outerTractions, outerPart, outerTwin, inner, innerTractions, innerPart, innerTwin: sides.twin }
+}
+
+function anyNonzero(a: ArrayLike<number>): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== 0) return true
+  return false
 }
 
 /**
@@ -276,7 +288,7 @@ export function assemblyBalance(
   const K = numbers.length
   const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = nodeMarks(mesh.nodeCount)
   partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
-  const b = partBoundaries(mesh, field, body, mark, numbers)
+  const b = partBoundaries(mesh, field, body, mark, numbers, true)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
     const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
@@ -293,16 +305,13 @@ export function assemblyBalance(
   return { parts, ...matchInterfaces(mesh.coords, b) }
 }
 
-/** nodeMarks' array, kept from one call to the next (a model-size array is fresh memory otherwise). */
-let marks = new Int32Array(0)
-
 /**
- * Int32Array(N) filled with -1 for the nodes' part marks (markNodes), in memory reused from the
- * last call: valid until the next call (assemblyBalance reads it within its own call only).
+ * Int32Array(N) filled with -1 for the nodes' part marks (markNodes), a kept array (partFaces.ts;
+ * a model-size array is fresh memory otherwise): valid until the next call, and assemblyBalance
+ * reads it within its own call only.
  */
 function nodeMarks(N: number): Int32Array {
-  if (marks.length < N) marks = new Int32Array(N)
-  return marks.subarray(0, N).fill(-1)
+  return keptInt32('nodeMarks', N).fill(-1)
 }
 
 /**

@@ -3,7 +3,8 @@
  * chunk of faces at a time through a reused scratch, against computeSurfaceTractions over all the
  * faces at once (the plain computation it stands for): equal to the last bit, on every element
  * type, nodal and element-nodal stress, with more faces than one chunk, and with a mesh of wider
- * faces after a narrower one (the scratch grows) and a narrower one after it (it is reused).
+ * faces after a narrower one (the scratch grows) and a narrower one after it (it is reused); its
+ * output in fresh arrays and in kept ones.
  */
 import { describe, expect, it } from 'vitest'
 import { faceLoads } from '../../../src/mechanics/partBalance.ts'
@@ -42,10 +43,13 @@ describe(`faceLoads against computeSurfaceTractions (seed ${SEED})`, () => {
         const faces = extractBoundaryFaces(mesh)
         expect(faces.count).toBeGreaterThan(2048)
         const want = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, field, faces)
-        const got = faceLoads(mesh, field, faces)
-        expect(got.force).toEqual(want.force)
-        expect(got.moment).toEqual(want.moment)
-        expect(got.meanMagnitude).toEqual(want.meanMagnitude)
+        // fresh output arrays, and the kept ones (stale values from the type before)
+        for (const reuse of [false, true]) {
+          const got = faceLoads(mesh, field, faces, reuse)
+          expect(got.force).toEqual(want.force)
+          expect(got.moment).toEqual(want.moment)
+          expect(got.meanMagnitude).toEqual(want.meanMagnitude)
+        }
       })
     }
   }
