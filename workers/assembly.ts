@@ -8,7 +8,7 @@
  */
 import type { Model, Vec3 } from '../src/model/model.ts'
 import type { StressField } from '../src/model/stressField.ts'
-import { assemblyBalance, facePartIndex, partNumbers } from '../src/mechanics/partBalance.ts'
+import { assemblyBalance, facePartIndex, hasSeveralParts, partNumbers } from '../src/mechanics/partBalance.ts'
 import type { AssemblyBalance } from '../src/mechanics/partBalance.ts'
 import { groupTriangles } from '../src/mechanics/triangleGroups.ts'
 import { partPiece } from '../src/mechanics/sectionCut.ts'
@@ -23,15 +23,13 @@ import { InputError } from '../src/model/errors.ts'
  * label -2) are the load's own, reused (partBalance.ts). The benchmark of the per-part work at
  * load (test/bench/partsCost.ts) runs this same function.
  */
-export function assemblyAtLoad(
-  model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array, numbers: readonly number[] = partNumbers(model.mesh),
-): AssemblyBalance {
+export function assemblyAtLoad(model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array): AssemblyBalance {
   const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
   const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
   const names = new Map([...info.values()].map((p) => [p.part, p.name]))
   const against = new Uint8Array(faces.count)
   for (let f = 0; f < faces.count; f++) against[f] = faceLabel[f] === -2 ? 1 : 0
-  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against }, numbers)
+  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against })
 }
 
 /**
@@ -43,10 +41,10 @@ export function loadAssembly(
   model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array,
   index: Uint32Array, triangleFace: Uint32Array, faceVertexStart: Int32Array,
 ): AssemblySummary | null {
-  const numbers = partNumbers(model.mesh)
-  if (numbers.length < 2) return null
-  const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel, numbers)
-  // each face's part rank (its part's place in `numbers`), from the faces alone: no array per element
+  if (!hasSeveralParts(model.mesh)) return null
+  const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel)
+  // each face's part rank (its part's place in the part list), from the faces alone: no array per element
+  const numbers = asm.parts.map((p) => p.part)
   const rank = facePartIndex(model.mesh, faces, new Map(numbers.map((p, k) => [p, k])))
   const T = triangleFace.length
   const group = new Int32Array(T)
@@ -74,7 +72,7 @@ function balanceOfParts(model: Model, field: StressField): ReturnType<typeof ass
  * interfaces' forces. The triangle groups, part colours and interface mesh of the load stay.
  */
 export function caseAssembly(model: Model, field: StressField): Pick<AssemblySummary, 'parts' | 'interfaces'> | null {
-  if (partNumbers(model.mesh).length < 2) return null
+  if (!hasSeveralParts(model.mesh)) return null
   const asm = balanceOfParts(model, field)
   return { parts: asm.parts, interfaces: asm.interfaces }
 }

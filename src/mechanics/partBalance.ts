@@ -31,7 +31,7 @@ import { faceCornerCount } from './freeBody.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
 import { coincidentFacePairs } from './interfaceFaces.ts'
-import { facesBetweenParts, keptFloat64, keptInt32, markNodes } from './partFaces.ts'
+import { facesBetweenParts, keptFloat64, keptInt32 } from './partFaces.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -82,6 +82,24 @@ export function partNumbers(mesh: Mesh): number[] {
     }
   }
   return [...s].sort((a, b) => a - b)
+}
+
+/** Whether the mesh has two part numbers or more (partNumbers(mesh).length ≥ 2), read only up to the first second part. */
+export function hasSeveralParts(mesh: Mesh): boolean {
+  let first = 0, seen = false
+  for (const b of mesh.blocks) {
+    if (!b.part) {
+      if (seen && first !== 0) return true
+      first = 0; seen = true
+      continue
+    }
+    const part = b.part
+    for (let e = 0; e < part.length; e++) {
+      const p = part[e]
+      if (!seen) { first = p; seen = true } else if (p !== first) return true
+    }
+  }
+  return false
 }
 
 /** The sub-mesh of one part's elements (same nodes) and its stress field. */
@@ -282,12 +300,10 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
  */
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
-  numbers: readonly number[] = partNumbers(mesh),
 ): AssemblyBalance {
-  // one pass over the elements: the volumes per part, and the nodes' part marks for the faces between parts
-  const K = numbers.length
-  const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = nodeMarks(mesh.nodeCount)
-  partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
+  // one pass over the elements: the part numbers, the volumes per part, and the nodes' part marks for the faces between parts
+  const mark = nodeMarks(mesh.nodeCount)
+  const { numbers, sums, elements } = partVolumes(mark, mesh), K = numbers.length
   const b = partBoundaries(mesh, field, body, mark, numbers, true)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
@@ -314,43 +330,88 @@ function nodeMarks(N: number): Int32Array {
   return keptInt32('nodeMarks', N).fill(-1)
 }
 
-/**
- * Per part index (`index`: part number → index): `sums` (4·K) volume and volume-weighted centroid
- * x, y, z; `elements` (K) the element count. A chunk of elements at a time (elementVolume.ts), in
- * element order, as computeBodyBalance sums them; each chunk's corners also go into the nodes'
- * part marks `mark` (markNodes, partFaces.ts) while they are in cache.
- */
-function partVolumes(sums: Float64Array, elements: Int32Array, mark: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
-  // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
-  const cur = new Float64Array(5), at = [0, -1] // [part index, last part number]
-  volumeChunks(mesh, (blk, s, n, vol, cen) => {
-    const nn = ELEMENT_TYPES[blk.type].nodeCount, cc = ELEMENT_TYPES[blk.type].cornerCount
-    sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
-    markNodes(mark, blk.conn, nn, cc, blk.part, s, s + n)
-  })
-  if (sums.length > 0) { const k = at[0]; sums[4 * k] = cur[0]; sums[4 * k + 1] = cur[1]; sums[4 * k + 2] = cur[2]; sums[4 * k + 3] = cur[3]; elements[k] = cur[4] }
+/** Running sums per part in the order parts are met (partVolumes): 4 per part (volume, volume × centroid x, y, z) and the element count. */
+interface VolumeSums {
+  sums: Float64Array
+  elements: Float64Array
+  /** Part numbers in the order met; a part's slot is its place here. */
+  readonly met: number[]
+  readonly slotOf: Map<number, number>
+  /** The current part's slot and number, and its sums held in locals between chunks (volume, x, y, z, elements). */
+  slot: number
+  last: number
+  readonly cur: Float64Array
 }
 
-function sumChunk(
-  sums: Float64Array, elements: Int32Array, cur: Float64Array, at: number[], vol: Float64Array, cen: Float64Array, n: number,
-  part: Int32Array | null, first: number, index: ReadonlyMap<number, number>,
+/**
+ * The part numbers (ascending, as partNumbers), and per part `sums` (4·K) volume and
+ * volume-weighted centroid x, y, z, `elements` (K) the element count: a chunk of elements at a
+ * time (elementVolume.ts), in element order, as computeBodyBalance sums them. Each chunk's corners
+ * also go into the nodes' part marks `mark` (as markNodes, partFaces.ts) in the same loop, while
+ * they are in cache: one pass over the elements, with no list of the parts made beforehand.
+ */
+function partVolumes(mark: Int32Array, mesh: Mesh): { numbers: number[]; sums: Float64Array; elements: Int32Array } {
+  const acc: VolumeSums = { sums: new Float64Array(16), elements: new Float64Array(4), met: [], slotOf: new Map(), slot: -1, last: NaN, cur: new Float64Array(5) }
+  volumeChunks(mesh, (blk, s, n, vol, cen) => {
+    const topo = ELEMENT_TYPES[blk.type]
+    sumAndMark(acc, vol, cen, n, blk.part, s, mark, blk.conn, topo.nodeCount, topo.cornerCount)
+  })
+  // a block without part numbers and without elements still lists part 0 (partNumbers)
+  for (const b of mesh.blocks) if (!b.part && b.conn.length === 0 && !acc.slotOf.has(0)) switchPart(acc, 0)
+  if (acc.slot >= 0) switchPart(acc, acc.last)
+  const K = acc.met.length, order = acc.met.map((_, i) => i).sort((x, y) => acc.met[x] - acc.met[y])
+  const sums = new Float64Array(4 * K), elements = new Int32Array(K)
+  order.forEach((r, k) => { sums.set(acc.sums.subarray(4 * r, 4 * r + 4), 4 * k); elements[k] = acc.elements[r] })
+  return { numbers: order.map((r) => acc.met[r]), sums, elements }
+}
+
+/** Stores the current part's sums and takes part `p`'s (a new slot for a part not met before). */
+function switchPart(acc: VolumeSums, p: number): void {
+  const c = acc.cur
+  if (acc.slot >= 0) { const o = 4 * acc.slot; acc.sums[o] = c[0]; acc.sums[o + 1] = c[1]; acc.sums[o + 2] = c[2]; acc.sums[o + 3] = c[3]; acc.elements[acc.slot] = c[4] }
+  let r = acc.slotOf.get(p)
+  if (r === undefined) {
+    r = acc.met.length
+    acc.met.push(p); acc.slotOf.set(p, r)
+    if (r === acc.elements.length) {
+      const sums = new Float64Array(8 * r), elements = new Float64Array(2 * r)
+      sums.set(acc.sums); elements.set(acc.elements); acc.sums = sums; acc.elements = elements
+    }
+  }
+  const o = 4 * r
+  c[0] = acc.sums[o]; c[1] = acc.sums[o + 1]; c[2] = acc.sums[o + 2]; c[3] = acc.sums[o + 3]; c[4] = acc.elements[r]
+  acc.slot = r; acc.last = p
+}
+
+/**
+ * One chunk of `n` elements from `first` of a block (connectivity `conn`, `nn` nodes and `cc`
+ * corners each, parts `part` or 0): their volumes and centroids into the part sums, and their
+ * corners into the marks (-1 no element, p ≥ 0 part p only, -2 several parts).
+ */
+function sumAndMark(
+  acc: VolumeSums, vol: Float64Array, cen: Float64Array, n: number, part: Int32Array | null, first: number,
+  mark: Int32Array, conn: Int32Array, nn: number, cc: number,
 ): void {
-  let k = at[0], last = at[1], V = cur[0], X = cur[1], Y = cur[2], Z = cur[3], n0 = cur[4]
+  const c = acc.cur
+  let last = acc.last, V = c[0], X = c[1], Y = c[2], Z = c[3], n0 = c[4]
   for (let e = 0; e < n; e++) {
     const p = part ? part[first + e] : 0
     if (p !== last) {
-      last = p
-      const r = index.get(p) ?? 0
-      if (r !== k) {
-        sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
-        k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
-      }
+      // the same additions in the same order: the current part's sums go back before the next part's are taken
+      c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
+      switchPart(acc, p)
+      last = p; V = c[0]; X = c[1]; Y = c[2]; Z = c[3]; n0 = c[4]
     }
     const v = vol[e]
     n0++
     V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
+    const eb = (first + e) * nn
+    for (let k = 0; k < cc; k++) {
+      const node = conn[eb + k], m = mark[node]
+      if (m !== p) mark[node] = m === -1 ? p : -2
+    }
   }
-  at[0] = k; at[1] = last; cur[0] = V; cur[1] = X; cur[2] = Y; cur[3] = Z; cur[4] = n0
+  c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
 }
 
 /**
