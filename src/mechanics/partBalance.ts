@@ -86,6 +86,13 @@ export function partNumbers(mesh: Mesh): number[] {
 
 /** Whether the mesh has two part numbers or more (partNumbers(mesh).length ≥ 2), read only up to the first second part. */
 export function hasSeveralParts(mesh: Mesh): boolean {
+  // the blocks' first and last elements tell at once for most assemblies (parts come in runs)
+  const ends: number[] = []
+  for (const b of mesh.blocks) {
+    if (!b.part) ends.push(0)
+    else if (b.part.length > 0) ends.push(b.part[0], b.part[b.part.length - 1])
+  }
+  if (ends.some((p) => p !== ends[0])) return true
   let first = 0, seen = false
   for (const b of mesh.blocks) {
     if (!b.part) {

@@ -56,18 +56,19 @@ describe(`the surface grouped by part at load, against every element's part (see
 })
 
 describe('hasSeveralParts reads as partNumbers(mesh).length >= 2', () => {
-  const box = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1 }, 'hex8')
+  const box = boxMesh({ nx: 3, ny: 1, nz: 1, lx: 3, ly: 1, lz: 1 }, 'hex8')
   const b = box.blocks[0]
-  const empty = { ...b, conn: new Int32Array(0), ids: new Int32Array(0), offset: 2 }
+  const empty = { ...b, conn: new Int32Array(0), ids: new Int32Array(0), offset: 3 }
   const withParts = (...blocks: Mesh['blocks']): Mesh => ({ ...box, blocks })
   const cases: [string, Mesh][] = [
     ['one block without parts', box],
-    ['one block, one part', withParts({ ...b, part: Int32Array.of(3, 3) })],
-    ['one block, two parts', withParts({ ...b, part: Int32Array.of(3, 4) })],
-    ['no part numbers beside part 0', withParts({ ...b, part: null }, { ...empty, part: Int32Array.of() }, { ...b, part: Int32Array.of(0, 0), offset: 2 })],
-    ['no part numbers beside part 5', withParts({ ...b, part: null }, { ...b, part: Int32Array.of(5, 5), offset: 2 })],
-    ['an empty block without part numbers beside part 5', withParts({ ...b, part: Int32Array.of(5, 5) }, { ...empty, part: null })],
-    ['an empty block with part numbers beside part 5', withParts({ ...b, part: Int32Array.of(5, 5) }, { ...empty, part: Int32Array.of() })],
+    ['one block, one part', withParts({ ...b, part: Int32Array.of(3, 3, 3) })],
+    ['one block, two parts', withParts({ ...b, part: Int32Array.of(3, 4, 4) })],
+    ['one block, its first and last element alike, another part between', withParts({ ...b, part: Int32Array.of(3, 4, 3) })],
+    ['no part numbers beside part 0', withParts({ ...b, part: null }, { ...empty, part: Int32Array.of() }, { ...b, part: Int32Array.of(0, 0, 0), offset: 3 })],
+    ['no part numbers beside part 5', withParts({ ...b, part: null }, { ...b, part: Int32Array.of(5, 5, 5), offset: 3 })],
+    ['an empty block without part numbers beside part 5', withParts({ ...b, part: Int32Array.of(5, 5, 5) }, { ...empty, part: null })],
+    ['an empty block with part numbers beside part 5', withParts({ ...b, part: Int32Array.of(5, 5, 5) }, { ...empty, part: Int32Array.of() })],
   ]
   for (const [name, mesh] of cases) it(name, () => expect(hasSeveralParts(mesh)).toBe(partNumbers(mesh).length >= 2))
 })
