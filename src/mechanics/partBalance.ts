@@ -421,6 +421,9 @@ function sumAndMark(
   c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
 }
 
+/** (element, local face) as one number, REF · element + local face (at most 6 faces an element). */
+const REF = 8
+
 /**
  * Per part index (7 per part in `out`): surface force x, y, z, moment about the origin x, y, z,
  * and the sum of |face force|, over its sides in its boundary order (forEachSide's merge, inline).
@@ -428,10 +431,15 @@ function sumAndMark(
 function partSurfaceSums(out: Float64Array, b: PartBoundaries): Float64Array {
   const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
   const oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
+  // one site per array read, whichever side comes next: a site first reached after the loop was
+  // compiled would send it back to the interpreter (the outer faces run alone for long stretches)
   let i = 0, j = 0
   while (i < Fo || j < Fi) {
-    const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
-    const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, f = takeOuter ? i++ : j++, o = 7 * (takeOuter ? outerPart[f] : innerPart[f])
+    const ko = i < Fo ? REF * outer.elem[i] + outer.localFace[i] : Infinity, ki = j < Fi ? REF * inner.elem[j] + inner.localFace[j] : Infinity
+    const takeOuter = ko < ki, t = takeOuter ? 1 : 0
+    const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, P = takeOuter ? outerPart : innerPart, f = takeOuter ? i : j
+    i += t; j += 1 - t
+    const o = 7 * P[f]
     const x = F[3 * f], y = F[3 * f + 1], z = F[3 * f + 2]
     out[o] += x; out[o + 1] += y; out[o + 2] += z
     out[o + 3] += M[3 * f]; out[o + 4] += M[3 * f + 1]; out[o + 5] += M[3 * f + 2]
