@@ -139,10 +139,13 @@ function listElements(mesh: Mesh, mark: Int32Array): Int32Array {
  * face) order, into kept arrays (their count is returned): 'refs' their references, 'keys' 4
  * sorted corners each (a triangle's missing fourth is the node count, so it sorts last and never
  * equals a node), 'part' their element's part. One pass, into arrays sized for every face of the
- * listed elements (at most 6 each).
+ * listed elements.
  */
 function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): number {
-  const blocks = mesh.blocks, none = mesh.nodeCount, most = 6 * listed.length
+  const blocks = mesh.blocks, none = mesh.nodeCount
+  let faces = 0
+  for (const b of blocks) faces = Math.max(faces, ELEMENT_TYPES[b.type].faces.length)
+  const most = faces * listed.length
   const refs = keptInt32('refs', most), keys = keptInt32('keys', 4 * most), part = keptInt32('part', most)
   let C = 0, bi = 0
   for (let i = 0; i < listed.length; i++) {
