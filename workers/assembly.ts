@@ -8,7 +8,7 @@
  */
 import type { Model, Vec3 } from '../src/model/model.ts'
 import type { StressField } from '../src/model/stressField.ts'
-import { assemblyBalance, facePartIndex, hasSeveralParts, partNumbers } from '../src/mechanics/partBalance.ts'
+import { assemblyBalance, hasSeveralParts, partNumbers } from '../src/mechanics/partBalance.ts'
 import type { AssemblyBalance } from '../src/mechanics/partBalance.ts'
 import { groupTriangles } from '../src/mechanics/triangleGroups.ts'
 import { partPiece } from '../src/mechanics/sectionCut.ts'
@@ -43,9 +43,8 @@ export function loadAssembly(
 ): AssemblySummary | null {
   if (!hasSeveralParts(model.mesh)) return null
   const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel)
-  // each face's part rank (its part's place in the part list), from the faces alone: no array per element
-  const numbers = asm.parts.map((p) => p.part)
-  const rank = facePartIndex(model.mesh, faces, new Map(numbers.map((p, k) => [p, k])))
+  // each face's part rank (its part's place in the part list), found along the faces: no array per element
+  const numbers = asm.parts.map((p) => p.part), rank = asm.facePart
   const T = triangleFace.length
   const group = new Int32Array(T)
   for (let t = 0; t < T; t++) group[t] = rank[triangleFace[t]]

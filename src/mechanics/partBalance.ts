@@ -68,6 +68,8 @@ export interface AssemblyBalance {
    * `offsets[i + 1]` (interfaces in the order of `interfaces`).
    */
   readonly interfaceMesh: { readonly positions: Float32Array; readonly offsets: Int32Array }
+  /** Each of the whole body's boundary faces' part index (its part's place in `parts`), Int32Array(F). */
+  readonly facePart: Int32Array
 }
 
 /** The part numbers of the mesh, ascending (0 for elements without one). */
@@ -325,7 +327,7 @@ export function assemblyBalance(
     const balance: BodyBalance = { force, moment, relative: gross > 0 ? Math.hypot(...force) / gross : 0, gross, about: c, volume: V, centroid: c, surfaceForce, bodyForceTotal }
     return { part: p, name: names.get(p) ?? '', elements: elements[k], volume: V, balance }
   })
-  return { parts, ...matchInterfaces(mesh.coords, b) }
+  return { parts, ...matchInterfaces(mesh.coords, b), facePart: b.outerPart }
 }
 
 /**
