@@ -8,7 +8,7 @@
  */
 import type { Model, Vec3 } from '../src/model/model.ts'
 import type { StressField } from '../src/model/stressField.ts'
-import { assemblyBalance, partNumbers } from '../src/mechanics/partBalance.ts'
+import { assemblyBalance, hasSeveralParts, partNumbers } from '../src/mechanics/partBalance.ts'
 import type { AssemblyBalance } from '../src/mechanics/partBalance.ts'
 import { groupTriangles } from '../src/mechanics/triangleGroups.ts'
 import { partPiece } from '../src/mechanics/sectionCut.ts'
@@ -16,13 +16,6 @@ import type { PartPiece, RegionLabels } from '../src/mechanics/sectionCut.ts'
 import type { BoundaryFaces, SurfaceTractions } from '../src/mechanics/types.ts'
 import type { AssemblySummary, CutLimit } from './protocol.ts'
 import { InputError } from '../src/model/errors.ts'
-
-/** Each element's part number (0 without), by global element index. */
-function elementParts(model: Model): Int32Array {
-  const out = new Int32Array(model.mesh.elementCount)
-  for (const b of model.mesh.blocks) if (b.part) out.set(b.part, b.offset)
-  return out
-}
 
 /**
  * The parts and interfaces of `model` as a load computes them: the whole body's boundary faces,
@@ -48,18 +41,17 @@ export function loadAssembly(
   model: Model, field: StressField, faces: BoundaryFaces, tractions: SurfaceTractions, faceLabel: Int32Array,
   index: Uint32Array, triangleFace: Uint32Array, faceVertexStart: Int32Array,
 ): AssemblySummary | null {
-  const numbers = partNumbers(model.mesh)
-  if (numbers.length < 2) return null
+  if (!hasSeveralParts(model.mesh)) return null
   const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel)
-  const rank = new Map(numbers.map((p, k) => [p, k]))
-  const partOf = elementParts(model)
+  // each face's part rank (its part's place in the part list), found along the faces: no array per element
+  const numbers = asm.parts.map((p) => p.part), rank = asm.facePart
   const T = triangleFace.length
   const group = new Int32Array(T)
-  for (let t = 0; t < T; t++) group[t] = rank.get(partOf[faces.elem[triangleFace[t]]]) ?? -1
+  for (let t = 0; t < T; t++) group[t] = rank[triangleFace[t]]
   const partTriangles = groupTriangles(index, [triangleFace], group, numbers.length)
   // the part's rank at every surface vertex (colour by part)
   const vertexPart = new Float32Array(faceVertexStart[faces.count])
-  for (let f = 0; f < faces.count; f++) vertexPart.fill(rank.get(partOf[faces.elem[f]]) ?? -1, faceVertexStart[f], faceVertexStart[f + 1])
+  for (let f = 0; f < faces.count; f++) vertexPart.fill(rank[f], faceVertexStart[f], faceVertexStart[f + 1])
   return {
     parts: asm.parts, interfaces: asm.interfaces, partTriangles, vertexPart,
     interfacePositions: asm.interfaceMesh.positions, interfaceTriangles: asm.interfaceMesh.offsets,
@@ -79,7 +71,7 @@ function balanceOfParts(model: Model, field: StressField): ReturnType<typeof ass
  * interfaces' forces. The triangle groups, part colours and interface mesh of the load stay.
  */
 export function caseAssembly(model: Model, field: StressField): Pick<AssemblySummary, 'parts' | 'interfaces'> | null {
-  if (partNumbers(model.mesh).length < 2) return null
+  if (!hasSeveralParts(model.mesh)) return null
   const asm = balanceOfParts(model, field)
   return { parts: asm.parts, interfaces: asm.interfaces }
 }

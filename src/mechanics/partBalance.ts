@@ -31,7 +31,7 @@ import { faceCornerCount } from './freeBody.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
 import { coincidentFacePairs } from './interfaceFaces.ts'
-import { facesBetweenParts, markNodes } from './partFaces.ts'
+import { facesBetweenParts, keptFloat64, keptInt32 } from './partFaces.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -68,6 +68,8 @@ export interface AssemblyBalance {
    * `offsets[i + 1]` (interfaces in the order of `interfaces`).
    */
   readonly interfaceMesh: { readonly positions: Float32Array; readonly offsets: Int32Array }
+  /** Each of the whole body's boundary faces' part index (its part's place in `parts`), Int32Array(F). */
+  readonly facePart: Int32Array
 }
 
 /** The part numbers of the mesh, ascending (0 for elements without one). */
@@ -82,6 +84,31 @@ export function partNumbers(mesh: Mesh): number[] {
     }
   }
   return [...s].sort((a, b) => a - b)
+}
+
+/** Whether the mesh has two part numbers or more (partNumbers(mesh).length ≥ 2), read only up to the first second part. */
+export function hasSeveralParts(mesh: Mesh): boolean {
+  // the blocks' first and last elements tell at once for most assemblies (parts come in runs)
+  const ends: number[] = []
+  for (const b of mesh.blocks) {
+    if (!b.part) ends.push(0)
+    else if (b.part.length > 0) ends.push(b.part[0], b.part[b.part.length - 1])
+  }
+  if (ends.some((p) => p !== ends[0])) return true
+  let first = 0, seen = false
+  for (const b of mesh.blocks) {
+    if (!b.part) {
+      if (seen && first !== 0) return true
+      first = 0; seen = true
+      continue
+    }
+    const part = b.part
+    for (let e = 0; e < part.length; e++) {
+      const p = part[e]
+      if (!seen) { first = p; seen = true } else if (p !== first) return true
+    }
+  }
+  return false
 }
 
 /** The sub-mesh of one part's elements (same nodes) and its stress field. */
@@ -129,8 +156,8 @@ export function partsSubmesh(mesh: Mesh, field: StressField, parts: readonly num
 export interface BodyFaces {
   /** The whole body's boundary faces (extractBoundaryFaces). */
   readonly faces: BoundaryFaces
-  /** Their tractions from the same stress field as the assembly's (computeSurfaceTractions). */
-  readonly tractions: SurfaceTractions
+  /** Their tractions from the same stress field as the assembly's (computeSurfaceTractions; the face integrals are read). */
+  readonly tractions: FaceLoads
   /**
    * Per face, nonzero on a face against a part meshed apart (coincidentInterfaceFaces; the load
    * patches' label -2): those faces are then paired among themselves only. Without it every
@@ -150,13 +177,13 @@ export interface PartBoundaries {
   /** Part numbers, ascending: a part's index is its place here. */
   readonly numbers: readonly number[]
   readonly outer: BoundaryFaces
-  readonly outerTractions: SurfaceTractions
+  readonly outerTractions: FaceLoads
   /** Each outer face's part index. */
   readonly outerPart: Int32Array
   /** Each outer face's twin on a part meshed apart (-1 for none), null with one part. */
   readonly outerTwin: Int32Array | null
   readonly inner: BoundaryFaces
-  readonly innerTractions: SurfaceTractions
+  readonly innerTractions: FaceLoads
   readonly innerPart: Int32Array
   /** Each inner face's other side. */
   readonly innerTwin: Int32Array
@@ -166,7 +193,7 @@ export interface PartBoundaries {
  * Each face's part index (`index`: part number → index); faces in element order (a cursor over
  * the blocks, started over if the order goes back), the index looked up where the part changes.
  */
-function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<number, number>): Int32Array {
+export function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<number, number>): Int32Array {
   const out = new Int32Array(faces.count), blocks = mesh.blocks
   let bi = 0, last = -1, k = 0
   for (let f = 0; f < faces.count; f++) {
@@ -180,22 +207,73 @@ function facePartIndex(mesh: Mesh, faces: BoundaryFaces, index: ReadonlyMap<numb
   return out
 }
 
+/** What the parts read of a face's tractions (see SurfaceTractions): force, moment about the origin, mean |t|. */
+export type FaceLoads = Pick<SurfaceTractions, 'force' | 'moment' | 'meanMagnitude'>
+
+/** Faces per call of computeSurfaceTractions in faceLoads. */
+const LOAD_CHUNK = 2048
+/**
+ * faceLoads' scratch for the per-node outputs that the parts do not read (9 numbers per face node
+ * slot), kept from one load to the next: about 0.5 MB for triangles instead of 300 bytes per face
+ * (10 MB at 10^6 tet4 in four slabs), whose first touch costs a page fault per 4 KiB.
+ */
+let loadScratch: SurfaceTractions | null = null
+
+/**
+ * The tractions' face integrals of `faces` (computeSurfaceTractions, the same numbers), LOAD_CHUNK
+ * faces at a time through a reused scratch, so only 7 numbers per face are new memory; with
+ * `reuse`, none: they are kept arrays (partFaces.ts), valid until the next such call.
+ */
+export function faceLoads(mesh: Mesh, field: StressField, faces: BoundaryFaces, reuse = false): FaceLoads {
+  const F = faces.count, S = faces.slots
+  const out: FaceLoads = reuse
+    ? { force: keptFloat64('loadForce', 3 * F), moment: keptFloat64('loadMoment', 3 * F), meanMagnitude: keptFloat64('loadMagnitude', F) }
+    : { force: new Float64Array(3 * F), moment: new Float64Array(3 * F), meanMagnitude: new Float64Array(F) }
+  if (!loadScratch || loadScratch.nodeMagnitude.length < S * LOAD_CHUNK) {
+    loadScratch = allocateSurfaceTractions({ ...faces, count: LOAD_CHUNK })
+  }
+  const t = loadScratch
+  for (let s = 0; s < F; s += LOAD_CHUNK) {
+    const n = Math.min(LOAD_CHUNK, F - s)
+    // a view of faces [s, s + n), its fields in BoundaryFaces order (one object shape for the kernel)
+    const piece: BoundaryFaces = {
+      count: n, slots: S, elem: faces.elem.subarray(s, s + n), localFace: faces.localFace.subarray(s, s + n), kind: faces.kind.subarray(s, s + n),
+      nodes: faces.nodes.subarray(S * s, S * (s + n)), area: faces.area.subarray(s, s + n), normal: faces.normal.subarray(3 * s, 3 * (s + n)),
+      centroid: faces.centroid.subarray(3 * s, 3 * (s + n)),
+    }
+    computeSurfaceTractions(t, mesh, field, piece)
+    out.force.set(t.force.subarray(0, 3 * n), 3 * s)
+    out.moment.set(t.moment.subarray(0, 3 * n), 3 * s)
+    out.meanMagnitude.set(t.meanMagnitude.subarray(0, n), s)
+  }
+  return out
+}
+
 /**
  * The boundaries of every part, from the whole body's faces and tractions when a load has them;
- * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has them.
+ * `marked` the nodes' part marks and `numbers` the part numbers (partNumbers) when the caller has
+ * them; with `reuse` the faces between parts and their loads are in kept arrays (partFaces.ts),
+ * valid until the next such call.
  */
 export function partBoundaries(
-  mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null, numbers: readonly number[] = partNumbers(mesh),
+  mesh: Mesh, field: StressField, body?: BodyFaces, marked: Int32Array | null = null, numbers: readonly number[] = partNumbers(mesh), reuse = false,
 ): PartBoundaries {
   const index = new Map(numbers.map((p, k) => [p, k]))
   const outer = body?.faces ?? extractBoundaryFaces(mesh)
-  const outerTractions = body?.tractions ?? computeSurfaceTractions(allocateSurfaceTractions(outer), mesh, field, outer)
-  const sides = facesBetweenParts(mesh, marked)
+  const outerTractions = body?.tractions ?? faceLoads(mesh, field, outer)
+  const sides = facesBetweenParts(mesh, marked, reuse)
   const inner = sides.faces
-  const innerTractions = computeSurfaceTractions(allocateSurfaceTractions(inner), mesh, field, inner)
+  const innerTractions = faceLoads(mesh, field, inner, reuse)
   const outerPart = facePartIndex(mesh, outer, index), innerPart = facePartIndex(mesh, inner, index)
-  const outerTwin = coincidentFacePairs(mesh.coords, outer, outerPart, body?.against ?? null)
+  // no face labelled against a part meshed apart: no pairs to search for
+  const against = body?.against ?? null
+  const outerTwin = against && !anyNonzero(against) ? null : coincidentFacePairs(mesh.coords, outer, outerPart, against)
   return { numbers, outer, outerTractions, outerPart, outerTwin, inner, innerTractions, innerPart, innerTwin: sides.twin }
+}
+
+function anyNonzero(a: ArrayLike<number>): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== 0) return true
+  return false
 }
 
 /**
@@ -232,11 +310,10 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
 ): AssemblyBalance {
-  // one pass over the elements: the volumes per part, and the nodes' part marks for the faces between parts
-  const numbers = partNumbers(mesh), K = numbers.length
-  const sums = new Float64Array(4 * K), elements = new Int32Array(K), mark = new Int32Array(mesh.nodeCount).fill(-1)
-  partVolumes(sums, elements, mark, mesh, new Map(numbers.map((p, i) => [p, i])))
-  const b = partBoundaries(mesh, field, body, mark, numbers)
+  // one pass over the elements: the part numbers, the volumes per part, and the nodes' part marks for the faces between parts
+  const mark = nodeMarks(mesh.nodeCount)
+  const { numbers, sums, elements } = partVolumes(mark, mesh), K = numbers.length
+  const b = partBoundaries(mesh, field, body, mark, numbers, true)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
     const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
@@ -250,47 +327,104 @@ export function assemblyBalance(
     const balance: BodyBalance = { force, moment, relative: gross > 0 ? Math.hypot(...force) / gross : 0, gross, about: c, volume: V, centroid: c, surfaceForce, bodyForceTotal }
     return { part: p, name: names.get(p) ?? '', elements: elements[k], volume: V, balance }
   })
-  return { parts, ...matchInterfaces(mesh.coords, b) }
+  return { parts, ...matchInterfaces(mesh.coords, b), facePart: b.outerPart }
 }
 
 /**
- * Per part index (`index`: part number → index): `sums` (4·K) volume and volume-weighted centroid
- * x, y, z; `elements` (K) the element count. A chunk of elements at a time (elementVolume.ts), in
- * element order, as computeBodyBalance sums them; each chunk's corners also go into the nodes'
- * part marks `mark` (markNodes, partFaces.ts) while they are in cache.
+ * Int32Array(N) filled with -1 for the nodes' part marks (markNodes), a kept array (partFaces.ts;
+ * a model-size array is fresh memory otherwise): valid until the next call, and assemblyBalance
+ * reads it within its own call only.
  */
-function partVolumes(sums: Float64Array, elements: Int32Array, mark: Int32Array, mesh: Mesh, index: ReadonlyMap<number, number>): void {
-  // the current part's sums in locals, swapped where the part changes (the same additions, in the same order)
-  const cur = new Float64Array(5), at = [0, -1] // [part index, last part number]
-  volumeChunks(mesh, (blk, s, n, vol, cen) => {
-    const nn = ELEMENT_TYPES[blk.type].nodeCount, cc = ELEMENT_TYPES[blk.type].cornerCount
-    sumChunk(sums, elements, cur, at, vol, cen, n, blk.part, s, index)
-    markNodes(mark, blk.conn, nn, cc, blk.part, s, s + n)
-  })
-  if (sums.length > 0) { const k = at[0]; sums[4 * k] = cur[0]; sums[4 * k + 1] = cur[1]; sums[4 * k + 2] = cur[2]; sums[4 * k + 3] = cur[3]; elements[k] = cur[4] }
+function nodeMarks(N: number): Int32Array {
+  return keptInt32('nodeMarks', N).fill(-1)
 }
 
-function sumChunk(
-  sums: Float64Array, elements: Int32Array, cur: Float64Array, at: number[], vol: Float64Array, cen: Float64Array, n: number,
-  part: Int32Array | null, first: number, index: ReadonlyMap<number, number>,
+/** Running sums per part in the order parts are met (partVolumes): 4 per part (volume, volume × centroid x, y, z) and the element count. */
+interface VolumeSums {
+  sums: Float64Array
+  elements: Float64Array
+  /** Part numbers in the order met; a part's slot is its place here. */
+  readonly met: number[]
+  readonly slotOf: Map<number, number>
+  /** The current part's slot and number, and its sums held in locals between chunks (volume, x, y, z, elements). */
+  slot: number
+  last: number
+  readonly cur: Float64Array
+}
+
+/**
+ * The part numbers (ascending, as partNumbers), and per part `sums` (4·K) volume and
+ * volume-weighted centroid x, y, z, `elements` (K) the element count: a chunk of elements at a
+ * time (elementVolume.ts), in element order, as computeBodyBalance sums them. Each chunk's corners
+ * also go into the nodes' part marks `mark` (as markNodes, partFaces.ts) in the same loop, while
+ * they are in cache: one pass over the elements, with no list of the parts made beforehand.
+ */
+function partVolumes(mark: Int32Array, mesh: Mesh): { numbers: number[]; sums: Float64Array; elements: Int32Array } {
+  const acc: VolumeSums = { sums: new Float64Array(16), elements: new Float64Array(4), met: [], slotOf: new Map(), slot: -1, last: NaN, cur: new Float64Array(5) }
+  volumeChunks(mesh, (blk, s, n, vol, cen) => {
+    const topo = ELEMENT_TYPES[blk.type]
+    sumAndMark(acc, vol, cen, n, blk.part, s, mark, blk.conn, topo.nodeCount, topo.cornerCount)
+  })
+  // a block without part numbers and without elements still lists part 0 (partNumbers)
+  for (const b of mesh.blocks) if (!b.part && b.conn.length === 0 && !acc.slotOf.has(0)) switchPart(acc, 0)
+  if (acc.slot >= 0) switchPart(acc, acc.last)
+  const K = acc.met.length, order = acc.met.map((_, i) => i).sort((x, y) => acc.met[x] - acc.met[y])
+  const sums = new Float64Array(4 * K), elements = new Int32Array(K)
+  order.forEach((r, k) => { sums.set(acc.sums.subarray(4 * r, 4 * r + 4), 4 * k); elements[k] = acc.elements[r] })
+  return { numbers: order.map((r) => acc.met[r]), sums, elements }
+}
+
+/** Stores the current part's sums and takes part `p`'s (a new slot for a part not met before). */
+function switchPart(acc: VolumeSums, p: number): void {
+  const c = acc.cur
+  if (acc.slot >= 0) { const o = 4 * acc.slot; acc.sums[o] = c[0]; acc.sums[o + 1] = c[1]; acc.sums[o + 2] = c[2]; acc.sums[o + 3] = c[3]; acc.elements[acc.slot] = c[4] }
+  let r = acc.slotOf.get(p)
+  if (r === undefined) {
+    r = acc.met.length
+    acc.met.push(p); acc.slotOf.set(p, r)
+    if (r === acc.elements.length) {
+      const sums = new Float64Array(8 * r), elements = new Float64Array(2 * r)
+      sums.set(acc.sums); elements.set(acc.elements); acc.sums = sums; acc.elements = elements
+    }
+  }
+  const o = 4 * r
+  c[0] = acc.sums[o]; c[1] = acc.sums[o + 1]; c[2] = acc.sums[o + 2]; c[3] = acc.sums[o + 3]; c[4] = acc.elements[r]
+  acc.slot = r; acc.last = p
+}
+
+/**
+ * One chunk of `n` elements from `first` of a block (connectivity `conn`, `nn` nodes and `cc`
+ * corners each, parts `part` or 0): their volumes and centroids into the part sums, and their
+ * corners into the marks (-1 no element, p ≥ 0 part p only, -2 several parts).
+ */
+function sumAndMark(
+  acc: VolumeSums, vol: Float64Array, cen: Float64Array, n: number, part: Int32Array | null, first: number,
+  mark: Int32Array, conn: Int32Array, nn: number, cc: number,
 ): void {
-  let k = at[0], last = at[1], V = cur[0], X = cur[1], Y = cur[2], Z = cur[3], n0 = cur[4]
+  const c = acc.cur
+  let last = acc.last, V = c[0], X = c[1], Y = c[2], Z = c[3], n0 = c[4]
   for (let e = 0; e < n; e++) {
     const p = part ? part[first + e] : 0
     if (p !== last) {
-      last = p
-      const r = index.get(p) ?? 0
-      if (r !== k) {
-        sums[4 * k] = V; sums[4 * k + 1] = X; sums[4 * k + 2] = Y; sums[4 * k + 3] = Z; elements[k] = n0
-        k = r; V = sums[4 * k]; X = sums[4 * k + 1]; Y = sums[4 * k + 2]; Z = sums[4 * k + 3]; n0 = elements[k]
-      }
+      // the same additions in the same order: the current part's sums go back before the next part's are taken
+      c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
+      switchPart(acc, p)
+      last = p; V = c[0]; X = c[1]; Y = c[2]; Z = c[3]; n0 = c[4]
     }
     const v = vol[e]
     n0++
     V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
+    const eb = (first + e) * nn
+    for (let k = 0; k < cc; k++) {
+      const node = conn[eb + k], m = mark[node]
+      if (m !== p) mark[node] = m === -1 ? p : -2
+    }
   }
-  at[0] = k; at[1] = last; cur[0] = V; cur[1] = X; cur[2] = Y; cur[3] = Z; cur[4] = n0
+  c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
 }
+
+/** (element, local face) as one number, REF · element + local face (at most 6 faces an element). */
+const REF = 8
 
 /**
  * Per part index (7 per part in `out`): surface force x, y, z, moment about the origin x, y, z,
@@ -299,10 +433,15 @@ function sumChunk(
 function partSurfaceSums(out: Float64Array, b: PartBoundaries): Float64Array {
   const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
   const oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
+  // one site per array read, whichever side comes next: a site first reached after the loop was
+  // compiled would send it back to the interpreter (the outer faces run alone for long stretches)
   let i = 0, j = 0
   while (i < Fo || j < Fi) {
-    const takeOuter = j >= Fi || (i < Fo && (outer.elem[i] < inner.elem[j] || (outer.elem[i] === inner.elem[j] && outer.localFace[i] < inner.localFace[j])))
-    const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, f = takeOuter ? i++ : j++, o = 7 * (takeOuter ? outerPart[f] : innerPart[f])
+    const ko = i < Fo ? REF * outer.elem[i] + outer.localFace[i] : Infinity, ki = j < Fi ? REF * inner.elem[j] + inner.localFace[j] : Infinity
+    const takeOuter = ko < ki, t = takeOuter ? 1 : 0
+    const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, P = takeOuter ? outerPart : innerPart, f = takeOuter ? i : j
+    i += t; j += 1 - t
+    const o = 7 * P[f]
     const x = F[3 * f], y = F[3 * f + 1], z = F[3 * f + 2]
     out[o] += x; out[o + 1] += y; out[o + 2] += z
     out[o + 3] += M[3 * f]; out[o + 4] += M[3 * f + 1]; out[o + 5] += M[3 * f + 2]

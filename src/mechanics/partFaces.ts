@@ -8,7 +8,10 @@
  * with three corners or more so marked (an element's first corners usually tell it has not). Only their faces whose corners are all marked can lie
  * between parts, and those few are paired by their sorted corners in an open-addressing table
  * over typed arrays (a triangle pads its fourth corner, so it never pairs with a quadrilateral).
- * A pair of the same part is an interior face of that part and is dropped.
+ * A pair of the same part is an interior face of that part and is dropped. The work arrays are
+ * kept from one call to the next (keptInt32...: a model's load makes one call, and fresh memory
+ * costs a page fault per 4 KiB on first touch); with `reuse` the sides' arrays are kept ones too,
+ * valid until the next such call (assemblyBalance reads them within its own call).
  *
  * Part numbers come from the blocks (0 without; they are ≥ 0, so -1 and -2 can mark nodes). Returns
  * the sides as BoundaryFaces (slots = faceSlotsOf(mesh.blocks), as extractBoundaryFaces gives the
@@ -28,31 +31,58 @@ export interface PartSides {
   readonly twin: Int32Array
 }
 
-export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null): PartSides {
+export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null, reuse = false): PartSides {
   const mark = marked ?? markSharedNodes(mesh)
   const listed = listElements(mesh, mark)
-  const { refs, keys, part } = candidateFaces(mesh, listed, mark)
-  const partner = pairFaces(keys, part)
+  const C = candidateFaces(mesh, listed, mark)
+  const partner = pairFaces(C)
   // the sides: candidates with a twin, already in (element, local face) order
-  const C = refs.length
-  const at = new Int32Array(C)
+  const at = keptInt32('at', C)
   let P = 0
   for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
-  const twin = new Int32Array(P), sorted = new Int32Array(P)
-  for (let i = 0; i < C; i++) if (partner[i] >= 0) { twin[at[i]] = at[partner[i]]; sorted[at[i]] = refs[i] }
   const blocks = mesh.blocks, S = faceSlotsOf(blocks)
-  const elem = new Int32Array(P), localFace = new Uint8Array(P), kind = new Uint8Array(P), nodes = new Int32Array(S * P).fill(-1)
+  const out = (key: string, n: number) => (reuse ? keptInt32(key, n) : new Int32Array(n))
+  const twin = out('twin', P), elem = out('elem', P), nodes = out('nodes', S * P)
+  const localFace = reuse ? keptUint8('localFace', P) : new Uint8Array(P), kind = reuse ? keptUint8('kind', P) : new Uint8Array(P)
+  const area = reuse ? keptFloat64('area', P) : new Float64Array(P), normal = reuse ? keptFloat64('normal', 3 * P) : new Float64Array(3 * P)
+  const centroid = reuse ? keptFloat64('centroid', 3 * P) : new Float64Array(3 * P)
+  writeSides(twin, elem, localFace, kind, nodes, S, mesh, C, partner, at)
+  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
+  return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
+}
+
+/**
+ * Arrays kept from one call to the next, by name, grown as needed (a view of the first n): fresh
+ * memory costs a page fault per 4 KiB on first touch, about as much as the loops here. A view is
+ * valid until the next call that asks for the same name; nothing here is re-entered.
+ */
+const keptArrays = new Map<string, Int32Array | Uint8Array | Float64Array>()
+function kept<T extends Int32Array | Uint8Array | Float64Array>(key: string, n: number, make: (n: number) => T): T {
+  let a = keptArrays.get(key) as T | undefined
+  if (!a || a.length < n) { a = make(Math.max(n, 1024)); keptArrays.set(key, a) }
+  return a.subarray(0, n) as T
+}
+export const keptInt32 = (key: string, n: number): Int32Array => kept(key, n, (m) => new Int32Array(m))
+export const keptUint8 = (key: string, n: number): Uint8Array => kept(key, n, (m) => new Uint8Array(m))
+export const keptFloat64 = (key: string, n: number): Float64Array => kept(key, n, (m) => new Float64Array(m))
+
+/** The sides' arrays from the paired candidates (`at[i]` candidate i's side when partner[i] ≥ 0); nodes in each element's outward order. */
+function writeSides(
+  twin: Int32Array, elem: Int32Array, localFace: Uint8Array, kind: Uint8Array, nodes: Int32Array, S: number, mesh: Mesh,
+  C: number, partner: Int32Array, at: Int32Array,
+): void {
+  const refs = keptInt32('refs', C), blocks = mesh.blocks
+  nodes.fill(-1)
   let bi = 0
-  for (let k = 0; k < P; k++) {
-    const g = (sorted[k] / REF_STRIDE) | 0, f = sorted[k] - g * REF_STRIDE
+  for (let i = 0; i < C; i++) {
+    if (partner[i] < 0) continue
+    const k = at[i], g = (refs[i] / REF_STRIDE) | 0, f = refs[i] - g * REF_STRIDE
+    twin[k] = at[partner[i]]
     while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
     const b = blocks[bi], topo = ELEMENT_TYPES[b.type], face = topo.faces[f], eb = (g - b.offset) * topo.nodeCount
     elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
     for (let a = 0; a < face.length; a++) nodes[S * k + a] = b.conn[eb + face[a]]
   }
-  const area = new Float64Array(P), normal = new Float64Array(3 * P), centroid = new Float64Array(3 * P)
-  computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
-  return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
 }
 
 /**
@@ -81,82 +111,82 @@ export function markNodes(mark: Int32Array, conn: Int32Array, nn: number, cc: nu
 
 /**
  * The elements with three corners or more on nodes of several parts (a face between parts has all
- * its corners there), by global index ascending: the only ones read again. Read from one byte per
- * node (it stays in cache better than the marks), and an element whose first cornerCount - 2
- * corners have none is passed at once (it can have two at most).
+ * its corners there), by global index ascending: the only ones read again. An element whose first
+ * cornerCount - 2 corners have none is passed at once (it can have two at most).
  */
 function listElements(mesh: Mesh, mark: Int32Array): Int32Array {
-  const N = mesh.nodeCount, shared = new Uint8Array(N)
-  for (let i = 0; i < N; i++) shared[i] = mark[i] === -2 ? 1 : 0
-  const listed: number[] = []
+  let listed = (keptArrays.get('listed') as Int32Array | undefined) ?? new Int32Array(1024), n = 0
   for (const b of mesh.blocks) {
     const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, cc = topo.cornerCount, conn = b.conn, off = b.offset
     const count = conn.length / nn, first = cc - 2
     for (let e = 0; e < count; e++) {
       const eb = e * nn
       let mixed = 0, k = 0
-      for (; k < first; k++) mixed += shared[conn[eb + k]]
+      for (; k < first; k++) if (mark[conn[eb + k]] === -2) mixed++
       if (mixed === 0) continue
-      for (; k < cc; k++) mixed += shared[conn[eb + k]]
-      if (mixed >= 3) listed.push(off + e)
+      for (; k < cc; k++) if (mark[conn[eb + k]] === -2) mixed++
+      if (mixed < 3) continue
+      if (n === listed.length) { const grown = new Int32Array(2 * n); grown.set(listed); listed = grown }
+      listed[n++] = off + e
     }
   }
-  return Int32Array.from(listed)
+  keptArrays.set('listed', listed)
+  return listed.subarray(0, n)
 }
 
 /**
  * The listed elements' faces with every corner on nodes of several parts, in (element, local
- * face) order: `refs` their references, `keys` 4 sorted corners each (a triangle's missing fourth
- * is the node count, so it sorts last and never equals a node), `part` their element's part.
+ * face) order, into kept arrays (their count is returned): 'refs' their references, 'keys' 4
+ * sorted corners each (a triangle's missing fourth is the node count, so it sorts last and never
+ * equals a node), 'part' their element's part. One pass, into arrays sized for every face of the
+ * listed elements.
  */
-function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): { refs: Int32Array; keys: Int32Array; part: Int32Array } {
+function candidateFaces(mesh: Mesh, listed: Int32Array, mark: Int32Array): number {
   const blocks = mesh.blocks, none = mesh.nodeCount
-  let refs = new Int32Array(0), keys = new Int32Array(0), part = new Int32Array(0)
-  // two rounds: count, then fill
-  for (let round = 0; round < 2; round++) {
-    let C = 0, bi = 0
-    for (let i = 0; i < listed.length; i++) {
-      const g = listed[i]
-      while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
-      const b = blocks[bi], topo = ELEMENT_TYPES[b.type], nf = topo.faces.length, fc = topo.cornerFaces, conn = b.conn
-      const eb = (g - b.offset) * topo.nodeCount
-      for (let f = 0; f < nf; f++) {
-        let c0 = conn[eb + fc[4 * f]], c1 = conn[eb + fc[4 * f + 1]], c2 = conn[eb + fc[4 * f + 2]]
-        const l3 = fc[4 * f + 3]
-        let c3 = l3 >= 0 ? conn[eb + l3] : none
-        if (mark[c0] !== -2 || mark[c1] !== -2 || mark[c2] !== -2 || (l3 >= 0 && mark[c3] !== -2)) continue
-        if (round === 1) {
-          // five-compare sorting network
-          let x = 0
-          if (c0 > c1) { x = c0; c0 = c1; c1 = x }
-          if (c2 > c3) { x = c2; c2 = c3; c3 = x }
-          if (c0 > c2) { x = c0; c0 = c2; c2 = x }
-          if (c1 > c3) { x = c1; c1 = c3; c3 = x }
-          if (c1 > c2) { x = c1; c1 = c2; c2 = x }
-          refs[C] = g * REF_STRIDE + f
-          part[C] = b.part ? b.part[g - b.offset] : 0
-          keys[4 * C] = c0; keys[4 * C + 1] = c1; keys[4 * C + 2] = c2; keys[4 * C + 3] = c3
-        }
-        C++
-      }
+  let faces = 0
+  for (const b of blocks) faces = Math.max(faces, ELEMENT_TYPES[b.type].faces.length)
+  const most = faces * listed.length
+  const refs = keptInt32('refs', most), keys = keptInt32('keys', 4 * most), part = keptInt32('part', most)
+  let C = 0, bi = 0
+  for (let i = 0; i < listed.length; i++) {
+    const g = listed[i]
+    while (g >= blocks[bi].offset + blocks[bi].ids.length) bi++
+    const b = blocks[bi], topo = ELEMENT_TYPES[b.type], nf = topo.faces.length, fc = topo.cornerFaces, conn = b.conn
+    const eb = (g - b.offset) * topo.nodeCount, p = b.part ? b.part[g - b.offset] : 0
+    for (let f = 0; f < nf; f++) {
+      let c0 = conn[eb + fc[4 * f]], c1 = conn[eb + fc[4 * f + 1]], c2 = conn[eb + fc[4 * f + 2]]
+      const l3 = fc[4 * f + 3]
+      let c3 = l3 >= 0 ? conn[eb + l3] : none
+      if (mark[c0] !== -2 || mark[c1] !== -2 || mark[c2] !== -2 || (l3 >= 0 && mark[c3] !== -2)) continue
+      // five-compare sorting network
+      let x = 0
+      if (c0 > c1) { x = c0; c0 = c1; c1 = x }
+      if (c2 > c3) { x = c2; c2 = c3; c3 = x }
+      if (c0 > c2) { x = c0; c0 = c2; c2 = x }
+      if (c1 > c3) { x = c1; c1 = c3; c3 = x }
+      if (c1 > c2) { x = c1; c1 = c2; c2 = x }
+      refs[C] = g * REF_STRIDE + f
+      part[C] = p
+      keys[4 * C] = c0; keys[4 * C + 1] = c1; keys[4 * C + 2] = c2; keys[4 * C + 3] = c3
+      C++
     }
-    if (round === 0) { refs = new Int32Array(C); keys = new Int32Array(4 * C); part = new Int32Array(C) }
   }
-  return { refs, keys, part }
+  return C
 }
 
 /**
- * Each candidate's twin of another part (-1 for none): candidates with the same sorted corners,
+ * Each candidate's twin of another part (-1 for none), for the C candidates in the kept 'keys' and
+ * 'part' (candidateFaces): candidates with the same sorted corners,
  * paired in an open-addressing table. Two of one part are an interior face of that part; a face
  * of three elements is refused by the whole body's extraction, here the first pair stands.
  */
-function pairFaces(keys: Int32Array, part: Int32Array): Int32Array {
-  const C = part.length
+function pairFaces(C: number): Int32Array {
+  const keys = keptInt32('keys', 4 * C), part = keptInt32('part', C)
   let slots = 16
   while (slots < 2 * C) slots *= 2
   const mask = slots - 1
   // per slot: -1 free; w ≥ 0 candidate w waits for its twin; -2 - w candidate w was paired
-  const slot = new Int32Array(slots).fill(-1), partner = new Int32Array(C).fill(-1)
+  const slot = keptInt32('slot', slots).fill(-1), partner = keptInt32('partner', C).fill(-1)
   for (let i = 0; i < C; i++) {
     const c0 = keys[4 * i], c1 = keys[4 * i + 1], c2 = keys[4 * i + 2], c3 = keys[4 * i + 3]
     let h = (Math.imul(c0, 0x9e3779b1) + Math.imul(c1, 0x85ebca77) + Math.imul(c2, 0xc2b2ae3d) + Math.imul(c3, 0x27d4eb2f)) | 0

@@ -1,8 +1,10 @@
 /**
  * What assemblies add to a load at about 10^6 elements: the per-part work (the part list, and with
  * two parts or more each part's boundary faces, tractions and balance and the interfaces between
- * parts, partBalance.ts, as the engine runs it once per load: assemblyAtLoad in workers/assembly.ts,
- * with the load's own boundary faces, tractions and patch labels) and the faces
+ * parts, partBalance.ts, and the surface's triangles grouped by part: the engine's whole assembly
+ * step at load, loadAssembly in workers/assembly.ts, with the load's own boundary faces, tractions,
+ * patch labels and surface triangles; the triangles are built untimed, and not counted in the
+ * load either, though the engine's load builds them) and the faces
  * against parts meshed apart (interfaceFaces.ts, run inside the patches stage), beside the whole
  * load (native read, then every stage of analysisPipeline.ts: faces, tractions, invariants,
  * element and body balance, patches, verdict). Rounds interleave the load and the part work, so a
@@ -25,7 +27,9 @@ import type { Model } from '../../src/model/model.ts'
 import { readNative, writeNative } from '../../src/io/index.ts'
 import { runAnalysis, analysisInputOf } from '../../src/mechanics/analysisPipeline.ts'
 import { partNumbers } from '../../src/mechanics/partBalance.ts'
-import { assemblyAtLoad } from '../../workers/assembly.ts'
+import { loadAssembly } from '../../workers/assembly.ts'
+import { jumpOf } from '../../workers/casePicture.ts'
+import { buildSurfaceTriangles } from '../../src/mechanics/surfaceTriangles.ts'
 import type { AnalysisResult } from '../../src/mechanics/analysisPipeline.ts'
 import type { StressField } from '../../src/model/stressField.ts'
 import { coincidentInterfaceFaces } from '../../src/mechanics/interfaceFaces.ts'
@@ -84,11 +88,13 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
     const input = analysisInputOf(m)
     return { m, stress: input.stress, r: runAnalysis(input, { balancePrecision: 'single' }) }
   }
+  // the surface triangles of the load (untimed: the engine builds them with or without parts)
+  const triangles = (m: Model, stress: StressField, r: AnalysisResult) =>
+    buildSurfaceTriangles(m.mesh.coords, r.faces, r.tractions, r.invariants, r.elementBalance.indicator, r.loadPatches.faceLabel, jumpOf(m.mesh, stress, r.loadPatches))
   // the engine's assembly step (loadAssembly): the part list, and the assembly only with two parts or more
-  const parts = (m: Model, stress: StressField, r: AnalysisResult) => {
-    const numbers = partNumbers(m.mesh)
-    if (numbers.length < 2) return 0
-    const asm = assemblyAtLoad(m, stress, r.faces, r.tractions, r.loadPatches.faceLabel)
+  const parts = (m: Model, stress: StressField, r: AnalysisResult, tri: ReturnType<typeof triangles>) => {
+    const asm = loadAssembly(m, stress, r.faces, r.tractions, r.loadPatches.faceLabel, tri.index, tri.triangleFace, tri.faceVertexStart)
+    if (!asm) return 0
     interfaces = asm.interfaces.length
     return asm.parts.length
   }
@@ -102,7 +108,8 @@ export function partsCost(model: Model, rounds = 5): PartsCost {
   const loadCpu: number[] = [], partsCpu: number[] = [], faceCpu: number[] = [], loadWall: number[] = [], partsWall: number[] = [], faceWall: number[] = []
   for (let i = 0; i < rounds + 1; i++) {
     const l = timed(load)
-    const p = timed(() => parts(l.value.m, l.value.stress, l.value.r))
+    const tri = triangles(l.value.m, l.value.stress, l.value.r)
+    const p = timed(() => parts(l.value.m, l.value.stress, l.value.r, tri))
     const fp = faceParts(l.value.m, l.value.r.faces)
     const f = timed(() => coincidentInterfaceFaces(l.value.m.mesh.coords, l.value.r.faces, fp))
     if (i === 0) continue // warm-up
