@@ -104,6 +104,7 @@ function spawnPoolWorker(): PoolEndpoint {
     invariants: (stress, out) => Promise.race([remote.invariants(stress, out), failure]),
     spread: (indicator, count) => Promise.race([remote.spread(indicator, count), failure]),
     csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
+    csvStream: (setup) => Promise.race([remote.csvStream(setup), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }

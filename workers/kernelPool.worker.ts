@@ -12,6 +12,8 @@ import { pieceBuffers, readPiece } from '../src/io/csvPieces.ts'
 import { indicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { PieceJob, PieceOutcome } from '../src/io/csvPieces.ts'
+import { readStreamedPieces, streamBuffers } from '../src/io/csvPieceStream.ts'
+import type { StreamResult, StreamSetup } from '../src/io/csvPieceStream.ts'
 
 const buffersOf = (r: object): ArrayBuffer[] => Object.values(r).map((a: Float64Array | Float32Array) => a.buffer as ArrayBuffer)
 
@@ -31,6 +33,10 @@ const api = {
   csvPieces(jobs: readonly PieceJob[]): PieceOutcome[] {
     const out = jobs.map(readPiece)
     return Comlink.transfer(out, out.flatMap(pieceBuffers))
+  },
+  csvStream(setup: StreamSetup): StreamResult {
+    const r = readStreamedPieces(setup)
+    return Comlink.transfer(r, streamBuffers(r))
   },
 }
 

@@ -7,15 +7,14 @@
 import { parentPort } from 'node:worker_threads'
 import { pieceBuffers, readPiece } from '../io/csvPieces.ts'
 import type { PieceJob } from '../io/csvPieces.ts'
-import { readStreamedPieces } from '../io/csvPieceStream.ts'
+import { readStreamedPieces, streamBuffers } from '../io/csvPieceStream.ts'
 import type { StreamSetup } from '../io/csvPieceStream.ts'
 
 parentPort!.on('message', (msg: { id: number; jobs?: PieceJob[]; stream?: StreamSetup }) => {
   try {
     if (msg.stream) {
       const streamed = readStreamedPieces(msg.stream)
-      const rest = streamed.stopped ? [] : streamed.pieces.flatMap((p) => (p && p.ok ? p.rest.flatMap((b) => [b.nodeIds, b.ids, b.lines, ...(b.part ? [b.part] : [])]) : []))
-      parentPort!.postMessage({ id: msg.id, streamed }, rest.map((a) => a.buffer as ArrayBuffer))
+      parentPort!.postMessage({ id: msg.id, streamed }, streamBuffers(streamed))
       return
     }
     const out = msg.jobs!.map(readPiece)

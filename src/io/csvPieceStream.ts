@@ -86,6 +86,12 @@ export type StreamResult = { readonly stopped: true } | { readonly stopped: fals
 /** A helper thread that reads the chunks of its ring as they come (it blocks: a worker thread). */
 export type StreamLane = (setup: StreamSetup) => Promise<StreamResult>
 
+/** The buffers of a lane's answer that are its own (rows of other element types), to move back by transfer. */
+export function streamBuffers(r: StreamResult): ArrayBuffer[] {
+  if (r.stopped) return []
+  return r.pieces.flatMap((p) => (p && p.ok ? p.rest.flatMap((b) => [b.nodeIds, b.ids, b.lines, ...(b.part ? [b.part] : [])].map((a) => a.buffer as ArrayBuffer)) : []))
+}
+
 /** Thrown inside a piece reader when its rows outrun their room. */
 class OutOfRoom extends Error {}
 
@@ -287,7 +293,9 @@ export async function readTablesStreamed<F extends { readonly name: string; read
     return { ctrl, bytes: new Uint8Array(ring, CONTROL_BYTES), slotBytes, published: 0, table: 0, pos: -1, done: false }
   })
   const answers = lanes.map((lane, k) => lane({ ring: feeds[k].ctrl.buffer as SharedArrayBuffer, tables: plans.map((p) => (p && p.ranges.length - 1 > k ? p.table : null)) }))
-  answers.forEach((a) => a.catch(() => undefined))
+  // A lane that fails before reading its ring is seen here (on this thread's event loop, let run while it waits).
+  let failed = false
+  answers.forEach((a) => a.catch(() => { failed = true }))
   const stopAll = () => { for (const f of feeds) { Atomics.store(f.ctrl, STOP, 1); Atomics.notify(f.ctrl, HEAD) } }
   const fill = () => fillRings(feeds, plans, encoder)
 
@@ -328,12 +336,13 @@ export async function readTablesStreamed<F extends { readonly name: string; read
       }
     }
     // This thread's pieces read: send the rest, waiting for room.
-    let progress = performance.now()
+    let progress = performance.now(), yielded = progress
     while (feeds.some((f) => !f.done)) {
       if (fill()) { progress = performance.now(); continue }
       const f = feeds.find((x) => !x.done && x.published - Atomics.load(x.ctrl, TAIL) >= SLOTS)
-      if (f) Atomics.wait(f.ctrl, TAIL, Atomics.load(f.ctrl, TAIL), 50)
-      if (feeds.some((x) => Atomics.load(x.ctrl, STOP)) || performance.now() - progress > STALL_MS) throw new OutOfRoom()
+      if (f) Atomics.wait(f.ctrl, TAIL, Atomics.load(f.ctrl, TAIL), 20)
+      if (performance.now() - yielded > 100) { await new Promise((r) => setTimeout(r, 0)); yielded = performance.now() }
+      if (failed || feeds.some((x) => Atomics.load(x.ctrl, STOP)) || performance.now() - progress > STALL_MS) throw new OutOfRoom()
     }
   } catch (e) {
     stopAll()
