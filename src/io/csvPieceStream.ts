@@ -45,7 +45,7 @@ const HEAD = 0, TAIL = 1, STOP = 2, SLOT_SIZE = 3, META = 4, META_WORDS = 5
 const END = -1
 const CONTROL_BYTES = 4 * (META + META_WORDS * SLOTS)
 /** This thread's share of a table: it also counts the lanes' line ends, feeds the rings and joins. */
-export const MAIN_SHARE = 0.47
+export const MAIN_SHARE = 0.45
 /** Rows the arrays hold over the estimate from the mean line length. */
 const ROOM = 1.5
 
