@@ -34,7 +34,7 @@ import { InputError, isInputError } from '../model/errors.ts'
 import { createCursor, moveCursor } from './csvCursor.ts'
 import { finishNumericTable, openNumericTable, readNumericRows } from './csvTable.ts'
 import type { NumericPieceSetup, NumericRows, NumericTable } from './csvTable.ts'
-import { NODE_COUNTS, TYPE_NAMES, finishElementTable, openElementTable, permuteNodes, readElementPiece, readElementRows, typeLookup } from './readElementTable.ts'
+import { NODE_COUNTS, TYPE_NAMES, concatInt, finishElementTable, openElementTable, permuteNodes, readElementPiece, readElementRows, typeLookup } from './readElementTable.ts'
 import type { Blocks, ElementPieceSetup, ElementTable, RawElementBlock, TypeLookup } from './readElementTable.ts'
 import { LineEndCounter, lastRecordEnd, lineEndOf, recordCuts } from './recordSplit.ts'
 import type { PieceError, TableOutcome, TableRequest } from './csvPieces.ts'
@@ -503,21 +503,11 @@ function joinPieces(p: Plan, results: readonly StreamPieceResult[]): NumericTabl
   const joined: RawElementBlock[] = order.map((type) => {
     if (shared && type === shared.type) return shared
     const parts = rest.flatMap((bs) => bs.filter((b) => b.type === type))
-    return { type: parts[0].type, nodeIds: concat(parts.map((b) => b.nodeIds)), ids: concat(parts.map((b) => b.ids)), part: open.setup.cols.hasPart ? concat(parts.map((b) => b.part!)) : null, lines: concat(parts.map((b) => b.lines)) }
+    return { type: parts[0].type, nodeIds: concatInt(parts.map((b) => b.nodeIds)), ids: concatInt(parts.map((b) => b.ids)), part: open.setup.cols.hasPart ? concatInt(parts.map((b) => b.part!)) : null, lines: concatInt(parts.map((b) => b.lines)) }
   })
   for (const b of joined) {
     const perm = open.setup.spec.nodeOrder.get(b.type)
     if (perm) permuteNodes(b.nodeIds, perm)
   }
   return finishElementTable(open, [joined])
-}
-
-function concat(parts: readonly Int32Array[]): Int32Array {
-  if (parts.length === 1) return parts[0]
-  let n = 0
-  for (const a of parts) n += a.length
-  const out = new Int32Array(n)
-  let at = 0
-  for (const a of parts) { out.set(a, at); at += a.length }
-  return out
 }

@@ -146,7 +146,8 @@ export function finishElementTable(t: OpenElementTable, pieces: readonly (readon
   return { blocks, info: t.info }
 }
 
-function concatInt(parts: readonly Int32Array[]): Int32Array {
+/** The arrays one after another (the one array itself when there is one). */
+export function concatInt(parts: readonly Int32Array[]): Int32Array {
   if (parts.length === 1) return parts[0]
   let n = 0
   for (const a of parts) n += a.length

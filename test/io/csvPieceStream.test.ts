@@ -11,12 +11,11 @@ import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/
 import type { CsvFile } from '../../src/io/index.ts'
 import { streamCounts, streamSizes } from '../../src/io/csvPieceStream.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
-import type { Model } from '../../src/model/model.ts'
-import { InputError } from '../../src/model/errors.ts'
+import { BAD_ROWS, editLine, refusal } from './badRows.ts'
 import { startCsvLanes } from '../../src/cli/csvLanes.ts'
 import type { CsvLanes } from '../../src/cli/csvLanes.ts'
-import { expectSameModel, sameNumbers } from './sameModel.ts'
-import { boxModel, mixedModel } from './testModels.ts'
+import { expectSameRead } from './sameModel.ts'
+import { boxModel, elementNodalTwin, mixedModel } from './testModels.ts'
 
 const SEED = 20261204
 console.log(`csvPieceStream tests: seed ${SEED}`)
@@ -36,34 +35,16 @@ afterAll(async () => {
   await two.close()
 })
 
-/** Each row's values bit for bit, beyond expectSameModel: the element-nodal field and the warnings. */
-async function expectSameRead(files: CsvFile[], way: 'read' | 'stopped' = 'read'): Promise<void> {
+/** The read through the stream (or, with `way` "stopped", its fallback to one thread) is the one-thread read, with one and with two lanes. */
+async function expectSameStreamed(files: CsvFile[], way: 'read' | 'stopped' = 'read'): Promise<void> {
   const plain = readCsvBundle(files)
   for (const lanes of [one, two]) {
     expect(lanes.lanes.every((l) => l.stream)).toBe(true)
     const before = streamCounts[way]
     const split = await readCsvBundleInPieces(files, {}, lanes.lanes)
     expect(streamCounts[way], `the read ${way === 'read' ? 'went through the stream' : 'stopped and read on one thread'}`).toBe(before + 1)
-    expectSameModel(plain, split)
-    expect(split.warnings).toEqual(plain.warnings)
-    expect(split.intake).toEqual(plain.intake)
-    if (plain.stressField) {
-      expect(sameNumbers(plain.stressField.values, split.stressField!.values)).toBe(true)
-      expect(split.stressField!.rows.map((r) => Array.from(r))).toEqual(plain.stressField.rows.map((r) => Array.from(r)))
-    }
+    expectSameRead(plain, split)
   }
-}
-
-/** The model with one row per element and node instead of per node. */
-function elementNodal(nodal: Model): Model {
-  let offset = 0
-  const rows = nodal.mesh.blocks.map((b) => {
-    const r = Int32Array.from({ length: b.conn.length }, (_, i) => offset + i)
-    offset += b.conn.length
-    return r
-  })
-  const values = Float64Array.from({ length: 6 * offset }, (_, i) => Math.sin(i * 0.37) * 1e3 + i / 7)
-  return { ...nodal, stressField: { values, rows, layout: 'element-nodal' } }
 }
 
 const box = { nx: 3, ny: 3, nz: 2, lx: 2, ly: 1, lz: 1 }
@@ -71,15 +52,15 @@ const box = { nx: 3, ny: 3, nz: 2, lx: 2, ly: 1, lz: 1 }
 describe('streamed pieces give the one-thread model', () => {
   it.each(ELEMENT_TYPE_NAMES.map((t) => [t]))('%s, nodal and element-nodal stress', async (type) => {
     const nodal = boxModel(type, box, true)
-    await expectSameRead(writeCsvBundle(nodal))
-    await expectSameRead(writeCsvBundle(elementNodal(nodal)))
+    await expectSameStreamed(writeCsvBundle(nodal))
+    await expectSameStreamed(writeCsvBundle(elementNodalTwin(nodal)))
   }, 30_000)
 
   it('several types in one element file (rows of other types than the first kept apart and joined in order)', async () => {
     const mixed = mixedModel(['hex8', 'tet10', 'tet4', 'wedge6'], 1000, true, box)
-    await expectSameRead(writeCsvBundle(mixed))
+    await expectSameStreamed(writeCsvBundle(mixed))
     // The types interleaved row by row.
-    await expectSameRead(writeCsvBundle(mixed).map((f) => {
+    await expectSameStreamed(writeCsvBundle(mixed).map((f) => {
       if (f.name !== 'elements.csv') return f
       const [head, ...rows] = f.text.trimEnd().split('\n')
       const a = rows.filter((_, i) => i % 2 === 0), b = rows.filter((_, i) => i % 2 === 1).reverse()
@@ -100,48 +81,32 @@ describe('streamed pieces give the one-thread model', () => {
       })
       return { name: f.name, text: lines.join('\r\n') + '\r\n' }
     })
-    await expectSameRead(files)
+    await expectSameStreamed(files)
   }, 30_000)
 
   it('lone CR line ends, and a text without a final line end', async () => {
     const files = writeCsvBundle(boxModel('tet4', box, true)).map((f) => (f.name.endsWith('.csv') ? { name: f.name, text: f.text.trimEnd().replace(/\n/g, '\r') } : f))
-    await expectSameRead(files)
+    await expectSameStreamed(files)
   }, 30_000)
 
   it('a record longer than a slot: read on one thread instead, the same model', async () => {
     const files = writeCsvBundle(boxModel('hex8', box, true)).map((f) => (f.name === 'stress.csv' ? { name: f.name, text: f.text.replace(/\n(\d+),/, `\n$1${' '.repeat(600)},`) } : f))
-    await expectSameRead(files, 'stopped')
+    await expectSameStreamed(files, 'stopped')
   }, 30_000)
 })
 
-/** The message of a refusal, or fails. */
-async function refusal(read: () => Promise<unknown> | unknown): Promise<InputError> {
-  try { await read() } catch (e) { if (e instanceof InputError) return e; throw e }
-  throw new Error('expected a refusal')
-}
-
 describe('messages name the line a one-thread read names', () => {
   const base = writeCsvBundle(mixedModel(['hex8', 'tet10'], 1000, true, box))
-  /** Line n (1-based) of file `name` replaced by `f(line)`. */
-  const edit = (files: CsvFile[], name: string, n: number, f: (line: string) => string): CsvFile[] => files.map((file) => {
-    if (file.name !== name) return file
-    const lines = file.text.split('\n')
-    lines[n - 1] = f(lines[n - 1])
-    return { name: file.name, text: lines.join('\n') }
-  })
   const lineCount = (name: string) => base.find((f) => f.name === name)!.text.trimEnd().split('\n').length
   // Comment lines early in each file: the lanes' pieces hold lines that are no rows.
   const commented = base.map((f) => (f.name.endsWith('.csv') ? { name: f.name, text: f.text.replace(/\n/, '\n# comment\n\n') } : f))
 
   it.each([
-    ['stress.csv', 'a number that is not one', (l: string) => l.replace(/,([^,]*)$/, ',1.2.3')],
-    ['nodes.csv', 'a missing field', (l: string) => l.replace(/,[^,]*$/, '')],
-    ['elements.csv', 'an unknown element type', (l: string) => l.replace(/^(\d+),\w+/, '$1,brick27')],
-    ['elements.csv', 'a node that is not in nodes.csv (found after the pieces are joined)', (l: string) => l.replace(/,\d+$/, ',999999')],
+    ...BAD_ROWS,
     ['displacement.csv', 'a quote left open (a line break inside quotes)', (l: string) => l.replace(/,([^,]*)$/, ',"1.5\n2"')],
   ])('%s: %s, early (a lane\'s piece) and late (this thread\'s)', async (name, _, change) => {
     for (const at of [5, lineCount(name) - 2]) {
-      const files = edit(commented, name, at + 2, change)
+      const files = editLine(commented, name, at + 2, change)
       const plain = await refusal(() => readCsvBundle(files))
       expect(plain.where.file).toBe(name)
       for (const lanes of [one, two]) {
@@ -158,7 +123,7 @@ describe('messages name the line a one-thread read names', () => {
   it('a node id twice, once in each piece: the message names both lines', async () => {
     const n = lineCount('nodes.csv')
     const second = base.find((f) => f.name === 'nodes.csv')!.text.split('\n')[n - 2].split(',')[0]
-    const files = edit(commented, 'nodes.csv', 5, (l) => l.replace(/^\d+/, second))
+    const files = editLine(commented, 'nodes.csv', 5, (l) => l.replace(/^\d+/, second))
     const plain = await refusal(() => readCsvBundle(files))
     expect(plain.kind).toBe('duplicate-id')
     const split = await refusal(() => readCsvBundleInPieces(files, {}, two.lanes))
