@@ -86,6 +86,21 @@ export type StreamResult = { readonly stopped: true } | { readonly stopped: fals
 /** A helper thread that reads the chunks of its ring as they come (it blocks: a worker thread). */
 export type StreamLane = (setup: StreamSetup) => Promise<StreamResult>
 
+/**
+ * True when this thread may block on Atomics.wait, as the streamed read does while a lane's ring
+ * is full: worker threads and Node's main thread, not a page's main thread. The check comes before
+ * the value is compared, so the probe never waits.
+ */
+export function canBlock(): boolean {
+  if (typeof SharedArrayBuffer === 'undefined' || typeof Atomics === 'undefined') return false
+  try {
+    Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 1, 0)
+    return true
+  } catch {
+    return false
+  }
+}
+
 /** The buffers of a lane's answer that are its own (rows of other element types), to move back by transfer. */
 export function streamBuffers(r: StreamResult): ArrayBuffer[] {
   if (r.stopped) return []

@@ -25,7 +25,7 @@ import type { NumericPieceSetup, NumericRows, NumericTable, NumericTableSpec } f
 import { finishElementTable, openElementTable, readElementPiece } from './readElementTable.ts'
 import type { ElementPieceSetup, ElementTable, ElementTableSpec, RawElementBlock } from './readElementTable.ts'
 import { splitAtRecords } from './recordSplit.ts'
-import { readTablesStreamed } from './csvPieceStream.ts'
+import { canBlock, readTablesStreamed } from './csvPieceStream.ts'
 import type { StreamLane } from './csvPieceStream.ts'
 
 /**
@@ -99,7 +99,7 @@ export type TableOutcome =
  * its input error. null when a lane failed (the caller then reads on one thread).
  */
 export async function readTablesInPieces<F extends { readonly name: string; readonly text: string }>(requests: readonly (TableRequest & { readonly file: F })[], lanes: readonly PieceLane[]): Promise<Map<F, TableOutcome> | null> {
-  if (lanes.length && typeof SharedArrayBuffer !== 'undefined' && lanes.every((l) => l.stream)) return readTablesStreamed(requests, lanes.map((l) => l.stream!))
+  if (lanes.length && lanes.every((l) => l.stream) && canBlock()) return readTablesStreamed(requests, lanes.map((l) => l.stream!))
   const P = lanes.length + 1
   interface Opened { readonly request: TableRequest & { readonly file: F }; readonly open: ReturnType<typeof openNumericTable> | ReturnType<typeof openElementTable> | null; readonly error: InputError | null; readonly pieces: number }
   const opened: Opened[] = []

@@ -9,7 +9,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
 import type { CsvFile } from '../../src/io/index.ts'
-import { streamCounts, streamSizes } from '../../src/io/csvPieceStream.ts'
+import { canBlock, streamCounts, streamSizes } from '../../src/io/csvPieceStream.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import { BAD_ROWS, editLine, refusal } from './badRows.ts'
 import { startCsvLanes } from '../../src/cli/csvLanes.ts'
@@ -130,4 +130,10 @@ describe('messages name the line a one-thread read names', () => {
     expect(split.message).toBe(plain.message)
     expect(split.where).toEqual(plain.where)
   }, 30_000)
+})
+
+describe('the way taken', () => {
+  it('a thread that may block (here, a test worker) streams', () => {
+    expect(canBlock()).toBe(true)
+  })
 })
