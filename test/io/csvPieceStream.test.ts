@@ -120,6 +120,14 @@ describe('messages name the line a one-thread read names', () => {
     }
   }, 30_000)
 
+  it.each([['nodes.csv'], ['elements.csv'], ['stress.csv']])('%s with a header and no rows', async (name) => {
+    const files = commented.map((f) => (f.name === name ? { name, text: f.text.slice(0, f.text.indexOf('\n') + 1) } : f))
+    const plain = await refusal(() => readCsvBundle(files))
+    const split = await refusal(() => readCsvBundleInPieces(files, {}, two.lanes))
+    expect(split.message).toBe(plain.message)
+    expect(split.where).toEqual(plain.where)
+  }, 30_000)
+
   it('a node id twice, once in each piece: the message names both lines', async () => {
     const n = lineCount('nodes.csv')
     const second = base.find((f) => f.name === 'nodes.csv')!.text.split('\n')[n - 2].split(',')[0]
