@@ -115,6 +115,7 @@ function spawnPoolWorker(): PoolEndpoint {
     spread: (indicator, count) => Promise.race([remote.spread(indicator, count), failure]),
     csvPieces: (jobs) => Promise.race([remote.csvPieces(Comlink.transfer(jobs, jobBuffers(jobs))), failure]),
     chunks: (mesh) => Promise.race([remote.chunks(mesh), failure]),
+    csvStream: (setup) => Promise.race([remote.csvStream(setup), failure]),
     terminate: () => { remote[Comlink.releaseProxy](); w.terminate() },
   }
 }

@@ -28,6 +28,7 @@ import { indicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { BalanceOut, BalancePart } from './kernelPoolTask.ts'
 import type { PieceJob, PieceLane, PieceOutcome } from '../src/io/csvPieces.ts'
+import type { StreamLane, StreamResult, StreamSetup } from '../src/io/csvPieceStream.ts'
 
 export type Sharing = 'shared' | 'copy'
 
@@ -43,6 +44,8 @@ export interface PoolEndpoint {
   csvPieces?(jobs: readonly PieceJob[]): Promise<readonly PieceOutcome[]>
   /** The element chunks of a mesh in shared memory (src/mechanics/elementChunks.ts); the chunks' arrays move by transfer. */
   chunks?(mesh: Mesh): Promise<ElementChunks>
+  /** Reads pieces of CSV tables streamed to it through shared memory (src/io/csvPieceStream.ts); blocks the worker while it reads. */
+  csvStream?(setup: StreamSetup): Promise<StreamResult>
   terminate(): void
 }
 
@@ -141,18 +144,32 @@ export class KernelPool {
 
   /**
    * One lane per pool worker for reading a CSV bundle in pieces (readCsvBundleInPieces); none
-   * when the pool stood down. A worker that fails there makes the pool stand down, and the read
-   * runs on one thread.
+   * when the pool stood down. With shared memory the lanes take the pieces streamed
+   * (csvPieceStream.ts: no model-size copy). A worker that fails there makes the pool stand
+   * down, and the read runs on one thread.
    */
   csvLanes(): PieceLane[] {
     if (this.size < 1) return []
-    return this.endpoints.filter((ep) => ep.csvPieces).map((ep) => async (jobs) => {
-      try {
-        return await ep.csvPieces!(jobs)
-      } catch (e) {
-        this.standDown(`a pool worker failed reading CSV (${e instanceof Error ? e.message : String(e)})`)
-        throw e
+    const failed = (e: unknown) => this.standDown(`a pool worker failed reading CSV (${e instanceof Error ? e.message : String(e)})`)
+    return this.endpoints.filter((ep) => ep.csvPieces).map((ep) => {
+      const lane = async (jobs: readonly PieceJob[]) => {
+        try {
+          return await ep.csvPieces!(jobs)
+        } catch (e) {
+          failed(e)
+          throw e
+        }
       }
+      if (this.sharing !== 'shared' || !ep.csvStream) return lane
+      const stream: StreamLane = async (setup) => {
+        try {
+          return await ep.csvStream!(setup)
+        } catch (e) {
+          failed(e)
+          throw e
+        }
+      }
+      return Object.assign(lane, { stream })
     })
   }
 

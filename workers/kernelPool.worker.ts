@@ -15,6 +15,8 @@ import type { ElementChunks } from '../src/mechanics/elementChunks.ts'
 import type { Mesh } from '../src/model/model.ts'
 import type { IndicatorSpread } from '../src/mechanics/balanceVerdict.ts'
 import type { PieceJob, PieceOutcome } from '../src/io/csvPieces.ts'
+import { readStreamedPieces, streamBuffers } from '../src/io/csvPieceStream.ts'
+import type { StreamResult, StreamSetup } from '../src/io/csvPieceStream.ts'
 
 const buffersOf = (r: object): ArrayBuffer[] => Object.values(r).map((a: Float64Array | Float32Array) => a.buffer as ArrayBuffer)
 
@@ -38,6 +40,10 @@ const api = {
   csvPieces(jobs: readonly PieceJob[]): PieceOutcome[] {
     const out = jobs.map(readPiece)
     return Comlink.transfer(out, out.flatMap(pieceBuffers))
+  },
+  csvStream(setup: StreamSetup): StreamResult {
+    const r = readStreamedPieces(setup)
+    return Comlink.transfer(r, streamBuffers(r))
   },
 }
 

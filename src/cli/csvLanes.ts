@@ -8,6 +8,7 @@ import os from 'node:os'
 import { Worker } from 'node:worker_threads'
 import { jobBuffers } from '../io/csvPieces.ts'
 import type { PieceJob, PieceLane, PieceOutcome } from '../io/csvPieces.ts'
+import type { StreamLane, StreamResult, StreamSetup } from '../io/csvPieceStream.ts'
 
 /** Bundles below this many characters are read on one thread: starting a worker costs more. */
 export const PIECES_MIN_CHARS = 16 * 2 ** 20
@@ -33,26 +34,30 @@ export function startCsvLanes(count = Math.min(3, Math.max(0, availableCores() -
     let dead: Error | null = null
     let up: (ok: boolean) => void = () => undefined
     ready.push(new Promise<boolean>((r) => { up = r }))
-    const waiting = new Map<number, { resolve: (o: readonly PieceOutcome[]) => void; reject: (e: Error) => void }>()
     const failAll = (e: Error) => { dead = dead ?? e; up(false); for (const p of waiting.values()) p.reject(e); waiting.clear() }
-    w.on('message', (m: { id: number; ready?: boolean; out?: PieceOutcome[]; failure?: string }) => {
+    const waiting = new Map<number, { resolve: (o: never) => void; reject: (e: Error) => void }>()
+    w.on('message', (m: { id: number; ready?: boolean; out?: PieceOutcome[]; streamed?: StreamResult; failure?: string }) => {
       if (m.ready) { up(true); return }
       const p = waiting.get(m.id)
       if (!p) return
       waiting.delete(m.id)
-      if (m.out) p.resolve(m.out); else p.reject(new Error(m.failure ?? 'a CSV worker failed'))
+      const answer = m.out ?? m.streamed
+      if (answer) p.resolve(answer as never); else p.reject(new Error(m.failure ?? 'a CSV worker failed'))
       if (waiting.size === 0) w.unref()
     })
     w.on('error', (e) => failAll(e))
     w.on('exit', (code) => failAll(new Error(`a CSV worker stopped (exit ${code})`)))
-    lanes.push((jobs: readonly PieceJob[]) => new Promise((resolve, reject) => {
+    const call = <T>(message: { jobs: readonly PieceJob[] } | { stream: StreamSetup }, transfer: ArrayBuffer[]) => new Promise<T>((resolve, reject) => {
       if (dead) { reject(dead); return }
       const id = nextId++
-      waiting.set(id, { resolve, reject })
+      waiting.set(id, { resolve: resolve as (o: never) => void, reject })
       // Held while it works, so the process waits for the answer.
       w.ref()
-      w.postMessage({ id, jobs }, jobBuffers(jobs))
-    }))
+      w.postMessage({ id, ...message }, transfer)
+    })
+    // The ring and the shared arrays are shared by the message itself (nothing to transfer).
+    const stream: StreamLane = (setup) => call<StreamResult>({ stream: setup }, [])
+    lanes.push(Object.assign((jobs: readonly PieceJob[]) => call<readonly PieceOutcome[]>({ jobs }, jobBuffers(jobs)), { stream }))
   }
   return {
     lanes,

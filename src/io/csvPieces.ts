@@ -25,6 +25,8 @@ import type { NumericPieceSetup, NumericRows, NumericTable, NumericTableSpec } f
 import { finishElementTable, openElementTable, readElementPiece } from './readElementTable.ts'
 import type { ElementPieceSetup, ElementTable, ElementTableSpec, RawElementBlock } from './readElementTable.ts'
 import { splitAtRecords } from './recordSplit.ts'
+import { canBlock, readTablesStreamed } from './csvPieceStream.ts'
+import type { StreamLane } from './csvPieceStream.ts'
 
 /**
  * One piece to read: text[start, end) (whole lines), the line it starts on and its table's setup.
@@ -48,8 +50,12 @@ export type PieceOutcome =
   | { readonly ok: true; readonly rows?: NumericRows; readonly blocks?: RawElementBlock[] }
   | { readonly ok: false; readonly error: PieceError }
 
-/** A helper thread: reads the jobs it is given, in order. Rejects when the thread fails. */
-export type PieceLane = (jobs: readonly PieceJob[]) => Promise<readonly PieceOutcome[]>
+/**
+ * A helper thread: reads the jobs it is given, in order. Rejects when the thread fails. `stream`,
+ * where the thread may block and share memory, reads its pieces as they are streamed to it
+ * (csvPieceStream.ts), the way taken when every lane has it.
+ */
+export type PieceLane = ((jobs: readonly PieceJob[]) => Promise<readonly PieceOutcome[]>) & { readonly stream?: StreamLane }
 
 /** Reads one piece (what a lane's thread runs). Input errors come back as values; anything else is thrown. */
 export function readPiece(job: PieceJob): PieceOutcome {
@@ -93,6 +99,7 @@ export type TableOutcome =
  * its input error. null when a lane failed (the caller then reads on one thread).
  */
 export async function readTablesInPieces<F extends { readonly name: string; readonly text: string }>(requests: readonly (TableRequest & { readonly file: F })[], lanes: readonly PieceLane[]): Promise<Map<F, TableOutcome> | null> {
+  if (lanes.length && lanes.every((l) => l.stream) && canBlock()) return readTablesStreamed(requests, lanes.map((l) => l.stream!))
   const P = lanes.length + 1
   interface Opened { readonly request: TableRequest & { readonly file: F }; readonly open: ReturnType<typeof openNumericTable> | ReturnType<typeof openElementTable> | null; readonly error: InputError | null; readonly pieces: number }
   const opened: Opened[] = []

@@ -269,25 +269,27 @@ const SLOT_ID2 = -2
 
 /**
  * The rows of a numeric table: per row the id (slot 0) and the values (slots 1..nv) of the
- * columns `slotOf` maps, columns of slot -1 skipped. Only the hot loop, apart from the table's
+ * columns `slotOf` maps, columns of slot -1 skipped; from the cursor up to `limit`. Only the hot loop, apart from the table's
  * set-up, so that code the loop never reaches cannot discard its optimised form.
  */
-function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: number, names: readonly string[], twoIds: boolean, limit: number): NumericRows {
+export function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, nv: number, names: readonly string[], twoIds: boolean, limit: number, into?: NumericRows): NumericRows {
   // The field readers once into locals: under a CommonJS transform (tsx) every use of an imported
   // name is a getter call that the optimiser does not inline, once per field otherwise.
   const next = nextRecord, sep = takeSeparator, num = readNumber, id = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
   const OK = PARSE_OK
-  let cap = Math.max(16, estimateRecordCount(cur.text, cur.pos, limit))
-  let ids: Int32Array = new Int32Array(cap)
-  let values: Float64Array = new Float64Array(cap * nv)
-  let lines: Int32Array = new Int32Array(cap)
-  let ids2: Int32Array = new Int32Array(twoIds ? cap : 0)
+  // `into`: arrays to fill from their start (a piece's share of a table's shared arrays); they are
+  // replaced by grown copies only when the rows outrun them, which the caller sees by identity.
+  let cap = into ? into.ids.length : Math.max(16, estimateRecordCount(cur.text, cur.pos, limit))
+  let ids: Int32Array = into ? into.ids : new Int32Array(cap)
+  let values: Float64Array = into ? into.values : new Float64Array(cap * nv)
+  let lines: Int32Array = into ? into.lines : new Int32Array(cap)
+  let ids2: Int32Array = into?.ids2 ? into.ids2 : new Int32Array(twoIds ? cap : 0)
   let rows = 0
   // A piece ends at `limit`, just after a line end: a record found there belongs to the next piece.
   while (next(cur) && cur.pos < limit) {
     if (rows === cap) {
       // Only when line ends are unusual (lone CRs mixed with LFs): grow by doubling.
-      cap *= 2
+      cap = Math.max(16, cap * 2)
       ids = growInt(ids, cap); lines = growInt(lines, cap)
       if (twoIds) ids2 = growInt(ids2, cap)
       const v = new Float64Array(cap * nv); v.set(values); values = v

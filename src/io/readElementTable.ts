@@ -53,7 +53,7 @@ export interface ElementTable {
   readonly info: TableInfo
 }
 
-interface Growing {
+export interface Growing {
   nodeIds: Int32Array
   ids: Int32Array
   part: Int32Array
@@ -146,7 +146,8 @@ export function finishElementTable(t: OpenElementTable, pieces: readonly (readon
   return { blocks, info: t.info }
 }
 
-function concatInt(parts: readonly Int32Array[]): Int32Array {
+/** The arrays one after another (the one array itself when there is one). */
+export function concatInt(parts: readonly Int32Array[]): Int32Array {
   if (parts.length === 1) return parts[0]
   let n = 0
   for (const a of parts) n += a.length
@@ -160,7 +161,7 @@ function concatInt(parts: readonly Int32Array[]): Int32Array {
  * The rows of the element file into `grown`, one block per type. Only the row loop, apart from
  * the table's set-up, so that code the loop never reaches cannot discard its optimised form.
  */
-function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks, limit: number): void {
+export function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader, lookup: TypeLookup, spec: ElementTableSpec, grown: Blocks, limit: number): void {
   const slotOf = cols.slotOf
   // Imported readers once into locals (see readNumericTable: getters under a CommonJS transform).
   const next = nextRecord, sep = takeSeparator, id_ = readId, skip = skipField, lineEnd = atLineEnd, finish = finishLine
@@ -284,7 +285,7 @@ function readElementRows(cur: CsvCursor, cols: ElementColumns, header: CsvHeader
 }
 
 /** The element blocks being read: per type index the growing arrays, the order of first appearance. */
-interface Blocks {
+export interface Blocks {
   readonly byType: (Growing | undefined)[]
   readonly order: number[]
   /** Room for the next new type: the first gets room for every line, others start small and double. */
@@ -368,7 +369,7 @@ function readOtherField(cur: CsvCursor, slot: number, j: number, labels: readonl
 }
 
 /** Reorders each element's nodes: new local k = the user's node column perm[k]. */
-function permuteNodes(nodeIds: Int32Array, perm: Int32Array): void {
+export function permuteNodes(nodeIds: Int32Array, perm: Int32Array): void {
   const nn = perm.length
   const row = new Int32Array(nn)
   for (let base = 0; base < nodeIds.length; base += nn) {
@@ -469,18 +470,18 @@ const CH_LF = 10, CH_CR = 13, CH_0 = 48, CH_9 = 57
 const MAX_ID = 2147483647
 
 /** Type names and node counts by index, module constants (no getter per row, see readNumericTable). */
-const TYPE_NAMES: readonly ElementTypeName[] = [...ELEMENT_TYPE_NAMES]
-const NODE_COUNTS: readonly number[] = TYPE_NAMES.map((t) => elementType(t).nodeCount)
+export const TYPE_NAMES: readonly ElementTypeName[] = [...ELEMENT_TYPE_NAMES]
+export const NODE_COUNTS: readonly number[] = TYPE_NAMES.map((t) => elementType(t).nodeCount)
 /** The most nodes of any type. */
 const MAX_NODES = Math.max(...NODE_COUNTS)
 
 /** The user's type names (model.json "types"), lower-case, with the index of our type. */
-interface TypeLookup {
+export interface TypeLookup {
   readonly names: readonly string[]
   readonly index: readonly number[]
 }
 
-function typeLookup(user: ReadonlyMap<string, ElementTypeName>): TypeLookup {
+export function typeLookup(user: ReadonlyMap<string, ElementTypeName>): TypeLookup {
   const names: string[] = [], index: number[] = []
   for (const [n, t] of user) { names.push(n); index.push(TYPE_NAMES.indexOf(t)) }
   return { names, index }

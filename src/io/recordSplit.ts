@@ -35,14 +35,33 @@ export interface TextPiece {
  * the text is short or a quoted stretch swallows a cut.
  */
 export function splitAtRecords(text: string, from: number, fromLine: number, pieces: number): TextPiece[] {
+  const out: TextPiece[] = []
+  let start = from, line = fromLine
+  for (const cut of [...recordCuts(text, from, pieces), text.length]) {
+    if (cut <= start) continue
+    out.push({ start, end: cut, line })
+    line += lineEndsIn(text, start, cut)
+    start = cut
+  }
+  if (out.length === 0) out.push({ start: from, end: text.length, line: fromLine })
+  return out
+}
+
+/**
+ * The cut points of splitAtRecords (ascending, each inside (from, text.length)), without the line
+ * numbers; `lastShare` is the last piece's share of the characters (the others share the rest).
+ */
+export function recordCuts(text: string, from: number, pieces: number, lastShare = 1 / pieces): number[] {
   const len = text.length
-  const eol = text.indexOf('\n', from) >= 0 ? '\n' : '\r'
+  const eol = lineEndOf(text, from)
   const cuts: number[] = []
   // Quotes counted so far (all before `nextQuote`), for the parity at each aim.
   let quotes = 0
   let nextQuote = text.indexOf('"', from)
+  // The pieces before the last share what the last leaves (all equal by default).
+  const before = (1 - lastShare) / (pieces - 1)
   for (let k = 1; k < pieces; k++) {
-    const aim = Math.max(from + Math.floor(((len - from) * k) / pieces), cuts.length ? cuts[cuts.length - 1] : from)
+    const aim = Math.max(from + Math.floor((len - from) * before * k), cuts.length ? cuts[cuts.length - 1] : from)
     // Parity up to the aim.
     while (nextQuote >= 0 && nextQuote < aim) { quotes++; nextQuote = text.indexOf('"', nextQuote + 1) }
     // Step to the first line end at or after the aim with an even count of quotes before it.
@@ -57,16 +76,34 @@ export function splitAtRecords(text: string, from: number, fromLine: number, pie
     if (cut < 0 || cut >= len) break
     if (cuts.length === 0 || cut > cuts[cuts.length - 1]) cuts.push(cut)
   }
-  const out: TextPiece[] = []
-  let start = from, line = fromLine
-  for (const cut of [...cuts, len]) {
-    if (cut <= start) continue
-    out.push({ start, end: cut, line })
-    line += lineEndsIn(text, start, cut)
-    start = cut
+  return cuts
+}
+
+/** The character that ends lines where a text may be cut: LF, or CR in a text without any LF. */
+export function lineEndOf(text: string, from = 0): '\n' | '\r' {
+  return text.indexOf('\n', from) >= 0 ? '\n' : '\r'
+}
+
+/**
+ * The last record boundary in (from, before]: just after a line end (`eol`) outside quotes, with
+ * text[from] the start of a record (even quote parity there); -1 when there is none. `quoteFree`
+ * says text[from, before) holds no quote: one lastIndexOf then; else a walk from quote to quote
+ * and line end to line end, as recordCuts steps.
+ */
+export function lastRecordEnd(text: string, from: number, before: number, eol: string, quoteFree: boolean): number {
+  if (quoteFree) {
+    const e = text.lastIndexOf(eol, before - 1)
+    return e >= from ? e + 1 : -1
   }
-  if (out.length === 0) out.push({ start: from, end: len, line: fromLine })
-  return out
+  let quotes = 0, best = -1
+  let nextQuote = text.indexOf('"', from)
+  for (let p = from; ;) {
+    const e = text.indexOf(eol, p)
+    if (e < 0 || e >= before) return best
+    while (nextQuote >= 0 && nextQuote < e) { quotes++; nextQuote = text.indexOf('"', nextQuote + 1) }
+    if ((quotes & 1) === 0) best = e + 1
+    p = e + 1
+  }
 }
 
 /** Line ends in text[a, b) as the cursor counts them: LF, CR LF and a lone CR each once. */
@@ -84,4 +121,33 @@ export function startsLine(text: string, at: number): boolean {
   if (at === 0) return true
   const c = text.charCodeAt(at - 1)
   return c === CH_LF || (c === CH_CR && text.charCodeAt(at) !== CH_LF)
+}
+
+/**
+ * Counts line ends as the cursor does (LF, CR LF and a lone CR each once) over consecutive ranges
+ * of one text, with native scans: LFs by indexOf, and lone CRs by indexOf only where the text has
+ * a CR at all (the next CR is remembered, so a text with few CRs is not scanned again and again).
+ */
+export class LineEndCounter {
+  private nextLf: number
+  private nextCr: number
+  constructor(private readonly text: string, from: number) {
+    this.nextLf = text.indexOf('\n', from)
+    this.nextCr = text.indexOf('\r', from)
+  }
+
+  /** Line ends in text[a, b); ranges come in order, each starting at or after the last one's end. */
+  count(a: number, b: number): number {
+    const text = this.text
+    let n = 0
+    if (this.nextLf >= 0 && this.nextLf < a) this.nextLf = text.indexOf('\n', a)
+    while (this.nextLf >= 0 && this.nextLf < b) { n++; this.nextLf = text.indexOf('\n', this.nextLf + 1) }
+    if (this.nextCr >= 0 && this.nextCr < a) this.nextCr = text.indexOf('\r', a)
+    while (this.nextCr >= 0 && this.nextCr < b) {
+      const p = this.nextCr
+      if (p + 1 >= text.length || text.charCodeAt(p + 1) !== CH_LF) n++
+      this.nextCr = text.indexOf('\r', p + 1)
+    }
+    return n
+  }
 }

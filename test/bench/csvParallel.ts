@@ -1,11 +1,19 @@
 /**
- * The CSV read in pieces on worker threads (src/io/csvPieces.ts through src/cli/csvLanes.ts, as
- * the command line reads a large bundle) against the one-thread read of the same texts, runs
- * interleaved so both see the same load; wall times (the point is the second core) with the
- * load average beside them. The workers are started once and reused; their start-up is reported
- * apart (`startMs`). Checks (the same model bit for bit) run outside the timed runs.
- * Run alone: npx tsx test/bench/csvParallel.ts [elements=1000000] [type=tet4]
+ * The CSV read in pieces on worker threads (src/io/csvPieces.ts, streamed by csvPieceStream.ts
+ * through src/cli/csvLanes.ts, as the command line reads a large bundle) against the one-thread
+ * read of the same texts, runs interleaved so both see the same load; wall times (the point is
+ * the second core) with the load average beside them. The workers are started once and reused;
+ * their start-up is reported apart (`startMs`). Checks (the same model bit for bit) run outside
+ * the timed runs.
+ *
+ * On a busy machine the wall time says little, so the CPU time of each thread is measured too
+ * (Linux: /proc/thread-self/stat for this thread, the process's CPU time less that for the
+ * workers): `vsOneThreadCpu` is the one-thread read's CPU time over that of the busier side, the
+ * speed-up two free cores would give if neither side waited for the other (the read waits only
+ * at its end, for the slower side).
+ * Run alone: npx tsx test/bench/csvParallel.ts [elements=1000000] [type=tet4] [runs=3]
  */
+import { readFileSync } from 'node:fs'
 import os from 'node:os'
 import { fileURLToPath } from 'node:url'
 import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
@@ -30,6 +38,28 @@ export interface ParallelCsvFigure {
   loadAverage: [number, number]
   /** Same model as the one-thread read (coordinates, connectivity, stress, ids). */
   same: boolean
+  /** Medians of the CPU time (ms) of the one-thread read, and of the read in pieces on this thread and on the workers (null where the thread's time cannot be read). */
+  oneThreadCpuMs: number
+  mainCpuMs: number | null
+  lanesCpuMs: number | null
+  /** One-thread CPU time over the busier side's (median over the runs), or null. */
+  vsOneThreadCpu: number | null
+}
+
+/** CPU time of the calling thread (ms), from /proc/thread-self/stat (Linux, 10 ms ticks), or null. */
+function threadCpuMs(): number | null {
+  try {
+    const f = readFileSync('/proc/thread-self/stat', 'utf8').split(') ')[1].split(' ')
+    // Fields 14 and 15 of stat (utime, stime) in clock ticks of 10 ms.
+    return (Number(f[11]) + Number(f[12])) * 10
+  } catch {
+    return null
+  }
+}
+
+function processCpuMs(): number {
+  const c = process.cpuUsage()
+  return (c.user + c.system) / 1e3
 }
 
 function sameModel(a: ReadModel, b: ReadModel): boolean {
@@ -53,19 +83,28 @@ export async function benchCsvParallel(model: Model, lanes: CsvLanes, runs = 3):
   // Warm-up of both paths (the workers' code too), and the check.
   const one0 = readCsvBundle(files)
   const same = sameModel(one0, await readCsvBundleInPieces(files, {}, lanes.lanes))
-  const oneMs: number[] = [], piecesMs: number[] = []
+  const oneMs: number[] = [], piecesMs: number[] = [], oneCpu: number[] = [], mainCpu: number[] = [], lanesCpu: number[] = [], ratioCpu: number[] = []
   for (let r = 0; r < runs; r++) {
-    let t = performance.now()
+    let t = performance.now(), c = processCpuMs()
     readCsvBundle(files)
     oneMs.push(performance.now() - t)
-    t = performance.now()
+    oneCpu.push(processCpuMs() - c)
+    const m = threadCpuMs()
+    t = performance.now(); c = processCpuMs()
     await readCsvBundleInPieces(files, {}, lanes.lanes)
     piecesMs.push(performance.now() - t)
+    const all = processCpuMs() - c, main = m === null ? null : threadCpuMs()! - m
+    if (main !== null) {
+      mainCpu.push(main); lanesCpu.push(all - main)
+      ratioCpu.push(oneCpu[r] / Math.max(main, all - main))
+    }
   }
   const medianMs = median(piecesMs), oneThreadMs = median(oneMs)
   return {
     medianMs, mbPerS: bytes / 1e3 / medianMs, vsOneThread: oneThreadMs / medianMs, oneThreadMs, threads: lanes.lanes.length + 1, runs,
     loadAverage: [load0, os.loadavg()[0]], same,
+    oneThreadCpuMs: median(oneCpu), mainCpuMs: mainCpu.length ? median(mainCpu) : null, lanesCpuMs: lanesCpu.length ? median(lanesCpu) : null,
+    vsOneThreadCpu: ratioCpu.length ? median(ratioCpu) : null,
   }
 }
 
@@ -73,7 +112,7 @@ if (process.argv[1] === fileURLToPath(import.meta.url)) {
   const elements = Number(process.argv[2] ?? 1e6)
   const type = (process.argv[3] ?? 'tet4') as 'tet4' | 'tet10' | 'hex8'
   const { lanes, startMs, up } = await startBenchLanes()
-  const fig = await benchCsvParallel(syntheticModel(type, elements, 20261201), lanes)
+  const fig = await benchCsvParallel(syntheticModel(type, elements, 20261201), lanes, Number(process.argv[4] ?? 3))
   await lanes.close()
   console.log(JSON.stringify({ bench: 'csvParallel', type, elements, startMs, up, ...fig }))
 }

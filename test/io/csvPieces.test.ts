@@ -8,15 +8,14 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
-import type { CsvFile } from '../../src/io/index.ts'
 import { jobBuffers, readPiece } from '../../src/io/csvPieces.ts'
 import type { PieceLane } from '../../src/io/csvPieces.ts'
 import { lineEndsIn, splitAtRecords } from '../../src/io/recordSplit.ts'
 import { elementType } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
-import { InputError } from '../../src/model/errors.ts'
-import { expectSameModel, sameNumbers } from './sameModel.ts'
-import { mixedModel } from './testModels.ts'
+import { BAD_ROWS, editLine, refusal } from './badRows.ts'
+import { expectSameModel, expectSameRead } from './sameModel.ts'
+import { elementNodalTwin, mixedModel } from './testModels.ts'
 
 const SEED = 20261203
 console.log(`csvPieces property tests: fast-check seed ${SEED}`)
@@ -73,15 +72,7 @@ describe('the cut falls between records', () => {
 /** The cantilever boxes of several types (ids with gaps, parts) and their element-nodal twin. */
 function fixtures(): [string, Model][] {
   const nodal = mixedModel(['hex8', 'tet10', 'tet4', 'wedge6'], 1000, true, { nx: 4, ny: 3, nz: 3, lx: 2, ly: 1, lz: 1 })
-  let offset = 0
-  const rows = nodal.mesh.blocks.map((b) => {
-    const r = Int32Array.from({ length: b.conn.length }, (_, i) => offset + i)
-    offset += b.conn.length
-    return r
-  })
-  const values = Float64Array.from({ length: 6 * offset }, (_, i) => Math.sin(i * 0.37) * 1e3 + i / 7)
-  const elementNodal: Model = { ...nodal, stressField: { values, rows, layout: 'element-nodal' } }
-  return [['nodal', nodal], ['element-nodal', elementNodal]]
+  return [['nodal', nodal], ['element-nodal', elementNodalTwin(nodal)]]
 }
 
 describe('a bundle read in pieces is the one-thread model', () => {
@@ -90,13 +81,7 @@ describe('a bundle read in pieces is the one-thread model', () => {
     const one = readCsvBundle(files)
     for (const n of [1, 2, 3]) {
       const split = await readCsvBundleInPieces(files, {}, lanes(n))
-      expectSameModel(one, split)
-      expect(split.warnings).toEqual(one.warnings)
-      expect(split.intake).toEqual(one.intake)
-      if (one.stressField) {
-        expect(sameNumbers(one.stressField.values, split.stressField!.values)).toBe(true)
-        expect(split.stressField!.rows.map((r) => Array.from(r))).toEqual(one.stressField.rows.map((r) => Array.from(r)))
-      }
+      expectSameRead(one, split)
       for (const b of one.mesh.blocks) expect(elementType(b.type).nodeCount).toBeGreaterThan(0)
     }
   })
@@ -113,32 +98,16 @@ describe('a bundle read in pieces is the one-thread model', () => {
   })
 })
 
-/** The message of a refusal, or fails. */
-async function refusal(read: () => Promise<unknown> | unknown): Promise<InputError> {
-  try { await read() } catch (e) { if (e instanceof InputError) return e; throw e }
-  throw new Error('expected a refusal')
-}
-
 describe('messages from a later piece name the right line', () => {
   const base = writeCsvBundle(fixtures()[0][1])
-  /** Line n (1-based) of file `name` replaced by `f(line)`. */
-  const edit = (name: string, n: number, f: (line: string) => string): CsvFile[] => base.map((file) => {
-    if (file.name !== name) return file
-    const lines = file.text.split('\n')
-    lines[n - 1] = f(lines[n - 1])
-    return { name: file.name, text: lines.join('\n') }
-  })
   const lineCount = (name: string) => base.find((f) => f.name === name)!.text.trimEnd().split('\n').length
 
   it.each([
-    ['stress.csv', 'a number that is not one', (l: string) => l.replace(/,([^,]*)$/, ',1.2.3')],
-    ['nodes.csv', 'a missing field', (l: string) => l.replace(/,[^,]*$/, '')],
-    ['elements.csv', 'an unknown element type', (l: string) => l.replace(/^(\d+),\w+/, '$1,brick27')],
-    ['elements.csv', 'a node that is not in nodes.csv (found after the pieces are joined)', (l: string) => l.replace(/,\d+$/, ',999999')],
+    ...BAD_ROWS,
     ['displacement.csv', 'a quote left open', (l: string) => l.replace(/,([^,]*)$/, ',"1.5')],
   ])('%s: %s, near the end of the file', async (name, _, change) => {
     const at = lineCount(name) - 2
-    const files = edit(name, at, change)
+    const files = editLine(base, name, at, change)
     const one = await refusal(() => readCsvBundle(files))
     for (const n of [1, 2]) {
       const split = await refusal(() => readCsvBundleInPieces(files, {}, lanes(n)))
@@ -151,7 +120,7 @@ describe('messages from a later piece name the right line', () => {
   })
 
   it('the first error in file order wins, whichever piece meets it', async () => {
-    const twice = edit('stress.csv', 3, (l) => l.replace(/,[^,]*$/, ',x')).map((f) => (f.name === 'stress.csv'
+    const twice = editLine(base, 'stress.csv', 3, (l) => l.replace(/,[^,]*$/, ',x')).map((f) => (f.name === 'stress.csv'
       ? { ...f, text: f.text.replace(/\n([^\n]*)\n$/, '\n$1,extra\n') } : f))
     const one = await refusal(() => readCsvBundle(twice))
     const split = await refusal(() => readCsvBundleInPieces(twice, {}, lanes(2)))

@@ -4,6 +4,7 @@
  */
 import { expect } from 'vitest'
 import type { Model } from '../../src/model/model.ts'
+import type { ReadModel } from '../../src/io/index.ts'
 
 /** Same model: names, units, body force, every array element (Object.is, so -0 ≠ 0). */
 export function expectSameModel(a: Model, b: Model): void {
@@ -35,3 +36,14 @@ export function sameNumbers(a: Float64Array, b: Float64Array): boolean {
   return true
 }
 
+
+/** Same read: the same model, warnings and intake report, and the element-nodal field row for row. */
+export function expectSameRead(a: ReadModel, b: ReadModel): void {
+  expectSameModel(a, b)
+  expect(b.warnings).toEqual(a.warnings)
+  expect(b.intake).toEqual(a.intake)
+  if (a.stressField) {
+    expect(sameNumbers(a.stressField.values, b.stressField!.values)).toBe(true)
+    expect(b.stressField!.rows.map((r) => Array.from(r))).toEqual(a.stressField.rows.map((r) => Array.from(r)))
+  }
+}

@@ -77,3 +77,15 @@ export function mixedModel(types: readonly ElementTypeName[], idGap = 1000, with
   })
   return modelOf(createMesh(new Float64Array(coords), blocks, new Int32Array(nodeIds)), withDisplacement)
 }
+
+/** The model with one stress row per element and node (values made up, distinct) instead of one per node. */
+export function elementNodalTwin(nodal: Model): Model {
+  let offset = 0
+  const rows = nodal.mesh.blocks.map((b) => {
+    const r = Int32Array.from({ length: b.conn.length }, (_, i) => offset + i)
+    offset += b.conn.length
+    return r
+  })
+  const values = Float64Array.from({ length: 6 * offset }, (_, i) => Math.sin(i * 0.37) * 1e3 + i / 7)
+  return { ...nodal, stressField: { values, rows, layout: 'element-nodal' } }
+}
