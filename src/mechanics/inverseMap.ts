@@ -201,9 +201,18 @@ export function loadElementMap(em: ElementMap, domain: ReferenceDomain, coords: 
     return em
   }
   em.size = spanSize(x, domain)
+  if (domain.type === 'hex8') {
+    // The monomial form first: a non-linear coefficient far above the affine test's tolerance
+    // settles it without the fit (every node of an affine element lies within 1e-12 · size of
+    // the fitted map, and each c_4..c_7 is a mix of those deviations with weights of total 1, so
+    // |c_k| ≤ 1e-12 · size up to round-off); near-affine elements take the general test as before.
+    trilinearForm(em.poly, x, ref)
+    em.affine = !clearlyTrilinear(em.poly, em.size) && affineFit(em, domain)
+    em.trilinear = !em.affine
+    return em
+  }
   em.affine = affineFit(em, domain)
-  em.trilinear = !em.affine && domain.type === 'hex8'
-  if (em.trilinear) trilinearForm(em.poly, x, ref)
+  em.trilinear = false
   return em
 }
 
@@ -216,6 +225,13 @@ function spanSize(x: Float64Array, domain: ReferenceDomain): number {
     size = Math.max(size, Math.abs(x[s]), Math.abs(x[s + 1]), Math.abs(x[s + 2]))
   }
   return size
+}
+
+/** Whether a hex8's monomial coefficients c_4..c_7 (poly[12 ..]) hold a component above 1e-9 · size: then it is not affine (loadElementMap). */
+function clearlyTrilinear(poly: Float64Array, size: number): boolean {
+  const big = 1e-9 * size
+  for (let k = 12; k < 24; k++) if (Math.abs(poly[k]) > big) return true
+  return false
 }
 
 /** tet10 edges as (corner, corner, mid-edge node), 3 per edge (ELEMENT_TYPES.tet10.edges). */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  createElementMap, invertElementMap, invertTrilinearPoints, loadElementMap, NEWTON_ITERATIONS, pullInside, referenceDomain,
+  affineFit, createElementMap, invertElementMap, invertTrilinearPoints, loadElementMap, NEWTON_ITERATIONS, pullInside, referenceDomain,
 } from '../../../src/mechanics/inverseMap.ts'
 import { shapeValues } from '../../../src/mechanics/shapeFunctions.ts'
 import { shapeDegree } from '../../../src/mechanics/sectionRule.ts'
@@ -161,6 +161,38 @@ describe(`inverse element map (seed ${SEED})`, () => {
     expect(compared).toBeGreaterThan(500)
     expect(notMapped).toBeGreaterThan(0)
     expect(flatSeen).toBe(true)
+  })
+
+  // loadElementMap settles a hex8 with a large non-linear monomial coefficient without the affine
+  // fit: the decision must be the fit's, on parallelepipeds (rotated, far from the origin) with
+  // corner deviations from none through round-off and the fit's tolerance to plain distortion.
+  const affineSeed = SEED + 12
+  it(`hex8: the affine decision of loadElementMap = affineFit (seed ${affineSeed})`, () => {
+    console.log(`inverseMap hex8 affine decision: seed ${affineSeed}`)
+    const rnd = mulberry32(affineSeed)
+    const dom = referenceDomain('hex8')
+    const conn = Int32Array.from({ length: 8 }, (_, i) => i)
+    const seen = { affine: 0, not: 0 }
+    for (const dev of [0, 1e-16, 1e-14, 1e-13, 5e-13, 1e-12, 3e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-3, 0.2]) {
+      for (let e = 0; e < 12; e++) {
+        // a random parallelepiped: x = o + A ξ with a random (well-conditioned) A, then deviations
+        const A = Array.from({ length: 9 }, () => 2 * rnd() - 1)
+        for (let k = 0; k < 3; k++) A[4 * k] += 2
+        const o = [1e4 * (rnd() - 0.5), 1e4 * (rnd() - 0.5), 1e4 * (rnd() - 0.5)]
+        const x = new Float64Array(24)
+        for (let a = 0; a < 8; a++) {
+          const r = ELEMENT_TYPES.hex8.refCoords[a]
+          for (let c = 0; c < 3; c++) x[3 * a + c] = o[c] + A[3 * c] * r[0] + A[3 * c + 1] * r[1] + A[3 * c + 2] * r[2] + dev * 3 * (2 * rnd() - 1)
+        }
+        const em = loadElementMap(createElementMap(), dom, x, conn, 0)
+        const fit = affineFit(em, dom)
+        expect(em.affine).toBe(fit)
+        expect(em.trilinear).toBe(!fit)
+        if (fit) seen.affine++; else seen.not++
+      }
+    }
+    expect(seen.affine).toBeGreaterThan(20)
+    expect(seen.not).toBeGreaterThan(20)
   })
 
   it('a flattened (zero-volume) hex8 or a point far outside is counted as not mapped, never NaN', () => {
