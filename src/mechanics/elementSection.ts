@@ -123,7 +123,7 @@ export function polygonPoints(
     }
     i++
   }
-  if (hex) invertHex(em, X, ref, o, q)
+  if (hex) invertHex(em, X, ref, 3 * o, q - o)
   return q - o
 }
 
