@@ -5,15 +5,16 @@
  * corner: each cut of a sequence along one normal is compared, bit for bit, with the same cut of
  * a fresh copy of the mesh (new arrays, so its one cut takes the plain scan). Seeded random
  * distorted hex8 blocks, rotated and moved far from the origin (a wider snap band), cut at random
- * offsets and, on a block whose node layers are flat, exactly through a layer of nodes (the
- * distances there are snapped to 0, the case where the band matters).
+ * offsets; a hex20 block and a mixed box (the scan takes every type with eight corners); and, on
+ * a block whose node layers are flat, cuts exactly through a layer of nodes (the distances there
+ * are snapped to 0, the case where the band matters).
  */
 import { describe, expect, it } from 'vitest'
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import { createMesh } from '../../src/model/createMesh.ts'
 import type { Mesh, Vec3 } from '../../src/model/model.ts'
 import { mulberry32 } from '../../src/mechanics/seededRandom.ts'
-import { cutNodal, nodalStress, rotateModel, rotationFromQuaternion } from '../helpers/sectionMeshes.ts'
+import { anyBox, cutNodal, nodalStress, rotateModel, rotationFromQuaternion } from '../helpers/sectionMeshes.ts'
 
 const SEED = 20261203
 
@@ -68,6 +69,25 @@ describe(`repeated hex8 cuts along one normal = the plain scan (seed ${SEED})`, 
       }
     }
     expect(cuts).toBe(6 * 3 * 8)
+  })
+
+  it('hex20 and a mixed box (hex8 beside other types), rotated, along random normals', () => {
+    const rnd = mulberry32(SEED + 2)
+    for (const kind of ['hex20', 'mixed'] as const) {
+      const box = anyBox(kind, 4, 3, 3, 2, 1.5, 1)
+      const q = [rnd() - 0.5, rnd() - 0.5, rnd() - 0.5, rnd() - 0.5]
+      const { mesh } = rotateModel(box, new Float64Array(6 * box.nodeCount), rotationFromQuaternion(q[0], q[1], q[2], q[3]))
+      const stress = nodalStress(mesh, field)
+      for (let dir = 0; dir < 2; dir++) {
+        const normal: Vec3 = [2 * rnd() - 1, 2 * rnd() - 1, 2 * rnd() - 1]
+        const l = Math.hypot(...normal)
+        for (let k = 0; k < 3; k++) normal[k] /= l
+        for (let cut = 0; cut < 6; cut++) {
+          const p = 1.2 * (2 * rnd() - 1)
+          expectPlainScan(mesh, stress, [p * normal[0], p * normal[1], p * normal[2]], normal)
+        }
+      }
+    }
   })
 
   it('a block with flat node layers, cut through its layers and between them along one normal', () => {
