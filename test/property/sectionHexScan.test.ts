@@ -33,6 +33,18 @@ function expectPlainScan(mesh: Mesh, stress: Float64Array, point: Vec3, normal: 
   expect(fast.moment).toEqual(plain.moment)
 }
 
+/** A rigid turn of a box by a random rotation, its stress from `field`, and a random unit normal maker. */
+function turned(box: Mesh, rnd: () => number): { mesh: Mesh; stress: Float64Array; normal: () => Vec3 } {
+  const q = [rnd() - 0.5, rnd() - 0.5, rnd() - 0.5, rnd() - 0.5]
+  const { mesh } = rotateModel(box, new Float64Array(6 * box.nodeCount), rotationFromQuaternion(q[0], q[1], q[2], q[3]))
+  const normal = (): Vec3 => {
+    const v: Vec3 = [2 * rnd() - 1, 2 * rnd() - 1, 2 * rnd() - 1]
+    const l = Math.hypot(...v)
+    return [v[0] / l, v[1] / l, v[2] / l]
+  }
+  return { mesh, stress: nodalStress(mesh, field), normal }
+}
+
 /** A smooth, not polynomial stress field (invented for the test). */
 const field = (x: number, y: number, z: number): number[] => [
   1 + Math.sin(x) * Math.cos(2 * y), 0.5 * x * z, -0.3 + y * y, 0.2 * Math.cos(z), 0.1 * x, 0.4 * y * z,
@@ -51,16 +63,12 @@ describe(`repeated hex8 cuts along one normal = the plain scan (seed ${SEED})`, 
       for (let i = 0; i < x.length; i++) x[i] += (0.2 / n) * (2 * rnd() - 1)
       const shift = model % 2 === 0 ? 1e5 : 0
       for (let i = 0; i < x.length; i++) x[i] += shift
-      const q = [rnd() - 0.5, rnd() - 0.5, rnd() - 0.5, rnd() - 0.5]
-      const { mesh } = rotateModel(box, new Float64Array(6 * box.nodeCount), rotationFromQuaternion(q[0], q[1], q[2], q[3]))
-      const stress = nodalStress(mesh, field)
+      const { mesh, stress, normal: unit } = turned(box, rnd)
       // the block's centre, about which the planes pass
       const c = [0, 0, 0]
       for (let i = 0; i < mesh.nodeCount; i++) for (let k = 0; k < 3; k++) c[k] += mesh.coords[3 * i + k] / mesh.nodeCount
       for (let dir = 0; dir < 3; dir++) {
-        const normal: Vec3 = [2 * rnd() - 1, 2 * rnd() - 1, 2 * rnd() - 1]
-        const l = Math.hypot(...normal)
-        for (let k = 0; k < 3; k++) normal[k] /= l
+        const normal = unit()
         for (let cut = 0; cut < 8; cut++) {
           const s = 0.9 * (2 * rnd() - 1)
           expectPlainScan(mesh, stress, [c[0] + s * normal[0], c[1] + s * normal[1], c[2] + s * normal[2]], normal)
@@ -74,14 +82,9 @@ describe(`repeated hex8 cuts along one normal = the plain scan (seed ${SEED})`, 
   it('hex20 and a mixed box (hex8 beside other types), rotated, along random normals', () => {
     const rnd = mulberry32(SEED + 2)
     for (const kind of ['hex20', 'mixed'] as const) {
-      const box = anyBox(kind, 4, 3, 3, 2, 1.5, 1)
-      const q = [rnd() - 0.5, rnd() - 0.5, rnd() - 0.5, rnd() - 0.5]
-      const { mesh } = rotateModel(box, new Float64Array(6 * box.nodeCount), rotationFromQuaternion(q[0], q[1], q[2], q[3]))
-      const stress = nodalStress(mesh, field)
+      const { mesh, stress, normal: unit } = turned(anyBox(kind, 4, 3, 3, 2, 1.5, 1), rnd)
       for (let dir = 0; dir < 2; dir++) {
-        const normal: Vec3 = [2 * rnd() - 1, 2 * rnd() - 1, 2 * rnd() - 1]
-        const l = Math.hypot(...normal)
-        for (let k = 0; k < 3; k++) normal[k] /= l
+        const normal = unit()
         for (let cut = 0; cut < 6; cut++) {
           const p = 1.2 * (2 * rnd() - 1)
           expectPlainScan(mesh, stress, [p * normal[0], p * normal[1], p * normal[2]], normal)
