@@ -35,7 +35,7 @@ import { ELEMENT_TYPES } from '../model/elementTypes.ts'
 import type { Mesh } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
 import type { ElementMap } from './inverseMap.ts'
-import { invertElementMap, MAX_ELEMENT_NODES } from './inverseMap.ts'
+import { invertElementMap, invertTrilinearPoints, MAX_ELEMENT_NODES } from './inverseMap.ts'
 import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, ACC_SIZE, MAX_POLYGON_POINTS } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
@@ -45,7 +45,7 @@ import { trilinearMonomials } from './trilinearMonomials.ts'
 // The accumulator slots as module constants: an imported binding read in a per-element function
 // is a getter call under tsx's CommonJS transform (the command line, the benchmarks).
 const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS, SIZE = ACC_SIZE
-const monomials = trilinearMonomials
+const monomials = trilinearMonomials, invert = invertElementMap, invertHex = invertTrilinearPoints
 /** The hex8 traction's monomial coefficients T_0..T_7 of the element in hand (3 each). */
 const TRACTION_MONOMIALS = new Float64Array(24)
 
@@ -83,6 +83,9 @@ export function polygonPoints(
   const nq = rule.count, L0 = rule.l0, L1 = rule.l1, L2 = rule.l2, W = rule.w
   const affine = em.affine
   const ox = em.origin[0], oy = em.origin[1], oz = em.origin[2]
+  // a distorted hex8: the points' positions go to POINT_X and are inverted together at the end
+  // (invertTrilinearPoints: the same Newton, the map's coefficients read once)
+  const hex = em.trilinear, X = POINT_X
   // Degree 4: two fan triangles side by side make a quadrilateral, 9 points instead of 12.
   const quads = rule.degree === 4
   const k0 = order[0]
@@ -90,33 +93,42 @@ export function polygonPoints(
   let q = o
   for (let i = 1; i < n - 1;) {
     if (quads && i + 2 < n) {
-      q = quadPoints(ref, w, pa, pb, q, sc, k0, order[i], order[i + 1], order[i + 2], em)
+      q = quadPoints(ref, w, pa, pb, q, o, sc, k0, order[i], order[i + 1], order[i + 2], em)
       i += 2
       continue
     }
     const ki = order[i], kj = order[i + 1], ri = 3 * ki, rj = 3 * kj
     const ai = a[ki], bi = b[ki], aj = a[kj], bj = b[kj]
     const At = 0.5 * ((ai - a0) * (bj - b0) - (aj - a0) * (bi - b0))
+    // the vertices' ξ and positions once into locals (see quadPoints)
+    const u0 = vref[r0], ui = vref[ri], uj = vref[rj], v0 = vref[r0 + 1], vi = vref[ri + 1], vj = vref[rj + 1]
+    const s0 = vref[r0 + 2], si = vref[ri + 2], sj = vref[rj + 2]
+    const x00 = pos[r0], xi0 = pos[ri], xj0 = pos[rj], x01 = pos[r0 + 1], xi1 = pos[ri + 1], xj1 = pos[rj + 1]
+    const x02 = pos[r0 + 2], xi2 = pos[ri + 2], xj2 = pos[rj + 2]
     for (let r = 0; r < nq; r++, q++) {
       const l0 = L0[r], l1 = L1[r], l2 = L2[r]
       w[q] = W[r] * At
       pa[q] = l0 * a0 + l1 * ai + l2 * aj
       pb[q] = l0 * b0 + l1 * bi + l2 * bj
-      ref[3 * q] = l0 * vref[r0] + l1 * vref[ri] + l2 * vref[rj]
-      ref[3 * q + 1] = l0 * vref[r0 + 1] + l1 * vref[ri + 1] + l2 * vref[rj + 1]
-      ref[3 * q + 2] = l0 * vref[r0 + 2] + l1 * vref[ri + 2] + l2 * vref[rj + 2]
+      ref[3 * q] = l0 * u0 + l1 * ui + l2 * uj
+      ref[3 * q + 1] = l0 * v0 + l1 * vi + l2 * vj
+      ref[3 * q + 2] = l0 * s0 + l1 * si + l2 * sj
       if (!affine) {
         // the point on the flat polygon, relative to the element's origin node
-        const x0 = l0 * pos[r0] + l1 * pos[ri] + l2 * pos[rj] - ox
-        const x1 = l0 * pos[r0 + 1] + l1 * pos[ri + 1] + l2 * pos[rj + 1] - oy
-        const x2 = l0 * pos[r0 + 2] + l1 * pos[ri + 2] + l2 * pos[rj + 2] - oz
-        invertElementMap(em, x0, x1, x2, ref, 3 * q)
+        const x0 = l0 * x00 + l1 * xi0 + l2 * xj0 - ox
+        const x1 = l0 * x01 + l1 * xi1 + l2 * xj1 - oy
+        const x2 = l0 * x02 + l1 * xi2 + l2 * xj2 - oz
+        if (hex) { const x = 3 * (q - o); X[x] = x0; X[x + 1] = x1; X[x + 2] = x2 } else invert(em, x0, x1, x2, ref, 3 * q)
       }
     }
     i++
   }
+  if (hex) invertHex(em, X, ref, 3 * o, q - o)
   return q - o
 }
+
+/** Positions of one polygon's points relative to the element's origin (3 each, from its first point on): the hex8 batch inversion's input. */
+const POINT_X = new Float64Array(3 * MAX_POLYGON_QUADRATURE)
 
 /**
  * The 3×3 Gauss–Legendre rule on the unit square (abscissae (1 ∓ √(3/5))/2 and ½, weights 5/18,
@@ -145,14 +157,20 @@ const QUAD_GAUSS = (() => {
  * coordinates: exact on an affine element (ξ linear in x), the Newton start otherwise.
  */
 function quadPoints(
-  ref: Float64Array, w: Float64Array, pa: Float64Array, pb: Float64Array, q: number,
+  ref: Float64Array, w: Float64Array, pa: Float64Array, pb: Float64Array, q: number, o: number,
   sc: PolygonScratch, k0: number, k1: number, k2: number, k3: number, em: ElementMap,
 ): number {
   const a = sc.a, b = sc.b, vref = sc.ref, pos = sc.pos, G = QUAD_GAUSS
   const a0 = a[k0], a1 = a[k1], a2 = a[k2], a3 = a[k3], b0 = b[k0], b1 = b[k1], b2 = b[k2], b3 = b[k3]
   const r0 = 3 * k0, r1 = 3 * k1, r2 = 3 * k2, r3 = 3 * k3
-  const affine = em.affine
+  const affine = em.affine, hex = em.trilinear, X = POINT_X
   const ox = em.origin[0], oy = em.origin[1], oz = em.origin[2]
+  // the corners' ξ and positions once into locals: the stores below go to Float64Arrays too, so
+  // the compiler would read them again at every point (the same values, the same arithmetic)
+  const u0 = vref[r0], u1 = vref[r1], u2 = vref[r2], u3 = vref[r3], v0 = vref[r0 + 1], v1 = vref[r1 + 1], v2 = vref[r2 + 1], v3 = vref[r3 + 1]
+  const s0 = vref[r0 + 2], s1 = vref[r1 + 2], s2 = vref[r2 + 2], s3 = vref[r3 + 2]
+  const x00 = pos[r0], x10 = pos[r1], x20 = pos[r2], x30 = pos[r3], x01 = pos[r0 + 1], x11 = pos[r1 + 1], x21 = pos[r2 + 1], x31 = pos[r3 + 1]
+  const x02 = pos[r0 + 2], x12 = pos[r1 + 2], x22 = pos[r2 + 2], x32 = pos[r3 + 2]
   for (let g = 0; g < 63; g += 7, q++) {
     const n0 = G[g], n1 = G[g + 1], n2 = G[g + 2], n3 = G[g + 3], u = G[g + 4], v = G[g + 5]
     // ∂X/∂u = (1−v)(P1−P0) + v(P2−P3), ∂X/∂v = (1−u)(P3−P0) + u(P2−P1)
@@ -161,14 +179,15 @@ function quadPoints(
     w[q] = G[g + 6] * (au * bv - av * bu)
     pa[q] = n0 * a0 + n1 * a1 + n2 * a2 + n3 * a3
     pb[q] = n0 * b0 + n1 * b1 + n2 * b2 + n3 * b3
-    ref[3 * q] = n0 * vref[r0] + n1 * vref[r1] + n2 * vref[r2] + n3 * vref[r3]
-    ref[3 * q + 1] = n0 * vref[r0 + 1] + n1 * vref[r1 + 1] + n2 * vref[r2 + 1] + n3 * vref[r3 + 1]
-    ref[3 * q + 2] = n0 * vref[r0 + 2] + n1 * vref[r1 + 2] + n2 * vref[r2 + 2] + n3 * vref[r3 + 2]
+    ref[3 * q] = n0 * u0 + n1 * u1 + n2 * u2 + n3 * u3
+    ref[3 * q + 1] = n0 * v0 + n1 * v1 + n2 * v2 + n3 * v3
+    ref[3 * q + 2] = n0 * s0 + n1 * s1 + n2 * s2 + n3 * s3
     if (!affine) {
-      const x0 = n0 * pos[r0] + n1 * pos[r1] + n2 * pos[r2] + n3 * pos[r3] - ox
-      const x1 = n0 * pos[r0 + 1] + n1 * pos[r1 + 1] + n2 * pos[r2 + 1] + n3 * pos[r3 + 1] - oy
-      const x2 = n0 * pos[r0 + 2] + n1 * pos[r1 + 2] + n2 * pos[r2 + 2] + n3 * pos[r3 + 2] - oz
-      invertElementMap(em, x0, x1, x2, ref, 3 * q)
+      const x0 = n0 * x00 + n1 * x10 + n2 * x20 + n3 * x30 - ox
+      const x1 = n0 * x01 + n1 * x11 + n2 * x21 + n3 * x31 - oy
+      const x2 = n0 * x02 + n1 * x12 + n2 * x22 + n3 * x32 - oz
+      // a distorted hex8's points are inverted by polygonPoints once the polygon's are all placed
+      if (hex) { const x = 3 * (q - o); X[x] = x0; X[x + 1] = x1; X[x + 2] = x2 } else invert(em, x0, x1, x2, ref, 3 * q)
     }
   }
   return q

@@ -137,7 +137,7 @@ export function cutSection(
   mesh.blocks.forEach((block, bi) => {
     const rows = stress.rows[bi]
     if (shapeDegree(block.type) <= 1) cutLinearBlock(acc, sc, d, coords, stress.values, block.type, block.conn, rows, bi, block.offset, frame, collect, rec, near)
-    else cutBlock(acc, sc, em, geo, d, coords, block.type, block.conn, bi, block.offset, frame, collect, rec, near)
+    else cutBlock(acc, sc, em, geo, d, coords, block.type, block.conn, bi, block.offset, frame, collect, rec, near, point)
   })
   // the stress pass over the stored geometry
   const forces = collect ? new Float64Array(3 * geo.elements) : null
@@ -366,7 +366,7 @@ function linearVertexReference(sc: PolygonScratch, coords: Float64Array, conn: I
 function cutBlock(
   acc: Float64Array, sc: PolygonScratch, em: ElementMap, geo: SectionGeometry, d: Float64Array,
   coords: Float64Array, type: ElementTypeName, conn: Int32Array, bi: number, offset: number, frame: Float64Array,
-  collect: PolygonCollector | null, rec: CutRecord | null, near: Candidates | null,
+  collect: PolygonCollector | null, rec: CutRecord | null, near: Candidates | null, point: Vec3,
 ): void {
   const topo = ELEMENT_TYPES[type]
   const nn = topo.nodeCount, cc = topo.cornerCount
@@ -394,8 +394,8 @@ function cutBlock(
   }
   if (cc === 4 || cc === 8 || near) {
     // tetrahedra and hexahedra: a quick branch-free scan as on the linear path (or the elements
-    // near the plane only), then the cut ones
-    const n = near ? findCutNear(d, conn, nn, cc, near, bi) : cc === 4 ? findCutTets(d, conn, count, nn) : findCutHexes(d, conn, count, nn)
+    // of the chunks the plane meets only), then the cut ones
+    const n = near ? findCutNear(d, conn, nn, cc, near, bi) : cc === 4 ? findCutTets(d, conn, count, nn) : scanHexes(d, conn, count, nn, coords, frame, point)
     const list = tetCutList
     for (let i = 0; i < n; i++) {
       const base = nn * list[i]
@@ -465,6 +465,138 @@ function findCutHexes(d: Float64Array, conn: Int32Array, count: number, nn: numb
       + (d[conn[base + 4]] < 0 ? 1 : 0) + (d[conn[base + 5]] < 0 ? 1 : 0) + (d[conn[base + 6]] < 0 ? 1 : 0) + (d[conn[base + 7]] < 0 ? 1 : 0)
     list[n] = e
     n += (neg & 7) !== 0 ? 1 : 0
+  }
+  return n
+}
+
+/**
+ * What a block of hexahedra keeps between cuts along one normal (see scanHexes): the coordinates
+ * and normal it was measured for, the largest spread |d_c − d_0| of an element's corner distances
+ * about its first corner, per run of HEX_RUN elements the range of their first corners' distances
+ * at the measuring cut, that cut's offset p·m, and the sizes that bound the snap band (SNAP_EPS):
+ * the largest Σ |x_k m_k| over the nodes and Σ |p_k m_k| of the measuring cut's point.
+ */
+interface HexSpread {
+  coords: Float64Array
+  m0: number
+  m1: number
+  m2: number
+  /** 0: this normal seen once (not measured yet); 1: measured. */
+  measured: number
+  spread: number
+  xAbs: number
+  pAbs: number
+  offset: number
+  /** Per run r: the least and the largest first-corner distance, at 2r and 2r + 1. */
+  runs: Float64Array
+}
+const HEX_SPREADS = new WeakMap<Int32Array, HexSpread>()
+/** Elements per run of scanHexes' ranges: small enough that a run near the plane is short, large enough that the ranges are a small array. */
+const HEX_RUN = 32
+
+/**
+ * The cut hexahedra of a block (findCutHexes' list, the same elements in the same order), reading
+ * few corner distances when the block was cut along the same normal before. Moving the plane
+ * along its normal (the offset slider, a drag, a repeated cut) shifts every distance by the same
+ * amount Δ, the change of p·m: the spread S of an element's corner distances about its first
+ * corner does not change, and an element whose first corner lies farther than S from the plane
+ * has all its corners on that corner's side, so it is not cut; and the first corners of a run of
+ * HEX_RUN elements lie in the run's measured range shifted by Δ, so a run whose range is wholly
+ * farther than S is not read at all. The second cut along a normal measures S and the ranges (one
+ * pass, folded into the full scan); later cuts read the runs near the plane only, their elements'
+ * first corners, and all eight corners of the few within S. Snapped distances (SNAP_EPS) move by
+ * at most the band and the distances' rounding is a small part of it, so S and the ranges are
+ * widened by 2.5 times the largest band of either cut on each side. The entry belongs to the
+ * block's connectivity and coordinates arrays (a mesh's arrays are not changed after it is made;
+ * other arrays start a new entry) and to one normal, bit for bit.
+ */
+function scanHexes(d: Float64Array, conn: Int32Array, count: number, nn: number, coords: Float64Array, frame: Float64Array, point: Vec3): number {
+  const m0 = frame[6], m1 = frame[7], m2 = frame[8]
+  const pAbs = Math.abs(point[0] * m0) + Math.abs(point[1] * m1) + Math.abs(point[2] * m2)
+  const offset = point[0] * m0 + point[1] * m1 + point[2] * m2
+  let s = HEX_SPREADS.get(conn)
+  if (!s || s.coords !== coords || s.m0 !== m0 || s.m1 !== m1 || s.m2 !== m2) {
+    // a new normal: the plain scan, and the normal noted (a plane turned at every cut pays nothing more)
+    s = { coords, m0, m1, m2, measured: 0, spread: 0, xAbs: 0, pAbs, offset, runs: new Float64Array(0) }
+    HEX_SPREADS.set(conn, s)
+    return findCutHexes(d, conn, count, nn)
+  }
+  if (s.measured === 0) {
+    const runs = new Float64Array(2 * Math.ceil(count / HEX_RUN))
+    const spread = findCutHexesSpread(d, conn, count, nn, runs)
+    s.spread = spread.spread
+    s.runs = runs
+    s.xAbs = largestNodeScale(coords, coords.length / 3, m0, m1, m2)
+    s.pAbs = pAbs
+    s.offset = offset
+    s.measured = 1
+    return spread.n
+  }
+  const band = 2.5 * SNAP_EPS * (2 * s.xAbs + s.pAbs + pAbs)
+  const bound = (s.spread + band) * (1 + 1e-12)
+  // a run's first corners now lie in its measured range minus Δ, within the band
+  const shift = offset - s.offset, widen = band + 1e-12 * (Math.abs(shift) + s.spread)
+  if (!(bound < Infinity && widen < Infinity)) return findCutHexes(d, conn, count, nn)
+  return findCutHexesNear(d, conn, count, nn, bound, s.runs, shift, widen)
+}
+
+/**
+ * findCutHexes, the largest |d_c − d_0| over the block's elements, and per run of HEX_RUN
+ * elements the least and largest d_0 (into runs) (scanHexes).
+ */
+function findCutHexesSpread(d: Float64Array, conn: Int32Array, count: number, nn: number, runs: Float64Array): { n: number; spread: number } {
+  if (tetCutList.length < count) tetCutList = new Int32Array(count)
+  const list = tetCutList
+  let n = 0, spread = 0
+  for (let e = 0, base = 0; e < count; e++, base += nn) {
+    const d0 = d[conn[base]], d1 = d[conn[base + 1]], d2 = d[conn[base + 2]], d3 = d[conn[base + 3]]
+    const d4 = d[conn[base + 4]], d5 = d[conn[base + 5]], d6 = d[conn[base + 6]], d7 = d[conn[base + 7]]
+    const neg = (d0 < 0 ? 1 : 0) + (d1 < 0 ? 1 : 0) + (d2 < 0 ? 1 : 0) + (d3 < 0 ? 1 : 0) + (d4 < 0 ? 1 : 0) + (d5 < 0 ? 1 : 0) + (d6 < 0 ? 1 : 0) + (d7 < 0 ? 1 : 0)
+    list[n] = e
+    n += (neg & 7) !== 0 ? 1 : 0
+    const hi = Math.max(d1, d2, d3, d4, d5, d6, d7) - d0, lo = d0 - Math.min(d1, d2, d3, d4, d5, d6, d7)
+    // NaN distances make the spread NaN, which turns the bound off (scanHexes)
+    spread = Math.max(spread, hi, lo)
+    const r = 2 * ((e / HEX_RUN) | 0)
+    if (e % HEX_RUN === 0) { runs[r] = d0; runs[r + 1] = d0 } else { runs[r] = Math.min(runs[r], d0); runs[r + 1] = Math.max(runs[r + 1], d0) }
+  }
+  return { n, spread }
+}
+
+/** The largest Σ_k |x_k m_k| over the first N nodes: the scale of the snap band (SNAP_EPS). */
+function largestNodeScale(coords: Float64Array, N: number, m0: number, m1: number, m2: number): number {
+  const a0 = Math.abs(m0), a1 = Math.abs(m1), a2 = Math.abs(m2)
+  let big = 0
+  for (let i = 0; i < N; i++) big = Math.max(big, Math.abs(coords[3 * i]) * a0 + Math.abs(coords[3 * i + 1]) * a1 + Math.abs(coords[3 * i + 2]) * a2)
+  return big
+}
+
+/**
+ * findCutHexes for the elements whose first corner lies within `bound` of the plane (|d_0| ≤
+ * bound; every other element lies on one side, scanHexes), in the runs whose measured range of
+ * first-corner distances, shifted by −shift and widened by `widen`, meets [−bound, bound]: one
+ * distance read per element of those runs, all eight for the few near the plane. Same list,
+ * same order.
+ */
+function findCutHexesNear(
+  d: Float64Array, conn: Int32Array, count: number, nn: number, bound: number, runs: Float64Array, shift: number, widen: number,
+): number {
+  if (tetCutList.length < count) tetCutList = new Int32Array(count)
+  const list = tetCutList
+  const lo = shift - bound - widen, hi = shift + bound + widen
+  let n = 0
+  for (let r = 0, first = 0; first < count; r += 2, first += HEX_RUN) {
+    // measured distances d' relate to today's by d = d' − shift: skip the run unless d' can reach [lo, hi]
+    if (runs[r + 1] < lo || runs[r] > hi) continue
+    const last = Math.min(count, first + HEX_RUN)
+    for (let e = first, base = nn * first; e < last; e++, base += nn) {
+      const d0 = d[conn[base]]
+      if (d0 < -bound || d0 > bound) continue
+      const neg = (d0 < 0 ? 1 : 0) + (d[conn[base + 1]] < 0 ? 1 : 0) + (d[conn[base + 2]] < 0 ? 1 : 0) + (d[conn[base + 3]] < 0 ? 1 : 0)
+        + (d[conn[base + 4]] < 0 ? 1 : 0) + (d[conn[base + 5]] < 0 ? 1 : 0) + (d[conn[base + 6]] < 0 ? 1 : 0) + (d[conn[base + 7]] < 0 ? 1 : 0)
+      list[n] = e
+      n += (neg & 7) !== 0 ? 1 : 0
+    }
   }
   return n
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  createElementMap, invertElementMap, loadElementMap, NEWTON_ITERATIONS, pullInside, referenceDomain,
+  affineFit, createElementMap, invertElementMap, invertTrilinearPoints, loadElementMap, NEWTON_ITERATIONS, pullInside, referenceDomain,
 } from '../../../src/mechanics/inverseMap.ts'
 import { shapeValues } from '../../../src/mechanics/shapeFunctions.ts'
 import { shapeDegree } from '../../../src/mechanics/sectionRule.ts'
@@ -101,6 +101,98 @@ describe(`inverse element map (seed ${SEED})`, () => {
         }
       }
     }
+  })
+
+  // The batch inversion of one element's points (the section's hex8 path) against one call per
+  // point: the same ξ bit for bit, the same failures and the same fallback (each point's own
+  // iteration, whatever the others do), on random distorted hexahedra (rotated, far from the origin), with points
+  // inside, on the faces, a little and far outside (pulled back, or not mapped), from starts that
+  // are good, poor and at the centre; and on a flattened hexahedron where every point fails.
+  const batchSeed = SEED + 11
+  it(`hex8: invertTrilinearPoints = invertElementMap point by point, bit for bit (seed ${batchSeed})`, () => {
+    console.log(`inverseMap batch: seed ${batchSeed}`)
+    const rnd = mulberry32(batchSeed)
+    const dom = referenceDomain('hex8')
+    const conn = Int32Array.from({ length: 8 }, (_, i) => i)
+    let compared = 0, notMapped = 0, flatSeen = false
+    for (let e = 0; e < 60; e++) {
+      // a random rotation (unit quaternion), scale, shift and corner jitter
+      const qv = [rnd() - 0.5, rnd() - 0.5, rnd() - 0.5, rnd() - 0.5]
+      const ql = Math.hypot(...qv)
+      const [w, i, j, k] = qv.map((v) => v / ql)
+      const R = [
+        [1 - 2 * (j * j + k * k), 2 * (i * j - k * w), 2 * (i * k + j * w)],
+        [2 * (i * j + k * w), 1 - 2 * (i * i + k * k), 2 * (j * k - i * w)],
+        [2 * (i * k - j * w), 2 * (j * k + i * w), 1 - 2 * (i * i + j * j)],
+      ]
+      const scale = [0.5 + rnd(), 0.5 + rnd(), 0.5 + rnd()], shift = [1e3 * (rnd() - 0.5), 1e3 * (rnd() - 0.5), 1e3 * (rnd() - 0.5)]
+      const jitter = e % 10 === 9 ? 0 : 0.35 * rnd()
+      const flat = e === 58
+      const x = new Float64Array(24)
+      for (let a = 0; a < 8; a++) {
+        const r = ELEMENT_TYPES.hex8.refCoords[a].map((v, c) => scale[c] * (v + jitter * (2 * rnd() - 1)) * (flat && c === 2 ? 0 : 1))
+        for (let c = 0; c < 3; c++) x[3 * a + c] = shift[c] + R[c][0] * r[0] + R[c][1] * r[1] + R[c][2] * r[2]
+      }
+      const em = loadElementMap(createElementMap(), dom, x, conn, 0)
+      if (!em.trilinear) continue
+      const n = 1 + Math.floor(30 * rnd())
+      const X = new Float64Array(3 * n), start = new Float64Array(3 * (n + 2))
+      for (let q = 0; q < n; q++) {
+        const kind = rnd()
+        const xi = kind < 0.6 ? insidePoint('hex8', rnd) : kind < 0.8 ? [2 * rnd() - 1, 2 * rnd() - 1, rnd() < 0.5 ? -1 : 1] : kind < 0.95 ? [2.6 * rnd() - 1.3, 2.6 * rnd() - 1.3, 2.6 * rnd() - 1.3] : [30 * rnd(), -20, 5]
+        const p = forward('hex8', x, xi)
+        for (let c = 0; c < 3; c++) X[3 * q + c] = p[c] - em.origin[c]
+        const s = rnd()
+        for (let c = 0; c < 3; c++) start[3 * (q + 2) + c] = s < 0.3 ? 0 : s < 0.7 ? xi[c] + 0.2 * (2 * rnd() - 1) : 2 * rnd() - 1
+      }
+      // the batch, from index 2 on (the caller's offset), against one call per point
+      const batch = start.slice(), single = start.slice()
+      em.failures = 0
+      const failed = invertTrilinearPoints(em, X, batch, 6, n)
+      expect(em.failures).toBe(failed)
+      em.failures = 0
+      for (let q = 0; q < n; q++) invertElementMap(em, X[3 * q], X[3 * q + 1], X[3 * q + 2], single, 3 * (q + 2))
+      expect(em.failures).toBe(failed)
+      expect(Array.from(batch)).toEqual(Array.from(single))
+      compared += n
+      notMapped += failed
+      if (flat) { expect(failed).toBe(n); flatSeen = true }
+    }
+    expect(compared).toBeGreaterThan(500)
+    expect(notMapped).toBeGreaterThan(0)
+    expect(flatSeen).toBe(true)
+  })
+
+  // loadElementMap settles a hex8 with a large non-linear monomial coefficient without the affine
+  // fit: the decision must be the fit's, on parallelepipeds (rotated, far from the origin) with
+  // corner deviations from none through round-off and the fit's tolerance to plain distortion.
+  const affineSeed = SEED + 12
+  it(`hex8: the affine decision of loadElementMap = affineFit (seed ${affineSeed})`, () => {
+    console.log(`inverseMap hex8 affine decision: seed ${affineSeed}`)
+    const rnd = mulberry32(affineSeed)
+    const dom = referenceDomain('hex8')
+    const conn = Int32Array.from({ length: 8 }, (_, i) => i)
+    const seen = { affine: 0, not: 0 }
+    for (const dev of [0, 1e-16, 1e-14, 1e-13, 5e-13, 1e-12, 3e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-3, 0.2]) {
+      for (let e = 0; e < 12; e++) {
+        // a random parallelepiped: x = o + A ξ with a random (well-conditioned) A, then deviations
+        const A = Array.from({ length: 9 }, () => 2 * rnd() - 1)
+        for (let k = 0; k < 3; k++) A[4 * k] += 2
+        const o = [1e4 * (rnd() - 0.5), 1e4 * (rnd() - 0.5), 1e4 * (rnd() - 0.5)]
+        const x = new Float64Array(24)
+        for (let a = 0; a < 8; a++) {
+          const r = ELEMENT_TYPES.hex8.refCoords[a]
+          for (let c = 0; c < 3; c++) x[3 * a + c] = o[c] + A[3 * c] * r[0] + A[3 * c + 1] * r[1] + A[3 * c + 2] * r[2] + dev * 3 * (2 * rnd() - 1)
+        }
+        const em = loadElementMap(createElementMap(), dom, x, conn, 0)
+        const fit = affineFit(em, dom)
+        expect(em.affine).toBe(fit)
+        expect(em.trilinear).toBe(!fit)
+        if (fit) seen.affine++; else seen.not++
+      }
+    }
+    expect(seen.affine).toBeGreaterThan(20)
+    expect(seen.not).toBeGreaterThan(20)
   })
 
   it('a flattened (zero-volume) hex8 or a point far outside is counted as not mapped, never NaN', () => {
