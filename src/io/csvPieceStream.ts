@@ -282,6 +282,9 @@ interface Feed {
   done: boolean
 }
 
+/** Ordinary memory the feeder encodes a slot's text into (grows only; a browser's encoder refuses shared memory). */
+let encodeScratch = new Uint8Array(0)
+
 /**
  * Reads the tables over the calling thread and `lanes` (each a StreamLane): per file object its
  * table or input error, or null when the read in pieces ended early (a lane failed or stalled,
@@ -448,7 +451,10 @@ function fillRings(feeds: Feed[], plans: readonly (Plan | null)[], encoder: Text
         const range = plan.ranges[k]
         if (f.pos < 0) f.pos = range.start
         const a = f.pos
-        const into = f.bytes.subarray(slot * f.slotBytes, (slot + 1) * f.slotBytes)
+        // A browser's encoder refuses shared memory: encode into ordinary scratch, then copy the
+        // bytes into the slot (a copy of at most one slot).
+        if (encodeScratch.length < f.slotBytes) encodeScratch = new Uint8Array(f.slotBytes)
+        const into = encodeScratch.subarray(0, f.slotBytes)
         let b = range.end - a <= f.slotBytes ? range.end : lastRecordEnd(plan.text, a, a + f.slotBytes, plan.eol, plan.quoteFree)
         let w = b > a ? encoder.encodeInto(plan.text.slice(a, b), into) : { read: 0, written: 0 }
         // Characters beyond one byte: fewer fit; cut at the last record boundary that did.
@@ -458,6 +464,7 @@ function fillRings(feeds: Feed[], plans: readonly (Plan | null)[], encoder: Text
         }
         // A record longer than a slot: not for this way of reading.
         if (b <= a) { Atomics.store(f.ctrl, STOP, 1); f.done = true; return sent }
+        f.bytes.set(into.subarray(0, w.written), slot * f.slotBytes)
         f.ctrl[m] = f.table
         f.ctrl[m + 1] = w.written
         f.ctrl[m + 2] = plan.at[k]!
