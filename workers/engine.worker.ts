@@ -44,7 +44,7 @@ import { buildElementGrid } from '../src/mechanics/elementGrid.ts'
 import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
-import { readInputFiles } from './inputFiles.ts'
+import { readInputFiles, SLICE_BYTES } from './inputFiles.ts'
 import { buildElementChunks } from '../src/mechanics/elementChunks.ts'
 import type { ElementChunks } from '../src/mechanics/elementChunks.ts'
 import { tooLargeHint } from '../src/io/sizeGuard.ts'
@@ -435,7 +435,8 @@ const api: EngineApi = {
       let digested: Promise<InputFileRecord[]> | undefined
       let model: Model
       if (source.kind === 'files') {
-        const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f))
+        // a container straight into shared memory when the pool shares the model: no copy later
+        const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f), SLICE_BYTES, pool?.sharing === 'shared' && pool.size > 0)
         digested = read.inputs
         clock.mark('parse')
         model = await readFiles(read.files, source.units)

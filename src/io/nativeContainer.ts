@@ -233,7 +233,9 @@ export function readNative(buf: ArrayBuffer | Uint8Array, fileName = 'model.trac
   if (headerLength === 0 || NATIVE_PREAMBLE_BYTES + headerLength > size) fail('container', 'headerLength', `header length ${headerLength} does not fit in the file of ${size} bytes`)
   let text = ''
   try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes.subarray(NATIVE_PREAMBLE_BYTES, NATIVE_PREAMBLE_BYTES + headerLength))
+    const head = bytes.subarray(NATIVE_PREAMBLE_BYTES, NATIVE_PREAMBLE_BYTES + headerLength)
+    // a browser's decoder refuses shared memory (a file read straight into it): the header's copy
+    text = new TextDecoder('utf-8', { fatal: true }).decode(head.buffer instanceof ArrayBuffer ? head : head.slice())
   } catch {
     fail('container', 'header', 'the header is not valid UTF-8 text')
   }

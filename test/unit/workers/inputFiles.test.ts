@@ -113,3 +113,28 @@ describe('reading a Blob by its byte stream or by slices, and its digest', () =>
     expect(err?.message).toMatch(/^cut\.tractus: the file could not be read whole \(the file ended before its stated size/)
   })
 })
+
+describe('a container read into shared memory (for the pool)', () => {
+  const model = boxModel('hex8', { nx: 3, ny: 2, nz: 2, lx: 1, ly: 1, lz: 1 }, true)
+
+  it('is the model read whole, its arrays views into one SharedArrayBuffer; a text file stays in ordinary memory', async () => {
+    const bytes = writeNative(model)
+    const whole = readModelFiles([{ name: 'm.tractus', data: bytes }])
+    for (const slice of [5, 4096 + 3, 1 << 20]) {
+      const read = await readInputFiles([{ name: 'M.TRACTUS', data: new Blob([bytes as Uint8Array<ArrayBuffer>]) }], undefined, slice, true)
+      const got = readModelFiles(read.files)
+      expectSameModel(whole, got)
+      expect(got.mesh.coords.buffer).toBeInstanceOf(SharedArrayBuffer)
+      expect(got.mesh.coords.buffer).toBe((read.files[0].data as Uint8Array).buffer)
+      expect(await read.inputs).toEqual([{ name: 'M.TRACTUS', bytes: bytes.byteLength, sha256: sha256(bytes) }])
+    }
+    const csv = writeCsvBundle(model)
+    const read = await readInputFiles(csv.map((f) => ({ name: f.name, data: new Blob([f.text]) })), undefined, 1000, true)
+    expectSameModel(readModelFiles(csv.map((f) => ({ name: f.name, data: f.text }))), readModelFiles(read.files))
+  })
+
+  it('a file named as a container that is not one comes back in ordinary memory, so its error is the usual one', async () => {
+    const read = await readInputFiles([{ name: 'x.tractus', data: new Blob(['id,x,y,z\n']) }], undefined, 4, true)
+    expect((read.files[0].data as Uint8Array).buffer).toBeInstanceOf(ArrayBuffer)
+  })
+})
