@@ -53,19 +53,40 @@ import type { BoundaryFaces } from './types.ts'
 const TRI3 = FACE_KIND_CODE.tri3, TRI6 = FACE_KIND_CODE.tri6, QUAD4 = FACE_KIND_CODE.quad4, QUAD8 = FACE_KIND_CODE.quad8
 
 export function boundaryVolume(coords: Float64Array, faces: BoundaryFaces): { readonly volume: number; readonly centroid: Vec3 } | null {
+  if (faces.count === 0) return null
+  const sums = volumeSums(1)
+  return addBoundaryVolumes(sums, coords, faces, null) ? volumeOfSums(sums, 0) : null
+}
+
+/** Numbers per group in a volumeSums array: the reference point (3), then the 8 running sums. */
+export const VOLUME_SUMS = 11
+
+/** Sums for `groups` groups of faces (addBoundaryVolumes), each group's reference point not yet set. */
+export function volumeSums(groups: number): Float64Array {
+  const s = new Float64Array(VOLUME_SUMS * groups)
+  for (let g = 0; g < groups; g++) s[VOLUME_SUMS * g] = NaN
+  return s
+}
+
+/**
+ * Adds the faces' integrals to their groups' sums (`group[f]` face f's group, all in group 0 when
+ * null): several face sets may add to one array, each group's faces in its boundary's order, so
+ * that the faces of several bodies (the parts of an assembly: their outer faces, then the sides
+ * between them) are integrated in one pass each. A group's reference point is the first node of
+ * its first face. Returns false at the first curved quadratic face (see boundaryVolume): the sums
+ * are then incomplete and the caller sums the elements.
+ */
+export function addBoundaryVolumes(sums: Float64Array, coords: Float64Array, faces: BoundaryFaces, group: Int32Array | null): boolean {
   const F = faces.count, S = faces.slots, kind = faces.kind, nodes = faces.nodes, x = coords
-  if (F === 0) return null
-  // the reference point: the first node of the first face
-  const r0 = 3 * nodes[0]
-  const rx = x[r0], ry = x[r0 + 1], rz = x[r0 + 2]
   // 6 × (⅓ ∮ y·n) over triangles, 48 × that over quads; 48 × (½ ∮ y_i² n_i) over triangles,
-  // 1152 × that over quads: scaled once at the end
-  let v6 = 0, v48 = 0, mx48 = 0, my48 = 0, mz48 = 0, mx1152 = 0, my1152 = 0, mz1152 = 0
+  // 1152 × that over quads: scaled once at the end (volumeOfSums)
   const straight = straightFace
   for (let f = 0; f < F; f++) {
-    const k = kind[f], o = S * f
+    const k = kind[f], o = S * f, g = VOLUME_SUMS * (group ? group[f] : 0)
+    if (Number.isNaN(sums[g])) { const r0 = 3 * nodes[o]; sums[g] = x[r0]; sums[g + 1] = x[r0 + 1]; sums[g + 2] = x[r0 + 2] }
+    const rx = sums[g], ry = sums[g + 1], rz = sums[g + 2]
     if (k === TRI3 || k === TRI6) {
-      if (k === TRI6 && !straight(x, nodes, o, 3)) return null
+      if (k === TRI6 && !straight(x, nodes, o, 3)) return false
       const p0 = 3 * nodes[o], p1 = 3 * nodes[o + 1], p2 = 3 * nodes[o + 2]
       const ax = x[p0] - rx, ay = x[p0 + 1] - ry, az = x[p0 + 2] - rz
       const bx = x[p1] - rx, by = x[p1 + 1] - ry, bz = x[p1 + 2] - rz
@@ -73,15 +94,15 @@ export function boundaryVolume(coords: Float64Array, faces: BoundaryFaces): { re
       // N = (b − a) × (c − a), the doubled area vector
       const ux = bx - ax, uy = by - ay, uz = bz - az, vx = cx - ax, vy = cy - ay, vz = cz - az
       const nx = uy * vz - uz * vy, ny = uz * vx - ux * vz, nz = ux * vy - uy * vx
-      v6 += nx * ax + ny * ay + nz * az
+      sums[g + 3] += nx * ax + ny * ay + nz * az
       const sx = ax + bx + cx, sy = ay + by + cy, sz = az + bz + cz
-      mx48 += nx * (sx * sx + ax * ax + bx * bx + cx * cx)
-      my48 += ny * (sy * sy + ay * ay + by * by + cy * cy)
-      mz48 += nz * (sz * sz + az * az + bz * bz + cz * cz)
+      sums[g + 5] += nx * (sx * sx + ax * ax + bx * bx + cx * cx)
+      sums[g + 6] += ny * (sy * sy + ay * ay + by * by + cy * cy)
+      sums[g + 7] += nz * (sz * sz + az * az + bz * bz + cz * cz)
       continue
     }
     if (k !== QUAD4 && k !== QUAD8) throw new RangeError(`face ${f} has an unknown kind code ${k}`)
-    if (k === QUAD8 && !straight(x, nodes, o, 4)) return null
+    if (k === QUAD8 && !straight(x, nodes, o, 4)) return false
     const p0 = 3 * nodes[o], p1 = 3 * nodes[o + 1], p2 = 3 * nodes[o + 2], p3 = 3 * nodes[o + 3]
     // one coordinate at a time: a = Σp, b = (p1 + p2) − (p0 + p3), c = (p2 + p3) − (p0 + p1),
     // d = (p0 + p2) − (p1 + p3); the cross products need all three, so keep them in locals
@@ -95,15 +116,21 @@ export function boundaryVolume(coords: Float64Array, faces: BoundaryFaces): { re
     const nx = by * cz - bz * cy, ny = bz * cx - bx * cz, nz = bx * cy - by * cx
     const ux = by * dz - bz * dy, uy = bz * dx - bx * dz, uz = bx * dy - by * dx
     const wx = dy * cz - dz * cy, wy = dz * cx - dx * cz, wz = dx * cy - dy * cx
-    v48 += ax * nx + ay * ny + az * nz
-    mx1152 += nx * (9 * ax * ax + 3 * (bx * bx + cx * cx) + dx * dx) + 2 * (ux * (3 * ax * bx + cx * dx) + wx * (3 * ax * cx + bx * dx))
-    my1152 += ny * (9 * ay * ay + 3 * (by * by + cy * cy) + dy * dy) + 2 * (uy * (3 * ay * by + cy * dy) + wy * (3 * ay * cy + by * dy))
-    mz1152 += nz * (9 * az * az + 3 * (bz * bz + cz * cz) + dz * dz) + 2 * (uz * (3 * az * bz + cz * dz) + wz * (3 * az * cz + bz * dz))
+    sums[g + 4] += ax * nx + ay * ny + az * nz
+    sums[g + 8] += nx * (9 * ax * ax + 3 * (bx * bx + cx * cx) + dx * dx) + 2 * (ux * (3 * ax * bx + cx * dx) + wx * (3 * ax * cx + bx * dx))
+    sums[g + 9] += ny * (9 * ay * ay + 3 * (by * by + cy * cy) + dy * dy) + 2 * (uy * (3 * ay * by + cy * dy) + wy * (3 * ay * cy + by * dy))
+    sums[g + 10] += nz * (9 * az * az + 3 * (bz * bz + cz * cz) + dz * dz) + 2 * (uz * (3 * az * bz + cz * dz) + wz * (3 * az * cz + bz * dz))
   }
-  const V = v6 / 6 + v48 / 48
-  if (V === 0) return { volume: 0, centroid: [0, 0, 0] }
-  const mx = mx48 / 48 + mx1152 / 1152, my = my48 / 48 + my1152 / 1152, mz = mz48 / 48 + mz1152 / 1152
-  return { volume: V, centroid: [rx + mx / V, ry + my / V, rz + mz / V] }
+  return true
+}
+
+/** Group `k`'s volume and centroid from its sums (a group without faces or volume: 0 at the origin). */
+export function volumeOfSums(sums: Float64Array, k: number): { readonly volume: number; readonly centroid: Vec3 } {
+  const g = VOLUME_SUMS * k
+  const V = sums[g + 3] / 6 + sums[g + 4] / 48
+  if (V === 0 || Number.isNaN(sums[g])) return { volume: 0, centroid: [0, 0, 0] }
+  const mx = sums[g + 5] / 48 + sums[g + 8] / 1152, my = sums[g + 6] / 48 + sums[g + 9] / 1152, mz = sums[g + 7] / 48 + sums[g + 10] / 1152
+  return { volume: V, centroid: [sums[g] + mx / V, sums[g + 1] + my / V, sums[g + 2] + mz / V] }
 }
 
 /**

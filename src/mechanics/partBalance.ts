@@ -17,9 +17,10 @@
  * construction), a quality figure for element-nodal stress.
  *
  * Units: model units; forces stress·length², moments stress·length³. Not a per-drag kernel:
- * it runs once per load (O(elements): one pass for the volumes per part and the nodes between
- * parts, one for the elements on those nodes; the faces and tractions of the whole body come
- * from the load where it has them).
+ * it runs once per load (O(elements): one pass for the element counts per part and the nodes
+ * between parts, one for the elements on those nodes; the faces and tractions of the whole body
+ * come from the load where it has them). A part's volume and centroid come from its boundary
+ * faces (boundaryVolume.ts), as the whole body's do at load.
  */
 import type { ElementBlock, Mesh, Vec3 } from '../model/model.ts'
 import type { StressField } from '../model/stressField.ts'
@@ -31,7 +32,8 @@ import { faceCornerCount } from './freeBody.ts'
 import { momentAbout } from './vec3.ts'
 import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
 import { coincidentFacePairs } from './interfaceFaces.ts'
-import { facesBetweenParts, keptFloat64, keptInt32 } from './partFaces.ts'
+import { facesBetweenParts, keptFloat64, keptInt32, markNodes } from './partFaces.ts'
+import { addBoundaryVolumes, volumeOfSums, volumeSums } from './boundaryVolume.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -310,15 +312,16 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
 ): AssemblyBalance {
-  // one pass over the elements: the part numbers, the volumes per part, and the nodes' part marks for the faces between parts
+  // one pass over the elements: the part numbers, the elements per part, and the nodes' part marks for the faces between parts
   const mark = nodeMarks(mesh.nodeCount)
-  const { numbers, sums, elements } = partVolumes(mark, mesh), K = numbers.length
+  const { numbers, elements } = countAndMark(mark, mesh), K = numbers.length
   const b = partBoundaries(mesh, field, body, mark, numbers, true)
+  const sums = partVolumes(mesh, b)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
     const V = sums[4 * k], o = 7 * k, w = bodyForce(p)
     // computeBodyBalance's figures (balanceAudit.ts): moment about the volume centroid
-    const c: Vec3 = V !== 0 ? [sums[4 * k + 1] / V, sums[4 * k + 2] / V, sums[4 * k + 3] / V] : [0, 0, 0]
+    const c: Vec3 = V !== 0 ? [sums[4 * k + 1], sums[4 * k + 2], sums[4 * k + 3]] : [0, 0, 0]
     const surfaceForce: Vec3 = [surf[o], surf[o + 1], surf[o + 2]]
     const bodyForceTotal: Vec3 = [w[0] * V, w[1] * V, w[2] * V]
     const force: Vec3 = [surfaceForce[0] + bodyForceTotal[0], surfaceForce[1] + bodyForceTotal[1], surfaceForce[2] + bodyForceTotal[2]]
@@ -339,88 +342,86 @@ function nodeMarks(N: number): Int32Array {
   return keptInt32('nodeMarks', N).fill(-1)
 }
 
-/** Running sums per part in the order parts are met (partVolumes): 4 per part (volume, volume × centroid x, y, z) and the element count. */
-interface VolumeSums {
-  sums: Float64Array
-  elements: Float64Array
-  /** Part numbers in the order met; a part's slot is its place here. */
-  readonly met: number[]
-  readonly slotOf: Map<number, number>
-  /** The current part's slot and number, and its sums held in locals between chunks (volume, x, y, z, elements). */
-  slot: number
-  last: number
-  readonly cur: Float64Array
-}
-
 /**
- * The part numbers (ascending, as partNumbers), and per part `sums` (4·K) volume and
- * volume-weighted centroid x, y, z, `elements` (K) the element count: a chunk of elements at a
- * time (elementVolume.ts), in element order, as computeBodyBalance sums them. Each chunk's corners
- * also go into the nodes' part marks `mark` (as markNodes, partFaces.ts) in the same loop, while
- * they are in cache: one pass over the elements, with no list of the parts made beforehand.
+ * The part numbers (ascending, as partNumbers) and each part's element count, from one pass over
+ * the elements, which also puts their corners into the nodes' part marks `mark` (-1 no element,
+ * p ≥ 0 part p only, -2 several parts: markNodes, partFaces.ts). Runs of one part are the rule:
+ * the part's slot is looked up only where the part changes.
  */
-function partVolumes(mark: Int32Array, mesh: Mesh): { numbers: number[]; sums: Float64Array; elements: Int32Array } {
-  const acc: VolumeSums = { sums: new Float64Array(16), elements: new Float64Array(4), met: [], slotOf: new Map(), slot: -1, last: NaN, cur: new Float64Array(5) }
-  volumeChunks(mesh, (blk, s, n, vol, cen) => {
-    const topo = ELEMENT_TYPES[blk.type]
-    sumAndMark(acc, vol, cen, n, blk.part, s, mark, blk.conn, topo.nodeCount, topo.cornerCount)
-  })
-  // a block without part numbers and without elements still lists part 0 (partNumbers)
-  for (const b of mesh.blocks) if (!b.part && b.conn.length === 0 && !acc.slotOf.has(0)) switchPart(acc, 0)
-  if (acc.slot >= 0) switchPart(acc, acc.last)
-  const K = acc.met.length, order = acc.met.map((_, i) => i).sort((x, y) => acc.met[x] - acc.met[y])
-  const sums = new Float64Array(4 * K), elements = new Int32Array(K)
-  order.forEach((r, k) => { sums.set(acc.sums.subarray(4 * r, 4 * r + 4), 4 * k); elements[k] = acc.elements[r] })
-  return { numbers: order.map((r) => acc.met[r]), sums, elements }
-}
-
-/** Stores the current part's sums and takes part `p`'s (a new slot for a part not met before). */
-function switchPart(acc: VolumeSums, p: number): void {
-  const c = acc.cur
-  if (acc.slot >= 0) { const o = 4 * acc.slot; acc.sums[o] = c[0]; acc.sums[o + 1] = c[1]; acc.sums[o + 2] = c[2]; acc.sums[o + 3] = c[3]; acc.elements[acc.slot] = c[4] }
-  let r = acc.slotOf.get(p)
-  if (r === undefined) {
-    r = acc.met.length
-    acc.met.push(p); acc.slotOf.set(p, r)
-    if (r === acc.elements.length) {
-      const sums = new Float64Array(8 * r), elements = new Float64Array(2 * r)
-      sums.set(acc.sums); elements.set(acc.elements); acc.sums = sums; acc.elements = elements
+function countAndMark(mark: Int32Array, mesh: Mesh): { numbers: number[]; elements: Int32Array } {
+  const met: number[] = [], slotOf = new Map<number, number>()
+  let counts = new Int32Array(8)
+  const slot = (p: number): number => {
+    let r = slotOf.get(p)
+    if (r === undefined) {
+      r = met.length; met.push(p); slotOf.set(p, r)
+      if (r === counts.length) { const grown = new Int32Array(2 * r); grown.set(counts); counts = grown }
+    }
+    return r
+  }
+  for (const b of mesh.blocks) {
+    const topo = ELEMENT_TYPES[b.type], count = b.ids.length
+    // a block without part numbers is part 0, even without elements (partNumbers)
+    if (!b.part) { counts[slot(0)] += count; markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, null, 0, count); continue }
+    const part = b.part
+    for (let s = 0; s < count;) {
+      const p = part[s]
+      let e = s + 1
+      while (e < count && part[e] === p) e++
+      counts[slot(p)] += e - s
+      markRun(mark, b.conn, topo.nodeCount, topo.cornerCount, p, s, e)
+      s = e
     }
   }
-  const o = 4 * r
-  c[0] = acc.sums[o]; c[1] = acc.sums[o + 1]; c[2] = acc.sums[o + 2]; c[3] = acc.sums[o + 3]; c[4] = acc.elements[r]
-  acc.slot = r; acc.last = p
+  const order = met.map((_, i) => i).sort((x, y) => met[x] - met[y])
+  return { numbers: order.map((r) => met[r]), elements: Int32Array.from(order, (r) => counts[r]) }
 }
 
-/**
- * One chunk of `n` elements from `first` of a block (connectivity `conn`, `nn` nodes and `cc`
- * corners each, parts `part` or 0): their volumes and centroids into the part sums, and their
- * corners into the marks (-1 no element, p ≥ 0 part p only, -2 several parts).
- */
-function sumAndMark(
-  acc: VolumeSums, vol: Float64Array, cen: Float64Array, n: number, part: Int32Array | null, first: number,
-  mark: Int32Array, conn: Int32Array, nn: number, cc: number,
-): void {
-  const c = acc.cur
-  let last = acc.last, V = c[0], X = c[1], Y = c[2], Z = c[3], n0 = c[4]
-  for (let e = 0; e < n; e++) {
-    const p = part ? part[first + e] : 0
-    if (p !== last) {
-      // the same additions in the same order: the current part's sums go back before the next part's are taken
-      c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
-      switchPart(acc, p)
-      last = p; V = c[0]; X = c[1]; Y = c[2]; Z = c[3]; n0 = c[4]
-    }
-    const v = vol[e]
-    n0++
-    V += v; X += v * cen[3 * e]; Y += v * cen[3 * e + 1]; Z += v * cen[3 * e + 2]
-    const eb = (first + e) * nn
+/** Marks the corners of elements [from, to) of one block, all of part p (as markNodes). */
+function markRun(mark: Int32Array, conn: Int32Array, nn: number, cc: number, p: number, from: number, to: number): void {
+  for (let e = from; e < to; e++) {
+    const eb = e * nn
     for (let k = 0; k < cc; k++) {
       const node = conn[eb + k], m = mark[node]
       if (m !== p) mark[node] = m === -1 ? p : -2
     }
   }
-  c[0] = V; c[1] = X; c[2] = Y; c[3] = Z; c[4] = n0
+}
+
+/**
+ * Per part index (4 per part): volume and volume centroid x, y, z. From each part's boundary
+ * faces (its outer faces and its sides against other parts: boundaryVolume.ts, the divergence
+ * theorem, as the whole body's at load), or, where a quadratic face is curved, from the element
+ * sums in element order (elementVolume.ts), as bodyVolume sums the whole body.
+ */
+function partVolumes(mesh: Mesh, b: PartBoundaries): Float64Array {
+  const K = b.numbers.length, out = new Float64Array(4 * K)
+  const faceSums = volumeSums(K)
+  if (addBoundaryVolumes(faceSums, mesh.coords, b.outer, b.outerPart) && addBoundaryVolumes(faceSums, mesh.coords, b.inner, b.innerPart)) {
+    for (let k = 0; k < K; k++) {
+      const v = volumeOfSums(faceSums, k)
+      out[4 * k] = v.volume; out[4 * k + 1] = v.centroid[0]; out[4 * k + 2] = v.centroid[1]; out[4 * k + 3] = v.centroid[2]
+    }
+    return out
+  }
+  const index = new Map(b.numbers.map((p, k) => [p, k]))
+  volumeChunks(mesh, (blk, s, n, vol, cen) => sumVolumes(out, index, vol, cen, n, blk.part, s))
+  for (let k = 0; k < K; k++) {
+    const V = out[4 * k]
+    if (V !== 0) { out[4 * k + 1] /= V; out[4 * k + 2] /= V; out[4 * k + 3] /= V }
+  }
+  return out
+}
+
+/** One chunk of `n` elements from `first` of a block (parts `part` or 0): volume and volume × centroid into `out` by part index. */
+function sumVolumes(out: Float64Array, index: ReadonlyMap<number, number>, vol: Float64Array, cen: Float64Array, n: number, part: Int32Array | null, first: number): void {
+  let last = NaN, o = 0
+  for (let e = 0; e < n; e++) {
+    const p = part ? part[first + e] : 0
+    if (p !== last) { last = p; o = 4 * (index.get(p) ?? 0) }
+    const v = vol[e]
+    out[o] += v; out[o + 1] += v * cen[3 * e]; out[o + 2] += v * cen[3 * e + 1]; out[o + 3] += v * cen[3 * e + 2]
+  }
 }
 
 /** (element, local face) as one number, REF · element + local face (at most 6 faces an element). */

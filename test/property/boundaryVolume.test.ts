@@ -12,6 +12,8 @@
 import { describe, expect, it } from 'vitest'
 import { bodyVolume, bodyVolumeOf } from '../../src/mechanics/balanceAudit.ts'
 import { boundaryVolume } from '../../src/mechanics/boundaryVolume.ts'
+import { assemblyBalance, partNumbers, partSubmesh } from '../../src/mechanics/partBalance.ts'
+import { nodalStressField } from '../../src/model/stressField.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { elementByRule } from '../../src/mechanics/elementVolume.ts'
 import { tabulateElement } from '../../src/mechanics/shapeFunctions.ts'
@@ -105,6 +107,45 @@ describe(`boundaryVolume against the element sums (seed ${SEED})`, () => {
       expectSameBody(mesh, bodyVolume(mesh), `assembly ${trial} (${merged ? 'shared nodes' : 'meshed apart'})`)
     }
     expect(apart).toBeGreaterThan(0)
+  })
+
+  it('each part of a random assembly: its volume and centroid from its own boundary (outer faces and sides between parts) equal its element sums', () => {
+    for (let trial = 0; trial < 24; trial++) {
+      const { mesh: asm, merged } = randomAssembly(rnd)
+      const mesh = moved(distort(asm, rnd, 0.08), rnd, [100 * rnd(), -100 * rnd(), 100 * rnd()])
+      const field = nodalStressField(mesh, new Float64Array(6 * mesh.nodeCount))
+      const parts = assemblyBalance(mesh, field, () => [0, 0, 0]).parts
+      expect(parts.map((p) => p.part)).toEqual(partNumbers(mesh))
+      for (const p of parts) {
+        const want = bodyVolume(partSubmesh(mesh, field, p.part).mesh), label = `assembly ${trial} (${merged ? 'shared nodes' : 'meshed apart'}) part ${p.part}`
+        expect(Math.abs(p.volume - want.volume), label).toBeLessThanOrEqual(TOL * want.volume)
+        const scale = Math.max(sizeOf(mesh), Math.hypot(...want.centroid))
+        for (let k = 0; k < 3; k++) expect(Math.abs(p.balance.centroid[k] - want.centroid[k]), `${label} centroid ${k}`).toBeLessThanOrEqual(TOL * scale)
+      }
+    }
+  })
+
+  it('a part with a curved boundary face: every part by its element sums, in element order (bodyVolume of its sub-mesh, bit for bit)', () => {
+    const { mesh: asm } = randomAssembly(rnd)
+    const box = boxMesh({ nx: 2, ny: 1, nz: 1, lx: 2, ly: 1, lz: 1, x0: 0, y0: 0, z0: 5 }, 'tet10')
+    const c = Float64Array.from(box.coords)
+    for (let i = 0; i < c.length; i++) c[i] += 0.03 * (2 * rnd() - 1)
+    // the assembly beside a curved tet10 box of part 9 (its own nodes)
+    const n0 = asm.nodeCount, coords = new Float64Array(3 * (n0 + box.nodeCount))
+    coords.set(asm.coords); coords.set(c, 3 * n0)
+    let offset = asm.elementCount
+    const blocks = [...asm.blocks, ...box.blocks.map((b) => {
+      const blk = { ...b, conn: b.conn.map((n) => n + n0), part: new Int32Array(b.ids.length).fill(9), offset }
+      offset += b.ids.length
+      return blk
+    })]
+    const mesh = { ...asm, coords, nodeCount: n0 + box.nodeCount, nodeIds: Int32Array.from({ length: n0 + box.nodeCount }, (_, i) => i + 1), elementCount: offset, blocks }
+    const field = nodalStressField(mesh, new Float64Array(6 * mesh.nodeCount))
+    for (const p of assemblyBalance(mesh, field, () => [0, 0, 0]).parts) {
+      const want = bodyVolume(partSubmesh(mesh, field, p.part).mesh)
+      expect(p.volume, `part ${p.part}`).toBe(want.volume)
+      expect(p.balance.centroid, `part ${p.part}`).toEqual(want.centroid)
+    }
   })
 
   for (const type of ['tet10', 'hex20', 'wedge15', 'pyramid13'] as const) {
