@@ -7,6 +7,10 @@
  * sane meshes) faces are ordered by that tuple and equal runs are found in one scan. A run of one
  * is a boundary face, a run of two an interior face, a run of three or more is a mesh error.
  *
+ * On a mesh with two part numbers or more, a run of two whose elements have different parts is a
+ * face between parts: those pairs are recorded for the mesh (partPairs.ts), for the parts'
+ * boundaries (partFaces.ts).
+ *
  * Output faces are ordered by global element index, then local face number, so the result does
  * not depend on node numbering. Faces keep the element's local face node order, which is outward
  * for positively oriented elements (the readers reorient inverted ones).
@@ -15,6 +19,7 @@ import { ELEMENT_TYPES, FACE_KIND_CODE, FACE_KINDS, FACE_NODE_COUNT } from '../m
 import { elementIdOf } from '../model/elementId.ts'
 import { InputError } from '../model/errors.ts'
 import type { ElementBlock, Mesh } from '../model/model.ts'
+import { elementParts, recordPartPairs } from './partPairs.ts'
 import { FQP_AREA, FQP_SIZE, FQP_X, createFacePoints, faceQuadraturePoints } from './faceQuadraturePoint.ts'
 import { tabulateFace } from './shapeFunctions.ts'
 import type { FaceTable } from './shapeFunctions.ts'
@@ -101,6 +106,9 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number, maxPa
   // Boundary flags, one bit per local face of each element.
   const isBoundary = new Uint8Array(E)
   let boundaryCount = 0
+  // With two parts or more: the interior faces between parts, recorded for the parts' boundaries (partPairs.ts).
+  const partOf = elementParts(mesh)
+  let between = partOf ? new Int32Array(1024) : EMPTY_PAIRS, pairCount = 0
   for (let lo = 0; lo < N;) {
     const base = bucketStart[lo]
     let hi = lo + 1
@@ -164,6 +172,13 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number, maxPa
         const run = j - i
         if (run === 1) { const r = ref[i]; isBoundary[r >> 3] |= 1 << (r & 7); boundaryCount++ }
         else if (run > 2) throw sharedFaceError(mesh, ref, i, j, n, k1[i], k2[i], k3[i])
+        else if (partOf !== null) {
+          const ra = ref[i], rb = ref[i + 1]
+          if (partOf[ra >> 3] !== partOf[rb >> 3]) {
+            if (pairCount === between.length) { const grown = new Int32Array(2 * pairCount); grown.set(between); between = grown }
+            between[pairCount++] = Math.min(ra, rb); between[pairCount++] = Math.max(ra, rb)
+          }
+        }
         i = j
       }
     }
@@ -195,8 +210,11 @@ export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number, maxPa
 
   const area = new Float64Array(F), normal = new Float64Array(3 * F), centroid = new Float64Array(3 * F)
   computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
+  if (partOf) recordPartPairs(mesh, between.slice(0, pairCount))
   return { count: F, slots: S, elem, localFace, kind, nodes, area, normal, centroid }
 }
+
+const EMPTY_PAIRS = new Int32Array(0)
 
 /** Orders a big bucket (a node shared by very many elements) without the quadratic insertion sort. */
 function sortLargeBucket(ref: Int32Array, k1: Int32Array, k2: Int32Array, k3: Int32Array, s: number, t: number): void {

@@ -34,6 +34,7 @@ import type { BodyBalance, BoundaryFaces, SurfaceTractions } from './types.ts'
 import { coincidentFacePairs } from './interfaceFaces.ts'
 import { facesBetweenParts, keptFloat64, keptInt32, markNodes } from './partFaces.ts'
 import { addBoundaryVolumes, volumeOfSums, volumeSums } from './boundaryVolume.ts'
+import { recordedPartPairs } from './partPairs.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -312,10 +313,14 @@ export function partSides(b: PartBoundaries, k: number): Int32Array {
 export function assemblyBalance(
   mesh: Mesh, field: StressField, bodyForce: (part: number) => Vec3, names: ReadonlyMap<number, string> = new Map(), body?: BodyFaces,
 ): AssemblyBalance {
-  // one pass over the elements: the part numbers, the elements per part, and the nodes' part marks for the faces between parts
-  const mark = nodeMarks(mesh.nodeCount)
+  // the whole body's faces first: their extraction records the faces between parts (partPairs.ts)
+  const faces = body?.faces ?? extractBoundaryFaces(mesh)
+  const whole: BodyFaces = { faces, tractions: body?.tractions ?? faceLoads(mesh, field, faces), against: body?.against }
+  // one pass over the elements: the part numbers, the elements per part, and, without that
+  // record, the nodes' part marks for the faces between parts
+  const mark = recordedPartPairs(mesh) ? null : nodeMarks(mesh.nodeCount)
   const { numbers, elements } = countAndMark(mark, mesh), K = numbers.length
-  const b = partBoundaries(mesh, field, body, mark, numbers, true)
+  const b = partBoundaries(mesh, field, whole, mark, numbers, true)
   const sums = partVolumes(mesh, b)
   const surf = partSurfaceSums(new Float64Array(7 * K), b)
   const parts = b.numbers.map((p, k): PartRecord => {
@@ -344,11 +349,11 @@ function nodeMarks(N: number): Int32Array {
 
 /**
  * The part numbers (ascending, as partNumbers) and each part's element count, from one pass over
- * the elements, which also puts their corners into the nodes' part marks `mark` (-1 no element,
- * p ≥ 0 part p only, -2 several parts: markNodes, partFaces.ts). Runs of one part are the rule:
+ * the elements, which also puts their corners into the nodes' part marks `mark` when given (-1 no
+ * element, p ≥ 0 part p only, -2 several parts: markNodes, partFaces.ts). Runs of one part are the rule:
  * the part's slot is looked up only where the part changes.
  */
-function countAndMark(mark: Int32Array, mesh: Mesh): { numbers: number[]; elements: Int32Array } {
+function countAndMark(mark: Int32Array | null, mesh: Mesh): { numbers: number[]; elements: Int32Array } {
   const met: number[] = [], slotOf = new Map<number, number>()
   let counts = new Int32Array(8)
   const slot = (p: number): number => {
@@ -362,14 +367,14 @@ function countAndMark(mark: Int32Array, mesh: Mesh): { numbers: number[]; elemen
   for (const b of mesh.blocks) {
     const topo = ELEMENT_TYPES[b.type], count = b.ids.length
     // a block without part numbers is part 0, even without elements (partNumbers)
-    if (!b.part) { counts[slot(0)] += count; markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, null, 0, count); continue }
+    if (!b.part) { counts[slot(0)] += count; if (mark) markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, null, 0, count); continue }
     const part = b.part
     for (let s = 0; s < count;) {
       const p = part[s]
       let e = s + 1
       while (e < count && part[e] === p) e++
       counts[slot(p)] += e - s
-      markRun(mark, b.conn, topo.nodeCount, topo.cornerCount, p, s, e)
+      if (mark) markRun(mark, b.conn, topo.nodeCount, topo.cornerCount, p, s, e)
       s = e
     }
   }

@@ -4,7 +4,8 @@
  * its local face, its nodes in that element's outward order). With the whole body's boundary
  * faces they make every part's boundary (partBalance.ts) without one face extraction per part.
  *
- * One pass marks the corner nodes touched by more than one part; a second lists the elements
+ * Where the boundary extraction of this mesh recorded the pairs between parts (partPairs.ts), the
+ * sides are those pairs, sorted. Otherwise one pass marks the corner nodes touched by more than one part; a second lists the elements
  * with three corners or more so marked (an element's first corners usually tell it has not). Only their faces whose corners are all marked can lie
  * between parts, and those few are paired by their sorted corners in an open-addressing table
  * over typed arrays (a triangle pads its fourth corner, so it never pairs with a quadrilateral).
@@ -22,6 +23,7 @@ import { ELEMENT_TYPES, FACE_KIND_CODE } from '../model/elementTypes.ts'
 import type { Mesh } from '../model/model.ts'
 import { computeFaceGeometry, faceSlotsOf } from './boundaryFaces.ts'
 import type { BoundaryFaces } from './types.ts'
+import { recordedPartPairs } from './partPairs.ts'
 
 /** A face reference is globalElement·8 + localFace (at most 6 faces per element), as boundaryFaces.ts. */
 const REF_STRIDE = 8
@@ -32,14 +34,24 @@ export interface PartSides {
 }
 
 export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null, reuse = false): PartSides {
-  const mark = marked ?? markSharedNodes(mesh)
-  const listed = listElements(mesh, mark)
-  const C = candidateFaces(mesh, listed, mark)
-  const partner = pairFaces(C)
-  // the sides: candidates with a twin, already in (element, local face) order
-  const at = keptInt32('at', C)
-  let P = 0
-  for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+  const recorded = recordedPartPairs(mesh)
+  let C: number, partner: Int32Array, at: Int32Array, P = 0
+  if (recorded) {
+    // the pairs the boundary extraction found (partPairs.ts): every reference is a side
+    C = recorded.length
+    partner = sidesFromPairs(recorded)
+    at = keptInt32('at', C)
+    for (let i = 0; i < C; i++) at[i] = i
+    P = C
+  } else {
+    const mark = marked ?? markSharedNodes(mesh)
+    const listed = listElements(mesh, mark)
+    C = candidateFaces(mesh, listed, mark)
+    partner = pairFaces(C)
+    // the sides: candidates with a twin, already in (element, local face) order
+    at = keptInt32('at', C)
+    for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+  }
   const blocks = mesh.blocks, S = faceSlotsOf(blocks)
   const out = (key: string, n: number) => (reuse ? keptInt32(key, n) : new Int32Array(n))
   const twin = out('twin', P), elem = out('elem', P), nodes = out('nodes', S * P)
@@ -83,6 +95,34 @@ function writeSides(
     elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
     for (let a = 0; a < face.length; a++) nodes[S * k + a] = b.conn[eb + face[a]]
   }
+}
+
+/**
+ * The sides of recorded pairs (partPairs.ts: two face references each) in (element, local face)
+ * order, into the kept 'refs' (as candidateFaces leaves them), and each side's twin (its index in
+ * that order) in the kept 'partner', returned: a sort of the references, then each pair's two
+ * sides found by binary search.
+ */
+function sidesFromPairs(pairs: Int32Array): Int32Array {
+  const C = pairs.length, refs = keptInt32('refs', C), partner = keptInt32('partner', C)
+  refs.set(pairs)
+  refs.sort()
+  for (let q = 0; q < C; q += 2) {
+    const a = sortedIndex(refs, pairs[q]), b = sortedIndex(refs, pairs[q + 1])
+    partner[a] = b; partner[b] = a
+  }
+  return partner
+}
+
+/** The index of `v` in the ascending array `a` (present). */
+function sortedIndex(a: Int32Array, v: number): number {
+  let lo = 0, hi = a.length - 1
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1
+    if (a[mid] < v) lo = mid + 1
+    else hi = mid
+  }
+  return lo
 }
 
 /**

@@ -107,7 +107,7 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   await waitForCut(page, 120_000)
   const firstCutMs = await page.evaluate((t) => {
     const m = performance.getEntriesByName('tractus:cut').filter((e) => e.startTime >= t)
-    return m.length ? m[0].duration : NaN
+    return m.length ? { roundTrip: m[0].duration, compute: ((m[0] as PerformanceMeasure).detail as { computeMs?: number } | null)?.computeMs ?? NaN } : { roundTrip: NaN, compute: NaN }
   }, sectionOnStart)
   await page.waitForTimeout(1500)
   const sectionOnEnd = await page.evaluate(() => performance.now())
@@ -169,7 +169,7 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
       longTasks: summary(during(loadStart, settledLoad)), longTaskDurationsMs: ms(during(loadStart, settledLoad)),
     },
     startUpLongTaskDurationsMs: ms(tasks.filter((t) => t.start < loadStart)),
-    sectionOn: { firstCutRoundTripMs: round(firstCutMs), longTaskDurationsMs: ms(tasks.filter((t) => t.start >= sectionOnStart && t.start <= sectionOnEnd)) },
+    sectionOn: { firstCutRoundTripMs: round(firstCutMs.roundTrip), firstCutComputeMs: round(firstCutMs.compute), longTaskDurationsMs: ms(tasks.filter((t) => t.start >= sectionOnStart && t.start <= sectionOnEnd)) },
     drag: {
       durationMs: Math.round(dragEnd - dragStart),
       pointerSteps: steps,

@@ -15,6 +15,8 @@
  * Seeded; the seed is printed.
  */
 import { describe, expect, it } from 'vitest'
+import { facesBetweenParts } from '../../src/mechanics/partFaces.ts'
+import { recordedPartPairs } from '../../src/mechanics/partPairs.ts'
 import { INTERFACE_TOL, assemblyBalance, partBoundaries, partNumbers, partSides, partSubmesh } from '../../src/mechanics/partBalance.ts'
 import type { AssemblyBalance } from '../../src/mechanics/partBalance.ts'
 import { coincidentInterfaceFaces } from '../../src/mechanics/interfaceFaces.ts'
@@ -155,4 +157,35 @@ describe(`every part's boundary at once against one extraction per part (seed ${
       expect(command.parts).toEqual(engine.parts)
     })
   }
+
+  // The faces between parts from the pairs the extraction recorded (partPairs.ts) against the
+  // matching by node marks (partFaces.ts) that a mesh without a record gets: the same sides, in
+  // the same order, with the same twins, bit for bit.
+  it('the faces between parts recorded by the extraction equal those matched by node marks, bit for bit', () => {
+    const rnd = mulberry32(SEED + 1)
+    let compared = 0
+    for (let trial = 0; trial < 30; trial++) {
+      const { mesh } = randomParts(rnd)
+      const plain = { ...mesh }
+      const marked = facesBetweenParts(plain)
+      expect(recordedPartPairs(plain)).toBeNull()
+      extractBoundaryFaces(mesh)
+      const pairs = recordedPartPairs(mesh)
+      if (partNumbers(mesh).length < 2) { expect(pairs).toBeNull(); expect(marked.faces.count).toBe(0); continue }
+      expect(pairs, `trial ${trial}`).not.toBeNull()
+      expect(pairs!.length).toBe(marked.faces.count)
+      const recorded = facesBetweenParts(mesh)
+      const { faces: a, twin: ta } = marked, { faces: b, twin: tb } = recorded
+      expect(b.count).toBe(a.count)
+      expect(Array.from(b.elem)).toEqual(Array.from(a.elem))
+      expect(Array.from(b.localFace)).toEqual(Array.from(a.localFace))
+      expect(Array.from(b.kind)).toEqual(Array.from(a.kind))
+      expect(Array.from(b.nodes)).toEqual(Array.from(a.nodes))
+      expect(Array.from(b.area)).toEqual(Array.from(a.area))
+      expect(Array.from(b.normal)).toEqual(Array.from(a.normal))
+      expect(Array.from(tb)).toEqual(Array.from(ta))
+      compared += a.count
+    }
+    expect(compared).toBeGreaterThan(100)
+  })
 })
