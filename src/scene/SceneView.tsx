@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef } from 'react'
 import { displayFactor, displayUnitLabel } from '../model/units.ts'
-import { activeRange, deformScaleOf, modelSphere, quantityExtremes, quantityScalars, sectionPlaneOf } from '../state/selectors.ts'
+import { activeRange, deformScaleOf, modelSphere, quantityExtremes, quantityScalars, sectionPlaneOf, sectionShown } from '../state/selectors.ts'
 import { useStore } from '../state/store.ts'
 import type { QuantityName } from '../state/store.ts'
 import type { Vec3 } from '../../workers/protocol.ts'
@@ -66,6 +66,8 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
   const arrows = useStore((s) => s.arrows)
   const arrowSettings = useStore((s) => s.arrowSettings)
   const section = useStore((s) => s.section)
+  // the section in the scene once its first cut has arrived (selectors.ts)
+  const shown = useStore(sectionShown)
   const sectionBuffers = useStore((s) => s.sectionBuffers)
   const sectionMap = useStore((s) => sectionColouring(s).map)
   const sectionLo = useStore((s) => sectionColouring(s).range[0])
@@ -143,7 +145,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
           surface={surface} scalars={partColours ? assembly!.vertexPart : scalars} displacement={deformationBuffers?.surface ?? null} deformScale={deformScale}
           range={partColours ? partRange : range} colourMap={partColours ? 'viridis' : colourMap}
           highlightedPatch={highlightedPatch} clippingPlanes={clippingPlanes} bounds={model.bounds} ranges={partRanges}
-          clipped={section.enabled && section.hide !== 'none' && !faceCoversCut}
+          clipped={shown && section.hide !== 'none' && !faceCoversCut}
         />
       )}
       {/* the feature edges belong to the whole body: left out while parts are hidden */}
@@ -159,16 +161,16 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
           colourMap={arrowMap} colourRange={arrowRange} reference={reference} clippingPlanes={clippingPlanes} deformScale={deformScale}
         />
       )}
-      {section.enabled && sectionBuffers && (
+      {shown && sectionBuffers && (
         <SectionFill buffers={sectionBuffers} traction={section.traction} range={sectionRange} colourMap={sectionMap} normal={normal} deformScale={deformScale} />
       )}
-      {section.enabled && sectionBuffers && sphere && arrowSettings.section && (
+      {shown && sectionBuffers && sphere && arrowSettings.section && (
         <ArrowField
           arrows={sectionBuffers.arrows} scale={arrowSettings.scale} diagonal={sphere.diagonal}
           colourMap={arrowMap} colourRange={arrowRange} reference={reference} clippingPlanes={NO_PLANES} deformScale={deformScale}
         />
       )}
-      {section.enabled && sectionBuffers && regionTriangles && !section.dragging && (
+      {shown && sectionBuffers && regionTriangles && !section.dragging && (
         <RegionMarks buffers={sectionBuffers} offsets={regionTriangles} centroids={regionCentroids} highlighted={highlightedRegion} />
       )}
       {assembly && closing.length > 0 && (
@@ -178,7 +180,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
         <InterfacePatches positions={assembly.interfacePositions} offsets={assembly.interfaceTriangles} highlighted={highlightedInterface} />
       )}
       {shownScale && model && sphere && <ScaleArrow bounds={model.bounds} length={shownScale.length} radius={0.004 * sphere.diagonal} label={shownScale.label} visible={scaleArrow !== null} />}
-      {section.enabled && cut && sectionAxes && (
+      {shown && cut && sectionAxes && (
         <SectionTriad centroid={cut.centroid} e1={sectionAxes.e1} e2={sectionAxes.e2} e3={sectionAxes.e3} length={0.3 * cut.halfSize} visible={!section.dragging} />
       )}
       {markedElement && <ElementMarker id={markedElement.id} centre={markedElement.centre} radius={markedElement.radius} />}
@@ -187,7 +189,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
         <LineOverlay reply={lineResult} from={line.from} to={line.to} deformScale={deformScale} radius={0.005 * sphere.diagonal} />
       )}
       {sphere && marks && <ExtremeMarkers marks={marks} radius={0.008 * sphere.diagonal} frameRadius={0.08 * sphere.diagonal} />}
-      {section.enabled && sphere && model && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} bounds={model.bounds} cut={cut} />}
+      {shown && sphere && model && <SectionHandle section={section} center={sphere.center} radius={sphere.radius} bounds={model.bounds} cut={cut} />}
     </>
   )
 }

@@ -48,7 +48,8 @@ function pill(w: number, h: number): ShapeGeometry {
   return new ShapeGeometry(s, 8)
 }
 
-const flatMaterial = (hex: string, visible = true): MeshBasicMaterial =>
+/** The handle's flat colour, drawn over everything (sectionWarmUp.ts makes one to warm its draw). */
+export const flatMaterial = (hex: string, visible = true): MeshBasicMaterial =>
   new MeshBasicMaterial({ color: rawColour(hex), depthTest: false, depthWrite: false, toneMapped: false, visible, side: DoubleSide })
 
 /**

@@ -5,6 +5,7 @@ import type { SurfaceBuffers } from '../../workers/protocol.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
 import { createScalarMaterial } from './scalarMaterial.ts'
 import { createSectionFillMaterial } from './SectionFill.tsx'
+import { sectionWarmObjects } from './sectionWarmUp.ts'
 import type { ColourMapName } from '../state/store.ts'
 import type { Plane } from 'three'
 
@@ -132,7 +133,7 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
   // Warm-up. The first draw with a new shader and render state costs a compile (on software
   // WebGL a JIT in the GPU process, which the main thread waits for when it reads the frame back:
   // over a second at 10^6 elements, measured). Switching the section on brings two: the surface's
-  // back pass and the section face. Each is drawn once, a single triangle, in its own frame
+  // back pass and the section face (and the handle, triad and section arrows: sectionWarmUp.ts). Each is drawn once, a single triangle, in its own frame
   // shortly after the first picture, so the switch finds them ready. The warm geometries share
   // the surface's attribute objects (no second upload) and are never disposed, which would free
   // the shared buffers.
@@ -150,13 +151,18 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
     g.setIndex(geometry.index)
     g.setDrawRange(0, 3)
     g.boundingSphere = geometry.boundingSphere
-    return { geometry: g, material: warmStep === 1 ? backMaterial : createSectionFillMaterial(), step: warmStep }
+    // the section's other first draws go with them (sectionWarmUp.ts)
+    return { geometry: g, material: warmStep === 1 ? backMaterial : createSectionFillMaterial(), step: warmStep, section: sectionWarmObjects(warmStep) }
   }, [warmStep, geometry, backMaterial])
   useEffect(() => {
     if (warmStep === 0) return
     // Steps 1 and 2 draw their triangle; step 3 draws the picture without them.
     invalidate()
-    if (warm && warm.material !== backMaterial) return () => warm.material.dispose()
+    if (!warm) return
+    return () => {
+      if (warm.material !== backMaterial) warm.material.dispose()
+      warm.section.dispose()
+    }
   }, [warmStep, warm, backMaterial, invalidate])
   /** After a warm draw, the next one in a later task (its own frame). */
   const warmed = useMemo(() => () => { setTimeout(() => setWarmStep((k) => (k === 1 || k === 2 ? k + 1 : k)), 50) }, [])
@@ -178,6 +184,7 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
       <mesh geometry={geometry} material={front} raycast={noRaycast} frustumCulled={false} onAfterRender={markFirstDraw} />
       {clipped && <mesh geometry={geometry} material={back} raycast={noRaycast} frustumCulled={false} />}
       {warm && <mesh key={warm.step} geometry={warm.geometry} material={warm.material} raycast={noRaycast} frustumCulled={false} onAfterRender={warmed} />}
+      {warm && warm.section.objects.map((o) => <primitive key={`${warm.step}-${o.uuid}`} object={o} />)}
     </>
   )
 }

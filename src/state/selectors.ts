@@ -80,6 +80,17 @@ export function deformScaleOf(s: Pick<TractusState, 'deformation' | 'deformation
 }
 
 /**
+ * Whether the scene shows the section: switched on, and its first cut has arrived. Until then the
+ * picture stays as it was (no clipping, no handle), so switching the section on draws one new
+ * frame with everything in it rather than one with the clipped body and another with the cut: on
+ * software WebGL every frame of a large model costs the rasteriser, and the main thread waits for
+ * it. A plane that misses the body still sends an (empty) result; a drag keeps the last result.
+ */
+export function sectionShown(s: { readonly section: SectionState; readonly sectionResult: unknown }): boolean {
+  return s.section.enabled && s.sectionResult !== null
+}
+
+/**
  * The side of the section hidden in the scene: `hide`, with 'auto' resolved to the side the
  * camera is on (so the cut face, which looks towards the hidden side, faces the camera); the +n
  * side before any camera is known.

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
-import { resolvedHide, sectionPlaneOf } from '../../../src/state/selectors.ts'
+import { resolvedHide, sectionPlaneOf, sectionShown } from '../../../src/state/selectors.ts'
 import type { AuditSummary, LoadedModel, SurfaceBuffers, SweepReply } from '../../../workers/protocol.ts'
 
 const MODEL: LoadedModel = {
@@ -70,6 +70,20 @@ describe('store actions', () => {
     expect(resolvedHide(section, cam(1))).toBe('negative') // below the plane at z = 2
     expect(resolvedHide(section, null)).toBe('positive')
     expect(resolvedHide({ ...section, hide: 'none' }, cam(5))).toBe('none')
+  })
+
+  it('the scene shows the section once its first cut has arrived, and keeps it while the next is computed', () => {
+    const store = createTractusStore()
+    store.getState().modelLoaded(MODEL)
+    store.getState().setSection({ enabled: true })
+    expect(sectionShown(store.getState())).toBe(false)
+    const result = { empty: true } as Parameters<ReturnType<typeof store.getState>['cutShown']>[0]
+    store.getState().cutShown(result, null)
+    expect(sectionShown(store.getState())).toBe(true)
+    store.getState().setSection({ offset: 0.5 })
+    expect(sectionShown(store.getState())).toBe(true)
+    store.getState().setSection({ enabled: false })
+    expect(sectionShown(store.getState())).toBe(false)
   })
 
   it('the map family follows the quantity: diverging for signed, sequential for magnitudes', () => {
