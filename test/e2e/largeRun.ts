@@ -187,7 +187,10 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   writeFileSync(`${OUT_DIR}/${o.name}.json`, JSON.stringify(figures, null, 2) + '\n')
   if (traced) {
     writeFileSync(`${OUT_DIR}/${o.name}-tasks.json`, JSON.stringify(traced, null, 2) + '\n')
-    for (const t of traced) console.log(`task at ${t.at} ms, ${t.ms} ms: ` + t.parts.slice(0, 8).map(([k, v]) => `${k} ${v}`).join('; '))
+    for (const t of traced) {
+      console.log(`task at ${t.at} ms, ${t.ms} ms: ` + t.parts.slice(0, 8).map(([k, v]) => `${k} ${v}`).join('; ') +
+        `\n  GPU process: ` + t.gpu.slice(0, 8).map(([k, v]) => `${k} ${v}`).join('; '))
+    }
   }
   expect(figures.drag.cutResultsShownDuringDrag, 'the section updates while dragging').toBeGreaterThan(0)
   await page.close()

@@ -10,6 +10,7 @@ import type { CDPSession, Page } from 'playwright-core'
 
 const CATEGORIES = [
   'toplevel', 'devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8', 'v8.execute', 'blink', 'gpu', 'cc', 'blink.user_timing',
+  'gpu.service', 'disabled-by-default-gpu.service', 'gpu.angle',
 ].join(',')
 
 interface TraceEvent {
@@ -23,6 +24,11 @@ export interface TaskParts {
   readonly ms: number
   /** name (with function and file for script) → summed ms of the events inside the task, longest first */
   readonly parts: readonly (readonly [string, number])[]
+  /**
+   * The GPU process's events inside the task (the software rasteriser, shader compiles, uploads),
+   * summed by name, longest first: what the main thread waits for in a read-back.
+   */
+  readonly gpu: readonly (readonly [string, number])[]
 }
 
 export interface Tracer {
@@ -64,6 +70,9 @@ export function longTasks(events: readonly TraceEvent[], thresholdMs: number): T
   const [pid, tid] = best[0].split(':').map(Number)
   const main = { pid, tid }
   const mine = events.filter((e) => e.pid === main.pid && e.tid === main.tid && e.ph === 'X' && e.dur !== undefined).sort((a, b) => a.ts - b.ts)
+  // the GPU process, named by its metadata event
+  const gpuPid = events.find((e) => e.ph === 'M' && e.name === 'process_name' && /gpu/i.test(e.args?.name ?? ''))?.pid
+  const gpuEvents = gpuPid === undefined ? [] : events.filter((e) => e.pid === gpuPid && e.ph === 'X' && e.dur !== undefined)
   let t0 = Infinity
   for (const e of events) if (e.ts > 0 && e.ts < t0) t0 = e.ts
   const out: TaskParts[] = []
@@ -80,7 +89,13 @@ export function longTasks(events: readonly TraceEvent[], thresholdMs: number): T
       sums.set(k, (sums.get(k) ?? 0) + e.dur! / 1000)
     }
     const parts = [...sums].sort((a, b) => b[1] - a[1]).slice(0, 14).map(([k, v]) => [k, Math.round(v)] as const)
-    out.push({ at: Math.round((task.ts - t0) / 1000), ms: Math.round(ms), parts })
+    const gpuSums = new Map<string, number>()
+    for (const e of gpuEvents) {
+      if (e.ts < task.ts || e.ts + e.dur! > end || e.name === 'RunTask' || e.name === 'ThreadControllerImpl::RunTask') continue
+      gpuSums.set(e.name, (gpuSums.get(e.name) ?? 0) + e.dur! / 1000)
+    }
+    const gpu = [...gpuSums].sort((a, b) => b[1] - a[1]).slice(0, 14).map(([k, v]) => [k, Math.round(v)] as const)
+    out.push({ at: Math.round((task.ts - t0) / 1000), ms: Math.round(ms), parts, gpu })
   }
   // A task nested in another (the old and new names of the same task) is listed once.
   return out.filter((t, i) => i === 0 || t.at !== out[i - 1].at)
