@@ -36,6 +36,10 @@ export interface SurfaceMeshProps {
 /** Never raycast the big surface on the main thread: picking goes to the worker. */
 const noRaycast = (): void => {}
 
+let fillWarm: ReturnType<typeof createSectionFillMaterial> | null = null
+/** The section face's material for its warm draw, made once (see the warm-up below). */
+const sectionFillWarmMaterial = (): ReturnType<typeof createSectionFillMaterial> => (fillWarm ??= createSectionFillMaterial())
+
 /**
  * The boundary surface, colour-mapped by one scalar per vertex. The geometry is built once per
  * set of geometry buffers (positions, normals, triangles): another load case brings new scalars
@@ -136,7 +140,8 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
   // back pass and the section face (and the handle, triad and section arrows: sectionWarmUp.ts). Each is drawn once, a single triangle, in its own frame
   // shortly after the first picture, so the switch finds them ready. The warm geometries share
   // the surface's attribute objects (no second upload) and are never disposed, which would free
-  // the shared buffers.
+  // the shared buffers; the warm materials are kept for the page's life (three.js deletes a
+  // program with the last material that uses it, and the real one would compile it again).
   const [warmStep, setWarmStep] = useState(0)
   useEffect(() => setWarmStep(0), [geometry])
   const warm = useMemo(() => {
@@ -152,18 +157,13 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
     g.setDrawRange(0, 3)
     g.boundingSphere = geometry.boundingSphere
     // the section's other first draws go with them (sectionWarmUp.ts)
-    return { geometry: g, material: warmStep === 1 ? backMaterial : createSectionFillMaterial(), step: warmStep, section: sectionWarmObjects(warmStep) }
+    return { geometry: g, material: warmStep === 1 ? backMaterial : sectionFillWarmMaterial(), step: warmStep, section: sectionWarmObjects(warmStep) }
   }, [warmStep, geometry, backMaterial])
   useEffect(() => {
     if (warmStep === 0) return
     // Steps 1 and 2 draw their triangle; step 3 draws the picture without them.
     invalidate()
-    if (!warm) return
-    return () => {
-      if (warm.material !== backMaterial) warm.material.dispose()
-      warm.section.dispose()
-    }
-  }, [warmStep, warm, backMaterial, invalidate])
+  }, [warmStep, invalidate])
   /** After a warm draw, the next one in a later task (its own frame). */
   const warmed = useMemo(() => () => { setTimeout(() => setWarmStep((k) => (k === 1 || k === 2 ? k + 1 : k)), 50) }, [])
 
@@ -184,7 +184,7 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
       <mesh geometry={geometry} material={front} raycast={noRaycast} frustumCulled={false} onAfterRender={markFirstDraw} />
       {clipped && <mesh geometry={geometry} material={back} raycast={noRaycast} frustumCulled={false} />}
       {warm && <mesh key={warm.step} geometry={warm.geometry} material={warm.material} raycast={noRaycast} frustumCulled={false} onAfterRender={warmed} />}
-      {warm && warm.section.objects.map((o) => <primitive key={`${warm.step}-${o.uuid}`} object={o} />)}
+      {warm && warm.section.map((o) => <primitive key={`${warm.step}-${o.uuid}`} object={o} />)}
     </>
   )
 }

@@ -5,7 +5,7 @@ import { createArrowMaterial } from './arrowMaterial.ts'
 import { rawColour } from './rawColour.ts'
 import { flatMaterial } from './SectionHandle.tsx'
 import { HALO, HANDLE } from './sceneLook.ts'
-import { disposeSprite, textSprite } from './textSprite.ts'
+import { textSprite } from './textSprite.ts'
 
 /**
  * Stand-ins for what switching the section on draws for the first time, drawn in the surface's
@@ -17,9 +17,16 @@ import { disposeSprite, textSprite } from './textSprite.ts'
  * (the handle's flat colour drawn over everything on both sides, the section triad's arrow, its
  * labels' sprite, the section arrows' instanced material without clipping planes), scaled to
  * nothing, so it draws no pixel. `step` 1 goes with the surface's back-pass warm frame, 2 with
- * the section face's.
+ * the section face's. They are made once and kept for the page's life, never disposed: three.js
+ * deletes a shader program when the last material using it is disposed, and the real objects
+ * would then compile it again.
  */
-export function sectionWarmObjects(step: 1 | 2): { readonly objects: Object3D[]; dispose(): void } {
+export function sectionWarmObjects(step: 1 | 2): readonly Object3D[] {
+  return (made[step] ??= makeObjects(step))
+}
+const made: { 1?: Object3D[]; 2?: Object3D[] } = {}
+
+function makeObjects(step: 1 | 2): Object3D[] {
   const nothing = new Matrix4().makeScale(0, 0, 0)
   if (step === 1) {
     const railGeometry = new CylinderGeometry(1, 1, 1, 8, 1, true)
@@ -29,10 +36,7 @@ export function sectionWarmObjects(step: 1 | 2): { readonly objects: Object3D[];
     const label = textSprite(' ', HALO)
     const objects: Object3D[] = [handle, triad, label]
     for (const o of objects) { o.scale.set(0, 0, 0); o.frustumCulled = false; o.raycast = () => {} }
-    return {
-      objects,
-      dispose: () => { railGeometry.dispose(); (handle.material as MeshBasicMaterial).dispose(); triadMaterial.dispose(); disposeSprite(label) },
-    }
+    return objects
   }
   const material = createArrowMaterial([])
   const arrows = new InstancedMesh(unitArrowGeometry(), material, 1)
@@ -40,6 +44,5 @@ export function sectionWarmObjects(step: 1 | 2): { readonly objects: Object3D[];
   arrows.setMatrixAt(0, nothing)
   arrows.frustumCulled = false
   arrows.raycast = () => {}
-  // the geometry is shared by every arrow field: only the instance buffers and the material go
-  return { objects: [arrows], dispose: () => { arrows.dispose(); material.dispose() } }
+  return [arrows]
 }
