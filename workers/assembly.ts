@@ -76,15 +76,31 @@ export function caseAssembly(model: Model, field: StressField): Pick<AssemblySum
   return { parts: asm.parts, interfaces: asm.interfaces }
 }
 
-/** A cut's section triangles regrouped by region in place; returns the region offsets (see CutReply). */
+/**
+ * A cut's section triangles regrouped by region in place; returns the region offsets (see
+ * CutReply). The triangles come polygon by polygon in the order the cut met the elements, which
+ * is the order of the labels: each triangle's element is found by walking the labels alongside
+ * (a few steps ahead at most), and only a triangle found nowhere near asks a map of every label
+ * (made then, once). A map for every cut cost 30–45 ms at 85 000 cut elements.
+ */
 export function regionTriangles(labels: RegionLabels, count: number, index: Uint32Array, triangleElement: Int32Array): Int32Array {
-  const regionOf = new Map<number, number>()
-  for (let s = 0; s < labels.element.length; s++) regionOf.set(labels.element[s], labels.region[s])
+  const E = labels.element, R = labels.region, n = E.length
   const T = triangleElement.length
   const group = new Int32Array(T)
-  for (let t = 0; t < T; t++) group[t] = regionOf.get(triangleElement[t]) ?? -1
+  let regionOf: Map<number, number> | null = null
+  let j = 0
+  for (let t = 0; t < T; t++) {
+    const e = triangleElement[t]
+    let k = j
+    while (k < n && k < j + WALK_AHEAD && E[k] !== e) k++
+    if (k < n && E[k] === e) { j = k; group[t] = R[k]; continue }
+    if (!regionOf) { regionOf = new Map(); for (let s = 0; s < n; s++) regionOf.set(E[s], R[s]) }
+    group[t] = regionOf.get(e) ?? -1
+  }
   return groupTriangles(index, [triangleElement], group, count)
 }
+/** Labels looked at ahead of the last one found before the map is asked. */
+const WALK_AHEAD = 4
 
 /** Checks a limit from the app: known parts, a finite centre and a radius > 0 (InputError naming the field). */
 export function checkLimit(limit: CutLimit | null | undefined, model: Model): CutLimit | null {

@@ -15,7 +15,7 @@ import { groupTriangles } from '../../../src/mechanics/triangleGroups.ts'
 import { hasSeveralParts, partNumbers } from '../../../src/mechanics/partBalance.ts'
 import { boxMesh } from '../../../src/model/boxMesh.ts'
 import type { Mesh } from '../../../src/model/model.ts'
-import { loadAssembly } from '../../../workers/assembly.ts'
+import { loadAssembly, regionTriangles } from '../../../workers/assembly.ts'
 import { jumpOf } from '../../../workers/casePicture.ts'
 import { randomAssembly } from '../../helpers/assemblies.ts'
 import { mulberry32 } from '../../helpers/rotation.ts'
@@ -71,4 +71,40 @@ describe('hasSeveralParts reads as partNumbers(mesh).length >= 2', () => {
     ['an empty block with part numbers beside part 5', withParts({ ...b, part: Int32Array.of(5, 5, 5) }, { ...empty, part: Int32Array.of() })],
   ]
   for (const [name, mesh] of cases) it(name, () => expect(hasSeveralParts(mesh)).toBe(partNumbers(mesh).length >= 2))
+})
+
+// regionTriangles walks the labels beside the triangles (the order a cut makes them) and asks a
+// map only where that order breaks: against the map for every triangle, on labels in the cut's
+// order, shuffled, and with triangles of elements not labelled (a limit's selection).
+describe('regionTriangles', () => {
+  const plain = (element: Int32Array, region: Int32Array, count: number, index: Uint32Array, tri: Int32Array) => {
+    const regionOf = new Map<number, number>()
+    for (let s = 0; s < element.length; s++) regionOf.set(element[s], region[s])
+    const group = Int32Array.from(tri, (e) => regionOf.get(e) ?? -1)
+    return groupTriangles(index, [tri], group, count)
+  }
+  let seed = 20261203
+  const rnd = () => { seed = (seed * 1103515245 + 12345) >>> 0; return seed / 4294967296 }
+  for (const order of ['cut', 'shuffled', 'with unlabelled elements'] as const) {
+    it(`gives the map's grouping, labels ${order}`, () => {
+      for (let trial = 0; trial < 20; trial++) {
+        const cut = 1 + Math.floor(60 * rnd()), count = 1 + Math.floor(4 * rnd())
+        const elements = Array.from({ length: cut }, (_, i) => 1000 * trial + 7 * i + Math.floor(5 * rnd()))
+        // polygons in the cut's order, 1 to 6 triangles each
+        const tri: number[] = []
+        for (const e of elements) for (let k = 0, m = 1 + Math.floor(6 * rnd()); k < m; k++) tri.push(e)
+        let labelled = elements.slice()
+        if (order === 'with unlabelled elements') labelled = labelled.filter(() => rnd() < 0.6)
+        if (order === 'shuffled') for (let i = labelled.length - 1; i > 0; i--) { const j = Math.floor(rnd() * (i + 1)); [labelled[i], labelled[j]] = [labelled[j], labelled[i]] }
+        const element = Int32Array.from(labelled), region = Int32Array.from(labelled, () => Math.floor(count * rnd()))
+        const T = tri.length, index = Uint32Array.from({ length: 3 * T }, (_, i) => i)
+        const a = { index: index.slice(), tri: Int32Array.from(tri) }, b = { index: index.slice(), tri: Int32Array.from(tri) }
+        const got = regionTriangles({ element, region }, count, a.index, a.tri)
+        const want = plain(element, region, count, b.index, b.tri)
+        expect(Array.from(got)).toEqual(Array.from(want))
+        expect(Array.from(a.index)).toEqual(Array.from(b.index))
+        expect(Array.from(a.tri)).toEqual(Array.from(b.tri))
+      }
+    })
+  }
 })
