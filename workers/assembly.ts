@@ -27,9 +27,7 @@ export function assemblyAtLoad(model: Model, field: StressField, faces: Boundary
   const info = new Map((model.parts ?? []).map((p) => [p.part, p]))
   const bodyForce = (p: number): Vec3 => info.get(p)?.bodyForce ?? model.bodyForce
   const names = new Map([...info.values()].map((p) => [p.part, p.name]))
-  const against = new Uint8Array(faces.count)
-  for (let f = 0; f < faces.count; f++) against[f] = faceLabel[f] === -2 ? 1 : 0
-  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against })
+  return assemblyBalance(model.mesh, field, bodyForce, names, { faces, tractions, against: labelled(faceLabel, -2) })
 }
 
 /**
@@ -44,18 +42,37 @@ export function loadAssembly(
   if (!hasSeveralParts(model.mesh)) return null
   const asm = assemblyAtLoad(model, field, faces, tractions, faceLabel)
   // each face's part rank (its part's place in the part list), found along the faces: no array per element
-  const numbers = asm.parts.map((p) => p.part), rank = asm.facePart
-  const T = triangleFace.length
-  const group = new Int32Array(T)
-  for (let t = 0; t < T; t++) group[t] = rank[triangleFace[t]]
-  const partTriangles = groupTriangles(index, [triangleFace], group, numbers.length)
+  // (the loops are functions of their own: compiled code of a function that also holds this
+  // load's objects is dropped with them and compiled again at the next load)
+  const rank = asm.facePart
+  const partTriangles = groupTriangles(index, [triangleFace], triangleGroups(rank, triangleFace), asm.parts.length)
   // the part's rank at every surface vertex (colour by part)
-  const vertexPart = new Float32Array(faceVertexStart[faces.count])
-  for (let f = 0; f < faces.count; f++) vertexPart.fill(rank[f], faceVertexStart[f], faceVertexStart[f + 1])
+  const vertexPart = vertexGroups(rank, faceVertexStart, faces.count)
   return {
     parts: asm.parts, interfaces: asm.interfaces, partTriangles, vertexPart,
     interfacePositions: asm.interfaceMesh.positions, interfaceTriangles: asm.interfaceMesh.offsets,
   }
+}
+
+/** 1 where `label` is `value`, else 0. */
+function labelled(label: Int32Array, value: number): Uint8Array {
+  const out = new Uint8Array(label.length)
+  for (let f = 0; f < label.length; f++) out[f] = label[f] === value ? 1 : 0
+  return out
+}
+
+/** Each triangle's group: its face's (`rank` per face). */
+function triangleGroups(rank: Int32Array, triangleFace: Uint32Array): Int32Array {
+  const T = triangleFace.length, group = new Int32Array(T)
+  for (let t = 0; t < T; t++) group[t] = rank[triangleFace[t]]
+  return group
+}
+
+/** Each surface vertex's group, as a float (a vertex attribute): its face's (`rank`), faces' vertices from faceVertexStart. */
+function vertexGroups(rank: Int32Array, faceVertexStart: Int32Array, F: number): Float32Array {
+  const out = new Float32Array(faceVertexStart[F])
+  for (let f = 0; f < F; f++) out.fill(rank[f], faceVertexStart[f], faceVertexStart[f + 1])
+  return out
 }
 
 /** The parts' balance and interfaces of the model's stress (assemblyBalance with the parts' own body forces and names). */

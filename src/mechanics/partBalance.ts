@@ -354,32 +354,52 @@ function nodeMarks(N: number): Int32Array {
  * the part's slot is looked up only where the part changes.
  */
 function countAndMark(mark: Int32Array | null, mesh: Mesh): { numbers: number[]; elements: Int32Array } {
-  const met: number[] = [], slotOf = new Map<number, number>()
-  let counts = new Int32Array(8)
-  const slot = (p: number): number => {
-    let r = slotOf.get(p)
-    if (r === undefined) {
-      r = met.length; met.push(p); slotOf.set(p, r)
-      if (r === counts.length) { const grown = new Int32Array(2 * r); grown.set(counts); counts = grown }
-    }
-    return r
-  }
+  const acc: PartCounts = { met: [], slotOf: new Map(), counts: new Int32Array(8) }
   for (const b of mesh.blocks) {
     const topo = ELEMENT_TYPES[b.type], count = b.ids.length
     // a block without part numbers is part 0, even without elements (partNumbers)
-    if (!b.part) { counts[slot(0)] += count; if (mark) markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, null, 0, count); continue }
-    const part = b.part
-    for (let s = 0; s < count;) {
-      const p = part[s]
-      let e = s + 1
-      while (e < count && part[e] === p) e++
-      counts[slot(p)] += e - s
-      if (mark) markRun(mark, b.conn, topo.nodeCount, topo.cornerCount, p, s, e)
-      s = e
-    }
+    if (!b.part) { acc.counts[partSlot(acc, 0)] += count; if (mark) markNodes(mark, b.conn, topo.nodeCount, topo.cornerCount, null, 0, count); continue }
+    countRuns(acc, b.part, count, mark, b.conn, topo.nodeCount, topo.cornerCount)
   }
+  const { met, counts } = acc
   const order = met.map((_, i) => i).sort((x, y) => met[x] - met[y])
   return { numbers: order.map((r) => met[r]), elements: Int32Array.from(order, (r) => counts[r]) }
+}
+
+/** Part numbers in the order met, their slots, and the element count per slot. */
+interface PartCounts { readonly met: number[]; readonly slotOf: Map<number, number>; counts: Int32Array }
+
+/** Part p's slot in `acc` (a new one for a part not met before). */
+function partSlot(acc: PartCounts, p: number): number {
+  let r = acc.slotOf.get(p)
+  if (r === undefined) {
+    r = acc.met.length; acc.met.push(p); acc.slotOf.set(p, r)
+    if (r === acc.counts.length) { const grown = new Int32Array(2 * r); grown.set(acc.counts); acc.counts = grown }
+  }
+  return r
+}
+
+/**
+ * The runs of one part in a block's part numbers: each run's element count into its part's slot,
+ * and its corners into the marks when given. A loop of its own with no closure in it: its
+ * compiled code then outlives the model it ran on (code that holds a closure made per call is
+ * dropped with it, and compiled again at the next load).
+ */
+function countRuns(acc: PartCounts, part: Int32Array, count: number, mark: Int32Array | null, conn: Int32Array, nn: number, cc: number): void {
+  for (let s = 0; s < count;) {
+    const p = part[s], e = runEnd(part, s, count)
+    acc.counts[partSlot(acc, p)] += e - s
+    if (mark) markRun(mark, conn, nn, cc, p, s, e)
+    s = e
+  }
+}
+
+/** The end of the run of part[s]'s number from s (a loop of its own: see countRuns). */
+function runEnd(part: Int32Array, s: number, count: number): number {
+  const p = part[s]
+  let e = s + 1
+  while (e < count && part[e] === p) e++
+  return e
 }
 
 /** Marks the corners of elements [from, to) of one block, all of part p (as markNodes). */
@@ -437,13 +457,22 @@ const REF = 8
  * and the sum of |face force|, over its sides in its boundary order (forEachSide's merge, inline).
  */
 function partSurfaceSums(out: Float64Array, b: PartBoundaries): Float64Array {
-  const { outer, inner, outerPart, innerPart } = b, Fo = outer.count, Fi = inner.count
-  const oF = b.outerTractions.force, oM = b.outerTractions.moment, iF = b.innerTractions.force, iM = b.innerTractions.moment
+  const { outer, inner } = b
+  // the loop takes typed arrays only: code compiled for one model's objects is dropped when they
+  // die and compiled again at the next load (countRuns)
+  return surfaceSums(out, outer.count, outer.elem, outer.localFace, b.outerPart, b.outerTractions.force, b.outerTractions.moment,
+    inner.count, inner.elem, inner.localFace, b.innerPart, b.innerTractions.force, b.innerTractions.moment)
+}
+
+function surfaceSums(
+  out: Float64Array, Fo: number, oElem: Int32Array, oLocal: Uint8Array, outerPart: Int32Array, oF: Float64Array, oM: Float64Array,
+  Fi: number, iElem: Int32Array, iLocal: Uint8Array, innerPart: Int32Array, iF: Float64Array, iM: Float64Array,
+): Float64Array {
   // one site per array read, whichever side comes next: a site first reached after the loop was
   // compiled would send it back to the interpreter (the outer faces run alone for long stretches)
   let i = 0, j = 0
   while (i < Fo || j < Fi) {
-    const ko = i < Fo ? REF * outer.elem[i] + outer.localFace[i] : Infinity, ki = j < Fi ? REF * inner.elem[j] + inner.localFace[j] : Infinity
+    const ko = i < Fo ? REF * oElem[i] + oLocal[i] : Infinity, ki = j < Fi ? REF * iElem[j] + iLocal[j] : Infinity
     const takeOuter = ko < ki, t = takeOuter ? 1 : 0
     const F = takeOuter ? oF : iF, M = takeOuter ? oM : iM, P = takeOuter ? outerPart : innerPart, f = takeOuter ? i : j
     i += t; j += 1 - t
@@ -461,7 +490,10 @@ const ACC = 15
 
 /** Pairs of sides (shared nodes, then meshed apart), the side in the lower part first, as Int32Array(2·pairs). */
 function sidePairs(b: PartBoundaries): Int32Array {
-  const { outer, inner, outerPart, innerPart, innerTwin, outerTwin } = b, Fo = outer.count, Fi = inner.count
+  return pairsOfSides(b.outer.count, b.outerPart, b.outerTwin, b.inner.count, b.innerPart, b.innerTwin)
+}
+
+function pairsOfSides(Fo: number, outerPart: Int32Array, outerTwin: Int32Array | null, Fi: number, innerPart: Int32Array, innerTwin: Int32Array): Int32Array {
   let n = 0
   for (let i = 0; i < Fi; i++) if (i < innerTwin[i]) n++
   if (outerTwin) for (let f = 0; f < Fo; f++) if (f < outerTwin[f]) n++
@@ -484,31 +516,38 @@ function sidePairs(b: PartBoundaries): Int32Array {
 
 /** Sums the pairs into `acc` (ACC per slot; slot[q] is pair q's interface). */
 function sumPairs(acc: Float64Array, pairs: Int32Array, slot: Int32Array, b: PartBoundaries): void {
-  const { outer, inner, outerTractions: oT, innerTractions: iT } = b, Fo = outer.count
+  const { outer, inner, outerTractions: oT, innerTractions: iT } = b
+  sumSides(acc, pairs, slot, outer.count, outer.area, outer.centroid, oT.force, oT.moment, oT.meanMagnitude, inner.area, inner.centroid, iT.force, iT.moment, iT.meanMagnitude)
+}
+
+function sumSides(
+  acc: Float64Array, pairs: Int32Array, slot: Int32Array, Fo: number,
+  oArea: Float64Array, oCentroid: Float64Array, oForce: Float64Array, oMoment: Float64Array, oMag: Float64Array,
+  iArea: Float64Array, iCentroid: Float64Array, iForce: Float64Array, iMoment: Float64Array, iMag: Float64Array,
+): void {
   for (let q = 0; q < slot.length; q++) {
     const sa = pairs[2 * q], sb = pairs[2 * q + 1], o = ACC * slot[q]
-    const A = sa < Fo ? outer : inner, TA = sa < Fo ? oT : iT, fa = sa < Fo ? sa : sa - Fo
-    const B = sb < Fo ? outer : inner, TB = sb < Fo ? oT : iT, fb = sb < Fo ? sb : sb - Fo
-    const ar = B.area[fb]
+    const outerA = sa < Fo, outerB = sb < Fo
+    const fa = outerA ? sa : sa - Fo, fb = outerB ? sb : sb - Fo
+    const areaA = outerA ? oArea : iArea, forceA = outerA ? oForce : iForce, magA = outerA ? oMag : iMag
+    const areaB = outerB ? oArea : iArea, centB = outerB ? oCentroid : iCentroid, forceB = outerB ? oForce : iForce
+    const momB = outerB ? oMoment : iMoment, magB = outerB ? oMag : iMag
+    const ar = areaB[fb]
     acc[o]++
     acc[o + 1] += ar
-    acc[o + 2] += ar * B.centroid[3 * fb]; acc[o + 3] += ar * B.centroid[3 * fb + 1]; acc[o + 4] += ar * B.centroid[3 * fb + 2]
-    acc[o + 5] += TB.force[3 * fb]; acc[o + 6] += TB.force[3 * fb + 1]; acc[o + 7] += TB.force[3 * fb + 2]
-    acc[o + 8] += TA.force[3 * fa]; acc[o + 9] += TA.force[3 * fa + 1]; acc[o + 10] += TA.force[3 * fa + 2]
-    acc[o + 11] += TB.moment[3 * fb]; acc[o + 12] += TB.moment[3 * fb + 1]; acc[o + 13] += TB.moment[3 * fb + 2]
-    acc[o + 14] += 0.5 * (TB.meanMagnitude[fb] * ar + TA.meanMagnitude[fa] * A.area[fa])
+    acc[o + 2] += ar * centB[3 * fb]; acc[o + 3] += ar * centB[3 * fb + 1]; acc[o + 4] += ar * centB[3 * fb + 2]
+    acc[o + 5] += forceB[3 * fb]; acc[o + 6] += forceB[3 * fb + 1]; acc[o + 7] += forceB[3 * fb + 2]
+    acc[o + 8] += forceA[3 * fa]; acc[o + 9] += forceA[3 * fa + 1]; acc[o + 10] += forceA[3 * fa + 2]
+    acc[o + 11] += momB[3 * fb]; acc[o + 12] += momB[3 * fb + 1]; acc[o + 13] += momB[3 * fb + 2]
+    acc[o + 14] += 0.5 * (magB[fb] * ar + magA[fa] * areaA[fa])
   }
 }
 
-/** Sums the pairs of sides per pair of parts. */
-function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
-  const { outer, numbers, outerPart, innerPart } = b, Fo = outer.count, K = numbers.length
-  const pairs = sidePairs(b), P = pairs.length / 2
-  // each pair's interface: slots by key ka · K + kb (part indices ascend with the numbers), in the
-  // order first met; the map only where the pair of parts changes (pairs come in runs)
-  const slot = new Int32Array(P), keys: number[] = [], slotOf = new Map<number, number>()
+/** Each pair's interface slot into `slot`, the slots' keys ka · K + kb into `keys` in the order first met. */
+function pairSlots(slot: Int32Array, keys: number[], pairs: Int32Array, Fo: number, outerPart: Int32Array, innerPart: Int32Array, K: number): void {
+  const slotOf = new Map<number, number>()
   let lastKey = -1, last = -1
-  for (let q = 0; q < P; q++) {
+  for (let q = 0; q < slot.length; q++) {
     const sa = pairs[2 * q], sb = pairs[2 * q + 1]
     const key = (sa < Fo ? outerPart[sa] : innerPart[sa - Fo]) * K + (sb < Fo ? outerPart[sb] : innerPart[sb - Fo])
     if (key !== lastKey) {
@@ -518,6 +557,17 @@ function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<Assembly
     }
     slot[q] = last
   }
+}
+
+/** Sums the pairs of sides per pair of parts. */
+function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<AssemblyBalance, 'interfaces' | 'interfaceMesh'> {
+  const { outer, numbers, outerPart, innerPart } = b, Fo = outer.count, K = numbers.length
+  const pairs = sidePairs(b), P = pairs.length / 2
+  // (the loops are functions of their own, this one has none: see countRuns)
+  // each pair's interface: slots by key ka · K + kb (part indices ascend with the numbers), in the
+  // order first met; the map only where the pair of parts changes (pairs come in runs)
+  const slot = new Int32Array(P), keys: number[] = []
+  pairSlots(slot, keys, pairs, Fo, outerPart, innerPart, K)
   const acc = new Float64Array(ACC * keys.length)
   sumPairs(acc, pairs, slot, b)
   const order = keys.map((_, i) => i).sort((x, y) => keys[x] - keys[y])
@@ -541,23 +591,32 @@ function matchInterfaces(coords: Float64Array, b: PartBoundaries): Pick<Assembly
  * `order` of their slots, each one's faces in pair order), for drawing.
  */
 function interfaceTriangles(coords: Float64Array, b: PartBoundaries, pairs: Int32Array, slot: Int32Array, order: readonly number[]): AssemblyBalance['interfaceMesh'] {
-  const { outer, inner } = b, Fo = outer.count, S = order.length, P = slot.length
-  // triangles per slot, then each slot's first triangle in the drawing order
+  const { outer, inner } = b, S = order.length
   const rankOf = new Int32Array(S)
-  order.forEach((i, r) => { rankOf[i] = r })
+  for (let r = 0; r < S; r++) rankOf[order[r]] = r
+  return trianglesOfPairs(coords, pairs, slot, rankOf, outer.count, outer.kind, outer.nodes, outer.slots, inner.kind, inner.nodes, inner.slots)
+}
+
+function trianglesOfPairs(
+  coords: Float64Array, pairs: Int32Array, slot: Int32Array, rankOf: Int32Array, Fo: number,
+  oKind: Uint8Array, oNodes: Int32Array, oSlots: number, iKind: Uint8Array, iNodes: Int32Array, iSlots: number,
+): AssemblyBalance['interfaceMesh'] {
+  const S = rankOf.length, P = slot.length
+  // triangles per slot, then each slot's first triangle in the drawing order
   const offsets = new Int32Array(S + 1)
   for (let q = 0; q < P; q++) {
     const s = pairs[2 * q + 1]
-    offsets[rankOf[slot[q]] + 1] += faceCornerCount(s < Fo ? outer.kind[s] : inner.kind[s - Fo]) - 2
+    offsets[rankOf[slot[q]] + 1] += faceCornerCount(s < Fo ? oKind[s] : iKind[s - Fo]) - 2
   }
   for (let r = 0; r < S; r++) offsets[r + 1] += offsets[r]
   const T = offsets[S], positions = new Float32Array(9 * T), next = offsets.slice(0, S)
   for (let q = 0; q < P; q++) {
-    const s = pairs[2 * q + 1], f = s < Fo ? outer : inner, face = s < Fo ? s : s - Fo, nc = faceCornerCount(f.kind[face]), base = f.slots * face
+    const s = pairs[2 * q + 1], isOuter = s < Fo, face = isOuter ? s : s - Fo
+    const nodes = isOuter ? oNodes : iNodes, nc = faceCornerCount(isOuter ? oKind[face] : iKind[face]), base = (isOuter ? oSlots : iSlots) * face
     let t = 3 * next[rankOf[slot[q]]]
     for (let c = 1; c + 1 < nc; c++) {
       for (let k = 0; k < 3; k++) {
-        const v = f.nodes[base + (k === 0 ? 0 : c + k - 1)]
+        const v = nodes[base + (k === 0 ? 0 : c + k - 1)]
         positions[3 * t] = coords[3 * v]; positions[3 * t + 1] = coords[3 * v + 1]; positions[3 * t + 2] = coords[3 * v + 2]
         t++
       }

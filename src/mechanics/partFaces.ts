@@ -36,13 +36,13 @@ export interface PartSides {
 export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null, reuse = false): PartSides {
   const recorded = recordedPartPairs(mesh)
   let C: number, partner: Int32Array, at: Int32Array, P = 0
+  // (no loop here: the loops are functions of their own, whose compiled code outlives the model)
   if (recorded) {
     // the pairs the boundary extraction found (partPairs.ts): every reference is a side
     C = recorded.length
     partner = sidesFromPairs(recorded)
     at = keptInt32('at', C)
-    for (let i = 0; i < C; i++) at[i] = i
-    P = C
+    P = numberSides(at, partner, C)
   } else {
     const mark = marked ?? markSharedNodes(mesh)
     const listed = listElements(mesh, mark)
@@ -50,17 +50,28 @@ export function facesBetweenParts(mesh: Mesh, marked: Int32Array | null = null, 
     partner = pairFaces(C)
     // the sides: candidates with a twin, already in (element, local face) order
     at = keptInt32('at', C)
-    for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+    P = numberSides(at, partner, C)
   }
   const blocks = mesh.blocks, S = faceSlotsOf(blocks)
-  const out = (key: string, n: number) => (reuse ? keptInt32(key, n) : new Int32Array(n))
-  const twin = out('twin', P), elem = out('elem', P), nodes = out('nodes', S * P)
+  const twin = sideArray('twin', P, reuse), elem = sideArray('elem', P, reuse), nodes = sideArray('nodes', S * P, reuse)
   const localFace = reuse ? keptUint8('localFace', P) : new Uint8Array(P), kind = reuse ? keptUint8('kind', P) : new Uint8Array(P)
   const area = reuse ? keptFloat64('area', P) : new Float64Array(P), normal = reuse ? keptFloat64('normal', 3 * P) : new Float64Array(3 * P)
   const centroid = reuse ? keptFloat64('centroid', 3 * P) : new Float64Array(3 * P)
   writeSides(twin, elem, localFace, kind, nodes, S, mesh, C, partner, at)
   computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
   return { faces: { count: P, slots: S, elem, localFace, kind, nodes, area, normal, centroid }, twin }
+}
+
+/** Numbers the candidates with a twin (partner ≥ 0) in order into `at`; returns their count. */
+function numberSides(at: Int32Array, partner: Int32Array, C: number): number {
+  let P = 0
+  for (let i = 0; i < C; i++) if (partner[i] >= 0) at[i] = P++
+  return P
+}
+
+/** A side array of n numbers: a kept one with `reuse`, else new. */
+function sideArray(key: string, n: number, reuse: boolean): Int32Array {
+  return reuse ? keptInt32(key, n) : new Int32Array(n)
 }
 
 /**
