@@ -69,152 +69,217 @@ export function extractBoundaryFaces(mesh: Mesh): BoundaryFaces {
 export function extractBoundaryFacesInParts(mesh: Mesh, partFaces: number, maxParts = MAX_PARTS): BoundaryFaces {
   const N = mesh.nodeCount, E = mesh.elementCount
   const blocks = mesh.blocks
+  // Each pass is a function of its own over typed arrays and numbers: a function with several hot
+  // loops is compiled while its first loop runs, then dropped at the next loop (no feedback there
+  // yet) and compiled again, six or seven times per extraction (about 0.1 s of compiling at 10^6).
 
   // Pass 1: count faces per smallest corner node.
   const bucketStart = new Int32Array(N + 1)
   let total = 0
   for (const b of blocks) {
-    const topo = ELEMENT_TYPES[b.type]
-    const nn = topo.nodeCount, nf = topo.faces.length
-    const fc = topo.cornerFaces
-    const conn = b.conn
-    const count = conn.length / nn
-    total += count * nf
-    for (let e = 0; e < count; e++) {
-      const base = e * nn
-      for (let f = 0; f < nf; f++) {
-        let m = conn[base + fc[4 * f]]
-        const c1 = conn[base + fc[4 * f + 1]], c2 = conn[base + fc[4 * f + 2]]
-        if (c1 < m) m = c1
-        if (c2 < m) m = c2
-        const l3 = fc[4 * f + 3]
-        if (l3 >= 0) { const c3 = conn[base + l3]; if (c3 < m) m = c3 }
-        bucketStart[m + 1]++
-      }
-    }
+    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount, nf = topo.faces.length
+    total += countFaces(bucketStart, b.conn, nn, nf, topo.cornerFaces, b.conn.length / nn)
   }
-  for (let i = 0; i < N; i++) bucketStart[i + 1] += bucketStart[i]
+  const maxBucket = prefixSum(bucketStart, N)
 
   // Passes 2 and 3 run over parts of the node range, each holding at most PART_FACES faces (or one
   // bucket), so the temporaries stay at 16 bytes × PART_FACES however large the mesh: a face
   // belongs to the part of its smallest corner, and the buckets of a part are consecutive.
-  let maxBucket = 0
-  for (let n = 0; n < N; n++) { const c = bucketStart[n + 1] - bucketStart[n]; if (c > maxBucket) maxBucket = c }
   const cap = Math.min(total, Math.max(partFaces, maxBucket, Math.ceil(total / maxParts)))
-  const ref = new Int32Array(cap), k1 = new Int32Array(cap), k2 = new Int32Array(cap), k3 = new Int32Array(cap)
+  const t: MatchTable = { ref: new Int32Array(cap), k1: new Int32Array(cap), k2: new Int32Array(cap), k3: new Int32Array(cap) }
   const cursor = bucketStart.slice(0, N)
   // Boundary flags, one bit per local face of each element.
   const isBoundary = new Uint8Array(E)
-  let boundaryCount = 0
   // With two parts or more: the interior faces between parts, recorded for the parts' boundaries (partPairs.ts).
   const partOf = elementParts(mesh)
-  let between = partOf ? new Int32Array(1024) : EMPTY_PAIRS, pairCount = 0
+  const found: Matched = { boundary: 0, between: partOf ? new Int32Array(1024) : EMPTY_PAIRS, pairs: 0, badFrom: -1, badTo: -1, badNode: -1 }
   for (let lo = 0; lo < N;) {
     const base = bucketStart[lo]
-    let hi = lo + 1
-    while (hi < N && bucketStart[hi + 1] - base <= cap) hi++
+    const hi = partEnd(bucketStart, lo, N, base, cap)
     const span = hi - lo
 
     // Pass 2: place each face of this part in its bucket with its other corners sorted ascending
     // (k3 = -1 for triangles, so a triangle never matches a quadrilateral).
     for (const b of blocks) {
-      const topo = ELEMENT_TYPES[b.type]
-      const nn = topo.nodeCount, nf = topo.faces.length
-      const fc = topo.cornerFaces
-      const conn = b.conn, off = b.offset, cc = topo.cornerCount
-      const count = conn.length / nn
-      for (let e = 0; e < count; e++) {
-        const eb = e * nn
-        if (span < N) {
-          // Several parts: an element whose corners all lie outside this part's node range has
-          // no face here (every face's smallest corner lies between its own smallest and largest).
-          let eMin = conn[eb], eMax = eMin
-          for (let k = 1; k < cc; k++) { const v = conn[eb + k]; eMin = Math.min(eMin, v); eMax = Math.max(eMax, v) }
-          if (eMin >= hi || eMax < lo) continue
-        }
-        for (let f = 0; f < nf; f++) {
-          let a = conn[eb + fc[4 * f]], bb = conn[eb + fc[4 * f + 1]], c = conn[eb + fc[4 * f + 2]]
-          const l3 = fc[4 * f + 3]
-          let d = l3 >= 0 ? conn[eb + l3] : 0x7fffffff
-          // Faces of other parts are skipped before sorting (unsigned compare: one test for both ends).
-          if (((Math.min(Math.min(a, bb), Math.min(c, d)) - lo) >>> 0) >= span) continue
-          // Sorting network for four values (d = +∞ for triangles stays last).
-          let t: number
-          if (a > bb) { t = a; a = bb; bb = t }
-          if (c > d) { t = c; c = d; d = t }
-          if (a > c) { t = a; a = c; c = t }
-          if (bb > d) { t = bb; bb = d; d = t }
-          if (bb > c) { t = bb; bb = c; c = t }
-          const p = cursor[a]++ - base
-          ref[p] = (off + e) * REF_STRIDE + f
-          k1[p] = bb; k2[p] = c; k3[p] = d === 0x7fffffff ? -1 : d
-        }
-      }
+      const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount
+      placeFaces(t, cursor, base, b.conn, nn, topo.faces.length, topo.cornerFaces, topo.cornerCount, b.offset, b.conn.length / nn, lo, hi, span, N)
     }
 
     // Pass 3: order each bucket by (k1, k2, k3) (insertion sort: buckets are small) and flag runs of one.
-    for (let n = lo; n < hi; n++) {
-      const s = bucketStart[n] - base, t = bucketStart[n + 1] - base
-      if (t - s > 64) sortLargeBucket(ref, k1, k2, k3, s, t)
-      else for (let i = s + 1; i < t; i++) {
-        const r = ref[i], a = k1[i], b = k2[i], c = k3[i]
-        let j = i - 1
-        while (j >= s && (k1[j] > a || (k1[j] === a && (k2[j] > b || (k2[j] === b && k3[j] > c))))) {
-          ref[j + 1] = ref[j]; k1[j + 1] = k1[j]; k2[j + 1] = k2[j]; k3[j + 1] = k3[j]
-          j--
-        }
-        ref[j + 1] = r; k1[j + 1] = a; k2[j + 1] = b; k3[j + 1] = c
-      }
-      let i = s
-      while (i < t) {
-        let j = i + 1
-        while (j < t && k1[j] === k1[i] && k2[j] === k2[i] && k3[j] === k3[i]) j++
-        const run = j - i
-        if (run === 1) { const r = ref[i]; isBoundary[r >> 3] |= 1 << (r & 7); boundaryCount++ }
-        else if (run > 2) throw sharedFaceError(mesh, ref, i, j, n, k1[i], k2[i], k3[i])
-        else if (partOf !== null) {
-          const ra = ref[i], rb = ref[i + 1]
-          if (partOf[ra >> 3] !== partOf[rb >> 3]) {
-            if (pairCount === between.length) { const grown = new Int32Array(2 * pairCount); grown.set(between); between = grown }
-            between[pairCount++] = Math.min(ra, rb); between[pairCount++] = Math.max(ra, rb)
-          }
-        }
-        i = j
-      }
+    if (!matchBuckets(t, bucketStart, base, lo, hi, isBoundary, partOf, found)) {
+      const i = found.badFrom
+      throw sharedFaceError(mesh, t.ref, i, found.badTo, found.badNode, t.k1[i], t.k2[i], t.k3[i])
     }
     lo = hi
   }
 
   // Pass 4: emit boundary faces in element order.
-  const F = boundaryCount
+  const F = found.boundary
   const elem = new Int32Array(F), localFace = new Uint8Array(F), kind = new Uint8Array(F)
   const S = faceSlotsOf(blocks)
   const nodes = new Int32Array(S * F).fill(-1)
   let k = 0
   for (const b of blocks) {
-    const topo = ELEMENT_TYPES[b.type]
-    const nn = topo.nodeCount, nf = topo.faces.length
-    const conn = b.conn, off = b.offset
-    const count = conn.length / nn
-    for (let e = 0; e < count; e++) {
-      const g = off + e
-      for (let f = 0; f < nf; f++) {
-        if (!(isBoundary[g] & (1 << f))) continue
-        const face = topo.faces[f]
-        elem[k] = g; localFace[k] = f; kind[k] = FACE_KIND_CODE[topo.faceKinds[f]]
-        for (let a = 0; a < face.length; a++) nodes[S * k + a] = conn[e * nn + face[a]]
-        k++
-      }
-    }
+    const topo = ELEMENT_TYPES[b.type], nn = topo.nodeCount
+    const codes = Uint8Array.from(topo.faceKinds, (kd) => FACE_KIND_CODE[kd])
+    k = emitFaces(elem, localFace, kind, nodes, S, k, isBoundary, b.conn, nn, topo.faces, codes, b.offset, b.conn.length / nn)
   }
 
   const area = new Float64Array(F), normal = new Float64Array(3 * F), centroid = new Float64Array(3 * F)
   computeFaceGeometry(area, normal, centroid, mesh.coords, kind, nodes, S)
-  if (partOf) recordPartPairs(mesh, between.slice(0, pairCount))
+  if (partOf) recordPartPairs(mesh, found.between.slice(0, found.pairs))
   return { count: F, slots: S, elem, localFace, kind, nodes, area, normal, centroid }
 }
 
 const EMPTY_PAIRS = new Int32Array(0)
+
+/** The matching's temporaries: per face of a part, its reference and its other three corners sorted. */
+interface MatchTable { readonly ref: Int32Array; readonly k1: Int32Array; readonly k2: Int32Array; readonly k3: Int32Array }
+
+/** What pass 3 found: boundary faces, the pairs between parts, and a face of three elements or more (its run and bucket). */
+interface Matched { boundary: number; between: Int32Array; pairs: number; badFrom: number; badTo: number; badNode: number }
+
+/** Pass 1 for one block: each face counted in the bucket of its smallest corner (bucketStart[m + 1]); returns the faces. */
+function countFaces(bucketStart: Int32Array, conn: Int32Array, nn: number, nf: number, fc: Int32Array, count: number): number {
+  for (let e = 0; e < count; e++) {
+    const base = e * nn
+    for (let f = 0; f < nf; f++) {
+      let m = conn[base + fc[4 * f]]
+      const c1 = conn[base + fc[4 * f + 1]], c2 = conn[base + fc[4 * f + 2]]
+      if (c1 < m) m = c1
+      if (c2 < m) m = c2
+      const l3 = fc[4 * f + 3]
+      if (l3 >= 0) { const c3 = conn[base + l3]; if (c3 < m) m = c3 }
+      bucketStart[m + 1]++
+    }
+  }
+  return count * nf
+}
+
+/** The counts into bucket starts (in place); returns the largest bucket. */
+function prefixSum(bucketStart: Int32Array, N: number): number {
+  let maxBucket = 0
+  for (let i = 0; i < N; i++) {
+    const c = bucketStart[i + 1]
+    if (c > maxBucket) maxBucket = c
+    bucketStart[i + 1] += bucketStart[i]
+  }
+  return maxBucket
+}
+
+/** The end of the part of the node range from lo: the buckets that fit in `cap` faces (one at least). */
+function partEnd(bucketStart: Int32Array, lo: number, N: number, base: number, cap: number): number {
+  let hi = lo + 1
+  while (hi < N && bucketStart[hi + 1] - base <= cap) hi++
+  return hi
+}
+
+/** Pass 2 for one block: its faces whose smallest corner lies in [lo, hi) into their buckets, the other corners sorted. */
+function placeFaces(
+  t: MatchTable, cursor: Int32Array, base: number, conn: Int32Array, nn: number, nf: number, fc: Int32Array, cc: number, off: number, count: number,
+  lo: number, hi: number, span: number, N: number,
+): void {
+  const ref = t.ref, k1 = t.k1, k2 = t.k2, k3 = t.k3
+  for (let e = 0; e < count; e++) {
+    const eb = e * nn
+    if (span < N) {
+      // Several parts: an element whose corners all lie outside this part's node range has
+      // no face here (every face's smallest corner lies between its own smallest and largest).
+      let eMin = conn[eb], eMax = eMin
+      for (let k = 1; k < cc; k++) { const v = conn[eb + k]; eMin = Math.min(eMin, v); eMax = Math.max(eMax, v) }
+      if (eMin >= hi || eMax < lo) continue
+    }
+    for (let f = 0; f < nf; f++) {
+      let a = conn[eb + fc[4 * f]], bb = conn[eb + fc[4 * f + 1]], c = conn[eb + fc[4 * f + 2]]
+      const l3 = fc[4 * f + 3]
+      let d = l3 >= 0 ? conn[eb + l3] : 0x7fffffff
+      // Faces of other parts are skipped before sorting (unsigned compare: one test for both ends).
+      if (((Math.min(Math.min(a, bb), Math.min(c, d)) - lo) >>> 0) >= span) continue
+      // Sorting network for four values (d = +∞ for triangles stays last).
+      let x: number
+      if (a > bb) { x = a; a = bb; bb = x }
+      if (c > d) { x = c; c = d; d = x }
+      if (a > c) { x = a; a = c; c = x }
+      if (bb > d) { x = bb; bb = d; d = x }
+      if (bb > c) { x = bb; bb = c; c = x }
+      const p = cursor[a]++ - base
+      ref[p] = (off + e) * REF_STRIDE + f
+      k1[p] = bb; k2[p] = c; k3[p] = d === 0x7fffffff ? -1 : d
+    }
+  }
+}
+
+/**
+ * Pass 3 over the buckets [lo, hi): each ordered by (k1, k2, k3) (insertion sort: buckets are
+ * small), runs of one flagged as boundary faces, runs of two between parts recorded. Returns
+ * false at a run of three or more (a face of three elements; its run and bucket in `found`).
+ */
+function matchBuckets(
+  t: MatchTable, bucketStart: Int32Array, base: number, lo: number, hi: number, isBoundary: Uint8Array, partOf: Int32Array | null, found: Matched,
+): boolean {
+  const ref = t.ref, k1 = t.k1, k2 = t.k2, k3 = t.k3
+  let boundary = found.boundary
+  for (let n = lo; n < hi; n++) {
+    const s = bucketStart[n] - base, e = bucketStart[n + 1] - base
+    if (e - s > 64) sortLargeBucket(ref, k1, k2, k3, s, e)
+    else sortBucket(ref, k1, k2, k3, s, e)
+    let i = s
+    while (i < e) {
+      let j = i + 1
+      while (j < e && k1[j] === k1[i] && k2[j] === k2[i] && k3[j] === k3[i]) j++
+      const run = j - i
+      if (run === 1) { const r = ref[i]; isBoundary[r >> 3] |= 1 << (r & 7); boundary++ }
+      else if (run > 2) { found.boundary = boundary; found.badFrom = i; found.badTo = j; found.badNode = n; return false }
+      else if (partOf !== null) {
+        const ra = ref[i], rb = ref[i + 1]
+        if (partOf[ra >> 3] !== partOf[rb >> 3]) addPair(found, Math.min(ra, rb), Math.max(ra, rb))
+      }
+      i = j
+    }
+  }
+  found.boundary = boundary
+  return true
+}
+
+/** Orders a small bucket [s, e) by (k1, k2, k3): insertion sort. */
+function sortBucket(ref: Int32Array, k1: Int32Array, k2: Int32Array, k3: Int32Array, s: number, e: number): void {
+  for (let i = s + 1; i < e; i++) {
+    const r = ref[i], a = k1[i], b = k2[i], c = k3[i]
+    let j = i - 1
+    while (j >= s && (k1[j] > a || (k1[j] === a && (k2[j] > b || (k2[j] === b && k3[j] > c))))) {
+      ref[j + 1] = ref[j]; k1[j + 1] = k1[j]; k2[j + 1] = k2[j]; k3[j + 1] = k3[j]
+      j--
+    }
+    ref[j + 1] = r; k1[j + 1] = a; k2[j + 1] = b; k3[j + 1] = c
+  }
+}
+
+/** Records a pair of face references between parts (the lower first), growing the list as needed. */
+function addPair(found: Matched, a: number, b: number): void {
+  if (found.pairs === found.between.length) { const grown = new Int32Array(2 * found.pairs); grown.set(found.between); found.between = grown }
+  found.between[found.pairs++] = a; found.between[found.pairs++] = b
+}
+
+/** Pass 4 for one block: its flagged faces in element order from index k on; returns the next index. */
+function emitFaces(
+  elem: Int32Array, localFace: Uint8Array, kind: Uint8Array, nodes: Int32Array, S: number, k: number, isBoundary: Uint8Array,
+  conn: Int32Array, nn: number, faces: readonly (readonly number[])[], codes: Uint8Array, off: number, count: number,
+): number {
+  const nf = faces.length
+  for (let e = 0; e < count; e++) {
+    const g = off + e, flags = isBoundary[g]
+    if (flags === 0) continue
+    for (let f = 0; f < nf; f++) {
+      if (!(flags & (1 << f))) continue
+      const face = faces[f]
+      elem[k] = g; localFace[k] = f; kind[k] = codes[f]
+      for (let a = 0; a < face.length; a++) nodes[S * k + a] = conn[e * nn + face[a]]
+      k++
+    }
+  }
+  return k
+}
+
 
 /** Orders a big bucket (a node shared by very many elements) without the quadratic insertion sort. */
 function sortLargeBucket(ref: Int32Array, k1: Int32Array, k2: Int32Array, k3: Int32Array, s: number, t: number): void {
