@@ -35,6 +35,7 @@ import { coincidentFacePairs } from './interfaceFaces.ts'
 import { facesBetweenParts, keptFloat64, keptInt32, markNodes } from './partFaces.ts'
 import { addBoundaryVolumes, volumeOfSums, volumeSums } from './boundaryVolume.ts'
 import { recordedPartPairs } from './partPairs.ts'
+export { hasSeveralParts } from './partPairs.ts'
 
 export { INTERFACE_TOL } from './interfaceFaces.ts'
 
@@ -87,31 +88,6 @@ export function partNumbers(mesh: Mesh): number[] {
     }
   }
   return [...s].sort((a, b) => a - b)
-}
-
-/** Whether the mesh has two part numbers or more (partNumbers(mesh).length ≥ 2), read only up to the first second part. */
-export function hasSeveralParts(mesh: Mesh): boolean {
-  // the blocks' first and last elements tell at once for most assemblies (parts come in runs)
-  const ends: number[] = []
-  for (const b of mesh.blocks) {
-    if (!b.part) ends.push(0)
-    else if (b.part.length > 0) ends.push(b.part[0], b.part[b.part.length - 1])
-  }
-  if (ends.some((p) => p !== ends[0])) return true
-  let first = 0, seen = false
-  for (const b of mesh.blocks) {
-    if (!b.part) {
-      if (seen && first !== 0) return true
-      first = 0; seen = true
-      continue
-    }
-    const part = b.part
-    for (let e = 0; e < part.length; e++) {
-      const p = part[e]
-      if (!seen) { first = p; seen = true } else if (p !== first) return true
-    }
-  }
-  return false
 }
 
 /** The sub-mesh of one part's elements (same nodes) and its stress field. */

@@ -22,22 +22,36 @@ const recorded = new WeakMap<Mesh, Int32Array>()
  */
 export function elementParts(mesh: Mesh): Int32Array | null {
   const blocks = mesh.blocks
-  if (blocks.every((b) => !b.part)) return null
-  let first = NaN, several = false
-  for (const b of blocks) {
-    const part = b.part
-    if (!part) { if (b.ids.length > 0) { if (first !== first) first = 0; else if (first !== 0) several = true } continue }
-    for (let e = 0; e < part.length && !several; e++) {
-      if (first !== first) first = part[e]
-      else if (part[e] !== first) several = true
-    }
-    if (several) break
-  }
-  if (!several) return null
+  if (!hasSeveralParts(mesh)) return null
   if (blocks.length === 1) return blocks[0].part
   const out = new Int32Array(mesh.elementCount)
   for (const b of blocks) if (b.part) out.set(b.part, b.offset)
   return out
+}
+
+/** Whether the mesh has two part numbers or more (partNumbers(mesh).length ≥ 2), read only up to the first second part. */
+export function hasSeveralParts(mesh: Mesh): boolean {
+  // the blocks' first and last elements tell at once for most assemblies (parts come in runs)
+  const ends: number[] = []
+  for (const b of mesh.blocks) {
+    if (!b.part) ends.push(0)
+    else if (b.part.length > 0) ends.push(b.part[0], b.part[b.part.length - 1])
+  }
+  if (ends.some((p) => p !== ends[0])) return true
+  let first = 0, seen = false
+  for (const b of mesh.blocks) {
+    if (!b.part) {
+      if (seen && first !== 0) return true
+      first = 0; seen = true
+      continue
+    }
+    const part = b.part
+    for (let e = 0; e < part.length; e++) {
+      const p = part[e]
+      if (!seen) { first = p; seen = true } else if (p !== first) return true
+    }
+  }
+  return false
 }
 
 /** Records the pairs (2 references each) found by the extraction of `mesh`. */
