@@ -16,6 +16,7 @@ import { cutSection } from '../src/mechanics/sectionCut.ts'
 import { allocateElementBalance, computeElementBalance } from '../src/mechanics/balanceAudit.ts'
 import { modelStressField, nodalStressField } from '../src/model/stressField.ts'
 import { extentAlong, sweepAlong, sweepCasesAlong, sweepTransfer, withCombinations } from './sweep.ts'
+import { sortTrianglesSpatially, surfaceClusters } from '../src/mechanics/surfaceClusters.ts'
 import { buildSurfaceTriangles, fillVertexPatch } from '../src/mechanics/surfaceTriangles.ts'
 import { findLoadPatches } from '../src/mechanics/loadPatches.ts'
 import { computeBalanceVerdict } from '../src/mechanics/balanceVerdict.ts'
@@ -81,12 +82,14 @@ interface Loaded {
   basis: CaseBasis
   /**
    * The elements in chunks with their boxes (elementChunks.ts) on a large model: built on a pool
-   * worker right after the load, else here at the second cut.
+   * worker once the model's first picture is shown (`pictureShown`), else here at the second cut.
    */
   chunks: ElementChunks | null
   /** Cuts made of this model so far; whether a pool worker is building the chunks. */
   cuts: number
   chunksOnPool: boolean
+  /** The pool that builds the chunks once the first picture is shown (null: none, or asked already). */
+  chunksPool: KernelPool | null
 }
 
 let current: Loaded | null = null
@@ -305,14 +308,17 @@ function pictureOf(
   const mesh = model.mesh, stress = input.stress
   const tri = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants, balance.indicator, patches.faceLabel, jumpOf(mesh, stress, patches))
   const edges = buildFeatureEdges(mesh.coords, faces)
-  // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place) ---
+  // the triangles in spatial order, so that the scene can leave out clusters that cannot show
+  sortTrianglesSpatially(tri.positions, tri.index, [tri.triangleFace])
+  // --- assemblies: parts, interfaces; the surface's triangles grouped by part (in place, stable) ---
   const assembly = loadAssembly(model, stress, faces, tractions, patches.faceLabel, tri.index, tri.triangleFace, tri.faceVertexStart)
+  const clusters = surfaceClusters(tri.positions, tri.index, assembly ? assembly.partTriangles : null)
   const surface: SurfaceBuffers = {
     positions: tri.positions, normals: tri.normals, index: tri.index, scalars: tri.scalars,
-    ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments,
+    ranges: tri.ranges, patch: tri.patch, triangleFace: tri.triangleFace, edges: edges.segments, clusters,
   }
   const extras = loadExtras(model, faces, displayStressOf(input), tri.scalars, edges.nodes)
-  const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, ...Object.values(tri.scalars), ...extrasTransfer(extras),
+  const buffers = [tri.positions, tri.normals, tri.index, tri.triangleFace, tri.patch, edges.segments, clusters.start, clusters.bounds, ...Object.values(tri.scalars), ...extrasTransfer(extras),
     ...(assembly ? [assembly.partTriangles, assembly.vertexPart, assembly.interfacePositions, assembly.interfaceTriangles] : [])].map((a) => a.buffer as ArrayBuffer)
   const basis: CaseBasis = {
     faceVertexStart: tri.faceVertexStart, edgeNodes: edges.nodes, surfaceNodes: surfaceNodesOf(faces, mesh.nodeCount),
@@ -407,7 +413,13 @@ function chunksFor(cur: Loaded): ElementChunks | null {
   return cur.chunks
 }
 
-/** Starts the chunks' build on the pool for the model just loaded (its mesh in shared memory). */
+/**
+ * Starts the chunks' build on the pool for the model just loaded (its mesh in shared memory).
+ * Asked for when the app has shown the model's first picture (`pictureShown`), not with the load's
+ * reply: on two cores the build (and the warm-up cut after it) would otherwise take a core from
+ * the software rasteriser drawing that picture (at 10^7 elements its frame took 620-720 ms with
+ * them, 340-400 ms after them, measured).
+ */
 function chunksOnPool(p: KernelPool | null, loaded: Loaded): void {
   if (!p || loaded.model.mesh.elementCount < CHUNKS_MIN_ELEMENTS) return
   loaded.chunksOnPool = true
@@ -482,6 +494,14 @@ const api: EngineApi = {
     startPool()
   },
 
+  pictureShown() {
+    const cur = current
+    if (!cur || !cur.chunksPool || cur.chunks) return
+    const p = cur.chunksPool
+    cur.chunksPool = null
+    chunksOnPool(p, cur)
+  },
+
   async load(source: ModelSource, onProgress?: ProgressCallback, rule?: PatchRule): Promise<Outcome<LoadedModel>> {
     const report = throttle(onProgress)
     const clock = stageClock()
@@ -549,9 +569,8 @@ const api: EngineApi = {
       if (sharedMesh !== mesh) model = { ...model, mesh: sharedMesh }
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
-        vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0, chunksOnPool: false,
+        vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0, chunksOnPool: false, chunksPool: p,
       }
-      chunksOnPool(p, current)
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
       return Comlink.transfer({ ok: true, value }, buffers)

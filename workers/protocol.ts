@@ -15,6 +15,7 @@ import type { LengthUnit, ModelUnits, StressUnit } from '../src/model/units.ts'
 import type { Plane } from '../src/mechanics/plane.ts'
 import type { BodyBalance, LoadPatch, SectionResult } from '../src/mechanics/types.ts'
 import type { SurfaceQuantity, SurfaceTriangles } from '../src/mechanics/surfaceTriangles.ts'
+import type { SurfaceClusters } from '../src/mechanics/surfaceClusters.ts'
 import type { ArrowMode, ArrowSamples } from '../src/mechanics/arrowSampling.ts'
 import type { ComponentAxes } from '../src/mechanics/componentAxes.ts'
 import type { ComponentQuantity, ComponentScalars } from '../src/mechanics/componentScalars.ts'
@@ -90,6 +91,12 @@ export interface ModelSummary {
 export type SurfaceBuffers = Omit<SurfaceTriangles, 'faceVertexStart' | 'bounds'> & {
   /** Optional feature-edge segments, Float32Array(6·S), length units (src/mechanics/featureEdges.ts). */
   readonly edges?: Float32Array
+  /**
+   * Optional clusters of consecutive triangles with a bounding sphere and a normal cone each
+   * (src/mechanics/surfaceClusters.ts: `start` Int32Array(K + 1), `bounds` Float32Array(8·K)); the
+   * triangles are then in spatial order, and no cluster crosses a part's range (`partTriangles`).
+   */
+  readonly clusters?: SurfaceClusters
 }
 
 /**
@@ -408,6 +415,13 @@ export interface EngineApi {
   configure(options: ComputeOptions): void
   /** Reads and analyses a model; `rule`: the load-entry patch rule (the defaults when absent). */
   load(source: ModelSource, onProgress?: ProgressCallback, rule?: PatchRule): Promise<Outcome<LoadedModel>>
+  /**
+   * The app has shown the loaded model's first picture: the engine may start what follows a load
+   * and is not needed for it (a large model's element chunks on the pool, then a warm-up cut), so
+   * that this work does not share the cores with the picture's drawing. Not calling it costs only
+   * speed: the chunks are then built by the engine at the second cut.
+   */
+  pictureShown(): void
   surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
   cut(plane: Plane, arrows: ArrowRequest, options?: CutOptions): Promise<Outcome<CutReply>>
   probe(req: ProbeRequest): Promise<ProbeResult | null>

@@ -240,6 +240,9 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       shownKey = ''
       store.getState().modelLoaded(out.value)
       afterLoad?.(source)
+      // the engine's work after a load once the first picture is out: a frame for the scene to
+      // take the surface, one to draw it (EngineApi.pictureShown)
+      afterFrame(() => afterFrame(() => { if (gen === generation) void connection().calls.pictureShown().catch(() => undefined) }))
       void refreshSurfaceArrows()
       requestCut()
       // The load brings the components in global axes; other axes chosen before are asked for.

@@ -10,6 +10,7 @@ import { LineOverlay } from './LineOverlay.tsx'
 import { EDGE } from './sceneLook.ts'
 import { ArrowField } from './ArrowField.tsx'
 import { CameraRig } from './CameraRig.tsx'
+import { FirstDrawWarmUp } from './FirstDrawWarmUp.tsx'
 import { FeatureEdges } from './FeatureEdges.tsx'
 import { ProbeMarker } from './ProbeMarker.tsx'
 import { ProbePicker } from './ProbePicker.tsx'
@@ -140,6 +141,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
       <CameraRig />
       <ProbePicker />
       <SnapshotRegistrar />
+      <FirstDrawWarmUp />
       {surface && model && (
         <SurfaceMesh
           surface={surface} scalars={partColours ? assembly!.vertexPart : scalars} displacement={deformationBuffers?.surface ?? null} deformScale={deformScale}

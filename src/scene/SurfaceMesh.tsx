@@ -1,11 +1,11 @@
-import { useEffect, useLayoutEffect, useMemo, useState } from 'react'
+import { useEffect, useLayoutEffect, useMemo } from 'react'
 import { BackSide, BufferAttribute, BufferGeometry, FrontSide, Sphere, Vector3 } from 'three'
 import { useThree } from '@react-three/fiber'
 import type { SurfaceBuffers } from '../../workers/protocol.ts'
 import { colourMapTexture } from './colourMapTexture.ts'
 import { createScalarMaterial } from './scalarMaterial.ts'
-import { createSectionFillMaterial } from './SectionFill.tsx'
-import { sectionWarmObjects } from './sectionWarmUp.ts'
+import { useSurfaceCulling } from './useSurfaceCulling.ts'
+import type { CulledPass } from './useSurfaceCulling.ts'
 import type { ColourMapName } from '../state/store.ts'
 import type { Plane } from 'three'
 
@@ -35,10 +35,6 @@ export interface SurfaceMeshProps {
 
 /** Never raycast the big surface on the main thread: picking goes to the worker. */
 const noRaycast = (): void => {}
-
-let fillWarm: ReturnType<typeof createSectionFillMaterial> | null = null
-/** The section face's material for its warm draw, made once (see the warm-up below). */
-const sectionFillWarmMaterial = (): ReturnType<typeof createSectionFillMaterial> => (fillWarm ??= createSectionFillMaterial())
 
 /**
  * The boundary surface, colour-mapped by one scalar per vertex. The geometry is built once per
@@ -70,6 +66,14 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
   }, [positions, normals, index, bounds])
 
   useEffect(() => () => geometry.dispose(), [geometry])
+  // The back pass's own geometry over the same attributes and index: its groups differ (useSurfaceCulling).
+  const backGeometry = useMemo(() => {
+    const g = new BufferGeometry()
+    for (const [name, a] of Object.entries(geometry.attributes)) g.setAttribute(name, a)
+    g.setIndex(geometry.index)
+    g.boundingSphere = geometry.boundingSphere
+    return g
+  }, [geometry])
 
   const material = useMemo(() => {
     const m = createScalarMaterial(colourMapTexture('viridis'), clippingPlanes)
@@ -98,10 +102,16 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
 
   // The deformed shape: the displacement attribute (three frees it with the geometry).
   useEffect(() => {
-    if (displacement && displacement.length === 3 * V) geometry.setAttribute('displacement', new BufferAttribute(displacement, 3))
-    else geometry.deleteAttribute('displacement')
+    if (displacement && displacement.length === 3 * V) {
+      const a = new BufferAttribute(displacement, 3)
+      geometry.setAttribute('displacement', a)
+      backGeometry.setAttribute('displacement', a)
+    } else {
+      geometry.deleteAttribute('displacement')
+      backGeometry.deleteAttribute('displacement')
+    }
     invalidate()
-  }, [geometry, V, displacement, invalidate])
+  }, [geometry, backGeometry, V, displacement, invalidate])
 
   // The inside seen through the cut: a second pass over the same geometry, back faces only,
   // pushed further back in depth so front faces always win along silhouette edges.
@@ -125,47 +135,14 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
     invalidate()
   }, [material, backMaterial, colourMap, range, highlightedPatch, displacement, deformScale, invalidate])
 
-  // Hidden parts: only the shown parts' ranges are drawn (groups of one material; none drawn when empty).
-  useEffect(() => {
-    geometry.clearGroups()
-    if (ranges) for (const [first, count] of ranges) geometry.addGroup(3 * first, 3 * count, 0)
-    invalidate()
-  }, [geometry, ranges, invalidate])
-  const front = useMemo(() => (ranges ? [material] : material), [ranges, material])
-  const back = useMemo(() => (ranges ? [backMaterial] : backMaterial), [ranges, backMaterial])
-
-  // Warm-up. The first draw with a new shader and render state costs a compile (on software
-  // WebGL a JIT in the GPU process, which the main thread waits for when it reads the frame back:
-  // over a second at 10^6 elements, measured). Switching the section on brings two: the surface's
-  // back pass and the section face (and the handle, triad and section arrows: sectionWarmUp.ts). Each is drawn once, a single triangle, in its own frame
-  // shortly after the first picture, so the switch finds them ready. The warm geometries share
-  // the surface's attribute objects (no second upload) and are never disposed, which would free
-  // the shared buffers; the warm materials are kept for the page's life (three.js deletes a
-  // program with the last material that uses it, and the real one would compile it again).
-  const [warmStep, setWarmStep] = useState(0)
-  useEffect(() => setWarmStep(0), [geometry])
-  const warm = useMemo(() => {
-    if (warmStep !== 1 && warmStep !== 2) return null
-    const g = new BufferGeometry()
-    if (warmStep === 1) for (const [name, a] of Object.entries(geometry.attributes)) g.setAttribute(name, a)
-    else {
-      // The section face's layout: positions and one scalar.
-      g.setAttribute('position', geometry.getAttribute('position'))
-      g.setAttribute('scalar', geometry.getAttribute('scalar'))
-    }
-    g.setIndex(geometry.index)
-    g.setDrawRange(0, 3)
-    g.boundingSphere = geometry.boundingSphere
-    // the section's other first draws go with them (sectionWarmUp.ts)
-    return { geometry: g, material: warmStep === 1 ? backMaterial : sectionFillWarmMaterial(), step: warmStep, section: sectionWarmObjects(warmStep) }
-  }, [warmStep, geometry, backMaterial])
-  useEffect(() => {
-    if (warmStep === 0) return
-    // Steps 1 and 2 draw their triangle; step 3 draws the picture without them.
-    invalidate()
-  }, [warmStep, invalidate])
-  /** After a warm draw, the next one in a later task (its own frame). */
-  const warmed = useMemo(() => () => { setTimeout(() => setWarmStep((k) => (k === 1 || k === 2 ? k + 1 : k)), 50) }, [])
+  // What is drawn: the shown parts' clusters that face each pass's way and lie on the kept side
+  // of the section (groups of one material; none drawn when empty).
+  const clusters = surface.clusters
+  const passes = useMemo((): CulledPass[] => (clipped ? [{ geometry, facing: 1 }, { geometry: backGeometry, facing: -1 }] : [{ geometry, facing: 1 }]), [clipped, geometry, backGeometry])
+  useSurfaceCulling(passes, clusters, ranges, clippingPlanes, !(displacement && deformScale !== 0))
+  const grouped = clusters !== undefined || ranges !== null
+  const front = useMemo(() => (grouped ? [material] : material), [grouped, material])
+  const back = useMemo(() => (grouped ? [backMaterial] : backMaterial), [grouped, backMaterial])
 
   // The first draw of each surface (a load or another case) leaves a User Timing mark (the browser
   // tests time the first picture and the case switch by it).
@@ -175,16 +152,13 @@ export function SurfaceMesh({ surface, scalars, displacement, deformScale, range
       if (done) return
       done = true
       performance.mark('tractus:surface-drawn', { detail: { vertices: V } })
-      setTimeout(() => setWarmStep((k) => (k === 0 ? 1 : k)), 300)
     }
   }, [surface])
 
   return (
     <>
       <mesh geometry={geometry} material={front} raycast={noRaycast} frustumCulled={false} onAfterRender={markFirstDraw} />
-      {clipped && <mesh geometry={geometry} material={back} raycast={noRaycast} frustumCulled={false} />}
-      {warm && <mesh key={warm.step} geometry={warm.geometry} material={warm.material} raycast={noRaycast} frustumCulled={false} onAfterRender={warmed} />}
-      {warm && warm.section.map((o) => <primitive key={`${warm.step}-${o.uuid}`} object={o} />)}
+      {clipped && <mesh geometry={backGeometry} material={back} raycast={noRaycast} frustumCulled={false} />}
     </>
   )
 }

@@ -8,41 +8,33 @@ import { HALO, HANDLE } from './sceneLook.ts'
 import { textSprite } from './textSprite.ts'
 
 /**
- * Stand-ins for what switching the section on draws for the first time, drawn in the surface's
- * warm-up frames after the first picture (SurfaceMesh.tsx), so that the switch finds their
- * shaders compiled. On software WebGL a new shader and render state costs a compile in the GPU
- * process, which the main thread waits for when it reads the frame back: without these, the frame
- * that first shows a section at 10^7 elements took about 0.2 s longer than the same frame later
- * (measured). Each stand-in has the material, render state and vertex layout of the real object
- * (the handle's flat colour drawn over everything on both sides, the section triad's arrow, its
- * labels' sprite, the section arrows' instanced material without clipping planes), scaled to
- * nothing, so it draws no pixel. `step` 1 goes with the surface's back-pass warm frame, 2 with
- * the section face's. They are made once and kept for the page's life, never disposed: three.js
- * deletes a shader program when the last material using it is disposed, and the real objects
- * would then compile it again.
+ * Stand-ins for what switching the section on draws for the first time besides the surface's back
+ * pass and the section face, drawn among the page's first frames (FirstDrawWarmUp.tsx), so that
+ * the switch finds their shaders compiled. On software WebGL a new shader and render state costs
+ * a compile in the GPU process, which the main thread waits for when it reads the frame back:
+ * without these, the frame that first shows a section at 10^7 elements took about 0.2 s longer
+ * than the same frame later (measured). Each stand-in has the material, render state and vertex
+ * layout of the real object (the handle's flat colour drawn over everything on both sides, the
+ * section triad's arrow, its labels' sprite, the section arrows' instanced material without
+ * clipping planes), scaled to nothing, so it draws no pixel. Three kinds, each drawn in a frame
+ * of its own: 1 the handle, 2 the triad and its label, 3 the arrows. They are made once and kept
+ * for the page's life, never disposed (FirstDrawWarmUp.tsx scales them to nothing): three.js deletes a shader program when the last material
+ * using it is disposed, and the real objects would then compile it again.
  */
-export function sectionWarmObjects(step: 1 | 2): readonly Object3D[] {
-  return (made[step] ??= makeObjects(step))
+export function sectionWarmObjects(kind: 1 | 2 | 3): readonly Object3D[] {
+  return (made[kind] ??= makeObjects(kind))
 }
-const made: { 1?: Object3D[]; 2?: Object3D[] } = {}
+const made: { 1?: Object3D[]; 2?: Object3D[]; 3?: Object3D[] } = {}
 
-function makeObjects(step: 1 | 2): Object3D[] {
+function makeObjects(kind: 1 | 2 | 3): Object3D[] {
   const nothing = new Matrix4().makeScale(0, 0, 0)
-  if (step === 1) {
-    const railGeometry = new CylinderGeometry(1, 1, 1, 8, 1, true)
-    const handle = new Mesh(railGeometry, flatMaterial(HANDLE))
+  if (kind === 1) return [new Mesh(new CylinderGeometry(1, 1, 1, 8, 1, true), flatMaterial(HANDLE))]
+  if (kind === 2) {
     const triadMaterial = new MeshBasicMaterial({ color: rawColour(HALO), depthTest: false, depthWrite: false, toneMapped: false })
-    const triad = new Mesh(unitArrowGeometry(), triadMaterial)
-    const label = textSprite(' ', HALO)
-    const objects: Object3D[] = [handle, triad, label]
-    for (const o of objects) { o.scale.set(0, 0, 0); o.frustumCulled = false; o.raycast = () => {} }
-    return objects
+    return [new Mesh(unitArrowGeometry(), triadMaterial), textSprite(' ', HALO)]
   }
-  const material = createArrowMaterial([])
-  const arrows = new InstancedMesh(unitArrowGeometry(), material, 1)
+  const arrows = new InstancedMesh(unitArrowGeometry(), createArrowMaterial([]), 1)
   arrows.instanceColor = new InstancedBufferAttribute(new Float32Array(3), 3)
   arrows.setMatrixAt(0, nothing)
-  arrows.frustumCulled = false
-  arrows.raycast = () => {}
   return [arrows]
 }

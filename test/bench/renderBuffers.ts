@@ -1,5 +1,6 @@
 /**
  * Render-buffer builders on a seeded synthetic block (see syntheticModel.ts): surface triangles,
+ * their spatial order and clusters, the clusters one pass draws (per frame, on the UI thread),
  * feature edges, surface arrows at the default budget, section fan and section arrows, each the
  * median of several runs; checks run outside the timed part. Prints a table, then JSON.
  * Run: npx tsx test/bench/renderBuffers.ts [elements] [seed]
@@ -10,6 +11,8 @@ import { allocateNodalInvariants, computeNodalInvariants } from '../../src/mecha
 import { nodalStressField } from '../../src/model/stressField.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { buildSurfaceTriangles } from '../../src/mechanics/surfaceTriangles.ts'
+import { sortTrianglesSpatially, surfaceClusters } from '../../src/mechanics/surfaceClusters.ts'
+import { visibleClusterRuns } from '../../src/scene/clusterVisibility.ts'
 import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../../src/mechanics/sectionTriangles.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../../src/mechanics/arrowSampling.ts'
@@ -28,8 +31,18 @@ const { polygons } = cutSection(mesh, nodalStressField(mesh, model.stress), mode
 if (!polygons) throw new Error('the bench plane misses the block')
 
 const runs = 5
+const surface = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants)
+const order = (): void => sortTrianglesSpatially(surface.positions, surface.index.slice(), [surface.triangleFace.slice()])
+sortTrianglesSpatially(surface.positions, surface.index, [surface.triangleFace])
+const clusters = surfaceClusters(surface.positions, surface.index, null)
+const clusterRuns = new Int32Array(2 * clusters.start.length)
+// a view from outside a corner, with a section plane through the middle (the per-frame work of one pass)
+const view = { eye: [3, -4, 2.5], direction: [-0.5, 0.6, -0.4], facing: 1, plane: [1, 0, 0, -0.5] }
 const rows = [
   ['surfaceTriangles', measure(() => buildSurfaceTriangles(mesh.coords, faces, tractions, invariants), runs)],
+  ['surfaceOrder', measure(order, runs)],
+  ['surfaceClusters', measure(() => surfaceClusters(surface.positions, surface.index, null), runs)],
+  ['clusterRuns(frame)', measure(() => visibleClusterRuns(clusters.start, clusters.bounds, view, null, clusterRuns), 50)],
   ['featureEdges', measure(() => buildFeatureEdges(mesh.coords, faces), runs)],
   ['surfaceArrows(2000)', measure(() => sampleSurfaceArrows(faces, tractions, { budget: 2000 }), runs)],
   ['sectionTriangles', measure(() => buildSectionTriangles(polygons, BENCH_PLANE.normal), runs)],
@@ -42,7 +55,7 @@ if (s.index.length !== 3 * faces.count) throw new Error('tet4 faces must give on
 if (sampleSurfaceArrows(faces, tractions, { budget: 2000 }).count > 2000) throw new Error('arrow budget exceeded')
 
 const result = {
-  seed, elements: mesh.elementCount, boundaryFaces: faces.count, sectionPolygons: polygons.count,
+  seed, elements: mesh.elementCount, boundaryFaces: faces.count, sectionPolygons: polygons.count, clusters: clusters.start.length - 1,
   ms: Object.fromEntries(rows.map(([name, t]) => [name, Number(t.medianMs.toFixed(2))])),
   cpuMs: Object.fromEntries(rows.map(([name, t]) => [name, Number(t.cpuMs.toFixed(2))])),
 }

@@ -37,6 +37,7 @@ class FakeWorker {
   readonly calls: EngineCalls = {
     configure: async () => undefined,
     load: (source, _onProgress, rule) => { const reply = deferred<Outcome<LoadedModel>>(); this.loads.push({ source, reply, rule }); return reply.promise },
+    pictureShown: async () => undefined,
     surfaceArrows: async () => null,
     cut: (plane, arrows, options) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, options, reply }); return reply.promise },
     probe: async () => null,
