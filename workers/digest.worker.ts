@@ -1,9 +1,9 @@
 /** The digest worker: SHA-256 of one Blob at a time (workers/blobDigest.ts), nothing kept between calls. */
 import * as Comlink from 'comlink'
-import { digestBlob } from './blobDigest.ts'
+import { DIGEST_SLICE_BYTES, digestBlob } from './blobDigest.ts'
 
 const api = {
-  digest: (blob: Blob): Promise<string> => digestBlob(blob),
+  digest: (blob: Blob, share = 1): Promise<string> => digestBlob(blob, DIGEST_SLICE_BYTES, share),
 }
 
 export type DigestWorkerApi = typeof api

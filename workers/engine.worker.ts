@@ -90,6 +90,9 @@ interface Loaded {
   chunksOnPool: boolean
   /** The pool that builds the chunks once the first picture is shown (null: none, or asked already). */
   chunksPool: KernelPool | null
+  /** Lets the input files' digests start (they wait for the first picture); the records with them. */
+  startDigests: () => void
+  digests: Promise<readonly InputFileRecord[]> | null
 }
 
 let current: Loaded | null = null
@@ -496,6 +499,7 @@ const api: EngineApi = {
 
   pictureShown() {
     const cur = current
+    cur?.startDigests()
     if (!cur || !cur.chunksPool || cur.chunks) return
     const p = cur.chunksPool
     cur.chunksPool = null
@@ -511,12 +515,15 @@ const api: EngineApi = {
       clock.mark(source.kind === 'files' ? 'read' : 'generate')
       // The user's files come as Blobs and are read here, in slices (workers/inputFiles.ts).
       let inputs: readonly InputFileRecord[] | undefined
-      let digested: Promise<InputFileRecord[]> | undefined
+      let digested: Promise<InputFileRecord[]> | null = null
+      // the files' digests wait for the first picture (pictureShown), not to share the cores with the load
+      let startDigests = (): void => {}
+      const gate = new Promise<void>((resolve) => { startDigests = resolve })
       let model: Model
       if (source.kind === 'files') {
         // a container straight into shared memory when the pool shares the model: no copy later
-        const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f), SLICE_BYTES, pool?.sharing === 'shared' && pool.size > 0)
-        digested = read.inputs
+        const read = await readInputFiles(source.files, (f) => report('Reading files', 0.2 * f), SLICE_BYTES, pool?.sharing === 'shared' && pool.size > 0, gate)
+        if (read.records.length > 0) { digested = read.inputs; inputs = read.records }
         clock.mark('parse')
         model = await readFiles(read.files, source.units)
       } else model = syntheticModel(source.spec)
@@ -549,18 +556,12 @@ const api: EngineApi = {
       report('Surface buffers', 0.95); await yieldTurn()
       clock.mark('surfaceBuffers')
       const { basis, surface, extras, assembly, summary: figures, buffers } = pictureOf(model, faces, tractions, invariants, balance, body, patches, input)
-      if (digested) {
-        // the files' digests, computed on their own worker while the load ran (a stage of its
-        // own only for the wait that is left)
-        clock.mark('digests')
-        const records = await digested
-        inputs = records.length > 0 ? records : source.kind === 'files' ? source.inputs : undefined
-      }
+      if (!inputs && source.kind === 'files') inputs = source.inputs
       clock.mark('')
       const summary: ModelSummary = {
         ...figures, source: sourceLabel(source),
         compute: { stagesMs: clock.stages, workers: run.workers, sharing: run.sharing, ...(run.fallback ? { fallback: run.fallback } : {}) },
-        ...(inputs ? { inputs } : {}),
+        ...(inputs ? { inputs } : {}), ...(digested ? { digestsPending: true } : {}),
         stressLayout: input.stress.layout,
         unitsDeclared: (model as Partial<ReadModel>).intake?.unitsDeclared ?? true,
         ...caseSummary(model, firstCaseName(model)),
@@ -570,6 +571,7 @@ const api: EngineApi = {
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
         vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0, chunksOnPool: false, chunksPool: p,
+        startDigests, digests: digested,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -579,6 +581,13 @@ const api: EngineApi = {
       if (error) return { ok: false, error }
       throw e
     }
+  },
+
+  async inputDigests(): Promise<readonly InputFileRecord[] | null> {
+    const cur = current
+    if (!cur || !cur.digests) return null
+    cur.startDigests()
+    return cur.digests
   },
 
   async surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null> {

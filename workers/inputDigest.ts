@@ -2,24 +2,26 @@
  * SHA-256 (FIPS 180-4) of the user's files for the report's traceability, off the load's
  * critical path: a digest worker reads each Blob itself, a slice at a time into one reused
  * buffer, and hashes as it goes (@noble/hashes, incremental), so no file is held twice and the
- * engine's thread never waits on it until the load's end. The platform's own digest
+ * engine's thread never waits on it. The engine starts it after the model's first picture, at
+ * half a core (`share`), so that it takes a core neither from the load nor from the first cuts. The platform's own digest
  * (crypto.subtle) takes a whole buffer, copies it and blocks the calling thread while it hashes:
  * 1.6–3.2 s on the engine's thread for a 334 MB container in headless Chromium (load average 6–7).
  * Where no worker can start (Node, the tests) the same code runs here, one file after another.
  */
 import * as Comlink from 'comlink'
-import { digestBlob } from './blobDigest.ts'
+import { DIGEST_SLICE_BYTES, digestBlob } from './blobDigest.ts'
 import type { DigestWorkerApi } from './digest.worker.ts'
 
 /**
  * The digests of `blobs`, in order, computed on a worker of their own where one can start (else
- * here). Started at once; the caller awaits the promise when it needs the digests.
+ * here), taking `share` of a core (blobDigest.ts). Started at once; the caller awaits the promise
+ * when it needs the digests.
  */
-export function digestsOf(blobs: readonly Blob[]): Promise<string[]> {
+export function digestsOf(blobs: readonly Blob[], share = 1): Promise<string[]> {
   if (blobs.length === 0) return Promise.resolve([])
   const inline = async (): Promise<string[]> => {
     const out: string[] = []
-    for (const b of blobs) out.push(await digestBlob(b))
+    for (const b of blobs) out.push(await digestBlob(b, DIGEST_SLICE_BYTES, share))
     return out
   }
   if (typeof Worker === 'undefined') return inline()
@@ -34,7 +36,7 @@ export function digestsOf(blobs: readonly Blob[]): Promise<string[]> {
   const failed = new Promise<never>((_, reject) => { w.onerror = (e) => { e.preventDefault(); reject(new Error('digest worker failed')) } })
   const run = async (): Promise<string[]> => {
     const out: string[] = []
-    for (const b of blobs) out.push(await Promise.race([remote.digest(b), failed]))
+    for (const b of blobs) out.push(await Promise.race([remote.digest(b, share), failed]))
     return out
   }
   return run().catch(inline).finally(() => { remote[Comlink.releaseProxy](); w.terminate() })

@@ -6,8 +6,8 @@
  * its bytes dropped before the next file is read.
  *
  * Each file's SHA-256 (for the report's traceability) comes from a digest worker that reads the
- * same Blob itself as the load goes on (workers/inputDigest.ts); the records carrying the digests
- * are a promise the engine awaits at the load's end.
+ * same Blob itself (workers/inputDigest.ts); the records carrying the digests are a promise the
+ * engine hands on when the app asks (EngineApi.inputDigests), after the model's first picture.
  */
 import { decodeUtf8 } from '../src/io/detect.ts'
 import type { InputFile } from '../src/io/detect.ts'
@@ -25,7 +25,9 @@ const TEXT_EXTENSIONS = ['.csv', '.json', '.txt']
 
 export interface ReadInputs {
   readonly files: InputFile[]
-  /** One record per Blob read (name, size, digest), once the digests are done; empty when none was a Blob. */
+  /** One record per Blob read (name and size), at once; empty when none was a Blob. */
+  readonly records: readonly InputFileRecord[]
+  /** The same records with their digests, once the digests are done. */
   readonly inputs: Promise<InputFileRecord[]>
 }
 
@@ -59,13 +61,19 @@ export async function readInSlices(blob: Blob, read: (bytes: number) => void, sl
   return new Uint8Array(buf)
 }
 
+/** The part of a core the digests take once they start after the gate (the app is in use then). */
+const BACKGROUND_DIGEST_SHARE = 0.5
+
 /**
  * The files as the readers take them: Blobs read in slices (size limits checked first), text
  * files decoded; bytes and strings given already pass through. `progress(fraction)` follows the
- * bytes read over all Blobs.
+ * bytes read over all Blobs. The digests start when `digestsAfter` settles (at once without it):
+ * the engine starts them once the model's first picture is out, so that hashing a large file does
+ * not take a core from the load.
  */
 export async function readInputFiles(
   files: readonly EngineFile[], progress: (fraction: number) => void = () => undefined, slice = SLICE_BYTES, sharedContainers = false,
+  digestsAfter: Promise<unknown> | null = null,
 ): Promise<ReadInputs> {
   const blobs = files.filter((f): f is EngineFile & { data: Blob } => f.data instanceof Blob)
   checkModelSize(blobs.map((f) => ({ name: f.name, size: f.data.size })))
@@ -73,7 +81,9 @@ export async function readInputFiles(
   let done = 0
   const out: InputFile[] = []
   const records: Omit<InputFileRecord, 'sha256'>[] = []
-  const digests = digestsOf(blobs.map((f) => f.data))
+  const data = blobs.map((f) => f.data)
+  // after the gate the digests are background work: half a core (blobDigest.ts)
+  const digests = digestsAfter ? digestsAfter.then(() => digestsOf(data, BACKGROUND_DIGEST_SHARE)) : digestsOf(data)
   // never unhandled when a read below fails first
   digests.catch(() => undefined)
   for (const f of files) {
@@ -97,5 +107,5 @@ export async function readInputFiles(
   // A file that cannot be read again for its digest (changed or gone meanwhile) keeps its record
   // without one; the model read is not lost for it.
   const inputs = digests.then((d) => records.map((r, i) => ({ ...r, sha256: d[i] })), () => records)
-  return { files: out, inputs }
+  return { files: out, records, inputs }
 }

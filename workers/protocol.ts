@@ -63,6 +63,11 @@ export interface ModelSummary {
   }
   /** The files the model was read from, for traceability (absent for a generated model). */
   readonly inputs?: readonly InputFileRecord[]
+  /**
+   * True while the files' digests are still being computed (they start after the model's first
+   * picture: EngineApi.inputDigests); `inputs` then has names and sizes only.
+   */
+  readonly digestsPending?: boolean
   /** Whether the stress came per node or per element node. */
   readonly stressLayout?: 'nodal' | 'element-nodal'
   // --- intake ---
@@ -422,6 +427,12 @@ export interface EngineApi {
    * speed: the chunks are then built by the engine at the second cut.
    */
   pictureShown(): void
+  /**
+   * The loaded model's input records with their SHA-256 digests, once computed (they start when
+   * the first picture is shown, or when this is asked for first); null when the model was not
+   * read from the user's files.
+   */
+  inputDigests(): Promise<readonly InputFileRecord[] | null>
   surfaceArrows(req: ArrowRequest): Promise<ArrowBuffers | null>
   cut(plane: Plane, arrows: ArrowRequest, options?: CutOptions): Promise<Outcome<CutReply>>
   probe(req: ProbeRequest): Promise<ProbeResult | null>

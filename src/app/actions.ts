@@ -7,6 +7,7 @@ import { engine } from './engine.ts'
 import type { AppSource } from './engine.ts'
 import { composeSnapshot } from './snapshot.ts'
 import { useStore } from '../state/store.ts'
+import { modelWithInputs } from '../state/selectors.ts'
 import { buildViewLink, parseViewLink } from './urlHash.ts'
 import type { ViewLink } from './urlHash.ts'
 import type { InputFileRecord } from '../../workers/protocol.ts'
@@ -132,8 +133,8 @@ export function currentViewLink(): ViewLink {
   if (src.startsWith('demo:')) model = { kind: 'demo', id: src.slice(5) }
   else if (src.startsWith('synthetic:block:')) model = { kind: 'block', elements: Number(src.slice(16)) }
   else if (src.startsWith('files:')) {
-    const names = st.model?.inputs?.map((i) => i.name) ?? src.slice(6).split(',')
-    const sha = shortHashes(st.model?.inputs)
+    const names = modelWithInputs(st)?.inputs?.map((i) => i.name) ?? src.slice(6).split(',')
+    const sha = shortHashes(modelWithInputs(st)?.inputs)
     model = { kind: 'files', names, ...(sha ? { sha } : {}) }
   }
   return {
@@ -200,10 +201,10 @@ function onLoaded(source: AppSource): void {
   }
   pendingView = null
   applyView(v)
-  const have = shortHashes(st.model?.inputs)
+  const have = shortHashes(modelWithInputs(st)?.inputs)
   const want = v.model.sha
   if (want && have) {
-    const byName = new Map((st.model?.inputs ?? []).map((i, k) => [i.name.toLowerCase(), have[k]]))
+    const byName = new Map((modelWithInputs(st)?.inputs ?? []).map((i, k) => [i.name.toLowerCase(), have[k]]))
     const differ = names.filter((n, k) => byName.get(n.toLowerCase()) !== want[k])
     if (differ.length) {
       st.setLinkNotice({ kind: 'needs-files', files: names, message: `The view is applied, but ${differ.join(', ')} ${differ.length === 1 ? 'differs' : 'differ'} from the file the link was made on (another SHA-256): check that this is the same model.` })
@@ -264,7 +265,7 @@ export async function followHash(): Promise<void> {
   const wantKey = v.model?.kind === 'demo' ? `demo:${v.model.id}` : v.model?.kind === 'block' ? `synthetic:block:${v.model.elements}` : null
   if (v.model?.kind === 'files') {
     // Already showing those files? Then the view applies now; else it waits for them.
-    const names = useStore.getState().model?.inputs?.map((i) => i.name) ?? []
+    const names = modelWithInputs(useStore.getState())?.inputs?.map((i) => i.name) ?? []
     const shown = cur.startsWith('files:') && v.model.names.length === names.length && v.model.names.every((n) => names.some((o) => sameName(n, o)))
     if (shown) { pendingView = null; applyView(v) } else await sourceForLink(v)
     return

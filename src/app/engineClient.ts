@@ -241,8 +241,15 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       store.getState().modelLoaded(out.value)
       afterLoad?.(source)
       // the engine's work after a load once the first picture is out: a frame for the scene to
-      // take the surface, one to draw it (EngineApi.pictureShown)
-      afterFrame(() => afterFrame(() => { if (gen === generation) void connection().calls.pictureShown().catch(() => undefined) }))
+      // take the surface, one to draw it (EngineApi.pictureShown); then the input files' digests
+      afterFrame(() => afterFrame(() => {
+        if (gen !== generation) return
+        const calls = connection().calls
+        void calls.pictureShown().catch(() => undefined)
+        if (out.value.summary.digestsPending) {
+          void calls.inputDigests().then((records) => { if (gen === generation && records) store.getState().inputsDigested(records) }, () => undefined)
+        }
+      }))
       void refreshSurfaceArrows()
       requestCut()
       // The load brings the components in global axes; other axes chosen before are asked for.

@@ -25,6 +25,7 @@ export function startEngineWorker(onFailure: (message: string) => void): EngineC
     configure: (options) => remote.configure(options),
     load: (source, onProgress, rule) => remote.load(Comlink.transfer(source, transferList(source)), onProgress ? Comlink.proxy(onProgress) : undefined, rule),
     pictureShown: () => remote.pictureShown(),
+    inputDigests: () => remote.inputDigests(),
     surfaceArrows: (req) => remote.surfaceArrows(req),
     cut: (plane, arrows, options) => remote.cut(plane, arrows, options),
     probe: (req) => remote.probe(req),

@@ -8,6 +8,7 @@ import { buildReportContent } from './reportContent.ts'
 import { renderReport } from './reportDocument.ts'
 import { composeSnapshot } from './snapshot.ts'
 import { useStore } from '../state/store.ts'
+import { modelWithInputs } from '../state/selectors.ts'
 import { TOOL_VERSION } from './version.ts'
 
 function blobToDataUrl(b: Blob): Promise<string> {
@@ -30,7 +31,7 @@ export async function buildReportHtml(): Promise<string> {
     snapshot = await blobToDataUrl(await composeSnapshot(st, w, h, 1, canvas))
   } catch { snapshot = null /* the report still carries every table */ }
   const content = buildReportContent({
-    model: st.model, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
+    model: modelWithInputs(st)!, system: st.units, date: new Date(), caution: CAUTION, audit: st.audit,
     section: st.section.enabled ? st.sectionResult : null, sweep: st.sweep, shown: st.sweepShown, snapshot,
     envelope: st.section.enabled && st.envelopeOpen ? st.envelope : null,
     line: st.lineResult, lineShown: st.lineSeries,

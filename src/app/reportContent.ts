@@ -355,7 +355,7 @@ function lineBlocks(r: LineReply, input: ReportInput): ReportBlock[] {
 /** "nodes.csv: 972 724 bytes, SHA-256 3f1c…" for each input file. */
 function inputFacts(m: ModelSummary): [string, string][] {
   if (!m.inputs || m.inputs.length === 0) return [['Input', m.source.startsWith('synthetic:') ? 'generated in the browser (no input file)' : m.source]]
-  return m.inputs.map((f) => ['Input file', `${f.name}: ${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes, SHA-256 ${f.sha256 ?? 'not available in this browser'}`])
+  return m.inputs.map((f) => ['Input file', `${f.name}: ${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes, SHA-256 ${f.sha256 ?? (m.digestsPending ? 'still being computed (make the report again in a moment)' : 'not available in this browser')}`])
 }
 
 /** The regions of the current cut, the parts, the load path (per-part free bodies) and the interfaces. */

@@ -9,7 +9,7 @@ import { colourMapTable } from '../scene/colourMaps.ts'
 import { axesLines, sectionRows } from './exports.ts'
 import { formatNumber, QUANTITY_LABEL, quantityDisplay, quantityLabel } from './format.ts'
 import { snapshotLayout } from './snapshotLayout.ts'
-import { activeRange, modelSphere } from '../state/selectors.ts'
+import { activeRange, modelSphere, modelWithInputs } from '../state/selectors.ts'
 import type { ColourMapName, ReviewFields, TractusState } from '../state/store.ts'
 import { arrowColouring, sectionColouring } from '../scene/index.ts'
 import { displayUnitLabel } from '../model/units.ts'
@@ -269,7 +269,7 @@ function arrowBarShown(st: TractusState): boolean {
 
 /** What a snapshot was made from, as short items: the input files, the tool, the stress, the units. */
 function traceItems(st: TractusState): string[] {
-  const m = st.model!
+  const m = modelWithInputs(st)!
   const files = m.inputs?.length
     ? m.inputs.map((f) => `${f.name} (${f.bytes.toLocaleString('en-US').replace(/,/g, ' ')} bytes${f.sha256 ? `, SHA-256 ${f.sha256.slice(0, 16)}…` : ''})`)
     : [m.source.startsWith('synthetic:') ? 'generated model' : m.source]

@@ -89,7 +89,7 @@ export const createCaseSlice: StateCreator<TractusState, [], [], CaseSlice> = (s
     if (!loaded || !st.model) { set({ caseRunning: false }); return }
     const prev = st.model
     // the model is the same: its source and inputs stay; the figures are the case's
-    const model: ModelSummary = { ...loaded.summary, source: prev.source, ...(prev.inputs ? { inputs: prev.inputs } : {}) }
+    const model: ModelSummary = { ...loaded.summary, source: prev.source, ...(prev.inputs ? { inputs: prev.inputs } : {}), ...(prev.digestsPending ? { digestsPending: true } : {}) }
     // the geometry is the load's: only the scalars, their ranges and the patch labels are the case's
     const surface = st.surface ? { ...st.surface, ...loaded.surface } : null
     set({

@@ -7,7 +7,7 @@ import { unitNormal } from '../mechanics/plane.ts'
 import { COMPONENT_QUANTITIES } from '../mechanics/componentScalars.ts'
 import type { ComponentQuantity } from '../mechanics/componentScalars.ts'
 import { autoDeformationScale } from '../mechanics/deformation.ts'
-import type { ScalarExtremes } from '../../workers/protocol.ts'
+import type { ModelSummary, ScalarExtremes } from '../../workers/protocol.ts'
 import type { CameraState, ColourMapName, QuantityName, SectionState, TractusData, TractusState } from './store.ts'
 
 /** Signed quantities get a diverging map centred on zero; magnitudes a sequential one. */
@@ -102,4 +102,16 @@ export function resolvedHide(s: SectionState, camera: CameraState | null): 'posi
   const c = camera.position
   const side = (c[0] - point[0]) * normal[0] + (c[1] - point[1]) * normal[1] + (c[2] - point[2]) * normal[2]
   return side >= 0 ? 'positive' : 'negative'
+}
+
+/**
+ * The model's summary with its input files' digests where they have come (they are computed after
+ * the first picture: ModelSummary.digestsPending), for the report, the snapshot and the view link;
+ * the store's `model` itself is left as loaded (effects keyed on it belong to a new model).
+ */
+export function modelWithInputs(st: Pick<TractusData, 'model' | 'inputDigests'>): ModelSummary | null {
+  const m = st.model
+  if (!m || !st.inputDigests || !m.digestsPending) return m
+  const { digestsPending: _pending, ...rest } = m
+  return { ...rest, inputs: st.inputDigests }
 }

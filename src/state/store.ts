@@ -26,7 +26,7 @@ import { checkPoint, unitNormal } from '../mechanics/plane.ts'
 import type { SectionResult } from '../mechanics/types.ts'
 import { SURFACE_QUANTITIES } from '../mechanics/surfaceTriangles.ts'
 import type {
-  AppError, ArrowBuffers, ArrowMode, AuditSummary, CutInfo, LoadedModel, ModelSummary, PatchRule, ProbeRay, ProbeResult, Progress,
+  AppError, ArrowBuffers, ArrowMode, AuditSummary, CutInfo, InputFileRecord, LoadedModel, ModelSummary, PatchRule, ProbeRay, ProbeResult, Progress,
   SectionAxesChoice, SectionBuffers, SurfaceBuffers, SurfaceQuantity,
 } from '../../workers/protocol.ts'
 import { LOAD_PATCH_DEFAULTS } from '../mechanics/loadPatches.ts'
@@ -192,6 +192,12 @@ export interface ViewInsets {
 /** The fields of the store (no actions). */
 export interface TractusData {
   readonly model: ModelSummary | null
+  /**
+   * The model's input records with their digests, once computed after the first picture
+   * (ModelSummary.digestsPending; read through `modelWithInputs`, selectors.ts). Apart from
+   * `model`, so that the summary object is replaced only by a new model or case.
+   */
+  readonly inputDigests: readonly InputFileRecord[] | null
   readonly surface: SurfaceBuffers | null
   readonly arrows: ArrowBuffers | null
   readonly sectionBuffers: SectionBuffers | null
@@ -289,6 +295,8 @@ export interface TractusActions {
   loadEnded: (error?: AppError) => void
   /** A new model replaces the old one: its results, a fresh section through its centre, the camera framed. */
   modelLoaded: (loaded: LoadedModel) => void
+  /** The input files' records with their digests, computed after the first picture (ModelSummary.digestsPending). */
+  inputsDigested: (records: readonly InputFileRecord[]) => void
   surfaceArrowsShown: (arrows: ArrowBuffers | null) => void
   /** The cut of the current plane; with `offset`, a drag step's cut, and the plane moves to it; `info` what the engine added. */
   cutShown: (result: SectionResult, buffers: SectionBuffers | null, offset?: number, info?: CutInfo | null) => void
@@ -343,6 +351,7 @@ function sectionPatchError(patch: Partial<SectionState>): FieldError | null {
 
 const INITIAL: TractusData = {
   model: null,
+  inputDigests: null,
   surface: null,
   arrows: null,
   sectionBuffers: null,
@@ -459,12 +468,19 @@ const tractusState: StateCreator<TractusState> = (set, get, api) => ({
   loadStarted: ({ keepError }) => set({ busy: true, progress: { stage: 'Preparing', fraction: 0 }, ...(keepError ? {} : { error: null }) }),
   loadProgress: (progress) => set({ progress }),
   loadEnded: (error) => set({ busy: false, progress: null, ...(error ? { error } : {}) }),
+  inputsDigested: (records) => {
+    const m = get().model
+    if (!m || !m.digestsPending) return
+    // the same files, in the same order: names and sizes are checked, so a late reply never lands on another model
+    const same = m.inputs !== undefined && m.inputs.length === records.length && m.inputs.every((f, i) => f.name === records[i].name && f.bytes === records[i].bytes)
+    if (same) set({ inputDigests: records })
+  },
   modelLoaded: (loaded) => {
     const { summary, surface, audit } = loaded
     const prev = get().section
     const { center: centre, radius } = modelSphere(summary.bounds)
     set({
-      model: summary, surface, audit, arrows: null, sectionBuffers: null, sectionResult: null, probe: null, probeRay: null,
+      model: summary, inputDigests: null, surface, audit, arrows: null, sectionBuffers: null, sectionResult: null, probe: null, probeRay: null,
       highlightedPatch: -1, busy: false, progress: null, sectionDrag: null, sectionInputError: null, cutInfo: null, markedElement: null,
       // A new part gets a cut across its longest extent, through its centre.
       section: { ...DEFAULT_SECTION, enabled: prev.enabled, normal: longestAxis(summary.bounds), hide: prev.hide, traction: prev.traction, point: centre },

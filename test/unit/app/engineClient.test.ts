@@ -12,10 +12,11 @@
 import { describe, expect, it } from 'vitest'
 import { createEngineClient } from '../../../src/app/engineClient.ts'
 import type { AppSource, EngineConnection } from '../../../src/app/engineClient.ts'
+import { modelWithInputs } from '../../../src/state/selectors.ts'
 import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
 import type { SectionResult } from '../../../src/mechanics/types.ts'
 import type {
-  ArrowRequest, AuditSummary, Combination, CutOptions, CutReply, EngineCalls, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
+  ArrowRequest, AuditSummary, Combination, CutOptions, CutReply, EngineCalls, InputFileRecord, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
 } from '../../../workers/protocol.ts'
 
 interface Deferred<T> { readonly promise: Promise<T>; resolve(v: T): void }
@@ -32,12 +33,16 @@ class FakeWorker {
   readonly cuts: { plane: Plane; arrows: ArrowRequest; options?: CutOptions; reply: Deferred<Outcome<CutReply>> }[] = []
   readonly patchRules: { rule: PatchRule; reply: Deferred<Outcome<PatchReply>> }[] = []
   readonly shownCases: { name: string; combinations: readonly Combination[] }[] = []
+  /** What the engine was told after loads: 'picture' for pictureShown, 'digests' for inputDigests. */
+  readonly afterLoad: string[] = []
+  digests: InputFileRecord[] | null = null
   terminated = false
   constructor(readonly onFailure: (message: string) => void) {}
   readonly calls: EngineCalls = {
     configure: async () => undefined,
     load: (source, _onProgress, rule) => { const reply = deferred<Outcome<LoadedModel>>(); this.loads.push({ source, reply, rule }); return reply.promise },
-    pictureShown: async () => undefined,
+    pictureShown: async () => { this.afterLoad.push('picture') },
+    inputDigests: async () => { this.afterLoad.push('digests'); return this.digests },
     surfaceArrows: async () => null,
     cut: (plane, arrows, options) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, options, reply }); return reply.promise },
     probe: async () => null,
@@ -110,6 +115,38 @@ async function loadModel(t: ReturnType<typeof setUp>, name: string): Promise<voi
   w.loads[w.loads.length - 1].reply.resolve(loaded(name))
   expect(await done).toBe(true)
 }
+
+describe('engine client: after the first picture', () => {
+  it('tells the engine two frames after a load, then takes the files\' digests into the model\'s summary', async () => {
+    const t = setUp()
+    const done = t.client.load(BLOCK('A'))
+    await settle()
+    const w = t.workers[0]
+    w.digests = [{ name: 'a.tractus', bytes: 10, sha256: 'cd'.repeat(32) }]
+    const reply = loaded('A')
+    if (!reply.ok) throw new Error('fixture')
+    w.loads[0].reply.resolve({ ok: true, value: { ...reply.value, summary: { ...reply.value.summary, inputs: [{ name: 'a.tractus', bytes: 10 }], digestsPending: true } } })
+    expect(await done).toBe(true)
+    expect(w.afterLoad).toEqual([])
+    const summary = t.store.getState().model
+    expect(summary?.digestsPending).toBe(true)
+    await t.frame()
+    expect(w.afterLoad).toEqual(['picture', 'digests'])
+    await settle()
+    // the summary object stays the load's (effects keyed on it belong to a new model); the digests sit beside it
+    expect(t.store.getState().model).toBe(summary)
+    const m = modelWithInputs(t.store.getState())!
+    expect(m.digestsPending).toBeUndefined()
+    expect(m.inputs).toEqual([{ name: 'a.tractus', bytes: 10, sha256: 'cd'.repeat(32) }])
+  })
+
+  it('a model without pending digests is not asked for them', async () => {
+    const t = setUp()
+    await loadModel(t, 'B')
+    await t.frame()
+    expect(t.workers[0].afterLoad).toEqual(['picture'])
+  })
+})
 
 describe('engine client: section axes and the patch rule', () => {
   it('cuts with the store\'s section axes, cuts again when they change, and keeps what the engine adds', async () => {

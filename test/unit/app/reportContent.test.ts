@@ -54,6 +54,10 @@ describe('review report content', () => {
     expect(c.facts.some(([k]) => k === 'Checker')).toBe(false)
     expect(c.facts).toContainEqual(['Load case', 'the model\'s one stress field (no load case named)'])
     expect(c.facts).toContainEqual(['Input file', `a.csv: 1 234 567 bytes, SHA-256 ${'ab'.repeat(32)}`])
+    // a digest still being computed (it starts after the first picture) says so, not that there is none
+    const base = input()
+    const pending = buildReportContent(input({ model: { ...base.model, inputs: [{ name: 'a.csv', bytes: 12 }], digestsPending: true } }))
+    expect(pending.facts).toContainEqual(['Input file', 'a.csv: 12 bytes, SHA-256 still being computed (make the report again in a moment)'])
     expect(c.facts).toContainEqual(['Stress', 'nodal (one value per node)'])
     expect(c.facts).toContainEqual(['Made with', 'Tractus 0.1.0'])
     expect(c.facts).toContainEqual(['Notes', 'first look'])

@@ -43,6 +43,20 @@ describe('reading the user\'s files in slices', () => {
     }
   })
 
+  it('the digests wait for the gate they are given: names and sizes at once, SHA-256 (FIPS 180-4, Node\'s) once it opens', async () => {
+    const bytes = writeNative(model)
+    let open = (): void => {}
+    const gate = new Promise<void>((r) => { open = r })
+    const read = await readInputFiles([{ name: 'm.tractus', data: new Blob([bytes as Uint8Array<ArrayBuffer>]) }], undefined, 4096, false, gate)
+    expect(read.records).toEqual([{ name: 'm.tractus', bytes: bytes.byteLength }])
+    let settled = false
+    void read.inputs.then(() => { settled = true })
+    await new Promise((r) => setTimeout(r, 50))
+    expect(settled, 'no digest before the gate opens').toBe(false)
+    open()
+    expect(await read.inputs).toEqual([{ name: 'm.tractus', bytes: bytes.byteLength, sha256: sha256(bytes) }])
+  })
+
   it('a container read in slices is the model read whole, its arrays views into the one buffer read', async () => {
     const bytes = writeNative(model)
     const whole = readModelFiles([{ name: 'm.tractus', data: bytes }])
