@@ -68,6 +68,21 @@ function triangleNormal(positions: Float32Array, index: Uint32Array, t: number, 
 }
 const NORMAL = new Float64Array(3)
 
+/** An axis-aligned box as (min x, y, z, max x, y, z), emptied. */
+function emptyBox(box: Float64Array): Float64Array {
+  box[0] = box[1] = box[2] = Infinity
+  box[3] = box[4] = box[5] = -Infinity
+  return box
+}
+const BOX = new Float64Array(6)
+
+/** Grows the box to hold the point at positions[p .. p + 3). */
+function addToBox(box: Float64Array, positions: Float32Array, p: number): void {
+  const x = positions[p], y = positions[p + 1], z = positions[p + 2]
+  box[0] = Math.min(box[0], x); box[1] = Math.min(box[1], y); box[2] = Math.min(box[2], z)
+  box[3] = Math.max(box[3], x); box[4] = Math.max(box[4], y); box[5] = Math.max(box[5], z)
+}
+
 /**
  * Sorts the triangles of `index` (and each `carried` per-triangle array) by facing direction, then
  * by the Morton code of their centroid, in place (a stable LSD radix sort on a 30-bit key).
@@ -75,16 +90,9 @@ const NORMAL = new Float64Array(3)
 export function sortTrianglesSpatially(positions: Float32Array, index: Uint32Array, carried: readonly (Int32Array | Uint32Array)[]): void {
   const T = index.length / 3
   if (T < 2) return
-  let x0 = Infinity, y0 = Infinity, z0 = Infinity, x1 = -Infinity, y1 = -Infinity, z1 = -Infinity
-  for (let i = 0; i < positions.length; i += 3) {
-    const x = positions[i], y = positions[i + 1], z = positions[i + 2]
-    if (x < x0) x0 = x
-    if (x > x1) x1 = x
-    if (y < y0) y0 = y
-    if (y > y1) y1 = y
-    if (z < z0) z0 = z
-    if (z > z1) z1 = z
-  }
+  const box = emptyBox(BOX)
+  for (let i = 0; i < positions.length; i += 3) addToBox(box, positions, i)
+  const x0 = box[0], y0 = box[1], z0 = box[2], x1 = box[3], y1 = box[4], z1 = box[5]
   const sx = x1 > x0 ? 511.999 / (x1 - x0) : 0, sy = y1 > y0 ? 511.999 / (y1 - y0) : 0, sz = z1 > z0 ? 511.999 / (z1 - z0) : 0
   const keys = new Uint32Array(T)
   const n = NORMAL
@@ -159,25 +167,16 @@ export function surfaceClusters(positions: Float32Array, index: Uint32Array, ran
 
 /** Sphere and normal cone of triangles [lo, hi) into out[o .. o + 8). */
 function clusterBounds(positions: Float32Array, index: Uint32Array, lo: number, hi: number, out: Float32Array, o: number): void {
-  let x0 = Infinity, y0 = Infinity, z0 = Infinity, x1 = -Infinity, y1 = -Infinity, z1 = -Infinity
+  const box = emptyBox(BOX)
   let ax = 0, ay = 0, az = 0
   const n = NORMAL
   for (let t = lo; t < hi; t++) {
-    for (let c = 0; c < 3; c++) {
-      const p = 3 * index[3 * t + c]
-      const x = positions[p], y = positions[p + 1], z = positions[p + 2]
-      if (x < x0) x0 = x
-      if (x > x1) x1 = x
-      if (y < y0) y0 = y
-      if (y > y1) y1 = y
-      if (z < z0) z0 = z
-      if (z > z1) z1 = z
-    }
+    for (let c = 0; c < 3; c++) addToBox(box, positions, 3 * index[3 * t + c])
     triangleNormal(positions, index, t, n)
     const l = Math.hypot(n[0], n[1], n[2])
     if (l > 0) { ax += n[0] / l; ay += n[1] / l; az += n[2] / l }
   }
-  const cx = (x0 + x1) / 2, cy = (y0 + y1) / 2, cz = (z0 + z1) / 2
+  const cx = (box[0] + box[3]) / 2, cy = (box[1] + box[4]) / 2, cz = (box[2] + box[5]) / 2
   let r2 = 0, cosMin = 1
   const al = Math.hypot(ax, ay, az)
   const ux = al > 0 ? ax / al : 0, uy = al > 0 ? ay / al : 0, uz = al > 0 ? az / al : 0
