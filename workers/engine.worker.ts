@@ -420,8 +420,8 @@ function chunksFor(cur: Loaded): ElementChunks | null {
  * Starts the chunks' build on the pool for the model just loaded (its mesh in shared memory).
  * Asked for when the app has shown the model's first picture (`pictureShown`), not with the load's
  * reply: on two cores the build (and the warm-up cut after it) would otherwise take a core from
- * the software rasteriser drawing that picture (at 10^7 elements its frame took 620-720 ms with
- * them, 340-400 ms after them, measured).
+ * the software rasteriser drawing that picture (at 10^7 elements on the generated block its frame
+ * took 620-720 ms with them, 334-398 ms after them, measured).
  */
 function chunksOnPool(p: KernelPool | null, loaded: Loaded): void {
   if (!p || loaded.model.mesh.elementCount < CHUNKS_MIN_ELEMENTS) return

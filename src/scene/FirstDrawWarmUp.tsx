@@ -52,9 +52,9 @@ const KINDS: readonly (() => Object3D[])[] = [
   () => [edgesStandIn()],
   () => [surfaceStandIn(BackSide)],
   () => [fillStandIn()],
-  () => [...sectionWarmObjects(1)],
-  () => [...sectionWarmObjects(2)],
-  () => [...sectionWarmObjects(3)],
+  () => sectionWarmObjects(1),
+  () => sectionWarmObjects(2),
+  () => sectionWarmObjects(3),
 ]
 const STEPS = KINDS.length
 

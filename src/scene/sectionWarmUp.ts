@@ -16,18 +16,13 @@ import { textSprite } from './textSprite.ts'
  * than the same frame later (measured). Each stand-in has the material, render state and vertex
  * layout of the real object (the handle's flat colour drawn over everything on both sides, the
  * section triad's arrow, its labels' sprite, the section arrows' instanced material without
- * clipping planes), scaled to nothing, so it draws no pixel. Three kinds, each drawn in a frame
- * of its own: 1 the handle, 2 the triad and its label, 3 the arrows. They are made once and kept
- * for the page's life, never disposed (FirstDrawWarmUp.tsx scales them to nothing): three.js deletes a shader program when the last material
- * using it is disposed, and the real objects would then compile it again.
+ * clipping planes); FirstDrawWarmUp.tsx scales them to nothing, so they draw no pixel. Three
+ * kinds, each drawn in a frame of its own: 1 the handle, 2 the triad and its label, 3 the arrows.
+ * The caller makes them once and keeps them for the page's life, never disposed: three.js deletes
+ * a shader program when the last material using it is disposed, and the real objects would then
+ * compile it again.
  */
-export function sectionWarmObjects(kind: 1 | 2 | 3): readonly Object3D[] {
-  return (made[kind] ??= makeObjects(kind))
-}
-const made: { 1?: Object3D[]; 2?: Object3D[]; 3?: Object3D[] } = {}
-
-function makeObjects(kind: 1 | 2 | 3): Object3D[] {
-  const nothing = new Matrix4().makeScale(0, 0, 0)
+export function sectionWarmObjects(kind: 1 | 2 | 3): Object3D[] {
   if (kind === 1) return [new Mesh(new CylinderGeometry(1, 1, 1, 8, 1, true), flatMaterial(HANDLE))]
   if (kind === 2) {
     const triadMaterial = new MeshBasicMaterial({ color: rawColour(HALO), depthTest: false, depthWrite: false, toneMapped: false })
@@ -35,6 +30,6 @@ function makeObjects(kind: 1 | 2 | 3): Object3D[] {
   }
   const arrows = new InstancedMesh(unitArrowGeometry(), createArrowMaterial([]), 1)
   arrows.instanceColor = new InstancedBufferAttribute(new Float32Array(3), 3)
-  arrows.setMatrixAt(0, nothing)
+  arrows.setMatrixAt(0, new Matrix4().makeScale(0, 0, 0))
   return [arrows]
 }
