@@ -28,6 +28,7 @@ import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
 import { elementIdOf } from '../src/model/elementId.ts'
 import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
+import { readyPolygonViews } from '../src/mechanics/sectionDrawing.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrowSampling.ts'
 import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, SectionPlane, SectionPolygons, SurfaceTractions } from '../src/mechanics/types.ts'
@@ -448,7 +449,7 @@ function computeCut(cur: Loaded, plane: SectionPlane, arrows: ArrowRequest, opti
   const field = modelStressField(model)
   const limit = checkLimit(options.limit, model)
   const { result, polygons, labels } = cutSection(model.mesh, field, model.bodyForce, plane, {
-    faces, tractions, polygons: true, axes, regions: options.regions === true, limit, partPiece: pieceFor(model, field, limit), chunks,
+    faces, tractions, polygons: true, polygonViews: true, axes, regions: options.regions === true, limit, partPiece: pieceFor(model, field, limit), chunks,
   })
   const info: CutInfo = { ...(note ? { axesNote: note } : {}), ...(result.empty ? { extent: extentAlong(model.mesh.coords, plane.normal) } : {}) }
   if (!polygons || polygons.count === 0) {
@@ -486,6 +487,7 @@ function warmCut(loaded: Loaded): void {
     const b = boundsOf(loaded.model.mesh.coords)
     const point: Vec3 = [(b.min[0] + b.max[0]) / 2, (b.min[1] + b.max[1]) / 2, (b.min[2] + b.max[2]) / 2]
     computeCut(loaded, { point, normal: [1, 0, 0] }, { mode: 'full', budget: WARM_ARROWS }, { regions: true }, loaded.chunks)
+    readyPolygonViews()
   } catch { /* only a warm-up: the user's own cut reports any error */ }
 }
 /** Arrows sampled by the warm-up cut (the sampling's code runs; the count hardly matters). */
@@ -607,6 +609,9 @@ const api: EngineApi = {
       current.polygonDisplacement = c.polygonDisplacement
       return Comlink.transfer({ ok: true, value: c.value }, c.transfer)
     } catch (e) {
+      // the kept polygons are views that the cut after next overwrites (polygonViews): drop them
+      current.polygons = null
+      current.polygonDisplacement = null
       const error = toAppError(e)
       if (error) return { ok: false, error }
       throw e

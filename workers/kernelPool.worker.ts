@@ -35,7 +35,7 @@ const api = {
   },
   chunks(mesh: Mesh): ElementChunks {
     const c = buildElementChunks(mesh)
-    return Comlink.transfer(c, [c.block, c.first, c.count, c.centre, c.half].map((a) => a.buffer as ArrayBuffer))
+    return Comlink.transfer(c, [c.block, c.first, c.count, c.centre, c.half, c.runs].map((a) => a.buffer as ArrayBuffer))
   },
   csvPieces(jobs: readonly PieceJob[]): PieceOutcome[] {
     const out = jobs.map(readPiece)

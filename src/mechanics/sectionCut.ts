@@ -59,6 +59,12 @@ export interface CutSectionOptions {
   readonly tractions?: SurfaceTractions
   /** Also return the section polygons for drawing (off by default: it allocates). */
   readonly polygons?: boolean
+  /**
+   * The polygons as views of the cut's kept arrays, not copies: valid until the cut after next,
+   * never to be transferred (sectionDrawing.ts createPolygonCollector). For a caller that keeps
+   * only its latest cut's polygons, as the engine does while a section is dragged.
+   */
+  readonly polygonViews?: boolean
   // --- assemblies: regions and bounded sections (sectionRegions.ts) ---
   /** Split the cut into connected regions (SectionResult.regions). */
   readonly regions?: boolean
@@ -126,7 +132,7 @@ export function cutSection(
 
   const acc = new Float64Array(ACC_SIZE)
   const sc = createPolygonScratch()
-  const collect = options.polygons ? createPolygonCollector(m) : null
+  const collect = options.polygons ? createPolygonCollector(m, options.polygonViews === true) : null
   const geo = geometry
   resetSectionGeometry(geo)
   const em = createElementMap()

@@ -30,30 +30,97 @@ export type PolygonCollector = ReturnType<typeof createPolygonCollector>
 /**
  * The collector's arrays, grown as needed and kept from one cut to the next: dragging a section
  * re-cuts the body many times, and arrays allocated afresh each cut cost their growth copies and
- * the first touch of new memory every time (at 10^7 tet4, a quarter of a cut). `finish` copies
- * out what it returns, so nothing handed out aliases them; one collector is in use at a time
- * (a cut runs synchronously).
+ * the first touch of new memory every time (at 10^7 tet4, a quarter of a cut). Cuts whose
+ * polygons are handed out as views (`views`, below) use two sets by turns, so that a cut leaves
+ * the previous one's polygons whole while it collects its own; cuts that copy their polygons out
+ * use a third set (made at their first use), so they never touch the views. One collector is in
+ * use at a time (a cut runs synchronously).
  */
-const kept = {
-  traction: new Float64Array(8192), fillTraction: new Float64Array(8192),
-  linear: new Uint8Array(1024),
-  start: new Int32Array(1024), fillStart: new Int32Array(1024), elem: new Int32Array(1024),
-  block: new Int32Array(1024), local: new Int32Array(1024), forceIndex: new Int32Array(1024),
-  direct: new Float64Array(3 * 1024),
-  pos: new Float64Array(8192), ref: new Float64Array(8192),
-  fillPos: new Float64Array(8192), fillRef: new Float64Array(8192),
-  index: new Uint32Array(3 * 4096), triElem: new Int32Array(4096),
+function keptSet() {
+  return {
+    traction: new Float64Array(8192), fillTraction: new Float64Array(8192),
+    linear: new Uint8Array(1024),
+    start: new Int32Array(1024), fillStart: new Int32Array(1024), elem: new Int32Array(1024),
+    block: new Int32Array(1024), local: new Int32Array(1024), forceIndex: new Int32Array(1024),
+    direct: new Float64Array(3 * 1024),
+    pos: new Float64Array(8192), ref: new Float64Array(8192),
+    fillPos: new Float64Array(8192), fillRef: new Float64Array(8192),
+    index: new Uint32Array(3 * 4096), triElem: new Int32Array(4096),
+    // per polygon, written by `finish`
+    area: new Float64Array(1024), centroid: new Float64Array(3 * 1024), force: new Float64Array(3 * 1024),
+  }
+}
+type KeptSet = ReturnType<typeof keptSet>
+const KEPT: KeptSet[] = []
+let keptTurn = 0
+function keptFor(views: boolean): KeptSet {
+  if (!views) return (KEPT[2] ??= keptSet())
+  keptTurn = 1 - keptTurn
+  const k = (KEPT[keptTurn] ??= keptSet())
+  // as large as the other set at once: the last cut's size is the best guess of this one's, and
+  // growing by doubling from a small set would copy the arrays a dozen times in one cut
+  const other = KEPT[1 - keptTurn]
+  if (other) sizeLike(k, other, false)
+  return k
+}
+
+/** Replaces each array of `k` shorter than `length(key)` by a new one that long (touched when `touch`). */
+function sizeTo(k: KeptSet, length: (key: keyof KeptSet) => number, touch: boolean): void {
+  for (const key of Object.keys(k) as (keyof KeptSet)[]) {
+    const a = k[key], n = length(key)
+    if (a.length >= n) continue
+    const b = new (a.constructor as new (n: number) => typeof a)(n)
+    // fresh memory is mapped at its first write; writing it now keeps that out of the next cut
+    if (touch) b.fill(0)
+    ;(k as Record<keyof KeptSet, typeof a>)[key] = b
+  }
+}
+function sizeLike(k: KeptSet, like: KeptSet, touch: boolean): void {
+  sizeTo(k, (key) => like[key].length, touch)
+}
+
+/** The last cut's polygons, vertices, fill points and fill triangles (written by `finish`). */
+const lastUse = { polygons: 0, verts: 0, fills: 0, tris: 0 }
+
+/** Entries each kept array needs for p polygons, v vertices, f fill points and t triangles. */
+function lengthFor(key: keyof KeptSet, p: number, v: number, f: number, t: number): number {
+  switch (key) {
+    case 'pos': case 'ref': case 'traction': return 3 * v
+    case 'fillPos': case 'fillRef': case 'fillTraction': return 3 * f
+    case 'index': return 3 * t
+    case 'triElem': return t
+    case 'direct': case 'centroid': case 'force': return 3 * (p + 1)
+    default: return p + 1
+  }
+}
+
+/**
+ * Makes both sets of the view-returning cuts room for the last cut's polygons and half as many
+ * again, their memory written once: for the engine's warm-up cut, so that the user's first cut,
+ * and the drag's cuts after it (whose planes may cut more), neither grow their arrays nor touch
+ * new memory (at 10^7 tet4 in the browser the growth alone took 183 ms of the first cut, and a
+ * drag's cut that grew them took twice the others, profiled).
+ */
+export function readyPolygonViews(headroom = 1.5): void {
+  const u = lastUse, grow = (n: number) => Math.ceil(headroom * n)
+  const length = (key: keyof KeptSet) => lengthFor(key, grow(u.polygons), grow(u.verts), grow(u.fills), grow(u.tris))
+  for (const i of [0, 1]) sizeTo((KEPT[i] ??= keptSet()), length, true)
 }
 
 /**
  * Collects drawn polygons into typed arrays that double when full. `m`: the section normal.
  * Polygons of linear simplices come with their vertex stress (sc.sig, exact there) and need no
  * evaluation; the others get their tractions from the shape functions in `finish`.
+ * `views`: `finish` returns views of the collector's kept arrays instead of copies. They stay
+ * valid until the cut after next (the sets are used by turns) and must not be transferred; at
+ * 10^7 tet4 in the browser the copies were a third of a cut (118 of 419 ms, profiled), because
+ * each large copy is memory the process has not touched before. The engine, which keeps only
+ * the latest cut's polygons, asks for views; every other caller gets copies of its own.
  */
-export function createPolygonCollector(m: Vec3) {
+export function createPolygonCollector(m: Vec3, views = false) {
   const mx = m[0], my = m[1], mz = m[2]
   let count = 0, verts = 0, fills = 0, tris = 0
-  const k = kept
+  const k = keptFor(views)
   let traction = k.traction, fillTraction = k.fillTraction
   let linear = k.linear
   let start = k.start, fillStart = k.fillStart, elem = k.elem
@@ -167,8 +234,10 @@ export function createPolygonCollector(m: Vec3) {
     /** Tractions at every vertex and fill point by the shape functions; per-polygon integrals. */
     finish(mesh: Mesh, field: StressField, forces: Float64Array): SectionPolygons {
       keep()
-      const area = new Float64Array(count), centroid = new Float64Array(3 * count), force = new Float64Array(3 * count)
-      const tn = new Float64Array(3 * MAX_ELEMENT_NODES), N = new Float64Array(MAX_ELEMENT_NODES)
+      lastUse.polygons = count; lastUse.verts = verts; lastUse.fills = fills; lastUse.tris = tris
+      if (k.area.length < count) { const n = Math.max(count, 2 * k.area.length); k.area = new Float64Array(n); k.centroid = new Float64Array(3 * n); k.force = new Float64Array(3 * n) }
+      const area = k.area, centroid = k.centroid, force = k.force
+      const tn = FINISH_TN, N = FINISH_N
       for (let p = 0; p < count; p++) {
         if (linear[p] === 0) {
           const type = mesh.blocks[block[p]].type, nn = ELEMENT_TYPES[type].nodeCount
@@ -180,22 +249,29 @@ export function createPolygonCollector(m: Vec3) {
         force[3 * p] = src[s]; force[3 * p + 1] = src[s + 1]; force[3 * p + 2] = src[s + 2]
         polygonAreaCentroid(area, centroid, p, pos, start[p], start[p + 1], mx, my, mz)
       }
-      const positions = pos.slice(0, 3 * verts), vertexTraction = traction.slice(0, 3 * verts)
+      const out = views ? viewOf : copyOf
+      const positions = out(pos, 3 * verts), vertexTraction = out(traction, 3 * verts)
       // No polygon split (linear types, straight polygons): the fill points are the vertices in
       // the same order with the same tractions, so the fill shares the vertices' arrays (read only)
       // instead of a second copy of each (at 10^7 tet4, a quarter of the cut's copying).
       const same = fills === verts
       return {
-        count, start: start.slice(0, count + 1), positions, traction: vertexTraction, elem: elem.slice(0, count),
-        reference: ref.slice(0, 3 * verts), area, centroid, force,
+        count, start: out(start, count + 1), positions, traction: vertexTraction, elem: out(elem, count),
+        reference: out(ref, 3 * verts), area: out(area, count), centroid: out(centroid, 3 * count), force: out(force, 3 * count),
         fill: {
-          positions: same ? positions : fillPos.slice(0, 3 * fills), traction: same ? vertexTraction : fillTraction.slice(0, 3 * fills),
-          index: index.slice(0, 3 * tris), element: triElem.slice(0, tris),
+          positions: same ? positions : out(fillPos, 3 * fills), traction: same ? vertexTraction : out(fillTraction, 3 * fills),
+          index: out(index, 3 * tris), element: out(triElem, tris),
         },
       }
     },
   }
 }
+
+const FINISH_TN = new Float64Array(3 * MAX_ELEMENT_NODES), FINISH_N = new Float64Array(MAX_ELEMENT_NODES)
+
+/** The first n entries of a kept array: a view (`views`) or a copy of them. */
+function viewOf<T extends Float64Array | Int32Array | Uint32Array>(a: T, n: number): T { return a.subarray(0, n) as T }
+function copyOf<T extends Float64Array | Int32Array | Uint32Array>(a: T, n: number): T { return a.slice(0, n) as T }
 
 /** t = Σ N_a(ξ) tn_a at points [from, to) with ξ in ref, into out (3 per point). */
 function tractionsAt(out: Float64Array, ref: Float64Array, from: number, to: number, type: ElementTypeName, nn: number, tn: Float64Array, N: Float64Array): void {

@@ -2,7 +2,8 @@
  * The element chunks (elementChunks.ts) against the plain scan: for random assemblies of every
  * element type (shared nodes or meshed apart, rotated, moved far from the origin, elements in
  * their generated order or shuffled), random planes and planes through nodes (node layers on
- * axis-aligned planes), the elements findCutInChunks finds in the chunks the plane meets are
+ * axis-aligned planes, also far from the origin, where the runs' 32-bit boxes round most), random
+ * chunk and run sizes, the elements findCutInChunks finds in the runs the plane meets are
  * exactly those a scan of every element finds (cutElements, sectionCut.ts), in the same order;
  * and a whole cut (resultants, free body, regions, drawn polygons) with the chunks equals the cut
  * without them bit for bit. Seeded; the seed is printed.
@@ -63,7 +64,7 @@ describe(`element chunks: the cut elements in the chunks met are those of a full
     if (far) mesh = moved(mesh, [1e5, -3e4, 2e3])
     it(`trial ${trial}: ${mesh.elementCount} elements of ${mesh.blocks.map((b) => b.type).join(', ')}${rotated ? ', rotated' : ''}${far ? ', far from the origin' : ''}${mixed ? ', shuffled' : ''}`, () => {
       // chunks of a few elements, so that the small meshes have many
-      const chunks = buildElementChunks(mesh, 1 + Math.floor(5 * rnd()))
+      const chunks = buildElementChunks(mesh, 1 + Math.floor(7 * rnd()), 1 + Math.floor(3 * rnd()))
       const field = nodalStressField(mesh, Float64Array.from({ length: 6 * mesh.nodeCount }, () => 2 * rnd() - 1))
       const d = new Float64Array(mesh.nodeCount)
       for (let plane = 0; plane < 12; plane++) {
@@ -95,6 +96,22 @@ describe(`element chunks: the cut elements in the chunks met are those of a full
       }
     })
   }
+
+  it('the runs inside the chunks scan a fraction of what whole chunks would (elements numbered along the cut normal)', () => {
+    // 64 hex8 in a row along x, then the next row: a chunk of 64 is one whole row, a run of 16 a quarter
+    const mesh = assembly([{ box: { nx: 64, ny: 8, nz: 2, lx: 64, ly: 8, lz: 2 }, type: 'hex8', part: 1 }], true)
+    const chunks = buildElementChunks(mesh)
+    const { n } = chunksMet(chunks, [1, 0, 0], [20.5, 0, 0])
+    const scanned = Array.from(chunksMet(chunks, [1, 0, 0], [20.5, 0, 0]).items.subarray(0, n)).reduce((s, run) => {
+      const ch = Math.floor(run / chunks.runsPerChunk)
+      return s + Math.min(chunks.sub, chunks.first[ch] + chunks.count[ch] - (chunks.first[ch] + chunks.sub * (run - chunks.runsPerChunk * ch)))
+    }, 0)
+    // the plane x = 20.5 cuts one element in each of the 16 rows: every chunk is met, and in
+    // each only its second run (cells 16 to 31)
+    expect(chunks.count.length).toBe(16)
+    expect(n).toBe(16)
+    expect(scanned).toBe(16 * 16)
+  })
 
   it('a plane beyond the body meets no chunk; one through it meets some', () => {
     const mesh = assembly([{ box: { nx: 4, ny: 2, nz: 2, lx: 1, ly: 1, lz: 1 }, type: 'hex8', part: 1 }], true)
