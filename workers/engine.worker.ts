@@ -47,6 +47,7 @@ import type { ElementGrid } from '../src/mechanics/elementGrid.ts'
 import { analyseLine, lineThroughWall } from '../src/mechanics/lineAnalysis.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { readInputFiles, SLICE_BYTES } from './inputFiles.ts'
+import { holdBackgroundDigests } from './inputDigest.ts'
 import { buildElementChunks } from '../src/mechanics/elementChunks.ts'
 import type { ElementChunks } from '../src/mechanics/elementChunks.ts'
 import { tooLargeHint } from '../src/io/sizeGuard.ts'
@@ -490,6 +491,9 @@ function warmCut(loaded: Loaded): void {
     readyPolygonViews()
   } catch { /* only a warm-up: the user's own cut reports any error */ }
 }
+/** How long the background digests pause after a cut starts and after it ends (ms): longer than a drag's pause between cuts. */
+const DIGEST_HOLD_MS = 1500
+
 /** Arrows sampled by the warm-up cut (the sampling's code runs; the count hardly matters). */
 const WARM_ARROWS = 150
 
@@ -603,8 +607,12 @@ const api: EngineApi = {
 
   async cut(plane: SectionPlane, arrows: ArrowRequest, options: CutOptions = {}): Promise<Outcome<CutReply>> {
     if (!current) return { ok: false, error: { message: 'No model is loaded.' } }
+    // the files' digests, if still running, pause for the cut and a moment after it (the next
+    // cut of a drag comes within it): a cut has the core the digest would take
+    holdBackgroundDigests(DIGEST_HOLD_MS)
     try {
       const c = computeCut(current, plane, arrows, options, chunksFor(current))
+      holdBackgroundDigests(DIGEST_HOLD_MS)
       current.polygons = c.polygons
       current.polygonDisplacement = c.polygonDisplacement
       return Comlink.transfer({ ok: true, value: c.value }, c.transfer)

@@ -9,19 +9,32 @@
  * Where no worker can start (Node, the tests) the same code runs here, one file after another.
  */
 import * as Comlink from 'comlink'
-import { DIGEST_SLICE_BYTES, digestBlob } from './blobDigest.ts'
+import { createDigestHold, DIGEST_SLICE_BYTES, digestBlob, holdDigests } from './blobDigest.ts'
+import type { DigestHold } from './blobDigest.ts'
 import type { DigestWorkerApi } from './digest.worker.ts'
+
+/** The hold every background digest of this thread obeys (blobDigest.ts DigestHold); null without shared memory. */
+const HOLD: DigestHold | null = createDigestHold()
+
+/**
+ * Pauses the background digests started from this thread (`background` in digestsOf) for the
+ * next `ms` milliseconds: the engine calls it at every section cut, so that a drag has both cores.
+ */
+export function holdBackgroundDigests(ms: number): void {
+  holdDigests(HOLD, ms)
+}
 
 /**
  * The digests of `blobs`, in order, computed on a worker of their own where one can start (else
  * here), taking `share` of a core (blobDigest.ts). Started at once; the caller awaits the promise
- * when it needs the digests.
+ * when it needs the digests. `background`: they also pause while holdBackgroundDigests holds them.
  */
-export function digestsOf(blobs: readonly Blob[], share = 1): Promise<string[]> {
+export function digestsOf(blobs: readonly Blob[], share = 1, background = false): Promise<string[]> {
+  const hold = background ? HOLD : null
   if (blobs.length === 0) return Promise.resolve([])
   const inline = async (): Promise<string[]> => {
     const out: string[] = []
-    for (const b of blobs) out.push(await digestBlob(b, DIGEST_SLICE_BYTES, share))
+    for (const b of blobs) out.push(await digestBlob(b, DIGEST_SLICE_BYTES, share, hold))
     return out
   }
   if (typeof Worker === 'undefined') return inline()
@@ -36,7 +49,7 @@ export function digestsOf(blobs: readonly Blob[], share = 1): Promise<string[]> 
   const failed = new Promise<never>((_, reject) => { w.onerror = (e) => { e.preventDefault(); reject(new Error('digest worker failed')) } })
   const run = async (): Promise<string[]> => {
     const out: string[] = []
-    for (const b of blobs) out.push(await Promise.race([remote.digest(b, share), failed]))
+    for (const b of blobs) out.push(await Promise.race([remote.digest(b, share, hold), failed]))
     return out
   }
   return run().catch(inline).finally(() => { remote[Comlink.releaseProxy](); w.terminate() })

@@ -83,7 +83,7 @@ export async function readInputFiles(
   const records: Omit<InputFileRecord, 'sha256'>[] = []
   const data = blobs.map((f) => f.data)
   // after the gate the digests are background work: half a core (blobDigest.ts)
-  const digests = digestsAfter ? digestsAfter.then(() => digestsOf(data, BACKGROUND_DIGEST_SHARE)) : digestsOf(data)
+  const digests = digestsAfter ? digestsAfter.then(() => digestsOf(data, BACKGROUND_DIGEST_SHARE, true)) : digestsOf(data)
   // never unhandled when a read below fails first
   digests.catch(() => undefined)
   for (const f of files) {

@@ -9,7 +9,7 @@
 import { describe, expect, it } from 'vitest'
 import { createHash } from 'node:crypto'
 import { readInputFiles, readInSlices } from '../../../workers/inputFiles.ts'
-import { digestBlob } from '../../../workers/blobDigest.ts'
+import { createDigestHold, digestBlob, holdDigests } from '../../../workers/blobDigest.ts'
 import { digestsOf } from '../../../workers/inputDigest.ts'
 import { readModelFiles, writeCsvBundle, writeNative } from '../../../src/io/index.ts'
 import { MAX_CONTAINER_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
@@ -120,6 +120,22 @@ describe('reading a Blob by its byte stream or by slices, and its digest', () =>
   it('the digest of an empty file is the empty message\'s (FIPS 180-4 example: e3b0c442…b855)', async () => {
     expect(await digestBlob(new Blob([]))).toBe('e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855')
     expect(await digestsOf([])).toEqual([])
+  })
+
+  it('a held digest takes no slice until the hold ends, then gives the same SHA-256', async () => {
+    const hold = createDigestHold()!
+    expect(hold).not.toBeNull()
+    holdDigests(hold, 200)
+    const t0 = performance.now()
+    let done = -1
+    const digest = digestBlob(new Blob([data]), 1000, 1, hold).then((h) => { done = performance.now() - t0; return h })
+    // a shorter hold set meanwhile does not cut the longer one short
+    holdDigests(hold, 10)
+    expect(await digest).toBe(sha256(data))
+    expect(done).toBeGreaterThanOrEqual(150)
+    // the hold has run out: the next digest starts at once
+    expect(Atomics.load(hold.until, 0)).toBeLessThanOrEqual(Date.now() - hold.t0)
+    expect(await digestBlob(new Blob([data]), 1000, 1, hold)).toBe(sha256(data))
   })
 
   it('a file shorter than its stated size is a clear error naming it, not a model of zeros', async () => {
