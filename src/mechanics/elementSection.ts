@@ -11,11 +11,10 @@
  *   9 Gauss points instead of 12: `quadPoints`). On an
  *   affine element ξ is linear in x, so the barycentric mix of the vertex ξ is exact; otherwise it
  *   is the start of the guarded Newton inversion of inverseMap.ts.
- * - the geometry of a whole cut is kept (`SectionGeometry`: per cut element its points' ξ,
- *   weights and plane coordinates), so the stress pass (`integrateSectionGeometry`) is only a
- *   gather of the element's nodal tractions σ_a m and a dot product with N(ξ) per point: another
- *   field on the same plane (a load case) would need that pass alone. The sweep, whose planes
- *   each need their own points, runs the two halves element by element instead.
+ * - the stress: the element's nodal tractions σ_a m (`nodalTraction`) and per point their mix by
+ *   N(ξ) (`accumulateTraction`). A cut (sectionCut.ts) and a sweep run the two halves element by
+ *   element, while the element's points are in cache; the case stencil (sectionStencil.ts)
+ *   integrates the points' shape functions into node weights once instead, for many fields.
  *
  * Curved (non-affine) quadratic elements, the approximation: the polygon's vertices lie exactly on
  * the element's curved edges, but its sides are straight chords between them, while the element's
@@ -32,11 +31,9 @@
  */
 import type { ElementTypeName } from '../model/elementTypes.ts'
 import { ELEMENT_TYPES } from '../model/elementTypes.ts'
-import type { Mesh } from '../model/model.ts'
-import type { StressField } from '../model/stressField.ts'
 import type { ElementMap } from './inverseMap.ts'
-import { invertElementMap, invertTrilinearPoints, MAX_ELEMENT_NODES } from './inverseMap.ts'
-import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, ACC_SIZE, MAX_POLYGON_POINTS } from './sectionPolygon.ts'
+import { invertElementMap, invertTrilinearPoints } from './inverseMap.ts'
+import { ACC_AT, ACC_BT, ACC_FORCE, ACC_GROSS, MAX_POLYGON_POINTS } from './sectionPolygon.ts'
 import type { PolygonScratch } from './sectionPolygon.ts'
 import type { BarycentricRule } from './sectionRule.ts'
 import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
@@ -44,7 +41,7 @@ import { trilinearMonomials } from './trilinearMonomials.ts'
 
 // The accumulator slots as module constants: an imported binding read in a per-element function
 // is a getter call under tsx's CommonJS transform (the command line, the benchmarks).
-const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS, SIZE = ACC_SIZE
+const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS
 const monomials = trilinearMonomials, invert = invertElementMap, invertHex = invertTrilinearPoints
 /** The hex8 traction's monomial coefficients T_0..T_7 of the element in hand (3 each). */
 const TRACTION_MONOMIALS = new Float64Array(24)
@@ -251,96 +248,11 @@ export function accumulateTraction(
   force[fo] = Fx; force[fo + 1] = Fy; force[fo + 2] = Fz
 }
 
-/**
- * The quadrature geometry of one cut (all cut elements not on the tet4 path), kept between the
- * geometry and the stress pass: cut element i is element local[i] of mesh block block[i], its
- * points first[i] .. first[i+1]-1 with ξ in ref (3 each), weight w and plane coordinates a, b.
- * Arrays grow (doubling) and are reused cut after cut; `elements`/`points` say how much is valid.
- */
-export interface SectionGeometry {
-  elements: number
-  points: number
-  block: Int32Array
-  local: Int32Array
-  first: Int32Array
-  ref: Float64Array
-  w: Float64Array
-  a: Float64Array
-  b: Float64Array
-}
-
-export function createSectionGeometry(): SectionGeometry {
-  const e = 256, p = 4096
-  const first = new Int32Array(e + 1)
-  return {
-    elements: 0, points: 0, block: new Int32Array(e), local: new Int32Array(e), first,
-    ref: new Float64Array(3 * p), w: new Float64Array(p), a: new Float64Array(p), b: new Float64Array(p),
-  }
-}
-
-/** Empties the geometry for the next cut (keeps its storage). */
-export function resetSectionGeometry(g: SectionGeometry): void {
-  g.elements = 0
-  g.points = 0
-  g.first[0] = 0
-}
-
-/** Makes room for one more element with up to MAX_POLYGON_QUADRATURE points (write them at g.points). */
-export function reserveSectionGeometry(g: SectionGeometry): void {
-  const e = g.elements, p = g.points + MAX_POLYGON_QUADRATURE
-  if (e + 1 > g.block.length) {
-    const size = 2 * g.block.length
-    g.block = growInt(g.block, size); g.local = growInt(g.local, size); g.first = growInt(g.first, size + 1)
-  }
-  if (p > g.w.length) {
-    const size = Math.max(2 * g.w.length, p)
-    g.ref = growFloat(g.ref, 3 * size); g.w = growFloat(g.w, size); g.a = growFloat(g.a, size); g.b = growFloat(g.b, size)
-  }
-}
-
-/** Records cut element `local` of block `block` whose `count` points were written at g.points. */
-export function addSectionElement(g: SectionGeometry, block: number, local: number, count: number): void {
-  const e = g.elements
-  g.block[e] = block; g.local[e] = local
-  g.points += count
-  g.elements = e + 1
-  g.first[e + 1] = g.points
-}
-
-/**
- * The stress pass of a cut: for every element of `g`, its nodal tractions σ_a m (through the
- * field's element-node rows) and the traction integrals over its points into acc[off ..]. When
- * `forces` is given, polygon i's ∫ t dA is written to forces[3i ..] (drawing, arrows).
- */
-export function integrateSectionGeometry(
-  acc: Float64Array, off: number, g: SectionGeometry, mesh: Mesh, field: StressField, m: ArrayLike<number>, forces: Float64Array | null,
-  perElement: Float64Array | null = null, geoRec: Int32Array | null = null,
-): void {
-  const mx = m[0], my = m[1], mz = m[2], values = field.values
-  const tn = TN, N = SHAPE, f3 = FORCE3
-  for (let i = 0; i < g.elements; i++) {
-    const type = mesh.blocks[g.block[i]].type, rows = field.rows[g.block[i]]
-    const nn = ELEMENT_TYPES[type].nodeCount
-    nodalTraction(tn, values, rows, g.local[i] * nn, nn, mx, my, mz)
-    if (perElement && geoRec) {
-      // into the element's own block (sectionRegions.ts), then the same sums into the whole
-      const o = geoRec[i] * SIZE
-      accumulateTraction(perElement, o, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces ?? f3, forces ? 3 * i : 0)
-      addTractionSlots(acc, off, perElement, o)
-    } else if (forces) accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, forces, 3 * i)
-    else accumulateTraction(acc, off, type, nn, tn, g.ref, g.w, g.a, g.b, g.first[i], g.first[i + 1], N, f3, 0)
-  }
-}
-
-/** acc[off ..] += src[so ..] over the slots the stress pass writes (force, its first moments, gross). */
-function addTractionSlots(acc: Float64Array, off: number, src: Float64Array, so: number): void {
+/** acc[off ..] += src[so ..] over the slots the traction integrals write (force, its first moments, gross). */
+export function addTractionSlots(acc: Float64Array, off: number, src: Float64Array, so: number): void {
   for (let k = FORCE; k < BT + 3; k++) acc[off + k] += src[so + k]
   acc[off + GROSS] += src[so + GROSS]
 }
-
-const TN = new Float64Array(3 * MAX_ELEMENT_NODES)
-const SHAPE = new Float64Array(MAX_ELEMENT_NODES)
-const FORCE3 = new Float64Array(3)
 
 /** A copy of `a` in a larger array of length n (grows-only storage). */
 export function growInt(a: Int32Array, n: number): Int32Array {

@@ -22,12 +22,9 @@ import {
   addClippedFace, addWholeFace, closeFreeBody, createClipScratch, faceCornerCount, FB_SIZE, freeBodyTractions, initFreeBody,
 } from './freeBody.ts'
 import type { ClipScratch } from './freeBody.ts'
-import type { SectionGeometry } from './elementSection.ts'
-import {
-  addSectionElement, createSectionGeometry, integrateSectionGeometry, polygonPoints, reserveSectionGeometry, resetSectionGeometry,
-} from './elementSection.ts'
+import { accumulateTraction, addTractionSlots, createSectionPoints, nodalTraction, polygonPoints } from './elementSection.ts'
 import type { ElementMap } from './inverseMap.ts'
-import { createElementMap, loadElementMap, referenceDomain } from './inverseMap.ts'
+import { createElementMap, loadElementMap, MAX_ELEMENT_NODES, referenceDomain } from './inverseMap.ts'
 import {
   ACC_AREA, ACC_FORCE, ACC_GROSS, ACC_ORIGIN, ACC_SIZE, addPolygonArea, createPolygonScratch, crossingCases, elementPolygon,
   elementPolygonRef, integratePolygon, sectionBasis, sectionMomentAtOrigin,
@@ -39,7 +36,7 @@ import { emptySection, sectionCentroid, sectionRecord } from './sectionPropertie
 import { sectionRule, shapeDegree } from './sectionRule.ts'
 import type { CutRecord, SectionLimit } from './sectionRegions.ts'
 import {
-  addAccumulator, createCutRecord, labelRegions, recordElement, recordGeometry, recordTet, regionAccumulators, selectCutElements, selectionAccumulator,
+  addAccumulator, createCutRecord, labelRegions, recordElement, recordTet, regionAccumulators, selectCutElements, selectionAccumulator,
 } from './sectionRegions.ts'
 import type { SectionAxesChoice } from './sectionAxes.ts'
 import type { BoundaryFaces, FreeBodyFigure, SectionPlane, SectionPolygons, SectionRegion, SectionResult, SurfaceTractions } from './types.ts'
@@ -111,8 +108,9 @@ export function planeDistances(mesh: Mesh, plane: SectionPlane, about?: readonly
   nodeDistances(distScratch, mesh.coords, N, basis.point, basis.m)
   return { ...basis, d: distScratch }
 }
-/** The quadrature geometry of the latest cut (grows only, reused like distScratch). */
-const geometry = createSectionGeometry()
+const NO_FORCES = new Float64Array(0)
+/** One element's quadrature points, nodal tractions, shape values and force (cutBlock's scratch). */
+const POINTS = createSectionPoints(), NODAL_TRACTION = new Float64Array(3 * MAX_ELEMENT_NODES), SHAPE = new Float64Array(MAX_ELEMENT_NODES), FORCE3 = new Float64Array(3)
 /** The per-element record of the latest cut with regions or a limit (grows only). */
 const record = createCutRecord()
 let selScratch = new Int32Array(0), labelScratch = new Int32Array(0)
@@ -133,8 +131,6 @@ export function cutSection(
   const acc = new Float64Array(ACC_SIZE)
   const sc = createPolygonScratch()
   const collect = options.polygons ? createPolygonCollector(m, options.polygonViews === true) : null
-  const geo = geometry
-  resetSectionGeometry(geo)
   const em = createElementMap()
   const limit = options.limit ?? null
   const rec = options.regions || limit ? record : null
@@ -143,12 +139,10 @@ export function cutSection(
   mesh.blocks.forEach((block, bi) => {
     const rows = stress.rows[bi]
     if (shapeDegree(block.type) <= 1) cutLinearBlock(acc, sc, d, coords, stress.values, block.type, block.conn, rows, bi, block.offset, frame, collect, rec, near)
-    else cutBlock(acc, sc, em, geo, d, coords, block.type, block.conn, bi, block.offset, frame, collect, rec, near, point)
+    else cutBlock(acc, sc, em, d, coords, stress.values, rows, block.type, block.conn, bi, block.offset, frame, collect, rec, near, point)
   })
-  // the stress pass over the stored geometry
-  const forces = collect ? new Float64Array(3 * geo.elements) : null
-  integrateSectionGeometry(acc, 0, geo, mesh, stress, m, forces, rec ? rec.acc : null, rec ? rec.geoRec : null)
-  const polygons = collect ? collect.finish(mesh, stress, forces!) : null
+  // every polygon was added with its force (cutBlock, cutLinearBlock): no forces to look up
+  const polygons = collect ? collect.finish(mesh, stress, NO_FORCES) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   const labels: RegionLabels | null = rec && options.polygons ? { element: new Int32Array(0), region: new Int32Array(0) } : null
   if (rec && !(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
@@ -365,13 +359,18 @@ function linearVertexReference(sc: PolygonScratch, coords: Float64Array, conn: I
 }
 
 /**
- * The geometry pass of one block of any other type: each cut element's polygon (vertices with
- * exact ξ), its area integrals into `acc`, and its quadrature points (ξ inverted on curved
- * elements) appended to `geo` for the stress pass; drawn polygons to `collect`.
+ * One block of any other type: each cut element's polygon (vertices with exact ξ), its area
+ * integrals, its quadrature points (ξ inverted on curved elements, elementSection.ts) and at
+ * once the traction integrals over them from the element's nodal σm, into `acc` (and into the
+ * element's record with regions or a limit); drawn polygons, with their force, to `collect`.
+ * Element by element, geometry then stress: the points of one element stay in a small scratch
+ * the stress reads while it is in cache (at 10^6 hex8, a separate stress pass over the stored
+ * points of a whole cut wrote and read 9 MB more a cut). Each sum gets its terms in the same
+ * order as that two-pass form gave them within a block.
  */
 function cutBlock(
-  acc: Float64Array, sc: PolygonScratch, em: ElementMap, geo: SectionGeometry, d: Float64Array,
-  coords: Float64Array, type: ElementTypeName, conn: Int32Array, bi: number, offset: number, frame: Float64Array,
+  acc: Float64Array, sc: PolygonScratch, em: ElementMap, d: Float64Array,
+  coords: Float64Array, values: Float64Array, rows: Int32Array, type: ElementTypeName, conn: Int32Array, bi: number, offset: number, frame: Float64Array,
   collect: PolygonCollector | null, rec: CutRecord | null, near: Candidates | null, point: Vec3,
 ): void {
   const topo = ELEMENT_TYPES[type]
@@ -380,23 +379,29 @@ function cutBlock(
   const subdivide = shapeDegree(type) > 1
   const count = conn.length / nn
   const dist = sc.dist
+  const mx = frame[6], my = frame[7], mz = frame[8]
+  const P = POINTS, tn = NODAL_TRACTION, N = SHAPE, f3 = FORCE3
   // imported kernels once into locals (getter calls per element under tsx, see cutLinearBlock)
   const polygon = elementPolygonRef, area = addPolygonArea, points = polygonPoints, load = loadElementMap
-  const reserve = reserveSectionGeometry, addElement = addSectionElement
+  const traction = nodalTraction, integrate = accumulateTraction, addSlots = addTractionSlots
   const one = (e: number): void => {
     const base = nn * e
     if (polygon(sc, acc, 0, coords, d, 0, conn, base, cases, frame, domain.ref) < 3) return
+    let o = -1
     if (rec) {
-      const o = recordElement(rec, bi, e)
+      o = recordElement(rec, bi, e)
       area(rec.acc, o, sc)
       addAccumulator(acc, 0, rec.acc, o)
-      recordGeometry(rec, geo.elements)
     } else area(acc, 0, sc)
     load(em, domain, coords, conn, base)
-    reserve(geo)
-    const q = points(geo.ref, geo.w, geo.a, geo.b, geo.points, sc, rule, em)
-    if (collect) collect.add(sc, bi, e, offset + e, null, geo.elements, em, subdivide)
-    addElement(geo, bi, e, q)
+    const q = points(P.ref, P.w, P.a, P.b, 0, sc, rule, em)
+    traction(tn, values, rows, base, nn, mx, my, mz)
+    if (rec) {
+      // into the element's own record (sectionRegions.ts), then the same sums into the whole
+      integrate(rec.acc, o, type, nn, tn, P.ref, P.w, P.a, P.b, 0, q, N, f3, 0)
+      addSlots(acc, 0, rec.acc, o)
+    } else integrate(acc, 0, type, nn, tn, P.ref, P.w, P.a, P.b, 0, q, N, f3, 0)
+    if (collect) collect.add(sc, bi, e, offset + e, f3, 0, em, subdivide)
   }
   if (cc === 4 || cc === 8 || near) {
     // tetrahedra and hexahedra: a quick branch-free scan as on the linear path (or the elements

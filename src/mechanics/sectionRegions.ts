@@ -34,15 +34,13 @@ export const COINCIDENT_TOL = 1e-6
 
 /**
  * The per-element record of one cut: cut element i is element `local[i]` of block `block[i]`,
- * its integrals in `acc[ACC_SIZE·i ..]` (about the section's shared origin). `geoRec[j]` maps
- * the j-th element of the quadrature geometry (elementSection.ts) to its record.
+ * its integrals in `acc[ACC_SIZE·i ..]` (about the section's shared origin).
  */
 export interface CutRecord {
   n: number
   block: Int32Array
   local: Int32Array
   acc: Float64Array
-  geoRec: Int32Array
   /**
    * 1 where the element's block is not computed yet (`recordElement(.., false)`: linear
    * simplices, whose closed forms are cheap to run again). Most cuts have one region, whose
@@ -66,7 +64,7 @@ export const NO_CORNERS = 255
 export function createCutRecord(): CutRecord {
   const e = 256
   return {
-    n: 0, block: new Int32Array(e), local: new Int32Array(e), acc: new Float64Array(e * ACC_SIZE), geoRec: new Int32Array(e), pending: new Uint8Array(e),
+    n: 0, block: new Int32Array(e), local: new Int32Array(e), acc: new Float64Array(e * ACC_SIZE), pending: new Uint8Array(e),
     corners: new Int32Array(4 * e), tetCode: new Uint8Array(e),
   }
 }
@@ -148,11 +146,6 @@ const TET_CROSSED = (() => {
 /** Face k of a tetrahedron's sorted corners: the other three, ascending. */
 const TET_FACE = new Int32Array([1, 2, 3, 0, 2, 3, 0, 1, 3, 0, 1, 2])
 
-/** Notes that quadrature-geometry element j belongs to the last recorded element. */
-export function recordGeometry(r: CutRecord, j: number): void {
-  if (j >= r.geoRec.length) r.geoRec = growInt(r.geoRec, Math.max(2 * r.geoRec.length, j + 1))
-  r.geoRec[j] = r.n - 1
-}
 
 /** acc[off ..] += src[so ..] over the summable slots (area and traction integrals, counts). */
 export function addAccumulator(acc: Float64Array, off: number, src: Float64Array, so: number): void {
