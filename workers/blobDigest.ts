@@ -37,6 +37,12 @@ export function holdDigests(hold: DigestHold | null, ms: number): void {
   if (until > Atomics.load(hold.until, 0)) Atomics.store(hold.until, 0, until)
 }
 
+/**
+ * A file of at most this many slices ignores the hold: it is hashed in a few tens of ms, and its
+ * digest is wanted at once (a view link names the file by it).
+ */
+export const HOLD_MIN_SLICES = 4
+
 /** Polling step while held (ms): short beside a drag's pace, long beside a slice's hashing. */
 const HOLD_POLL_MS = 50
 
@@ -53,15 +59,17 @@ async function whileHeld(hold: DigestHold | null | undefined): Promise<void> {
  * Lower-case hex SHA-256 of the whole Blob. `share` (0 < share ≤ 1): the part of a core it may
  * take; below 1 it rests after each slice for as long as the slice took, scaled (0.5: as long), so
  * that hashing a large file in the background leaves the other threads most of a shared core.
- * `hold`: before each slice it waits while the hold is set (DigestHold).
+ * `hold`: before each slice it waits while the hold is set (DigestHold), for a Blob of more
+ * than HOLD_MIN_SLICES slices.
  */
 export async function digestBlob(blob: Blob, slice = DIGEST_SLICE_BYTES, share = 1, hold: DigestHold | null = null): Promise<string> {
   const h = sha256.create()
   const next = sliceReader(blob)
   let buf = new ArrayBuffer(Math.max(1, Math.min(slice, blob.size)))
   const rest = share > 0 && share < 1 ? 1 / share - 1 : 0
+  const held = blob.size > HOLD_MIN_SLICES * slice ? hold : null
   for (let at = 0; at < blob.size; at += slice) {
-    await whileHeld(hold)
+    await whileHeld(held)
     const t0 = performance.now()
     const view = await next(new Uint8Array(buf, 0, Math.min(slice, blob.size - at)))
     h.update(view)

@@ -9,7 +9,7 @@
 import { describe, expect, it } from 'vitest'
 import { createHash } from 'node:crypto'
 import { readInputFiles, readInSlices } from '../../../workers/inputFiles.ts'
-import { createDigestHold, digestBlob, holdDigests } from '../../../workers/blobDigest.ts'
+import { createDigestHold, digestBlob, HOLD_MIN_SLICES, holdDigests } from '../../../workers/blobDigest.ts'
 import { digestsOf } from '../../../workers/inputDigest.ts'
 import { readModelFiles, writeCsvBundle, writeNative } from '../../../src/io/index.ts'
 import { MAX_CONTAINER_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
@@ -122,7 +122,7 @@ describe('reading a Blob by its byte stream or by slices, and its digest', () =>
     expect(await digestsOf([])).toEqual([])
   })
 
-  it('a held digest takes no slice until the hold ends, then gives the same SHA-256', async () => {
+  it('a held digest of a file of many slices takes no slice until the hold ends, then gives the same SHA-256; a file of a few slices is not held', async () => {
     const hold = createDigestHold()!
     expect(hold).not.toBeNull()
     holdDigests(hold, 200)
@@ -133,6 +133,10 @@ describe('reading a Blob by its byte stream or by slices, and its digest', () =>
     holdDigests(hold, 10)
     expect(await digest).toBe(sha256(data))
     expect(done).toBeGreaterThanOrEqual(150)
+    // a file of HOLD_MIN_SLICES slices or fewer is hashed at once, hold or not
+    holdDigests(hold, 60_000)
+    expect(await digestBlob(new Blob([data]), Math.ceil(data.length / HOLD_MIN_SLICES), 1, hold)).toBe(sha256(data))
+    Atomics.store(hold.until, 0, 0)
     // the hold has run out: the next digest starts at once
     expect(Atomics.load(hold.until, 0)).toBeLessThanOrEqual(Date.now() - hold.t0)
     expect(await digestBlob(new Blob([data]), 1000, 1, hold)).toBe(sha256(data))
