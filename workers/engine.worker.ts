@@ -33,7 +33,7 @@ import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrow
 import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
 import type { BodyBalance, BoundaryFaces, ElementBalance, LoadPatches, SectionPlane, SectionPolygons, SurfaceTractions } from '../src/mechanics/types.ts'
 import type {
-  AppError, ArrowBuffers, ArrowRequest, AuditSummary, ComputeOptions, CrashKind, CutInfo, CutOptions, CutReply, EngineApi,
+  AppError, ArrowBuffers, ArrowRequest, AuditSummary, ComputeOptions, CrashKind, CutInfo, CutOptions, CutReply, CutRequest, EngineApi,
   LeastBalancedElement, LoadedModel, ModelSource, ModelSummary, Outcome, PatchReply, PatchRule, ProbeRequest, ProgressCallback,
   SectionBuffers, SurfaceBuffers, InputFileRecord,
 } from './protocol.ts'
@@ -95,6 +95,9 @@ interface Loaded {
   /** Lets the input files' digests start (they wait for the first picture); the records with them. */
   startDigests: () => void
   digests: Promise<readonly InputFileRecord[]> | null
+  /** The cut the app will likely ask for first (pictureShown), and the warm-up cut's reply kept for it (`cut` takes it once). */
+  likelyCut: CutRequest | null
+  prepared: { readonly key: string; readonly model: Model; readonly c: ReturnType<typeof computeCut> } | null
 }
 
 let current: Loaded | null = null
@@ -485,11 +488,24 @@ function computeCut(cur: Loaded, plane: SectionPlane, arrows: ArrowRequest, opti
  */
 function warmCut(loaded: Loaded): void {
   try {
-    const b = boundsOf(loaded.model.mesh.coords)
-    const point: Vec3 = [(b.min[0] + b.max[0]) / 2, (b.min[1] + b.max[1]) / 2, (b.min[2] + b.max[2]) / 2]
-    computeCut(loaded, { point, normal: [1, 0, 0] }, { mode: 'full', budget: WARM_ARROWS }, { regions: true }, loaded.chunks)
+    const likely = loaded.likelyCut
+    if (likely) {
+      // the cut the app asks for when the section is switched on: kept for that request
+      const c = computeCut(loaded, likely.plane, likely.arrows, likely.options, loaded.chunks)
+      loaded.prepared = { key: cutRequestKey(likely), model: loaded.model, c }
+    } else {
+      const b = boundsOf(loaded.model.mesh.coords)
+      const point: Vec3 = [(b.min[0] + b.max[0]) / 2, (b.min[1] + b.max[1]) / 2, (b.min[2] + b.max[2]) / 2]
+      computeCut(loaded, { point, normal: [1, 0, 0] }, { mode: 'full', budget: WARM_ARROWS }, { regions: true }, loaded.chunks)
+    }
+    // makes new arrays where the sets are short: the kept reply's polygons (views) stay whole
     readyPolygonViews()
   } catch { /* only a warm-up: the user's own cut reports any error */ }
+}
+
+/** A cut request as a key: the same request gives the same text (the client builds both the same way). */
+function cutRequestKey(r: CutRequest): string {
+  return JSON.stringify([r.plane.point, r.plane.normal, r.arrows.mode, r.arrows.budget, r.options.axes ?? null, r.options.regions === true, r.options.limit ?? null])
 }
 /** How long the background digests pause after a cut starts and after it ends (ms): longer than a drag's pause between cuts. */
 const DIGEST_HOLD_MS = 1500
@@ -503,8 +519,9 @@ const api: EngineApi = {
     startPool()
   },
 
-  pictureShown() {
+  pictureShown(likelyCut?: CutRequest) {
     const cur = current
+    if (cur) cur.likelyCut = likelyCut ?? null
     cur?.startDigests()
     if (!cur || !cur.chunksPool || cur.chunks) return
     const p = cur.chunksPool
@@ -577,7 +594,7 @@ const api: EngineApi = {
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
         vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0, chunksOnPool: false, chunksPool: p,
-        startDigests, digests: digested,
+        startDigests, digests: digested, likelyCut: null, prepared: null,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -610,8 +627,13 @@ const api: EngineApi = {
     // the files' digests, if still running, pause for the cut and a moment after it (the next
     // cut of a drag comes within it): a cut has the core the digest would take
     holdBackgroundDigests(DIGEST_HOLD_MS)
+    // the warm-up cut's reply, when this is the request it was made for (on the same model and
+    // case, before any other cut: its polygons are views the next views cut may reuse)
+    const prepared = current.prepared
+    current.prepared = null
     try {
-      const c = computeCut(current, plane, arrows, options, chunksFor(current))
+      const ready = prepared && prepared.model === current.model && prepared.key === cutRequestKey({ plane, arrows, options })
+      const c = ready ? prepared.c : computeCut(current, plane, arrows, options, chunksFor(current))
       holdBackgroundDigests(DIGEST_HOLD_MS)
       current.polygons = c.polygons
       current.polygonDisplacement = c.polygonDisplacement

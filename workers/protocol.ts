@@ -359,6 +359,13 @@ export interface SweepCaseRequest {
 // Reading the results: section axes, the patch rule, traceability, least balanced elements.
 
 /** How a cut is resolved: its section axes (principal by default). */
+/** One cut as the app asks for it (EngineApi.cut's arguments). */
+export interface CutRequest {
+  readonly plane: Plane
+  readonly arrows: ArrowRequest
+  readonly options: CutOptions
+}
+
 export interface CutOptions {
   readonly axes?: SectionAxesChoice
   // --- assemblies ---
@@ -424,9 +431,12 @@ export interface EngineApi {
    * The app has shown the loaded model's first picture: the engine may start what follows a load
    * and is not needed for it (a large model's element chunks on the pool, then a warm-up cut), so
    * that this work does not share the cores with the picture's drawing. Not calling it costs only
-   * speed: the chunks are then built by the engine at the second cut.
+   * speed: the chunks are then built by the engine at the second cut. `likelyCut`: the cut the
+   * app asks for when the section is switched on as it stands (its plane, arrows and options);
+   * the warm-up cut is that cut, and its reply is kept for that request (`cut` answers it at once
+   * when it comes first, on the same model and case).
    */
-  pictureShown(): void
+  pictureShown(likelyCut?: CutRequest): void
   /**
    * The loaded model's input records with their SHA-256 digests, once computed (they start when
    * the first picture is shown, or when this is asked for first); null when the model was not

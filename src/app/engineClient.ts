@@ -120,6 +120,18 @@ function sameAxes(a: ComponentAxes | null, b: ComponentAxes): boolean {
   return a.origin.every((v, k) => v === b.origin[k]) && a.axis.every((v, k) => v === b.axis[k])
 }
 
+/**
+ * The cut request for the section as it stands in `st` at `offset` (switched on, whether it is
+ * or not): its plane, arrows and options. Software WebGL pays for every arrow on every frame (the
+ * compositor waits for the picture): while the plane is being dragged there, the section arrows
+ * are left out; they return on release. Regions are left out while dragging too.
+ */
+function cutRequestOf(st: TractusState, offset: number) {
+  const plane = sectionPlaneOf({ ...st.section, offset })
+  const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
+  return { plane, arrows: { mode: st.arrowSettings.mode, budget }, options: { axes: st.sectionAxes, regions: !st.section.dragging, limit: st.sectionLimit } }
+}
+
 function cutKey(plane: { point: readonly number[]; normal: readonly number[] }, mode: string, budget: number): string {
   return `${plane.point.join(',')}|${plane.normal.join(',')}|${mode}|${budget}`
 }
@@ -245,7 +257,10 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
       afterFrame(() => afterFrame(() => {
         if (gen !== generation) return
         const calls = connection().calls
-        void calls.pictureShown().catch(() => undefined)
+        // the cut the section's switch would ask for, so the engine's warm-up cut is that cut
+        const st = store.getState()
+        const likely = st.model && !st.section.enabled ? cutRequestOf(st, st.section.offset) : undefined
+        void calls.pictureShown(likely).catch(() => undefined)
         if (out.value.summary.digestsPending) {
           void calls.inputDigests().then((records) => { if (gen === generation && records) store.getState().inputsDigested(records) }, () => undefined)
         }
@@ -310,14 +325,7 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   function startCut(a: CutAsk): void {
     const st = store.getState()
     if (!st.model || !st.section.enabled) return
-    const plane = sectionPlaneOf({ ...st.section, offset: a.offset })
-    const { mode } = st.arrowSettings
-    // Software WebGL pays for every arrow on every frame (the compositor waits for the picture):
-    // while the plane is being dragged there, the section arrows are left out; they return on release.
-    const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
-    const axes = st.sectionAxes
-    // --- assemblies: regions (not while dragging) and the bounded section ---
-    const regions = !st.section.dragging, limit = st.sectionLimit
+    const { plane, arrows: { mode, budget }, options: { axes, regions, limit } } = cutRequestOf(st, a.offset)
     const key = cutKey(plane, mode, budget) + `|${axes.kind}|${axes.reference?.join(',') ?? ''}|${regions}|${JSON.stringify(limit)}`
     if (!a.paced && key === shownKey && st.sectionResult) return
     cutInFlight = true

@@ -16,7 +16,7 @@ import { modelWithInputs } from '../../../src/state/selectors.ts'
 import { createTractusStore, SOFTWARE_ARROW_BUDGET } from '../../../src/state/store.ts'
 import type { SectionResult } from '../../../src/mechanics/types.ts'
 import type {
-  ArrowRequest, AuditSummary, Combination, CutOptions, CutReply, EngineCalls, InputFileRecord, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
+  ArrowRequest, AuditSummary, Combination, CutOptions, CutReply, CutRequest, EngineCalls, InputFileRecord, LoadedModel, ModelSource, Outcome, PatchReply, PatchRule, Plane, SurfaceBuffers,
 } from '../../../workers/protocol.ts'
 
 interface Deferred<T> { readonly promise: Promise<T>; resolve(v: T): void }
@@ -35,13 +35,15 @@ class FakeWorker {
   readonly shownCases: { name: string; combinations: readonly Combination[] }[] = []
   /** What the engine was told after loads: 'picture' for pictureShown, 'digests' for inputDigests. */
   readonly afterLoad: string[] = []
+  /** The likely first cut each pictureShown carried. */
+  readonly likely: (CutRequest | undefined)[] = []
   digests: InputFileRecord[] | null = null
   terminated = false
   constructor(readonly onFailure: (message: string) => void) {}
   readonly calls: EngineCalls = {
     configure: async () => undefined,
     load: (source, _onProgress, rule) => { const reply = deferred<Outcome<LoadedModel>>(); this.loads.push({ source, reply, rule }); return reply.promise },
-    pictureShown: async () => { this.afterLoad.push('picture') },
+    pictureShown: async (likely) => { this.afterLoad.push('picture'); this.likely.push(likely) },
     inputDigests: async () => { this.afterLoad.push('digests'); return this.digests },
     surfaceArrows: async () => null,
     cut: (plane, arrows, options) => { const reply = deferred<Outcome<CutReply>>(); this.cuts.push({ plane, arrows, options, reply }); return reply.promise },
@@ -138,6 +140,39 @@ describe('engine client: after the first picture', () => {
     const m = modelWithInputs(t.store.getState())!
     expect(m.digestsPending).toBeUndefined()
     expect(m.inputs).toEqual([{ name: 'a.tractus', bytes: 10, sha256: 'cd'.repeat(32) }])
+  })
+
+  it('tells the engine the cut the section\'s switch will ask for, exactly as it then asks for it (the engine keeps that cut ready)', async () => {
+    const t = setUp()
+    t.client.watch()
+    await loadModel(t, 'A')
+    await t.frame()
+    const w = t.workers[0]
+    const likely = w.likely[0]
+    expect(likely).toBeDefined()
+    t.store.getState().setSection({ enabled: true })
+    await settle()
+    expect(w.cuts).toHaveLength(1)
+    // the engine compares the two by their JSON (cutRequestKey): the same fields, the same numbers
+    const asked = { plane: w.cuts[0].plane, arrows: w.cuts[0].arrows, options: w.cuts[0].options }
+    expect(JSON.parse(JSON.stringify(asked))).toEqual(JSON.parse(JSON.stringify(likely)))
+    expect(likely!.options.regions).toBe(true)
+  })
+
+  it('with the section already on, no likely cut goes with the first picture (the load asks for its cut)', async () => {
+    const t = setUp()
+    t.client.watch()
+    await loadModel(t, 'A')
+    await t.frame()
+    t.store.getState().setSection({ enabled: true })
+    await settle()
+    t.workers[0].cuts[0].reply.resolve(cutReply(1))
+    await t.frame()
+    await loadModel(t, 'B')
+    await t.frame()
+    expect(t.store.getState().section.enabled).toBe(true)
+    expect(t.workers[0].likely).toHaveLength(2)
+    expect(t.workers[0].likely[1]).toBeUndefined()
   })
 
   it('a model without pending digests is not asked for them', async () => {
