@@ -479,12 +479,14 @@ function computeCut(cur: Loaded, plane: SectionPlane, arrows: ArrowRequest, opti
 }
 
 /**
- * One cut through the middle of the model, as the app asks for a section (regions, arrows), thrown
- * away once the chunks are in: the first cut a user asks for would otherwise run the cut's code
- * cold (interpreted, then compiled while it runs: at 10^7 tet4 in the browser, 0.26–0.57 s against
- * 0.1 s for the next ones). It runs between the engine's jobs right after the load and costs one
- * cut (a request arriving meanwhile waits for it); the cut's kept scratch arrays are then sized
- * for this model, and the next cut reuses them.
+ * One cut once the chunks are in: the cut the app said it will likely ask for first
+ * (`pictureShown`: the section's switch as it stands), whose reply is kept for that request; else
+ * one through the middle of the model, as the app asks for a section (regions, arrows), thrown
+ * away. The first cut a user asks for would otherwise run the cut's code cold (interpreted, then
+ * compiled while it runs: at 10^7 tet4 in the browser, 0.26–0.57 s against 0.1 s for the next
+ * ones). It runs between the engine's jobs right after the load and costs one cut (a request
+ * arriving meanwhile waits for it); the cut's kept arrays are then sized for this model with
+ * room to spare (readyPolygonViews), and the next cuts reuse them.
  */
 function warmCut(loaded: Loaded): void {
   try {
@@ -507,6 +509,7 @@ function warmCut(loaded: Loaded): void {
 function cutRequestKey(r: CutRequest): string {
   return JSON.stringify([r.plane.point, r.plane.normal, r.arrows.mode, r.arrows.budget, r.options.axes ?? null, r.options.regions === true, r.options.limit ?? null])
 }
+
 /** How long the background digests pause after a cut starts and after it ends (ms): longer than a drag's pause between cuts. */
 const DIGEST_HOLD_MS = 1500
 
