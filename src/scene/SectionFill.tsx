@@ -34,13 +34,16 @@ export function createSectionFillMaterial(): ReturnType<typeof createScalarMater
  */
 export function SectionFill({ buffers, traction, range, colourMap, normal, deformScale = 0 }: SectionFillProps) {
   const invalidate = useThree((s) => s.invalidate)
+  // Keyed on the arrays, not on the buffers' record: a drag's start drops the section arrows from
+  // the record (beginSectionDrag) and keeps these arrays, whose upload is not to be redone.
+  const { positions, index, normalTraction, shearTraction, displacement } = buffers
   const { geometry, normalAttr, shearAttr } = useMemo(() => {
     const g = new BufferGeometry()
-    g.setAttribute('position', new BufferAttribute(buffers.positions, 3))
-    g.setIndex(new BufferAttribute(buffers.index, 1))
-    if (buffers.displacement && buffers.displacement.length === buffers.positions.length) g.setAttribute('displacement', new BufferAttribute(buffers.displacement, 3))
-    return { geometry: g, normalAttr: new BufferAttribute(buffers.normalTraction, 1), shearAttr: new BufferAttribute(buffers.shearTraction, 1) }
-  }, [buffers])
+    g.setAttribute('position', new BufferAttribute(positions, 3))
+    g.setIndex(new BufferAttribute(index, 1))
+    if (displacement && displacement.length === positions.length) g.setAttribute('displacement', new BufferAttribute(displacement, 3))
+    return { geometry: g, normalAttr: new BufferAttribute(normalTraction, 1), shearAttr: new BufferAttribute(shearTraction, 1) }
+  }, [positions, index, normalTraction, shearTraction, displacement])
   useEffect(() => () => {
     // Attach both scalar buffers so dispose frees whichever was uploaded.
     geometry.setAttribute('scalarNormal', normalAttr)
