@@ -12,8 +12,8 @@ export const DIGEST_SLICE_BYTES = 8 * 1024 * 1024
  * A pause the engine can put on background digests from its own thread: `until[0]` (an
  * Int32Array on shared memory, so the digest worker sees it at once) is the time, in ms after
  * `t0` (Date.now() clock, the same in every worker), before which a digest takes no further slice.
- * The engine sets it while section cuts run: at 10^7 elements on two cores a digest beside a cut
- * made the user's first cut 60–90 ms slower (221–231 ms without digests, 286–312 ms with).
+ * The engine sets it while section cuts run: at 10^7 elements on two cores the user's first cut
+ * took 225–312 ms beside a digest (three runs), 221–231 ms with the digests all but off (two).
  */
 export interface DigestHold {
   readonly until: Int32Array
@@ -46,7 +46,7 @@ export const HOLD_MIN_SLICES = 4
 /** Polling step while held (ms): short beside a drag's pace, long beside a slice's hashing. */
 const HOLD_POLL_MS = 50
 
-async function whileHeld(hold: DigestHold | null | undefined): Promise<void> {
+async function whileHeld(hold: DigestHold | null): Promise<void> {
   if (!hold) return
   for (;;) {
     const left = Atomics.load(hold.until, 0) - (Date.now() - hold.t0)

@@ -50,11 +50,11 @@ export interface ElementChunks {
 
 /** The chunks of `mesh` with their boxes (O(elements · corners), one pass). */
 export function buildElementChunks(mesh: Mesh, chunk = CHUNK, sub = Math.min(SUB, chunk)): ElementChunks {
-  const RUNS = Math.ceil(chunk / sub), SUB = sub
+  const perChunk = Math.ceil(chunk / sub)
   let total = 0
   for (const b of mesh.blocks) total += Math.ceil(b.conn.length / ELEMENT_TYPES[b.type].nodeCount / chunk)
   const block = new Int32Array(total), first = new Int32Array(total), count = new Int32Array(total)
-  const centre = new Float64Array(3 * total), half = new Float64Array(3 * total), runs = new Float32Array(6 * RUNS * total)
+  const centre = new Float64Array(3 * total), half = new Float64Array(3 * total), runs = new Float32Array(6 * perChunk * total)
   const x = mesh.coords, box = BOX
   let k = 0, scale = 0
   mesh.blocks.forEach((b, bi) => {
@@ -63,9 +63,9 @@ export function buildElementChunks(mesh: Mesh, chunk = CHUNK, sub = Math.min(SUB
     for (let e0 = 0; e0 < n; e0 += chunk, k++) {
       const e1 = Math.min(n, e0 + chunk)
       let x0 = Infinity, y0 = Infinity, z0 = Infinity, x1 = -Infinity, y1 = -Infinity, z1 = -Infinity
-      for (let r = 0, s0 = e0; s0 < e1; r++, s0 += SUB) {
-        cornerBox(box, x, conn, nn, cc, s0, Math.min(e1, s0 + SUB))
-        const o = 6 * (RUNS * k + r)
+      for (let r = 0, s0 = e0; s0 < e1; r++, s0 += sub) {
+        cornerBox(box, x, conn, nn, cc, s0, Math.min(e1, s0 + sub))
+        const o = 6 * (perChunk * k + r)
         for (let i = 0; i < 3; i++) { runs[o + i] = 0.5 * (box[i] + box[3 + i]); runs[o + 3 + i] = 0.5 * (box[3 + i] - box[i]) }
         x0 = Math.min(x0, box[0]); y0 = Math.min(y0, box[1]); z0 = Math.min(z0, box[2])
         x1 = Math.max(x1, box[3]); y1 = Math.max(y1, box[4]); z1 = Math.max(z1, box[5])
@@ -76,7 +76,7 @@ export function buildElementChunks(mesh: Mesh, chunk = CHUNK, sub = Math.min(SUB
       scale = Math.max(scale, Math.abs(x0), Math.abs(x1), Math.abs(y0), Math.abs(y1), Math.abs(z0), Math.abs(z1))
     }
   })
-  return { block, first, count, centre, half, sub, runsPerChunk: RUNS, runs, scale }
+  return { block, first, count, centre, half, sub, runsPerChunk: perChunk, runs, scale }
 }
 
 const BOX = new Float64Array(6)
@@ -112,11 +112,11 @@ export function chunksMet(chunks: ElementChunks, m: readonly number[], point: re
   const mx = m[0], my = m[1], mz = m[2], amx = Math.abs(mx), amy = Math.abs(my), amz = Math.abs(mz)
   const px = point[0], py = point[1], pz = point[2]
   const C = chunks.count.length, c = chunks.centre, h = chunks.half, runs = chunks.runs, count = chunks.count
-  const RUNS = chunks.runsPerChunk, SUB = chunks.sub
+  const perChunk = chunks.runsPerChunk, sub = chunks.sub
   const tol = 1e-9 * (chunks.scale + Math.abs(px) + Math.abs(py) + Math.abs(pz))
   // the runs' boxes are 32-bit (header)
   const runTol = tol + 1e-6 * chunks.scale
-  if (metScratch.length < RUNS * C) metScratch = new Int32Array(RUNS * C)
+  if (metScratch.length < perChunk * C) metScratch = new Int32Array(perChunk * C)
   const out = metScratch
   let n = 0
   for (let k = 0; k < C; k++) {
@@ -124,8 +124,8 @@ export function chunksMet(chunks: ElementChunks, m: readonly number[], point: re
     const dist = (c[o] - px) * mx + (c[o + 1] - py) * my + (c[o + 2] - pz) * mz
     const r = h[o] * amx + h[o + 1] * amy + h[o + 2] * amz + tol
     if (dist > r || dist < -r) continue
-    const last = RUNS * k + Math.ceil(count[k] / SUB)
-    for (let j = RUNS * k; j < last; j++) {
+    const last = perChunk * k + Math.ceil(count[k] / sub)
+    for (let j = perChunk * k; j < last; j++) {
       const q = 6 * j
       const dj = (runs[q] - px) * mx + (runs[q + 1] - py) * my + (runs[q + 2] - pz) * mz
       const rj = runs[q + 3] * amx + runs[q + 4] * amy + runs[q + 5] * amz + runTol
@@ -145,12 +145,12 @@ export function chunksMet(chunks: ElementChunks, m: readonly number[], point: re
 export function findCutInChunks(
   out: Int32Array, d: Float64Array, conn: Int32Array, nn: number, cc: number, chunks: ElementChunks, items: Int32Array, n: number, bi: number,
 ): number {
-  const block = chunks.block, first = chunks.first, count = chunks.count, RUNS = chunks.runsPerChunk, SUB = chunks.sub
+  const block = chunks.block, first = chunks.first, count = chunks.count, perChunk = chunks.runsPerChunk, sub = chunks.sub
   let k = 0
   for (let i = 0; i < n; i++) {
-    const run = items[i], ch = (run / RUNS) | 0
+    const run = items[i], ch = (run / perChunk) | 0
     if (block[ch] !== bi) continue
-    const e0 = first[ch] + SUB * (run - RUNS * ch), e1 = Math.min(first[ch] + count[ch], e0 + SUB)
+    const e0 = first[ch] + sub * (run - perChunk * ch), e1 = Math.min(first[ch] + count[ch], e0 + sub)
     for (let e = e0, base = nn * e; e < e1; e++, base += nn) {
       let neg = 0
       for (let c = 0; c < cc; c++) neg += d[conn[base + c]] < 0 ? 1 : 0

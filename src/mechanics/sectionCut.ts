@@ -108,7 +108,6 @@ export function planeDistances(mesh: Mesh, plane: SectionPlane, about?: readonly
   nodeDistances(distScratch, mesh.coords, N, basis.point, basis.m)
   return { ...basis, d: distScratch }
 }
-const NO_FORCES = new Float64Array(0)
 /** One element's quadrature points, nodal tractions, shape values and force (cutBlock's scratch). */
 const POINTS = createSectionPoints(), NODAL_TRACTION = new Float64Array(3 * MAX_ELEMENT_NODES), SHAPE = new Float64Array(MAX_ELEMENT_NODES), FORCE3 = new Float64Array(3)
 /** The per-element record of the latest cut with regions or a limit (grows only). */
@@ -141,8 +140,7 @@ export function cutSection(
     if (shapeDegree(block.type) <= 1) cutLinearBlock(acc, sc, d, coords, stress.values, block.type, block.conn, rows, bi, block.offset, frame, collect, rec, near)
     else cutBlock(acc, sc, em, d, coords, stress.values, rows, block.type, block.conn, bi, block.offset, frame, collect, rec, near, point)
   })
-  // every polygon was added with its force (cutBlock, cutLinearBlock): no forces to look up
-  const polygons = collect ? collect.finish(mesh, stress, NO_FORCES) : null
+  const polygons = collect ? collect.finish(mesh, stress) : null
   const about = options.about ? [options.about[0], options.about[1], options.about[2]] as Vec3 : null
   const labels: RegionLabels | null = rec && options.polygons ? { element: new Int32Array(0), region: new Int32Array(0) } : null
   if (rec && !(acc[ACC_AREA] > 0)) return { result: { ...emptySection(point, m, frame, about, options.axes), regions: [], limited: limit !== null, freeBodyDefined: limit === null }, polygons, labels }
@@ -313,7 +311,7 @@ function cutLinearBlock(
       // the drawn polygon needs its vertices' ξ: the linear path has the edge parameters only
       // implicitly, so map back through the (affine) element
       linearVertexReference(sc, coords, conn, base, ref)
-      collect.add(sc, bi, list[i], offset + list[i], sc.force, -1, null, false, true)
+      collect.add(sc, bi, list[i], offset + list[i], sc.force, null, false, true)
     }
   }
 }
@@ -401,7 +399,7 @@ function cutBlock(
       integrate(rec.acc, o, type, nn, tn, P.ref, P.w, P.a, P.b, 0, q, N, f3, 0)
       addSlots(acc, 0, rec.acc, o)
     } else integrate(acc, 0, type, nn, tn, P.ref, P.w, P.a, P.b, 0, q, N, f3, 0)
-    if (collect) collect.add(sc, bi, e, offset + e, f3, 0, em, subdivide)
+    if (collect) collect.add(sc, bi, e, offset + e, f3, em, subdivide)
   }
   if (cc === 4 || cc === 8 || near) {
     // tetrahedra and hexahedra: a quick branch-free scan as on the linear path (or the elements

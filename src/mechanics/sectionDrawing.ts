@@ -41,13 +41,14 @@ function keptSet() {
     traction: new Float64Array(8192), fillTraction: new Float64Array(8192),
     linear: new Uint8Array(1024),
     start: new Int32Array(1024), fillStart: new Int32Array(1024), elem: new Int32Array(1024),
-    block: new Int32Array(1024), local: new Int32Array(1024), forceIndex: new Int32Array(1024),
-    direct: new Float64Array(3 * 1024),
+    block: new Int32Array(1024), local: new Int32Array(1024),
+    // per polygon its force, as `add` is given it
+    force: new Float64Array(3 * 1024),
     pos: new Float64Array(8192), ref: new Float64Array(8192),
     fillPos: new Float64Array(8192), fillRef: new Float64Array(8192),
     index: new Uint32Array(3 * 4096), triElem: new Int32Array(4096),
     // per polygon, written by `finish`
-    area: new Float64Array(1024), centroid: new Float64Array(3 * 1024), force: new Float64Array(3 * 1024),
+    area: new Float64Array(1024), centroid: new Float64Array(3 * 1024),
   }
 }
 type KeptSet = ReturnType<typeof keptSet>
@@ -89,7 +90,7 @@ function lengthFor(key: keyof KeptSet, p: number, v: number, f: number, t: numbe
     case 'fillPos': case 'fillRef': case 'fillTraction': return 3 * f
     case 'index': return 3 * t
     case 'triElem': return t
-    case 'direct': case 'centroid': case 'force': return 3 * (p + 1)
+    case 'centroid': case 'force': return 3 * (p + 1)
     default: return p + 1
   }
 }
@@ -124,8 +125,8 @@ export function createPolygonCollector(m: Vec3, views = false) {
   let traction = k.traction, fillTraction = k.fillTraction
   let linear = k.linear
   let start = k.start, fillStart = k.fillStart, elem = k.elem
-  let block = k.block, local = k.local, forceIndex = k.forceIndex
-  let direct = k.direct
+  let block = k.block, local = k.local
+  let force = k.force
   let pos = k.pos, ref = k.ref
   let fillPos = k.fillPos, fillRef = k.fillRef
   let index = k.index, triElem = k.triElem
@@ -135,7 +136,7 @@ export function createPolygonCollector(m: Vec3, views = false) {
     if (count + p + 1 >= start.length) {
       const n = 2 * start.length
       start = growI(start, n); fillStart = growI(fillStart, n); elem = growI(elem, n)
-      block = growI(block, n); local = growI(local, n); forceIndex = growI(forceIndex, n); direct = growF(direct, 3 * n)
+      block = growI(block, n); local = growI(local, n); force = growF(force, 3 * n)
       const l = new Uint8Array(n)
       l.set(linear)
       linear = l
@@ -152,7 +153,7 @@ export function createPolygonCollector(m: Vec3, views = false) {
   function keep(): void {
     // the next cut starts from the grown arrays (one object per cut, not one per polygon)
     if (k.pos !== pos || k.start !== start || k.fillPos !== fillPos || k.index !== index) {
-      Object.assign(k, { traction, fillTraction, linear, start, fillStart, elem, block, local, forceIndex, direct, pos, ref, fillPos, fillRef, index, triElem })
+      Object.assign(k, { traction, fillTraction, linear, start, fillStart, elem, block, local, force, pos, ref, fillPos, fillRef, index, triElem })
     }
   }
 
@@ -179,11 +180,11 @@ export function createPolygonCollector(m: Vec3, views = false) {
   return {
     /**
      * Adds the polygon in `sc` (vertices with ξ in sc.ref) of element `local` in block `blk`
-     * (global index g). Its force is `force` (3 numbers, copied) when given, else entry `fi` of
-     * the forces passed to `finish`. `em`: the loaded element when `subdivide` (curved midpoints).
+     * (global index g), whose force is `f` (∫ σm dA, 3 numbers, copied). `em`: the loaded element
+     * when `subdivide` (curved midpoints).
      * `withStress`: sc.sig holds the vertex stress (linear path), no evaluation needed.
      */
-    add(sc: PolygonScratch, blk: number, loc: number, g: number, force: Float64Array | null, fi: number, em: ElementMap | null, subdivide: boolean, withStress = false): void {
+    add(sc: PolygonScratch, blk: number, loc: number, g: number, f: Float64Array, em: ElementMap | null, subdivide: boolean, withStress = false): void {
       const n = sc.count, order = sc.order
       const nf = subdivide ? 3 * n - 3 : n, nt = subdivide ? 4 * (n - 2) : n - 2
       room(1, n, nf, nt)
@@ -225,18 +226,18 @@ export function createPolygonCollector(m: Vec3, views = false) {
         }
       }
       verts += n
-      block[count] = blk; local[count] = loc; elem[count] = g; forceIndex[count] = force ? -1 : fi
-      if (force) { direct[3 * count] = force[0]; direct[3 * count + 1] = force[1]; direct[3 * count + 2] = force[2] }
+      block[count] = blk; local[count] = loc; elem[count] = g
+      force[3 * count] = f[0]; force[3 * count + 1] = f[1]; force[3 * count + 2] = f[2]
       count++
       start[count] = verts
       fillStart[count] = fills
     },
     /** Tractions at every vertex and fill point by the shape functions; per-polygon integrals. */
-    finish(mesh: Mesh, field: StressField, forces: Float64Array): SectionPolygons {
+    finish(mesh: Mesh, field: StressField): SectionPolygons {
       keep()
       lastUse.polygons = count; lastUse.verts = verts; lastUse.fills = fills; lastUse.tris = tris
-      if (k.area.length < count) { const n = Math.max(count, 2 * k.area.length); k.area = new Float64Array(n); k.centroid = new Float64Array(3 * n); k.force = new Float64Array(3 * n) }
-      const area = k.area, centroid = k.centroid, force = k.force
+      if (k.area.length < count) { const n = Math.max(count, 2 * k.area.length); k.area = new Float64Array(n); k.centroid = new Float64Array(3 * n) }
+      const area = k.area, centroid = k.centroid
       const tn = FINISH_TN, N = FINISH_N
       for (let p = 0; p < count; p++) {
         if (linear[p] === 0) {
@@ -245,8 +246,6 @@ export function createPolygonCollector(m: Vec3, views = false) {
           tractionsAt(traction, ref, start[p], start[p + 1], type, nn, tn, N)
           tractionsAt(fillTraction, fillRef, fillStart[p], fillStart[p + 1], type, nn, tn, N)
         }
-        const src = forceIndex[p] < 0 ? direct : forces, s = forceIndex[p] < 0 ? 3 * p : 3 * forceIndex[p]
-        force[3 * p] = src[s]; force[3 * p + 1] = src[s + 1]; force[3 * p + 2] = src[s + 2]
         polygonAreaCentroid(area, centroid, p, pos, start[p], start[p + 1], mx, my, mz)
       }
       const out = views ? viewOf : copyOf
