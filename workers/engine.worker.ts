@@ -27,7 +27,7 @@ import type { SectionAxesChoice } from '../src/mechanics/sectionAxes.ts'
 import { ELEMENT_TYPES } from '../src/model/elementTypes.ts'
 import { elementIdOf } from '../src/model/elementId.ts'
 import { buildFeatureEdges } from '../src/mechanics/featureEdges.ts'
-import { buildSectionTriangles } from '../src/mechanics/sectionTriangles.ts'
+import { faceTransfer, sectionFace } from './sectionFace.ts'
 import { readyPolygonViews } from '../src/mechanics/sectionDrawing.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../src/mechanics/arrowSampling.ts'
 import type { ArrowSamples } from '../src/mechanics/arrowSampling.ts'
@@ -460,20 +460,18 @@ function computeCut(cur: Loaded, plane: SectionPlane, arrows: ArrowRequest, opti
     const value: CutReply = { result, buffers: null, computeMs: performance.now() - started, info }
     return { value, transfer: [] as ArrayBuffer[], polygons, polygonDisplacement: null }
   }
-  const tri = buildSectionTriangles(polygons, result.plane.normal)
-  const regionTris = labels && result.regions ? regionTriangles(labels, result.regions.length, tri.index, tri.triangleElement) : null
   const a = sampleSectionArrows(polygons, result.plane.normal, { mode: arrows.mode, budget: arrows.budget })
   // The deformed shape moves the section face and its arrows with the material.
   const u = model.displacement
   const pu = u ? displacementOnPolygons(model.mesh, u, polygons) : null
-  const sectionU = pu ? Float32Array.from(pu.subarray(3 * polygons.start[0])) : undefined
+  // the full face and, for a software renderer, the light one drawn while dragging (sectionFace.ts)
+  const f = sectionFace(polygons, result.plane.normal, options.lightFace, pu ? pu.subarray(3 * polygons.start[0]) : undefined, labels !== null && result.regions !== undefined)
+  const regionTris = labels && result.regions && f.triangleElement ? regionTriangles(labels, result.regions.length, f.face.index, f.triangleElement) : null
   const arrowU = pu ? meanOverItems(a.item, polygons.start, pu) : undefined
   const buffers: SectionBuffers = {
-    positions: tri.positions, index: tri.index, normalTraction: tri.normalTraction,
-    shearTraction: tri.shearTraction, ranges: tri.ranges, arrows: arrowU ? { ...a, displacement: arrowU } : a,
-    ...(sectionU ? { displacement: sectionU } : {}),
+    ...f.face, ranges: f.ranges, arrows: arrowU ? { ...a, displacement: arrowU } : a, ...(f.light ? { light: f.light } : {}),
   }
-  const list = [tri.positions, tri.index, tri.normalTraction, tri.shearTraction, ...(sectionU ? [sectionU] : []), ...(arrowU ? [arrowU] : [])].map((x) => x.buffer as ArrayBuffer)
+  const list = [...faceTransfer(f.face), ...faceTransfer(f.light), ...(arrowU ? [arrowU.buffer as ArrayBuffer] : [])]
   const value: CutReply = { result, buffers, computeMs: performance.now() - started, info, ...(regionTris ? { regionTriangles: regionTris } : {}) }
   return { value, transfer: [...list, ...arrowTransfer(a), ...(regionTris ? [regionTris.buffer as ArrayBuffer] : [])], polygons, polygonDisplacement: pu }
 }

@@ -126,21 +126,32 @@ export interface ArrowBuffers extends Pick<ArrowSamples, 'mode' | 'origins' | 'v
 }
 
 /**
- * The filled section face: triangulated cut polygons.
+ * A section face to draw: triangles of points carrying the traction σm of the section.
  * - `positions`: Float32Array(3·V) length units; `index`: Uint32Array(3·T);
  * - `normalTraction`: Float32Array(V) = m·(σm), stress units, tension positive;
  * - `shearTraction`: Float32Array(V) = |σm - (m·σm)m|, stress units;
- * - `ranges`: [min, max] of each; `arrows`: traction σm on the section, same rules as surface arrows.
+ * - `displacement`: Float32Array(3·V), length units, at each point (the deformed shape); absent without displacement.
  */
-export interface SectionBuffers {
+export interface SectionFaceArrays {
   readonly positions: Float32Array
   readonly index: Uint32Array
   readonly normalTraction: Float32Array
   readonly shearTraction: Float32Array
+  readonly displacement?: Float32Array
+}
+
+/**
+ * The filled section face: triangulated cut polygons (or, for a drag step that asked for the
+ * light face only, its coarser face), with
+ * - `ranges`: [min, max] of each traction over the full face; `arrows`: traction σm on the
+ *   section, same rules as surface arrows;
+ * - `light`: the coarser face of about 2·10^4 triangles (workers/sectionFace.ts), when asked
+ *   for and the face has more: a software renderer draws it while the plane is dragged.
+ */
+export interface SectionBuffers extends SectionFaceArrays {
   readonly ranges: { readonly normalTraction: readonly [number, number]; readonly shearTraction: readonly [number, number] }
   readonly arrows: ArrowBuffers
-  /** Float32Array(3·V), length units: displacement at each vertex (the deformed shape); absent without displacement. */
-  readonly displacement?: Float32Array
+  readonly light?: SectionFaceArrays
 }
 
 /** Whole-body audit. Figures in model units; `indicator` percentiles dimensionless. */
@@ -373,6 +384,11 @@ export interface CutOptions {
   readonly regions?: boolean
   /** A bounded section: the figures are those of the selected polygons only. */
   readonly limit?: CutLimit | null
+  /**
+   * The light section face (SectionBuffers.light, for a software renderer): 'also' adds it to
+   * the full face when the face is larger; 'only' (a drag step) sends it in the full face's place.
+   */
+  readonly lightFace?: 'also' | 'only'
 }
 
 /**

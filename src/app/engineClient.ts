@@ -124,12 +124,17 @@ function sameAxes(a: ComponentAxes | null, b: ComponentAxes): boolean {
  * The cut request for the section as it stands in `st` at `offset` (switched on, whether it is
  * or not): its plane, arrows and options. Software WebGL pays for every arrow on every frame (the
  * compositor waits for the picture): while the plane is being dragged there, the section arrows
- * are left out; they return on release. Regions are left out while dragging too.
+ * are left out; they return on release. Regions are left out while dragging too. There, too, a
+ * large section face comes with a light one drawn while dragging, and a drag step brings the light
+ * face only (workers/sectionFace.ts).
  */
 function cutRequestOf(st: TractusState, offset: number) {
   const plane = sectionPlaneOf({ ...st.section, offset })
-  const budget = st.section.dragging && st.renderer === 'software' ? 0 : st.arrowSettings.budget
-  return { plane, arrows: { mode: st.arrowSettings.mode, budget }, options: { axes: st.sectionAxes, regions: !st.section.dragging, limit: st.sectionLimit } }
+  const software = st.renderer === 'software'
+  const budget = software && st.section.dragging ? 0 : st.arrowSettings.budget
+  const lightFace = software ? (st.section.dragging ? 'only' as const : 'also' as const) : undefined
+  const options = { axes: st.sectionAxes, regions: !st.section.dragging, limit: st.sectionLimit, ...(lightFace ? { lightFace } : {}) }
+  return { plane, arrows: { mode: st.arrowSettings.mode, budget }, options }
 }
 
 function cutKey(plane: { point: readonly number[]; normal: readonly number[] }, mode: string, budget: number): string {
@@ -325,13 +330,14 @@ export function createEngineClient(deps: EngineClientDeps): EngineClient {
   function startCut(a: CutAsk): void {
     const st = store.getState()
     if (!st.model || !st.section.enabled) return
-    const { plane, arrows: { mode, budget }, options: { axes, regions, limit } } = cutRequestOf(st, a.offset)
-    const key = cutKey(plane, mode, budget) + `|${axes.kind}|${axes.reference?.join(',') ?? ''}|${regions}|${JSON.stringify(limit)}`
+    const { plane, arrows: { mode, budget }, options } = cutRequestOf(st, a.offset)
+    const { axes, regions, limit } = options
+    const key = cutKey(plane, mode, budget) + `|${axes.kind}|${axes.reference?.join(',') ?? ''}|${regions}|${JSON.stringify(limit)}|${options.lightFace ?? ''}`
     if (!a.paced && key === shownKey && st.sectionResult) return
     cutInFlight = true
     const gen = generation
     const asked = performance.now()
-    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }, { axes, regions, limit }))
+    enqueue<Outcome<CutReply>>((calls) => calls.cut(plane, { mode, budget }, options))
       .then((out) => {
         if (gen !== generation) return
         cutTimed(asked, out.ok ? out.value.computeMs : null)

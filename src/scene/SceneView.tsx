@@ -164,7 +164,7 @@ function SceneContents({ extremeLabel }: { extremeLabel?: ExtremeLabel }) {
         />
       )}
       {shown && sectionBuffers && (
-        <SectionFill buffers={sectionBuffers} traction={section.traction} range={sectionRange} colourMap={sectionMap} normal={normal} deformScale={deformScale} />
+        <SectionFill buffers={sectionBuffers} traction={section.traction} range={sectionRange} colourMap={sectionMap} normal={normal} deformScale={deformScale} dragging={section.dragging} />
       )}
       {shown && sectionBuffers && sphere && arrowSettings.section && (
         <ArrowField

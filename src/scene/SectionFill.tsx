@@ -15,6 +15,8 @@ export interface SectionFillProps {
   readonly normal: readonly [number, number, number]
   /** Scale of the deformed shape (0: undeformed); the face moves by it times buffers.displacement. */
   readonly deformScale?: number
+  /** The plane is being dragged: the light face is drawn when the buffers hold one (a software renderer). */
+  readonly dragging?: boolean
 }
 
 const noRaycast = (): void => {}
@@ -32,11 +34,14 @@ export function createSectionFillMaterial(): ReturnType<typeof createScalarMater
  * The cut face, colour-mapped by the section's normal traction m·σm or shear magnitude; with the
  * deformed shape it moves with the material (the displacement at its vertices comes from the worker).
  */
-export function SectionFill({ buffers, traction, range, colourMap, normal, deformScale = 0 }: SectionFillProps) {
+export function SectionFill({ buffers, traction, range, colourMap, normal, deformScale = 0, dragging = false }: SectionFillProps) {
   const invalidate = useThree((s) => s.invalidate)
+  // While dragging on a software renderer, the light face (workers/sectionFace.ts): the full
+  // face's many small triangles were most of a drag frame there, the grab's first frame included.
+  const face = dragging && buffers.light ? buffers.light : buffers
   // Keyed on the arrays, not on the buffers' record: a drag's start drops the section arrows from
   // the record (beginSectionDrag) and keeps these arrays, whose upload is not to be redone.
-  const { positions, index, normalTraction, shearTraction, displacement } = buffers
+  const { positions, index, normalTraction, shearTraction, displacement } = face
   const { geometry, normalAttr, shearAttr } = useMemo(() => {
     const g = new BufferGeometry()
     g.setAttribute('position', new BufferAttribute(positions, 3))
@@ -64,11 +69,11 @@ export function SectionFill({ buffers, traction, range, colourMap, normal, defor
     u.map.value = colourMapTexture(colourMap)
     u.range.value.set(range[0], range[1])
     // A deformed section face is not flat: it takes its vertex normals (the plane's, as given) then.
-    const deformed = buffers.displacement !== undefined && deformScale !== 0
+    const deformed = displacement !== undefined && deformScale !== 0
     u.flatNormal.value.set(normal[0], normal[1], normal[2], 1)
     u.deformScale.value = deformed ? deformScale : 0
     invalidate()
-  }, [material, colourMap, range, normal, buffers, deformScale, invalidate])
+  }, [material, colourMap, range, normal, displacement, deformScale, invalidate])
 
   return <mesh geometry={geometry} material={material} raycast={noRaycast} frustumCulled={false} />
 }

@@ -1,7 +1,8 @@
 /**
  * Render-buffer builders on a seeded synthetic block (see syntheticModel.ts): surface triangles,
  * their spatial order and clusters, the clusters one pass draws (per frame, on the UI thread),
- * feature edges, surface arrows at the default budget, section fan and section arrows, each the
+ * feature edges, surface arrows at the default budget, section fan, its light face (vertex
+ * clustering, drawn while a software renderer drags the plane) and section arrows, each the
  * median of several runs; checks run outside the timed part. Prints a table, then JSON.
  * Run: npx tsx test/bench/renderBuffers.ts [elements] [seed]
  */
@@ -15,6 +16,7 @@ import { sortTrianglesSpatially, surfaceClusters } from '../../src/mechanics/sur
 import { visibleClusterRuns } from '../../src/scene/clusterVisibility.ts'
 import { buildFeatureEdges } from '../../src/mechanics/featureEdges.ts'
 import { buildSectionTriangles } from '../../src/mechanics/sectionTriangles.ts'
+import { coarsenSectionFill } from '../../src/mechanics/coarseSectionFill.ts'
 import { sampleSectionArrows, sampleSurfaceArrows } from '../../src/mechanics/arrowSampling.ts'
 import { syntheticModel } from './syntheticModel.ts'
 import { measure } from './timing.ts'
@@ -46,6 +48,7 @@ const rows = [
   ['featureEdges', measure(() => buildFeatureEdges(mesh.coords, faces), runs)],
   ['surfaceArrows(2000)', measure(() => sampleSurfaceArrows(faces, tractions, { budget: 2000 }), runs)],
   ['sectionTriangles', measure(() => buildSectionTriangles(polygons, BENCH_PLANE.normal), runs)],
+  ['sectionLightFace(2000)', measure(() => coarsenSectionFill(polygons.fill, BENCH_PLANE.normal, 2000), runs)],
   ['sectionArrows(2000)', measure(() => sampleSectionArrows(polygons, BENCH_PLANE.normal, { budget: 2000 }), runs)],
 ] as const
 
@@ -53,6 +56,7 @@ const rows = [
 const s = buildSurfaceTriangles(mesh.coords, faces, tractions, invariants)
 if (s.index.length !== 3 * faces.count) throw new Error('tet4 faces must give one triangle each')
 if (sampleSurfaceArrows(faces, tractions, { budget: 2000 }).count > 2000) throw new Error('arrow budget exceeded')
+if (coarsenSectionFill(polygons.fill, BENCH_PLANE.normal, 2000).index.length > 3 * 3000) throw new Error('light face far over its budget')
 
 const result = {
   seed, elements: mesh.elementCount, boundaryFaces: faces.count, sectionPolygons: polygons.count, clusters: clusters.start.length - 1,

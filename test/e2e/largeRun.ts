@@ -133,9 +133,19 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   await page.mouse.move(x0, y)
   await page.mouse.down()
   const steps = 40
+  // The picture while dragging (a software renderer draws a lighter section face then), taken a
+  // quarter of the way, once that step's cut has had time to arrive; the tasks of the screenshot
+  // itself are left out of the drag's figures.
+  let shot: [number, number] = [0, 0]
   for (let i = 1; i <= steps; i++) {
     await page.mouse.move(x0 - (slider.width * 0.4 * i) / steps, y)
     await page.waitForTimeout(60)
+    if (i === steps / 4) {
+      await page.waitForTimeout(400)
+      const from = await page.evaluate(() => performance.now())
+      await page.screenshot({ path: `${OUT_DIR}/${o.name}-dragging.png` })
+      shot = [from, await page.evaluate(() => performance.now())]
+    }
   }
   await page.mouse.up()
   const dragEnd = await page.evaluate(() => performance.now())
@@ -155,7 +165,7 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   const during = (a: number, b: number): Task[] => tasks.filter((t) => t.start + t.duration >= a && t.start <= b)
   const ms = (v: Task[]): number[] => v.map((t) => Math.round(t.duration))
   // The drag is pointer down to pointer up; what follows (the last cut, arrows back) is reported apart.
-  const dragTasks = during(dragStart, dragEnd)
+  const dragTasks = during(dragStart, dragEnd).filter((t) => t.start + t.duration < shot[0] || t.start > shot[1])
   const afterTasks = tasks.filter((t) => t.start > dragEnd && t.start <= settledEnd)
   const figures = {
     elements,

@@ -254,6 +254,9 @@ describe('engine client: the latest plane wins', () => {
     expect(w.cuts.length).toBe(2)
     expect(w.cuts[1].plane.point[0]).toBeCloseTo(1.3, 12)
     expect(w.cuts[1].arrows.budget).toBe(0)
+    // ... and with the light section face only (workers/sectionFace.ts); the first cut asked for both.
+    expect(w.cuts[1].options?.lightFace).toBe('only')
+    expect(w.cuts[0].options?.lightFace).toBe('also')
     // The plane on screen stays where it was until its cut is there.
     expect(t.store.getState().section.offset).toBe(0)
     w.cuts[1].reply.resolve(cutReply(1.3))
@@ -268,6 +271,7 @@ describe('engine client: the latest plane wins', () => {
     expect(w.cuts.length).toBe(3)
     expect(w.cuts[2].plane.point[0]).toBeCloseTo(1.3, 12)
     expect(w.cuts[2].arrows.budget).toBe(SOFTWARE_ARROW_BUDGET)
+    expect(w.cuts[2].options?.lightFace).toBe('also')
   })
 
   it('moves by key or typed value while a cut is in flight: the newest plane is cut next, once', async () => {

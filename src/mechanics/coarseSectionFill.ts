@@ -1,0 +1,204 @@
+/**
+ * A lighter section face for drawing while the plane is dragged: the fill triangles of the cut
+ * (SectionFill of sectionDrawing.ts) simplified by vertex clustering (Rossignac and Borrel,
+ * "Multi-resolution 3D approximations for rendering complex scenes", 1993) on a square grid in
+ * the plane. Every fill point falls in one grid cell; the points of a cell become one point at
+ * their mean position carrying the mean of their normal traction m·(σm) and of their shear
+ * magnitude |σm − (m·σm)m|; a triangle whose corners fall in three different cells becomes a
+ * triangle of those cells' points (once, however many fine triangles give it), the others vanish.
+ *
+ * Why: on a software rasteriser the section face of a 10^7-element model (over 10^5 small
+ * triangles) is most of what a drag frame waits for; the coarse face of about `budget` triangles
+ * is drawn instead while dragging, and the full face on release.
+ *
+ * What it keeps: the face stays in the plane (means of points in the plane); a field linear in
+ * position keeps its value at each point (the mean of a linear function is its value at the
+ * mean); values stay within the fine face's range; the outline moves by at most a cell (a cell
+ * is sized so the face has about `budget / 2` cells). The colour ranges returned are the fine
+ * face's, so the legend does not change between the drag and the release.
+ *
+ * O(V + T) with V fill points and T triangles; cells and triangles are found by open-addressing
+ * hash tables over typed arrays (cell coordinates hashed as in Teschner et al., "Optimized
+ * spatial hashing for collision detection of deformable objects", 2003).
+ */
+import type { Vec3 } from '../model/model.ts'
+import type { SectionFill } from './types.ts'
+import { unitNormal } from './plane.ts'
+
+export interface CoarseSectionFill {
+  /** Float32Array(3·C): the mean position of each cell's points, length units. */
+  readonly positions: Float32Array
+  /** Uint32Array(3·T'): triangles of cell points, each counter-clockwise about m (as the fine ones). */
+  readonly index: Uint32Array
+  /** Float32Array(C): mean of m·(σm) over each cell's points, stress units. */
+  readonly normalTraction: Float32Array
+  /** Float32Array(C): mean of |σm − (m·σm)m| over each cell's points, stress units. */
+  readonly shearTraction: Float32Array
+  /** Float32Array(3·C): mean displacement of each cell's points, when one was given. */
+  readonly displacement?: Float32Array
+  /** [min, max] of the fine face's values over the finite ones ([0, 0] when none). */
+  readonly ranges: { readonly normalTraction: readonly [number, number]; readonly shearTraction: readonly [number, number] }
+  /** The cell's side, length units. */
+  readonly cell: number
+}
+
+/** Two unit vectors spanning the plane of unit normal m. */
+function planeAxes(m: Vec3): [Vec3, Vec3] {
+  const ax = Math.abs(m[0]), ay = Math.abs(m[1]), az = Math.abs(m[2])
+  // the coordinate axis least along m, crossed with m
+  const a: Vec3 = ax <= ay && ax <= az ? [1, 0, 0] : ay <= az ? [0, 1, 0] : [0, 0, 1]
+  let u: Vec3 = [m[1] * a[2] - m[2] * a[1], m[2] * a[0] - m[0] * a[2], m[0] * a[1] - m[1] * a[0]]
+  const n = Math.hypot(u[0], u[1], u[2])
+  u = [u[0] / n, u[1] / n, u[2] / n]
+  return [u, [m[1] * u[2] - m[2] * u[1], m[2] * u[0] - m[0] * u[2], m[0] * u[1] - m[1] * u[0]]]
+}
+
+const tableSize = (n: number): number => 1 << Math.max(4, Math.ceil(Math.log2(2 * n + 1)))
+
+/** Scratch kept from call to call (a drag makes one call per step): grown, never shrunk. */
+let OF = new Int32Array(0)
+let SUM = new Float64Array(0), COUNT = new Float64Array(0)
+const grown = <T extends Float64Array | Int32Array>(a: T, n: number, make: (n: number) => T): T => (a.length >= n ? a : make(Math.max(n, 2 * a.length)))
+
+/**
+ * The coarse face of about `budget` triangles (budget ≥ 2). `normal` the section normal m, any
+ * length; `displacement` Float32Array(3·V) per fill point, averaged like the tractions.
+ */
+export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: number, displacement?: Float32Array | Float64Array): CoarseSectionFill {
+  const { positions: x, traction: t, index } = fill
+  const m = unitNormal(normal)
+  const [mx, my, mz] = m
+  const [[e1x, e1y, e1z], [e2x, e2y, e2z]] = planeAxes(m)
+  const V = x.length / 3, T = index.length / 3
+  // --- the face's bounds in the plane and its area ---
+  let u0 = Infinity, v0 = Infinity, u1 = -Infinity, v1 = -Infinity
+  for (let i = 0; i < V; i++) {
+    const px = x[3 * i], py = x[3 * i + 1], pz = x[3 * i + 2]
+    const a = px * e1x + py * e1y + pz * e1z, b = px * e2x + py * e2y + pz * e2z
+    if (a < u0) u0 = a
+    if (a > u1) u1 = a
+    if (b < v0) v0 = b
+    if (b > v1) v1 = b
+  }
+  let area = 0
+  for (let k = 0; k < T; k++) {
+    const a = 3 * index[3 * k], b = 3 * index[3 * k + 1], c = 3 * index[3 * k + 2]
+    const ux = x[b] - x[a], uy = x[b + 1] - x[a + 1], uz = x[b + 2] - x[a + 2]
+    const wx = x[c] - x[a], wy = x[c + 1] - x[a + 1], wz = x[c + 2] - x[a + 2]
+    area += Math.abs((uy * wz - uz * wy) * mx + (uz * wx - ux * wz) * my + (ux * wy - uy * wx) * mz)
+  }
+  area /= 2
+  // at least a millionth of the extent: cell coordinates stay far inside 32-bit integers
+  const extent = Math.max(u1 - u0, v1 - v0, 0)
+  const cell = Math.max(area > 0 ? Math.sqrt(area / Math.max(1, budget / 2)) : extent, 1e-6 * extent) || 1
+  const inv = 1 / cell
+  // --- cells: an id per occupied cell, sums of what is averaged ---
+  const cellSize = tableSize(Math.min(V, budget * 4))
+  let keysI = new Int32Array(cellSize), keysJ = new Int32Array(cellSize), ids = new Int32Array(cellSize).fill(-1)
+  let mask = cellSize - 1
+  const of = (OF = grown(OF, V, (n) => new Int32Array(n)))
+  let count = (COUNT = grown(COUNT, Math.min(V, 4 * budget) + 1, (n) => new Float64Array(n)))
+  let sum = (SUM = grown(SUM, 8 * count.length, (n) => new Float64Array(n)))
+  count.fill(0, 0, count.length)
+  sum.fill(0, 0, 8 * count.length)
+  let C = 0
+  const withU = displacement !== undefined && displacement.length === 3 * V
+  let lo0 = Infinity, hi0 = -Infinity, lo1 = Infinity, hi1 = -Infinity
+  // Points come element by element, so a point's cell is most often the one before's.
+  let lastI = NaN, lastJ = NaN, lastId = -1
+  for (let i = 0; i < V; i++) {
+    const px = x[3 * i], py = x[3 * i + 1], pz = x[3 * i + 2]
+    const ci = Math.floor((px * e1x + py * e1y + pz * e1z - u0) * inv), cj = Math.floor((px * e2x + py * e2y + pz * e2z - v0) * inv)
+    let id = lastId
+    if (ci !== lastI || cj !== lastJ) {
+      let h = (Math.imul(ci, 73856093) ^ Math.imul(cj, 19349663)) & mask
+      while (ids[h] !== -1 && (keysI[h] !== ci || keysJ[h] !== cj)) h = (h + 1) & mask
+      id = ids[h]
+      if (id === -1) {
+        id = C++
+        ids[h] = id; keysI[h] = ci; keysJ[h] = cj
+        if (C >= count.length) {
+          const c2 = new Float64Array(2 * count.length); c2.set(count); count = COUNT = c2
+          const s2 = new Float64Array(16 * c2.length); s2.set(sum); sum = SUM = s2
+        }
+        if (2 * C > ids.length) {
+          // grow the table (rare: `budget` sizes it) and put the cells back
+          const n = ids.length * 2, ki = new Int32Array(n), kj = new Int32Array(n), d = new Int32Array(n).fill(-1)
+          for (let s = 0; s < ids.length; s++) {
+            if (ids[s] === -1) continue
+            let g = (Math.imul(keysI[s], 73856093) ^ Math.imul(keysJ[s], 19349663)) & (n - 1)
+            while (d[g] !== -1) g = (g + 1) & (n - 1)
+            d[g] = ids[s]; ki[g] = keysI[s]; kj[g] = keysJ[s]
+          }
+          keysI = ki; keysJ = kj; ids = d; mask = n - 1
+        }
+      }
+      lastI = ci; lastJ = cj; lastId = id
+    }
+    of[i] = id
+    const tx = t[3 * i], ty = t[3 * i + 1], tz = t[3 * i + 2]
+    const tn = tx * mx + ty * my + tz * mz
+    const sx = tx - tn * mx, sy = ty - tn * my, sz = tz - tn * mz
+    const ts = Math.sqrt(sx * sx + sy * sy + sz * sz)
+    // the ranges of the values as the full face sends them (32-bit), so the legend keeps still
+    const fn = Math.fround(tn), fs = Math.fround(ts)
+    if (fn < lo0 && fn !== -Infinity) lo0 = fn
+    if (fn > hi0 && fn !== Infinity) hi0 = fn
+    if (fs < lo1 && fs !== -Infinity) lo1 = fs
+    if (fs > hi1 && fs !== Infinity) hi1 = fs
+    count[id]++
+    const o = 8 * id
+    sum[o] += px; sum[o + 1] += py; sum[o + 2] += pz
+    sum[o + 3] += tn; sum[o + 4] += ts
+    if (withU) { sum[o + 5] += displacement[3 * i]; sum[o + 6] += displacement[3 * i + 1]; sum[o + 7] += displacement[3 * i + 2] }
+  }
+  const positions = new Float32Array(3 * C), normalTraction = new Float32Array(C), shearTraction = new Float32Array(C)
+  const du = withU ? new Float32Array(3 * C) : undefined
+  for (let c = 0; c < C; c++) {
+    const w = 1 / count[c], o = 8 * c
+    positions[3 * c] = sum[o] * w; positions[3 * c + 1] = sum[o + 1] * w; positions[3 * c + 2] = sum[o + 2] * w
+    normalTraction[c] = sum[o + 3] * w; shearTraction[c] = sum[o + 4] * w
+    if (du) { du[3 * c] = sum[o + 5] * w; du[3 * c + 1] = sum[o + 6] * w; du[3 * c + 2] = sum[o + 7] * w }
+  }
+  // --- triangles of three different cells, each once (keyed by its cells in sorted order) ---
+  const triSize = tableSize(Math.min(T, 4 * C))
+  let tA = new Int32Array(triSize).fill(-1), tB = new Int32Array(triSize), tC = new Int32Array(triSize)
+  let tmask = triSize - 1
+  let out = new Uint32Array(3 * Math.min(T, 2 * C + 16))
+  let n = 0
+  for (let k = 0; k < T; k++) {
+    const a = of[index[3 * k]], b = of[index[3 * k + 1]], c = of[index[3 * k + 2]]
+    if (a === b || b === c || a === c) continue
+    const p = a < b ? (a < c ? a : c) : (b < c ? b : c)
+    const r = a > b ? (a > c ? a : c) : (b > c ? b : c)
+    const q = a + b + c - p - r
+    let h = (Math.imul(p, 73856093) ^ Math.imul(q, 19349663) ^ Math.imul(r, 83492791)) & tmask
+    while (tA[h] !== -1 && (tA[h] !== p || tB[h] !== q || tC[h] !== r)) h = (h + 1) & tmask
+    if (tA[h] !== -1) continue
+    tA[h] = p; tB[h] = q; tC[h] = r
+    if (3 * (n + 1) > out.length) { const o2 = new Uint32Array(2 * out.length); o2.set(out); out = o2 }
+    // counter-clockwise about m, as the fine triangles are: a triangle that clustering folded over
+    // is turned back, or its back face would shade darker than the face around it
+    const ux = positions[3 * b] - positions[3 * a], uy = positions[3 * b + 1] - positions[3 * a + 1], uz = positions[3 * b + 2] - positions[3 * a + 2]
+    const wx = positions[3 * c] - positions[3 * a], wy = positions[3 * c + 1] - positions[3 * a + 1], wz = positions[3 * c + 2] - positions[3 * a + 2]
+    const flip = (uy * wz - uz * wy) * mx + (uz * wx - ux * wz) * my + (ux * wy - uy * wx) * mz < 0
+    out[3 * n] = a; out[3 * n + 1] = flip ? c : b; out[3 * n + 2] = flip ? b : c
+    n++
+    if (2 * n > tA.length) {
+      const s = tA.length * 2, a2 = new Int32Array(s).fill(-1), b2 = new Int32Array(s), c2 = new Int32Array(s)
+      for (let j = 0; j < tA.length; j++) {
+        if (tA[j] === -1) continue
+        let g = (Math.imul(tA[j], 73856093) ^ Math.imul(tB[j], 19349663) ^ Math.imul(tC[j], 83492791)) & (s - 1)
+        while (a2[g] !== -1) g = (g + 1) & (s - 1)
+        a2[g] = tA[j]; b2[g] = tB[j]; c2[g] = tC[j]
+      }
+      tA = a2; tB = b2; tC = c2; tmask = s - 1
+    }
+  }
+  return {
+    positions, index: out.slice(0, 3 * n), normalTraction, shearTraction,
+    ...(du ? { displacement: du } : {}),
+    ranges: { normalTraction: lo0 <= hi0 ? [lo0, hi0] : [0, 0], shearTraction: lo1 <= hi1 ? [lo1, hi1] : [0, 0] },
+    cell,
+  }
+}
