@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
-import { newPage, useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
+import { newPage, pixelStats, useBrowserSession, OUT_DIR, waitForCut, waitForModel } from './browser.ts'
 import type { Page } from 'playwright-core'
 import { BACKGROUND, HANDLE } from '../../src/scene/sceneLook.ts'
 
@@ -56,6 +56,23 @@ async function shareUnlike(page: Page, png: Buffer, hex: string, rect: { x: numb
   }, { b64: png.toString('base64'), hex, rect })
 }
 
+/** Share of the pixels in `rect` whose colours differ by more than `tol` (sum over r, g, b) between two PNGs of one size. */
+async function shareDiffering(page: Page, a: Buffer, b: Buffer, rect: { x: number; y: number; w: number; h: number }, tol: number): Promise<number> {
+  return page.evaluate(async ({ a64, b64, rect, tol }) => {
+    const pixels = async (s: string) => {
+      const bmp = await createImageBitmap(new Blob([Uint8Array.from(atob(s), (c) => c.charCodeAt(0))], { type: 'image/png' }))
+      const c = new OffscreenCanvas(bmp.width, bmp.height)
+      const g = c.getContext('2d')!
+      g.drawImage(bmp, 0, 0)
+      return g.getImageData(rect.x, rect.y, rect.w, rect.h).data
+    }
+    const [p, q] = [await pixels(a64), await pixels(b64)]
+    let n = 0
+    for (let i = 0; i < p.length; i += 4) if (Math.abs(p[i] - q[i]) + Math.abs(p[i + 1] - q[i + 1]) + Math.abs(p[i + 2] - q[i + 2]) > tol) n++
+    return n / (p.length / 4)
+  }, { a64: a.toString('base64'), b64: b.toString('base64'), rect, tol })
+}
+
 const planeText = (page: Page) => page.textContent('[data-testid="cut-plane"]')
 const hashParam = (page: Page, key: string) => page.evaluate((k) => new URLSearchParams(location.hash.slice(1)).get(k), key)
 
@@ -84,6 +101,44 @@ describe('scene', () => {
     expect(x).not.toBeCloseTo(2, 3)
     expect(await hashParam(page, 'cam')).toBe(camBefore)
     await page.screenshot({ path: `${OUT_DIR}/scene-handle-after.png` })
+    await page.close()
+  })
+
+  // A face of more than 2·10^4 fill triangles (the generated block of 2·10^5 tet4, cut along its
+  // length through mid-depth, tilted so the normal traction varies, ±24 kPa, about 16 000
+  // polygons; the colour range set to ±20 kPa so the face shows its gradient):
+  // software WebGL draws its light face while the offset slider is dragged (workers/sectionFace.ts)
+  // and the full face again on release, at the same plane.
+  it('a large section face stays drawn, with its colours, while dragged, and its full face comes back on release', async () => {
+    const page = await newPage(s, '#model=block&elements=200000&cut=2,0,0.25,0.05,0,1,0&r=-20000,20000')
+    await waitForModel(page, 120_000)
+    await waitForCut(page, 60_000)
+    await page.waitForTimeout(2000)
+    const view = { x: 0, y: 40, w: 900, h: 600 }
+    const rest = await page.screenshot({ path: `${OUT_DIR}/scene-large-face-rest.png` })
+    const slider = (await page.locator('[data-testid="cut-offset"]').boundingBox())!
+    const y = slider.y + slider.height / 2, x0 = slider.x + slider.width / 2
+    const before = await planeText(page)
+    // Pressed in the middle (offset 0: the range is symmetric), then moved by the arrow keys while
+    // the pointer stays down: a pixel of this slider is 0.07 m, and the block only 0.5 m deep.
+    await page.mouse.move(x0, y)
+    await page.mouse.down()
+    for (let i = 1; i <= 6; i++) { await page.keyboard.press('ArrowRight'); await page.waitForTimeout(150) }
+    await page.waitForTimeout(1500)
+    // while the pointer is still down: the plane has moved, the face shows its gradient
+    const during = await planeText(page)
+    expect(during).not.toBe(before)
+    const dragging = await page.screenshot({ path: `${OUT_DIR}/scene-large-face-dragging.png` })
+    const [a, d] = [await pixelStats(page, rest, view), await pixelStats(page, dragging, view)]
+    // (at rest the section's arrows and axes add to the picture)
+    expect(d.nonBackground).toBeGreaterThan(0.7 * a.nonBackground)
+    expect(d.distinct).toBeGreaterThan(200)
+    // released where it is: the full face at the same plane, a picture all but equal to the light one's
+    await page.mouse.up()
+    await page.waitForTimeout(2500)
+    expect(await planeText(page)).toBe(during)
+    const after = await page.screenshot({ path: `${OUT_DIR}/scene-large-face-after.png` })
+    expect(await shareDiffering(page, dragging, after, view, 40)).toBeLessThan(0.05)
     await page.close()
   })
 
