@@ -98,6 +98,10 @@ interface Loaded {
   /** The cut the app will likely ask for first (pictureShown), and the warm-up cut's reply kept for it (`cut` takes it once). */
   likelyCut: CutRequest | null
   prepared: { readonly key: string; readonly model: Model; readonly c: ReturnType<typeof computeCut> } | null
+  /** A drag step's cut has been run once, thrown away, after the first cut shown (warmDrag). */
+  dragWarmed: boolean
+  /** Cuts asked for of this model (warmDrag runs only if none came after the one it follows). */
+  cutsAsked: number
 }
 
 let current: Loaded | null = null
@@ -503,9 +507,30 @@ function warmCut(loaded: Loaded): void {
   } catch { /* only a warm-up: the user's own cut reports any error */ }
 }
 
+/**
+ * A drag step's cut of the plane just shown, thrown away: run once per model, half a second
+ * after the first cut the app shows (while the user looks at it), on a large model. The first cuts of a drag
+ * ran slower than the later ones in the browser (at 10^7 elements: 304, 243, 201, then about 150 ms,
+ * the engine's own compute), the code of a drag step's cut still being compiled; this one pays
+ * for the first of them. It is left out when another cut was asked for in the meantime; a request
+ * arriving while it runs waits for it (one cut). Its polygons take
+ * the other set of kept arrays (polygonViews), so those of the cut shown, which the probe reads,
+ * stay whole.
+ */
+function warmDrag(cur: Loaded, shown: CutRequest): void {
+  if (current !== cur) return
+  const light = shown.options.lightFace !== undefined
+  try {
+    computeCut(cur, shown.plane, light ? { ...shown.arrows, budget: 0 } : shown.arrows, { ...shown.options, regions: false, ...(light ? { lightFace: 'only' as const } : {}) }, cur.chunks)
+  } catch { /* only a warm-up */ }
+}
+
+/** How long after the first cut shown its drag step's warm-up waits (ms): the section's first frame took 185-370 ms at 10^7. */
+const DRAG_WARM_DELAY_MS = 500
+
 /** A cut request as a key: the same request gives the same text (the client builds both the same way). */
 function cutRequestKey(r: CutRequest): string {
-  return JSON.stringify([r.plane.point, r.plane.normal, r.arrows.mode, r.arrows.budget, r.options.axes ?? null, r.options.regions === true, r.options.limit ?? null])
+  return JSON.stringify([r.plane.point, r.plane.normal, r.arrows.mode, r.arrows.budget, r.options.axes ?? null, r.options.regions === true, r.options.limit ?? null, r.options.lightFace ?? null])
 }
 
 /** How long the background digests pause after a cut starts and after it ends (ms): longer than a drag's pause between cuts. */
@@ -595,7 +620,7 @@ const api: EngineApi = {
       current = {
         model, base: model, shownCase: firstCaseName(model), faces, tractions, polygons: null, grid: null, polygonDisplacement: null,
         vonMises: invariants.vonMises, balance, body, basis, chunks: null, cuts: 0, chunksOnPool: false, chunksPool: p,
-        startDigests, digests: digested, likelyCut: null, prepared: null,
+        startDigests, digests: digested, likelyCut: null, prepared: null, dragWarmed: false, cutsAsked: 0,
       }
       report('Done', 1)
       const value: LoadedModel = { summary, surface, audit: auditSummary(mesh, body, patches, verdict, balance), extras, ...(assembly ? { assembly } : {}) }
@@ -628,6 +653,7 @@ const api: EngineApi = {
     // the files' digests, if still running, pause for the cut and a moment after it (the next
     // cut of a drag comes within it): a cut has the core the digest would take
     holdBackgroundDigests(DIGEST_HOLD_MS)
+    current.cutsAsked++
     // the warm-up cut's reply, when this is the request it was made for (on the same model and
     // case, before any other cut: its polygons are views the next views cut may reuse)
     const prepared = current.prepared
@@ -638,6 +664,13 @@ const api: EngineApi = {
       holdBackgroundDigests(DIGEST_HOLD_MS)
       current.polygons = c.polygons
       current.polygonDisplacement = c.polygonDisplacement
+      if (!current.dragWarmed && options.regions === true && current.chunks) {
+        current.dragWarmed = true
+        const cur = current, asked = cur.cutsAsked
+        // once this reply's picture is likely out (its frame would share the cores), unless
+        // another cut came meanwhile: see warmDrag
+        setTimeout(() => { if (cur.cutsAsked === asked) warmDrag(cur, { plane, arrows, options }) }, DRAG_WARM_DELAY_MS)
+      }
       return Comlink.transfer({ ok: true, value: c.value }, c.transfer)
     } catch (e) {
       // the kept polygons are views that the cut after next overwrites (polygonViews): drop them
