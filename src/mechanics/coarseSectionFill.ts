@@ -59,6 +59,16 @@ const tableSize = (n: number): number => 1 << Math.max(4, Math.ceil(Math.log2(2 
 let OF = new Int32Array(0)
 let SUM = new Float64Array(0), COUNT = new Float64Array(0)
 const grown = <T extends Float64Array | Int32Array>(a: T, n: number, make: (n: number) => T): T => (a.length >= n ? a : make(Math.max(n, 2 * a.length)))
+/**
+ * The hash tables' arrays, kept too (cells: keys i, j and ids; triangles: three corners), as views
+ * of the size asked for: memory a process has not touched costs more to write the first time than
+ * the whole clustering (a drag step's fresh tables took about 20 ms in the browser at 10^7).
+ */
+const TABLES: Int32Array[] = Array.from({ length: 6 }, () => new Int32Array(0))
+function table(k: number, n: number): Int32Array {
+  if (TABLES[k].length < n) TABLES[k] = new Int32Array(n)
+  return TABLES[k].subarray(0, n)
+}
 
 /**
  * The coarse face of about `budget` triangles (budget ≥ 2). `normal` the section normal m, any
@@ -94,7 +104,7 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
   const inv = 1 / cell
   // --- cells: an id per occupied cell, sums of what is averaged ---
   const cellSize = tableSize(Math.min(V, budget * 4))
-  let keysI = new Int32Array(cellSize), keysJ = new Int32Array(cellSize), ids = new Int32Array(cellSize).fill(-1)
+  let keysI = table(0, cellSize), keysJ = table(1, cellSize), ids = table(2, cellSize).fill(-1)
   let mask = cellSize - 1
   const of = (OF = grown(OF, V, (n) => new Int32Array(n)))
   let count = (COUNT = grown(COUNT, Math.min(V, 4 * budget) + 1, (n) => new Float64Array(n)))
@@ -162,7 +172,7 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
   }
   // --- triangles of three different cells, each once (keyed by its cells in sorted order) ---
   const triSize = tableSize(Math.min(T, 4 * C))
-  let tA = new Int32Array(triSize).fill(-1), tB = new Int32Array(triSize), tC = new Int32Array(triSize)
+  let tA = table(3, triSize).fill(-1), tB = table(4, triSize), tC = table(5, triSize)
   let tmask = triSize - 1
   let out = new Uint32Array(3 * Math.min(T, 2 * C + 16))
   let n = 0

@@ -147,6 +147,8 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
       shot = [from, await page.evaluate(() => performance.now())]
     }
   }
+  // the release asks for its own cut at once: its round trip is the first cut from here on
+  const releaseAt = await page.evaluate(() => performance.now())
   await page.mouse.up()
   const dragEnd = await page.evaluate(() => performance.now())
   // Let the last coalesced cut arrive and draw.
@@ -159,7 +161,7 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   })))
   await page.screenshot({ path: `${OUT_DIR}/${o.name}.png` })
   const traced: TaskParts[] | null = tracer ? await tracer.stop(100) : null
-  const dragCuts = cuts.filter((c) => c.start >= dragStart && c.start <= dragEnd)
+  const dragCuts = cuts.filter((c) => c.start >= dragStart && c.start < releaseAt)
   const shown = cutChanges.filter((t) => t >= dragStart && t <= dragEnd)
   const intervals = shown.slice(1).map((t, i) => t - shown[i])
   const during = (a: number, b: number): Task[] => tasks.filter((t) => t.start + t.duration >= a && t.start <= b)
@@ -191,7 +193,7 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
       longTasks: summary(dragTasks),
       longTaskDurationsMs: ms(dragTasks),
     },
-    afterRelease: { windowMs: Math.round(settledEnd - dragEnd), longTasks: summary(afterTasks), cutRoundTripMs: round(cuts.filter((c) => c.start > dragEnd).at(-1)?.roundTrip ?? NaN) },
+    afterRelease: { windowMs: Math.round(settledEnd - dragEnd), longTasks: summary(afterTasks), cutRoundTripMs: round(cuts.filter((c) => c.start >= releaseAt).at(-1)?.roundTrip ?? NaN) },
   }
   console.log(`${o.name} figures ` + JSON.stringify(figures))
   writeFileSync(`${OUT_DIR}/${o.name}.json`, JSON.stringify(figures, null, 2) + '\n')
