@@ -60,14 +60,42 @@ let OF = new Int32Array(0)
 let SUM = new Float64Array(0), COUNT = new Float64Array(0)
 const grown = <T extends Float64Array | Int32Array>(a: T, n: number, make: (n: number) => T): T => (a.length >= n ? a : make(Math.max(n, 2 * a.length)))
 /**
- * The hash tables' arrays, kept too (cells: keys i, j and ids; triangles: three corners), as views
- * of the size asked for: memory a process has not touched costs more to write the first time than
- * the whole clustering (a drag step's fresh tables took about 20 ms in the browser at 10^7).
+ * The two hash tables, kept too, as views of the size asked for: memory a process has not
+ * touched costs more to write the first time than the clustering. Each slot holds its three
+ * numbers side by side (a cell: id, i, j; a triangle: its cells p < q < r), so a probe reads one
+ * cache line; the tables are sized by the budget (about budget / 2 cells), not by the points, so
+ * they stay in the processor's cache (at 10^7 elements a table sized by the points cost a cache
+ * miss at nearly every polygon).
  */
-const TABLES: Int32Array[] = Array.from({ length: 6 }, () => new Int32Array(0))
-function table(k: number, n: number): Int32Array {
-  if (TABLES[k].length < n) TABLES[k] = new Int32Array(n)
-  return TABLES[k].subarray(0, n)
+const TABLES: Int32Array[] = [new Int32Array(0), new Int32Array(0)]
+function table(k: number, slots: number): Int32Array {
+  if (TABLES[k].length < 3 * slots) TABLES[k] = new Int32Array(3 * slots)
+  return TABLES[k].subarray(0, 3 * slots)
+}
+const H1 = 73856093, H2 = 19349663, H3 = 83492791
+
+/** A cell table twice the size, the cells put back. */
+function grownCells(t: Int32Array): Int32Array {
+  const n = (2 * t.length) / 3, m = n - 1, d = new Int32Array(3 * n).fill(-1)
+  for (let s = 0; s < t.length; s += 3) {
+    if (t[s] === -1) continue
+    let g = (Math.imul(t[s + 1], H1) ^ Math.imul(t[s + 2], H2)) & m
+    while (d[3 * g] !== -1) g = (g + 1) & m
+    d[3 * g] = t[s]; d[3 * g + 1] = t[s + 1]; d[3 * g + 2] = t[s + 2]
+  }
+  return d
+}
+
+/** A triangle table twice the size, the triangles put back. */
+function grownTriangles(t: Int32Array): Int32Array {
+  const n = (2 * t.length) / 3, m = n - 1, d = new Int32Array(3 * n).fill(-1)
+  for (let s = 0; s < t.length; s += 3) {
+    if (t[s] === -1) continue
+    let g = (Math.imul(t[s], H1) ^ Math.imul(t[s + 1], H2) ^ Math.imul(t[s + 2], H3)) & m
+    while (d[3 * g] !== -1) g = (g + 1) & m
+    d[3 * g] = t[s]; d[3 * g + 1] = t[s + 1]; d[3 * g + 2] = t[s + 2]
+  }
+  return d
 }
 
 /**
@@ -103,11 +131,10 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
   const cell = Math.max(area > 0 ? Math.sqrt(area / Math.max(1, budget / 2)) : extent, 1e-6 * extent) || 1
   const inv = 1 / cell
   // --- cells: an id per occupied cell, sums of what is averaged ---
-  const cellSize = tableSize(Math.min(V, budget * 4))
-  let keysI = table(0, cellSize), keysJ = table(1, cellSize), ids = table(2, cellSize).fill(-1)
-  let mask = cellSize - 1
+  let cells = table(0, tableSize(Math.min(V, budget / 2 + 16))).fill(-1)
+  let mask = cells.length / 3 - 1
   const of = (OF = grown(OF, V, (n) => new Int32Array(n)))
-  let count = (COUNT = grown(COUNT, Math.min(V, 4 * budget) + 1, (n) => new Float64Array(n)))
+  let count = (COUNT = grown(COUNT, Math.min(V, budget) + 1, (n) => new Float64Array(n)))
   let sum = (SUM = grown(SUM, 8 * count.length, (n) => new Float64Array(n)))
   count.fill(0, 0, count.length)
   sum.fill(0, 0, 8 * count.length)
@@ -121,27 +148,18 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
     const ci = Math.floor((px * e1x + py * e1y + pz * e1z - u0) * inv), cj = Math.floor((px * e2x + py * e2y + pz * e2z - v0) * inv)
     let id = lastId
     if (ci !== lastI || cj !== lastJ) {
-      let h = (Math.imul(ci, 73856093) ^ Math.imul(cj, 19349663)) & mask
-      while (ids[h] !== -1 && (keysI[h] !== ci || keysJ[h] !== cj)) h = (h + 1) & mask
-      id = ids[h]
+      let h = (Math.imul(ci, H1) ^ Math.imul(cj, H2)) & mask
+      while (cells[3 * h] !== -1 && (cells[3 * h + 1] !== ci || cells[3 * h + 2] !== cj)) h = (h + 1) & mask
+      id = cells[3 * h]
       if (id === -1) {
         id = C++
-        ids[h] = id; keysI[h] = ci; keysJ[h] = cj
+        cells[3 * h] = id; cells[3 * h + 1] = ci; cells[3 * h + 2] = cj
         if (C >= count.length) {
           const c2 = new Float64Array(2 * count.length); c2.set(count); count = COUNT = c2
           const s2 = new Float64Array(16 * c2.length); s2.set(sum); sum = SUM = s2
         }
-        if (2 * C > ids.length) {
-          // grow the table (rare: `budget` sizes it) and put the cells back
-          const n = ids.length * 2, ki = new Int32Array(n), kj = new Int32Array(n), d = new Int32Array(n).fill(-1)
-          for (let s = 0; s < ids.length; s++) {
-            if (ids[s] === -1) continue
-            let g = (Math.imul(keysI[s], 73856093) ^ Math.imul(keysJ[s], 19349663)) & (n - 1)
-            while (d[g] !== -1) g = (g + 1) & (n - 1)
-            d[g] = ids[s]; ki[g] = keysI[s]; kj[g] = keysJ[s]
-          }
-          keysI = ki; keysJ = kj; ids = d; mask = n - 1
-        }
+        // rare (the budget sizes the table): twice the size, the cells put back
+        if (2 * C > mask + 1) { cells = TABLES[0] = grownCells(cells); mask = cells.length / 3 - 1 }
       }
       lastI = ci; lastJ = cj; lastId = id
     }
@@ -171,9 +189,8 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
     if (du) { du[3 * c] = sum[o + 5] * w; du[3 * c + 1] = sum[o + 6] * w; du[3 * c + 2] = sum[o + 7] * w }
   }
   // --- triangles of three different cells, each once (keyed by its cells in sorted order) ---
-  const triSize = tableSize(Math.min(T, 4 * C))
-  let tA = table(3, triSize).fill(-1), tB = table(4, triSize), tC = table(5, triSize)
-  let tmask = triSize - 1
+  let tris = table(1, tableSize(Math.min(T, 2 * C + 16))).fill(-1)
+  let tmask = tris.length / 3 - 1
   let out = new Uint32Array(3 * Math.min(T, 2 * C + 16))
   let n = 0
   for (let k = 0; k < T; k++) {
@@ -182,10 +199,10 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
     const p = a < b ? (a < c ? a : c) : (b < c ? b : c)
     const r = a > b ? (a > c ? a : c) : (b > c ? b : c)
     const q = a + b + c - p - r
-    let h = (Math.imul(p, 73856093) ^ Math.imul(q, 19349663) ^ Math.imul(r, 83492791)) & tmask
-    while (tA[h] !== -1 && (tA[h] !== p || tB[h] !== q || tC[h] !== r)) h = (h + 1) & tmask
-    if (tA[h] !== -1) continue
-    tA[h] = p; tB[h] = q; tC[h] = r
+    let h = (Math.imul(p, H1) ^ Math.imul(q, H2) ^ Math.imul(r, H3)) & tmask
+    while (tris[3 * h] !== -1 && (tris[3 * h] !== p || tris[3 * h + 1] !== q || tris[3 * h + 2] !== r)) h = (h + 1) & tmask
+    if (tris[3 * h] !== -1) continue
+    tris[3 * h] = p; tris[3 * h + 1] = q; tris[3 * h + 2] = r
     if (3 * (n + 1) > out.length) { const o2 = new Uint32Array(2 * out.length); o2.set(out); out = o2 }
     // counter-clockwise about m, as the fine triangles are: a triangle that clustering folded over
     // is turned back, or its back face would shade darker than the face around it
@@ -194,16 +211,7 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
     const flip = (uy * wz - uz * wy) * mx + (uz * wx - ux * wz) * my + (ux * wy - uy * wx) * mz < 0
     out[3 * n] = a; out[3 * n + 1] = flip ? c : b; out[3 * n + 2] = flip ? b : c
     n++
-    if (2 * n > tA.length) {
-      const s = tA.length * 2, a2 = new Int32Array(s).fill(-1), b2 = new Int32Array(s), c2 = new Int32Array(s)
-      for (let j = 0; j < tA.length; j++) {
-        if (tA[j] === -1) continue
-        let g = (Math.imul(tA[j], 73856093) ^ Math.imul(tB[j], 19349663) ^ Math.imul(tC[j], 83492791)) & (s - 1)
-        while (a2[g] !== -1) g = (g + 1) & (s - 1)
-        a2[g] = tA[j]; b2[g] = tB[j]; c2[g] = tC[j]
-      }
-      tA = a2; tB = b2; tC = c2; tmask = s - 1
-    }
+    if (2 * n > tmask + 1) { tris = TABLES[1] = grownTriangles(tris); tmask = tris.length / 3 - 1 }
   }
   return {
     positions, index: out.slice(0, 3 * n), normalTraction, shearTraction,
