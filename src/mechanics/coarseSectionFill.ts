@@ -60,12 +60,12 @@ let OF = new Int32Array(0)
 let SUM = new Float64Array(0), COUNT = new Float64Array(0)
 const grown = <T extends Float64Array | Int32Array>(a: T, n: number, make: (n: number) => T): T => (a.length >= n ? a : make(Math.max(n, 2 * a.length)))
 /**
- * The two hash tables, kept too, as views of the size asked for: memory a process has not
- * touched costs more to write the first time than the clustering. Each slot holds its three
- * numbers side by side (a cell: id, i, j; a triangle: its cells p < q < r), so a probe reads one
- * cache line; the tables are sized by the budget (about budget / 2 cells), not by the points, so
- * they stay in the processor's cache (at 10^7 elements a table sized by the points cost a cache
- * miss at nearly every polygon).
+ * The two hash tables, kept too, as views of the size asked for (a drag makes one call per step,
+ * and new memory costs its first touch here). Each slot holds its three numbers side by side (a
+ * cell: id, i, j; a triangle: its cells p < q < r), so a probe reads one cache line, and the
+ * tables are sized by the budget (about budget / 2 cells), not by the points, so they stay small.
+ * Measured in Node at 10^7 elements: 14–21 ms a call before and after this layout (no gain seen
+ * on this machine); in a browser worker about 16 ms a drag step.
  */
 const TABLES: Int32Array[] = [new Int32Array(0), new Int32Array(0)]
 function table(k: number, slots: number): Int32Array {
