@@ -508,14 +508,14 @@ function warmCut(loaded: Loaded): void {
 }
 
 /**
- * A drag step's cut of the plane just shown, thrown away: run once per model, half a second
- * after the first cut the app shows (while the user looks at it), on a large model. The first cuts of a drag
- * ran slower than the later ones in the browser (at 10^7 elements: 304, 243, 201, then about 150 ms,
- * the engine's own compute), the code of a drag step's cut still being compiled; this one pays
- * for the first of them. It is left out when another cut was asked for in the meantime; a request
- * arriving while it runs waits for it (one cut). Its polygons take
- * the other set of kept arrays (polygonViews), so those of the cut shown, which the probe reads,
- * stay whole.
+ * A drag step's cut of the plane just shown, thrown away: run once per model with element
+ * chunks, half a second after the first cut the app shows (while the user looks at it). The
+ * first cuts of a drag ran slower than the later ones in the browser (at 10^7 elements: 304, 243,
+ * 201, then about 150 ms of the engine's own compute), the code of a drag step's cut still being
+ * compiled; this one pays for the first of them. It is left out when another cut was asked for
+ * in the meantime; a request arriving while it runs waits for it (one cut). Its polygons take the
+ * other set of kept arrays (polygonViews), so those of the cut shown, which the probe reads, stay
+ * whole.
  */
 function warmDrag(cur: Loaded, shown: CutRequest): void {
   if (current !== cur) return
