@@ -6,6 +6,10 @@
  * their mean position carrying the mean of their normal traction m·(σm) and of their shear
  * magnitude |σm − (m·σm)m|; a triangle whose corners fall in three different cells becomes a
  * triangle of those cells' points (once, however many fine triangles give it), the others vanish.
+ * A cell with an empty neighbour lies on the face's outline: it takes instead its own point
+ * farthest towards its empty neighbours, with that point's values, so the outline stays where the
+ * full face has it (means pulled it inwards by up to a cell, which showed as notches along the
+ * edge while dragging).
  *
  * Why: on a software rasteriser the section face of a 10^7-element model (over 10^5 small
  * triangles) is most of what a drag frame waits for; the coarse face of about `budget` triangles
@@ -13,8 +17,8 @@
  *
  * What it keeps: the face stays in the plane (means of points in the plane); a field linear in
  * position keeps its value at each point (the mean of a linear function is its value at the
- * mean); values stay within the fine face's range; the outline moves by at most a cell (a cell
- * is sized so the face has about `budget / 2` cells). The colour ranges returned are the fine
+ * mean); values stay within the fine face's range; the outline's points are points of the
+ * outline (a cell is sized so the face has about `budget / 2` cells). The colour ranges returned are the fine
  * face's, so the legend does not change between the drag and the release.
  *
  * O(V + T) with V fill points and T triangles; cells and triangles are found by open-addressing
@@ -57,7 +61,8 @@ const tableSize = (n: number): number => 1 << Math.max(4, Math.ceil(Math.log2(2 
 
 /** Scratch kept from call to call (a drag makes one call per step): grown, never shrunk. */
 let OF = new Int32Array(0)
-let SUM = new Float64Array(0), COUNT = new Float64Array(0)
+let SUM = new Float64Array(0), COUNT = new Float64Array(0), BEST = new Float64Array(0)
+let CELL_I = new Int32Array(0), CELL_J = new Int32Array(0), OUT_U = new Int32Array(0), OUT_V = new Int32Array(0), REP = new Int32Array(0)
 const grown = <T extends Float64Array | Int32Array>(a: T, n: number, make: (n: number) => T): T => (a.length >= n ? a : make(Math.max(n, 2 * a.length)))
 /**
  * The two hash tables, kept too, as views of the size asked for (a drag makes one call per step,
@@ -96,6 +101,13 @@ function grownTriangles(t: Int32Array): Int32Array {
     d[3 * g] = t[s]; d[3 * g + 1] = t[s + 1]; d[3 * g + 2] = t[s + 2]
   }
   return d
+}
+
+/** The id of cell (i, j) in the cell table, or -1 when no point fell in it. */
+function cellAt(cells: Int32Array, mask: number, i: number, j: number): number {
+  let h = (Math.imul(i, H1) ^ Math.imul(j, H2)) & mask
+  while (cells[3 * h] !== -1 && (cells[3 * h + 1] !== i || cells[3 * h + 2] !== j)) h = (h + 1) & mask
+  return cells[3 * h]
 }
 
 /**
@@ -180,9 +192,45 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
     sum[o + 3] += tn; sum[o + 4] += ts
     if (withU) { sum[o + 5] += displacement[3 * i]; sum[o + 6] += displacement[3 * i + 1]; sum[o + 7] += displacement[3 * i + 2] }
   }
+  // --- the outline: a cell with an empty neighbour takes, instead of its mean, its point farthest
+  // towards its empty neighbours (the sum of their directions), which lies on the face's outline,
+  // so the light face keeps the full face's outline where a mean would pull it inwards ---
+  const ci = (CELL_I = grown(CELL_I, C, (k) => new Int32Array(k))), cj = (CELL_J = grown(CELL_J, C, (k) => new Int32Array(k)))
+  const ou = (OUT_U = grown(OUT_U, C, (k) => new Int32Array(k))), ov = (OUT_V = grown(OUT_V, C, (k) => new Int32Array(k)))
+  const rep = (REP = grown(REP, C, (k) => new Int32Array(k))), best = (BEST = grown(BEST, C, (k) => new Float64Array(k)))
+  for (let h = 0; h < cells.length; h += 3) if (cells[h] !== -1) { ci[cells[h]] = cells[h + 1]; cj[cells[h]] = cells[h + 2] }
+  let outline = 0
+  for (let c = 0; c < C; c++) {
+    let su = 0, sv = 0
+    for (let di = -1; di <= 1; di++) {
+      for (let dj = -1; dj <= 1; dj++) if ((di !== 0 || dj !== 0) && cellAt(cells, mask, ci[c] + di, cj[c] + dj) === -1) { su += di; sv += dj }
+    }
+    ou[c] = su; ov[c] = sv; rep[c] = -1; best[c] = -Infinity
+    if (su !== 0 || sv !== 0) outline++
+  }
+  if (outline > 0) {
+    for (let i = 0; i < V; i++) {
+      const c = of[i], a = ou[c], b = ov[c]
+      if (a === 0 && b === 0) continue
+      const px = x[3 * i], py = x[3 * i + 1], pz = x[3 * i + 2]
+      const reach = (px * e1x + py * e1y + pz * e1z) * a + (px * e2x + py * e2y + pz * e2z) * b
+      if (reach > best[c]) { best[c] = reach; rep[c] = i }
+    }
+  }
   const positions = new Float32Array(3 * C), normalTraction = new Float32Array(C), shearTraction = new Float32Array(C)
   const du = withU ? new Float32Array(3 * C) : undefined
   for (let c = 0; c < C; c++) {
+    const r = rep[c]
+    if (r >= 0) {
+      // the outline point itself, with its own values
+      positions[3 * c] = x[3 * r]; positions[3 * c + 1] = x[3 * r + 1]; positions[3 * c + 2] = x[3 * r + 2]
+      const tx = t[3 * r], ty = t[3 * r + 1], tz = t[3 * r + 2]
+      const tn = tx * mx + ty * my + tz * mz
+      const sx = tx - tn * mx, sy = ty - tn * my, sz = tz - tn * mz
+      normalTraction[c] = tn; shearTraction[c] = Math.sqrt(sx * sx + sy * sy + sz * sz)
+      if (du) { du[3 * c] = displacement![3 * r]; du[3 * c + 1] = displacement![3 * r + 1]; du[3 * c + 2] = displacement![3 * r + 2] }
+      continue
+    }
     const w = 1 / count[c], o = 8 * c
     positions[3 * c] = sum[o] * w; positions[3 * c + 1] = sum[o + 1] * w; positions[3 * c + 2] = sum[o + 2] * w
     normalTraction[c] = sum[o + 3] * w; shearTraction[c] = sum[o + 4] * w

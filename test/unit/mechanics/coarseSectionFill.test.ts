@@ -1,10 +1,10 @@
 /**
  * The drag's lighter section face (coarseSectionFill.ts): vertex clustering (Rossignac and
- * Borrel 1993) of the real cut's fill. Checked against what the method guarantees: points stay
- * in the plane, a field linear in position keeps its value at every clustered point (the mean of
- * a linear function is its value at the mean: linearity), values stay within the fine face's
- * range, the face keeps its area to within the cells along its outline, and about `budget`
- * triangles remain. The fine face's area is the cut's own (buildSectionTriangles' tests).
+ * Borrel 1993) of the real cut's fill, its outline cells on the outline. Checked against what the
+ * method guarantees: points stay in the plane, a field linear in position keeps its value at every
+ * clustered point (the mean of a linear function is its value at the mean: linearity; an outline
+ * cell's point is one of its points, with its own value), values stay within the fine face's
+ * range, the face keeps its area, and about `budget` triangles remain. The fine face's area is the cut's own (buildSectionTriangles' tests).
  */
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
@@ -66,10 +66,11 @@ describe('coarsenSectionFill', () => {
     }
     expect(c.ranges.normalTraction).toEqual(fine.ranges.normalTraction)
     expect(c.ranges.shearTraction).toEqual(fine.ranges.shearTraction)
-    // the area: the outline moves inwards by at most a cell, so the loss is at most perimeter × cell
+    // the area: the outline cells take points of the outline, so little is lost; triangles that
+    // clustering folds or overlaps count twice here (1.9 % on the pyramids' boxes, 0 on the others)
     const A = areaOf(fine.positions, fine.index, m, true), Ac = areaOf(c.positions, c.index, m, true)
-    expect(Ac).toBeLessThanOrEqual(A * 1.02)
-    expect(Ac).toBeGreaterThan(A * 0.9)
+    expect(Ac).toBeLessThanOrEqual(A * 1.03)
+    expect(Ac).toBeGreaterThan(A * 0.98)
   })
 
   it('leaves no triangle twice, none with two corners in one cell, and every one counter-clockwise about m', () => {
