@@ -28,33 +28,23 @@
 import type { Vec3 } from '../model/model.ts'
 import type { SectionFill } from './types.ts'
 import { unitNormal } from './plane.ts'
+import { sectionFrame } from './sectionPolygon.ts'
 
 export interface CoarseSectionFill {
-  /** Float32Array(3·C): the mean position of each cell's points, length units. */
+  /** Float32Array(3·C): per cell the mean position of its points (an outline cell: its outermost point), length units. */
   readonly positions: Float32Array
   /** Uint32Array(3·T'): triangles of cell points, each counter-clockwise about m (as the fine ones). */
   readonly index: Uint32Array
-  /** Float32Array(C): mean of m·(σm) over each cell's points, stress units. */
+  /** Float32Array(C): per cell the mean of m·(σm) over its points (an outline cell: at its point), stress units. */
   readonly normalTraction: Float32Array
-  /** Float32Array(C): mean of |σm − (m·σm)m| over each cell's points, stress units. */
+  /** Float32Array(C): per cell the mean of |σm − (m·σm)m| over its points (an outline cell: at its point), stress units. */
   readonly shearTraction: Float32Array
-  /** Float32Array(3·C): mean displacement of each cell's points, when one was given. */
+  /** Float32Array(3·C): the displacement there, taken as the tractions are, when one was given. */
   readonly displacement?: Float32Array
   /** [min, max] of the fine face's values over the finite ones ([0, 0] when none). */
   readonly ranges: { readonly normalTraction: readonly [number, number]; readonly shearTraction: readonly [number, number] }
   /** The cell's side, length units. */
   readonly cell: number
-}
-
-/** Two unit vectors spanning the plane of unit normal m. */
-function planeAxes(m: Vec3): [Vec3, Vec3] {
-  const ax = Math.abs(m[0]), ay = Math.abs(m[1]), az = Math.abs(m[2])
-  // the coordinate axis least along m, crossed with m
-  const a: Vec3 = ax <= ay && ax <= az ? [1, 0, 0] : ay <= az ? [0, 1, 0] : [0, 0, 1]
-  let u: Vec3 = [m[1] * a[2] - m[2] * a[1], m[2] * a[0] - m[0] * a[2], m[0] * a[1] - m[1] * a[0]]
-  const n = Math.hypot(u[0], u[1], u[2])
-  u = [u[0] / n, u[1] / n, u[2] / n]
-  return [u, [m[1] * u[2] - m[2] * u[1], m[2] * u[0] - m[0] * u[2], m[0] * u[1] - m[1] * u[0]]]
 }
 
 const tableSize = (n: number): number => 1 << Math.max(4, Math.ceil(Math.log2(2 * n + 1)))
@@ -78,25 +68,18 @@ function table(k: number, slots: number): Int32Array {
   return TABLES[k].subarray(0, 3 * slots)
 }
 const H1 = 73856093, H2 = 19349663, H3 = 83492791
+const FRAME = new Float64Array(9)
 
-/** A cell table twice the size, the cells put back. */
-function grownCells(t: Int32Array): Int32Array {
+/** Slot hashes: a cell by its (i, j), a triangle by its three cells. */
+const cellHash = (t: Int32Array, s: number): number => Math.imul(t[s + 1], H1) ^ Math.imul(t[s + 2], H2)
+const triangleHash = (t: Int32Array, s: number): number => Math.imul(t[s], H1) ^ Math.imul(t[s + 1], H2) ^ Math.imul(t[s + 2], H3)
+
+/** A table twice the size, its slots put back by `hash` (rare: the budget sizes the tables). */
+function grownTable(t: Int32Array, hash: (t: Int32Array, s: number) => number): Int32Array {
   const n = (2 * t.length) / 3, m = n - 1, d = new Int32Array(3 * n).fill(-1)
   for (let s = 0; s < t.length; s += 3) {
     if (t[s] === -1) continue
-    let g = (Math.imul(t[s + 1], H1) ^ Math.imul(t[s + 2], H2)) & m
-    while (d[3 * g] !== -1) g = (g + 1) & m
-    d[3 * g] = t[s]; d[3 * g + 1] = t[s + 1]; d[3 * g + 2] = t[s + 2]
-  }
-  return d
-}
-
-/** A triangle table twice the size, the triangles put back. */
-function grownTriangles(t: Int32Array): Int32Array {
-  const n = (2 * t.length) / 3, m = n - 1, d = new Int32Array(3 * n).fill(-1)
-  for (let s = 0; s < t.length; s += 3) {
-    if (t[s] === -1) continue
-    let g = (Math.imul(t[s], H1) ^ Math.imul(t[s + 1], H2) ^ Math.imul(t[s + 2], H3)) & m
+    let g = hash(t, s) & m
     while (d[3 * g] !== -1) g = (g + 1) & m
     d[3 * g] = t[s]; d[3 * g + 1] = t[s + 1]; d[3 * g + 2] = t[s + 2]
   }
@@ -118,7 +101,8 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
   const { positions: x, traction: t, index } = fill
   const m = unitNormal(normal)
   const [mx, my, mz] = m
-  const [[e1x, e1y, e1z], [e2x, e2y, e2z]] = planeAxes(m)
+  const frame = sectionFrame(FRAME, mx, my, mz)
+  const e1x = frame[0], e1y = frame[1], e1z = frame[2], e2x = frame[3], e2y = frame[4], e2z = frame[5]
   const V = x.length / 3, T = index.length / 3
   // --- the face's bounds in the plane and its area ---
   let u0 = Infinity, v0 = Infinity, u1 = -Infinity, v1 = -Infinity
@@ -170,8 +154,7 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
           const c2 = new Float64Array(2 * count.length); c2.set(count); count = COUNT = c2
           const s2 = new Float64Array(16 * c2.length); s2.set(sum); sum = SUM = s2
         }
-        // rare (the budget sizes the table): twice the size, the cells put back
-        if (2 * C > mask + 1) { cells = TABLES[0] = grownCells(cells); mask = cells.length / 3 - 1 }
+        if (2 * C > mask + 1) { cells = TABLES[0] = grownTable(cells, cellHash); mask = cells.length / 3 - 1 }
       }
       lastI = ci; lastJ = cj; lastId = id
     }
@@ -259,7 +242,7 @@ export function coarsenSectionFill(fill: SectionFill, normal: Vec3, budget: numb
     const flip = (uy * wz - uz * wy) * mx + (uz * wx - ux * wz) * my + (ux * wy - uy * wx) * mz < 0
     out[3 * n] = a; out[3 * n + 1] = flip ? c : b; out[3 * n + 2] = flip ? b : c
     n++
-    if (2 * n > tmask + 1) { tris = TABLES[1] = grownTriangles(tris); tmask = tris.length / 3 - 1 }
+    if (2 * n > tmask + 1) { tris = TABLES[1] = grownTable(tris, triangleHash); tmask = tris.length / 3 - 1 }
   }
   return {
     positions, index: out.slice(0, 3 * n), normalTraction, shearTraction,

@@ -67,7 +67,7 @@ describe('coarsenSectionFill', () => {
     expect(c.ranges.normalTraction).toEqual(fine.ranges.normalTraction)
     expect(c.ranges.shearTraction).toEqual(fine.ranges.shearTraction)
     // the area: the outline cells take points of the outline, so little is lost; triangles that
-    // clustering folds or overlaps count twice here (1.9 % on the pyramids' boxes, 0 on the others)
+    // clustering folds or overlaps count twice here (+0.6 % on the pyramids' boxes, within 0.2 % on the others)
     const A = areaOf(fine.positions, fine.index, m, true), Ac = areaOf(c.positions, c.index, m, true)
     expect(Ac).toBeLessThanOrEqual(A * 1.03)
     expect(Ac).toBeGreaterThan(A * 0.98)
