@@ -2,14 +2,13 @@
  * The engine worker's intake of the user's files: each file arrives as a Blob (a handle; the main
  * thread never reads it) and is read here a slice at a time straight into one buffer of its size
  * (workers/blobBytes.ts), so its bytes are held once, in this worker only. A container keeps
- * those bytes (the model's arrays are views into them); a CSV or JSON file is decoded to text and
- * its bytes dropped before the next file is read.
+ * those bytes (the model's arrays are views into them); a CSV or JSON file stays as its bytes,
+ * which the readers parse as they are (src/io/csvBytes.ts): no text of it is made.
  *
  * Each file's SHA-256 (for the report's traceability) comes from a digest worker that reads the
  * same Blob itself (workers/inputDigest.ts); the records carrying the digests are a promise the
  * engine hands on when the app asks (EngineApi.inputDigests), after the model's first picture.
  */
-import { decodeUtf8 } from '../src/io/detect.ts'
 import type { InputFile } from '../src/io/detect.ts'
 import { NATIVE_EXTENSION, isNativeContainer } from '../src/io/nativeContainer.ts'
 import { checkModelSize } from '../src/io/sizeGuard.ts'
@@ -20,8 +19,6 @@ import { digestsOf } from './inputDigest.ts'
 
 /** Bytes per slice: large enough that the per-read overhead vanishes, small next to a model file. */
 export const SLICE_BYTES = 16 * 1024 * 1024
-
-const TEXT_EXTENSIONS = ['.csv', '.json', '.txt']
 
 export interface ReadInputs {
   readonly files: InputFile[]
@@ -65,8 +62,8 @@ export async function readInSlices(blob: Blob, read: (bytes: number) => void, sl
 const BACKGROUND_DIGEST_SHARE = 0.5
 
 /**
- * The files as the readers take them: Blobs read in slices (size limits checked first), text
- * files decoded; bytes and strings given already pass through. `progress(fraction)` follows the
+ * The files as the readers take them: Blobs read in slices (size limits checked first) into
+ * bytes; bytes and strings given already pass through. `progress(fraction)` follows the
  * bytes read over all Blobs. The digests start when `digestsAfter` settles (at once without it):
  * the engine starts them once the model's first picture is out, so that hashing a large file does
  * not take a core from the load.
@@ -99,10 +96,7 @@ export async function readInputFiles(
       throw new InputError('missing-file', `the file could not be read whole (${e instanceof Error ? e.message : String(e)}); choose it again`, { file: f.name })
     }
     records.push({ name: f.name, bytes: bytes.byteLength })
-    const lower = f.name.toLowerCase()
-    const text = !isNativeContainer(bytes) && TEXT_EXTENSIONS.some((e) => lower.endsWith(e))
-    // Text files become text here, so their bytes are gone before the next file is read.
-    out.push({ name: f.name, data: text ? decodeUtf8(f.name, bytes) : bytes })
+    out.push({ name: f.name, data: bytes })
   }
   // A file that cannot be read again for its digest (changed or gone meanwhile) keeps its record
   // without one; the model read is not lost for it.

@@ -59,7 +59,7 @@ export async function loadModelAsync(path: string): Promise<LoadedModel> {
   // A container among the files: the reader's refusal, as loadModel gives it.
   if (names.some((n, k) => startsWithMagic(join(path, n), sizes[k]))) return loadBundle(path)
   for (let k = 0; k < names.length; k++) withPath(() => assertWithinLimit(names[k], sizes[k], MAX_MODEL_BYTES), path, null)
-  const files: CsvFile[] = names.map((name, k) => ({ name, size: sizes[k], get text() { return readFileSync(join(path, name), 'utf8') } }))
+  const files: CsvFile[] = names.map((name, k) => ({ name, size: sizes[k], get bytes() { return readFileSync(join(path, name)) } }))
   const bytes = sizes.reduce((a, b) => a + b, 0)
   // What is read in pieces: the first case's tables, not the other cases' files (read one by one).
   const firstBytes = sizes.reduce((a, b, k) => (OTHER_CASE.test(names[k]) ? a : a + b), 0)
@@ -125,7 +125,7 @@ function loadBundle(dir: string): LoadedModel {
   const files = names.map((name) => {
     const raw = readFileSync(join(dir, name))
     bytes += raw.byteLength
-    return { name, data: raw.toString('utf8') }
+    return { name, data: new Uint8Array(raw.buffer, raw.byteOffset, raw.byteLength) }
   })
   const model = withPath(() => readModelFiles(files), dir, null)
   return { model, path: dir, format: 'bundle', bytes }

@@ -28,8 +28,13 @@
  *   rest of the file decides. Thousands separators are not read.
  * A sample of one line, or without any digit, is a header alone (or text): its first line is
  * taken as the header and the table reader reports what is missing.
+ *
+ * A file read as bytes (the readers' way, src/io/csvBytes.ts) is sampled from its first lines
+ * decoded (strictly: a file that is not UTF-8 is refused there, naming the line); positions are
+ * then byte offsets.
  */
 import { InputError } from '../model/errors.ts'
+import { decodeUtf8, utf8Length } from './csvBytes.ts'
 
 export type Separator = ',' | ';' | '\t' | ' '
 export type DecimalMark = '.' | ','
@@ -88,12 +93,37 @@ interface Split {
   readonly kind: Kind
 }
 
+/** The first position of `ch` in the file from text position `from` on (past the sample), or -1. */
+type FarSearch = (ch: string, from: number) => number
+
+/** Bytes first decoded to sample a file's lines; doubled while they hold fewer than SAMPLE_LINES lines. */
+export const HEAD_BYTES = 64 * 1024
+
+/**
+ * detectDialect for a file given as its UTF-8 bytes: the sample comes from its first lines,
+ * decoded strictly (HEAD_BYTES, more while they hold too few lines); `start` is a byte offset.
+ */
+export function detectDialectOfBytes(file: string, bytes: Uint8Array, settings: DialectSettings, shape: TableShape, role: string): CsvDialect {
+  for (let n = HEAD_BYTES; ; n *= 2) {
+    const whole = n >= bytes.length
+    // Cut after the last line end of the first n bytes (never inside a character).
+    const cut = whole ? bytes.length : Math.max(bytes.lastIndexOf(10, n - 1), bytes.lastIndexOf(13, n - 1)) + 1
+    if (cut === 0 && !whole) continue
+    const head = decodeUtf8(file, bytes.subarray(0, cut), true)
+    if (!whole && sampleLines(head, settings.skipLines ?? 0).length < SAMPLE_LINES) continue
+    // All ASCII (the usual case): text positions are byte offsets.
+    const toByte = (at: number) => (head.length === cut ? at : utf8Length(head.slice(0, at)))
+    const d = detectDialect(file, head, settings, shape, role, (ch, from) => bytes.indexOf(ch.charCodeAt(0), toByte(from)))
+    return { ...d, start: d.start >= head.length ? cut : toByte(d.start) }
+  }
+}
+
 /**
  * Detects the dialect of `text` (a whole file) under what `settings` declares. `role` names the
  * file's key under "csv" in model.json, for messages. Throws InputError 'csv-dialect' when the
  * sample is ambiguous, naming the key that settles it.
  */
-export function detectDialect(file: string, text: string, settings: DialectSettings, shape: TableShape, role: string): CsvDialect {
+export function detectDialect(file: string, text: string, settings: DialectSettings, shape: TableShape, role: string, far: FarSearch = (ch, from) => text.indexOf(ch, from)): CsvDialect {
   const declared: DialectKey[] = (['separator', 'decimal', 'skipLines', 'header'] as const).filter((k) => settings[k] !== undefined)
   const sample = sampleLines(text, settings.skipLines ?? 0)
   const key = (k: DialectKey, v: string) => `"csv": {"${k}": ${v}} in model.json (or "csv": {"${role}": {"${k}": ${v}}} for this file only)`
@@ -146,7 +176,7 @@ export function detectDialect(file: string, text: string, settings: DialectSetti
     // A header and nothing below it in the sample: the table reader reports the missing rows.
     firstRow = sample.length - 1
   }
-  const found = settings.decimal !== undefined ? { mark: settings.decimal, seen: true } : detectDecimal(file, text, sample, splits, Math.max(firstRow, headerAt + 1), sep, shape, key)
+  const found = settings.decimal !== undefined ? { mark: settings.decimal, seen: true } : detectDecimal(file, far, sample, splits, Math.max(firstRow, headerAt + 1), sep, shape, key)
   const at = headerAt >= 0 ? sample[headerAt] : sample[firstRow]
   return {
     separator: sep, decimal: found.mark, decimalSeen: found.seen, skipLines, headerLine: headerAt >= 0 ? sample[headerAt].line : 0, declared,
@@ -165,7 +195,7 @@ function headerOnly(sample: readonly SampleLine[], settings: DialectSettings, de
   return { separator: best, decimal: settings.decimal ?? '.', decimalSeen: settings.decimal !== undefined, skipLines: settings.skipLines ?? 0, headerLine: header ? sample[0].line : 0, declared, start: sample[0].pos, startLine: sample[0].line, rowFields: most }
 }
 
-function detectDecimal(file: string, text: string, sample: readonly SampleLine[], splits: readonly Split[], from: number, sep: Separator, shape: TableShape, key: (k: DialectKey, v: string) => string): { mark: DecimalMark; seen: boolean } {
+function detectDecimal(file: string, far: FarSearch, sample: readonly SampleLine[], splits: readonly Split[], from: number, sep: Separator, shape: TableShape, key: (k: DialectKey, v: string) => string): { mark: DecimalMark; seen: boolean } {
   let point = -1, comma = -1
   for (let i = from; i < splits.length; i++) {
     if (splits[i].kind !== Kind.Data) continue
@@ -184,7 +214,7 @@ function detectDecimal(file: string, text: string, sample: readonly SampleLine[]
   // Only whole numbers in the sample: the first point or comma after it decides (two native
   // searches, no parse); the reader refuses the other mark where it appears, saying so.
   const after = sample[sample.length - 1].pos + sample[sample.length - 1].text.length
-  const p = text.indexOf('.', after), c = sep === ',' ? -1 : text.indexOf(',', after)
+  const p = far('.', after), c = sep === ',' ? -1 : far(',', after)
   return { mark: c >= 0 && (p < 0 || c < p) ? ',' : '.', seen: p >= 0 || c >= 0 }
 }
 

@@ -1,18 +1,19 @@
 /**
- * Reading a bundle's large tables in pieces with no model-size copy: the text streamed to the
+ * Reading a bundle's large tables in pieces with no model-size copy: the bytes streamed to the
  * helper threads through a small ring of shared bytes, the rows written by every thread straight
  * into the table's final arrays (SharedArrayBuffer). Pure, like csvPieces.ts, which takes this way
  * when every lane offers it (`PieceLane.stream`) and SharedArrayBuffer exists; the other way
- * (pieces sent as UTF-8 bytes, rows sent back and joined) stays for lanes that cannot block.
+ * (pieces sent as copies of their bytes, rows sent back and joined) stays for lanes that cannot
+ * block.
  *
  * Why (measured on the 2-core VMs here, DEVELOPERS.md "What bounds what"): the first write to a
  * fresh page costs about 15–27 µs per 4 KiB, about as much as parsing the CSV that fills it. The
  * other way made fresh memory three times over on the calling thread (the lane's piece encoded,
  * the rows joined into new arrays) and once more in the lane (its piece decoded into one large
  * string): slower than one thread for tet10 and hex8. Here:
- * - a lane's piece goes in chunks of at most `slotBytes` through a ring of SLOTS reused slots
- *   (`encodeInto`, a copy at memory speed); the lane decodes a chunk into a string small enough
- *   for V8's young generation, whose pages are reused: no fresh memory for the text;
+ * - a lane's piece goes in chunks of at most `slotBytes` through a ring of SLOTS reused slots (a
+ *   copy at memory speed); the lane copies a chunk into one reused buffer and parses it there: no
+ *   fresh memory for the file's bytes;
  * - each table's arrays are made once, shared, and every thread writes its piece's rows into its
  *   own range of them, so each first-touches only its own pages, at the same time as the others;
  * - the lanes read the first pieces of the file, this thread the last (MAIN_SHARE of it). While
@@ -31,13 +32,15 @@
  * boundaries (recordSplit.ts).
  */
 import { InputError, isInputError } from '../model/errors.ts'
-import { createCursor, moveCursor } from './csvCursor.ts'
+import { createCursor, estimateRecordCount, moveCursor } from './csvCursor.ts'
 import { finishNumericTable, openNumericTable, readNumericRows } from './csvTable.ts'
 import type { NumericPieceSetup, NumericRows, NumericTable } from './csvTable.ts'
 import { NODE_COUNTS, TYPE_NAMES, concatInt, finishElementTable, openElementTable, permuteNodes, readElementPiece, readElementRows, typeLookup } from './readElementTable.ts'
 import type { Blocks, ElementPieceSetup, ElementTable, RawElementBlock, TypeLookup } from './readElementTable.ts'
 import { LineEndCounter, lastRecordEnd, lineEndOf, recordCuts } from './recordSplit.ts'
 import type { PieceError, TableOutcome, TableRequest } from './csvPieces.ts'
+import { sourceBytes } from './csvBytes.ts'
+import type { CsvSource } from './csvBytes.ts'
 
 /** Slots of a lane's ring. */
 export const SLOTS = 16
@@ -50,9 +53,8 @@ export const MAIN_SHARE = 0.45
 const ROOM = 1.5
 
 /**
- * Sizes of the stream (tests make them small to cut tables at many points): the bytes of a slot
- * (a chunk decodes to a string under V8's 128 KiB large-object size, so into reused pages), and
- * the characters this thread reads, or counts, between two fills of the rings.
+ * Sizes of the stream (tests make them small to cut tables at many points): the bytes of a slot,
+ * and the bytes this thread reads, or counts, between two fills of the rings.
  */
 export const streamSizes = { slotBytes: 96 * 1024, ownSlice: 256 * 1024, countSlice: 1024 * 1024 }
 
@@ -110,15 +112,15 @@ export function streamBuffers(r: StreamResult): ArrayBuffer[] {
 /** Thrown inside a piece reader when its rows outrun their room. */
 class OutOfRoom extends Error {}
 
-/** A piece's reader: parses whole-record ranges of texts in order, rows into the piece's range of the arrays. */
+/** A piece's reader: parses whole-record ranges of bytes in order, rows into the piece's range of the arrays. */
 interface PieceReader {
-  /** Reads text[start, end) (whole records), continuing the piece; the next call starts at `end`. */
-  read(text: string, start: number, end: number): void
+  /** Reads bytes[start, end) (whole records), continuing the piece; the next call starts at `end`. */
+  read(bytes: Uint8Array, start: number, end: number): void
   /** Rows written in place, and rows of other element types. */
   result(): { placed: number; rest: RawElementBlock[] }
 }
 
-/** The reader of a piece whose rows start at row `at` of the table's arrays (room for `cap`) and whose text starts on line `line`. */
+/** The reader of a piece whose rows start at row `at` of the table's arrays (room for `cap`) and whose bytes start on line `line`. */
 function pieceReader(table: StreamTable, at: number, cap: number, line: number): PieceReader {
   const end = at + Math.max(0, cap)
   if (table.kind === 'numeric') {
@@ -126,8 +128,8 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
     const out = (table.out as Extract<StreamOut, { kind: 'numeric' }>).rows
     let placed = 0
     return {
-      read(text, start, stop) {
-        const cur = createCursor(s.file, text, s.separator, s.decimal)
+      read(bytes, start, stop) {
+        const cur = createCursor(s.file, bytes, s.separator, s.decimal)
         moveCursor(cur, start, line)
         const from = at + placed
         const into: NumericRows = {
@@ -137,7 +139,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
         const r = readNumericRows(cur, s.slotOf, s.nf, s.nv, s.names, s.twoIds, stop, into)
         if (r.ids !== into.ids) throw new OutOfRoom()
         placed += r.rows
-        line = cur.line - lineEndsBetween(text, stop, cur.pos)
+        line = cur.line - lineEndsBetween(bytes, stop, cur.pos)
       },
       result: () => ({ placed, rest: [] }),
     }
@@ -152,13 +154,13 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
   if (seeded) grown.byType[o.type] = seeded
   const lookup: TypeLookup = typeLookup(s.spec.types)
   return {
-    read(text, start, stop) {
-      const cur = createCursor(s.file, text, s.separator, s.decimal)
+    read(bytes, start, stop) {
+      const cur = createCursor(s.file, bytes, s.separator, s.decimal)
       moveCursor(cur, start, line)
       readElementRows(cur, s.cols, s.header, lookup, s.spec, grown, stop)
       // Grown past its room: room() gave the block new arrays.
       if (seeded && seeded.ids !== ids) throw new OutOfRoom()
-      line = cur.line - lineEndsBetween(text, stop, cur.pos)
+      line = cur.line - lineEndsBetween(bytes, stop, cur.pos)
     },
     result() {
       // Other types' rows, trimmed, in their order of first appearance; model.json's node order is applied after the join.
@@ -171,12 +173,12 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
   }
 }
 
-/** Line ends in text[a, b) as the cursor counts them (usually none: b is where a record starts). */
-function lineEndsBetween(text: string, a: number, b: number): number {
+/** Line ends in bytes[a, b) as the cursor counts them (usually none: b is where a record starts). */
+function lineEndsBetween(bytes: Uint8Array, a: number, b: number): number {
   let n = 0
   for (let i = a; i < b; i++) {
-    const c = text.charCodeAt(i)
-    if (c === 10 || (c === 13 && text.charCodeAt(i + 1) !== 10)) n++
+    const c = bytes[i]
+    if (c === 10 || (c === 13 && bytes[i + 1] !== 10)) n++
   }
   return n
 }
@@ -206,9 +208,8 @@ export function readStreamedPieces(setup: StreamSetup): StreamResult {
 function readRing(setup: StreamSetup, ctrl: Int32Array): StreamResult {
   const bytes = new Uint8Array(setup.ring, CONTROL_BYTES)
   const slotBytes = ctrl[SLOT_SIZE]
-  // A private copy of each chunk: browsers do not decode shared memory.
+  // A private copy of each chunk (one slot, reused): the reader parses ordinary memory only.
   const own = new Uint8Array(slotBytes)
-  const decoder = new TextDecoder()
   const readers: (PieceReader | null)[] = setup.tables.map(() => null)
   const errors: (PieceError | null)[] = setup.tables.map(() => null)
   for (let n = 0; ; n++) {
@@ -224,9 +225,8 @@ function readRing(setup: StreamSetup, ctrl: Int32Array): StreamResult {
       const table = setup.tables[t]!
       const reader = readers[t] ?? (readers[t] = pieceReader(table, ctrl[m + 2], ctrl[m + 3], ctrl[m + 4]))
       own.set(bytes.subarray(slot * slotBytes, slot * slotBytes + length))
-      const text = decoder.decode(own.subarray(0, length))
       try {
-        reader.read(text, 0, text.length)
+        reader.read(own, 0, length)
       } catch (e) {
         if (e instanceof OutOfRoom) { Atomics.store(ctrl, STOP, 1); return { stopped: true } }
         if (!isInputError(e)) throw e
@@ -242,23 +242,10 @@ function readRing(setup: StreamSetup, ctrl: Int32Array): StreamResult {
   }
 }
 
-/** About how many rows text[start, end) holds: its length over the mean line length of eight samples spread over it. */
-export function estimateRows(text: string, start: number, end: number, eol: string): number {
-  const len = end - start, sample = 8 * 1024
-  if (len <= 16 * sample) return len + 1
-  let chars = 0, ends = 0
-  for (let s = 0; s < 8; s++) {
-    const a = start + Math.floor(((len - sample) * s) / 7)
-    for (let p = text.indexOf(eol, a); p >= 0 && p < a + sample; p = text.indexOf(eol, p + 1)) ends++
-    chars += sample
-  }
-  return ends > 0 ? Math.ceil((len * ends) / chars) : len + 1
-}
-
 /** A table planned: its pieces' ranges (the last this thread's), shared arrays, and where each piece's rows start once known. */
 interface Plan {
   readonly request: TableRequest
-  readonly text: string
+  readonly bytes: Uint8Array
   readonly ranges: { readonly start: number; readonly end: number }[]
   readonly open: ReturnType<typeof openNumericTable> | ReturnType<typeof openElementTable>
   readonly table: StreamTable
@@ -267,7 +254,7 @@ interface Plan {
   /** Per piece its first row and first line, once the pieces before it are counted. */
   readonly at: (number | undefined)[]
   readonly line: (number | undefined)[]
-  readonly eol: string
+  readonly eol: number
   readonly quoteFree: boolean
 }
 
@@ -282,15 +269,12 @@ interface Feed {
   done: boolean
 }
 
-/** Ordinary memory the feeder encodes a slot's text into (grows only; a browser's encoder refuses shared memory). */
-let encodeScratch = new Uint8Array(0)
-
 /**
  * Reads the tables over the calling thread and `lanes` (each a StreamLane): per file object its
  * table or input error, or null when the read in pieces ended early (a lane failed or stalled,
  * rows outran their room); the caller then reads on one thread.
  */
-export async function readTablesStreamed<F extends { readonly name: string; readonly text: string }>(requests: readonly (TableRequest & { readonly file: F })[], lanes: readonly StreamLane[]): Promise<Map<F, TableOutcome> | null> {
+export async function readTablesStreamed<F extends CsvSource>(requests: readonly (TableRequest & { readonly file: F })[], lanes: readonly StreamLane[]): Promise<Map<F, TableOutcome> | null> {
   const P = lanes.length + 1
   const out = new Map<F, TableOutcome>()
   const plans: (Plan | null)[] = requests.map((r) => {
@@ -302,7 +286,6 @@ export async function readTablesStreamed<F extends { readonly name: string; read
       return null
     }
   })
-  const encoder = new TextEncoder()
   const { slotBytes, ownSlice, countSlice } = streamSizes
   const feeds: Feed[] = lanes.map(() => {
     const ring = new SharedArrayBuffer(CONTROL_BYTES + SLOTS * slotBytes)
@@ -315,7 +298,7 @@ export async function readTablesStreamed<F extends { readonly name: string; read
   let failed = false
   answers.forEach((a) => a.catch(() => { failed = true }))
   const stopAll = () => { for (const f of feeds) { Atomics.store(f.ctrl, STOP, 1); Atomics.notify(f.ctrl, HEAD) } }
-  const fill = () => fillRings(feeds, plans, encoder)
+  const fill = () => fillRings(feeds, plans)
 
   const own: (PieceReader | null)[] = plans.map(() => null)
   const ownErrors: (InputError | null)[] = plans.map(() => null)
@@ -325,7 +308,7 @@ export async function readTablesStreamed<F extends { readonly name: string; read
       if (!p) continue
       // The lanes' pieces: their line ends counted while they read, giving each next piece its first row and line.
       const last = p.ranges.length - 1
-      const counter = new LineEndCounter(p.text, p.ranges[0].start)
+      const counter = new LineEndCounter(p.bytes, p.ranges[0].start)
       for (let k = 0; k < last; k++) {
         let ends = 0
         for (let a = p.ranges[k].start; a < p.ranges[k].end; a += countSlice) {
@@ -340,10 +323,10 @@ export async function readTablesStreamed<F extends { readonly name: string; read
       const reader = own[t] = pieceReader(p.table, p.at[last]!, p.rows - p.at[last]!, p.line[last]!)
       const { start, end } = p.ranges[last]
       for (let a = start; a < end;) {
-        const b = a + ownSlice >= end ? end : lastRecordEnd(p.text, a, a + ownSlice, p.eol, p.quoteFree)
+        const b = a + ownSlice >= end ? end : lastRecordEnd(p.bytes, a, a + ownSlice, p.eol, p.quoteFree)
         const stop = b > a ? b : end
         try {
-          reader.read(p.text, a, stop)
+          reader.read(p.bytes, a, stop)
         } catch (e) {
           if (!isInputError(e)) throw e
           ownErrors[t] = e
@@ -395,14 +378,14 @@ export async function readTablesStreamed<F extends { readonly name: string; read
 
 /** Opens a table and plans its pieces: ranges and the shared arrays. Header problems are thrown. */
 function planTable(r: TableRequest, P: number): Plan {
-  // The text once: a file may read it from disk on each access (src/cli/loadModel.ts).
-  const text = r.file.text
-  const open = r.kind === 'numeric' ? openNumericTable(r.file.name, text, r.spec) : openElementTable(r.file.name, text, r.spec)
+  // The bytes once: a file may read them from disk on each access (src/cli/loadModel.ts).
+  const bytes = sourceBytes(r.file)
+  const open = r.kind === 'numeric' ? openNumericTable(r.file.name, bytes, r.spec) : openElementTable(r.file.name, bytes, r.spec)
   const from = open.cur.pos
-  const bounds = [from, ...recordCuts(text, from, P, MAIN_SHARE), text.length]
+  const bounds = [from, ...recordCuts(bytes, from, P, MAIN_SHARE), bytes.length]
   const ranges = bounds.slice(1).map((e, k) => ({ start: bounds[k], end: e }))
-  const eol = lineEndOf(text, from)
-  const rows = Math.ceil(estimateRows(text, from, text.length, eol) * ROOM) + 1024
+  const eol = lineEndOf(bytes, from)
+  const rows = Math.ceil(estimateRecordCount(bytes, from, bytes.length) * ROOM) + 1024
   const int = (n: number) => new Int32Array(new SharedArrayBuffer(4 * n))
   let table: StreamTable
   if (r.kind === 'numeric') {
@@ -410,21 +393,21 @@ function planTable(r: TableRequest, P: number): Plan {
     table = { kind: 'numeric', setup, out: { kind: 'numeric', rows: { rows: 0, ids: int(rows), lines: int(rows), values: new Float64Array(new SharedArrayBuffer(8 * rows * setup.nv)), ids2: setup.twoIds ? int(rows) : null } } }
   } else {
     const o = open as ReturnType<typeof openElementTable>
-    const type = firstType(o, text, ranges[0].start, ranges[0].end)
+    const type = firstType(o, bytes, ranges[0].start, ranges[0].end)
     const nn = type >= 0 ? NODE_COUNTS[type] : 0
     const block = type >= 0 ? { nodeIds: int(rows * nn), ids: int(rows), lines: int(rows), part: o.setup.cols.hasPart ? int(rows) : null } : null
     table = { kind: 'elements', setup: o.setup, out: { kind: 'elements', type, block } }
   }
   const at: (number | undefined)[] = ranges.map((_, k) => (k === 0 ? 0 : undefined))
   const line: (number | undefined)[] = ranges.map((_, k) => (k === 0 ? open.cur.line : undefined))
-  return { request: r, text, ranges, open, table, rows, at, line, eol, quoteFree: text.indexOf('"', from) < 0 }
+  return { request: r, bytes, ranges, open, table, rows, at, line, eol, quoteFree: bytes.indexOf(34, from) < 0 }
 }
 
-/** The type (index) of the first element row of text[start, end), or -1 (none, or the row is bad: its error comes from the read). */
-function firstType(o: ReturnType<typeof openElementTable>, text: string, start: number, end: number): number {
-  const e = text.indexOf(lineEndOf(text, start), start)
+/** The type (index) of the first element row of bytes[start, end), or -1 (none, or the row is bad: its error comes from the read). */
+function firstType(o: ReturnType<typeof openElementTable>, bytes: Uint8Array, start: number, end: number): number {
+  const e = bytes.indexOf(lineEndOf(bytes, start), start)
   try {
-    const blocks = readElementPiece(o.setup, text, start, e < 0 || e >= end ? end : e + 1, o.cur.line)
+    const blocks = readElementPiece(o.setup, bytes, start, e < 0 || e >= end ? end : e + 1, o.cur.line)
     return blocks.length ? TYPE_NAMES.indexOf(blocks[0].type) : -1
   } catch (err) {
     if (!isInputError(err)) throw err
@@ -433,7 +416,7 @@ function firstType(o: ReturnType<typeof openElementTable>, text: string, start: 
 }
 
 /** Sends each lane its next chunks while its ring has room and its piece's first row is known; true when anything was sent. */
-function fillRings(feeds: Feed[], plans: readonly (Plan | null)[], encoder: TextEncoder): boolean {
+function fillRings(feeds: Feed[], plans: readonly (Plan | null)[]): boolean {
   let sent = false
   for (let k = 0; k < feeds.length; k++) {
     const f = feeds[k]
@@ -451,22 +434,13 @@ function fillRings(feeds: Feed[], plans: readonly (Plan | null)[], encoder: Text
         const range = plan.ranges[k]
         if (f.pos < 0) f.pos = range.start
         const a = f.pos
-        // A browser's encoder refuses shared memory: encode into ordinary scratch, then copy the
-        // bytes into the slot (a copy of at most one slot).
-        if (encodeScratch.length < f.slotBytes) encodeScratch = new Uint8Array(f.slotBytes)
-        const into = encodeScratch.subarray(0, f.slotBytes)
-        let b = range.end - a <= f.slotBytes ? range.end : lastRecordEnd(plan.text, a, a + f.slotBytes, plan.eol, plan.quoteFree)
-        let w = b > a ? encoder.encodeInto(plan.text.slice(a, b), into) : { read: 0, written: 0 }
-        // Characters beyond one byte: fewer fit; cut at the last record boundary that did.
-        while (b > a && w.read < b - a) {
-          b = lastRecordEnd(plan.text, a, a + w.read, plan.eol, plan.quoteFree)
-          w = b > a ? encoder.encodeInto(plan.text.slice(a, b), into) : { read: 0, written: 0 }
-        }
+        // Whole records of at most a slot's bytes, copied into the slot.
+        const b = range.end - a <= f.slotBytes ? range.end : lastRecordEnd(plan.bytes, a, a + f.slotBytes, plan.eol, plan.quoteFree)
         // A record longer than a slot: not for this way of reading.
         if (b <= a) { Atomics.store(f.ctrl, STOP, 1); f.done = true; return sent }
-        f.bytes.set(into.subarray(0, w.written), slot * f.slotBytes)
+        f.bytes.set(plan.bytes.subarray(a, b), slot * f.slotBytes)
         f.ctrl[m] = f.table
-        f.ctrl[m + 1] = w.written
+        f.ctrl[m + 1] = b - a
         f.ctrl[m + 2] = plan.at[k]!
         f.ctrl[m + 3] = plan.rows - plan.at[k]!
         f.ctrl[m + 4] = plan.line[k]!

@@ -25,19 +25,20 @@ import type { NumericPieceSetup, NumericRows, NumericTable, NumericTableSpec } f
 import { finishElementTable, openElementTable, readElementPiece } from './readElementTable.ts'
 import type { ElementPieceSetup, ElementTable, ElementTableSpec, RawElementBlock } from './readElementTable.ts'
 import { splitAtRecords } from './recordSplit.ts'
+import { sourceBytes } from './csvBytes.ts'
+import type { CsvSource } from './csvBytes.ts'
 import { canBlock, readTablesStreamed } from './csvPieceStream.ts'
 import type { StreamLane } from './csvPieceStream.ts'
 
 /**
- * One piece to read: text[start, end) (whole lines), the line it starts on and its table's setup.
- * A piece for another thread travels as UTF-8 `bytes` (text empty; the piece is all of them):
- * encoding and decoding cost a fraction of what copying a string into a message costs (a
- * structured clone of a string took 3 ns a character on each side here, a third of its reading).
+ * One piece to read: bytes[start, end) (whole lines), the line it starts on and its table's
+ * setup. A piece for another thread travels as a copy of its bytes alone (start 0), moved by
+ * transfer; this thread reads its own piece in the file's bytes.
  */
 export type PieceJob = (
   | { readonly kind: 'numeric'; readonly setup: NumericPieceSetup }
   | { readonly kind: 'elements'; readonly setup: ElementPieceSetup }
-) & { readonly text: string; readonly bytes?: Uint8Array; readonly start: number; readonly end: number; readonly line: number }
+) & { readonly bytes: Uint8Array; readonly start: number; readonly end: number; readonly line: number }
 
 /** An input error as plain data (it crosses a thread boundary). */
 export interface PieceError {
@@ -59,12 +60,11 @@ export type PieceLane = ((jobs: readonly PieceJob[]) => Promise<readonly PieceOu
 
 /** Reads one piece (what a lane's thread runs). Input errors come back as values; anything else is thrown. */
 export function readPiece(job: PieceJob): PieceOutcome {
-  const text = job.bytes ? new TextDecoder().decode(job.bytes) : job.text
-  const start = job.bytes ? 0 : job.start, end = job.bytes ? text.length : job.end
+  const { bytes, start, end } = job
   try {
     return job.kind === 'numeric'
-      ? { ok: true, rows: readNumericPiece(job.setup, text, start, end, job.line) }
-      : { ok: true, blocks: readElementPiece(job.setup, text, start, end, job.line) }
+      ? { ok: true, rows: readNumericPiece(job.setup, bytes, start, end, job.line) }
+      : { ok: true, blocks: readElementPiece(job.setup, bytes, start, end, job.line) }
   } catch (e) {
     if (!isInputError(e)) throw e
     // The message without the "file, line n: " prefix: InputError writes it again from `where`.
@@ -72,9 +72,9 @@ export function readPiece(job: PieceJob): PieceOutcome {
   }
 }
 
-/** The buffers of the jobs' bytes, to move to a lane by transfer. */
+/** The buffers of a lane's jobs' bytes (each a piece's own copy), to move to the lane by transfer. */
 export function jobBuffers(jobs: readonly PieceJob[]): ArrayBuffer[] {
-  return jobs.flatMap((j) => (j.bytes ? [j.bytes.buffer as ArrayBuffer] : []))
+  return jobs.map((j) => j.bytes.buffer as ArrayBuffer)
 }
 
 /** The buffers of a piece's result, to move back by transfer. */
@@ -87,8 +87,8 @@ export function pieceBuffers(o: PieceOutcome): ArrayBuffer[] {
 }
 
 export type TableRequest =
-  | { readonly kind: 'numeric'; readonly file: { readonly name: string; readonly text: string }; readonly spec: NumericTableSpec }
-  | { readonly kind: 'elements'; readonly file: { readonly name: string; readonly text: string }; readonly spec: ElementTableSpec }
+  | { readonly kind: 'numeric'; readonly file: CsvSource; readonly spec: NumericTableSpec }
+  | { readonly kind: 'elements'; readonly file: CsvSource; readonly spec: ElementTableSpec }
 
 export type TableOutcome =
   | { readonly ok: true; readonly table: NumericTable | ElementTable }
@@ -98,23 +98,22 @@ export type TableOutcome =
  * Reads the tables in pieces over the calling thread and `lanes`; per file object its table or
  * its input error. null when a lane failed (the caller then reads on one thread).
  */
-export async function readTablesInPieces<F extends { readonly name: string; readonly text: string }>(requests: readonly (TableRequest & { readonly file: F })[], lanes: readonly PieceLane[]): Promise<Map<F, TableOutcome> | null> {
+export async function readTablesInPieces<F extends CsvSource>(requests: readonly (TableRequest & { readonly file: F })[], lanes: readonly PieceLane[]): Promise<Map<F, TableOutcome> | null> {
   if (lanes.length && lanes.every((l) => l.stream) && canBlock()) return readTablesStreamed(requests, lanes.map((l) => l.stream!))
   const P = lanes.length + 1
   interface Opened { readonly request: TableRequest & { readonly file: F }; readonly open: ReturnType<typeof openNumericTable> | ReturnType<typeof openElementTable> | null; readonly error: InputError | null; readonly pieces: number }
   const opened: Opened[] = []
   const laneJobs: PieceJob[][] = lanes.map(() => [])
   const localJobs: PieceJob[] = []
-  const encoder = new TextEncoder()
   for (const r of requests) {
     try {
-      // The text once: a file may read it from disk on each access (src/cli/loadModel.ts).
-      const text = r.file.text
-      const open = r.kind === 'numeric' ? openNumericTable(r.file.name, text, r.spec) : openElementTable(r.file.name, text, r.spec)
-      const pieces = splitAtRecords(text, open.cur.pos, open.cur.line, P)
+      // The bytes once: a file may read them from disk on each access (src/cli/loadModel.ts).
+      const bytes = sourceBytes(r.file)
+      const open = r.kind === 'numeric' ? openNumericTable(r.file.name, bytes, r.spec) : openElementTable(r.file.name, bytes, r.spec)
+      const pieces = splitAtRecords(bytes, open.cur.pos, open.cur.line, P)
       pieces.forEach((p, k) => {
-        // This thread reads its piece in place; a lane gets it as UTF-8 bytes, moved by transfer.
-        const piece = k === 0 ? { text, start: p.start, end: p.end } : { text: '', bytes: encoder.encode(text.slice(p.start, p.end)), start: 0, end: 0 }
+        // This thread reads its piece in place; a lane gets a copy of its bytes, moved by transfer.
+        const piece = k === 0 ? { bytes, start: p.start, end: p.end } : { bytes: bytes.slice(p.start, p.end), start: 0, end: p.end - p.start }
         const job: PieceJob = r.kind === 'numeric'
           ? { kind: 'numeric', setup: (open as ReturnType<typeof openNumericTable>).setup, ...piece, line: p.line }
           : { kind: 'elements', setup: (open as ReturnType<typeof openElementTable>).setup, ...piece, line: p.line }

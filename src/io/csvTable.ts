@@ -14,7 +14,8 @@ import {
   estimateRecordCount, fieldText, finishLine, moveCursor, nextRecord, readId, readNumber, skipField, takeSeparator, tokenText,
 } from './csvCursor.ts'
 import type { CsvCursor } from './csvCursor.ts'
-import { SEPARATOR_NAMES, detectDialect, splitLine } from './csvDialect.ts'
+import { asBytes, textOf } from './csvBytes.ts'
+import { SEPARATOR_NAMES, detectDialectOfBytes, splitLine } from './csvDialect.ts'
 import type { CsvDialect, DialectSettings, Separator, TableShape } from './csvDialect.ts'
 import { splitHeaderUnit } from './headerUnits.ts'
 
@@ -30,11 +31,12 @@ export interface OpenTable {
 }
 
 /** Detects (or takes) the file's dialect, skips its preamble and reads its header. */
-export function openTable(file: string, text: string, settings: DialectSettings, shape: TableShape, role: string): OpenTable {
-  const dialect = detectDialect(file, text, settings, shape, role)
-  const cur = createCursor(file, text, dialect.separator, dialect.decimal)
+export function openTable(file: string, src: string | Uint8Array, settings: DialectSettings, shape: TableShape, role: string): OpenTable {
+  const bytes = asBytes(src)
+  const dialect = detectDialectOfBytes(file, bytes, settings, shape, role)
+  const cur = createCursor(file, bytes, dialect.separator, dialect.decimal)
   moveCursor(cur, dialect.start, dialect.startLine)
-  if (dialect.headerLine > 0 || dialect.start >= text.length) return { cur, dialect, header: { ...readHeader(cur), rowWidth: dialect.rowFields } }
+  if (dialect.headerLine > 0 || dialect.start >= bytes.length) return { cur, dialect, header: { ...readHeader(cur), rowWidth: dialect.rowFields } }
   const header: CsvHeader = { raw: [], names: [], bare: [], units: [], line: dialect.startLine, present: false, width: dialect.rowFields, rowWidth: dialect.rowFields }
   return { cur, dialect, header }
 }
@@ -73,12 +75,12 @@ export function countFieldsOfLine(cur: CsvCursor): number {
 
 /** The text of the line the cursor is on (error path only). */
 export function lineOf(cur: CsvCursor): string {
-  const text = cur.text
-  const at = Math.min(cur.pos, text.length)
-  const p = Math.max(text.lastIndexOf('\n', at > 0 ? at - 1 : 0), text.lastIndexOf('\r', at > 0 ? at - 1 : 0)) + 1
+  const bytes = cur.bytes
+  const at = Math.min(cur.pos, bytes.length)
+  const p = Math.max(bytes.lastIndexOf(10, at > 0 ? at - 1 : 0), bytes.lastIndexOf(13, at > 0 ? at - 1 : 0)) + 1
   let e = p
-  while (e < text.length && text.charCodeAt(e) !== 10 && text.charCodeAt(e) !== 13) e++
-  return text.slice(p, e)
+  while (e < bytes.length && bytes[e] !== 10 && bytes[e] !== 13) e++
+  return textOf(bytes, p, e)
 }
 
 function separatorOf(cur: CsvCursor): Separator {
@@ -172,10 +174,10 @@ function isElementNodalHeader(header: CsvHeader, columns: ColumnMap | undefined)
  * by header name or as model.json maps them. Throws InputError on any malformed row; an empty
  * table is an error.
  */
-export function readNumericTable(file: string, text: string, spec: NumericTableSpec): NumericTable {
-  const t = openNumericTable(file, text, spec)
+export function readNumericTable(file: string, src: string | Uint8Array, spec: NumericTableSpec): NumericTable {
+  const t = openNumericTable(file, src, spec)
   const s = t.setup
-  return finishNumericTable(t, [readNumericRows(t.cur, s.slotOf, s.nf, s.nv, s.names, s.twoIds, text.length)])
+  return finishNumericTable(t, [readNumericRows(t.cur, s.slotOf, s.nf, s.nv, s.names, s.twoIds, t.cur.bytes.length)])
 }
 
 /**
@@ -212,8 +214,8 @@ export interface OpenNumericTable {
 }
 
 /** Opens a numeric table (dialect, header, column plan); header problems are thrown here. */
-export function openNumericTable(file: string, text: string, spec: NumericTableSpec): OpenNumericTable {
-  const { cur, dialect, header } = openTable(file, text, spec.settings, 'numeric', spec.role)
+export function openNumericTable(file: string, src: string | Uint8Array, spec: NumericTableSpec): OpenNumericTable {
+  const { cur, dialect, header } = openTable(file, src, spec.settings, 'numeric', spec.role)
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
   const twoIds = spec.elementNodal !== undefined && isElementNodalHeader(header, spec.columns)
   const fields = twoIds ? spec.elementNodal! : spec.fields
@@ -231,12 +233,11 @@ export function openNumericTable(file: string, text: string, spec: NumericTableS
 }
 
 /**
- * Reads the rows of one piece of a table, text[start, end) (whole lines, starting on line
- * `line`), as readNumericTable reads them. In place: no copy of the piece (a sliced string reads
- * a quarter slower).
+ * Reads the rows of one piece of a table, bytes[start, end) (whole lines, starting on line
+ * `line`), as readNumericTable reads them. In place: no copy of the piece.
  */
-export function readNumericPiece(setup: NumericPieceSetup, text: string, start: number, end: number, line: number): NumericRows {
-  const cur = createCursor(setup.file, text, setup.separator, setup.decimal)
+export function readNumericPiece(setup: NumericPieceSetup, bytes: Uint8Array, start: number, end: number, line: number): NumericRows {
+  const cur = createCursor(setup.file, bytes, setup.separator, setup.decimal)
   moveCursor(cur, start, line)
   // Untrimmed: the arrays travel back whole (by transfer) and the merge reads `rows` of them.
   return readNumericRows(cur, setup.slotOf, setup.nf, setup.nv, setup.names, setup.twoIds, end)
@@ -279,7 +280,7 @@ export function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, 
   const OK = PARSE_OK
   // `into`: arrays to fill from their start (a piece's share of a table's shared arrays); they are
   // replaced by grown copies only when the rows outrun them, which the caller sees by identity.
-  let cap = into ? into.ids.length : Math.max(16, estimateRecordCount(cur.text, cur.pos, limit))
+  let cap = into ? into.ids.length : Math.max(16, estimateRecordCount(cur.bytes, cur.pos, limit))
   let ids: Int32Array = into ? into.ids : new Int32Array(cap)
   let values: Float64Array = into ? into.values : new Float64Array(cap * nv)
   let lines: Int32Array = into ? into.lines : new Int32Array(cap)

@@ -69,34 +69,8 @@ function readModelOrBundle(files: readonly InputFile[], options: ReadModelOption
     if (files.length === 1 && typeof named.data !== 'string') return readNative(named.data, named.name)
     throw new InputError('container', `does not start with the ${NATIVE_EXTENSION} magic bytes "TRACTUS\\0"`, { file: named.name, field: 'magic' })
   }
-  const texts: CsvFile[] = files.map((f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : decodeUtf8(f.name, bytesOf(f.data)) }))
+  // Bytes as they are: the readers parse UTF-8 bytes (src/io/csvBytes.ts) and check the text they keep.
+  const texts: CsvFile[] = files.map((f) => (typeof f.data === 'string' ? { name: f.name, text: f.data } : { name: f.name, bytes: bytesOf(f.data) }))
   return { texts, options: { maxBytes: limit, name: options.name, ...(options.units ? { units: options.units } : {}) } }
 }
 
-/** UTF-8 bytes as text; bytes that are not UTF-8 are an input error naming the line of the first bad one. */
-export function decodeUtf8(file: string, bytes: Uint8Array): string {
-  try {
-    // fatal: a file in another encoding is reported, not silently mangled. The BOM is dropped.
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes)
-  } catch {
-    const at = firstBadUtf8Byte(bytes)
-    let line = 1
-    for (let i = 0; i < at; i++) if (bytes[i] === 10) line++
-    const where = at >= 0 ? ` (first bad byte at offset ${at})` : ''
-    throw new InputError('encoding', `the file is not UTF-8 text${where}; save it as UTF-8`, at >= 0 ? { file, line } : { file })
-  }
-}
-
-/** Offset of the first byte that starts no well-formed UTF-8 sequence (lead and continuation bytes only), or -1. */
-function firstBadUtf8Byte(b: Uint8Array): number {
-  const n = b.length
-  for (let i = 0; i < n;) {
-    const c = b[i]
-    if (c < 0x80) { i++; continue }
-    const need = c >= 0xc2 && c <= 0xdf ? 1 : c >= 0xe0 && c <= 0xef ? 2 : c >= 0xf0 && c <= 0xf4 ? 3 : 0
-    if (need === 0 || i + need > n - 1) return i
-    for (let k = 1; k <= need; k++) if ((b[i + k] & 0xc0) !== 0x80) return i
-    i += need + 1
-  }
-  return -1
-}

@@ -36,18 +36,27 @@ import { partAveragedStress } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import type { RawElementBlock } from './readElementTable.ts'
 import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
+import { sourceBytes, sourceText } from './csvBytes.ts'
+import type { CsvSource } from './csvBytes.ts'
 
-export interface CsvFile {
+export interface CsvFile extends CsvSource {
   /** File name, possibly with folders ("run3/nodes.csv"); only the base name matters. */
   readonly name: string
   /**
-   * The file's text. It may be a getter that reads the file each time (the command line reads
-   * files one at a time, so a bundle of many load cases never holds all their texts): the reader
-   * takes it once per file and keeps none.
+   * The file's UTF-8 bytes (as read from disk or a Blob: the readers' way, src/io/csvBytes.ts), or
+   * its text (encoded when read). Either may be a getter that reads the file each time (the
+   * command line reads files one at a time, so a bundle of many load cases never holds all of
+   * them): the reader takes it once per file and keeps none.
    */
-  readonly text: string
-  /** Its size when known without reading it (bytes on disk, at least its length); checked against the size limit instead of `text.length`. */
+  readonly bytes?: Uint8Array
+  readonly text?: string
+  /** Its size when known without reading it (bytes on disk); checked against the size limit instead of the bytes' or text's length. */
   readonly size?: number
+}
+
+/** The size checked against the limit: the given size, else the length of the bytes or text. */
+function sizeOfFile(f: CsvFile): number {
+  return f.size ?? (f.bytes !== undefined ? f.bytes.length : f.text?.length ?? 0)
 }
 
 export interface CsvBundleOptions {
@@ -159,8 +168,8 @@ interface TableSource {
 }
 
 const READ_IN_PLACE: TableSource = {
-  numeric: (f, spec) => readNumericTable(f.name, f.text, spec),
-  elements: (f, spec) => readElementTable(f.name, f.text, spec),
+  numeric: (f, spec) => readNumericTable(f.name, sourceBytes(f), spec),
+  elements: (f, spec) => readElementTable(f.name, sourceBytes(f), spec),
 }
 
 /** Tables read in pieces: each returned (or its error thrown) when the assembly asks for it, so messages come in the one-thread order. */
@@ -195,13 +204,13 @@ function planBundle(files: readonly CsvFile[], options: CsvBundleOptions): Bundl
   // Sizes first (before model.json is parsed), of every file named like a bundle file.
   for (const f of files) {
     const b = baseName(f.name).toLowerCase()
-    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, f.size ?? f.text.length, limit)
+    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, sizeOfFile(f), limit)
   }
-  const json = jsonFiles.length === 1 ? parseJsonText(jsonFiles[0].name, jsonFiles[0].text) : null
+  const json = jsonFiles.length === 1 ? parseJsonText(jsonFiles[0].name, sourceText(jsonFiles[0])) : null
   const meta = jsonFiles.length === 1 ? readModelMeta(jsonFiles[0].name, json) : null
   const layout = meta ? readBundleLayout(jsonFiles[0].name, json as Record<string, unknown>) : EMPTY_LAYOUT
   const { byRole, ignored, cases } = sortBundleFiles(files, layout)
-  for (const f of byRole.values()) assertWithinLimit(f.name, f.size ?? f.text.length, limit)
+  for (const f of byRole.values()) assertWithinLimit(f.name, sizeOfFile(f), limit)
   const warnings: string[] = ignored.map((n) => `ignored ${n}: not part of a CSV bundle`)
   // --- load cases (caseFiles.ts): the first case's files are read here, the others by readOtherCases ---
   const plan = planCases(byRole, cases, json, jsonFiles.length === 1 ? jsonFiles[0].name : null)
@@ -320,7 +329,7 @@ function assembleBundle(bp: BundlePlan, options: CsvBundleOptions, source: Table
     firstStressField: stressField,
     readElementNodal(f, role) {
       // the same element-nodal reading as the first case's file, in that file's dialect settings
-      const t = readNumericTable(f.name, f.text, {
+      const t = readNumericTable(f.name, sourceBytes(f), {
         ...spec('stress', STRESS_FIELDS, 'stress'), settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) ?? spec('stress', STRESS_FIELDS, 'stress').columns,
         elementNodal: ELEMENT_NODAL_STRESS_FIELDS,
       })
@@ -337,7 +346,7 @@ function assembleBundle(bp: BundlePlan, options: CsvBundleOptions, source: Table
     },
     readTable(f, role, kind) {
       const base = kind === 'stress' ? spec('stress', STRESS_FIELDS, 'stress') : spec('displacement', DISPLACEMENT_FIELDS, 'length')
-      const t = readNumericTable(f.name, f.text, { ...base, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) ?? base.columns })
+      const t = readNumericTable(f.name, sourceBytes(f), { ...base, settings: dialectSettingsFor(layout, role), columns: layout.columns.get(role) ?? base.columns })
       caseIntake.push(fileIntake(f.name, role, t.info.dialect, t.info.ignored))
       return t
     },

@@ -21,6 +21,7 @@ import { checkDistinct, columnLabel, findColumn, matchColumns, unusedColumns } f
 import type { CsvHeader } from './columnMap.ts'
 import { PARSE_EMPTY, PARSE_OK, atLineEnd, createCursor, estimateRecordCount, finishLine, moveCursor, nextRecord, readCount, readId, skipField, takeSeparator, tokenText } from './csvCursor.ts'
 import type { CsvCursor } from './csvCursor.ts'
+import { textOf } from './csvBytes.ts'
 import type { DialectSettings } from './csvDialect.ts'
 import { countFieldsOfLine, fail, failField, fitInt, growInt, lineOf, openTable, separatorWords } from './csvTable.ts'
 import type { TableInfo } from './csvTable.ts'
@@ -79,15 +80,16 @@ export interface ElementColumns {
 }
 
 /** Reads the element file into raw blocks (one per type). Throws InputError on any malformed row. */
-export function readElementTable(file: string, text: string, spec: ElementTableSpec = PLAIN_ELEMENT_TABLE): ElementTable {
-  const t = openElementTable(file, text, spec)
-  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text)), hasPart: t.setup.cols.hasPart }
-  readElementRows(t.cur, t.setup.cols, t.setup.header, typeLookup(spec.types), spec, grown, text.length)
+export function readElementTable(file: string, src: string | Uint8Array, spec: ElementTableSpec = PLAIN_ELEMENT_TABLE): ElementTable {
+  const t = openElementTable(file, src, spec)
+  const bytes = t.cur.bytes
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(bytes)), hasPart: t.setup.cols.hasPart }
+  readElementRows(t.cur, t.setup.cols, t.setup.header, typeLookup(spec.types), spec, grown, bytes.length)
   return finishElementTable(t, [finishBlocks(grown, spec.nodeOrder)])
 }
 
 /**
- * What reading element rows needs besides the text: the dialect's characters, the column plan,
+ * What reading element rows needs besides the bytes: the dialect's characters, the column plan,
  * the header and model.json's element settings. Plain data (structured-clonable), so a worker can
  * read a piece of the rows with it.
  */
@@ -108,8 +110,8 @@ export interface OpenElementTable {
 }
 
 /** Opens the element file (dialect, header, column plan); header problems are thrown here. */
-export function openElementTable(file: string, text: string, spec: ElementTableSpec): OpenElementTable {
-  const { cur, dialect, header } = openTable(file, text, spec.settings, 'elements', 'elements')
+export function openElementTable(file: string, src: string | Uint8Array, spec: ElementTableSpec): OpenElementTable {
+  const { cur, dialect, header } = openTable(file, src, spec.settings, 'elements', 'elements')
   if (header.present && header.width === 0) throw new InputError('empty-file', 'the file is empty (no header line, no rows)', { file })
   const cols = matchElementColumns(file, header, spec.columns)
   const used = Array.from(cols.slotOf, (s) => s !== SLOT_IGNORED)
@@ -118,14 +120,14 @@ export function openElementTable(file: string, text: string, spec: ElementTableS
 }
 
 /**
- * Reads the element rows of one piece of the file, text[start, end) (whole lines, starting on
+ * Reads the element rows of one piece of the file, bytes[start, end) (whole lines, starting on
  * line `line`), in place into blocks, one per type in order of first appearance, nodes in our
  * local order.
  */
-export function readElementPiece(setup: ElementPieceSetup, text: string, start: number, end: number, line: number): RawElementBlock[] {
-  const cur = createCursor(setup.file, text, setup.separator, setup.decimal)
+export function readElementPiece(setup: ElementPieceSetup, bytes: Uint8Array, start: number, end: number, line: number): RawElementBlock[] {
+  const cur = createCursor(setup.file, bytes, setup.separator, setup.decimal)
   moveCursor(cur, start, line)
-  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(text, start, end)), hasPart: setup.cols.hasPart }
+  const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(bytes, start, end)), hasPart: setup.cols.hasPart }
   readElementRows(cur, setup.cols, setup.header, typeLookup(setup.spec.types), setup.spec, grown, end)
   return finishBlocks(grown, setup.spec.nodeOrder)
 }
@@ -170,7 +172,7 @@ export function readElementRows(cur: CsvCursor, cols: ElementColumns, header: Cs
   const hasPart = cols.hasPart
   const maxNodes = cols.nodeColumns < 0 ? MAX_NODES : cols.nodeColumns
   const firstNode = cols.firstNode
-  const text = cur.text, textLen = text.length
+  const bytes = cur.bytes, byteLen = bytes.length
   const byType = grown.byType
   // Node fields of the row being read by the general reader (0 = empty).
   const rowNodes = new Int32Array(Math.max(maxNodes, MAX_NODES))
@@ -191,7 +193,7 @@ export function readElementRows(cur: CsvCursor, cols: ElementColumns, header: Cs
         if (!sep(cur)) fail(cur, 'column-count', `expected at least ${describeColumns(cols, header)}, found ${countFieldsOfLine(cur)} field`, undefined, id)
         skip(cur)
         if (cur.status !== OK) failField(cur, cols.labels[1], 'id', id)
-        t = matchType(text, cur.tokStart, cur.tokEnd, lookup)
+        t = matchType(bytes, cur.tokStart, cur.tokEnd, lookup)
         if (t < 0) failType(cur, cols.labels[1], spec, id)
         if (hasPart) {
           if (!sep(cur)) fail(cur, 'column-count', 'the row ends before the part column', cols.labels[2], id)
@@ -218,10 +220,10 @@ export function readElementRows(cur: CsvCursor, cols: ElementColumns, header: Cs
       // field. A field it does not take as is (blanks, signs, decimals, out of range, a bad end)
       // is left to readId below from that field on, so results and messages are the same.
       let p = cur.pos
-      while (k < nn && p < textLen && text.charCodeAt(p) === SEP) {
+      while (k < nn && p < byteLen && bytes[p] === SEP) {
         let q = p + 1, v = 0, nd = 0
-        let c = q < textLen ? text.charCodeAt(q) : -1
-        while (c >= CH_0 && c <= CH_9 && nd < 10) { v = v * 10 + (c - CH_0); nd++; c = ++q < textLen ? text.charCodeAt(q) : -1 }
+        let c = q < byteLen ? bytes[q] : -1
+        while (c >= CH_0 && c <= CH_9 && nd < 10) { v = v * 10 + (c - CH_0); nd++; c = ++q < byteLen ? bytes[q] : -1 }
         if (nd === 0 || v < 1 || v > MAX_ID || !(c === SEP || c === CH_LF || c === CH_CR || c === -1)) break
         nodeIds[base + k] = v
         k++
@@ -356,7 +358,7 @@ function readOtherField(cur: CsvCursor, slot: number, j: number, labels: readonl
   } else if (slot === SLOT_TYPE) {
     skipAnyField(cur)
     if (cur.status !== OK_STATUS) failField(cur, labels[j], 'id', row.id || undefined)
-    row.t = matchType(cur.text, cur.tokStart, cur.tokEnd, lookup)
+    row.t = matchType(cur.bytes, cur.tokStart, cur.tokEnd, lookup)
     if (row.t < 0) failType(cur, labels[j], spec, row.id)
   } else if (slot === SLOT_PART) {
     row.part = readCountField(cur)
@@ -488,29 +490,29 @@ export function typeLookup(user: ReadonlyMap<string, ElementTypeName>): TypeLook
 }
 
 /**
- * Index into TYPE_NAMES of the type token text[s, e) (case-insensitive, optional quotes), or -1:
+ * Index into TYPE_NAMES of the type token bytes[s, e) (case-insensitive, optional quotes), or -1:
  * our names first (module constants, the common case, in a loop of its own so that it is
  * inlined into the row loop), then the user's.
  */
-function matchType(text: string, s: number, e: number, lookup: TypeLookup): number {
-  if (e - s >= 2 && text.charCodeAt(s) === 34 && text.charCodeAt(e - 1) === 34) { s++; e-- }
+function matchType(bytes: Uint8Array, s: number, e: number, lookup: TypeLookup): number {
+  if (e - s >= 2 && bytes[s] === 34 && bytes[e - 1] === 34) { s++; e-- }
   const n = e - s
   outer: for (let t = 0; t < TYPE_NAMES.length; t++) {
     const name = TYPE_NAMES[t]
     if (name.length !== n) continue
     for (let i = 0; i < n; i++) {
-      let c = text.charCodeAt(s + i)
+      let c = bytes[s + i]
       if (c >= 65 && c <= 90) c += 32
       if (c !== name.charCodeAt(i)) continue outer
     }
     return t
   }
-  return lookup.names.length === 0 ? -1 : matchUserType(text, s, e, lookup)
+  return lookup.names.length === 0 ? -1 : matchUserType(bytes, s, e, lookup)
 }
 
-/** The type a model.json "types" name in text[s, e) maps to, or -1. */
-function matchUserType(text: string, s: number, e: number, lookup: TypeLookup): number {
-  const token = text.slice(s, e).toLowerCase()
+/** The type a model.json "types" name in bytes[s, e) maps to, or -1. */
+function matchUserType(bytes: Uint8Array, s: number, e: number, lookup: TypeLookup): number {
+  const token = textOf(bytes, s, e).toLowerCase()
   const u = lookup.names.indexOf(token)
   return u < 0 ? -1 : lookup.index[u]
 }

@@ -2,9 +2,11 @@
  * Upper bounds on the size of one model file, so the app refuses a file before reading it, with
  * the file, its size, the limit and what to do instead.
  *
- * - A CSV or JSON file: 2^29 - 24 bytes (just under 512 MiB). It is parsed from one string, and
- *   V8 makes no string longer than 2^29 - 24 UTF-16 units (measured in Chromium and Node 20:
- *   one unit more throws "Invalid string length"); a UTF-8 file never has more units than bytes.
+ * - A CSV or JSON file: 2^29 - 24 bytes (just under 512 MiB), the longest string V8 makes (2^29
+ *   - 24 UTF-16 units, measured in Chromium and Node 20: one unit more throws "Invalid string
+ *   length"; a UTF-8 file never has more units than bytes). A JSON file is parsed from its text,
+ *   so the bound is hard for it; a CSV file is parsed from its bytes (src/io/csvBytes.ts), and
+ *   for it the bound is the tested size, kept until a larger one is measured in the browser.
  *   The largest file of a 10^7-element tet4 bundle, elements.csv, is about 455 MB.
  * - A `.tractus` container: 2 GiB. The engine worker holds the file once (its arrays are views
  *   into the file's bytes, read in slices) and the analysis beside it, about 1.2 × the file again

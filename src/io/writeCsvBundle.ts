@@ -7,7 +7,6 @@
 import { elementType } from '../model/elementTypes.ts'
 import type { Model } from '../model/model.ts'
 import { DEFAULT_CASE, sameCaseName } from '../model/loadCases.ts'
-import type { CsvFile } from './readCsvBundle.ts'
 import { partsJson } from './nativeContainer.ts'
 
 function num(v: number): string {
@@ -22,6 +21,12 @@ function table(header: string, rows: number, width: number, ids: Int32Array, val
     out.push(line)
   }
   return out.join('\n') + '\n'
+}
+
+/** A file of a written bundle: its name and text (a CsvFile the readers take as it is). */
+export interface WrittenCsvFile {
+  readonly name: string
+  readonly text: string
 }
 
 /** Element-nodal stress: a row per element and node, in the order of the connectivity. */
@@ -42,10 +47,10 @@ function elementNodalTable(model: Model): string {
   return out.join('\n') + '\n'
 }
 
-export function writeCsvBundle(model: Model): CsvFile[] {
+export function writeCsvBundle(model: Model): WrittenCsvFile[] {
   const { mesh } = model
   const N = mesh.nodeCount
-  const files: CsvFile[] = []
+  const files: WrittenCsvFile[] = []
   files.push({ name: 'nodes.csv', text: table('id,x,y,z', N, 3, mesh.nodeIds, mesh.coords) })
   const hasPart = mesh.blocks.some((b) => b.part !== null)
   let maxNodes = 1

@@ -10,7 +10,7 @@
  * Run: npx tsx test/bench/csvDialects.ts [--elements N] [--runs R]
  */
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
-import type { CsvFile } from '../../src/io/readCsvBundle.ts'
+import type { WrittenCsvFile } from '../../src/io/writeCsvBundle.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { boxMesh } from '../../src/model/boxMesh.ts'
 import { checkQuadraticBlock } from '../../src/io/quadraticElementChecks.ts'
@@ -39,11 +39,11 @@ if (DIGITS > 0) {
   round(model.mesh.coords); round(model.stress)
 }
 const plain = writeCsvBundle(model)
-const bytesOf = (files: readonly CsvFile[]) => files.reduce((s, f) => s + f.text.length, 0)
+const bytesOf = (files: readonly WrittenCsvFile[]) => files.reduce((s, f) => s + f.text.length, 0)
 
 /** The same bundle in another dialect: every line's fields re-joined, numbers rewritten by `num`. */
-function rewrite(files: readonly CsvFile[], sep: string, num: (s: string) => string, extra: { json?: object; rename?: Record<string, string>; header?: (role: string, h: string) => string } = {}): CsvFile[] {
-  const out: CsvFile[] = []
+function rewrite(files: readonly WrittenCsvFile[], sep: string, num: (s: string) => string, extra: { json?: object; rename?: Record<string, string>; header?: (role: string, h: string) => string } = {}): WrittenCsvFile[] {
+  const out: WrittenCsvFile[] = []
   for (const f of files) {
     if (f.name === 'model.json') {
       const meta = JSON.parse(f.text) as Record<string, unknown>
@@ -59,7 +59,7 @@ function rewrite(files: readonly CsvFile[], sep: string, num: (s: string) => str
   return out
 }
 
-const variants: { label: string; files: CsvFile[] }[] = [
+const variants: { label: string; files: WrittenCsvFile[] }[] = [
   { label: 'comma, decimal point', files: plain },
   { label: 'comma, decimal point (again)', files: plain },
   { label: 'semicolon, decimal comma', files: rewrite(plain, ';', (s) => s.replace('.', ',')) },

@@ -17,6 +17,7 @@ import { readFileSync } from 'node:fs'
 import os from 'node:os'
 import { fileURLToPath } from 'node:url'
 import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
+import { asDiskFiles, bytesOfFiles } from './diskFiles.ts'
 import type { CsvFile, ReadModel } from '../../src/io/index.ts'
 import type { Model } from '../../src/model/model.ts'
 import { startCsvLanes } from '../../src/cli/csvLanes.ts'
@@ -77,8 +78,8 @@ export async function startBenchLanes(): Promise<{ lanes: CsvLanes; startMs: num
 }
 
 export async function benchCsvParallel(model: Model, lanes: CsvLanes, runs = 3): Promise<ParallelCsvFigure> {
-  const files: CsvFile[] = writeCsvBundle(model)
-  const bytes = files.reduce((s, f) => s + f.text.length, 0)
+  const files: CsvFile[] = asDiskFiles(writeCsvBundle(model))
+  const bytes = bytesOfFiles(files)
   const load0 = os.loadavg()[0]
   // Warm-up of both paths (the workers' code too), and the check.
   const one0 = readCsvBundle(files)

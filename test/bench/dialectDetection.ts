@@ -7,6 +7,7 @@
  */
 import type { CsvFile } from '../../src/io/readCsvBundle.ts'
 import { openTable } from '../../src/io/csvTable.ts'
+import { sourceBytes } from '../../src/io/csvBytes.ts'
 import { matchColumns } from '../../src/io/columnMap.ts'
 import { fieldsOfRole } from '../../src/io/bundleLayout.ts'
 
@@ -15,7 +16,7 @@ export function detectAll(files: readonly CsvFile[]): number {
   for (const f of files) {
     if (f.name === 'model.json') continue
     const role = f.name.startsWith('elements') ? 'elements' : f.name.includes('stress') ? 'stress' : f.name.includes('nodes') ? 'nodes' : 'displacement'
-    const t = openTable(f.name, f.text, {}, role === 'elements' ? 'elements' : 'numeric', role)
+    const t = openTable(f.name, sourceBytes(f), {}, role === 'elements' ? 'elements' : 'numeric', role)
     if (role !== 'elements' && t.header.present) n += matchColumns(f.name, t.header, fieldsOfRole(role), undefined, role).length
   }
   return n

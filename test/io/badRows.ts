@@ -3,7 +3,7 @@
  * row of a bundle file changed so that the read refuses it, and the refusal caught, to compare a
  * read in pieces with the one-thread read message for message.
  */
-import type { CsvFile } from '../../src/io/index.ts'
+import type { WrittenCsvFile } from '../../src/io/index.ts'
 import { InputError } from '../../src/model/errors.ts'
 
 /** File, what is wrong, and the change to one of its rows. */
@@ -15,7 +15,7 @@ export const BAD_ROWS: readonly [string, string, (line: string) => string][] = [
 ]
 
 /** The files with line n (1-based) of file `name` replaced by `f(line)`. */
-export function editLine(files: readonly CsvFile[], name: string, n: number, f: (line: string) => string): CsvFile[] {
+export function editLine(files: readonly WrittenCsvFile[], name: string, n: number, f: (line: string) => string): WrittenCsvFile[] {
   return files.map((file) => {
     if (file.name !== name) return file
     const lines = file.text.split('\n')

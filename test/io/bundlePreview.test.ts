@@ -10,14 +10,14 @@ import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { PREVIEW_BYTES, mappingModelJson, mappingProblems, previewBundle, roleByName, suggestMapping } from '../../src/io/bundlePreview.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
-import type { CsvFile } from '../../src/io/readCsvBundle.ts'
+import type { WrittenCsvFile } from '../../src/io/writeCsvBundle.ts'
 import { expectSameModel } from './sameModel.ts'
 import { tinyBundle, toFiles } from './tinyBundle.ts'
 
 const dir = join(import.meta.dirname, '..', 'fixtures', 'variants', 'mapped-names')
-const fixture = (): CsvFile[] => readdirSync(dir).sort().map((name) => ({ name, text: readFileSync(join(dir, name), 'utf8') }))
+const fixture = (): WrittenCsvFile[] => readdirSync(dir).sort().map((name) => ({ name, text: readFileSync(join(dir, name), 'utf8') }))
 /** The fixture with its model.json stripped of the mapping keys (what a user drops the first time). */
-const unmapped = (): CsvFile[] => fixture().map((f) => {
+const unmapped = (): WrittenCsvFile[] => fixture().map((f) => {
   if (f.name !== 'model.json') return f
   const j = JSON.parse(f.text) as Record<string, unknown>
   delete j.files; delete j.columns

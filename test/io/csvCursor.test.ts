@@ -9,14 +9,18 @@ import {
   PARSE_BAD_INTEGER, PARSE_BAD_QUOTE, PARSE_EMPTY, PARSE_NOT_A_NUMBER, PARSE_NOT_FINITE, PARSE_OK, PARSE_OPEN_QUOTE, atLineEnd, createCursor,
   readId, readNumber, skipField, takeSeparator,
 } from '../../src/io/csvCursor.ts'
+import { textOf } from '../../src/io/csvBytes.ts'
+
+/** The cursor reads UTF-8 bytes, as files arrive. */
+const enc = (s: string) => new TextEncoder().encode(s)
 
 const SEED = 20261201
 console.log(`csvCursor property tests: fast-check seed ${SEED}`)
 
 function parse(token: string): { value: number; status: number; rest: string } {
-  const cur = createCursor('t.csv', token + ',next')
+  const cur = createCursor('t.csv', enc(token + ',next'))
   const value = readNumber(cur)
-  return { value, status: cur.status, rest: cur.text.slice(cur.pos) }
+  return { value, status: cur.status, rest: textOf(cur.bytes, cur.pos, cur.bytes.length) }
 }
 
 describe('readNumber equals Number()', () => {
@@ -81,7 +85,7 @@ describe('readNumber rejects what is not a plain decimal', () => {
 })
 
 describe('readId', () => {
-  const id = (s: string) => { const c = createCursor('t.csv', s + '\n'); const v = readId(c); return { v, st: c.status } }
+  const id = (s: string) => { const c = createCursor('t.csv', enc(s + '\n')); const v = readId(c); return { v, st: c.status } }
   it('accepts positive integers up to 2^31-1, also written as 12.0', () => {
     expect(id('1')).toEqual({ v: 1, st: PARSE_OK })
     expect(id('2147483647')).toEqual({ v: 2147483647, st: PARSE_OK })
@@ -99,7 +103,7 @@ describe('readId', () => {
 describe('the dialects read the same numbers', () => {
   /** Every field of one line, read with the cursor of a dialect. */
   function fields(line: string, sep: string, dec: string): { values: number[]; statuses: number[] } {
-    const cur = createCursor('t.csv', line + '\n', sep, dec)
+    const cur = createCursor('t.csv', enc(line + '\n'), sep, dec)
     const values: number[] = [], statuses: number[] = []
     do {
       values.push(readNumber(cur))
@@ -130,12 +134,12 @@ describe('the dialects read the same numbers', () => {
   })
 
   it('a quoted field may hold the separator; "" is a quote inside', () => {
-    const cur = createCursor('t.csv', '"a,b","c ""d""",3\n')
+    const cur = createCursor('t.csv', enc('"a,b","c ""d""",3\n'))
     skipField(cur)
-    expect(cur.text.slice(cur.tokStart, cur.tokEnd)).toBe('"a,b"')
+    expect(textOf(cur.bytes, cur.tokStart, cur.tokEnd)).toBe('"a,b"')
     expect(takeSeparator(cur)).toBe(true)
     skipField(cur)
-    expect(cur.text.slice(cur.tokStart, cur.tokEnd)).toBe('"c ""d"""')
+    expect(textOf(cur.bytes, cur.tokStart, cur.tokEnd)).toBe('"c ""d"""')
     expect(takeSeparator(cur)).toBe(true)
     expect(readNumber(cur)).toBe(3)
   })
@@ -147,7 +151,7 @@ describe('the dialects read the same numbers', () => {
   })
 
   it('with a decimal comma a point is not a decimal mark (it would be a thousands separator)', () => {
-    const cur = createCursor('t.csv', '1.5;2\n', ';', ',')
+    const cur = createCursor('t.csv', enc('1.5;2\n'), ';', ',')
     readNumber(cur)
     expect(cur.status).toBe(PARSE_NOT_A_NUMBER)
   })

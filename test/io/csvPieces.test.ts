@@ -15,6 +15,9 @@ import { elementType } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
 import { BAD_ROWS, editLine, refusal } from './badRows.ts'
 import { expectSameModel, expectSameRead } from './sameModel.ts'
+
+/** The splitter works on UTF-8 bytes, as files arrive (these texts are ASCII: positions agree). */
+const enc = (s: string) => new TextEncoder().encode(s)
 import { elementNodalTwin, mixedModel } from './testModels.ts'
 
 const SEED = 20261203
@@ -45,13 +48,13 @@ describe('the cut falls between records', () => {
       const text = 'id,x\n' + records.join(crlf ? '\r\n' : '\n') + '\n'
       const from = 5
       const starts = recordStarts(text, from)
-      const split = splitAtRecords(text, from, 2, pieces)
+      const split = splitAtRecords(enc(text), from, 2, pieces)
       expect(split[0].start).toBe(from)
       expect(split[split.length - 1].end).toBe(text.length)
       split.forEach((p, k) => {
         if (k > 0) expect(p.start).toBe(split[k - 1].end)
         expect(starts.has(p.start), `piece ${k} starts inside a quoted field`).toBe(true)
-        expect(p.line).toBe(2 + lineEndsIn(text, from, p.start))
+        expect(p.line).toBe(2 + lineEndsIn(enc(text), from, p.start))
       })
       expect(split.length).toBeLessThanOrEqual(pieces)
     }), { seed: SEED, numRuns: 400 })
@@ -59,13 +62,13 @@ describe('the cut falls between records', () => {
 
   it('counts lines as the reader does (LF, CR LF, a lone CR) and keeps a text without line ends whole', () => {
     const text = 'h\n1\r\n2\r3\n4\n5\n6\n'
-    const split = splitAtRecords(text, 2, 2, 3)
-    for (const p of split) expect(p.line).toBe(2 + lineEndsIn(text, 2, p.start))
-    expect(lineEndsIn(text, 0, text.length)).toBe(7)
-    expect(splitAtRecords('h\n1,2,3', 2, 2, 4)).toEqual([{ start: 2, end: 7, line: 2 }])
+    const split = splitAtRecords(enc(text), 2, 2, 3)
+    for (const p of split) expect(p.line).toBe(2 + lineEndsIn(enc(text), 2, p.start))
+    expect(lineEndsIn(enc(text), 0, text.length)).toBe(7)
+    expect(splitAtRecords(enc('h\n1,2,3'), 2, 2, 4)).toEqual([{ start: 2, end: 7, line: 2 }])
     // An opening quote never closed: no cut after it.
     const open = 'h\n1\n"2\n3\n4\n5\n'
-    for (const p of splitAtRecords(open, 2, 2, 4).slice(1)) expect(p.start).toBeLessThanOrEqual(4)
+    for (const p of splitAtRecords(enc(open), 2, 2, 4).slice(1)) expect(p.start).toBeLessThanOrEqual(4)
   })
 })
 

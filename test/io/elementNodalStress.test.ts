@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
-import type { CsvFile } from '../../src/io/readCsvBundle.ts'
+import type { WrittenCsvFile } from '../../src/io/writeCsvBundle.ts'
 import { readNative, writeNative } from '../../src/io/nativeContainer.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { boxMesh } from '../../src/model/boxMesh.ts'
@@ -29,7 +29,7 @@ const S1 = [10, 2, 1, 3, 0.5, 4]
 const S2 = [10, 7, -3, 3, 2, 4]
 
 /** The bar 2 × 1 × 1 as a CSV bundle with element-nodal stress, written in `sep` with `dec` decimals. */
-function barBundle(type: ElementTypeName, sep = ',', dec = '.', quote = false): CsvFile[] {
+function barBundle(type: ElementTypeName, sep = ',', dec = '.', quote = false): WrittenCsvFile[] {
   const mesh = boxMesh({ nx: 4, ny: 2, nz: 2, lx: 2, ly: 1, lz: 1 }, type)
   const nn = elementType(type).nodeCount
   const b = mesh.blocks[0]
@@ -60,12 +60,12 @@ function barBundle(type: ElementTypeName, sep = ',', dec = '.', quote = false): 
   ]
 }
 
-function refusal(files: CsvFile[]): InputError {
+function refusal(files: WrittenCsvFile[]): InputError {
   try { readCsvBundle(files) } catch (e) { if (e instanceof InputError) return e; throw e }
   throw new Error('expected a refusal')
 }
 
-const withStress = (files: CsvFile[], change: (lines: string[]) => void): CsvFile[] => files.map((f) => {
+const withStress = (files: WrittenCsvFile[], change: (lines: string[]) => void): WrittenCsvFile[] => files.map((f) => {
   if (f.name !== 'stress.csv') return f
   const lines = f.text.trimEnd().split('\n')
   change(lines)

@@ -8,13 +8,15 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { PARSE_OK, createCursor, readNumber } from '../../src/io/csvCursor.ts'
+/** The cursor reads UTF-8 bytes, as files arrive. */
+const enc = (s: string) => new TextEncoder().encode(s)
 import { longDecimalQuotient } from '../../src/io/longDecimal.ts'
 
 const SEED = 20261202
 console.log(`longDecimal property tests: fast-check seed ${SEED}`)
 
 function parse(token: string): number {
-  const cur = createCursor('t.csv', token + ',')
+  const cur = createCursor('t.csv', enc(token + ','))
   const v = readNumber(cur)
   expect(cur.status, token).toBe(PARSE_OK)
   return v
@@ -99,7 +101,7 @@ describe('long mantissas equal Number()', () => {
       '1.2345678901234567e-7', '99999999999999999.99', '0.99999999999999999999', '1.0000000000000000', '4.9406564584124654e-10']) {
       expect(Object.is(parse(s), Number(s)), s).toBe(true)
     }
-    const cur = createCursor('t.csv', '1,2345678901234567;', ';', ',')
+    const cur = createCursor('t.csv', enc('1,2345678901234567;'), ';', ',')
     expect(readNumber(cur)).toBe(1.2345678901234567)
   })
 })

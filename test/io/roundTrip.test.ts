@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest'
 import { ELEMENT_TYPES, ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
-import type { CsvFile } from '../../src/io/readCsvBundle.ts'
+import type { WrittenCsvFile } from '../../src/io/writeCsvBundle.ts'
 import { writeCsvBundle } from '../../src/io/writeCsvBundle.ts'
 import { readNative, writeNative } from '../../src/io/nativeContainer.ts'
 import { readLittleEndian, writeLittleEndian } from '../../src/io/littleEndianArrays.ts'
@@ -18,7 +18,7 @@ import { expectSameModel, sameNumbers } from './sameModel.ts'
 
 const TYPES = ELEMENT_TYPE_NAMES
 
-function file(files: CsvFile[], name: string): CsvFile {
+function file(files: WrittenCsvFile[], name: string): WrittenCsvFile {
   return files.find((f) => f.name === name)!
 }
 
