@@ -17,8 +17,8 @@
  * - each table's arrays are made once, shared, and every thread writes its piece's rows into its
  *   own range of them, so each first-touches only its own pages, at the same time as the others;
  * - the lanes read the first pieces of the file, this thread the last (MAIN_SHARE of it). While
- *   the lanes read, this thread counts the line ends of their pieces (a native scan, a tenth of
- *   the cost of reading), which gives each later piece its first line and first row: every row
+ *   the lanes read, this thread counts the line ends of their pieces (four bytes at a time,
+ *   recordSplit.ts LineEndCounter), which gives each later piece its first line and first row: every row
  *   and message carries its true line, a lane's rows end where the next piece's begin (blank and
  *   comment lines aside, closed up after the read), and the last piece has room to the arrays'
  *   end. The arrays are sized from the mean line length with half again as headroom: pages never
@@ -48,7 +48,7 @@ const HEAD = 0, TAIL = 1, STOP = 2, SLOT_SIZE = 3, META = 4, META_WORDS = 5
 const END = -1
 const CONTROL_BYTES = 4 * (META + META_WORDS * SLOTS)
 /** This thread's share of a table: it also counts the lanes' line ends, feeds the rings and joins. */
-export const MAIN_SHARE = 0.45
+export const MAIN_SHARE = 0.47
 /** Rows the arrays hold over the estimate from the mean line length. */
 const ROOM = 1.5
 
@@ -255,7 +255,6 @@ interface Plan {
   readonly at: (number | undefined)[]
   readonly line: (number | undefined)[]
   readonly eol: number
-  readonly quoteFree: boolean
 }
 
 /** A lane's feed: where its next chunk comes from, and its ring. */
@@ -308,7 +307,7 @@ export async function readTablesStreamed<F extends CsvSource>(requests: readonly
       if (!p) continue
       // The lanes' pieces: their line ends counted while they read, giving each next piece its first row and line.
       const last = p.ranges.length - 1
-      const counter = new LineEndCounter(p.bytes, p.ranges[0].start)
+      const counter = new LineEndCounter(p.bytes)
       for (let k = 0; k < last; k++) {
         let ends = 0
         for (let a = p.ranges[k].start; a < p.ranges[k].end; a += countSlice) {
@@ -323,7 +322,7 @@ export async function readTablesStreamed<F extends CsvSource>(requests: readonly
       const reader = own[t] = pieceReader(p.table, p.at[last]!, p.rows - p.at[last]!, p.line[last]!)
       const { start, end } = p.ranges[last]
       for (let a = start; a < end;) {
-        const b = a + ownSlice >= end ? end : lastRecordEnd(p.bytes, a, a + ownSlice, p.eol, p.quoteFree)
+        const b = a + ownSlice >= end ? end : lastRecordEnd(p.bytes, a, a + ownSlice, p.eol)
         const stop = b > a ? b : end
         try {
           reader.read(p.bytes, a, stop)
@@ -382,7 +381,12 @@ function planTable(r: TableRequest, P: number): Plan {
   const bytes = sourceBytes(r.file)
   const open = r.kind === 'numeric' ? openNumericTable(r.file.name, bytes, r.spec) : openElementTable(r.file.name, bytes, r.spec)
   const from = open.cur.pos
-  const bounds = [from, ...recordCuts(bytes, from, P, MAIN_SHARE), bytes.length]
+  // Cut at line ends without the quote walk (-1): a quoted field never holds a line break here
+  // (the cursor refuses one, PARSE_OPEN_QUOTE), so every line end ends a record or lies in a
+  // record the piece that reads it refuses at its own line, the first error in file order, as a
+  // one-thread read refuses it. The walk's search for quotes was a pass over the file on this
+  // thread (a typed array's indexOf reads about a byte a nanosecond here).
+  const bounds = [from, ...recordCuts(bytes, from, P, MAIN_SHARE, -1), bytes.length]
   const ranges = bounds.slice(1).map((e, k) => ({ start: bounds[k], end: e }))
   const eol = lineEndOf(bytes, from)
   const rows = Math.ceil(estimateRecordCount(bytes, from, bytes.length) * ROOM) + 1024
@@ -400,7 +404,7 @@ function planTable(r: TableRequest, P: number): Plan {
   }
   const at: (number | undefined)[] = ranges.map((_, k) => (k === 0 ? 0 : undefined))
   const line: (number | undefined)[] = ranges.map((_, k) => (k === 0 ? open.cur.line : undefined))
-  return { request: r, bytes, ranges, open, table, rows, at, line, eol, quoteFree: bytes.indexOf(34, from) < 0 }
+  return { request: r, bytes, ranges, open, table, rows, at, line, eol }
 }
 
 /** The type (index) of the first element row of bytes[start, end), or -1 (none, or the row is bad: its error comes from the read). */
@@ -435,7 +439,7 @@ function fillRings(feeds: Feed[], plans: readonly (Plan | null)[]): boolean {
         if (f.pos < 0) f.pos = range.start
         const a = f.pos
         // Whole records of at most a slot's bytes, copied into the slot.
-        const b = range.end - a <= f.slotBytes ? range.end : lastRecordEnd(plan.bytes, a, a + f.slotBytes, plan.eol, plan.quoteFree)
+        const b = range.end - a <= f.slotBytes ? range.end : lastRecordEnd(plan.bytes, a, a + f.slotBytes, plan.eol)
         // A record longer than a slot: not for this way of reading.
         if (b <= a) { Atomics.store(f.ctrl, STOP, 1); f.done = true; return sent }
         f.bytes.set(plan.bytes.subarray(a, b), slot * f.slotBytes)

@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest'
 import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/io/index.ts'
 import { jobBuffers, readPiece } from '../../src/io/csvPieces.ts'
 import type { PieceLane } from '../../src/io/csvPieces.ts'
-import { lineEndsIn, splitAtRecords } from '../../src/io/recordSplit.ts'
+import { LineEndCounter, lineEndsIn, splitAtRecords } from '../../src/io/recordSplit.ts'
 import { elementType } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
 import { BAD_ROWS, editLine, refusal } from './badRows.ts'
@@ -58,6 +58,27 @@ describe('the cut falls between records', () => {
       })
       expect(split.length).toBeLessThanOrEqual(pieces)
     }), { seed: SEED, numRuns: 400 })
+  })
+
+  it('counts line ends four bytes at a time as one byte at a time does, over consecutive ranges of an unaligned view', () => {
+    const naive = (b: Uint8Array, x: number, y: number) => {
+      let n = 0
+      for (let i = x; i < y; i++) if (b[i] === 10 || (b[i] === 13 && b[i + 1] !== 10)) n++
+      return n
+    }
+    fc.assert(fc.property(fc.array(fc.constantFrom(10, 13, 97, 44, 0x8a, 0x0a0a), { maxLength: 200 }), fc.integer({ min: 0, max: 3 }), fc.array(fc.nat(60), { maxLength: 6 }), (codes, shift, steps) => {
+      const buf = new Uint8Array(codes.length + shift)
+      codes.forEach((c, i) => { buf[shift + i] = c & 0xff })
+      const bytes = buf.subarray(shift)
+      const counter = new LineEndCounter(bytes)
+      let a = 0
+      for (const s of [...steps, bytes.length]) {
+        const b = Math.min(bytes.length, a + s)
+        expect(counter.count(a, b)).toBe(naive(bytes, a, b))
+        a = b
+      }
+      expect(lineEndsIn(bytes, 0, bytes.length)).toBe(naive(bytes, 0, bytes.length))
+    }), { seed: SEED, numRuns: 500 })
   })
 
   it('counts lines as the reader does (LF, CR LF, a lone CR) and keeps a text without line ends whole', () => {
