@@ -125,7 +125,7 @@ function loadBundle(dir: string): LoadedModel {
   const files = names.map((name) => {
     const raw = readFileSync(join(dir, name))
     bytes += raw.byteLength
-    return { name, data: new Uint8Array(raw.buffer, raw.byteOffset, raw.byteLength) }
+    return { name, data: raw }
   })
   const model = withPath(() => readModelFiles(files), dir, null)
   return { model, path: dir, format: 'bundle', bytes }

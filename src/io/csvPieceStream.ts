@@ -8,9 +8,9 @@
  *
  * Why (measured on the 2-core VMs here, DEVELOPERS.md "What bounds what"): the first write to a
  * fresh page costs about 15–27 µs per 4 KiB, about as much as parsing the CSV that fills it. The
- * other way made fresh memory three times over on the calling thread (the lane's piece encoded,
- * the rows joined into new arrays) and once more in the lane (its piece decoded into one large
- * string): slower than one thread for tet10 and hex8. Here:
+ * other way makes fresh memory on the calling thread (the lane's piece copied, the rows joined
+ * into new arrays), and with the text the readers once parsed, once more in the lane (its piece
+ * decoded into one large string): slower than one thread for tet10 and hex8. Here:
  * - a lane's piece goes in chunks of at most `slotBytes` through a ring of SLOTS reused slots (a
  *   copy at memory speed); the lane copies a chunk into one reused buffer and parses it there: no
  *   fresh memory for the file's bytes;
@@ -18,11 +18,12 @@
  *   own range of them, so each first-touches only its own pages, at the same time as the others;
  * - the lanes read the first pieces of the file, this thread the last (MAIN_SHARE of it). While
  *   the lanes read, this thread counts the line ends of their pieces (four bytes at a time,
- *   recordSplit.ts LineEndCounter), which gives each later piece its first line and first row: every row
- *   and message carries its true line, a lane's rows end where the next piece's begin (blank and
- *   comment lines aside, closed up after the read), and the last piece has room to the arrays'
- *   end. The arrays are sized from the mean line length with half again as headroom: pages never
- *   written are never touched, so the headroom costs address space only.
+ *   recordSplit.ts LineEndCounter), which gives each later piece its first line and first row:
+ *   every row and message carries its true line, a lane's rows end where the next piece's begin
+ *   (blank and comment lines aside, closed up after the read), and the last piece has room to
+ *   the arrays' end. The arrays are sized from a sampled row estimate (estimateRecordCount) with
+ *   half again as headroom: pages never written are never touched, so the headroom costs
+ *   address space only.
  * A table whose rows outrun the arrays, a record longer than a slot, or a lane that stalls or
  * fails ends the read in pieces: the caller reads on one thread (the same model, only slower).
  *
@@ -37,7 +38,7 @@ import { finishNumericTable, openNumericTable, readNumericRows } from './csvTabl
 import type { NumericPieceSetup, NumericRows, NumericTable } from './csvTable.ts'
 import { NODE_COUNTS, TYPE_NAMES, concatInt, finishElementTable, openElementTable, permuteNodes, readElementPiece, readElementRows, typeLookup } from './readElementTable.ts'
 import type { Blocks, ElementPieceSetup, ElementTable, RawElementBlock, TypeLookup } from './readElementTable.ts'
-import { LineEndCounter, lastRecordEnd, lineEndOf, recordCuts } from './recordSplit.ts'
+import { LineEndCounter, lastRecordEnd, lineEndOf, lineEndsIn, recordCuts } from './recordSplit.ts'
 import type { PieceError, TableOutcome, TableRequest } from './csvPieces.ts'
 import { sourceBytes } from './csvBytes.ts'
 import type { CsvSource } from './csvBytes.ts'
@@ -49,7 +50,7 @@ const END = -1
 const CONTROL_BYTES = 4 * (META + META_WORDS * SLOTS)
 /** This thread's share of a table: it also counts the lanes' line ends, feeds the rings and joins. */
 export const MAIN_SHARE = 0.47
-/** Rows the arrays hold over the estimate from the mean line length. */
+/** Rows the arrays hold over the sampled row estimate (estimateRecordCount). */
 const ROOM = 1.5
 
 /**
@@ -139,7 +140,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
         const r = readNumericRows(cur, s.slotOf, s.nf, s.nv, s.names, s.twoIds, stop, into)
         if (r.ids !== into.ids) throw new OutOfRoom()
         placed += r.rows
-        line = cur.line - lineEndsBetween(bytes, stop, cur.pos)
+        line = cur.line - lineEndsIn(bytes, stop, cur.pos)
       },
       result: () => ({ placed, rest: [] }),
     }
@@ -160,7 +161,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
       readElementRows(cur, s.cols, s.header, lookup, s.spec, grown, stop)
       // Grown past its room: room() gave the block new arrays.
       if (seeded && seeded.ids !== ids) throw new OutOfRoom()
-      line = cur.line - lineEndsBetween(bytes, stop, cur.pos)
+      line = cur.line - lineEndsIn(bytes, stop, cur.pos)
     },
     result() {
       // Other types' rows, trimmed, in their order of first appearance; model.json's node order is applied after the join.
@@ -171,16 +172,6 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
       return { placed: seeded ? seeded.count : 0, rest }
     },
   }
-}
-
-/** Line ends in bytes[a, b) as the cursor counts them (usually none: b is where a record starts). */
-function lineEndsBetween(bytes: Uint8Array, a: number, b: number): number {
-  let n = 0
-  for (let i = a; i < b; i++) {
-    const c = bytes[i]
-    if (c === 10 || (c === 13 && bytes[i + 1] !== 10)) n++
-  }
-  return n
 }
 
 /** An input error as it travels between threads (the message without the place prefix InputError writes from `where`). */
