@@ -99,14 +99,17 @@ export function moveCursor(cur: CsvCursor, pos: number, line: number): void {
 
 /**
  * Moves to the start of the next data line, skipping blank lines and lines whose first non-blank
- * character is '#'. Returns false at the end of the file. A comment that is not UTF-8 is an
- * input error naming its line.
+ * character is '#'. Returns false at the end of the file, or at a line that starts at or past
+ * `limit` (the end of a piece: the blank and comment lines after it are the next piece's, so a
+ * long run of them is walked once, not once per slice). A comment that is not UTF-8 is an input
+ * error naming its line.
  */
-export function nextRecord(cur: CsvCursor): boolean {
+export function nextRecord(cur: CsvCursor, limit: number = cur.bytes.length): boolean {
   const bytes = cur.bytes, len = bytes.length
   let p = cur.pos
   for (;;) {
     const lineStart = p
+    if (p >= limit) { cur.pos = p; return false }
     let c = p < len ? bytes[p] : -1
     while (c === CH_SPACE || c === CH_TAB) c = ++p < len ? bytes[p] : -1
     if (c === -1) { cur.pos = p; return false }

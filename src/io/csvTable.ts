@@ -287,7 +287,7 @@ export function readNumericRows(cur: CsvCursor, slotOf: Int32Array, nf: number, 
   let ids2: Int32Array = into?.ids2 ? into.ids2 : new Int32Array(twoIds ? cap : 0)
   let rows = 0
   // A piece ends at `limit`, just after a line end: a record found there belongs to the next piece.
-  while (next(cur) && cur.pos < limit) {
+  while (next(cur, limit)) {
     if (rows === cap) {
       // Only when line ends are unusual (lone CRs mixed with LFs): grow by doubling.
       cap = Math.max(16, cap * 2)

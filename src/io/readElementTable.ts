@@ -183,7 +183,7 @@ export function readElementRows(cur: CsvCursor, cols: ElementColumns, header: Cs
   const ours = slotOf[0] === SLOT_ID && slotOf[1] === SLOT_TYPE && firstNode === (hasPart ? 3 : 2) && (!hasPart || slotOf[2] === SLOT_PART)
   const count_ = readCount
   // A piece ends at `limit`, just after a line end: a record found there belongs to the next piece.
-  while (next(cur) && cur.pos < limit) {
+  while (next(cur, limit)) {
     let k = 0
     if (cols.plain) {
       let id = 0, t = -1

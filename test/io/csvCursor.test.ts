@@ -7,7 +7,7 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import {
   PARSE_BAD_INTEGER, PARSE_BAD_QUOTE, PARSE_EMPTY, PARSE_NOT_A_NUMBER, PARSE_NOT_FINITE, PARSE_OK, PARSE_OPEN_QUOTE, atLineEnd, createCursor,
-  readId, readNumber, skipField, takeSeparator,
+  moveCursor, nextRecord, readId, readNumber, skipField, takeSeparator,
 } from '../../src/io/csvCursor.ts'
 import { textOf } from '../../src/io/csvBytes.ts'
 
@@ -161,5 +161,34 @@ describe('the dialects read the same numbers', () => {
     // Tab-separated: empty fields between tabs stay fields, spaces around them are trimmed.
     const r = fields('1\t \t3', '\t', '.')
     expect(r.statuses).toEqual([PARSE_OK, PARSE_EMPTY, PARSE_OK])
+  })
+})
+
+describe('nextRecord', () => {
+  const text = '1,2\n# a\n\n  # b\r\n3,4\n# c\n# d\n5,6\n'
+  const at = (needle: string) => text.indexOf(needle)
+
+  it('skips blank and comment lines (any line end) and counts them', () => {
+    const cur = createCursor('t.csv', enc(text))
+    moveCursor(cur, at('# a'), 2)
+    expect(nextRecord(cur)).toBe(true)
+    expect(cur.pos).toBe(at('3,4'))
+    expect(cur.line).toBe(5)
+  })
+
+  it('stops at the limit, a piece\'s end: the comment lines after it are left for the next piece', () => {
+    const cur = createCursor('t.csv', enc(text))
+    moveCursor(cur, at('# c'), 6)
+    expect(nextRecord(cur, at('# d'))).toBe(false)
+    expect(cur.pos).toBe(at('# d'))
+    expect(cur.line).toBe(7)
+    // a record that starts at the limit is the next piece's
+    moveCursor(cur, at('3,4'), 5)
+    expect(nextRecord(cur, at('3,4'))).toBe(false)
+    expect(cur.pos).toBe(at('3,4'))
+    expect(nextRecord(cur)).toBe(true)
+    moveCursor(cur, at('5,6') + 4, 8)
+    expect(nextRecord(cur)).toBe(false)
+    expect(cur.line).toBe(8)
   })
 })

@@ -89,6 +89,18 @@ describe('streamed pieces give the one-thread model', () => {
     await expectSameStreamed(files)
   }, 30_000)
 
+  it('a run of comment lines many slices long, in every piece: the same model, and the lines after it right', async () => {
+    // Each slice of this thread's piece once walked the whole run after it (quadratic in its length).
+    const block = '# solver banner, kept as a comment\n'.repeat(400)
+    const files = writeCsvBundle(boxModel('tet10', box, true)).map((f) => {
+      if (!f.name.endsWith('.csv')) return f
+      const lines = f.text.trimEnd().split('\n')
+      const at = [Math.floor(lines.length / 4), Math.floor(lines.length / 2), lines.length - 1]
+      return { name: f.name, text: lines.map((l, i) => (at.includes(i) ? block + l : l)).join('\n') + '\n' }
+    })
+    await expectSameStreamed(files)
+  }, 30_000)
+
   it('a record longer than a slot: read on one thread instead, the same model', async () => {
     const files = writeCsvBundle(boxModel('hex8', box, true)).map((f) => (f.name === 'stress.csv' ? { name: f.name, text: f.text.replace(/\n(\d+),/, `\n$1${' '.repeat(600)},`) } : f))
     await expectSameStreamed(files, 'stopped')
