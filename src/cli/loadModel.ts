@@ -4,9 +4,10 @@
  * Reader errors name the file by its path on disk.
  */
 import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } from 'node:fs'
+import { readWholeFile } from './readWholeFile.ts'
 import { basename, extname, join } from 'node:path'
 import { InputError, isInputError } from '../model/errors.ts'
-import { MAX_MODEL_BYTES, NATIVE_MAGIC, assertWithinLimit, readCsvBundleInPieces, readModelFiles, readNative } from '../io/index.ts'
+import { NATIVE_MAGIC, assertWithinLimit, readCsvBundleInPieces, readModelFiles, readNative } from '../io/index.ts'
 import type { CsvFile, ReadModel } from '../io/index.ts'
 import { PIECES_MIN_CHARS, startCsvLanes } from './csvLanes.ts'
 
@@ -30,7 +31,7 @@ export function loadModel(path: string): LoadedModel {
   }
   const ext = extname(path).toLowerCase()
   if (ext === NATIVE_EXTENSION) {
-    const buf = readFileSync(path)
+    const buf = withPath(() => readWholeFile(path, basename(path)), path, basename(path))
     // A view on the file's bytes, so the reader can keep zero-copy views into it.
     const bytes = new Uint8Array(buf.buffer, buf.byteOffset, buf.byteLength)
     const model = withPath(() => readNative(bytes, basename(path)), path, basename(path))
@@ -58,8 +59,8 @@ export async function loadModelAsync(path: string): Promise<LoadedModel> {
   const sizes = names.map((n) => statSync(join(path, n)).size)
   // A container among the files: the reader's refusal, as loadModel gives it.
   if (names.some((n, k) => startsWithMagic(join(path, n), sizes[k]))) return loadBundle(path)
-  for (let k = 0; k < names.length; k++) withPath(() => assertWithinLimit(names[k], sizes[k], MAX_MODEL_BYTES), path, null)
-  const files: CsvFile[] = names.map((name, k) => ({ name, size: sizes[k], get bytes() { return readFileSync(join(path, name)) } }))
+  for (let k = 0; k < names.length; k++) withPath(() => assertWithinLimit(names[k], sizes[k]), path, null)
+  const files: CsvFile[] = names.map((name, k) => ({ name, size: sizes[k], get bytes() { return readWholeFile(join(path, name), name) } }))
   const bytes = sizes.reduce((a, b) => a + b, 0)
   // What is read in pieces: the first case's tables, not the other cases' files (read one by one).
   const firstBytes = sizes.reduce((a, b, k) => (OTHER_CASE.test(names[k]) ? a : a + b), 0)
@@ -123,7 +124,7 @@ function loadBundle(dir: string): LoadedModel {
   const names = bundleNames(dir)
   let bytes = 0
   const files = names.map((name) => {
-    const raw = readFileSync(join(dir, name))
+    const raw = withPath(() => readWholeFile(join(dir, name), name), dir, null)
     bytes += raw.byteLength
     return { name, data: raw }
   })

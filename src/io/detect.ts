@@ -9,7 +9,7 @@ import { NATIVE_EXTENSION, isNativeContainer, readNative } from './nativeContain
 import { baseName, readCsvBundle, readCsvBundleInPieces } from './readCsvBundle.ts'
 import type { PieceLane } from './csvPieces.ts'
 import type { CsvBundleOptions, CsvFile } from './readCsvBundle.ts'
-import { MAX_CONTAINER_BYTES, MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
+import { MAX_CONTAINER_BYTES, assertWithinLimit, limitFor } from './sizeGuard.ts'
 
 export interface InputFile {
   readonly name: string
@@ -17,7 +17,7 @@ export interface InputFile {
 }
 
 export interface ReadModelOptions {
-  /** Largest accepted file in bytes (default MAX_CONTAINER_BYTES for a container, MAX_MODEL_BYTES for text). */
+  /** Largest accepted file in bytes (default MAX_CONTAINER_BYTES for a container, else limitFor its name: a JSON or a CSV file's). */
   readonly maxBytes?: number
   /** Model name when the files give none. */
   readonly name?: string
@@ -52,9 +52,8 @@ export async function readModelFilesInPieces(files: readonly InputFile[], option
 /** A container read, or the texts of a CSV bundle and its options, not read yet. */
 function readModelOrBundle(files: readonly InputFile[], options: ReadModelOptions): ReadModel | { readonly texts: CsvFile[]; readonly options: CsvBundleOptions } {
   if (files.length === 0) throw new InputError('missing-file', 'no files given: choose nodes.csv, elements.csv and stress.csv together (and model.json), or one .tractus file')
-  const limit = options.maxBytes ?? MAX_MODEL_BYTES
   const native = files.filter((f) => (typeof f.data === 'string' ? f.data.startsWith(MAGIC_TEXT) : isNativeContainer(bytesOf(f.data))))
-  for (const f of files) assertWithinLimit(f.name, sizeOf(f.data), native.includes(f) ? options.maxBytes ?? MAX_CONTAINER_BYTES : limit)
+  for (const f of files) assertWithinLimit(f.name, sizeOf(f.data), options.maxBytes ?? (native.includes(f) ? MAX_CONTAINER_BYTES : limitFor(f.name)))
   if (native.length > 0) {
     if (files.length > 1) {
       throw new InputError('bad-argument', `give either one ${NATIVE_EXTENSION} container or a CSV bundle, not both; got: ${files.map((f) => f.name).join(', ')}`, { file: native[0].name })
@@ -71,6 +70,6 @@ function readModelOrBundle(files: readonly InputFile[], options: ReadModelOption
   }
   // Bytes as they are: the readers parse UTF-8 bytes (src/io/csvBytes.ts) and check the text they keep.
   const texts: CsvFile[] = files.map((f) => (typeof f.data === 'string' ? { name: f.name, text: f.data } : { name: f.name, bytes: bytesOf(f.data) }))
-  return { texts, options: { maxBytes: limit, name: options.name, ...(options.units ? { units: options.units } : {}) } }
+  return { texts, options: { ...(options.maxBytes !== undefined ? { maxBytes: options.maxBytes } : {}), name: options.name, ...(options.units ? { units: options.units } : {}) } }
 }
 

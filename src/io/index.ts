@@ -12,6 +12,6 @@ export { readNative, writeNative, isNativeContainer, NATIVE_MAGIC, NATIVE_VERSIO
 export type { ReadNativeOptions } from './nativeContainer.ts'
 export { readModelFiles, readModelFilesInPieces } from './detect.ts'
 export type { InputFile, ReadModelOptions } from './detect.ts'
-export { MAX_MODEL_BYTES, assertWithinLimit, checkModelSize } from './sizeGuard.ts'
+export { MAX_CSV_BYTES, MAX_TEXT_BYTES, assertWithinLimit, checkModelSize } from './sizeGuard.ts'
 export { validateModel } from './validateModel.ts'
 export { DEGENERATE_RELATIVE_VOLUME } from './elementOrientation.ts'

@@ -35,7 +35,7 @@ import { elementNodalField } from './elementNodalRows.ts'
 import { partAveragedStress } from '../model/stressField.ts'
 import type { StressField } from '../model/stressField.ts'
 import type { RawElementBlock } from './readElementTable.ts'
-import { MAX_MODEL_BYTES, assertWithinLimit } from './sizeGuard.ts'
+import { assertWithinLimit, limitFor } from './sizeGuard.ts'
 import { sourceBytes, sourceText } from './csvBytes.ts'
 import type { CsvSource } from './csvBytes.ts'
 
@@ -62,7 +62,7 @@ function sizeOfFile(f: CsvFile): number {
 export interface CsvBundleOptions {
   /** Model name when model.json gives none (default "model"). */
   readonly name?: string
-  /** Largest accepted file, in characters (default MAX_MODEL_BYTES). */
+  /** Largest accepted file, in bytes or characters (default limitFor its name: a JSON or a CSV file's). */
   readonly maxBytes?: number
   /**
    * Units the user chose when opening the files (the browser's intake), for those that neither
@@ -198,19 +198,19 @@ interface BundlePlan {
 }
 
 function planBundle(files: readonly CsvFile[], options: CsvBundleOptions): BundlePlan {
-  const limit = options.maxBytes ?? MAX_MODEL_BYTES
+  const limit = (f: CsvFile): number => options.maxBytes ?? limitFor(f.name)
   // model.json first: its "files" say which files are the bundle.
   const jsonFiles = files.filter((f) => baseName(f.name).toLowerCase() === 'model.json')
   // Sizes first (before model.json is parsed), of every file named like a bundle file.
   for (const f of files) {
     const b = baseName(f.name).toLowerCase()
-    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, sizeOfFile(f), limit)
+    if (b === 'model.json' || DEFAULT_NAME.test(b)) assertWithinLimit(f.name, sizeOfFile(f), limit(f))
   }
   const json = jsonFiles.length === 1 ? parseJsonText(jsonFiles[0].name, sourceText(jsonFiles[0])) : null
   const meta = jsonFiles.length === 1 ? readModelMeta(jsonFiles[0].name, json) : null
   const layout = meta ? readBundleLayout(jsonFiles[0].name, json as Record<string, unknown>) : EMPTY_LAYOUT
   const { byRole, ignored, cases } = sortBundleFiles(files, layout)
-  for (const f of byRole.values()) assertWithinLimit(f.name, sizeOfFile(f), limit)
+  for (const f of byRole.values()) assertWithinLimit(f.name, sizeOfFile(f), limit(f))
   const warnings: string[] = ignored.map((n) => `ignored ${n}: not part of a CSV bundle`)
   // --- load cases (caseFiles.ts): the first case's files are read here, the others by readOtherCases ---
   const plan = planCases(byRole, cases, json, jsonFiles.length === 1 ? jsonFiles[0].name : null)

@@ -2,33 +2,46 @@
  * Upper bounds on the size of one model file, so the app refuses a file before reading it, with
  * the file, its size, the limit and what to do instead.
  *
- * - A CSV or JSON file: 2^29 - 24 bytes (just under 512 MiB), the longest string V8 makes (2^29
- *   - 24 UTF-16 units, measured in Chromium and Node 20: one unit more throws "Invalid string
- *   length"; a UTF-8 file never has more units than bytes). A JSON file is parsed from its text,
- *   so the bound is hard for it; a CSV file is parsed from its bytes (src/io/csvBytes.ts), and
- *   for it the bound is the tested size, kept until a larger one is measured in the browser.
- *   The largest file of a 10^7-element tet4 bundle, elements.csv, is about 455 MB.
+ * - A CSV file: 2 GiB. The readers parse its UTF-8 bytes (src/io/csvBytes.ts) and make no text of
+ *   it, so no string length binds it. The engine worker holds the file once (read in slices into
+ *   one buffer, workers/inputFiles.ts), the pieces sent to the pool (a copy of at most the part
+ *   of each table the pool reads, moved there and dropped once read) and the model beside it,
+ *   which is smaller than its CSV text (a number takes 8-15 characters in the file, 4 or 8 bytes
+ *   in the model). Byte positions stay below 2^31, as the readers' 32-bit fields expect.
+ * - A JSON file (model.json): 2^29 - 24 bytes (just under 512 MiB), the longest string V8 makes
+ *   (2^29 - 24 UTF-16 units, measured in Chromium and Node 20: one unit more throws "Invalid
+ *   string length"; a UTF-8 file never has more units than bytes). It is parsed from its text.
  * - A `.tractus` container: 2 GiB. The engine worker holds the file once (its arrays are views
  *   into the file's bytes, read in slices) and the analysis beside it, about 1.2 × the file again
  *   (the command line peaks at 787 MB on the 333 MB container of 10^7 tet4 elements); 2 GiB, about
  *   6 × 10^7 tet4 elements, so needs about 4.5 GiB in the worker, what a browser tab on a 16 GB
  *   machine can hold. Chromium allocates one buffer of up to 4 GiB, but not the analysis beside it.
- * The command line reads files of any size, so a refused file is sent there.
+ * The command line takes the same limits for CSV and JSON files and reads a container up to the
+ * largest buffer Node makes (src/cli/readWholeFile.ts), so a refused container is sent there.
  */
 import { InputError } from '../model/errors.ts'
 
-/** Longest CSV or JSON file, in bytes (the longest string V8 makes). */
+/** Longest JSON file, in bytes (the longest string V8 makes). */
 export const MAX_TEXT_BYTES = 2 ** 29 - 24
+/** Largest CSV file, in bytes. */
+export const MAX_CSV_BYTES = 2 * 1024 ** 3
 /** Largest `.tractus` container, in bytes. */
 export const MAX_CONTAINER_BYTES = 2 * 1024 ** 3
-/** The limit of a text file (the readers that take text check it on characters). */
-export const MAX_MODEL_BYTES = MAX_TEXT_BYTES
 
 const CONTAINER_EXTENSION = '.tractus'
 
-/** The limit for a file of this name: a container's, or a text file's. */
+/** The kind of file a name says: a container, a JSON file (model.json), or else a CSV file. */
+export function fileKindOf(name: string): 'container' | 'json' | 'csv' {
+  const n = name.toLowerCase()
+  if (n.endsWith(CONTAINER_EXTENSION)) return 'container'
+  return n.endsWith('.json') ? 'json' : 'csv'
+}
+
+const LIMIT_OF_KIND = { container: MAX_CONTAINER_BYTES, json: MAX_TEXT_BYTES, csv: MAX_CSV_BYTES } as const
+
+/** The limit for a file of this name: a container's, a JSON file's, or else a CSV file's. */
 export function limitFor(name: string): number {
-  return name.toLowerCase().endsWith(CONTAINER_EXTENSION) ? MAX_CONTAINER_BYTES : MAX_TEXT_BYTES
+  return LIMIT_OF_KIND[fileKindOf(name)]
 }
 
 export function formatBytes(n: number): string {
@@ -38,8 +51,8 @@ export function formatBytes(n: number): string {
   return `${n} bytes`
 }
 
-/** Throws 'too-large' when `size` (bytes, or characters for text) exceeds `limit`. */
-export function assertWithinLimit(file: string, size: number, limit: number = MAX_MODEL_BYTES): void {
+/** Throws 'too-large' when `size` (bytes, or characters for text) exceeds `limit` (by default the limit for the file's kind). */
+export function assertWithinLimit(file: string, size: number, limit: number = limitFor(file)): void {
   if (size > limit) {
     throw new InputError('too-large', `the file is ${formatBytes(size)}, more than the limit of ${formatBytes(limit)}`, { file })
   }
@@ -56,11 +69,17 @@ export function checkModelSize(files: readonly { readonly name: string; readonly
 /** What to do with a file the browser refused as too large (the error card's hint). */
 export function tooLargeHint(file: string | undefined): string {
   const name = file ?? 'the file'
-  if (limitFor(name) === MAX_CONTAINER_BYTES) {
+  const kind = fileKindOf(name)
+  if (kind === 'container') {
     return `The browser opens a ${CONTAINER_EXTENSION} container of up to ${formatBytes(MAX_CONTAINER_BYTES).split(' (')[0]}. ` +
-      `The command line reads it whatever its size: npx tractus audit ${name} (also info, cut, sweep, line).`
+      `The command line reads larger ones (up to the largest buffer of Node.js, 4 GiB in Node.js 20): npx tractus audit ${name} (also info, cut, sweep, line).`
   }
-  return `The browser reads a CSV or JSON file of up to ${formatBytes(MAX_TEXT_BYTES).split(' (')[0]} (the longest text it holds). ` +
-    `Convert the bundle on the command line, npx tractus convert <bundle folder> --out model${CONTAINER_EXTENSION}, and open the container ` +
-    `(up to ${formatBytes(MAX_CONTAINER_BYTES).split(' (')[0]}), or work on the bundle there: npx tractus audit <bundle folder>.`
+  if (kind === 'json') {
+    return `The browser reads a JSON file of up to ${formatBytes(MAX_TEXT_BYTES).split(' (')[0]} (the longest text it holds); ` +
+      'model.json holds only the bundle\'s settings, a few kilobytes: put the tables in CSV files beside it.'
+  }
+  return `The browser and the command line read a CSV file of up to ${formatBytes(MAX_CSV_BYTES).split(' (')[0]}. ` +
+    'Write each load case\'s stress to a file of its own (stress.NAME.csv) or with fewer digits, ' +
+    `or write the model as a ${CONTAINER_EXTENSION} container (its layout is in the README), which the command line reads ` +
+    `beyond the browser's ${formatBytes(MAX_CONTAINER_BYTES).split(' (')[0]}: npx tractus audit model${CONTAINER_EXTENSION}.`
 }

@@ -12,7 +12,7 @@
  * else it wants from the figures.
  */
 import { expect } from 'vitest'
-import { writeFileSync } from 'node:fs'
+import { readFileSync, readdirSync, writeFileSync } from 'node:fs'
 import { colourBox, OUT_DIR, ORIGIN, waitForCut, waitForModel } from './browser.ts'
 import type { Session } from './browser.ts'
 import { HANDLE } from '../../src/scene/sceneLook.ts'
@@ -45,10 +45,35 @@ export interface LargeRunOptions {
   readonly name: string
   /** Elements asked for (the generated block) or expected at least (a file). */
   readonly elements: number
-  /** A model file to open through the file input; absent: the generated block of `elements`. */
-  readonly file?: string
+  /** Model files to open through the file input (a container, or a CSV bundle's files); absent: the generated block of `elements`. */
+  readonly files?: readonly string[]
   /** Longest wait for the load (ms). */
   readonly loadTimeoutMs: number
+}
+
+/**
+ * The browser's resident memory while a model loads: the sum of VmRSS over the Chromium processes
+ * (renderer, its workers and the GPU process), sampled every 100 ms from /proc (Linux); stop()
+ * gives the peak in MB, or null where /proc is not there.
+ */
+function browserMemory(): { stop(): number | null } {
+  const sample = (): number | null => {
+    try {
+      let kb = 0
+      for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+        let status = ''
+        try { status = readFileSync(`/proc/${pid}/status`, 'utf8') } catch { continue }
+        if (!/^Name:\s*(chrom|headless)/m.test(status)) continue
+        kb += Number(/^VmRSS:\s*(\d+)/m.exec(status)?.[1] ?? 0)
+      }
+      return kb / 1024
+    } catch {
+      return null
+    }
+  }
+  let peak = sample()
+  const timer = setInterval(() => { const v = sample(); if (v !== null && peak !== null) peak = Math.max(peak, v) }, 100)
+  return { stop: () => { clearInterval(timer); return peak === null ? null : Math.round(peak) } }
 }
 
 export type LargeFigures = Awaited<ReturnType<typeof runLarge>>
@@ -70,14 +95,15 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   })
   const tracer = process.env.TRACTUS_E2E_TRACE ? await startTrace(page) : null
   const t0 = Date.now()
-  if (o.file) {
+  const memory = browserMemory()
+  if (o.files) {
     // The start page's own model first, then the file, as a user opens one.
     await page.goto(`${ORIGIN}/`)
     await waitForModel(page, 120_000)
     await page.waitForFunction(() => window.__firstPicture !== undefined, undefined, { timeout: 120_000 })
     await page.waitForTimeout(1000)
     await page.evaluate(() => { window.__firstPicture = undefined })
-    await page.setInputFiles('[data-testid="file-input"]', [o.file])
+    await page.setInputFiles('[data-testid="file-input"]', [...o.files])
   } else {
     await page.goto(`${ORIGIN}/#model=block&elements=${o.elements}`)
   }
@@ -88,6 +114,7 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   await page.waitForFunction(() => window.__firstPicture !== undefined, undefined, { timeout: 120_000 })
   const loadEnd = await page.evaluate(() => window.__firstPicture!)
   const loadWallMs = Date.now() - t0
+  const loadPeakRssMb = memory.stop()
   // What follows the first picture (arrows, the pool's end) belongs to the load too.
   await page.waitForTimeout(1500)
   const settledLoad = await page.evaluate(() => performance.now())
@@ -171,13 +198,13 @@ export async function runLarge(s: Session, o: LargeRunOptions) {
   const afterTasks = tasks.filter((t) => t.start > dragEnd && t.start <= settledEnd)
   const figures = {
     elements,
-    source: o.file ? 'file' : 'generated block',
+    source: o.files ? 'file' : 'generated block',
     firstPictureMs: Math.round(loadEnd - loadStart),
     cores,
     patchForces,
     tabPixels,
     load: {
-      wallMs: loadWallMs, engineStagesMs: Object.fromEntries(compute.stagesMs), pool: { workers: compute.workers, sharing: compute.sharing, line: compute.line },
+      wallMs: loadWallMs, peakBrowserRssMb: loadPeakRssMb, engineStagesMs: Object.fromEntries(compute.stagesMs), pool: { workers: compute.workers, sharing: compute.sharing, line: compute.line },
       longTasks: summary(during(loadStart, settledLoad)), longTaskDurationsMs: ms(during(loadStart, settledLoad)),
     },
     startUpLongTaskDurationsMs: ms(tasks.filter((t) => t.start < loadStart)),

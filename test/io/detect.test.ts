@@ -7,7 +7,7 @@ import { InputError } from '../../src/model/errors.ts'
 import { readModelFiles } from '../../src/io/detect.ts'
 import { writeNative } from '../../src/io/nativeContainer.ts'
 import { readCsvBundle } from '../../src/io/readCsvBundle.ts'
-import { MAX_MODEL_BYTES, checkModelSize } from '../../src/io/sizeGuard.ts'
+import { MAX_CSV_BYTES, checkModelSize } from '../../src/io/sizeGuard.ts'
 import { tinyBundle, toFiles } from './tinyBundle.ts'
 
 const enc = new TextEncoder()
@@ -64,7 +64,7 @@ describe('readModelFiles', () => {
     const e = errorOf(() => readModelFiles([{ name: 'huge.tractus', data: native }], { maxBytes: 64 }))
     expect(e.kind).toBe('too-large')
     expect(e.message).toBe(`huge.tractus: the file is ${native.length > 1023 ? `${(native.length / 1024).toFixed(1)} KiB (${native.length} bytes)` : `${native.length} bytes`}, more than the limit of 64 bytes`)
-    const e2 = errorOf(() => checkModelSize([{ name: 'a.csv', size: 10 }, { name: 'b.csv', size: MAX_MODEL_BYTES + 1 }]))
-    expect(e2.message).toBe(`b.csv: the file is 512.0 MiB (${MAX_MODEL_BYTES + 1} bytes), more than the limit of 512.0 MiB (${MAX_MODEL_BYTES} bytes)`)
+    const e2 = errorOf(() => checkModelSize([{ name: 'a.csv', size: 10 }, { name: 'b.csv', size: MAX_CSV_BYTES + 1 }]))
+    expect(e2.message).toBe(`b.csv: the file is 2.00 GiB (${MAX_CSV_BYTES + 1} bytes), more than the limit of 2.00 GiB (${MAX_CSV_BYTES} bytes)`)
   })
 })

@@ -12,7 +12,7 @@ import { readInputFiles, readInSlices } from '../../../workers/inputFiles.ts'
 import { createDigestHold, digestBlob, HOLD_MIN_SLICES, holdDigests } from '../../../workers/blobDigest.ts'
 import { digestsOf } from '../../../workers/inputDigest.ts'
 import { readModelFiles, writeCsvBundle, writeNative } from '../../../src/io/index.ts'
-import { MAX_CONTAINER_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
+import { MAX_CONTAINER_BYTES, MAX_CSV_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
 import { InputError } from '../../../src/model/errors.ts'
 import { boxModel } from '../../io/testModels.ts'
 import { expectSameModel } from '../../io/sameModel.ts'
@@ -88,9 +88,11 @@ describe('reading the user\'s files in slices', () => {
       try { await readInputFiles([{ name: 'nodes.csv', data: new Blob(['id,x,y,z\n']) }, { name, data: new HugeBlob(size) }]) } catch (e) { return e as InputError }
       throw new Error('not refused')
     }
-    const csv = await refusal('elements.csv', MAX_TEXT_BYTES + 1)
+    const csv = await refusal('elements.csv', MAX_CSV_BYTES + 1)
     expect(csv.kind).toBe('too-large')
-    expect(csv.message).toBe(`elements.csv: the file is 512.0 MiB (${MAX_TEXT_BYTES + 1} bytes), more than the limit of 512.0 MiB (${MAX_TEXT_BYTES} bytes)`)
+    expect(csv.message).toBe(`elements.csv: the file is 2.00 GiB (${MAX_CSV_BYTES + 1} bytes), more than the limit of 2.00 GiB (${MAX_CSV_BYTES} bytes)`)
+    const json = await refusal('model.json', MAX_TEXT_BYTES + 1)
+    expect(json.message).toBe(`model.json: the file is 512.0 MiB (${MAX_TEXT_BYTES + 1} bytes), more than the limit of 512.0 MiB (${MAX_TEXT_BYTES} bytes)`)
     const big = await refusal('big.tractus', 3 * 1024 ** 3)
     expect(big.message).toBe(`big.tractus: the file is 3.00 GiB (${3 * 1024 ** 3} bytes), more than the limit of 2.00 GiB (${MAX_CONTAINER_BYTES} bytes)`)
   })
