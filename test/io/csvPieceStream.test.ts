@@ -23,7 +23,7 @@ console.log(`csvPieceStream tests: seed ${SEED}`)
 const usual = { ...streamSizes }
 let one: CsvLanes, two: CsvLanes
 beforeAll(async () => {
-  Object.assign(streamSizes, { slotBytes: 512, ownSlice: 700, countSlice: 300 })
+  Object.assign(streamSizes, { slotBytes: 512, ownSlice: 700 })
   one = startCsvLanes(1)
   two = startCsvLanes(2)
   expect(await one.readyWithin(60_000)).toBe(true)
