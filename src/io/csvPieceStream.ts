@@ -19,9 +19,10 @@
  * - the lanes read the first pieces of the file, this thread the last (MAIN_SHARE of it), all at
  *   once: each piece's rows start at a row set from the sampled row estimates (estimateRecordCount)
  *   of the pieces before it, with a fifth again as room, and a piece after the first counts its
- *   lines from 0. Each piece says how many lines it held; joinPieces then shifts every later
- *   piece's row lines (and its error's line) by the lines before it, and closes up the gaps
- *   between the pieces' rows. So every row and message carries its true line, and no thread
+ *   lines from 1. Each piece says how many lines it held; joinPieces then shifts every later
+ *   piece's row lines (and its error's line) by the lines before it. A lane, once its piece is
+ *   read, moves its rows to the end of its room, next to the next piece's (packRight), while
+ *   this thread still reads; with more than one lane the gaps left are closed up on this thread. So every row and message carries its true line, and no thread
  *   waits for, or makes, a count of another piece's line ends (a pass over the lanes' bytes on
  *   this thread, a tenth of its time, before). The last piece has half its estimate again as
  *   room to the arrays' end: pages never written are never touched, so the room costs address
@@ -84,7 +85,7 @@ export interface StreamSetup {
 
 /** What a piece read: rows written in place, and rows of other element types. */
 export type StreamPieceResult =
-  | { readonly ok: true; readonly placed: number; readonly rest: RawElementBlock[]; readonly line: number }
+  | { readonly ok: true; readonly placed: number; readonly from: number; readonly rest: RawElementBlock[]; readonly line: number }
   | { readonly ok: false; readonly error: PieceError }
 
 /** A lane's answer: per table its piece's result (null where it had none), or `stopped` when it was told to stop or its rows outran their room. */
@@ -121,8 +122,18 @@ class OutOfRoom extends Error {}
 interface PieceReader {
   /** Reads bytes[start, end) (whole records), continuing the piece; the next call starts at `end`. */
   read(bytes: Uint8Array, start: number, end: number): void
-  /** Rows written in place, rows of other element types, and the line the piece ends on (counted from its first). */
-  result(): { placed: number; rest: RawElementBlock[]; line: number }
+  /**
+   * Moves the rows written so far to the end of the piece's room, next to the rows of the piece
+   * after it (a lane does this once its piece is read, while this thread still reads its own).
+   */
+  packRight(): void
+  /** Rows written in place and the row they start at, rows of other element types, and the line the piece ends on (counted from its first). */
+  result(): { placed: number; from: number; rest: RawElementBlock[]; line: number }
+}
+
+/** Moves rows [from, from + n) of each array (`width` numbers a row) `by` rows on. */
+function moveRows(arrays: readonly { readonly a: Int32Array | Float64Array; readonly width: number }[], from: number, n: number, by: number): void {
+  if (by !== 0 && n > 0) for (const { a, width } of arrays) a.copyWithin((from + by) * width, from * width, (from + n) * width)
 }
 
 /** The reader of a piece whose rows start at row `at` of the table's arrays (room for `cap`) and whose bytes start on line `line`. */
@@ -131,7 +142,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
   if (table.kind === 'numeric') {
     const s = table.setup
     const out = (table.out as Extract<StreamOut, { kind: 'numeric' }>).rows
-    let placed = 0
+    let placed = 0, first = at
     return {
       read(bytes, start, stop) {
         const cur = createCursor(s.file, bytes, s.separator, s.decimal)
@@ -146,7 +157,12 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
         placed += r.rows
         line = cur.line - lineEndsIn(bytes, stop, cur.pos)
       },
-      result: () => ({ placed, rest: [], line }),
+      packRight() {
+        const by = end - (at + placed)
+        moveRows([{ a: out.ids, width: 1 }, { a: out.lines, width: 1 }, { a: out.values, width: s.nv }, ...(out.ids2 ? [{ a: out.ids2, width: 1 }] : [])], at, placed, by)
+        first = at + by
+      },
+      result: () => ({ placed, from: first, rest: [], line }),
     }
   }
   const s = table.setup
@@ -155,6 +171,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
   const b = o.block
   const seeded = b ? { nodeIds: b.nodeIds.subarray(at * nn, end * nn), ids: b.ids.subarray(at, end), lines: b.lines.subarray(at, end), part: b.part ? b.part.subarray(at, end) : new Int32Array(0), count: 0 } : null
   const ids = seeded?.ids
+  let first = at
   const grown: Blocks = { byType: [], order: [], estimate: 1024, hasPart: s.cols.hasPart }
   if (seeded) grown.byType[o.type] = seeded
   const lookup: TypeLookup = typeLookup(s.spec.types)
@@ -167,13 +184,19 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
       if (seeded && seeded.ids !== ids) throw new OutOfRoom()
       line = cur.line - lineEndsIn(bytes, stop, cur.pos)
     },
+    packRight() {
+      if (!seeded || !b) return
+      const by = end - (at + seeded.count)
+      moveRows([{ a: b.nodeIds, width: nn }, { a: b.ids, width: 1 }, { a: b.lines, width: 1 }, ...(b.part ? [{ a: b.part, width: 1 }] : [])], at, seeded.count, by)
+      first = at + by
+    },
     result() {
       // Other types' rows, trimmed, in their order of first appearance; model.json's node order is applied after the join.
       const rest = grown.order.filter((t) => t !== o.type || !seeded).map((t) => {
         const g = grown.byType[t]!
         return { type: TYPE_NAMES[t], nodeIds: g.nodeIds.slice(0, g.count * NODE_COUNTS[t]), ids: g.ids.slice(0, g.count), part: s.cols.hasPart ? g.part.slice(0, g.count) : null, lines: g.lines.slice(0, g.count) }
       })
-      return { placed: seeded ? seeded.count : 0, rest, line }
+      return { placed: seeded ? seeded.count : 0, from: first, rest, line }
     },
   }
 }
@@ -231,6 +254,8 @@ function readRing(setup: StreamSetup, ctrl: Int32Array): StreamResult {
     Atomics.store(ctrl, TAIL, n + 1)
     Atomics.notify(ctrl, TAIL)
   }
+  // Each piece's rows next to the next piece's, here and now rather than on the calling thread after.
+  readers.forEach((r, t) => { if (r && !errors[t]) r.packRight() })
   return {
     stopped: false,
     pieces: readers.map((r, t) => (errors[t] ? { ok: false, error: errors[t]! } : r ? { ok: true, ...r.result() } : null)),
@@ -248,7 +273,7 @@ interface Plan {
   readonly rows: number
   /**
    * Per piece the row its rows start at, set from the row estimates (each piece has room for its
-   * own), and the line it starts on: the header's next for the first piece; 0 for the others, whose
+   * own), and the line it starts on: the first row's for the first piece; 1 for the others, whose
    * lines are counted from there and shifted once the pieces before them have said how many
    * lines they hold (joinPieces).
    */
@@ -379,7 +404,7 @@ function planTable(r: TableRequest, P: number): Plan {
   const eol = lineEndOf(bytes, from)
   // Each piece's rows start where the estimates of the pieces before it end, with room, so no
   // piece waits for the line ends of those before it to be counted (a pass over the lanes' bytes
-  // on this thread); the gaps are closed up after the read.
+  // on this thread); the lanes close the gaps (packRight).
   const at = [0]
   for (let k = 0; k < ranges.length - 1; k++) at.push(at[k] + Math.ceil(estimateRecordCount(bytes, ranges[k].start, ranges[k].end) * PIECE_ROOM) + 64)
   const rows = at[ranges.length - 1] + Math.ceil(estimateRecordCount(bytes, ranges[ranges.length - 1].start, bytes.length) * ROOM) + 1024
@@ -395,7 +420,7 @@ function planTable(r: TableRequest, P: number): Plan {
     const block = type >= 0 ? { nodeIds: int(rows * nn), ids: int(rows), lines: int(rows), part: o.setup.cols.hasPart ? int(rows) : null } : null
     table = { kind: 'elements', setup: o.setup, out: { kind: 'elements', type, block } }
   }
-  const line = ranges.map((_, k) => (k === 0 ? open.cur.line : 0))
+  const line = ranges.map((_, k) => (k === 0 ? open.cur.line : 1))
   return { request: r, bytes, ranges, open, table, rows, at, line, eol }
 }
 
@@ -468,23 +493,26 @@ function joinPieces(p: Plan, results: readonly StreamPieceResult[]): NumericTabl
     first += r.line - p.line[k]
   })
   const placed = results.map((r) => (r as Extract<StreamPieceResult, { ok: true }>).placed)
+  const at = results.map((r) => (r as Extract<StreamPieceResult, { ok: true }>).from)
   const shiftLines = (lines: Int32Array, k: number, from: number, n: number) => {
     if (shift[k] !== 0) for (let i = from, e = from + n; i < e; i++) lines[i] += shift[k]
   }
+  // The table's rows start where the first piece's do (a lane moves its rows next to the next
+  // piece's); a gap left (more than one lane) is closed by moving the later rows back.
+  const base = at[0]
   let rows = 0
   const closeUp = (arrays: { a: Int32Array | Float64Array; width: number }[]) => {
     placed.forEach((n, k) => {
-      const from = p.at[k]
-      if (from !== rows) for (const { a, width } of arrays) a.copyWithin(rows * width, from * width, (from + n) * width)
+      moveRows(arrays, at[k], n, base + rows - at[k])
       rows += n
     })
   }
   const out = p.table.out
   if (out.kind === 'numeric') {
     const o = out.rows, nv = (p.open as ReturnType<typeof openNumericTable>).setup.nv
-    placed.forEach((n, k) => shiftLines(o.lines, k, p.at[k], n))
+    placed.forEach((n, k) => shiftLines(o.lines, k, at[k], n))
     closeUp([{ a: o.lines, width: 1 }, { a: o.ids, width: 1 }, { a: o.values, width: nv }, ...(o.ids2 ? [{ a: o.ids2, width: 1 }] : [])])
-    const table: NumericRows = { rows, ids: o.ids.subarray(0, rows), lines: o.lines.subarray(0, rows), values: o.values.subarray(0, rows * nv), ids2: o.ids2 ? o.ids2.subarray(0, rows) : null }
+    const table: NumericRows = { rows, ids: o.ids.subarray(base, base + rows), lines: o.lines.subarray(base, base + rows), values: o.values.subarray(base * nv, (base + rows) * nv), ids2: o.ids2 ? o.ids2.subarray(base, base + rows) : null }
     return finishNumericTable(p.open as ReturnType<typeof openNumericTable>, [table])
   }
   // Elements: the shared block of the first row's type, and the rows of any other types joined per type.
@@ -495,9 +523,9 @@ function joinPieces(p: Plan, results: readonly StreamPieceResult[]): NumericTabl
   const firstLine: number[] = placed.map(() => Infinity)
   if (out.block) {
     const nn = NODE_COUNTS[out.type], b = out.block
-    placed.forEach((n, k) => { shiftLines(b.lines, k, p.at[k], n); if (n) firstLine[k] = b.lines[p.at[k]] })
+    placed.forEach((n, k) => { shiftLines(b.lines, k, at[k], n); if (n) firstLine[k] = b.lines[at[k]] })
     closeUp([{ a: b.lines, width: 1 }, { a: b.ids, width: 1 }, { a: b.nodeIds, width: nn }, ...(b.part ? [{ a: b.part, width: 1 }] : [])])
-    if (rows) shared = { type: TYPE_NAMES[out.type], nodeIds: b.nodeIds.subarray(0, rows * nn), ids: b.ids.subarray(0, rows), lines: b.lines.subarray(0, rows), part: b.part ? b.part.subarray(0, rows) : null }
+    if (rows) shared = { type: TYPE_NAMES[out.type], nodeIds: b.nodeIds.subarray(base * nn, (base + rows) * nn), ids: b.ids.subarray(base, base + rows), lines: b.lines.subarray(base, base + rows), part: b.part ? b.part.subarray(base, base + rows) : null }
   }
   // Blocks in order of first appearance: within a piece by each type's first line, pieces in file order.
   const order: string[] = []
