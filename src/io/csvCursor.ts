@@ -49,6 +49,8 @@ export interface CsvCursor {
   readonly file: string
   /** Byte offset into `bytes`. */
   pos: number
+  /** Byte offset of bytes[0] in the file (a piece read from a copy of its bytes): messages name offsets in the file. */
+  readonly offset: number
   /** 1-based line number of `pos`, counting comment and blank lines. */
   line: number
   /** Status of the last field read (PARSE_*). */
@@ -79,14 +81,15 @@ const longQuotient = longDecimalQuotient
 
 /**
  * A cursor at the start of `bytes` (after a byte order mark). `separator` is ',', ';', '\t' or
- * ' ' (runs of spaces and tabs); `decimal` '.' or ','.
+ * ' ' (runs of spaces and tabs); `decimal` '.' or ','. `offset`: where bytes[0] lies in the file,
+ * for a piece read from a copy of its bytes.
  */
-export function createCursor(file: string, bytes: Uint8Array, separator = ',', decimal = '.'): CsvCursor {
-  // A UTF-8 byte order mark (EF BB BF) at the start: skip it.
-  const pos = bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0
+export function createCursor(file: string, bytes: Uint8Array, separator = ',', decimal = '.', offset = 0): CsvCursor {
+  // A UTF-8 byte order mark (EF BB BF) at the start of the file: skip it.
+  const pos = offset === 0 && bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0
   const sep = separator.charCodeAt(0)
   return {
-    bytes, file, pos, line: 1, status: PARSE_OK, tokStart: pos, tokEnd: pos,
+    bytes, file, pos, offset, line: 1, status: PARSE_OK, tokStart: pos, tokEnd: pos,
     sep, dec: decimal.charCodeAt(0), blank: sep === CH_TAB ? -2 : CH_TAB, runs: sep === CH_SPACE,
   }
 }
@@ -118,7 +121,7 @@ export function nextRecord(cur: CsvCursor, limit: number = cur.bytes.length): bo
       const from = p
       let high = 0
       while (c !== CH_LF && c !== CH_CR && c !== -1) { high |= c; c = ++p < len ? bytes[p] : -1 }
-      if (high >= 0x80) decodeUtf8(cur.file, bytes.subarray(from, p), true, from, cur.line)
+      if (high >= 0x80) decodeUtf8(cur.file, bytes.subarray(from, p), true, cur.offset + from, cur.line)
     }
     if (c === CH_CR) {
       p++
@@ -244,7 +247,7 @@ function skipQuoted(cur: CsvCursor, start: number): void {
  * that are not UTF-8 are an input error naming the line (src/io/csvBytes.ts).
  */
 export function fieldText(cur: CsvCursor): string {
-  const s = decodeUtf8(cur.file, cur.bytes.subarray(cur.tokStart, cur.tokEnd), true, cur.tokStart, cur.line)
+  const s = decodeUtf8(cur.file, cur.bytes.subarray(cur.tokStart, cur.tokEnd), true, cur.offset + cur.tokStart, cur.line)
   if (s.length >= 2 && s.charCodeAt(0) === CH_QUOTE && s.charCodeAt(s.length - 1) === CH_QUOTE) return s.slice(1, -1).replace(/""/g, '"').trim()
   return s
 }
@@ -336,7 +339,7 @@ function readQuotedNumber(cur: CsvCursor, start: number): number {
   if (cur.status !== PARSE_OK) return NaN
   const inner = cur.bytes.subarray(cur.tokStart + 1, cur.tokEnd - 1)
   if (inner.indexOf(CH_QUOTE) >= 0) { cur.status = PARSE_NOT_A_NUMBER; return NaN }
-  const sub: CsvCursor = { bytes: inner, file: cur.file, pos: 0, line: cur.line, status: PARSE_OK, tokStart: 0, tokEnd: 0, sep: -3, dec: cur.dec, blank: CH_TAB, runs: false }
+  const sub: CsvCursor = { bytes: inner, file: cur.file, pos: 0, offset: cur.offset + cur.tokStart + 1, line: cur.line, status: PARSE_OK, tokStart: 0, tokEnd: 0, sep: -3, dec: cur.dec, blank: CH_TAB, runs: false }
   const v = readNumber(sub)
   cur.status = sub.status === PARSE_OK && sub.pos === inner.length ? PARSE_OK : sub.status === PARSE_OK ? PARSE_NOT_A_NUMBER : sub.status
   return v

@@ -32,8 +32,9 @@
  *
  * Ring layout (Int32 control words, then the slots): HEAD chunks published by this thread, TAIL
  * chunks consumed by the lane, STOP set to end early, SLOT_SIZE the bytes of a slot; per slot: table (or END), byte length, and
- * the piece's first row, room and first line. Chunk n uses slot n % SLOTS. Chunks end at record
- * boundaries (recordSplit.ts).
+ * the piece's first row, room and first line, and the chunk's byte offset in the file (for the
+ * offsets messages name). Chunk n uses slot n % SLOTS. Chunks end at record boundaries
+ * (recordSplit.ts).
  */
 import { InputError, isInputError } from '../model/errors.ts'
 import { createCursor, estimateRecordCount, moveCursor } from './csvCursor.ts'
@@ -48,7 +49,7 @@ import type { CsvSource } from './csvBytes.ts'
 
 /** Slots of a lane's ring. */
 export const SLOTS = 16
-const HEAD = 0, TAIL = 1, STOP = 2, SLOT_SIZE = 3, META = 4, META_WORDS = 5
+const HEAD = 0, TAIL = 1, STOP = 2, SLOT_SIZE = 3, META = 4, META_WORDS = 6
 const END = -1
 const CONTROL_BYTES = 4 * (META + META_WORDS * SLOTS)
 /** This thread's share of a table: it also feeds the rings and joins. */
@@ -120,8 +121,8 @@ class OutOfRoom extends Error {}
 
 /** A piece's reader: parses whole-record ranges of bytes in order, rows into the piece's range of the arrays. */
 interface PieceReader {
-  /** Reads bytes[start, end) (whole records), continuing the piece; the next call starts at `end`. */
-  read(bytes: Uint8Array, start: number, end: number): void
+  /** Reads bytes[start, end) (whole records), continuing the piece; the next call starts at `end`. `offset`: where bytes[0] lies in the file. */
+  read(bytes: Uint8Array, start: number, end: number, offset: number): void
   /**
    * Moves the rows written so far to the end of the piece's room, next to the rows of the piece
    * after it (a lane does this once its piece is read, while this thread still reads its own).
@@ -144,8 +145,8 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
     const out = (table.out as Extract<StreamOut, { kind: 'numeric' }>).rows
     let placed = 0, first = at
     return {
-      read(bytes, start, stop) {
-        const cur = createCursor(s.file, bytes, s.separator, s.decimal)
+      read(bytes, start, stop, offset) {
+        const cur = createCursor(s.file, bytes, s.separator, s.decimal, offset)
         moveCursor(cur, start, line)
         const from = at + placed
         const into: NumericRows = {
@@ -176,8 +177,8 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
   if (seeded) grown.byType[o.type] = seeded
   const lookup: TypeLookup = typeLookup(s.spec.types)
   return {
-    read(bytes, start, stop) {
-      const cur = createCursor(s.file, bytes, s.separator, s.decimal)
+    read(bytes, start, stop, offset) {
+      const cur = createCursor(s.file, bytes, s.separator, s.decimal, offset)
       moveCursor(cur, start, line)
       readElementRows(cur, s.cols, s.header, lookup, s.spec, grown, stop)
       // Grown past its room: room() gave the block new arrays.
@@ -244,7 +245,7 @@ function readRing(setup: StreamSetup, ctrl: Int32Array): StreamResult {
       const reader = readers[t] ?? (readers[t] = pieceReader(table, ctrl[m + 2], ctrl[m + 3], ctrl[m + 4]))
       own.set(bytes.subarray(slot * slotBytes, slot * slotBytes + length))
       try {
-        reader.read(own, 0, length)
+        reader.read(own, 0, length, ctrl[m + 5])
       } catch (e) {
         if (e instanceof OutOfRoom) { Atomics.store(ctrl, STOP, 1); return { stopped: true } }
         if (!isInputError(e)) throw e
@@ -338,7 +339,7 @@ export async function readTablesStreamed<F extends CsvSource>(requests: readonly
         const b = a + ownSlice >= end ? end : lastRecordEnd(p.bytes, a, a + ownSlice, p.eol)
         const stop = b > a ? b : end
         try {
-          reader.read(p.bytes, a, stop)
+          reader.read(p.bytes, a, stop, 0)
         } catch (e) {
           if (!isInputError(e)) throw e
           ownErrors[t] = e
@@ -464,6 +465,7 @@ function fillRings(feeds: Feed[], plans: readonly (Plan | null)[]): boolean {
         f.ctrl[m + 2] = plan.at[k]
         f.ctrl[m + 3] = plan.at[k + 1] - plan.at[k]
         f.ctrl[m + 4] = plan.line[k]
+        f.ctrl[m + 5] = a
         f.pos = b
       }
       Atomics.store(f.ctrl, HEAD, f.published + 1)

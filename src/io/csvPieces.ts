@@ -38,7 +38,11 @@ import type { StreamLane } from './csvPieceStream.ts'
 export type PieceJob = (
   | { readonly kind: 'numeric'; readonly setup: NumericPieceSetup }
   | { readonly kind: 'elements'; readonly setup: ElementPieceSetup }
-) & { readonly bytes: Uint8Array; readonly start: number; readonly end: number; readonly line: number }
+) & {
+  readonly bytes: Uint8Array; readonly start: number; readonly end: number; readonly line: number
+  /** Where bytes[0] lies in the file (a copy of the piece's bytes starts at the piece), for messages. */
+  readonly offset: number
+}
 
 /** An input error as plain data (it crosses a thread boundary). */
 export interface PieceError {
@@ -63,8 +67,8 @@ export function readPiece(job: PieceJob): PieceOutcome {
   const { bytes, start, end } = job
   try {
     return job.kind === 'numeric'
-      ? { ok: true, rows: readNumericPiece(job.setup, bytes, start, end, job.line) }
-      : { ok: true, blocks: readElementPiece(job.setup, bytes, start, end, job.line) }
+      ? { ok: true, rows: readNumericPiece(job.setup, bytes, start, end, job.line, job.offset) }
+      : { ok: true, blocks: readElementPiece(job.setup, bytes, start, end, job.line, job.offset) }
   } catch (e) {
     if (!isInputError(e)) throw e
     // The message without the "file, line n: " prefix: InputError writes it again from `where`.
@@ -113,7 +117,7 @@ export async function readTablesInPieces<F extends CsvSource>(requests: readonly
       const pieces = splitAtRecords(bytes, open.cur.pos, open.cur.line, P)
       pieces.forEach((p, k) => {
         // This thread reads its piece in place; a lane gets a copy of its bytes, moved by transfer.
-        const piece = k === 0 ? { bytes, start: p.start, end: p.end } : { bytes: bytes.slice(p.start, p.end), start: 0, end: p.end - p.start }
+        const piece = k === 0 ? { bytes, start: p.start, end: p.end, offset: 0 } : { bytes: bytes.slice(p.start, p.end), start: 0, end: p.end - p.start, offset: p.start }
         const job: PieceJob = r.kind === 'numeric'
           ? { kind: 'numeric', setup: (open as ReturnType<typeof openNumericTable>).setup, ...piece, line: p.line }
           : { kind: 'elements', setup: (open as ReturnType<typeof openElementTable>).setup, ...piece, line: p.line }

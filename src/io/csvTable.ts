@@ -236,8 +236,8 @@ export function openNumericTable(file: string, src: string | Uint8Array, spec: N
  * Reads the rows of one piece of a table, bytes[start, end) (whole lines, starting on line
  * `line`), as readNumericTable reads them. In place: no copy of the piece.
  */
-export function readNumericPiece(setup: NumericPieceSetup, bytes: Uint8Array, start: number, end: number, line: number): NumericRows {
-  const cur = createCursor(setup.file, bytes, setup.separator, setup.decimal)
+export function readNumericPiece(setup: NumericPieceSetup, bytes: Uint8Array, start: number, end: number, line: number, offset = 0): NumericRows {
+  const cur = createCursor(setup.file, bytes, setup.separator, setup.decimal, offset)
   moveCursor(cur, start, line)
   // Untrimmed: the arrays travel back whole (by transfer) and the merge reads `rows` of them.
   return readNumericRows(cur, setup.slotOf, setup.nf, setup.nv, setup.names, setup.twoIds, end)

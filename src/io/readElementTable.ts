@@ -124,8 +124,8 @@ export function openElementTable(file: string, src: string | Uint8Array, spec: E
  * line `line`), in place into blocks, one per type in order of first appearance, nodes in our
  * local order.
  */
-export function readElementPiece(setup: ElementPieceSetup, bytes: Uint8Array, start: number, end: number, line: number): RawElementBlock[] {
-  const cur = createCursor(setup.file, bytes, setup.separator, setup.decimal)
+export function readElementPiece(setup: ElementPieceSetup, bytes: Uint8Array, start: number, end: number, line: number, offset = 0): RawElementBlock[] {
+  const cur = createCursor(setup.file, bytes, setup.separator, setup.decimal, offset)
   moveCursor(cur, start, line)
   const grown: Blocks = { byType: [], order: [], estimate: Math.max(16, estimateRecordCount(bytes, start, end)), hasPart: setup.cols.hasPart }
   readElementRows(cur, setup.cols, setup.header, typeLookup(setup.spec.types), setup.spec, grown, end)

@@ -3,7 +3,7 @@
  * row of a bundle file changed so that the read refuses it, and the refusal caught, to compare a
  * read in pieces with the one-thread read message for message.
  */
-import type { WrittenCsvFile } from '../../src/io/index.ts'
+import type { CsvFile, WrittenCsvFile } from '../../src/io/index.ts'
 import { InputError } from '../../src/model/errors.ts'
 
 /** File, what is wrong, and the change to one of its rows. */
@@ -21,6 +21,26 @@ export function editLine(files: readonly WrittenCsvFile[], name: string, n: numb
     const lines = file.text.split('\n')
     lines[n - 1] = f(lines[n - 1])
     return { name: file.name, text: lines.join('\n') }
+  })
+}
+
+/**
+ * The files with a comment line saved in Latin-1 (the byte E9 for é, not UTF-8) put before line
+ * n of file `name`, which is handed over as bytes: the read must refuse it with its line and the
+ * offset of the bad byte in the file, whichever piece meets it.
+ */
+export function latin1Comment(files: readonly WrittenCsvFile[], name: string, n: number): CsvFile[] {
+  return files.map((file) => {
+    if (file.name !== name) return file
+    const lines = file.text.split('\n')
+    lines.splice(n - 1, 0, '# caf\u00e9')
+    const utf8 = new TextEncoder().encode(lines.join('\n'))
+    const at = utf8.indexOf(0xc3)
+    const bytes = new Uint8Array(utf8.length - 1)
+    bytes.set(utf8.subarray(0, at))
+    bytes[at] = 0xe9
+    bytes.set(utf8.subarray(at + 2), at + 1)
+    return { name: file.name, bytes }
   })
 }
 

@@ -11,7 +11,7 @@ import { readCsvBundle, readCsvBundleInPieces, writeCsvBundle } from '../../src/
 import type { CsvFile } from '../../src/io/index.ts'
 import { canBlock, streamCounts, streamSizes } from '../../src/io/csvPieceStream.ts'
 import { ELEMENT_TYPE_NAMES } from '../../src/model/elementTypes.ts'
-import { BAD_ROWS, editLine, refusal } from './badRows.ts'
+import { BAD_ROWS, editLine, latin1Comment, refusal } from './badRows.ts'
 import { startCsvLanes } from '../../src/cli/csvLanes.ts'
 import type { CsvLanes } from '../../src/cli/csvLanes.ts'
 import { expectSameRead } from './sameModel.ts'
@@ -138,6 +138,23 @@ describe('messages name the line a one-thread read names', () => {
     const split = await refusal(() => readCsvBundleInPieces(files, {}, two.lanes))
     expect(split.message).toBe(plain.message)
     expect(split.where).toEqual(plain.where)
+  }, 30_000)
+
+  it('a comment that is not UTF-8, in each piece: the same line and the same byte offset in the file', async () => {
+    // Past the first 64 KiB, which the dialect's detection decodes whole on this thread.
+    const big = writeCsvBundle(boxModel('tet4', { nx: 14, ny: 14, nz: 14, lx: 1, ly: 1, lz: 1 }, true))
+    const n = big.find((f) => f.name === 'stress.csv')!.text.trimEnd().split('\n').length
+    for (const at of [Math.floor(n / 4), Math.floor(n / 2), n - 2]) {
+      const files = latin1Comment(big, 'stress.csv', at)
+      const plain = await refusal(() => readCsvBundle(files))
+      expect(plain.kind).toBe('encoding')
+      expect(plain.where.line).toBe(at)
+      for (const lanes of [one, two]) {
+        const split = await refusal(() => readCsvBundleInPieces(files, {}, lanes.lanes))
+        expect(split.message).toBe(plain.message)
+        expect(split.where).toEqual(plain.where)
+      }
+    }
   }, 30_000)
 
   it('a node id twice, once in each piece: the message names both lines', async () => {

@@ -13,12 +13,12 @@ import type { PieceLane } from '../../src/io/csvPieces.ts'
 import { LineEndCounter, lineEndsIn, splitAtRecords } from '../../src/io/recordSplit.ts'
 import { elementType } from '../../src/model/elementTypes.ts'
 import type { Model } from '../../src/model/model.ts'
-import { BAD_ROWS, editLine, refusal } from './badRows.ts'
+import { BAD_ROWS, editLine, latin1Comment, refusal } from './badRows.ts'
 import { expectSameModel, expectSameRead } from './sameModel.ts'
 
 /** The splitter works on UTF-8 bytes, as files arrive (these texts are ASCII: positions agree). */
 const enc = (s: string) => new TextEncoder().encode(s)
-import { elementNodalTwin, mixedModel } from './testModels.ts'
+import { boxModel, elementNodalTwin, mixedModel } from './testModels.ts'
 
 const SEED = 20261203
 console.log(`csvPieces property tests: fast-check seed ${SEED}`)
@@ -141,6 +141,22 @@ describe('messages from a later piece name the right line', () => {
     }
     expect(one.where.line).toBe(at)
     expect(one.where.file).toBe(name)
+  })
+
+  it('a comment that is not UTF-8 in a copied piece: the byte offset in the file, not in the copy', async () => {
+    // Past the first 64 KiB, which the dialect's detection decodes whole on this thread.
+    const big = writeCsvBundle(boxModel('tet4', { nx: 14, ny: 14, nz: 14, lx: 1, ly: 1, lz: 1 }, true))
+    const n = big.find((f) => f.name === 'stress.csv')!.text.trimEnd().split('\n').length
+    for (const at of [Math.floor(n / 2), n - 2]) {
+      const files = latin1Comment(big, 'stress.csv', at)
+      const one = await refusal(() => readCsvBundle(files))
+      expect(one.kind).toBe('encoding')
+      for (const k of [1, 2]) {
+        const split = await refusal(() => readCsvBundleInPieces(files, {}, lanes(k)))
+        expect(split.message).toBe(one.message)
+        expect(split.where).toEqual(one.where)
+      }
+    }
   })
 
   it('the first error in file order wins, whichever piece meets it', async () => {
