@@ -4,12 +4,12 @@
  * Reader errors name the file by its path on disk.
  */
 import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } from 'node:fs'
-import { readWholeFile } from './readWholeFile.ts'
 import { basename, extname, join } from 'node:path'
 import { InputError, isInputError } from '../model/errors.ts'
 import { NATIVE_MAGIC, assertWithinLimit, readCsvBundleInPieces, readModelFiles, readNative } from '../io/index.ts'
 import type { CsvFile, ReadModel } from '../io/index.ts'
 import { PIECES_MIN_CHARS, startCsvLanes } from './csvLanes.ts'
+import { readWholeFile } from './readWholeFile.ts'
 
 export const NATIVE_EXTENSION = '.tractus'
 
