@@ -42,7 +42,7 @@ import { finishNumericTable, openNumericTable, readNumericRows } from './csvTabl
 import type { NumericPieceSetup, NumericRows, NumericTable } from './csvTable.ts'
 import { NODE_COUNTS, TYPE_NAMES, concatInt, finishElementTable, openElementTable, permuteNodes, readElementPiece, readElementRows, typeLookup } from './readElementTable.ts'
 import type { Blocks, ElementPieceSetup, ElementTable, RawElementBlock, TypeLookup } from './readElementTable.ts'
-import { lastRecordEnd, lineEndOf, lineEndsIn, recordCuts } from './recordSplit.ts'
+import { lastRecordEnd, lineEndOf, recordCuts } from './recordSplit.ts'
 import type { PieceError, TableOutcome, TableRequest } from './csvPieces.ts'
 import { sourceBytes } from './csvBytes.ts'
 import type { CsvSource } from './csvBytes.ts'
@@ -156,7 +156,8 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
         const r = readNumericRows(cur, s.slotOf, s.nf, s.nv, s.names, s.twoIds, stop, into)
         if (r.ids !== into.ids) throw new OutOfRoom()
         placed += r.rows
-        line = cur.line - lineEndsIn(bytes, stop, cur.pos)
+        // The readers stop at `stop`, a line start (nextRecord's limit): the next slice's line.
+        line = cur.line
       },
       packRight() {
         const by = end - (at + placed)
@@ -183,7 +184,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
       readElementRows(cur, s.cols, s.header, lookup, s.spec, grown, stop)
       // Grown past its room: room() gave the block new arrays.
       if (seeded && seeded.ids !== ids) throw new OutOfRoom()
-      line = cur.line - lineEndsIn(bytes, stop, cur.pos)
+      line = cur.line
     },
     packRight() {
       if (!seeded || !b) return
