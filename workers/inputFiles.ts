@@ -30,32 +30,24 @@ export interface ReadInputs {
 
 /**
  * The whole of `blob`, read `slice` bytes at a time into one buffer; `read(bytes)` after each
- * slice. `shared`: the buffer is a SharedArrayBuffer (a slice is read into a small buffer kept
- * for the next and copied in: a stream reader cannot fill shared memory), so a container's
- * arrays, views into it, go to the pool without the copy into shared memory a load otherwise
- * makes (about 1.1 s at 10^7 tet4 in the browser).
+ * slice. Each slice is read into a small buffer, kept for the next, and copied to its place: a
+ * stream reader moves the buffer it fills, and a read that stalls (blobBytes.ts) keeps it, so the
+ * bytes already in place are never handed to the reader. `shared`: the buffer is a
+ * SharedArrayBuffer, so a container's arrays, views into it, go to the pool without the copy into
+ * shared memory a load otherwise makes (about 1.1 s at 10^7 tet4 in the browser).
  */
 export async function readInSlices(blob: Blob, read: (bytes: number) => void, slice = SLICE_BYTES, shared = false): Promise<Uint8Array<ArrayBuffer | SharedArrayBuffer>> {
   const next = sliceReader(blob)
-  if (shared) {
-    const out = new Uint8Array(new SharedArrayBuffer(blob.size))
-    let scratch = new ArrayBuffer(Math.max(1, Math.min(slice, blob.size)))
-    for (let at = 0; at < blob.size; at += slice) {
-      const n = Math.min(slice, blob.size - at)
-      const view = await next(new Uint8Array(scratch, 0, n))
-      out.set(view, at)
-      scratch = view.buffer
-      read(n)
-    }
-    return out
-  }
-  let buf = new ArrayBuffer(blob.size)
+  const out = new Uint8Array(shared ? new SharedArrayBuffer(blob.size) : new ArrayBuffer(blob.size))
+  let scratch = new ArrayBuffer(Math.max(1, Math.min(slice, blob.size)))
   for (let at = 0; at < blob.size; at += slice) {
     const n = Math.min(slice, blob.size - at)
-    buf = (await next(new Uint8Array(buf, at, n))).buffer
+    const view = await next(new Uint8Array(scratch, 0, n))
+    out.set(view, at)
+    scratch = view.buffer
     read(n)
   }
-  return new Uint8Array(buf)
+  return out
 }
 
 /** The part of a core the digests take once they start after the gate (the app is in use then). */

@@ -113,7 +113,7 @@ describe('large files', () => {
       await page.waitForFunction((demo) => {
         const name = document.querySelector('[data-testid="model-name"]')?.textContent ?? ''
         return name !== demo && !document.querySelector('[data-testid="progress"]')
-      }, demo, { timeout: 240_000 })
+      }, demo, { timeout: 75_000 })
       expect(await page.$('[data-testid="error-card"]')).toBeNull()
       expect(await page.textContent('.counts')).toContain(`${model.mesh.elementCount.toLocaleString('en-US')} elements`)
       await page.close()
@@ -125,7 +125,7 @@ describe('large files', () => {
       const page2 = await newPage(s)
       await waitForModel(page2)
       await page2.setInputFiles('[data-testid="file-input"]', [bad.path, ...others])
-      await page2.waitForSelector('[data-testid="error-card"]', { timeout: 240_000 })
+      await page2.waitForSelector('[data-testid="error-card"]', { timeout: 75_000 })
       const card = (await page2.textContent('[data-testid="error-card"]'))!
       expect(card).toContain(`nodes.csv, line ${bad.lastLine}`)
       await page2.close()

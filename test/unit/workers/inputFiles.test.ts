@@ -6,11 +6,12 @@
  * Blob (its byte stream into the caller's buffer, or slices) and the incremental digest give the
  * same bytes and Node's SHA-256.
  */
-import { describe, expect, it } from 'vitest'
+import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { createHash } from 'node:crypto'
 import { readInputFiles, readInSlices } from '../../../workers/inputFiles.ts'
 import { createDigestHold, digestBlob, HOLD_MIN_SLICES, holdDigests } from '../../../workers/blobDigest.ts'
 import { digestsOf } from '../../../workers/inputDigest.ts'
+import { readStall } from '../../../workers/blobBytes.ts'
 import { readModelFiles, writeCsvBundle, writeNative } from '../../../src/io/index.ts'
 import { MAX_CONTAINER_BYTES, MAX_CSV_BYTES, MAX_TEXT_BYTES } from '../../../src/io/sizeGuard.ts'
 import { InputError } from '../../../src/model/errors.ts'
@@ -148,6 +149,65 @@ describe('reading a Blob by its byte stream or by slices, and its digest', () =>
   it('a file shorter than its stated size is a clear error naming it, not a model of zeros', async () => {
     const err = await readInputFiles([{ name: 'cut.tractus', data: new ShortBlob([data]) }]).then(() => null, (e: unknown) => e as InputError)
     expect(err?.message).toMatch(/^cut\.tractus: the file could not be read whole \(the file ended before its stated size/)
+  })
+})
+
+/**
+ * A Blob whose byte stream gives its first `before` bytes and then nothing, ever (as headless
+ * Chromium's stream of a file once did), or with no stream (`slices`) whose first slice never
+ * comes. `always`: every fresh start stalls too (a drive gone away).
+ */
+class StallingBlob extends Blob {
+  private slicedOnce = false
+  constructor(parts: BlobPart[], private readonly before: number, private readonly always = false, private readonly way: 'stream' | 'slices' = 'stream') { super(parts) }
+  override stream(): ReadableStream<Uint8Array<ArrayBuffer>> {
+    if (this.way === 'slices') return new ReadableStream()
+    let sent = false
+    const head = this.before > 0 ? Blob.prototype.slice.call(this, 0, this.before) : null
+    return new ReadableStream({
+      type: 'bytes',
+      async pull(c) {
+        if (sent || !head) return new Promise<void>(() => undefined)
+        sent = true
+        c.enqueue(new Uint8Array(await head.arrayBuffer()))
+      },
+    }) as ReadableStream<Uint8Array<ArrayBuffer>>
+  }
+  override slice(start?: number, end?: number): Blob {
+    const part = super.slice(start, end)
+    if (this.way === 'stream') return this.always ? new StallingBlob([part], 0, true) : part
+    if (this.always || !this.slicedOnce) { this.slicedOnce = true; return new NeverBlob([part]) }
+    return part
+  }
+}
+
+/** A Blob whose bytes never come by arrayBuffer(). */
+class NeverBlob extends Blob {
+  override arrayBuffer(): Promise<ArrayBuffer> { return new Promise(() => undefined) }
+}
+
+describe('a read that stalls', () => {
+  const data = Uint8Array.from({ length: 10_007 }, (_, i) => (i * 131) % 253)
+  const saved = { ...readStall }
+  beforeEach(() => { readStall.ms = 30; readStall.restarts = 3 })
+  afterEach(() => { Object.assign(readStall, saved) })
+
+  it('is read again from its slice\'s first byte: the same bytes and SHA-256 (Node\'s crypto, FIPS 180-4), by stream or by slices', async () => {
+    for (const before of [0, 3000]) {
+      for (const slice of [1000, 1 << 20]) {
+        expect(Array.from(await readInSlices(new StallingBlob([data], before), () => undefined, slice)), `stream, stall after ${before} bytes`).toEqual(Array.from(data))
+        expect(await digestBlob(new StallingBlob([data], before), slice)).toBe(sha256(data))
+      }
+    }
+    expect(Array.from(await readInSlices(new StallingBlob([data], 0, false, 'slices'), () => undefined, 1000)), 'by slices').toEqual(Array.from(data))
+  })
+
+  it('again and again fails after readStall.restarts fresh starts, naming the file and the byte, and saying what to do', async () => {
+    for (const way of ['stream', 'slices'] as const) {
+      const err = await readInputFiles([{ name: 'nodes.csv', data: new StallingBlob([data], 3000, true, way) }], undefined, 1000).then(() => null, (e: unknown) => e as InputError)
+      expect(err).toBeInstanceOf(InputError)
+      expect(err!.message).toMatch(/^nodes\.csv: the file could not be read whole \(no bytes came for 0\.03 s, 4 times, at byte \d+ of 10007: is the file on a drive that went away\?\); choose it again$/)
+    }
   })
 })
 
