@@ -77,8 +77,8 @@ function elementBalance(out: ElementBalance, mesh: Mesh, field: StressField, bod
   const x = mesh.coords
   const tables = faceQuadratureTables()
   const xs = new Float64Array(3 * 8), ss = new Float64Array(6 * 8), qp = createFacePoints(tables)
-  // Imported names once into locals: under the CommonJS transform of tsx (the command line, the
-  // benchmarks) every use of an imported binding is a getter call, several per face otherwise.
+  // Imported names once into locals: where tsx compiles the modules to CommonJS (a script run
+  // from outside the project, DEVELOPERS.md) every use of an imported binding is a getter call.
   const points = faceQuadraturePoints, SIZE = FQP_SIZE, AREA = FQP_AREA, STRESS = FQP_STRESS, straightTet10 = isStraightTet10
   const six = sixTetVolume, byRule = elementByRule
   // curved tet10 in the closed-form path: their volume by the type's rule, one at a time

@@ -40,7 +40,7 @@ import { barycentric, MAX_SECTION_RULE_DEGREE } from './sectionRule.ts'
 import { trilinearMonomials } from './trilinearMonomials.ts'
 
 // The accumulator slots as module constants: an imported binding read in a per-element function
-// is a getter call under tsx's CommonJS transform (the command line, the benchmarks).
+// is a getter call where tsx compiles the modules to CommonJS (a script run from outside the project).
 const FORCE = ACC_FORCE, AT = ACC_AT, BT = ACC_BT, GROSS = ACC_GROSS
 const monomials = trilinearMonomials, invert = invertElementMap, invertHex = invertTrilinearPoints
 /** The hex8 traction's monomial coefficients T_0..T_7 of the element in hand (3 each). */

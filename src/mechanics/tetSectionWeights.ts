@@ -29,7 +29,7 @@ import {
 } from './sectionPolygon.ts'
 
 // The slots as module constants: an imported binding read in a per-element function is a getter
-// call under tsx's CommonJS transform (the command line, the benchmarks).
+// call where tsx compiles the modules to CommonJS (a script run from outside the project).
 const AREA = ACC_AREA, SA = ACC_SA, SB = ACC_SB, SAA = ACC_SAA, SBB = ACC_SBB, SAB = ACC_SAB, CUT = ACC_CUT
 const ORIGIN = ACC_ORIGIN, ORIGIN_SET = ACC_ORIGIN_SET, STRIDE = CASE_STRIDE
 

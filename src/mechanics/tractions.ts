@@ -76,8 +76,8 @@ export function computeSurfaceTractions(out: SurfaceTractions, mesh: Mesh, stres
   const { nodeNormal, nodeTraction, nodeNormalTraction, nodeShear, nodeMagnitude, force, moment, meanNormal, meanShear, meanMagnitude } = out
 
   const nodeTabs = faceNodeTables(), quadTabs = faceQuadratureTables()
-  // Imported names once into locals: under the CommonJS transform of tsx (the command line, the
-  // benchmarks) every use of an imported binding is a getter call, several per face otherwise.
+  // Imported names once into locals: where tsx compiles the modules to CommonJS (a script run
+  // from outside the project, DEVELOPERS.md) every use of an imported binding is a getter call.
   const points = faceQuadraturePoints, X = FQP_X, AREA = FQP_AREA, STRESS = FQP_STRESS, SIZE = FQP_SIZE, SLOTS = FACE_SLOTS
   const xs = new Float64Array(3 * S), ss = new Float64Array(6 * S)
   const qp = createFacePoints(quadTabs), np = createFacePoints(nodeTabs)
