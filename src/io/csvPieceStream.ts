@@ -22,9 +22,10 @@
  *   lines from 1. Each piece says how many lines it held; joinPieces then shifts every later
  *   piece's row lines (and its error's line) by the lines before it. A lane, once its piece is
  *   read, moves its rows to the end of its room, next to the next piece's (packRight), while
- *   this thread still reads; with more than one lane the gaps left are closed up on this thread. So every row and message carries its true line, and no thread
- *   waits for, or makes, a count of another piece's line ends (a pass over the lanes' bytes on
- *   this thread, a tenth of its time, before). The last piece has half its estimate again as
+ *   this thread still reads; with more than one lane the gaps left are closed up on this thread.
+ *   So every row and message carries its true line, and no thread waits for, or makes, a count
+ *   of another piece's line ends (a pass over the lanes' bytes on this thread, a tenth of its
+ *   time, before). The last piece has half its estimate again as
  *   room to the arrays' end: pages never written are never touched, so the room costs address
  *   space only.
  * A table whose rows outrun the arrays, a record longer than a slot, or a lane that stalls or
@@ -132,8 +133,21 @@ interface PieceReader {
   result(): { placed: number; from: number; rest: RawElementBlock[]; line: number }
 }
 
+/** A table's arrays with the numbers each holds a row, as moveRows takes them. */
+type RowArrays = readonly { readonly a: Int32Array | Float64Array; readonly width: number }[]
+
+/** The arrays of numeric rows (`nv` values a row). */
+function numericArrays(o: NumericRows, nv: number): RowArrays {
+  return [{ a: o.ids, width: 1 }, { a: o.lines, width: 1 }, { a: o.values, width: nv }, ...(o.ids2 ? [{ a: o.ids2, width: 1 }] : [])]
+}
+
+/** The arrays of an element block of `nn` nodes an element. */
+function blockArrays(b: { readonly nodeIds: Int32Array; readonly ids: Int32Array; readonly lines: Int32Array; readonly part: Int32Array | null }, nn: number): RowArrays {
+  return [{ a: b.nodeIds, width: nn }, { a: b.ids, width: 1 }, { a: b.lines, width: 1 }, ...(b.part ? [{ a: b.part, width: 1 }] : [])]
+}
+
 /** Moves rows [from, from + n) of each array (`width` numbers a row) `by` rows on. */
-function moveRows(arrays: readonly { readonly a: Int32Array | Float64Array; readonly width: number }[], from: number, n: number, by: number): void {
+function moveRows(arrays: RowArrays, from: number, n: number, by: number): void {
   if (by !== 0 && n > 0) for (const { a, width } of arrays) a.copyWithin((from + by) * width, from * width, (from + n) * width)
 }
 
@@ -161,7 +175,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
       },
       packRight() {
         const by = end - (at + placed)
-        moveRows([{ a: out.ids, width: 1 }, { a: out.lines, width: 1 }, { a: out.values, width: s.nv }, ...(out.ids2 ? [{ a: out.ids2, width: 1 }] : [])], at, placed, by)
+        moveRows(numericArrays(out, s.nv), at, placed, by)
         first = at + by
       },
       result: () => ({ placed, from: first, rest: [], line }),
@@ -189,7 +203,7 @@ function pieceReader(table: StreamTable, at: number, cap: number, line: number):
     packRight() {
       if (!seeded || !b) return
       const by = end - (at + seeded.count)
-      moveRows([{ a: b.nodeIds, width: nn }, { a: b.ids, width: 1 }, { a: b.lines, width: 1 }, ...(b.part ? [{ a: b.part, width: 1 }] : [])], at, seeded.count, by)
+      moveRows(blockArrays(b, nn), at, seeded.count, by)
       first = at + by
     },
     result() {
@@ -504,7 +518,7 @@ function joinPieces(p: Plan, results: readonly StreamPieceResult[]): NumericTabl
   // piece's); a gap left (more than one lane) is closed by moving the later rows back.
   const base = at[0]
   let rows = 0
-  const closeUp = (arrays: { a: Int32Array | Float64Array; width: number }[]) => {
+  const closeUp = (arrays: RowArrays) => {
     placed.forEach((n, k) => {
       moveRows(arrays, at[k], n, base + rows - at[k])
       rows += n
@@ -514,7 +528,7 @@ function joinPieces(p: Plan, results: readonly StreamPieceResult[]): NumericTabl
   if (out.kind === 'numeric') {
     const o = out.rows, nv = (p.open as ReturnType<typeof openNumericTable>).setup.nv
     placed.forEach((n, k) => shiftLines(o.lines, k, at[k], n))
-    closeUp([{ a: o.lines, width: 1 }, { a: o.ids, width: 1 }, { a: o.values, width: nv }, ...(o.ids2 ? [{ a: o.ids2, width: 1 }] : [])])
+    closeUp(numericArrays(o, nv))
     const table: NumericRows = { rows, ids: o.ids.subarray(base, base + rows), lines: o.lines.subarray(base, base + rows), values: o.values.subarray(base * nv, (base + rows) * nv), ids2: o.ids2 ? o.ids2.subarray(base, base + rows) : null }
     return finishNumericTable(p.open as ReturnType<typeof openNumericTable>, [table])
   }
@@ -527,7 +541,7 @@ function joinPieces(p: Plan, results: readonly StreamPieceResult[]): NumericTabl
   if (out.block) {
     const nn = NODE_COUNTS[out.type], b = out.block
     placed.forEach((n, k) => { shiftLines(b.lines, k, at[k], n); if (n) firstLine[k] = b.lines[at[k]] })
-    closeUp([{ a: b.lines, width: 1 }, { a: b.ids, width: 1 }, { a: b.nodeIds, width: nn }, ...(b.part ? [{ a: b.part, width: 1 }] : [])])
+    closeUp(blockArrays(b, nn))
     if (rows) shared = { type: TYPE_NAMES[out.type], nodeIds: b.nodeIds.subarray(base * nn, (base + rows) * nn), ids: b.ids.subarray(base, base + rows), lines: b.lines.subarray(base, base + rows), part: b.part ? b.part.subarray(base, base + rows) : null }
   }
   // Blocks in order of first appearance: within a piece by each type's first line, pieces in file order.

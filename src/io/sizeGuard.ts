@@ -66,20 +66,25 @@ export function checkModelSize(files: readonly { readonly name: string; readonly
   for (const f of files) assertWithinLimit(f.name, f.size, limit ?? limitFor(f.name))
 }
 
+/** A size as formatBytes rounds it, without the exact count ("2.00 GiB"). */
+function roundBytes(n: number): string {
+  return formatBytes(n).split(' (')[0]
+}
+
 /** What to do with a file the browser refused as too large (the error card's hint). */
 export function tooLargeHint(file: string | undefined): string {
   const name = file ?? 'the file'
   const kind = fileKindOf(name)
   if (kind === 'container') {
-    return `The browser opens a ${CONTAINER_EXTENSION} container of up to ${formatBytes(MAX_CONTAINER_BYTES).split(' (')[0]}. ` +
+    return `The browser opens a ${CONTAINER_EXTENSION} container of up to ${roundBytes(MAX_CONTAINER_BYTES)}. ` +
       `The command line reads larger ones (up to the largest buffer of Node.js, 4 GiB in Node.js 20): npx tractus audit ${name} (also info, cut, sweep, line).`
   }
   if (kind === 'json') {
-    return `The browser reads a JSON file of up to ${formatBytes(MAX_TEXT_BYTES).split(' (')[0]} (the longest text it holds); ` +
+    return `The browser reads a JSON file of up to ${roundBytes(MAX_TEXT_BYTES)} (the longest text it holds); ` +
       'model.json holds only the bundle\'s settings, a few kilobytes: put the tables in CSV files beside it.'
   }
-  return `The browser and the command line read a CSV file of up to ${formatBytes(MAX_CSV_BYTES).split(' (')[0]}. ` +
+  return `The browser and the command line read a CSV file of up to ${roundBytes(MAX_CSV_BYTES)}. ` +
     'Write each load case\'s stress to a file of its own (stress.NAME.csv) or with fewer digits, ' +
     `or write the model as a ${CONTAINER_EXTENSION} container (its layout is in the README), which the command line reads ` +
-    `beyond the browser's ${formatBytes(MAX_CONTAINER_BYTES).split(' (')[0]}: npx tractus audit model${CONTAINER_EXTENSION}.`
+    `beyond the browser's ${roundBytes(MAX_CONTAINER_BYTES)}: npx tractus audit model${CONTAINER_EXTENSION}.`
 }

@@ -9,7 +9,8 @@ import type { Model } from '../model/model.ts'
 import { DEFAULT_CASE, sameCaseName } from '../model/loadCases.ts'
 import { partsJson } from './nativeContainer.ts'
 
-function num(v: number): string {
+/** A number as the bundle writes it: the shortest form that round-trips, -0 as "-0". */
+export function csvNumber(v: number): string {
   return v === 0 && 1 / v < 0 ? '-0' : String(v)
 }
 
@@ -17,7 +18,7 @@ function table(header: string, rows: number, width: number, ids: Int32Array, val
   const out: string[] = [header]
   for (let r = 0; r < rows; r++) {
     let line = String(ids[r])
-    for (let k = 0; k < width; k++) line += ',' + num(values[r * width + k])
+    for (let k = 0; k < width; k++) line += ',' + csvNumber(values[r * width + k])
     out.push(line)
   }
   return out.join('\n') + '\n'
@@ -40,7 +41,7 @@ function elementNodalTable(model: Model): string {
     const rows = field.rows[k]
     for (let i = 0; i < b.conn.length; i++) {
       let line = `${b.ids[(i / nn) | 0]},${mesh.nodeIds[b.conn[i]]}`
-      for (let c = 0; c < 6; c++) line += ',' + num(v[6 * rows[i] + c])
+      for (let c = 0; c < 6; c++) line += ',' + csvNumber(v[6 * rows[i] + c])
       out.push(line)
     }
   })

@@ -26,6 +26,7 @@ import { runLarge } from './largeRun.ts'
 import type { LargeFigures } from './largeRun.ts'
 import { syntheticModel } from '../bench/syntheticModel.ts'
 import { writeCsvBundle, writeNative } from '../../src/io/index.ts'
+import { csvNumber as num } from '../../src/io/writeCsvBundle.ts'
 import { MAX_CSV_BYTES } from '../../src/io/sizeGuard.ts'
 import type { Model } from '../../src/model/model.ts'
 
@@ -42,7 +43,6 @@ function writeElementNodalStress(path: string, model: Model): void {
   const fd = openSync(path, 'w')
   try {
     const { mesh } = model, v = model.stress
-    const num = (x: number): string => (x === 0 && 1 / x < 0 ? '-0' : String(x))
     let text = 'element,node,sxx,syy,szz,sxy,syz,sxz\n'
     for (const b of mesh.blocks) {
       const nn = b.conn.length / b.ids.length
