@@ -36,7 +36,7 @@ import { streamBytes, streamConnCoords, streamConnCoordsStress, streamEachByte }
 import { asDiskFiles, bytesOfFiles } from './diskFiles.ts'
 import { baselineBoundary } from './baseline/boundaryBaseline.ts'
 import { baselineCut } from './baseline/cutBaseline.ts'
-import { growthExponent, measure } from './timing.ts'
+import { growthExponent, measure, measureTogether } from './timing.ts'
 import { benchLines } from './lines.ts'
 import { benchLoadCases, loadCaseLines } from './loadCases.ts'
 import { detectAll } from './dialectDetection.ts'
@@ -171,12 +171,17 @@ function benchModel(model: Model, o: BenchOptions, label: string): ModelFigures 
   }
 
   log(`${label}: balance audit`)
-  const audit = measure(() => ({ elements: computeElementBalance(allocateElementBalance(E, 'single'), mesh, field, bodyForce), body: computeBodyBalance(mesh, faces, tractions, bodyForce) }), warm(3))
-  const elementBalance = measure(() => computeElementBalance(allocateElementBalance(E, 'single'), mesh, field, bodyForce), warm(1))
-  const streamCCS = measure(() => streamConnCoordsStress(mesh, stress), streamRuns)
-  checks.bodyBalanceRelative = audit.value.body.relative
+  // the audit, the element balance alone and their streaming pass in turns (measureTogether)
+  const auditRun = () => ({ elements: computeElementBalance(allocateElementBalance(E, 'single'), mesh, field, bodyForce), body: computeBodyBalance(mesh, faces, tractions, bodyForce) })
+  const [audit, elementBalance, streamCCS] = measureTogether([
+    auditRun,
+    () => computeElementBalance(allocateElementBalance(E, 'single'), mesh, field, bodyForce),
+    () => streamConnCoordsStress(mesh, stress),
+  ], { rounds: large ? 3 : runsFor(E, 7), warmup: large ? 1 : 3, warmupMs: large ? 0 : o.quick ? 300 : 1000 })
+  const auditValue = audit.value as ReturnType<typeof auditRun>
+  checks.bodyBalanceRelative = auditValue.body.relative
   let maxIndicator = 0
-  for (let i = 0; i < E; i++) if (audit.value.elements.indicator[i] > maxIndicator) maxIndicator = audit.value.elements.indicator[i]
+  for (let i = 0; i < E; i++) if (auditValue.elements.indicator[i] > maxIndicator) maxIndicator = auditValue.elements.indicator[i]
   checks.elementIndicatorMax = maxIndicator
 
   log(`${label}: load-entry patches`)
@@ -186,16 +191,19 @@ function benchModel(model: Model, o: BenchOptions, label: string): ModelFigures 
   const patches = measure(() => findLoadPatches(mesh, faces, tractions, vonMises), warm(3))
   checks.loadPatches = patches.value.patches.length
 
-  log(`${label}: section cut`)
-  const cutRuns = large ? { runs: 5, warmup: 3, warmupMs: 0 } : { runs: runsFor(E, 11), warmup: 15 }
-  const cut = measure(() => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false }), cutRuns)
-  const r = cut.value.result
+  // the cut, the same cut split into regions (assemblies: sectionRegions.ts) and their streaming
+  // pass in turns (measureTogether)
+  log(`${label}: section cut, plain and with regions`)
+  const cutRun = () => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false })
+  const [cut, cutRegions, streamCut] = measureTogether([
+    cutRun,
+    () => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false, regions: true }),
+    () => streamConnCoords(mesh),
+  ], large ? { rounds: 5, warmup: 3, warmupMs: 0 } : { rounds: runsFor(E, 11), warmup: 15 })
+  const r = (cut.value as ReturnType<typeof cutRun>).result
   checks.cutElements = r.cutElements
   checks.cutFreeBodyRelative = r.freeBody.relative
-  // assemblies: the same cut split into regions (sectionRegions.ts), right after the plain one
-  log(`${label}: section cut with regions`)
-  const cutRegions = measure(() => cutSection(mesh, field, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false, regions: true }), cutRuns)
-  checks.cutRegions = cutRegions.value.result.regions!.length
+  checks.cutRegions = (cutRegions.value as ReturnType<typeof cutRun>).result.regions!.length
   checks.cutUnmappedPoints = r.unmappedPoints
   let cutBaseline: Timing<unknown> | null = null
   if (o.baselines) {
@@ -213,9 +221,9 @@ function benchModel(model: Model, o: BenchOptions, label: string): ModelFigures 
     // The files' bytes, as the command line and the browser read them (src/io/csvBytes.ts).
     const files = asDiskFiles(writeCsvBundle(model))
     csvBytes = bytesOfFiles(files)
-    // tet10 and hex8 at full size: one warm-up and one timed read (a few seconds each); tet4: three
-    const one = !o.quick && type !== 'tet4' && E >= 5e5
-    const csv = measure(() => readCsvBundle(files), { runs: one ? 1 : runsFor(E, 3), minRuns: one || o.quick ? 1 : minRuns, warmup: 1, warmupMs: 0 })
+    // one warm-up and three timed reads (1–2 s each for tet10 and hex8: one read alone was at the
+    // mercy of a busy spell on a shared machine)
+    const csv = measure(() => readCsvBundle(files), { runs: runsFor(E, 3), minRuns: o.quick ? 1 : minRuns, warmup: 1, warmupMs: 0, budgetMs: Infinity })
     const streamCsv = measure(() => streamEachByte(files.map((f) => f.bytes!)), { runs: runsFor(E, 3) })
     checks.csvRoundTripCoords = sameArray(csv.value.mesh.coords, mesh.coords)
     checks.csvRoundTripStress = sameArray(csv.value.stress, stress)
@@ -241,8 +249,8 @@ function benchModel(model: Model, o: BenchOptions, label: string): ModelFigures 
     audit: figure(audit, streamCCS, null),
     elementBalance: figure(elementBalance, streamCCS, null),
     patches: figure(patches, streamCC, null),
-    cut: figure(cut, streamCC, cutBaseline),
-    cutRegions: figure(cutRegions, streamCC, null),
+    cut: figure(cut, streamCut, cutBaseline),
+    cutRegions: figure(cutRegions, streamCut, null),
     readCsv,
     readNative: { ...figure(native, streamNative, null), mbPerS: bytes.byteLength / 1e6 / (native.medianMs / 1000) },
   }
@@ -329,7 +337,7 @@ for (const type of TYPES) {
   models[type] = benchModel(model, { baselines: false, csv: true, quick: false }, `${type} ${model.mesh.elementCount}`)
   if (csvLanes.up) {
     log(`${type}: CSV read in pieces`)
-    models[type].kernels.readCsvParallel = await benchCsvParallel(model, csvLanes.lanes, type === 'tet4' ? 3 : 1)
+    models[type].kernels.readCsvParallel = await benchCsvParallel(model, csvLanes.lanes, 3)
   }
   runs.push(models[type])
   log(`section cut per type: ${type}`)

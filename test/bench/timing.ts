@@ -72,6 +72,38 @@ export function measure<T>(fn: () => T, options: MeasureOptions | number = {}, l
   return { medianMs: median(samplesMs), cpuMs: median(cpu), samplesMs, firstMs, value }
 }
 
+/**
+ * Several functions timed in turns: each is warmed up as by `measure`, then every round times
+ * each once, in order, with a garbage collection before each. A kernel and its streaming
+ * yardstick timed this way see the same machine: on a shared one, a busy spell lands on both
+ * instead of on one of them, so their ratio holds still where separate timings drift apart.
+ */
+export function measureTogether(fns: readonly (() => unknown)[], options: { rounds: number; warmup?: number; warmupMs?: number }): Timing<unknown>[] {
+  const { rounds, warmup = 1, warmupMs = 1000 } = options
+  const firsts: number[] = fns.map(() => NaN)
+  fns.forEach((fn, k) => {
+    const w0 = performance.now()
+    for (let i = 0; i < Math.max(10, warmup) && (i < warmup || performance.now() - w0 < warmupMs); i++) {
+      fn()
+      if (i === 0) firsts[k] = performance.now() - w0
+    }
+  })
+  const wall: number[][] = fns.map(() => []), cpu: number[][] = fns.map(() => [])
+  const last: unknown[] = fns.map(() => undefined)
+  for (let r = 0; r < rounds; r++) {
+    fns.forEach((fn, k) => {
+      gc()
+      const c0 = process.cpuUsage()
+      const t0 = performance.now()
+      last[k] = fn()
+      wall[k].push(performance.now() - t0)
+      const c = process.cpuUsage(c0)
+      cpu[k].push((c.user + c.system) / 1000)
+    })
+  }
+  return fns.map((_, k) => ({ medianMs: median(wall[k]), cpuMs: median(cpu[k]), samplesMs: wall[k], firstMs: Number.isNaN(firsts[k]) ? wall[k][0] : firsts[k], value: last[k] }))
+}
+
 export function median(values: readonly number[]): number {
   const s = [...values].sort((a, b) => a - b)
   const m = s.length >> 1
