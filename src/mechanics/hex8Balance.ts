@@ -32,8 +32,9 @@
  * (x − α_0)·n integrates to 4 (s α_axis)·(s B×C) (the other terms are odd or B·(B×D) = 0), so
  *   V = Σ_axis H_axis · (n₊ + n₋) / 384,   n_s = b×c of the face at s.
  * Per element: the butterfly writes b, c, d of the six faces and H_1..H_3 into scratch, the
- * stress's edge sums go to scratch (one component at a time, straight from the rows), then one
- * loop over the faces. About 800 floating-point operations an element instead of the 1 000 of
+ * stress's edge sums go to scratch (one component at a time, straight from the rows: for nodal
+ * stress the rows are the nodes, read from the connectivity already loaded), then one loop over
+ * the faces. About 800 floating-point operations an element instead of the 1 000 of
  * the face-by-face form (corner sums and relative coordinates per face, b, c, d from corners);
  * the loop is arithmetic-bound, so that is its speed. computeElementBalanceGeneral (the 2×2 face
  * quadrature) is the plain path the tests hold it to.
