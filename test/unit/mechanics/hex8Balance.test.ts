@@ -88,6 +88,13 @@ describe('hex8 element balance in closed form', () => {
       // nodal, on a connected block: the same random values read through the connectivity
       const nodal = nodalStressField(mesh, en.values.subarray(0, 6 * mesh.nodeCount))
       expectSame(computeElementBalance(allocateElementBalance(E), mesh, nodal, b), computeElementBalanceGeneral(allocateElementBalance(E), mesh, nodal, b), E, 1e-12)
+      // nodal stress takes its rows from the connectivity (rows === conn); the same rows as a
+      // copy go the element-nodal way: the same bits either way
+      const viaConn = computeElementBalance(allocateElementBalance(E), mesh, nodal, b)
+      const viaCopy = computeElementBalance(allocateElementBalance(E), mesh, { ...nodal, rows: nodal.rows.map((r) => r.slice()) }, b)
+      expect(viaCopy.residual).toEqual(viaConn.residual)
+      expect(viaCopy.gross).toEqual(viaConn.gross)
+      expect(viaCopy.indicator).toEqual(viaConn.indicator)
     })
   }
 
