@@ -22,8 +22,6 @@
  * Run alone: npx tsx test/bench/partsCost.ts [parts] [rounds]
  */
 import os from 'node:os'
-import v8 from 'node:v8'
-import vm from 'node:vm'
 import { fileURLToPath } from 'node:url'
 import type { Model } from '../../src/model/model.ts'
 import { readNative, writeNative } from '../../src/io/index.ts'
@@ -38,6 +36,7 @@ import { coincidentInterfaceFaces } from '../../src/mechanics/interfaceFaces.ts'
 import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import type { BoundaryFaces } from '../../src/mechanics/types.ts'
 import { syntheticModel } from './syntheticModel.ts'
+import { settle } from './timing.ts'
 
 export interface PartsCost {
   parts: number
@@ -77,15 +76,6 @@ function faceParts(model: Model, faces: BoundaryFaces): Int32Array {
   return out
 }
 
-// `npm run bench` starts Node without --expose-gc (as timing.ts)
-v8.setFlagsFromString('--expose-gc')
-const gc = vm.runInNewContext('gc') as () => void
-const pause = new Int32Array(new SharedArrayBuffer(4))
-/** A full collection, then 50 ms (untimed) for the collector's background sweeping. */
-function settle(): void {
-  gc()
-  Atomics.wait(pause, 0, 0, 50)
-}
 
 const stat = (a: number[]) => { const s = [...a].sort((x, y) => x - y); return { min: s[0], median: s[s.length >> 1] } }
 

@@ -24,6 +24,16 @@ export interface Timing<T> {
 // `npm run bench` starts Node without --expose-gc, so the flag is set here.
 v8.setFlagsFromString('--expose-gc')
 const gc = vm.runInNewContext('gc') as () => void
+const pause = new Int32Array(new SharedArrayBuffer(4))
+
+/**
+ * A full collection, then `ms` (untimed) for the collector's background sweeping: before a timed
+ * step whose CPU time counts every thread (process.cpuUsage), or that runs beside other threads.
+ */
+export function settle(ms = 50): void {
+  gc()
+  Atomics.wait(pause, 0, 0, ms)
+}
 
 export interface MeasureOptions {
   /** At most this many timed runs (default 7). */
