@@ -27,7 +27,8 @@ import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mec
 import { nodalStressField } from '../../src/model/stressField.ts'
 import { allocateElementBalance, computeBodyBalance, computeElementBalance } from '../../src/mechanics/balanceAudit.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
-import { benchCutModel, cutRatios } from './sectionCut.ts'
+import { benchCutModel, cutInputs, cutRatiosInTurns } from './sectionCut.ts'
+import type { CutBenchType, CutInputs } from './sectionCut.ts'
 import { findLoadPatches } from '../../src/mechanics/loadPatches.ts'
 import { allocateNodalInvariants, computeNodalInvariants } from '../../src/mechanics/invariants.ts'
 import { syntheticModel, cellsPerSide } from './syntheticModel.ts'
@@ -314,11 +315,14 @@ const memory = memoryProbe(ELEMENTS, SEED)
 
 // Per type: the blocks a decade and two decades smaller first (growth; the tet4 one a decade
 // smaller also times the plain baselines, cheap there), then the full block, whose section cut is
-// also timed per type back to back (test/bench/sectionCut.ts). Each model is dropped before the
-// next is built, so the process holds one block at a time.
+// also timed per type back to back (test/bench/sectionCut.ts). What each full block's cut needs
+// (the block itself, its faces and tractions) is kept until the three cuts are timed in turns
+// after the loop; the smaller blocks are dropped as soon as they are timed.
 const models: Record<string, ModelFigures> = {}
 const growthByType: Record<string, { elements: number[]; kernels: Record<string, { exponent: number; timesMs: number[]; cpuMs: number[] }> }> = {}
 const cutRows: Record<string, Record<string, number>> = {}
+// what each type's cut needs, kept until the three are timed in turns after the loop
+const cutInputsByType: Partial<Record<CutBenchType, CutInputs>> = {}
 let baselineModel: ModelFigures | null = null
 const loadRuns: { elements: number; medianMs: number; cpuMs: number; runs: number }[] = []
 // Worker threads for the CSV read in pieces, started once (their start-up is reported apart).
@@ -341,7 +345,8 @@ for (const type of TYPES) {
   }
   runs.push(models[type])
   log(`section cut per type: ${type}`)
-  cutRows[type] = benchCutModel(model, log, 1)
+  cutInputsByType[type] = cutInputs(model)
+  cutRows[type] = benchCutModel(cutInputsByType[type]!, log, 1)
   const sizes = runs.map((g) => g.elements)
   const kernels: Record<string, { exponent: number; timesMs: number[]; cpuMs: number[] }> = {}
   for (const k of KERNELS) {
@@ -352,7 +357,11 @@ for (const type of TYPES) {
   loadSamples.push(os.loadavg()[0])
 }
 await csvLanes.lanes.close()
-const cutByType = { rows: cutRows, ...cutRatios(cutRows) }
+// the types' cuts in turns, for their ratios to the tet4 cut (sectionCut.ts: cutRatiosInTurns)
+log('section cut: the three types in turns')
+const cutTurns = cutRatiosInTurns(cutInputsByType)
+for (const t of TYPES) delete cutInputsByType[t]
+const cutByType = { rows: cutRows, inTurns: cutTurns.times, rounds: cutTurns.rounds, tet10OverTet4: cutTurns.tet10OverTet4, hex8OverTet4: cutTurns.hex8OverTet4 }
 // today's `growth` key: tet4
 const growth = growthByType.tet4.kernels
 const growthSizes = growthByType.tet4.elements
@@ -510,6 +519,7 @@ function renderTables(): string {
   const ct = [['type', 'elements', 'nodes', 'cut elements', 'median ms', 'min ms', 'cpu ms', 'with polygons ms', 'sweep ms', 'unmapped']]
   for (const [t, r] of Object.entries(cutByType.rows)) ct.push([t, String(r.elements), String(r.nodes), String(r.cutElements), f(r.cutMedianMs), f(r.cutMinMs), f(r.cutCpuMs), f(r.cutWithPolygonsMedianMs), f(r.sweep200MedianMs), String(r.unmappedPoints)])
   out.push(pad(ct))
+  out.push(`Cuts in turns (${cutByType.rounds} rounds): ${Object.entries(cutByType.inTurns).map(([t, r]) => `${t} ${f(r.cutMedianMs)} ms (min ${f(r.cutMinMs)})`).join(', ')}`)
   out.push(`tet10 / tet4: median ${f(cutByType.tet10OverTet4?.medianOverTet4)}, min ${f(cutByType.tet10OverTet4?.minOverTet4)}, cpu ${f(cutByType.tet10OverTet4?.cpuOverTet4)}; hex8 / tet4: median ${f(cutByType.hex8OverTet4?.medianOverTet4)}, min ${f(cutByType.hex8OverTet4?.minOverTet4)}, cpu ${f(cutByType.hex8OverTet4?.cpuOverTet4)}`)
   for (const type of TYPES) {
     const gt = growthByType[type]

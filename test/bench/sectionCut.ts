@@ -15,11 +15,13 @@ import { extractBoundaryFaces } from '../../src/mechanics/boundaryFaces.ts'
 import { cutSection } from '../../src/mechanics/sectionCut.ts'
 import { sweepSections } from '../../src/mechanics/sectionSweep.ts'
 import { allocateSurfaceTractions, computeSurfaceTractions } from '../../src/mechanics/tractions.ts'
-import type { Mesh, Model } from '../../src/model/model.ts'
+import type { Mesh, Model, Vec3 } from '../../src/model/model.ts'
+import type { StressField } from '../../src/model/stressField.ts'
+import type { BoundaryFaces, SurfaceTractions } from '../../src/mechanics/types.ts'
 import { nodalStressField } from '../../src/model/stressField.ts'
 import { BENCH_PLANE } from './benchPlane.ts'
 import { syntheticModel } from './syntheticModel.ts'
-import { measure } from './timing.ts'
+import { measure, measureTogether } from './timing.ts'
 
 /** The floor: node distances plus one read of every element's corners and their distances. */
 function readPass(mesh: Mesh): number {
@@ -41,13 +43,26 @@ const min = (t: { samplesMs: number[] }) => Math.min(...t.samplesMs)
 
 export type CutBenchType = 'tet4' | 'tet10' | 'hex8'
 
-/** One model's row: the cut (free body included, polygons off), with polygons, and a sweep of 200 sections. */
-export function benchCutModel(model: Model, log: (s: string) => void = () => {}, sweepRuns = 3): Record<string, number> {
+/** What a cut needs of one model: kept per type, so the types' cuts can be timed in turns. */
+export interface CutInputs {
+  readonly mesh: Mesh
+  readonly stress: StressField
+  readonly faces: BoundaryFaces
+  readonly tractions: SurfaceTractions
+  readonly bodyForce: Vec3
+}
+
+export function cutInputs(model: Model): CutInputs {
   const { mesh, bodyForce } = model
-  const type = mesh.blocks[0].type
   const stress = nodalStressField(mesh, model.stress)
   const faces = extractBoundaryFaces(mesh)
-  const tractions = computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, stress, faces)
+  return { mesh, stress, faces, tractions: computeSurfaceTractions(allocateSurfaceTractions(faces), mesh, stress, faces), bodyForce }
+}
+
+/** One model's row: the cut (free body included, polygons off), with polygons, and a sweep of 200 sections. */
+export function benchCutModel(inputs: CutInputs, log: (s: string) => void = () => {}, sweepRuns = 3): Record<string, number> {
+  const { mesh, stress, faces, tractions, bodyForce } = inputs
+  const type = mesh.blocks[0].type
   log(`section cut: ${type} timing`)
   const floor = measure(() => readPass(mesh), 15, 3)
   const cut = measure(() => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions }), 15, 5)
@@ -75,14 +90,36 @@ export function cutRatios(rows: Record<string, Record<string, number>>) {
   return { tet10OverTet4: ratio('tet10'), hex8OverTet4: ratio('hex8') }
 }
 
-/** Section cut (free body included, polygons off) per type at about `elements` elements, and a sweep. */
+/**
+ * Each type's cut over the tet4 cut, the cuts (free body included, polygons off) timed in turns,
+ * round after round (measureTogether): on a shared machine the types timed minutes apart drifted
+ * (hex8 over tet4 2.2 in one run and 3.6 in the next, the hex8 median 75 ms against a fastest
+ * run of 52 ms), in turns a busy spell lands on every type alike. The same keys as cutRatios,
+ * and each type's times.
+ */
+export function cutRatiosInTurns(inputs: Readonly<Partial<Record<CutBenchType, CutInputs>>>, rounds = 15) {
+  const types = (['tet4', 'tet10', 'hex8'] as const).filter((t) => inputs[t])
+  const timings = measureTogether(types.map((t) => {
+    const { mesh, stress, faces, tractions, bodyForce } = inputs[t]!
+    return () => cutSection(mesh, stress, bodyForce, BENCH_PLANE, { faces, tractions, polygons: false })
+  }), { rounds, warmup: 5, warmupMs: 0 })
+  const rows: Record<string, Record<string, number>> = {}
+  types.forEach((t, k) => { rows[t] = { cutMedianMs: timings[k].medianMs, cutMinMs: min(timings[k]), cutCpuMs: timings[k].cpuMs } })
+  return { rounds, times: rows, ...cutRatios(rows) }
+}
+
+/** Section cut (free body included, polygons off) per type at about `elements` elements, and a sweep; the ratios from the cuts in turns. */
 export function benchCutTypes(elements: number, seed: number, types: readonly CutBenchType[] = ['tet4', 'tet10', 'hex8'], log: (s: string) => void = () => {}) {
   const rows: Record<string, Record<string, number>> = {}
+  const inputs: Partial<Record<CutBenchType, CutInputs>> = {}
   for (const type of types) {
     log(`section cut: ${type} model`)
-    rows[type] = benchCutModel(syntheticModel(type, elements, seed), log)
+    inputs[type] = cutInputs(syntheticModel(type, elements, seed))
+    rows[type] = benchCutModel(inputs[type]!, log)
   }
-  return { rows, ...cutRatios(rows) }
+  log('section cut: the types in turns')
+  const turns = cutRatiosInTurns(inputs)
+  return { rows, inTurns: turns.times, ...cutRatios(turns.times) }
 }
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
