@@ -92,10 +92,10 @@ export function cutRatios(rows: Record<string, Record<string, number>>) {
 
 /**
  * Each type's cut over the tet4 cut, the cuts (free body included, polygons off) timed in turns,
- * round after round (measureTogether): on a shared machine the types timed minutes apart drifted
- * (hex8 over tet4 2.2 in one run and 3.6 in the next, the hex8 median 75 ms against a fastest
- * run of 52 ms), in turns a busy spell lands on every type alike. The same keys as cutRatios,
- * and each type's times.
+ * round after round (measureTogether), all warm. From each type's own row, timed minutes apart,
+ * the ratio was flattered and drifted: the tet4 row, the first cut the process ran, read 21–24 ms
+ * where the warm cut reads 15 ms, and a busy spell lands on one type only (hex8 over tet4 2.2 in
+ * one run, 3.6 in the next). The same keys as cutRatios, and each type's times.
  */
 export function cutRatiosInTurns(inputs: Readonly<Partial<Record<CutBenchType, CutInputs>>>, rounds = 15) {
   const types = (['tet4', 'tet10', 'hex8'] as const).filter((t) => inputs[t])
