@@ -76,7 +76,6 @@ function faceParts(model: Model, faces: BoundaryFaces): Int32Array {
   return out
 }
 
-
 const stat = (a: number[]) => { const s = [...a].sort((x, y) => x - y); return { min: s[0], median: s[s.length >> 1] } }
 
 export function partsCost(model: Model, rounds = 5): PartsCost {

@@ -93,7 +93,7 @@ export function cutRatios(rows: Record<string, Record<string, number>>) {
 /**
  * Each type's cut over the tet4 cut, the cuts (free body included, polygons off) timed in turns,
  * round after round (measureTogether), all warm. From each type's own row, timed minutes apart,
- * the ratio was flattered and drifted: the tet4 row, the first cut the process ran, read 21–24 ms
+ * the ratio was flattered and drifted: the tet4 row, the first cut the process ran, read 21–25 ms
  * where the warm cut reads 15 ms, and a busy spell lands on one type only (hex8 over tet4 2.2 in
  * one run, 3.6 in the next). The same keys as cutRatios, and each type's times.
  */

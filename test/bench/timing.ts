@@ -57,29 +57,19 @@ export function measure<T>(fn: () => T, options: MeasureOptions | number = {}, l
     ? { runs: options, minRuns: options, warmup: legacyWarmup, warmupMs: 0, budgetMs: Infinity }
     : options
   const { runs = 7, minRuns = 3, warmup = 1, warmupMs = 1000, budgetMs = 4000 } = o
-  let value: T = undefined as T
-  const w0 = performance.now()
-  let firstMs = -1
-  for (let i = 0; i < Math.max(10, warmup) && (i < warmup || performance.now() - w0 < warmupMs); i++) {
-    value = fn()
-    if (i === 0) firstMs = performance.now() - w0
-  }
+  let { firstMs, value } = warmUp(fn, warmup, warmupMs)
   const samplesMs: number[] = []
   const cpu: number[] = []
   let spent = 0
   for (let i = 0; i < runs && (i < minRuns || spent < budgetMs); i++) {
-    gc()
-    const c0 = process.cpuUsage()
-    const t0 = performance.now()
-    value = fn()
-    const ms = performance.now() - t0
-    const c = process.cpuUsage(c0)
-    samplesMs.push(ms)
-    cpu.push((c.user + c.system) / 1000)
-    spent += ms
-    if (firstMs < 0) firstMs = ms
+    const t = timedRun(fn)
+    value = t.value
+    samplesMs.push(t.ms)
+    cpu.push(t.cpuMs)
+    spent += t.ms
+    if (firstMs < 0) firstMs = t.ms
   }
-  return { medianMs: median(samplesMs), cpuMs: median(cpu), samplesMs, firstMs, value }
+  return { medianMs: median(samplesMs), cpuMs: median(cpu), samplesMs, firstMs, value: value as T }
 }
 
 /**
@@ -90,28 +80,44 @@ export function measure<T>(fn: () => T, options: MeasureOptions | number = {}, l
  */
 export function measureTogether(fns: readonly (() => unknown)[], options: { rounds: number; warmup?: number; warmupMs?: number }): Timing<unknown>[] {
   const { rounds, warmup = 1, warmupMs = 1000 } = options
-  const firsts: number[] = fns.map(() => NaN)
-  fns.forEach((fn, k) => {
-    const w0 = performance.now()
-    for (let i = 0; i < Math.max(10, warmup) && (i < warmup || performance.now() - w0 < warmupMs); i++) {
-      fn()
-      if (i === 0) firsts[k] = performance.now() - w0
-    }
-  })
+  const firsts = fns.map((fn) => warmUp(fn, warmup, warmupMs).firstMs)
   const wall: number[][] = fns.map(() => []), cpu: number[][] = fns.map(() => [])
   const last: unknown[] = fns.map(() => undefined)
   for (let r = 0; r < rounds; r++) {
     fns.forEach((fn, k) => {
-      gc()
-      const c0 = process.cpuUsage()
-      const t0 = performance.now()
-      last[k] = fn()
-      wall[k].push(performance.now() - t0)
-      const c = process.cpuUsage(c0)
-      cpu[k].push((c.user + c.system) / 1000)
+      const t = timedRun(fn)
+      last[k] = t.value
+      wall[k].push(t.ms)
+      cpu[k].push(t.cpuMs)
     })
   }
-  return fns.map((_, k) => ({ medianMs: median(wall[k]), cpuMs: median(cpu[k]), samplesMs: wall[k], firstMs: Number.isNaN(firsts[k]) ? wall[k][0] : firsts[k], value: last[k] }))
+  return fns.map((_, k) => ({ medianMs: median(wall[k]), cpuMs: median(cpu[k]), samplesMs: wall[k], firstMs: firsts[k] < 0 ? wall[k][0] : firsts[k], value: last[k] }))
+}
+
+/**
+ * Untimed runs: at least `warmup`, more (up to 10) until `warmupMs` is spent, so the optimising
+ * compiler has run. The wall time of the first (-1 when none ran) and the last value.
+ */
+function warmUp<T>(fn: () => T, warmup: number, warmupMs: number): { firstMs: number; value: T | undefined } {
+  const w0 = performance.now()
+  let firstMs = -1
+  let value: T | undefined
+  for (let i = 0; i < Math.max(10, warmup) && (i < warmup || performance.now() - w0 < warmupMs); i++) {
+    value = fn()
+    if (i === 0) firstMs = performance.now() - w0
+  }
+  return { firstMs, value }
+}
+
+/** One timed run after a garbage collection: wall and CPU time (this process, every thread). */
+function timedRun<T>(fn: () => T): { ms: number; cpuMs: number; value: T } {
+  gc()
+  const c0 = process.cpuUsage()
+  const t0 = performance.now()
+  const value = fn()
+  const ms = performance.now() - t0
+  const c = process.cpuUsage(c0)
+  return { ms, cpuMs: (c.user + c.system) / 1000, value }
 }
 
 export function median(values: readonly number[]): number {
